@@ -1,0 +1,41 @@
+// Two jest projects share one jest (~29.7): the app (jest-expo) and the API (ts-jest, node).
+const esmOnly = [
+  'oauth2-mock-server', 'jose', 'ml-regression-.*', 'ml-array-.*', 'is-any-array', 'is-plain-obj',
+];
+module.exports = {
+  projects: [
+    {
+      displayName: 'app',
+      preset: 'jest-expo/web',
+      roots: ['<rootDir>/tests/components'],
+      transformIgnorePatterns: [
+        'node_modules/(?!((jest-)?react-native|@react-native(-community)?|expo(nent)?|@expo(nent)?/.*|@expo-google-fonts/.*|expo-router|@fontsource/.*|victory|victory-.*|react-native-svg|d3-.*|@tanstack/.*))',
+      ],
+      moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1', '\\.(woff2?|ttf)$': '<rootDir>/tests/support/file-stub.js' },
+    },
+    {
+      // Pure engine and reference checks: no database.
+      displayName: 'engine',
+      testEnvironment: 'node',
+      roots: ['<rootDir>/api/estimation', '<rootDir>/tests/reference'],
+      testMatch: ['**/*.test.ts'],
+      transform: {
+        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json', isolatedModules: true }],
+      },
+      transformIgnorePatterns: [`node_modules/(?!(${esmOnly.join('|')})/)`],
+    },
+    {
+      // API tests: supertest against the exported app and a real PostgreSQL.
+      displayName: 'api',
+      testEnvironment: 'node',
+      roots: ['<rootDir>/tests/api'],
+      testMatch: ['**/*.test.ts'],
+      transform: {
+        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json', isolatedModules: true }],
+      },
+      transformIgnorePatterns: [`node_modules/(?!(${esmOnly.join('|')})/)`],
+      globalSetup: '<rootDir>/tests/support/global-setup.ts',
+      globalTeardown: '<rootDir>/tests/support/global-teardown.ts',
+    },
+  ],
+};
