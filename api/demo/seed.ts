@@ -1,0 +1,58 @@
+/**
+ * Loads the demo region into the database: the indicator catalogue, the districts and
+ * their observations, in one transaction. `seedDemoIfEmpty` leaves a database that
+ * already has districts alone; `reseedDemo` replaces the demo data.
+ */
+import type { Knex } from 'knex';
+import { DEMO_INDICATORS } from './catalogue';
+import { generateDemoRegion } from './generate';
+
+async function insertDemo(trx: Knex.Transaction): Promise<{ districts: number; observations: number }> {
+  const region = generateDemoRegion();
+  await trx('indicators')
+    .insert(
+      DEMO_INDICATORS.map((i) => ({
+        code: i.code,
+        name: i.name,
+        unit: i.unit,
+        description: i.description,
+        must_be_positive: i.mustBePositive,
+      })),
+    )
+    .onConflict('code')
+    .merge(['name', 'unit', 'description', 'must_be_positive']);
+  const indicatorIds = new Map<string, number>(
+    (await trx('indicators').select('id', 'code')).map((r: { id: number; code: string }) => [r.code, r.id]),
+  );
+  const districtRows: { id: number; code: string }[] = await trx('districts')
+    .insert(region.districts)
+    .returning(['id', 'code']);
+  const districtIds = new Map(districtRows.map((r) => [r.code, r.id]));
+  const rows = region.observations.map((o) => ({
+    district_id: districtIds.get(o.districtCode)!,
+    indicator_id: indicatorIds.get(o.indicator)!,
+    year: o.year,
+    value: o.value,
+  }));
+  await trx.batchInsert('observations', rows, 1000);
+  return { districts: districtRows.length, observations: rows.length };
+}
+
+export async function seedDemoIfEmpty(db: Knex): Promise<{ seeded: boolean; districts: number; observations: number }> {
+  return db.transaction(async (trx) => {
+    // Serialise concurrent starters on one advisory lock.
+    await trx.raw('SELECT pg_advisory_xact_lock(20261201)');
+    const [{ count }] = await trx('districts').count<{ count: string }[]>({ count: '*' });
+    if (Number(count) > 0) return { seeded: false, districts: Number(count), observations: 0 };
+    return { seeded: true, ...(await insertDemo(trx)) };
+  });
+}
+
+export async function reseedDemo(db: Knex): Promise<{ districts: number; observations: number }> {
+  return db.transaction(async (trx) => {
+    await trx.raw('SELECT pg_advisory_xact_lock(20261201)');
+    await trx('observations').del();
+    await trx('districts').del();
+    return insertDemo(trx);
+  });
+}

@@ -1,0 +1,63 @@
+/**
+ * Starts the server: one port for the API and the web app, graceful shutdown on
+ * SIGINT/SIGTERM (stop accepting, finish open requests, close the pool).
+ */
+import type { Server } from 'node:http';
+import { createApp } from './app';
+import { loadConfig, type Config } from './config';
+import { createDb } from './db';
+
+export interface Running {
+  server: Server;
+  url: string;
+  close(): Promise<void>;
+}
+
+export async function startServer(config: Config = loadConfig()): Promise<Running> {
+  const db = createDb(config.databaseUrl);
+  const app = createApp({ db, config });
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.port, config.host, () => resolve(s));
+    s.once('error', reject);
+  });
+  server.keepAliveTimeout = 5_000;
+  const url = `http://${config.host}:${config.port}`;
+  let closing: Promise<void> | null = null;
+  const close = () =>
+    (closing ??= (async () => {
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeIdleConnections();
+        setTimeout(() => server.closeAllConnections(), 5_000).unref();
+      });
+      await db.destroy();
+    })());
+  return { server, url, close };
+}
+
+export function closeOnSignals(running: Running): void {
+  const onSignal = (signal: NodeJS.Signals) => {
+    process.stderr.write(`${signal} received: shutting down\n`);
+    running.close().then(
+      () => process.exit(0),
+      (err) => {
+        process.stderr.write(`shutdown failed: ${err}\n`);
+        process.exit(1);
+      },
+    );
+  };
+  process.once('SIGINT', onSignal);
+  process.once('SIGTERM', onSignal);
+}
+
+if (require.main === module) {
+  startServer()
+    .then((running) => {
+      closeOnSignals(running);
+      console.log(`Crestwatch is serving on ${running.url}`);
+    })
+    .catch((err: Error) => {
+      console.error(`Crestwatch could not start: ${err.message}`);
+      process.exit(1);
+    });
+}
