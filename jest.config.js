@@ -20,7 +20,7 @@ module.exports = {
       roots: ['<rootDir>/api/estimation', '<rootDir>/tests/reference'],
       testMatch: ['**/*.test.ts'],
       transform: {
-        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json', isolatedModules: true }],
+        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json' }],
       },
       transformIgnorePatterns: [`node_modules/(?!(${esmOnly.join('|')})/)`],
     },
@@ -31,11 +31,24 @@ module.exports = {
       roots: ['<rootDir>/tests/api'],
       testMatch: ['**/*.test.ts'],
       transform: {
-        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json', isolatedModules: true }],
+        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json' }],
       },
       transformIgnorePatterns: [`node_modules/(?!(${esmOnly.join('|')})/)`],
       globalSetup: '<rootDir>/tests/support/global-setup.ts',
       globalTeardown: '<rootDir>/tests/support/global-teardown.ts',
+    },
+    {
+      // Browser tests: the built web app in Debian's Chromium, served by the real API.
+      displayName: 'e2e',
+      testEnvironment: 'node',
+      roots: ['<rootDir>/tests/e2e'],
+      testMatch: ['**/*.test.ts'],
+      testTimeout: 60000,
+      transform: {
+        '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json' }],
+      },
+      transformIgnorePatterns: [`node_modules/(?!(${esmOnly.join('|')})/)`],
+      globalSetup: '<rootDir>/tests/support/global-setup.ts',
     },
   ],
 };

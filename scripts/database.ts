@@ -30,7 +30,7 @@ export async function dropDatabase(port: number, name: string): Promise<void> {
 }
 
 export async function migrate(databaseUrl: string): Promise<string[]> {
-  const db = createDb(databaseUrl, { min: 0, max: 2 });
+  const db = createDb(databaseUrl, { pool: { min: 0, max: 2 } });
   try {
     const [, applied] = await db.migrate.latest({ directory: migrationsDir, loadExtensions: ['.ts'] });
     return applied as string[];

@@ -1,0 +1,33 @@
+/**
+ * npm start: start PostgreSQL, migrate, seed the demo region when the database is empty,
+ * build the web app when stale, and serve everything on one port.
+ */
+import { loadConfig } from '../api/config';
+import { createDb } from '../api/db';
+import { seedDemoIfEmpty } from '../api/demo/seed';
+import { closeOnSignals, startServer } from '../api/server';
+import { prepareDemoDatabase } from './db';
+import { buildWebIfStale } from './web-build';
+
+async function main(): Promise<void> {
+  const config = loadConfig();
+  await prepareDemoDatabase();
+  if (config.mode === 'demo') {
+    const db = createDb(config.databaseUrl);
+    try {
+      const r = await seedDemoIfEmpty(db);
+      if (r.seeded) console.log(`Loaded the demo region: ${r.districts} districts, ${r.observations} observations.`);
+    } finally {
+      await db.destroy();
+    }
+  }
+  buildWebIfStale();
+  const running = await startServer(config);
+  closeOnSignals(running);
+  console.log(`\nCrestwatch is ready: ${running.url}\n`);
+}
+
+main().catch((err: Error) => {
+  console.error(`Crestwatch could not start: ${err.message}`);
+  process.exit(1);
+});

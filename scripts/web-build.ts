@@ -1,0 +1,57 @@
+/**
+ * Builds the static web app (`expo export -p web`) into dist/ when its inputs changed
+ * since the last build. The stamp file holds a hash of every input.
+ */
+import { spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+
+const root = path.resolve(__dirname, '..');
+export const distDir = path.join(root, 'dist');
+const stampFile = path.join(distDir, '.build-stamp');
+const inputDirs = ['app', 'components', 'hooks', 'lib', 'assets'];
+const inputFiles = ['app.json', 'babel.config.js', 'metro.config.js', 'package-lock.json', 'tsconfig.json'];
+
+function hashTree(h: ReturnType<typeof createHash>, dir: string): void {
+  if (!fs.existsSync(dir)) return;
+  for (const entry of fs.readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name))) {
+    const p = path.join(dir, entry.name);
+    if (entry.isDirectory()) hashTree(h, p);
+    else h.update(path.relative(root, p)).update(fs.readFileSync(p));
+  }
+}
+
+export function webInputsHash(): string {
+  const h = createHash('sha256');
+  for (const d of inputDirs) hashTree(h, path.join(root, d));
+  for (const f of inputFiles) if (fs.existsSync(path.join(root, f))) h.update(f).update(fs.readFileSync(path.join(root, f)));
+  return h.digest('hex');
+}
+
+export function buildWebIfStale(log: (m: string) => void = (m) => process.stderr.write(`[web] ${m}\n`)): boolean {
+  const hash = webInputsHash();
+  if (fs.existsSync(stampFile) && fs.readFileSync(stampFile, 'utf8') === hash && fs.existsSync(path.join(distDir, 'index.html'))) {
+    return false;
+  }
+  log('building the web app (expo export -p web)…');
+  const started = Date.now();
+  const r = spawnSync(
+    process.execPath,
+    [path.join(root, 'node_modules', 'expo', 'bin', 'cli'), 'export', '-p', 'web', '--output-dir', 'dist'],
+    { cwd: root, stdio: ['ignore', 'inherit', 'inherit'], env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1' } },
+  );
+  if (r.status !== 0) throw new Error(`expo export failed with exit code ${r.status}`);
+  fs.writeFileSync(stampFile, hash);
+  log(`web app built in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+  return true;
+}
+
+if (require.main === module) {
+  try {
+    buildWebIfStale();
+  } catch (err) {
+    console.error(String((err as Error).message));
+    process.exit(1);
+  }
+}

@@ -1,0 +1,59 @@
+import request from 'supertest';
+import { DEMO_DISTRICTS, generateDemoRegion } from '../../api/demo/generate';
+import { seedDemoIfEmpty } from '../../api/demo/seed';
+import { freshDatabase, type TestDatabase } from '../support/test-db';
+import { testApp } from '../support/test-app';
+
+let t: TestDatabase;
+beforeAll(async () => {
+  t = await freshDatabase();
+  await seedDemoIfEmpty(t.db);
+});
+afterAll(async () => t.drop());
+
+describe('districts API over the seeded demo region', () => {
+  it('lists every district sorted by name with its span and latest values', async () => {
+    const res = await request(testApp(t.db)).get('/api/districts');
+    expect(res.status).toBe(200);
+    const list = res.body.districts as { code: string; name: string; firstYear: number; lastYear: number; nYears: number; latest: Record<string, number> }[];
+    expect(list).toHaveLength(DEMO_DISTRICTS.length);
+    const names = list.map((d) => d.name);
+    expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b, 'en')));
+    const d01 = list.find((d) => d.code === 'D01')!;
+    expect(d01).toMatchObject({ firstYear: 1995, lastYear: 2025, nYears: 31 });
+    const expected = generateDemoRegion().observations.find((o) => o.districtCode === 'D01' && o.year === 2025 && o.indicator === 'income_pc')!;
+    expect(d01.latest).toMatchObject({ year: 2025, incomePc: expected.value });
+  });
+
+  it('returns a district series with gap years present as nulls', async () => {
+    const res = await request(testApp(t.db)).get('/api/districts/D09');
+    expect(res.status).toBe(200);
+    expect(res.body.district).toMatchObject({ code: 'D09', firstYear: 1995, lastYear: 2025, nYears: 30 });
+    expect(res.body.series).toHaveLength(31);
+    const gap = res.body.series.find((r: { year: number }) => r.year === 2008);
+    expect(gap).toEqual({ year: 2008, emissionsPc: null, incomePc: null, population: null, popDensity: null });
+    expect(res.body.indicators.map((i: { code: string }) => i.code)).toEqual(['emissions_pc', 'income_pc', 'population', 'pop_density']);
+  });
+
+  it('keeps non-Latin names intact', async () => {
+    const res = await request(testApp(t.db)).get('/api/districts/D24');
+    expect(res.body.district.name).toBe('Yarrowgate (Jarłowo-Şelé / Жарово)');
+  });
+
+  it('answers an unknown code with 404 and a bad code with 400', async () => {
+    const missing = await request(testApp(t.db)).get('/api/districts/ZZ99');
+    expect(missing.status).toBe(404);
+    expect(missing.body.error).toMatchObject({ code: 'not_found', details: { code: 'ZZ99' } });
+    const bad = await request(testApp(t.db)).get('/api/districts/%3Cscript%3E');
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.code).toBe('invalid_request');
+  });
+
+  it('seeding again leaves existing data alone', async () => {
+    const before = await t.db('observations').count<{ count: string }[]>({ count: '*' });
+    const r = await seedDemoIfEmpty(t.db);
+    expect(r.seeded).toBe(false);
+    const after = await t.db('observations').count<{ count: string }[]>({ count: '*' });
+    expect(after[0].count).toBe(before[0].count);
+  });
+});

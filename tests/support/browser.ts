@@ -1,0 +1,91 @@
+/**
+ * Browser-test harness: the real app (API + exported web build) on a loopback port over a
+ * fresh seeded database, and Debian's Chromium driven by playwright-core. Every request
+ * the page makes is recorded so a test can check none leaves 127.0.0.1.
+ */
+import fs from 'node:fs';
+import type { AddressInfo, Server } from 'node:net';
+import path from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { seedDemoIfEmpty } from '../../api/demo/seed';
+import { testApp } from './test-app';
+import { freshDatabase, type TestDatabase } from './test-db';
+
+export const root = path.resolve(__dirname, '..', '..');
+export const artifactsDir = path.join(root, 'tests', 'artifacts', 'screenshots');
+export const webDir = path.join(root, 'dist');
+
+export const VIEWPORTS = {
+  phone: { width: 390, height: 844 },
+  laptop: { width: 1280, height: 800 },
+  wide: { width: 1440, height: 900 },
+} as const;
+
+export interface Harness {
+  baseUrl: string;
+  browser: Browser;
+  t: TestDatabase;
+  requests: string[];
+  newPage(viewport: { width: number; height: number }): Promise<{ context: BrowserContext; page: Page }>;
+  shot(page: Page, name: string): Promise<string>;
+  close(): Promise<void>;
+}
+
+export async function startHarness(): Promise<Harness> {
+  if (!fs.existsSync(path.join(webDir, 'index.html'))) {
+    throw new Error('dist/ has no web build: run `npm test` (it builds) or `npm run build:web` first');
+  }
+  const t = await freshDatabase();
+  await seedDemoIfEmpty(t.db);
+  const app = testApp(t.db, { webDir });
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const userDataDir = fs.mkdtempSync(path.join(require('node:os').tmpdir(), 'cw-chromium-'));
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      `--user-data-dir=${userDataDir}`,
+    ],
+  });
+  fs.mkdirSync(artifactsDir, { recursive: true });
+  const requests: string[] = [];
+  return {
+    baseUrl,
+    browser,
+    t,
+    requests,
+    async newPage(viewport) {
+      const context = await browser.newContext({ viewport, deviceScaleFactor: 1 });
+      const page = await context.newPage();
+      page.on('request', (req) => requests.push(req.url()));
+      return { context, page };
+    },
+    async shot(page, name) {
+      const file = path.join(artifactsDir, `${name}.png`);
+      await page.screenshot({ path: file, fullPage: false });
+      return file;
+    },
+    async close() {
+      await browser.close();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections?.();
+      await t.drop();
+      fs.rmSync(userDataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Requests that went anywhere but the loopback server (data: and blob: URLs are local). */
+export function offLoopback(requests: string[]): string[] {
+  return requests.filter((u) => !/^(data:|blob:|http:\/\/127\.0\.0\.1:\d+\/)/.test(u));
+}
