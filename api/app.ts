@@ -7,9 +7,10 @@ import helmet from 'helmet';
 import type { Knex } from 'knex';
 import morgan from 'morgan';
 import type { Config } from './config';
-import { districtsRouter } from './districts/router';
-import { healthRouter } from './health/router';
+import type { AppContext } from './context';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { mountRoutes } from './http/routes';
+import { routeTable } from './routes';
 import { webRouter } from './web/static-routes';
 
 export interface AppDeps {
@@ -41,12 +42,12 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
   if (config.logRequests) {
     app.use(morgan(':method :url :status :res[content-length] - :response-time ms', { stream: { write: (l) => log(l.trimEnd()) } }));
   }
+  const ctx: AppContext = { db, config, log };
+  app.use('/api', express.json({ limit: '2mb' }));
   const api = express.Router();
-  api.use(express.json({ limit: '2mb' }));
-  api.use('/health', healthRouter(db));
-  api.use('/districts', districtsRouter(db));
-  api.use(apiNotFound);
-  app.use('/api', api);
+  mountRoutes(api, routeTable(ctx));
+  app.use(api);
+  app.use('/api', apiNotFound);
   app.use(webRouter(config.webDir));
   app.use(errorMiddleware(log));
   return app;

@@ -1,17 +1,23 @@
-import { Router } from 'express';
-import type { Knex } from 'knex';
+import type { AppContext } from '../context';
+import { route, type RouteSpec } from '../http/routes';
 
-/** GET /api/health: the server answers and says whether the database does. */
-export function healthRouter(db: Knex): Router {
-  const r = Router();
-  r.get('/', async (_req, res) => {
-    let database: 'up' | 'down' = 'up';
-    try {
-      await db.raw('SELECT 1');
-    } catch {
-      database = 'down';
-    }
-    res.status(database === 'up' ? 200 : 503).json({ status: database === 'up' ? 'ok' : 'degraded', database });
-  });
-  return r;
+export function healthRoutes({ db }: AppContext): RouteSpec[] {
+  return [
+    route({
+      method: 'get',
+      path: '/api/health',
+      allow: 'public',
+      tag: 'system',
+      summary: 'The server answers and says whether the database does',
+      handler: async (_input, _req, res) => {
+        let database: 'up' | 'down' = 'up';
+        try {
+          await db.raw('SELECT 1');
+        } catch {
+          database = 'down';
+        }
+        res.status(database === 'up' ? 200 : 503).json({ status: database === 'up' ? 'ok' : 'degraded', database });
+      },
+    }),
+  ];
 }

@@ -48,3 +48,15 @@ describe('GET /api/health', () => {
     expect(res.headers['x-powered-by']).toBeUndefined();
   });
 });
+
+describe('GET /api/openapi.json', () => {
+  it('documents every route of the route table', async () => {
+    const res = await request(testApp(t.db)).get('/api/openapi.json');
+    expect(res.status).toBe(200);
+    expect(res.body.openapi).toBe('3.1.0');
+    expect(res.body.paths['/api/districts/{code}'].get.parameters).toEqual([
+      expect.objectContaining({ name: 'code', in: 'path', required: true }),
+    ]);
+    expect(Object.keys(res.body.paths)).toEqual(expect.arrayContaining(['/api/health', '/api/districts', '/api/openapi.json']));
+  });
+});

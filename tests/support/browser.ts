@@ -4,7 +4,8 @@
  * the page makes is recorded so a test can check none leaves 127.0.0.1.
  */
 import fs from 'node:fs';
-import type { AddressInfo, Server } from 'node:net';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { seedDemoIfEmpty } from '../../api/demo/seed';

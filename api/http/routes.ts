@@ -1,0 +1,82 @@
+/**
+ * The route table: every API route is declared here-shaped — method, path, who may call
+ * it, its request schemas and its handler. One list feeds the guard (deny by default),
+ * the OpenAPI file and the role-matrix test, so they cannot drift apart.
+ */
+import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
+import type { z } from 'zod';
+import { AppError } from './errors';
+import { validate, type Parsed } from './validate';
+
+export const ROLES = ['admin', 'analyst', 'official'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** Who may call a route: nobody signed in needed, or one of these roles. */
+export type Allow = 'public' | readonly Role[];
+export const SIGNED_IN: readonly Role[] = ROLES;
+export const STAFF: readonly Role[] = ['admin', 'analyst'];
+export const ADMIN: readonly Role[] = ['admin'];
+
+export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+
+/** The signed-in person as the guard sees it (set on req.user by the auth layer). */
+export interface Caller {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+}
+
+export interface RouteSpec<P extends z.ZodType = z.ZodType, Q extends z.ZodType = z.ZodType, B extends z.ZodType = z.ZodType> {
+  method: Method;
+  /** Express path under the app root, e.g. `/api/districts/:code`. */
+  path: string;
+  allow: Allow;
+  summary: string;
+  tag: string;
+  schemas?: { params?: P; query?: Q; body?: B };
+  /** Middleware that runs after the guard and before validation (e.g. multer). */
+  before?: RequestHandler[];
+  /** Content type of a successful answer when it is not JSON. */
+  produces?: string;
+  /** State-changing routes open to anonymous callers must say why (checked by tests). */
+  anonymousWriteReason?: string;
+  /** Return a value to send it as JSON; or write to res yourself and return undefined. */
+  handler: (input: Parsed<P, Q, B>, req: Request, res: Response) => unknown | Promise<unknown>;
+}
+
+/** Helper that keeps the schema types attached to the handler's input. */
+export function route<P extends z.ZodType = z.ZodAny, Q extends z.ZodType = z.ZodAny, B extends z.ZodType = z.ZodAny>(
+  spec: RouteSpec<P, Q, B>,
+): RouteSpec {
+  return spec as unknown as RouteSpec;
+}
+
+export function callerOf(req: Request): Caller | null {
+  return ((req as { user?: unknown }).user as Caller | undefined) ?? null;
+}
+
+/** The guard for one route: 401 without a session, 403 for a deactivated person or a wrong role. */
+export function guard(allow: Allow): RequestHandler {
+  return (req: Request, _res: Response, next: NextFunction) => {
+    if (allow === 'public') return next();
+    const caller = callerOf(req);
+    if (!caller) throw new AppError(401, 'unauthenticated', 'Sign in to continue.');
+    if (!caller.active) throw new AppError(403, 'deactivated', 'This account has been deactivated.');
+    if (!allow.includes(caller.role)) {
+      throw new AppError(403, 'forbidden', `This needs one of these roles: ${allow.join(', ')}.`);
+    }
+    next();
+  };
+}
+
+export function mountRoutes(router: Router, specs: RouteSpec[]): void {
+  for (const spec of specs) {
+    const handler: RequestHandler = async (req, res) => {
+      const result = await spec.handler(res.locals.input as Parsed<z.ZodType, z.ZodType, z.ZodType>, req, res);
+      if (result !== undefined && !res.headersSent) res.json(result);
+    };
+    router[spec.method](spec.path, guard(spec.allow), ...(spec.before ?? []), validate(spec.schemas ?? {}), handler);
+  }
+}
