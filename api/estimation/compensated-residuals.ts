@@ -11,6 +11,9 @@
  * These residuals drive the iterative refinement of ols (Golub & Wilkinson 1966, "Note on
  * the iterative refinement of least squares solution", Numerische Mathematik 9, 139–148).
  *
+ * When `xLo` is given, X is the double-double design x + xLo and the terms xLo·b are
+ * added to the error sum (their own rounding is below the result's).
+ *
  * Throws: nothing. `out` (length n) receives the residuals; X is column-major n × k.
  *
  * Example:
@@ -20,6 +23,7 @@
  */
 export function compensatedResiduals(
   x: Float64Array, y: Float64Array, b: Float64Array, n: number, k: number, out: Float64Array,
+  xLo?: Float64Array,
 ): Float64Array {
   const SPLIT = 134217729;
   for (let i = 0; i < n; i++) {
@@ -39,6 +43,7 @@ export function compensatedResiduals(
       err += ((s - (s2 - bb)) + (p - bb)) + pe;
       s = s2;
     }
+    if (xLo) for (let c = 0; c < k; c++) err -= xLo[c * n + i] * b[c];
     out[i] = s + err;
   }
   return out;

@@ -14,6 +14,8 @@ import type { LeastSquaresCore } from './types';
  * Reference: Businger & Golub (1965), Numerische Mathematik 7(3), 269–276; the arithmetic
  * as in double-double.ts (Dekker 1971; Hida, Li & Bailey 2001).
  *
+ * `xLo` (optional) holds the low-order parts of a double-double design (x + xLo exactly).
+ *
  * Throws: nothing; a rank-deficient design is reported through `rank` < k and the caller
  * (ols.ts) raises the error naming the columns.
  *
@@ -21,10 +23,11 @@ import type { LeastSquaresCore } from './types';
  * about 14 significant digits (see tests/reference/nist.test.ts), where a double QR gives ~7.
  */
 export function leastSquaresDoubleDouble(
-  x: Float64Array, y: Float64Array, n: number, k: number, rankTolerance: number,
+  x: Float64Array, y: Float64Array, n: number, k: number, rankTolerance: number, xLo?: Float64Array,
 ): LeastSquaresCore {
   const ah = Float64Array.from(x);
-  const al = new Float64Array(n * k);
+  const al = xLo ? Float64Array.from(xLo) : new Float64Array(n * k);
+  if (xLo) for (let i = 0; i < n * k; i++) { const t = ah[i] + al[i]; al[i] = al[i] - (t - ah[i]); ah[i] = t; }
   const yh = Float64Array.from(y);
   const yl = new Float64Array(n);
   const tauH = new Float64Array(k), tauL = new Float64Array(k);
@@ -127,7 +130,7 @@ export function leastSquaresDoubleDouble(
   for (let i = 0; i < n; i++) {
     let [sh, sl] = [y[i], 0];
     for (let c = 0; c < k; c++) {
-      const [ph, pl] = ddMul(x[c * n + i], 0, zH[c], zL[c]);
+      const [ph, pl] = ddMul(x[c * n + i], xLo ? xLo[c * n + i] : 0, zH[c], zL[c]);
       [sh, sl] = ddAdd(sh, sl, -ph, -pl);
     }
     core.residuals[i] = sh + sl;

@@ -17,6 +17,8 @@ import { upperTriangularInverse } from './upper-triangular-inverse';
  * Reference: Golub, G. H. and Wilkinson, J. H. (1966), "Note on the iterative refinement of
  * least squares solution", Numerische Mathematik 9(2), 139–148; Businger & Golub (1965).
  *
+ * `xLo` (optional) are low-order parts of a double-double design, used in the residuals.
+ *
  * Throws: nothing; rank < k is reported in the result (R, pivots) for the caller to name.
  *
  * Example: on NIST Longley (16 × 7, κ ≈ 4.9e9) the coefficients agree with the certified
@@ -24,6 +26,7 @@ import { upperTriangularInverse } from './upper-triangular-inverse';
  */
 export function leastSquaresDouble(
   x: Float64Array, y: Float64Array, n: number, k: number, rankTolerance: number, maxRefinement = 3,
+  xLo?: Float64Array,
 ): LeastSquaresCore {
   const a = Float64Array.from(x);
   const f = pivotedQr(a, n, k, rankTolerance);
@@ -59,12 +62,12 @@ export function leastSquaresDouble(
   };
   solveInto(b, false);
   const e = core.residuals;
-  compensatedResiduals(x, y, b, n, k, e);
+  compensatedResiduals(x, y, b, n, k, e, xLo);
   for (let step = 0; step < maxRefinement; step++) {
     work.set(e);
     const maxDelta = solveInto(b, true);
     core.refinementSteps = step + 1;
-    compensatedResiduals(x, y, b, n, k, e);
+    compensatedResiduals(x, y, b, n, k, e, xLo);
     let maxB = 0;
     for (let c = 0; c < k; c++) if (Math.abs(b[c]) > maxB) maxB = Math.abs(b[c]);
     if (!(maxDelta > 1.1102230246251565e-16 * maxB)) break;

@@ -3,11 +3,17 @@
  * core shared by the double and double-double solvers). No functions here.
  */
 
-/** Column-major design matrix: entry (i, j) is data[j * nRows + i]. */
+/**
+ * Column-major design matrix: entry (i, j) is data[j * nRows + i]. `dataLo`, when given,
+ * holds low-order parts so that entry (i, j) is exactly data + dataLo (a double-double
+ * design, e.g. raw polynomial powers from polynomial-design.ts); solvers that work in
+ * double use data only, except for the compensated residuals.
+ */
 export interface DesignMatrix {
   nRows: number;
   nCols: number;
   data: Float64Array;
+  dataLo?: Float64Array;
 }
 
 /** What a least-squares solver hands to ols (internal; column-major Float64Arrays). */

@@ -1,0 +1,161 @@
+import { twoSidedP } from './distributions';
+import { EstimationInputError } from './errors';
+import { leastSquaresDoubleDouble } from './least-squares-dd';
+import { leastSquaresDouble } from './least-squares-double';
+import { DEFAULT_RANK_TOLERANCE } from './qr';
+import { robustCovariance } from './robust-covariance';
+import type { DesignMatrix, LeastSquaresCore, OlsOptions, OlsResult } from './types';
+
+/** Scaled condition estimate above which 'auto' precision refits in double-double. */
+export const DOUBLE_DOUBLE_THRESHOLD = 1e7;
+
+/**
+ * The OLS fit behind `ols` and `fitCurve`, on a column-major design: solves, checks the
+ * rank, estimates the condition, forms the requested covariance and the summary
+ * statistics, and returns the plain result together with the internal QR core (thin Q,
+ * R⁻¹) that the diagnostics reuse.
+ *
+ * Formulas: b by pivoted Householder QR with refinement (least-squares-double.ts), or in
+ * double-double when precision is 'double-double', or 'auto' and κ₁(R·D⁻¹) > 1e7
+ * (least-squares-dd.ts); RSS = Σe², R² = 1 − RSS/TSS (TSS about the mean when X has a
+ * constant column, else about zero, as R's summary.lm), adj R² = 1 − (1 − R²)(n − i)/(n − k)
+ * with i = 1 for a centred R² and 0 otherwise, s = √(RSS/(n − k)), t = b/SE, two-sided p
+ * from t(n − k); condition κ₁(R) = ‖R‖₁‖R⁻¹‖₁ (within a factor k of κ₂(X)).
+ * Reference: Businger & Golub (1965), Numerische Mathematik 7(3), 269–276; Higham, N. J.
+ * (2002), Accuracy and Stability of Numerical Algorithms, 2nd ed., SIAM, ch. 20.
+ *
+ * Throws: EstimationInputError `rank_deficient` (details: rank, k, dependent columns and the
+ * columns each depends on), `invalid_argument` (n ≤ k, option errors), `covariance_undefined`.
+ *
+ * Example: fitLeastSquares({ nRows: 3, nCols: 2, data: Float64Array.from([1,1,1, 1,2,3]) },
+ *   Float64Array.from([1, 2, 4])).result.coefficients   // → [-0.6666666666666666, 1.5]
+ */
+export function fitLeastSquares(
+  X: DesignMatrix, y: Float64Array, options: OlsOptions = {},
+): { result: OlsResult; core: LeastSquaresCore } {
+  const { nRows: n, nCols: k, data, dataLo } = X;
+  const names = options.names ? [...options.names] : Array.from({ length: k }, (_, j) => `x${j}`);
+  if (names.length !== k) {
+    throw new EstimationInputError('invalid_argument', `Got ${names.length} column names for ${k} columns`, { reason: 'names' });
+  }
+  if (!(n > k)) {
+    throw new EstimationInputError('invalid_argument', `OLS needs more rows than columns (n = ${n}, k = ${k})`, { reason: 'too_few_rows', n, k });
+  }
+  const tol = options.rankTolerance ?? DEFAULT_RANK_TOLERANCE;
+  const precision = options.precision ?? 'auto';
+  let core = precision === 'double-double'
+    ? leastSquaresDoubleDouble(data, y, n, k, tol, dataLo)
+    : leastSquaresDouble(data, y, n, k, tol, 3, dataLo);
+  if (core.rank < k) throw rankError(core, names);
+  let cond = conditionEstimates(core);
+  if (precision === 'auto' && cond.scaled > DOUBLE_DOUBLE_THRESHOLD) {
+    core = leastSquaresDoubleDouble(data, y, n, k, tol, dataLo);
+    if (core.rank < k) throw rankError(core, names);
+    cond = conditionEstimates(core);
+  }
+  const e = core.residuals;
+  const q1 = core.q1;
+  const leverage = new Float64Array(n);
+  for (let c = 0; c < k; c++) {
+    const off = c * n;
+    for (let i = 0; i < n; i++) leverage[i] += q1[off + i] * q1[off + i];
+  }
+  let rss = 0;
+  for (let i = 0; i < n; i++) rss += e[i] * e[i];
+  const centered = options.centeredRSquared ?? hasConstantColumn(data, n, k);
+  let tss = 0;
+  if (centered) {
+    let mean = 0;
+    for (let i = 0; i < n; i++) mean += y[i];
+    mean /= n;
+    for (let i = 0; i < n; i++) tss += (y[i] - mean) * (y[i] - mean);
+  } else {
+    for (let i = 0; i < n; i++) tss += y[i] * y[i];
+  }
+  const df = n - k;
+  const rSquared = tss > 0 ? 1 - rss / tss : 0;
+  const adjRSquared = 1 - (1 - rSquared) * ((n - (centered ? 1 : 0)) / df);
+  const { matrix, info } = robustCovariance(core, e, leverage, options);
+  const coefficients = Array.from(core.coefficients);
+  const covariance: number[][] = [];
+  const standardErrors: number[] = [];
+  const tStatistics: number[] = [];
+  const pValues: number[] = [];
+  for (let a = 0; a < k; a++) {
+    const row: number[] = new Array(k);
+    for (let b = 0; b < k; b++) row[b] = matrix[b * k + a];
+    covariance.push(row);
+    const se = Math.sqrt(Math.max(0, matrix[a * k + a]));
+    standardErrors.push(se);
+    const t = coefficients[a] / se;
+    tStatistics.push(t);
+    pValues.push(twoSidedP(t, df));
+  }
+  const fitted = new Array<number>(n);
+  for (let i = 0; i < n; i++) fitted[i] = y[i] - e[i];
+  const result: OlsResult = {
+    names, coefficients, standardErrors, tStatistics, pValues, covariance, covarianceInfo: info,
+    residuals: Array.from(e), fitted, leverage: Array.from(leverage), n, k, df, rank: core.rank, rss, tss,
+    rSquared, adjRSquared, residualStandardError: Math.sqrt(rss / df),
+    condition: { estimate: cond.raw, scaledEstimate: cond.scaled, precision: core.precision, refinementSteps: core.refinementSteps },
+  };
+  return { result, core };
+}
+
+function hasConstantColumn(data: Float64Array, n: number, k: number): boolean {
+  for (let c = 0; c < k; c++) {
+    const v = data[c * n];
+    if (v === 0) continue;
+    let same = true;
+    for (let i = 1; i < n && same; i++) same = data[c * n + i] === v;
+    if (same) return true;
+  }
+  return false;
+}
+
+function conditionEstimates(core: LeastSquaresCore): { raw: number; scaled: number } {
+  const { k, r, rinv, columnNorms } = core;
+  let rn = 0, rsn = 0, in1 = 0, isn = 0;
+  for (let c = 0; c < k; c++) {
+    let s = 0, ss = 0, t = 0, ts = 0;
+    for (let i = 0; i <= c; i++) {
+      s += Math.abs(r[c * k + i]);
+      ss += Math.abs(r[c * k + i]) / columnNorms[c];
+      t += Math.abs(rinv[c * k + i]);
+      ts += Math.abs(rinv[c * k + i]) * columnNorms[i];
+    }
+    rn = Math.max(rn, s); rsn = Math.max(rsn, ss); in1 = Math.max(in1, t); isn = Math.max(isn, ts);
+  }
+  return { raw: rn * in1, scaled: rsn * isn };
+}
+
+function rankError(core: LeastSquaresCore, names: string[]): EstimationInputError {
+  const { k, rank, perm, r, columnNorms } = core;
+  const dependent: string[] = [];
+  const dependsOn: Record<string, string[]> = {};
+  const parts: string[] = [];
+  for (let c = rank; c < k; c++) {
+    const name = names[perm[c]];
+    dependent.push(name);
+    if (!(columnNorms[c] > 0)) {
+      dependsOn[name] = [];
+      parts.push(`column '${name}' is all zeros`);
+      continue;
+    }
+    // R11 z = R12(:, c): the column as a combination of the columns chosen before it
+    const z = new Float64Array(rank);
+    for (let i = rank - 1; i >= 0; i--) {
+      let s = r[c * k + i];
+      for (let m = i + 1; m < rank; m++) s -= r[m * k + i] * z[m];
+      z[i] = s / r[i * k + i];
+    }
+    const on: string[] = [];
+    for (let i = 0; i < rank; i++) if (Math.abs(z[i]) * columnNorms[i] > 1e-6 * columnNorms[c]) on.push(names[perm[i]]);
+    on.sort((a, b) => names.indexOf(a) - names.indexOf(b));
+    dependsOn[name] = on;
+    parts.push(`column '${name}' is a linear combination of ${on.map((s) => `'${s}'`).join(', ')}`);
+  }
+  return new EstimationInputError('rank_deficient',
+    `Design matrix is rank deficient (rank ${rank} of ${k}): ${parts.join('; ')}`,
+    { rank, k, dependent, dependsOn });
+}

@@ -1,0 +1,22 @@
+// The estimation engine's public surface: every estimator and its pieces.
+export * from './errors';
+export * from './types';
+export { ols } from './ols';
+export { polynomialDesign } from './polynomial-design';
+export { fitLeastSquares } from './fit-least-squares';
+export { pivotedQr, DEFAULT_RANK_TOLERANCE } from './qr';
+export type { QrFactorisation } from './qr';
+export { applyQt } from './qr-apply';
+export { thinQ } from './thin-q';
+export { upperTriangularInverse } from './upper-triangular-inverse';
+export { leastSquaresDouble } from './least-squares-double';
+export { leastSquaresDoubleDouble } from './least-squares-dd';
+export { compensatedResiduals } from './compensated-residuals';
+export { robustCovariance } from './robust-covariance';
+export { heteroskedasticMeat } from './hc-meat';
+export { neweyWestMeat } from './newey-west-meat';
+export { clusterMeat } from './cluster-meat';
+export { defaultNeweyWestLag } from './newey-west-lag';
+export { criticalValue, upperTail, twoSidedP, fUpperTail, chiSquareUpperTail } from './distributions';
+export { twoSum, twoProd, ddAdd, ddMul, ddDiv, ddSqrt } from './double-double';
+export type { DD } from './double-double';
