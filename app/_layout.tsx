@@ -1,0 +1,71 @@
+import { QueryClientProvider } from '@tanstack/react-query';
+import { Slot, useGlobalSearchParams, type ErrorBoundaryProps } from 'expo-router';
+import { useState } from 'react';
+import { ScrollView, StyleSheet, Text, View } from 'react-native';
+
+import { DistrictListPanel } from '@/components/district/district-list-panel';
+import { AppHeader } from '@/components/layout/app-header';
+import { RegionShell } from '@/components/layout/region-shell';
+import { ServerNotice } from '@/components/layout/server-notice';
+import { StatePanel } from '@/components/state/state-panel';
+import { colors, space, type } from '@/components/theme';
+import { Button } from '@/components/ui/button';
+import { useAppFonts } from '@/hooks/use-app-fonts';
+import { useDistrictsQuery } from '@/hooks/use-districts';
+import { useHealthQuery } from '@/hooks/use-health';
+import { useLayoutMode } from '@/hooks/use-layout-mode';
+import { createQueryClient } from '@/lib/query-client';
+
+export default function RootLayout() {
+  const [queryClient] = useState(createQueryClient);
+  const fontsReady = useAppFonts();
+  if (!fontsReady) return <View style={styles.blank} />;
+  return (
+    <QueryClientProvider client={queryClient}>
+      <Frame />
+    </QueryClientProvider>
+  );
+}
+
+function Frame() {
+  const mode = useLayoutMode();
+  const districts = useDistrictsQuery();
+  const health = useHealthQuery();
+  const { code } = useGlobalSearchParams<{ code?: string }>();
+  return (
+    <RegionShell
+      mode={mode}
+      header={
+        <>
+          <AppHeader />
+          <ServerNotice health={health} />
+        </>
+      }
+      list={<DistrictListPanel districts={districts} selectedCode={code} />}
+    >
+      <Slot />
+    </RegionShell>
+  );
+}
+
+/** Shown instead of the whole app when rendering throws; needs no provider or font. */
+export function ErrorBoundary({ error, retry }: ErrorBoundaryProps) {
+  return (
+    <ScrollView style={styles.blank} contentContainerStyle={styles.errorContent}>
+      <Text style={styles.errorBrand}>Crestwatch</Text>
+      <StatePanel
+        tone="alert"
+        title="This screen stopped working"
+        message={`Something went wrong while drawing it: ${error.message}`}
+      >
+        <Button label="Try again" onPress={() => void retry()} />
+      </StatePanel>
+    </ScrollView>
+  );
+}
+
+const styles = StyleSheet.create({
+  blank: { flex: 1, backgroundColor: colors.background },
+  errorContent: { padding: space.xl, gap: space.lg, maxWidth: 640 },
+  errorBrand: { ...type.title, color: colors.text },
+});

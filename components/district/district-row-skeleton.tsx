@@ -1,0 +1,40 @@
+import { StyleSheet, View } from 'react-native';
+
+import { Skeleton } from '@/components/state/skeleton';
+import { colors, layout, space } from '@/components/theme';
+
+/** Stands in for a DistrictRow while the list loads: same height, same blocks. */
+export function DistrictRowSkeleton({ index }: { index: number }) {
+  // Vary the name width a little so the placeholder does not read as a pattern.
+  const nameWidth = 96 + ((index * 37) % 80);
+  return (
+    <View style={styles.row}>
+      <View style={styles.main}>
+        <Skeleton width={nameWidth} height={18} />
+        <Skeleton width={150} height={12} />
+      </View>
+      <View style={styles.values}>
+        <Skeleton width={64} height={12} />
+        <Skeleton width={110} height={14} />
+        <Skeleton width={120} height={14} />
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: {
+    height: layout.districtRowHeight,
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    paddingHorizontal: space.lg,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.border,
+    borderLeftWidth: 4,
+    borderLeftColor: colors.transparent,
+    backgroundColor: colors.surface,
+  },
+  main: { flex: 1, gap: space.sm },
+  values: { alignItems: 'flex-end', gap: space.xs },
+});

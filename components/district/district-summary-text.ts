@@ -1,0 +1,38 @@
+// Words for one district's coverage and latest values, shared by the list row (visible and
+// screen-reader text) and the region overview.
+import type { DistrictSummary } from '@/lib/api-types';
+import { countGapYears, formatYearCount, formatYearSpan } from '@/lib/format';
+import { indicatorColumn } from '@/lib/indicators';
+
+const emissions = indicatorColumn('emissions_pc');
+const income = indicatorColumn('income_pc');
+
+/** "1995–2025 · 30 years of data · 1 gap year", or "No data yet". */
+export function coverageText(d: Pick<DistrictSummary, 'firstYear' | 'lastYear' | 'nYears'>): string {
+  const span = formatYearSpan(d.firstYear, d.lastYear);
+  if (span === null) return 'No data yet';
+  const gaps = countGapYears(d.firstYear, d.lastYear, d.nYears);
+  const parts = [span, formatYearCount(d.nYears)];
+  if (gaps > 0) parts.push(`${gaps} ${gaps === 1 ? 'gap year' : 'gap years'}`);
+  return parts.join(' · ');
+}
+
+export type LatestValue = { label: string; value: string | null; unit: string };
+
+/** The latest emissions and income values, formatted, null where the year has none. */
+export function latestValues(d: DistrictSummary): LatestValue[] {
+  const latest = d.latest;
+  return [emissions, income].map((column) => {
+    const raw = latest ? latest[column.field] : null;
+    return { label: column.short, value: raw === null ? null : column.format(raw), unit: column.shortUnit };
+  });
+}
+
+/** One sentence for screen readers: name, code, coverage and the latest values. */
+export function districtRowLabel(d: DistrictSummary): string {
+  const values = latestValues(d)
+    .map((v) => `${v.label.toLowerCase()} ${v.value === null ? 'no data' : `${v.value} ${v.unit}`}`)
+    .join(', ');
+  const latest = d.latest ? ` Latest year ${d.latest.year}: ${values}.` : '';
+  return `${d.name}, code ${d.code}. ${coverageText(d)}.${latest}`;
+}

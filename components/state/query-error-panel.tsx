@@ -1,0 +1,42 @@
+import { ApiError } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+
+import { StatePanel } from './state-panel';
+
+export type QueryErrorPanelProps = {
+  /** What failed to load, for the title: "the district list". */
+  what: string;
+  error: unknown;
+  onRetry: () => void;
+  retrying?: boolean;
+  testID?: string;
+};
+
+/** Words for a failed request; the server's own message for refusals (4xx). */
+export function describeLoadError(error: unknown): string {
+  if (error instanceof ApiError) {
+    if (error.status === 0) return 'The Crestwatch server could not be reached. Check the connection, then try again.';
+    if (error.isClientError) return error.message;
+    if (error.code === 'bad_response') return 'The server sent an answer this screen cannot read.';
+    return `The server could not answer just now (${error.status} ${error.code}). Try again in a moment.`;
+  }
+  return 'Something unexpected went wrong while loading.';
+}
+
+/** Error state with a Retry button (not offered for 4xx: asking again gets the same refusal). */
+export function QueryErrorPanel({ what, error, onRetry, retrying = false, testID }: QueryErrorPanelProps) {
+  const canRetry = !(error instanceof ApiError && error.isClientError);
+  return (
+    <StatePanel tone="alert" title={`Could not load ${what}`} message={describeLoadError(error)} testID={testID}>
+      {canRetry ? (
+        <Button
+          label="Retry"
+          busy={retrying}
+          busyLabel="Retrying…"
+          onPress={onRetry}
+          accessibilityHint={`Loads ${what} again`}
+        />
+      ) : null}
+    </StatePanel>
+  );
+}

@@ -1,0 +1,114 @@
+// Crestwatch's design tokens: the only place colours, spacing and type sizes are written.
+// Components import `theme` (or a piece of it) and never write a literal colour.
+//
+// Palette "field notebook": warm paper, slate-teal ink, a ridge blue-green for action and
+// selection, a clay accent for marks that need attention. Text pairs meet WCAG AA
+// (≥ 4.5:1) on the surfaces they sit on; the ratios beside each colour were computed
+// with the WCAG 2 relative-luminance formula.
+import type { TextStyle } from 'react-native';
+
+import { fontFamilies } from '@/lib/font-sources';
+
+const palette = {
+  paper: '#F5F2EA', // page background
+  chalk: '#FFFFFF', // raised surfaces (cards, table)
+  sand: '#E9E3D6', // sunken fills, skeleton blocks
+  dune: '#D5CDBC', // hairlines and borders
+  slate900: '#1E2B2F', // primary text (13.0:1 on paper)
+  slate600: '#4D5E63', // secondary text, placeholders (6.1:1 on paper, 5.3:1 on sand)
+  slate400: '#7D8B8F', // decorative marks only (3.2:1: not for text that must be read)
+  ridge700: '#1F5A60', // links, selected row rule, primary button (7.0:1 on paper; white on it 7.8:1)
+  ridge100: '#DCEBEA', // selected row fill
+  clay700: '#9A4523', // warnings, error text (5.8:1 on paper, 5.2:1 on clay100)
+  clay100: '#F6E3D8', // error panel fill
+  amber600: '#B06A00', // keyboard focus ring (≥ 3:1 non-text contrast on every surface here)
+  hatch: '#EFE7D5', // "no data" cell fill
+  hatchInk: '#6E5B35', // "no data" cell text (5.3:1 on hatch)
+} as const;
+
+export const colors = {
+  background: palette.paper,
+  surface: palette.chalk,
+  surfaceSunken: palette.sand,
+  border: palette.dune,
+  text: palette.slate900,
+  textMuted: palette.slate600,
+  placeholder: palette.slate600,
+  mark: palette.slate400, // decorative strokes only, never text
+  link: palette.ridge700,
+  action: palette.ridge700,
+  onAction: palette.chalk,
+  selected: palette.ridge100,
+  selectedRule: palette.ridge700,
+  danger: palette.clay700,
+  dangerFill: palette.clay100,
+  focus: palette.amber600,
+  skeleton: palette.sand,
+  gapFill: palette.hatch,
+  gapText: palette.hatchInk,
+  transparent: 'transparent',
+} as const;
+
+/** 4-point spacing scale. */
+export const space = {
+  xxs: 2,
+  xs: 4,
+  sm: 8,
+  md: 12,
+  lg: 16,
+  xl: 24,
+  xxl: 32,
+  xxxl: 48,
+} as const;
+
+export const radius = {
+  sm: 4,
+  md: 8,
+  lg: 12,
+  pill: 999,
+} as const;
+
+export const fonts = fontFamilies;
+
+/**
+ * Type scale (size / line height), a 1.2 ratio rounded to whole pixels. Each step names a
+ * role, not a size, so screens say what a text is for.
+ */
+export const type = {
+  caption: { fontFamily: fonts.regular, fontSize: 12, lineHeight: 16 },
+  label: { fontFamily: fonts.semibold, fontSize: 13, lineHeight: 18 },
+  body: { fontFamily: fonts.regular, fontSize: 15, lineHeight: 22 },
+  bodyStrong: { fontFamily: fonts.semibold, fontSize: 15, lineHeight: 22 },
+  numeric: { fontFamily: fonts.regular, fontSize: 14, lineHeight: 20, fontVariant: ['tabular-nums'] },
+  title: { fontFamily: fonts.semibold, fontSize: 18, lineHeight: 24 },
+  heading: { fontFamily: fonts.bold, fontSize: 22, lineHeight: 28 },
+  display: { fontFamily: fonts.bold, fontSize: 28, lineHeight: 34 },
+} satisfies Record<string, TextStyle>;
+
+/** Window widths where the layout changes. */
+export const breakpoints = {
+  /** At or above this width the list and the detail sit side by side. */
+  wide: 1024,
+} as const;
+
+export const layout = {
+  /** Width of the list column in the wide layout. */
+  listColumnWidth: 380,
+  /** Widest the detail column's content grows, so table rows stay readable. */
+  detailMaxWidth: 880,
+  /** Fixed height of one district row; the skeleton rows use the same height. */
+  districtRowHeight: 84,
+  /** Minimum touch target (WCAG 2.5.8 asks for 24; phones are easier at 44). */
+  touchTarget: 44,
+} as const;
+
+/** Keyboard focus outline shared by every focusable element on web. */
+export const focusRing = {
+  outlineColor: colors.focus,
+  outlineStyle: 'solid',
+  outlineWidth: 3,
+  outlineOffset: 2,
+} as const;
+
+export const theme = { colors, space, radius, fonts, type, breakpoints, layout, focusRing } as const;
+export type Theme = typeof theme;

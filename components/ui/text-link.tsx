@@ -1,0 +1,51 @@
+import { Link, type Href } from 'expo-router';
+import { Pressable, StyleSheet, Text } from 'react-native';
+
+import { colors, layout, radius, space, type } from '@/components/theme';
+
+import { focusOutline, type InteractionState } from './interaction';
+
+export type TextLinkProps = {
+  href: Href;
+  label: string;
+  /** Drawn before the label, e.g. an arrow; hidden from screen readers. */
+  leading?: string;
+  accessibilityLabel?: string;
+};
+
+/** An in-app link that reads as text: underlined, ridge colour, a full-size touch target. */
+export function TextLink({ href, label, leading, accessibilityLabel }: TextLinkProps) {
+  return (
+    <Link href={href} asChild>
+      <Pressable
+        accessibilityRole="link"
+        accessibilityLabel={accessibilityLabel ?? label}
+        style={(state: InteractionState) => [styles.target, focusOutline(state)]}
+      >
+        {(state: InteractionState) => (
+          <Text style={[styles.text, state.hovered && styles.hover]}>
+            {leading ? (
+              <Text aria-hidden style={styles.leading}>
+                {leading}
+              </Text>
+            ) : null}
+            {label}
+          </Text>
+        )}
+      </Pressable>
+    </Link>
+  );
+}
+
+const styles = StyleSheet.create({
+  target: {
+    minHeight: layout.touchTarget,
+    justifyContent: 'center',
+    alignSelf: 'flex-start',
+    paddingHorizontal: space.xs,
+    borderRadius: radius.sm,
+  },
+  text: { ...type.bodyStrong, color: colors.link, textDecorationLine: 'underline' },
+  hover: { color: colors.text },
+  leading: { textDecorationLine: 'none' },
+});

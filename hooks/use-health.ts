@@ -1,0 +1,26 @@
+// The health resource: GET /api/health, for the "server unreachable / database down" notice.
+import { useQuery } from '@tanstack/react-query';
+
+import { apiGet } from '@/lib/api-client';
+import type { HealthResponse } from '@/lib/api-types';
+import { STALE_TIMES } from '@/lib/stale-times';
+
+export const healthKeysRoot = ['health'] as const;
+
+export const healthKeys = {
+  all: healthKeysRoot,
+  status: () => [...healthKeysRoot, 'status'] as const,
+};
+
+export function useHealthQuery() {
+  return useQuery({
+    queryKey: healthKeys.status(),
+    queryFn: ({ signal }) =>
+      apiGet<HealthResponse>('/api/health', {
+        signal,
+        accept: (b) => typeof b === 'object' && b !== null && 'database' in b,
+      }),
+    staleTime: STALE_TIMES.health,
+    refetchInterval: STALE_TIMES.health,
+  });
+}

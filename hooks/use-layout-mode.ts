@@ -1,0 +1,14 @@
+// Native: the window width decides at once (there is no server-rendered HTML to match).
+import { useWindowDimensions } from 'react-native';
+
+import { breakpoints } from '@/components/theme';
+
+import type { LayoutMode } from './use-layout-mode.types';
+
+export type { LayoutMode } from './use-layout-mode.types';
+
+/** 'wide' (list and detail side by side) at ≥ 1024 px, else 'phone'. */
+export function useLayoutMode(): LayoutMode {
+  const { width } = useWindowDimensions();
+  return width >= breakpoints.wide ? 'wide' : 'phone';
+}
