@@ -43,12 +43,12 @@ module.exports = {
       testEnvironment: 'node',
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.test.ts'],
-      testTimeout: 60000,
       transform: {
         '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json' }],
       },
       transformIgnorePatterns: [`node_modules/(?!(${esmOnly.join('|')})/)`],
       globalSetup: '<rootDir>/tests/support/global-setup.ts',
+      globalTeardown: '<rootDir>/tests/support/global-teardown.ts',
     },
   ],
 };

@@ -1,15 +1,19 @@
 /**
- * Builds the Express app (no listen): security headers, request log, JSON API under
- * /api, the exported web build on every other path. Tests import this.
+ * Builds the Express app (no listen): security headers, request log, sessions and
+ * sign-in, the JSON API under /api from the route table, and the exported web build on
+ * every other path. Tests import this.
  */
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { Knex } from 'knex';
 import morgan from 'morgan';
+import { createPassport } from './auth/passport';
+import { sessionMiddleware } from './auth/session';
 import type { Config } from './config';
 import type { AppContext } from './context';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
-import { mountRoutes } from './http/routes';
+import { mountRoutes, type RouteSpec } from './http/routes';
+import { createMailer, type Mailer } from './mail/mailer';
 import { routeTable } from './routes';
 import { webRouter } from './web/static-routes';
 
@@ -17,10 +21,16 @@ export interface AppDeps {
   db: Knex;
   config: Config;
   log?: (msg: string) => void;
+  mailer?: Mailer;
 }
 
-export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`) }: AppDeps): Express {
-  const app = express();
+export interface CrestwatchApp extends Express {
+  locals: Express['locals'] & { routes: RouteSpec[]; ctx: AppContext; close(): Promise<void> };
+}
+
+export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`), mailer }: AppDeps): CrestwatchApp {
+  const app = express() as CrestwatchApp;
+  const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config) };
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(
@@ -34,6 +44,7 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
           'connect-src': ["'self'"],
+          'form-action': ["'self'", ...(config.mode === 'production' ? ['https://accounts.google.com'] : [`http://127.0.0.1:${config.standInPort}`])],
           'upgrade-insecure-requests': null,
         },
       },
@@ -42,13 +53,22 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
   if (config.logRequests) {
     app.use(morgan(':method :url :status :res[content-length] - :response-time ms', { stream: { write: (l) => log(l.trimEnd()) } }));
   }
-  const ctx: AppContext = { db, config, log };
-  app.use('/api', express.json({ limit: '2mb' }));
+  const sessions = sessionMiddleware(ctx);
+  const passport = createPassport(ctx);
+  app.use('/api', express.json({ limit: '2mb' }), express.urlencoded({ extended: false, limit: '64kb' }));
+  app.use('/api', sessions.middleware, passport.session());
+  const routes = routeTable(ctx, passport);
   const api = express.Router();
-  mountRoutes(api, routeTable(ctx));
+  mountRoutes(api, routes);
   app.use(api);
   app.use('/api', apiNotFound);
   app.use(webRouter(config.webDir));
   app.use(errorMiddleware(log));
+  app.locals.routes = routes;
+  app.locals.ctx = ctx;
+  app.locals.close = async () => {
+    await sessions.close();
+    ctx.mailer.close();
+  };
   return app;
 }

@@ -6,21 +6,51 @@ import path from 'node:path';
  */
 export const DEMO_DB_PORT = 54329;
 export const TEST_DB_PORT = 54339;
+/** The test suite's OAuth stand-in (started once by jest's global setup). */
+export const TEST_STAND_IN_PORT = 54349;
 
 export type Mode = 'demo' | 'test' | 'production';
+
+export interface OAuthConfig {
+  clientId: string;
+  clientSecret: string;
+  authorizationURL: string;
+  tokenURL: string;
+  userProfileURL: string;
+  /** Relative paths resolve against the request's own origin. */
+  callbackURL: string;
+}
 
 export interface Config {
   mode: Mode;
   host: string;
   port: number;
+  /** Public origin used in e-mailed links. */
+  publicUrl: string;
   databaseUrl: string;
   /** Where the exported web build lives (served from the same port as the API). */
   webDir: string;
   logRequests: boolean;
+  sessionSecret: string;
+  sessionIdleMinutes: number;
+  /** Sign-in attempts per IP and minute on /api/auth/*. */
+  authRateLimitPerMinute: number;
+  oauth: OAuthConfig;
+  /** Demo and test: port of the local OAuth stand-in (null in production). */
+  standInPort: number | null;
+  /** SMTP server for outgoing mail; null means the local catcher (demo and test). */
+  smtpUrl: string | null;
+  /** Port of the local mail catcher in demo mode. */
+  mailCatcherPort: number;
+  mailFrom: string;
+  /** E-mail of the first admin, created at start when the database has no admin. */
+  firstAdminEmail: string | null;
+  /** Maximum upload size in bytes. */
+  uploadMaxBytes: number;
 }
 
-function intFrom(name: string, fallback: number): number {
-  const raw = process.env[name];
+function intFrom(env: NodeJS.ProcessEnv, name: string, fallback: number): number {
+  const raw = env[name];
   if (raw === undefined || raw === '') return fallback;
   const n = Number(raw);
   if (!Number.isInteger(n) || n <= 0) throw new Error(`${name} must be a positive integer, got "${raw}"`);
@@ -31,20 +61,57 @@ export function demoDatabaseUrl(port = DEMO_DB_PORT, db = 'crestwatch'): string 
   return `postgres://postgres@127.0.0.1:${port}/${db}`;
 }
 
+function oauthConfig(env: NodeJS.ProcessEnv, mode: Mode, standInPort: number | null): OAuthConfig {
+  if (mode === 'production') {
+    const missing = ['GOOGLE_CLIENT_ID', 'GOOGLE_CLIENT_SECRET'].filter((k) => !env[k]);
+    if (missing.length) throw new Error(`production mode needs ${missing.join(' and ')}`);
+    return {
+      clientId: env.GOOGLE_CLIENT_ID!,
+      clientSecret: env.GOOGLE_CLIENT_SECRET!,
+      authorizationURL: env.GOOGLE_AUTHORIZATION_URL ?? 'https://accounts.google.com/o/oauth2/v2/auth',
+      tokenURL: env.GOOGLE_TOKEN_URL ?? 'https://www.googleapis.com/oauth2/v4/token',
+      userProfileURL: env.GOOGLE_USERINFO_URL ?? 'https://www.googleapis.com/oauth2/v3/userinfo',
+      callbackURL: env.GOOGLE_CALLBACK_URL ?? '/api/auth/google/callback',
+    };
+  }
+  const base = `http://127.0.0.1:${standInPort}`;
+  return {
+    clientId: 'crestwatch-local',
+    clientSecret: 'crestwatch-local-secret',
+    authorizationURL: `${base}/authorize`,
+    tokenURL: `${base}/token`,
+    userProfileURL: `${base}/userinfo`,
+    callbackURL: '/api/auth/google/callback',
+  };
+}
+
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const mode = (env.CRESTWATCH_MODE ?? (env.NODE_ENV === 'production' ? 'production' : 'demo')) as Mode;
   if (!['demo', 'test', 'production'].includes(mode)) {
     throw new Error(`CRESTWATCH_MODE must be demo, test or production, got "${mode}"`);
   }
-  if (mode === 'production' && !env.DATABASE_URL) {
-    throw new Error('DATABASE_URL is required in production mode');
-  }
+  if (mode === 'production' && !env.DATABASE_URL) throw new Error('DATABASE_URL is required in production mode');
+  if (mode === 'production' && !env.SESSION_SECRET) throw new Error('SESSION_SECRET is required in production mode');
+  const host = env.HOST ?? '127.0.0.1';
+  const port = intFrom(env, 'PORT', 8080);
+  const standInPort = mode === 'production' ? null : intFrom(env, 'OAUTH_STAND_IN_PORT', mode === 'test' ? TEST_STAND_IN_PORT : 8079);
   return {
     mode,
-    host: env.HOST ?? '127.0.0.1',
-    port: intFrom('PORT', 8080),
+    host,
+    port,
+    publicUrl: env.PUBLIC_URL ?? `http://${host}:${port}`,
     databaseUrl: env.DATABASE_URL ?? demoDatabaseUrl(),
     webDir: env.WEB_DIR ?? path.resolve(__dirname, '..', 'dist'),
     logRequests: env.LOG_REQUESTS !== '0' && mode !== 'test',
+    sessionSecret: env.SESSION_SECRET ?? 'crestwatch-local-only-secret',
+    sessionIdleMinutes: intFrom(env, 'SESSION_IDLE_MINUTES', 120),
+    authRateLimitPerMinute: intFrom(env, 'AUTH_RATE_LIMIT_PER_MINUTE', 60),
+    oauth: oauthConfig(env, mode, standInPort),
+    standInPort,
+    smtpUrl: env.SMTP_URL ?? null,
+    mailCatcherPort: intFrom(env, 'MAIL_CATCHER_PORT', 2525),
+    mailFrom: env.MAIL_FROM ?? 'Crestwatch <no-reply@crestwatch.example>',
+    firstAdminEmail: env.CRESTWATCH_FIRST_ADMIN ?? (mode === 'production' ? null : 'admin@crestwatch.example'),
+    uploadMaxBytes: intFrom(env, 'UPLOAD_MAX_BYTES', 50 * 1024 * 1024),
   };
 }

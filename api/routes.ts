@@ -1,13 +1,25 @@
 /** Every feature's routes in one list: the route table the guard, OpenAPI and tests read. */
+import { auditRoutes } from './audit/router';
+import { authRoutes } from './auth/router';
+import type { createPassport } from './auth/passport';
 import type { AppContext } from './context';
 import { districtRoutes } from './districts/router';
 import { healthRoutes } from './health/router';
 import { openApiDocument } from './http/openapi';
 import { route, type RouteSpec } from './http/routes';
+import { mailboxRoutes } from './mail/router';
+import { peopleRoutes } from './people/router';
 import { SOFTWARE_VERSION } from './version';
 
-export function routeTable(ctx: AppContext): RouteSpec[] {
-  const routes: RouteSpec[] = [...healthRoutes(ctx), ...districtRoutes(ctx)];
+export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPassport>): RouteSpec[] {
+  const routes: RouteSpec[] = [
+    ...healthRoutes(ctx),
+    ...authRoutes(ctx, passport),
+    ...peopleRoutes(ctx),
+    ...auditRoutes(ctx),
+    ...mailboxRoutes(ctx),
+    ...districtRoutes(ctx),
+  ];
   routes.push(
     route({
       method: 'get',

@@ -1,11 +1,15 @@
 /**
- * Starts the server: one port for the API and the web app, graceful shutdown on
- * SIGINT/SIGTERM (stop accepting, finish open requests, close the pool).
+ * Starts the server: one port for the API and the web app; in demo mode also the OAuth
+ * stand-in and the mail catcher on loopback. Graceful shutdown on SIGINT/SIGTERM (stop
+ * accepting, finish open requests, close pools and helpers).
  */
 import type { Server } from 'node:http';
 import { createApp } from './app';
+import { startStandIn, type StandIn } from './auth/stand-in';
 import { loadConfig, type Config } from './config';
 import { createDb } from './db';
+import { startMailCatcher, type MailCatcher } from './mail/catcher';
+import { ensureDemoAccounts, ensureFirstAdmin } from './people/service';
 
 export interface Running {
   server: Server;
@@ -15,6 +19,14 @@ export interface Running {
 
 export async function startServer(config: Config = loadConfig()): Promise<Running> {
   const db = createDb(config.databaseUrl);
+  await ensureFirstAdmin(db, config.firstAdminEmail);
+  let standIn: StandIn | null = null;
+  let catcher: MailCatcher | null = null;
+  if (config.mode === 'demo') {
+    await ensureDemoAccounts(db);
+    standIn = await startStandIn(config.standInPort!);
+    if (!config.smtpUrl) catcher = await startMailCatcher(db, config.mailCatcherPort);
+  }
   const app = createApp({ db, config });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -30,6 +42,9 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
         server.closeIdleConnections();
         setTimeout(() => server.closeAllConnections(), 5_000).unref();
       });
+      await app.locals.close();
+      await standIn?.stop();
+      await catcher?.stop();
       await db.destroy();
     })());
   return { server, url, close };

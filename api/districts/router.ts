@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { route, type RouteSpec } from '../http/routes';
+import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
 
 export const districtCode = z.string().regex(/^[A-Za-z0-9_-]{1,32}$/, 'a district code is 1–32 letters, digits, _ or -');
@@ -10,7 +10,7 @@ export function districtRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/districts',
-      allow: 'public',
+      allow: SIGNED_IN,
       tag: 'districts',
       summary: 'Every district with its years covered and latest values',
       handler: async () => ({ districts: await service.listDistricts(db) }),
@@ -18,7 +18,7 @@ export function districtRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/districts/:code',
-      allow: 'public',
+      allow: SIGNED_IN,
       tag: 'districts',
       summary: 'One district with its yearly series (gap years as nulls)',
       schemas: { params: z.object({ code: districtCode }) },

@@ -3,6 +3,7 @@
  * it, its request schemas and its handler. One list feeds the guard (deny by default),
  * the OpenAPI file and the role-matrix test, so they cannot drift apart.
  */
+import { timingSafeEqual } from 'node:crypto';
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import type { z } from 'zod';
 import { AppError } from './errors';
@@ -71,12 +72,50 @@ export function guard(allow: Allow): RequestHandler {
   };
 }
 
+const UNSAFE: ReadonlySet<Method> = new Set(['post', 'put', 'patch', 'delete']);
+export const CSRF_HEADER = 'x-csrf-token';
+
+function sameToken(a: string, b: string): boolean {
+  const x = Buffer.from(a);
+  const y = Buffer.from(b);
+  return x.length === y.length && timingSafeEqual(x, y);
+}
+
+/**
+ * CSRF defence for state-changing routes: the session cookie is SameSite=Lax, a request
+ * whose Origin is another site is refused, and the session's token must come back in the
+ * X-CSRF-Token header (a cross-site form cannot set headers). Routes open to anonymous
+ * writers (the e-mail unsubscribe) carry their own signed, expiring token instead.
+ */
+export function csrfCheck(spec: Pick<RouteSpec, 'anonymousWriteReason'>): RequestHandler {
+  return (req: Request, _res: Response, next: NextFunction) => {
+    const origin = req.get('origin');
+    if (origin !== undefined) {
+      let host: string | null = null;
+      try {
+        host = new URL(origin).host;
+      } catch {
+        host = null;
+      }
+      if (host !== req.get('host')) throw new AppError(403, 'csrf_failed', 'Cross-site request refused.');
+    }
+    if (spec.anonymousWriteReason) return next();
+    const expected = (req as { session?: { csrfToken?: string } }).session?.csrfToken;
+    const got = req.get(CSRF_HEADER);
+    if (!expected || !got || !sameToken(expected, got)) {
+      throw new AppError(403, 'csrf_failed', 'Missing or outdated security token: reload the page and try again.');
+    }
+    next();
+  };
+}
+
 export function mountRoutes(router: Router, specs: RouteSpec[]): void {
   for (const spec of specs) {
     const handler: RequestHandler = async (req, res) => {
       const result = await spec.handler(res.locals.input as Parsed<z.ZodType, z.ZodType, z.ZodType>, req, res);
       if (result !== undefined && !res.headersSent) res.json(result);
     };
-    router[spec.method](spec.path, guard(spec.allow), ...(spec.before ?? []), validate(spec.schemas ?? {}), handler);
+    const csrf = UNSAFE.has(spec.method) ? [csrfCheck(spec)] : [];
+    router[spec.method](spec.path, guard(spec.allow), ...csrf, ...(spec.before ?? []), validate(spec.schemas ?? {}), handler);
   }
 }

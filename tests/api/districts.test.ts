@@ -1,19 +1,34 @@
+import type { Server } from 'node:http';
 import request from 'supertest';
+import type TestAgent from 'supertest/lib/agent';
+import type { CrestwatchApp } from '../../api/app';
 import { DEMO_DISTRICTS, generateDemoRegion } from '../../api/demo/generate';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
+import { ensureDemoAccounts } from '../../api/people/service';
+import { closeServer, DEMO, listen, signInAs } from '../support/auth';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
 import { testApp } from '../support/test-app';
 
 let t: TestDatabase;
+let app: CrestwatchApp;
+let server: Server;
+let agent: TestAgent;
 beforeAll(async () => {
   t = await freshDatabase();
   await seedDemoIfEmpty(t.db);
+  await ensureDemoAccounts(t.db);
+  app = testApp(t.db);
+  server = await listen(app);
+  agent = (await signInAs(server, DEMO.official)).agent;
 });
-afterAll(async () => t.drop());
+afterAll(async () => {
+  await closeServer(server, app);
+  await t.drop();
+});
 
 describe('districts API over the seeded demo region', () => {
   it('lists every district sorted by name with its span and latest values', async () => {
-    const res = await request(testApp(t.db)).get('/api/districts');
+    const res = await agent.get('/api/districts');
     expect(res.status).toBe(200);
     const list = res.body.districts as { code: string; name: string; firstYear: number; lastYear: number; nYears: number; latest: Record<string, number> }[];
     expect(list).toHaveLength(DEMO_DISTRICTS.length);
@@ -26,7 +41,7 @@ describe('districts API over the seeded demo region', () => {
   });
 
   it('returns a district series with gap years present as nulls', async () => {
-    const res = await request(testApp(t.db)).get('/api/districts/D09');
+    const res = await agent.get('/api/districts/D09');
     expect(res.status).toBe(200);
     expect(res.body.district).toMatchObject({ code: 'D09', firstYear: 1995, lastYear: 2025, nYears: 30 });
     expect(res.body.series).toHaveLength(31);
@@ -36,15 +51,19 @@ describe('districts API over the seeded demo region', () => {
   });
 
   it('keeps non-Latin names intact', async () => {
-    const res = await request(testApp(t.db)).get('/api/districts/D24');
+    const res = await agent.get('/api/districts/D24');
     expect(res.body.district.name).toBe('Yarrowgate (Jarłowo-Şelé / Жарово)');
   });
 
+  it('refuses anonymous callers', async () => {
+    expect((await request(server).get('/api/districts')).status).toBe(401);
+  });
+
   it('answers an unknown code with 404 and a bad code with 400', async () => {
-    const missing = await request(testApp(t.db)).get('/api/districts/ZZ99');
+    const missing = await agent.get('/api/districts/ZZ99');
     expect(missing.status).toBe(404);
     expect(missing.body.error).toMatchObject({ code: 'not_found', details: { code: 'ZZ99' } });
-    const bad = await request(testApp(t.db)).get('/api/districts/%3Cscript%3E');
+    const bad = await agent.get('/api/districts/%3Cscript%3E');
     expect(bad.status).toBe(400);
     expect(bad.body.error.code).toBe('invalid_request');
   });

@@ -1,0 +1,57 @@
+/**
+ * Passport with Google's OAuth 2.0 strategy. In demo and test mode its URLs point at the
+ * local stand-in; in production at Google (config.ts). One Passport instance per app.
+ * Only invited, active people get a session; the OAuth `state` (with PKCE) is kept in the
+ * session and checked on the callback.
+ */
+import { Passport } from 'passport';
+import { Strategy as GoogleStrategy, type Profile } from 'passport-google-oauth20';
+import * as audit from '../audit/store';
+import type { AppContext } from '../context';
+import type { Caller } from '../http/routes';
+import * as users from '../people/store';
+
+export type SignInRefusal = 'not_invited' | 'deactivated' | 'no_email';
+
+export function createPassport({ db, config }: AppContext): InstanceType<typeof Passport> {
+  const passport = new Passport();
+  passport.use(
+    new GoogleStrategy(
+      {
+        clientID: config.oauth.clientId,
+        clientSecret: config.oauth.clientSecret,
+        callbackURL: config.oauth.callbackURL,
+        authorizationURL: config.oauth.authorizationURL,
+        tokenURL: config.oauth.tokenURL,
+        userProfileURL: config.oauth.userProfileURL,
+        scope: ['openid', 'email', 'profile'],
+        state: true,
+        pkce: true,
+      },
+      async (_accessToken: string, _refreshToken: string, profile: Profile, done: (err: unknown, user?: Caller | false, info?: { reason: SignInRefusal; email?: string }) => void) => {
+        try {
+          const email = profile.emails?.[0]?.value;
+          if (!email) return done(null, false, { reason: 'no_email' });
+          const user = await users.findByEmail(db, email);
+          if (!user) return done(null, false, { reason: 'not_invited', email });
+          if (!user.active) return done(null, false, { reason: 'deactivated', email });
+          await users.recordSignIn(db, user.id, profile.id, profile.displayName ?? '');
+          await audit.record(db, { actorId: user.id, actorEmail: user.email, action: 'sign_in', targetType: 'user', targetId: user.id });
+          done(null, { id: user.id, email: user.email, name: user.name, role: user.role, active: user.active });
+        } catch (err) {
+          done(err);
+        }
+      },
+    ),
+  );
+  passport.serializeUser((user, done) => done(null, (user as Caller).id));
+  passport.deserializeUser(async (id: number, done) => {
+    try {
+      const u = await users.findById(db, Number(id));
+      done(null, u ? { id: u.id, email: u.email, name: u.name, role: u.role, active: u.active } : false);
+    } catch (err) {
+      done(err);
+    }
+  });
+  return passport;
+}

@@ -1,0 +1,46 @@
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import { ADMIN, callerOf, ROLES, route, type RouteSpec } from '../http/routes';
+import * as service from './service';
+
+const role = z.enum(ROLES);
+
+export function peopleRoutes(ctx: AppContext): RouteSpec[] {
+  const { db } = ctx;
+  return [
+    route({
+      method: 'get',
+      path: '/api/people',
+      allow: ADMIN,
+      tag: 'people',
+      summary: 'Everyone with access, their role and status',
+      handler: async () => ({ people: await service.listPeople(db) }),
+    }),
+    route({
+      method: 'post',
+      path: '/api/people/invitations',
+      allow: ADMIN,
+      tag: 'people',
+      summary: 'Invite an e-mail address with a role (sends the invitation by e-mail)',
+      schemas: { body: z.object({ email: z.email().max(254), role, name: z.string().max(120).optional() }) },
+      handler: async ({ body }, req, res) => {
+        res.status(201);
+        return service.invite(ctx, callerOf(req)!, body);
+      },
+    }),
+    route({
+      method: 'patch',
+      path: '/api/people/:id',
+      allow: ADMIN,
+      tag: 'people',
+      summary: 'Change a person’s role, name, or deactivate / reactivate them',
+      schemas: {
+        params: z.object({ id: z.coerce.number().int().positive() }),
+        body: z
+          .object({ role: role.optional(), active: z.boolean().optional(), name: z.string().max(120).optional() })
+          .refine((b) => Object.keys(b).length > 0, 'give role, active or name'),
+      },
+      handler: async ({ params, body }, req) => ({ person: await service.updatePerson(db, callerOf(req)!, params.id, body) }),
+    }),
+  ];
+}
