@@ -119,3 +119,232 @@ export interface OlsResult {
     refinementSteps: number;
   };
 }
+
+/** A piece of a confidence set on the x scale; null ends are infinite. */
+export interface SetPiece {
+  lo: number | null;
+  hi: number | null;
+}
+
+/**
+ * A Fieller-type confidence set. `bounded`: [lo, hi]. `two_rays`: (−∞, lo] ∪ [hi, ∞)
+ * (one of lo/hi null when only one ray exists). `whole_line`: lo = hi = null.
+ */
+export interface FiellerSet {
+  kind: 'bounded' | 'two_rays' | 'whole_line';
+  lo: number | null;
+  hi: number | null;
+  pieces: SetPiece[];
+  /** quadratic coefficients A, B, C and discriminant (quadratic model only) */
+  A?: number;
+  B?: number;
+  C?: number;
+  discriminant?: number;
+}
+
+export interface UTestResult {
+  xMin: number;
+  xMax: number;
+  slopeAtMin: number;
+  seAtMin: number;
+  tAtMin: number | null;
+  slopeAtMax: number;
+  seAtMax: number;
+  tAtMax: number | null;
+  /** the H1 tested, chosen by the estimated curvature */
+  orientation: 'inverted_u' | 'u';
+  statistic: number | null;
+  /** degrees of freedom of the t reference; null = normal */
+  df: number | null;
+  /** one-sided p-value */
+  pValue: number | null;
+  rejects: boolean;
+  alpha: number;
+  /** the estimated slope changes sign inside [xMin, xMax] */
+  extremumInRange: boolean;
+  bothOrientations: {
+    inverted_u: { statistic: number | null; pValue: number | null };
+    u: { statistic: number | null; pValue: number | null };
+  };
+}
+
+export interface WaldTestResult {
+  /** W = bᵀ V⁻¹ b */
+  statistic: number | null;
+  q: number;
+  /** W / q */
+  fStatistic: number | null;
+  /** denominator df; null = chi-square reference */
+  df: number | null;
+  pValue: number | null;
+  rejects: boolean | null;
+  reason: string | null;
+}
+
+export type ShapeName = 'inverted_u' | 'u' | 'increasing' | 'decreasing' | 'flat';
+export type StandingName = 'approaching' | 'at_turn' | 'past_turn' | 'no_turn' | 'not_estimable';
+
+/** An interval end pair on the model's x scale and in real units (exp under the log transform). */
+export interface IntervalEnds {
+  lo: number | null;
+  hi: number | null;
+  levelLo: number | null;
+  levelHi: number | null;
+}
+
+export interface TurningPoint {
+  /** on the model's x scale (ln driver under the log transform) */
+  x: number;
+  /** in real units: exp(x) under the log transform, x itself in level form (null if it overflows) */
+  level: number | null;
+  kind: 'peak' | 'trough';
+  inRange: boolean;
+  /** gradient of x* with respect to the slope coefficients (b1, b2[, b3]) */
+  gradient: number[];
+  delta: { se: number | null } & IntervalEnds;
+  fieller: FiellerSet & { levelLo: number | null; levelHi: number | null };
+  /** the interval chosen for standing (Fieller by default) is bounded */
+  intervalBounded: boolean;
+  /** outside [xMin, xMax] */
+  extrapolated: boolean;
+}
+
+export interface SignRuleReading {
+  reading: ShapeName;
+  b1: number;
+  b2: number;
+  pB1: number;
+  pB2: number;
+  alpha: number;
+}
+
+export interface ShapeResult {
+  shape: ShapeName;
+  decidedBy: 'u_test' | 'wald_flat' | 'slope_at_midpoint';
+  notes: string[];
+  slopeAtMidpoint: { x: number; value: number; se: number | null };
+  /** the common-practice first read from the signs of b1 and b2 */
+  signRule: SignReading | null;
+}
+
+export type SignReading = SignRuleReading;
+
+export interface StandingResult {
+  standing: StandingName;
+  /** the turning point (index into turningPoints) that sets the standing */
+  turningPointIndex: number | null;
+  intervalMethod: 'fieller' | 'delta';
+  /** false: the interval is not bounded and the standing follows the point estimate */
+  intervalBounded: boolean | null;
+  interval: IntervalEnds | null;
+  extrapolated: boolean;
+  xNow: number;
+  levelNow: number;
+  note: string | null;
+}
+
+export interface GapResult {
+  /** 100·(X_now/X* − 1) in real units */
+  percent: number | null;
+  extrapolated: boolean;
+  reason: string | null;
+}
+
+export interface ElasticityResult {
+  xNow: number;
+  value: number | null;
+  se: number | null;
+  lo: number | null;
+  hi: number | null;
+  form: 'log' | 'level';
+  reason: string | null;
+}
+
+export interface TrendResult {
+  /** OLS slope of ln(driver) on year over rows with year > lastYear − window */
+  slopePerYear: number | null;
+  nUsed: number;
+  firstYear: number | null;
+  lastYear: number | null;
+  window: number;
+  reason: string | null;
+}
+
+export interface ProjectionResult {
+  status: 'projected' | 'already_past' | 'not_on_current_trend' | 'no_threshold';
+  yearsToThreshold: number | null;
+  crossingYear: number | null;
+  range: { earliest: number | null; latest: number | null } | null;
+  extrapolated: boolean;
+  note: string | null;
+}
+
+export interface CurveDiagnostics {
+  durbinWatson: { statistic: number; pValue: number | null; mean: number | null; variance: number | null; method: string };
+  breuschGodfrey: Array<{ order: number; statistic: number | null; df: number; pValue: number | null }>;
+  breuschPagan: { statistic: number | null; df: number; pValue: number | null };
+  jarqueBera: { statistic: number | null; skewness: number | null; kurtosis: number | null; df: 2; pValue: number | null };
+  /** row is the index in year order */
+  largestLeverage: { value: number; year: number; row: number } | null;
+  residualsByYear: Array<{ year: number; residual: number }>;
+}
+
+export interface CriticalValueInfo {
+  kind: 't' | 'normal';
+  df: number | null;
+  value: number;
+  level: number;
+}
+
+export interface CurveRange {
+  /** on the model's x scale */
+  xMin: number;
+  xMax: number;
+  /** in real units */
+  levelMin: number;
+  levelMax: number;
+  firstYear: number;
+  lastYear: number;
+  /** the driver in the latest year */
+  xNow: number;
+  levelNow: number;
+}
+
+/** A district curve that could be fitted. */
+export interface CurveFit extends OlsResult {
+  status: 'ok';
+  model: import('./model-spec').ModelSpec;
+  /** coefficient names: const, x, x2[, x3], then the controls */
+  terms: string[];
+  years: number[];
+  range: CurveRange;
+  critical: CriticalValueInfo;
+  turningPoints: TurningPoint[];
+  uTest: UTestResult;
+  wald: WaldTestResult;
+  shape: ShapeResult;
+  standing: StandingResult;
+  gap: GapResult;
+  elasticity: ElasticityResult;
+  trend: TrendResult;
+  projection: ProjectionResult;
+  diagnostics: CurveDiagnostics | null;
+}
+
+/** A district whose data cannot carry the model (too short, rank deficient, ...). */
+export interface CurveNotEstimable {
+  status: 'not_estimable';
+  model: import('./model-spec').ModelSpec;
+  n: number;
+  k: number;
+  minYears: number;
+  reason: { code: 'too_few_rows' | 'rank_deficient' | 'covariance_undefined'; message: string; details: Record<string, unknown> };
+  standing: { standing: 'not_estimable' };
+}
+
+export type FitCurveResult = CurveFit | CurveNotEstimable;
+
+export interface FitCurveOptions {
+  /** compute the residual diagnostics (default true) */
+  diagnostics?: boolean;
+}
