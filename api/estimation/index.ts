@@ -10,6 +10,9 @@ export type { PreparedRows } from './prepare-rows';
 
 // fitting
 export { fitCurve } from './fit-curve';
+export { fitPanel } from './fit-panel';
+export { twoWayWithin } from './two-way-within';
+export { fixedEffectsRank } from './fixed-effects-rank';
 export { ols } from './ols';
 export { fitLeastSquares, DOUBLE_DOUBLE_THRESHOLD } from './fit-least-squares';
 export { polynomialDesign } from './polynomial-design';

@@ -348,3 +348,47 @@ export interface FitCurveOptions {
   /** compute the residual diagnostics (default true) */
   diagnostics?: boolean;
 }
+
+/** The pooled two-way fixed-effects curve of a region. */
+export interface PanelFit {
+  status: 'ok';
+  model: import('./model-spec').ModelSpec;
+  /** slope terms only (the fixed effects are absorbed): x, x2[, x3], controls */
+  terms: string[];
+  coefficients: number[];
+  standardErrors: number[];
+  /** t = b / SE and two-sided p with G − 1 df (or normal) */
+  tStatistics: number[];
+  pValues: number[];
+  covariance: number[][];
+  covarianceInfo: CovarianceInfo;
+  n: number;
+  districts: number;
+  years: number;
+  balanced: boolean;
+  /** N − k − (G + T − C), C the connected components (plm's df for a connected panel) */
+  dfResidual: number;
+  /** degrees of freedom of inference: G − 1 (null under normal critical values) */
+  df: number | null;
+  rss: number;
+  rSquaredWithin: number;
+  adjRSquaredWithin: number;
+  absorption: { method: 'alternating_projections'; iterations: number; converged: boolean; maxRelativeChange: number; components: number };
+  range: { xMin: number; xMax: number; levelMin: number; levelMax: number };
+  critical: CriticalValueInfo;
+  turningPoints: TurningPoint[];
+  uTest: UTestResult;
+  wald: WaldTestResult;
+  shape: ShapeResult;
+  condition: OlsResult['condition'];
+}
+
+export interface PanelNotEstimable {
+  status: 'not_estimable';
+  model: import('./model-spec').ModelSpec;
+  n: number;
+  k: number;
+  reason: { code: 'too_few_rows' | 'too_few_districts' | 'rank_deficient' | 'not_converged'; message: string; details: Record<string, unknown> };
+}
+
+export type FitPanelResult = PanelFit | PanelNotEstimable;
