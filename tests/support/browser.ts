@@ -9,6 +9,7 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
+import { ensureDemoAccounts } from '../../api/people/service';
 import { testApp } from './test-app';
 import { freshDatabase, type TestDatabase } from './test-db';
 
@@ -38,13 +39,15 @@ export async function startHarness(): Promise<Harness> {
   }
   const t = await freshDatabase();
   await seedDemoIfEmpty(t.db);
+  await ensureDemoAccounts(t.db);
   const app = testApp(t.db, { webDir });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
   const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-  const userDataDir = fs.mkdtempSync(path.join(require('node:os').tmpdir(), 'cw-chromium-'));
-  const browser = await chromium.launch({
+  // playwright gives each launch a fresh, empty profile directory of its own.
+  const browser = await chromium
+    .launch({
     executablePath: '/usr/bin/chromium',
     headless: true,
     args: [
@@ -55,9 +58,14 @@ export async function startHarness(): Promise<Harness> {
       '--disable-background-networking',
       '--disable-component-update',
       '--disable-sync',
-      `--user-data-dir=${userDataDir}`,
     ],
-  });
+    })
+    .catch(async (err: Error) => {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await app.locals.close();
+      await t.drop();
+      throw err;
+    });
   fs.mkdirSync(artifactsDir, { recursive: true });
   const requests: string[] = [];
   return {
@@ -78,10 +86,12 @@ export async function startHarness(): Promise<Harness> {
     },
     async close() {
       await browser.close();
-      await new Promise<void>((resolve) => server.close(() => resolve()));
-      server.closeAllConnections?.();
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      });
+      await app.locals.close();
       await t.drop();
-      fs.rmSync(userDataDir, { recursive: true, force: true });
     },
   };
 }
