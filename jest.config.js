@@ -6,10 +6,12 @@ module.exports = {
   projects: [
     {
       displayName: 'app',
-      preset: 'jest-expo/web',
+      // The native preset: @testing-library/react-native queries react-native host
+      // components, which react-native-web replaces with DOM elements.
+      preset: 'jest-expo',
       roots: ['<rootDir>/tests/components'],
       transformIgnorePatterns: [
-        'node_modules/(?!((jest-)?react-native|@react-native(-community)?|expo(nent)?|@expo(nent)?/.*|@expo-google-fonts/.*|expo-router|@fontsource/.*|victory|victory-.*|react-native-svg|d3-.*|@tanstack/.*))',
+        'node_modules/(?!((jest-)?react-native|@react-native(-community)?|expo(nent)?|@expo(nent)?/.*|@expo-google-fonts/.*|expo-router|@fontsource/.*|victory|victory-.*|react-native-svg|d3-.*|@tanstack/.*|standard-navigation))',
       ],
       moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1', '\\.(woff2?|ttf)$': '<rootDir>/tests/support/file-stub.js' },
     },
