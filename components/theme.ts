@@ -95,7 +95,7 @@ export const layout = {
   /** Width of the list column in the wide layout. */
   listColumnWidth: 380,
   /** Widest the detail column's content grows, so table rows stay readable. */
-  detailMaxWidth: 880,
+  detailMaxWidth: 760,
   /** Fixed height of one district row; the skeleton rows use the same height. */
   districtRowHeight: 84,
   /** Minimum touch target (WCAG 2.5.8 asks for 24; phones are easier at 44). */
@@ -110,5 +110,8 @@ export const focusRing = {
   outlineOffset: 2,
 } as const;
 
-export const theme = { colors, space, radius, fonts, type, breakpoints, layout, focusRing } as const;
+/** The same ring drawn inside the element, for full-bleed rows a scroll view would clip. */
+export const focusRingInset = { ...focusRing, outlineOffset: -3 } as const;
+
+export const theme = { colors, space, radius, fonts, type, breakpoints, layout, focusRing, focusRingInset } as const;
 export type Theme = typeof theme;

@@ -1,11 +1,17 @@
 import type { DistrictSummary } from './api-types';
 
-/** Lower case without accents, so "ostrava" finds "Óstrava" and "d07" finds "D07". */
+/** Letters that carry no combining mark, so NFD leaves them alone: fold them by hand. */
+const LETTER_FOLDS: Record<string, string> = {
+  ł: 'l', ø: 'o', đ: 'd', ħ: 'h', ı: 'i', ŧ: 't', ß: 'ss', æ: 'ae', œ: 'oe', þ: 'th', ð: 'd',
+};
+
+/** Lower case without accents, so "lakow" finds "Łąkowice" and "d07" finds "D07". */
 export function foldForSearch(text: string): string {
   return text
+    .toLocaleLowerCase('en')
     .normalize('NFD')
     .replace(/[\u0300-\u036f]/g, '')
-    .toLocaleLowerCase('en')
+    .replace(/[łøđħıŧßæœþð]/g, (ch) => LETTER_FOLDS[ch] ?? ch)
     .trim();
 }
 

@@ -1,9 +1,10 @@
 import { Link } from 'expo-router';
 import { memo } from 'react';
-import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, layout, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
+import { LinkTarget } from '@/components/ui/link-target';
 import type { DistrictSummary } from '@/lib/api-types';
 
 import { coverageText, districtRowLabel, latestValues } from './district-summary-text';
@@ -19,16 +20,16 @@ export const DistrictRow = memo(function DistrictRow({ district, selected = fals
   const values = latestValues(district);
   return (
     <Link href={{ pathname: '/district/[code]', params: { code: district.code } }} asChild>
-      <Pressable
+      <LinkTarget
         testID={`district-row-${district.code}`}
         accessibilityRole="link"
         accessibilityLabel={districtRowLabel(district)}
         accessibilityState={{ selected }}
-        style={(state: InteractionState) => [
+        stateStyle={(state: InteractionState) => [
           styles.row,
           state.hovered && styles.hovered,
           selected && styles.selected,
-          focusOutline(state),
+          focusOutline(state, 'inside'),
         ]}
       >
         <View style={styles.main}>
@@ -39,7 +40,7 @@ export const DistrictRow = memo(function DistrictRow({ district, selected = fals
             <Text style={styles.code}>{district.code}</Text>
           </View>
           <Text style={styles.coverage} numberOfLines={1}>
-            {coverageText(district)}
+            {coverageText(district, 'compact')}
           </Text>
         </View>
         <View style={styles.values}>
@@ -61,7 +62,7 @@ export const DistrictRow = memo(function DistrictRow({ district, selected = fals
             </View>
             ))}
         </View>
-      </Pressable>
+      </LinkTarget>
     </Link>
   );
 });

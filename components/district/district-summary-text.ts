@@ -7,12 +7,19 @@ import { indicatorColumn } from '@/lib/indicators';
 const emissions = indicatorColumn('emissions_pc');
 const income = indicatorColumn('income_pc');
 
-/** "1995–2025 · 30 years of data · 1 gap year", or "No data yet". */
-export function coverageText(d: Pick<DistrictSummary, 'firstYear' | 'lastYear' | 'nYears'>): string {
+/**
+ * Years covered. 'full': "1995–2025 · 30 years of data · 1 gap year". 'compact' (list rows,
+ * where the span already implies the count): "1995–2025 · 1 gap year". "No data yet" when
+ * the district has no observation.
+ */
+export function coverageText(
+  d: Pick<DistrictSummary, 'firstYear' | 'lastYear' | 'nYears'>,
+  form: 'full' | 'compact' = 'full',
+): string {
   const span = formatYearSpan(d.firstYear, d.lastYear);
   if (span === null) return 'No data yet';
   const gaps = countGapYears(d.firstYear, d.lastYear, d.nYears);
-  const parts = [span, formatYearCount(d.nYears)];
+  const parts = form === 'full' ? [span, formatYearCount(d.nYears)] : [span];
   if (gaps > 0) parts.push(`${gaps} ${gaps === 1 ? 'gap year' : 'gap years'}`);
   return parts.join(' · ');
 }

@@ -4,6 +4,15 @@ import { colors, radius, space, type } from '@/components/theme';
 import type { Indicator, SeriesRow } from '@/lib/api-types';
 import { INDICATOR_COLUMNS, type IndicatorColumn } from '@/lib/indicators';
 
+/** Relative column widths: the longer headers and numbers get more of a 390 px screen. */
+const COLUMN_WEIGHT: Record<IndicatorColumn['code'], number> = {
+  emissions_pc: 1.2,
+  income_pc: 1.15,
+  population: 0.85,
+  pop_density: 0.8,
+};
+const TOTAL_WEIGHT = INDICATOR_COLUMNS.reduce((sum, c) => sum + COLUMN_WEIGHT[c.code], 0);
+
 export type SeriesTableProps = {
   districtName: string;
   series: SeriesRow[];
@@ -26,7 +35,7 @@ export function SeriesTable({ districtName, series, indicators }: SeriesTablePro
             <Text style={styles.headLabel}>Year</Text>
           </View>
           {columns.map((c) => (
-            <View key={c.code} role="columnheader" style={[styles.cell, styles.valueCell]}>
+            <View key={c.code} role="columnheader" style={[styles.cell, styles.valueCell, { flex: COLUMN_WEIGHT[c.code] }]}>
               <Text style={[styles.headLabel, styles.right]}>{c.short}</Text>
               <Text style={[styles.headUnit, styles.right]}>{c.shortUnit}</Text>
             </View>
@@ -59,7 +68,7 @@ function SeriesTableRow({
       {empty ? (
         <View
           role="cell"
-          style={[styles.cell, styles.gapCell, styles.gapRowCell, { flex: columns.length }]}
+          style={[styles.cell, styles.gapCell, styles.gapRowCell, { flex: TOTAL_WEIGHT }]}
           testID={`series-gap-row-${row.year}`}
           accessibilityLabel={`No data for ${row.year}`}
         >
@@ -72,14 +81,14 @@ function SeriesTableRow({
             <View
               key={c.code}
               role="cell"
-              style={[styles.cell, styles.valueCell, styles.gapCell]}
+              style={[styles.cell, styles.valueCell, styles.gapCell, { flex: COLUMN_WEIGHT[c.code] }]}
               testID={`series-gap-${row.year}-${c.code}`}
               accessibilityLabel={`${c.short}: no data for ${row.year}`}
             >
               <Text style={[styles.gapText, styles.right]}>no data</Text>
             </View>
           ) : (
-            <View key={c.code} role="cell" style={[styles.cell, styles.valueCell]}>
+            <View key={c.code} role="cell" style={[styles.cell, styles.valueCell, { flex: COLUMN_WEIGHT[c.code] }]}>
               <Text style={[styles.value, styles.right]}>{c.format(value)}</Text>
             </View>
           );
@@ -120,9 +129,9 @@ const styles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'stretch', minHeight: 36 },
   headRow: { backgroundColor: colors.surfaceSunken, borderBottomWidth: 1, borderBottomColor: colors.border },
   striped: { backgroundColor: colors.background },
-  cell: { paddingHorizontal: space.sm, paddingVertical: space.sm, justifyContent: 'center' },
-  yearCell: { width: 56 },
-  valueCell: { flex: 1, minWidth: 0 },
+  cell: { paddingHorizontal: space.xs + space.xxs, paddingVertical: space.sm, justifyContent: 'center' },
+  yearCell: { width: 50 },
+  valueCell: { minWidth: 0 },
   right: { textAlign: 'right' },
   headLabel: { ...type.label, color: colors.text },
   headUnit: { ...type.caption, color: colors.textMuted },

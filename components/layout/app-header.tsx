@@ -1,8 +1,9 @@
 import { Link } from 'expo-router';
-import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
+import { LinkTarget } from '@/components/ui/link-target';
 
 import { CrestMark } from './crest-mark';
 
@@ -11,14 +12,14 @@ export function AppHeader() {
   return (
     <View style={styles.bar} role="banner">
       <Link href="/" asChild>
-        <Pressable
+        <LinkTarget
           accessibilityRole="link"
           accessibilityLabel="Crestwatch, region list"
-          style={(state: InteractionState) => [styles.home, focusOutline(state)]}
+          stateStyle={(state: InteractionState) => [styles.home, focusOutline(state)]}
         >
           <CrestMark size={22} />
           <Text style={styles.word}>Crestwatch</Text>
-        </Pressable>
+        </LinkTarget>
       </Link>
       <Text style={styles.tagline} numberOfLines={1}>
         District emissions and income

@@ -1,9 +1,10 @@
 import { Link, type Href } from 'expo-router';
-import { Pressable, StyleSheet, Text } from 'react-native';
+import { StyleSheet, Text } from 'react-native';
 
 import { colors, layout, radius, space, type } from '@/components/theme';
 
 import { focusOutline, type InteractionState } from './interaction';
+import { LinkTarget } from './link-target';
 
 export type TextLinkProps = {
   href: Href;
@@ -17,10 +18,10 @@ export type TextLinkProps = {
 export function TextLink({ href, label, leading, accessibilityLabel }: TextLinkProps) {
   return (
     <Link href={href} asChild>
-      <Pressable
+      <LinkTarget
         accessibilityRole="link"
         accessibilityLabel={accessibilityLabel ?? label}
-        style={(state: InteractionState) => [styles.target, focusOutline(state)]}
+        stateStyle={(state: InteractionState) => [styles.target, focusOutline(state)]}
       >
         {(state: InteractionState) => (
           <Text style={[styles.text, state.hovered && styles.hover]}>
@@ -32,7 +33,7 @@ export function TextLink({ href, label, leading, accessibilityLabel }: TextLinkP
             {label}
           </Text>
         )}
-      </Pressable>
+      </LinkTarget>
     </Link>
   );
 }

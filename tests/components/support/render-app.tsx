@@ -1,0 +1,30 @@
+// Renders app routes in a memory router with a fresh QueryClient that never retries, so
+// error states show at once. Each test mocks `apiGet` (the api-client boundary).
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { Slot } from 'expo-router';
+import { renderRouter } from 'expo-router/testing-library';
+
+import DistrictScreen from '@/app/district/[code]';
+import RegionScreen from '@/app/index';
+import NotFoundScreen from '@/app/+not-found';
+
+export function renderApp(initialUrl: string) {
+  const client = new QueryClient({ defaultOptions: { queries: { retry: false, gcTime: Infinity } } });
+  function TestLayout() {
+    return (
+      <QueryClientProvider client={client}>
+        <Slot />
+      </QueryClientProvider>
+    );
+  }
+  const result = renderRouter(
+    {
+      _layout: TestLayout,
+      index: RegionScreen,
+      'district/[code]': DistrictScreen,
+      '+not-found': NotFoundScreen,
+    },
+    { initialUrl },
+  );
+  return { ...result, client };
+}
