@@ -1,9 +1,10 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { Slot, useGlobalSearchParams, type ErrorBoundaryProps } from 'expo-router';
+import { Slot, useGlobalSearchParams, usePathname, type ErrorBoundaryProps } from 'expo-router';
 import { useState } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { DistrictListPanel } from '@/components/district/district-list-panel';
+import { AccountStatus } from '@/components/layout/account-status';
 import { AppHeader } from '@/components/layout/app-header';
 import { RegionShell } from '@/components/layout/region-shell';
 import { ServerNotice } from '@/components/layout/server-notice';
@@ -11,6 +12,7 @@ import { StatePanel } from '@/components/state/state-panel';
 import { colors, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { useAppFonts } from '@/hooks/use-app-fonts';
+import { useMeQuery } from '@/hooks/use-auth';
 import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useHealthQuery } from '@/hooks/use-health';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
@@ -27,21 +29,26 @@ export default function RootLayout() {
   );
 }
 
+const ACCOUNT_ROUTES = new Set(['/sign-in', '/no-access']);
+
 function Frame() {
   const mode = useLayoutMode();
   const districts = useDistrictsQuery();
   const health = useHealthQuery();
+  const me = useMeQuery();
   const { code } = useGlobalSearchParams<{ code?: string }>();
+  // The sign-in pages stand alone: a list there could only repeat "sign in".
+  const withList = !ACCOUNT_ROUTES.has(usePathname());
   return (
     <RegionShell
       mode={mode}
       header={
         <>
-          <AppHeader />
+          <AppHeader account={<AccountStatus me={me} />} compact={mode === 'phone'} />
           <ServerNotice health={health} />
         </>
       }
-      list={<DistrictListPanel districts={districts} selectedCode={code} />}
+      list={withList ? <DistrictListPanel districts={districts} selectedCode={code} /> : null}
     >
       <Slot />
     </RegionShell>

@@ -46,6 +46,10 @@ export const colors = {
   skeleton: palette.sand,
   gapFill: palette.hatch,
   gapText: palette.hatchInk,
+  headerBackground: palette.slate900,
+  headerText: palette.chalk,
+  /** Secondary text and links on the header (11.9:1 on slate900). */
+  headerTextMuted: palette.ridge100,
   transparent: 'transparent',
 } as const;
 

@@ -35,3 +35,9 @@ export type HealthResponse = { status: 'ok'; database: 'up' | 'down' };
 
 /** The one error shape every API failure answers with. */
 export type ApiErrorBody = { error: { code: string; message: string; details?: unknown } };
+
+/** GET /api/auth/options: how this server signs people in. */
+export type AuthOptionsResponse = { provider: 'google' | 'stand-in'; signInUrl: string };
+
+/** GET /api/me: the signed-in person (401 `unauthenticated` when nobody is). */
+export type MeResponse = { id: number | string; email: string; name: string | null; role: string; csrfToken: string };

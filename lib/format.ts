@@ -14,10 +14,9 @@ function formatter(options: Intl.NumberFormatOptions): Intl.NumberFormat {
   return f;
 }
 
-/** Emissions per person (t CO2): two decimals below 10, one above. */
+/** Emissions per person (t CO2): always two decimals, so a column reads at one precision. */
 export function formatEmissions(value: number): string {
-  const digits = Math.abs(value) < 10 ? 2 : 1;
-  return formatter({ minimumFractionDigits: digits, maximumFractionDigits: digits }).format(value);
+  return formatter({ minimumFractionDigits: 2, maximumFractionDigits: 2 }).format(value);
 }
 
 /** Real income per person: whole currency units with thousands separators. */
@@ -25,10 +24,16 @@ export function formatIncome(value: number): string {
   return formatter({ maximumFractionDigits: 0 }).format(value);
 }
 
-/** Population: exact below 10,000, else compact (412k, 1.24M). */
+/**
+ * Population: exact below 10,000, else three significant digits with k or M (412k, 1.24M).
+ * Written out rather than Intl's compact notation, whose en-GB "1.24m" reads as metres.
+ */
 export function formatPopulation(value: number): string {
-  if (Math.abs(value) < 10_000) return formatter({ maximumFractionDigits: 0 }).format(value);
-  return formatter({ notation: 'compact', maximumSignificantDigits: 3 }).format(value);
+  const abs = Math.abs(value);
+  if (abs < 10_000) return formatter({ maximumFractionDigits: 0 }).format(value);
+  const threeDigits = formatter({ maximumSignificantDigits: 3 });
+  if (abs < 999_500) return `${threeDigits.format(value / 1_000)}k`;
+  return `${threeDigits.format(value / 1_000_000)}M`;
 }
 
 /** Persons per km²: one decimal below 100, whole numbers above. */

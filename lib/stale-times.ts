@@ -11,6 +11,10 @@ export const STALE_TIMES = {
   districtList: 5 * MINUTE,
   /** A district's series changes with uploads too; 5 min keeps back-and-forth browsing instant. */
   districtDetail: 5 * MINUTE,
+  /** Set by the server's configuration at start-up; it cannot change while the page is open. */
+  authOptions: Infinity,
+  /** Signing in or out reloads the page, so the session only needs an occasional recheck. */
+  me: 5 * MINUTE,
 } as const;
 
 export type StaleTimeName = keyof typeof STALE_TIMES;

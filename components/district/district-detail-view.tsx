@@ -27,7 +27,7 @@ export type DistrictDetailViewProps = {
  */
 export function DistrictDetailView({ code, detail, showBackLink }: DistrictDetailViewProps) {
   return (
-    <ScrollView style={styles.scroll} contentContainerStyle={styles.content}>
+    <ScrollView style={styles.scroll} contentContainerStyle={styles.content} testID="district-detail-scroll">
       <View style={styles.column}>
         {showBackLink ? <TextLink href="/" label="All districts" leading="← " /> : null}
         <DetailBody code={code} detail={detail} showBackLink={showBackLink} />

@@ -27,6 +27,10 @@ export function DistrictListPanel({ districts, selectedCode }: DistrictListPanel
   const [search, setSearch] = useState('');
   const all = districts.data;
   const shown = useMemo(() => (all ? searchDistricts(all, search) : []), [all, search]);
+  // Opened at /district/X in a wide window: start the list with X in view (rows have a
+  // fixed height, so FlatList can jump there without measuring).
+  const selectedIndex = selectedCode ? shown.findIndex((d) => d.code === selectedCode) : -1;
+  const initialScrollIndex = selectedIndex > 2 ? selectedIndex - 2 : undefined;
 
   const renderItem = useCallback<ListRenderItem<DistrictSummary>>(
     ({ item }) => <DistrictRow district={item} selected={item.code === selectedCode} />,
@@ -79,6 +83,7 @@ export function DistrictListPanel({ districts, selectedCode }: DistrictListPanel
           keyExtractor={keyOf}
           getItemLayout={itemLayout}
           extraData={selectedCode}
+          initialScrollIndex={initialScrollIndex}
           initialNumToRender={16}
           windowSize={7}
           keyboardShouldPersistTaps="handled"

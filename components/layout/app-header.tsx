@@ -1,4 +1,5 @@
 import { Link } from 'expo-router';
+import type { ReactNode } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, space, type } from '@/components/theme';
@@ -7,8 +8,15 @@ import { LinkTarget } from '@/components/ui/link-target';
 
 import { CrestMark } from './crest-mark';
 
-/** The bar across the top: the product's mark, a link home. */
-export function AppHeader() {
+export type AppHeaderProps = {
+  /** Who is signed in, at the right end. */
+  account?: ReactNode;
+  /** Phone width: the tagline would only squeeze the mark and the account, so it goes. */
+  compact?: boolean;
+};
+
+/** The bar across the top: the product's mark (a link home), a tagline, the account. */
+export function AppHeader({ account, compact = false }: AppHeaderProps) {
   return (
     <View style={styles.bar} role="banner">
       <Link href="/" asChild>
@@ -21,9 +29,12 @@ export function AppHeader() {
           <Text style={styles.word}>Crestwatch</Text>
         </LinkTarget>
       </Link>
-      <Text style={styles.tagline} numberOfLines={1}>
-        District emissions and income
-      </Text>
+      {compact ? null : (
+        <Text style={styles.tagline} numberOfLines={1}>
+          District emissions and income
+        </Text>
+      )}
+      {account ? <View style={styles.account}>{account}</View> : null}
     </View>
   );
 }
@@ -35,9 +46,10 @@ const styles = StyleSheet.create({
     gap: space.md,
     paddingHorizontal: space.lg,
     minHeight: 52,
-    backgroundColor: colors.text,
+    backgroundColor: colors.headerBackground,
   },
   home: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minHeight: 44, paddingHorizontal: space.xs },
-  word: { ...type.title, color: colors.surface },
-  tagline: { ...type.caption, color: colors.border, flexShrink: 1 },
+  word: { ...type.title, color: colors.headerText },
+  tagline: { ...type.caption, color: colors.headerTextMuted, flexShrink: 1 },
+  account: { marginLeft: 'auto' },
 });

@@ -7,8 +7,8 @@ import type { LayoutMode } from '@/hooks/use-layout-mode';
 export type RegionShellProps = {
   mode: LayoutMode;
   header: ReactNode;
-  /** The region list, shown as a left column in the wide layout only. */
-  list: ReactNode;
+  /** The region list, shown as a left column in the wide layout only; null for none. */
+  list: ReactNode | null;
   /** The current route. */
   children: ReactNode;
 };
@@ -22,7 +22,7 @@ export function RegionShell({ mode, header, list, children }: RegionShellProps) 
   return (
     <View style={styles.screen}>
       {header}
-      {mode === 'wide' ? (
+      {mode === 'wide' && list !== null ? (
         <View style={styles.columns}>
           <View style={styles.listColumn} role="navigation" aria-label="Districts">
             {list}

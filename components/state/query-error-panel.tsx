@@ -1,5 +1,6 @@
-import { ApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
+import { TextLink } from '@/components/ui/text-link';
+import { ApiError } from '@/lib/api-client';
 
 import { StatePanel } from './state-panel';
 
@@ -23,8 +24,22 @@ export function describeLoadError(error: unknown): string {
   return 'Something unexpected went wrong while loading.';
 }
 
-/** Error state with a Retry button (not offered for 4xx: asking again gets the same refusal). */
+/**
+ * Error state with a Retry button (not offered for 4xx: asking again gets the same refusal).
+ * A 401 means nobody is signed in: the way out is the sign-in page, not a retry.
+ */
 export function QueryErrorPanel({ what, error, onRetry, retrying = false, testID }: QueryErrorPanelProps) {
+  if (error instanceof ApiError && error.status === 401) {
+    return (
+      <StatePanel
+        testID={testID ? `${testID}-sign-in` : undefined}
+        title={`Sign in to see ${what}`}
+        message="District figures are shown to the agency’s invited staff."
+      >
+        <TextLink href="/sign-in" label="Sign in" />
+      </StatePanel>
+    );
+  }
   const canRetry = !(error instanceof ApiError && error.isClientError);
   return (
     <StatePanel tone="alert" title={`Could not load ${what}`} message={describeLoadError(error)} testID={testID}>

@@ -12,10 +12,12 @@ export type TextLinkProps = {
   /** Drawn before the label, e.g. an arrow; hidden from screen readers. */
   leading?: string;
   accessibilityLabel?: string;
+  /** 'inverse' on the dark header bar. */
+  tone?: 'default' | 'inverse';
 };
 
 /** An in-app link that reads as text: underlined, ridge colour, a full-size touch target. */
-export function TextLink({ href, label, leading, accessibilityLabel }: TextLinkProps) {
+export function TextLink({ href, label, leading, accessibilityLabel, tone = 'default' }: TextLinkProps) {
   return (
     <Link href={href} asChild>
       <LinkTarget
@@ -24,7 +26,7 @@ export function TextLink({ href, label, leading, accessibilityLabel }: TextLinkP
         stateStyle={(state: InteractionState) => [styles.target, focusOutline(state)]}
       >
         {(state: InteractionState) => (
-          <Text style={[styles.text, state.hovered && styles.hover]}>
+          <Text style={[styles.text, tone === 'inverse' && styles.inverse, state.hovered && (tone === 'inverse' ? styles.inverseHover : styles.hover)]}>
             {leading ? (
               <Text aria-hidden style={styles.leading}>
                 {leading}
@@ -48,5 +50,7 @@ const styles = StyleSheet.create({
   },
   text: { ...type.bodyStrong, color: colors.link, textDecorationLine: 'underline' },
   hover: { color: colors.text },
+  inverse: { color: colors.headerTextMuted },
+  inverseHover: { color: colors.headerText },
   leading: { textDecorationLine: 'none' },
 });

@@ -7,6 +7,8 @@ import { renderRouter } from 'expo-router/testing-library';
 import DistrictScreen from '@/app/district/[code]';
 import RegionScreen from '@/app/index';
 import NotFoundScreen from '@/app/+not-found';
+import NoAccessScreen from '@/app/no-access';
+import SignInScreen from '@/app/sign-in';
 
 export function renderApp(initialUrl: string) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false, gcTime: Infinity } } });
@@ -22,6 +24,8 @@ export function renderApp(initialUrl: string) {
       _layout: TestLayout,
       index: RegionScreen,
       'district/[code]': DistrictScreen,
+      'sign-in': SignInScreen,
+      'no-access': NoAccessScreen,
       '+not-found': NotFoundScreen,
     },
     { initialUrl },
