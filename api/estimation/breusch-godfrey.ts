@@ -1,4 +1,5 @@
 import { chiSquareUpperTail } from './distributions';
+import { take, type Workspace } from './workspace';
 
 /**
  * Breusch–Godfrey LM test for serial correlation up to order p (rows in year order).
@@ -13,49 +14,63 @@ import { chiSquareUpperTail } from './distributions';
  * against general autoregressive and moving average error models when the regressors
  * include lagged dependent variables", Econometrica 46(6), 1293–1301.
  *
+ * Orders 1..maxOrder are computed together (the order-p basis extends the order-(p−1) one).
+ *
  * Throws: nothing; statistic null when n ≤ k + p or a lag column is numerically in span(X).
  *
- * Example: breuschGodfrey(e, q1, 35, 4, 1) on PA01 residuals   // → { statistic: 13.3…, df: 1, pValue: 2.6e-4 } (see the R fixture)
+ * Example: breuschGodfrey(e, q1, 35, 4, 2) on PA01 residuals
+ *   // → [{ order: 1, statistic: 2.2009…, df: 1, pValue: 0.1379… }, { order: 2, statistic: 2.5793…, df: 2, pValue: 0.2754… }]
  */
 export function breuschGodfrey(
-  e: ArrayLike<number>, q1: Float64Array, n: number, k: number, order: number,
-): { order: number; statistic: number | null; df: number; pValue: number | null } {
-  const none = { order, statistic: null, df: order, pValue: null };
-  if (n <= k + order) return none;
+  e: ArrayLike<number>, q1: Float64Array, n: number, k: number, maxOrder: number, ws?: Workspace,
+): Array<{ order: number; statistic: number | null; df: number; pValue: number | null }> {
+  const out: Array<{ order: number; statistic: number | null; df: number; pValue: number | null }> = [];
   let ee = 0;
   for (let t = 0; t < n; t++) ee += e[t] * e[t];
-  if (!(ee > 0)) return none;
-  const basis: Float64Array[] = [];
-  for (let c = 0; c < k; c++) basis.push(q1.subarray(c * n, (c + 1) * n));
+  // orthonormal basis: the k columns of Q₁, then the orthonormalised lag columns
+  const basis = take(ws, n * (k + maxOrder));
+  basis.set(q1.subarray(0, n * k));
   let fitted = 0;
-  for (const q of basis) {
+  for (let c = 0; c < k; c++) {
     let s = 0;
-    for (let t = 0; t < n; t++) s += q[t] * e[t];
+    for (let t = 0; t < n; t++) s += basis[c * n + t] * e[t];
     fitted += s * s;
   }
-  for (let j = 1; j <= order; j++) {
-    const z = new Float64Array(n);
-    for (let t = j; t < n; t++) z[t] = e[t - j];
-    let norm0 = 0;
-    for (let t = 0; t < n; t++) norm0 += z[t] * z[t];
-    norm0 = Math.sqrt(norm0);
-    for (let pass = 0; pass < 2; pass++) {
-      for (const q of basis) {
+  let ok = ee > 0;
+  for (let j = 1; j <= maxOrder; j++) {
+    if (ok && n > k + j) {
+      const oz = (k + j - 1) * n;
+      for (let t = j; t < n; t++) basis[oz + t] = e[t - j];
+      let norm0 = 0;
+      for (let t = 0; t < n; t++) norm0 += basis[oz + t] * basis[oz + t];
+      norm0 = Math.sqrt(norm0);
+      // Gram–Schmidt against the basis, repeated once when the norm drops by more than
+      // half (Kahan–Parlett "twice is enough" criterion)
+      let nz = norm0;
+      for (let pass = 0; pass < 2; pass++) {
+        const before = nz;
+        for (let c = 0; c < k + j - 1; c++) {
+          const oc = c * n;
+          let s = 0;
+          for (let t = 0; t < n; t++) s += basis[oc + t] * basis[oz + t];
+          for (let t = 0; t < n; t++) basis[oz + t] -= s * basis[oc + t];
+        }
+        nz = 0;
+        for (let t = 0; t < n; t++) nz += basis[oz + t] * basis[oz + t];
+        nz = Math.sqrt(nz);
+        if (nz > 0.5 * before) break;
+      }
+      if (nz > 1e-10 * norm0) {
         let s = 0;
-        for (let t = 0; t < n; t++) s += q[t] * z[t];
-        for (let t = 0; t < n; t++) z[t] -= s * q[t];
+        for (let t = 0; t < n; t++) { basis[oz + t] /= nz; s += basis[oz + t] * e[t]; }
+        fitted += s * s;
+        const statistic = (n * fitted) / ee;
+        out.push({ order: j, statistic, df: j, pValue: chiSquareUpperTail(statistic, j) });
+        continue;
       }
     }
-    let nz = 0;
-    for (let t = 0; t < n; t++) nz += z[t] * z[t];
-    nz = Math.sqrt(nz);
-    if (!(nz > 1e-10 * norm0)) return none;
-    for (let t = 0; t < n; t++) z[t] /= nz;
-    let s = 0;
-    for (let t = 0; t < n; t++) s += z[t] * e[t];
-    fitted += s * s;
-    basis.push(z);
+    ok = false;
+    out.push({ order: j, statistic: null, df: j, pValue: null });
   }
-  const statistic = (n * fitted) / ee;
-  return { order, statistic, df: order, pValue: chiSquareUpperTail(statistic, order) };
+  return out;
 }

@@ -1,4 +1,5 @@
 import { chiSquareUpperTail } from './distributions';
+import { take, type Workspace } from './workspace';
 
 /**
  * Studentized Breusch–Pagan (Koenker) test for heteroskedasticity against the regressors.
@@ -16,14 +17,14 @@ import { chiSquareUpperTail } from './distributions';
  * Example: breuschPagan(e, q1, 35, 4) on PA01   // → { statistic: …, df: 3, pValue: … } (see the R fixture)
  */
 export function breuschPagan(
-  e: ArrayLike<number>, q1: Float64Array, n: number, k: number,
+  e: ArrayLike<number>, q1: Float64Array, n: number, k: number, ws?: Workspace,
 ): { statistic: number | null; df: number; pValue: number | null } {
   const df = k - 1;
   if (k < 2) return { statistic: null, df, pValue: null };
   let s2 = 0;
   for (let i = 0; i < n; i++) s2 += e[i] * e[i];
   s2 /= n;
-  const w = new Float64Array(n);
+  const w = take(ws, n);
   let ww = 0;
   for (let i = 0; i < n; i++) { w[i] = e[i] * e[i] - s2; ww += w[i] * w[i]; }
   if (!(ww > 0)) return { statistic: null, df, pValue: null };

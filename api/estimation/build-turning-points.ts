@@ -3,7 +3,7 @@ import { cubicTurningPoints } from './cubic-turning-points';
 import { deltaMethod } from './delta-method';
 import { fiellerInterval } from './fieller';
 import { quadraticTurningPoint } from './turning-point';
-import type { TurningPoint } from './types';
+import type { FiellerSet, TurningPoint } from './types';
 
 /**
  * The turning points of a fitted quadratic or cubic, each with its delta-method and
@@ -36,35 +36,46 @@ export function buildTurningPoints(input: {
   intervalMethod: 'fieller' | 'delta';
 }): TurningPoint[] {
   const { slope, slopeCovariance: V, xMin, xMax, critical: c, transform, intervalMethod } = input;
-  const toLevel = (v: number | null): number | null => {
-    if (v === null) return null;
-    if (transform === 'level') return v;
-    const e = Math.exp(v);
-    return Number.isFinite(e) ? e : null;
-  };
-  const raw: Array<{ x: number; kind: 'peak' | 'trough'; gradient: number[]; fieller: ReturnType<typeof fiellerInterval> }> = [];
+  const out: TurningPoint[] = [];
   if (slope.length === 2) {
     const tp = quadraticTurningPoint(slope[0], slope[1], V[0][0], V[0][1], V[1][1]);
-    if (tp) raw.push({ x: tp.x, kind: tp.kind, gradient: tp.gradient, fieller: fiellerInterval(slope[0], slope[1], V[0][0], V[0][1], V[1][1], c) });
+    if (tp) out.push(assemble(tp.x, tp.kind, tp.gradient, fiellerInterval(slope[0], slope[1], V[0][0], V[0][1], V[1][1], c), V, c, xMin, xMax, transform, intervalMethod));
   } else {
     for (const tp of cubicTurningPoints(slope[0], slope[1], slope[2], V)) {
-      raw.push({ x: tp.x, kind: tp.kind, gradient: tp.gradient, fieller: cubicFieller(slope[0], slope[1], slope[2], V, c, tp.x) });
+      out.push(assemble(tp.x, tp.kind, tp.gradient, cubicFieller(slope[0], slope[1], slope[2], V, c, tp.x), V, c, xMin, xMax, transform, intervalMethod));
     }
   }
-  return raw.map((r) => {
-    const d = deltaMethod(r.gradient, V, r.x, c);
-    const inRange = r.x >= xMin && r.x <= xMax;
-    const intervalBounded = intervalMethod === 'delta' ? d.se !== null : r.fieller.kind === 'bounded';
-    return {
-      x: r.x,
-      level: toLevel(r.x),
-      kind: r.kind,
-      inRange,
-      gradient: r.gradient,
-      delta: { se: d.se, lo: d.lo, hi: d.hi, levelLo: toLevel(d.lo), levelHi: toLevel(d.hi) },
-      fieller: { ...r.fieller, levelLo: toLevel(r.fieller.lo), levelHi: toLevel(r.fieller.hi) },
-      intervalBounded,
-      extrapolated: !inRange,
-    };
-  });
+  return out;
+}
+
+function assemble(
+  x: number, kind: 'peak' | 'trough', gradient: number[], fieller: FiellerSet, V: ReadonlyArray<ReadonlyArray<number>>, c: number,
+  xMin: number, xMax: number, transform: 'log' | 'level', intervalMethod: 'fieller' | 'delta',
+): TurningPoint {
+  const d = deltaMethod(gradient, V, x, c);
+  const inRange = x >= xMin && x <= xMax;
+  const log = transform === 'log';
+  return {
+    x,
+    level: toLevel(x, log),
+    kind,
+    inRange,
+    gradient,
+    delta: { se: d.se, lo: d.lo, hi: d.hi, levelLo: toLevel(d.lo, log), levelHi: toLevel(d.hi, log) },
+    fieller: {
+      kind: fieller.kind, lo: fieller.lo, hi: fieller.hi, pieces: fieller.pieces,
+      ...(fieller.A !== undefined ? { A: fieller.A, B: fieller.B, C: fieller.C, discriminant: fieller.discriminant } : {}),
+      levelLo: toLevel(fieller.lo, log), levelHi: toLevel(fieller.hi, log),
+    },
+    intervalBounded: intervalMethod === 'delta' ? d.se !== null : fieller.kind === 'bounded',
+    extrapolated: !inRange,
+  };
+}
+
+/** Real units: exp under the log transform (null on overflow), the value itself in level form. */
+function toLevel(v: number | null, log: boolean): number | null {
+  if (v === null) return null;
+  if (!log) return v;
+  const e = Math.exp(v);
+  return Number.isFinite(e) ? e : null;
 }

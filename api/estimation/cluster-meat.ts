@@ -1,3 +1,5 @@
+import { take, type Workspace } from './workspace';
+
 /**
  * The cluster-robust "meat" in Q₁ coordinates: M = Σ_g u_g u_gᵀ with
  * u_g = Σ_{i in cluster g} e_i·q_i (q_i the i-th row of thin Q).
@@ -15,14 +17,14 @@
  *   clusterMeat(q, e, 2, 1, Int32Array.from([0, 0]), 1)   // → [2]   ((1/√2 + 1/√2)²)
  */
 export function clusterMeat(
-  q1: Float64Array, e: ArrayLike<number>, n: number, k: number, groups: Int32Array, nGroups: number,
+  q1: Float64Array, e: ArrayLike<number>, n: number, k: number, groups: Int32Array, nGroups: number, ws?: Workspace,
 ): Float64Array {
   const u = new Float64Array(nGroups * k);
   for (let i = 0; i < n; i++) {
     const g = groups[i];
     for (let a = 0; a < k; a++) u[g * k + a] += e[i] * q1[a * n + i];
   }
-  const m = new Float64Array(k * k);
+  const m = take(ws, k * k);
   for (let g = 0; g < nGroups; g++) {
     for (let a = 0; a < k; a++) {
       const ua = u[g * k + a];

@@ -3,6 +3,7 @@ import { breuschPagan } from './breusch-pagan';
 import { durbinWatson } from './durbin-watson';
 import { jarqueBera } from './jarque-bera';
 import type { CurveDiagnostics } from './types';
+import type { Workspace } from './workspace';
 
 /**
  * The residual diagnostics of a district fit, rows in year order: Durbin–Watson,
@@ -22,15 +23,16 @@ import type { CurveDiagnostics } from './types';
  */
 export function curveDiagnostics(
   e: ArrayLike<number>, q1: Float64Array, leverage: ArrayLike<number>, years: ArrayLike<number>, n: number, k: number,
+  ws?: Workspace,
 ): CurveDiagnostics {
   let best = 0;
   for (let i = 1; i < n; i++) if (leverage[i] > leverage[best]) best = i;
   const residualsByYear = new Array<{ year: number; residual: number }>(n);
   for (let i = 0; i < n; i++) residualsByYear[i] = { year: years[i], residual: e[i] };
   return {
-    durbinWatson: durbinWatson(e, q1, n, k),
-    breuschGodfrey: [breuschGodfrey(e, q1, n, k, 1), breuschGodfrey(e, q1, n, k, 2)],
-    breuschPagan: breuschPagan(e, q1, n, k),
+    durbinWatson: durbinWatson(e, q1, n, k, ws),
+    breuschGodfrey: breuschGodfrey(e, q1, n, k, 2, ws),
+    breuschPagan: breuschPagan(e, q1, n, k, ws),
     jarqueBera: jarqueBera(e),
     largestLeverage: n > 0 ? { value: leverage[best], year: years[best], row: best } : null,
     residualsByYear,

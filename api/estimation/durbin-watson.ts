@@ -1,4 +1,5 @@
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
+import { take, type Workspace } from './workspace';
 
 /**
  * Durbin–Watson statistic for first-order serial correlation of OLS residuals (rows in
@@ -18,7 +19,7 @@ import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
  * Example: residuals (1, −1, 1, −1, …) alternate, so DW ≈ 4 and the p-value is ≈ 1.
  */
 export function durbinWatson(
-  e: ArrayLike<number>, q1: Float64Array, n: number, k: number,
+  e: ArrayLike<number>, q1: Float64Array, n: number, k: number, ws?: Workspace,
 ): { statistic: number; pValue: number | null; mean: number | null; variance: number | null; method: string } {
   let num = 0, den = 0;
   for (let t = 0; t < n; t++) {
@@ -29,7 +30,7 @@ export function durbinWatson(
   const method = 'normal approximation with exact moments, H1: positive autocorrelation';
   if (n < Math.max(5, k) || !(den > 0)) return { statistic, pValue: null, mean: null, variance: null, method };
   // B = A·Q₁
-  const b = new Float64Array(n * k);
+  const b = take(ws, n * k);
   for (let c = 0; c < k; c++) {
     const o = c * n;
     for (let t = 0; t < n; t++) {
@@ -40,13 +41,13 @@ export function durbinWatson(
       b[o + t] = v;
     }
   }
+  // Q₁ᵀAQ₁ is symmetric: its trace and squared Frobenius norm from the upper triangle
   let trQAQ = 0, trQA2Q = 0, trSq = 0;
   for (let c = 0; c < k; c++) {
-    for (let d = 0; d < k; d++) {
+    for (let d = c; d < k; d++) {
       let s = 0;
       for (let t = 0; t < n; t++) s += q1[c * n + t] * b[d * n + t];
-      trSq += s * s;
-      if (c === d) trQAQ += s;
+      if (c === d) { trQAQ += s; trSq += s * s; } else trSq += 2 * s * s;
     }
     for (let t = 0; t < n; t++) trQA2Q += b[c * n + t] * b[c * n + t];
   }

@@ -11,6 +11,7 @@ import { prepareRows } from './prepare-rows';
 import { projectCrossing } from './projection';
 import { districtStanding } from './standing';
 import type { CurveNotEstimable, FitCurveOptions, FitCurveResult } from './types';
+import { acquireWorkspace, releaseWorkspace, take, toArray, type Workspace } from './workspace';
 
 /**
  * Fits one district's emissions–driver curve and reads it: turning points with delta and
@@ -49,19 +50,28 @@ export function fitCurve(rows: ReadonlyArray<CurveRow>, model: ModelSpecInput | 
   if (spec.covariance === 'cluster') {
     throw new EstimationInputError('invalid_argument', "Covariance 'cluster' is for the pooled panel (fitPanel); choose classical, hc1, hc3 or newey_west for one district", { reason: 'covariance' });
   }
-  const data = prepareRows(rows, spec, false);
+  const n0 = Array.isArray(rows) ? rows.length : 0;
+  const nc0 = spec.controls ? spec.controls.length : 4;
+  const ws = acquireWorkspace(n0 * (24 + 2 * nc0 + 9 * (4 + nc0)) + 10 * (4 + nc0) ** 2 + 64);
+  try {
+    return fitCurveWith(rows, spec, options, ws);
+  } finally {
+    releaseWorkspace(ws);
+  }
+}
+
+function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: FitCurveOptions, ws: Workspace): FitCurveResult {
+  const data = prepareRows(rows, spec, false, ws);
   const m = spec.form === 'cubic' ? 3 : 2;
-  const terms = ['const', 'x', 'x2', 'x3'].slice(0, 1 + m).concat(data.controlNames);
+  const terms = m === 3 ? ['const', 'x', 'x2', 'x3'] : ['const', 'x', 'x2'];
+  for (const c of data.controlNames) terms.push(c);
   const k = terms.length;
   const n = data.n;
   const minYears = spec.minYears ?? k + 5;
-  const notEstimable = (code: CurveNotEstimable['reason']['code'], message: string, details: Record<string, unknown>): CurveNotEstimable => ({
-    status: 'not_estimable', model: spec, n, k, minYears, reason: { code, message, details }, standing: { standing: 'not_estimable' },
-  });
   if (n < minYears || n <= k) {
-    return notEstimable('too_few_rows', `${n} rows; the model needs at least ${Math.max(minYears, k + 1)}`, { n, k, minYears });
+    return notEstimable(spec, n, k, minYears, 'too_few_rows', `${n} rows; the model needs at least ${Math.max(minYears, k + 1)}`, { n, k, minYears });
   }
-  const design = new Float64Array(n * k);
+  const design = take(ws, n * k);
   const x = data.x;
   for (let i = 0; i < n; i++) {
     const xi = x[i];
@@ -73,10 +83,10 @@ export function fitCurve(rows: ReadonlyArray<CurveRow>, model: ModelSpecInput | 
   for (let c = 0; c < data.controls.length; c++) design.set(data.controls[c], (1 + m + c) * n);
   let fit;
   try {
-    fit = fitLeastSquares({ nRows: n, nCols: k, data: design }, data.y, { covariance: spec.covariance, lag: spec.lag, names: terms });
+    fit = fitLeastSquares({ nRows: n, nCols: k, data: design }, data.y, { covariance: spec.covariance, lag: spec.lag, names: terms }, ws);
   } catch (err) {
     if (err instanceof EstimationInputError && (err.code === 'rank_deficient' || err.code === 'covariance_undefined')) {
-      return notEstimable(err.code, err.message, err.details);
+      return notEstimable(spec, n, k, minYears, err.code, err.message, err.details);
     }
     throw err;
   }
@@ -100,31 +110,51 @@ export function fitCurve(rows: ReadonlyArray<CurveRow>, model: ModelSpecInput | 
   });
   const tp = standing.turningPointIndex === null ? null : inf.turningPoints[standing.turningPointIndex];
   const gap = tp ? thresholdGap(levelNow, tp.level, tp.extrapolated) : { percent: null, extrapolated: false, reason: 'no turning point' };
-  const designRowNow = terms.map((_, c) => design[c * n + last]);
+  const designRowNow = new Array<number>(k);
+  for (let c = 0; c < k; c++) designRowNow[c] = design[c * n + last];
   const elasticity = elasticityNow({
     transform: spec.transform, coefficients: result.coefficients, covariance: result.covariance, slopeTerms: m, xNow,
     designRowNow, fittedNow: result.fitted[last], critical: inf.critical.value,
   });
   const trend = incomeTrend(data.years, data.xRaw, spec.trendYears);
-  const ln = (v: number | null): number | null => (v === null ? null : spec.transform === 'log' ? v : v > 0 ? Math.log(v) : null);
+  const log = spec.transform === 'log';
   const bounded = tp !== null && standing.intervalBounded === true && standing.interval !== null;
   const projection = projectCrossing({
-    lnThreshold: tp ? ln(tp.x) : null,
+    lnThreshold: tp ? lnOf(tp.x, log) : null,
     lnNow: Math.log(levelNow),
-    lnLo: bounded ? ln(standing.interval!.lo) : null,
-    lnHi: bounded ? ln(standing.interval!.hi) : null,
+    lnLo: bounded ? lnOf(standing.interval!.lo, log) : null,
+    lnHi: bounded ? lnOf(standing.interval!.hi, log) : null,
     trend: trend.slopePerYear,
     lastYear,
     extrapolated: tp ? tp.extrapolated : false,
   });
   const diagnostics = options.diagnostics === false ? null
-    : curveDiagnostics(core.residuals, core.q1, result.leverage, data.years, n, k);
+    : curveDiagnostics(core.residuals, core.q1, result.leverage, data.years, n, k, ws);
   return {
     status: 'ok',
     model: spec,
-    ...result,
+    names: result.names,
+    coefficients: result.coefficients,
+    standardErrors: result.standardErrors,
+    tStatistics: result.tStatistics,
+    pValues: result.pValues,
+    covariance: result.covariance,
+    covarianceInfo: result.covarianceInfo,
+    residuals: result.residuals,
+    fitted: result.fitted,
+    leverage: result.leverage,
+    n: result.n,
+    k: result.k,
+    df: result.df,
+    rank: result.rank,
+    rss: result.rss,
+    tss: result.tss,
+    rSquared: result.rSquared,
+    adjRSquared: result.adjRSquared,
+    residualStandardError: result.residualStandardError,
+    condition: result.condition,
     terms,
-    years: Array.from(data.years),
+    years: toArray(data.years),
     range: { xMin, xMax, levelMin, levelMax, firstYear: data.years[0], lastYear, xNow, levelNow },
     critical: inf.critical,
     turningPoints: inf.turningPoints,
@@ -138,4 +168,18 @@ export function fitCurve(rows: ReadonlyArray<CurveRow>, model: ModelSpecInput | 
     projection,
     diagnostics,
   };
+}
+
+/** ln of a model-scale value: itself under the log transform, else its log when positive. */
+function lnOf(v: number | null, log: boolean): number | null {
+  if (v === null) return null;
+  if (log) return v;
+  return v > 0 ? Math.log(v) : null;
+}
+
+function notEstimable(
+  spec: ModelSpec, n: number, k: number, minYears: number,
+  code: CurveNotEstimable['reason']['code'], message: string, details: Record<string, unknown>,
+): CurveNotEstimable {
+  return { status: 'not_estimable', model: spec, n, k, minYears, reason: { code, message, details }, standing: { standing: 'not_estimable' } };
 }

@@ -3,8 +3,10 @@ import { EstimationInputError } from './errors';
 import { leastSquaresDoubleDouble } from './least-squares-dd';
 import { leastSquaresDouble } from './least-squares-double';
 import { DEFAULT_RANK_TOLERANCE } from './qr';
+import { conditionEstimates } from './condition-estimate';
 import { robustCovariance } from './robust-covariance';
 import type { DesignMatrix, LeastSquaresCore, OlsOptions, OlsResult } from './types';
+import { take, toArray, type Workspace } from './workspace';
 
 /** Scaled condition estimate above which 'auto' precision refits in double-double. */
 export const DOUBLE_DOUBLE_THRESHOLD = 1e7;
@@ -24,6 +26,9 @@ export const DOUBLE_DOUBLE_THRESHOLD = 1e7;
  * Reference: Businger & Golub (1965), Numerische Mathematik 7(3), 269–276; Higham, N. J.
  * (2002), Accuracy and Stability of Numerical Algorithms, 2nd ed., SIAM, ch. 20.
  *
+ * `ws` (optional): scratch memory (workspace.ts); the returned core's arrays then live in it
+ * and are valid only until the caller releases the workspace (the result never aliases it).
+ *
  * Throws: EstimationInputError `rank_deficient` (details: rank, k, dependent columns and the
  * columns each depends on), `invalid_argument` (n ≤ k, option errors), `covariance_undefined`.
  *
@@ -31,7 +36,7 @@ export const DOUBLE_DOUBLE_THRESHOLD = 1e7;
  *   Float64Array.from([1, 2, 4])).result.coefficients   // → [-0.6666666666666666, 1.5]
  */
 export function fitLeastSquares(
-  X: DesignMatrix, y: Float64Array, options: OlsOptions = {},
+  X: DesignMatrix, y: Float64Array, options: OlsOptions = {}, ws?: Workspace,
 ): { result: OlsResult; core: LeastSquaresCore } {
   const { nRows: n, nCols: k, data, dataLo } = X;
   const names = options.names ? [...options.names] : Array.from({ length: k }, (_, j) => `x${j}`);
@@ -45,7 +50,7 @@ export function fitLeastSquares(
   const precision = options.precision ?? 'auto';
   let core = precision === 'double-double'
     ? leastSquaresDoubleDouble(data, y, n, k, tol, dataLo)
-    : leastSquaresDouble(data, y, n, k, tol, 3, dataLo);
+    : leastSquaresDouble(data, y, n, k, tol, 3, dataLo, ws);
   if (core.rank < k) throw rankError(core, names);
   let cond = conditionEstimates(core);
   if (precision === 'auto' && cond.scaled > DOUBLE_DOUBLE_THRESHOLD) {
@@ -55,7 +60,7 @@ export function fitLeastSquares(
   }
   const e = core.residuals;
   const q1 = core.q1;
-  const leverage = new Float64Array(n);
+  const leverage = take(ws, n);
   for (let c = 0; c < k; c++) {
     const off = c * n;
     for (let i = 0; i < n; i++) leverage[i] += q1[off + i] * q1[off + i];
@@ -75,8 +80,8 @@ export function fitLeastSquares(
   const df = n - k;
   const rSquared = tss > 0 ? 1 - rss / tss : 0;
   const adjRSquared = 1 - (1 - rSquared) * ((n - (centered ? 1 : 0)) / df);
-  const { matrix, info } = robustCovariance(core, e, leverage, options);
-  const coefficients = Array.from(core.coefficients);
+  const { matrix, info } = robustCovariance(core, e, leverage, options, ws);
+  const coefficients = toArray(core.coefficients);
   const covariance: number[][] = [];
   const standardErrors: number[] = [];
   const tStatistics: number[] = [];
@@ -95,7 +100,7 @@ export function fitLeastSquares(
   for (let i = 0; i < n; i++) fitted[i] = y[i] - e[i];
   const result: OlsResult = {
     names, coefficients, standardErrors, tStatistics, pValues, covariance, covarianceInfo: info,
-    residuals: Array.from(e), fitted, leverage: Array.from(leverage), n, k, df, rank: core.rank, rss, tss,
+    residuals: toArray(e), fitted, leverage: toArray(leverage), n, k, df, rank: core.rank, rss, tss,
     rSquared, adjRSquared, residualStandardError: Math.sqrt(rss / df),
     condition: { estimate: cond.raw, scaledEstimate: cond.scaled, precision: core.precision, refinementSteps: core.refinementSteps },
   };
@@ -111,22 +116,6 @@ function hasConstantColumn(data: Float64Array, n: number, k: number): boolean {
     if (same) return true;
   }
   return false;
-}
-
-function conditionEstimates(core: LeastSquaresCore): { raw: number; scaled: number } {
-  const { k, r, rinv, columnNorms } = core;
-  let rn = 0, rsn = 0, in1 = 0, isn = 0;
-  for (let c = 0; c < k; c++) {
-    let s = 0, ss = 0, t = 0, ts = 0;
-    for (let i = 0; i <= c; i++) {
-      s += Math.abs(r[c * k + i]);
-      ss += Math.abs(r[c * k + i]) / columnNorms[c];
-      t += Math.abs(rinv[c * k + i]);
-      ts += Math.abs(rinv[c * k + i]) * columnNorms[i];
-    }
-    rn = Math.max(rn, s); rsn = Math.max(rsn, ss); in1 = Math.max(in1, t); isn = Math.max(isn, ts);
-  }
-  return { raw: rn * in1, scaled: rsn * isn };
 }
 
 function rankError(core: LeastSquaresCore, names: string[]): EstimationInputError {

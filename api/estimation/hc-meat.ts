@@ -18,12 +18,13 @@
  *   heteroskedasticMeat(q, e, h, 2, 1, 'hc3')               // → [4]
  */
 import { EstimationInputError } from './errors';
+import { take, type Workspace } from './workspace';
 
 export function heteroskedasticMeat(
   q1: Float64Array, e: ArrayLike<number>, leverage: ArrayLike<number>, n: number, k: number,
-  type: 'hc0' | 'hc1' | 'hc3',
+  type: 'hc0' | 'hc1' | 'hc3', ws?: Workspace,
 ): Float64Array {
-  const m = new Float64Array(k * k);
+  const m = take(ws, k * k);
   const hc1 = n / (n - k);
   for (let i = 0; i < n; i++) {
     let w = e[i] * e[i];

@@ -4,6 +4,7 @@ import { heteroskedasticMeat } from './hc-meat';
 import { defaultNeweyWestLag } from './newey-west-lag';
 import { neweyWestMeat } from './newey-west-meat';
 import type { CovarianceInfo, CovarianceOptions, LeastSquaresCore } from './types';
+import { take, type Workspace } from './workspace';
 
 /**
  * Covariance matrix of OLS coefficients: classical, HC0/HC1/HC3, Newey–West or
@@ -33,7 +34,7 @@ import type { CovarianceInfo, CovarianceOptions, LeastSquaresCore } from './type
  *   // → [7/18, −1/6, −1/6, 1/12]   (column-major 2 × 2)
  */
 export function robustCovariance(
-  core: LeastSquaresCore, e: ArrayLike<number>, leverage: ArrayLike<number>, options: CovarianceOptions,
+  core: LeastSquaresCore, e: ArrayLike<number>, leverage: ArrayLike<number>, options: CovarianceOptions, ws?: Workspace,
 ): { matrix: Float64Array; info: CovarianceInfo } {
   const { n, k, perm, rinv, q1, xtxInv } = core;
   const type = options.covariance ?? 'classical';
@@ -44,7 +45,7 @@ export function robustCovariance(
     let rss = 0;
     for (let i = 0; i < n; i++) rss += e[i] * e[i];
     const s2 = rss / (n - k);
-    const v = new Float64Array(k * k);
+    const v = take(ws, k * k);
     for (let i = 0; i < k * k; i++) v[i] = s2 * xtxInv[i];
     return { matrix: v, info: { type, factor: 1, lag: null, clusters: null } };
   }
@@ -53,14 +54,14 @@ export function robustCovariance(
   let lag: number | null = null;
   let clusters: number | null = null;
   if (type === 'hc0' || type === 'hc1' || type === 'hc3') {
-    meat = heteroskedasticMeat(q1, e, leverage, n, k, type);
+    meat = heteroskedasticMeat(q1, e, leverage, n, k, type, ws);
     if (type === 'hc1') factor = n / (n - k); // recorded; applied inside the meat
   } else if (type === 'newey_west') {
     lag = options.lag ?? defaultNeweyWestLag(n);
     if (!Number.isInteger(lag) || lag < 0 || lag >= n) {
       throw new EstimationInputError('invalid_argument', `Newey–West lag must be an integer in [0, n−1] (n = ${n}), got ${lag}`, { reason: 'lag', lag, n });
     }
-    meat = neweyWestMeat(q1, e, n, k, lag);
+    meat = neweyWestMeat(q1, e, n, k, lag, ws);
     factor = options.adjust === false ? 1 : n / (n - k);
     if (factor !== 1) for (let i = 0; i < k * k; i++) meat[i] *= factor;
   } else if (type === 'cluster') {
@@ -78,7 +79,7 @@ export function robustCovariance(
     const G = index.size;
     if (G < 2) throw new EstimationInputError('invalid_argument', 'Cluster covariance needs at least 2 clusters', { reason: 'clusters', clusters: G });
     clusters = G;
-    meat = clusterMeat(q1, e, n, k, groups, G);
+    meat = clusterMeat(q1, e, n, k, groups, G, ws);
     const kc = options.clusterParameterCount ?? k;
     const adj = options.clusterAdjustment ?? 'n_over_n_minus_k';
     factor = adj === 'none' ? 1
@@ -90,7 +91,7 @@ export function robustCovariance(
     throw new EstimationInputError('invalid_argument', `Unknown covariance type '${String(type)}'`, { reason: 'covariance', covariance: type });
   }
   // V_piv = R⁻¹ M R⁻ᵀ (R⁻¹ upper triangular, column-major k × k)
-  const t = new Float64Array(k * k); // T = R⁻¹ M
+  const t = take(ws, k * k); // T = R⁻¹ M
   for (let a = 0; a < k; a++) {
     for (let c = 0; c < k; c++) {
       let s = 0;
@@ -98,7 +99,7 @@ export function robustCovariance(
       t[c * k + a] = s;
     }
   }
-  const v = new Float64Array(k * k);
+  const v = take(ws, k * k);
   for (let a = 0; a < k; a++) {
     for (let b = a; b < k; b++) {
       let s = 0;

@@ -1,4 +1,5 @@
 import type { QrFactorisation } from './qr';
+import { take, type Workspace } from './workspace';
 
 /**
  * Forms the thin orthonormal factor Q₁ (n × rank, column-major) of a pivoted Householder
@@ -15,9 +16,9 @@ import type { QrFactorisation } from './qr';
  * Example: for the 3×2 matrix with columns (1,1,1) and (1,2,3),
  *   thinQ(pivotedQr(a, 3, 2))  // → column 0 = −(1,1,1)/√3, column 1 = (0.7071…, 0, −0.7071…) up to sign
  */
-export function thinQ(f: QrFactorisation): Float64Array {
+export function thinQ(f: QrFactorisation, ws?: Workspace): Float64Array {
   const { n, qr, tau, rank: r } = f;
-  const q = new Float64Array(n * r);
+  const q = take(ws, n * r);
   for (let c = 0; c < r; c++) q[c * n + c] = 1;
   for (let j = r - 1; j >= 0; j--) {
     const tj = tau[j];

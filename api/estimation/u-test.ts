@@ -27,38 +27,47 @@ export function lindMehlumTest(
   slopeCoefficients: ReadonlyArray<number>, slopeCovariance: ReadonlyArray<ArrayLike<number>>,
   xMin: number, xMax: number, df: number | null, alpha: number,
 ): UTestResult {
-  const m = slopeCoefficients.length;
-  const at = (x: number): { value: number; se: number } => {
-    const a = [1, 2 * x, 3 * x * x].slice(0, m);
-    let value = 0, v = 0;
-    for (let i = 0; i < m; i++) {
-      value += a[i] * slopeCoefficients[i];
-      for (let j = 0; j < m; j++) v += a[i] * slopeCovariance[i][j] * a[j];
-    }
-    return { value, se: Math.sqrt(Math.max(v, 0)) };
-  };
-  const lo = at(xMin), hi = at(xMax);
-  const tMin = lo.value / lo.se, tMax = hi.value / hi.se;
-  const orientation: 'inverted_u' | 'u' = hi.value < lo.value ? 'inverted_u' : 'u';
+  const lo = slopeAt(slopeCoefficients, slopeCovariance, xMin);
+  const hi = slopeAt(slopeCoefficients, slopeCovariance, xMax);
+  const loValue = lo[0], loSe = lo[1], hiValue = hi[0], hiSe = hi[1];
+  const tMin = loValue / loSe, tMax = hiValue / hiSe;
+  const orientation: 'inverted_u' | 'u' = hiValue < loValue ? 'inverted_u' : 'u';
   const invStat = Math.min(tMin, -tMax);
   const uStat = Math.min(-tMin, tMax);
-  const fin = (v: number): number | null => (Number.isFinite(v) ? v : null);
-  const p = (s: number): number | null => (Number.isNaN(s) ? null : upperTail(s, df));
+  const pInv = Number.isNaN(invStat) ? null : upperTail(invStat, df);
+  const pU = Number.isNaN(uStat) ? null : upperTail(uStat, df);
   const statistic = orientation === 'inverted_u' ? invStat : uStat;
-  const pValue = p(statistic);
+  const pValue = orientation === 'inverted_u' ? pInv : pU;
   // extremum inside the range: the slope changes sign between x_min and x_max
-  const extremumInRange = (lo.value > 0 && hi.value < 0) || (lo.value < 0 && hi.value > 0);
+  const extremumInRange = (loValue > 0 && hiValue < 0) || (loValue < 0 && hiValue > 0);
   return {
     xMin, xMax,
-    slopeAtMin: lo.value, seAtMin: lo.se, tAtMin: fin(tMin),
-    slopeAtMax: hi.value, seAtMax: hi.se, tAtMax: fin(tMax),
-    orientation, statistic: fin(statistic), df, pValue,
+    slopeAtMin: loValue, seAtMin: loSe, tAtMin: finite(tMin),
+    slopeAtMax: hiValue, seAtMax: hiSe, tAtMax: finite(tMax),
+    orientation, statistic: finite(statistic), df, pValue,
     rejects: pValue !== null && pValue < alpha,
     alpha,
     extremumInRange,
     bothOrientations: {
-      inverted_u: { statistic: fin(invStat), pValue: p(invStat) },
-      u: { statistic: fin(uStat), pValue: p(uStat) },
+      inverted_u: { statistic: finite(invStat), pValue: pInv },
+      u: { statistic: finite(uStat), pValue: pU },
     },
   };
+}
+
+/** [s(x), se(s(x))] for the slope polynomial with gradient (1, 2x, 3x²). */
+function slopeAt(b: ReadonlyArray<number>, V: ReadonlyArray<ArrayLike<number>>, x: number): [number, number] {
+  const m = b.length;
+  const a0 = 1, a1 = 2 * x, a2 = 3 * x * x;
+  let value = a0 * b[0] + a1 * b[1];
+  let v = V[0][0] + 2 * a1 * V[0][1] + a1 * a1 * V[1][1];
+  if (m > 2) {
+    value += a2 * b[2];
+    v += 2 * a2 * V[0][2] + 2 * a1 * a2 * V[1][2] + a2 * a2 * V[2][2];
+  }
+  return [value, Math.sqrt(Math.max(v, 0))];
+}
+
+function finite(v: number): number | null {
+  return Number.isFinite(v) ? v : null;
 }

@@ -1,3 +1,5 @@
+import { take, type Workspace } from './workspace';
+
 /**
  * Inverse of an upper-triangular r × r matrix stored in the upper triangle of a
  * column-major array with leading dimension `ld` (e.g. the R of a QR factorisation).
@@ -13,8 +15,8 @@
  *   upperTriangularInverse(Float64Array.from([2, 0, 1, 4]), 2, 2)  // U = [[2,1],[0,4]]
  *   // → Float64Array [0.5, 0, -0.125, 0.25]   i.e. [[0.5, -0.125], [0, 0.25]]
  */
-export function upperTriangularInverse(u: Float64Array, r: number, ld: number): Float64Array {
-  const inv = new Float64Array(r * r);
+export function upperTriangularInverse(u: Float64Array, r: number, ld: number, ws?: Workspace): Float64Array {
+  const inv = take(ws, r * r);
   for (let j = 0; j < r; j++) {
     inv[j * r + j] = 1 / u[j * ld + j];
     for (let i = j - 1; i >= 0; i--) {
