@@ -18,17 +18,20 @@ export function DistrictDetailSkeleton() {
         <Skeleton width={220} height={34} />
         <Skeleton width={260} height={18} />
       </View>
-      <Skeleton width={140} height={24} />
-      <View style={styles.table}>
-        {Array.from({ length: TABLE_ROWS }, (_, i) => (
-          <View key={i} style={styles.row}>
-            <Skeleton width={40} height={14} />
-            <Skeleton width="18%" height={14} />
-            <Skeleton width="18%" height={14} />
-            <Skeleton width="18%" height={14} />
-            <Skeleton width="18%" height={14} />
-          </View>
-        ))}
+      <View style={styles.section}>
+        <Skeleton width={140} height={24} />
+        <View style={styles.table}>
+          <View style={[styles.row, styles.headRow]} />
+          {Array.from({ length: TABLE_ROWS }, (_, i) => (
+            <View key={i} style={styles.row}>
+              <Skeleton width={40} height={14} />
+              <Skeleton width="18%" height={14} />
+              <Skeleton width="18%" height={14} />
+              <Skeleton width="18%" height={14} />
+              <Skeleton width="18%" height={14} />
+            </View>
+          ))}
+        </View>
       </View>
     </View>
   );
@@ -37,12 +40,16 @@ export function DistrictDetailSkeleton() {
 const styles = StyleSheet.create({
   wrap: { gap: space.xl },
   header: { gap: space.sm },
+  // Same gaps and row heights as DistrictDetailView's section and SeriesTable.
+  section: { gap: space.md },
   table: {
     backgroundColor: colors.surface,
     borderColor: colors.border,
     borderWidth: 1,
     borderRadius: radius.md,
+    overflow: 'hidden',
   },
+  headRow: { height: 50, backgroundColor: colors.surfaceSunken },
   row: {
     minHeight: 36,
     flexDirection: 'row',

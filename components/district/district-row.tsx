@@ -48,19 +48,19 @@ export const DistrictRow = memo(function DistrictRow({ district, selected = fals
           {district.latest === null
             ? null
             : values.map((v) => (
-            <View key={v.label} style={styles.value}>
-              {v.value === null ? (
-                <Text style={styles.noValue}>no data</Text>
-              ) : (
-                <Text style={styles.number} numberOfLines={1}>
-                  {v.value}
-                </Text>
-              )}
-              <Text style={styles.unit} numberOfLines={1}>
-                {v.unit}
-              </Text>
-            </View>
-            ))}
+                <View key={v.label} style={styles.value}>
+                  {v.value === null ? (
+                    <Text style={styles.noValue}>no data</Text>
+                  ) : (
+                    <Text style={styles.number} numberOfLines={1}>
+                      {v.value}
+                    </Text>
+                  )}
+                  <Text style={styles.unit} numberOfLines={1}>
+                    {v.unit}
+                  </Text>
+                </View>
+              ))}
         </View>
       </LinkTarget>
     </Link>
