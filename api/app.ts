@@ -13,6 +13,7 @@ import type { Config } from './config';
 import type { AppContext } from './context';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
 import { mountRoutes, type RouteSpec } from './http/routes';
+import type { Jobs } from './jobs/boss';
 import { createMailer, type Mailer } from './mail/mailer';
 import { routeTable } from './routes';
 import { webRouter } from './web/static-routes';
@@ -22,15 +23,16 @@ export interface AppDeps {
   config: Config;
   log?: (msg: string) => void;
   mailer?: Mailer;
+  jobs?: Jobs | null;
 }
 
 export interface CrestwatchApp extends Express {
   locals: Express['locals'] & { routes: RouteSpec[]; ctx: AppContext; close(): Promise<void> };
 }
 
-export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`), mailer }: AppDeps): CrestwatchApp {
+export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`), mailer, jobs = null }: AppDeps): CrestwatchApp {
   const app = express() as CrestwatchApp;
-  const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config) };
+  const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config), jobs };
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(

@@ -47,6 +47,16 @@ export interface Config {
   firstAdminEmail: string | null;
   /** Maximum upload size in bytes. */
   uploadMaxBytes: number;
+  /** Seconds before a job whose worker died is retried elsewhere. */
+  jobExpireSeconds: number;
+  /** Worker polling interval in seconds (pg-boss's floor is 0.5). */
+  jobPollSeconds: number;
+  /** pg-boss maintenance interval (expiry of lost jobs) in seconds. */
+  jobMaintenanceSeconds: number;
+  /** Districts per run chunk (one job each). */
+  runChunkSize: number;
+  /** Seconds before the first retry of an e-mail that could not be sent (doubles each time). */
+  mailRetrySeconds: number;
 }
 
 function intFrom(env: NodeJS.ProcessEnv, name: string, fallback: number): number {
@@ -113,5 +123,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: env.MAIL_FROM ?? 'Crestwatch <no-reply@crestwatch.example>',
     firstAdminEmail: env.CRESTWATCH_FIRST_ADMIN ?? (mode === 'production' ? null : 'admin@crestwatch.example'),
     uploadMaxBytes: intFrom(env, 'UPLOAD_MAX_BYTES', 50 * 1024 * 1024),
+    jobExpireSeconds: intFrom(env, 'JOB_EXPIRE_SECONDS', 300),
+    jobPollSeconds: Math.max(0.5, Number(env.JOB_POLL_SECONDS ?? 0.5)),
+    jobMaintenanceSeconds: intFrom(env, 'JOB_MAINTENANCE_SECONDS', 30),
+    runChunkSize: intFrom(env, 'RUN_CHUNK_SIZE', 250),
+    mailRetrySeconds: intFrom(env, 'MAIL_RETRY_SECONDS', 30),
   };
 }

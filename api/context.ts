@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { Config } from './config';
+import type { Jobs } from './jobs/boss';
 import type { Mailer } from './mail/mailer';
 
 /** What every feature's routes and services may use; built once per app. */
@@ -8,4 +9,6 @@ export interface AppContext {
   config: Config;
   log: (msg: string) => void;
   mailer: Mailer;
+  /** The job queue; null where none was started (then starting a run answers 503). */
+  jobs: Jobs | null;
 }

@@ -1,4 +1,5 @@
 /** Every feature's routes in one list: the route table the guard, OpenAPI and tests read. */
+import { alertRoutes } from './alerts/router';
 import { auditRoutes } from './audit/router';
 import { authRoutes } from './auth/router';
 import type { createPassport } from './auth/passport';
@@ -9,6 +10,10 @@ import { openApiDocument } from './http/openapi';
 import { route, type RouteSpec } from './http/routes';
 import { mailboxRoutes } from './mail/router';
 import { peopleRoutes } from './people/router';
+import { runRoutes } from './runs/router';
+import { settingsRoutes } from './settings/router';
+import { specRoutes } from './specs/router';
+import { subscriptionRoutes } from './subscriptions/router';
 import { SOFTWARE_VERSION } from './version';
 
 export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPassport>): RouteSpec[] {
@@ -19,6 +24,11 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     ...auditRoutes(ctx),
     ...mailboxRoutes(ctx),
     ...districtRoutes(ctx),
+    ...settingsRoutes(ctx),
+    ...specRoutes(ctx),
+    ...runRoutes(ctx),
+    ...alertRoutes(ctx),
+    ...subscriptionRoutes(ctx),
   ];
   routes.push(
     route({

@@ -7,12 +7,16 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import { startStandIn, type StandIn } from './auth/stand-in';
 import { loadConfig, type Config } from './config';
+import type { AppContext } from './context';
 import { createDb } from './db';
+import { startJobs, type Jobs } from './jobs/boss';
+import { allHandlers, registerSchedules } from './jobs/handlers';
 import { startMailCatcher, type MailCatcher } from './mail/catcher';
 import { ensureDemoAccounts, ensureFirstAdmin } from './people/service';
 
 export interface Running {
   server: Server;
+  jobs: Jobs;
   url: string;
   close(): Promise<void>;
 }
@@ -27,7 +31,17 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
     standIn = await startStandIn(config.standInPort!);
     if (!config.smtpUrl) catcher = await startMailCatcher(db, config.mailCatcherPort);
   }
-  const app = createApp({ db, config });
+  const jobs = await startJobs({
+    databaseUrl: config.databaseUrl,
+    expireInSeconds: config.jobExpireSeconds,
+    pollingIntervalSeconds: config.jobPollSeconds,
+    maintenanceIntervalSeconds: config.jobMaintenanceSeconds,
+    schedule: true,
+  });
+  const app = createApp({ db, config, jobs });
+  const ctx: AppContext = app.locals.ctx;
+  await jobs.work(allHandlers(ctx));
+  await registerSchedules(ctx, jobs);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
@@ -42,12 +56,13 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
         server.closeIdleConnections();
         setTimeout(() => server.closeAllConnections(), 5_000).unref();
       });
+      await jobs.stop();
       await app.locals.close();
       await standIn?.stop();
       await catcher?.stop();
       await db.destroy();
     })());
-  return { server, url, close };
+  return { server, jobs, url, close };
 }
 
 export function closeOnSignals(running: Running): void {

@@ -1,0 +1,49 @@
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import { districtCode } from '../districts/router';
+import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
+import * as service from './service';
+
+export function alertRoutes({ db }: AppContext): RouteSpec[] {
+  return [
+    route({
+      method: 'get',
+      path: '/api/alerts',
+      allow: SIGNED_IN,
+      tag: 'alerts',
+      summary: 'Your alerts feed (what your subscriptions cover), newest first, unread marked',
+      schemas: {
+        query: z.object({
+          district: districtCode.optional(),
+          unread: z.enum(['true', 'false']).optional(),
+          limit: z.coerce.number().int().min(1).max(500).default(100),
+        }),
+      },
+      handler: async ({ query }, req) => {
+        const alerts = await service.feed(db, callerOf(req)!, { districtCode: query.district, limit: query.limit, unreadOnly: query.unread === 'true' });
+        return { alerts, unread: alerts.filter((a) => !a.read).length };
+      },
+    }),
+    route({
+      method: 'post',
+      path: '/api/alerts/:id/read',
+      allow: SIGNED_IN,
+      tag: 'alerts',
+      summary: 'Mark an alert as read',
+      schemas: { params: z.object({ id: z.coerce.number().int().positive() }) },
+      handler: async ({ params }, req, res) => {
+        await service.markRead(db, callerOf(req)!, params.id);
+        res.status(204).end();
+      },
+    }),
+    route({
+      method: 'get',
+      path: '/api/districts/:code/alerts',
+      allow: SIGNED_IN,
+      tag: 'alerts',
+      summary: 'Every alert published for one district, newest first',
+      schemas: { params: z.object({ code: districtCode }), query: z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) }) },
+      handler: async ({ params, query }) => ({ alerts: await service.districtAlerts(db, params.code, query.limit) }),
+    }),
+  ];
+}

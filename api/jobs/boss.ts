@@ -1,0 +1,90 @@
+/**
+ * The job queue: pg-boss on the app's own PostgreSQL. The server starts it with workers;
+ * `npm run worker` starts more workers in another process (or machine) on the same queue.
+ * Queues are created before use; handlers get an array of jobs.
+ */
+import PgBoss from 'pg-boss';
+
+export const QUEUES = {
+  runStart: 'run-start',
+  runChunk: 'run-chunk',
+  outbox: 'outbox-send',
+  scheduledRun: 'run-scheduled',
+} as const;
+export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
+
+export interface JobsOptions {
+  databaseUrl: string;
+  /** Seconds before an active job is considered lost (its worker died) and retried. */
+  expireInSeconds: number;
+  /** How often workers poll (pg-boss's floor is 0.5 s). */
+  pollingIntervalSeconds: number;
+  /** Maintenance (expiry, retention) interval; small in tests so lost jobs come back fast. */
+  maintenanceIntervalSeconds: number;
+  /** Run the cron scheduler in this process. */
+  schedule: boolean;
+}
+
+export type Handler = (data: Record<string, unknown>, meta: { retryCount: number; retryLimit: number; id: string }) => Promise<void>;
+
+export interface Jobs {
+  boss: PgBoss;
+  send(queue: QueueName, data: object, options?: PgBoss.SendOptions): Promise<string | null>;
+  insert(queue: QueueName, items: object[], options?: Omit<PgBoss.JobInsert, 'name' | 'data'>): Promise<void>;
+  /** Start workers for the given handlers in this process. */
+  work(handlers: Partial<Record<QueueName, Handler>>): Promise<void>;
+  schedule(cron: string, tz: string, enabled: boolean): Promise<void>;
+  stop(): Promise<void>;
+}
+
+const RETRIES: Record<QueueName, { retryLimit: number; retryDelay: number; retryBackoff: boolean }> = {
+  'run-start': { retryLimit: 2, retryDelay: 2, retryBackoff: true },
+  'run-chunk': { retryLimit: 3, retryDelay: 1, retryBackoff: true },
+  'outbox-send': { retryLimit: 5, retryDelay: 5, retryBackoff: true },
+  'run-scheduled': { retryLimit: 1, retryDelay: 30, retryBackoff: false },
+};
+
+export async function startJobs(o: JobsOptions): Promise<Jobs> {
+  const boss = new PgBoss({
+    connectionString: o.databaseUrl,
+    schema: 'pgboss',
+    max: 4,
+    schedule: o.schedule,
+    supervise: true,
+    maintenanceIntervalSeconds: o.maintenanceIntervalSeconds,
+    monitorStateIntervalSeconds: Math.max(1, o.maintenanceIntervalSeconds),
+    cronMonitorIntervalSeconds: 30,
+  });
+  boss.on('error', (err) => process.stderr.write(`[jobs] ${err.message}\n`));
+  await boss.start();
+  for (const name of Object.values(QUEUES)) {
+    const existing = await boss.getQueue(name);
+    if (!existing) await boss.createQueue(name, { name, policy: 'standard', expireInSeconds: o.expireInSeconds, ...RETRIES[name] });
+  }
+  const workerIds: string[] = [];
+  return {
+    boss,
+    send: (queue, data, options) => boss.send(queue, data, { expireInSeconds: o.expireInSeconds, ...RETRIES[queue], ...options }),
+    insert: (queue, items, options) =>
+      boss.insert(items.map((data) => ({ name: queue, data, expireInSeconds: o.expireInSeconds, ...RETRIES[queue], ...options }))),
+    async work(handlers) {
+      for (const [queue, handler] of Object.entries(handlers) as [QueueName, Handler][]) {
+        const id = await boss.work<Record<string, unknown>>(
+          queue,
+          { pollingIntervalSeconds: o.pollingIntervalSeconds, batchSize: 1, includeMetadata: true },
+          async (jobs) => {
+            for (const job of jobs) await handler(job.data, { retryCount: job.retryCount, retryLimit: job.retryLimit, id: job.id });
+          },
+        );
+        workerIds.push(id);
+      }
+    },
+    async schedule(cron, tz, enabled) {
+      if (enabled) await boss.schedule(QUEUES.scheduledRun, cron, {}, { tz });
+      else await boss.unschedule(QUEUES.scheduledRun);
+    },
+    async stop() {
+      await boss.stop({ graceful: true, timeout: 10_000, wait: true });
+    },
+  };
+}

@@ -1,0 +1,32 @@
+/** Every job this server knows how to do, for the server's workers and `npm run worker`. */
+import type { AppContext } from '../context';
+import { deliverOutbox } from '../outbox/sender';
+import { runHandlers } from '../runs/jobs';
+import { startRun } from '../runs/service';
+import { getSettings } from '../settings/service';
+import type { Handler, Jobs, QueueName } from './boss';
+import { QUEUES } from './boss';
+
+export function allHandlers(ctx: AppContext): Record<QueueName, Handler> {
+  return {
+    ...runHandlers(ctx),
+    [QUEUES.outbox]: async () => {
+      await deliverOutbox(ctx);
+    },
+    [QUEUES.scheduledRun]: async () => {
+      try {
+        await startRun(ctx, null, { trigger: 'schedule' });
+      } catch (err) {
+        // A run of the default spec still going is not a failure of the schedule.
+        if ((err as { code?: string }).code !== 'run_in_progress') throw err;
+      }
+    },
+  };
+}
+
+/** Registers the cron jobs: the quarterly run (from settings) and the outbox sweep. */
+export async function registerSchedules(ctx: AppContext, jobs: Jobs): Promise<void> {
+  const s = await getSettings(ctx.db);
+  await jobs.schedule(s.scheduleCron, s.regionTimeZone, s.scheduleEnabled);
+  await jobs.boss.schedule(QUEUES.outbox, '* * * * *', { reason: 'sweep' }, { tz: 'UTC' });
+}

@@ -1,0 +1,68 @@
+/** The words of alert e-mails (our own), with the card link and the unsubscribe link. */
+import type { AlertKind } from '../alerts/compare';
+
+export const KIND_LABEL: Record<AlertKind, string> = {
+  crossing: 'moved across its threshold band',
+  threshold_shift: 'has a threshold that moved',
+  shape_change: 'has a curve of a different shape',
+  significance_change: 'has a changed U-test verdict',
+};
+
+const STANDING_WORDS: Record<string, string> = {
+  approaching: 'below the threshold band',
+  at_turn: 'inside the threshold band',
+  past_turn: 'beyond the threshold band',
+};
+
+export interface AlertForMail {
+  id: number;
+  kind: AlertKind;
+  details: Record<string, unknown>;
+  districtCode: string;
+  districtName: string;
+  runId: number;
+}
+
+export function alertSentence(a: AlertForMail): string {
+  const d = a.details;
+  switch (a.kind) {
+    case 'crossing':
+      return `${a.districtName} (${a.districtCode}) is now ${STANDING_WORDS[String(d.to)] ?? d.to} (was ${STANDING_WORDS[String(d.from)] ?? d.from}).`;
+    case 'threshold_shift':
+      return `${a.districtName} (${a.districtCode}): the estimated threshold moved ${Number(d.percent) > 0 ? 'up' : 'down'} by ${Math.abs(Number(d.percent)).toFixed(0)}%.`;
+    case 'shape_change':
+      return `${a.districtName} (${a.districtCode}): the curve now reads ${String(d.to).replace('_', ' ')} (was ${String(d.from).replace('_', ' ')}).`;
+    case 'significance_change':
+      return `${a.districtName} (${a.districtCode}): the U-test ${d.to ? 'now supports' : 'no longer supports'} a turn at the chosen test level.`;
+  }
+}
+
+const CAUTION =
+  'These are statistical associations in past data, not forecasts; thresholds move when data are revised. They do not replace statutory standards or the judgement of qualified staff.';
+
+export function instantMail(a: AlertForMail, publicUrl: string, unsubscribeUrl: string) {
+  return {
+    subject: `Crestwatch: ${a.districtName} ${KIND_LABEL[a.kind]}`,
+    text: [alertSentence(a), '', `District card: ${publicUrl}/district/${encodeURIComponent(a.districtCode)}`, `Published run #${a.runId}.`, '', CAUTION, '', `Stop these e-mails: ${unsubscribeUrl}`].join('\n'),
+  };
+}
+
+export function digestMail(alerts: AlertForMail[], runId: number, publicUrl: string, unsubscribeUrl: string, withBrief: boolean) {
+  return {
+    subject: `Crestwatch: ${alerts.length} change${alerts.length === 1 ? '' : 's'} in published run #${runId}`,
+    text: [
+      `Run #${runId} was published. For the districts you follow:`,
+      '',
+      ...alerts.map((a) => `• ${alertSentence(a)}`),
+      '',
+      `Open Crestwatch: ${publicUrl}/`,
+      withBrief ? 'The region brief is attached.' : '',
+      '',
+      CAUTION,
+      '',
+      `Stop these e-mails: ${unsubscribeUrl}`,
+    ]
+      .filter((l, i, all) => !(l === '' && all[i - 1] === ''))
+      .join('\n'),
+  };
+}

@@ -1,0 +1,128 @@
+/**
+ * The work of a run, as job handlers: `run-start` reads one data version (records its
+ * hash), fits the pooled regional curve and fans the districts out in chunks;
+ * `run-chunk` fits its districts (every variant) and writes their estimates; the chunk
+ * that completes the set moves the run to in_review. Handlers are idempotent: a retried
+ * start clears the run's output, a retried chunk overwrites its own rows.
+ */
+import { fitPanel, type FitPanelResult, type PanelRow } from '../estimation';
+import type { AppContext } from '../context';
+import { QUEUES, type Handler } from '../jobs/boss';
+import { hashSeries, loadSeries, currentDataVersion, type DistrictSeries } from './data-store';
+import { fitDistrict } from './district-fit';
+import * as store from './store';
+
+function panelRows(series: DistrictSeries[], controls: string[]): PanelRow[] {
+  const rows: PanelRow[] = [];
+  for (const s of series) {
+    for (let i = 0; i < s.data.years.length; i++) {
+      const c: Record<string, number> = {};
+      for (const name of controls) c[name] = s.data.controls[name][i];
+      rows.push({ district: s.code, year: s.data.years[i], y: s.data.y[i], x: s.data.x[i], controls: c });
+    }
+  }
+  return rows;
+}
+
+export function fitPooled(series: DistrictSeries[], spec: store.RunSpec): FitPanelResult | { status: 'failed'; message: string } {
+  try {
+    return fitPanel(panelRows(series, spec.selection.controls), { ...spec.model, covariance: 'cluster', controls: spec.selection.controls });
+  } catch (err) {
+    return { status: 'failed', message: (err as Error).message };
+  }
+}
+
+async function failRun(ctx: AppContext, runId: number, message: string): Promise<void> {
+  await store.transition(ctx.db, runId, ['queued', 'running'], 'failed', { error: message.slice(0, 2000), finished_at: ctx.db.fn.now() });
+}
+
+export async function startRun(ctx: AppContext, runId: number, isLastAttempt: boolean): Promise<void> {
+  const { db } = ctx;
+  const run = await store.findRun(db, runId);
+  if (!run || (run.state !== 'queued' && run.state !== 'running')) return;
+  try {
+    const t0 = performance.now();
+    const version = run.dataVersion ?? (await currentDataVersion(db));
+    const series = await loadSeries(db, version, run.spec.selection);
+    const { hash, rows } = hashSeries(series, run.spec.selection);
+    if (run.dataHash && run.dataHash !== hash) {
+      await failRun(ctx, runId, `The data of version ${version} no longer hash to ${run.dataHash} (got ${hash}): history was changed.`);
+      return;
+    }
+    const t1 = performance.now();
+    const pooled = fitPooled(series, run.spec);
+    const t2 = performance.now();
+    const size = ctx.config.runChunkSize;
+    const chunks: number[][] = [];
+    for (let i = 0; i < series.length; i += size) chunks.push(series.slice(i, i + size).map((s) => s.districtId));
+    await db.transaction(async (trx) => {
+      await store.clearRunOutput(trx, runId);
+      await store.update(trx, runId, {
+        state: 'running',
+        started_at: trx.fn.now(),
+        data_version: version,
+        data_hash: hash,
+        data_rows: rows,
+        chunks_total: chunks.length,
+        districts_total: series.length,
+        pooled: JSON.stringify(pooled),
+        attempts: trx.raw('attempts + 1'),
+        timings: JSON.stringify({ readMs: t1 - t0, pooledMs: t2 - t1 }),
+      });
+    });
+    if (chunks.length === 0) {
+      await store.transition(db, runId, ['running'], 'in_review', { finished_at: db.fn.now() });
+      return;
+    }
+    await ctx.jobs!.insert(
+      QUEUES.runChunk,
+      chunks.map((districtIds, chunk) => ({ runId, chunk, districtIds })),
+    );
+  } catch (err) {
+    if (isLastAttempt) await failRun(ctx, runId, `The run could not start: ${(err as Error).message}`);
+    throw err;
+  }
+}
+
+export async function runChunk(ctx: AppContext, data: { runId: number; chunk: number; districtIds: number[] }, isLastAttempt: boolean): Promise<void> {
+  const { db } = ctx;
+  const run = await store.findRun(db, data.runId);
+  if (!run || run.state !== 'running') return;
+  try {
+    const t0 = performance.now();
+    const series = await loadSeries(db, run.dataVersion!, run.spec.selection, data.districtIds);
+    const t1 = performance.now();
+    const pooled = run.pooled && (run.pooled as { status: string }).status === 'ok' ? (run.pooled as FitPanelResult) : null;
+    const model = { spec: run.spec.model, controls: run.spec.selection.controls };
+    const rows = series.flatMap((s) => fitDistrict(model, s.data, pooled).map((record) => ({ districtId: s.districtId, record })));
+    const t2 = performance.now();
+    await db.transaction(async (trx) => {
+      await store.writeEstimates(trx, run.id, rows);
+      const done = await store.markChunkDone(trx, run.id, data.chunk);
+      if (done >= (run.chunksTotal ?? 0)) {
+        await store.transition(trx, run.id, ['running'], 'in_review', { finished_at: trx.fn.now() });
+      }
+    });
+    const t3 = performance.now();
+    await db('runs')
+      .where({ id: run.id })
+      .update({
+        timings: db.raw(
+          `coalesce(timings, '{}'::jsonb) || jsonb_build_object('chunkReadMs', coalesce((timings->>'chunkReadMs')::float8, 0) + ?::float8, 'fitMs', coalesce((timings->>'fitMs')::float8, 0) + ?::float8, 'writeMs', coalesce((timings->>'writeMs')::float8, 0) + ?::float8)`,
+          [t1 - t0, t2 - t1, t3 - t2],
+        ),
+      });
+  } catch (err) {
+    if (isLastAttempt) await failRun(ctx, run.id, `Chunk ${data.chunk} failed: ${(err as Error).message}`);
+    throw err;
+  }
+}
+
+export function runHandlers(ctx: AppContext): { 'run-start': Handler; 'run-chunk': Handler } {
+  return {
+    'run-start': (data, meta) => startRun(ctx, Number(data.runId), meta.retryCount >= meta.retryLimit),
+    'run-chunk': (data, meta) =>
+      runChunk(ctx, data as unknown as { runId: number; chunk: number; districtIds: number[] }, meta.retryCount >= meta.retryLimit),
+  };
+}
+

@@ -1,0 +1,108 @@
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import { districtCode } from '../districts/router';
+import { callerOf, route, STAFF, type RouteSpec } from '../http/routes';
+import * as service from './service';
+
+const byId = z.object({ id: z.coerce.number().int().positive() });
+
+export function runRoutes(ctx: AppContext): RouteSpec[] {
+  const { db } = ctx;
+  return [
+    route({
+      method: 'get',
+      path: '/api/runs',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Recent runs, newest first',
+      schemas: { query: z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) }) },
+      handler: async ({ query }) => ({ runs: await service.listRuns(db, query.limit) }),
+    }),
+    route({
+      method: 'post',
+      path: '/api/runs',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Re-estimate now: queue a run of a spec (the default when none is named)',
+      schemas: { body: z.object({ specId: z.number().int().positive().optional() }).default({}) },
+      handler: async ({ body }, req, res) => {
+        const run = await service.startRun(ctx, callerOf(req)!, { specId: body.specId });
+        res.status(202);
+        return { id: run.id, state: run.state };
+      },
+    }),
+    route({
+      method: 'get',
+      path: '/api/runs/:id',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'A run: state, progress, spec, data version and hash, standing counts once in review',
+      schemas: { params: byId },
+      handler: ({ params }) => service.runView(db, params.id),
+    }),
+    route({
+      method: 'get',
+      path: '/api/runs/:id/review',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Per district: this run against the last published one (threshold move, standing, shape, significance)',
+      schemas: { params: byId },
+      handler: ({ params }) => service.reviewRows(db, params.id),
+    }),
+    route({
+      method: 'get',
+      path: '/api/runs/:id/districts/:code',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'One district in a run: every variant, diagnostics, residuals, and why the threshold moved',
+      schemas: { params: byId.extend({ code: districtCode }) },
+      handler: ({ params }) => service.districtReview(db, params.id, params.code),
+    }),
+    route({
+      method: 'put',
+      path: '/api/runs/:id/districts/:code/note',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Attach a short note to a district for the next brief',
+      schemas: { params: byId.extend({ code: districtCode }), body: z.object({ note: z.string().trim().min(1).max(600) }) },
+      handler: async ({ params, body }, req, res) => {
+        await service.addNote(db, callerOf(req)!, params.id, params.code, body.note);
+        res.status(204).end();
+      },
+    }),
+    route({
+      method: 'post',
+      path: '/api/runs/:id/publish',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Publish a run in review: officials see it, alerts go out',
+      schemas: { params: byId },
+      handler: ({ params }, req) => service.publishRun(ctx, callerOf(req)!, params.id),
+    }),
+    route({
+      method: 'post',
+      path: '/api/runs/:id/discard',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Discard a run (nothing changes for officials)',
+      schemas: { params: byId },
+      handler: async ({ params }, req, res) => {
+        await service.discardRun(ctx, callerOf(req)!, params.id);
+        res.status(204).end();
+      },
+    }),
+    route({
+      method: 'post',
+      path: '/api/runs/:id/reproduce',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Re-execute a run from its recorded spec, data version and data hash',
+      schemas: { params: byId },
+      handler: async ({ params }, req, res) => {
+        const run = await service.reproduceRun(ctx, callerOf(req)!, params.id);
+        res.status(202);
+        return { id: run.id, state: run.state };
+      },
+    }),
+  ];
+}

@@ -1,0 +1,280 @@
+/**
+ * Runs: start (by hand, on schedule, or to reproduce one), follow, review against the last
+ * published run, publish (which is what officials see and what raises alerts), discard.
+ */
+import type { Knex } from 'knex';
+import { createAlertsForPublish } from '../alerts/service';
+import { districtChange } from '../alerts/compare';
+import * as audit from '../audit/store';
+import type { AppContext } from '../context';
+import { ModelSpec } from '../estimation';
+import { AppError, NotFoundError } from '../http/errors';
+import type { Caller } from '../http/routes';
+import { QUEUES } from '../jobs/boss';
+import { getSettings } from '../settings/service';
+import type { SavedSpec } from '../specs/schema';
+import { defaultSpec, getSpec } from '../specs/service';
+import { SOFTWARE_VERSION } from '../version';
+import { loadSeries } from './data-store';
+import { fitDistrict } from './district-fit';
+import type { EstimateRecord } from './estimate-record';
+import * as store from './store';
+
+async function snapshot(db: Knex, spec: SavedSpec): Promise<store.RunSpec> {
+  const settings = await getSettings(db);
+  return {
+    savedSpecId: spec.id,
+    name: spec.name,
+    selection: {
+      emissions: spec.emissionsIndicator,
+      driver: spec.driverIndicator,
+      controls: spec.controls,
+      firstYear: spec.firstYear,
+      lastYear: spec.lastYear,
+    },
+    model: ModelSpec.parse({
+      form: spec.form,
+      transform: spec.transform,
+      covariance: spec.covariance,
+      lag: spec.lag,
+      intervalMethod: spec.intervalMethod,
+      levelControls: spec.levelControls,
+      controls: spec.controls,
+      minYears: spec.minYears ?? undefined,
+      level: settings.confidenceLevel,
+      alpha: settings.alpha,
+    }),
+  };
+}
+
+function jobsOf(ctx: AppContext) {
+  if (!ctx.jobs) throw new AppError(503, 'jobs_unavailable', 'The job queue is not running on this server.');
+  return ctx.jobs;
+}
+
+async function insertQueued(ctx: AppContext, args: Parameters<typeof store.insertRun>[1], caller: Caller | null): Promise<store.RunRow> {
+  const jobs = jobsOf(ctx);
+  let run: store.RunRow;
+  try {
+    run = await ctx.db.transaction(async (trx) => {
+      const r = await store.insertRun(trx, args);
+      await audit.record(trx, {
+        actorId: caller?.id ?? null,
+        actorEmail: caller?.email ?? null,
+        action: args.trigger === 'reproduce' ? 'run.reproduce' : 'run.start',
+        targetType: 'run',
+        targetId: r.id,
+        after: { specId: r.specId, trigger: r.trigger },
+      });
+      return r;
+    });
+  } catch (err) {
+    if ((err as { code?: string }).code === '23505') {
+      const active = await store.activeRunForSpec(ctx.db, args.specId);
+      throw new AppError(409, 'run_in_progress', `Run #${active?.id ?? '?'} of this spec is still ${active?.state ?? 'active'}; wait for it to finish.`, { runId: active?.id });
+    }
+    throw err;
+  }
+  await jobs.send(QUEUES.runStart, { runId: run.id });
+  return run;
+}
+
+export async function startRun(ctx: AppContext, caller: Caller | null, input: { specId?: number; trigger?: 'manual' | 'schedule' }): Promise<store.RunRow> {
+  const spec = input.specId ? await getSpec(ctx.db, input.specId) : await defaultSpec(ctx.db);
+  if (spec.archived) throw new AppError(409, 'spec_archived', `Spec "${spec.name}" is archived.`);
+  return insertQueued(ctx, { specId: spec.id, spec: await snapshot(ctx.db, spec), trigger: input.trigger ?? 'manual', requestedBy: caller?.id ?? null, softwareVersion: SOFTWARE_VERSION }, caller);
+}
+
+/** Re-executes a run from its recorded spec, data version and data hash. */
+export async function reproduceRun(ctx: AppContext, caller: Caller, runId: number): Promise<store.RunRow> {
+  const original = await mustFind(ctx.db, runId);
+  if (original.dataVersion === null || !original.dataHash) throw new AppError(409, 'not_reproducible', `Run #${runId} never read its data.`);
+  return insertQueued(
+    ctx,
+    {
+      specId: original.specId,
+      spec: original.spec,
+      trigger: 'reproduce',
+      requestedBy: caller.id,
+      softwareVersion: SOFTWARE_VERSION,
+      reproducesRunId: original.id,
+      dataVersion: original.dataVersion,
+      dataHash: original.dataHash,
+    },
+    caller,
+  );
+}
+
+async function mustFind(db: Knex, id: number): Promise<store.RunRow> {
+  const run = await store.findRun(db, id);
+  if (!run) throw new NotFoundError(`No run ${id}`, { id });
+  return run;
+}
+
+const VISIBLE: store.RunState[] = ['in_review', 'published', 'discarded'];
+
+export async function runView(db: Knex, id: number) {
+  const run = await mustFind(db, id);
+  const done = await store.chunksDone(db, id);
+  const estimatesVisible = VISIBLE.includes(run.state);
+  const rows = estimatesVisible ? await store.listEstimateRows(db, id) : [];
+  const counts: Record<string, number> = {};
+  for (const r of rows) counts[r.standing] = (counts[r.standing] ?? 0) + 1;
+  const pooled = run.pooled as { status: string; turningPoints?: { level: number | null; fieller: { kind: string; levelLo: number | null; levelHi: number | null } }[]; shape?: { shape: string }; n?: number; districts?: number } | null;
+  let reproduction: { of: number; identical: boolean | null; differences: number } | null = null;
+  if (run.reproducesRunId && estimatesVisible) {
+    const diff = await db.raw(
+      `SELECT count(*)::int AS n FROM run_estimates a FULL JOIN run_estimates b
+         ON b.run_id = ? AND a.district_id = b.district_id AND a.variant = b.variant
+        WHERE a.run_id = ? AND (b.result IS NULL OR a.result IS DISTINCT FROM b.result)`,
+      [run.reproducesRunId, id],
+    );
+    const n = Number(diff.rows[0].n);
+    reproduction = { of: run.reproducesRunId, identical: n === 0, differences: n };
+  }
+  return {
+    id: run.id,
+    state: run.state,
+    trigger: run.trigger,
+    spec: run.spec,
+    specId: run.specId,
+    dataVersion: run.dataVersion,
+    dataHash: run.dataHash,
+    dataRows: run.dataRows,
+    softwareVersion: run.softwareVersion,
+    createdAt: run.createdAt,
+    startedAt: run.startedAt,
+    finishedAt: run.finishedAt,
+    publishedAt: run.publishedAt,
+    discardedAt: run.discardedAt,
+    error: run.error,
+    progress: { chunksDone: done, chunksTotal: run.chunksTotal, districts: run.districtsTotal },
+    timings: run.timings,
+    standingCounts: estimatesVisible ? counts : null,
+    pooled: pooled
+      ? { status: pooled.status, shape: pooled.shape?.shape ?? null, threshold: pooled.turningPoints?.[0] ?? null, n: pooled.n ?? null, districts: pooled.districts ?? null }
+      : null,
+    reproduction,
+  };
+}
+
+export async function listRuns(db: Knex, limit: number) {
+  return (await store.listRuns(db, limit)).map((r) => ({
+    id: r.id,
+    state: r.state,
+    trigger: r.trigger,
+    specName: r.spec.name,
+    createdAt: r.createdAt,
+    finishedAt: r.finishedAt,
+    publishedAt: r.publishedAt,
+    districts: r.districtsTotal,
+    error: r.error,
+  }));
+}
+
+function visibleOrThrow(run: store.RunRow) {
+  if (!VISIBLE.includes(run.state)) throw new AppError(409, 'run_not_ready', `Run #${run.id} is ${run.state}: its estimates appear when it reaches review.`);
+}
+
+/** Per district: this run against the last published run (before it). */
+export async function reviewRows(db: Knex, id: number) {
+  const run = await mustFind(db, id);
+  visibleOrThrow(run);
+  const previous = await previousPublishedFor(db, run);
+  const [rows, prevRows, notes] = await Promise.all([
+    store.listEstimateRows(db, id),
+    previous ? store.listEstimateRows(db, previous.id) : Promise.resolve([]),
+    store.notesFor(db, id),
+  ]);
+  const prevById = new Map(prevRows.map((p) => [p.districtId, p]));
+  return {
+    runId: id,
+    previousRunId: previous?.id ?? null,
+    districts: rows.map((r) => {
+      const p = prevById.get(r.districtId) ?? null;
+      const { districtId, ...current } = r;
+      return { ...current, previous: p ? { standing: p.standing, shape: p.shape, threshold: p.threshold, uTestRejects: p.uTestRejects } : null, change: districtChange(p, r), note: notes.get(districtId)?.note ?? null };
+    }),
+  };
+}
+
+async function previousPublishedFor(db: Knex, run: store.RunRow) {
+  return run.state === 'published' && run.publishedAt ? store.latestPublished(db, { publishedAt: run.publishedAt }) : store.latestPublished(db);
+}
+
+async function districtId(db: Knex, code: string): Promise<number> {
+  const d = await db('districts').where({ code }).first('id');
+  if (!d) throw new NotFoundError(`No district with code ${code}`, { code });
+  return Number(d.id);
+}
+
+/**
+ * One district in review: every variant, the previous published estimate, and why the
+ * threshold moved — the previous spec refitted on this run's data splits the change into
+ * the part due to data revisions and the part due to the spec.
+ */
+export async function districtReview(db: Knex, id: number, code: string) {
+  const run = await mustFind(db, id);
+  visibleOrThrow(run);
+  const did = await districtId(db, code);
+  const records = await store.estimateRecords(db, id, did);
+  const previous = await previousPublishedFor(db, run);
+  const prevMain = previous ? (await store.estimateRecords(db, previous.id, did)).find((r) => r.variant === 'main') ?? null : null;
+  const main = records.find((r) => r.variant === 'main') ?? null;
+  let movement: null | { previous: number | null; current: number | null; previousSpecOnNewData: number | null; dataPart: number | null; specPart: number | null; softwareChanged: boolean; previousSoftware: string; specChanged: boolean } = null;
+  if (previous && main) {
+    const series = await loadSeries(db, run.dataVersion!, previous.spec.selection, [did]);
+    const refit: EstimateRecord | null = series.length
+      ? fitDistrict({ spec: previous.spec.model, controls: previous.spec.selection.controls }, series[0].data, null)[0]
+      : null;
+    const a = prevMain?.threshold?.level ?? null;
+    const b = refit?.threshold?.level ?? null;
+    const c = main.threshold?.level ?? null;
+    movement = {
+      previous: a,
+      current: c,
+      previousSpecOnNewData: b,
+      dataPart: a !== null && b !== null ? b - a : null,
+      specPart: b !== null && c !== null ? c - b : null,
+      softwareChanged: previous.softwareVersion !== run.softwareVersion,
+      previousSoftware: previous.softwareVersion,
+      specChanged: JSON.stringify(previous.spec) !== JSON.stringify(run.spec),
+    };
+  }
+  const note = (await store.notesFor(db, id)).get(did) ?? null;
+  return { runId: id, code, records, previousRunId: previous?.id ?? null, previous: prevMain, movement, note };
+}
+
+export async function publishRun(ctx: AppContext, caller: Caller, id: number) {
+  const result = await ctx.db.transaction(async (trx) => {
+    // One publish at a time, so "the previous published run" is well defined.
+    await trx.raw('SELECT pg_advisory_xact_lock(20261203)');
+    const run = await store.findRun(trx, id, true);
+    if (!run) throw new NotFoundError(`No run ${id}`, { id });
+    if (run.state !== 'in_review') throw new AppError(409, 'not_in_review', `Run #${id} is ${run.state}; only a run in review can be published.`);
+    const previous = await store.latestPublished(trx);
+    const settings = await getSettings(trx);
+    await store.transition(trx, id, ['in_review'], 'published', { published_at: trx.fn.now(), reviewed_by: caller.id });
+    const published = (await store.findRun(trx, id))!;
+    const outcome = await createAlertsForPublish(trx, published, previous, settings.thresholdShiftPercent, ctx.config);
+    await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'run.publish', targetType: 'run', targetId: id, after: { previousRunId: previous?.id ?? null, ...outcome } });
+    return { previousRunId: previous?.id ?? null, ...outcome };
+  });
+  if (result.mails && ctx.jobs) await ctx.jobs.send(QUEUES.outbox, { reason: `publish ${id}` });
+  return result;
+}
+
+export async function discardRun(ctx: AppContext, caller: Caller, id: number) {
+  await mustFind(ctx.db, id);
+  const ok = await store.transition(ctx.db, id, ['in_review', 'failed', 'queued'], 'discarded', { discarded_at: ctx.db.fn.now(), reviewed_by: caller.id });
+  if (!ok) throw new AppError(409, 'cannot_discard', `Run #${id} can no longer be discarded.`);
+  await audit.record(ctx.db, { actorId: caller.id, actorEmail: caller.email, action: 'run.discard', targetType: 'run', targetId: id });
+}
+
+export async function addNote(db: Knex, caller: Caller, id: number, code: string, note: string) {
+  const run = await mustFind(db, id);
+  if (run.state === 'discarded' || run.state === 'failed') throw new AppError(409, 'run_closed', `Run #${id} is ${run.state}.`);
+  const did = await districtId(db, code);
+  await store.upsertNote(db, id, did, note, caller);
+  await audit.record(db, { actorId: caller.id, actorEmail: caller.email, action: 'run.note', targetType: 'run', targetId: id, after: { code, note } });
+}

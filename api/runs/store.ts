@@ -1,0 +1,240 @@
+/** Runs, their chunks and estimates: the only place their SQL lives. */
+import type { Knex } from 'knex';
+import type { ModelSpec } from '../estimation';
+import type { EstimateRecord, Variant } from './estimate-record';
+import type { Selection } from './data-store';
+
+export type RunState = 'queued' | 'running' | 'in_review' | 'published' | 'discarded' | 'failed';
+
+/** What a run records of its spec: the saved spec it came from, the series and the model. */
+export interface RunSpec {
+  savedSpecId: number;
+  name: string;
+  selection: Selection;
+  model: ModelSpec;
+}
+
+export interface RunRow {
+  id: number;
+  specId: number;
+  spec: RunSpec;
+  state: RunState;
+  trigger: string;
+  reproducesRunId: number | null;
+  dataVersion: number | null;
+  dataHash: string | null;
+  dataRows: number | null;
+  softwareVersion: string;
+  requestedBy: number | null;
+  reviewedBy: number | null;
+  chunksTotal: number | null;
+  districtsTotal: number | null;
+  pooled: unknown;
+  timings: Record<string, number> | null;
+  error: string | null;
+  attempts: number;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  publishedAt: string | null;
+  discardedAt: string | null;
+}
+
+const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
+const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
+
+function toRun(r: Record<string, unknown>): RunRow {
+  return {
+    id: Number(r.id),
+    specId: Number(r.spec_id),
+    spec: r.spec as RunSpec,
+    state: r.state as RunState,
+    trigger: String(r.trigger),
+    reproducesRunId: num(r.reproduces_run_id),
+    dataVersion: num(r.data_version),
+    dataHash: (r.data_hash as string | null) ?? null,
+    dataRows: num(r.data_rows),
+    softwareVersion: String(r.software_version),
+    requestedBy: num(r.requested_by),
+    reviewedBy: num(r.reviewed_by),
+    chunksTotal: num(r.chunks_total),
+    districtsTotal: num(r.districts_total),
+    pooled: r.pooled ?? null,
+    timings: (r.timings as Record<string, number> | null) ?? null,
+    error: (r.error as string | null) ?? null,
+    attempts: Number(r.attempts),
+    createdAt: iso(r.created_at)!,
+    startedAt: iso(r.started_at),
+    finishedAt: iso(r.finished_at),
+    publishedAt: iso(r.published_at),
+    discardedAt: iso(r.discarded_at),
+  };
+}
+
+export async function insertRun(
+  db: Knex,
+  r: { specId: number; spec: RunSpec; trigger: string; requestedBy: number | null; softwareVersion: string; reproducesRunId?: number | null; dataVersion?: number | null; dataHash?: string | null },
+): Promise<RunRow> {
+  const [row] = await db('runs')
+    .insert({
+      spec_id: r.specId,
+      spec: JSON.stringify(r.spec),
+      trigger: r.trigger,
+      requested_by: r.requestedBy,
+      software_version: r.softwareVersion,
+      reproduces_run_id: r.reproducesRunId ?? null,
+      data_version: r.dataVersion ?? null,
+      data_hash: r.dataHash ?? null,
+    })
+    .returning('*');
+  return toRun(row);
+}
+
+export async function findRun(db: Knex, id: number, forUpdate = false): Promise<RunRow | null> {
+  const q = db('runs').where({ id }).first();
+  if (forUpdate) q.forUpdate();
+  const r = await q;
+  return r ? toRun(r) : null;
+}
+
+export async function listRuns(db: Knex, limit: number): Promise<RunRow[]> {
+  return (await db('runs').orderBy('id', 'desc').limit(limit).select('*')).map(toRun);
+}
+
+export async function update(db: Knex, id: number, patch: Record<string, unknown>): Promise<void> {
+  await db('runs').where({ id }).update(patch);
+}
+
+/** Sets state only when the run is in one of `from`; returns whether it did. */
+export async function transition(db: Knex, id: number, from: RunState[], to: RunState, extra: Record<string, unknown> = {}): Promise<boolean> {
+  const n = await db('runs').where({ id }).whereIn('state', from).update({ state: to, ...extra });
+  return n > 0;
+}
+
+export async function clearRunOutput(db: Knex, id: number): Promise<void> {
+  await db('run_estimates').where({ run_id: id }).del();
+  await db('run_chunks').where({ run_id: id }).del();
+}
+
+export interface EstimateRow {
+  districtId: number;
+  record: EstimateRecord;
+}
+
+/** Idempotent: a retried chunk overwrites its own rows. */
+export async function writeEstimates(db: Knex, runId: number, rows: EstimateRow[]): Promise<void> {
+  if (!rows.length) return;
+  const values = rows.map(({ districtId, record: r }) => ({
+    run_id: runId,
+    district_id: districtId,
+    variant: r.variant,
+    status: r.status,
+    standing: r.standing.standing,
+    shape: r.shape?.shape ?? null,
+    threshold: r.threshold?.level ?? null,
+    gap_percent: r.gapPercent,
+    crossing_year: r.projection?.crossingYear ?? null,
+    u_test_rejects: r.uTest?.rejects ?? null,
+    interval_bounded: r.standing.intervalBounded,
+    last_year: r.lastYear,
+    result: JSON.stringify(r),
+  }));
+  await db('run_estimates')
+    .insert(values)
+    .onConflict(['run_id', 'district_id', 'variant'])
+    .merge();
+}
+
+/** Records a finished chunk; returns how many of the run's chunks are done. */
+export async function markChunkDone(db: Knex, runId: number, chunk: number): Promise<number> {
+  await db('run_chunks').insert({ run_id: runId, chunk }).onConflict(['run_id', 'chunk']).ignore();
+  const [{ count }] = await db('run_chunks').where({ run_id: runId }).count<{ count: string }[]>({ count: '*' });
+  return Number(count);
+}
+
+export async function chunksDone(db: Knex, runId: number): Promise<number> {
+  const [{ count }] = await db('run_chunks').where({ run_id: runId }).count<{ count: string }[]>({ count: '*' });
+  return Number(count);
+}
+
+export interface EstimateListRow {
+  districtId: number;
+  code: string;
+  name: string;
+  status: string;
+  standing: string;
+  shape: string | null;
+  threshold: number | null;
+  gapPercent: number | null;
+  crossingYear: number | null;
+  uTestRejects: boolean | null;
+  intervalBounded: boolean | null;
+  lastYear: number | null;
+}
+
+function toListRow(r: Record<string, unknown>): EstimateListRow {
+  return {
+    districtId: Number(r.district_id),
+    code: String(r.code),
+    name: String(r.name),
+    status: String(r.status),
+    standing: String(r.standing),
+    shape: (r.shape as string | null) ?? null,
+    threshold: num(r.threshold),
+    gapPercent: num(r.gap_percent),
+    crossingYear: num(r.crossing_year),
+    uTestRejects: (r.u_test_rejects as boolean | null) ?? null,
+    intervalBounded: (r.interval_bounded as boolean | null) ?? null,
+    lastYear: num(r.last_year),
+  };
+}
+
+/** The summary columns of a run's estimates for one variant, in district-code order. */
+export async function listEstimateRows(db: Knex, runId: number, variant: Variant = 'main'): Promise<EstimateListRow[]> {
+  const rows = await db('run_estimates as e')
+    .join('districts as d', 'd.id', 'e.district_id')
+    .where({ 'e.run_id': runId, 'e.variant': variant })
+    .orderBy('d.code')
+    .select('e.*', 'd.code', 'd.name');
+  return rows.map(toListRow);
+}
+
+/** Full records of a run for the given districts (all variants). */
+export async function estimateRecords(db: Knex, runId: number, districtId: number): Promise<EstimateRecord[]> {
+  const rows = await db('run_estimates').where({ run_id: runId, district_id: districtId }).select('result');
+  return rows.map((r: { result: EstimateRecord }) => r.result);
+}
+
+/** Every main record of a run with district code and name (briefs, exports). */
+export async function mainRecords(db: Knex, runId: number): Promise<(EstimateRecord & { code: string; name: string })[]> {
+  const rows = await db('run_estimates as e')
+    .join('districts as d', 'd.id', 'e.district_id')
+    .where({ 'e.run_id': runId, 'e.variant': 'main' })
+    .orderBy('d.code')
+    .select('e.result', 'd.code', 'd.name');
+  return rows.map((r: { result: EstimateRecord; code: string; name: string }) => ({ ...r.result, code: r.code, name: r.name }));
+}
+
+export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<RunRow | null> {
+  const q = db('runs').where({ state: 'published' }).orderBy([{ column: 'published_at', order: 'desc' }, { column: 'id', order: 'desc' }]).first();
+  if (before) q.where('published_at', '<', before.publishedAt);
+  const r = await q;
+  return r ? toRun(r) : null;
+}
+
+export async function activeRunForSpec(db: Knex, specId: number): Promise<RunRow | null> {
+  const r = await db('runs').where({ spec_id: specId }).whereIn('state', ['queued', 'running']).first();
+  return r ? toRun(r) : null;
+}
+
+export async function upsertNote(db: Knex, runId: number, districtId: number, note: string, author: { id: number; email: string }): Promise<void> {
+  await db('run_notes')
+    .insert({ run_id: runId, district_id: districtId, note, author_id: author.id, author_email: author.email, updated_at: db.fn.now() })
+    .onConflict(['run_id', 'district_id'])
+    .merge();
+}
+
+export async function notesFor(db: Knex, runId: number): Promise<Map<number, { note: string; authorEmail: string | null; updatedAt: string }>> {
+  const rows = await db('run_notes').where({ run_id: runId }).select('*');
+  return new Map(rows.map((r: Record<string, unknown>) => [Number(r.district_id), { note: String(r.note), authorEmail: (r.author_email as string | null) ?? null, updatedAt: iso(r.updated_at)! }]));
+}

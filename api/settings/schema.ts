@@ -1,0 +1,39 @@
+/** The admin settings every number of the engine, alerts, uploads and briefs comes from. */
+import { z } from 'zod';
+
+export const SettingsSchema = z.object({
+  confidenceLevel: z.number().min(0.5).max(0.999).describe('Confidence level of intervals (default 95%)'),
+  alpha: z.number().min(0.001).max(0.5).describe('Test level α of the U-test, Wald test and shapes (default 0.05)'),
+  thresholdShiftPercent: z.number().min(0.1).max(1000).describe('A threshold_shift alert fires when X* moves more than this percent'),
+  uploadChangeFactor: z.number().min(1.01).max(1000).describe('An upload warns when a value changes by more than this factor'),
+  regionTimeZone: z
+    .string()
+    .refine((tz) => {
+      try {
+        new Intl.DateTimeFormat('en', { timeZone: tz });
+        return true;
+      } catch {
+        return false;
+      }
+    }, 'an IANA time zone such as Europe/Lisbon or UTC')
+    .describe('Time zone of the schedule and of dates on briefs'),
+  briefPaperSize: z.enum(['A4', 'LETTER']).describe('Paper size of briefs'),
+  scheduleCron: z
+    .string()
+    .regex(/^\S+\s+\S+\s+\S+\s+\S+\s+\S+$/, 'five cron fields: minute hour day-of-month month day-of-week')
+    .describe('When quarterly re-estimation runs start (cron, in the region time zone)'),
+  scheduleEnabled: z.boolean().describe('Whether scheduled runs start at all'),
+});
+export type Settings = z.infer<typeof SettingsSchema>;
+
+/** Defaults from the product's conventions (DOMAIN.md): 95%, α = 0.05, 10%, quarterly at 06:00. */
+export const DEFAULT_SETTINGS: Settings = {
+  confidenceLevel: 0.95,
+  alpha: 0.05,
+  thresholdShiftPercent: 10,
+  uploadChangeFactor: 3,
+  regionTimeZone: 'UTC',
+  briefPaperSize: 'A4',
+  scheduleCron: '0 6 1 1,4,7,10 *',
+  scheduleEnabled: true,
+};

@@ -1,0 +1,53 @@
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import { callerOf, route, STAFF, type RouteSpec } from '../http/routes';
+import { SavedSpecInput } from './schema';
+import * as service from './service';
+
+const byId = z.object({ id: z.coerce.number().int().positive() });
+
+export function specRoutes({ db }: AppContext): RouteSpec[] {
+  return [
+    route({
+      method: 'get',
+      path: '/api/specs',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Saved model specs (the default first)',
+      handler: async () => ({ specs: await service.listSpecs(db), defaultSpecId: (await service.defaultSpec(db)).id }),
+    }),
+    route({
+      method: 'post',
+      path: '/api/specs',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Save a new model spec',
+      schemas: { body: SavedSpecInput },
+      handler: async ({ body }, req, res) => {
+        res.status(201);
+        return { spec: await service.createSpec(db, callerOf(req)!, body) };
+      },
+    }),
+    route({
+      method: 'put',
+      path: '/api/specs/:id',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Replace a saved model spec',
+      schemas: { params: byId, body: SavedSpecInput },
+      handler: async ({ params, body }, req) => ({ spec: await service.updateSpec(db, callerOf(req)!, params.id, body) }),
+    }),
+    route({
+      method: 'delete',
+      path: '/api/specs/:id',
+      allow: STAFF,
+      tag: 'runs',
+      summary: 'Archive a saved model spec (runs keep their copy)',
+      schemas: { params: byId },
+      handler: async ({ params }, req, res) => {
+        await service.archiveSpec(db, callerOf(req)!, params.id);
+        res.status(204).end();
+      },
+    }),
+  ];
+}

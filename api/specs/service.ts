@@ -1,0 +1,78 @@
+/** Saved model specs: one is the region's default; every change is audited. */
+import type { Knex } from 'knex';
+import * as audit from '../audit/store';
+import { AppError, NotFoundError } from '../http/errors';
+import type { Caller } from '../http/routes';
+import { DEFAULT_SPEC, type SavedSpec, type SavedSpecInput } from './schema';
+import * as store from './store';
+
+async function checkIndicators(db: Knex, s: SavedSpecInput): Promise<void> {
+  const codes = [s.emissionsIndicator, s.driverIndicator, ...s.controls];
+  const known = new Set((await db('indicators').whereIn('code', codes).select('code')).map((r: { code: string }) => r.code));
+  const unknown = codes.filter((c) => !known.has(c));
+  if (unknown.length) throw new AppError(400, 'unknown_indicator', `Unknown indicator: ${unknown.join(', ')}`, { unknown });
+  const missing = s.levelControls.filter((c) => !s.controls.includes(c));
+  if (missing.length) throw new AppError(400, 'invalid_request', `levelControls must be among the controls: ${missing.join(', ')}`, { missing });
+}
+
+const unique = (err: unknown) => (err as { code?: string }).code === '23505';
+
+export async function createSpec(db: Knex, caller: Caller, input: SavedSpecInput): Promise<SavedSpec> {
+  await checkIndicators(db, input);
+  return db.transaction(async (trx) => {
+    if (input.isDefault) await store.clearDefault(trx);
+    try {
+      const spec = await store.insert(trx, input, caller.id);
+      await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'spec.create', targetType: 'model_spec', targetId: spec.id, after: spec });
+      return spec;
+    } catch (err) {
+      if (unique(err)) throw new AppError(409, 'name_taken', `A spec named "${input.name}" exists already.`);
+      throw err;
+    }
+  });
+}
+
+export async function updateSpec(db: Knex, caller: Caller, id: number, input: SavedSpecInput): Promise<SavedSpec> {
+  await checkIndicators(db, input);
+  return db.transaction(async (trx) => {
+    const before = await store.find(trx, id);
+    if (!before || before.archived) throw new NotFoundError(`No model spec with id ${id}`, { id });
+    if (before.isDefault && !input.isDefault) throw new AppError(409, 'default_required', 'Make another spec the default first.');
+    if (input.isDefault) await store.clearDefault(trx);
+    try {
+      const after = await store.update(trx, id, input);
+      await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'spec.update', targetType: 'model_spec', targetId: id, before, after });
+      return after;
+    } catch (err) {
+      if (unique(err)) throw new AppError(409, 'name_taken', `A spec named "${input.name}" exists already.`);
+      throw err;
+    }
+  });
+}
+
+export async function archiveSpec(db: Knex, caller: Caller, id: number): Promise<void> {
+  await db.transaction(async (trx) => {
+    const before = await store.find(trx, id);
+    if (!before || before.archived) throw new NotFoundError(`No model spec with id ${id}`, { id });
+    if (before.isDefault) throw new AppError(409, 'default_required', 'The default spec cannot be archived: make another spec the default first.');
+    await store.archive(trx, id);
+    await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'spec.archive', targetType: 'model_spec', targetId: id, before });
+  });
+}
+
+/** The spec a run uses when none is named: the default, created on first use. */
+export async function defaultSpec(db: Knex): Promise<SavedSpec> {
+  const found = await store.findDefault(db);
+  if (found) return found;
+  return db.transaction(async (trx) => {
+    await trx.raw('SELECT pg_advisory_xact_lock(20261202)');
+    return (await store.findDefault(trx)) ?? store.insert(trx, DEFAULT_SPEC, null);
+  });
+}
+
+export const listSpecs = (db: Knex) => store.list(db);
+export async function getSpec(db: Knex, id: number): Promise<SavedSpec> {
+  const s = await store.find(db, id);
+  if (!s) throw new NotFoundError(`No model spec with id ${id}`, { id });
+  return s;
+}

@@ -1,0 +1,78 @@
+import { z } from 'zod';
+import { ALERT_KINDS } from '../alerts/compare';
+import type { AppContext } from '../context';
+import { districtCode } from '../districts/router';
+import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
+import { confirmPage, resultPage } from './pages';
+import * as service from './service';
+
+const body = z.object({
+  scope: z.enum(['district', 'districts', 'region']),
+  districtCodes: z.array(districtCode).max(5000).default([]),
+  kinds: z.array(z.enum(ALERT_KINDS)).default([]),
+  delivery: z.enum(['instant', 'digest']).default('instant'),
+  attachBrief: z.boolean().default(false),
+});
+
+export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
+  return [
+    route({
+      method: 'get',
+      path: '/api/subscriptions',
+      allow: SIGNED_IN,
+      tag: 'alerts',
+      summary: 'Your alert subscriptions',
+      handler: async (_i, req) => ({ subscriptions: await service.listOwn(db, callerOf(req)!) }),
+    }),
+    route({
+      method: 'post',
+      path: '/api/subscriptions',
+      allow: SIGNED_IN,
+      tag: 'alerts',
+      summary: 'Subscribe to a district, a set of districts or the region: alert kinds, instant or digest, brief attached',
+      schemas: { body },
+      handler: async ({ body }, req, res) => {
+        res.status(201);
+        return { subscription: await service.subscribe(db, callerOf(req)!, body) };
+      },
+    }),
+    route({
+      method: 'delete',
+      path: '/api/subscriptions/:id',
+      allow: SIGNED_IN,
+      tag: 'alerts',
+      summary: 'Remove one of your subscriptions',
+      schemas: { params: z.object({ id: z.coerce.number().int().positive() }) },
+      handler: async ({ params }, req, res) => {
+        await service.unsubscribeOwn(db, callerOf(req)!, params.id);
+        res.status(204).end();
+      },
+    }),
+    route({
+      method: 'get',
+      path: '/api/subscriptions/unsubscribe',
+      allow: 'public',
+      tag: 'alerts',
+      produces: 'text/html',
+      summary: 'The page an e-mail’s unsubscribe link opens: asks to confirm',
+      schemas: { query: z.object({ token: z.string().max(400) }) },
+      handler: ({ query }, _req, res) => {
+        res.type('html').send(confirmPage(query.token));
+      },
+    }),
+    route({
+      method: 'post',
+      path: '/api/subscriptions/unsubscribe',
+      allow: 'public',
+      tag: 'alerts',
+      produces: 'text/html',
+      anonymousWriteReason: 'e-mail unsubscribe: carries a signed, expiring token instead of a session',
+      summary: 'Confirm an unsubscribe from an e-mail link (signed, expiring token; no sign-in)',
+      schemas: { body: z.object({ token: z.string().max(400) }) },
+      handler: async ({ body }, _req, res) => {
+        const r = await service.unsubscribeByToken(db, config.sessionSecret, body.token);
+        res.status(r.ok ? 200 : 400).type('html').send(resultPage(r.ok, r.message));
+      },
+    }),
+  ];
+}

@@ -1,0 +1,64 @@
+/** Subscriptions to alerts: a district, a set of districts, or the whole region. */
+import type { Knex } from 'knex';
+import { ALERT_KINDS, type AlertKind } from '../alerts/compare';
+import { AppError, NotFoundError } from '../http/errors';
+import type { Caller } from '../http/routes';
+import * as store from './store';
+import { checkUnsubscribeToken } from './token';
+
+export interface SubscriptionInput {
+  scope: 'district' | 'districts' | 'region';
+  districtCodes: string[];
+  kinds: AlertKind[];
+  delivery: 'instant' | 'digest';
+  attachBrief: boolean;
+}
+
+export const publicSubscription = (s: store.SubscriptionRow) => ({
+  id: s.id,
+  scope: s.scope,
+  districtCodes: s.districtCodes,
+  kinds: s.kinds,
+  delivery: s.delivery,
+  attachBrief: s.attachBrief,
+  createdAt: s.createdAt,
+});
+
+export async function listOwn(db: Knex, caller: Caller) {
+  return (await store.listForUser(db, caller.id)).map(publicSubscription);
+}
+
+export async function subscribe(db: Knex, caller: Caller, input: SubscriptionInput) {
+  const codes = [...new Set(input.districtCodes)];
+  if (input.scope === 'region' && codes.length) throw new AppError(400, 'invalid_request', 'A region subscription names no districts.');
+  if (input.scope === 'district' && codes.length !== 1) throw new AppError(400, 'invalid_request', 'A district subscription names exactly one district.');
+  if (input.scope === 'districts' && codes.length < 1) throw new AppError(400, 'invalid_request', 'Name at least one district.');
+  const found: { id: number; code: string }[] = codes.length ? await db('districts').whereIn('code', codes).select('id', 'code') : [];
+  const missing = codes.filter((c) => !found.some((f) => f.code === c));
+  if (missing.length) throw new NotFoundError(`No district with code ${missing.join(', ')}`, { missing });
+  const id = await store.insert(db, {
+    userId: caller.id,
+    scope: input.scope,
+    districtIds: found.map((f) => f.id),
+    kinds: input.kinds.length ? [...new Set(input.kinds)] : [...ALERT_KINDS],
+    delivery: input.delivery,
+    attachBrief: input.attachBrief,
+  });
+  return publicSubscription((await store.find(db, id))!);
+}
+
+export async function unsubscribeOwn(db: Knex, caller: Caller, id: number): Promise<void> {
+  const s = await store.find(db, id);
+  if (!s || s.userId !== caller.id) throw new NotFoundError(`No subscription ${id} of yours`, { id });
+  await store.remove(db, id);
+}
+
+export async function unsubscribeByToken(db: Knex, secret: string, token: string): Promise<{ ok: boolean; message: string }> {
+  const check = checkUnsubscribeToken(secret, token);
+  if (!check.ok) {
+    const message = check.reason === 'expired' ? 'This unsubscribe link has expired. Sign in to manage your alerts.' : 'This unsubscribe link is not valid.';
+    return { ok: false, message };
+  }
+  const removed = await store.remove(db, check.subscriptionId);
+  return { ok: true, message: removed ? 'You will get no more e-mails from this subscription.' : 'This subscription had already been removed.' };
+}

@@ -1,0 +1,45 @@
+/**
+ * npm run worker: a process that only works jobs (runs, chunks, mail) from the same
+ * PostgreSQL-backed queue as the server, so more processes or machines can share a run.
+ */
+import { loadConfig } from './config';
+import type { AppContext } from './context';
+import { createDb } from './db';
+import { startJobs } from './jobs/boss';
+import { allHandlers } from './jobs/handlers';
+import { createMailer } from './mail/mailer';
+
+export async function startWorker(config = loadConfig()) {
+  const db = createDb(config.databaseUrl);
+  const jobs = await startJobs({
+    databaseUrl: config.databaseUrl,
+    expireInSeconds: config.jobExpireSeconds,
+    pollingIntervalSeconds: config.jobPollSeconds,
+    maintenanceIntervalSeconds: config.jobMaintenanceSeconds,
+    schedule: false,
+  });
+  const ctx: AppContext = { db, config, log: (m) => process.stderr.write(`${m}\n`), mailer: createMailer(config), jobs };
+  await jobs.work(allHandlers(ctx));
+  return {
+    async close() {
+      await jobs.stop();
+      ctx.mailer.close();
+      await db.destroy();
+    },
+  };
+}
+
+if (require.main === module) {
+  startWorker().then(
+    (w) => {
+      console.log(`Crestwatch worker ${process.pid} is working jobs`);
+      const stop = () => w.close().then(() => process.exit(0));
+      process.once('SIGINT', stop);
+      process.once('SIGTERM', stop);
+    },
+    (err: Error) => {
+      console.error(`worker could not start: ${err.message}`);
+      process.exit(1);
+    },
+  );
+}

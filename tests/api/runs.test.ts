@@ -1,0 +1,223 @@
+/**
+ * Runs end to end over the demo region: start, review, publish, a data revision that
+ * moves a district across its threshold band, alerts in the feed and in the mail catcher
+ * exactly once, an unchanged republish that sends nothing, reproduction to the last digit,
+ * and mail held while SMTP is down.
+ */
+import type { Server } from 'node:http';
+import type TestAgent from 'supertest/lib/agent';
+import type { CrestwatchApp } from '../../api/app';
+import { loadConfig } from '../../api/config';
+import { seedDemoIfEmpty } from '../../api/demo/seed';
+import type { Jobs } from '../../api/jobs/boss';
+import { startMailCatcher, type MailCatcher } from '../../api/mail/catcher';
+import { createMailer } from '../../api/mail/mailer';
+import { deliverOutbox } from '../../api/outbox/sender';
+import { ensureDemoAccounts } from '../../api/people/service';
+import { closeServer, DEMO, listen, signInAs } from '../support/auth';
+import { testJobs, until, workIn } from '../support/jobs';
+import { testApp } from '../support/test-app';
+import { freshDatabase, type TestDatabase } from '../support/test-db';
+
+jest.setTimeout(180_000);
+
+let t: TestDatabase;
+let app: CrestwatchApp;
+let server: Server;
+let jobs: Jobs;
+let catcher: MailCatcher;
+let analyst: TestAgent;
+let official: TestAgent;
+
+beforeAll(async () => {
+  t = await freshDatabase();
+  await seedDemoIfEmpty(t.db);
+  await ensureDemoAccounts(t.db);
+  catcher = await startMailCatcher(t.db, 0);
+  const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), mailCatcherPort: catcher.port, mailRetrySeconds: 1 };
+  jobs = await testJobs(t.url);
+  app = testApp(t.db, { mailCatcherPort: catcher.port, mailRetrySeconds: 1 }, createMailer(config));
+  app.locals.ctx.jobs = jobs;
+  await workIn(app.locals.ctx, jobs);
+  server = await listen(app);
+  analyst = (await signInAs(server, DEMO.analyst)).agent;
+  official = (await signInAs(server, DEMO.official)).agent;
+});
+afterAll(async () => {
+  await jobs?.stop();
+  await closeServer(server, app);
+  await catcher?.stop();
+  await t.drop();
+});
+
+async function runToReview(): Promise<number> {
+  const start = await analyst.post('/api/runs').send({});
+  expect(start.status).toBe(202);
+  expect(start.body.state).toBe('queued');
+  const id = start.body.id as number;
+  const run = await until(`run ${id} in review`, async () => {
+    const r = (await analyst.get(`/api/runs/${id}`)).body;
+    if (r.state === 'failed') throw new Error(`run failed: ${r.error}`);
+    return r.state === 'in_review' ? r : null;
+  });
+  expect(run.dataHash).toMatch(/^[0-9a-f]{64}$/);
+  expect(run.softwareVersion).toBeTruthy();
+  return id;
+}
+
+const mailsTo = async (email: string) => (await t.db('caught_mail').whereRaw('? = ANY(envelope_to)', [email]).select('*')) as { subject: string; text_body: string }[];
+
+describe('runs', () => {
+  let firstRun: number;
+  let secondRun: number;
+  let crossing: { code: string; from: string; to: string };
+
+  it('refuses a second run of the same spec while one is active, and hides estimates until review', async () => {
+    const a = await analyst.post('/api/runs').send({});
+    expect(a.status).toBe(202);
+    const b = await analyst.post('/api/runs').send({});
+    expect([202, 409]).toContain(b.status);
+    if (b.status === 409) expect(b.body.error.code).toBe('run_in_progress');
+    const early = await analyst.get(`/api/runs/${a.body.id}/review`);
+    if ((await analyst.get(`/api/runs/${a.body.id}`)).body.state !== 'in_review') expect(early.status).toBe(409);
+    await until('first run in review', async () => (await analyst.get(`/api/runs/${a.body.id}`)).body.state === 'in_review');
+    firstRun = a.body.id;
+  });
+
+  it('fits every district with its sensitivity variants and the regional substitute for short series', async () => {
+    const view = (await analyst.get(`/api/runs/${firstRun}`)).body;
+    expect(view.progress.districts).toBe(24);
+    expect(view.pooled.status).toBe('ok');
+    const review = (await analyst.get(`/api/runs/${firstRun}/review`)).body;
+    expect(review.districts).toHaveLength(24);
+    const [{ count }] = await t.db('run_estimates').where({ run_id: firstRun }).count<{ count: string }[]>({ count: '*' });
+    expect(Number(count)).toBe(24 * 5);
+    // D10 has 2018–2025 only (8 years < k + 5 = 9): the pooled curve stands in.
+    const d10 = (await analyst.get(`/api/runs/${firstRun}/districts/D10`)).body;
+    const main = d10.records.find((r: { variant: string }) => r.variant === 'main');
+    expect(main.status).toBe('substitute');
+    expect(main.reason.message).toMatch(/regional pooled curve/);
+    const d01 = (await analyst.get(`/api/runs/${firstRun}/districts/D01`)).body;
+    const d01main = d01.records.find((r: { variant: string }) => r.variant === 'main');
+    expect(d01main.status).toBe('ok');
+    expect(d01main.diagnostics.residualsByYear).toHaveLength(31);
+    expect(d01.records.map((r: { variant: string }) => r.variant).sort()).toEqual(['cubic', 'last20', 'level', 'main', 'no_controls']);
+  });
+
+  it('publishes the first run without alerts (nothing to compare with)', async () => {
+    const res = await analyst.post(`/api/runs/${firstRun}/publish`);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ previousRunId: null, alerts: 0 });
+    const again = await analyst.post(`/api/runs/${firstRun}/publish`);
+    expect(again.status).toBe(409);
+    expect((await official.post(`/api/runs/${firstRun}/publish`)).status).toBe(403);
+  });
+
+  it('a data revision moves a district across its band: one crossing alert, one mail per subscriber', async () => {
+    expect((await official.post('/api/subscriptions').send({ scope: 'region', delivery: 'instant' })).status).toBe(201);
+    const review = (await analyst.get(`/api/runs/${firstRun}/review`)).body.districts as { code: string; standing: string; threshold: number }[];
+    const candidate = review.find((d) => d.standing === 'approaching' || d.standing === 'at_turn');
+    expect(candidate).toBeDefined();
+    // Revise the latest income of that district to well past its threshold (an upload).
+    const last = await t.db('observations as o')
+      .join('districts as d', 'd.id', 'o.district_id')
+      .join('indicators as i', 'i.id', 'o.indicator_id')
+      .where({ 'd.code': candidate!.code, 'i.code': 'income_pc' })
+      .orderBy('o.year', 'desc')
+      .first('o.year');
+    const csv = `district_code,indicator,year,value\n${candidate!.code},income_pc,${last.year},${Math.round(candidate!.threshold * 2)}\n`;
+    const up = await analyst.post('/api/uploads?commit=true').attach('file', Buffer.from(csv), 'revision.csv');
+    expect(up.status).toBe(201);
+
+    secondRun = await runToReview();
+    const row = (await analyst.get(`/api/runs/${secondRun}/review`)).body.districts.find((d: { code: string }) => d.code === candidate!.code);
+    expect(row.change.standingChanged).toBe(true);
+    crossing = { code: candidate!.code, from: candidate!.standing, to: row.standing };
+
+    const pub = await analyst.post(`/api/runs/${secondRun}/publish`);
+    expect(pub.status).toBe(200);
+    expect(pub.body.previousRunId).toBe(firstRun);
+    const feed = (await official.get('/api/alerts')).body.alerts as { kind: string; districtCode: string; read: boolean; id: number }[];
+    const crossings = feed.filter((a) => a.kind === 'crossing' && a.districtCode === crossing.code);
+    expect(crossings).toHaveLength(1);
+    expect(crossings[0].read).toBe(false);
+    await until('crossing mail', async () => (await mailsTo(DEMO.official)).some((m) => m.text_body.includes(`(${crossing.code})`) && /threshold band/.test(m.subject)));
+    const mails = (await mailsTo(DEMO.official)).filter((m) => /threshold band/.test(m.subject) && m.text_body.includes(`(${crossing.code})`));
+    expect(mails).toHaveLength(1);
+    expect(mails[0].text_body).toMatch(/Stop these e-mails: http:\/\/.*\/api\/subscriptions\/unsubscribe\?token=/);
+    expect((await official.post(`/api/alerts/${crossings[0].id}/read`)).status).toBe(204);
+    expect((await official.get('/api/alerts')).body.alerts.find((a: { id: number }) => a.id === crossings[0].id).read).toBe(true);
+  });
+
+  it('explains the move as a data revision under an unchanged spec', async () => {
+    const d = (await analyst.get(`/api/runs/${secondRun}/districts/${crossing.code}`)).body;
+    expect(d.movement.specChanged).toBe(false);
+    expect(d.movement.softwareChanged).toBe(false);
+    // Same spec: all of the move is the data's; the spec's part is zero to the last digit.
+    expect(d.movement.specPart).toBe(0);
+    expect(d.movement.dataPart).toBeCloseTo(d.movement.current - d.movement.previous, 9);
+  });
+
+  it('a publish of an unchanged run sends nothing', async () => {
+    const before = await t.db('caught_mail').count<{ count: string }[]>({ count: '*' });
+    const alertsBefore = await t.db('alerts').count<{ count: string }[]>({ count: '*' });
+    const third = await runToReview();
+    const pub = await analyst.post(`/api/runs/${third}/publish`);
+    expect(pub.body).toMatchObject({ alerts: 0, mails: 0 });
+    await deliverOutbox(app.locals.ctx);
+    expect(await t.db('caught_mail').count<{ count: string }[]>({ count: '*' })).toEqual(before);
+    expect(await t.db('alerts').count<{ count: string }[]>({ count: '*' })).toEqual(alertsBefore);
+  });
+
+  it('re-executes a run from its recorded spec and data hash to the same estimates, digit for digit', async () => {
+    const res = await analyst.post(`/api/runs/${firstRun}/reproduce`);
+    expect(res.status).toBe(202);
+    const view = await until('reproduction in review', async () => {
+      const r = (await analyst.get(`/api/runs/${res.body.id}`)).body;
+      if (r.state === 'failed') throw new Error(r.error);
+      return r.state === 'in_review' ? r : null;
+    });
+    const original = (await analyst.get(`/api/runs/${firstRun}`)).body;
+    expect(view.dataHash).toBe(original.dataHash);
+    expect(view.dataVersion).toBe(original.dataVersion);
+    expect(view.reproduction).toEqual({ of: firstRun, identical: true, differences: 0 });
+    // The current data differ from the first run's (the revision): reading as of the old version matters.
+    expect(view.dataVersion).toBeLessThan((await analyst.get(`/api/runs/${secondRun}`)).body.dataVersion);
+  });
+
+  it('holds mail while SMTP is down and delivers each exactly once when it is back', async () => {
+    await official.post('/api/subscriptions').send({ scope: 'districts', districtCodes: [crossing.code], delivery: 'digest' });
+    const port = catcher.port;
+    await catcher.stop();
+    const back = await t.db('observations as o')
+      .join('districts as d', 'd.id', 'o.district_id')
+      .join('indicators as i', 'i.id', 'o.indicator_id')
+      .where({ 'd.code': crossing.code, 'i.code': 'income_pc' })
+      .orderBy('o.year', 'desc')
+      .first('o.year');
+    // Revert the revision: the district moves back.
+    const uploads = (await analyst.get('/api/uploads')).body;
+    const revision = (uploads.uploads ?? uploads.items ?? uploads).find((u: { fileName: string | null }) => u.fileName === 'revision.csv');
+    expect((await analyst.post(`/api/uploads/${revision.id}/revert`)).status).toBeLessThan(300);
+    expect(back.year).toBeGreaterThan(2000);
+    const run = await runToReview();
+    const pub = await analyst.post(`/api/runs/${run}/publish`);
+    expect(pub.body.mails).toBeGreaterThanOrEqual(2);
+    const pending = await until('failed attempts', async () => {
+      const rows = await t.db('outbox').where({ run_id: run }).select('*');
+      return rows.length && rows.every((r: { attempts: number; status: string }) => r.attempts >= 1 && r.status === 'pending') ? rows : null;
+    });
+    catcher = await startMailCatcher(t.db, port);
+    await until('delivery after SMTP is back', async () => {
+      await deliverOutbox(app.locals.ctx);
+      const rows = await t.db('outbox').where({ run_id: run }).select('status');
+      return rows.every((r: { status: string }) => r.status === 'sent');
+    }, 30_000, 500);
+    await deliverOutbox(app.locals.ctx);
+    for (const row of pending) {
+      const msg = row.message as { subject: string };
+      const got = (await mailsTo(row.to_address)).filter((m) => m.subject === msg.subject);
+      expect(got).toHaveLength(1);
+    }
+  });
+});
