@@ -5,7 +5,11 @@ import { authRoutes } from './auth/router';
 import type { createPassport } from './auth/passport';
 import type { AppContext } from './context';
 import { districtRoutes } from './districts/router';
+import { estimateRoutes } from './estimates/router';
 import { healthRoutes } from './health/router';
+import { indicatorRoutes } from './indicators/router';
+import { observationRoutes } from './observations/router';
+import { uploadRoutes } from './uploads/router';
 import { openApiDocument } from './http/openapi';
 import { route, type RouteSpec } from './http/routes';
 import { mailboxRoutes } from './mail/router';
@@ -24,6 +28,10 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     ...auditRoutes(ctx),
     ...mailboxRoutes(ctx),
     ...districtRoutes(ctx),
+    ...indicatorRoutes(ctx),
+    ...observationRoutes(ctx),
+    ...uploadRoutes(ctx),
+    ...estimateRoutes(ctx),
     ...settingsRoutes(ctx),
     ...specRoutes(ctx),
     ...runRoutes(ctx),

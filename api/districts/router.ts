@@ -12,8 +12,8 @@ export function districtRoutes({ db }: AppContext): RouteSpec[] {
       path: '/api/districts',
       allow: SIGNED_IN,
       tag: 'districts',
-      summary: 'Every district with its years covered and latest values',
-      handler: async () => ({ districts: await service.listDistricts(db) }),
+      summary: 'Every district with its years covered, latest values and standing in the latest published run',
+      handler: () => service.listDistricts(db),
     }),
     route({
       method: 'get',

@@ -1,5 +1,6 @@
 /** District summaries and series: the rules (year span, gaps as nulls) live here. */
 import type { Knex } from 'knex';
+import { publishedSummaries } from '../estimates/service';
 import { NotFoundError } from '../http/errors';
 import * as store from './store';
 
@@ -35,8 +36,13 @@ function publicSummary(d: store.DistrictSummaryRow) {
   };
 }
 
+/** Every district with its data span, latest values and its standing in the latest published run. */
 export async function listDistricts(db: Knex) {
-  return (await store.listDistrictSummaries(db)).map(publicSummary);
+  const [rows, published] = await Promise.all([store.listDistrictSummaries(db), publishedSummaries(db)]);
+  return {
+    publishedRunId: published.run?.id ?? null,
+    districts: rows.map((d) => ({ ...publicSummary(d), estimate: published.byCode.get(d.code) ?? null })),
+  };
 }
 
 export async function getDistrict(db: Knex, code: string) {
