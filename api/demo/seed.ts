@@ -1,11 +1,14 @@
 /**
  * Loads the demo region into the database: the indicator catalogue, the districts and
- * their observations, in one transaction. `seedDemoIfEmpty` leaves a database that
- * already has districts alone; `reseedDemo` replaces the demo data.
+ * their observations, in one transaction. The load is recorded as a change set of kind
+ * 'seed' (the next data version), so every observation has an upload and the history can
+ * rebuild any later data version. `seedDemoIfEmpty` leaves a database that already has
+ * districts alone; `reseedDemo` replaces the demo data, its uploads and their history.
  */
 import type { Knex } from 'knex';
+import { OBSERVATIONS_LOCK } from '../uploads/sql';
 import { DEMO_INDICATORS } from './catalogue';
-import { generateDemoRegion } from './generate';
+import { DEMO_SEED, generateDemoRegion } from './generate';
 
 async function insertDemo(trx: Knex.Transaction): Promise<{ districts: number; observations: number }> {
   const region = generateDemoRegion();
@@ -28,11 +31,26 @@ async function insertDemo(trx: Knex.Transaction): Promise<{ districts: number; o
     .insert(region.districts)
     .returning(['id', 'code']);
   const districtIds = new Map(districtRows.map((r) => [r.code, r.id]));
+  await trx.raw('SELECT pg_advisory_xact_lock(?)', [OBSERVATIONS_LOCK]);
+  const [{ version }] = (await trx.raw(`SELECT coalesce(max(version), 0) + 1 AS version FROM uploads`)).rows;
+  const [{ id: uploadId }] = await trx('uploads')
+    .insert({
+      kind: 'seed',
+      status: 'committed',
+      note: `demo region generator, seed ${DEMO_SEED}`,
+      committed_at: trx.fn.now(),
+      version,
+      rows_read: region.observations.length,
+      value_count: region.observations.length,
+      insert_count: region.observations.length,
+    })
+    .returning('id');
   const rows = region.observations.map((o) => ({
     district_id: districtIds.get(o.districtCode)!,
     indicator_id: indicatorIds.get(o.indicator)!,
     year: o.year,
     value: o.value,
+    upload_id: uploadId,
   }));
   await trx.batchInsert('observations', rows, 1000);
   return { districts: districtRows.length, observations: rows.length };
@@ -51,7 +69,9 @@ export async function seedDemoIfEmpty(db: Knex): Promise<{ seeded: boolean; dist
 export async function reseedDemo(db: Knex): Promise<{ districts: number; observations: number }> {
   return db.transaction(async (trx) => {
     await trx.raw('SELECT pg_advisory_xact_lock(20261201)');
+    await trx('observation_history').del();
     await trx('observations').del();
+    await trx('uploads').del();
     await trx('districts').del();
     return insertDemo(trx);
   });

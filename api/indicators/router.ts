@@ -1,0 +1,52 @@
+/** The indicator catalogue: everyone signed in reads it, analysts and admins edit it. */
+import * as audit from '../audit/store';
+import type { AppContext } from '../context';
+import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
+import { createIndicatorBody, indicatorParams, updateIndicatorBody } from './schema';
+import * as service from './service';
+
+export function indicatorRoutes({ db }: AppContext): RouteSpec[] {
+  const whoOf = (req: Parameters<typeof callerOf>[0]) => {
+    const c = callerOf(req);
+    return { id: c?.id ?? null, email: c?.email ?? null };
+  };
+  return [
+    route({
+      method: 'get',
+      path: '/api/indicators',
+      allow: SIGNED_IN,
+      tag: 'indicators',
+      summary: 'The indicator catalogue: units, positivity rule, derivation, and how much data each has',
+      handler: () => service.listIndicators(db),
+    }),
+    route({
+      method: 'post',
+      path: '/api/indicators',
+      allow: STAFF,
+      tag: 'indicators',
+      summary: 'Add an indicator; a derived one (per person, or real from nominal) is computed at once from its sources',
+      schemas: { body: createIndicatorBody },
+      handler: async ({ body }, req, res) => {
+        const who = whoOf(req);
+        const answer = await service.createIndicator(db, body, who);
+        await audit.record(db, { actorId: who.id, actorEmail: who.email, action: 'indicator.create', targetType: 'indicator', targetId: body.code, after: answer.indicator });
+        res.status(201);
+        return answer;
+      },
+    }),
+    route({
+      method: 'patch',
+      path: '/api/indicators/:code',
+      allow: STAFF,
+      tag: 'indicators',
+      summary: 'Change an indicator; a new or changed derivation recomputes its series as a change set of its own',
+      schemas: { params: indicatorParams, body: updateIndicatorBody },
+      handler: async ({ params, body }, req) => {
+        const who = whoOf(req);
+        const { before, ...answer } = await service.updateIndicator(db, params.code, body, who);
+        await audit.record(db, { actorId: who.id, actorEmail: who.email, action: 'indicator.update', targetType: 'indicator', targetId: params.code, before, after: answer.indicator });
+        return answer;
+      },
+    }),
+  ];
+}

@@ -1,0 +1,48 @@
+/** The indicator catalogue's request schemas. */
+import { z } from 'zod';
+
+export const indicatorCode = z.string().regex(/^[a-z][a-z0-9_]{0,62}$/, 'an indicator code is a lower-case letter then up to 62 letters, digits or _');
+
+export const derivationInput = z.discriminatedUnion('kind', [
+  z.object({
+    kind: z.literal('per_person'),
+    /** The total, e.g. emissions in t CO2. */
+    source: indicatorCode,
+    /** The population indicator. */
+    divisor: indicatorCode,
+  }),
+  z.object({
+    kind: z.literal('real_from_nominal'),
+    /** The series in current prices. */
+    source: indicatorCode,
+    /** The price index, 100 in the base year. */
+    divisor: indicatorCode,
+    baseYear: z.number().int().min(1900).max(2100),
+  }),
+]);
+export type DerivationInput = z.infer<typeof derivationInput>;
+
+export const createIndicatorBody = z.object({
+  code: indicatorCode,
+  name: z.string().trim().min(1).max(120),
+  unit: z.string().trim().min(1).max(80),
+  description: z.string().trim().max(2000).default(''),
+  mustBePositive: z.boolean().default(false),
+  derivation: derivationInput.nullable().default(null),
+});
+export type CreateIndicator = z.infer<typeof createIndicatorBody>;
+
+export const updateIndicatorBody = z
+  .object({
+    name: z.string().trim().min(1).max(120),
+    unit: z.string().trim().min(1).max(80),
+    description: z.string().trim().max(2000),
+    mustBePositive: z.boolean(),
+    /** null makes a derived indicator plain again (its values stay). */
+    derivation: derivationInput.nullable(),
+  })
+  .partial()
+  .refine((b) => Object.keys(b).length > 0, 'give at least one field to change');
+export type UpdateIndicator = z.infer<typeof updateIndicatorBody>;
+
+export const indicatorParams = z.object({ code: indicatorCode });

@@ -1,0 +1,43 @@
+/** A district's stored values, current or as of a data version. */
+import type { Knex } from 'knex';
+import { observationsAsOfSql } from '../uploads/history-store';
+
+export interface SeriesRow {
+  indicatorId: number;
+  year: number;
+  value: number;
+  uploadId: number | null;
+}
+
+export async function findDistrict(db: Knex, code: string): Promise<{ id: number; code: string; name: string } | null> {
+  const row = await db('districts').where({ code }).first('id', 'code', 'name');
+  return row ?? null;
+}
+
+export async function latestVersion(db: Knex): Promise<number> {
+  const { rows } = await db.raw(`SELECT coalesce(max(version), 0)::int AS v FROM uploads`);
+  return rows[0].v;
+}
+
+export async function seriesOf(db: Knex, districtId: number, asOf: number | null): Promise<SeriesRow[]> {
+  const source = asOf === null ? 'observations' : observationsAsOfSql(asOf);
+  const { rows } = await db.raw(
+    `SELECT o.indicator_id, o.year, o.value, o.upload_id FROM ${source} o WHERE o.district_id = ? ORDER BY o.indicator_id, o.year`,
+    [districtId],
+  );
+  return rows.map((r: Record<string, number>) => ({ indicatorId: r.indicator_id, year: r.year, value: r.value, uploadId: r.upload_id }));
+}
+
+export interface CatalogueRow {
+  id: number;
+  code: string;
+  name: string;
+  unit: string;
+  mustBePositive: boolean;
+  derivation: string;
+}
+
+export async function catalogue(db: Knex): Promise<CatalogueRow[]> {
+  const rows = await db('indicators').orderBy('id').select('id', 'code', 'name', 'unit', 'must_be_positive', 'derivation');
+  return rows.map((r: Record<string, any>) => ({ id: r.id, code: r.code, name: r.name, unit: r.unit, mustBePositive: r.must_be_positive, derivation: r.derivation }));
+}

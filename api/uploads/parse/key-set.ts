@@ -1,0 +1,40 @@
+/**
+ * Which (district, indicator, year) keys a file has given so far, for the duplicate
+ * check: one 256-bit bitmap per (district, indicator) pair, found through a small offset
+ * table per district. A million keys over 20,000 pairs cost under 1 MB and touch memory
+ * in file order (a hash table of a million entries costs 16 MB or more and a cache miss
+ * per row). The line of the first occurrence is looked up afterwards, in the staged rows,
+ * for the few duplicates that are reported.
+ */
+export class KeySet {
+  private bits = new Uint32Array(8 * 1024);
+  private pairs = 0;
+
+  constructor(private readonly indicatorCount: number) {}
+
+  /** A table for one district: pair offsets by indicator position (-1 = none yet). */
+  newDistrict(): Int32Array {
+    return new Int32Array(this.indicatorCount).fill(-1);
+  }
+
+  /** Marks the key; false if it was marked already. `offset` is 0–255. */
+  add(district: Int32Array, indicator: number, offset: number): boolean {
+    let base = district[indicator];
+    if (base < 0) {
+      base = this.pairs * 8;
+      this.pairs++;
+      if (base + 8 > this.bits.length) {
+        const next = new Uint32Array(this.bits.length * 2);
+        next.set(this.bits);
+        this.bits = next;
+      }
+      district[indicator] = base;
+    }
+    const w = base + (offset >>> 5);
+    const m = 1 << (offset & 31);
+    const word = this.bits[w];
+    if (word & m) return false;
+    this.bits[w] = word | m;
+    return true;
+  }
+}

@@ -1,0 +1,83 @@
+/**
+ * Cell checks shared by both formats: numbers (decimal point, or decimal comma when the
+ * analyst says so), years, district codes and names. Each returns the clean value or a
+ * reason; the caller adds the line and column.
+ */
+import type { ProblemCode } from '../problems';
+
+export type Checked<T> = { ok: true; value: T } | { ok: false; code: ProblemCode; reason: string };
+
+const POINT_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+const COMMA_NUMBER = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
+const NOT_FINITE = /^[+-]?(?:nan|inf|infinity|#num!|#div\/0!)$/i;
+
+/**
+ * A number cell. `text` is the form to hand to PostgreSQL (decimal point), which parses it
+ * to the same double as JavaScript does (both round correctly).
+ */
+export function checkNumber(raw: string, decimalComma: boolean): Checked<number> & { text?: string } {
+  if (raw === '') return { ok: false, code: 'empty_value', reason: 'the value is empty (leave the row out to record a gap)' };
+  let text = raw;
+  if (decimalComma) {
+    if (!COMMA_NUMBER.test(raw)) return notNumber(raw, decimalComma);
+    text = raw.replace(',', '.');
+  } else if (!POINT_NUMBER.test(raw)) {
+    return notNumber(raw, decimalComma);
+  }
+  const n = Number(text);
+  if (!Number.isFinite(n)) return { ok: false, code: 'not_finite', reason: `"${clip(raw)}" is too large to store` };
+  if ((n === 0 && /[1-9]/.test(text.split(/[eE]/)[0])) || (n !== 0 && Math.abs(n) < 2.2250738585072014e-308)) {
+    return { ok: false, code: 'not_finite', reason: `"${clip(raw)}" is too close to zero to store` };
+  }
+  return { ok: true, value: n, text };
+}
+
+function notNumber(raw: string, decimalComma: boolean): Checked<number> {
+  if (NOT_FINITE.test(raw)) return { ok: false, code: 'not_finite', reason: `"${clip(raw)}" is not a finite number` };
+  let hint = '';
+  if (!decimalComma && /^[+-]?\d+,\d+$/.test(raw)) hint = ' (if the file uses decimal commas, upload it with the decimal-comma option)';
+  else if (decimalComma && /^[+-]?\d+\.\d+$/.test(raw)) hint = ' (the decimal-comma option is on, so a point is not a decimal separator)';
+  else if (/\d[ .,'\u00a0]\d{3}/.test(raw)) hint = ' (remove thousands separators)';
+  return { ok: false, code: 'not_a_number', reason: `"${clip(raw)}" is not a number${hint}` };
+}
+
+export const MIN_YEAR = 1900;
+export const MAX_YEAR = 2100;
+
+export function checkYear(raw: string, currentYear: number): Checked<number> {
+  if (!/^\d{1,4}$/.test(raw)) {
+    return { ok: false, code: 'bad_year', reason: raw === '' ? 'the year is empty' : `"${clip(raw)}" is not a year (four digits)` };
+  }
+  const y = Number(raw);
+  if (y < MIN_YEAR || y > MAX_YEAR) return { ok: false, code: 'year_out_of_range', reason: `year ${y} is outside ${MIN_YEAR}–${MAX_YEAR}` };
+  if (y > currentYear) return { ok: false, code: 'year_in_future', reason: `year ${y} is in the future (it is ${currentYear} now)` };
+  return { ok: true, value: y };
+}
+
+/** Same rule as the districts API's code parameter. */
+export const DISTRICT_CODE = /^[A-Za-z0-9_-]{1,32}$/;
+
+export function checkDistrictCode(raw: string): Checked<string> {
+  if (DISTRICT_CODE.test(raw)) return { ok: true, value: raw };
+  return {
+    ok: false,
+    code: 'bad_district_code',
+    reason: raw === '' ? 'the district code is empty' : `"${clip(raw)}" is not a district code (1–32 letters, digits, _ or -)`,
+  };
+}
+
+export const MAX_NAME_CHARS = 200;
+
+/**
+ * A district name is kept as the text it is — a leading = + - @ stays, because it is a
+ * name, not a formula; exports escape it (api/http/csv-escape.ts).
+ */
+export function checkDistrictName(raw: string): Checked<string> {
+  if (raw.length > MAX_NAME_CHARS) return { ok: false, code: 'bad_district_name', reason: `the district name is longer than ${MAX_NAME_CHARS} characters` };
+  if (/[\u0000-\u001F\u007F]/.test(raw)) return { ok: false, code: 'bad_district_name', reason: 'the district name contains a line break or control character' };
+  return { ok: true, value: raw };
+}
+
+export function clip(s: string, max = 40): string {
+  return s.length > max ? `${s.slice(0, max)}…` : s;
+}

@@ -1,0 +1,98 @@
+/** Upload routes: CSV in (dry run or commit), the upload history, commit of a preview, revert, data version. */
+import { z } from 'zod';
+import * as audit from '../audit/store';
+import type { AppContext } from '../context';
+import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
+import { dataVersion, revertUpload } from './change-sets';
+import { receivedFile, receiveFile } from './multipart';
+import { uploadIdParams, uploadListQuery, uploadQuery } from './schema';
+import * as service from './service';
+
+function who(req: Parameters<typeof callerOf>[0]): service.Who {
+  const c = callerOf(req);
+  return { id: c?.id ?? null, email: c?.email ?? null };
+}
+
+export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
+  const record = (w: service.Who, action: string, targetId: number, after: unknown) =>
+    audit.record(db, { actorId: w.id, actorEmail: w.email, action, targetType: 'upload', targetId, after });
+  return [
+    route({
+      method: 'post',
+      path: '/api/uploads',
+      allow: STAFF,
+      tag: 'uploads',
+      summary:
+        'Upload a CSV (multipart field "file", long or wide format): a dry run with the preview by default; ?commit=true checks and commits in one transaction',
+      before: [receiveFile(config.uploadMaxBytes)],
+      schemas: { query: uploadQuery },
+      handler: async ({ query }, req, res) => {
+        const w = who(req);
+        const answer = await service.receiveUpload(db, receivedFile(req), query, w);
+        if (!answer.noop && answer.upload.status === 'committed') {
+          await record(w, 'upload.commit', answer.upload.id, { fileName: answer.upload.fileName, version: answer.upload.version, counts: answer.upload.counts });
+          res.status(201);
+        }
+        return answer;
+      },
+    }),
+    route({
+      method: 'get',
+      path: '/api/uploads',
+      allow: SIGNED_IN,
+      tag: 'uploads',
+      summary: 'Upload history, newest first (files, the demo seed, reverts, derived recomputations)',
+      schemas: { query: uploadListQuery },
+      handler: ({ query }) => service.listUploads(db, query),
+    }),
+    route({
+      method: 'get',
+      path: '/api/uploads/:id',
+      allow: SIGNED_IN,
+      tag: 'uploads',
+      summary: 'One upload with its preview and problems',
+      schemas: { params: uploadIdParams },
+      handler: ({ params }) => service.getUpload(db, params.id),
+    }),
+    route({
+      method: 'post',
+      path: '/api/uploads/:id/commit',
+      allow: STAFF,
+      tag: 'uploads',
+      summary: 'Commit a previewed upload from its kept staged rows (checked again against the data as it is now)',
+      schemas: { params: uploadIdParams },
+      handler: async ({ params }, req, res) => {
+        const w = who(req);
+        const answer = await service.commitPreviewed(db, params.id, w);
+        if (!answer.noop) {
+          await record(w, 'upload.commit', answer.upload.id, { fileName: answer.upload.fileName, version: answer.upload.version, counts: answer.upload.counts });
+          res.status(201);
+        }
+        return answer;
+      },
+    }),
+    route({
+      method: 'post',
+      path: '/api/uploads/:id/revert',
+      allow: STAFF,
+      tag: 'uploads',
+      summary: 'Revert a committed upload: every value it wrote goes back to what it was before (refused when later uploads changed them)',
+      schemas: { params: uploadIdParams },
+      handler: async ({ params }, req) => {
+        const w = who(req);
+        const answer = await revertUpload(db, params.id, w);
+        await record(w, 'upload.revert', params.id, { revertUploadId: answer.revert.id, version: answer.revert.version, restored: answer.restored });
+        return answer;
+      },
+    }),
+    route({
+      method: 'get',
+      path: '/api/data-version',
+      allow: SIGNED_IN,
+      tag: 'uploads',
+      summary: 'The current data version (last change applied and a hash of the rows), or an earlier one rebuilt from history',
+      schemas: { query: z.object({ version: z.coerce.number().int().min(0).optional() }) },
+      handler: ({ query }) => dataVersion(db, query.version),
+    }),
+  ];
+}

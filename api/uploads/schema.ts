@@ -1,0 +1,32 @@
+/** Request schemas and options of the uploads API. */
+import { z } from 'zod';
+
+/** "true"/"false"/"1"/"0" in a query string. */
+export const queryBool = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+
+/** A stored value changing by more than this factor (either way) is flagged in the preview. */
+export const DEFAULT_CHANGE_FACTOR = 2;
+
+export const uploadQuery = z.object({
+  commit: queryBool.default(false),
+  allowNewDistricts: queryBool.default(false),
+  decimalComma: queryBool.default(false),
+  changeFactor: z.coerce.number().gt(1, 'changeFactor must be greater than 1').max(1e6).default(DEFAULT_CHANGE_FACTOR),
+});
+
+export interface UploadOptions {
+  allowNewDistricts: boolean;
+  decimalComma: boolean;
+  changeFactor: number;
+}
+
+export const uploadIdParams = z.object({ id: z.coerce.number().int().positive() });
+
+export const uploadListQuery = z.object({
+  limit: z.coerce.number().int().min(1).max(200).default(50),
+  /** Uploads with an id below this one (the next page). */
+  before: z.coerce.number().int().positive().optional(),
+  status: z.enum(['previewed', 'committed', 'reverted', 'failed']).optional(),
+});

@@ -1,0 +1,294 @@
+/**
+ * The upload rules: read and check a file into staging, preview it (a dry run in a
+ * transaction that is rolled back) or commit it (the same checks, then the merge, in one
+ * transaction: any error and nothing is written), commit a kept preview later, and a
+ * re-upload of a committed file is a no-op.
+ */
+import fs from 'node:fs';
+import { Transform } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import type { Knex } from 'knex';
+import type { PoolClient } from 'pg';
+import { AppError, NotFoundError } from '../http/errors';
+import { evaluateStaged, type Columns, type Evaluation } from './evaluate-store';
+import { applyChanges, type ChangeTable } from './merge-store';
+import { UploadReader, type CatalogueEntry, type ReadSummary } from './parse/upload-reader';
+import { buildPreview, summaryOf, type Preview, type UploadSummary } from './present';
+import { ProblemList, summarise, type Problem } from './problems';
+import type { UploadOptions } from './schema';
+import { inTransaction, lockObservations, withConnection, type Sql } from './sql';
+import * as staging from './staging-store';
+import * as store from './store';
+
+export interface Who {
+  id: number | null;
+  email: string | null;
+}
+
+export interface ReceivedFile {
+  path: string;
+  originalName: string;
+  size: number;
+  checksum: string;
+}
+
+export type UploadAnswer =
+  | { noop: false; upload: UploadSummary; preview: Preview; problems: Problem[]; problemsTruncated: boolean; bulk?: boolean }
+  | { noop: true; upload: UploadSummary; message: string };
+
+export class UploadRejected extends AppError {
+  constructor(problems: ProblemList, uploadId: number | null, preview: Preview | null) {
+    const listed = problems.sorted();
+    super(422, 'upload_rejected', `The file was not loaded. ${summarise(listed, problems.errors, problems.warnings)}`, {
+      uploadId,
+      problems: listed,
+      errorCount: problems.errors,
+      warningCount: problems.warnings,
+      truncated: problems.truncated,
+      preview,
+    });
+  }
+}
+
+const CHANGE_SETS: ChangeTable[] = [
+  { table: 'upload_eval', writer: '$1::int', historyKinds: ['c'] },
+  { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
+];
+
+export async function receiveUpload(db: Knex, file: ReceivedFile, options: UploadOptions & { commit: boolean }, who: Who, now = new Date()): Promise<UploadAnswer> {
+  return withConnection(db, async (conn) => {
+    await staging.pruneStaging(conn, now);
+    const done = await store.findCommittedByChecksum(conn, file.checksum);
+    if (done) return noop(done);
+
+    const name = staging.newStagingName(now);
+    const t = await staging.createStaging(conn, name);
+    let keep = false;
+    try {
+      const problems = new ProblemList();
+      const read = await readIntoStaging(conn, t, file, options, problems, now);
+      const base: store.NewUpload = {
+        kind: 'file',
+        status: 'failed',
+        fileName: file.originalName,
+        checksum: file.checksum,
+        byteSize: file.size,
+        format: read.format,
+        options: { allowNewDistricts: options.allowNewDistricts, decimalComma: options.decimalComma, changeFactor: options.changeFactor },
+        userId: who.id,
+        userEmail: who.email,
+        counts: { rowsRead: read.rowsRead, values: read.values },
+      };
+      if (read.fatal || !read.columns) {
+        const failed = await store.insertUpload(conn, { ...base, counts: { ...base.counts, errors: problems.errors, warnings: problems.warnings }, problems: problems.sorted() });
+        throw new UploadRejected(problems, failed.id, null);
+      }
+      const columns = read.columns;
+      const outcome = options.commit
+        ? await commitStaged(conn, t, read, columns, options, problems, base, null)
+        : await previewStaged(conn, t, read, columns, options, problems);
+      if (outcome.kind === 'noop') return noop(outcome.upload);
+      if (problems.errors > 0) {
+        const failed = await store.insertUpload(conn, {
+          ...base,
+          counts: { ...base.counts, ...outcome.counts, errors: problems.errors, warnings: problems.warnings },
+          preview: outcome.preview,
+          problems: problems.sorted(),
+        });
+        throw new UploadRejected(problems, failed.id, outcome.preview);
+      }
+      if (outcome.kind === 'committed') {
+        return { noop: false, upload: summaryOf(outcome.upload), preview: outcome.preview, problems: problems.sorted(), problemsTruncated: problems.truncated, bulk: outcome.bulk };
+      }
+      const preview = { ...outcome.preview, expiresAt: new Date(now.getTime() + staging.STAGING_TTL_HOURS * 3600_000).toISOString() };
+      const saved = await store.insertUpload(conn, {
+        ...base,
+        status: 'previewed',
+        counts: { ...base.counts, ...outcome.counts, errors: 0, warnings: problems.warnings },
+        // The header's columns are kept with a preview so it can be committed later.
+        preview: { ...preview, columns },
+        problems: problems.sorted(),
+        stagingTable: name,
+      });
+      keep = true;
+      return { noop: false, upload: summaryOf(saved), preview, problems: problems.sorted(), problemsTruncated: problems.truncated };
+    } finally {
+      if (!keep) await staging.dropStaging(conn, name);
+    }
+  });
+}
+
+/** Commits a kept preview: the checks run again against the data as it is now. */
+export async function commitPreviewed(db: Knex, id: number, who: Who): Promise<UploadAnswer> {
+  return withConnection(db, async (conn) => {
+    const u = await store.findUpload(conn, id);
+    if (!u || u.kind !== 'file') throw new NotFoundError(`No upload ${id}`, { id });
+    if (u.status === 'committed') throw new AppError(409, 'already_committed', `Upload ${id} is already committed.`, { id });
+    if (u.status !== 'previewed') throw new AppError(409, 'not_previewed', `Upload ${id} is ${u.status}; only a preview can be committed.`, { id, status: u.status });
+    if (!u.stagingTable) {
+      throw new AppError(410, 'preview_expired', `The staged rows of upload ${id} were dropped after ${staging.STAGING_TTL_HOURS} hours: upload the file again.`, { id });
+    }
+    const t = staging.stagingTables(u.stagingTable);
+    const prior = u.preview as (Preview & { columns?: Columns }) | null;
+    const read = readSummaryOf(u, prior);
+    const problems = new ProblemList();
+    const options = u.options as unknown as UploadOptions;
+    const base: store.NewUpload = { kind: 'file', status: 'failed', userId: who.id, userEmail: who.email };
+    const outcome = await commitStaged(conn, t, read, prior!.columns!, options, problems, base, u.id);
+    if (outcome.kind === 'noop') {
+      await store.markFailed(conn, u.id, 0, 0, []);
+      await staging.dropStaging(conn, u.stagingTable);
+      return noop(outcome.upload);
+    }
+    if (outcome.kind !== 'committed') {
+      await store.markFailed(conn, u.id, problems.errors, problems.warnings, problems.sorted());
+      await staging.dropStaging(conn, u.stagingTable);
+      throw new UploadRejected(problems, u.id, outcome.preview);
+    }
+    await staging.dropStaging(conn, u.stagingTable);
+    return { noop: false, upload: summaryOf(outcome.upload), preview: outcome.preview, problems: problems.sorted(), problemsTruncated: problems.truncated, bulk: outcome.bulk };
+  });
+}
+
+type Outcome =
+  | { kind: 'noop'; upload: store.UploadRecord }
+  | { kind: 'previewed' | 'failed'; preview: Preview; counts: Partial<store.UploadCounts> }
+  | { kind: 'committed'; upload: store.UploadRecord; preview: Preview; counts: Partial<store.UploadCounts>; bulk: boolean };
+
+async function readIntoStaging(conn: PoolClient, t: staging.StagingNames, file: ReceivedFile, options: UploadOptions, problems: ProblemList, now: Date): Promise<ReadSummary> {
+  const catalogue = await loadCatalogue(conn);
+  const reader = new UploadReader({ catalogue, options, currentYear: now.getUTCFullYear(), problems });
+  const parse = new Transform({
+    transform(chunk: Buffer, _enc, cb) {
+      try {
+        cb(null, reader.push(chunk) ?? undefined);
+      } catch (err) {
+        cb(err as Error);
+      }
+    },
+    flush(cb) {
+      try {
+        cb(null, reader.end() ?? undefined);
+      } catch (err) {
+        cb(err as Error);
+      }
+    },
+  });
+  await pipeline(fs.createReadStream(file.path, { highWaterMark: 256 * 1024 }), parse, staging.copyRowsStream(conn, t));
+  const read = reader.result();
+  if (read.fatal) return read;
+  await staging.saveDistrictsSeen(conn, t, read.districts);
+  const lines = await staging.firstLines(conn, t, reader.duplicates);
+  for (const d of reader.duplicates) {
+    const line = lines.get(`${d.district}|${d.indicatorId}|${d.year}`);
+    const p = problems.items[d.problemIndex];
+    if (line !== undefined) p.reason = p.reason.replace(/ is given twice$/, ` is already given on line ${line}`);
+  }
+  return read;
+}
+
+async function loadCatalogue(conn: Sql): Promise<Map<string, CatalogueEntry>> {
+  const { rows } = await conn.query(`SELECT id, code, derivation, must_be_positive FROM indicators ORDER BY id`);
+  return new Map(rows.map((r) => [r.code, { id: r.id, code: r.code, derivation: r.derivation, mustBePositive: r.must_be_positive }]));
+}
+
+async function previewStaged(conn: Sql, t: staging.StagingNames, read: ReadSummary, columns: Columns, options: UploadOptions, problems: ProblemList): Promise<Outcome> {
+  return inTransaction(conn, async () => {
+    await lockObservations(conn);
+    const ev = await evaluateStaged(conn, t, columns, options, problems);
+    const preview = await previewOf(conn, read, ev, options);
+    return { kind: problems.errors ? 'failed' : 'previewed', preview, counts: countsOf(ev), rollback: true } as Outcome & { rollback: boolean };
+  });
+}
+
+/** Checks and, when there are no errors, merges, in one transaction. */
+async function commitStaged(
+  conn: Sql,
+  t: staging.StagingNames,
+  read: ReadSummary,
+  columns: Columns,
+  options: UploadOptions,
+  problems: ProblemList,
+  base: store.NewUpload,
+  previewedId: number | null,
+): Promise<Outcome> {
+  return inTransaction(conn, async (): Promise<Outcome & { rollback?: boolean }> => {
+    await lockObservations(conn);
+    const checksum = base.checksum ?? (previewedId ? (await store.findUpload(conn, previewedId))?.checksum : null);
+    const done = checksum ? await store.findCommittedByChecksum(conn, checksum) : null;
+    if (done) return { kind: 'noop', upload: done, rollback: true };
+    const version = await store.nextVersion(conn);
+    const upload = previewedId ?? (await store.insertUpload(conn, { ...base, status: 'committed', version })).id;
+    const ev = await evaluateStaged(conn, t, columns, options, problems);
+    const preview = await previewOf(conn, read, ev, options);
+    const counts = countsOf(ev);
+    if (problems.errors > 0) return { kind: 'failed', preview, counts, rollback: true };
+    const sets = ev.derived.length ? CHANGE_SETS : CHANGE_SETS.slice(0, 1);
+    const merged = await applyChanges(conn, upload, version, sets);
+    const record = await store.markCommitted(conn, upload, version, { ...counts, remove: merged.removed, errors: 0, warnings: problems.warnings }, { ...preview, expiresAt: null }, problems.sorted());
+    return { kind: 'committed', upload: record, preview: { ...preview, expiresAt: null }, counts, bulk: merged.bulk };
+  });
+}
+
+function countsOf(ev: Evaluation): Partial<store.UploadCounts> {
+  const sum = (k: string) => ev.cells.filter((c) => c.kind === k).reduce((a, c) => a + c.n, 0);
+  return {
+    insert: sum('i'),
+    change: sum('c'),
+    unchanged: sum('u'),
+    derived: ev.derived.reduce((a, d) => a + d.n, 0),
+    remove: ev.derived.filter((d) => d.kind === 'r').reduce((a, d) => a + d.n, 0),
+  };
+}
+
+async function previewOf(conn: Sql, read: ReadSummary, ev: Evaluation, options: UploadOptions): Promise<Preview> {
+  const districtIds = [...new Set(ev.cells.map((c) => c.districtId))];
+  const { rows: ds } = await conn.query(`SELECT id, code, name FROM districts WHERE id = ANY($1)`, [districtIds]);
+  const { rows: is } = await conn.query(`SELECT id, code, name FROM indicators`);
+  return buildPreview(
+    read,
+    ev,
+    { districts: new Map(ds.map((d) => [d.id, d])), indicators: new Map(is.map((i) => [i.id, i])) },
+    options.decimalComma,
+    null,
+  );
+}
+
+function readSummaryOf(u: store.UploadRecord, p: (Preview & { columns?: Columns }) | null): ReadSummary {
+  if (!p?.columns) throw new AppError(409, 'not_previewed', `Upload ${u.id} has no kept preview.`, { id: u.id });
+  return {
+    format: p.format,
+    delimiter: p.delimiter,
+    rowsRead: p.rowsRead,
+    blankLines: p.blankLines,
+    values: p.values,
+    staged: 0,
+    districts: [],
+    firstYear: p.years.first,
+    lastYear: p.years.last,
+    fatal: false,
+    columns: p.columns,
+  };
+}
+
+function noop(u: store.UploadRecord): UploadAnswer {
+  const when = u.committedAt ? new Date(u.committedAt).toISOString().slice(0, 16).replace('T', ' ') : 'earlier';
+  return {
+    noop: true,
+    upload: summaryOf(u),
+    message: `This file was already committed as upload ${u.id} (${when} UTC, data version ${u.version}): nothing was changed.`,
+  };
+}
+
+export async function listUploads(db: Knex, q: { limit: number; before?: number; status?: store.UploadStatus }) {
+  const rows = await store.listUploads(db, q);
+  return { uploads: rows.map(summaryOf), nextBefore: rows.length === q.limit ? rows[rows.length - 1].id : null };
+}
+
+export async function getUpload(db: Knex, id: number) {
+  const u = await store.findUpload(db, id);
+  if (!u) throw new NotFoundError(`No upload ${id}`, { id });
+  const preview = u.preview as (Preview & { columns?: Columns }) | null;
+  if (preview) delete preview.columns;
+  return { upload: summaryOf(u), preview, problems: u.problems ?? [] };
+}
