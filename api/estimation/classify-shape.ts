@@ -8,8 +8,11 @@ import type { ShapeResult, SignRuleReading, UTestResult, WaldTestResult } from '
  * → 'flat'; (3) else the sign of the slope at the middle of the range, (x_min + x_max)/2,
  * → 'increasing' or 'decreasing'. When the shape is not a U or inverted U and a turning
  * point exists outside [x_min, x_max], the note "turn beyond observed range" is added (the
- * point and its interval stay visible). For a cubic, a note says when two turning points
- * lie inside the range. A Wald test that cannot be computed falls through to (3) with a note.
+ * point and its interval stay visible). For a cubic the same steps apply over the range with
+ * the cubic slope; when the slope changes sign twice inside the range (an N or inverted N,
+ * which none of the five names describes) the end slopes share a sign, the U-test does not
+ * reject, the shape falls to steps 2–3 and the note "two turning points inside observed
+ * range" says so. A Wald test that cannot be computed falls through to (3) with a note.
  * References: Lind & Mehlum (2010), Oxford Bulletin of Economics and Statistics 72(1),
  * 109–118; Wald (1943), Transactions of the AMS 54(3), 426–482.
  *

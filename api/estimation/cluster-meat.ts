@@ -14,7 +14,7 @@ import { take, type Workspace } from './workspace';
  * Throws: nothing; `groups[i]` must be an integer in [0, G).
  *
  * Example: n = 2, k = 1, q = (1/√2, 1/√2), e = (1, 1), one cluster:
- *   clusterMeat(q, e, 2, 1, Int32Array.from([0, 0]), 1)   // → [2]   ((1/√2 + 1/√2)²)
+ *   clusterMeat(q, e, 2, 1, Int32Array.from([0, 0]), 1)   // → [2.0000000000000004]   ((1/√2 + 1/√2)²)
  */
 export function clusterMeat(
   q1: Float64Array, e: ArrayLike<number>, n: number, k: number, groups: Int32Array, nGroups: number, ws?: Workspace,

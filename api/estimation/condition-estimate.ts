@@ -12,7 +12,8 @@ import type { LeastSquaresCore } from './types';
  *
  * Throws: nothing; needs core.r and core.rinv (full rank).
  *
- * Example: for R = [[2, 1], [0, 4]] with unit column norms → { raw: 5 · 0.625 = 3.125, scaled: 3.125 }
+ * Example: R = [[2, 1], [0, 4]], R⁻¹ = [[0.5, −0.125], [0, 0.25]], unit column norms
+ *   // → { raw: 5 · 0.5 = 2.5, scaled: 2.5 }
  */
 export function conditionEstimates(core: Pick<LeastSquaresCore, 'k' | 'r' | 'rinv' | 'columnNorms'>): { raw: number; scaled: number } {
   const { k, r, rinv, columnNorms } = core;

@@ -21,7 +21,8 @@ import type { FiellerSet, SetPiece } from './types';
  * Throws: nothing.
  *
  * Example: b = (−3, 0, 1) with a small V: two bounded pieces, one around −1 and one around +1
- *   cubicFieller(-3, 0, 1, 0.001·I, 1.96, 1).lo   // → ≈ 0.99
+ *   cubicFieller(-3, 0, 1, 0.001·I, 1.96, 1)
+ *   // → { kind: 'bounded', lo: 0.96287…, hi: 1.04034…, pieces: [[−1.0403, −0.9629], [0.9629, 1.0403]] }
  */
 export function cubicFieller(
   b1: number, b2: number, b3: number, v: ReadonlyArray<ArrayLike<number>>, c: number, xStar: number,

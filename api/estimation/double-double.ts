@@ -16,7 +16,7 @@
  *
  * Example:
  *   ddAdd(1, 0, 1e-20, 0)           // → [1, 1e-20]   (1 + 1e-20 kept exactly)
- *   ddMul(0.1, 0, 10, 0)            // → [1, -5.551115123125783e-17] (the exact product of the double 0.1 and 10)
+ *   ddMul(0.1, 0, 10, 0)            // → [1, 5.551115123125783e-17] (the exact product of the double 0.1 and 10)
  */
 export type DD = [number, number];
 

@@ -18,7 +18,7 @@ import type { FiellerSet } from './types';
  * Example (PA05, the flat district, classical covariance, c = qt(0.975, 31)):
  *   fiellerInterval(b1, b2, V11, V12, V22, 2.0395134463964077).kind   // → 'whole_line'
  *   fiellerInterval(2, -1, 0.01, 0, 0.0025, 1.96)
- *   // → { kind: 'bounded', lo: 0.9049…, hi: 1.1049…, pieces: [{ lo: 0.9049…, hi: 1.1049… }], … }
+ *   // → { kind: 'bounded', lo: 0.87009…, hi: 1.14929…, pieces: [{ lo: 0.87009…, hi: 1.14929… }], A: 3.961584, … }
  */
 export function fiellerInterval(
   b1: number, b2: number, v11: number, v12: number, v22: number, c: number,

@@ -33,7 +33,7 @@ export const DOUBLE_DOUBLE_THRESHOLD = 1e7;
  * columns each depends on), `invalid_argument` (n ≤ k, option errors), `covariance_undefined`.
  *
  * Example: fitLeastSquares({ nRows: 3, nCols: 2, data: Float64Array.from([1,1,1, 1,2,3]) },
- *   Float64Array.from([1, 2, 4])).result.coefficients   // → [-0.6666666666666666, 1.5]
+ *   Float64Array.from([1, 2, 4])).result.coefficients   // → [-0.6666666666666667, 1.5]
  */
 export function fitLeastSquares(
   X: DesignMatrix, y: Float64Array, options: OlsOptions = {}, ws?: Workspace,

@@ -14,8 +14,8 @@
  * (the row is fitted exactly and 1/(1 − h_i) does not exist); details name the row.
  *
  * Example: n = 2, k = 1, q = (1/√2, 1/√2), e = (1, −1):
- *   heteroskedasticMeat(q, e, h = (0.5, 0.5), 2, 1, 'hc0')  // → [1]   (0.5·1 + 0.5·1)
- *   heteroskedasticMeat(q, e, h, 2, 1, 'hc3')               // → [4]
+ *   heteroskedasticMeat(q, e, h = (0.5, 0.5), 2, 1, 'hc0')  // → [1.0000000000000002]   (0.5·1 + 0.5·1)
+ *   heteroskedasticMeat(q, e, h, 2, 1, 'hc3')               // → [4.000000000000001]
  */
 import { EstimationInputError } from './errors';
 import { take, type Workspace } from './workspace';

@@ -63,5 +63,9 @@ export { curveDiagnostics } from './curve-diagnostics';
 
 // kernels
 export { criticalValue, upperTail, twoSidedP, fUpperTail, chiSquareUpperTail } from './distributions';
+export { studentTUpperTail } from './student-t-tail';
+export { conditionEstimates } from './condition-estimate';
+export { acquireWorkspace, releaseWorkspace, take, toArray } from './workspace';
+export type { Workspace } from './workspace';
 export { twoSum, twoProd, ddAdd, ddMul, ddDiv, ddSqrt } from './double-double';
 export type { DD } from './double-double';

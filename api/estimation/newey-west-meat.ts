@@ -18,7 +18,7 @@ import { take, type Workspace } from './workspace';
  * Throws: nothing (the caller validates 0 ≤ L < n).
  *
  * Example: n = 2, k = 1, q = (1/√2, 1/√2), e = (1, 1), L = 1 (w₁ = 1/2):
- *   neweyWestMeat(q, e, 2, 1, 1)  // → [1.5]   (0.5 + 0.5 + 0.5·(0.5 + 0.5))
+ *   neweyWestMeat(q, e, 2, 1, 1)  // → [1.5000000000000002]   (0.5 + 0.5 + 0.5·(0.5 + 0.5))
  */
 export function neweyWestMeat(q1: Float64Array, e: ArrayLike<number>, n: number, k: number, lag: number, ws?: Workspace): Float64Array {
   const m = take(ws, k * k);

@@ -26,9 +26,10 @@ import type { DesignMatrix, OlsOptions, OlsResult } from './types';
  * columns and those they depend on), `covariance_undefined`.
  *
  * Example:
- *   ols([[1, 1], [1, 2], [1, 3]], [1, 2, 4]).coefficients      // → [-0.6666666666666666, 1.5]
- *   ols([[1, 1, 2], [1, 2, 4], [1, 3, 6]], [1, 2, 4], { names: ['const', 'a', 'b'] })
- *   // throws rank_deficient: "column 'b' is a linear combination of 'a'"
+ *   ols([[1, 1], [1, 2], [1, 3]], [1, 2, 4]).coefficients      // → [-0.6666666666666667, 1.5]
+ *   ols([[1, 1, 2], [1, 2, 4], [1, 3, 6], [1, 4, 8]], [1, 2, 4, 5], { names: ['const', 'a', 'b'] })
+ *   // throws rank_deficient: "Design matrix is rank deficient (rank 2 of 3): column 'b' is a
+ *   //   linear combination of 'a'", details { rank: 2, k: 3, dependent: ['b'], dependsOn: { b: ['a'] } }
  */
 export function ols(
   X: ReadonlyArray<ReadonlyArray<number>> | DesignMatrix, y: ArrayLike<number>, options: OlsOptions = {},

@@ -15,7 +15,7 @@ import type { DesignMatrix } from './types';
  *
  * Example:
  *   polynomialDesign([0.1, 2], 2).data    // → Float64Array [1, 1, 0.1, 2, 0.010000000000000002, 4]
- *   polynomialDesign([0.1, 2], 2).dataLo  // → Float64Array [0, 0, 0, 0, -2.0816681711721685e-19, 0]
+ *   polynomialDesign([0.1, 2], 2).dataLo  // → Float64Array [0, 0, 0, 0, -8.326672684688674e-19, 0]
  */
 export function polynomialDesign(x: ArrayLike<number>, degree: number, intercept = true): DesignMatrix {
   const n = x.length;

@@ -11,7 +11,7 @@ import type { QrFactorisation } from './qr';
  * Throws: nothing; v must have length n.
  *
  * Example: with f = pivotedQr([1,1,1, 1,2,3], 3, 2) and v = [1,2,3] (the second column),
- *   applyQt(f, v)  // v → [-3.4641016151377544, 1.414213562373095, ~0] (‖v‖ kept, third entry ~1e-16)
+ *   applyQt(f, v)  // v → [-3.4641016151377544, -1.414213562373095, 0] (‖v‖ kept)
  */
 export function applyQt(f: QrFactorisation, v: Float64Array, offset = 0): void {
   const { n, qr, tau, rank } = f;

@@ -14,7 +14,7 @@ import type { WaldTestResult } from './types';
  * Throws: nothing; a V that is not positive definite gives statistic null with a reason.
  *
  * Example:
- *   waldTest([1, 1], [[1, 0], [0, 1]], 30, 0.05)   // → { statistic: 2, q: 2, fStatistic: 1, pValue: 0.3804…, … }
+ *   waldTest([1, 1], [[1, 0], [0, 1]], 30, 0.05)   // → { statistic: 2, q: 2, fStatistic: 1, df: 30, pValue: 0.37981…, rejects: false, … }
  */
 export function waldTest(
   b: ReadonlyArray<number>, v: ReadonlyArray<ArrayLike<number>>, df: number | null, alpha: number,
