@@ -63,3 +63,154 @@ describe('POST /api/uploads (long format, dry run then commit)', () => {
     expect(await observationsChecksum(w.t.db)).toBe(before);
   });
 });
+
+describe('revert', () => {
+  it('restores exactly the previous values and data version hash', async () => {
+    const v0 = await w.official.get('/api/data-version');
+    expect(v0.status).toBe(200);
+    const before = await storedValue(w.t.db, 'D07', 'population', 2025);
+    const writer = () =>
+      w.t.db('observations as o').join('districts as d', 'd.id', 'o.district_id').join('indicators as i', 'i.id', 'o.indicator_id')
+        .where({ 'd.code': 'D07', 'i.code': 'population', 'o.year': 2025 }).first('o.upload_id');
+    const writerBefore = (await writer()).upload_id;
+    // Two revisions of the same file shape: one value changed, one inserted (D05 trade_openness 2020).
+    const csv = `district_code,indicator,year,value\nD07,population,2025,${before! + 1234}\nD05,trade_openness,2020,61.5\n`;
+    const up = await upload(w.analyst, csv, 'revision.csv', { commit: true });
+    expect(up.status).toBe(201);
+    expect(up.body.upload.version).toBe(v0.body.version + 1);
+    expect(await storedValue(w.t.db, 'D07', 'population', 2025)).toBe(before! + 1234);
+    const res = await w.analyst.post(`/api/uploads/${up.body.upload.id}/revert`);
+    expect(res.status).toBe(200);
+    expect(res.body.restored).toEqual({ changedBack: 1, removed: 1, reinserted: 0, derived: 0 });
+    expect(res.body.reverted).toMatchObject({ id: up.body.upload.id, status: 'reverted', canRevert: false });
+    expect(res.body.revert).toMatchObject({ kind: 'revert', revertsUploadId: up.body.upload.id, version: v0.body.version + 2 });
+    expect(await storedValue(w.t.db, 'D07', 'population', 2025)).toBe(before);
+    expect(await storedValue(w.t.db, 'D05', 'trade_openness', 2020)).toBeNull();
+    const v2 = await w.official.get('/api/data-version');
+    expect(v2.body.rowsHash).toBe(v0.body.rowsHash);
+    // The cell's writer is the earlier upload again, not the revert.
+    expect((await writer()).upload_id).toBe(writerBefore);
+  });
+
+  it('rebuilds every earlier data version with the hash it had', async () => {
+    const hashes = new Map<number, string>();
+    const now = await w.official.get('/api/data-version');
+    hashes.set(now.body.version, now.body.rowsHash);
+    const a = await upload(w.analyst, 'district_code,indicator,year,value\nD02,income_pc,2025,33333\nD02,trade_openness,2014,70.1\n', 'a.csv', { commit: true });
+    hashes.set(a.body.upload.version, (await w.official.get('/api/data-version')).body.rowsHash);
+    const b = await upload(w.analyst, 'district_code,indicator,year,value\nD02,income_pc,2025,34444\nD02,trade_openness,2013,69.0\n', 'b.csv', { commit: true });
+    hashes.set(b.body.upload.version, (await w.official.get('/api/data-version')).body.rowsHash);
+    const rb = await w.analyst.post(`/api/uploads/${b.body.upload.id}/revert`);
+    expect(rb.status).toBe(200);
+    hashes.set(rb.body.revert.version, (await w.official.get('/api/data-version')).body.rowsHash);
+    expect(hashes.get(rb.body.revert.version)).toBe(hashes.get(a.body.upload.version));
+    for (const [version, hash] of hashes) {
+      const r = await w.official.get(`/api/data-version?version=${version}`);
+      expect([version, r.body.rowsHash]).toEqual([version, hash]);
+    }
+    // Version 1 is the demo seed: its rebuild equals the values the generator made.
+    const seed = await w.official.get('/api/data-version?version=1');
+    expect(seed.body.rows).toBe(seeded.observations.length);
+  });
+
+  it('refuses to revert an upload whose values a later upload changed, until that one is reverted', async () => {
+    const a = await upload(w.analyst, 'district_code,indicator,year,value\nD04,income_pc,2025,22222\n', 'c.csv', { commit: true });
+    const b = await upload(w.analyst, 'district_code,indicator,year,value\nD04,income_pc,2025,22444\n', 'd.csv', { commit: true });
+    const refused = await w.analyst.post(`/api/uploads/${a.body.upload.id}/revert`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('revert_conflict');
+    expect(refused.body.error.details.laterUploads).toEqual([b.body.upload.id]);
+    expect((await w.analyst.post(`/api/uploads/${b.body.upload.id}/revert`)).status).toBe(200);
+    expect((await w.analyst.post(`/api/uploads/${a.body.upload.id}/revert`)).status).toBe(200);
+    expect(await storedValue(w.t.db, 'D04', 'income_pc', 2025)).toBe(seededValue('D04', 'income_pc', 2025));
+    const again = await w.analyst.post(`/api/uploads/${a.body.upload.id}/revert`);
+    expect(again.status).toBe(409);
+    expect(again.body.error.code).toBe('already_reverted');
+  });
+
+  it('lets a reverted file be uploaded again (it is no longer a no-op)', async () => {
+    const csv = 'district_code,indicator,year,value\nD04,income_pc,2025,22222\n';
+    const res = await upload(w.analyst, csv, 'c-again.csv', { commit: true });
+    expect(res.status).toBe(201);
+    expect(res.body.noop).toBe(false);
+    expect(await storedValue(w.t.db, 'D04', 'income_pc', 2025)).toBe(22222);
+  });
+});
+
+describe('formats and options', () => {
+  it('loads the wide demo file: one value per indicator column, names checked against the stored ones', async () => {
+    const res = await upload(w.analyst, demoWide, 'demo-wide.csv', { commit: true });
+    expect(res.status).toBe(201);
+    expect(res.body.upload.format).toBe('wide');
+    // 24 districts × 2 indicators over 2015–2025 (11 years), less the short series D10 (8) and D18 (7).
+    const rows = 22 * 11 + 8 + 7;
+    expect(res.body.preview.rowsRead).toBe(rows);
+    expect(res.body.preview.totals.insert + res.body.preview.totals.change + res.body.preview.totals.unchanged).toBe(2 * rows);
+    expect(res.body.problems).toEqual([]);
+    const obs = await w.official.get('/api/districts/D10/observations?indicators=industry_share,trade_openness');
+    expect(obs.body.indicators.map((i: { code: string }) => i.code)).toEqual(['industry_share', 'trade_openness']);
+    expect(obs.body.indicators[0]).toMatchObject({ firstYear: 2018, lastYear: 2025, values: 8, gaps: [] });
+  });
+
+  it('reads a semicolon file with a BOM and decimal commas when told so', async () => {
+    const csv = '\uFEFFdistrict_code;year;industry_share;trade_openness\r\nD11;2012;"31,5";88,25\r\nD11;2013;30,9;\r\n';
+    const dry = await upload(w.analyst, csv, 'semicolons.csv');
+    expect(dry.status).toBe(422);
+    expect(dry.body.error.details.problems[0]).toMatchObject({ line: 2, column: 3, code: 'not_a_number' });
+    expect(dry.body.error.message).toMatch(/decimal-comma option/);
+    const res = await upload(w.analyst, csv, 'semicolons.csv', { commit: true, decimalComma: true });
+    expect(res.status).toBe(201);
+    expect(res.body.preview).toMatchObject({ format: 'wide', delimiter: ';', decimalComma: true, values: 3 });
+    expect(await storedValue(w.t.db, 'D11', 'industry_share', 2012)).toBe(31.5);
+    expect(await storedValue(w.t.db, 'D11', 'trade_openness', 2012)).toBe(88.25);
+    expect(await storedValue(w.t.db, 'D11', 'trade_openness', 2013)).toBeNull();
+  });
+
+  it('creates new districts named in a district_name column, and keeps a formula-like name as text', async () => {
+    const csv = 'district_code,district_name,indicator,year,value\nD25,"=HYPERLINK(""x"")",population,2024,1200\nD25,"=HYPERLINK(""x"")",population,2025,1210\n';
+    const res = await upload(w.analyst, csv, 'new-district.csv', { commit: true });
+    expect(res.status).toBe(201);
+    expect(res.body.preview.newDistricts).toEqual([{ code: 'D25', name: '=HYPERLINK("x")', line: 2 }]);
+    expect(res.body.preview.byDistrict[0]).toMatchObject({ district: 'D25', isNew: true, insert: 2 });
+    const d = await w.official.get('/api/districts/D25/observations');
+    expect(d.body.district).toEqual({ code: 'D25', name: '=HYPERLINK("x")' });
+    const csvOut = await w.official.get('/api/districts/D25/observations.csv');
+    expect(csvOut.status).toBe(200);
+    expect(csvOut.headers['content-type']).toMatch(/text\/csv/);
+    expect(csvOut.text.split('\r\n')[1]).toBe(`D25,"'=HYPERLINK(""x"")",2024,1200`);
+  });
+
+  it('refuses unknown district codes without names unless new codes are allowed', async () => {
+    const csv = 'district_code,indicator,year,value\nD26,population,2025,5000\nD26,population,2024,4990\n';
+    const refused = await upload(w.analyst, csv, 'd26.csv', { commit: true });
+    expect(refused.status).toBe(422);
+    expect(refused.body.error.details.problems).toEqual([
+      expect.objectContaining({ line: 2, column: 1, field: 'district_code', code: 'unknown_district', severity: 'error' }),
+    ]);
+    expect(await w.t.db('districts').where({ code: 'D26' }).first()).toBeUndefined();
+    const allowed = await upload(w.analyst, csv, 'd26.csv', { commit: true, allowNewDistricts: true });
+    expect(allowed.status).toBe(201);
+    expect(await w.t.db('districts').where({ code: 'D26' }).first('name')).toEqual({ name: 'D26' });
+  });
+
+  it('warns about a value that moves by more than the change factor, and still commits it', async () => {
+    const stored = await storedValue(w.t.db, 'D14', 'pop_density', 2025);
+    const csv = `district_code,indicator,year,value\nD14,pop_density,2025,${stored! * 10}\nD14,pop_density,2024,${seededValue('D14', 'pop_density', 2024)}\n`;
+    const res = await upload(w.analyst, csv, 'unit-slip.csv', { commit: true, changeFactor: 3 });
+    expect(res.status).toBe(201);
+    expect(res.body.problems).toEqual([expect.objectContaining({ line: 2, column: 4, code: 'large_change', severity: 'warning' })]);
+    expect(res.body.problems[0].reason).toMatch(/more than a factor of 3/);
+    expect(res.body.upload.counts).toMatchObject({ change: 1, unchanged: 1, warnings: 1 });
+  });
+
+  it('lets officials read the upload history but not upload', async () => {
+    const list = await w.official.get('/api/uploads?limit=5');
+    expect(list.status).toBe(200);
+    expect(list.body.uploads).toHaveLength(5);
+    expect(list.body.nextBefore).toBe(list.body.uploads[4].id);
+    const denied = await upload(w.official, 'district_code,indicator,year,value\nD01,population,2025,1\n', 'x.csv');
+    expect(denied.status).toBe(403);
+    const seed = (await w.official.get('/api/uploads?limit=200')).body.uploads.find((u: { kind: string }) => u.kind === 'seed');
+    expect(seed).toMatchObject({ status: 'committed', version: 1, canRevert: false, counts: { insert: seeded.observations.length } });
+  });
+});
