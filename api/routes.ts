@@ -5,6 +5,7 @@ import { authRoutes } from './auth/router';
 import type { createPassport } from './auth/passport';
 import type { AppContext } from './context';
 import { districtRoutes } from './districts/router';
+import { curveRoutes } from './estimate/router';
 import { estimateRoutes } from './estimates/router';
 import { healthRoutes } from './health/router';
 import { indicatorRoutes } from './indicators/router';
@@ -32,6 +33,7 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     ...observationRoutes(ctx),
     ...uploadRoutes(ctx),
     ...estimateRoutes(ctx),
+    ...curveRoutes(ctx),
     ...settingsRoutes(ctx),
     ...specRoutes(ctx),
     ...runRoutes(ctx),
