@@ -61,18 +61,22 @@ export function fitPanel(rows: ReadonlyArray<PanelRow>, model: ModelSpecInput | 
   const dfResidual = n - k - feRank;
   if (dfResidual < 1) return notEstimable('too_few_rows', `${n} rows cannot carry ${k} slopes and ${feRank} fixed effects`, { n, k, fixedEffects: feRank });
   const x = data.x;
+  // the design is built once and within-transformed in place, column by column
+  const design = new Float64Array(n * k);
   const cols: Float64Array[] = [];
-  cols.push(Float64Array.from(x));
-  cols.push(x.map((v) => v * v));
-  if (m === 3) cols.push(x.map((v) => v * v * v));
-  for (const c of data.controls) cols.push(Float64Array.from(c));
-  const y = Float64Array.from(data.y);
+  for (let j = 0; j < k; j++) cols.push(design.subarray(j * n, (j + 1) * n));
+  for (let i = 0; i < n; i++) {
+    const v = x[i];
+    cols[0][i] = v;
+    cols[1][i] = v * v;
+    if (m === 3) cols[2][i] = v * v * v;
+  }
+  data.controls.forEach((c, j) => cols[m + j].set(c));
+  const y = data.y; // prepareRows' own array: transformed in place
   const absorption = twoWayWithin([y, ...cols], unit, period, G, T, 1e-12);
   if (!absorption.converged) {
     return notEstimable('not_converged', `Within transformation did not converge (largest relative change ${absorption.maxRelativeChange})`, { ...absorption });
   }
-  const design = new Float64Array(n * k);
-  cols.forEach((c, j) => design.set(c, j * n));
   let fit;
   try {
     fit = fitLeastSquares({ nRows: n, nCols: k, data: design }, y, {

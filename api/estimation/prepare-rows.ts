@@ -105,17 +105,22 @@ export function prepareRows(rows: unknown, spec: ModelSpec, panel: boolean, ws?:
       if (years[a] === years[b] && (!panel || districts[a] === districts[b])) duplicateError(panel, b, a, years[b], panel ? districts[b] : null);
     }
   }
-  const out = { y: take(ws, n), x: take(ws, n), xRaw: take(ws, n), yRaw: take(ws, n), years: take(ws, n) };
-  const controls: Float64Array[] = [];
-  for (let c = 0; c < nc; c++) controls.push(take(ws, n));
+  // already in order: keep the arrays as they are; else permute into new ones
+  const out = sorted
+    ? { y: take(ws, n), x: take(ws, n), xRaw, yRaw, years }
+    : { y: take(ws, n), x: take(ws, n), xRaw: take(ws, n), yRaw: take(ws, n), years: take(ws, n) };
+  const controls: Float64Array[] = sorted ? ctl : [];
+  if (!sorted) for (let c = 0; c < nc; c++) controls.push(take(ws, n));
   for (let j = 0; j < n; j++) {
     const i = order[j];
-    out.years[j] = years[i];
-    out.xRaw[j] = xRaw[i];
-    out.yRaw[j] = yRaw[i];
+    if (!sorted) {
+      out.years[j] = years[i];
+      out.xRaw[j] = xRaw[i];
+      out.yRaw[j] = yRaw[i];
+      for (let c = 0; c < nc; c++) controls[c][j] = ctl[c][i];
+    }
     out.x[j] = log ? Math.log(xRaw[i]) : xRaw[i];
     out.y[j] = log ? Math.log(yRaw[i]) : yRaw[i];
-    for (let c = 0; c < nc; c++) controls[c][j] = ctl[c][i];
   }
   return {
     n, ...out, controlNames, controls, sourceRow: order,
