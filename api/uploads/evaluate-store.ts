@@ -71,7 +71,7 @@ export async function evaluateStaged(conn: Sql, t: StagingNames, columns: Column
 
 async function settleDistricts(conn: Sql, t: StagingNames, columns: Columns, options: EvaluateOptions, problems: ProblemList) {
   const { rows } = await conn.query(
-    `SELECT sd.code, sd.first_line, sd.rows, sd.name, sd.name_line, d.id, d.name AS stored_name
+    `SELECT sd.code, sd.first_line, sd.rows, sd.name, sd.name_line, sd.name_refused, d.id, d.name AS stored_name
        FROM ${t.districts} sd LEFT JOIN districts d ON d.code = sd.code
       ORDER BY sd.first_line`,
   );
@@ -82,6 +82,9 @@ async function settleDistricts(conn: Sql, t: StagingNames, columns: Columns, opt
     if (r.id === null) {
       if (r.name !== null || options.allowNewDistricts) {
         create.push({ code: r.code, name: r.name ?? r.code, line: r.first_line });
+      } else if (r.name_refused) {
+        // Its name cell was refused already; that problem says what to fix.
+        refusedRows += r.rows;
       } else {
         refusedRows += r.rows;
         problems.add({

@@ -61,7 +61,7 @@ export class ProblemList {
     if (severity === 'error') this.errors++;
     else this.warnings++;
     if (this.items.length >= this.cap) return -1;
-    this.items.push({ ...p, field: p.field ?? null, severity });
+    this.items.push({ ...p, reason: printable(p.reason), field: p.field == null ? null : printable(p.field), severity });
     return this.items.length - 1;
   }
 
@@ -78,9 +78,15 @@ export class ProblemList {
 
   sorted(): Problem[] {
     return [...this.items].sort(
-      (a, b) => (a.line ?? 0) - (b.line ?? 0) || (a.column ?? 0) - (b.column ?? 0) || a.code.localeCompare(b.code),
+      // By line, then column; a problem of the whole line after those of its cells.
+      (a, b) => (a.line ?? 0) - (b.line ?? 0) || (a.column ?? Infinity) - (b.column ?? Infinity) || a.code.localeCompare(b.code),
     );
   }
+}
+
+/** Control characters from a file shown as \xNN: messages stay readable and JSON in PostgreSQL cannot hold NUL. */
+export function printable(s: string): string {
+  return s.replace(/[\u0000-\u001f\u007f]/g, (c) => `\\x${c.charCodeAt(0).toString(16).padStart(2, '0')}`);
 }
 
 /** "line 4, column 3 (year)" — the place a problem names, or '' when it has none. */
@@ -100,7 +106,7 @@ export function summarise(problems: Problem[], errors: number, warnings: number)
   const tail = [more > 0 ? `${more} more error${more === 1 ? '' : 's'}` : '', warnings ? `${warnings} warning${warnings === 1 ? '' : 's'}` : '']
     .filter(Boolean)
     .join(' and ');
-  return `${place ? `${capitalise(place)}: ` : ''}${first.reason}${tail ? ` (and ${tail})` : ''}.`;
+  return `${place ? `${capitalise(place)}: ${first.reason}` : capitalise(first.reason)}${tail ? ` (and ${tail})` : ''}.`;
 }
 
 function capitalise(s: string): string {

@@ -33,7 +33,8 @@ export async function createStaging(conn: Sql, name: string): Promise<StagingNam
     line integer NOT NULL, col integer NOT NULL, district text NOT NULL,
     indicator_id integer NOT NULL, year integer NOT NULL, value double precision NOT NULL)`);
   await conn.query(`CREATE UNLOGGED TABLE ${t.districts} (
-    code text PRIMARY KEY, first_line integer NOT NULL, rows integer NOT NULL, name text, name_line integer)`);
+    code text PRIMARY KEY, first_line integer NOT NULL, rows integer NOT NULL, name text, name_line integer,
+    name_refused boolean NOT NULL)`);
   return t;
 }
 
@@ -45,14 +46,15 @@ export function copyRowsStream(conn: PoolClient, t: StagingNames): Writable {
 export async function saveDistrictsSeen(conn: Sql, t: StagingNames, districts: DistrictSeen[]): Promise<void> {
   if (districts.length === 0) return;
   await conn.query(
-    `INSERT INTO ${t.districts} (code, first_line, rows, name, name_line)
-     SELECT * FROM unnest($1::text[], $2::int[], $3::int[], $4::text[], $5::int[])`,
+    `INSERT INTO ${t.districts} (code, first_line, rows, name, name_line, name_refused)
+     SELECT * FROM unnest($1::text[], $2::int[], $3::int[], $4::text[], $5::int[], $6::boolean[])`,
     [
       districts.map((d) => d.code),
       districts.map((d) => d.firstLine),
       districts.map((d) => d.rows),
       districts.map((d) => d.name),
       districts.map((d) => d.nameLine),
+      districts.map((d) => d.nameRefused),
     ],
   );
 }

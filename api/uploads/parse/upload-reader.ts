@@ -37,6 +37,8 @@ export interface DistrictSeen {
   /** The first non-empty name given for it, with its line. */
   name: string | null;
   nameLine: number | null;
+  /** A name cell for it was refused (so "unknown district" would say nothing new). */
+  nameRefused: boolean;
 }
 
 export interface ReadSummary {
@@ -262,6 +264,7 @@ export class UploadReader implements RecordSink {
         rows: 0,
         name: null,
         nameLine: null,
+        nameRefused: false,
         index: this.districts.size,
         bytes: Buffer.from(code.value, 'latin1'),
         keys: this.keys.newDistrict(),
@@ -283,6 +286,7 @@ export class UploadReader implements RecordSink {
     const name = checkDistrictName(raw);
     if (!name.ok) {
       this.cellProblem(line, L.name!, name);
+      seen.nameRefused = true;
       this.lastDistrict = null;
     } else if (seen.name === null) {
       seen.name = name.value;

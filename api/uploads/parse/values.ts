@@ -78,6 +78,8 @@ export function checkDistrictName(raw: string): Checked<string> {
   return { ok: true, value: raw };
 }
 
+/** A cell's text for a message: shortened, control characters shown as \xNN (JSON in PostgreSQL cannot hold NUL). */
 export function clip(s: string, max = 40): string {
-  return s.length > max ? `${s.slice(0, max)}…` : s;
+  const short = s.length > max ? `${s.slice(0, max)}…` : s;
+  return short.replace(/[\u0000-\u001f\u007f]/g, (c) => `\\x${c.charCodeAt(0).toString(16).padStart(2, '0')}`);
 }
