@@ -12,6 +12,8 @@ import { closeServer, DEMO, listen, signInAs, type SignedIn } from '../support/a
 import { testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
 
+jest.setTimeout(60_000);
+
 type Persona = 'anonymous' | Role | 'deactivated';
 const PERSONAS: Persona[] = ['anonymous', 'official', 'analyst', 'admin', 'deactivated'];
 
