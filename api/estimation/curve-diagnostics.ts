@@ -1,12 +1,14 @@
 import { breuschGodfrey } from './breusch-godfrey';
 import { breuschPagan } from './breusch-pagan';
 import { durbinWatson } from './durbin-watson';
+import { durbinWatsonExactP } from './durbin-watson-exact';
 import { jarqueBera } from './jarque-bera';
 import type { CurveDiagnostics } from './types';
 import type { Workspace } from './workspace';
 
 /**
- * The residual diagnostics of a district fit, rows in year order: Durbin–Watson,
+ * The residual diagnostics of a district fit, rows in year order: Durbin–Watson (normal
+ * approximation; the exact Imhof p-value too when `exactDurbinWatson`),
  * Breusch–Godfrey of orders 1 and 2, studentized Breusch–Pagan, Jarque–Bera, the largest
  * leverage and the residuals by year.
  *
@@ -23,14 +25,15 @@ import type { Workspace } from './workspace';
  */
 export function curveDiagnostics(
   e: ArrayLike<number>, q1: Float64Array, leverage: ArrayLike<number>, years: ArrayLike<number>, n: number, k: number,
-  ws?: Workspace,
+  ws?: Workspace, exactDurbinWatson = false,
 ): CurveDiagnostics {
   let best = 0;
   for (let i = 1; i < n; i++) if (leverage[i] > leverage[best]) best = i;
+  const dw = durbinWatson(e, q1, n, k, ws);
   const residualsByYear = new Array<{ year: number; residual: number }>(n);
   for (let i = 0; i < n; i++) residualsByYear[i] = { year: years[i], residual: e[i] };
   return {
-    durbinWatson: durbinWatson(e, q1, n, k, ws),
+    durbinWatson: { ...dw, pValueExact: exactDurbinWatson ? durbinWatsonExactP(dw.statistic, q1, n, k) : null },
     breuschGodfrey: breuschGodfrey(e, q1, n, k, 2, ws),
     breuschPagan: breuschPagan(e, q1, n, k, ws),
     jarqueBera: jarqueBera(e),

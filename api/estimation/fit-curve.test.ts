@@ -162,3 +162,17 @@ describe('fitCurve', () => {
     expect(ok(fitCurve(district(20), M, { diagnostics: false })).diagnostics).toBeNull();
   });
 });
+
+describe('exact Durbin–Watson p-value on request', () => {
+  test('null by default, a probability when asked; agrees with the approximation to a few hundredths', () => {
+    const rows = Array.from({ length: 30 }, (_, t) => ({ year: 2000 + t, y: Math.exp(1 + 0.1 * t + 0.05 * Math.sin(t * 1.3) + 0.03 * Math.cos(t * 0.4)), x: Math.exp(9 + 0.05 * t + 0.01 * Math.sin(2 * t)) }));
+    const spec = { form: 'quadratic', transform: 'log', covariance: 'hc1' } as const;
+    const a = fitCurve(rows, spec) as CurveFit;
+    expect(a.diagnostics!.durbinWatson.pValueExact).toBeNull();
+    const b = fitCurve(rows, spec, { exactDurbinWatson: true }) as CurveFit;
+    const p = b.diagnostics!.durbinWatson.pValueExact!;
+    expect(p).toBeGreaterThanOrEqual(0);
+    expect(p).toBeLessThanOrEqual(1);
+    expect(Math.abs(p - b.diagnostics!.durbinWatson.pValue!)).toBeLessThan(0.05);
+  });
+});

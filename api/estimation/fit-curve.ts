@@ -129,7 +129,7 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
     extrapolated: tp ? tp.extrapolated : false,
   });
   const diagnostics = options.diagnostics === false ? null
-    : curveDiagnostics(core.residuals, core.q1, result.leverage, data.years, n, k, ws);
+    : curveDiagnostics(core.residuals, core.q1, result.leverage, data.years, n, k, ws, options.exactDurbinWatson === true);
   return {
     status: 'ok',
     model: spec,

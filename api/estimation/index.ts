@@ -56,6 +56,8 @@ export { projectCrossing } from './projection';
 
 // diagnostics
 export { durbinWatson } from './durbin-watson';
+export { durbinWatsonExactP } from './durbin-watson-exact';
+export { symmetricEigenvalues } from './symmetric-eigenvalues';
 export { breuschGodfrey } from './breusch-godfrey';
 export { breuschPagan } from './breusch-pagan';
 export { jarqueBera } from './jarque-bera';
