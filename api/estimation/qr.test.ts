@@ -1,4 +1,4 @@
-import { applyQt, pivotedQr, thinQ, upperTriangularInverse } from './index';
+import { applyQt, pivotedQr, symmetricEigenvalues, thinQ, upperTriangularInverse } from './index';
 
 // Expected values here follow from the definitions (A·P = Q·R with Q orthonormal), checked
 // to explicit absolute bounds; no external reference is needed.
@@ -62,5 +62,26 @@ describe('pivotedQr', () => {
 describe('upperTriangularInverse', () => {
   test('inverts [[2, 1], [0, 4]] exactly (arithmetic)', () => {
     expect(Array.from(upperTriangularInverse(Float64Array.from([2, 0, 1, 4]), 2, 2))).toEqual([0.5, 0, -0.125, 0.25]);
+  });
+});
+
+describe('symmetricEigenvalues', () => {
+  test('known spectra (arithmetic): [[2,1],[1,2]] → 1, 3; the DW matrix of order 3 → 0, 1, 3', () => {
+    const two = symmetricEigenvalues(Float64Array.from([2, 1, 1, 2]), 2);
+    expect(two[0]).toBeCloseTo(1, 14);
+    expect(two[1]).toBeCloseTo(3, 14);
+    // A = [[1,−1,0],[−1,2,−1],[0,−1,1]]: eigenvalues 0, 1, 3
+    const dw = symmetricEigenvalues(Float64Array.from([1, -1, 0, -1, 2, -1, 0, -1, 1]), 3);
+    [0, 1, 3].forEach((v, i) => expect(Math.abs(dw[i] - v)).toBeLessThan(1e-14));
+  });
+  test('the trace and the sum of squares are preserved for a 20 × 20 matrix (invariants)', () => {
+    const n = 20;
+    const a = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) for (let j = 0; j <= i; j++) { const v = Math.sin(i * 7 + j * 3); a[j * n + i] = v; a[i * n + j] = v; }
+    const ev = symmetricEigenvalues(a, n);
+    let tr = 0, fro = 0;
+    for (let i = 0; i < n; i++) { tr += a[i * n + i]; for (let j = 0; j < n; j++) fro += a[j * n + i] ** 2; }
+    expect(ev.reduce((s, v) => s + v, 0)).toBeCloseTo(tr, 12);
+    expect(ev.reduce((s, v) => s + v * v, 0)).toBeCloseTo(fro, 11);
   });
 });
