@@ -8,11 +8,9 @@
  * value (von Neumann's alternating projections converge to the projection onto the
  * orthogonal complement of span(unit dummies) + span(period dummies)). For a balanced
  * panel the first sweep is exact, z − z̄_i − z̄_t + z̄, and the second confirms it.
- * Reference: Guimarães, P. and Portugal, P. (2010), "A simple feasible procedure to fit
- * models with high-dimensional fixed effects", Stata Journal 10(4), 628–649 (the
- * alternating-projection idea for several sets of fixed effects); Gaure, S. (2013), "OLS
- * with multiple high dimensional category variables", Computational Statistics & Data
- * Analysis 66, 8–18.
+ * Reference: Gaure, S. (2013), "OLS with multiple high dimensional category variables",
+ * Computational Statistics & Data Analysis 66, 8–18 (alternating projections for several
+ * sets of fixed effects, after von Neumann's alternating-projection theorem).
  *
  * Throws: nothing; `converged` is false when maxIterations sweeps did not reach tol.
  *
