@@ -24,7 +24,7 @@ function arg(name: string, fallback: number): number {
 }
 const G = arg('districts', 3000);
 const T = arg('years', 40);
-const REPEAT = arg('repeat', 3);
+const REPEAT = arg('repeat', 5);
 
 /** mulberry32: small seeded uniform generator. */
 function rng(seed: number): () => number {
