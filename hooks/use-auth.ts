@@ -1,7 +1,8 @@
-// The auth resource: GET /api/auth/options (how to sign in) and GET /api/me (who is signed in).
-import { useQuery } from '@tanstack/react-query';
+// The auth resource: GET /api/auth/options (how to sign in), GET /api/me (who is signed in,
+// and the CSRF token every state-changing call carries), POST /api/auth/sign-out.
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import { apiGet } from '@/lib/api-client';
+import { apiGet, apiSend, rememberCsrfToken } from '@/lib/api-client';
 import type { AuthOptionsResponse, MeResponse } from '@/lib/api-types';
 import { STALE_TIMES } from '@/lib/stale-times';
 
@@ -25,12 +26,35 @@ export function useAuthOptionsQuery() {
   });
 }
 
+export async function fetchMe(signal?: AbortSignal): Promise<MeResponse> {
+  const me = await apiGet<MeResponse>('/api/me', {
+    signal,
+    accept: (b) => typeof (b as MeResponse | null)?.email === 'string',
+  });
+  rememberCsrfToken(typeof me.csrfToken === 'string' ? me.csrfToken : null);
+  return me;
+}
+
 /** The signed-in person; fails with ApiError 401 `unauthenticated` when nobody is. */
 export function useMeQuery() {
   return useQuery({
     queryKey: authKeys.me(),
-    queryFn: ({ signal }) =>
-      apiGet<MeResponse>('/api/me', { signal, accept: (b) => typeof (b as MeResponse | null)?.email === 'string' }),
+    queryFn: ({ signal }) => fetchMe(signal),
     staleTime: STALE_TIMES.me,
+  });
+}
+
+/**
+ * Ends the session. Everything cached belonged to the person who just left, so the whole
+ * cache goes; the caller then sends the browser to the sign-in page.
+ */
+export function useSignOutMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: () => apiSend('POST', '/api/auth/sign-out'),
+    onSuccess: () => {
+      rememberCsrfToken(null);
+      client.clear();
+    },
   });
 }

@@ -56,35 +56,103 @@ export type ApiGetOptions = {
   accept?: (body: unknown) => boolean;
 };
 
-/** GET a JSON resource. Resolves with the body, or rejects with an ApiError. */
-export async function apiGet<T>(path: string, options: ApiGetOptions = {}): Promise<T> {
-  let response: Response;
+/** Sends the request; a fetch that throws (offline, refused) becomes ApiError `network_error`. */
+async function send(path: string, init: RequestInit, signal?: AbortSignal): Promise<Response> {
   try {
-    response = await fetch(`${BASE_URL}${path}`, {
-      method: 'GET',
-      headers: { Accept: 'application/json' },
-      credentials: 'same-origin',
-      signal: options.signal,
-    });
+    return await fetch(`${BASE_URL}${path}`, { ...init, credentials: 'same-origin', signal });
   } catch (cause) {
-    if (options.signal?.aborted) throw cause;
+    if (signal?.aborted) throw cause;
     throw new ApiError(0, 'network_error', 'The Crestwatch server could not be reached.', {
       cause: cause instanceof Error ? cause.message : String(cause),
     });
   }
+}
 
-  const body = await readJson(response);
-  if (!response.ok) {
-    if (isErrorBody(body)) {
-      throw new ApiError(response.status, body.error.code, body.error.message, body.error.details);
-    }
-    throw new ApiError(
-      response.status,
-      'http_error',
-      `The server answered ${response.status}${response.statusText ? ` ${response.statusText}` : ''}.`,
-    );
+/** A non-2xx answer as an ApiError: the server's error shape when it sent one. */
+function failure(response: Response, body: unknown): ApiError {
+  if (isErrorBody(body)) {
+    return new ApiError(response.status, body.error.code, body.error.message, body.error.details);
   }
+  return new ApiError(
+    response.status,
+    'http_error',
+    `The server answered ${response.status}${response.statusText ? ` ${response.statusText}` : ''}.`,
+  );
+}
+
+/** GET a JSON resource. Resolves with the body, or rejects with an ApiError. */
+export async function apiGet<T>(path: string, options: ApiGetOptions = {}): Promise<T> {
+  const response = await send(path, { method: 'GET', headers: { Accept: 'application/json' } }, options.signal);
+  const body = await readJson(response);
+  if (!response.ok) throw failure(response, body);
   if (body === undefined || (options.accept && !options.accept(body))) {
+    throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
+  }
+  return body as T;
+}
+
+// ---- State-changing calls --------------------------------------------------------------
+// The server wants its session's CSRF token in this header on every POST, PUT, PATCH and
+// DELETE (api/http/routes.ts). GET /api/me hands the token out; the auth hook passes it on
+// here with `rememberCsrfToken`, and a send made before that fetches it once itself.
+
+export const CSRF_HEADER = 'x-csrf-token';
+
+let csrfToken: string | null = null;
+let csrfLookup: Promise<string | null> | null = null;
+
+/** Keeps the token GET /api/me answered with (null after sign-out). */
+export function rememberCsrfToken(token: string | null): void {
+  csrfToken = token;
+}
+
+async function currentCsrfToken(refresh = false): Promise<string | null> {
+  if (csrfToken && !refresh) return csrfToken;
+  csrfLookup ??= apiGet<{ csrfToken?: unknown }>('/api/me')
+    .then((me) => (typeof me.csrfToken === 'string' ? me.csrfToken : null))
+    .catch(() => null)
+    .finally(() => {
+      csrfLookup = null;
+    });
+  csrfToken = await csrfLookup;
+  return csrfToken;
+}
+
+export type ApiSendMethod = 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+
+export type ApiSendOptions = ApiGetOptions & {
+  /** A JSON body (sent as application/json). */
+  json?: unknown;
+  /** A multipart body (the browser sets its boundary). */
+  form?: FormData;
+};
+
+/**
+ * A state-changing call with the CSRF header. Resolves with the decoded body (undefined
+ * for 204 No Content), or rejects with an ApiError. A refusal for an outdated token
+ * (`csrf_failed`, e.g. the session was renewed in another tab) fetches a fresh token and
+ * tries once more.
+ */
+export async function apiSend<T = void>(method: ApiSendMethod, path: string, options: ApiSendOptions = {}): Promise<T> {
+  const attempt = async (token: string | null) => {
+    const headers: Record<string, string> = { Accept: 'application/json' };
+    if (token) headers[CSRF_HEADER] = token;
+    let body: BodyInit | undefined;
+    if (options.form) body = options.form;
+    else if (options.json !== undefined) {
+      headers['Content-Type'] = 'application/json';
+      body = JSON.stringify(options.json);
+    }
+    return send(path, { method, headers, body }, options.signal);
+  };
+  let response = await attempt(await currentCsrfToken());
+  let body = await readJson(response);
+  if (response.status === 403 && isErrorBody(body) && body.error.code === 'csrf_failed') {
+    response = await attempt(await currentCsrfToken(true));
+    body = await readJson(response);
+  }
+  if (!response.ok) throw failure(response, body);
+  if (options.accept && (body === undefined || !options.accept(body))) {
     throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
   }
   return body as T;

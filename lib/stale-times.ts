@@ -15,6 +15,30 @@ export const STALE_TIMES = {
   authOptions: Infinity,
   /** Signing in or out reloads the page, so the session only needs an occasional recheck. */
   me: 5 * MINUTE,
+  /** Upload history: another analyst may load a file meanwhile; half a minute is recent enough. */
+  uploads: 30 * SECOND,
+  /** A kept preview does not change once made (only committing it does, which refetches). */
+  uploadDetail: 5 * MINUTE,
+  /** Run list: scheduled runs appear without anyone here pressing a button. */
+  runs: 15 * SECOND,
+  /** A queued or running run is polled instead (RUN_POLL_MS); once in review it only changes by our own actions. */
+  runDetail: 30 * SECOND,
+  /** Estimates of a run are fixed once it reaches review; notes refetch after saving. */
+  runReview: 5 * MINUTE,
+  /** Specs change by hand, rarely. */
+  specs: 2 * MINUTE,
+  /** The catalogue changes only when someone adds or edits an indicator. */
+  indicators: 5 * MINUTE,
+  /** Settings change by hand, rarely; the next scheduled start is computed on each load. */
+  settings: 1 * MINUTE,
+  /** Admin lists: short, so a second admin's change shows on the next visit. */
+  people: 30 * SECOND,
+  audit: 15 * SECOND,
+  /** Demo mail catcher: an invitation arrives a moment after it is sent. */
+  mailbox: 5 * SECOND,
 } as const;
+
+/** How often a queued or running run is asked for its progress (ms). */
+export const RUN_POLL_MS = 1500;
 
 export type StaleTimeName = keyof typeof STALE_TIMES;

@@ -1,0 +1,37 @@
+// The settings resource: GET /api/settings (staff) with the schedule and its next start,
+// PATCH /api/settings (admin, audited).
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+
+import { apiGet, apiSend } from '@/lib/api-client';
+import { STALE_TIMES } from '@/lib/stale-times';
+import type { Settings, SettingsResponse } from '@/lib/types/settings';
+
+import { auditKeysRoot } from './use-audit';
+
+export const settingsKeysRoot = ['settings'] as const;
+
+export const settingsKeys = {
+  all: settingsKeysRoot,
+  current: () => [...settingsKeysRoot, 'current'] as const,
+};
+
+const isSettings = (b: unknown) => typeof b === 'object' && b !== null && 'settings' in b && 'schedule' in b;
+
+export function useSettingsQuery(enabled = true) {
+  return useQuery({
+    queryKey: settingsKeys.current(),
+    queryFn: ({ signal }) => apiGet<SettingsResponse>('/api/settings', { signal, accept: isSettings }),
+    staleTime: STALE_TIMES.settings,
+    enabled,
+  });
+}
+
+export function useSettingsMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (patch: Partial<Settings>) =>
+      apiSend<SettingsResponse>('PATCH', '/api/settings', { json: patch, accept: isSettings }),
+    onSuccess: (data) => client.setQueryData(settingsKeys.current(), data),
+    onSettled: () => client.invalidateQueries({ queryKey: auditKeysRoot }),
+  });
+}

@@ -1,0 +1,46 @@
+// Saved model specs: GET/POST /api/specs, PUT/DELETE /api/specs/:id (delete archives).
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+
+import { apiGet, apiSend } from '@/lib/api-client';
+import { STALE_TIMES } from '@/lib/stale-times';
+import type { SavedSpec, SpecInput, SpecsResponse } from '@/lib/types/settings';
+
+export const specKeysRoot = ['specs'] as const;
+
+export const specKeys = {
+  all: specKeysRoot,
+  list: () => [...specKeysRoot, 'list'] as const,
+};
+
+export function useSpecsQuery(enabled = true) {
+  return useQuery({
+    queryKey: specKeys.list(),
+    queryFn: ({ signal }) =>
+      apiGet<SpecsResponse>('/api/specs', { signal, accept: (b) => Array.isArray((b as SpecsResponse).specs) }),
+    staleTime: STALE_TIMES.specs,
+    enabled,
+  });
+}
+
+const isSpecAnswer = (b: unknown) => typeof b === 'object' && b !== null && 'spec' in b;
+
+/** Saves a new spec (id null) or replaces a saved one. */
+export function useSaveSpecMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, input }: { id: number | null; input: SpecInput }) =>
+      id === null
+        ? apiSend<{ spec: SavedSpec }>('POST', '/api/specs', { json: input, accept: isSpecAnswer })
+        : apiSend<{ spec: SavedSpec }>('PUT', `/api/specs/${id}`, { json: input, accept: isSpecAnswer }),
+    onSettled: () => client.invalidateQueries({ queryKey: specKeysRoot }),
+  });
+}
+
+/** Archives a spec: runs keep their own copy, new runs cannot use it. */
+export function useArchiveSpecMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => apiSend('DELETE', `/api/specs/${id}`),
+    onSettled: () => client.invalidateQueries({ queryKey: specKeysRoot }),
+  });
+}

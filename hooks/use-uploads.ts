@@ -1,0 +1,100 @@
+// The uploads resource: GET /api/uploads[/:id], POST /api/uploads (dry run with preview),
+// POST /api/uploads/:id/commit and /revert. Committing or reverting changes district series,
+// so both refresh every districts key as well.
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+
+import { apiGet, apiSend } from '@/lib/api-client';
+import type { PickedFile } from '@/lib/pick-file.types';
+import { STALE_TIMES } from '@/lib/stale-times';
+import type {
+  RevertAnswer,
+  UploadAnswer,
+  UploadDetailResponse,
+  UploadListResponse,
+  UploadOptions,
+} from '@/lib/types/uploads';
+
+import { districtKeysRoot } from './use-districts';
+
+export const uploadKeysRoot = ['uploads'] as const;
+
+export const uploadKeys = {
+  all: uploadKeysRoot,
+  list: () => [...uploadKeysRoot, 'list'] as const,
+  detail: (id: number) => [...uploadKeysRoot, 'detail', id] as const,
+};
+
+const isAnswer = (b: unknown) => typeof b === 'object' && b !== null && 'upload' in b;
+
+export function useUploadsQuery() {
+  return useQuery({
+    queryKey: uploadKeys.list(),
+    queryFn: ({ signal }) =>
+      apiGet<UploadListResponse>('/api/uploads?limit=50', {
+        signal,
+        accept: (b) => Array.isArray((b as UploadListResponse).uploads),
+      }),
+    staleTime: STALE_TIMES.uploads,
+  });
+}
+
+export function useUploadQuery(id: number | null) {
+  return useQuery({
+    queryKey: uploadKeys.detail(id ?? 0),
+    queryFn: ({ signal }) => apiGet<UploadDetailResponse>(`/api/uploads/${id}`, { signal, accept: isAnswer }),
+    staleTime: STALE_TIMES.uploadDetail,
+    enabled: id !== null && id > 0,
+  });
+}
+
+export function uploadQueryString(options: UploadOptions): string {
+  const q = new URLSearchParams();
+  if (options.allowNewDistricts) q.set('allowNewDistricts', 'true');
+  if (options.decimalComma) q.set('decimalComma', 'true');
+  if (options.changeFactor !== undefined) q.set('changeFactor', String(options.changeFactor));
+  const s = q.toString();
+  return s ? `?${s}` : '';
+}
+
+/** Dry run: the server reads and checks the file and answers with its preview; nothing is written. */
+export function useUploadPreviewMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: ({ file, options }: { file: PickedFile; options: UploadOptions }) => {
+      const form = new FormData();
+      file.appendTo(form, 'file');
+      return apiSend<UploadAnswer>('POST', `/api/uploads${uploadQueryString(options)}`, { form, accept: isAnswer });
+    },
+    onSettled: () => client.invalidateQueries({ queryKey: uploadKeys.list() }),
+  });
+}
+
+function useAfterDataChange() {
+  const client = useQueryClient();
+  return () =>
+    Promise.all([
+      client.invalidateQueries({ queryKey: uploadKeysRoot }),
+      client.invalidateQueries({ queryKey: districtKeysRoot }),
+    ]);
+}
+
+/** Commits a kept preview (checked again against the data as it is now). */
+export function useCommitUploadMutation() {
+  const refresh = useAfterDataChange();
+  return useMutation({
+    mutationFn: (id: number) => apiSend<UploadAnswer>('POST', `/api/uploads/${id}/commit`, { accept: isAnswer }),
+    onSettled: refresh,
+  });
+}
+
+/** Puts back every value an upload wrote (refused when a later upload changed them since). */
+export function useRevertUploadMutation() {
+  const refresh = useAfterDataChange();
+  return useMutation({
+    mutationFn: (id: number) =>
+      apiSend<RevertAnswer>('POST', `/api/uploads/${id}/revert`, {
+        accept: (b) => typeof b === 'object' && b !== null && 'revert' in b,
+      }),
+    onSettled: refresh,
+  });
+}

@@ -1,0 +1,11 @@
+/** A file the person chose, ready to go into a multipart body. */
+export type PickedFile = {
+  name: string;
+  /** Bytes, when the platform reports it. */
+  size: number | null;
+  /** Adds the file to a form under the given field name. */
+  appendTo(form: FormData, field: string): void;
+};
+
+/** What the picker offers: CSV and plain text (some systems label CSV exports text/plain). */
+export const CSV_TYPES = ['text/csv', 'text/plain', 'application/vnd.ms-excel', '.csv'];
