@@ -15,6 +15,13 @@ export const STALE_TIMES = {
   authOptions: Infinity,
   /** Signing in or out reloads the page, so the session only needs an occasional recheck. */
   me: 5 * MINUTE,
+  /** Published estimates change only when an analyst publishes a run (a few times a quarter). */
+  region: 5 * MINUTE,
+  estimate: 5 * MINUTE,
+  /** New alerts arrive with a publish; a minute keeps the feed column close without polling hard. */
+  alertFeed: 1 * MINUTE,
+  /** Changed only by the caller's own toggles, which refetch. */
+  subscriptions: 5 * MINUTE,
   /** Upload history: another analyst may load a file meanwhile; half a minute is recent enough. */
   uploads: 30 * SECOND,
   /** A kept preview does not change once made (only committing it does, which refetches). */

@@ -1,0 +1,54 @@
+// The alerts resource: the caller's feed (GET /api/alerts, POST /api/alerts/:id/read) and
+// one district's published alerts (GET /api/districts/:code/alerts).
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+
+import { apiGet, apiSend } from '@/lib/api-client';
+import type { AlertFeedResponse, DistrictAlertsResponse } from '@/lib/estimate-types';
+import { STALE_TIMES } from '@/lib/stale-times';
+
+export const alertKeysRoot = ['alerts'] as const;
+
+export const alertKeys = {
+  all: alertKeysRoot,
+  feed: () => [...alertKeysRoot, 'feed'] as const,
+  district: (code: string) => [...alertKeysRoot, 'district', code] as const,
+};
+
+const hasAlerts = (body: unknown) => typeof body === 'object' && body !== null && Array.isArray((body as DistrictAlertsResponse).alerts);
+
+/** What the caller's subscriptions cover, newest first, unread marked. */
+export function useAlertFeedQuery(enabled = true) {
+  return useQuery({
+    queryKey: alertKeys.feed(),
+    queryFn: ({ signal }) => apiGet<AlertFeedResponse>('/api/alerts?limit=50', { signal, accept: hasAlerts }),
+    staleTime: STALE_TIMES.alertFeed,
+    enabled,
+  });
+}
+
+/** Every alert published for one district. */
+export function useDistrictAlertsQuery(code: string, enabled = true) {
+  return useQuery({
+    queryKey: alertKeys.district(code),
+    queryFn: ({ signal }) =>
+      apiGet<DistrictAlertsResponse>(`/api/districts/${encodeURIComponent(code)}/alerts?limit=20`, { signal, accept: hasAlerts }),
+    staleTime: STALE_TIMES.estimate,
+    enabled: enabled && code !== '',
+  });
+}
+
+/** Marks one alert of the feed read; the feed shows it at once and refetches after. */
+export function useMarkAlertReadMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => apiSend('POST', `/api/alerts/${id}/read`),
+    onMutate: (id) => {
+      client.setQueryData<AlertFeedResponse>(alertKeys.feed(), (old) =>
+        old
+          ? { alerts: old.alerts.map((a) => (a.id === id ? { ...a, read: true } : a)), unread: Math.max(0, old.unread - (old.alerts.some((a) => a.id === id && !a.read) ? 1 : 0)) }
+          : old,
+      );
+    },
+    onSettled: () => client.invalidateQueries({ queryKey: alertKeys.feed() }),
+  });
+}

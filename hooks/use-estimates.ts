@@ -1,0 +1,52 @@
+// The published-estimate resource of one district: GET /api/districts/:code/estimate and
+// /history (the card, its sensitivity strip and its history section).
+import { useQuery } from '@tanstack/react-query';
+
+import { apiGet } from '@/lib/api-client';
+import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/lib/estimate-types';
+import { STALE_TIMES } from '@/lib/stale-times';
+
+/** Publishing a run changes every estimate: one invalidation of this root refreshes them. */
+export const estimateKeysRoot = ['estimates'] as const;
+
+export const estimateKeys = {
+  all: estimateKeysRoot,
+  district: (code: string) => [...estimateKeysRoot, 'district', code] as const,
+  history: (code: string) => [...estimateKeysRoot, 'history', code] as const,
+};
+
+const path = (code: string, tail: string) => `/api/districts/${encodeURIComponent(code)}/${tail}`;
+
+function isEstimateResponse(body: unknown): boolean {
+  if (typeof body !== 'object' || body === null) return false;
+  const b = body as DistrictEstimateResponse;
+  return typeof b.district === 'object' && b.district !== null && 'main' in b && Array.isArray(b.variants);
+}
+
+function isHistoryResponse(body: unknown): boolean {
+  return typeof body === 'object' && body !== null && Array.isArray((body as DistrictHistoryResponse).history);
+}
+
+export function fetchDistrictEstimate(code: string, signal?: AbortSignal): Promise<DistrictEstimateResponse> {
+  return apiGet<DistrictEstimateResponse>(path(code, 'estimate'), { signal, accept: isEstimateResponse });
+}
+
+/** The district's estimate in the latest published run, with its sensitivity variants. */
+export function useDistrictEstimateQuery(code: string) {
+  return useQuery({
+    queryKey: estimateKeys.district(code),
+    queryFn: ({ signal }) => fetchDistrictEstimate(code, signal),
+    staleTime: STALE_TIMES.estimate,
+    enabled: code !== '',
+  });
+}
+
+/** The district's estimates across published runs, newest first. */
+export function useDistrictHistoryQuery(code: string, enabled = true) {
+  return useQuery({
+    queryKey: estimateKeys.history(code),
+    queryFn: ({ signal }) => apiGet<DistrictHistoryResponse>(path(code, 'history'), { signal, accept: isHistoryResponse }),
+    staleTime: STALE_TIMES.estimate,
+    enabled: enabled && code !== '',
+  });
+}
