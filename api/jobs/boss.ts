@@ -33,6 +33,8 @@ export interface Jobs {
   insert(queue: QueueName, items: object[], options?: Omit<PgBoss.JobInsert, 'name' | 'data'>): Promise<void>;
   /** Start workers for the given handlers in this process. */
   work(handlers: Partial<Record<QueueName, Handler>>): Promise<void>;
+  /** Wake this process's workers of a queue now instead of at their next poll. */
+  notify(queue: QueueName): void;
   schedule(cron: string, tz: string, enabled: boolean): Promise<void>;
   stop(): Promise<void>;
 }
@@ -61,7 +63,7 @@ export async function startJobs(o: JobsOptions): Promise<Jobs> {
     const existing = await boss.getQueue(name);
     if (!existing) await boss.createQueue(name, { name, policy: 'standard', expireInSeconds: o.expireInSeconds, ...RETRIES[name] });
   }
-  const workerIds: string[] = [];
+  const workerIds = new Map<QueueName, string[]>();
   return {
     boss,
     send: (queue, data, options) => boss.send(queue, data, { expireInSeconds: o.expireInSeconds, ...RETRIES[queue], ...options }),
@@ -76,8 +78,11 @@ export async function startJobs(o: JobsOptions): Promise<Jobs> {
             for (const job of jobs) await handler(job.data, { retryCount: job.retryCount, retryLimit: job.retryLimit, id: job.id });
           },
         );
-        workerIds.push(id);
+        workerIds.set(queue, [...(workerIds.get(queue) ?? []), id]);
       }
+    },
+    notify(queue) {
+      for (const id of workerIds.get(queue) ?? []) boss.notifyWorker(id);
     },
     async schedule(cron, tz, enabled) {
       if (enabled) await boss.schedule(QUEUES.scheduledRun, cron, {}, { tz });

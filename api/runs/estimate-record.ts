@@ -160,12 +160,14 @@ export function recordFromFit(
   controls: string[],
   withDiagnostics: boolean,
 ): EstimateRecord {
+  // Only the main estimate carries what the charts draw; variants feed the sensitivity strip.
+  const main = variant === 'main';
   const base = {
     variant,
     model: modelOf(fit, controls),
     droppedYears: data.droppedYears,
-    points: points(data),
-    pooledCurve: variant === 'main' ? pooledCurveFor(pooled, data) : [],
+    points: main ? points(data) : [],
+    pooledCurve: main ? pooledCurveFor(pooled, data) : [],
   };
   if (fit.status !== 'ok') {
     return {
@@ -247,6 +249,6 @@ export function recordFromFit(
       note: fit.projection.note,
     },
     diagnostics: withDiagnostics ? fit.diagnostics : null,
-    curve: districtCurve(fit, data),
+    curve: main ? districtCurve(fit, data) : [],
   };
 }

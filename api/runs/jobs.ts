@@ -40,6 +40,7 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
   const { db } = ctx;
   const run = await store.findRun(db, runId);
   if (!run || (run.state !== 'queued' && run.state !== 'running')) return;
+  const pickedAt = Date.now();
   try {
     const t0 = performance.now();
     const version = run.dataVersion ?? (await currentDataVersion(db));
@@ -67,7 +68,7 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
         districts_total: series.length,
         pooled: JSON.stringify(pooled),
         attempts: trx.raw('attempts + 1'),
-        timings: JSON.stringify({ readMs: t1 - t0, pooledMs: t2 - t1 }),
+        timings: JSON.stringify({ pickedAt, readMs: t1 - t0, pooledMs: t2 - t1 }),
       });
     });
     if (chunks.length === 0) {
@@ -78,6 +79,7 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
       QUEUES.runChunk,
       chunks.map((districtIds, chunk) => ({ runId, chunk, districtIds })),
     );
+    ctx.jobs!.notify(QUEUES.runChunk);
   } catch (err) {
     if (isLastAttempt) await failRun(ctx, runId, `The run could not start: ${(err as Error).message}`);
     throw err;

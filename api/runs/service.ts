@@ -76,6 +76,7 @@ async function insertQueued(ctx: AppContext, args: Parameters<typeof store.inser
     throw err;
   }
   await jobs.send(QUEUES.runStart, { runId: run.id });
+  jobs.notify(QUEUES.runStart);
   return run;
 }
 

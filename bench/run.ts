@@ -1,0 +1,123 @@
+/**
+ * npm run bench:run — a full run over 3,000 invented districts × 40 years (one control,
+ * Newey–West): read, fit (every variant), write, then publish (compare with the previous
+ * published run, alerts). Timed with one worker process and with two, from the moment a
+ * worker picks the run up. Prints the fitting share and the database share.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import path from 'node:path';
+import { loadConfig } from '../api/config';
+import type { AppContext } from '../api/context';
+import { createDb } from '../api/db';
+import { DEMO_INDICATORS } from '../api/demo/catalogue';
+import { startJobs } from '../api/jobs/boss';
+import { createMailer } from '../api/mail/mailer';
+import { publishRun, startRun } from '../api/runs/service';
+import * as runStore from '../api/runs/store';
+import { dropDatabase, ensureDatabase } from '../scripts/database';
+import * as pg from '../scripts/pg';
+import { prepareTestTemplate } from '../scripts/test-template';
+import { insertSyntheticDistricts } from '../tests/support/synthetic';
+import { TEMPLATE_DB, TEST_CLUSTER, testDatabaseUrl } from '../tests/support/test-cluster';
+
+const DISTRICTS = Number(process.env.BENCH_DISTRICTS ?? 3000);
+const YEARS = 40;
+const root = path.resolve(__dirname, '..');
+const DB = 'cw_bench_run';
+
+function startWorkers(n: number, url: string): Promise<ChildProcess[]> {
+  return Promise.all(
+    Array.from({ length: n }, () =>
+      new Promise<ChildProcess>((resolve, reject) => {
+        const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'api', 'worker.ts')], {
+          cwd: root,
+          env: { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, LOG_REQUESTS: '0' },
+          stdio: ['ignore', 'pipe', 'inherit'],
+        });
+        child.stdout!.on('data', (b: Buffer) => {
+          if (b.toString().includes('is working jobs')) resolve(child);
+        });
+        child.once('exit', (code) => reject(new Error(`worker exited ${code}`)));
+      }),
+    ),
+  );
+}
+
+async function timedRun(ctx: AppContext, workers: number): Promise<Record<string, number>> {
+  const procs = await startWorkers(workers, ctx.config.databaseUrl);
+  try {
+    const run = await startRun(ctx, null, {});
+    let r = run;
+    for (;;) {
+      r = (await runStore.findRun(ctx.db, run.id))!;
+      if (r.state === 'in_review' || r.state === 'failed') break;
+      await new Promise((res) => setTimeout(res, 20));
+    }
+    if (r.state === 'failed') throw new Error(r.error ?? 'run failed');
+    const finished = new Date(r.finishedAt!).getTime();
+    const t = r.timings!;
+    const p0 = performance.now();
+    const published = await publishRun(ctx, { id: 0, email: 'bench@crestwatch.example', name: 'bench', role: 'analyst', active: true } as never, run.id).catch(async (err) => {
+      throw err;
+    });
+    const publishMs = performance.now() - p0;
+    return {
+      runToReviewMs: finished - t.pickedAt,
+      publishMs,
+      totalMs: finished - t.pickedAt + publishMs,
+      fitMs: t.fitMs,
+      dbMs: t.readMs + t.chunkReadMs + t.writeMs,
+      pooledMs: t.pooledMs,
+      alerts: published.alerts,
+      readMs: t.readMs,
+      chunkReadMs: t.chunkReadMs,
+      writeMs: t.writeMs,
+    };
+  } finally {
+    for (const p of procs) p.kill('SIGTERM');
+  }
+}
+
+async function main(): Promise<void> {
+  pg.start(TEST_CLUSTER);
+  await prepareTestTemplate();
+  await dropDatabase(TEST_CLUSTER.port, DB);
+  await ensureDatabase(TEST_CLUSTER.port, DB, TEMPLATE_DB);
+  const url = testDatabaseUrl(DB);
+  const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: url };
+  const db = createDb(url);
+  const jobs = await startJobs({ databaseUrl: url, expireInSeconds: 300, pollingIntervalSeconds: 0.5, maintenanceIntervalSeconds: 30, schedule: false });
+  const ctx: AppContext = { db, config, log: () => {}, mailer: createMailer(config), jobs };
+  try {
+    await db('indicators').insert(DEMO_INDICATORS.map((i) => ({ code: i.code, name: i.name, unit: i.unit, description: i.description, must_be_positive: i.mustBePositive })));
+    await db('users').insert({ id: 0, email: 'bench@crestwatch.example', name: 'bench', role: 'analyst' });
+    const l0 = performance.now();
+    await insertSyntheticDistricts(db, DISTRICTS, { years: YEARS, seed: 42, prefix: 'B' });
+    console.log(`loaded ${DISTRICTS} districts × ${YEARS} years in ${((performance.now() - l0) / 1000).toFixed(1)} s`);
+    // A first published run, so the timed runs compare with a previous one.
+    await timedRun(ctx, 1);
+    const results: Record<string, Record<string, number>> = {};
+    for (const w of [1, 2]) results[`${w} worker${w > 1 ? 's' : ''}`] = await timedRun(ctx, w);
+    console.log(`\nfull run over ${DISTRICTS} districts × ${YEARS} years, 5 variants each (main, no controls, cubic, last 20 years, level)`);
+    console.log('workers     run→review   publish   total    fit (sum)  database (sum)  pooled');
+    for (const [k, v] of Object.entries(results)) {
+      const share = (x: number) => `${((100 * x) / v.runToReviewMs).toFixed(0)}%`;
+      console.log(
+        `${k.padEnd(11)} ${(v.runToReviewMs / 1000).toFixed(2).padStart(8)} s ${(v.publishMs / 1000).toFixed(2).padStart(7)} s ${(v.totalMs / 1000).toFixed(2).padStart(6)} s  ${(v.fitMs / 1000).toFixed(2)} s (${share(v.fitMs)})  ${(v.dbMs / 1000).toFixed(2)} s (${share(v.dbMs)})  ${(v.pooledMs / 1000).toFixed(2)} s`,
+      );
+    }
+    for (const [k, v] of Object.entries(results)) console.log(`${k}: start read ${v.readMs.toFixed(0)} ms, chunk reads ${v.chunkReadMs.toFixed(0)} ms, writes ${v.writeMs.toFixed(0)} ms (sums)`);
+    console.log('(fit and database times are summed over chunks, so with two workers they can exceed the wall time)');
+    console.log(`goal: total ≤ 2 s with one worker — ${results['1 worker'].totalMs <= 2000 ? 'met' : 'not met'}`);
+  } finally {
+    await jobs.stop();
+    ctx.mailer.close();
+    await db.destroy();
+    await dropDatabase(TEST_CLUSTER.port, DB);
+  }
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
