@@ -3,6 +3,7 @@ import { Slot, useGlobalSearchParams, usePathname, type ErrorBoundaryProps } fro
 import { useState } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 
+import { AlertsFeedColumn } from '@/components/alerts/alerts-feed-column';
 import { DistrictListPanel } from '@/components/district/district-list-panel';
 import { AccountStatus } from '@/components/layout/account-status';
 import { AppHeader } from '@/components/layout/app-header';
@@ -11,11 +12,13 @@ import { ServerNotice } from '@/components/layout/server-notice';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
+import { useAlertFeedQuery, useMarkAlertReadMutation } from '@/hooks/use-alerts';
 import { useAppFonts } from '@/hooks/use-app-fonts';
 import { useMeQuery } from '@/hooks/use-auth';
 import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useHealthQuery } from '@/hooks/use-health';
-import { useLayoutMode } from '@/hooks/use-layout-mode';
+import { useLayoutMode, useThirdColumn } from '@/hooks/use-layout-mode';
+import { useRegionQuery } from '@/hooks/use-region';
 import { createQueryClient } from '@/lib/query-client';
 
 export default function RootLayout() {
@@ -39,6 +42,11 @@ function Frame() {
   const { code } = useGlobalSearchParams<{ code?: string }>();
   // The sign-in pages stand alone: a list there could only repeat "sign in".
   const withList = !ACCOUNT_ROUTES.has(usePathname());
+  const region = useRegionQuery();
+  const thirdColumn = useThirdColumn();
+  const withFeed = withList && mode === 'wide' && thirdColumn;
+  const feed = useAlertFeedQuery(withFeed);
+  const markRead = useMarkAlertReadMutation();
   return (
     <RegionShell
       mode={mode}
@@ -48,7 +56,8 @@ function Frame() {
           <ServerNotice health={health} />
         </>
       }
-      list={withList ? <DistrictListPanel districts={districts} selectedCode={code} /> : null}
+      list={withList ? <DistrictListPanel districts={districts} selectedCode={code} level={region.data?.run?.model.level ?? null} /> : null}
+      aside={withFeed ? <AlertsFeedColumn feed={feed} onRead={markRead.mutate} /> : null}
     >
       <Slot />
     </RegionShell>

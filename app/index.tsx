@@ -1,20 +1,28 @@
 import Head from 'expo-router/head';
 
 import { DistrictListPanel } from '@/components/district/district-list-panel';
-import { RegionOverview } from '@/components/district/region-overview';
+import { RegionOverview } from '@/components/region/region-overview';
+import { RegionStrip } from '@/components/region/region-strip';
 import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
+import { useRegionQuery } from '@/hooks/use-region';
 
-/** Home: the region's districts. Wide windows already show the list beside this route. */
+/** Home: the region. Phone: the list with the run line; wide: the list is beside, this shows the overview. */
 export default function RegionScreen() {
   const mode = useLayoutMode();
   const districts = useDistrictsQuery();
+  const region = useRegionQuery();
+  const level = region.data?.run?.model.level ?? null;
   return (
     <>
       <Head>
         <title>Districts · Crestwatch</title>
       </Head>
-      {mode === 'wide' ? <RegionOverview districts={districts} /> : <DistrictListPanel districts={districts} />}
+      {mode === 'wide' ? (
+        <RegionOverview region={region} districts={districts} />
+      ) : (
+        <DistrictListPanel districts={districts} level={level} header={<RegionStrip region={region} />} />
+      )}
     </>
   );
 }

@@ -24,6 +24,13 @@ const palette = {
   amber600: '#B06A00', // keyboard focus ring (≥ 3:1 non-text contrast on every surface here)
   hatch: '#EFE7D5', // "no data" cell fill
   hatchInk: '#6E5B35', // "no data" cell text (5.3:1 on hatch)
+  // Standings: each also has its own shape (components/region/standing-mark.tsx), so colour
+  // is never the only cue. All read as text: ≥ 5.2:1 on paper, chalk and ridge100.
+  kiln: '#A0421A', // approaching (5.7:1 on paper)
+  heather: '#6A3F8F', // at the turn; the threshold line and its band edge (6.9:1 on paper)
+  fir: '#22663F', // past the turn (6.2:1 on paper)
+  peat: '#5C5346', // not estimable (6.8:1 on paper)
+  heather100: '#E4DAF0', // the threshold band's fill (behind marks only, never under text)
 } as const;
 
 export const colors = {
@@ -51,6 +58,33 @@ export const colors = {
   /** Secondary text and links on the header (11.9:1 on slate900). */
   headerTextMuted: palette.ridge100,
   transparent: 'transparent',
+} as const;
+
+/** Colour of each standing's mark and word (the mark's shape carries the same meaning). */
+export const standingColors = {
+  approaching: palette.kiln,
+  at_turn: palette.heather,
+  past_turn: palette.fir,
+  no_turn: palette.slate600,
+  not_estimable: palette.peat,
+} as const;
+
+/** Chart inks. Lines and marks need 3:1 against the chart surface (chalk); text uses colors. */
+export const chartColors = {
+  surface: palette.chalk,
+  grid: palette.dune,
+  axis: palette.slate600,
+  points: palette.slate600,
+  /** The district's fitted curve (7.8:1 on chalk). */
+  curve: palette.ridge700,
+  /** The regional pooled curve: a faint dashed reference (3.5:1, decorative). */
+  pooled: palette.slate400,
+  /** The latest year's point, ringed (4.3:1 on chalk). */
+  latest: palette.amber600,
+  threshold: palette.heather,
+  band: palette.heather100,
+  /** The projected path, dashed. */
+  projection: palette.kiln,
 } as const;
 
 /** 4-point spacing scale. */
@@ -93,6 +127,8 @@ export const type = {
 export const breakpoints = {
   /** At or above this width the list and the detail sit side by side. */
   wide: 1024,
+  /** At or above this width a third column shows the caller's alerts. */
+  full: 1440,
 } as const;
 
 export const layout = {
@@ -104,6 +140,11 @@ export const layout = {
   districtRowHeight: 84,
   /** Minimum touch target (WCAG 2.5.8 asks for 24; phones are easier at 44). */
   touchTarget: 44,
+  /** Width of the alerts column at ≥ 1440 px. */
+  alertsColumnWidth: 340,
+  /** Heights of the card's charts; their placeholders take the same room. */
+  curveChartHeight: 280,
+  pathChartHeight: 220,
 } as const;
 
 /** Keyboard focus outline shared by every focusable element on web. */
@@ -117,5 +158,5 @@ export const focusRing = {
 /** The same ring drawn inside the element, for full-bleed rows a scroll view would clip. */
 export const focusRingInset = { ...focusRing, outlineOffset: -3 } as const;
 
-export const theme = { colors, space, radius, fonts, type, breakpoints, layout, focusRing, focusRingInset } as const;
+export const theme = { colors, standingColors, chartColors, space, radius, fonts, type, breakpoints, layout, focusRing, focusRingInset } as const;
 export type Theme = typeof theme;

@@ -12,3 +12,9 @@ export function useLayoutMode(): LayoutMode {
   const { width } = useWindowDimensions();
   return width >= breakpoints.wide ? 'wide' : 'phone';
 }
+
+/** True at ≥ 1440 px, where a third column shows the caller's alerts. */
+export function useThirdColumn(): boolean {
+  const { width } = useWindowDimensions();
+  return width >= breakpoints.full;
+}

@@ -23,3 +23,14 @@ export function useLayoutMode(): LayoutMode {
   );
   return hydrated && width >= breakpoints.wide ? 'wide' : 'phone';
 }
+
+/** True at ≥ 1440 px, where a third column shows the caller's alerts (false while hydrating). */
+export function useThirdColumn(): boolean {
+  const { width } = useWindowDimensions();
+  const hydrated = useSyncExternalStore(
+    noSubscription,
+    () => true,
+    () => false,
+  );
+  return hydrated && width >= breakpoints.full;
+}

@@ -134,3 +134,6 @@ export function yearWithRange(year: number, earliest: number | null, latest: num
   if (latest !== null) return `${year} (not after ${latest})`;
   return String(year);
 }
+
+/** Shapes in the order the method page explains them. */
+export const SHAPES_IN_ORDER = ['inverted_u', 'u', 'increasing', 'decreasing', 'flat'] as const;

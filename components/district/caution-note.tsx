@@ -1,18 +1,26 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, space, type } from '@/components/theme';
+import { TextLink } from '@/components/ui/text-link';
+import { CAUTIONS } from '@/lib/cautions';
 
-/** The short form of the cautions every district view carries (DOMAIN.md, "Cautions"). */
-export const CAUTION_TEXT =
-  'These figures describe statistical associations in past data, not causal laws or forecasts. ' +
-  'Crestwatch does not replace statutory air-quality standards, the agency’s official methodology, ' +
-  'or the judgement of qualified staff; local rules prevail.';
+/** The first caution, kept as one text for places that quote it whole. */
+export const CAUTION_TEXT = CAUTIONS[0].short;
 
-export function CautionNote() {
+/** The cautions every district view carries (DOMAIN.md), short, with the method page link. */
+export function CautionNote({ withMethodLink = true }: { withMethodLink?: boolean }) {
   return (
     <View style={styles.note} role="note" testID="caution-note">
       <Text style={styles.title}>Read with care</Text>
-      <Text style={styles.text}>{CAUTION_TEXT}</Text>
+      {CAUTIONS.map((c) => (
+        <View key={c.key} style={styles.item}>
+          <Text aria-hidden style={styles.bullet}>
+            –
+          </Text>
+          <Text style={styles.text}>{c.short}</Text>
+        </View>
+      ))}
+      {withMethodLink ? <TextLink href="/method" label="How Crestwatch estimates" leading="→ " /> : null}
     </View>
   );
 }
@@ -25,5 +33,7 @@ const styles = StyleSheet.create({
     gap: space.xs,
   },
   title: { ...type.label, color: colors.text },
-  text: { ...type.caption, color: colors.textMuted },
+  item: { flexDirection: 'row', gap: space.sm },
+  bullet: { ...type.caption, color: colors.textMuted },
+  text: { ...type.caption, color: colors.textMuted, flex: 1 },
 });

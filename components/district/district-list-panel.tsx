@@ -1,62 +1,78 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useMemo, type ReactNode } from 'react';
 import { FlatList, StyleSheet, Text, View, type ListRenderItem } from 'react-native';
 
+import { ListControls } from '@/components/region/list-controls';
+import { StandingCounts } from '@/components/region/standing-counts';
 import { QueryErrorPanel } from '@/components/state/query-error-panel';
 import type { QueryState } from '@/components/state/query-state';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, layout, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
-import type { DistrictSummary } from '@/lib/api-types';
-import { searchDistricts } from '@/lib/district-search';
+import { useRegionFilter } from '@/hooks/use-region-filter';
+import { applyRegionFilter, countByStanding, toggle, type RegionRow } from '@/lib/region-list';
 
 import { DistrictRow } from './district-row';
 import { DistrictRowSkeleton } from './district-row-skeleton';
 import { DistrictSearchField } from './district-search-field';
+import { FreshnessNotice, type Freshness } from './freshness-notice';
 
 /** As many placeholder rows as a phone screen shows, so the page does not jump on load. */
 const SKELETON_ROWS = 8;
 
 export type DistrictListPanelProps = {
-  districts: QueryState<DistrictSummary[]>;
+  districts: QueryState<RegionRow[]> & Partial<Freshness>;
+  /** Drawn above the controls (the phone home's run line). */
+  header?: ReactNode;
   /** Code of the district open beside the list, highlighted (wide layout). */
   selectedCode?: string;
+  /** The published run's confidence level (for "interval not bounded at 95%" in row labels). */
+  level?: number | null;
 };
 
-/** The region's districts: a search field, a count, and a virtualised list of rows. */
-export function DistrictListPanel({ districts, selectedCode }: DistrictListPanelProps) {
-  const [search, setSearch] = useState('');
+/**
+ * The region's districts: counts per standing (each a filter), search, sort and shape
+ * filters, and a virtualised list of fixed-height rows (3,000 districts scroll smoothly).
+ */
+export function DistrictListPanel({ districts, selectedCode, level = null, header }: DistrictListPanelProps) {
+  const [filter, setFilter] = useRegionFilter();
   const all = districts.data;
-  const shown = useMemo(() => (all ? searchDistricts(all, search) : []), [all, search]);
+  const shown = useMemo(() => (all ? applyRegionFilter(all, filter) : []), [all, filter]);
+  const counts = useMemo(() => countByStanding(all ?? []), [all]);
+  const filtered = filter.search.trim() !== '' || filter.standings.length > 0 || filter.shapes.length > 0;
   // Opened at /district/X in a wide window: start the list with X in view (rows have a
   // fixed height, so FlatList can jump there without measuring).
   const selectedIndex = selectedCode ? shown.findIndex((d) => d.code === selectedCode) : -1;
   const initialScrollIndex = selectedIndex > 2 ? selectedIndex - 2 : undefined;
 
-  const renderItem = useCallback<ListRenderItem<DistrictSummary>>(
-    ({ item }) => <DistrictRow district={item} selected={item.code === selectedCode} />,
-    [selectedCode],
+  const renderItem = useCallback<ListRenderItem<RegionRow>>(
+    ({ item }) => <DistrictRow district={item} selected={item.code === selectedCode} level={level} />,
+    [selectedCode, level],
   );
 
   return (
     <View style={styles.panel} testID="district-list-panel">
       <View style={styles.top}>
-        <DistrictSearchField value={search} onChange={setSearch} />
+        {header}
+        {districts.fetchStatus !== undefined ? <FreshnessNotice freshness={districts as Freshness} what="the district list" /> : null}
+        <StandingCounts counts={counts} selected={filter.standings} onToggle={(s) => setFilter({ standings: toggle(filter.standings, s) })} />
+        <DistrictSearchField value={filter.search} onChange={(search) => setFilter({ search })} />
+        <ListControls
+          sort={filter.sort}
+          onSort={(sort) => setFilter({ sort })}
+          shapes={filter.shapes}
+          onToggleShape={(s) => setFilter({ shapes: toggle(filter.shapes, s) })}
+        />
         <Text style={styles.count} accessibilityLiveRegion="polite" testID="district-count">
-          {countText(districts.status, all?.length ?? 0, shown.length, search)}
+          {countText(districts.status, all?.length ?? 0, shown.length, filtered)}
         </Text>
       </View>
       {districts.status === 'pending' ? (
-        <View
-          testID="district-list-loading"
-          accessible
-          accessibilityLabel="Loading the district list"
-          style={styles.list}
-        >
+        <View testID="district-list-loading" accessible accessibilityLabel="Loading the district list" style={styles.list}>
           {Array.from({ length: SKELETON_ROWS }, (_, i) => (
             <DistrictRowSkeleton key={i} index={i} />
           ))}
         </View>
-      ) : districts.status === 'error' ? (
+      ) : districts.status === 'error' && !all ? (
         <View style={styles.pad}>
           <QueryErrorPanel
             testID="district-list-error"
@@ -84,17 +100,18 @@ export function DistrictListPanel({ districts, selectedCode }: DistrictListPanel
           getItemLayout={itemLayout}
           extraData={selectedCode}
           initialScrollIndex={initialScrollIndex}
-          initialNumToRender={16}
-          windowSize={7}
+          initialNumToRender={12}
+          maxToRenderPerBatch={12}
+          windowSize={5}
           keyboardShouldPersistTaps="handled"
           ListEmptyComponent={
             <View style={styles.pad}>
               <StatePanel
                 testID="district-list-no-match"
-                title={`Nothing matches “${search.trim()}”`}
-                message="Search looks at district names and codes. Try fewer letters."
+                title={filter.search.trim() ? `Nothing matches “${filter.search.trim()}”` : 'No district matches these filters'}
+                message="Search looks at district names and codes; standing and shape filters narrow it further."
               >
-                <Button label="Clear the search" variant="outline" onPress={() => setSearch('')} />
+                <Button label="Clear search and filters" variant="outline" onPress={() => setFilter({ search: '', standings: [], shapes: [] })} />
               </StatePanel>
             </View>
           }
@@ -104,16 +121,17 @@ export function DistrictListPanel({ districts, selectedCode }: DistrictListPanel
   );
 }
 
-function countText(status: QueryState<unknown>['status'], total: number, shown: number, search: string): string {
+function countText(status: QueryState<unknown>['status'], total: number, shown: number, filtered: boolean): string {
   if (status === 'pending') return 'Loading districts…';
-  if (status === 'error') return 'District list unavailable';
-  if (search.trim() === '') return `${total} ${total === 1 ? 'district' : 'districts'}`;
-  return `${shown} of ${total} ${total === 1 ? 'district' : 'districts'} match`;
+  if (status === 'error' && total === 0) return 'District list unavailable';
+  const noun = total === 1 ? 'district' : 'districts';
+  if (!filtered) return `${total} ${noun}`;
+  return `${shown} of ${total} ${noun} shown`;
 }
 
-const keyOf = (d: DistrictSummary) => d.code;
+const keyOf = (d: RegionRow) => d.code;
 
-const itemLayout = (_: ArrayLike<DistrictSummary> | null | undefined, index: number) => ({
+const itemLayout = (_: ArrayLike<RegionRow> | null | undefined, index: number) => ({
   length: layout.districtRowHeight,
   offset: layout.districtRowHeight * index,
   index,
@@ -121,7 +139,7 @@ const itemLayout = (_: ArrayLike<DistrictSummary> | null | undefined, index: num
 
 const styles = StyleSheet.create({
   panel: { flex: 1, backgroundColor: colors.background },
-  top: { paddingHorizontal: space.lg, paddingTop: space.lg, paddingBottom: space.sm, gap: space.sm },
+  top: { paddingHorizontal: space.lg, paddingTop: space.md, paddingBottom: space.sm, gap: space.sm },
   count: { ...type.caption, color: colors.textMuted },
   list: { flex: 1 },
   pad: { padding: space.lg },

@@ -11,12 +11,13 @@ export function DistrictRowSkeleton({ index }: { index: number }) {
     <View style={styles.row}>
       <View style={styles.main}>
         <Skeleton width={nameWidth} height={18} />
-        <Skeleton width={150} height={12} />
+        <Skeleton width={112} height={14} />
+        <Skeleton width={84} height={12} />
       </View>
       <View style={styles.values}>
+        <Skeleton width={48} height={16} />
+        <Skeleton width={28} height={12} />
         <Skeleton width={64} height={12} />
-        <Skeleton width={110} height={14} />
-        <Skeleton width={120} height={14} />
       </View>
     </View>
   );
@@ -35,6 +36,6 @@ const styles = StyleSheet.create({
     borderLeftColor: colors.transparent,
     backgroundColor: colors.surface,
   },
-  main: { flex: 1, gap: space.sm },
-  values: { alignItems: 'flex-end', gap: space.xs },
+  main: { flex: 1, gap: space.xs },
+  values: { alignItems: 'flex-end', gap: space.xxs, minWidth: 76 },
 });

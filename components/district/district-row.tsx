@@ -2,28 +2,40 @@ import { Link } from 'expo-router';
 import { memo } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
+import { StandingBadge } from '@/components/region/standing-mark';
 import { colors, layout, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { LinkTarget } from '@/components/ui/link-target';
-import type { DistrictSummary } from '@/lib/api-types';
+import type { RegionRow } from '@/lib/region-list';
+import { standingOf } from '@/lib/region-list';
 
-import { coverageText, districtRowLabel, latestValues } from './district-summary-text';
+import { coverageText, crossingShort, gapColumn, standingSentence } from './district-summary-text';
 
 export type DistrictRowProps = {
-  district: DistrictSummary;
+  district: RegionRow;
   /** The district open beside the list (wide layout). */
   selected?: boolean;
+  /** The published run's confidence level, for "interval not bounded at 95%". */
+  level?: number | null;
 };
 
-/** One district in the region list: a link to its detail, always `districtRowHeight` tall. */
-export const DistrictRow = memo(function DistrictRow({ district, selected = false }: DistrictRowProps) {
-  const values = latestValues(district);
+/**
+ * One district in the region list, always `districtRowHeight` tall: name and code, its
+ * standing (mark and word), the gap to its threshold, the projected crossing and the years
+ * of data. A link to its card.
+ */
+export const DistrictRow = memo(function DistrictRow({ district, selected = false, level = null }: DistrictRowProps) {
+  const e = district.estimate ?? null;
+  const gap = gapColumn(e);
+  const crossing = crossingShort(e);
+  const unbounded = e?.intervalBounded === false && e.threshold !== null;
+  const label = `${district.name}, code ${district.code}. ${standingSentence(e, level)} Data ${coverageText(district)}.`;
   return (
     <Link href={{ pathname: '/district/[code]', params: { code: district.code } }} asChild>
       <LinkTarget
         testID={`district-row-${district.code}`}
         accessibilityRole="link"
-        accessibilityLabel={districtRowLabel(district)}
+        accessibilityLabel={label}
         accessibilityState={{ selected }}
         stateStyle={(state: InteractionState) => [
           styles.row,
@@ -39,28 +51,23 @@ export const DistrictRow = memo(function DistrictRow({ district, selected = fals
             </Text>
             <Text style={styles.code}>{district.code}</Text>
           </View>
+          <View style={styles.standingLine}>
+            <StandingBadge standing={standingOf(district)} compact />
+            {e?.status === 'substitute' ? <Text style={styles.tag}>regional</Text> : null}
+            {unbounded ? <Text style={styles.tag}>unbounded</Text> : null}
+          </View>
           <Text style={styles.coverage} numberOfLines={1}>
-            {coverageText(district, 'compact')}
+            {district.lastYear === null ? 'No data yet' : `Data to ${district.lastYear}`}
           </Text>
         </View>
         <View style={styles.values}>
-          <Text style={styles.year}>{district.latest ? `Latest ${district.latest.year}` : 'No values yet'}</Text>
-          {district.latest === null
-            ? null
-            : values.map((v) => (
-                <View key={v.label} style={styles.value}>
-                  {v.value === null ? (
-                    <Text style={styles.noValue}>no data</Text>
-                  ) : (
-                    <Text style={styles.number} numberOfLines={1}>
-                      {v.value}
-                    </Text>
-                  )}
-                  <Text style={styles.unit} numberOfLines={1}>
-                    {v.unit}
-                  </Text>
-                </View>
-              ))}
+          <Text style={styles.number} numberOfLines={1} testID={`district-gap-${district.code}`}>
+            {gap ?? '—'}
+          </Text>
+          <Text style={styles.unit}>gap</Text>
+          <Text style={styles.crossing} numberOfLines={1}>
+            {crossing ?? 'no crossing'}
+          </Text>
         </View>
       </LinkTarget>
     </Link>
@@ -86,11 +93,11 @@ const styles = StyleSheet.create({
   titleLine: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm },
   name: { ...type.bodyStrong, color: colors.text, flexShrink: 1 },
   code: { ...type.label, color: colors.textMuted },
+  standingLine: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  tag: { ...type.caption, color: colors.textMuted, borderWidth: 1, borderColor: colors.border, paddingHorizontal: space.xs, borderRadius: 4 },
   coverage: { ...type.caption, color: colors.textMuted },
-  values: { alignItems: 'flex-end', gap: space.xxs, maxWidth: '48%' },
-  value: { flexDirection: 'row', alignItems: 'baseline', gap: space.xs },
-  number: { ...type.numeric, color: colors.text },
-  noValue: { ...type.caption, color: colors.gapText, backgroundColor: colors.gapFill, paddingHorizontal: space.xs },
+  values: { alignItems: 'flex-end', minWidth: 76 },
+  number: { ...type.numeric, fontFamily: type.bodyStrong.fontFamily, color: colors.text },
   unit: { ...type.caption, color: colors.textMuted },
-  year: { ...type.caption, color: colors.textMuted },
+  crossing: { ...type.caption, color: colors.text },
 });

@@ -1,6 +1,8 @@
 // Words for one district's coverage and latest values, shared by the list row (visible and
 // screen-reader text) and the region overview.
 import type { DistrictSummary } from '@/lib/api-types';
+import type { EstimateSummary } from '@/lib/estimate-types';
+import { STANDING_LABEL, gapShort, gapWords } from '@/lib/estimate-words';
 import { countGapYears, formatYearCount, formatYearSpan } from '@/lib/format';
 import { indicatorColumn } from '@/lib/indicators';
 
@@ -42,4 +44,34 @@ export function districtRowLabel(d: DistrictSummary): string {
     .join(', ');
   const latest = d.latest ? ` Latest year ${d.latest.year}: ${values}.` : '';
   return `${d.name}, code ${d.code}. ${coverageText(d)}.${latest}`;
+}
+
+// ---- Published standing in the list row ---------------------------------------------------
+
+/** The crossing column: "by 2031", "passed 2013", "off trend", or null. */
+export function crossingShort(e: EstimateSummary | null | undefined): string | null {
+  if (!e || e.projectionStatus === null || e.projectionStatus === 'no_threshold') return null;
+  if (e.projectionStatus === 'not_on_current_trend') return 'off trend';
+  if (e.crossingYear === null) return null;
+  return e.projectionStatus === 'already_past' ? `passed ${e.crossingYear}` : `by ${e.crossingYear}`;
+}
+
+/** The gap column: "−18%", "+72%", "×4.0", or null without a threshold. */
+export function gapColumn(e: EstimateSummary | null | undefined): string | null {
+  if (!e || e.gapPercent === null || e.threshold === null || e.threshold <= 0) return null;
+  return gapShort(e.gapPercent);
+}
+
+/** One sentence for screen readers: the row's standing, gap and crossing in words. */
+export function standingSentence(e: EstimateSummary | null | undefined, level: number | null): string {
+  if (!e) return 'No published estimate.';
+  const parts = [STANDING_LABEL[e.standing]];
+  if (e.status === 'substitute') parts.push('regional substitute');
+  if (e.gapPercent !== null && e.threshold !== null && e.threshold > 0) parts.push(`income ${gapWords(e.gapPercent)} the threshold`);
+  if (e.intervalBounded === false) parts.push(`interval not bounded${level ? ` at ${Math.round(level * 1000) / 10}%` : ''}`);
+  const crossing = crossingShort(e);
+  if (crossing === 'off trend') parts.push('not on current trend');
+  else if (crossing?.startsWith('passed')) parts.push(`passed it around ${e.crossingYear}`);
+  else if (crossing) parts.push(`projected to reach it around ${e.crossingYear}`);
+  return `${parts.join(', ')}.`;
 }

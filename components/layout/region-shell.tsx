@@ -9,6 +9,8 @@ export type RegionShellProps = {
   header: ReactNode;
   /** The region list, shown as a left column in the wide layout only; null for none. */
   list: ReactNode | null;
+  /** The caller's alerts, a third column at ≥ 1440 px (wide layout only); null for none. */
+  aside?: ReactNode | null;
   /** The current route. */
   children: ReactNode;
 };
@@ -18,7 +20,7 @@ export type RegionShellProps = {
  * is the list itself). Wide: the list stays mounted in a left column while routes change on
  * the right, so its search and scroll position survive opening districts.
  */
-export function RegionShell({ mode, header, list, children }: RegionShellProps) {
+export function RegionShell({ mode, header, list, aside = null, children }: RegionShellProps) {
   return (
     <View style={styles.screen}>
       {header}
@@ -30,6 +32,11 @@ export function RegionShell({ mode, header, list, children }: RegionShellProps) 
           <View style={styles.detailColumn} role="main">
             {children}
           </View>
+          {aside !== null ? (
+            <View style={styles.asideColumn} role="complementary" aria-label="Your alerts">
+              {aside}
+            </View>
+          ) : null}
         </View>
       ) : (
         <View style={styles.single} role="main">
@@ -49,5 +56,10 @@ const styles = StyleSheet.create({
     borderRightColor: colors.border,
   },
   detailColumn: { flex: 1, minWidth: 0 },
+  asideColumn: {
+    width: layout.alertsColumnWidth,
+    borderLeftWidth: 1,
+    borderLeftColor: colors.border,
+  },
   single: { flex: 1 },
 });

@@ -1,0 +1,68 @@
+import { Suspense, useEffect, useState, type ReactNode } from 'react';
+import { StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
+
+import { chartColors, colors, radius, space, type } from '@/components/theme';
+
+export type ChartFrameProps = {
+  title: string;
+  /** The chart in words: the drawing's accessible name and the visible caption. */
+  summary: string;
+  height: number;
+  testID: string;
+  /** Drawn below the chart: the key to its marks. */
+  legend?: ReactNode;
+  /** The drawing for a measured width; rendered only after mount. */
+  children: (width: number) => ReactNode;
+};
+
+/**
+ * A chart's frame: heading, a box of fixed height that shows a quiet placeholder until the
+ * page has mounted and measured it (charts do not pre-render identically, and the SVG code
+ * loads on its own), the legend, and the chart in words.
+ */
+export function ChartFrame({ title, summary, height, testID, legend, children }: ChartFrameProps) {
+  const [mounted, setMounted] = useState(false);
+  const [width, setWidth] = useState(0);
+  useEffect(() => setMounted(true), []);
+  const onLayout = (e: LayoutChangeEvent) => {
+    const w = Math.round(e.nativeEvent.layout.width);
+    if (w !== width) setWidth(w);
+  };
+  const placeholder = <View style={[styles.placeholder, { height }]} testID={`${testID}-placeholder`} aria-hidden />;
+  return (
+    <View style={styles.wrap} testID={testID}>
+      <Text role="heading" aria-level={3} style={styles.title}>
+        {title}
+      </Text>
+      <View
+        style={[styles.box, { height }]}
+        onLayout={onLayout}
+        role="img"
+        aria-label={summary}
+        testID={`${testID}-box`}
+      >
+        {mounted && width > 0 ? <Suspense fallback={placeholder}>{children(width)}</Suspense> : placeholder}
+      </View>
+      {legend}
+      <Text style={styles.summary} testID={`${testID}-summary`}>
+        <Text style={styles.summaryTerm}>In words: </Text>
+        {summary}
+      </Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  title: { ...type.bodyStrong, color: colors.text },
+  box: {
+    backgroundColor: chartColors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.md,
+    overflow: 'hidden',
+  },
+  placeholder: { backgroundColor: colors.surface },
+  summary: { ...type.caption, color: colors.textMuted },
+  summaryTerm: { fontFamily: type.label.fontFamily, color: colors.text },
+});

@@ -1,0 +1,53 @@
+// The path chart's drawing: income by year against the threshold line and its band, the
+// recent trend carried forward dashed. Loaded on its own after mount, like the curve chart.
+import { VictoryArea } from 'victory-native/lib/components/victory-area';
+import { VictoryAxis } from 'victory-native/lib/components/victory-axis';
+import { VictoryChart } from 'victory-native/lib/components/victory-chart';
+import { VictoryLine } from 'victory-native/lib/components/victory-line';
+import { VictoryScatter } from 'victory-native/lib/components/victory-scatter';
+
+import { chartColors } from '@/components/theme';
+import { formatTick } from '@/lib/chart-scale';
+import type { PathChartModel } from '@/lib/chart-model';
+
+import { axisStyle, CHART_PADDING } from './chart-styles';
+
+export type PathChartSvgProps = { model: PathChartModel; width: number; height: number };
+
+export default function PathChartSvg({ model: m, width, height }: PathChartSvgProps) {
+  const [t0, t1] = m.yearDomain;
+  const last = m.path[m.path.length - 1];
+  return (
+    <VictoryChart width={width} height={height} padding={CHART_PADDING} scale={{ x: 'linear', y: 'log' }} domain={{ x: m.yearDomain, y: m.incomeDomain }}>
+      <VictoryAxis tickValues={m.yearTicks} tickFormat={(t: number) => String(t)} label="Year" style={axisStyle(true)} />
+      <VictoryAxis dependentAxis tickValues={m.incomeTicks} tickFormat={(t: number) => formatTick(t)} label="Income per person (log)" style={axisStyle(false)} />
+      {m.band ? (
+        <VictoryArea
+          name="threshold-band"
+          data={[
+            { x: t0, y: m.band.hi, y0: m.band.lo },
+            { x: t1, y: m.band.hi, y0: m.band.lo },
+          ]}
+          style={{ data: { fill: chartColors.band, stroke: chartColors.threshold, strokeWidth: 1, fillOpacity: 1 } }}
+        />
+      ) : null}
+      {m.threshold !== null ? (
+        <VictoryLine
+          name="threshold-line"
+          data={[
+            { x: t0, y: m.threshold },
+            { x: t1, y: m.threshold },
+          ]}
+          style={{ data: { stroke: chartColors.threshold, strokeWidth: 2, strokeDasharray: '6,3' } }}
+        />
+      ) : null}
+      {m.projection.length > 1 ? (
+        <VictoryLine name="projection" data={m.projection} style={{ data: { stroke: chartColors.projection, strokeWidth: 2.5, strokeDasharray: '5,4' } }} />
+      ) : null}
+      {m.path.length > 1 ? <VictoryLine name="income-path" data={m.path} style={{ data: { stroke: chartColors.curve, strokeWidth: 2.5 } }} /> : null}
+      {last ? (
+        <VictoryScatter name="latest" data={[last]} size={6} style={{ data: { fill: chartColors.surface, stroke: chartColors.latest, strokeWidth: 3 } }} />
+      ) : null}
+    </VictoryChart>
+  );
+}

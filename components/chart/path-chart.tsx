@@ -1,0 +1,32 @@
+import { lazy, useMemo } from 'react';
+
+import { chartColors, layout } from '@/components/theme';
+import { pathChartModel } from '@/lib/chart-model';
+import { pathChartSummary } from '@/lib/chart-summary';
+import type { EstimateRecord } from '@/lib/estimate-types';
+import { levelPercent, METHOD_LABEL, notBoundedText } from '@/lib/estimate-words';
+
+import { ChartFrame } from './chart-frame';
+import { ChartLegend, type LegendItem } from './chart-legend';
+
+const PathChartSvg = lazy(() => import('./chart-drawings').then((m) => ({ default: m.PathChartSvg })));
+
+/** Income over the years against the threshold line and its band; the projection dashed. */
+export function PathChart({ record }: { record: EstimateRecord }) {
+  const model = useMemo(() => pathChartModel(record), [record]);
+  const summary = useMemo(() => pathChartSummary(record), [record]);
+  const level = record.model.level;
+  const items: LegendItem[] = [{ key: 'path', label: 'Income per person', swatch: 'line', color: chartColors.curve }];
+  if (model.projection.length > 1) items.push({ key: 'projection', label: 'Recent trend, carried forward', swatch: 'dash', color: chartColors.projection });
+  if (model.threshold !== null) items.push({ key: 'threshold', label: 'Threshold', swatch: 'dash', color: chartColors.threshold });
+  if (model.band) {
+    items.push({ key: 'band', label: `${levelPercent(level)} ${METHOD_LABEL[record.standing.intervalMethod]} interval`, swatch: 'band', color: chartColors.band });
+  } else if (model.threshold !== null) {
+    items.push({ key: 'no-band', label: `No band: ${notBoundedText(level)}`, swatch: 'line', color: chartColors.grid });
+  }
+  return (
+    <ChartFrame title="Income over the years" summary={summary} height={layout.pathChartHeight} testID="path-chart" legend={<ChartLegend items={items} />}>
+      {(width) => <PathChartSvg model={model} width={width} height={layout.pathChartHeight} />}
+    </ChartFrame>
+  );
+}

@@ -1,0 +1,54 @@
+import { StyleSheet, Text, View } from 'react-native';
+
+import { colors, radius, space, type } from '@/components/theme';
+import { Button } from '@/components/ui/button';
+
+/** The parts of a react-query result that tell whether shown data may be out of date. */
+export type Freshness = {
+  data: unknown;
+  isError: boolean;
+  dataUpdatedAt: number;
+  fetchStatus: 'fetching' | 'paused' | 'idle';
+  isFetching: boolean;
+  refetch: () => unknown;
+};
+
+/** True when data is shown but the last attempt to refresh it failed or is waiting for a network. */
+export function isStale(f: Freshness): boolean {
+  return f.data !== undefined && (f.isError || f.fetchStatus === 'paused');
+}
+
+function time(ms: number): string {
+  return new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', day: 'numeric', month: 'short' }).format(new Date(ms));
+}
+
+/**
+ * Offline or unreachable while react-query still holds the last answer: the figures stay,
+ * and this says how old they are and offers to try again.
+ */
+export function FreshnessNotice({ freshness, what }: { freshness: Freshness; what: string }) {
+  if (!isStale(freshness)) return null;
+  const offline = freshness.fetchStatus === 'paused';
+  return (
+    <View style={styles.notice} role="status" testID="stale-notice">
+      <Text style={styles.text}>
+        <Text style={styles.strong}>{offline ? 'Offline. ' : 'Could not refresh. '}</Text>
+        Showing {what} as loaded at {time(freshness.dataUpdatedAt)}; {offline ? 'they will refresh when the connection returns' : 'they may be out of date'}.
+      </Text>
+      {offline ? null : <Button label="Try again" variant="outline" busy={freshness.isFetching} busyLabel="Trying…" onPress={() => void freshness.refetch()} />}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  notice: {
+    borderWidth: 1,
+    borderColor: colors.danger,
+    backgroundColor: colors.dangerFill,
+    borderRadius: radius.md,
+    padding: space.md,
+    gap: space.sm,
+  },
+  text: { ...type.body, color: colors.text },
+  strong: { fontFamily: type.bodyStrong.fontFamily, color: colors.danger },
+});

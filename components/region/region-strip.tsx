@@ -1,0 +1,43 @@
+import { StyleSheet, Text, View } from 'react-native';
+
+import { ExternalLink } from '@/components/district/external-link';
+import type { QueryState } from '@/components/state/query-state';
+import { colors, space, type } from '@/components/theme';
+import { TextLink } from '@/components/ui/text-link';
+import { formatDay } from '@/lib/alert-text';
+import type { RegionResponse } from '@/lib/estimate-types';
+
+/** The phone home's top line: which run the standings come from, the region brief, the method page. */
+export function RegionStrip({ region }: { region: QueryState<RegionResponse> }) {
+  const run = region.data?.run ?? null;
+  return (
+    <View style={styles.wrap} testID="region-strip">
+      <View style={styles.head}>
+        <Text role="heading" aria-level={1} style={styles.title}>
+          Districts
+        </Text>
+        <View style={styles.links}>
+          {run ? <ExternalLink path="/api/briefs/region.pdf" label="Region brief" testID="region-brief-link" /> : null}
+          <TextLink href="/method" label="Method" />
+        </View>
+      </View>
+      <Text style={styles.meta} numberOfLines={2}>
+        {region.status === 'pending'
+          ? 'Loading the published run…'
+          : run
+            ? `Standings from run #${run.id}, published ${formatDay(run.publishedAt)}`
+            : region.status === 'error'
+              ? 'The published run could not be loaded.'
+              : 'No run published yet'}
+      </Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.xxs },
+  head: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  title: { ...type.heading, color: colors.text },
+  meta: { ...type.caption, color: colors.textMuted },
+  links: { flexDirection: 'row', gap: space.md, alignItems: 'center', flexWrap: 'wrap' },
+});

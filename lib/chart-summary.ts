@@ -1,0 +1,74 @@
+// Text summaries of the card's two charts, for screen readers and as the visible caption
+// "In words" under each chart. Pure functions of the published record.
+import type { EstimateRecord } from './estimate-types';
+import { formatLevel, intervalText, levelPercent, METHOD_LABEL, notBoundedText, SHAPE_LABEL } from './estimate-words';
+import { formatEmissions } from './format';
+
+/** Whether the chart may draw a bounded band for the threshold: only a bounded interval. */
+export function bandOf(r: EstimateRecord): { lo: number; hi: number } | null {
+  const s = r.standing;
+  if (!r.threshold || s.intervalBounded !== true || s.levelLo === null || s.levelHi === null) return null;
+  if (!(s.levelLo > 0) || !(s.levelHi > s.levelLo)) return null;
+  return { lo: s.levelLo, hi: s.levelHi };
+}
+
+/** The threshold a chart marks, if it has a positive one in real units. */
+export function thresholdOf(r: EstimateRecord): number | null {
+  const v = r.threshold?.level ?? null;
+  return v !== null && v > 0 && Number.isFinite(v) ? v : null;
+}
+
+function thresholdWords(r: EstimateRecord): string {
+  const x = thresholdOf(r);
+  if (x === null) return 'No positive threshold is marked.';
+  const noun = r.threshold?.kind === 'trough' ? 'low point' : 'turning point';
+  const where = r.threshold?.extrapolated ? ', beyond the observed incomes' : '';
+  const band = bandOf(r);
+  const method = METHOD_LABEL[r.standing.intervalMethod];
+  if (band) {
+    return `The ${noun} is marked at ${formatLevel(x)} per person${where}, with its ${levelPercent(r.model.level)} ${method} interval (${formatLevel(band.lo)}–${formatLevel(band.hi)}) as a shaded band.`;
+  }
+  const kind = r.threshold?.fieller.kind ?? null;
+  return (
+    `The ${noun} is marked at ${formatLevel(x)} per person${where} as a line without a band: ` +
+    `${notBoundedText(r.model.level)} (${intervalText(kind, r.standing.levelLo, r.standing.levelHi)}).`
+  );
+}
+
+export function curveChartSummary(r: EstimateRecord): string {
+  const pts = r.points;
+  if (pts.length === 0) return 'No observed years to chart.';
+  const first = pts[0];
+  const last = pts[pts.length - 1];
+  const parts = [
+    `Emissions per person against real income per person, both on log scales, for ${pts.length} observed years (${first.year}–${last.year}).`,
+  ];
+  if (r.status === 'substitute') parts.push('The district’s own series is too short: the regional pooled curve stands in as the fitted line.');
+  else if (r.curve.length > 0 && r.shape) parts.push(`The fitted curve over the observed incomes: ${SHAPE_LABEL[r.shape.shape].toLowerCase()}.`);
+  else parts.push('No fitted curve: the district is not estimable in this run.');
+  if (r.status !== 'not_estimable') parts.push(thresholdWords(r));
+  parts.push(`Latest year ${last.year} highlighted: income ${formatLevel(last.x)}, emissions ${formatEmissions(last.y)} t per person.`);
+  if (r.status === 'ok' && r.pooledCurve.length > 0) parts.push('The regional pooled curve is drawn faint for reference.');
+  return parts.join(' ');
+}
+
+export function pathChartSummary(r: EstimateRecord): string {
+  const pts = r.points;
+  if (pts.length === 0) return 'No observed years to chart.';
+  const first = pts[0];
+  const last = pts[pts.length - 1];
+  const parts = [
+    `Real income per person by year on a log scale, ${first.year}–${last.year}: from ${formatLevel(first.x)} to ${formatLevel(last.x)}.`,
+  ];
+  if (r.status !== 'not_estimable') parts.push(thresholdWords(r));
+  const p = r.projection;
+  if (p && r.trendPerYear !== null) {
+    const pct = (Math.exp(r.trendPerYear) - 1) * 100;
+    const trend = `The recent income trend (${pct >= 0 ? '+' : '−'}${Math.abs(pct).toFixed(1)}% a year) is drawn dashed ahead of ${last.year}`;
+    if (p.status === 'projected' && p.crossingYear !== null) parts.push(`${trend}; it meets the threshold around ${p.crossingYear}.`);
+    else if (p.status === 'already_past' && p.crossingYear !== null) parts.push(`${trend}; income passed the threshold around ${p.crossingYear}.`);
+    else if (p.status === 'not_on_current_trend') parts.push(`${trend}; it does not meet the threshold (not on current trend).`);
+    else parts.push(`${trend}.`);
+  }
+  return parts.join(' ');
+}
