@@ -2,7 +2,7 @@
  * Derived series, computed in the database: for each derived indicator D with source A
  * and divisor B, D = A ÷ B (per person) or A ÷ B × 100 (real from nominal), for the
  * (district, year) keys whose sources were touched. The values A and B are the staged
- * ones where an upload gives them, else the stored ones. The result, with the stored D
+ * ones where an upload gives them (views of evaluate-store.ts), else the stored ones. The result, with the stored D
  * beside it, goes to the temp table `upload_derived`, which the merge applies like any
  * other change.
  */
@@ -47,7 +47,8 @@ export async function createDerivedTable(conn: Sql): Promise<void> {
 export async function deriveChanges(conn: Sql, def: DerivedDef, keys: KeySource): Promise<number> {
   const scale = def.derivation === 'real_from_nominal' ? 100 : 1;
   const keySql = {
-    staged: `SELECT DISTINCT district_id, year FROM upload_eval WHERE kind <> 'u' AND indicator_id IN ($1, $2)`,
+    staged: `SELECT district_id, year FROM upload_eval WHERE kind = 'c' AND indicator_id IN ($1, $2)
+             UNION SELECT district_id, year FROM upload_new WHERE indicator_id IN ($1, $2)`,
     restored: `SELECT DISTINCT district_id, year FROM upload_restore WHERE indicator_id IN ($1, $2)`,
     all: `SELECT district_id, year FROM observations WHERE indicator_id IN ($1, $2, $3) GROUP BY 1, 2`,
   }[keys];
@@ -64,7 +65,7 @@ export async function deriveChanges(conn: Sql, def: DerivedDef, keys: KeySource)
               ${staged ? 'coalesce(sa.line, sb.line)' : 'NULL::int'} AS line,
               od.value AS old_value, od.upload_id AS old_upload_id
          FROM k
-         ${staged ? `LEFT JOIN upload_eval sa ON ${on('sa', '$1')} LEFT JOIN upload_eval sb ON ${on('sb', '$2')}` : ''}
+         ${staged ? `LEFT JOIN upload_staged sa ON ${on('sa', '$1')} LEFT JOIN upload_staged sb ON ${on('sb', '$2')}` : ''}
          LEFT JOIN observations oa ON ${on('oa', '$1')}
          LEFT JOIN observations ob ON ${on('ob', '$2')}
          LEFT JOIN observations od ON ${on('od', '$3')}

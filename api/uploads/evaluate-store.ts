@@ -1,9 +1,15 @@
 /**
  * The set-based checks of a staged upload, against the stored data, inside the upload's
  * transaction: which district codes are new (created here, or refused), each staged value
- * classified as insert / change / unchanged against the stored one (temp table
- * `upload_eval`), values that moved by more than the change factor, rules of indicators
- * that changed since the file was read, and the derived series the upload touches.
+ * classified as insert / change / unchanged against the stored one, values that moved by
+ * more than the change factor, rules of indicators that changed since the file was read,
+ * and the derived series the upload touches.
+ *
+ * Relations it leaves for the merge (all dropped at the end of the transaction):
+ * - view `upload_staged`: the staged rows with district ids;
+ * - table `upload_eval`: staged rows that meet a stored value, kind 'c' (changed) or 'u';
+ * - view `upload_new`: staged rows for empty cells, kind 'i'. A first load of a million
+ *   rows is thus never copied into a temp table: the merge reads it straight from staging.
  */
 import { clip } from './parse/values';
 import type { Problem, ProblemList } from './problems';
@@ -48,18 +54,26 @@ export async function evaluateStaged(conn: Sql, t: StagingNames, columns: Column
   await conn.query(`SET LOCAL work_mem = '128MB'`);
   const { newDistricts, refusedRows } = await settleDistricts(conn, t, columns, options, problems);
 
+  await conn.query(`CREATE TEMP VIEW upload_staged AS
+    SELECT s.line, s.col, d.id AS district_id, s.indicator_id, s.year, s.value
+      FROM ${t.rows} s JOIN districts d ON d.code = s.district`);
   await conn.query(`CREATE TEMP TABLE upload_eval ON COMMIT DROP AS
-    SELECT s.line, s.col, d.id AS district_id, s.indicator_id, s.year, s.value,
+    SELECT v.line, v.col, v.district_id, v.indicator_id, v.year, v.value,
            o.value AS old_value, o.upload_id AS old_upload_id,
-           (CASE WHEN o.value IS NULL THEN 'i' WHEN o.value = s.value THEN 'u' ELSE 'c' END)::"char" AS kind
-      FROM ${t.rows} s
-      JOIN districts d ON d.code = s.district
-      LEFT JOIN observations o ON o.district_id = d.id AND o.indicator_id = s.indicator_id AND o.year = s.year`);
-  await conn.query(`ANALYZE upload_eval`);
+           (CASE WHEN o.value = v.value THEN 'u' ELSE 'c' END)::"char" AS kind
+      FROM upload_staged v
+      JOIN observations o ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year`);
+  await conn.query(`CREATE TEMP VIEW upload_new AS
+    SELECT v.district_id, v.indicator_id, v.year, v.value, NULL::float8 AS old_value, NULL::int AS old_upload_id,
+           'i'::"char" AS kind, v.line
+      FROM upload_staged v
+     WHERE NOT EXISTS (SELECT 1 FROM observations o
+                        WHERE o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year)`);
 
   const { rows } = await conn.query(
-    `SELECT district_id, indicator_id, kind, count(*)::int AS n, min(value) AS min_value
-       FROM upload_eval GROUP BY 1, 2, 3`,
+    `SELECT district_id, indicator_id, kind, count(*)::int AS n, min(value) AS min_value FROM upload_eval GROUP BY 1, 2, 3
+     UNION ALL
+     SELECT district_id, indicator_id, 'i', count(*)::int, min(value) FROM upload_new GROUP BY 1, 2`,
   );
   const cells: CellCount[] = rows.map((r) => ({ districtId: r.district_id, indicatorId: r.indicator_id, kind: r.kind, n: r.n }));
 
@@ -67,6 +81,11 @@ export async function evaluateStaged(conn: Sql, t: StagingNames, columns: Column
   if (cells.some((c) => c.kind === 'c')) await largeChanges(conn, options.changeFactor, problems);
   const derived = await deriveFromStaged(conn, cells, problems);
   return { cells, derived, newDistricts, refusedRows };
+}
+
+/** The views outlive a committed transaction (temp views have no ON COMMIT DROP): drop them before. */
+export async function dropEvaluationViews(conn: Sql): Promise<void> {
+  await conn.query(`DROP VIEW IF EXISTS upload_new, upload_staged`);
 }
 
 async function settleDistricts(conn: Sql, t: StagingNames, columns: Columns, options: EvaluateOptions, problems: ProblemList) {
@@ -137,7 +156,7 @@ async function recheckIndicatorRules(conn: Sql, groups: { indicator_id: number; 
   if (broken.length === 0 && missing.length === 0) return;
   const { rows } = await conn.query(
     `SELECT e.line, e.col, e.value, i.code, i.derivation, (i.id IS NULL) AS gone, count(*) OVER () AS total
-       FROM upload_eval e LEFT JOIN indicators i ON i.id = e.indicator_id
+       FROM upload_staged e LEFT JOIN indicators i ON i.id = e.indicator_id
       WHERE i.id IS NULL OR i.derivation <> 'none' OR (i.must_be_positive AND e.value <= 0)
       ORDER BY e.line, e.col LIMIT $1`,
     [PROBLEM_LIST_CAP],

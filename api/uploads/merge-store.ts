@@ -21,6 +21,8 @@ import type { Sql } from './sql';
 export interface ChangeTable {
   /** A temp table with district_id, indicator_id, year, value, old_value, old_upload_id, kind. */
   table: string;
+  /** How many rows of each kind it holds, when the caller knows (statements with nothing to do are skipped). */
+  known?: { i: number; c: number; r: number };
   /** SQL for the upload whose value a written cell holds afterwards; it must use $1 (the change set's id). */
   writer: string;
   /** Kinds that leave a history row. */
@@ -40,29 +42,40 @@ export const BULK_MIN_ROWS = 50_000;
 export async function applyChanges(conn: Sql, uploadId: number, version: number, sets: ChangeTable[]): Promise<MergeCounts> {
   const counts: MergeCounts = { inserted: 0, changed: 0, removed: 0, bulk: false };
   for (const s of sets) {
-    await conn.query(
-      `INSERT INTO observation_history (upload_id, version, district_id, indicator_id, year, value, value_upload_id, previous_value, previous_upload_id)
-       SELECT $1, $2, t.district_id, t.indicator_id, t.year, t.value,
-              CASE WHEN t.value IS NULL THEN NULL ELSE ${s.writer} END, t.old_value, t.old_upload_id
-         FROM ${s.table} t WHERE t.kind = ANY($3::"char"[])`,
-      [uploadId, version, s.historyKinds],
-    );
-    const changed = await conn.query(
-      `UPDATE observations o SET value = t.value, upload_id = ${s.writer}, updated_at = now()
-         FROM ${s.table} t
-        WHERE t.kind = 'c' AND o.district_id = t.district_id AND o.indicator_id = t.indicator_id AND o.year = t.year`,
-      [uploadId],
-    );
-    counts.changed += changed.rowCount ?? 0;
-    const removed = await conn.query(
-      `DELETE FROM observations o USING ${s.table} t
-        WHERE t.kind = 'r' AND o.district_id = t.district_id AND o.indicator_id = t.indicator_id AND o.year = t.year`,
-    );
-    counts.removed += removed.rowCount ?? 0;
+    const has = (k: 'i' | 'c' | 'r') => !s.known || s.known[k] > 0;
+    if (s.historyKinds.some(has)) {
+      await conn.query(
+        `INSERT INTO observation_history (upload_id, version, district_id, indicator_id, year, value, value_upload_id, previous_value, previous_upload_id)
+         SELECT $1, $2, t.district_id, t.indicator_id, t.year, t.value,
+                CASE WHEN t.value IS NULL THEN NULL ELSE ${s.writer} END, t.old_value, t.old_upload_id
+           FROM ${s.table} t WHERE t.kind = ANY($3::"char"[])`,
+        [uploadId, version, s.historyKinds],
+      );
+    }
+    if (has('c')) {
+      const r = await conn.query(
+        `UPDATE observations o SET value = t.value, upload_id = ${s.writer}, updated_at = now()
+           FROM ${s.table} t
+          WHERE t.kind = 'c' AND o.district_id = t.district_id AND o.indicator_id = t.indicator_id AND o.year = t.year`,
+        [uploadId],
+      );
+      counts.changed += r.rowCount ?? 0;
+    }
+    if (has('r')) {
+      const r = await conn.query(
+        `DELETE FROM observations o USING ${s.table} t
+          WHERE t.kind = 'r' AND o.district_id = t.district_id AND o.indicator_id = t.indicator_id AND o.year = t.year`,
+      );
+      counts.removed += r.rowCount ?? 0;
+    }
   }
-  const inserts = sets.map((s) => `SELECT t.district_id, t.indicator_id, t.year, t.value, ${s.writer} FROM ${s.table} t WHERE t.kind = 'i'`);
+  const withInserts = sets.filter((s) => !s.known || s.known.i > 0);
+  if (withInserts.length === 0) return counts;
+  const inserts = withInserts.map((s) => `SELECT t.district_id, t.indicator_id, t.year, t.value, ${s.writer} FROM ${s.table} t WHERE t.kind = 'i'`);
+  const known = withInserts.reduce((a, s) => a + (s.known?.i ?? 0), 0);
+  const counted = withInserts.filter((s) => !s.known).map((s) => `(SELECT count(*) FROM ${s.table} WHERE kind = 'i')`);
   const { rows } = await conn.query(
-    `SELECT (${sets.map((s) => `(SELECT count(*) FROM ${s.table} WHERE kind = 'i')`).join(' + ')})::int AS n,
+    `SELECT (${[String(known), ...counted].join(' + ')})::int AS n,
             (SELECT reltuples FROM pg_class WHERE oid = 'observations'::regclass)::float8 AS stored`,
   );
   const n: number = rows[0].n;

@@ -59,11 +59,13 @@ export function receiveFile(maxBytes: number, dir = path.join(os.tmpdir(), 'cres
     limits: { fileSize: maxBytes, files: 1, fields: 20, parts: 25 },
   }).single(UPLOAD_FIELD);
   return (req, res, next) => {
+    const t0 = performance.now();
     res.on('close', () => {
       const p = (req.file as (Express.Multer.File & Partial<StoredFile>) | undefined)?.path;
       if (p) fs.rm(p, { force: true }, () => {});
     });
     single(req, res, (err?: unknown) => {
+      res.locals.receiveMs = Math.round(performance.now() - t0);
       if (!err) {
         if (!req.file) {
           return next(new AppError(400, 'no_file', `Send the CSV as multipart/form-data in a field named "${UPLOAD_FIELD}".`));

@@ -29,6 +29,7 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
       handler: async ({ query }, req, res) => {
         const w = who(req);
         const answer = await service.receiveUpload(db, receivedFile(req), query, w);
+        if (!answer.noop) answer.timings.receiveMs = res.locals.receiveMs;
         if (!answer.noop && answer.upload.status === 'committed') {
           await record(w, 'upload.commit', answer.upload.id, { fileName: answer.upload.fileName, version: answer.upload.version, counts: answer.upload.counts });
           res.status(201);

@@ -10,7 +10,7 @@ import { pipeline } from 'node:stream/promises';
 import type { Knex } from 'knex';
 import type { PoolClient } from 'pg';
 import { AppError, NotFoundError } from '../http/errors';
-import { evaluateStaged, type Columns, type Evaluation } from './evaluate-store';
+import { dropEvaluationViews, evaluateStaged, type Columns, type Evaluation } from './evaluate-store';
 import { applyChanges, type ChangeTable } from './merge-store';
 import { UploadReader, type CatalogueEntry, type ReadSummary } from './parse/upload-reader';
 import { buildPreview, summaryOf, type Preview, type UploadSummary } from './present';
@@ -33,8 +33,31 @@ export interface ReceivedFile {
 }
 
 export type UploadAnswer =
-  | { noop: false; upload: UploadSummary; preview: Preview; problems: Problem[]; problemsTruncated: boolean; bulk?: boolean }
+  | { noop: false; upload: UploadSummary; preview: Preview; problems: Problem[]; problemsTruncated: boolean; timings: Timings }
   | { noop: true; upload: UploadSummary; message: string };
+
+/** Where the time went (milliseconds), for the analyst's curiosity and the ingest bench. */
+export interface Timings {
+  /** Receiving the multipart body into the temp file (set by the route). */
+  receiveMs?: number;
+  /** Reading, checking each row and COPYing the staging rows. */
+  readMs?: number;
+  /** The set-based checks against the stored data. */
+  checkMs?: number;
+  /** Writing history and observations. */
+  mergeMs?: number;
+  /** The merge dropped and re-created observations' keys around a large insert. */
+  bulkPath?: boolean;
+}
+
+async function timed<T>(timings: Timings, key: 'readMs' | 'checkMs' | 'mergeMs', fn: () => Promise<T>): Promise<T> {
+  const t0 = performance.now();
+  try {
+    return await fn();
+  } finally {
+    timings[key] = Math.round(performance.now() - t0);
+  }
+}
 
 export class UploadRejected extends AppError {
   constructor(problems: ProblemList, uploadId: number | null, preview: Preview | null) {
@@ -50,10 +73,12 @@ export class UploadRejected extends AppError {
   }
 }
 
-const CHANGE_SETS: ChangeTable[] = [
-  { table: 'upload_eval', writer: '$1::int', historyKinds: ['c'] },
-  { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
-];
+/** What an upload writes: changed cells, new cells, derived cells. */
+const CHANGE_SETS = {
+  changed: { table: 'upload_eval', writer: '$1::int', historyKinds: ['c'] },
+  fresh: { table: 'upload_new', writer: '$1::int', historyKinds: [] },
+  derived: { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
+} satisfies Record<string, ChangeTable>;
 
 export async function receiveUpload(db: Knex, file: ReceivedFile, options: UploadOptions & { commit: boolean }, who: Who, now = new Date()): Promise<UploadAnswer> {
   return withConnection(db, async (conn) => {
@@ -64,9 +89,10 @@ export async function receiveUpload(db: Knex, file: ReceivedFile, options: Uploa
     const name = staging.newStagingName(now);
     const t = await staging.createStaging(conn, name);
     let keep = false;
+    const timings: Timings = {};
     try {
       const problems = new ProblemList();
-      const read = await readIntoStaging(conn, t, file, options, problems, now);
+      const read = await timed(timings, 'readMs', () => readIntoStaging(conn, t, file, options, problems, now));
       const base: store.NewUpload = {
         kind: 'file',
         status: 'failed',
@@ -85,8 +111,8 @@ export async function receiveUpload(db: Knex, file: ReceivedFile, options: Uploa
       }
       const columns = read.columns;
       const outcome = options.commit
-        ? await commitStaged(conn, t, read, columns, options, problems, base, null)
-        : await previewStaged(conn, t, read, columns, options, problems);
+        ? await commitStaged(conn, t, read, columns, options, problems, base, null, timings)
+        : await previewStaged(conn, t, read, columns, options, problems, timings);
       if (outcome.kind === 'noop') return noop(outcome.upload);
       if (problems.errors > 0) {
         const failed = await store.insertUpload(conn, {
@@ -98,7 +124,7 @@ export async function receiveUpload(db: Knex, file: ReceivedFile, options: Uploa
         throw new UploadRejected(problems, failed.id, outcome.preview);
       }
       if (outcome.kind === 'committed') {
-        return { noop: false, upload: summaryOf(outcome.upload), preview: outcome.preview, problems: problems.sorted(), problemsTruncated: problems.truncated, bulk: outcome.bulk };
+        return { noop: false, upload: summaryOf(outcome.upload), preview: outcome.preview, problems: problems.sorted(), problemsTruncated: problems.truncated, timings };
       }
       const preview = { ...outcome.preview, expiresAt: new Date(now.getTime() + staging.STAGING_TTL_HOURS * 3600_000).toISOString() };
       const saved = await store.insertUpload(conn, {
@@ -111,7 +137,7 @@ export async function receiveUpload(db: Knex, file: ReceivedFile, options: Uploa
         stagingTable: name,
       });
       keep = true;
-      return { noop: false, upload: summaryOf(saved), preview, problems: problems.sorted(), problemsTruncated: problems.truncated };
+      return { noop: false, upload: summaryOf(saved), preview, problems: problems.sorted(), problemsTruncated: problems.truncated, timings };
     } finally {
       if (!keep) await staging.dropStaging(conn, name);
     }
@@ -134,7 +160,8 @@ export async function commitPreviewed(db: Knex, id: number, who: Who): Promise<U
     const problems = new ProblemList();
     const options = u.options as unknown as UploadOptions;
     const base: store.NewUpload = { kind: 'file', status: 'failed', userId: who.id, userEmail: who.email };
-    const outcome = await commitStaged(conn, t, read, prior!.columns!, options, problems, base, u.id);
+    const timings: Timings = {};
+    const outcome = await commitStaged(conn, t, read, prior!.columns!, options, problems, base, u.id, timings);
     if (outcome.kind === 'noop') {
       await store.markFailed(conn, u.id, 0, 0, []);
       await staging.dropStaging(conn, u.stagingTable);
@@ -146,14 +173,14 @@ export async function commitPreviewed(db: Knex, id: number, who: Who): Promise<U
       throw new UploadRejected(problems, u.id, outcome.preview);
     }
     await staging.dropStaging(conn, u.stagingTable);
-    return { noop: false, upload: summaryOf(outcome.upload), preview: outcome.preview, problems: problems.sorted(), problemsTruncated: problems.truncated, bulk: outcome.bulk };
+    return { noop: false, upload: summaryOf(outcome.upload), preview: outcome.preview, problems: problems.sorted(), problemsTruncated: problems.truncated, timings };
   });
 }
 
 type Outcome =
   | { kind: 'noop'; upload: store.UploadRecord }
   | { kind: 'previewed' | 'failed'; preview: Preview; counts: Partial<store.UploadCounts> }
-  | { kind: 'committed'; upload: store.UploadRecord; preview: Preview; counts: Partial<store.UploadCounts>; bulk: boolean };
+  | { kind: 'committed'; upload: store.UploadRecord; preview: Preview; counts: Partial<store.UploadCounts> };
 
 async function readIntoStaging(conn: PoolClient, t: staging.StagingNames, file: ReceivedFile, options: UploadOptions, problems: ProblemList, now: Date): Promise<ReadSummary> {
   const catalogue = await loadCatalogue(conn);
@@ -192,10 +219,10 @@ async function loadCatalogue(conn: Sql): Promise<Map<string, CatalogueEntry>> {
   return new Map(rows.map((r) => [r.code, { id: r.id, code: r.code, derivation: r.derivation, mustBePositive: r.must_be_positive }]));
 }
 
-async function previewStaged(conn: Sql, t: staging.StagingNames, read: ReadSummary, columns: Columns, options: UploadOptions, problems: ProblemList): Promise<Outcome> {
+async function previewStaged(conn: Sql, t: staging.StagingNames, read: ReadSummary, columns: Columns, options: UploadOptions, problems: ProblemList, timings: Timings): Promise<Outcome> {
   return inTransaction(conn, async () => {
     await lockObservations(conn);
-    const ev = await evaluateStaged(conn, t, columns, options, problems);
+    const ev = await timed(timings, 'checkMs', () => evaluateStaged(conn, t, columns, options, problems));
     const preview = await previewOf(conn, read, ev, options);
     return { kind: problems.errors ? 'failed' : 'previewed', preview, counts: countsOf(ev), rollback: true } as Outcome & { rollback: boolean };
   });
@@ -211,6 +238,7 @@ async function commitStaged(
   problems: ProblemList,
   base: store.NewUpload,
   previewedId: number | null,
+  timings: Timings,
 ): Promise<Outcome> {
   return inTransaction(conn, async (): Promise<Outcome & { rollback?: boolean }> => {
     await lockObservations(conn);
@@ -219,14 +247,26 @@ async function commitStaged(
     if (done) return { kind: 'noop', upload: done, rollback: true };
     const version = await store.nextVersion(conn);
     const upload = previewedId ?? (await store.insertUpload(conn, { ...base, status: 'committed', version })).id;
-    const ev = await evaluateStaged(conn, t, columns, options, problems);
+    const ev = await timed(timings, 'checkMs', () => evaluateStaged(conn, t, columns, options, problems));
     const preview = await previewOf(conn, read, ev, options);
     const counts = countsOf(ev);
     if (problems.errors > 0) return { kind: 'failed', preview, counts, rollback: true };
-    const sets = ev.derived.length ? CHANGE_SETS : CHANGE_SETS.slice(0, 1);
-    const merged = await applyChanges(conn, upload, version, sets);
+    const kinds = (list: { kind: string; n: number }[]) => {
+      const k = { i: 0, c: 0, r: 0 };
+      for (const x of list) if (x.kind in k) k[x.kind as 'i' | 'c' | 'r'] += x.n;
+      return k;
+    };
+    const cells = kinds(ev.cells);
+    const sets: ChangeTable[] = [
+      { ...CHANGE_SETS.changed, known: { i: 0, c: cells.c, r: 0 } },
+      { ...CHANGE_SETS.fresh, known: { i: cells.i, c: 0, r: 0 } },
+      ...(ev.derived.length ? [{ ...CHANGE_SETS.derived, known: kinds(ev.derived) }] : []),
+    ];
+    const merged = await timed(timings, 'mergeMs', () => applyChanges(conn, upload, version, sets));
+    await dropEvaluationViews(conn);
+    timings.bulkPath = merged.bulk;
     const record = await store.markCommitted(conn, upload, version, { ...counts, remove: merged.removed, errors: 0, warnings: problems.warnings }, { ...preview, expiresAt: null }, problems.sorted());
-    return { kind: 'committed', upload: record, preview: { ...preview, expiresAt: null }, counts, bulk: merged.bulk };
+    return { kind: 'committed', upload: record, preview: { ...preview, expiresAt: null }, counts };
   });
 }
 
