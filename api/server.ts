@@ -17,6 +17,7 @@ import { ensureDemoAccounts, ensureFirstAdmin } from './people/service';
 export interface Running {
   server: Server;
   jobs: Jobs;
+  ctx: AppContext;
   url: string;
   close(): Promise<void>;
 }
@@ -62,7 +63,7 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
       await catcher?.stop();
       await db.destroy();
     })());
-  return { server, jobs, url, close };
+  return { server, jobs, ctx, url, close };
 }
 
 export function closeOnSignals(running: Running): void {

@@ -4,6 +4,7 @@
  */
 import { loadConfig } from '../api/config';
 import { createDb } from '../api/db';
+import { publishInitialDemoRun } from '../api/demo/initial-run';
 import { seedDemoIfEmpty } from '../api/demo/seed';
 import { closeOnSignals, startServer } from '../api/server';
 import { prepareDemoDatabase } from './db';
@@ -25,6 +26,12 @@ async function main(): Promise<void> {
   const running = await startServer(config);
   closeOnSignals(running);
   console.log(`\nCrestwatch is ready: ${running.url}\n`);
+  if (config.mode === 'demo') {
+    publishInitialDemoRun(running.ctx, config.firstAdminEmail).then(
+      (id) => id && console.log(`Published the first demo run (#${id}) so the region shows standings.`),
+      (err: Error) => console.error(`The first demo run could not be published: ${err.message}`),
+    );
+  }
 }
 
 main().catch((err: Error) => {

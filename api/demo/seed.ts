@@ -69,6 +69,9 @@ export async function seedDemoIfEmpty(db: Knex): Promise<{ seeded: boolean; dist
 export async function reseedDemo(db: Knex): Promise<{ districts: number; observations: number }> {
   return db.transaction(async (trx) => {
     await trx.raw('SELECT pg_advisory_xact_lock(20261201)');
+    // Runs (with their estimates, alerts and mail) describe the old data: they go too.
+    await trx('outbox').del();
+    await trx('runs').del();
     await trx('observation_history').del();
     await trx('observations').del();
     await trx('uploads').del();

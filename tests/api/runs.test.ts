@@ -4,7 +4,9 @@
  * exactly once, an unchanged republish that sends nothing, reproduction to the last digit,
  * and mail held while SMTP is down.
  */
+import fs from 'node:fs';
 import type { Server } from 'node:http';
+import path from 'node:path';
 import type TestAgent from 'supertest/lib/agent';
 import type { CrestwatchApp } from '../../api/app';
 import { loadConfig } from '../../api/config';
@@ -113,26 +115,21 @@ describe('runs', () => {
     expect((await official.post(`/api/runs/${firstRun}/publish`)).status).toBe(403);
   });
 
-  it('a data revision moves a district across its band: one crossing alert, one mail per subscriber', async () => {
+  it('the demo income revision moves Mirefield Uplands across its band: one crossing alert, one mail per subscriber', async () => {
     expect((await official.post('/api/subscriptions').send({ scope: 'region', delivery: 'instant' })).status).toBe(201);
     const review = (await analyst.get(`/api/runs/${firstRun}/review`)).body.districts as { code: string; standing: string; threshold: number }[];
-    const candidate = review.find((d) => d.standing === 'approaching' || d.standing === 'at_turn');
-    expect(candidate).toBeDefined();
-    // Revise the latest income of that district to well past its threshold (an upload).
-    const last = await t.db('observations as o')
-      .join('districts as d', 'd.id', 'o.district_id')
-      .join('indicators as i', 'i.id', 'o.indicator_id')
-      .where({ 'd.code': candidate!.code, 'i.code': 'income_pc' })
-      .orderBy('o.year', 'desc')
-      .first('o.year');
-    const csv = `district_code,indicator,year,value\n${candidate!.code},income_pc,${last.year},${Math.round(candidate!.threshold * 2)}\n`;
-    const up = await analyst.post('/api/uploads?commit=true').attach('file', Buffer.from(csv), 'revision.csv');
+    // The demo region is built so that D13 has fallen back below its turn in a downturn.
+    const candidate = review.find((d) => d.code === 'D13');
+    expect(candidate?.standing).toBe('approaching');
+    const csv = fs.readFileSync(path.join(__dirname, '..', '..', 'assets', 'demo-data', 'income-revision-2025.csv'));
+    const up = await analyst.post('/api/uploads?commit=true').attach('file', csv, 'income-revision-2025.csv');
     expect(up.status).toBe(201);
 
     secondRun = await runToReview();
     const row = (await analyst.get(`/api/runs/${secondRun}/review`)).body.districts.find((d: { code: string }) => d.code === candidate!.code);
     expect(row.change.standingChanged).toBe(true);
     crossing = { code: candidate!.code, from: candidate!.standing, to: row.standing };
+    expect(crossing).toEqual({ code: 'D13', from: 'approaching', to: 'past_turn' });
 
     const pub = await analyst.post(`/api/runs/${secondRun}/publish`);
     expect(pub.status).toBe(200);
@@ -197,7 +194,7 @@ describe('runs', () => {
       .first('o.year');
     // Revert the revision: the district moves back.
     const uploads = (await analyst.get('/api/uploads')).body;
-    const revision = (uploads.uploads ?? uploads.items ?? uploads).find((u: { fileName: string | null }) => u.fileName === 'revision.csv');
+    const revision = (uploads.uploads ?? uploads.items ?? uploads).find((u: { fileName: string | null }) => u.fileName === 'income-revision-2025.csv');
     expect((await analyst.post(`/api/uploads/${revision.id}/revert`)).status).toBeLessThan(300);
     expect(back.year).toBeGreaterThan(2000);
     const run = await runToReview();
