@@ -1,30 +1,20 @@
 import type { Server } from 'node:http';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
-import type { CrestwatchApp } from '../../api/app';
 import { DEMO_DISTRICTS, generateDemoRegion } from '../../api/demo/generate';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
-import { ensureDemoAccounts } from '../../api/people/service';
-import { closeServer, DEMO, listen, signInAs } from '../support/auth';
-import { freshDatabase, type TestDatabase } from '../support/test-db';
-import { testApp } from '../support/test-app';
+import { signedInApp, type SignedInApp } from '../support/signed-in-app';
+import type { TestDatabase } from '../support/test-db';
 
 let t: TestDatabase;
-let app: CrestwatchApp;
 let server: Server;
 let agent: TestAgent;
+let env: SignedInApp;
 beforeAll(async () => {
-  t = await freshDatabase();
-  await seedDemoIfEmpty(t.db);
-  await ensureDemoAccounts(t.db);
-  app = testApp(t.db);
-  server = await listen(app);
-  agent = (await signInAs(server, DEMO.official)).agent;
+  env = await signedInApp({ as: 'official' });
+  ({ t, server, agent } = env);
 });
-afterAll(async () => {
-  await closeServer(server, app);
-  await t.drop();
-});
+afterAll(async () => env.close());
 
 describe('districts API over the seeded demo region', () => {
   it('lists every district sorted by name with its span and latest values', async () => {

@@ -9,12 +9,8 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
-import type { CrestwatchApp } from '../../api/app';
-import { seedDemoIfEmpty } from '../../api/demo/seed';
-import { ensureDemoAccounts } from '../../api/people/service';
-import { closeServer, DEMO, listen, signInAs } from '../support/auth';
-import { testApp } from '../support/test-app';
-import { freshDatabase, type TestDatabase } from '../support/test-db';
+import { signedInApp, type SignedInApp } from '../support/signed-in-app';
+import type { TestDatabase } from '../support/test-db';
 
 const ref = path.join(__dirname, '..', 'fixtures', 'reference', 'panel-A');
 const results = JSON.parse(fs.readFileSync(path.join(ref, 'panel_A_results.json'), 'utf8'));
@@ -31,21 +27,14 @@ const rowsOf = (code: string) =>
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
 let t: TestDatabase;
-let app: CrestwatchApp;
 let server: Server;
 let agent: TestAgent;
+let env: SignedInApp;
 beforeAll(async () => {
-  t = await freshDatabase();
-  await seedDemoIfEmpty(t.db);
-  await ensureDemoAccounts(t.db);
-  app = testApp(t.db);
-  server = await listen(app);
-  agent = (await signInAs(server, DEMO.official)).agent;
+  env = await signedInApp({ as: 'official' });
+  ({ t, server, agent } = env);
 });
-afterAll(async () => {
-  await closeServer(server, app);
-  await t.drop();
-});
+afterAll(async () => env.close());
 
 describe('POST /api/estimate', () => {
   it('matches R for panel A district PA01 with Newey–West errors', async () => {
