@@ -57,24 +57,30 @@ export async function evaluateStaged(conn: Sql, t: StagingNames, columns: Column
   await conn.query(`CREATE TEMP VIEW upload_staged AS
     SELECT s.line, s.col, d.id AS district_id, s.indicator_id, s.year, s.value
       FROM ${t.rows} s JOIN districts d ON d.code = s.district`);
+  // One pass classifies every staged value against the stored one, for the counts.
+  const { rows } = await conn.query(
+    `SELECT v.district_id, v.indicator_id,
+            (CASE WHEN o.value IS NULL THEN 'i' WHEN o.value = v.value THEN 'u' ELSE 'c' END)::"char" AS kind,
+            count(*)::int AS n, min(v.value) AS min_value
+       FROM upload_staged v
+       LEFT JOIN observations o ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year
+      GROUP BY 1, 2, 3`,
+  );
+  // The values that meet a stored one are kept for the merge; a first load has none, and skips the pass.
+  const matched = rows.some((r) => r.kind !== 'i');
   await conn.query(`CREATE TEMP TABLE upload_eval ON COMMIT DROP AS
     SELECT v.line, v.col, v.district_id, v.indicator_id, v.year, v.value,
            o.value AS old_value, o.upload_id AS old_upload_id,
            (CASE WHEN o.value = v.value THEN 'u' ELSE 'c' END)::"char" AS kind
       FROM upload_staged v
-      JOIN observations o ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year`);
+      JOIN observations o ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year
+     ${matched ? '' : 'WHERE false'}`);
   await conn.query(`CREATE TEMP VIEW upload_new AS
     SELECT v.district_id, v.indicator_id, v.year, v.value, NULL::float8 AS old_value, NULL::int AS old_upload_id,
            'i'::"char" AS kind, v.line
       FROM upload_staged v
      WHERE NOT EXISTS (SELECT 1 FROM observations o
                         WHERE o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year)`);
-
-  const { rows } = await conn.query(
-    `SELECT district_id, indicator_id, kind, count(*)::int AS n, min(value) AS min_value FROM upload_eval GROUP BY 1, 2, 3
-     UNION ALL
-     SELECT district_id, indicator_id, 'i', count(*)::int, min(value) FROM upload_new GROUP BY 1, 2`,
-  );
   const cells: CellCount[] = rows.map((r) => ({ districtId: r.district_id, indicatorId: r.indicator_id, kind: r.kind, n: r.n }));
 
   await recheckIndicatorRules(conn, rows, problems);
