@@ -1,6 +1,7 @@
 /** Every feature's routes in one list: the route table the guard, OpenAPI and tests read. */
 import { alertRoutes } from './alerts/router';
 import { auditRoutes } from './audit/router';
+import { briefRoutes } from './briefs/router';
 import { authRoutes } from './auth/router';
 import type { createPassport } from './auth/passport';
 import type { AppContext } from './context';
@@ -39,6 +40,7 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     ...runRoutes(ctx),
     ...alertRoutes(ctx),
     ...subscriptionRoutes(ctx),
+    ...briefRoutes(ctx),
   ];
   routes.push(
     route({

@@ -1,4 +1,5 @@
 /** Every job this server knows how to do, for the server's workers and `npm run worker`. */
+import '../briefs/attachment';
 import type { AppContext } from '../context';
 import { deliverOutbox } from '../outbox/sender';
 import { runHandlers } from '../runs/jobs';

@@ -1,0 +1,212 @@
+/**
+ * The region brief: a summary page (counts per standing, districts that crossed since the
+ * last publish, the largest threshold shifts, the regional pooled curve, the cautions),
+ * then the table of every district across as many pages as it needs, its header row
+ * repeated on each. Footers (trace, page n of N) are drawn last, over buffered pages.
+ */
+import type { RegionBriefContent, RegionBriefRow } from '../../../lib/brief-types';
+import { printable } from './fonts';
+import { cautionsBox, createBriefDocument, drawScene, footer, FOOTER_HEIGHT, geometry, INK, measure, pageTop, rule, textBlock, textLine, type TextStyle } from './page';
+
+/** How many districts each summary list shows before "and n more". */
+const LIST_LINES = 8;
+
+/** Column widths as shares of the content width (they sum to 1). */
+const COLUMN_SHARE: Record<keyof RegionBriefRow, number> = {
+  code: 0.068,
+  name: 0.228,
+  standing: 0.115,
+  gap: 0.087,
+  threshold: 0.095,
+  interval: 0.185,
+  crossing: 0.222,
+};
+const RIGHT_ALIGNED = new Set<keyof RegionBriefRow>(['gap', 'threshold']);
+
+const CELL: TextStyle = { size: 7.3, color: INK.text };
+const HEAD: TextStyle = { size: 7, face: 'bold', color: INK.muted };
+const ROW_PAD = 3.2;
+/** Names wrap to two lines at most, then end with an ellipsis. */
+const NAME_LINES = 2;
+
+function list(doc: PDFKit.PDFDocument, heading: string, items: { code: string; name: string; text: string; mark?: boolean }[], note: string | null, more: string, x: number, y: number, width: number): number {
+  let cy = y;
+  textLine(doc, heading, x, cy, { size: 8.5, face: 'bold' });
+  cy += 13;
+  if (!items.length) {
+    cy += textBlock(doc, note ?? 'None.', x, cy, width, { size: 7.8, color: INK.muted }, 40) + 2;
+    return cy - y;
+  }
+  for (const it of items.slice(0, LIST_LINES)) {
+    const line = `${it.code}  ${it.name} — ${it.text}${it.mark ? ' •' : ''}`;
+    cy += textBlock(doc, line, x, cy, width, { size: 7.8, lineGap: 0.3 }, 20) + 2;
+  }
+  if (items.length > LIST_LINES) {
+    cy += textBlock(doc, `… and ${items.length - LIST_LINES} more ${more}.`, x, cy, width, { size: 7.5, color: INK.muted }, 20) + 2;
+  }
+  return cy - y;
+}
+
+function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
+  const g = geometry(doc);
+  const x = g.left;
+  const width = g.contentWidth;
+  let y = pageTop(doc, c.subtitle);
+  textLine(doc, 'Region brief', x, y, { size: 20, face: 'bold' });
+  y += 28;
+  y += textBlock(doc, c.headline, x, y, width, { size: 10.5, lineGap: 1.2 }, 44) + 8;
+
+  // Counts per standing, one box each.
+  const boxes = c.counts;
+  const gap = 6;
+  const bw = (width - gap * (boxes.length - 1)) / boxes.length;
+  boxes.forEach((b, i) => {
+    const bx = x + i * (bw + gap);
+    doc.save().rect(bx, y, bw, 40).fillColor(INK.fill).fill().restore();
+    textLine(doc, b.count.toLocaleString('en-GB'), bx + 7, y + 5, { size: 15, face: 'bold', color: b.count ? INK.text : INK.muted });
+    textBlock(doc, b.label, bx + 7, y + 24, bw - 10, { size: 6.6, color: INK.muted }, 16);
+  });
+  y += 50;
+
+  const colW = (width - 16) / 2;
+  const hLeft = list(doc, 'Crossed since the last publish', c.crossed, c.crossedNote, 'in the alerts of this run', x, y, colW);
+  const hRight = list(doc, 'Largest threshold shifts', c.shifts.map((s) => ({ ...s, mark: s.overLimit })), c.shiftsNote, 'in the table', x + colW + 16, y, colW);
+  y += Math.max(hLeft, hRight);
+  if (c.shifts.some((s) => s.overLimit)) {
+    y += textBlock(doc, '• moved more than the alert limit for a threshold shift.', x + colW + 16, y, colW, { size: 6.8, color: INK.muted }) + 2;
+  }
+  y += 6;
+  rule(doc, x, x + width, y);
+  y += 8;
+
+  // The regional pooled curve.
+  textLine(doc, 'Regional pooled curve', x, y, { size: 8.5, face: 'bold' });
+  y += 13;
+  const figs = c.pooled.figures;
+  if (figs.length) {
+    const fw = (width - 14 * (figs.length - 1)) / figs.length;
+    let fh = 0;
+    figs.forEach((f, i) => {
+      const fx = x + i * (fw + 14);
+      let h = textBlock(doc, f.label.toUpperCase(), fx, y, fw, { size: 6.8, face: 'bold', color: INK.muted });
+      h += textBlock(doc, f.value, fx, y + h + 1, fw, { size: 11.5, face: 'bold' }) + 1;
+      if (f.detail) h += textBlock(doc, f.detail, fx, y + h + 1, fw, { size: 6.8, color: INK.muted, lineGap: 0.4 }, 26);
+      fh = Math.max(fh, h);
+    });
+    y += fh + 8;
+  }
+  const bottomModel = `Model. ${c.modelLine}`;
+  const modelStyle: TextStyle = { size: 6.8, color: INK.muted, lineGap: 0.4 };
+  const cautionsH = cautionsBox(doc, c.cautions, x, 0, width, false);
+  const cautionsY = g.height - FOOTER_HEIGHT - 6 - cautionsH;
+  const modelH = Math.min(measure(doc, bottomModel, width, modelStyle), 28);
+  const modelY = cautionsY - 6 - modelH;
+  if (c.pooled.chart) {
+    const chart = c.pooled.chart;
+    const scale = Math.min(1, (modelY - 8 - y - 12) / chart.height, width / chart.width);
+    if (scale > 0.45) {
+      doc.save();
+      doc.translate(x, y);
+      doc.scale(scale);
+      drawScene(doc, chart, 0, 0);
+      doc.restore();
+      y += chart.height * scale + 4;
+    }
+  }
+  if (c.pooled.note) y += textBlock(doc, c.pooled.note, x, y, width, { size: 7, color: INK.muted }, Math.max(0, modelY - 4 - y));
+  textBlock(doc, bottomModel, x, modelY, width, modelStyle, 28);
+  cautionsBox(doc, c.cautions, x, cautionsY, width);
+}
+
+interface Column {
+  key: keyof RegionBriefRow;
+  label: string;
+  x: number;
+  width: number;
+}
+
+function columns(c: RegionBriefContent, x: number, width: number): Column[] {
+  let cx = x;
+  return c.table.columns.map((col) => {
+    const w = COLUMN_SHARE[col.key] * width;
+    const out = { key: col.key, label: col.label, x: cx, width: w };
+    cx += w;
+    return out;
+  });
+}
+
+function headerRow(doc: PDFKit.PDFDocument, cols: Column[], x: number, y: number, width: number): number {
+  const h = 16;
+  doc.save().rect(x, y, width, h).fillColor(INK.fill).fill().restore();
+  for (const col of cols) {
+    textLine(doc, col.label, RIGHT_ALIGNED.has(col.key) ? col.x + col.width - 4 : col.x + 3, y + 4.8, HEAD, RIGHT_ALIGNED.has(col.key) ? 'end' : 'start');
+  }
+  rule(doc, x, x + width, y + h, INK.muted, 0.6);
+  return h;
+}
+
+/** One cell: a single line when it fits (fast path), else wrapped within the column. */
+function cell(doc: PDFKit.PDFDocument, text: string, col: Column, y: number, lines: number): void {
+  const inner = col.width - 6;
+  const t = printable(text);
+  const right = RIGHT_ALIGNED.has(col.key);
+  if (doc.widthOfString(t) <= inner) {
+    doc.text(t, right ? col.x + col.width - 3 - doc.widthOfString(t) : col.x + 3, y, { lineBreak: false });
+    return;
+  }
+  doc.text(t, col.x + 3, y, { width: inner, height: lines * doc.currentLineHeight(true) + 0.5, ellipsis: '…', align: right ? 'right' : 'left' });
+}
+
+function tablePages(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
+  doc.addPage();
+  const g = geometry(doc);
+  const x = g.left;
+  const width = g.contentWidth;
+  const cols = columns(c, x, width);
+  const nameCol = cols.find((k) => k.key === 'name')!;
+  const bottom = g.height - FOOTER_HEIGHT - 8;
+  const lineH = () => {
+    doc.font('regular').fontSize(CELL.size);
+    return doc.currentLineHeight(true);
+  };
+  const start = (continued: boolean) => {
+    let y = pageTop(doc, c.subtitle);
+    textLine(doc, continued ? 'All districts (continued)' : 'All districts', x, y, { size: 11, face: 'bold' });
+    y += 17;
+    return y + headerRow(doc, cols, x, y, width) + 2;
+  };
+  let y = start(false);
+  const lh = lineH();
+  c.table.rows.forEach((row, i) => {
+    doc.font('regular').fontSize(CELL.size);
+    const nameFits = doc.widthOfString(printable(row.name)) <= nameCol.width - 6;
+    const nameLines = nameFits ? 1 : Math.min(NAME_LINES, Math.ceil(measure(doc, row.name, nameCol.width - 6, CELL) / lh - 0.01));
+    const otherLines = cols.some((col) => col.key !== 'name' && (doc.font('regular').fontSize(CELL.size), doc.widthOfString(printable(row[col.key])) > col.width - 6)) ? 2 : 1;
+    const lines = Math.max(nameLines, otherLines);
+    const h = lines * lh + 2 * ROW_PAD;
+    if (y + h > bottom) {
+      doc.addPage();
+      y = start(true);
+    }
+    if (i % 2 === 1) doc.save().rect(x, y, width, h).fillColor('#FAF8F3').fill().restore();
+    doc.font('regular').fontSize(CELL.size).fillColor(INK.text);
+    for (const col of cols) cell(doc, row[col.key], col, y + ROW_PAD, lines);
+    y += h;
+  });
+  rule(doc, x, x + width, y, INK.muted, 0.6);
+  if (y + 14 < bottom) textLine(doc, `${c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`, x, y + 5, { size: 6.8, color: INK.muted });
+}
+
+export async function renderRegionPdf(c: RegionBriefContent): Promise<Buffer> {
+  const { doc, done } = createBriefDocument(c.paperSize, { title: `Region brief · run #${c.trace.runId}`, subject: `Crestwatch region brief, run #${c.trace.runId}` }, true);
+  summaryPage(doc, c);
+  tablePages(doc, c);
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    footer(doc, c.trace, i - range.start + 1, range.count);
+  }
+  doc.flushPages();
+  doc.end();
+  return done;
+}

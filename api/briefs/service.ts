@@ -1,0 +1,77 @@
+/**
+ * Briefs read published runs only: the latest, or one named by id that is published.
+ * Builds the brief content (district or region) from the run's stored estimates, the
+ * settings (paper size, time zone, alert limit) and the indicator catalogue; the PDF and
+ * the JSON view are both made from that content.
+ */
+import type { Knex } from 'knex';
+import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
+import { AppError, NotFoundError } from '../http/errors';
+import * as runs from '../runs/store';
+import { getSettings } from '../settings/service';
+import { districtBriefContent } from './district-content';
+import { renderDistrictPdf } from './pdf/district-pdf';
+import { renderRegionPdf } from './pdf/region-pdf';
+import { regionBriefContent, type PooledFit } from './region-content';
+import type { BriefSource, Indicator } from './trace';
+
+/** The published run a brief reads: `runId` when given (it must be published), else the latest. */
+export async function publishedRun(db: Knex, runId?: number): Promise<runs.RunRow> {
+  if (runId !== undefined) {
+    const run = await runs.findRun(db, runId);
+    if (!run || run.state !== 'published') throw new NotFoundError(`No published run ${runId}: briefs are made from published runs only.`, { runId });
+    return run;
+  }
+  const run = await runs.latestPublished(db);
+  if (!run) throw new AppError(404, 'no_published_run', 'Nothing has been published yet: a brief appears once a run is published.');
+  return run;
+}
+
+async function indicators(db: Knex): Promise<Map<string, Indicator>> {
+  const rows: { code: string; name: string; unit: string }[] = await db('indicators').select('code', 'name', 'unit');
+  return new Map(rows.map((r) => [r.code, { name: r.name, unit: r.unit }]));
+}
+
+export async function briefSource(db: Knex, run: runs.RunRow, generatedAt = new Date()): Promise<BriefSource> {
+  const [settings, catalogue] = await Promise.all([getSettings(db), indicators(db)]);
+  return { run, timeZone: settings.regionTimeZone, paperSize: settings.briefPaperSize, generatedAt, indicators: catalogue };
+}
+
+export async function districtBrief(db: Knex, code: string, runId?: number): Promise<DistrictBriefContent> {
+  const district = await db('districts').where({ code }).first('id', 'code', 'name');
+  if (!district) throw new NotFoundError(`No district with code ${code}`, { code });
+  const run = await publishedRun(db, runId);
+  const records = await runs.estimateRecords(db, run.id, Number(district.id));
+  const main = records.find((r) => r.variant === 'main');
+  if (!main) throw new AppError(404, 'not_in_run', `District ${code} has no estimate in published run #${run.id} (no data when it ran).`, { code, runId: run.id });
+  const note = (await runs.notesFor(db, run.id)).get(Number(district.id))?.note ?? null;
+  return districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note);
+}
+
+export async function regionBrief(db: Knex, runId?: number): Promise<RegionBriefContent> {
+  const run = await publishedRun(db, runId);
+  const previous = run.publishedAt ? await runs.latestPublished(db, { publishedAt: run.publishedAt }) : null;
+  const [records, districts, current, previousRows, settings, src] = await Promise.all([
+    runs.mainRecords(db, run.id),
+    db('districts').orderBy('code').select('code', 'name') as Promise<{ code: string; name: string }[]>,
+    runs.listEstimateRows(db, run.id),
+    previous ? runs.listEstimateRows(db, previous.id) : Promise.resolve(null),
+    getSettings(db),
+    briefSource(db, run),
+  ]);
+  return regionBriefContent(
+    src,
+    { records, districts, current, previous: previous && previousRows ? { runId: previous.id, rows: previousRows } : null, shiftPercent: settings.thresholdShiftPercent },
+    run.pooled as PooledFit | null,
+  );
+}
+
+export async function districtBriefPdf(db: Knex, code: string, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
+  const c = await districtBrief(db, code, runId);
+  return { filename: `crestwatch-${c.code}-run-${c.trace.runId}.pdf`, content: await renderDistrictPdf(c), runId: c.trace.runId };
+}
+
+export async function regionBriefPdf(db: Knex, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
+  const c = await regionBrief(db, runId);
+  return { filename: `crestwatch-region-run-${c.trace.runId}.pdf`, content: await renderRegionPdf(c), runId: c.trace.runId };
+}

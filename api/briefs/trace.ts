@@ -1,0 +1,62 @@
+/**
+ * What every brief page says about where its numbers came from (run, publish date, data
+ * version and hash, software version, generated on), and the model line.
+ */
+import type { BriefPaperSize, BriefTrace } from '../../lib/brief-types';
+import type { RunRow } from '../runs/store';
+import { formatDateTime, formatLevelPercent, shortHash } from './format';
+import { COVARIANCE_LABEL, inSentence, intervalMethodLabel } from './words';
+
+export interface Indicator {
+  name: string;
+  unit: string;
+}
+
+/** What a brief is built from besides the estimates: the run, the settings, the words for indicators. */
+export interface BriefSource {
+  run: RunRow;
+  timeZone: string;
+  paperSize: BriefPaperSize;
+  generatedAt: Date;
+  indicators: Map<string, Indicator>;
+}
+
+export function traceOf(src: BriefSource): BriefTrace {
+  const { run, timeZone } = src;
+  const publishedAt = run.publishedAt ? formatDateTime(run.publishedAt, timeZone) : 'not published';
+  const dataVersion = run.dataVersion === null ? 'unknown' : String(run.dataVersion);
+  const dataHash = shortHash(run.dataHash);
+  return {
+    runId: run.id,
+    publishedAt,
+    publishedAtIso: run.publishedAt,
+    dataVersion,
+    dataHash,
+    softwareVersion: run.softwareVersion,
+    generatedAt: formatDateTime(src.generatedAt, timeZone),
+    timeZone,
+    line: `Run #${run.id} · published ${publishedAt} · data version ${dataVersion} (hash ${dataHash}) · Crestwatch ${run.softwareVersion}`,
+  };
+}
+
+export function indicatorOf(src: BriefSource, code: string): Indicator {
+  return src.indicators.get(code) ?? { name: code, unit: '' };
+}
+
+function list(words: string[]): string {
+  if (words.length <= 1) return words.join('');
+  return `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
+}
+
+/** "Log–quadratic of CO2 emissions per person on real income per person, …" */
+export function modelLine(src: BriefSource, opts: { pooled: boolean; lag?: number | null }): string {
+  const { model, selection } = src.run.spec;
+  const emissions = indicatorOf(src, selection.emissions);
+  const driver = indicatorOf(src, selection.driver);
+  const form = `${model.transform === 'log' ? 'Log–' : 'Level '}${model.form}`;
+  const controls = selection.controls.length ? `, controlling for ${list(selection.controls.map((c) => inSentence(indicatorOf(src, c).name)))}` : '';
+  const covariance = opts.pooled ? `district and year fixed effects, ${COVARIANCE_LABEL.cluster}` : `${COVARIANCE_LABEL[model.covariance] ?? model.covariance}${opts.lag ? ` (lag ${opts.lag})` : ''}`;
+  const critical = model.criticalValue === 'normal' ? 'normal' : 't';
+  const units = [driver.unit && `${inSentence(driver.name)} in ${driver.unit}`, emissions.unit && `emissions in ${emissions.unit}`].filter(Boolean).join(', ');
+  return `${form} of ${inSentence(emissions.name)} on ${inSentence(driver.name)}${controls}; ${covariance}; ${formatLevelPercent(model.level)} ${intervalMethodLabel(model.intervalMethod)} intervals, ${critical} critical values, tests at α = ${model.alpha}; spec “${src.run.spec.name}”${units ? `; ${units}` : ''}.`;
+}

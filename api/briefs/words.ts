@@ -1,0 +1,71 @@
+/**
+ * The words of briefs (our own): standing and shape labels, the cautions of DOMAIN.md,
+ * and the names of models and covariance choices as a reader sees them.
+ */
+
+export const STANDING_LABEL: Record<string, string> = {
+  approaching: 'Approaching the threshold',
+  at_turn: 'At the threshold',
+  past_turn: 'Past the threshold',
+  no_turn: 'No turn in the data',
+  not_estimable: 'Not estimable',
+};
+
+/** Short forms for the region table. */
+export const STANDING_SHORT: Record<string, string> = {
+  approaching: 'Approaching',
+  at_turn: 'At threshold',
+  past_turn: 'Past threshold',
+  no_turn: 'No turn',
+  not_estimable: 'Not estimable',
+};
+
+/** The order standings are counted in on the region brief. */
+export const STANDING_ORDER = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'] as const;
+
+export const SHAPE_LABEL: Record<string, string> = {
+  inverted_u: 'Inverted U',
+  u: 'U',
+  increasing: 'Rising',
+  decreasing: 'Falling',
+  flat: 'Flat',
+};
+
+export function standingLabel(standing: string): string {
+  return STANDING_LABEL[standing] ?? standing;
+}
+
+export function shapeLabel(shape: string | null): string {
+  return shape ? (SHAPE_LABEL[shape] ?? shape) : 'Not estimated';
+}
+
+/** The cautions every brief carries (DOMAIN.md, "Cautions the product shows"). */
+export const CAUTIONS: readonly string[] = [
+  'The curve is a statistical association in past data, not a causal law or a forecast; thresholds move when data are revised.',
+  'Emissions can fall locally because production moved elsewhere; trade-adjusted (consumption-based) figures can tell a different story.',
+  'Short series, trending variables and serial correlation make estimates fragile; read the interval, not the point.',
+  'It does not replace statutory air-quality standards, the agency’s official methodology, or the judgement of qualified staff; local rules prevail.',
+];
+
+export const COVARIANCE_LABEL: Record<string, string> = {
+  classical: 'classical errors',
+  hc1: 'HC1 robust errors',
+  hc3: 'HC3 robust errors',
+  newey_west: 'Newey–West errors',
+  cluster: 'district-clustered errors',
+};
+
+export const FIELLER_KIND_LABEL: Record<string, string> = {
+  bounded: 'bounded',
+  two_rays: 'two rays',
+  whole_line: 'the whole line',
+};
+
+export function intervalMethodLabel(method: string): string {
+  return method === 'delta' ? 'delta-method' : 'Fieller';
+}
+
+/** A name inside a sentence: "Real income per person" → "real income per person", "CO2 emissions" unchanged. */
+export function inSentence(name: string): string {
+  return /^[A-Z][a-z]/.test(name) ? name.charAt(0).toLowerCase() + name.slice(1) : name;
+}
