@@ -8,8 +8,9 @@ import { levelPercent, METHOD_LABEL, notBoundedText } from '@/lib/estimate-words
 
 import { ChartFrame } from './chart-frame';
 import { ChartLegend, type LegendItem } from './chart-legend';
+import { loadDrawings } from './load-drawings';
 
-const CurveChartSvg = lazy(() => import('./chart-drawings').then((m) => ({ default: m.CurveChartSvg })));
+const CurveChartSvg = lazy(() => loadDrawings().then((m) => ({ default: m.CurveChartSvg })));
 
 /**
  * Observed years (emissions against income, log axes in real units), the fitted curve over

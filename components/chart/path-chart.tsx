@@ -8,8 +8,9 @@ import { levelPercent, METHOD_LABEL, notBoundedText } from '@/lib/estimate-words
 
 import { ChartFrame } from './chart-frame';
 import { ChartLegend, type LegendItem } from './chart-legend';
+import { loadDrawings } from './load-drawings';
 
-const PathChartSvg = lazy(() => import('./chart-drawings').then((m) => ({ default: m.PathChartSvg })));
+const PathChartSvg = lazy(() => loadDrawings().then((m) => ({ default: m.PathChartSvg })));
 
 /** Income over the years against the threshold line and its band; the projection dashed. */
 export function PathChart({ record }: { record: EstimateRecord }) {

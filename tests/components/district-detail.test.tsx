@@ -3,6 +3,7 @@ import { fireEvent, screen, waitFor, within } from 'expo-router/testing-library'
 import { CAUTION_TEXT } from '@/components/district/caution-note';
 import { ApiError, apiGet } from '@/lib/api-client';
 
+import { cardAnswers, estimateRecord } from './support/estimates';
 import { gappyDetail } from './support/fixtures';
 import { answerWith, never } from './support/mock-api';
 import { renderApp } from './support/render-app';
@@ -21,28 +22,29 @@ afterEach(() => mockedGet.mockReset());
 
 describe('district screen', () => {
   it('shows a loading skeleton first', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts/T02': never }));
+    mockedGet.mockImplementation(answerWith({ ...cardAnswers(estimateRecord({})), '/api/districts/T02/estimate': never, '/api/districts/T02': never }));
     renderApp('/district/T02');
     expect(await screen.findByTestId('district-detail-loading')).toBeTruthy();
     expect(screen.queryByTestId('series-table')).toBeNull();
   });
 
   it('shows the header, one row per year, and the caution', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts/T02': gappyDetail }));
+    mockedGet.mockImplementation(answerWith({ ...cardAnswers(estimateRecord({})), '/api/districts/T02': gappyDetail }));
     renderApp('/district/T02');
     expect(await screen.findByText('Bryn Ødegård')).toBeTruthy();
-    expect(screen.getByText('2001–2010 · 9 years of data · 1 gap year')).toBeTruthy();
+    expect(await screen.findByText('2001–2010 · 9 years of data · 1 gap year')).toBeTruthy();
     for (let year = 2001; year <= 2010; year++) expect(screen.getByTestId(`series-row-${year}`)).toBeTruthy();
     const row2001 = within(screen.getByTestId('series-row-2001'));
     expect(row2001.getByText('5.10')).toBeTruthy();
     expect(row2001.getByText('15,300')).toBeTruthy();
     expect(screen.getByText(CAUTION_TEXT)).toBeTruthy();
+    expect(screen.getByLabelText('How Crestwatch estimates')).toBeTruthy();
     // Units from the API appear in the legend.
     expect(screen.getByText(/constant currency units per person/)).toBeTruthy();
   });
 
   it('marks a year with no values as one "no data" band, not empty or zero cells', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts/T02': gappyDetail }));
+    mockedGet.mockImplementation(answerWith({ ...cardAnswers(estimateRecord({})), '/api/districts/T02': gappyDetail }));
     renderApp('/district/T02');
     const band = await screen.findByTestId('series-gap-row-2004');
     expect(within(band).getByText('no data this year')).toBeTruthy();
@@ -53,7 +55,7 @@ describe('district screen', () => {
   });
 
   it('marks a single missing value with its own "no data" cell', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts/T02': gappyDetail }));
+    mockedGet.mockImplementation(answerWith({ ...cardAnswers(estimateRecord({})), '/api/districts/T02': gappyDetail }));
     renderApp('/district/T02');
     const cell = await screen.findByTestId('series-gap-2007-emissions_pc');
     expect(within(cell).getByText('no data')).toBeTruthy();
@@ -64,7 +66,10 @@ describe('district screen', () => {
 
   it('says which code is unknown on a 404, without a Retry button', async () => {
     mockedGet.mockImplementation(
-      answerWith({ '/api/districts/ZZ9': new ApiError(404, 'not_found', 'No district ZZ9') }),
+      answerWith({
+        '/api/districts/ZZ9': new ApiError(404, 'not_found', 'No district ZZ9'),
+        '/api/districts/ZZ9/estimate': new ApiError(404, 'not_found', 'No district ZZ9'),
+      }),
     );
     renderApp('/district/ZZ9');
     expect(await screen.findByText('No district with code ZZ9')).toBeTruthy();
@@ -76,10 +81,12 @@ describe('district screen', () => {
     let calls = 0;
     mockedGet.mockImplementation(
       answerWith({
-        '/api/districts/T02': async () => {
+        ...cardAnswers(estimateRecord({})),
+        '/api/districts/T02': gappyDetail,
+        '/api/districts/T02/estimate': async () => {
           calls += 1;
           if (calls === 1) throw new ApiError(500, 'internal', 'Boom');
-          return gappyDetail;
+          return cardAnswers(estimateRecord({}))['/api/districts/T02/estimate'];
         },
       }),
     );
@@ -91,7 +98,7 @@ describe('district screen', () => {
 
   it('has a back link to the list on phones', async () => {
     mockedGet.mockImplementation(
-      answerWith({ '/api/districts/T02': gappyDetail, '/api/districts': { districts: [] } }),
+      answerWith({ ...cardAnswers(estimateRecord({})), '/api/districts/T02': gappyDetail, '/api/districts': { districts: [] } }),
     );
     const app = renderApp('/district/T02');
     await screen.findByText('Bryn Ødegård');
@@ -102,6 +109,10 @@ describe('district screen', () => {
   it('shows an empty state for a district without observations', async () => {
     mockedGet.mockImplementation(
       answerWith({
+        '/api/districts/T03/estimate': { district: { code: 'T03', name: 'Coldwater' }, run: null, main: null, variants: [], note: null },
+        '/api/districts/T03/history': { district: { code: 'T03', name: 'Coldwater' }, history: [] },
+        '/api/districts/T03/alerts?limit=20': { alerts: [] },
+        '/api/subscriptions': { subscriptions: [] },
         '/api/districts/T03': {
           district: { code: 'T03', name: 'Coldwater', firstYear: null, lastYear: null, nYears: 0 },
           indicators: gappyDetail.indicators,
@@ -112,5 +123,6 @@ describe('district screen', () => {
     renderApp('/district/T03');
     expect(await screen.findByTestId('district-series-empty')).toBeTruthy();
     expect(screen.getByText('No data yet')).toBeTruthy();
+    expect(screen.getByTestId('no-published-estimate')).toBeTruthy();
   });
 });

@@ -1,7 +1,10 @@
-import { act, fireEvent, screen, waitFor } from 'expo-router/testing-library';
+import { act, fireEvent, screen, waitFor, within } from 'expo-router/testing-library';
 
 import { ApiError, apiGet } from '@/lib/api-client';
 
+import { resetRegionFilter } from '@/hooks/use-region-filter';
+
+import { cardAnswers, estimateRecord, run, summaryOf } from './support/estimates';
 import { districtSummaries, gappyDetail } from './support/fixtures';
 import { answerWith, never } from './support/mock-api';
 import { renderApp } from './support/render-app';
@@ -17,7 +20,25 @@ jest.mock('expo-router/head', () => ({ __esModule: true, default: () => null }))
 
 const mockedGet = apiGet as jest.MockedFunction<typeof apiGet>;
 
-afterEach(() => mockedGet.mockReset());
+afterEach(() => {
+  mockedGet.mockReset();
+  resetRegionFilter();
+});
+
+// T01 approaching 18% below, crossing by 2031; T02 past the turn 40% above with an
+// unbounded interval; T03 has no estimate (counts as not estimable).
+const approaching = summaryOf(estimateRecord({}));
+const pastUnbounded = { ...approaching, standing: 'past_turn' as const, gapPercent: 40, intervalBounded: false, fiellerKind: 'whole_line' as const, thresholdLo: null, thresholdHi: null, projectionStatus: 'already_past' as const, crossingYear: 2012, crossingEarliest: null, crossingLatest: null };
+const withEstimates = {
+  publishedRunId: 7,
+  districts: [
+    { ...districtSummaries[0], estimate: approaching },
+    { ...districtSummaries[1], estimate: pastUnbounded },
+    { ...districtSummaries[2], estimate: null },
+  ],
+};
+const region = { run, counts: {}, pooled: null, districts: [] };
+const rowOrder = () => screen.getAllByTestId(/^district-row-/).map((r) => r.props.testID);
 
 describe('region list', () => {
   it('shows skeleton rows while the list loads', async () => {
@@ -29,23 +50,81 @@ describe('region list', () => {
     expect(screen.queryByTestId('district-list')).toBeNull();
   });
 
-  it('lists every district with code, coverage and latest values with units', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts': { districts: districtSummaries } }));
+  it('lists every district with its standing, gap, crossing and last data year', async () => {
+    mockedGet.mockImplementation(answerWith({ '/api/districts': withEstimates, '/api/region': region }));
     renderApp('/');
     expect(await screen.findByText('Ashgrove')).toBeTruthy();
     expect(screen.getByText('3 districts')).toBeTruthy();
     expect(screen.getByText('T01')).toBeTruthy();
-    expect(screen.getByText('6.25')).toBeTruthy();
-    expect(screen.getByText('18,400')).toBeTruthy();
-    expect(screen.getAllByText('t CO₂ per person').length).toBeGreaterThan(0);
-    // T02 has one year without data inside its span, and no emissions value in its latest year.
-    expect(screen.getByText('2001–2010 · 1 gap year')).toBeTruthy();
-    expect(screen.getByText('no data')).toBeTruthy();
-    // T03 has nothing yet.
-    expect(screen.getByText('No data yet')).toBeTruthy();
-    expect(screen.getByText('No values yet')).toBeTruthy();
-    const row = screen.getByTestId('district-row-T01');
+    const t01 = within(screen.getByTestId('district-row-T01'));
+    expect(t01.getByText('Approaching')).toBeTruthy();
+    expect(t01.getByTestId('standing-mark-approaching', { includeHiddenElements: true })).toBeTruthy();
+    expect(t01.getByText('−18%')).toBeTruthy();
+    expect(t01.getByText('by 2031')).toBeTruthy();
+    expect(t01.getByText('Data to 2010')).toBeTruthy();
+    const t02 = within(screen.getByTestId('district-row-T02'));
+    expect(t02.getByText('Past the turn')).toBeTruthy();
+    expect(t02.getByText('unbounded')).toBeTruthy();
+    expect(t02.getByText('passed 2012')).toBeTruthy();
+    // T03 has neither data nor an estimate.
+    const t03 = within(screen.getByTestId('district-row-T03'));
+    expect(t03.getByText('No data yet')).toBeTruthy();
+    expect(t03.getByText('Not estimable')).toBeTruthy();
+    const row = screen.getByTestId('district-row-T02');
     expect(row.props.accessibilityRole ?? row.props.role).toBe('link');
+    // The row's spoken label carries the standing in words and the run's level.
+    expect(row.props.accessibilityLabel).toMatch(/Past the turn, income 40% above the threshold, interval not bounded at 95%/);
+    // Counts per standing at the top.
+    expect(screen.getByLabelText('Approaching: 1 district')).toBeTruthy();
+    expect(screen.getByLabelText('Past the turn: 1 district')).toBeTruthy();
+    expect(screen.getByLabelText('Not estimable: 1 district')).toBeTruthy();
+    expect(screen.getByLabelText('At the turn: 0 districts')).toBeTruthy();
+  });
+
+  it('sorts by gap, name and crossing year', async () => {
+    const far = { ...approaching, gapPercent: -60, crossingYear: 2029 };
+    const data = {
+      publishedRunId: 7,
+      districts: [
+        { ...districtSummaries[0], estimate: far },
+        { ...districtSummaries[1], estimate: pastUnbounded },
+        { ...districtSummaries[2], estimate: { ...approaching, gapPercent: -5, crossingYear: 2040 } },
+      ],
+    };
+    mockedGet.mockImplementation(answerWith({ '/api/districts': data, '/api/region': region }));
+    renderApp('/');
+    await screen.findByText('Ashgrove');
+    expect(rowOrder()).toEqual(['district-row-T01', 'district-row-T02', 'district-row-T03']);
+    fireEvent.press(screen.getByTestId('sort-gap'));
+    // Closest to the threshold first: 5%, 40%, 60%.
+    expect(rowOrder()).toEqual(['district-row-T03', 'district-row-T02', 'district-row-T01']);
+    fireEvent.press(screen.getByTestId('sort-crossing'));
+    // Projected crossings ahead first (2029, 2040); one already passed has none ahead.
+    expect(rowOrder()).toEqual(['district-row-T01', 'district-row-T03', 'district-row-T02']);
+    fireEvent.press(screen.getByTestId('sort-name'));
+    expect(rowOrder()).toEqual(['district-row-T01', 'district-row-T02', 'district-row-T03']);
+  });
+
+  it('filters by standing and by shape, and clears both', async () => {
+    const rising = { ...approaching, standing: 'no_turn' as const, shape: 'increasing' as const };
+    const data = { publishedRunId: 7, districts: [withEstimates.districts[0], withEstimates.districts[1], { ...districtSummaries[2], estimate: rising }] };
+    mockedGet.mockImplementation(answerWith({ '/api/districts': data, '/api/region': region }));
+    renderApp('/');
+    await screen.findByText('Ashgrove');
+    fireEvent.press(screen.getByTestId('standing-filter-past_turn'));
+    expect(rowOrder()).toEqual(['district-row-T02']);
+    expect(screen.getByText('1 of 3 districts shown')).toBeTruthy();
+    fireEvent.press(screen.getByTestId('standing-filter-approaching'));
+    expect(rowOrder()).toEqual(['district-row-T01', 'district-row-T02']);
+    fireEvent.press(screen.getByTestId('standing-filter-approaching'));
+    fireEvent.press(screen.getByTestId('standing-filter-past_turn'));
+    fireEvent.press(screen.getByTestId('shape-filter-toggle'));
+    fireEvent.press(screen.getByTestId('shape-filter-increasing'));
+    expect(rowOrder()).toEqual(['district-row-T03']);
+    fireEvent.press(screen.getByTestId('standing-filter-at_turn'));
+    expect(screen.getByTestId('district-list-no-match')).toBeTruthy();
+    fireEvent.press(screen.getByText('Clear search and filters'));
+    expect(rowOrder()).toHaveLength(3);
   });
 
   it('filters by name or code, ignoring case and accents, and says when nothing matches', async () => {
@@ -57,7 +136,7 @@ describe('region list', () => {
     fireEvent.changeText(search, 'odegard');
     expect(screen.getByText('Bryn Ødegård')).toBeTruthy();
     expect(screen.queryByText('Ashgrove')).toBeNull();
-    expect(screen.getByText('1 of 3 districts match')).toBeTruthy();
+    expect(screen.getByText('1 of 3 districts shown')).toBeTruthy();
 
     fireEvent.changeText(search, 't03');
     expect(screen.getByText('Coldwater')).toBeTruthy();
@@ -66,7 +145,7 @@ describe('region list', () => {
     fireEvent.changeText(search, 'zz');
     expect(screen.getByTestId('district-list-no-match')).toBeTruthy();
     expect(screen.getByText('Nothing matches “zz”')).toBeTruthy();
-    fireEvent.press(screen.getByText('Clear the search'));
+    fireEvent.press(screen.getByText('Clear search and filters'));
     expect(screen.getByText('Ashgrove')).toBeTruthy();
     expect(screen.getByText('3 districts')).toBeTruthy();
   });
@@ -112,12 +191,12 @@ describe('region list', () => {
 
   it('opens a district from its row', async () => {
     mockedGet.mockImplementation(
-      answerWith({ '/api/districts': { districts: districtSummaries }, '/api/districts/T02': gappyDetail }),
+      answerWith({ '/api/districts': { districts: districtSummaries }, '/api/districts/T02': gappyDetail, ...cardAnswers(estimateRecord({})) }),
     );
     const app = renderApp('/');
     fireEvent.press(await screen.findByTestId('district-row-T02'));
     await waitFor(() => expect(app.getPathname()).toBe('/district/T02'));
     expect(await screen.findByTestId('district-name')).toBeTruthy();
-    expect(mockedGet).toHaveBeenCalledWith('/api/districts/T02', expect.anything());
+    expect(mockedGet).toHaveBeenCalledWith('/api/districts/T02/estimate', expect.anything());
   });
 });

@@ -143,3 +143,17 @@ export function variants(): VariantSummary[] {
 export function estimateResponse(main: EstimateRecord | null, over: Partial<DistrictEstimateResponse> = {}): DistrictEstimateResponse {
   return { district: { code: 'T02', name: 'Bryn Ødegård' }, run, main, variants: main ? variants() : [], note: null, ...over };
 }
+
+/** Every GET the card makes for T02, answered; override any path. */
+export function cardAnswers(main: EstimateRecord | null, over: Record<string, unknown> = {}): Record<string, unknown> {
+  return {
+    '/api/districts/T02/estimate': estimateResponse(main),
+    '/api/districts/T02/history': {
+      district: { code: 'T02', name: 'Bryn Ødegård' },
+      history: main ? [{ ...summaryOf(main), runId: 7, publishedAt: run.publishedAt, dataVersion: 3 }] : [],
+    },
+    '/api/districts/T02/alerts?limit=20': { alerts: [] },
+    '/api/subscriptions': { subscriptions: [] },
+    ...over,
+  };
+}
