@@ -1,9 +1,22 @@
 // What each of the card's charts draws, decided apart from drawing: domains, ticks, the
 // band (only for a bounded interval), the curve to use (the regional one for a substitute)
 // and the projected path. Pure, so tests can check the rules without an SVG.
-import { bandOf, thresholdOf } from './chart-summary';
 import { clamp, incomeDomain, logTicks, padLog } from './chart-scale';
 import type { EstimateRecord, XY } from './estimate-types';
+
+/** Whether the chart may draw a bounded band for the threshold: only a bounded interval. */
+export function bandOf(r: EstimateRecord): { lo: number; hi: number } | null {
+  const s = r.standing;
+  if (!r.threshold || s.intervalBounded !== true || s.levelLo === null || s.levelHi === null) return null;
+  if (!(s.levelLo > 0) || !(s.levelHi > s.levelLo)) return null;
+  return { lo: s.levelLo, hi: s.levelHi };
+}
+
+/** The threshold a chart marks, if it has a positive one in real units. */
+export function thresholdOf(r: EstimateRecord): number | null {
+  const v = r.threshold?.level ?? null;
+  return v !== null && v > 0 && Number.isFinite(v) ? v : null;
+}
 
 export type CurveChartModel = {
   xDomain: [number, number];

@@ -1,14 +1,24 @@
 // Axis helpers for the card's charts: log-scale domains and ticks in real units.
 
-/** Ticks at 1, 2 and 5 times powers of ten inside [min, max]; at least two. */
+/** Mantissas tried in turn until a range gets at least three ticks. */
+const MANTISSAS = [
+  [1, 2, 5],
+  [1, 2, 3, 5, 7],
+];
+
+/** Ticks at 1-2-5 (else 1-2-3-5-7) times powers of ten inside [min, max]. */
 export function logTicks(min: number, max: number): number[] {
   if (!(min > 0) || !(max > min)) return min > 0 ? [min] : [];
-  const out: number[] = [];
-  for (let p = Math.floor(Math.log10(min)); p <= Math.ceil(Math.log10(max)); p++) {
-    for (const m of [1, 2, 5]) {
-      const v = m * 10 ** p;
-      if (v >= min * 0.999 && v <= max * 1.001) out.push(v);
+  let out: number[] = [];
+  for (const mantissas of MANTISSAS) {
+    out = [];
+    for (let p = Math.floor(Math.log10(min)); p <= Math.ceil(Math.log10(max)); p++) {
+      for (const m of mantissas) {
+        const v = m * 10 ** p;
+        if (v >= min * 0.999 && v <= max * 1.001) out.push(v);
+      }
     }
+    if (out.length >= 3) return out;
   }
   if (out.length >= 2) return out;
   // A narrow range (less than ×2): ticks at its ends and middle, rounded to 2 digits.
@@ -34,8 +44,9 @@ export function padLog(lo: number, hi: number, factor = 1.08): [number, number] 
 
 /**
  * The x range a chart shows: the observed incomes, widened to include the threshold (and
- * the ends of a bounded band) when they lie beyond it, but never past `maxStretch` times
- * the observed range on either side (an absurd interval end is cut at the frame).
+ * the ends of a bounded band) when they lie beyond it by at most `maxStretch` times; a value
+ * further out widens nothing (the chart's text summary says it lies off the chart), and a
+ * band end out there is cut at the frame.
  */
 export function incomeDomain(observed: number[], extra: (number | null)[], maxStretch = 3): [number, number] {
   const finite = observed.filter((v) => v > 0 && Number.isFinite(v));
@@ -45,9 +56,9 @@ export function incomeDomain(observed: number[], extra: (number | null)[], maxSt
   const floor = lo / maxStretch;
   const ceil = hi * maxStretch;
   for (const v of extra) {
-    if (v === null || !(v > 0) || !Number.isFinite(v)) continue;
-    lo = Math.min(lo, Math.max(v, floor));
-    hi = Math.max(hi, Math.min(v, ceil));
+    if (v === null || !(v > 0) || !Number.isFinite(v) || v < floor || v > ceil) continue;
+    lo = Math.min(lo, v);
+    hi = Math.max(hi, v);
   }
   return padLog(lo, hi);
 }

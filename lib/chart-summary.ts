@@ -1,28 +1,19 @@
 // Text summaries of the card's two charts, for screen readers and as the visible caption
 // "In words" under each chart. Pure functions of the published record.
+import { bandOf, curveChartModel, pathChartModel, thresholdOf } from './chart-model';
 import type { EstimateRecord } from './estimate-types';
 import { formatLevel, intervalText, levelPercent, METHOD_LABEL, notBoundedText, SHAPE_LABEL } from './estimate-words';
 import { formatEmissions } from './format';
 
-/** Whether the chart may draw a bounded band for the threshold: only a bounded interval. */
-export function bandOf(r: EstimateRecord): { lo: number; hi: number } | null {
-  const s = r.standing;
-  if (!r.threshold || s.intervalBounded !== true || s.levelLo === null || s.levelHi === null) return null;
-  if (!(s.levelLo > 0) || !(s.levelHi > s.levelLo)) return null;
-  return { lo: s.levelLo, hi: s.levelHi };
-}
-
-/** The threshold a chart marks, if it has a positive one in real units. */
-export function thresholdOf(r: EstimateRecord): number | null {
-  const v = r.threshold?.level ?? null;
-  return v !== null && v > 0 && Number.isFinite(v) ? v : null;
-}
-
-function thresholdWords(r: EstimateRecord): string {
+/** The threshold as the chart shows it; `drawn` says whether it fell inside the frame. */
+function thresholdWords(r: EstimateRecord, drawn: boolean): string {
   const x = thresholdOf(r);
   if (x === null) return 'No positive threshold is marked.';
   const noun = r.threshold?.kind === 'trough' ? 'low point' : 'turning point';
   const where = r.threshold?.extrapolated ? ', beyond the observed incomes' : '';
+  if (!drawn) {
+    return `The ${noun} lies at ${formatLevel(x)} per person${where}, too far from the observed incomes to fall inside the chart.`;
+  }
   const band = bandOf(r);
   const method = METHOD_LABEL[r.standing.intervalMethod];
   if (band) {
@@ -46,7 +37,7 @@ export function curveChartSummary(r: EstimateRecord): string {
   if (r.status === 'substitute') parts.push('The district’s own series is too short: the regional pooled curve stands in as the fitted line.');
   else if (r.curve.length > 0 && r.shape) parts.push(`The fitted curve over the observed incomes: ${SHAPE_LABEL[r.shape.shape].toLowerCase()}.`);
   else parts.push('No fitted curve: the district is not estimable in this run.');
-  if (r.status !== 'not_estimable') parts.push(thresholdWords(r));
+  if (r.status !== 'not_estimable') parts.push(thresholdWords(r, curveChartModel(r).threshold !== null));
   parts.push(`Latest year ${last.year} highlighted: income ${formatLevel(last.x)}, emissions ${formatEmissions(last.y)} t per person.`);
   if (r.status === 'ok' && r.pooledCurve.length > 0) parts.push('The regional pooled curve is drawn faint for reference.');
   return parts.join(' ');
@@ -60,7 +51,7 @@ export function pathChartSummary(r: EstimateRecord): string {
   const parts = [
     `Real income per person by year on a log scale, ${first.year}–${last.year}: from ${formatLevel(first.x)} to ${formatLevel(last.x)}.`,
   ];
-  if (r.status !== 'not_estimable') parts.push(thresholdWords(r));
+  if (r.status !== 'not_estimable') parts.push(thresholdWords(r, pathChartModel(r).threshold !== null));
   const p = r.projection;
   if (p && r.trendPerYear !== null) {
     const pct = (Math.exp(r.trendPerYear) - 1) * 100;

@@ -111,13 +111,15 @@ export function intervalText(kind: FiellerKind | null, lo: number | null, hi: nu
 export function gapWords(gapPercent: number): string {
   const rounded = Math.round(gapPercent);
   if (rounded === 0) return 'level with';
+  if (gapPercent >= 9900) return 'over 100 times';
   if (gapPercent >= 200) return `${(1 + gapPercent / 100).toFixed(1)} times`;
   return `${Math.abs(rounded)}% ${gapPercent < 0 ? 'below' : 'above'}`;
 }
 
-/** Signed short gap for tables: "−18%", "+72%", "×4.0". */
+/** Signed short gap for tables: "−18%", "+72%", "×4.0", ">×100". */
 export function gapShort(gapPercent: number | null): string {
   if (gapPercent === null) return '—';
+  if (gapPercent >= 9900) return '>×100';
   if (gapPercent >= 200) return `×${(1 + gapPercent / 100).toFixed(1)}`;
   const r = Math.round(gapPercent);
   if (r === 0) return '0%';

@@ -1,4 +1,4 @@
-import { ScrollView, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 
 import { space } from '@/components/theme';
 import { STANDINGS, type Standing } from '@/lib/estimate-types';
@@ -16,8 +16,7 @@ export type StandingCountsProps = {
 /** Districts per standing, at the top of the region list; each count also filters the list. */
 export function StandingCounts({ counts, selected, onToggle }: StandingCountsProps) {
   return (
-    <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.row} accessibilityLabel="Districts per standing; choose to filter">
-      <View style={styles.row} role="group" aria-label="Filter by standing" testID="standing-counts">
+    <View style={styles.row} role="group" aria-label="Districts per standing; choose one or more to filter" testID="standing-counts">
         {STANDINGS.map((s) => (
           <Chip
             key={s}
@@ -29,11 +28,10 @@ export function StandingCounts({ counts, selected, onToggle }: StandingCountsPro
             leading={<StandingMark standing={s} size={10} />}
           />
         ))}
-      </View>
-    </ScrollView>
+    </View>
   );
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', gap: space.sm, paddingVertical: space.xxs },
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
 });

@@ -3,6 +3,7 @@
 // log ticks in real units. Inputs follow the engine's output shape.
 import { curveChartModel, pathChartModel } from '@/lib/chart-model';
 import { formatTick, logTicks } from '@/lib/chart-scale';
+import { curveChartSummary } from '@/lib/chart-summary';
 
 import { estimateRecord, notEstimableRecord, wholeLineRecord } from './support/estimates';
 
@@ -83,7 +84,7 @@ describe('path chart model', () => {
 describe('log ticks', () => {
   it('uses 1-2-5 steps inside the range', () => {
     expect(logTicks(8000, 60000)).toEqual([10000, 20000, 50000]);
-    expect(logTicks(3, 12)).toEqual([5, 10]);
+    expect(logTicks(3, 12)).toEqual([3, 5, 7, 10]);
   });
   it('falls back to ends and middle in a narrow range', () => {
     expect(logTicks(6.1, 8.3)).toEqual([6.1, 7.1, 8.3]);
@@ -93,5 +94,18 @@ describe('log ticks', () => {
     expect(formatTick(1500000)).toBe('1.5M');
     expect(formatTick(5)).toBe('5');
     expect(formatTick(0.5)).toBe('0.5');
+  });
+});
+
+describe('a threshold far outside the observed incomes', () => {
+  it('widens nothing, is not marked, and the summary says it lies off the chart', () => {
+    const r = estimateRecord({});
+    const far = { ...r, threshold: { ...r.threshold!, level: 119, extrapolated: true }, standing: { ...r.standing, intervalBounded: false, levelLo: null, levelHi: null } };
+    const m = curveChartModel(far);
+    expect(m.threshold).toBeNull();
+    expect(m.band).toBeNull();
+    // The frame stays around the observed incomes (14,000–29,540, padded by 8%).
+    expect(m.xDomain[0]).toBeCloseTo(14000 / 1.08, 6);
+    expect(curveChartSummary(far)).toMatch(/The turning point lies at 119 per person, beyond the observed incomes, too far from the observed incomes to fall inside the chart\./);
   });
 });

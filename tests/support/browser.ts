@@ -10,6 +10,12 @@ import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
 import { ensureDemoAccounts } from '../../api/people/service';
+import type { Jobs } from '../../api/jobs/boss';
+import { loadConfig } from '../../api/config';
+import { startMailCatcher, type MailCatcher } from '../../api/mail/catcher';
+import { createMailer } from '../../api/mail/mailer';
+import { testJobs, workIn } from './jobs';
+import { publishDefaultRun } from './published-run';
 import { testApp } from './test-app';
 import { freshDatabase, type TestDatabase } from './test-db';
 
@@ -33,14 +39,33 @@ export interface Harness {
   close(): Promise<void>;
 }
 
-export async function startHarness(): Promise<Harness> {
+export interface HarnessOptions {
+  /** Run the default spec over the seeded districts and publish it before the browser starts. */
+  publishRun?: boolean;
+  /** Keep pg-boss workers running in this process, so runs started from the app complete. */
+  jobs?: boolean;
+  /** Send mail through the local catcher (it stores each message where the mailbox screen reads it). */
+  mailCatcher?: boolean;
+}
+
+export async function startHarness(options: HarnessOptions = {}): Promise<Harness> {
   if (!fs.existsSync(path.join(webDir, 'index.html'))) {
     throw new Error('dist/ has no web build: run `npm test` (it builds) or `npm run build:web` first');
   }
   const t = await freshDatabase();
   await seedDemoIfEmpty(t.db);
   await ensureDemoAccounts(t.db);
-  const app = testApp(t.db, { webDir });
+  const catcher: MailCatcher | null = options.mailCatcher ? await startMailCatcher(t.db, 0) : null;
+  const app = catcher
+    ? testApp(t.db, { webDir, mailCatcherPort: catcher.port }, createMailer({ ...loadConfig({ CRESTWATCH_MODE: 'test' }), mailCatcherPort: catcher.port }))
+    : testApp(t.db, { webDir });
+  if (options.publishRun) await publishDefaultRun(app, t.url);
+  let jobs: Jobs | null = null;
+  if (options.jobs) {
+    jobs = await testJobs(t.url);
+    app.locals.ctx.jobs = jobs;
+    await workIn(app.locals.ctx, jobs);
+  }
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -62,7 +87,9 @@ export async function startHarness(): Promise<Harness> {
     })
     .catch(async (err: Error) => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await jobs?.stop();
       await app.locals.close();
+      await catcher?.stop();
       await t.drop();
       throw err;
     });
@@ -90,7 +117,9 @@ export async function startHarness(): Promise<Harness> {
         server.close(() => resolve());
         server.closeAllConnections();
       });
+      await jobs?.stop();
       await app.locals.close();
+      await catcher?.stop();
       await t.drop();
     },
   };
