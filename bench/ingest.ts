@@ -12,7 +12,8 @@
  * Prints both times, the ratio (goal ≤ 2×), the route's own phases, and the peak RSS of
  * this process, which holds the server and the client (goal < 300 MB).
  *
- * Options: --rounds N (default 2; the best round is reported), --keep-cluster.
+ * Options: --rounds N (default 3; the fastest \copy and the fastest upload are compared,
+ * and the median of the per-round ratios is printed beside), --keep-cluster.
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
@@ -40,7 +41,7 @@ function arg(name: string, fallback: number): number {
   const i = process.argv.indexOf(`--${name}`);
   return i >= 0 ? Number(process.argv[i + 1]) : fallback;
 }
-const ROUNDS = arg('rounds', 2);
+const ROUNDS = arg('rounds', 3);
 
 /** mulberry32: small seeded uniform generator. */
 function rng(seed: number): () => number {
@@ -188,16 +189,20 @@ async function main(): Promise<void> {
       rounds.push(r);
       console.log(`round ${i}: \\copy ${(r.copyMs / 1000).toFixed(2)} s, upload ${(r.uploadMs / 1000).toFixed(2)} s`);
     }
-    const best = rounds.reduce((a, b) => (b.uploadMs / b.copyMs < a.uploadMs / a.copyMs ? b : a));
+    // Least-disturbed figures: the fastest \copy and the fastest upload over the rounds.
+    const best = rounds.reduce((a, b) => (b.uploadMs < a.uploadMs ? b : a));
+    const bestCopyMs = Math.min(...rounds.map((r) => r.copyMs));
+    const ratios = rounds.map((r) => r.uploadMs / r.copyMs).sort((a, b) => a - b);
+    const median = ratios[Math.floor((ratios.length - 1) / 2)];
     const rssMb = (process.resourceUsage().maxRSS * 1024) / (1024 * 1024);
     const s = (ms: number | undefined) => `${((ms ?? 0) / 1000).toFixed(2)} s`;
     const rows = DISTRICTS * INDICATORS.length * YEARS;
     console.log(`
 ingest bench: ${rows.toLocaleString('en')} rows (${DISTRICTS.toLocaleString('en')} districts × ${INDICATORS.length} indicators × ${YEARS} years), ${(bytes / 1024 / 1024).toFixed(1)} MB; ${os.cpus().length} cores, load ${os.loadavg()[0].toFixed(2)}
-  psql \\copy into a bare table with the same key   ${s(best.copyMs)}
+  psql \\copy into a bare table with the same key   ${s(bestCopyMs)}
   POST /api/uploads?commit=true (upload → checked → committed)   ${s(best.uploadMs)}
       receive ${s(best.timings.receiveMs)}, read + check rows + COPY to staging ${s(best.timings.readMs)}, set-based checks ${s(best.timings.checkMs)}, merge ${s(best.timings.mergeMs)}${best.timings.bulkPath ? ' (bulk path)' : ''}; ${best.inserted.toLocaleString('en')} values inserted
-  ratio upload / \\copy   ${(best.uploadMs / best.copyMs).toFixed(2)}×   (goal ≤ 2×; best of ${ROUNDS} round${ROUNDS > 1 ? 's' : ''})
+  ratio upload / \\copy   ${(best.uploadMs / bestCopyMs).toFixed(2)}×   (goal ≤ 2×; fastest of each over ${ROUNDS} round${ROUNDS > 1 ? 's' : ''}; per-round median ${median.toFixed(2)}×)
   peak RSS of this process (server and client)   ${rssMb.toFixed(0)} MB   (goal < 300 MB; ${best.rssBeforeMb.toFixed(0)} MB before the upload, ${best.rssPeakMb.toFixed(0)} MB at most during it)`);
   } finally {
     standIn.kill('SIGTERM');

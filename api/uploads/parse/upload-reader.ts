@@ -8,12 +8,12 @@
  * with a problem is not staged; the problems say why. Checks that need the stored data
  * (new districts, changes against stored values, derived series) run in SQL afterwards.
  */
-import type { UploadOptions } from '../schema';
 import type { ProblemList } from '../problems';
 import * as cells from './cells';
 import { CsvByteTokenizer, fieldText, type RecordSink, type RecordView, type TokenizerProblem } from './csv-bytes';
-import { derivedReason, detectDelimiter, readHeader, type Format, type HeaderLayout, type IndicatorRef } from './header';
+import { derivedReason, detectDelimiter, readHeader, type HeaderLayout } from './header';
 import { KeySet } from './key-set';
+import type { CatalogueEntry, DistrictSeen, DuplicateRef, ReaderContext, ReadSummary } from './read-summary';
 import { checkDistrictCode, checkDistrictName, checkNumber, checkYear, clip, MAX_YEAR as MAX_Y, MIN_YEAR as MIN_Y } from './values';
 
 // Module-local bindings for the per-cell hot path (imported bindings are getters under tsx).
@@ -26,54 +26,9 @@ const NEGATIVE = cells.NumberKind.Negative;
 const INVALID = cells.NumberKind.Invalid;
 const SLOW = cells.NumberKind.Slow;
 
-export interface CatalogueEntry extends IndicatorRef {
-  mustBePositive: boolean;
-}
-
-export interface DistrictSeen {
-  code: string;
-  firstLine: number;
-  rows: number;
-  /** The first non-empty name given for it, with its line. */
-  name: string | null;
-  nameLine: number | null;
-  /** A name cell for it was refused (so "unknown district" would say nothing new). */
-  nameRefused: boolean;
-}
-
-export interface ReadSummary {
-  format: Format | null;
-  delimiter: string | null;
-  rowsRead: number;
-  blankLines: number;
-  /** Values read (long: one a row; wide: the non-empty indicator cells). */
-  values: number;
-  staged: number;
-  districts: DistrictSeen[];
-  firstYear: number | null;
-  lastYear: number | null;
-  /** True when reading stopped early (bad header, binary data, an open quote …). */
-  fatal: boolean;
-  /** 1-based columns of the header, once it has been read. */
-  columns: { district: number; name: number | null; names: string[] } | null;
-}
-
-export interface ReaderContext {
-  catalogue: Map<string, CatalogueEntry>;
-  options: UploadOptions;
-  currentYear: number;
-  problems: ProblemList;
-}
+export type { CatalogueEntry, DistrictSeen, DuplicateRef, ReaderContext, ReadSummary } from './read-summary';
 
 type Seen = DistrictSeen & { index: number; bytes: Buffer; keys: Int32Array };
-
-/** A duplicate key whose first line is looked up in the staged rows. */
-export interface DuplicateRef {
-  problemIndex: number;
-  district: string;
-  indicatorId: number;
-  year: number;
-}
 
 const TAB = 9;
 const LF = 10;
@@ -82,7 +37,8 @@ export class UploadReader implements RecordSink {
   private tokenizer: CsvByteTokenizer | null = null;
   private head: Buffer[] = [];
   private headBytes = 0;
-  private first = true;
+  /** The first bytes, held until there are three to look for a byte-order mark (null once decided). */
+  private lead: Buffer | null = Buffer.alloc(0);
   private layout: HeaderLayout | null = null;
   private readonly out: cells.OutBuffer = new OutBuffer();
   private readonly districts = new Map<string, Seen>();
@@ -122,21 +78,42 @@ export class UploadReader implements RecordSink {
   /** Feed a chunk of the file; returns COPY text for the rows it completed. */
   push(chunk: Buffer): Buffer | null {
     if (this.summary.fatal) return null;
-    if (this.first && chunk.length) {
-      this.first = false;
-      if ((chunk[0] === 0xff && chunk[1] === 0xfe) || (chunk[0] === 0xfe && chunk[1] === 0xff)) {
-        this.stop({ line: 1, column: null, code: 'utf16', reason: 'the file is UTF-16 encoded: save it as UTF-8 (with or without BOM)' });
+    if (this.lead !== null) {
+      const all = this.lead.length ? Buffer.concat([this.lead, chunk]) : chunk;
+      if (all.length < 3) {
+        this.lead = Buffer.from(all);
         return null;
       }
-      if (chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) chunk = chunk.subarray(3);
+      this.lead = null;
+      const rest = this.byteOrderMark(all);
+      if (!rest) return null;
+      chunk = rest;
     }
+    this.feed(chunk);
+    return this.out.take();
+  }
+
+  /** The bytes after a UTF-8 byte-order mark; null (and a problem) for UTF-16. */
+  private byteOrderMark(b: Buffer): Buffer | null {
+    if ((b[0] === 0xff && b[1] === 0xfe) || (b[0] === 0xfe && b[1] === 0xff)) {
+      this.stop({ line: 1, column: null, code: 'utf16', reason: 'the file is UTF-16 encoded: save it as UTF-8 (with or without BOM)' });
+      return null;
+    }
+    return b[0] === 0xef && b[1] === 0xbb && b[2] === 0xbf ? b.subarray(3) : b;
+  }
+
+  private feed(chunk: Buffer): void {
     if (this.tokenizer) this.tokenizer.write(chunk);
     else this.holdHead(chunk, false);
-    return this.out.take();
   }
 
   /** End of file: returns the last COPY text; `result()` is complete after this. */
   end(): Buffer | null {
+    if (this.lead !== null && this.lead.length && !this.summary.fatal) {
+      const rest = this.byteOrderMark(this.lead);
+      if (rest) this.feed(rest);
+    }
+    this.lead = null;
     if (!this.summary.fatal) {
       if (!this.tokenizer && this.headBytes > 0) this.holdHead(Buffer.alloc(0), true);
       this.tokenizer?.end();
@@ -154,11 +131,12 @@ export class UploadReader implements RecordSink {
   private holdHead(chunk: Buffer, atEnd: boolean): void {
     this.head.push(chunk);
     this.headBytes += chunk.length;
+    const broke = chunk.indexOf(LF) >= 0 || chunk.indexOf(13) >= 0;
+    if (!broke && !atEnd && this.headBytes < 64 * 1024) return;
     const all = Buffer.concat(this.head);
     let cut = all.indexOf(LF);
     const cr = all.indexOf(13);
     if (cr >= 0 && (cut < 0 || cr < cut)) cut = cr;
-    if (cut < 0 && !atEnd && all.length < 64 * 1024) return;
     const firstLine = all.toString('utf8', 0, cut < 0 ? all.length : cut);
     const delimiter = detectDelimiter(firstLine);
     this.summary.delimiter = String.fromCharCode(delimiter);
