@@ -3,6 +3,7 @@ import { z } from 'zod';
 import * as audit from '../audit/store';
 import type { AppContext } from '../context';
 import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
+import { getSettings } from '../settings/service';
 import { dataVersion, revertUpload } from './change-sets';
 import { receivedFile, receiveFile } from './multipart';
 import { uploadIdParams, uploadListQuery, uploadQuery } from './schema';
@@ -28,7 +29,8 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
       schemas: { query: uploadQuery },
       handler: async ({ query }, req, res) => {
         const w = who(req);
-        const answer = await service.receiveUpload(db, receivedFile(req), query, w);
+        const changeFactor = query.changeFactor ?? (await getSettings(db)).uploadChangeFactor;
+        const answer = await service.receiveUpload(db, receivedFile(req), { ...query, changeFactor }, w);
         if (!answer.noop) answer.timings.receiveMs = res.locals.receiveMs;
         if (!answer.noop && answer.upload.status === 'committed') {
           await record(w, 'upload.commit', answer.upload.id, { fileName: answer.upload.fileName, version: answer.upload.version, counts: answer.upload.counts });

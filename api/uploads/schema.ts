@@ -6,14 +6,12 @@ export const queryBool = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])
   .transform((v) => v === 'true' || v === '1' || v === 'yes');
 
-/** A stored value changing by more than this factor (either way) is flagged in the preview. */
-export const DEFAULT_CHANGE_FACTOR = 2;
-
 export const uploadQuery = z.object({
   commit: queryBool.default(false),
   allowNewDistricts: queryBool.default(false),
   decimalComma: queryBool.default(false),
-  changeFactor: z.coerce.number().gt(1, 'changeFactor must be greater than 1').max(1e6).default(DEFAULT_CHANGE_FACTOR),
+  /** A stored value changing by more than this factor (either way) is flagged; default: the admin setting uploadChangeFactor. */
+  changeFactor: z.coerce.number().gt(1, 'changeFactor must be greater than 1').max(1e6).optional(),
 });
 
 export interface UploadOptions {

@@ -6,6 +6,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { generateDemoRegion } from '../../api/demo/generate';
+import { withConnection } from '../../api/uploads/sql';
+import { pruneStaging, STAGING_TTL_HOURS } from '../../api/uploads/staging-store';
 import { observationsChecksum, storedValue, upload, uploadWorld, type UploadWorld } from './upload-helpers';
 
 const demoDir = path.resolve(__dirname, '..', '..', 'assets', 'demo-data');
@@ -220,5 +222,50 @@ describe('formats and options', () => {
     expect(denied.status).toBe(403);
     const seed = (await w.official.get('/api/uploads?limit=200')).body.uploads.find((u: { kind: string }) => u.kind === 'seed');
     expect(seed).toMatchObject({ status: 'committed', version: 1, canRevert: false, counts: { insert: seeded.observations.length } });
+  });
+});
+
+describe('kept previews and earlier versions', () => {
+  it('checks a kept preview again at commit time, against the data as it is then', async () => {
+    const csv = 'district_code,indicator,year,value\nD19,income_pc,2025,30001\nD19,income_pc,2024,30002\n';
+    const dry = await upload(w.analyst, csv, 'later.csv');
+    expect(dry.body.preview.totals).toEqual({ insert: 0, change: 2, unchanged: 0 });
+    // Meanwhile another upload writes one of the same values.
+    expect((await upload(w.analyst, 'district_code,indicator,year,value\nD19,income_pc,2025,30001\n', 'meanwhile.csv', { commit: true })).status).toBe(201);
+    const res = await w.analyst.post(`/api/uploads/${dry.body.upload.id}/commit`);
+    expect(res.status).toBe(201);
+    expect(res.body.preview.totals).toEqual({ insert: 0, change: 1, unchanged: 1 });
+    expect((await w.analyst.post(`/api/uploads/${dry.body.upload.id}/commit`)).body.error.code).toBe('already_committed');
+  });
+
+  it('answers 410 for a preview whose staged rows were dropped after a day', async () => {
+    const dry = await upload(w.analyst, 'district_code,indicator,year,value\nD20,income_pc,2025,19999\n', 'stale.csv');
+    expect(dry.body.upload.canCommit).toBe(true);
+    await withConnection(w.t.db, (conn) => pruneStaging(conn, new Date(Date.now() + (STAGING_TTL_HOURS + 1) * 3600_000)));
+    const res = await w.analyst.post(`/api/uploads/${dry.body.upload.id}/commit`);
+    expect(res.status).toBe(410);
+    expect(res.body.error.code).toBe('preview_expired');
+    expect((await w.official.get(`/api/uploads/${dry.body.upload.id}`)).body.upload.canCommit).toBe(false);
+  });
+
+  it('shows a district as of an earlier data version', async () => {
+    const before = (await w.official.get('/api/data-version')).body.version;
+    const old = await storedValue(w.t.db, 'D21', 'population', 2025);
+    expect((await upload(w.analyst, `district_code,indicator,year,value\nD21,population,2025,${old! + 7}\n`, 'd21.csv', { commit: true })).status).toBe(201);
+    const now = await w.official.get('/api/districts/D21/observations?indicators=population');
+    const then = await w.official.get(`/api/districts/D21/observations?indicators=population&asOf=${before}`);
+    const at2025 = (b: { indicators: { series: { year: number; value: number }[] }[] }) => b.indicators[0].series.find((s) => s.year === 2025)!.value;
+    expect([then.body.dataVersion, at2025(then.body)]).toEqual([before, old]);
+    expect([now.body.dataVersion, at2025(now.body)]).toEqual([before + 1, old! + 7]);
+    expect((await w.official.get(`/api/districts/D21/observations?asOf=${before + 5}`)).status).toBe(404);
+  });
+
+  it('takes the change factor from the admin settings when the upload does not give one', async () => {
+    // Settings default (DOMAIN.md / api/settings): uploadChangeFactor 3.
+    const stored = await storedValue(w.t.db, 'D22', 'pop_density', 2025);
+    const twice = await upload(w.analyst, `district_code,indicator,year,value\nD22,pop_density,2025,${stored! * 2.5}\n`, 'x2.csv');
+    expect(twice.body.problems).toEqual([]);
+    const fourfold = await upload(w.analyst, `district_code,indicator,year,value\nD22,pop_density,2025,${stored! * 4}\n`, 'x4.csv');
+    expect(fourfold.body.problems.map((p: { code: string }) => p.code)).toEqual(['large_change']);
   });
 });
