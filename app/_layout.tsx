@@ -1,12 +1,12 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { Slot, useGlobalSearchParams, usePathname, type ErrorBoundaryProps } from 'expo-router';
+import { Slot, useGlobalSearchParams, usePathname, useRouter, type ErrorBoundaryProps } from 'expo-router';
 import { useState } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { AlertsFeedColumn } from '@/components/alerts/alerts-feed-column';
 import { DistrictListPanel } from '@/components/district/district-list-panel';
-import { AccountStatus } from '@/components/layout/account-status';
-import { AppHeader } from '@/components/layout/app-header';
+import { HeaderArea } from '@/components/layout/header-area';
+import { isRegionRoute } from '@/components/layout/nav-items';
 import { RegionShell } from '@/components/layout/region-shell';
 import { ServerNotice } from '@/components/layout/server-notice';
 import { StatePanel } from '@/components/state/state-panel';
@@ -14,7 +14,7 @@ import { colors, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { useAlertFeedQuery, useMarkAlertReadMutation } from '@/hooks/use-alerts';
 import { useAppFonts } from '@/hooks/use-app-fonts';
-import { useMeQuery } from '@/hooks/use-auth';
+import { useAuthOptionsQuery, useMeQuery, useSignOutMutation } from '@/hooks/use-auth';
 import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useHealthQuery } from '@/hooks/use-health';
 import { useLayoutMode, useThirdColumn } from '@/hooks/use-layout-mode';
@@ -32,18 +32,23 @@ export default function RootLayout() {
   );
 }
 
-const ACCOUNT_ROUTES = new Set(['/sign-in', '/no-access']);
 
 function Frame() {
   const mode = useLayoutMode();
   const districts = useDistrictsQuery();
   const health = useHealthQuery();
   const me = useMeQuery();
-  const { code } = useGlobalSearchParams<{ code?: string }>();
-  // The sign-in pages stand alone: a list there could only repeat "sign in".
-  const withList = !ACCOUNT_ROUTES.has(usePathname());
+  const authOptions = useAuthOptionsQuery();
+  const pathname = usePathname();
+  const router = useRouter();
+  const signOut = useSignOutMutation();
+  const badgeFeed = useAlertFeedQuery(me.status === 'success');
   const region = useRegionQuery();
   const thirdColumn = useThirdColumn();
+  const { code } = useGlobalSearchParams<{ code?: string }>();
+  // The list sits beside the region and its districts; staff screens and the sign-in pages
+  // need the whole width (tables) or stand alone (a list there could only repeat "sign in").
+  const withList = isRegionRoute(pathname);
   const withFeed = withList && mode === 'wide' && thirdColumn;
   const feed = useAlertFeedQuery(withFeed);
   const markRead = useMarkAlertReadMutation();
@@ -52,7 +57,15 @@ function Frame() {
       mode={mode}
       header={
         <>
-          <AppHeader account={<AccountStatus me={me} />} compact={mode === 'phone'} />
+          <HeaderArea
+            mode={mode}
+            pathname={pathname}
+            me={me}
+            demo={authOptions.data?.provider === 'stand-in'}
+            unreadAlerts={badgeFeed.data?.unread}
+            signingOut={signOut.isPending}
+            onSignOut={() => signOut.mutate(undefined, { onSuccess: () => router.replace('/sign-in') })}
+          />
           <ServerNotice health={health} />
         </>
       }

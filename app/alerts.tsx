@@ -1,33 +1,23 @@
 import Head from 'expo-router/head';
-import { StyleSheet, View } from 'react-native';
 
-import { AlertsFeedColumn } from '@/components/alerts/alerts-feed-column';
-import { layout, space } from '@/components/theme';
-import { TextLink } from '@/components/ui/text-link';
+import { AlertsFeedScreen } from '@/components/alerts-feed/alerts-feed-screen';
+import { GatedPage } from '@/components/layout/role-gate';
 import { useAlertFeedQuery, useMarkAlertReadMutation } from '@/hooks/use-alerts';
-import { useLayoutMode } from '@/hooks/use-layout-mode';
+import { useMeQuery } from '@/hooks/use-auth';
 
-/** The caller's alerts as a page (phones and windows too narrow for the third column). */
-export default function AlertsScreen() {
-  const mode = useLayoutMode();
-  const feed = useAlertFeedQuery();
+/** The caller's alerts feed: newest first, unread marked, each opening its district card. */
+export default function AlertsRoute() {
+  const me = useMeQuery();
+  const feed = useAlertFeedQuery(me.status === 'success');
   const markRead = useMarkAlertReadMutation();
   return (
-    <View style={styles.wrap}>
+    <>
       <Head>
         <title>Your alerts · Crestwatch</title>
       </Head>
-      {mode === 'phone' ? (
-        <View style={styles.back}>
-          <TextLink href="/" label="All districts" leading="← " />
-        </View>
-      ) : null}
-      <AlertsFeedColumn feed={feed} onRead={markRead.mutate} />
-    </View>
+      <GatedPage title="Alerts" me={me} need="read" what="your alerts">
+        {() => <AlertsFeedScreen feed={feed} onRead={markRead.mutate} onReadAll={(ids) => ids.forEach((id) => markRead.mutate(id))} />}
+      </GatedPage>
+    </>
   );
 }
-
-const styles = StyleSheet.create({
-  wrap: { flex: 1, maxWidth: layout.detailMaxWidth },
-  back: { paddingHorizontal: space.lg, paddingTop: space.sm },
-});

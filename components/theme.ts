@@ -24,6 +24,13 @@ const palette = {
   amber600: '#B06A00', // keyboard focus ring (≥ 3:1 non-text contrast on every surface here)
   hatch: '#EFE7D5', // "no data" cell fill
   hatchInk: '#6E5B35', // "no data" cell text (5.3:1 on hatch)
+  // Status pills of the staff screens (run states, upload status, people, alerts): each
+  // pairs a light fill with an ink that reads at ≥ 4.5:1 on it.
+  moss100: '#DDEBDD', // done / published fill
+  moss800: '#22553A', // its ink (7.0:1 on moss100)
+  amber100: '#F8E8C8', // attention fill (warnings, in review)
+  amber800: '#6B4300', // its ink (7.1:1 on amber100)
+  slate100: '#E4E8E8', // neutral fill (queued, archived); slate900 on it 11.8:1
   // Standings: each also has its own shape (components/region/standing-mark.tsx), so colour
   // is never the only cue. All read as text: ≥ 5.2:1 on paper, chalk and ridge100.
   kiln: '#A0421A', // approaching (5.7:1 on paper)
@@ -32,6 +39,16 @@ const palette = {
   peat: '#5C5346', // not estimable (6.8:1 on paper)
   heather100: '#E4DAF0', // the threshold band's fill (behind marks only, never under text)
 } as const;
+
+/** Pill and notice tones: a fill and the ink that reads on it. */
+export const toneColors = {
+  neutral: { fill: palette.slate100, ink: palette.slate900 },
+  info: { fill: palette.ridge100, ink: palette.ridge700 },
+  success: { fill: palette.moss100, ink: palette.moss800 },
+  warning: { fill: palette.amber100, ink: palette.amber800 },
+  danger: { fill: palette.clay100, ink: palette.clay700 },
+} as const;
+export type Tone = keyof typeof toneColors;
 
 export const colors = {
   background: palette.paper,
@@ -140,6 +157,10 @@ export const layout = {
   districtRowHeight: 84,
   /** Minimum touch target (WCAG 2.5.8 asks for 24; phones are easier at 44). */
   touchTarget: 44,
+  /** Widest a staff screen's content grows (tables need more room than the district detail). */
+  pageMaxWidth: 1200,
+  /** Width of the side panel beside a staff table in the wide layout (run review, specs). */
+  sidePanelWidth: 440,
   /** Width of the alerts column at ≥ 1440 px. */
   alertsColumnWidth: 340,
   /** Heights of the card's charts; their placeholders take the same room. */
@@ -158,5 +179,5 @@ export const focusRing = {
 /** The same ring drawn inside the element, for full-bleed rows a scroll view would clip. */
 export const focusRingInset = { ...focusRing, outlineOffset: -3 } as const;
 
-export const theme = { colors, standingColors, chartColors, space, radius, fonts, type, breakpoints, layout, focusRing, focusRingInset } as const;
+export const theme = { colors, toneColors, standingColors, chartColors, space, radius, fonts, type, breakpoints, layout, focusRing, focusRingInset } as const;
 export type Theme = typeof theme;

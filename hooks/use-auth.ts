@@ -45,8 +45,9 @@ export function useMeQuery() {
 }
 
 /**
- * Ends the session. Everything cached belonged to the person who just left, so the whole
- * cache goes; the caller then sends the browser to the sign-in page.
+ * Ends the session. Everything cached belonged to the person who just left, so every query
+ * is reset (its data dropped; the ones on screen ask again and now get 401); the caller
+ * then sends the browser to the sign-in page.
  */
 export function useSignOutMutation() {
   const client = useQueryClient();
@@ -54,7 +55,7 @@ export function useSignOutMutation() {
     mutationFn: () => apiSend('POST', '/api/auth/sign-out'),
     onSuccess: () => {
       rememberCsrfToken(null);
-      client.clear();
+      void client.resetQueries();
     },
   });
 }

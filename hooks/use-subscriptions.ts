@@ -53,3 +53,31 @@ export function useDistrictSubscriptionMutation(code: string) {
     },
   });
 }
+
+/** Any subscription: one district, a set, or the whole region, with its kinds and delivery. */
+export function useSubscribeMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (input: SubscriptionInput) =>
+      apiSend<{ subscription: Subscription }>('POST', '/api/subscriptions', {
+        json: input,
+        accept: (b) => typeof b === 'object' && b !== null && 'subscription' in b,
+      }),
+    onSettled: async () => {
+      await client.invalidateQueries({ queryKey: subscriptionKeys.all });
+      await client.invalidateQueries({ queryKey: alertKeys.feed() });
+    },
+  });
+}
+
+/** Removes one of the caller's subscriptions. */
+export function useUnsubscribeMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => apiSend('DELETE', `/api/subscriptions/${id}`),
+    onSettled: async () => {
+      await client.invalidateQueries({ queryKey: subscriptionKeys.all });
+      await client.invalidateQueries({ queryKey: alertKeys.feed() });
+    },
+  });
+}

@@ -26,7 +26,7 @@ export const uploadKeys = {
 
 const isAnswer = (b: unknown) => typeof b === 'object' && b !== null && 'upload' in b;
 
-export function useUploadsQuery() {
+export function useUploadsQuery(enabled = true) {
   return useQuery({
     queryKey: uploadKeys.list(),
     queryFn: ({ signal }) =>
@@ -35,6 +35,7 @@ export function useUploadsQuery() {
         accept: (b) => Array.isArray((b as UploadListResponse).uploads),
       }),
     staleTime: STALE_TIMES.uploads,
+    enabled,
   });
 }
 
@@ -43,7 +44,8 @@ export function useUploadQuery(id: number | null) {
     queryKey: uploadKeys.detail(id ?? 0),
     queryFn: ({ signal }) => apiGet<UploadDetailResponse>(`/api/uploads/${id}`, { signal, accept: isAnswer }),
     staleTime: STALE_TIMES.uploadDetail,
-    enabled: id !== null && id > 0,
+    // A malformed id (≤ 0) is asked for too: the server's 400 is the screen's answer.
+    enabled: id !== null,
   });
 }
 

@@ -11,12 +11,14 @@ import { CrestMark } from './crest-mark';
 export type AppHeaderProps = {
   /** Who is signed in, at the right end. */
   account?: ReactNode;
+  /** Phone: the menu button after the account. */
+  menu?: ReactNode;
   /** Phone width: the tagline would only squeeze the mark and the account, so it goes. */
   compact?: boolean;
 };
 
-/** The bar across the top: the product's mark (a link home), a tagline, the account. */
-export function AppHeader({ account, compact = false }: AppHeaderProps) {
+/** The bar across the top: the product's mark (a link home), a tagline, the account, the menu. */
+export function AppHeader({ account, menu, compact = false }: AppHeaderProps) {
   return (
     <View style={styles.bar} role="banner">
       <Link href="/" asChild>
@@ -34,7 +36,10 @@ export function AppHeader({ account, compact = false }: AppHeaderProps) {
           District emissions and income
         </Text>
       )}
-      {account ? <View style={styles.account}>{account}</View> : null}
+      <View style={styles.end}>
+        {account}
+        {menu}
+      </View>
     </View>
   );
 }
@@ -51,5 +56,5 @@ const styles = StyleSheet.create({
   home: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minHeight: 44, paddingHorizontal: space.xs },
   word: { ...type.title, color: colors.headerText },
   tagline: { ...type.caption, color: colors.headerTextMuted, flexShrink: 1 },
-  account: { marginLeft: 'auto' },
+  end: { marginLeft: 'auto', flexDirection: 'row', alignItems: 'center', gap: space.sm },
 });

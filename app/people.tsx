@@ -1,0 +1,34 @@
+import Head from 'expo-router/head';
+
+import { GatedPage } from '@/components/layout/role-gate';
+import { PeopleScreen } from '@/components/people/people-screen';
+import { useAuthOptionsQuery, useMeQuery } from '@/hooks/use-auth';
+import { useInviteMutation, usePeopleQuery, usePersonMutation } from '@/hooks/use-people';
+import { can } from '@/lib/roles';
+
+/** Admin: people, roles, invitations. */
+export default function PeopleRoute() {
+  const me = useMeQuery();
+  const options = useAuthOptionsQuery();
+  const people = usePeopleQuery(can(me.data?.role, 'people'));
+  const invite = useInviteMutation();
+  const update = usePersonMutation();
+  return (
+    <>
+      <Head>
+        <title>People · Crestwatch</title>
+      </Head>
+      <GatedPage title="People" me={me} need="people" what="the people screen">
+        {(who) => (
+          <PeopleScreen
+            people={people}
+            selfId={who.id}
+            demo={options.data?.provider === 'stand-in'}
+            onInvite={(input) => invite.mutateAsync(input)}
+            onChange={(id, patch) => update.mutateAsync({ id, patch })}
+          />
+        )}
+      </GatedPage>
+    </>
+  );
+}

@@ -1,0 +1,39 @@
+import { useRouter } from 'expo-router';
+import Head from 'expo-router/head';
+
+import { GatedPage } from '@/components/layout/role-gate';
+import { RunsScreen } from '@/components/runs/runs-screen';
+import { useMeQuery } from '@/hooks/use-auth';
+import { useRunsQuery, useStartRunMutation } from '@/hooks/use-runs';
+import { useSettingsQuery } from '@/hooks/use-settings';
+import { useSpecsQuery } from '@/hooks/use-specs';
+import { can } from '@/lib/roles';
+
+/** Start a run ("re-estimate now") and list the recent ones. */
+export default function RunsRoute() {
+  const router = useRouter();
+  const me = useMeQuery();
+  const allowed = can(me.data?.role, 'runs');
+  const runs = useRunsQuery(allowed);
+  const specs = useSpecsQuery(allowed);
+  const settings = useSettingsQuery(allowed);
+  const start = useStartRunMutation();
+  return (
+    <>
+      <Head>
+        <title>Runs · Crestwatch</title>
+      </Head>
+      <GatedPage title="Runs" me={me} need="runs" what="the runs screen">
+        {() => (
+          <RunsScreen
+            runs={runs}
+            specs={specs}
+            settings={settings}
+            onStart={(specId) => start.mutateAsync(specId)}
+            onOpen={(id) => router.push({ pathname: '/runs/[id]', params: { id: String(id) } })}
+          />
+        )}
+      </GatedPage>
+    </>
+  );
+}

@@ -1,0 +1,39 @@
+import Head from 'expo-router/head';
+
+import { GatedPage } from '@/components/layout/role-gate';
+import { UploadsScreen } from '@/components/uploads/uploads-screen';
+import { useMeQuery } from '@/hooks/use-auth';
+import { useSettingsQuery } from '@/hooks/use-settings';
+import { useCommitUploadMutation, useRevertUploadMutation, useUploadPreviewMutation, useUploadsQuery } from '@/hooks/use-uploads';
+import { pickCsvFile } from '@/lib/pick-file';
+import { can } from '@/lib/roles';
+
+/** Load a CSV (check, then load) and the upload history with Revert. */
+export default function UploadsRoute() {
+  const me = useMeQuery();
+  const allowed = can(me.data?.role, 'upload');
+  const uploads = useUploadsQuery(allowed);
+  const settings = useSettingsQuery(allowed);
+  const preview = useUploadPreviewMutation();
+  const commit = useCommitUploadMutation();
+  const revert = useRevertUploadMutation();
+  return (
+    <>
+      <Head>
+        <title>Uploads · Crestwatch</title>
+      </Head>
+      <GatedPage title="Uploads" me={me} need="upload" what="the upload screen">
+        {() => (
+          <UploadsScreen
+            uploads={uploads}
+            changeFactor={settings.data?.settings.uploadChangeFactor ?? null}
+            pickFile={pickCsvFile}
+            onPreview={(file, options) => preview.mutateAsync({ file, options })}
+            onCommit={(id) => commit.mutateAsync(id)}
+            onRevert={(id) => revert.mutateAsync(id)}
+          />
+        )}
+      </GatedPage>
+    </>
+  );
+}

@@ -1,0 +1,34 @@
+import { Section, Page } from '@/components/layout/page';
+import type { QueryState } from '@/components/state/query-state';
+import type { PickedFile } from '@/lib/pick-file.types';
+import type { RevertAnswer, UploadAnswer, UploadListResponse, UploadOptions } from '@/lib/types/uploads';
+
+import { UploadHistory } from './upload-history';
+import { UploadPanel } from './upload-panel';
+
+export type UploadsScreenProps = {
+  uploads: QueryState<UploadListResponse>;
+  changeFactor: number | null;
+  pickFile: () => Promise<PickedFile | null>;
+  onPreview: (file: PickedFile, options: UploadOptions) => Promise<UploadAnswer>;
+  onCommit: (uploadId: number) => Promise<UploadAnswer>;
+  onRevert: (uploadId: number) => Promise<RevertAnswer>;
+};
+
+/** Load series from a CSV (check, then load) and the history of every upload with Revert. */
+export function UploadsScreen({ uploads, changeFactor, pickFile, onPreview, onCommit, onRevert }: UploadsScreenProps) {
+  return (
+    <Page
+      title="Uploads"
+      intro="Load yearly series from the statistics offices and emission inventories. Every row is checked before anything is written, and any upload can be reverted."
+      testID="uploads-screen"
+    >
+      <Section title="Load a file">
+        <UploadPanel changeFactor={changeFactor} pickFile={pickFile} onPreview={onPreview} onCommit={onCommit} />
+      </Section>
+      <Section title="Upload history">
+        <UploadHistory uploads={uploads} onRevert={onRevert} />
+      </Section>
+    </Page>
+  );
+}

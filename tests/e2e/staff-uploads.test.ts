@@ -1,0 +1,108 @@
+/**
+ * Browser test: an analyst loads the demo long CSV through the app — chooses it with the
+ * document picker, sees the preview, loads it, sees the new values on the district, reverts
+ * it from the history and sees the old values back — at a phone and a wide viewport.
+ */
+import path from 'node:path';
+import type { Page } from 'playwright-core';
+import { DEMO } from '../support/auth';
+import { offLoopback, root, startHarness, VIEWPORTS, type Harness } from '../support/browser';
+import { openSection, signIn } from '../support/staff-steps';
+
+jest.setTimeout(180_000);
+
+const DEMO_LONG = path.join(root, 'assets', 'demo-data', 'demo-long.csv');
+
+let h: Harness;
+beforeAll(async () => {
+  h = await startHarness();
+});
+afterAll(async () => h?.close());
+
+/** D03's emissions in 2021 as the district table shows it. */
+async function d03Emissions2021(page: Page): Promise<string> {
+  await page.goto(`${h.baseUrl}/district/D03`);
+  const row = page.getByTestId('series-row-2021');
+  await row.waitFor();
+  return row.innerText();
+}
+
+async function chooseFile(page: Page, file: string): Promise<void> {
+  const chooser = page.waitForEvent('filechooser');
+  await page.getByTestId('upload-choose').click();
+  await (await chooser).setFiles(file);
+}
+
+describe.each([
+  ['phone', VIEWPORTS.phone],
+  ['wide', VIEWPORTS.wide],
+] as const)('at the %s viewport', (name, viewport) => {
+  it('checks, loads and reverts the demo long CSV', async () => {
+    const { context, page } = await h.newPage(viewport);
+    try {
+      await signIn(page, h.baseUrl, DEMO.analyst);
+      const before = await d03Emissions2021(page);
+      expect(before).not.toContain('8.08');
+
+      await page.goto(`${h.baseUrl}/`);
+      await openSection(page, 'uploads', name === 'phone');
+      await page.waitForURL(`${h.baseUrl}/uploads`);
+      await page.getByTestId('upload-history').waitFor();
+
+      await chooseFile(page, DEMO_LONG);
+      await page.getByTestId('upload-ready').waitFor();
+      expect(await page.getByTestId('upload-file').innerText()).toContain('demo-long.csv');
+      expect(await page.getByTestId('preview-district-D03').innerText()).toMatch(/Cindervale/);
+      expect(parseInt(await page.getByTestId('preview-change').innerText(), 10)).toBeGreaterThan(0);
+      await h.shot(page, `staff-${name}-upload-preview`);
+      await page.getByTestId('preview').scrollIntoViewIfNeeded();
+      await h.shot(page, `staff-${name}-upload-preview-tables`);
+
+      await page.getByTestId('upload-commit').click();
+      const done = page.getByTestId('upload-done-ok');
+      await done.waitFor();
+      const doneText = await done.innerText();
+      expect(doneText).toMatch(/Loaded as upload #\d+/);
+      const uploadId = Number(/#(\d+)/.exec(doneText)![1]);
+      await h.shot(page, `staff-${name}-upload-done`);
+
+      // The district shows the new value: 8.0790 t per person in 2021, printed to two places.
+      expect(await d03Emissions2021(page)).toContain('8.08');
+
+      await page.goto(`${h.baseUrl}/uploads`);
+      await page.getByTestId(`upload-row-${uploadId}`).waitFor();
+      expect(await page.getByTestId(`upload-status-${uploadId}`).innerText()).toBe('Loaded');
+      await page.getByTestId(`upload-revert-${uploadId}`).click();
+      await page.getByTestId(`upload-revert-${uploadId}-confirm`).click();
+      await page.getByTestId('upload-revert-ok').waitFor();
+      expect(await page.getByTestId('upload-revert-ok').innerText()).toMatch(new RegExp(`Upload #${uploadId} reverted`));
+      await page.getByText('Reverted', { exact: true }).first().waitFor();
+      await h.shot(page, `staff-${name}-upload-reverted`);
+
+      expect(await d03Emissions2021(page)).toBe(before);
+    } finally {
+      await context.close();
+    }
+  });
+});
+
+it('refuses a file with errors and lists them by line and column', async () => {
+  const { context, page } = await h.newPage(VIEWPORTS.laptop);
+  try {
+    await signIn(page, h.baseUrl, DEMO.analyst);
+    await page.goto(`${h.baseUrl}/uploads`);
+    await page.getByTestId('upload-history').waitFor();
+    await chooseFile(page, path.join(root, 'tests', 'fixtures', 'bad-csv', 'not-a-number.csv'));
+    await page.getByTestId('upload-refused').waitFor();
+    const problems = await page.getByTestId('problems').innerText();
+    expect(problems).toMatch(/Error/);
+    expect(problems).toMatch(/\b\d+\b/);
+    await h.shot(page, 'staff-laptop-upload-refused');
+  } finally {
+    await context.close();
+  }
+});
+
+it('sends no request beyond 127.0.0.1', () => {
+  expect(offLoopback(h.requests)).toEqual([]);
+});
