@@ -80,7 +80,11 @@ export function curveChart(input: CurveChartInput): ChartScene {
       items.push({ kind: 'path', d: `M${px(x)} ${px(plot.top)} L${px(x)} ${px(plot.bottom)}`, stroke: 'threshold', width: 0.9, dash: [3, 2] });
       const label = `threshold ${formatLevel(t.level)}`;
       const right = x + 3 + estimateWidth(label, LABEL_SIZE) < plot.right;
-      items.push({ kind: 'text', x: px(right ? x + 3 : x - 3), y: px(plot.top + LABEL_SIZE + 1), text: label, size: LABEL_SIZE, tone: 'threshold', anchor: right ? 'start' : 'end', bold: true });
+      // The label goes where the curve is not: at the foot of the line when the curve runs
+      // high there (a peak), at the top otherwise.
+      const near = main.length ? main.reduce((a, b) => (Math.abs(b.x - t.level) < Math.abs(a.x - t.level) ? b : a)) : null;
+      const high = near !== null && ys.map(clampTo(ys, near.y)) < (plot.top + plot.bottom) / 2;
+      items.push({ kind: 'text', x: px(right ? x + 3 : x - 3), y: px(high ? plot.bottom - 4 : plot.top + LABEL_SIZE + 1), text: label, size: LABEL_SIZE, tone: 'threshold', anchor: right ? 'start' : 'end', bold: true });
     } else {
       const side = t.level > xs.hi ? 'right' : 'left';
       offChartNote(items, `threshold ${formatLevel(t.level)}`, side, side === 'right' ? plot.right - 2 : plot.left + 2, plot.top + LABEL_SIZE + 1);
@@ -166,7 +170,9 @@ export function pathChart(input: PathChartInput): ChartScene {
     const cx = xs.map(crossing!);
     const cy = ys.map(t.level);
     items.push({ kind: 'circle', cx: px(cx), cy: px(cy), r: 2.6, fill: 'projection' });
-    items.push({ kind: 'text', x: px(cx - 4), y: px(cy + LABEL_SIZE + 3), text: `about ${crossing}`, size: LABEL_SIZE, tone: 'projection', anchor: 'end', bold: true });
+    // The dashed path reaches the point from below when income grows: label above it then.
+    const above = (g ?? 0) > 0;
+    items.push({ kind: 'text', x: px(cx - 4), y: px(above ? cy - 4 : cy + LABEL_SIZE + 3), text: `about ${crossing}`, size: LABEL_SIZE, tone: 'projection', anchor: 'end', bold: true });
   } else if (crossing !== null && !crossingOnChart && crossing > lastYear) {
     offChartNote(items, `crossing about ${crossing}`, 'right', plot.right - 2, plot.bottom - 4);
   }

@@ -14,7 +14,10 @@ import { CAUTIONS, inSentence, shapeLabel, standingLabel } from './words';
 /** A longer name is printed in the title only; the headline calls the district by its code. */
 const HEADLINE_NAME_MAX = 48;
 export const CHART_WIDTH = 252;
-export const CHART_HEIGHT = 168;
+/** Letter is 50 pt shorter than A4: its charts give up part of that. */
+export function chartHeight(paper: string): number {
+  return paper === 'LETTER' ? 185 : 205;
+}
 
 export function districtPdfPath(code: string): string {
   return `/api/briefs/district/${encodeURIComponent(code)}.pdf`;
@@ -130,7 +133,7 @@ export function districtBriefContent(src: BriefSource, district: { code: string;
     charts: {
       curve: curveChart({
         width: CHART_WIDTH,
-        height: CHART_HEIGHT,
+        height: chartHeight(src.paperSize),
         transform: src.run.spec.model.transform,
         points: r.points,
         curve: r.curve,
@@ -143,7 +146,7 @@ export function districtBriefContent(src: BriefSource, district: { code: string;
       }),
       path: pathChart({
         width: CHART_WIDTH,
-        height: CHART_HEIGHT,
+        height: chartHeight(src.paperSize),
         transform: src.run.spec.model.transform,
         points: r.points.map((p) => ({ year: p.year, x: p.x })),
         threshold: mark,

@@ -11,10 +11,10 @@ import type { Knex } from 'knex';
 import { AppError, NotFoundError } from '../http/errors';
 import { csvLine, type CsvCell } from '../http/csv-escape';
 import { STAFF, type Caller } from '../http/routes';
-import type { EstimateRecord } from '../runs/estimate-record';
 import * as runs from '../runs/store';
+import { summaryRecords, type SummaryRecord } from './store';
 
-type Row = EstimateRecord & { code: string; name: string };
+type Row = SummaryRecord;
 
 const num = (v: number | null | undefined): CsvCell => (v === null || v === undefined || !Number.isFinite(v) ? null : v);
 const bool = (v: boolean | null | undefined): CsvCell => (v === null || v === undefined ? null : v ? 'true' : 'false');
@@ -104,7 +104,7 @@ export async function exportRun(db: Knex, caller: Caller, runId: number): Promis
     if (run.state !== 'in_review') throw new AppError(409, 'run_not_ready', `Run #${runId} is ${run.state}: only published runs (and, for analysts, runs in review) can be exported.`);
     if (!STAFF.includes(caller.role)) throw new AppError(403, 'forbidden', `Run #${runId} is still in review: officials can export it once it is published.`);
   }
-  const [rows, noteRows] = await Promise.all([runs.mainRecords(db, runId), runs.notesFor(db, runId)]);
+  const [rows, noteRows] = await Promise.all([summaryRecords(db, runId), runs.notesFor(db, runId)]);
   const codes = new Map<number, string>((await db('districts').select('id', 'code')).map((d: { id: number; code: string }) => [Number(d.id), d.code]));
   const notes = new Map<string, string>();
   for (const [districtId, n] of noteRows) {

@@ -30,11 +30,14 @@ export interface ThresholdTexts {
 
 const DASH = '—';
 
-export function levelTextOf(r: Pick<EstimateRecord, 'model'>): string {
+/** The parts of a district's record the figures read (a region table row has no more). */
+export type FigureRecord = Pick<EstimateRecord, 'status' | 'threshold' | 'standing' | 'model' | 'projection' | 'gapPercent' | 'elasticity'>;
+
+export function levelTextOf(r: Pick<FigureRecord, 'model'>): string {
   return formatLevelPercent(r.model.level);
 }
 
-export function thresholdTexts(r: EstimateRecord): ThresholdTexts {
+export function thresholdTexts(r: FigureRecord): ThresholdTexts {
   return thresholdTextsOf(r.threshold, r.standing.intervalMethod, r.model.level, r.status === 'not_estimable');
 }
 
@@ -78,7 +81,7 @@ export interface ProjectionTexts {
   short: string;
 }
 
-export function projectionTexts(r: EstimateRecord): ProjectionTexts {
+export function projectionTexts(r: FigureRecord): ProjectionTexts {
   const p = r.projection;
   const extrapolated = r.threshold?.extrapolated ? '; the threshold lies outside the observed incomes' : '';
   if (!p || p.status === 'no_threshold') return { value: 'no threshold', detail: 'no threshold to project towards', short: DASH };
@@ -95,7 +98,7 @@ export function projectionTexts(r: EstimateRecord): ProjectionTexts {
   return { value: `about ${p.crossingYear}`, detail: `on the current income trend; ${rangeText}${extrapolated}`, short };
 }
 
-export function gapText(r: EstimateRecord): string {
+export function gapText(r: FigureRecord): string {
   return r.gapPercent === null || !Number.isFinite(r.gapPercent) ? DASH : formatSignedPercent(r.gapPercent);
 }
 
@@ -104,7 +107,7 @@ export interface ElasticityTexts {
   detail: string;
 }
 
-export function elasticityTexts(r: EstimateRecord): ElasticityTexts {
+export function elasticityTexts(r: FigureRecord): ElasticityTexts {
   const e = r.elasticity;
   if (!e || e.value === null) {
     return { value: 'not available', detail: r.status === 'substitute' ? 'the district’s own series is too short to estimate it' : 'not estimated' };

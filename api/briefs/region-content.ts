@@ -6,11 +6,11 @@
  */
 import type { BriefFigure, RegionBriefContent, RegionBriefRow } from '../../lib/brief-types';
 import { alertsFor, districtChange } from '../alerts/compare';
-import type { EstimateRecord } from '../runs/estimate-record';
 import type { EstimateListRow } from '../runs/store';
 import { pooledChart, type ThresholdMark } from './chart-scene';
 import { gapText, projectionTexts, thresholdTexts, thresholdTextsOf } from './figures';
 import { formatCount, formatDate, formatLevel, formatLevelPercent, formatPValue, formatSignedPercent } from './format';
+import type { SummaryRecord } from './store';
 import { indicatorOf, modelLine, traceOf, type BriefSource } from './trace';
 import { CAUTIONS, shapeLabel, STANDING_LABEL, STANDING_ORDER, STANDING_SHORT } from './words';
 
@@ -35,7 +35,7 @@ export interface PooledFit {
 }
 
 export interface RegionInput {
-  records: (EstimateRecord & { code: string; name: string })[];
+  records: SummaryRecord[];
   /** every district of the region, for those the run has no estimate of */
   districts: { code: string; name: string }[];
   /** this run's and the previous published run's summary rows (null: no previous run) */
@@ -77,7 +77,7 @@ function pooledPart(src: BriefSource, pooled: PooledFit | null): RegionBriefCont
   return { figures, chart, note: 'The pooled curve stands in for districts whose own series is too short; fixed effects absorb each district’s level, so it is drawn as an index.' };
 }
 
-function tableRow(r: EstimateRecord & { code: string; name: string }): RegionBriefRow {
+function tableRow(r: SummaryRecord): RegionBriefRow {
   const th = thresholdTexts(r);
   return {
     code: r.code,
@@ -95,8 +95,8 @@ export function regionBriefContent(src: BriefSource, input: RegionInput, pooled:
   for (const r of input.records) counts.set(r.standing.standing, (counts.get(r.standing.standing) ?? 0) + 1);
   const estimated = new Set(input.records.map((r) => r.code));
   const missing = input.districts.filter((d) => !estimated.has(d.code));
-  const countList = STANDING_ORDER.map((key) => ({ key, label: STANDING_LABEL[key], count: counts.get(key) ?? 0 }));
-  if (missing.length) countList.push({ key: 'not_in_run' as never, label: 'Not in this run (no data)', count: missing.length });
+  const countList: RegionBriefContent['counts'] = STANDING_ORDER.map((key) => ({ key, label: STANDING_LABEL[key], count: counts.get(key) ?? 0 }));
+  if (missing.length) countList.push({ key: 'not_in_run', label: 'Not in this run (no data)', count: missing.length });
 
   let crossed: RegionBriefContent['crossed'] = [];
   let shifts: RegionBriefContent['shifts'] = [];

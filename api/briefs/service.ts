@@ -13,6 +13,7 @@ import { districtBriefContent } from './district-content';
 import { renderDistrictPdf } from './pdf/district-pdf';
 import { renderRegionPdf } from './pdf/region-pdf';
 import { regionBriefContent, type PooledFit } from './region-content';
+import { summaryRecords } from './store';
 import type { BriefSource, Indicator } from './trace';
 
 /** The published run a brief reads: `runId` when given (it must be published), else the latest. */
@@ -52,7 +53,7 @@ export async function regionBrief(db: Knex, runId?: number): Promise<RegionBrief
   const run = await publishedRun(db, runId);
   const previous = run.publishedAt ? await runs.latestPublished(db, { publishedAt: run.publishedAt }) : null;
   const [records, districts, current, previousRows, settings, src] = await Promise.all([
-    runs.mainRecords(db, run.id),
+    summaryRecords(db, run.id),
     db('districts').orderBy('code').select('code', 'name') as Promise<{ code: string; name: string }[]>,
     runs.listEstimateRows(db, run.id),
     previous ? runs.listEstimateRows(db, previous.id) : Promise.resolve(null),

@@ -6,7 +6,7 @@
  * the brief never runs onto a second page.
  */
 import type { BriefFigure, DistrictBriefContent } from '../../../lib/brief-types';
-import { CHART_HEIGHT, CHART_WIDTH } from '../district-content';
+import { CHART_WIDTH } from '../district-content';
 import { cautionsBox, chip, createBriefDocument, drawScene, footer, FOOTER_HEIGHT, geometry, INK, measure, pageTop, rule, textBlock, textLine, type TextStyle } from './page';
 
 /** Title sizes tried in turn, with the most lines each may take. */
@@ -102,7 +102,7 @@ export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer
     textLine(doc, scene.title, cx, y, { size: 8.5, face: 'bold' });
     drawScene(doc, scene, cx, y + 14);
   });
-  y += 14 + CHART_HEIGHT + 10;
+  y += 14 + Math.max(c.charts.curve.height, c.charts.path.height) + 10;
 
   const room = () => Math.max(0, limit - y);
   if (c.substitute) {

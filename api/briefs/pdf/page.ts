@@ -5,7 +5,7 @@
  */
 import PDFDocument from 'pdfkit';
 import type { BriefPaperSize, BriefTone, BriefTrace, ChartScene } from '../../../lib/brief-types';
-import { briefFaces, printable, registerBriefFonts, type Face } from './fonts';
+import { printable, registerBriefFonts, type Face } from './fonts';
 
 /** Print colours (chosen for paper and for grey-scale copiers: every pair differs in lightness too). */
 export const INK = {
@@ -48,21 +48,22 @@ export function geometry(doc: PDFKit.PDFDocument): Geometry {
 }
 
 /** A document for a brief; `done` resolves to the PDF bytes once `doc.end()` is called. */
-export function createBriefDocument(size: BriefPaperSize, info: { title: string; subject: string }, bufferPages = false): { doc: PDFKit.PDFDocument; done: Promise<Buffer> } {
+export function createBriefDocument(size: BriefPaperSize, info: { title: string; subject: string }): { doc: PDFKit.PDFDocument; done: Promise<Buffer> } {
   const doc = new PDFDocument({
     size: size === 'LETTER' ? 'LETTER' : 'A4',
     // No margins for pdfkit: every block is placed and measured here, so pdfkit never
     // starts a page on its own (a district brief is one page by construction).
     margins: { top: 0, bottom: 0, left: 0, right: 0 },
-    bufferPages,
     autoFirstPage: true,
     info: { Title: info.title, Subject: info.subject, Author: 'Crestwatch', Creator: 'Crestwatch briefs' },
     lang: 'en-GB',
     displayTitle: true,
-    // The default face would otherwise be Helvetica, parsed from its AFM file for every document.
-    font: briefFaces().regular as never,
+    // No default face: pdfkit would parse Helvetica's AFM file for every document, and a
+    // default Inter would defeat pdfkit's font cache (every font() call re-opening the face).
+    font: null as never,
   });
   registerBriefFonts(doc);
+  doc.font('regular');
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {
@@ -167,14 +168,18 @@ export function footer(doc: PDFKit.PDFDocument, trace: BriefTrace, page: number,
   textBlock(doc, `Generated on ${trace.generatedAt} from this published run only; figures rounded for reading, intervals outward.`, g.left, y + 13, g.contentWidth, s, 8);
 }
 
-/** The top line of a page: the product name and the brief's subtitle. */
+const PAGE_TOP = 30;
+/** Where content starts under the top line. */
+export const PAGE_TOP_END = PAGE_TOP + 22;
+
+/** The top line of a page: the product name and the brief's subtitle. Returns PAGE_TOP_END. */
 export function pageTop(doc: PDFKit.PDFDocument, subtitle: string): number {
   const g = geometry(doc);
-  const y = 30;
+  const y = PAGE_TOP;
   textLine(doc, 'Crestwatch', g.left, y, { size: 9, face: 'bold', color: INK.accent });
   textLine(doc, subtitle, g.right, y + 1.5, { size: 7.5, color: INK.muted }, 'end');
   rule(doc, g.left, g.right, y + 15, INK.accent, 1.2);
-  return y + 22;
+  return PAGE_TOP_END;
 }
 
 /** A filled label, e.g. the standing. Returns its width. */

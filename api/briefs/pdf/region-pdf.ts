@@ -2,11 +2,12 @@
  * The region brief: a summary page (counts per standing, districts that crossed since the
  * last publish, the largest threshold shifts, the regional pooled curve, the cautions),
  * then the table of every district across as many pages as it needs, its header row
- * repeated on each. Footers (trace, page n of N) are drawn last, over buffered pages.
+ * repeated on each. Rows are measured and paginated before drawing, so every page gets
+ * its footer (trace, page n of N) as it is drawn.
  */
 import type { RegionBriefContent, RegionBriefRow } from '../../../lib/brief-types';
 import { printable } from './fonts';
-import { cautionsBox, createBriefDocument, drawScene, footer, FOOTER_HEIGHT, geometry, INK, measure, pageTop, rule, textBlock, textLine, type TextStyle } from './page';
+import { cautionsBox, createBriefDocument, drawScene, footer, FOOTER_HEIGHT, geometry, INK, measure, PAGE_TOP_END, pageTop, rule, textBlock, textLine, type TextStyle } from './page';
 
 /** How many districts each summary list shows before "and n more". */
 const LIST_LINES = 8;
@@ -145,68 +146,102 @@ function headerRow(doc: PDFKit.PDFDocument, cols: Column[], x: number, y: number
   return h;
 }
 
-/** One cell: a single line when it fits (fast path), else wrapped within the column. */
-function cell(doc: PDFKit.PDFDocument, text: string, col: Column, y: number, lines: number): void {
-  const inner = col.width - 6;
-  const t = printable(text);
-  const right = RIGHT_ALIGNED.has(col.key);
-  if (doc.widthOfString(t) <= inner) {
-    doc.text(t, right ? col.x + col.width - 3 - doc.widthOfString(t) : col.x + 3, y, { lineBreak: false });
-    return;
-  }
-  doc.text(t, col.x + 3, y, { width: inner, height: lines * doc.currentLineHeight(true) + 0.5, ellipsis: '…', align: right ? 'right' : 'left' });
+/** A row ready to draw: its cells as drawn (printable), their widths, and its height. */
+interface PreparedRow {
+  cells: string[];
+  widths: number[];
+  lines: number;
+  height: number;
 }
 
-function tablePages(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
-  doc.addPage();
+/**
+ * Measures every row once (widths of every cell, lines of a long name), so the table can
+ * be paginated before anything is drawn: the page count is known up front, each page gets
+ * its footer as it is drawn, and pdfkit writes finished pages out instead of holding all.
+ */
+function prepareRows(doc: PDFKit.PDFDocument, c: RegionBriefContent, cols: Column[]): PreparedRow[] {
+  doc.font('regular').fontSize(CELL.size);
+  const lh = doc.currentLineHeight(true);
+  return c.table.rows.map((row) => {
+    const cells = cols.map((col) => printable(row[col.key]));
+    const widths = cells.map((t) => doc.widthOfString(t));
+    let lines = 1;
+    cols.forEach((col, k) => {
+      if (widths[k] <= col.width - 6) return;
+      const need = col.key === 'name' ? Math.ceil(doc.heightOfString(cells[k], { width: col.width - 6 }) / lh - 0.01) : 2;
+      lines = Math.max(lines, Math.min(NAME_LINES, need));
+    });
+    return { cells, widths, lines, height: lines * lh + 2 * ROW_PAD };
+  });
+}
+
+/** Start and end (exclusive) of the rows on each table page. */
+function paginate(rows: PreparedRow[], firstY: number, bottom: number): [number, number][] {
+  const pages: [number, number][] = [];
+  let start = 0;
+  let y = firstY;
+  rows.forEach((r, i) => {
+    if (y + r.height > bottom && i > start) {
+      pages.push([start, i]);
+      start = i;
+      y = firstY;
+    }
+    y += r.height;
+  });
+  pages.push([start, rows.length]);
+  return pages;
+}
+
+/** Where the header row of a table page starts: under the page top and the table title. */
+const TABLE_TOP = PAGE_TOP_END + 17;
+
+function drawRow(doc: PDFKit.PDFDocument, r: PreparedRow, cols: Column[], y: number, shaded: boolean, x: number, width: number): void {
+  if (shaded) doc.save().rect(x, y, width, r.height).fillColor('#FAF8F3').fill().restore();
+  doc.font('regular').fontSize(CELL.size).fillColor(INK.text);
+  const lh = doc.currentLineHeight(true);
+  cols.forEach((col, k) => {
+    const t = r.cells[k];
+    const right = RIGHT_ALIGNED.has(col.key);
+    if (r.widths[k] <= col.width - 6) {
+      doc.text(t, right ? col.x + col.width - 3 - r.widths[k] : col.x + 3, y + ROW_PAD, { lineBreak: false });
+    } else {
+      doc.text(t, col.x + 3, y + ROW_PAD, { width: col.width - 6, height: r.lines * lh + 0.5, ellipsis: '…', align: right ? 'right' : 'left' });
+    }
+  });
+}
+
+export async function renderRegionPdf(c: RegionBriefContent): Promise<Buffer> {
+  const { doc, done } = createBriefDocument(c.paperSize, { title: `Region brief · run #${c.trace.runId}`, subject: `Crestwatch region brief, run #${c.trace.runId}` });
   const g = geometry(doc);
   const x = g.left;
   const width = g.contentWidth;
   const cols = columns(c, x, width);
-  const nameCol = cols.find((k) => k.key === 'name')!;
+  const rows = prepareRows(doc, c, cols);
   const bottom = g.height - FOOTER_HEIGHT - 8;
-  const lineH = () => {
-    doc.font('regular').fontSize(CELL.size);
-    return doc.currentLineHeight(true);
-  };
-  const start = (continued: boolean) => {
-    let y = pageTop(doc, c.subtitle);
-    textLine(doc, continued ? 'All districts (continued)' : 'All districts', x, y, { size: 11, face: 'bold' });
-    y += 17;
-    return y + headerRow(doc, cols, x, y, width) + 2;
-  };
-  let y = start(false);
-  const lh = lineH();
-  c.table.rows.forEach((row, i) => {
-    doc.font('regular').fontSize(CELL.size);
-    const nameFits = doc.widthOfString(printable(row.name)) <= nameCol.width - 6;
-    const nameLines = nameFits ? 1 : Math.min(NAME_LINES, Math.ceil(measure(doc, row.name, nameCol.width - 6, CELL) / lh - 0.01));
-    const otherLines = cols.some((col) => col.key !== 'name' && (doc.font('regular').fontSize(CELL.size), doc.widthOfString(printable(row[col.key])) > col.width - 6)) ? 2 : 1;
-    const lines = Math.max(nameLines, otherLines);
-    const h = lines * lh + 2 * ROW_PAD;
-    if (y + h > bottom) {
-      doc.addPage();
-      y = start(true);
-    }
-    if (i % 2 === 1) doc.save().rect(x, y, width, h).fillColor('#FAF8F3').fill().restore();
-    doc.font('regular').fontSize(CELL.size).fillColor(INK.text);
-    for (const col of cols) cell(doc, row[col.key], col, y + ROW_PAD, lines);
-    y += h;
-  });
-  rule(doc, x, x + width, y, INK.muted, 0.6);
-  if (y + 14 < bottom) textLine(doc, `${c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`, x, y + 5, { size: 6.8, color: INK.muted });
-}
+  const pages = paginate(rows, TABLE_TOP + 16 + 2, bottom);
+  const total = 1 + pages.length;
 
-export async function renderRegionPdf(c: RegionBriefContent): Promise<Buffer> {
-  const { doc, done } = createBriefDocument(c.paperSize, { title: `Region brief · run #${c.trace.runId}`, subject: `Crestwatch region brief, run #${c.trace.runId}` }, true);
   summaryPage(doc, c);
-  tablePages(doc, c);
-  const range = doc.bufferedPageRange();
-  for (let i = range.start; i < range.start + range.count; i++) {
-    doc.switchToPage(i);
-    footer(doc, c.trace, i - range.start + 1, range.count);
+  footer(doc, c.trace, 1, total);
+  for (let p = 0; p < pages.length; p++) {
+    const [from, to] = pages[p];
+    // Let the server answer other requests (and the collector work) between pages.
+    await new Promise((resolve) => setImmediate(resolve));
+    doc.addPage();
+    let y = pageTop(doc, c.subtitle);
+    textLine(doc, p === 0 ? 'All districts' : 'All districts (continued)', x, y, { size: 11, face: 'bold' });
+    y += 17;
+    y += headerRow(doc, cols, x, y, width) + 2;
+    for (let i = from; i < to; i++) {
+      drawRow(doc, rows[i], cols, y, i % 2 === 1, x, width);
+      y += rows[i].height;
+    }
+    if (p === pages.length - 1) {
+      rule(doc, x, x + width, y, INK.muted, 0.6);
+      if (y + 14 < bottom) textLine(doc, `${c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`, x, y + 5, { size: 6.8, color: INK.muted });
+    }
+    footer(doc, c.trace, p + 2, total);
   }
-  doc.flushPages();
   doc.end();
   return done;
 }
