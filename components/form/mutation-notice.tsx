@@ -59,8 +59,8 @@ export function fieldErrorsOf(error: unknown): Record<string, string> {
   const issues = (error.details as { issues?: { path?: unknown; message?: unknown }[] } | undefined)?.issues;
   if (!Array.isArray(issues)) return out;
   for (const i of issues) {
-    if (typeof i.path !== 'string' || typeof i.message !== 'string') continue;
-    const field = i.path.replace(/^body\.?/, '').split('.')[0];
+    if (typeof i.path !== 'string' || typeof i.message !== 'string' || !i.path.startsWith('body.')) continue;
+    const field = i.path.slice('body.'.length).split('.')[0];
     if (field && !(field in out)) out[field] = i.message;
   }
   return out;

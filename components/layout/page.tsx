@@ -10,14 +10,16 @@ export type PageProps = {
   /** Buttons or links beside the title (below it on a phone). */
   actions?: ReactNode;
   children: ReactNode;
+  /** Use the whole window width (a wide table beside a side panel), not the reading width. */
+  fill?: boolean;
   testID?: string;
 };
 
 /** The frame of a staff screen: a scrolling column with its heading, up to the page width. */
-export function Page({ title, intro, actions, children, testID }: PageProps) {
+export function Page({ title, intro, actions, children, fill = false, testID }: PageProps) {
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.content} testID={testID}>
-      <View style={styles.column}>
+      <View style={[styles.column, fill && styles.fill]}>
         <View style={styles.head}>
           <View style={styles.titles}>
             <Text role="heading" aria-level={1} style={styles.title}>
@@ -72,6 +74,7 @@ const styles = StyleSheet.create({
   scroll: { flex: 1, backgroundColor: colors.background },
   content: { padding: space.lg, paddingBottom: space.xxxl },
   column: { width: '100%', maxWidth: layout.pageMaxWidth, gap: space.xl },
+  fill: { maxWidth: '100%' },
   head: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end', justifyContent: 'space-between', gap: space.md },
   titles: { gap: space.xs, flexShrink: 1, minWidth: 240, maxWidth: 720 },
   title: { ...type.heading, color: colors.text },

@@ -156,7 +156,7 @@ export function ReviewTable({ runId, rows, previousRunId, shiftPercent, selected
           rows={shown}
           rowKey={(r) => r.code}
           selectedKey={selectedCode}
-          minWidth={820}
+          minWidth={680}
           initialSort={{ key: 'district', direction: 'asc' }}
           rowTestID={(r) => `review-row-${r.code}`}
           testID="review-table"

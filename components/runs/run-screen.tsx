@@ -38,7 +38,7 @@ export type RunScreenProps = {
 export function RunScreen(props: RunScreenProps) {
   const { runId, run } = props;
   return (
-    <Page title={`Run #${runId}`} actions={<TextLink href="/runs" label="All runs" leading="← " />} testID="run-screen">
+    <Page title={`Run #${runId}`} actions={<TextLink href="/runs" label="All runs" leading="← " />} fill={props.wide} testID="run-screen">
       <RunBody {...props} />
     </Page>
   );

@@ -66,7 +66,8 @@ export function UploadPanel({ changeFactor, pickFile, onPreview, onCommit }: Upl
     if (!file) return;
     setPhase({ step: 'checking', file });
     try {
-      const answer = await onPreview(file, { ...options, changeFactor: changeFactor ?? undefined });
+      // The change factor is not sent: the server applies the admin setting itself.
+      const answer = await onPreview(file, options);
       setPhase({ step: 'checked', file, answer });
     } catch (error) {
       setPhase({ step: 'refused', file, error });
