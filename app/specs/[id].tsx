@@ -10,7 +10,7 @@ import { useArchiveSpecMutation, useSaveSpecMutation, useSpecsQuery } from '@/ho
 import { can } from '@/lib/roles';
 
 /** The specs screen with one spec (or 'new', or none) open; /specs renders it with none. */
-export function SpecsRouteBody({ selected }: { selected: 'new' | number | null }) {
+export function SpecsRouteBody({ selected, notice = null }: { selected: 'new' | number | null; notice?: string | null }) {
   const router = useRouter();
   const mode = useLayoutMode();
   const me = useMeQuery();
@@ -28,7 +28,12 @@ export function SpecsRouteBody({ selected }: { selected: 'new' | number | null }
           selected={selected}
           wide={mode === 'wide'}
           onSave={async (id, input) => (await save.mutateAsync({ id, input })).spec}
-          onArchive={(id) => archive.mutateAsync(id)}
+          notice={notice}
+          onArchive={async (spec) => {
+            await archive.mutateAsync(spec.id);
+            // An archived spec leaves the list: back to it, saying what happened.
+            router.replace({ pathname: '/specs', params: { archived: spec.name } });
+          }}
           onSaved={(spec) => router.replace({ pathname: '/specs/[id]', params: { id: String(spec.id) } })}
         />
       )}

@@ -1,15 +1,18 @@
+import { useLocalSearchParams } from 'expo-router';
 import Head from 'expo-router/head';
 
 import { SpecsRouteBody } from './[id]';
 
 /** The saved model specs, none open. */
 export default function SpecsIndexRoute() {
+  const { archived } = useLocalSearchParams<{ archived?: string }>();
+  const notice = typeof archived === 'string' && archived ? `Archived “${archived}”. Runs keep their own copy of it.` : null;
   return (
     <>
       <Head>
         <title>Model specs · Crestwatch</title>
       </Head>
-      <SpecsRouteBody selected={null} />
+      <SpecsRouteBody selected={null} notice={notice} />
     </>
   );
 }

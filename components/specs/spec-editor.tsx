@@ -54,7 +54,7 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
     setState({ busy: true });
     try {
       await onArchive();
-      setState({ busy: false, success: 'Archived. Runs keep their own copy of it.' });
+      setState({ busy: false });
     } catch (error) {
       setState({ busy: false, error });
     }

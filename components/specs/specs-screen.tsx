@@ -1,5 +1,6 @@
 import { StyleSheet, Text, View } from 'react-native';
 
+import { MutationNotice } from '@/components/form/mutation-notice';
 import { Page } from '@/components/layout/page';
 import { QueryErrorPanel } from '@/components/state/query-error-panel';
 import type { QueryState } from '@/components/state/query-state';
@@ -20,8 +21,10 @@ export type SpecsScreenProps = {
   selected: 'new' | number | null;
   wide: boolean;
   onSave: (id: number | null, input: SpecInput) => Promise<SavedSpec>;
-  onArchive: (id: number) => Promise<unknown>;
+  onArchive: (spec: SavedSpec) => Promise<unknown>;
   onSaved: (spec: SavedSpec) => void;
+  /** Said above the list after a spec was archived (it leaves the list). */
+  notice?: string | null;
 };
 
 export function specLine(s: SavedSpec): string {
@@ -30,8 +33,13 @@ export function specLine(s: SavedSpec): string {
 }
 
 /** The saved specs (the default first) and the editor for one; side by side when wide. */
-export function SpecsScreen({ specs, indicators, selected, wide, onSave, onArchive, onSaved }: SpecsScreenProps) {
-  const list = <SpecList specs={specs} selected={selected} />;
+export function SpecsScreen({ specs, indicators, selected, wide, onSave, onArchive, onSaved, notice }: SpecsScreenProps) {
+  const list = (
+    <View style={styles.stack}>
+      {notice ? <MutationNotice success={notice} testID="specs-notice" /> : null}
+      <SpecList specs={specs} selected={selected} />
+    </View>
+  );
   let editor = null;
   if (selected !== null) {
     if (specs.status === 'pending' || indicators.status === 'pending') editor = <Skeleton width="100%" height={400} />;
@@ -49,7 +57,7 @@ export function SpecsScreen({ specs, indicators, selected, wide, onSave, onArchi
             spec={spec}
             indicators={indicators.data}
             onSave={(input) => onSave(spec?.id ?? null, input)}
-            onArchive={spec && !spec.archived ? () => onArchive(spec.id) : null}
+            onArchive={spec && !spec.archived && !spec.isDefault ? () => onArchive(spec) : null}
             onSaved={onSaved}
           />
         );
