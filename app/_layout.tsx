@@ -18,7 +18,7 @@ import { useAuthOptionsQuery, useMeQuery, useSignOutMutation } from '@/hooks/use
 import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useHealthQuery } from '@/hooks/use-health';
 import { useLayoutMode, useThirdColumn } from '@/hooks/use-layout-mode';
-import { useRegionQuery } from '@/hooks/use-region';
+import { usePublishedRunQuery } from '@/hooks/use-region';
 import { createQueryClient } from '@/lib/query-client';
 
 export default function RootLayout() {
@@ -35,7 +35,6 @@ export default function RootLayout() {
 
 function Frame() {
   const mode = useLayoutMode();
-  const districts = useDistrictsQuery();
   const health = useHealthQuery();
   const me = useMeQuery();
   const authOptions = useAuthOptionsQuery();
@@ -43,7 +42,6 @@ function Frame() {
   const router = useRouter();
   const signOut = useSignOutMutation();
   const badgeFeed = useAlertFeedQuery(me.status === 'success');
-  const region = useRegionQuery();
   const thirdColumn = useThirdColumn();
   const { code } = useGlobalSearchParams<{ code?: string }>();
   // The list sits beside the region and its districts; staff screens and the sign-in pages
@@ -52,6 +50,10 @@ function Frame() {
   const withFeed = withList && mode === 'wide' && thirdColumn;
   const feed = useAlertFeedQuery(withFeed);
   const markRead = useMarkAlertReadMutation();
+  // The list shows beside routes only in the wide layout; on a phone the home route has its own.
+  const listShown = withList && mode === 'wide';
+  const districts = useDistrictsQuery({ enabled: listShown });
+  const run = usePublishedRunQuery({ enabled: listShown });
   return (
     <RegionShell
       mode={mode}
@@ -69,7 +71,7 @@ function Frame() {
           <ServerNotice health={health} />
         </>
       }
-      list={withList ? <DistrictListPanel districts={districts} selectedCode={code} level={region.data?.run?.model.level ?? null} /> : null}
+      list={withList ? <DistrictListPanel districts={districts} selectedCode={code} level={run.data?.model.level ?? null} /> : null}
       aside={withFeed ? <AlertsFeedColumn feed={feed} onRead={markRead.mutate} /> : null}
     >
       <Slot />

@@ -5,14 +5,16 @@ import { RegionOverview } from '@/components/region/region-overview';
 import { RegionStrip } from '@/components/region/region-strip';
 import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
-import { useRegionQuery } from '@/hooks/use-region';
+import { usePublishedRunQuery, useRegionQuery } from '@/hooks/use-region';
 
 /** Home: the region. Phone: the list with the run line; wide: the list is beside, this shows the overview. */
 export default function RegionScreen() {
   const mode = useLayoutMode();
   const districts = useDistrictsQuery();
-  const region = useRegionQuery();
-  const level = region.data?.run?.model.level ?? null;
+  // The overview (wide) reads the region's pooled curve; the phone home only needs the run.
+  const region = useRegionQuery({ enabled: mode === 'wide' });
+  const run = usePublishedRunQuery();
+  const level = run.data?.model.level ?? null;
   return (
     <>
       <Head>
@@ -21,7 +23,7 @@ export default function RegionScreen() {
       {mode === 'wide' ? (
         <RegionOverview region={region} districts={districts} />
       ) : (
-        <DistrictListPanel districts={districts} level={level} header={<RegionStrip region={region} />} />
+        <DistrictListPanel districts={districts} level={level} header={<RegionStrip run={run} />} />
       )}
     </>
   );

@@ -8,6 +8,7 @@
 import type { TextStyle } from 'react-native';
 
 import { fontFamilies } from '@/lib/font-sources';
+import { textSize } from '@/lib/text-size';
 
 const palette = {
   paper: '#F5F2EA', // page background
@@ -127,17 +128,18 @@ export const fonts = fontFamilies;
 
 /**
  * Type scale (size / line height), a 1.2 ratio rounded to whole pixels. Each step names a
- * role, not a size, so screens say what a text is for.
+ * role, not a size, so screens say what a text is for. Sizes go through textSize, so they
+ * follow the reader's text size setting (rem on web; the system scale on phones).
  */
 export const type = {
-  caption: { fontFamily: fonts.regular, fontSize: 12, lineHeight: 16 },
-  label: { fontFamily: fonts.semibold, fontSize: 13, lineHeight: 18 },
-  body: { fontFamily: fonts.regular, fontSize: 15, lineHeight: 22 },
-  bodyStrong: { fontFamily: fonts.semibold, fontSize: 15, lineHeight: 22 },
-  numeric: { fontFamily: fonts.regular, fontSize: 14, lineHeight: 20, fontVariant: ['tabular-nums'] },
-  title: { fontFamily: fonts.semibold, fontSize: 18, lineHeight: 24 },
-  heading: { fontFamily: fonts.bold, fontSize: 22, lineHeight: 28 },
-  display: { fontFamily: fonts.bold, fontSize: 28, lineHeight: 34 },
+  caption: { fontFamily: fonts.regular, fontSize: textSize(12), lineHeight: textSize(16) },
+  label: { fontFamily: fonts.semibold, fontSize: textSize(13), lineHeight: textSize(18) },
+  body: { fontFamily: fonts.regular, fontSize: textSize(15), lineHeight: textSize(22) },
+  bodyStrong: { fontFamily: fonts.semibold, fontSize: textSize(15), lineHeight: textSize(22) },
+  numeric: { fontFamily: fonts.regular, fontSize: textSize(14), lineHeight: textSize(20), fontVariant: ['tabular-nums'] },
+  title: { fontFamily: fonts.semibold, fontSize: textSize(18), lineHeight: textSize(24) },
+  heading: { fontFamily: fonts.bold, fontSize: textSize(22), lineHeight: textSize(28) },
+  display: { fontFamily: fonts.bold, fontSize: textSize(28), lineHeight: textSize(34) },
 } satisfies Record<string, TextStyle>;
 
 /** Window widths where the layout changes. */

@@ -35,13 +35,14 @@ export function fetchDistrict(code: string, signal?: AbortSignal): Promise<Distr
   });
 }
 
-/** All districts, sorted by name (the server's order). */
-export function useDistrictsQuery() {
+/** All districts, sorted by name (the server's order); `enabled: false` where no list is shown. */
+export function useDistrictsQuery(options: { enabled?: boolean } = {}) {
   return useQuery({
     queryKey: districtKeys.list(),
     queryFn: ({ signal }) => fetchDistricts(signal),
     staleTime: STALE_TIMES.districtList,
     select: (data) => data.districts,
+    enabled: options.enabled ?? true,
   });
 }
 

@@ -2,8 +2,10 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { RegionResponse } from '@/lib/estimate-types';
+import type { PublishedRunMeta, RegionResponse } from '@/lib/estimate-types';
 import { STALE_TIMES } from '@/lib/stale-times';
+
+import { districtKeys, fetchDistricts } from './use-districts';
 
 export const regionKeysRoot = ['region'] as const;
 
@@ -20,11 +22,26 @@ export function fetchRegion(signal?: AbortSignal): Promise<RegionResponse> {
   return apiGet<RegionResponse>('/api/region', { signal, accept: isRegionResponse });
 }
 
-/** The region as the latest published run sees it. */
-export function useRegionQuery() {
+/** The region as the latest published run sees it (the wide overview: pooled curve, run). */
+export function useRegionQuery(options: { enabled?: boolean } = {}) {
   return useQuery({
     queryKey: regionKeys.summary(),
     queryFn: ({ signal }) => fetchRegion(signal),
     staleTime: STALE_TIMES.region,
+    enabled: options.enabled ?? true,
+  });
+}
+
+/**
+ * The published run the district list's standings come from. It rides on the list's own
+ * answer (same key, same fetch), so the phone home and the list make one request, not two.
+ */
+export function usePublishedRunQuery(options: { enabled?: boolean } = {}) {
+  return useQuery({
+    queryKey: districtKeys.list(),
+    queryFn: ({ signal }) => fetchDistricts(signal),
+    staleTime: STALE_TIMES.districtList,
+    select: (data): PublishedRunMeta | null => (data as { run?: PublishedRunMeta | null }).run ?? null,
+    enabled: options.enabled ?? true,
   });
 }

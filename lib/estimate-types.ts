@@ -129,7 +129,8 @@ export type DistrictEstimateResponse = {
   run: PublishedRunMeta | null;
   main: EstimateRecord | null;
   variants: VariantSummary[];
-  note: string | null;
+  /** The reviewing analyst's note on this district in the published run. */
+  note: { note: string; authorEmail: string | null; updatedAt: string } | null;
 };
 
 export type RegionDistrict = { code: string; name: string; estimate: EstimateSummary | null };

@@ -1,6 +1,6 @@
 /** District summaries and series: the rules (year span, gaps as nulls) live here. */
 import type { Knex } from 'knex';
-import { publishedSummaries } from '../estimates/service';
+import { publishedRunMeta, publishedSummaries } from '../estimates/service';
 import { NotFoundError } from '../http/errors';
 import * as store from './store';
 
@@ -41,6 +41,8 @@ export async function listDistricts(db: Knex) {
   const [rows, published] = await Promise.all([store.listDistrictSummaries(db), publishedSummaries(db)]);
   return {
     publishedRunId: published.run?.id ?? null,
+    /** The run the standings come from (what the region list's header names). */
+    run: published.run ? publishedRunMeta(published.run) : null,
     districts: rows.map((d) => ({ ...publicSummary(d), estimate: published.byCode.get(d.code) ?? null })),
   };
 }

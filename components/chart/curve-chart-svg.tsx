@@ -10,21 +10,21 @@ import { chartColors, type } from '@/components/theme';
 import { formatTick } from '@/lib/chart-scale';
 import type { CurveChartModel } from '@/lib/chart-model';
 
-import { axisStyle, CHART_PADDING } from './chart-styles';
+import { axisStyle, chartPadding } from './chart-styles';
 
-export type CurveChartSvgProps = { model: CurveChartModel; width: number; height: number; emissionsUnit: string };
+export type CurveChartSvgProps = { model: CurveChartModel; width: number; height: number; emissionsUnit: string; textScale?: number };
 
-export default function CurveChartSvg({ model: m, width, height, emissionsUnit }: CurveChartSvgProps) {
+export default function CurveChartSvg({ model: m, width, height, emissionsUnit, textScale = 1 }: CurveChartSvgProps) {
   const [y0, y1] = m.yDomain;
   return (
-    <VictoryChart width={width} height={height} padding={CHART_PADDING} scale={{ x: 'log', y: 'log' }} domain={{ x: m.xDomain, y: m.yDomain }}>
+    <VictoryChart width={width} height={height} padding={chartPadding(textScale)} scale={{ x: 'log', y: 'log' }} domain={{ x: m.xDomain, y: m.yDomain }}>
       <VictoryAxis
         tickValues={m.xTicks}
         tickFormat={(t: number) => formatTick(t)}
         label="Real income per person (log scale)"
-        style={axisStyle(true)}
+        style={axisStyle(true, textScale)}
       />
-      <VictoryAxis dependentAxis tickValues={m.yTicks} tickFormat={(t: number) => formatTick(t)} label={`${emissionsUnit} (log scale)`} style={axisStyle(false)} />
+      <VictoryAxis dependentAxis tickValues={m.yTicks} tickFormat={(t: number) => formatTick(t)} label={`${emissionsUnit} (log scale)`} style={axisStyle(false, textScale)} />
       {m.band ? (
         <VictoryArea
           name="threshold-band"
@@ -64,7 +64,7 @@ export default function CurveChartSvg({ model: m, width, height, emissionsUnit }
           labels={[String(m.latest.year)]}
           style={{
             data: { fill: chartColors.surface, stroke: chartColors.latest, strokeWidth: 3 },
-            labels: { fill: chartColors.axis, fontSize: 12, fontFamily: type.label.fontFamily },
+            labels: { fill: chartColors.axis, fontSize: 12 * textScale, fontFamily: type.label.fontFamily },
           }}
         />
       ) : null}

@@ -1,6 +1,7 @@
 import { lazy, useMemo } from 'react';
 
 import { chartColors, layout } from '@/components/theme';
+import { useTextScale } from '@/hooks/use-text-scale';
 import { curveChartModel } from '@/lib/chart-model';
 import { curveChartSummary } from '@/lib/chart-summary';
 import type { EstimateRecord } from '@/lib/estimate-types';
@@ -21,6 +22,7 @@ export function CurveChart({ record }: { record: EstimateRecord }) {
   const model = useMemo(() => curveChartModel(record), [record]);
   const summary = useMemo(() => curveChartSummary(record), [record]);
   const level = record.model.level;
+  const textScale = useTextScale();
   const items: LegendItem[] = [
     { key: 'observed', label: 'Observed years', swatch: 'dot', color: chartColors.points },
     { key: 'latest', label: `Latest year (${model.latest?.year ?? '—'})`, swatch: 'ring', color: chartColors.latest },
@@ -41,7 +43,7 @@ export function CurveChart({ record }: { record: EstimateRecord }) {
   }
   return (
     <ChartFrame title="Emissions and income" summary={summary} height={layout.curveChartHeight} testID="curve-chart" legend={<ChartLegend items={items} />}>
-      {(width) => <CurveChartSvg model={model} width={width} height={layout.curveChartHeight} emissionsUnit="t CO₂ per person" />}
+      {(width) => <CurveChartSvg model={model} width={width} height={layout.curveChartHeight} emissionsUnit="t CO₂ per person" textScale={textScale} />}
     </ChartFrame>
   );
 }

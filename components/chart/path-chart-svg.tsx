@@ -10,17 +10,17 @@ import { chartColors } from '@/components/theme';
 import { formatTick } from '@/lib/chart-scale';
 import type { PathChartModel } from '@/lib/chart-model';
 
-import { axisStyle, CHART_PADDING } from './chart-styles';
+import { axisStyle, chartPadding } from './chart-styles';
 
-export type PathChartSvgProps = { model: PathChartModel; width: number; height: number };
+export type PathChartSvgProps = { model: PathChartModel; width: number; height: number; textScale?: number };
 
-export default function PathChartSvg({ model: m, width, height }: PathChartSvgProps) {
+export default function PathChartSvg({ model: m, width, height, textScale = 1 }: PathChartSvgProps) {
   const [t0, t1] = m.yearDomain;
   const last = m.path[m.path.length - 1];
   return (
-    <VictoryChart width={width} height={height} padding={CHART_PADDING} scale={{ x: 'linear', y: 'log' }} domain={{ x: m.yearDomain, y: m.incomeDomain }}>
-      <VictoryAxis tickValues={m.yearTicks} tickFormat={(t: number) => String(t)} label="Year" style={axisStyle(true)} />
-      <VictoryAxis dependentAxis tickValues={m.incomeTicks} tickFormat={(t: number) => formatTick(t)} label="Income per person (log)" style={axisStyle(false)} />
+    <VictoryChart width={width} height={height} padding={chartPadding(textScale)} scale={{ x: 'linear', y: 'log' }} domain={{ x: m.yearDomain, y: m.incomeDomain }}>
+      <VictoryAxis tickValues={m.yearTicks} tickFormat={(t: number) => String(t)} label="Year" style={axisStyle(true, textScale)} />
+      <VictoryAxis dependentAxis tickValues={m.incomeTicks} tickFormat={(t: number) => formatTick(t)} label="Income per person (log)" style={axisStyle(false, textScale)} />
       {m.band ? (
         <VictoryArea
           name="threshold-band"

@@ -1,6 +1,7 @@
 import { lazy, useMemo } from 'react';
 
 import { chartColors, layout } from '@/components/theme';
+import { useTextScale } from '@/hooks/use-text-scale';
 import { pathChartModel } from '@/lib/chart-model';
 import { pathChartSummary } from '@/lib/chart-summary';
 import type { EstimateRecord } from '@/lib/estimate-types';
@@ -17,6 +18,7 @@ export function PathChart({ record }: { record: EstimateRecord }) {
   const model = useMemo(() => pathChartModel(record), [record]);
   const summary = useMemo(() => pathChartSummary(record), [record]);
   const level = record.model.level;
+  const textScale = useTextScale();
   const items: LegendItem[] = [{ key: 'path', label: 'Income per person', swatch: 'line', color: chartColors.curve }];
   if (model.projection.length > 1) items.push({ key: 'projection', label: 'Recent trend, carried forward', swatch: 'dash', color: chartColors.projection });
   if (model.threshold !== null) items.push({ key: 'threshold', label: 'Threshold', swatch: 'dash', color: chartColors.threshold });
@@ -27,7 +29,7 @@ export function PathChart({ record }: { record: EstimateRecord }) {
   }
   return (
     <ChartFrame title="Income over the years" summary={summary} height={layout.pathChartHeight} testID="path-chart" legend={<ChartLegend items={items} />}>
-      {(width) => <PathChartSvg model={model} width={width} height={layout.pathChartHeight} />}
+      {(width) => <PathChartSvg model={model} width={width} height={layout.pathChartHeight} textScale={textScale} />}
     </ChartFrame>
   );
 }

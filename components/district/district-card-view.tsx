@@ -130,7 +130,7 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
           {data.note ? (
             <View style={styles.analystNote} testID="analyst-note">
               <Text style={styles.noteTerm}>Analyst’s note</Text>
-              <Text style={styles.noteText}>{data.note}</Text>
+              <Text style={styles.noteText}>{data.note.note}</Text>
             </View>
           ) : null}
           <KeyFigures record={main} run={data.run} />

@@ -9,6 +9,7 @@ import { StatePanel } from '@/components/state/state-panel';
 import { colors, layout, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { useRegionFilter } from '@/hooks/use-region-filter';
+import { useTextScale } from '@/hooks/use-text-scale';
 import { applyRegionFilter, countByStanding, toggle, type RegionRow } from '@/lib/region-list';
 
 import { DistrictRow } from './district-row';
@@ -44,9 +45,16 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
   const selectedIndex = selectedCode ? shown.findIndex((d) => d.code === selectedCode) : -1;
   const initialScrollIndex = selectedIndex > 2 ? selectedIndex - 2 : undefined;
 
+  // Rows have one fixed height so the list can place 3,000 of them without measuring; it
+  // grows with the reader's text size so larger text is not cut off.
+  const rowHeight = Math.ceil(layout.districtRowHeight * useTextScale());
+  const itemLayout = useCallback(
+    (_: ArrayLike<RegionRow> | null | undefined, index: number) => ({ length: rowHeight, offset: rowHeight * index, index }),
+    [rowHeight],
+  );
   const renderItem = useCallback<ListRenderItem<RegionRow>>(
-    ({ item }) => <DistrictRow district={item} selected={item.code === selectedCode} level={level} />,
-    [selectedCode, level],
+    ({ item }) => <DistrictRow district={item} selected={item.code === selectedCode} level={level} height={rowHeight} />,
+    [selectedCode, level, rowHeight],
   );
 
   return (
@@ -69,7 +77,7 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
       {districts.status === 'pending' ? (
         <View testID="district-list-loading" accessible accessibilityLabel="Loading the district list" style={styles.list}>
           {Array.from({ length: SKELETON_ROWS }, (_, i) => (
-            <DistrictRowSkeleton key={i} index={i} />
+            <DistrictRowSkeleton key={i} index={i} height={rowHeight} />
           ))}
         </View>
       ) : districts.status === 'error' && !all ? (
@@ -98,7 +106,7 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
           renderItem={renderItem}
           keyExtractor={keyOf}
           getItemLayout={itemLayout}
-          extraData={selectedCode}
+          extraData={`${selectedCode}:${rowHeight}`}
           initialScrollIndex={initialScrollIndex}
           initialNumToRender={12}
           maxToRenderPerBatch={12}
@@ -131,11 +139,6 @@ function countText(status: QueryState<unknown>['status'], total: number, shown: 
 
 const keyOf = (d: RegionRow) => d.code;
 
-const itemLayout = (_: ArrayLike<RegionRow> | null | undefined, index: number) => ({
-  length: layout.districtRowHeight,
-  offset: layout.districtRowHeight * index,
-  index,
-});
 
 const styles = StyleSheet.create({
   panel: { flex: 1, backgroundColor: colors.background },

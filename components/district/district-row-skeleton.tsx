@@ -4,11 +4,11 @@ import { Skeleton } from '@/components/state/skeleton';
 import { colors, layout, space } from '@/components/theme';
 
 /** Stands in for a DistrictRow while the list loads: same height, same blocks. */
-export function DistrictRowSkeleton({ index }: { index: number }) {
+export function DistrictRowSkeleton({ index, height = layout.districtRowHeight }: { index: number; height?: number }) {
   // Vary the name width a little so the placeholder does not read as a pattern.
   const nameWidth = 96 + ((index * 37) % 80);
   return (
-    <View style={styles.row}>
+    <View style={[styles.row, { height }]}>
       <View style={styles.main}>
         <Skeleton width={nameWidth} height={18} />
         <Skeleton width={112} height={14} />

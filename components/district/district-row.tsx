@@ -17,6 +17,8 @@ export type DistrictRowProps = {
   selected?: boolean;
   /** The published run's confidence level, for "interval not bounded at 95%". */
   level?: number | null;
+  /** Row height: `districtRowHeight` times the reader's text scale (the list lays rows out by it). */
+  height?: number;
 };
 
 /**
@@ -24,7 +26,7 @@ export type DistrictRowProps = {
  * standing (mark and word), the gap to its threshold, the projected crossing and the years
  * of data. A link to its card.
  */
-export const DistrictRow = memo(function DistrictRow({ district, selected = false, level = null }: DistrictRowProps) {
+export const DistrictRow = memo(function DistrictRow({ district, selected = false, level = null, height = layout.districtRowHeight }: DistrictRowProps) {
   const e = district.estimate ?? null;
   const gap = gapColumn(e);
   const crossing = crossingShort(e);
@@ -39,6 +41,7 @@ export const DistrictRow = memo(function DistrictRow({ district, selected = fals
         accessibilityState={{ selected }}
         stateStyle={(state: InteractionState) => [
           styles.row,
+          { height },
           state.hovered && styles.hovered,
           selected && styles.selected,
           focusOutline(state, 'inside'),

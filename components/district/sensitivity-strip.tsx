@@ -2,6 +2,7 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import { chartColors, colors, radius, space, type } from '@/components/theme';
 import type { EstimateRecord, VariantSummary } from '@/lib/estimate-types';
+import { textSize } from '@/lib/text-size';
 import { formatLevel, levelPercent } from '@/lib/estimate-words';
 import { sensitivityRows, stripDomain, stripPosition, type SensitivityRow } from '@/lib/sensitivity';
 
@@ -94,7 +95,7 @@ const styles = StyleSheet.create({
     backgroundColor: chartColors.threshold,
     transform: [{ rotate: '45deg' }],
   },
-  value: { ...type.numeric, fontSize: 13, color: colors.text },
+  value: { ...type.numeric, fontSize: textSize(13), color: colors.text },
   scale: { flexDirection: 'row', justifyContent: 'space-between' },
   scaleText: { ...type.caption, color: colors.textMuted },
 });

@@ -5,11 +5,11 @@ import type { QueryState } from '@/components/state/query-state';
 import { colors, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import { formatDay } from '@/lib/alert-text';
-import type { RegionResponse } from '@/lib/estimate-types';
+import type { PublishedRunMeta } from '@/lib/estimate-types';
 
 /** The phone home's top line: which run the standings come from, the region brief, the method page. */
-export function RegionStrip({ region }: { region: QueryState<RegionResponse> }) {
-  const run = region.data?.run ?? null;
+export function RegionStrip({ run: published }: { run: QueryState<PublishedRunMeta | null> }) {
+  const run = published.data ?? null;
   return (
     <View style={styles.wrap} testID="region-strip">
       <View style={styles.head}>
@@ -22,11 +22,11 @@ export function RegionStrip({ region }: { region: QueryState<RegionResponse> }) 
         </View>
       </View>
       <Text style={styles.meta} numberOfLines={2}>
-        {region.status === 'pending'
+        {published.status === 'pending'
           ? 'Loading the published run…'
           : run
             ? `Standings from run #${run.id}, published ${formatDay(run.publishedAt)}`
-            : region.status === 'error'
+            : published.status === 'error'
               ? 'The published run could not be loaded.'
               : 'No run published yet'}
       </Text>

@@ -129,6 +129,14 @@ describe('district card', () => {
     expect(textOf(screen.getByTestId('curve-chart-summary'))).toMatch(/No fitted curve: the district is not estimable in this run/);
   });
 
+  it('shows the reviewing analyst’s note', async () => {
+    answer(estimateRecord({}), {
+      '/api/districts/T02/estimate': { ...cardAnswers(estimateRecord({}))['/api/districts/T02/estimate'] as object, note: { note: 'Series revised in 2026; read with the 2024 upload.', authorEmail: 'analyst@crestwatch.example', updatedAt: run.publishedAt } },
+    });
+    renderApp('/district/T02');
+    expect(await screen.findByText('Series revised in 2026; read with the 2024 upload.')).toBeTruthy();
+  });
+
   it('shows history and alerts in their tabs', async () => {
     answer(estimateRecord({}), {
       '/api/districts/T02/alerts?limit=20': {

@@ -31,6 +31,7 @@ const approaching = summaryOf(estimateRecord({}));
 const pastUnbounded = { ...approaching, standing: 'past_turn' as const, gapPercent: 40, intervalBounded: false, fiellerKind: 'whole_line' as const, thresholdLo: null, thresholdHi: null, projectionStatus: 'already_past' as const, crossingYear: 2012, crossingEarliest: null, crossingLatest: null };
 const withEstimates = {
   publishedRunId: 7,
+  run,
   districts: [
     { ...districtSummaries[0], estimate: approaching },
     { ...districtSummaries[1], estimate: pastUnbounded },
