@@ -1,31 +1,28 @@
 /**
  * The words of briefs (our own): standing and shape labels, the cautions of DOMAIN.md,
- * and the names of models and covariance choices as a reader sees them.
+ * and the names of models and covariance choices as a reader sees them. Standings, shapes
+ * and cautions read exactly as on the district card and the method page
+ * (lib/estimate-words.ts, lib/cautions.ts; tests/components/brief-views.test.tsx holds
+ * them equal), so a brief never names a standing differently from the screen.
  */
 
 export const STANDING_LABEL: Record<string, string> = {
-  approaching: 'Approaching the threshold',
-  at_turn: 'At the threshold',
-  past_turn: 'Past the threshold',
-  no_turn: 'No turn in the data',
-  not_estimable: 'Not estimable',
-};
-
-/** Short forms for the region table. */
-export const STANDING_SHORT: Record<string, string> = {
   approaching: 'Approaching',
-  at_turn: 'At threshold',
-  past_turn: 'Past threshold',
+  at_turn: 'At the turn',
+  past_turn: 'Past the turn',
   no_turn: 'No turn',
   not_estimable: 'Not estimable',
 };
+
+/** The region table's column is narrow: the same words serve. */
+export const STANDING_SHORT: Record<string, string> = STANDING_LABEL;
 
 /** The order standings are counted in on the region brief. */
 export const STANDING_ORDER = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'] as const;
 
 export const SHAPE_LABEL: Record<string, string> = {
-  inverted_u: 'Inverted U',
-  u: 'U',
+  inverted_u: 'Rise then fall',
+  u: 'Fall then rise',
   increasing: 'Rising',
   decreasing: 'Falling',
   flat: 'Flat',
@@ -35,8 +32,13 @@ export function standingLabel(standing: string): string {
   return STANDING_LABEL[standing] ?? standing;
 }
 
+/** Trade names, in brackets after the plain words where they differ. */
+const SHAPE_TECHNICAL: Record<string, string> = { inverted_u: 'inverted U', u: 'U' };
+
 export function shapeLabel(shape: string | null): string {
-  return shape ? (SHAPE_LABEL[shape] ?? shape) : 'Not estimated';
+  if (!shape) return 'Not estimated';
+  const plain = SHAPE_LABEL[shape] ?? shape;
+  return SHAPE_TECHNICAL[shape] ? `${plain} (${SHAPE_TECHNICAL[shape]})` : plain;
 }
 
 /** The cautions every brief carries (DOMAIN.md, "Cautions the product shows"). */

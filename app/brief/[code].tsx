@@ -1,0 +1,30 @@
+import { useLocalSearchParams } from 'expo-router';
+import Head from 'expo-router/head';
+
+import { BriefScreen } from '@/components/brief/brief-screen';
+import { DistrictBriefView } from '@/components/brief/district-brief-view';
+import { TextLink } from '@/components/ui/text-link';
+import { briefPdfPath, useDistrictBriefQuery } from '@/hooks/use-briefs';
+
+/** A district's brief as a print-friendly page (the same content as its PDF). */
+export default function DistrictBriefScreen() {
+  const params = useLocalSearchParams<{ code: string }>();
+  const code = typeof params.code === 'string' ? params.code : '';
+  const brief = useDistrictBriefQuery(code);
+  const name = brief.data?.name;
+  return (
+    <>
+      <Head>
+        <title>{name ? `Brief: ${name} (${code}) · Crestwatch` : `Brief ${code} · Crestwatch`}</title>
+      </Head>
+      <BriefScreen
+        query={brief}
+        what={`district brief of ${name ?? code}`}
+        pdfPath={briefPdfPath.district(code)}
+        back={<TextLink href={{ pathname: '/district/[code]', params: { code } }} label="District card" leading="← " />}
+      >
+        {(content) => <DistrictBriefView content={content} />}
+      </BriefScreen>
+    </>
+  );
+}

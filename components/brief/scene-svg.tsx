@@ -1,0 +1,74 @@
+// A brief chart drawn from its vector scene (lib/brief-types.ts) with react-native-svg: the
+// same paths, marks and labels the server draws into the PDF. Loaded on its own, after
+// the brief has mounted (see brief-chart.tsx).
+import Svg, { Circle, Path, Text as SvgText } from 'react-native-svg';
+
+import { chartColors, colors, fonts } from '@/components/theme';
+import type { BriefTone, ChartScene } from '@/lib/brief-types';
+
+const TONE: Record<BriefTone, string> = {
+  ink: colors.text,
+  muted: colors.textMuted,
+  grid: chartColors.grid,
+  curve: chartColors.curve,
+  pooled: chartColors.pooled,
+  band: chartColors.band,
+  threshold: chartColors.threshold,
+  latest: chartColors.latest,
+  point: chartColors.points,
+  projection: chartColors.projection,
+};
+
+export type SceneSvgProps = { scene: ChartScene };
+
+export default function SceneSvg({ scene }: SceneSvgProps) {
+  return (
+    <Svg width="100%" height="100%" viewBox={`0 0 ${scene.width} ${scene.height}`} preserveAspectRatio="xMidYMid meet">
+      {scene.items.map((item, i) => {
+        if (item.kind === 'path') {
+          return (
+            <Path
+              key={i}
+              d={item.d}
+              fill={item.fill ? TONE[item.fill] : 'none'}
+              fillOpacity={item.fill ? (item.opacity ?? 1) : undefined}
+              stroke={item.stroke ? TONE[item.stroke] : undefined}
+              strokeOpacity={item.stroke ? (item.opacity ?? 1) : undefined}
+              strokeWidth={item.stroke ? (item.width ?? 1) : undefined}
+              strokeDasharray={item.dash ? `${item.dash[0]} ${item.dash[1]}` : undefined}
+              strokeLinecap="round"
+              strokeLinejoin="round"
+            />
+          );
+        }
+        if (item.kind === 'circle') {
+          return (
+            <Circle
+              key={i}
+              cx={item.cx}
+              cy={item.cy}
+              r={item.r}
+              fill={item.fill ? TONE[item.fill] : 'none'}
+              fillOpacity={item.opacity ?? 1}
+              stroke={item.stroke ? TONE[item.stroke] : undefined}
+              strokeWidth={item.stroke ? (item.width ?? 0.6) : undefined}
+            />
+          );
+        }
+        return (
+          <SvgText
+            key={i}
+            x={item.x}
+            y={item.y}
+            fontSize={item.size}
+            fontFamily={item.bold ? fonts.bold : fonts.regular}
+            fill={TONE[item.tone]}
+            textAnchor={item.anchor}
+          >
+            {item.text}
+          </SvgText>
+        );
+      })}
+    </Svg>
+  );
+}
