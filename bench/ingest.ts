@@ -203,7 +203,7 @@ ingest bench: ${rows.toLocaleString('en')} rows (${DISTRICTS.toLocaleString('en'
   POST /api/uploads?commit=true (upload → checked → committed)   ${s(best.uploadMs)}
       receive ${s(best.timings.receiveMs)}, read + check rows + COPY to staging ${s(best.timings.readMs)}, set-based checks ${s(best.timings.checkMs)}, merge ${s(best.timings.mergeMs)}${best.timings.bulkPath ? ' (bulk path)' : ''}; ${best.inserted.toLocaleString('en')} values inserted
   ratio upload / \\copy   ${(best.uploadMs / bestCopyMs).toFixed(2)}×   (goal ≤ 2×; fastest of each over ${ROUNDS} round${ROUNDS > 1 ? 's' : ''}; per-round median ${median.toFixed(2)}×)
-  peak RSS of this process (server and client)   ${rssMb.toFixed(0)} MB   (goal < 300 MB; ${best.rssBeforeMb.toFixed(0)} MB before the upload, ${best.rssPeakMb.toFixed(0)} MB at most during it)`);
+  peak RSS of this process (server and client)   ${rssMb.toFixed(0)} MB   (goal < 300 MB; ${rounds[0].rssBeforeMb.toFixed(0)} MB before the first upload, ${Math.max(...rounds.map((r) => r.rssPeakMb)).toFixed(0)} MB at most during one)`);
   } finally {
     standIn.kill('SIGTERM');
     fs.rmSync(dir, { recursive: true, force: true });
