@@ -53,12 +53,18 @@ export function BriefFrame({ pdfPath, what, paperSize, back, children }: BriefFr
     <ScrollView style={styles.scroll} contentContainerStyle={styles.content} testID="brief-frame">
       <style>{printCss(paperSize)}</style>
       <View style={styles.column}>
+        {/* The links name the district from the URL, which the static page (one template for
+            every code) cannot know: they appear once mounted, never hydrated with a stale href. */}
         <View style={styles.toolbar}>
-          {back}
-          <View style={styles.actions}>
-            <Button label="Print" onPress={() => window.print()} accessibilityHint="Prints this brief as it is shown" testID="brief-print" />
-            <ExternalLink path={pdfPath} label="Open the PDF" accessibilityLabel={`${what} as PDF`} testID="brief-pdf-link" />
-          </View>
+          {host ? (
+            <>
+              {back}
+              <View style={styles.actions}>
+                <Button label="Print" onPress={() => window.print()} accessibilityHint="Prints this brief as it is shown" testID="brief-print" />
+                <ExternalLink path={pdfPath} label="Open the PDF" accessibilityLabel={`${what} as PDF`} testID="brief-pdf-link" />
+              </View>
+            </>
+          ) : null}
         </View>
         <View style={styles.sheet}>{children}</View>
       </View>
@@ -71,7 +77,7 @@ const styles = StyleSheet.create({
   scroll: { flex: 1, backgroundColor: colors.background },
   content: { padding: space.lg, paddingBottom: space.xxxl },
   column: { width: '100%', maxWidth: layout.detailMaxWidth, gap: space.md },
-  toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm, minHeight: layout.touchTarget },
   actions: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   sheet: { backgroundColor: colors.surface, borderRadius: 8, padding: space.lg },
   printSheet: { backgroundColor: colors.surface },

@@ -31,7 +31,8 @@ export default function SceneSvg({ scene }: SceneSvgProps) {
               key={i}
               d={item.d}
               fill={item.fill ? TONE[item.fill] : 'none'}
-              fillOpacity={item.fill ? (item.opacity ?? 1) : undefined}
+              // The theme's band is already a light tint: drawn solid, as on the card.
+              fillOpacity={item.fill ? (item.fill === 'band' ? 1 : (item.opacity ?? 1)) : undefined}
               stroke={item.stroke ? TONE[item.stroke] : undefined}
               strokeOpacity={item.stroke ? (item.opacity ?? 1) : undefined}
               strokeWidth={item.stroke ? (item.width ?? 1) : undefined}
