@@ -3,6 +3,9 @@ const esmOnly = [
   'oauth2-mock-server', 'jose', 'ml-regression-.*', 'ml-array-.*', 'is-any-array', 'is-plain-obj',
 ];
 module.exports = {
+  // Generous per-test limit: API and browser tests start databases and servers; a 2-core
+  // machine under load needs more than jest's 5 s default. Speed is measured in bench/.
+  testTimeout: 60000,
   projects: [
     {
       displayName: 'app',
