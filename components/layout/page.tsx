@@ -3,6 +3,8 @@ import { ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { colors, layout, space, type } from '@/components/theme';
 
+import { StickySide } from './sticky-side';
+
 export type PageProps = {
   title: string;
   /** One or two sentences under the title: what the screen is for. */
@@ -52,7 +54,10 @@ export function Section({ title, children, aside, testID }: SectionProps) {
   );
 }
 
-/** Two columns in the wide layout (main and a fixed-width side panel); one above the other on a phone. */
+/**
+ * Two columns in the wide layout (main and a fixed-width side panel that stays in view while
+ * the main column scrolls); one above the other on a phone.
+ */
 export function SplitColumns({ wide, main, side }: { wide: boolean; main: ReactNode; side: ReactNode | null }) {
   if (!wide) {
     return (
@@ -65,7 +70,11 @@ export function SplitColumns({ wide, main, side }: { wide: boolean; main: ReactN
   return (
     <View style={styles.split}>
       <View style={styles.splitMain}>{main}</View>
-      {side ? <View style={styles.splitSide}>{side}</View> : null}
+      {side ? (
+        <View style={styles.splitSide}>
+          <StickySide>{side}</StickySide>
+        </View>
+      ) : null}
     </View>
   );
 }
@@ -84,7 +93,8 @@ const styles = StyleSheet.create({
   sectionHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
   sectionTitle: { ...type.title, color: colors.text },
   stack: { gap: space.xl },
-  split: { flexDirection: 'row', alignItems: 'flex-start', gap: space.xl },
+  // Stretch (not flex-start): a sticky child needs a side column as tall as the table.
+  split: { flexDirection: 'row', alignItems: 'stretch', gap: space.xl },
   splitMain: { flex: 1, minWidth: 0, gap: space.xl },
   splitSide: { width: layout.sidePanelWidth, gap: space.lg },
 });

@@ -82,10 +82,21 @@ describe('at the wide viewport', () => {
       await page.getByTestId('review-filter-all').click();
       await page.getByTestId('review-table-sort-move').click();
 
+      // A district far down the table opens beside it in view: the panel stays put while the table scrolls.
+      const last = page.getByTestId('review-row-D24');
+      await last.scrollIntoViewIfNeeded();
+      await last.getByRole('link').first().click();
+      await page.waitForURL(/district=D24/);
+      const panel = page.getByTestId('district-review');
+      await panel.getByRole('heading', { name: /\(D24\)/ }).waitFor();
+      const box = (await panel.getByRole('heading', { name: /\(D24\)/ }).boundingBox())!;
+      expect(box.y).toBeGreaterThanOrEqual(0);
+      expect(box.y + box.height).toBeLessThanOrEqual(VIEWPORTS.wide.height);
+      await h.shot(page, 'staff-wide-run-district-far-down');
+
       await page.getByTestId('review-row-D13').getByRole('link').first().click();
       await page.waitForURL(/district=D13/);
-      const panel = page.getByTestId('district-review');
-      await panel.waitFor();
+      await panel.getByRole('heading', { name: /\(D13\)/ }).waitFor();
       await panel.getByTestId('movement').waitFor();
       expect(await panel.getByTestId('movement-data').innerText()).toMatch(/Data revisions/);
       expect(await panel.getByTestId('movement-spec').innerText()).toMatch(/same spec/);
