@@ -37,7 +37,7 @@ const VIEWPORT = { width: 390, height: 844 };
 const DB = 'cw_bench_web';
 const root = path.resolve(__dirname, '..');
 
-type Figures = { lcpMs: number; lcpElement: string; rowMs: number | null; headlineMs: number | null; chartMs: number | null; jsRaw: number; jsGzip: number; jsFiles: number; apiMs: number | null };
+type Figures = { timeline: string; lcpMs: number; lcpElement: string; rowMs: number | null; headlineMs: number | null; chartMs: number | null; jsRaw: number; jsGzip: number; jsFiles: number; apiMs: number | null };
 
 // Recorded in the page from navigation start: LCP entries, and when the headline and the
 // chart's first SVG path appeared in the DOM (checked every animation frame).
@@ -102,15 +102,23 @@ async function measure(context: BrowserContext, url: string, ready: 'row' | 'cha
   const r = await page.evaluate(() => {
     const w = window as unknown as { __lcp: { t: number; el: string }[]; __seen: Record<string, number> };
     const last = w.__lcp[w.__lcp.length - 1];
-    return { lcp: last?.t ?? NaN, el: last?.el ?? '?', seen: w.__seen };
+    const nav = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming | undefined;
+    const res = performance.getEntriesByType('resource') as PerformanceResourceTiming[];
+    const scriptsEnd = Math.max(0, ...res.filter((e) => e.initiatorType === 'script').map((e) => e.responseEnd));
+    const api = res.filter((e) => e.name.includes('/api/'));
+    const apiStart = api.length ? Math.min(...api.map((e) => e.startTime)) : NaN;
+    const apiEnd = api.length ? Math.max(...api.map((e) => e.responseEnd)) : NaN;
+    return { lcp: last?.t ?? NaN, el: last?.el ?? '?', seen: w.__seen, marks: [nav?.responseEnd ?? NaN, scriptsEnd, nav?.domContentLoadedEventEnd ?? NaN, apiStart, apiEnd], calls: api.length };
   });
+  const [html, scriptsIn, dcl, apiFirst, apiLast] = r.marks.map((v) => (Number.isNaN(v) ? '—' : (v / 1000).toFixed(2)));
+  const timeline = `html ${html} · scripts in ${scriptsIn} · DOMContentLoaded ${dcl} · first API call ${apiFirst} · last API answer ${apiLast} (${r.calls} calls)`;
   const files = [...scripts.values()].map((u) => new URL(u).pathname);
   const jsGzip = files.reduce((s, f) => {
     const local = path.join(distDir, f);
     return s + (fs.existsSync(local) ? gzipSync(fs.readFileSync(local)).length : 0);
   }, 0);
   await page.close();
-  return { lcpMs: r.lcp, lcpElement: r.el, rowMs: r.seen.row ?? null, headlineMs: r.seen.headline ?? null, chartMs: r.seen.chart ?? null, jsRaw, jsGzip, jsFiles: files.length, apiMs };
+  return { timeline, lcpMs: r.lcp, lcpElement: r.el, rowMs: r.seen.row ?? null, headlineMs: r.seen.headline ?? null, chartMs: r.seen.chart ?? null, jsRaw, jsGzip, jsFiles: files.length, apiMs };
 }
 
 const median = (v: number[]) => {
@@ -184,6 +192,8 @@ async function main(): Promise<void> {
       console.log(
         `pass ${i + 1}: region LCP ${ms(region[i].lcpMs)}, first row ${ms(region[i].rowMs)}; card LCP ${ms(card[i].lcpMs)}, headline ${ms(card[i].headlineMs)}, chart ${ms(card[i].chartMs)}`,
       );
+      console.log(`  region: ${region[i].timeline}`);
+      console.log(`  card:   ${card[i].timeline}`);
     }
     line('region view (/)', region);
     line('district card', card);

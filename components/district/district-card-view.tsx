@@ -1,4 +1,4 @@
-import { useState, type ReactNode } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { DistrictAlertsList } from '@/components/alerts/district-alerts-list';
@@ -99,6 +99,13 @@ function CardBody(props: DistrictCardViewProps): ReactNode {
 
 function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }: DistrictCardViewProps & { data: DistrictEstimateResponse }) {
   const [tab, setTab] = useState<CardTab>('data');
+  // The headline and figures paint first; the sections below the fold (sensitivity strip,
+  // tabs with the yearly table) join one frame later, so they never delay the headline.
+  const [lower, setLower] = useState(false);
+  useEffect(() => {
+    const id = requestAnimationFrame(() => setLower(true));
+    return () => cancelAnimationFrame(id);
+  }, []);
   const main = data.main;
   const level = main?.model.level ?? data.run?.model.level ?? 0.95;
   const district = detail.data?.district;
@@ -136,9 +143,11 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
           <KeyFigures record={main} run={data.run} />
           <CurveChart record={main} />
           <PathChart record={main} />
-          <Section title="How fragile is the threshold?">
-            <SensitivityStrip main={main} variants={data.variants} />
-          </Section>
+          {lower ? (
+            <Section title="How fragile is the threshold?">
+              <SensitivityStrip main={main} variants={data.variants} />
+            </Section>
+          ) : null}
         </>
       ) : (
         <StatePanel
@@ -153,6 +162,7 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
           <SubscribeToggle code={code} name={data.district.name} {...subscribe} />
         </StatePanel>
       )}
+      {lower ? (
       <View style={styles.section}>
         <CardTabs current={tab} onChange={setTab} counts={{ history: history.data?.history.length, alerts: alerts.data?.alerts.length }} />
         <View role="tabpanel" testID={`tabpanel-${tab}`}>
@@ -161,6 +171,7 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
           {tab === 'alerts' ? <DistrictAlertsList alerts={alerts} /> : null}
         </View>
       </View>
+      ) : null}
       <CautionNote />
     </>
   );

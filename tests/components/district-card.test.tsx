@@ -77,7 +77,8 @@ describe('district card', () => {
     expect(textOf(screen.getByTestId('curve-chart-summary'))).toMatch(/as a line without a band: interval not bounded at 95% \(any income \(the whole line\)\)/);
     expect(screen.getByText(/Interval not bounded at 95%: the data are consistent with a turning point at any income/)).toBeTruthy();
     expect(within(screen.getByTestId('figure-threshold')).getByText(/Fieller 95%: interval not bounded at 95%/)).toBeTruthy();
-    expect(screen.getByTestId('sensitivity-unbounded-main', { includeHiddenElements: true })).toBeTruthy();
+    // The strip joins one frame after the headline.
+    expect(await screen.findByTestId('sensitivity-unbounded-main', { includeHiddenElements: true })).toBeTruthy();
     expect(screen.queryByTestId('sensitivity-band-main', { includeHiddenElements: true })).toBeNull();
   });
 
@@ -85,7 +86,7 @@ describe('district card', () => {
     answer();
     renderApp('/district/T02');
     await screen.findByTestId('card-headline');
-    expect(screen.getByLabelText('Published spec: 30,000 (26,000–36,000)')).toBeTruthy();
+    expect(await screen.findByLabelText('Published spec: 30,000 (26,000–36,000)')).toBeTruthy();
     expect(screen.getByLabelText('Without controls: 28,000 (25,000–31,000)')).toBeTruthy();
     expect(screen.getByLabelText('Cubic: 33,000 (24,000–52,000)')).toBeTruthy();
     expect(screen.getByLabelText('Last 20 years only: 31,000; interval not bounded at 95% (below 20,000 or above 60,000)')).toBeTruthy();
@@ -114,7 +115,7 @@ describe('district card', () => {
     expect(await screen.findByTestId('substitute-label')).toBeTruthy();
     expect(screen.getByText('Regional substitute: this district’s own series is too short, so the regional pooled curve stands in for it.')).toBeTruthy();
     expect(within(screen.getByTestId('curve-chart')).getByText('Regional pooled curve (stands in)')).toBeTruthy();
-    expect(screen.getByLabelText(/^Published \(regional substitute\)/)).toBeTruthy();
+    expect(await screen.findByLabelText(/^Published \(regional substitute\)/)).toBeTruthy();
   });
 
   it('says why a district is not estimable and draws no threshold', async () => {
@@ -145,7 +146,7 @@ describe('district card', () => {
     });
     renderApp('/district/T02');
     await screen.findByTestId('card-headline');
-    fireEvent.press(screen.getByTestId('tab-history'));
+    fireEvent.press(await screen.findByTestId('tab-history'));
     expect(await screen.findByTestId('history-7')).toBeTruthy();
     expect(screen.getByText('Run #7 · 2 Oct 2026 · data v3')).toBeTruthy();
     fireEvent.press(screen.getByTestId('tab-alerts'));

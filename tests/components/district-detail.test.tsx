@@ -33,6 +33,7 @@ describe('district screen', () => {
     renderApp('/district/T02');
     expect(await screen.findByText('Bryn Ødegård')).toBeTruthy();
     expect(await screen.findByText('2001–2010 · 9 years of data · 1 gap year')).toBeTruthy();
+    expect(await screen.findByTestId('series-row-2001')).toBeTruthy();
     for (let year = 2001; year <= 2010; year++) expect(screen.getByTestId(`series-row-${year}`)).toBeTruthy();
     const row2001 = within(screen.getByTestId('series-row-2001'));
     expect(row2001.getByText('5.10')).toBeTruthy();
