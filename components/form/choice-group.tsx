@@ -71,13 +71,15 @@ const styles = StyleSheet.create({
     borderColor: colors.border,
     backgroundColor: colors.surface,
     justifyContent: 'center',
+    // A tile with a long hint wraps inside the row instead of running past a phone's edge.
+    maxWidth: '100%',
   },
   selected: { backgroundColor: colors.action, borderColor: colors.action },
   hover: { backgroundColor: colors.selected },
   disabled: { opacity: 0.6 },
   tileLabel: { ...type.bodyStrong, fontSize: 14, color: colors.text },
   selectedLabel: { color: colors.onAction },
-  tileHint: { ...type.caption, color: colors.textMuted },
+  tileHint: { ...type.caption, color: colors.textMuted, flexShrink: 1 },
   selectedHint: { color: colors.onAction },
   hint: { ...type.caption, color: colors.textMuted },
 });
