@@ -35,7 +35,7 @@ export type ProblemsTableProps = {
   warningCount?: number;
 };
 
-/** Every problem the check found, by line and column, errors first. */
+/** Every problem the check found, in the server's order (by line, then column); any column re-sorts. */
 export function ProblemsTable({ problems, truncated = false, errorCount, warningCount }: ProblemsTableProps) {
   const errors = errorCount ?? problems.filter((p) => p.severity === 'error').length;
   const warnings = warningCount ?? problems.filter((p) => p.severity === 'warning').length;

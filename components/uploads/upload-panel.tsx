@@ -42,6 +42,12 @@ function rejection(error: unknown): UploadRejectionDetails | null {
   return null;
 }
 
+/** The server's summary of a refused file, without its opening words (the panel's title says them). */
+function refusalReason(error: unknown): string {
+  const message = error instanceof Error ? error.message : '';
+  return message.replace(/^The file was not loaded\.\s*/, '');
+}
+
 /**
  * Choose a CSV, see what it would change and every problem in it, then load it. The check
  * is a dry run on the server: nothing is written until "Load these values", and then all
@@ -156,7 +162,7 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
             title={details ? 'The file was not loaded' : tooLarge ? 'The file is too large' : 'The upload did not go through'}
             message={
               details
-                ? `${phase.error instanceof Error ? phase.error.message : ''} Nothing was written.`
+                ? `${refusalReason(phase.error)} Nothing was written.`
                 : describeSendError(phase.error)
             }
           />
