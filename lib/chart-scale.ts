@@ -20,10 +20,14 @@ export function logTicks(min: number, max: number): number[] {
     }
     if (out.length >= 3) return out;
   }
-  if (out.length >= 2) return out;
-  // A narrow range (less than ×2): ticks at its ends and middle, rounded to 2 digits.
-  const mid = Math.sqrt(min * max);
-  return [min, mid, max].map((v) => Number(v.toPrecision(2)));
+  // A narrow range (under ×3 or so): evenly spaced round values, 1, 2 or 5 times a power
+  // of ten apart, four to seven of them.
+  const raw = (max - min) / 6;
+  const power = 10 ** Math.floor(Math.log10(raw));
+  const step = [1, 2, 5, 10].map((m) => m * power).find((s) => s >= raw) ?? 10 * power;
+  const even: number[] = [];
+  for (let v = Math.ceil(min / step) * step; v <= max * 1.0000001; v += step) even.push(Number(v.toPrecision(12)));
+  return even.length >= 2 ? even : out;
 }
 
 /** Compact real units for tick labels: 8k, 12k, 1.2M, 0.5, 7. */

@@ -11,10 +11,11 @@ function thresholdWords(r: EstimateRecord, drawn: boolean): string {
   if (x === null) return 'No positive threshold is marked.';
   const noun = r.threshold?.kind === 'trough' ? 'low point' : 'turning point';
   const where = r.threshold?.extrapolated ? ', beyond the observed incomes' : '';
-  if (!drawn) {
-    return `The ${noun} lies at ${formatLevel(x)} per person${where}, too far from the observed incomes to fall inside the chart.`;
-  }
   const band = bandOf(r);
+  if (!drawn) {
+    const interval = band ? `its ${levelPercent(r.model.level)} ${METHOD_LABEL[r.standing.intervalMethod]} interval is ${formatLevel(band.lo)}–${formatLevel(band.hi)}` : notBoundedText(r.model.level);
+    return `The ${noun} lies at ${formatLevel(x)} per person${where}, too far from the observed incomes to fall inside the chart (${interval}).`;
+  }
   const method = METHOD_LABEL[r.standing.intervalMethod];
   if (band) {
     return `The ${noun} is marked at ${formatLevel(x)} per person${where}, with its ${levelPercent(r.model.level)} ${method} interval (${formatLevel(band.lo)}–${formatLevel(band.hi)}) as a shaded band.`;

@@ -40,11 +40,12 @@ export function Chip({ label, on, onPress, leading, accessibilityLabel, kind = '
 
 const styles = StyleSheet.create({
   chip: {
-    minHeight: layout.touchTarget - 8,
+    // 32 px: above the 24 px WCAG 2.5.8 minimum, small enough for five counts in two rows on a phone.
+    minHeight: layout.touchTarget - 12,
     flexDirection: 'row',
     alignItems: 'center',
     gap: space.xs,
-    paddingHorizontal: space.md,
+    paddingHorizontal: space.sm + space.xxs,
     borderRadius: radius.pill,
     borderWidth: 1,
     borderColor: colors.border,

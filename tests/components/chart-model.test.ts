@@ -86,8 +86,9 @@ describe('log ticks', () => {
     expect(logTicks(8000, 60000)).toEqual([10000, 20000, 50000]);
     expect(logTicks(3, 12)).toEqual([3, 5, 7, 10]);
   });
-  it('falls back to ends and middle in a narrow range', () => {
-    expect(logTicks(6.1, 8.3)).toEqual([6.1, 7.1, 8.3]);
+  it('falls back to evenly spaced round values in a narrow range', () => {
+    expect(logTicks(6.1, 8.3)).toEqual([6.5, 7, 7.5, 8]);
+    expect(logTicks(13000, 24000)).toEqual([14000, 16000, 18000, 20000, 22000, 24000]);
   });
   it('formats ticks compactly in real units', () => {
     expect(formatTick(20000)).toBe('20k');
@@ -106,6 +107,6 @@ describe('a threshold far outside the observed incomes', () => {
     expect(m.band).toBeNull();
     // The frame stays around the observed incomes (14,000–29,540, padded by 8%).
     expect(m.xDomain[0]).toBeCloseTo(14000 / 1.08, 6);
-    expect(curveChartSummary(far)).toMatch(/The turning point lies at 119 per person, beyond the observed incomes, too far from the observed incomes to fall inside the chart\./);
+    expect(curveChartSummary(far)).toMatch(/The turning point lies at 119 per person, beyond the observed incomes, too far from the observed incomes to fall inside the chart \(interval not bounded at 95%\)\./);
   });
 });

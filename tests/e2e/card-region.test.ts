@@ -15,7 +15,7 @@ jest.setTimeout(240_000);
 /** The band's fill (chartColors.band in components/theme.ts). */
 const BAND_FILL = '#e4daf0';
 
-type Summary = { code: string; name: string; estimate: { standing: string; intervalBounded: boolean | null; threshold: number | null; gapPercent: number | null } | null };
+type Summary = { code: string; name: string; estimate: { standing: string; intervalBounded: boolean | null; threshold: number | null; gapPercent: number | null; levelNow: number | null } | null };
 
 let h: Harness;
 let districts: Summary[];
@@ -122,8 +122,10 @@ describe.each([
       await page.waitForFunction(() => document.querySelector('[data-testid="subscribe-toggle"]')?.getAttribute('aria-checked') === 'false');
       expect(((await (await page.request.get(`${h.baseUrl}/api/subscriptions`)).json()) as { subscriptions: unknown[] }).subscriptions).toEqual([]);
 
-      // A district whose interval is not bounded: the chart is drawn without a band.
-      const unbounded = districts.find((d) => d.estimate?.intervalBounded === false && (d.estimate.threshold ?? 0) > 0)!;
+      // A district whose interval is not bounded, with its threshold near enough to today's
+      // income to be marked on the chart: the chart is drawn with the line and without a band.
+      const near = (e: NonNullable<Summary['estimate']>) => e.threshold !== null && e.levelNow !== null && e.threshold > e.levelNow / 2 && e.threshold < e.levelNow * 2;
+      const unbounded = districts.find((d) => d.estimate?.intervalBounded === false && near(d.estimate))!;
       expect(unbounded).toBeTruthy();
       await page.goto(`${h.baseUrl}/district/${unbounded.code}`);
       await page.getByTestId('card-headline').waitFor();
