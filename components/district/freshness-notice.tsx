@@ -2,6 +2,7 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
+import { useOnline } from '@/hooks/use-online';
 
 /** The parts of a react-query result that tell whether shown data may be out of date. */
 export type Freshness = {
@@ -13,9 +14,12 @@ export type Freshness = {
   refetch: () => unknown;
 };
 
-/** True when data is shown but the last attempt to refresh it failed or is waiting for a network. */
-export function isStale(f: Freshness): boolean {
-  return f.data !== undefined && (f.isError || f.fetchStatus === 'paused');
+/**
+ * True when data is shown but may be out of date: the last refresh failed, one waits for a
+ * network, or the device is offline (kept data cannot be refreshed, even while "fresh").
+ */
+export function isStale(f: Freshness, online = true): boolean {
+  return f.data !== undefined && (f.isError || f.fetchStatus === 'paused' || !online);
 }
 
 function time(ms: number): string {
@@ -27,8 +31,9 @@ function time(ms: number): string {
  * and this says how old they are and offers to try again.
  */
 export function FreshnessNotice({ freshness, what }: { freshness: Freshness; what: string }) {
-  if (!isStale(freshness)) return null;
-  const offline = freshness.fetchStatus === 'paused';
+  const online = useOnline();
+  if (!isStale(freshness, online)) return null;
+  const offline = !online || freshness.fetchStatus === 'paused';
   return (
     <View style={styles.notice} role="status" testID="stale-notice">
       <Text style={styles.text}>

@@ -1,6 +1,7 @@
 // The district card over mocked API answers: headline and figures, the band only for a
 // bounded interval, the charts' text summaries, sensitivity strip, tabs, subscribe toggle,
 // not-estimable and substitute cases, and the stale notice when a refresh fails.
+import { onlineManager } from '@tanstack/react-query';
 import { act, fireEvent, screen, waitFor, within } from 'expo-router/testing-library';
 
 import { ApiError, apiGet, apiSend } from '@/lib/api-client';
@@ -174,6 +175,21 @@ describe('district card', () => {
     await act(async () => fireEvent.press(screen.getByTestId('subscribe-toggle')));
     expect(mockedSend).toHaveBeenLastCalledWith('DELETE', '/api/subscriptions/11');
     await waitFor(() => expect(screen.getByTestId('subscribe-toggle').props.accessibilityState.checked).toBe(false));
+  });
+
+  it('says the figures may be out of date while the device is offline', async () => {
+    answer();
+    renderApp('/district/T02');
+    await screen.findByTestId('card-headline');
+    expect(screen.queryByTestId('stale-notice')).toBeNull();
+    act(() => onlineManager.setOnline(false));
+    try {
+      expect(await screen.findByText(/they will refresh when the connection returns/)).toBeTruthy();
+      expect(screen.getByTestId('card-headline')).toBeTruthy();
+    } finally {
+      act(() => onlineManager.setOnline(true));
+    }
+    await waitFor(() => expect(screen.queryByTestId('stale-notice')).toBeNull());
   });
 
   it('keeps the last figures when a refresh fails, and says they may be stale', async () => {

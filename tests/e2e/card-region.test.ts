@@ -149,6 +149,18 @@ describe.each([
       await page.getByTestId('substitute-label').waitFor();
       await shot(page, `card-${name}-district-substitute`);
 
+      // Offline: a card opened before keeps its figures and says they may be out of date.
+      await page.goto(`${h.baseUrl}/district/${bounded.code}`);
+      await page.getByTestId('card-headline').waitFor();
+      await context.setOffline(true);
+      await page.getByTestId('stale-notice').waitFor();
+      await expect(page.getByTestId('stale-notice').textContent()).resolves.toMatch(/^Offline\. Showing this district’s figures as loaded at .*; they will refresh when the connection returns\.$/);
+      expect(await page.getByTestId('card-headline').isVisible()).toBe(true);
+      await page.getByTestId('stale-notice').scrollIntoViewIfNeeded();
+      await shot(page, `card-${name}-district-offline`);
+      await context.setOffline(false);
+      await page.getByTestId('stale-notice').waitFor({ state: 'detached' });
+
       // The method page carries the cautions.
       await page.goto(`${h.baseUrl}/method`);
       await page.getByTestId('method-cautions').waitFor();
