@@ -25,6 +25,7 @@ export function Chip({ label, on, onPress, leading, accessibilityLabel, kind = '
       testID={testID}
       accessibilityRole={kind}
       accessibilityState={{ checked: on }}
+      aria-checked={on}
       accessibilityLabel={accessibilityLabel ?? label}
       onPress={onPress}
       style={(state: InteractionState) => [styles.chip, on && styles.on, state.hovered && !on && styles.hover, focusOutline(state)]}

@@ -82,6 +82,33 @@ describe.each([
       await page.getByTestId('standing-filter-past_turn').click();
       await page.getByText(`${districts.length} districts`, { exact: true }).waitFor();
 
+      // Keyboard: Tab from the search field reaches the sort options, each with a visible
+      // focus ring; Enter chooses one; further Tabs reach the rows, and Enter opens one.
+      if (name === 'wide') {
+        await page.getByTestId('sort-name').click();
+        await expect(page.getByTestId('sort-gap').getAttribute('aria-checked')).resolves.toBe('false');
+        await page.getByTestId('district-search').focus();
+        const focusedId = () => page.evaluate(() => document.activeElement?.getAttribute('data-testid') ?? '');
+        for (let i = 0; i < 8 && (await focusedId()) !== 'sort-gap'; i++) await page.keyboard.press('Tab');
+        expect(await focusedId()).toBe('sort-gap');
+        const ring = await page.evaluate(() => {
+          const s = getComputedStyle(document.activeElement as Element);
+          return { style: s.outlineStyle, width: s.outlineWidth };
+        });
+        expect(ring).toEqual({ style: 'solid', width: '3px' });
+        await shot(page, `card-${name}-region-keyboard-focus`);
+        await page.keyboard.press('Enter');
+        await expect(page.getByTestId('sort-gap').getAttribute('aria-checked')).resolves.toBe('true');
+        for (let i = 0; i < 12 && !(await focusedId()).startsWith('district-row-'); i++) await page.keyboard.press('Tab');
+        const row = await focusedId();
+        expect(row).toMatch(/^district-row-/);
+        await page.keyboard.press('Enter');
+        await page.waitForURL(new RegExp(`/district/${row.replace('district-row-', '')}$`));
+        await page.getByTestId('card-headline').waitFor();
+        await page.goto(`${h.baseUrl}/`);
+        await page.getByTestId('district-row-D01').waitFor();
+      }
+
       // A district with a bounded interval: chart drawn, band present, summary says so.
       const bounded = districts.find((d) => d.estimate?.intervalBounded === true && (d.estimate.threshold ?? 0) > 0 && d.estimate.standing === 'past_turn')!;
       await page.getByTestId('sort-name').click();
