@@ -20,13 +20,17 @@ export function logTicks(min: number, max: number): number[] {
     }
     if (out.length >= 3) return out;
   }
-  // A narrow range (under ×3 or so): evenly spaced round values, 1, 2 or 5 times a power
-  // of ten apart, four to seven of them.
-  const raw = (max - min) / 6;
-  const power = 10 ** Math.floor(Math.log10(raw));
-  const step = [1, 2, 5, 10].map((m) => m * power).find((s) => s >= raw) ?? 10 * power;
-  const even: number[] = [];
-  for (let v = Math.ceil(min / step) * step; v <= max * 1.0000001; v += step) even.push(Number(v.toPrecision(12)));
+  // A narrow range (under ×3 or so): evenly spaced round values, the widest step of 1, 2 or
+  // 5 times a power of ten that still gives four of them.
+  const power = 10 ** Math.floor(Math.log10((max - min) / 10));
+  const evenTicks = (step: number) => {
+    const ticks: number[] = [];
+    for (let v = Math.ceil(min / step) * step; v <= max * 1.0000001; v += step) ticks.push(Number(v.toPrecision(12)));
+    return ticks;
+  };
+  const steps = [1, 2, 5, 10, 20, 50, 100].map((m) => m * power);
+  const step = [...steps].reverse().find((st) => evenTicks(st).length >= 4) ?? steps[0];
+  const even = evenTicks(step);
   return even.length >= 2 ? even : out;
 }
 

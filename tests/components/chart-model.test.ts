@@ -89,6 +89,7 @@ describe('log ticks', () => {
   it('falls back to evenly spaced round values in a narrow range', () => {
     expect(logTicks(6.1, 8.3)).toEqual([6.5, 7, 7.5, 8]);
     expect(logTicks(13000, 24000)).toEqual([14000, 16000, 18000, 20000, 22000, 24000]);
+    expect(logTicks(10500, 23000)).toEqual([12000, 14000, 16000, 18000, 20000, 22000]);
   });
   it('formats ticks compactly in real units', () => {
     expect(formatTick(20000)).toBe('20k');
