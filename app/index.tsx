@@ -6,6 +6,10 @@ import { RegionStrip } from '@/components/region/region-strip';
 import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
 import { usePublishedRunQuery, useRegionQuery } from '@/hooks/use-region';
+import { earlyFetchScript } from '@/lib/early-fetch';
+
+// Starts the list's request while the page's HTML is still parsing.
+const EARLY = earlyFetchScript(/^\/$/, () => '/api/districts');
 
 /** Home: the region. Phone: the list with the run line; wide: the list is beside, this shows the overview. */
 export default function RegionScreen() {
@@ -19,6 +23,7 @@ export default function RegionScreen() {
     <>
       <Head>
         <title>Districts · Crestwatch</title>
+        <script>{EARLY}</script>
       </Head>
       {mode === 'wide' ? (
         <RegionOverview region={region} districts={districts} />

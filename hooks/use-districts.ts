@@ -2,6 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
+import { earlyJson } from '@/lib/early-fetch';
 import type { DistrictDetailResponse, DistrictListResponse } from '@/lib/api-types';
 import { STALE_TIMES } from '@/lib/stale-times';
 
@@ -24,8 +25,10 @@ function isDetailResponse(body: unknown): boolean {
   return typeof b.district === 'object' && b.district !== null && Array.isArray(b.series) && Array.isArray(b.indicators);
 }
 
-export function fetchDistricts(signal?: AbortSignal): Promise<DistrictListResponse> {
-  return apiGet<DistrictListResponse>('/api/districts', { signal, accept: isListResponse });
+export async function fetchDistricts(signal?: AbortSignal): Promise<DistrictListResponse> {
+  // The home route starts this request from the page's <head> (lib/early-fetch.ts).
+  const early = await earlyJson<DistrictListResponse>('/api/districts', isListResponse);
+  return early ?? apiGet<DistrictListResponse>('/api/districts', { signal, accept: isListResponse });
 }
 
 export function fetchDistrict(code: string, signal?: AbortSignal): Promise<DistrictDetailResponse> {

@@ -3,6 +3,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
+import { earlyJson } from '@/lib/early-fetch';
 import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/lib/estimate-types';
 import { STALE_TIMES } from '@/lib/stale-times';
 
@@ -27,9 +28,15 @@ function isHistoryResponse(body: unknown): boolean {
   return typeof body === 'object' && body !== null && Array.isArray((body as DistrictHistoryResponse).history);
 }
 
-export function fetchDistrictEstimate(code: string, signal?: AbortSignal): Promise<DistrictEstimateResponse> {
-  return apiGet<DistrictEstimateResponse>(path(code, 'estimate'), { signal, accept: isEstimateResponse });
+export async function fetchDistrictEstimate(code: string, signal?: AbortSignal): Promise<DistrictEstimateResponse> {
+  // The card's route starts this request from the page's <head> (lib/early-fetch.ts).
+  const early = await earlyJson<DistrictEstimateResponse>(path(code, 'estimate'), isEstimateResponse);
+  return early ?? apiGet<DistrictEstimateResponse>(path(code, 'estimate'), { signal, accept: isEstimateResponse });
 }
+
+/** The card's route, for its inline early request (codes need no escaping: letters, digits, _ and -). */
+export const ESTIMATE_ROUTE = /^\/district\/([A-Za-z0-9_-]{1,32})\/?$/;
+export const estimateApiPath = (code: string) => `/api/districts/${code}/estimate`;
 
 /** The district's estimate in the latest published run, with its sensitivity variants. */
 export function useDistrictEstimateQuery(code: string) {

@@ -4,7 +4,11 @@ import Head from 'expo-router/head';
 import { DistrictCardView } from '@/components/district/district-card-view';
 import { useDistrictAlertsQuery } from '@/hooks/use-alerts';
 import { useDistrictQuery } from '@/hooks/use-districts';
-import { useDistrictEstimateQuery, useDistrictHistoryQuery } from '@/hooks/use-estimates';
+import { ESTIMATE_ROUTE, estimateApiPath, useDistrictEstimateQuery, useDistrictHistoryQuery } from '@/hooks/use-estimates';
+import { earlyFetchScript } from '@/lib/early-fetch';
+
+// Starts the card's request while the page's HTML is still parsing.
+const EARLY = earlyFetchScript(ESTIMATE_ROUTE, estimateApiPath);
 import { useLayoutMode } from '@/hooks/use-layout-mode';
 import { useDistrictSubscriptionMutation, useSubscriptionsQuery } from '@/hooks/use-subscriptions';
 
@@ -24,6 +28,7 @@ export default function DistrictScreen() {
     <>
       <Head>
         <title>{name ? `${name} (${code}) · Crestwatch` : 'District · Crestwatch'}</title>
+        <script>{EARLY}</script>
       </Head>
       <DistrictCardView
         code={code}

@@ -1,0 +1,36 @@
+// Data requests started by a small inline script in the page's <head>, while the browser is
+// still parsing the pre-rendered HTML — seconds before the app's JavaScript has run on a
+// slow phone. The query functions take the answer from here when it is there, and fall back
+// to their ordinary request (and its error handling) when it is not or did not succeed.
+
+type EarlyMap = Record<string, Promise<Response> | undefined>;
+
+/**
+ * The inline script for one route: `route` is a pattern for location.pathname, `api` turns
+ * its first group into the API path. Runs only while the first HTML is parsing, so a head
+ * update during client-side navigation starts nothing.
+ */
+export function earlyFetchScript(route: RegExp, api: (group: string) => string): string {
+  const apiExpr = api('"+encodeURIComponent(m[1])+"');
+  return (
+    `(function(){try{if(document.readyState!=="loading")return;var m=location.pathname.match(${route.toString()});` +
+    `if(!m)return;var p="${apiExpr}";(window.__cwEarly=window.__cwEarly||{})[p]=` +
+    `fetch(p,{credentials:"same-origin",headers:{Accept:"application/json"}});}catch(e){}})();`
+  );
+}
+
+/** The early answer for `path` once, decoded and checked; null when there is none to use. */
+export async function earlyJson<T>(path: string, accept: (body: unknown) => boolean): Promise<T | null> {
+  const map = typeof window === 'undefined' ? undefined : (window as unknown as { __cwEarly?: EarlyMap }).__cwEarly;
+  const pending = map?.[path];
+  if (!pending) return null;
+  delete map![path];
+  try {
+    const res = await pending;
+    if (!res.ok) return null;
+    const body: unknown = await res.json();
+    return accept(body) ? (body as T) : null;
+  } catch {
+    return null;
+  }
+}
