@@ -2,8 +2,8 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import { earlyJson } from '@/lib/early-fetch';
 import type { DistrictDetailResponse, DistrictListResponse } from '@/lib/api-types';
+import { earlyJson } from '@/lib/early-fetch';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 /** Every districts key starts here, so one invalidation (after an upload) refreshes them all. */
