@@ -108,7 +108,7 @@ describe('district card', () => {
       fireEvent(box, 'layout', { nativeEvent: { layout: { width: 358, height: 280, x: 0, y: 0 } } });
     });
     await waitFor(() => expect(screen.queryByTestId('curve-chart-placeholder', { includeHiddenElements: true })).toBeNull(), { timeout: 20_000 });
-  }, 30_000);
+  }, 90_000);
 
   it('labels a regional substitute', async () => {
     answer(estimateRecord({ status: 'substitute', reason: { code: 'too_few_rows', message: 'series too short; the regional pooled curve stands in' } }));
