@@ -116,10 +116,10 @@ export function gapWords(gapPercent: number): string {
   return `${Math.abs(rounded)}% ${gapPercent < 0 ? 'below' : 'above'}`;
 }
 
-/** Signed short gap for tables: "−18%", "+72%", "×4.0", ">×100". */
+/** Signed short gap for tables: "−18%", "+72%", "×4.0", "×100+". */
 export function gapShort(gapPercent: number | null): string {
   if (gapPercent === null) return '—';
-  if (gapPercent >= 9900) return '>×100';
+  if (gapPercent >= 9900) return '×100+';
   if (gapPercent >= 200) return `×${(1 + gapPercent / 100).toFixed(1)}`;
   const r = Math.round(gapPercent);
   if (r === 0) return '0%';
