@@ -14,7 +14,11 @@ export function specRoutes({ db }: AppContext): RouteSpec[] {
       allow: STAFF,
       tag: 'runs',
       summary: 'Saved model specs (the default first)',
-      handler: async () => ({ specs: await service.listSpecs(db), defaultSpecId: (await service.defaultSpec(db)).id }),
+      handler: async () => {
+        // The default is created on first use: make sure it exists before listing.
+        const fallback = await service.defaultSpec(db);
+        return { specs: await service.listSpecs(db), defaultSpecId: fallback.id };
+      },
     }),
     route({
       method: 'post',

@@ -218,3 +218,22 @@ describe('runs', () => {
     }
   });
 });
+
+describe('saved specs', () => {
+  it('lists the default spec on a database that has none yet (created on first use)', async () => {
+    const fresh = await freshDatabase();
+    await ensureDemoAccounts(fresh.db);
+    const a = testApp(fresh.db);
+    const s = await listen(a);
+    try {
+      const agent = (await signInAs(s, DEMO.analyst)).agent;
+      const res = await agent.get('/api/specs');
+      expect(res.status).toBe(200);
+      expect(res.body.specs.map((x: { id: number }) => x.id)).toEqual([res.body.defaultSpecId]);
+      expect(res.body.specs[0]).toMatchObject({ name: 'Regional default', isDefault: true });
+    } finally {
+      await closeServer(s, a);
+      await fresh.drop();
+    }
+  });
+});
