@@ -26,7 +26,8 @@ import type { EstimateRecord } from '../../api/runs/estimate-record';
 import { mainRecords } from '../../api/runs/store';
 import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
-import { testJobs, until, workIn } from '../support/jobs';
+import { copyDistrictSeries } from '../support/synthetic';
+import { startRunAndWait, testJobs, until, workIn } from '../support/jobs';
 import { flat, pdfFonts, pdfInfo, pdfText, pdfWords, renderFirstPage, savePdf } from '../support/poppler';
 import { testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
@@ -52,11 +53,7 @@ beforeAll(async () => {
   await ensureDemoAccounts(t.db);
   // The long-named district gets D01's series, so it is estimated like any other.
   const [{ id }] = await t.db('districts').insert({ code: LONG_CODE, name: LONG_NAME }).returning('id');
-  await t.db.raw(
-    `INSERT INTO observations (district_id, indicator_id, year, value, upload_id)
-     SELECT ?, o.indicator_id, o.year, o.value, o.upload_id FROM observations o JOIN districts d ON d.id = o.district_id WHERE d.code = 'D01'`,
-    [id],
-  );
+  await copyDistrictSeries(t.db, 'D01', id);
   catcher = await startMailCatcher(t.db, 0);
   const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), mailCatcherPort: catcher.port, mailRetrySeconds: 1 };
   jobs = await testJobs(t.url);
@@ -76,15 +73,9 @@ afterAll(async () => {
 });
 
 async function runToReview(): Promise<number> {
-  const start = await analyst.post('/api/runs').send({});
-  expect(start.status).toBe(202);
-  const id = start.body.id as number;
-  await until(`run ${id} in review`, async () => {
-    const r = (await analyst.get(`/api/runs/${id}`)).body;
-    if (r.state === 'failed') throw new Error(`run failed: ${r.error}`);
-    return r.state === 'in_review';
-  });
-  return id;
+  const { status, run } = await startRunAndWait(analyst);
+  expect(status).toBe(202);
+  return run.id;
 }
 
 async function pdfOf(agent: TestAgent, url: string): Promise<Buffer> {

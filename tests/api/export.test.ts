@@ -15,7 +15,8 @@ import type { Jobs } from '../../api/jobs/boss';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { mainRecords } from '../../api/runs/store';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
-import { testJobs, until, workIn } from '../support/jobs';
+import { copyDistrictSeries } from '../support/synthetic';
+import { startRunAndWait, testJobs, workIn } from '../support/jobs';
 import { testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
 
@@ -43,11 +44,7 @@ beforeAll(async () => {
   // Each hostile name gets D01's series, so it has an estimate like any district.
   for (const h of HOSTILE) {
     const [{ id }] = await t.db('districts').insert(h).returning('id');
-    await t.db.raw(
-      `INSERT INTO observations (district_id, indicator_id, year, value, upload_id)
-       SELECT ?, o.indicator_id, o.year, o.value, o.upload_id FROM observations o JOIN districts d ON d.id = o.district_id WHERE d.code = 'D01'`,
-      [id],
-    );
+    await copyDistrictSeries(t.db, 'D01', id);
   }
   jobs = await testJobs(t.url);
   app = testApp(t.db);
@@ -64,15 +61,9 @@ afterAll(async () => {
 });
 
 async function runToReview(): Promise<number> {
-  const start = await analyst.post('/api/runs').send({});
-  expect(start.status).toBe(202);
-  const id = start.body.id as number;
-  await until(`run ${id} in review`, async () => {
-    const r = (await analyst.get(`/api/runs/${id}`)).body;
-    if (r.state === 'failed') throw new Error(`run failed: ${r.error}`);
-    return r.state === 'in_review';
-  });
-  return id;
+  const { status, run } = await startRunAndWait(analyst);
+  expect(status).toBe(202);
+  return run.id;
 }
 
 const rowsOf = (csv: string): Record<string, string>[] => parse(csv, { columns: true, bom: true, skip_empty_lines: true });

@@ -17,7 +17,7 @@ import { createMailer } from '../../api/mail/mailer';
 import { deliverOutbox } from '../../api/outbox/sender';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
-import { testJobs, until, workIn } from '../support/jobs';
+import { startRunAndWait, testJobs, until, workIn } from '../support/jobs';
 import { testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
 
@@ -53,18 +53,12 @@ afterAll(async () => {
 });
 
 async function runToReview(): Promise<number> {
-  const start = await analyst.post('/api/runs').send({});
-  expect(start.status).toBe(202);
-  expect(start.body.state).toBe('queued');
-  const id = start.body.id as number;
-  const run = await until(`run ${id} in review`, async () => {
-    const r = (await analyst.get(`/api/runs/${id}`)).body;
-    if (r.state === 'failed') throw new Error(`run failed: ${r.error}`);
-    return r.state === 'in_review' ? r : null;
-  });
+  const { status, start, run } = await startRunAndWait(analyst);
+  expect(status).toBe(202);
+  expect(start.state).toBe('queued');
   expect(run.dataHash).toMatch(/^[0-9a-f]{64}$/);
   expect(run.softwareVersion).toBeTruthy();
-  return id;
+  return run.id;
 }
 
 const mailsTo = async (email: string) => (await t.db('caught_mail').whereRaw('? = ANY(envelope_to)', [email]).select('*')) as { subject: string; text_body: string; message_id: string | null }[];

@@ -26,3 +26,24 @@ export async function until<T>(what: string, probe: () => Promise<T | null | und
     await new Promise((r) => setTimeout(r, everyMs));
   }
 }
+
+/** The answers an API caller sees while starting a run and waiting for its review. */
+export interface RunToReview {
+  start: { id: number; state: string };
+  run: Record<string, unknown> & { id: number; state: string };
+}
+
+/**
+ * Starts a run of the default spec through POST /api/runs and polls GET /api/runs/:id
+ * until it is in review (a failed run throws with its error).
+ */
+export async function startRunAndWait(agent: { post(url: string): { send(body: object): PromiseLike<{ status: number; body: { id: number; state: string } }> }; get(url: string): PromiseLike<{ body: RunToReview['run'] & { error?: string } }> }): Promise<RunToReview & { status: number }> {
+  const res = await agent.post('/api/runs').send({});
+  const id = res.body.id;
+  const run = await until(`run ${id} in review`, async () => {
+    const r = (await agent.get(`/api/runs/${id}`)).body;
+    if (r.state === 'failed') throw new Error(`run failed: ${r.error}`);
+    return r.state === 'in_review' ? r : null;
+  });
+  return { status: res.status, start: res.body, run };
+}

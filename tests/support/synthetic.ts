@@ -42,3 +42,12 @@ export async function insertSyntheticDistricts(db: Knex, count: number, opts: { 
   }
   for (let i = 0; i < rows.length; i += 5000) await db('observations').insert(rows.slice(i, i + 5000));
 }
+
+/** Gives district `toId` a copy of every observation of district `fromCode`. */
+export async function copyDistrictSeries(db: Knex, fromCode: string, toId: number): Promise<void> {
+  await db.raw(
+    `INSERT INTO observations (district_id, indicator_id, year, value, upload_id)
+     SELECT ?, o.indicator_id, o.year, o.value, o.upload_id FROM observations o JOIN districts d ON d.id = o.district_id WHERE d.code = ?`,
+    [toId, fromCode],
+  );
+}
