@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { districtCode } from '../districts/router';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
@@ -30,7 +31,7 @@ export function alertRoutes({ db }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Mark an alert as read',
-      schemas: { params: z.object({ id: z.coerce.number().int().positive() }) },
+      schemas: { params: idParams },
       handler: async ({ params }, req, res) => {
         await service.markRead(db, callerOf(req)!, params.id);
         res.status(204).end();

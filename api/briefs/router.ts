@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { districtCode } from '../districts/router';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
@@ -67,7 +68,7 @@ export function briefRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'briefs',
       summary: 'A run’s estimates as CSV, one row per district, full precision, text cells escaped against formula injection (published runs; runs in review for analysts and admins)',
       produces: 'text/csv',
-      schemas: { params: z.object({ id: z.coerce.number().int().positive() }) },
+      schemas: { params: idParams },
       handler: async ({ params }, req, res) => {
         const out = await exportRun(db, callerOf(req)!, params.id);
         res.type('text/csv; charset=utf-8').attachment(out.filename).send(out.csv);

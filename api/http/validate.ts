@@ -45,3 +45,6 @@ export function inputOf<P extends z.ZodType, Q extends z.ZodType, B extends z.Zo
 ): Parsed<P, Q, B> {
   return res.locals.input as Parsed<P, Q, B>;
 }
+
+/** Path parameters `{ id }` of a numeric resource id, shared by every `/:id` route. */
+export const idParams = z.object({ id: z.coerce.number().int().positive() });

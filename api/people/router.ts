@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { ADMIN, callerOf, ROLES, route, type RouteSpec } from '../http/routes';
 import * as service from './service';
@@ -35,7 +36,7 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
       tag: 'people',
       summary: 'Change a person’s role, name, or deactivate / reactivate them',
       schemas: {
-        params: z.object({ id: z.coerce.number().int().positive() }),
+        params: idParams,
         body: z
           .object({ role: role.optional(), active: z.boolean().optional(), name: z.string().max(120).optional() })
           .refine((b) => Object.keys(b).length > 0, 'give role, active or name'),

@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { districtCode } from '../districts/router';
 import { callerOf, route, STAFF, type RouteSpec } from '../http/routes';
 import * as service from './service';
 
-const byId = z.object({ id: z.coerce.number().int().positive() });
+const byId = idParams;
 
 export function runRoutes(ctx: AppContext): RouteSpec[] {
   const { db } = ctx;

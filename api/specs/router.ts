@@ -1,10 +1,10 @@
-import { z } from 'zod';
+import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { callerOf, route, STAFF, type RouteSpec } from '../http/routes';
 import { SavedSpecInput } from './schema';
 import * as service from './service';
 
-const byId = z.object({ id: z.coerce.number().int().positive() });
+const byId = idParams;
 
 export function specRoutes({ db }: AppContext): RouteSpec[] {
   return [

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idParams } from '../http/validate';
 import { ALERT_KINDS } from '../alerts/compare';
 import type { AppContext } from '../context';
 import { districtCode } from '../districts/router';
@@ -42,7 +43,7 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Remove one of your subscriptions',
-      schemas: { params: z.object({ id: z.coerce.number().int().positive() }) },
+      schemas: { params: idParams },
       handler: async ({ params }, req, res) => {
         await service.unsubscribeOwn(db, callerOf(req)!, params.id);
         res.status(204).end();

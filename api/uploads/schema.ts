@@ -1,5 +1,6 @@
 /** Request schemas and options of the uploads API. */
 import { z } from 'zod';
+import { idParams } from '../http/validate';
 
 /** "true"/"false"/"1"/"0" in a query string. */
 export const queryBool = z
@@ -20,7 +21,7 @@ export interface UploadOptions {
   changeFactor: number;
 }
 
-export const uploadIdParams = z.object({ id: z.coerce.number().int().positive() });
+export const uploadIdParams = idParams;
 
 export const uploadListQuery = z.object({
   limit: z.coerce.number().int().min(1).max(200).default(50),
