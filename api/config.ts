@@ -5,9 +5,10 @@ import path from 'node:path';
  * run the demo on loopback.
  */
 export const DEMO_DB_PORT = 54329;
-export const TEST_DB_PORT = 54339;
-/** The test suite's OAuth stand-in (started once by jest's global setup). */
-export const TEST_STAND_IN_PORT = 54349;
+/** The test cluster's port; CRESTWATCH_TEST_DB_PORT moves it so two checkouts can test side by side. */
+export const TEST_DB_PORT = Number(process.env.CRESTWATCH_TEST_DB_PORT) || 54339;
+/** The test suite's OAuth stand-in (started once by jest's global setup); CRESTWATCH_TEST_STAND_IN_PORT moves it. */
+export const TEST_STAND_IN_PORT = Number(process.env.CRESTWATCH_TEST_STAND_IN_PORT) || 54349;
 
 export type Mode = 'demo' | 'test' | 'production';
 
