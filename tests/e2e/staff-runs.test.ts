@@ -81,6 +81,21 @@ describe('at the wide viewport', () => {
       // Sorting by the threshold move reorders the rows (largest move first).
       await page.getByTestId('review-filter-all').click();
       await page.getByTestId('review-table-sort-move').click();
+      const moves = await page.getByTestId('review-table').evaluate((table) => {
+        const headers = [...table.querySelectorAll('[role="columnheader"]')];
+        const at = headers.findIndex((h) => /Moved/.test(h.textContent ?? ''));
+        return [...table.querySelectorAll('[data-testid^="review-row-"]')].map(
+          (row) => row.querySelectorAll('[role="cell"]')[at]?.textContent?.trim() ?? '',
+        );
+      });
+      expect(moves).toHaveLength(24);
+      // '+12.3%' / '−4.5%' / '0%' → its size; '—' (no threshold to compare) → null, listed last.
+      const sizes = moves.map((m) => (m === '—' ? null : Math.abs(Number(m.replace('−', '-').replace(/[+%]/g, '')))));
+      expect(sizes.every((v) => v === null || Number.isFinite(v))).toBe(true);
+      const known = sizes.filter((v): v is number => v !== null);
+      expect(known.length).toBeGreaterThan(1);
+      expect(known).toEqual([...known].sort((a, b) => b - a));
+      expect(sizes.slice(known.length).every((v) => v === null)).toBe(true);
 
       // A district far down the table opens beside it in view: the panel stays put while the table scrolls.
       const last = page.getByTestId('review-row-D24');

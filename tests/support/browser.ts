@@ -127,5 +127,7 @@ export async function startHarness(options: HarnessOptions = {}): Promise<Harnes
 
 /** Requests that went anywhere but the loopback server (data: and blob: URLs are local). */
 export function offLoopback(requests: string[]): string[] {
+  // An empty capture would make every "no request beyond loopback" check pass vacuously.
+  if (requests.length === 0) throw new Error('no request was captured: the request listener is not working');
   return requests.filter((u) => !/^(data:|blob:|http:\/\/127\.0\.0\.1:\d+\/)/.test(u));
 }
