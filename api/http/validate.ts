@@ -38,13 +38,5 @@ export function validate<P extends z.ZodType = z.ZodAny, Q extends z.ZodType = z
   };
 }
 
-/** The parsed input for a handler, typed by the schemas given to `validate`. */
-export function inputOf<P extends z.ZodType, Q extends z.ZodType, B extends z.ZodType>(
-  res: Response,
-  _schemas: RequestSchemas<P, Q, B>,
-): Parsed<P, Q, B> {
-  return res.locals.input as Parsed<P, Q, B>;
-}
-
 /** Path parameters `{ id }` of a numeric resource id, shared by every `/:id` route. */
 export const idParams = z.object({ id: z.coerce.number().int().positive() });
