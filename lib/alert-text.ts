@@ -1,6 +1,7 @@
 // One alert in words (the district's alerts section and the caller's feed).
 import type { AlertKind, Shape, Standing } from './estimate-types';
 import { ALERT_KIND_LABEL, formatLevel, SHAPE_LABEL, STANDING_LABEL } from './estimate-words';
+import { formatDate } from './format-time';
 
 const standingWord = (v: unknown) => (typeof v === 'string' && v in STANDING_LABEL ? STANDING_LABEL[v as Standing] : String(v));
 const shapeWord = (v: unknown) => (typeof v === 'string' && v in SHAPE_LABEL ? SHAPE_LABEL[v as Shape] : String(v));
@@ -33,9 +34,7 @@ export function alertDetail(kind: AlertKind, details: Record<string, unknown>): 
   }
 }
 
-/** "2 Dec 2026" in one fixed locale. */
+/** "2 Dec 2026", the day in UTC (alerts are dated by their run's publish). */
 export function formatDay(iso: string): string {
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return iso;
-  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(d);
+  return formatDate(iso, 'UTC');
 }

@@ -1,6 +1,7 @@
 // The card's model line and its figures' words (form, covariance, n, years, run, data).
 import type { EstimateRecord, PublishedRunMeta } from './estimate-types';
 import { COVARIANCE_LABEL, levelPercent, METHOD_LABEL } from './estimate-words';
+import { formatDate } from './format-time';
 
 const CONTROL_LABEL: Record<string, string> = {
   pop_density: 'population density',
@@ -27,7 +28,7 @@ export function modelLine(r: EstimateRecord): string {
 
 /** "Run #4, published 2 Oct 2026 · spec “Regional default” · data version 3 · software 0.1.0". */
 export function runLine(run: PublishedRunMeta): string {
-  const day = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(run.publishedAt));
+  const day = formatDate(run.publishedAt, 'UTC');
   return `Run #${run.id}, published ${day} · spec “${run.specName}” · data version ${run.dataVersion} · software ${run.softwareVersion}`;
 }
 

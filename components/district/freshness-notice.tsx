@@ -3,6 +3,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import { colors, radius, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { useOnline } from '@/hooks/use-online';
+import { formatDayTime } from '@/lib/format-time';
 
 /** The parts of a react-query result that tell whether shown data may be out of date. */
 export type Freshness = {
@@ -22,10 +23,6 @@ export function isStale(f: Freshness, online = true): boolean {
   return f.data !== undefined && (f.isError || f.fetchStatus === 'paused' || !online);
 }
 
-function time(ms: number): string {
-  return new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', day: 'numeric', month: 'short' }).format(new Date(ms));
-}
-
 /**
  * Offline or unreachable while react-query still holds the last answer: the figures stay,
  * and this says how old they are and offers to try again.
@@ -38,7 +35,7 @@ export function FreshnessNotice({ freshness, what }: { freshness: Freshness; wha
     <View style={styles.notice} role="status" testID="stale-notice">
       <Text style={styles.text}>
         <Text style={styles.strong}>{offline ? 'Offline. ' : 'Could not refresh. '}</Text>
-        Showing {what} as loaded at {time(freshness.dataUpdatedAt)}; {offline ? 'they will refresh when the connection returns' : 'they may be out of date'}.
+        Showing {what} as loaded at {formatDayTime(freshness.dataUpdatedAt)}; {offline ? 'they will refresh when the connection returns' : 'they may be out of date'}.
       </Text>
       {offline ? null : <Button label="Try again" variant="outline" busy={freshness.isFetching} busyLabel="Trying…" onPress={() => void freshness.refetch()} />}
     </View>
