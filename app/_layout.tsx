@@ -18,6 +18,7 @@ import { useAuthOptionsQuery, useMeQuery, useSignOutMutation } from '@/hooks/use
 import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useHealthQuery } from '@/hooks/use-health';
 import { useLayoutMode, useThirdColumn } from '@/hooks/use-layout-mode';
+import { usePublishedWatch } from '@/hooks/use-published';
 import { usePublishedRunQuery } from '@/hooks/use-region';
 import { createQueryClient } from '@/lib/query-client';
 
@@ -42,6 +43,8 @@ function Frame() {
   const router = useRouter();
   const signOut = useSignOutMutation();
   const badgeFeed = useAlertFeedQuery(me.status === 'success');
+  // A run published on another device refreshes what this one shows (on focus, and each minute).
+  usePublishedWatch(me.status === 'success');
   const thirdColumn = useThirdColumn();
   const { code } = useGlobalSearchParams<{ code?: string }>();
   // The list sits beside the region and its districts; staff screens and the sign-in pages

@@ -7,7 +7,7 @@ import { earlyJson } from '@/lib/early-fetch';
 import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/lib/estimate-types';
 import { STALE_TIMES } from '@/lib/stale-times';
 
-/** Publishing a run changes every estimate: one invalidation of this root refreshes them. */
+/** Publishing a run changes every estimate: hooks/use-published.ts invalidates this root with the others it changes. */
 export const estimateKeysRoot = ['estimates'] as const;
 
 export const estimateKeys = {

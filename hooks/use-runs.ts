@@ -13,8 +13,7 @@ import type {
   RunView,
 } from '@/lib/types/runs';
 
-import { alertKeysRoot } from './use-alerts';
-import { districtKeysRoot } from './use-districts';
+import { invalidatePublished } from './use-published';
 
 export const runKeysRoot = ['runs'] as const;
 
@@ -104,9 +103,8 @@ function useAfterRunChange() {
       client.invalidateQueries({ queryKey: runKeys.detail(id) }),
       client.invalidateQueries({ queryKey: runKeys.list() }),
       client.invalidateQueries({ queryKey: runKeys.review(id) }),
-      // Publishing changes what every district card shows.
-      client.invalidateQueries({ queryKey: districtKeysRoot }),
-      client.invalidateQueries({ queryKey: alertKeysRoot }),
+      // Publishing (or discarding) changes what officials see: every card, the region, briefs, alerts.
+      invalidatePublished(client),
     ]);
 }
 

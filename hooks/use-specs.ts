@@ -5,6 +5,8 @@ import { apiGet, apiSend } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
 import type { SavedSpec, SpecInput, SpecsResponse } from '@/lib/types/settings';
 
+import { invalidatePublished } from './use-published';
+
 export const specKeysRoot = ['specs'] as const;
 
 export const specKeys = {
@@ -32,7 +34,7 @@ export function useSaveSpecMutation() {
       id === null
         ? apiSend<{ spec: SavedSpec }>('POST', '/api/specs', { json: input, accept: isSpecAnswer })
         : apiSend<{ spec: SavedSpec }>('PUT', `/api/specs/${id}`, { json: input, accept: isSpecAnswer }),
-    onSettled: () => client.invalidateQueries({ queryKey: specKeysRoot }),
+    onSettled: () => Promise.all([client.invalidateQueries({ queryKey: specKeysRoot }), invalidatePublished(client)]),
   });
 }
 
@@ -41,6 +43,6 @@ export function useArchiveSpecMutation() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: (id: number) => apiSend('DELETE', `/api/specs/${id}`),
-    onSettled: () => client.invalidateQueries({ queryKey: specKeysRoot }),
+    onSettled: () => Promise.all([client.invalidateQueries({ queryKey: specKeysRoot }), invalidatePublished(client)]),
   });
 }

@@ -14,7 +14,7 @@ import type {
   UploadOptions,
 } from '@/lib/types/uploads';
 
-import { districtKeysRoot } from './use-districts';
+import { invalidatePublished } from './use-published';
 
 export const uploadKeysRoot = ['uploads'] as const;
 
@@ -76,7 +76,8 @@ function useAfterDataChange() {
   return () =>
     Promise.all([
       client.invalidateQueries({ queryKey: uploadKeysRoot }),
-      client.invalidateQueries({ queryKey: districtKeysRoot }),
+      // New or reverted data changes the district list and each district's series.
+      invalidatePublished(client),
     ]);
 }
 

@@ -36,6 +36,8 @@ export const STALE_TIMES = {
   specs: 2 * MINUTE,
   /** The catalogue changes only when someone adds or edits an indicator. */
   indicators: 5 * MINUTE,
+  /** The latest published run id is the cheap question that tells whether anything above changed: always ask again. */
+  published: 0,
   /** Settings change by hand, rarely; the next scheduled start is computed on each load. */
   settings: 1 * MINUTE,
   /** Admin lists: short, so a second admin's change shows on the next visit. */
@@ -49,3 +51,6 @@ export const STALE_TIMES = {
 export const RUN_POLL_MS = 1500;
 
 export type StaleTimeName = keyof typeof STALE_TIMES;
+
+/** How often an open app asks whether a run was published elsewhere (besides on regaining focus). */
+export const PUBLISHED_POLL_MS = 60_000;

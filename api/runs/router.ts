@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { districtCode } from '../districts/router';
-import { callerOf, route, STAFF, type RouteSpec } from '../http/routes';
+import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
 import * as service from './service';
 
 const byId = idParams;
@@ -10,6 +10,17 @@ const byId = idParams;
 export function runRoutes(ctx: AppContext): RouteSpec[] {
   const { db } = ctx;
   return [
+    route({
+      method: 'get',
+      path: '/api/published',
+      allow: SIGNED_IN,
+      tag: 'runs',
+      summary: 'The latest published run id: the cheap question an open app asks to learn of a publish (never cached)',
+      handler: async (_input, _req, res) => {
+        res.set('Cache-Control', 'no-store');
+        return { runId: await service.latestPublishedRunId(db) };
+      },
+    }),
     route({
       method: 'get',
       path: '/api/runs',

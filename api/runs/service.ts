@@ -279,3 +279,8 @@ export async function addNote(db: Knex, caller: Caller, id: number, code: string
   await store.upsertNote(db, id, did, note, caller);
   await audit.record(db, { actorId: caller.id, actorEmail: caller.email, action: 'run.note', targetType: 'run', targetId: id, after: { code, note } });
 }
+
+/** The id of the run officials see now (null before the first publish). */
+export async function latestPublishedRunId(db: Knex): Promise<number | null> {
+  return (await store.latestPublished(db))?.id ?? null;
+}
