@@ -95,16 +95,13 @@ export async function updatePerson(
 
 /**
  * Deletes a person: their sessions, subscriptions, read marks and pending mail go; their
- * audit entries (and uploads, notes) stay under a pseudonym. Not oneself, not the last admin.
+ * audit entries (and uploads, notes) stay under a pseudonym. Not oneself (so an admin always remains).
  */
 export async function deletePerson(db: Knex, caller: Caller, id: number): Promise<{ id: number } & ForgetResult> {
   if (id === caller.id) throw new AppError(409, 'cannot_delete_self', 'You cannot delete your own account: ask another admin.');
   return db.transaction(async (trx) => {
     const before = await store.findById(trx, id);
     if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
-    if (before.role === 'admin' && before.active && (await store.countAdmins(trx)) <= 1) {
-      throw new AppError(409, 'last_admin', 'Crestwatch needs at least one active admin: make someone else admin first.');
-    }
     const forgotten = await forgetPerson(trx, before);
     await store.remove(trx, id);
     await audit.record(trx, {

@@ -55,7 +55,7 @@ export async function pseudonymise(db: Knex, p: { userId: number; email: string;
   const replaceIn = (col: string) =>
     `CASE WHEN ${col} IS NULL THEN NULL
           ELSE replace(${col}::text, to_json(:email::text)::text, to_json(:pseudonym::text)::text)::jsonb END`;
-  const unname = (col: string) => `CASE WHEN jsonb_typeof(${col}) = 'object' AND ${col} ? 'name' THEN jsonb_set(${col}, '{name}', '""') ELSE ${col} END`;
+  const unname = (col: string) => `CASE WHEN jsonb_typeof(${col}) = 'object' AND (${col} -> 'name') IS NOT NULL THEN jsonb_set(${col}, '{name}', '""') ELSE ${col} END`;
   const inJson = await db.raw(
     `UPDATE audit_log
         SET before = ${replaceIn('before')}, after = ${replaceIn('after')}
