@@ -2,7 +2,8 @@
  * Backups that restore: a database with uploads, two published runs and their alerts and
  * mail is written with `npm run db:backup`, restored with `npm run db:restore` into a new,
  * empty database, and every table (the app's, the migration log and the job queue's) reads
- * back with the same checksum, every sequence at the same value.
+ * back with the same checksum, every sequence at the same value. The restored copy then
+ * goes one migration down (`npm run db:rollback`) and back up (`npm run db:migrate`).
  */
 import { execFile } from 'node:child_process';
 import fs from 'node:fs';
@@ -16,8 +17,8 @@ import { createDb } from '../../api/db';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
 import type { Jobs } from '../../api/jobs/boss';
 import { ensureDemoAccounts } from '../../api/people/service';
-import { codeSchemaVersion } from '../../scripts/backup';
-import { dropDatabase, ensureDatabase } from '../../scripts/database';
+import { codeSchemaVersion, schemaVersion } from '../../scripts/backup';
+import { dropDatabase, ensureDatabase, migrationsDir } from '../../scripts/database';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
 import { startRunAndWait, testJobs, workIn } from '../support/jobs';
 import { TEST_CLUSTER, testDatabaseUrl } from '../support/test-cluster';
@@ -130,5 +131,15 @@ describe('db:backup and db:restore', () => {
       run('npm', ['run', '--silent', 'db:restore', '--', file], { cwd: root, env: { ...process.env, DATABASE_URL: t.url } }),
     ).rejects.toMatchObject({ stderr: expect.stringMatching(/already holds \d+ tables: restore into a new, empty database/) });
     expect(await tableChecksums(t.db)).toEqual(before);
+  });
+
+  it('steps the restored copy back one migration with db:rollback and forward again with db:migrate', async () => {
+    const names = fs.readdirSync(migrationsDir).filter((f) => /^\d{14}_/.test(f)).sort().map((f) => f.replace(/\.ts$/, ''));
+    const env = { ...process.env, DATABASE_URL: testDatabaseUrl(restoredName) };
+    const down = await run('npm', ['run', '--silent', 'db:rollback'], { cwd: root, env });
+    expect(down.stdout).toContain(`rolled back: ${names[names.length - 1]}`);
+    expect(await schemaVersion(testDatabaseUrl(restoredName))).toBe(names[names.length - 2]);
+    await run('npm', ['run', '--silent', 'db:migrate'], { cwd: root, env });
+    expect(await schemaVersion(testDatabaseUrl(restoredName))).toBe(codeSchemaVersion());
   });
 });
