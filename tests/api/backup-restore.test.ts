@@ -133,6 +133,14 @@ describe('db:backup and db:restore', () => {
     expect(await tableChecksums(t.db)).toEqual(before);
   });
 
+  it('refuses a backup written by a newer release (its schema version is past the last migration here)', async () => {
+    const future = path.join(dir, 'crestwatch-29991231000000_from_a_later_release-29991231T000000Z.dump');
+    fs.copyFileSync(file, future);
+    await expect(
+      run('npm', ['run', '--silent', 'db:restore', '--', future], { cwd: root, env: { ...process.env, DATABASE_URL: t.url } }),
+    ).rejects.toMatchObject({ stderr: expect.stringContaining(`schema 29991231000000_from_a_later_release is newer than this release's ${codeSchemaVersion()}`) });
+  });
+
   it('steps the restored copy back one migration with db:rollback and forward again with db:migrate', async () => {
     const names = fs.readdirSync(migrationsDir).filter((f) => /^\d{14}_/.test(f)).sort().map((f) => f.replace(/\.ts$/, ''));
     const env = { ...process.env, DATABASE_URL: testDatabaseUrl(restoredName) };
