@@ -5,10 +5,12 @@
  */
 import type { Server } from 'node:http';
 import type { CrestwatchApp } from '../../api/app';
+import { seedDemoIfEmpty } from '../../api/demo/seed';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { closeServer, DEMO, listen, signInAs, type SignedIn } from '../support/auth';
 import { testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
+import { upload } from './upload-helpers';
 
 jest.setTimeout(120_000);
 
@@ -33,6 +35,7 @@ async function auditMentions(text: string): Promise<number> {
 
 beforeAll(async () => {
   t = await freshDatabase();
+  await seedDemoIfEmpty(t.db);
   await ensureDemoAccounts(t.db);
   app = testApp(t.db);
   server = await listen(app);
@@ -44,6 +47,8 @@ beforeAll(async () => {
   expect((await leaver.agent.get('/api/me')).status).toBe(200);
   expect((await leaver.agent.post('/api/subscriptions').send({ scope: 'region', delivery: 'instant' })).status).toBe(201);
   expect((await leaver.agent.patch('/api/settings').send({ thresholdShiftPercent: 12 })).status).toBe(200);
+  const preview = await upload(leaver.agent, 'district_code,indicator,year,value\nD02,income_pc,2025,33333\n', 'leaver-preview.csv');
+  expect(preview.status).toBe(200);
   expect((await admin.agent.patch(`/api/people/${leaverId}`).send({ role: 'analyst' })).status).toBe(200);
 });
 
@@ -110,6 +115,22 @@ describe('deleting a person', () => {
     const update = entries.find((e) => e.action === 'person.update' && e.targetId === String(leaverId));
     expect(update?.before).toMatchObject({ email: pseudonym, role: 'admin' });
     expect(update?.after).toMatchObject({ email: pseudonym, role: 'analyst' });
+  });
+
+  it('keeps the upload they previewed, under the pseudonym', async () => {
+    const pseudonym = (await t.db('audit_log').where({ action: 'person.delete', target_id: String(leaverId) }).first('before')).before.pseudonym;
+    const rows = await t.db('uploads').where({ file_name: 'leaver-preview.csv' }).select('user_id', 'user_email');
+    expect(rows).toEqual([{ user_id: null, user_email: pseudonym }]);
+  });
+
+  it('leaves the address in no row of any table', async () => {
+    const { rows: tables } = await t.db.raw(`SELECT tablename FROM pg_tables WHERE schemaname = 'public' ORDER BY 1`);
+    const holding: string[] = [];
+    for (const { tablename } of tables as { tablename: string }[]) {
+      const { rows } = await t.db.raw(`SELECT count(*)::int AS n FROM "${tablename}" x WHERE position(lower(?) IN lower(x::text)) > 0`, [LEAVER]);
+      if (rows[0].n > 0) holding.push(`${tablename}: ${rows[0].n}`);
+    }
+    expect(holding).toEqual([]);
   });
 
   it('leaves everyone else’s entries and access alone', async () => {
