@@ -38,3 +38,14 @@ export async function migrate(databaseUrl: string): Promise<string[]> {
     await db.destroy();
   }
 }
+
+/** Runs the down() of the newest applied migration; returns its name (empty when none). */
+export async function migrateDown(databaseUrl: string): Promise<string[]> {
+  const db = createDb(databaseUrl, { pool: { min: 0, max: 2 } });
+  try {
+    const [, undone] = await db.migrate.down({ directory: migrationsDir, loadExtensions: ['.ts'] });
+    return undone as string[];
+  } finally {
+    await db.destroy();
+  }
+}

@@ -1,10 +1,11 @@
 /**
- * npm run db:start | db:stop | db:status | db:migrate | db:seed — the demo cluster.
+ * npm run db:start | db:stop | db:status | db:migrate | db:seed | db:rollback — the demo
+ * cluster, or the database DATABASE_URL names.
  */
 import { DEMO_DB_PORT, demoDatabaseUrl } from '../api/config';
 import { createDb } from '../api/db';
 import { reseedDemo } from '../api/demo/seed';
-import { ensureDatabase, migrate } from './database';
+import { ensureDatabase, migrate, migrateDown } from './database';
 import * as pg from './pg';
 
 export const DEMO_CLUSTER: pg.ClusterOptions = { name: 'demo', port: DEMO_DB_PORT };
@@ -39,6 +40,12 @@ async function main(cmd: string | undefined): Promise<void> {
     case 'migrate':
       await prepareDemoDatabase();
       return;
+    case 'rollback': {
+      // Undo the newest applied migration with its down(); never starts or migrates first.
+      const undone = await migrateDown(url);
+      console.log(undone.length ? `rolled back: ${undone.join(', ')}` : 'nothing to roll back');
+      return;
+    }
     case 'seed': {
       await prepareDemoDatabase();
       const db = createDb(url);
@@ -51,7 +58,7 @@ async function main(cmd: string | undefined): Promise<void> {
       return;
     }
     default:
-      console.error('usage: db.ts start|stop|status|migrate|seed');
+      console.error('usage: db.ts start|stop|status|migrate|rollback|seed');
       process.exitCode = 2;
   }
 }

@@ -10,6 +10,7 @@ export const QUEUES = {
   runChunk: 'run-chunk',
   outbox: 'outbox-send',
   scheduledRun: 'run-scheduled',
+  retention: 'retention-prune',
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
@@ -44,6 +45,7 @@ const RETRIES: Record<QueueName, { retryLimit: number; retryDelay: number; retry
   'run-chunk': { retryLimit: 3, retryDelay: 1, retryBackoff: true },
   'outbox-send': { retryLimit: 5, retryDelay: 5, retryBackoff: true },
   'run-scheduled': { retryLimit: 1, retryDelay: 30, retryBackoff: false },
+  'retention-prune': { retryLimit: 2, retryDelay: 60, retryBackoff: true },
 };
 
 export async function startJobs(o: JobsOptions): Promise<Jobs> {

@@ -2,6 +2,7 @@
 import '../briefs/attachment';
 import type { AppContext } from '../context';
 import { deliverOutbox } from '../outbox/sender';
+import { pruneExpired } from '../retention/service';
 import { runHandlers } from '../runs/jobs';
 import { startRun } from '../runs/service';
 import { getSettings } from '../settings/service';
@@ -14,6 +15,9 @@ export function allHandlers(ctx: AppContext): Record<QueueName, Handler> {
     [QUEUES.outbox]: async () => {
       await deliverOutbox(ctx);
     },
+    [QUEUES.retention]: async () => {
+      await pruneExpired(ctx.db);
+    },
     [QUEUES.scheduledRun]: async () => {
       try {
         await startRun(ctx, null, { trigger: 'schedule' });
@@ -25,9 +29,13 @@ export function allHandlers(ctx: AppContext): Record<QueueName, Handler> {
   };
 }
 
-/** Registers the cron jobs: the quarterly run (from settings) and the outbox sweep. */
+/** Nightly, at a quiet hour: sessions, finished mail and unread alerts past their retention. */
+export const RETENTION_CRON = '17 3 * * *';
+
+/** Registers the cron jobs: the quarterly run (from settings), the outbox sweep and retention. */
 export async function registerSchedules(ctx: AppContext, jobs: Jobs): Promise<void> {
   const s = await getSettings(ctx.db);
   await jobs.schedule(s.scheduleCron, s.regionTimeZone, s.scheduleEnabled);
   await jobs.boss.schedule(QUEUES.outbox, '* * * * *', { reason: 'sweep' }, { tz: 'UTC' });
+  await jobs.boss.schedule(QUEUES.retention, RETENTION_CRON, {}, { tz: 'UTC' });
 }

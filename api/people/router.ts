@@ -43,5 +43,14 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
       },
       handler: async ({ params, body }, req) => ({ person: await service.updatePerson(db, callerOf(req)!, params.id, body) }),
     }),
+    route({
+      method: 'delete',
+      path: '/api/people/:id',
+      allow: ADMIN,
+      tag: 'people',
+      summary: 'Delete a person: ends their sessions, removes their subscriptions, keeps their audit entries under a pseudonym',
+      schemas: { params: idParams },
+      handler: async ({ params }, req) => ({ deleted: await service.deletePerson(db, callerOf(req)!, params.id) }),
+    }),
   ];
 }

@@ -8,6 +8,7 @@ import { DEMO_ACCOUNTS } from '../auth/demo-accounts';
 import type { AppContext } from '../context';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller, Role } from '../http/routes';
+import { forgetPerson, type ForgetResult } from '../retention/service';
 import * as store from './store';
 
 const publicUser = (u: store.UserRow) => ({
@@ -89,6 +90,29 @@ export async function updatePerson(
     const action = patch.active === false ? 'person.deactivate' : patch.active === true ? 'person.reactivate' : 'person.update';
     await audit.record(trx, { ...actor(caller), action, targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
     return publicUser(after);
+  });
+}
+
+/**
+ * Deletes a person: their sessions, subscriptions, read marks and pending mail go; their
+ * audit entries (and uploads, notes) stay under a pseudonym. Not oneself (so an admin always remains).
+ */
+export async function deletePerson(db: Knex, caller: Caller, id: number): Promise<{ id: number } & ForgetResult> {
+  if (id === caller.id) throw new AppError(409, 'cannot_delete_self', 'You cannot delete your own account: ask another admin.');
+  return db.transaction(async (trx) => {
+    const before = await store.findById(trx, id);
+    if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
+    const forgotten = await forgetPerson(trx, before);
+    await store.remove(trx, id);
+    await audit.record(trx, {
+      ...actor(caller),
+      action: 'person.delete',
+      targetType: 'user',
+      targetId: id,
+      before: { pseudonym: forgotten.pseudonym, role: before.role, status: publicUser(before).status },
+      after: { sessions: forgotten.sessions, subscriptions: forgotten.subscriptions, auditEntries: forgotten.auditEntries },
+    });
+    return { id, ...forgotten };
   });
 }
 

@@ -74,6 +74,10 @@ export async function update(db: Knex, id: number, patch: { role?: Role; active?
   return toUser(r);
 }
 
+export async function remove(db: Knex, id: number): Promise<void> {
+  await db('users').where({ id }).delete();
+}
+
 export async function recordSignIn(db: Knex, id: number, googleSub: string, name: string): Promise<void> {
   await db('users')
     .where({ id })

@@ -23,6 +23,18 @@ export const SettingsSchema = z.object({
     .regex(/^\S+\s+\S+\s+\S+\s+\S+\s+\S+$/, 'five cron fields: minute hour day-of-month month day-of-week')
     .describe('When quarterly re-estimation runs start (cron, in the region time zone)'),
   scheduleEnabled: z.boolean().describe('Whether scheduled runs start at all'),
+  sentMailRetentionDays: z
+    .number()
+    .int()
+    .min(1)
+    .max(3650)
+    .describe('Days a sent (or finally failed) e-mail is kept in the outbox before the nightly retention job deletes it'),
+  unreadAlertRetentionDays: z
+    .number()
+    .int()
+    .min(7)
+    .max(3650)
+    .describe('Days an alert nobody has read stays in feeds before the nightly retention job deletes it'),
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 
@@ -36,4 +48,8 @@ export const DEFAULT_SETTINGS: Settings = {
   briefPaperSize: 'A4',
   scheduleCron: '0 6 1 1,4,7,10 *',
   scheduleEnabled: true,
+  // Retention: a quarter of sent mail is enough to answer "did I get it?"; a year of
+  // unread alerts spans four quarterly runs (common practice, no standard).
+  sentMailRetentionDays: 90,
+  unreadAlertRetentionDays: 365,
 };
