@@ -23,6 +23,7 @@ export const SettingsSchema = z.object({
     .regex(/^\S+\s+\S+\s+\S+\s+\S+\s+\S+$/, 'five cron fields: minute hour day-of-month month day-of-week')
     .describe('When quarterly re-estimation runs start (cron, in the region time zone)'),
   scheduleEnabled: z.boolean().describe('Whether scheduled runs start at all'),
+  invitationDays: z.number().int().min(1).max(365).describe('Days an invitation may be used before it lapses (re-sending renews it)'),
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 
@@ -36,4 +37,5 @@ export const DEFAULT_SETTINGS: Settings = {
   briefPaperSize: 'A4',
   scheduleCron: '0 6 1 1,4,7,10 *',
   scheduleEnabled: true,
+  invitationDays: 14,
 };
