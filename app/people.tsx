@@ -3,7 +3,7 @@ import Head from 'expo-router/head';
 import { GatedPage } from '@/components/layout/role-gate';
 import { PeopleScreen } from '@/components/people/people-screen';
 import { useAuthOptionsQuery, useMeQuery } from '@/hooks/use-auth';
-import { useInviteMutation, usePeopleQuery, usePersonMutation } from '@/hooks/use-people';
+import { useInviteMutation, usePeopleQuery, usePersonMutation, useResendInvitationMutation, useResetIdentityMutation } from '@/hooks/use-people';
 import { can } from '@/lib/roles';
 
 /** Admin: people, roles, invitations. */
@@ -13,6 +13,8 @@ export default function PeopleRoute() {
   const people = usePeopleQuery(can(me.data?.role, 'people'));
   const invite = useInviteMutation();
   const update = usePersonMutation();
+  const resend = useResendInvitationMutation();
+  const resetIdentity = useResetIdentityMutation();
   return (
     <>
       <Head>
@@ -26,6 +28,8 @@ export default function PeopleRoute() {
             demo={options.data?.provider === 'stand-in'}
             onInvite={(input) => invite.mutateAsync(input)}
             onChange={(id, patch) => update.mutateAsync({ id, patch })}
+            onResend={(id) => resend.mutateAsync(id)}
+            onResetIdentity={(id) => resetIdentity.mutateAsync(id)}
           />
         )}
       </GatedPage>

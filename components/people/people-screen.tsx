@@ -20,12 +20,14 @@ export type PeopleScreenProps = {
   demo: boolean;
   onInvite: (input: InviteInput) => Promise<InviteAnswer>;
   onChange: (id: number, patch: PersonPatch) => Promise<unknown>;
+  onResend?: (id: number) => Promise<unknown>;
+  onResetIdentity?: (id: number) => Promise<unknown>;
 };
 
 type Show = 'current' | 'all' | 'deactivated';
 
-/** Who has access: invite people with a role, change roles, switch people off. */
-export function PeopleScreen({ people, selfId, demo, onInvite, onChange }: PeopleScreenProps) {
+/** Who has access: invite people with a role, re-send lapsed invitations, change roles, reset a Google identity, switch people off. */
+export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResend, onResetIdentity }: PeopleScreenProps) {
   const [show, setShow] = useState<Show>('current');
   const rows = useMemo(() => {
     const all = people.data ?? [];
@@ -63,7 +65,14 @@ export function PeopleScreen({ people, selfId, demo, onInvite, onChange }: Peopl
         ) : (
           <View style={styles.grid} testID="people-list">
             {rows.map((p) => (
-              <PersonCard key={p.id} person={p} isSelf={String(p.id) === String(selfId)} onChange={(patch) => onChange(p.id, patch)} />
+              <PersonCard
+                key={p.id}
+                person={p}
+                isSelf={String(p.id) === String(selfId)}
+                onChange={(patch) => onChange(p.id, patch)}
+                onResend={onResend ? () => onResend(p.id) : undefined}
+                onResetIdentity={onResetIdentity ? () => onResetIdentity(p.id) : undefined}
+              />
             ))}
           </View>
         )}
