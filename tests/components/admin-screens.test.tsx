@@ -74,6 +74,34 @@ describe('people', () => {
     expect(screen.getByTestId('person-deactivate-2')).toBeTruthy();
   });
 
+  it('shows a lapsed invitation as expired and re-sends it', async () => {
+    const lapsed = person({ id: 3, email: 'late@crestwatch.example', name: '', status: 'expired', lastSignInAt: null, invitedAt: '2026-11-01T00:00:00.000Z', invitationExpiresAt: '2026-11-15T00:00:00.000Z', identityPinned: false });
+    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people: [...people, lapsed] } }));
+    mockedSend.mockResolvedValueOnce({ user: { ...lapsed, status: 'invited', invitationExpiresAt: '2026-12-18T00:00:00.000Z' }, mail: { sent: true } });
+    renderStaff('/people');
+    expect(await screen.findByText('Invitation expired')).toBeTruthy();
+    expect(screen.getByTestId('person-meta-3').props.children).toMatch(/^Invited .* · expired /);
+    // Someone who has signed in has nothing to re-send.
+    expect(screen.queryByTestId('person-resend-2')).toBeNull();
+    fireEvent.press(screen.getByTestId('person-resend-3'));
+    expect(await screen.findByText('The invitation to late@crestwatch.example is sent again.')).toBeTruthy();
+    expect(mockedSend).toHaveBeenCalledWith('POST', '/api/people/3/invitation', expect.anything());
+  });
+
+  it('resets a pinned Google identity only after confirming', async () => {
+    const pinned = [people[0], person({ identityPinned: true })];
+    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people: pinned } }));
+    mockedSend.mockResolvedValueOnce({ person: person({ identityPinned: false }) });
+    renderStaff('/people');
+    fireEvent.press(await screen.findByTestId('person-reset-identity-2'));
+    expect(mockedSend).not.toHaveBeenCalled();
+    fireEvent.press(await screen.findByTestId('person-reset-identity-2-confirm'));
+    expect(await screen.findByText('Demo analyst can sign in with a new Google account once.')).toBeTruthy();
+    expect(mockedSend).toHaveBeenCalledWith('POST', '/api/people/2/identity-reset', expect.anything());
+    // Not offered for an account with no pinned identity, nor for the admin themself.
+    expect(screen.queryByTestId('person-reset-identity-1')).toBeNull();
+  });
+
   it('shows a 403 plainly', async () => {
     mockedGet.mockImplementation(answerWith({ '/api/me': me('admin'), '/api/people': new ApiError(403, 'forbidden', 'This needs the admin role.') }));
     renderStaff('/people');
