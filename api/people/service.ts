@@ -108,6 +108,8 @@ export async function resendInvitation(
     if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
     if (before.lastSignInAt) throw new AppError(409, 'already_signed_in', `${before.email} has already signed in; there is no invitation to re-send.`, { id });
     if (!before.active) throw new AppError(409, 'deactivated', `${before.email} is deactivated: reactivate them first.`, { id });
+    // The first admin and the demo accounts were never sent an invitation, and never lapse.
+    if (!before.invitedAt) throw new AppError(409, 'no_invitation', `${before.email} was not invited by e-mail; there is no invitation to re-send.`, { id });
     const after = await store.renewInvitation(trx, id, caller.id, invitationDays);
     await audit.record(trx, { ...actor(caller), action: 'person.invitation_resend', targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
     return after;

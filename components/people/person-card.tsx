@@ -55,7 +55,8 @@ export function PersonCard({ person, isSelf, onChange, onResend, onResetIdentity
     }
   };
   const act = (what: string, patch: PersonPatch, success: string) => run(what, () => onChange(patch), success);
-  const pending = person.active && !person.lastSignInAt && (person.status === 'invited' || person.status === 'expired');
+  // Only a real invitation (sent by e-mail) can be re-sent: the first admin and demo accounts have none.
+  const pending = person.active && !person.lastSignInAt && person.invitedAt !== null && (person.status === 'invited' || person.status === 'expired');
   const status = STATUS[person.status];
   const who = person.name || person.email;
   return (

@@ -76,13 +76,16 @@ describe('people', () => {
 
   it('shows a lapsed invitation as expired and re-sends it', async () => {
     const lapsed = person({ id: 3, email: 'late@crestwatch.example', name: '', status: 'expired', lastSignInAt: null, invitedAt: '2026-11-01T00:00:00.000Z', invitationExpiresAt: '2026-11-15T00:00:00.000Z', identityPinned: false });
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people: [...people, lapsed] } }));
+    // A demo account that never signed in was never sent an invitation: nothing to re-send.
+    const demoAccount = person({ id: 4, email: 'official@crestwatch.example', status: 'invited', lastSignInAt: null, invitedAt: null, invitationExpiresAt: null });
+    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people: [...people, lapsed, demoAccount] } }));
     mockedSend.mockResolvedValueOnce({ user: { ...lapsed, status: 'invited', invitationExpiresAt: '2026-12-18T00:00:00.000Z' }, mail: { sent: true } });
     renderStaff('/people');
     expect(await screen.findByText('Invitation expired')).toBeTruthy();
     expect(screen.getByTestId('person-meta-3').props.children).toMatch(/^Invited .* · expired /);
     // Someone who has signed in has nothing to re-send.
     expect(screen.queryByTestId('person-resend-2')).toBeNull();
+    expect(screen.queryByTestId('person-resend-4')).toBeNull();
     fireEvent.press(screen.getByTestId('person-resend-3'));
     expect(await screen.findByText('The invitation to late@crestwatch.example is sent again.')).toBeTruthy();
     expect(mockedSend).toHaveBeenCalledWith('POST', '/api/people/3/invitation', expect.anything());

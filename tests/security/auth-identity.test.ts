@@ -125,6 +125,13 @@ describe('invitations that lapse', () => {
     await admin.agent.patch('/api/settings').send({ invitationDays: 14 });
 
     for (const email of Object.values(DEMO)) expect((await userRow(email)).invitation_expires_at).toBeNull();
+    // A demo account never signed in has no invitation to re-send, so it cannot be made to lapse.
+    await t.db('users').insert({ email: 'never.invited@crestwatch.example', role: 'official' });
+    const never = (await userRow('never.invited@crestwatch.example')).id;
+    const refused = await admin.agent.post(`/api/people/${never}/invitation`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('no_invitation');
+    expect((await userRow('never.invited@crestwatch.example')).invitation_expires_at).toBeNull();
   });
 
   it('shows an expired invitation as expired, refuses it, and a re-sent one (audited) works', async () => {
