@@ -4,6 +4,7 @@ import { GatedPage } from '@/components/layout/role-gate';
 import { PeopleScreen } from '@/components/people/people-screen';
 import { useAuthOptionsQuery, useMeQuery } from '@/hooks/use-auth';
 import { useInviteMutation, usePeopleQuery, usePersonMutation, useResendInvitationMutation, useResetIdentityMutation } from '@/hooks/use-people';
+import { useSettingsMutation, useSettingsQuery } from '@/hooks/use-settings';
 import { can } from '@/lib/roles';
 
 /** Admin: people, roles, invitations. */
@@ -15,6 +16,8 @@ export default function PeopleRoute() {
   const update = usePersonMutation();
   const resend = useResendInvitationMutation();
   const resetIdentity = useResetIdentityMutation();
+  const settings = useSettingsQuery(can(me.data?.role, 'people'));
+  const saveSettings = useSettingsMutation();
   return (
     <>
       <Head>
@@ -30,6 +33,8 @@ export default function PeopleRoute() {
             onChange={(id, patch) => update.mutateAsync({ id, patch })}
             onResend={(id) => resend.mutateAsync(id)}
             onResetIdentity={(id) => resetIdentity.mutateAsync(id)}
+            invitationDays={settings.data?.settings.invitationDays ?? null}
+            onInvitationDays={(invitationDays) => saveSettings.mutateAsync({ invitationDays })}
           />
         )}
       </GatedPage>

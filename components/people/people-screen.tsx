@@ -11,6 +11,7 @@ import { colors, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import type { InviteAnswer, InviteInput, Person, PersonPatch } from '@/lib/types/people';
 
+import { InvitationDays } from './invitation-days';
 import { InviteForm } from './invite-form';
 import { PersonCard } from './person-card';
 
@@ -22,12 +23,15 @@ export type PeopleScreenProps = {
   onChange: (id: number, patch: PersonPatch) => Promise<unknown>;
   onResend?: (id: number) => Promise<unknown>;
   onResetIdentity?: (id: number) => Promise<unknown>;
+  /** The `invitationDays` setting (null while loading); omit both to hide the control. */
+  invitationDays?: number | null;
+  onInvitationDays?: (days: number) => Promise<unknown>;
 };
 
 type Show = 'current' | 'all' | 'deactivated';
 
 /** Who has access: invite people with a role, re-send lapsed invitations, change roles, reset a Google identity, switch people off. */
-export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResend, onResetIdentity }: PeopleScreenProps) {
+export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResend, onResetIdentity, invitationDays, onInvitationDays }: PeopleScreenProps) {
   const [show, setShow] = useState<Show>('current');
   const rows = useMemo(() => {
     const all = people.data ?? [];
@@ -44,6 +48,7 @@ export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResen
             <TextLink href="/mailbox" label="Read them in the mailbox" />
           </View>
         ) : null}
+        {onInvitationDays && invitationDays !== undefined ? <InvitationDays days={invitationDays} onSave={onInvitationDays} /> : null}
       </Section>
       <Section title="People with access">
         <ChoiceGroup

@@ -105,6 +105,23 @@ describe('people', () => {
     expect(screen.queryByTestId('person-reset-identity-1')).toBeNull();
   });
 
+  it('changes how long invitations can be used (the invitationDays setting)', async () => {
+    const withDays = { ...settingsAnswer, settings: { ...settingsAnswer.settings, invitationDays: 14 } };
+    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people }, '/api/settings': withDays }));
+    mockedSend.mockResolvedValueOnce({ ...withDays, settings: { ...withDays.settings, invitationDays: 30 } });
+    renderStaff('/people');
+    const input = await screen.findByTestId('invitation-days-input');
+    await waitFor(() => expect(input.props.value).toBe('14'));
+    fireEvent.changeText(input, '0');
+    fireEvent.press(screen.getByTestId('invitation-days-save'));
+    expect(await screen.findByText('A whole number of days from 1 to 365.')).toBeTruthy();
+    expect(mockedSend).not.toHaveBeenCalled();
+    fireEvent.changeText(input, '30');
+    fireEvent.press(screen.getByTestId('invitation-days-save'));
+    expect(await screen.findByText('New and re-sent invitations can be used for 30 days.')).toBeTruthy();
+    expect(mockedSend).toHaveBeenCalledWith('PATCH', '/api/settings', expect.objectContaining({ json: { invitationDays: 30 } }));
+  });
+
   it('shows a 403 plainly', async () => {
     mockedGet.mockImplementation(answerWith({ '/api/me': me('admin'), '/api/people': new ApiError(403, 'forbidden', 'This needs the admin role.') }));
     renderStaff('/people');
