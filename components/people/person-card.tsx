@@ -102,7 +102,7 @@ export function PersonCard({ person, isSelf, onChange, onResend, onResetIdentity
             variant="danger"
             busy={state.busy === 'identity'}
             busyLabel="Resetting…"
-            onConfirm={() => void run('identity', onResetIdentity, `${who} can sign in with a new Google account once.`)}
+            onConfirm={() => void run('identity', onResetIdentity, `The next Google account that signs in as ${person.email} is kept for ${who}.`)}
             testID={`person-reset-identity-${person.id}`}
           />
         ) : null}

@@ -99,7 +99,7 @@ describe('people', () => {
     fireEvent.press(await screen.findByTestId('person-reset-identity-2'));
     expect(mockedSend).not.toHaveBeenCalled();
     fireEvent.press(await screen.findByTestId('person-reset-identity-2-confirm'));
-    expect(await screen.findByText('Demo analyst can sign in with a new Google account once.')).toBeTruthy();
+    expect(await screen.findByText('The next Google account that signs in as analyst@crestwatch.example is kept for Demo analyst.')).toBeTruthy();
     expect(mockedSend).toHaveBeenCalledWith('POST', '/api/people/2/identity-reset', expect.anything());
     // Not offered for an account with no pinned identity, nor for the admin themself.
     expect(screen.queryByTestId('person-reset-identity-1')).toBeNull();
