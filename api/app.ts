@@ -8,10 +8,11 @@ import helmet from 'helmet';
 import type { Knex } from 'knex';
 import morgan from 'morgan';
 import { createPassport } from './auth/passport';
-import { sessionMiddleware } from './auth/session';
+import { sessionExpiredErrors, sessionLimits, sessionMiddleware } from './auth/session';
 import type { Config } from './config';
 import type { AppContext } from './context';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { redactUrl } from './http/redact-url';
 import { mountRoutes, type RouteSpec } from './http/routes';
 import type { Jobs } from './jobs/boss';
 import { createMailer, type Mailer } from './mail/mailer';
@@ -34,7 +35,8 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
   const app = express() as CrestwatchApp;
   const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config), jobs };
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // TRUST_PROXY: whose X-Forwarded-For / -Proto to believe (req.ip for rate limits, req.secure for the cookie).
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -53,17 +55,20 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
     }),
   );
   if (config.logRequests) {
-    app.use(morgan(':method :url :status :res[content-length] - :response-time ms', { stream: { write: (l) => log(l.trimEnd()) } }));
+    // The path as sent, with the values of token, code and state redacted.
+    morgan.token('safe-url', (req) => redactUrl((req as { originalUrl?: string }).originalUrl ?? req.url ?? ''));
+    app.use(morgan(':method :safe-url :status :res[content-length] - :response-time ms', { stream: { write: (l) => log(l.trimEnd()) } }));
   }
   const sessions = sessionMiddleware(ctx);
   const passport = createPassport(ctx);
   app.use('/api', express.json({ limit: '2mb' }), express.urlencoded({ extended: false, limit: '64kb' }));
-  app.use('/api', sessions.middleware, passport.session());
+  app.use('/api', sessions.middleware, sessionLimits(config), passport.session());
   const routes = routeTable(ctx, passport);
   const api = express.Router();
   mountRoutes(api, routes);
   app.use(api);
   app.use('/api', apiNotFound);
+  app.use('/api', sessionExpiredErrors(config));
   app.use(webRouter(config.webDir));
   app.use(errorMiddleware(log));
   app.locals.routes = routes;

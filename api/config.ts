@@ -1,3 +1,4 @@
+import { isIP } from 'node:net';
 import path from 'node:path';
 
 /**
@@ -33,7 +34,16 @@ export interface Config {
   webDir: string;
   logRequests: boolean;
   sessionSecret: string;
+  /** A session unused this long ends (401 `session_expired`, reason `idle`). */
   sessionIdleMinutes: number;
+  /** A session older than this ends whatever its use (reason `lifetime`). */
+  sessionMaxHours: number;
+  /** Express's `trust proxy`: a hop count, or addresses / subnets / named ranges of trusted proxies. */
+  trustProxy: number | string[];
+  /** When set, only Google accounts of this Workspace domain (userinfo `hd`) may sign in. */
+  googleHostedDomain: string | null;
+  /** Said in the server's first log line when the mode was not chosen explicitly (null otherwise). */
+  modeNotice: string | null;
   /** Sign-in attempts per IP and minute on /api/auth/*. */
   authRateLimitPerMinute: number;
   oauth: OAuthConfig;
@@ -68,6 +78,31 @@ function intFrom(env: NodeJS.ProcessEnv, name: string, fallback: number): number
   return n;
 }
 
+/** Named ranges Express understands in `trust proxy` besides addresses and subnets. */
+const NAMED_RANGES = new Set(['loopback', 'linklocal', 'uniquelocal']);
+
+/**
+ * TRUST_PROXY: a hop count (`1` behind one load balancer) or a comma-separated list of
+ * addresses, CIDR subnets or the named ranges loopback / linklocal / uniquelocal. `true`
+ * (trust every hop) is refused: anyone could then choose their own address.
+ */
+export function parseTrustProxy(raw: string | undefined): number | string[] {
+  if (raw === undefined || raw.trim() === '') return ['loopback'];
+  const text = raw.trim();
+  if (/^\d+$/.test(text)) return Number(text);
+  if (text === 'true') throw new Error('TRUST_PROXY=true would trust any client\'s X-Forwarded-For; give the hop count (e.g. 1) or the proxies\' addresses');
+  const items = text.split(',').map((x) => x.trim());
+  for (const item of items) {
+    const [addr, bits, extra] = item.split('/');
+    const ok = NAMED_RANGES.has(item) || (extra === undefined && isIP(addr) !== 0 && (bits === undefined || /^\d{1,3}$/.test(bits)));
+    if (!ok) throw new Error(`TRUST_PROXY: "${item}" is not a hop count, an address, a subnet (a.b.c.d/n) or loopback / linklocal / uniquelocal`);
+  }
+  return items;
+}
+
+/** Smallest SESSION_SECRET accepted in production, in bytes (UTF-8). */
+export const MIN_SESSION_SECRET_BYTES = 32;
+
 export function demoDatabaseUrl(port = DEMO_DB_PORT, db = 'crestwatch'): string {
   return `postgres://postgres@127.0.0.1:${port}/${db}`;
 }
@@ -97,12 +132,25 @@ function oauthConfig(env: NodeJS.ProcessEnv, mode: Mode, standInPort: number | n
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const mode = (env.CRESTWATCH_MODE ?? (env.NODE_ENV === 'production' ? 'production' : 'demo')) as Mode;
+  const productionEnv = env.NODE_ENV === 'production';
+  if (productionEnv && env.CRESTWATCH_MODE !== undefined && env.CRESTWATCH_MODE !== 'production') {
+    throw new Error(`NODE_ENV=production refuses CRESTWATCH_MODE=${env.CRESTWATCH_MODE}: unset it or set it to production`);
+  }
+  const mode = (env.CRESTWATCH_MODE ?? (productionEnv ? 'production' : 'demo')) as Mode;
   if (!['demo', 'test', 'production'].includes(mode)) {
     throw new Error(`CRESTWATCH_MODE must be demo, test or production, got "${mode}"`);
   }
   if (mode === 'production' && !env.DATABASE_URL) throw new Error('DATABASE_URL is required in production mode');
   if (mode === 'production' && !env.SESSION_SECRET) throw new Error('SESSION_SECRET is required in production mode');
+  if (mode === 'production' && Buffer.byteLength(env.SESSION_SECRET!, 'utf8') < MIN_SESSION_SECRET_BYTES) {
+    throw new Error(
+      `SESSION_SECRET must be at least ${MIN_SESSION_SECRET_BYTES} bytes in production mode, got ${Buffer.byteLength(env.SESSION_SECRET!, 'utf8')} (e.g. openssl rand -base64 48)`,
+    );
+  }
+  const modeNotice =
+    env.CRESTWATCH_MODE === undefined && !productionEnv
+      ? 'Crestwatch runs the DEMO (neither NODE_ENV=production nor CRESTWATCH_MODE is set): invented data, the sign-in stand-in and a public session secret. Set NODE_ENV=production for a real deployment.'
+      : null;
   const host = env.HOST ?? '127.0.0.1';
   const port = intFrom(env, 'PORT', 8080);
   const standInPort = mode === 'production' ? null : intFrom(env, 'OAUTH_STAND_IN_PORT', mode === 'test' ? TEST_STAND_IN_PORT : 8079);
@@ -115,7 +163,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     webDir: env.WEB_DIR ?? path.resolve(__dirname, '..', 'dist'),
     logRequests: env.LOG_REQUESTS !== '0' && mode !== 'test',
     sessionSecret: env.SESSION_SECRET ?? 'crestwatch-local-only-secret',
-    sessionIdleMinutes: intFrom(env, 'SESSION_IDLE_MINUTES', 120),
+    sessionIdleMinutes: intFrom(env, 'SESSION_IDLE_MINUTES', 30),
+    sessionMaxHours: intFrom(env, 'SESSION_MAX_HOURS', 12),
+    trustProxy: parseTrustProxy(env.TRUST_PROXY),
+    googleHostedDomain: env.GOOGLE_HOSTED_DOMAIN?.trim().toLowerCase() || null,
+    modeNotice,
     authRateLimitPerMinute: intFrom(env, 'AUTH_RATE_LIMIT_PER_MINUTE', 60),
     oauth: oauthConfig(env, mode, standInPort),
     standInPort,

@@ -82,7 +82,13 @@ export function closeOnSignals(running: Running): void {
 }
 
 if (require.main === module) {
-  startServer()
+  Promise.resolve()
+    .then(() => {
+      const config = loadConfig();
+      // The first log line says when the demo runs because nothing chose a mode.
+      if (config.modeNotice) console.log(config.modeNotice);
+      return startServer(config);
+    })
     .then((running) => {
       closeOnSignals(running);
       console.log(`Crestwatch is serving on ${running.url}`);

@@ -1,4 +1,5 @@
-// The people resource (admin): GET /api/people, POST /api/people/invitations, PATCH /api/people/:id.
+// The people resource (admin): GET /api/people, POST /api/people/invitations, PATCH /api/people/:id,
+// POST /api/people/:id/invitation (re-send), POST /api/people/:id/identity-reset.
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
@@ -51,6 +52,39 @@ export function usePersonMutation() {
     mutationFn: ({ id, patch }: { id: number; patch: PersonPatch }) =>
       apiSend<{ person: Person }>('PATCH', `/api/people/${id}`, {
         json: patch,
+        accept: (b) => typeof b === 'object' && b !== null && 'person' in b,
+      }),
+    onSettled: () =>
+      Promise.all([
+        client.invalidateQueries({ queryKey: peopleKeysRoot }),
+        client.invalidateQueries({ queryKey: auditKeysRoot }),
+      ]),
+  });
+}
+
+/** Re-sends a pending or lapsed invitation; the server renews its expiry and e-mails it. */
+export function useResendInvitationMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) =>
+      apiSend<InviteAnswer>('POST', `/api/people/${id}/invitation`, {
+        accept: (b) => typeof b === 'object' && b !== null && 'user' in b,
+      }),
+    onSettled: () =>
+      Promise.all([
+        client.invalidateQueries({ queryKey: peopleKeysRoot }),
+        client.invalidateQueries({ queryKey: auditKeysRoot }),
+        client.invalidateQueries({ queryKey: mailboxKeysRoot }),
+      ]),
+  });
+}
+
+/** Forgets the Google identity a person is pinned to; their next sign-in pins a new one. */
+export function useResetIdentityMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) =>
+      apiSend<{ person: Person }>('POST', `/api/people/${id}/identity-reset`, {
         accept: (b) => typeof b === 'object' && b !== null && 'person' in b,
       }),
     onSettled: () =>

@@ -12,6 +12,8 @@ import { buildWebIfStale } from './web-build';
 
 async function main(): Promise<void> {
   const config = loadConfig();
+  // The first log line says when the demo runs because nothing chose a mode.
+  if (config.modeNotice) console.log(config.modeNotice);
   await prepareDemoDatabase();
   if (config.mode === 'demo') {
     const db = createDb(config.databaseUrl);

@@ -3,15 +3,34 @@
  * local stand-in; in production at Google (config.ts). One Passport instance per app.
  * Only invited, active people get a session; the OAuth `state` (with PKCE) is kept in the
  * session and checked on the callback.
+ *
+ * The account is pinned to its Google identity: the profile's e-mail must be verified, the
+ * Google subject (`sub`) is stored at the first sign-in and any other subject asserting the
+ * same address is refused (an admin can reset it); with GOOGLE_HOSTED_DOMAIN set, the
+ * userinfo `hd` claim must name that domain; an invitation past its expiry cannot be used.
  */
 import { Passport } from 'passport';
 import { Strategy as GoogleStrategy, type Profile } from 'passport-google-oauth20';
 import * as audit from '../audit/store';
 import type { AppContext } from '../context';
 import type { Caller } from '../http/routes';
+import { invitationExpired } from '../people/service';
 import * as users from '../people/store';
 
-export type SignInRefusal = 'not_invited' | 'deactivated' | 'no_email';
+export type SignInRefusal =
+  | 'not_invited'
+  | 'deactivated'
+  | 'no_email'
+  | 'email_unverified'
+  | 'wrong_domain'
+  | 'identity_mismatch'
+  | 'invitation_expired';
+
+/** Google's userinfo claims beyond what passport maps onto the profile. */
+interface UserinfoJson {
+  email_verified?: boolean | string;
+  hd?: string;
+}
 
 export function createPassport({ db, config }: AppContext): InstanceType<typeof Passport> {
   const passport = new Passport();
@@ -32,9 +51,25 @@ export function createPassport({ db, config }: AppContext): InstanceType<typeof 
         try {
           const email = profile.emails?.[0]?.value;
           if (!email) return done(null, false, { reason: 'no_email' });
+          const json = ((profile as { _json?: UserinfoJson })._json ?? {}) as UserinfoJson;
+          // Google sends a boolean; older endpoints sent the string "true".
+          const verified = json.email_verified === true || json.email_verified === 'true';
+          if (!verified) return done(null, false, { reason: 'email_unverified', email });
+          if (config.googleHostedDomain && (json.hd ?? '').toLowerCase() !== config.googleHostedDomain) {
+            return done(null, false, { reason: 'wrong_domain', email });
+          }
           const user = await users.findByEmail(db, email);
           if (!user) return done(null, false, { reason: 'not_invited', email });
           if (!user.active) return done(null, false, { reason: 'deactivated', email });
+          const holder = await users.findByGoogleSub(db, profile.id);
+          if ((user.googleSub !== null && user.googleSub !== profile.id) || (holder && holder.id !== user.id)) {
+            await audit.record(db, { actorId: null, actorEmail: email, action: 'sign_in.refused', targetType: 'user', targetId: user.id, after: { reason: 'identity_mismatch' } });
+            return done(null, false, { reason: 'identity_mismatch', email });
+          }
+          if (invitationExpired(user)) {
+            await audit.record(db, { actorId: null, actorEmail: email, action: 'sign_in.refused', targetType: 'user', targetId: user.id, after: { reason: 'invitation_expired' } });
+            return done(null, false, { reason: 'invitation_expired', email });
+          }
           await users.recordSignIn(db, user.id, profile.id, profile.displayName ?? '');
           await audit.record(db, { actorId: user.id, actorEmail: user.email, action: 'sign_in', targetType: 'user', targetId: user.id });
           done(null, { id: user.id, email: user.email, name: user.name, role: user.role, active: user.active });

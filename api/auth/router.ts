@@ -10,7 +10,7 @@ import type { AppContext } from '../context';
 import { NotFoundError } from '../http/errors';
 import { callerOf, route, SIGNED_IN, type Caller, type RouteSpec } from '../http/routes';
 import type { createPassport, SignInRefusal } from './passport';
-import { SESSION_COOKIE } from './session';
+import { sessionCookieName, sessionCookieOptions, startSessionClock } from './session';
 import { standInPage } from './stand-in-page';
 
 /** Runs an Express middleware inside a handler; resolves when it calls next or answers. */
@@ -20,6 +20,16 @@ function run(mw: RequestHandler, req: Request, res: Response): Promise<void> {
     mw(req, res, (err?: unknown) => (err ? reject(err) : resolve()));
   });
 }
+
+/** Refusals that land on the no-access page (the others go back to sign-in with an error). */
+const NO_ACCESS: ReadonlySet<string> = new Set<SignInRefusal>([
+  'not_invited',
+  'deactivated',
+  'email_unverified',
+  'wrong_domain',
+  'identity_mismatch',
+  'invitation_expired',
+]);
 
 export function newCsrfToken(): string {
   return randomBytes(24).toString('base64url');
@@ -71,7 +81,16 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
       before: [limiter],
       schemas: { query: z.object({ login_hint: z.string().email().max(254).optional() }) },
       handler: ({ query }, req, res) =>
-        run(passport.authenticate('google', { loginHint: query.login_hint, prompt: 'select_account' } as object), req, res),
+        run(
+          passport.authenticate('google', {
+            loginHint: query.login_hint,
+            prompt: 'select_account',
+            // A hint to Google's account chooser only; the callback checks the `hd` claim itself.
+            ...(config.googleHostedDomain ? { hostedDomain: config.googleHostedDomain } : {}),
+          } as object),
+          req,
+          res,
+        ),
     }),
     route({
       method: 'get',
@@ -86,7 +105,7 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
             if (err) return reject(err);
             if (!user) {
               const reason = info?.reason ?? 'state';
-              if (reason === 'not_invited' || reason === 'deactivated') {
+              if (NO_ACCESS.has(reason)) {
                 res.redirect(303, `/no-access?reason=${reason}`);
               } else {
                 res.redirect(303, `/sign-in?error=${encodeURIComponent(reason === 'no_email' ? 'no_email' : 'failed')}`);
@@ -96,6 +115,7 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
             req.logIn(user, (loginErr) => {
               if (loginErr) return reject(loginErr);
               req.session.csrfToken = newCsrfToken();
+              startSessionClock(req.session);
               req.session.save((saveErr) => {
                 if (saveErr) return reject(saveErr);
                 res.redirect(303, '/');
@@ -117,7 +137,7 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
         await audit.record(db, { actorId: caller.id, actorEmail: caller.email, action: 'sign_out', targetType: 'user', targetId: caller.id });
         await new Promise<void>((resolve, reject) => req.logOut((err) => (err ? reject(err) : resolve())));
         await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
-        res.clearCookie(SESSION_COOKIE, { path: '/', httpOnly: true, sameSite: 'lax' });
+        res.clearCookie(sessionCookieName(config), sessionCookieOptions(config));
         res.status(204).end();
       },
     }),

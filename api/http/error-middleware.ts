@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { AppError, NotFoundError } from './errors';
+import { redactUrl } from './redact-url';
 
 /** Unknown /api paths answer 404 in the error shape, never the web app. */
 export const apiNotFound: RequestHandler = (req) => {
@@ -20,7 +21,7 @@ export function errorMiddleware(log: (msg: string) => void): ErrorRequestHandler
       res.status(status).json({ error: { code, message: err.expose === false ? 'Bad request' : String(err.message) } });
       return;
     }
-    log(`error on ${req.method} ${req.originalUrl}: ${err?.stack ?? err}`);
+    log(`error on ${req.method} ${redactUrl(req.originalUrl)}: ${err?.stack ?? err}`);
     res.status(500).json({ error: { code: 'internal_error', message: 'Something went wrong on the server.' } });
   };
 }

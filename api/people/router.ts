@@ -52,5 +52,23 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
       schemas: { params: idParams },
       handler: async ({ params }, req) => ({ deleted: await service.deletePerson(db, callerOf(req)!, params.id) }),
     }),
+    route({
+      method: 'post',
+      path: '/api/people/:id/invitation',
+      allow: ADMIN,
+      tag: 'people',
+      summary: 'Re-send a pending or lapsed invitation, valid for the invitationDays setting from now (audited)',
+      schemas: { params: idParams },
+      handler: ({ params }, req) => service.resendInvitation(ctx, callerOf(req)!, params.id),
+    }),
+    route({
+      method: 'post',
+      path: '/api/people/:id/identity-reset',
+      allow: ADMIN,
+      tag: 'people',
+      summary: 'Forget the Google identity a person is pinned to; their next sign-in pins a new one (audited, ends their sessions)',
+      schemas: { params: idParams },
+      handler: async ({ params }, req) => ({ person: await service.resetIdentity(db, callerOf(req)!, params.id) }),
+    }),
   ];
 }

@@ -1,6 +1,8 @@
 /**
- * People: invitations (a user row with its role, and an e-mail through nodemailer), role
- * changes, deactivation. Every change is written to the audit log with before and after.
+ * People: invitations (a user row with its role, and an e-mail through nodemailer) that
+ * lapse after the `invitationDays` setting and can be re-sent, role changes, deactivation,
+ * and resetting the Google identity an account is pinned to. Every change is written to
+ * the audit log with before and after.
  */
 import type { Knex } from 'knex';
 import * as audit from '../audit/store';
@@ -9,7 +11,21 @@ import type { AppContext } from '../context';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller, Role } from '../http/routes';
 import { forgetPerson, type ForgetResult } from '../retention/service';
+import { getSettings } from '../settings/service';
 import * as store from './store';
+
+export type PersonStatus = 'active' | 'invited' | 'expired' | 'deactivated';
+
+/** True when the invitation was never used and its expiry has passed. */
+export function invitationExpired(u: Pick<store.UserRow, 'lastSignInAt' | 'invitationExpiresAt'>, now = Date.now()): boolean {
+  return u.lastSignInAt === null && u.invitationExpiresAt !== null && Date.parse(u.invitationExpiresAt) <= now;
+}
+
+function statusOf(u: store.UserRow): PersonStatus {
+  if (!u.active) return 'deactivated';
+  if (u.lastSignInAt) return 'active';
+  return invitationExpired(u) ? 'expired' : 'invited';
+}
 
 const publicUser = (u: store.UserRow) => ({
   id: u.id,
@@ -17,10 +33,13 @@ const publicUser = (u: store.UserRow) => ({
   name: u.name,
   role: u.role,
   active: u.active,
-  status: !u.active ? 'deactivated' : u.lastSignInAt ? 'active' : 'invited',
+  status: statusOf(u),
   createdAt: u.createdAt,
   lastSignInAt: u.lastSignInAt,
   invitedAt: u.invitedAt,
+  invitationExpiresAt: u.invitationExpiresAt,
+  /** Whether a Google identity is pinned (the subject itself stays on the server). */
+  identityPinned: u.googleSub !== null,
 });
 export type PublicUser = ReturnType<typeof publicUser>;
 
@@ -30,14 +49,16 @@ export async function listPeople(db: Knex): Promise<PublicUser[]> {
   return (await store.list(db)).map(publicUser);
 }
 
-export function invitationText(ctx: Pick<AppContext, 'config'>, role: Role, inviter: string) {
+export function invitationText(ctx: Pick<AppContext, 'config'>, role: Role, inviter: string, expiresAt: string | null = null) {
   const link = `${ctx.config.publicUrl}/sign-in`;
+  const until = expiresAt ? ['', `The invitation can be used until ${expiresAt.slice(0, 10)} (UTC); after that, ask for it to be sent again.`] : [];
   return {
     subject: 'You are invited to Crestwatch',
     text: [
       `${inviter} has invited you to Crestwatch as ${role === 'admin' ? 'an admin' : `an ${role}`}.`,
       '',
       `Sign in with your Google account at ${link}`,
+      ...until,
       '',
       'Crestwatch shows each district’s emissions–income estimates and where it stands against its threshold.',
       'The estimates are statistical associations, not causal laws or forecasts; they do not replace statutory standards or the judgement of qualified staff.',
@@ -54,18 +75,64 @@ export async function invite(
   const email = input.email.trim().toLowerCase();
   const existing = await store.findByEmail(db, email);
   if (existing) throw new AppError(409, 'already_invited', `${email} already has access (${existing.role}).`, { email });
+  const { invitationDays } = await getSettings(db);
   const user = await db.transaction(async (trx) => {
-    const u = await store.insert(trx, { email, name: input.name ?? '', role: input.role, invitedBy: caller.id });
+    const u = await store.insert(trx, { email, name: input.name ?? '', role: input.role, invitedBy: caller.id, invitationDays });
     await audit.record(trx, { ...actor(caller), action: 'person.invite', targetType: 'user', targetId: u.id, after: publicUser(u) });
     return u;
   });
-  const message = invitationText(ctx, input.role, caller.name || caller.email);
+  return { user: publicUser(user), mail: await sendInvitation(ctx, user, caller) };
+}
+
+async function sendInvitation(ctx: Pick<AppContext, 'config' | 'mailer'>, user: store.UserRow, caller: Caller): Promise<{ sent: boolean; error?: string }> {
+  const message = invitationText(ctx, user.role, caller.name || caller.email, user.invitationExpiresAt);
   try {
-    await ctx.mailer.send({ to: email, ...message });
-    return { user: publicUser(user), mail: { sent: true } };
+    await ctx.mailer.send({ to: user.email, ...message });
+    return { sent: true };
   } catch (err) {
-    return { user: publicUser(user), mail: { sent: false, error: `The invitation is saved but the e-mail could not be sent: ${(err as Error).message}` } };
+    return { sent: false, error: `The invitation is saved but the e-mail could not be sent: ${(err as Error).message}` };
   }
+}
+
+/**
+ * Sends a pending or lapsed invitation again, valid `invitationDays` from now (audited).
+ * Someone who has already signed in needs no invitation.
+ */
+export async function resendInvitation(
+  ctx: Pick<AppContext, 'db' | 'config' | 'mailer'>,
+  caller: Caller,
+  id: number,
+): Promise<{ user: PublicUser; mail: { sent: boolean; error?: string } }> {
+  const { invitationDays } = await getSettings(ctx.db);
+  const user = await ctx.db.transaction(async (trx) => {
+    const before = await store.findById(trx, id);
+    if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
+    if (before.lastSignInAt) throw new AppError(409, 'already_signed_in', `${before.email} has already signed in; there is no invitation to re-send.`, { id });
+    if (!before.active) throw new AppError(409, 'deactivated', `${before.email} is deactivated: reactivate them first.`, { id });
+    // The first admin and the demo accounts were never sent an invitation, and never lapse.
+    if (!before.invitedAt) throw new AppError(409, 'no_invitation', `${before.email} was not invited by e-mail; there is no invitation to re-send.`, { id });
+    const after = await store.renewInvitation(trx, id, caller.id, invitationDays);
+    await audit.record(trx, { ...actor(caller), action: 'person.invitation_resend', targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
+    return after;
+  });
+  return { user: publicUser(user), mail: await sendInvitation(ctx, user, caller) };
+}
+
+/**
+ * Forgets the Google identity a person is pinned to (their mailbox moved to a new Google
+ * account, say): the next sign-in with their address pins the new one. Their sessions end
+ * at once. Audited with before and after.
+ */
+export async function resetIdentity(db: Knex, caller: Caller, id: number): Promise<PublicUser> {
+  return db.transaction(async (trx) => {
+    const before = await store.findById(trx, id);
+    if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
+    if (before.googleSub === null) throw new AppError(409, 'identity_not_pinned', `${before.email} is not pinned to a Google identity yet.`, { id });
+    const after = await store.clearGoogleSub(trx, id);
+    await store.endSessions(trx, id);
+    await audit.record(trx, { ...actor(caller), action: 'person.identity_reset', targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
+    return publicUser(after);
+  });
 }
 
 export async function updatePerson(
@@ -85,7 +152,7 @@ export async function updatePerson(
     const after = await store.update(trx, id, patch);
     if (patch.active === false) {
       // End their sessions at once.
-      await trx.raw(`DELETE FROM session WHERE sess->'passport'->>'user' = ?`, [String(id)]);
+      await store.endSessions(trx, id);
     }
     const action = patch.active === false ? 'person.deactivate' : patch.active === true ? 'person.reactivate' : 'person.update';
     await audit.record(trx, { ...actor(caller), action, targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });

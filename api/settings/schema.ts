@@ -35,6 +35,7 @@ export const SettingsSchema = z.object({
     .min(7)
     .max(3650)
     .describe('Days an alert nobody has read stays in feeds before the nightly retention job deletes it'),
+  invitationDays: z.number().int().min(1).max(365).describe('Days an invitation may be used before it lapses (re-sending renews it)'),
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 
@@ -52,4 +53,5 @@ export const DEFAULT_SETTINGS: Settings = {
   // unread alerts spans four quarterly runs (common practice, no standard).
   sentMailRetentionDays: 90,
   unreadAlertRetentionDays: 365,
+  invitationDays: 14,
 };

@@ -42,7 +42,8 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/uploads',
-      allow: SIGNED_IN,
+      // Staff only: failed previews quote old and new values and the uploader's address.
+      allow: STAFF,
       tag: 'uploads',
       summary: 'Upload history, newest first (files, the demo seed, reverts, derived recomputations)',
       schemas: { query: uploadListQuery },
@@ -51,7 +52,7 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/uploads/:id',
-      allow: SIGNED_IN,
+      allow: STAFF,
       tag: 'uploads',
       summary: 'One upload with its preview and problems',
       schemas: { params: uploadIdParams },

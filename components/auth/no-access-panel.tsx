@@ -12,6 +12,23 @@ const REASONS: Record<string, { title: string; message: string }> = {
     title: 'This account has been deactivated',
     message: 'An administrator switched this account off. Ask one of them if you still need access.',
   },
+  email_unverified: {
+    title: 'This Google account’s address is not verified',
+    message: 'Google does not confirm that this account owns its e-mail address. Verify the address with Google, or sign in with the account your invitation was sent to.',
+  },
+  wrong_domain: {
+    title: 'This account is outside the agency’s domain',
+    message: 'Crestwatch accepts only the agency’s own Google accounts here. Sign in with your work account.',
+  },
+  identity_mismatch: {
+    title: 'This address belongs to another Google account',
+    message:
+      'The address was first used from a different Google account, and Crestwatch keeps to that one. If your account really changed, ask an administrator to reset your Google identity on the People screen.',
+  },
+  invitation_expired: {
+    title: 'This invitation has expired',
+    message: 'Invitations can be used for a limited number of days. Ask an administrator to send yours again.',
+  },
 };
 
 const UNKNOWN = {

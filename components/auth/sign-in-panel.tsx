@@ -7,6 +7,7 @@ import { colors, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { TextLink } from '@/components/ui/text-link';
 import type { AuthOptionsResponse, MeResponse } from '@/lib/api-types';
+import { SESSION_END_TITLES, sessionEndReason } from '@/lib/session-end';
 
 import { QueryErrorPanel } from '../state/query-error-panel';
 
@@ -33,6 +34,7 @@ export function SignInPanel({ options, me, errorCode, onContinue }: SignInPanelP
     );
   }
   const problem = errorCode ? (SIGN_IN_ERRORS[errorCode] ?? SIGN_IN_ERRORS.failed) : null;
+  const ended = me.status === 'error' ? sessionEndReason(me.error) : null;
   return (
     <View style={styles.wrap} testID="sign-in">
       <Text role="heading" aria-level={1} style={styles.title}>
@@ -42,6 +44,9 @@ export function SignInPanel({ options, me, errorCode, onContinue }: SignInPanelP
         District series, thresholds and alerts are open to the agency’s invited staff. Sign in with the
         account your invitation was sent to.
       </Text>
+      {ended && !problem ? (
+        <StatePanel title={SESSION_END_TITLES[ended]} message={(me.error as Error).message} testID={`sign-in-session-${ended}`} />
+      ) : null}
       {problem ? (
         <StatePanel tone="alert" title="Sign-in did not work" message={problem} testID="sign-in-problem" />
       ) : null}

@@ -2,11 +2,14 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import { radius, space, toneColors, type } from '@/components/theme';
 import { ApiError } from '@/lib/api-client';
+import { SESSION_END_CHANGE_WORDS, sessionEndReason } from '@/lib/session-end';
 
 /** Words for a failed change: the server's own message for refusals (403, 409, 422). */
 export function describeSendError(error: unknown): string {
   if (error instanceof ApiError) {
     if (error.status === 0) return 'The Crestwatch server could not be reached. Nothing was changed; try again.';
+    const ended = sessionEndReason(error);
+    if (ended) return SESSION_END_CHANGE_WORDS[ended];
     if (error.status === 401) return 'Your session has ended. Sign in again, then repeat the change.';
     if (error.status === 403 && error.code !== 'csrf_failed') return `Not allowed for your role: ${error.message}`;
     if (error.isClientError) return error.message;

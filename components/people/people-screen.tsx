@@ -11,6 +11,7 @@ import { colors, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import type { InviteAnswer, InviteInput, Person, PersonPatch } from '@/lib/types/people';
 
+import { InvitationDays } from './invitation-days';
 import { InviteForm } from './invite-form';
 import { PersonCard } from './person-card';
 
@@ -20,12 +21,17 @@ export type PeopleScreenProps = {
   demo: boolean;
   onInvite: (input: InviteInput) => Promise<InviteAnswer>;
   onChange: (id: number, patch: PersonPatch) => Promise<unknown>;
+  onResend?: (id: number) => Promise<unknown>;
+  onResetIdentity?: (id: number) => Promise<unknown>;
+  /** The `invitationDays` setting (null while loading); omit both to hide the control. */
+  invitationDays?: number | null;
+  onInvitationDays?: (days: number) => Promise<unknown>;
 };
 
 type Show = 'current' | 'all' | 'deactivated';
 
-/** Who has access: invite people with a role, change roles, switch people off. */
-export function PeopleScreen({ people, selfId, demo, onInvite, onChange }: PeopleScreenProps) {
+/** Who has access: invite people with a role, re-send lapsed invitations, change roles, reset a Google identity, switch people off. */
+export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResend, onResetIdentity, invitationDays, onInvitationDays }: PeopleScreenProps) {
   const [show, setShow] = useState<Show>('current');
   const rows = useMemo(() => {
     const all = people.data ?? [];
@@ -42,6 +48,7 @@ export function PeopleScreen({ people, selfId, demo, onInvite, onChange }: Peopl
             <TextLink href="/mailbox" label="Read them in the mailbox" />
           </View>
         ) : null}
+        {onInvitationDays && invitationDays !== undefined ? <InvitationDays days={invitationDays} onSave={onInvitationDays} /> : null}
       </Section>
       <Section title="People with access">
         <ChoiceGroup
@@ -63,7 +70,14 @@ export function PeopleScreen({ people, selfId, demo, onInvite, onChange }: Peopl
         ) : (
           <View style={styles.grid} testID="people-list">
             {rows.map((p) => (
-              <PersonCard key={p.id} person={p} isSelf={String(p.id) === String(selfId)} onChange={(patch) => onChange(p.id, patch)} />
+              <PersonCard
+                key={p.id}
+                person={p}
+                isSelf={String(p.id) === String(selfId)}
+                onChange={(patch) => onChange(p.id, patch)}
+                onResend={onResend ? () => onResend(p.id) : undefined}
+                onResetIdentity={onResetIdentity ? () => onResetIdentity(p.id) : undefined}
+              />
             ))}
           </View>
         )}

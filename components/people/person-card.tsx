@@ -14,6 +14,7 @@ import type { Person, PersonPatch, PersonStatus } from '@/lib/types/people';
 const STATUS: Record<PersonStatus, { label: string; tone: Tone }> = {
   active: { label: 'Active', tone: 'success' },
   invited: { label: 'Invited, not signed in yet', tone: 'warning' },
+  expired: { label: 'Invitation expired', tone: 'danger' },
   deactivated: { label: 'Deactivated', tone: 'neutral' },
 };
 
@@ -24,20 +25,38 @@ export type PersonCardProps = {
   /** The signed-in admin: they may not switch themselves off here. */
   isSelf: boolean;
   onChange: (patch: PersonPatch) => Promise<unknown>;
+  /** Sends a pending or lapsed invitation again (new expiry). */
+  onResend?: () => Promise<unknown>;
+  /** Forgets the Google identity the account is pinned to. */
+  onResetIdentity?: () => Promise<unknown>;
 };
 
-/** One person: status, role (changeable), deactivate or reactivate. */
-export function PersonCard({ person, isSelf, onChange }: PersonCardProps) {
+/** The line under the name: last sign-in, or the invitation and when it lapses. */
+function metaLine(person: Person): string {
+  if (person.lastSignInAt) return `Last signed in ${formatDate(person.lastSignInAt)}`;
+  if (person.invitedAt) {
+    const expires = person.invitationExpiresAt;
+    if (!expires) return `Invited ${formatDate(person.invitedAt)}`;
+    return `Invited ${formatDate(person.invitedAt)} · ${person.status === 'expired' ? 'expired' : 'expires'} ${formatDate(expires)}`;
+  }
+  return `Added ${formatDate(person.createdAt)}`;
+}
+
+/** One person: status, role (changeable), re-send an invitation, reset the Google identity, deactivate or reactivate. */
+export function PersonCard({ person, isSelf, onChange, onResend, onResetIdentity }: PersonCardProps) {
   const [state, setState] = useState<{ busy: string | null; error?: unknown; success?: string }>({ busy: null });
-  const act = async (what: string, patch: PersonPatch, success: string) => {
+  const run = async (what: string, call: () => Promise<unknown>, success: string) => {
     setState({ busy: what });
     try {
-      await onChange(patch);
+      await call();
       setState({ busy: null, success });
     } catch (error) {
       setState({ busy: null, error });
     }
   };
+  const act = (what: string, patch: PersonPatch, success: string) => run(what, () => onChange(patch), success);
+  // Only a real invitation (sent by e-mail) can be re-sent: the first admin and demo accounts have none.
+  const pending = person.active && !person.lastSignInAt && person.invitedAt !== null && (person.status === 'invited' || person.status === 'expired');
   const status = STATUS[person.status];
   const who = person.name || person.email;
   return (
@@ -52,8 +71,8 @@ export function PersonCard({ person, isSelf, onChange }: PersonCardProps) {
         </View>
         <Pill label={status.label} tone={status.tone} testID={`person-status-${person.id}`} />
       </View>
-      <Text style={styles.meta}>
-        {person.lastSignInAt ? `Last signed in ${formatDate(person.lastSignInAt)}` : person.invitedAt ? `Invited ${formatDate(person.invitedAt)}` : `Added ${formatDate(person.createdAt)}`}
+      <Text style={styles.meta} testID={`person-meta-${person.id}`}>
+        {metaLine(person)}
       </Text>
       <ChoiceGroup
         label="Role"
@@ -64,6 +83,29 @@ export function PersonCard({ person, isSelf, onChange }: PersonCardProps) {
         testID={`person-role-${person.id}`}
       />
       <View style={styles.actions}>
+        {pending && onResend ? (
+          <Button
+            label="Re-send invitation"
+            variant="outline"
+            busy={state.busy === 'resend'}
+            busyLabel="Sending…"
+            disabled={state.busy !== null}
+            onPress={() => void run('resend', onResend, `The invitation to ${person.email} is sent again.`)}
+            testID={`person-resend-${person.id}`}
+          />
+        ) : null}
+        {person.identityPinned && onResetIdentity && !isSelf ? (
+          <ConfirmAction
+            label="Reset Google identity"
+            question={`Forget the Google account ${who} signs in with? Their sessions end; the next Google account that signs in with ${person.email} is kept instead. Do this only when their account really changed.`}
+            confirmLabel="Reset identity"
+            variant="danger"
+            busy={state.busy === 'identity'}
+            busyLabel="Resetting…"
+            onConfirm={() => void run('identity', onResetIdentity, `The next Google account that signs in as ${person.email} is kept for ${who}.`)}
+            testID={`person-reset-identity-${person.id}`}
+          />
+        ) : null}
         {person.active ? (
           isSelf ? null : (
             <ConfirmAction

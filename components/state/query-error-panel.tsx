@@ -1,6 +1,7 @@
 import { Button } from '@/components/ui/button';
 import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
+import { SESSION_END_TITLES, sessionEndReason } from '@/lib/session-end';
 
 import { StatePanel } from './state-panel';
 
@@ -29,6 +30,14 @@ export function describeLoadError(error: unknown): string {
  * A 401 means nobody is signed in: the way out is the sign-in page, not a retry.
  */
 export function QueryErrorPanel({ what, error, onRetry, retrying = false, testID }: QueryErrorPanelProps) {
+  const ended = sessionEndReason(error);
+  if (ended) {
+    return (
+      <StatePanel testID={testID ? `${testID}-session-ended` : undefined} title={SESSION_END_TITLES[ended]} message={(error as ApiError).message}>
+        <TextLink href="/sign-in" label="Sign in again" />
+      </StatePanel>
+    );
+  }
   if (error instanceof ApiError && error.status === 401) {
     return (
       <StatePanel

@@ -1,7 +1,7 @@
 // Shapes of the people, audit and mailbox APIs (api/people, api/audit, api/mail).
 import type { Role } from '@/lib/roles';
 
-export type PersonStatus = 'active' | 'invited' | 'deactivated';
+export type PersonStatus = 'active' | 'invited' | 'expired' | 'deactivated';
 
 export type Person = {
   id: number;
@@ -13,6 +13,10 @@ export type Person = {
   createdAt: string;
   lastSignInAt: string | null;
   invitedAt: string | null;
+  /** When an unused invitation lapses; null for accounts never sent one. */
+  invitationExpiresAt?: string | null;
+  /** Whether the account is pinned to a Google identity (set at the first sign-in). */
+  identityPinned?: boolean;
 };
 
 export type PeopleResponse = { people: Person[] };

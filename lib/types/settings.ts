@@ -9,6 +9,8 @@ export type Settings = {
   briefPaperSize: 'A4' | 'LETTER';
   scheduleCron: string;
   scheduleEnabled: boolean;
+  /** Days an invitation can be used (default 14); edited on the People screen. */
+  invitationDays?: number;
 };
 
 export type Schedule = { cron: string; timeZone: string; enabled: boolean; nextRunAt: string | null };

@@ -95,6 +95,22 @@ describe('route table', () => {
   });
 });
 
+describe('upload history and previews', () => {
+  // Failed previews quote old and new values and the uploader's address: staff only.
+  it.each(['/api/uploads', '/api/uploads/:id'])('%s is declared for admins and analysts only', (path) => {
+    const r = app.locals.routes.find((x) => x.method === 'get' && x.path === path)!;
+    expect(r.allow).toEqual(['admin', 'analyst']);
+  });
+
+  it('refuses an official with 403 and lets an analyst read', async () => {
+    const official = await sessions.get('official')!.agent.get('/api/uploads');
+    expect(official.status).toBe(403);
+    expect(official.body.error.code).toBe('forbidden');
+    expect((await sessions.get('official')!.agent.get('/api/uploads/1')).status).toBe(403);
+    expect((await sessions.get('analyst')!.agent.get('/api/uploads')).status).toBe(200);
+  });
+});
+
 describe('role matrix', () => {
   // Read from the live table inside the test, so a new route is always included.
   it('answers every route for every persona as the table says', async () => {

@@ -96,9 +96,9 @@ describe('the bad-input corpus', () => {
   });
 
   it('records refused files as failed uploads with their problems', async () => {
-    const failed = await w.official.get('/api/uploads?status=failed&limit=200');
+    const failed = await w.analyst.get('/api/uploads?status=failed&limit=200');
     expect(failed.body.uploads.length).toBeGreaterThanOrEqual(files.length);
-    const one = await w.official.get(`/api/uploads/${failed.body.uploads[0].id}`);
+    const one = await w.analyst.get(`/api/uploads/${failed.body.uploads[0].id}`);
     expect(one.body.upload.status).toBe('failed');
     expect(one.body.problems.length).toBeGreaterThan(0);
   });

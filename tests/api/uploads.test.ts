@@ -213,14 +213,16 @@ describe('formats and options', () => {
     expect(res.body.upload.counts).toMatchObject({ change: 1, unchanged: 1, warnings: 1 });
   });
 
-  it('lets officials read the upload history but not upload', async () => {
-    const list = await w.official.get('/api/uploads?limit=5');
+  it('keeps the upload history and uploads from officials; analysts read the history', async () => {
+    const list = await w.analyst.get('/api/uploads?limit=5');
     expect(list.status).toBe(200);
     expect(list.body.uploads).toHaveLength(5);
     expect(list.body.nextBefore).toBe(list.body.uploads[4].id);
+    expect((await w.official.get('/api/uploads?limit=5')).status).toBe(403);
+    expect((await w.official.get(`/api/uploads/${list.body.uploads[0].id}`)).status).toBe(403);
     const denied = await upload(w.official, 'district_code,indicator,year,value\nD01,population,2025,1\n', 'x.csv');
     expect(denied.status).toBe(403);
-    const seed = (await w.official.get('/api/uploads?limit=200')).body.uploads.find((u: { kind: string }) => u.kind === 'seed');
+    const seed = (await w.analyst.get('/api/uploads?limit=200')).body.uploads.find((u: { kind: string }) => u.kind === 'seed');
     expect(seed).toMatchObject({ status: 'committed', version: 1, canRevert: false, counts: { insert: seeded.observations.length } });
   });
 });
@@ -245,7 +247,7 @@ describe('kept previews and earlier versions', () => {
     const res = await w.analyst.post(`/api/uploads/${dry.body.upload.id}/commit`);
     expect(res.status).toBe(410);
     expect(res.body.error.code).toBe('preview_expired');
-    expect((await w.official.get(`/api/uploads/${dry.body.upload.id}`)).body.upload.canCommit).toBe(false);
+    expect((await w.analyst.get(`/api/uploads/${dry.body.upload.id}`)).body.upload.canCommit).toBe(false);
   });
 
   it('shows a district as of an earlier data version', async () => {

@@ -74,6 +74,54 @@ describe('people', () => {
     expect(screen.getByTestId('person-deactivate-2')).toBeTruthy();
   });
 
+  it('shows a lapsed invitation as expired and re-sends it', async () => {
+    const lapsed = person({ id: 3, email: 'late@crestwatch.example', name: '', status: 'expired', lastSignInAt: null, invitedAt: '2026-11-01T00:00:00.000Z', invitationExpiresAt: '2026-11-15T00:00:00.000Z', identityPinned: false });
+    // A demo account that never signed in was never sent an invitation: nothing to re-send.
+    const demoAccount = person({ id: 4, email: 'official@crestwatch.example', status: 'invited', lastSignInAt: null, invitedAt: null, invitationExpiresAt: null });
+    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people: [...people, lapsed, demoAccount] } }));
+    mockedSend.mockResolvedValueOnce({ user: { ...lapsed, status: 'invited', invitationExpiresAt: '2026-12-18T00:00:00.000Z' }, mail: { sent: true } });
+    renderStaff('/people');
+    expect(await screen.findByText('Invitation expired')).toBeTruthy();
+    expect(screen.getByTestId('person-meta-3').props.children).toMatch(/^Invited .* · expired /);
+    // Someone who has signed in has nothing to re-send.
+    expect(screen.queryByTestId('person-resend-2')).toBeNull();
+    expect(screen.queryByTestId('person-resend-4')).toBeNull();
+    fireEvent.press(screen.getByTestId('person-resend-3'));
+    expect(await screen.findByText('The invitation to late@crestwatch.example is sent again.')).toBeTruthy();
+    expect(mockedSend).toHaveBeenCalledWith('POST', '/api/people/3/invitation', expect.anything());
+  });
+
+  it('resets a pinned Google identity only after confirming', async () => {
+    const pinned = [people[0], person({ identityPinned: true })];
+    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people: pinned } }));
+    mockedSend.mockResolvedValueOnce({ person: person({ identityPinned: false }) });
+    renderStaff('/people');
+    fireEvent.press(await screen.findByTestId('person-reset-identity-2'));
+    expect(mockedSend).not.toHaveBeenCalled();
+    fireEvent.press(await screen.findByTestId('person-reset-identity-2-confirm'));
+    expect(await screen.findByText('The next Google account that signs in as analyst@crestwatch.example is kept for Demo analyst.')).toBeTruthy();
+    expect(mockedSend).toHaveBeenCalledWith('POST', '/api/people/2/identity-reset', expect.anything());
+    // Not offered for an account with no pinned identity, nor for the admin themself.
+    expect(screen.queryByTestId('person-reset-identity-1')).toBeNull();
+  });
+
+  it('changes how long invitations can be used (the invitationDays setting)', async () => {
+    const withDays = { ...settingsAnswer, settings: { ...settingsAnswer.settings, invitationDays: 14 } };
+    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people }, '/api/settings': withDays }));
+    mockedSend.mockResolvedValueOnce({ ...withDays, settings: { ...withDays.settings, invitationDays: 30 } });
+    renderStaff('/people');
+    const input = await screen.findByTestId('invitation-days-input');
+    await waitFor(() => expect(input.props.value).toBe('14'));
+    fireEvent.changeText(input, '0');
+    fireEvent.press(screen.getByTestId('invitation-days-save'));
+    expect(await screen.findByText('A whole number of days from 1 to 365.')).toBeTruthy();
+    expect(mockedSend).not.toHaveBeenCalled();
+    fireEvent.changeText(input, '30');
+    fireEvent.press(screen.getByTestId('invitation-days-save'));
+    expect(await screen.findByText('New and re-sent invitations can be used for 30 days.')).toBeTruthy();
+    expect(mockedSend).toHaveBeenCalledWith('PATCH', '/api/settings', expect.objectContaining({ json: { invitationDays: 30 } }));
+  });
+
   it('shows a 403 plainly', async () => {
     mockedGet.mockImplementation(answerWith({ '/api/me': me('admin'), '/api/people': new ApiError(403, 'forbidden', 'This needs the admin role.') }));
     renderStaff('/people');

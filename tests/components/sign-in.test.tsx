@@ -56,6 +56,44 @@ describe('signing in', () => {
     expect(screen.queryByText(/Demo mode/)).toBeNull();
   });
 
+  it.each([
+    ['idle', 'Your session ended after 30 minutes without activity. Sign in again.', 'Signed out after a while without activity'],
+    ['lifetime', 'Sessions last at most 12 hours. Sign in again.', 'Your session reached its time limit'],
+  ])('says the session ended (%s) on the sign-in screen', async (reason, message, title) => {
+    mockedGet.mockImplementation(
+      answerWith({
+        '/api/auth/options': { provider: 'google', signInUrl: '/api/auth/google' },
+        '/api/me': new ApiError(401, 'session_expired', message, { reason }),
+      }),
+    );
+    renderApp('/sign-in');
+    expect(await screen.findByTestId(`sign-in-session-${reason}`)).toBeTruthy();
+    expect(screen.getByText(title)).toBeTruthy();
+    expect(screen.getByText(message)).toBeTruthy();
+    expect(screen.getByText('Continue to sign-in')).toBeTruthy();
+  });
+
+  it('says an idle session ended where a list failed to load, with a way to sign in again', async () => {
+    const message = 'Your session ended after 30 minutes without activity. Sign in again.';
+    mockedGet.mockImplementation(answerWith({ '/api/districts': new ApiError(401, 'session_expired', message, { reason: 'idle' }) }));
+    const app = renderApp('/');
+    expect(await screen.findByText('Signed out after a while without activity')).toBeTruthy();
+    expect(screen.getByText(message)).toBeTruthy();
+    fireEvent.press(screen.getByLabelText('Sign in again'));
+    await waitFor(() => expect(app.getPathname()).toBe('/sign-in'));
+  });
+
+  it.each([
+    ['identity_mismatch', 'This address belongs to another Google account'],
+    ['invitation_expired', 'This invitation has expired'],
+    ['email_unverified', 'This Google account’s address is not verified'],
+    ['wrong_domain', 'This account is outside the agency’s domain'],
+  ])('explains the refusal %s', async (reason, title) => {
+    mockedGet.mockImplementation(answerWith({}));
+    renderApp(`/no-access?reason=${reason}`);
+    expect(await screen.findByText(title)).toBeTruthy();
+  });
+
   it('says why access was refused', async () => {
     mockedGet.mockImplementation(answerWith({}));
     renderApp('/no-access?reason=not_invited');

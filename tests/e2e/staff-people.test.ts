@@ -86,6 +86,42 @@ it('refuses an address that already has access, in the server’s words', async 
   }
 });
 
+it('shows a lapsed invitation as expired, re-sends it, and resets a pinned Google identity after asking', async () => {
+  // The invitation lapsed: its stored expiry is moved into the past (the database clock cannot be moved).
+  const [inviter] = await h.t.db('users').where({ email: DEMO.admin }).select('id');
+  const [late] = await h.t
+    .db('users')
+    .insert({ email: 'late.official@crestwatch.example', role: 'official', invited_by: inviter.id, invited_at: new Date(Date.now() - 20 * 86_400_000), invitation_expires_at: new Date(Date.now() - 86_400_000) })
+    .returning('id');
+  const { context, page } = await h.newPage(VIEWPORTS.laptop);
+  try {
+    // The analyst signs in once, which pins their Google identity.
+    const analyst = await h.newPage(VIEWPORTS.laptop);
+    await signIn(analyst.page, h.baseUrl, DEMO.analyst);
+    await analyst.context.close();
+    const [{ id: analystId }] = await h.t.db('users').where({ email: DEMO.analyst }).select('id');
+
+    await signIn(page, h.baseUrl, DEMO.admin);
+    await page.goto(`${h.baseUrl}/people`);
+    await page.getByTestId('people-list').waitFor();
+    expect(await page.getByTestId(`person-status-${late.id}`).innerText()).toBe('Invitation expired');
+    await page.getByTestId(`person-resend-${late.id}`).click();
+    await page.getByTestId(`person-${late.id}-ok`).waitFor();
+    await page.getByText('Invited, not signed in yet').first().waitFor();
+    expect(await page.getByTestId(`person-status-${late.id}`).innerText()).toBe('Invited, not signed in yet');
+    expect(await page.getByTestId(`person-meta-${late.id}`).innerText()).toMatch(/ · expires /);
+
+    await page.getByTestId(`person-reset-identity-${analystId}`).click();
+    await page.getByTestId(`person-reset-identity-${analystId}-confirm`).click();
+    await page.getByTestId(`person-${analystId}-ok`).waitFor();
+    await h.shot(page, 'staff-laptop-people-lapsed');
+    expect((await h.t.db('users').where({ id: analystId }).first()).google_sub).toBeNull();
+    expect(await h.t.db('audit_log').where({ action: 'person.identity_reset', target_id: String(analystId) }).first()).toBeDefined();
+  } finally {
+    await context.close();
+  }
+});
+
 it('sends no request beyond 127.0.0.1', () => {
   expect(offLoopback(h.requests)).toEqual([]);
 });
