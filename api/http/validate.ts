@@ -46,5 +46,5 @@ export function inputOf<P extends z.ZodType, Q extends z.ZodType, B extends z.Zo
   return res.locals.input as Parsed<P, Q, B>;
 }
 
-/** Path parameters `{ id }` of a numeric resource id, shared by every `/:id` route. */
-export const idParams = z.object({ id: z.coerce.number().int().positive() });
+/** Kept for the routers that still import it from here; the schema lives in `./params`. */
+export { idParams } from './params';
