@@ -6,7 +6,7 @@
  * districts alone; `reseedDemo` replaces the demo data, its uploads and their history.
  */
 import type { Knex } from 'knex';
-import { OBSERVATIONS_LOCK } from '../uploads/sql';
+import { lockForTransaction } from '../db/locks';
 import { DEMO_INDICATORS } from './catalogue';
 import { DEMO_SEED, generateDemoRegion } from './generate';
 
@@ -31,7 +31,7 @@ async function insertDemo(trx: Knex.Transaction): Promise<{ districts: number; o
     .insert(region.districts)
     .returning(['id', 'code']);
   const districtIds = new Map(districtRows.map((r) => [r.code, r.id]));
-  await trx.raw('SELECT pg_advisory_xact_lock(?)', [OBSERVATIONS_LOCK]);
+  await lockForTransaction(trx, 'observations');
   const [{ version }] = (await trx.raw(`SELECT coalesce(max(version), 0) + 1 AS version FROM uploads`)).rows;
   const [{ id: uploadId }] = await trx('uploads')
     .insert({
@@ -59,7 +59,7 @@ async function insertDemo(trx: Knex.Transaction): Promise<{ districts: number; o
 export async function seedDemoIfEmpty(db: Knex): Promise<{ seeded: boolean; districts: number; observations: number }> {
   return db.transaction(async (trx) => {
     // Serialise concurrent starters on one advisory lock.
-    await trx.raw('SELECT pg_advisory_xact_lock(20261201)');
+    await lockForTransaction(trx, 'demoSeed');
     const [{ count }] = await trx('districts').count<{ count: string }[]>({ count: '*' });
     if (Number(count) > 0) return { seeded: false, districts: Number(count), observations: 0 };
     return { seeded: true, ...(await insertDemo(trx)) };
@@ -68,7 +68,7 @@ export async function seedDemoIfEmpty(db: Knex): Promise<{ seeded: boolean; dist
 
 export async function reseedDemo(db: Knex): Promise<{ districts: number; observations: number }> {
   return db.transaction(async (trx) => {
-    await trx.raw('SELECT pg_advisory_xact_lock(20261201)');
+    await lockForTransaction(trx, 'demoSeed');
     // Runs (with their estimates, alerts and mail) describe the old data: they go too.
     await trx('outbox').del();
     await trx('runs').del();

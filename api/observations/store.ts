@@ -9,11 +9,6 @@ export interface SeriesRow {
   uploadId: number | null;
 }
 
-export async function findDistrict(db: Knex, code: string): Promise<{ id: number; code: string; name: string } | null> {
-  const row = await db('districts').where({ code }).first('id', 'code', 'name');
-  return row ?? null;
-}
-
 export async function latestVersion(db: Knex): Promise<number> {
   const { rows } = await db.raw(`SELECT coalesce(max(version), 0)::int AS v FROM uploads`);
   return rows[0].v;
