@@ -21,7 +21,15 @@ export interface InsertedAlert {
 export async function insertAlerts(db: Knex, alerts: NewAlert[]): Promise<InsertedAlert[]> {
   if (!alerts.length) return [];
   const rows = await db('alerts')
-    .insert(alerts.map((a) => ({ run_id: a.runId, previous_run_id: a.previousRunId, district_id: a.districtId, kind: a.kind, details: JSON.stringify(a.details) })))
+    .insert(
+      alerts.map((a) => ({
+        run_id: a.runId,
+        previous_run_id: a.previousRunId,
+        district_id: a.districtId,
+        kind: a.kind,
+        details: JSON.stringify(a.details),
+      })),
+    )
     .onConflict(['run_id', 'district_id', 'kind'])
     .ignore()
     .returning(['id', 'district_id', 'kind', 'details']);
@@ -45,7 +53,11 @@ export interface FeedRow {
 }
 
 /** The alerts a person's subscriptions cover (optionally one district's), newest first. */
-export async function feedFor(db: Knex, userId: number, opts: { districtCode?: string; limit: number; unreadOnly?: boolean }): Promise<FeedRow[]> {
+export async function feedFor(
+  db: Knex,
+  userId: number,
+  opts: { districtCode?: string; limit: number; unreadOnly?: boolean },
+): Promise<FeedRow[]> {
   const rows = await db.raw(
     `SELECT a.id, a.run_id, a.kind, a.details, a.created_at, d.code, d.name, (r.alert_id IS NOT NULL) AS read
        FROM alerts a
@@ -76,7 +88,10 @@ export async function listForDistrict(db: Knex, code: string, limit: number) {
   const rows = await db('alerts as a')
     .join('districts as d', 'd.id', 'a.district_id')
     .where('d.code', code)
-    .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }])
+    .orderBy([
+      { column: 'a.created_at', order: 'desc' },
+      { column: 'a.id', order: 'desc' },
+    ])
     .limit(limit)
     .select('a.id', 'a.run_id', 'a.kind', 'a.details', 'a.created_at');
   return rows.map((r: Record<string, unknown>) => ({

@@ -37,7 +37,10 @@ function toPublishedRun(r: Record<string, unknown>): PublishedRun {
 export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<PublishedRun | null> {
   const q = db('runs')
     .where({ state: 'published' })
-    .orderBy([{ column: 'published_at', order: 'desc' }, { column: 'id', order: 'desc' }])
+    .orderBy([
+      { column: 'published_at', order: 'desc' },
+      { column: 'id', order: 'desc' },
+    ])
     .first('id', 'published_at', 'spec', 'data_version', 'data_hash', 'software_version', 'pooled');
   if (before) q.where('published_at', '<', before.publishedAt);
   const r = await q;
@@ -80,13 +83,24 @@ export async function estimateRecords(db: Knex, runId: number, districtId: numbe
 }
 
 /** An analyst's note on one district in a run, if any. */
-export async function noteFor(db: Knex, runId: number, districtId: number): Promise<{ note: string; authorEmail: string | null; updatedAt: string } | null> {
-  const r = await db('run_notes').where({ run_id: runId, district_id: districtId }).first('note', 'author_email', 'updated_at');
-  return r ? { note: String(r.note), authorEmail: (r.author_email as string | null) ?? null, updatedAt: iso(r.updated_at)! } : null;
+export async function noteFor(
+  db: Knex,
+  runId: number,
+  districtId: number,
+): Promise<{ note: string; authorEmail: string | null; updatedAt: string } | null> {
+  const r = await db('run_notes')
+    .where({ run_id: runId, district_id: districtId })
+    .first('note', 'author_email', 'updated_at');
+  return r
+    ? { note: String(r.note), authorEmail: (r.author_email as string | null) ?? null, updatedAt: iso(r.updated_at)! }
+    : null;
 }
 
 /** A district's main record in every published run, newest first. */
-export async function publishedHistory(db: Knex, districtId: number): Promise<{ runId: number; publishedAt: string; dataVersion: number; record: EstimateRecord }[]> {
+export async function publishedHistory(
+  db: Knex,
+  districtId: number,
+): Promise<{ runId: number; publishedAt: string; dataVersion: number; record: EstimateRecord }[]> {
   const rows = await db('run_estimates as e')
     .join('runs as r', 'r.id', 'e.run_id')
     .where({ 'e.district_id': districtId, 'e.variant': 'main', 'r.state': 'published' })
@@ -105,7 +119,10 @@ export async function publishedHistory(db: Knex, districtId: number): Promise<{ 
  * (the same fields as service.ts summaryOf), so listing 3,000 districts reads a few hundred
  * bytes per district instead of decoding each full record.
  */
-export async function mainSummaryRows(db: Knex, runId: number): Promise<{ code: string; summary: Record<string, unknown> }[]> {
+export async function mainSummaryRows(
+  db: Knex,
+  runId: number,
+): Promise<{ code: string; summary: Record<string, unknown> }[]> {
   const rows = await db.raw(
     `SELECT d.code, jsonb_build_object(
         'status', r->'status',

@@ -20,6 +20,12 @@ export interface QueuedMail {
 export function enqueue(trx: Knex.Transaction, mails: QueuedMail[]): Promise<number> {
   return store.insertMessages(
     trx,
-    mails.map((m) => ({ dedupeKey: m.dedupeKey, userId: m.userId, runId: m.runId, toAddress: m.to, message: m.message })),
+    mails.map((m) => ({
+      dedupeKey: m.dedupeKey,
+      userId: m.userId,
+      runId: m.runId,
+      toAddress: m.to,
+      message: m.message,
+    })),
   );
 }

@@ -22,7 +22,15 @@ export interface OutboxRow {
 export async function insertMessages(db: Knex, rows: NewOutboxRow[]): Promise<number> {
   if (!rows.length) return 0;
   const inserted = await db('outbox')
-    .insert(rows.map((r) => ({ dedupe_key: r.dedupeKey, user_id: r.userId, run_id: r.runId, to_address: r.toAddress, message: JSON.stringify(r.message) })))
+    .insert(
+      rows.map((r) => ({
+        dedupe_key: r.dedupeKey,
+        user_id: r.userId,
+        run_id: r.runId,
+        to_address: r.toAddress,
+        message: JSON.stringify(r.message),
+      })),
+    )
     .onConflict('dedupe_key')
     .ignore()
     .returning('id');
@@ -39,7 +47,13 @@ export async function claimNextDue(trx: Knex.Transaction): Promise<OutboxRow | n
     .skipLocked()
     .first('id', 'dedupe_key', 'to_address', 'message', 'attempts');
   return row
-    ? { id: Number(row.id), dedupeKey: String(row.dedupe_key), toAddress: String(row.to_address), message: row.message, attempts: Number(row.attempts) }
+    ? {
+        id: Number(row.id),
+        dedupeKey: String(row.dedupe_key),
+        toAddress: String(row.to_address),
+        message: row.message,
+        attempts: Number(row.attempts),
+      }
     : null;
 }
 
@@ -48,7 +62,11 @@ export async function markSent(trx: Knex.Transaction, id: number, attempts: numb
 }
 
 /** Records a failed attempt: pending again after `delaySeconds`, or failed for good. */
-export async function markAttemptFailed(trx: Knex.Transaction, id: number, p: { attempts: number; error: string; giveUp: boolean; delaySeconds: number }): Promise<void> {
+export async function markAttemptFailed(
+  trx: Knex.Transaction,
+  id: number,
+  p: { attempts: number; error: string; giveUp: boolean; delaySeconds: number },
+): Promise<void> {
   await trx('outbox')
     .where({ id })
     .update({
