@@ -55,14 +55,21 @@ const sqlInStores = {
   },
 };
 
-let cached = null;
-/** The whole api/ graph, read once per lint run (the rule needs other files' imports). */
-function apiGraph() {
-  if (!cached) {
-    const edges = graph.crossFolderEdges(graph.readApiSources());
-    cached = { mutual: new Set(graph.mutualPairs(graph.folderGraph(edges))) };
+let edgesByFile = null;
+/**
+ * The folder pairs that import each other, with `apiFile` read from the text being linted
+ * (an editor's unsaved text, or a test's) and every other file from disk, read once per run.
+ */
+function mutualPairsWith(apiFile, text) {
+  if (!edgesByFile) {
+    edgesByFile = new Map();
+    for (const [file, source] of graph.readApiSources())
+      edgesByFile.set(file, graph.crossFolderEdges(new Map([[file, source]])));
   }
-  return cached;
+  const edges = [];
+  for (const [file, fileEdges] of edgesByFile) if (file !== apiFile) edges.push(...fileEdges);
+  edges.push(...graph.crossFolderEdges(new Map([[apiFile, text]])));
+  return new Set(graph.mutualPairs(graph.folderGraph(edges)));
 }
 
 const featureBoundaries = {
@@ -86,13 +93,14 @@ const featureBoundaries = {
     const apiFile = file.slice('api/'.length);
     const fromFolder = apiFile.includes('/') ? apiFile.split('/')[0] : null;
     if (!fromFolder) return {};
+    let mutual = null;
     const check = (node, spec) => {
       if (typeof spec !== 'string' || !spec.startsWith('.')) return;
       const to = graph.resolveSpec(apiFile, spec);
       const toFolder = graph.folderOf(to);
       if (to.startsWith('..') || !toFolder || toFolder === fromFolder) return;
       const edge = { from: apiFile, to, fromFolder, toFolder };
-      const { mutual } = apiGraph();
+      mutual ??= mutualPairsWith(apiFile, context.sourceCode.text);
       const leaf = graph.LEAF_FOLDERS;
       if (leaf.includes(edge.fromFolder) && !leaf.includes(edge.toFolder)) {
         context.report({ node, messageId: 'leaf', data: { from: edge.from, to: edge.to } });
