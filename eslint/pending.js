@@ -9,7 +9,6 @@ const SQL_OUTSIDE_STORES = [
   'api/briefs/export-csv.ts',
   'api/briefs/service.ts',
   'api/demo/initial-run.ts',
-  'api/demo/seed.ts',
   'api/estimate/service.ts',
   'api/people/service.ts',
   'api/runs/jobs.ts',
