@@ -4,10 +4,9 @@
  * past_turn (either way); `threshold_shift` when X* in real units moved more than the set
  * percent; `shape_change`; `significance_change` when the U-test's verdict at α flipped.
  */
-import type { EstimateListRow } from '../runs/store';
+import { ALERT_KINDS, type AlertKind } from '../shared/alert-kinds';
 
-export const ALERT_KINDS = ['crossing', 'threshold_shift', 'shape_change', 'significance_change'] as const;
-export type AlertKind = (typeof ALERT_KINDS)[number];
+export { ALERT_KINDS, type AlertKind };
 
 const TURN_STANDINGS = new Set(['approaching', 'at_turn', 'past_turn']);
 
@@ -18,7 +17,13 @@ export interface DistrictChange {
   significanceChanged: boolean;
 }
 
-type Summary = Pick<EstimateListRow, 'standing' | 'shape' | 'threshold' | 'uTestRejects'>;
+/** The columns of a district's main estimate that two runs are compared on. */
+export interface Summary {
+  standing: string;
+  shape: string | null;
+  threshold: number | null;
+  uTestRejects: boolean | null;
+}
 
 export function districtChange(prev: Summary | null, next: Summary): DistrictChange {
   if (!prev) return { thresholdPercent: null, standingChanged: false, shapeChanged: false, significanceChanged: false };

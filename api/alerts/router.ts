@@ -1,7 +1,6 @@
 import { z } from 'zod';
-import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
-import { districtCode } from '../districts/router';
+import { districtCode, idParams } from '../http/params';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
 

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import { ADMIN, route, type RouteSpec } from '../http/routes';
-import * as store from './store';
+import * as audit from './service';
 
 const query = z.object({
   action: z.string().max(64).optional(),
@@ -22,7 +22,7 @@ export function auditRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'people',
       summary: 'The audit log, newest first, filtered by action, actor, target type and time',
       schemas: { query },
-      handler: async ({ query }) => ({ entries: await store.list(db, query) }),
+      handler: async ({ query }) => ({ entries: await audit.list(db, query) }),
     }),
   ];
 }

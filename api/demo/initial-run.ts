@@ -3,7 +3,7 @@
  * would see no standings. Crestwatch queues one run of the default spec and publishes it
  * in the first admin's name once it reaches review, and says so in the audit log.
  */
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
 import type { AppContext } from '../context';
 import * as users from '../people/store';
 import { publishRun, startRun } from '../runs/service';

@@ -1,27 +1,17 @@
-import { z } from 'zod';
 import type { AppContext } from '../context';
+import { districtParams } from '../http/params';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
 
-export const districtCode = z.string().regex(/^[A-Za-z0-9_-]{1,32}$/, 'a district code is 1–32 letters, digits, _ or -');
-
 export function districtRoutes({ db }: AppContext): RouteSpec[] {
   return [
-    route({
-      method: 'get',
-      path: '/api/districts',
-      allow: SIGNED_IN,
-      tag: 'districts',
-      summary: 'Every district with its years covered, latest values and standing in the latest published run',
-      handler: () => service.listDistricts(db),
-    }),
     route({
       method: 'get',
       path: '/api/districts/:code',
       allow: SIGNED_IN,
       tag: 'districts',
       summary: 'One district with its yearly series (gap years as nulls)',
-      schemas: { params: z.object({ code: districtCode }) },
+      schemas: { params: districtParams },
       handler: ({ params }) => service.getDistrict(db, params.code),
     }),
   ];

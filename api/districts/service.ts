@@ -1,8 +1,30 @@
-/** District summaries and series: the rules (year span, gaps as nulls) live here. */
+/**
+ * District summaries and series: the rules (year span, gaps as nulls) live here. Other
+ * features find a district by code through this service (one lookup, one 404 wording).
+ */
 import type { Knex } from 'knex';
-import { publishedRunMeta, publishedSummaries } from '../estimates/service';
 import { NotFoundError } from '../http/errors';
 import * as store from './store';
+
+export type { DistrictRef } from './store';
+
+/** The district with this code, or a 404 naming the code. */
+export async function districtByCode(db: Knex, code: string): Promise<store.DistrictRef> {
+  const d = await store.findDistrictByCode(db, code);
+  if (!d) throw new NotFoundError(`No district with code ${code}`, { code });
+  return d;
+}
+
+/** The districts with these codes (each once, in the order given), or a 404 naming every missing code. */
+export async function districtsByCodes(db: Knex, codes: string[]): Promise<store.DistrictRef[]> {
+  const wanted = [...new Set(codes)];
+  const found = new Map((await store.findDistrictsByCodes(db, wanted)).map((d) => [d.code, d]));
+  const missing = wanted.filter((c) => !found.has(c));
+  if (missing.length) throw new NotFoundError(`No district with code ${missing.join(', ')}`, { missing });
+  return wanted.map((c) => found.get(c)!);
+}
+
+export const districtNames = (db: Knex) => store.listDistrictNames(db);
 
 /** The indicators every district screen shows, and their field names in the API. */
 export const CORE_INDICATORS = {
@@ -36,15 +58,14 @@ function publicSummary(d: store.DistrictSummaryRow) {
   };
 }
 
-/** Every district with its data span, latest values and its standing in the latest published run. */
-export async function listDistricts(db: Knex) {
-  const [rows, published] = await Promise.all([store.listDistrictSummaries(db), publishedSummaries(db)]);
-  return {
-    publishedRunId: published.run?.id ?? null,
-    /** The run the standings come from (what the region list's header names). */
-    run: published.run ? publishedRunMeta(published.run) : null,
-    districts: rows.map((d) => ({ ...publicSummary(d), estimate: published.byCode.get(d.code) ?? null })),
-  };
+export type DistrictSummary = ReturnType<typeof publicSummary>;
+
+/**
+ * Every district with its data span and latest values, by name. (The list with standings,
+ * `GET /api/districts`, is the published estimates' view: `estimates/service.ts`.)
+ */
+export async function districtSummaries(db: Knex): Promise<DistrictSummary[]> {
+  return (await store.listDistrictSummaries(db)).map(publicSummary);
 }
 
 export async function getDistrict(db: Knex, code: string) {

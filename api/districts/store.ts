@@ -11,6 +11,13 @@ export interface DistrictSummaryRow {
   latest: Record<string, number> | null;
 }
 
+/** A district's identity: its id (for joins), code and name. */
+export interface DistrictRef {
+  id: number;
+  code: string;
+  name: string;
+}
+
 export interface ObservationRow {
   year: number;
   indicator: string;
@@ -71,4 +78,21 @@ export async function listObservations(db: Knex, districtId: number): Promise<Ob
 
 export async function listIndicators(db: Knex, codes: string[]): Promise<IndicatorRow[]> {
   return db('indicators').whereIn('code', codes).orderBy('id').select('code', 'name', 'unit');
+}
+
+export async function findDistrictByCode(db: Knex, code: string): Promise<DistrictRef | null> {
+  const r = await db('districts').where({ code }).first('id', 'code', 'name');
+  return r ? { id: Number(r.id), code: String(r.code), name: String(r.name) } : null;
+}
+
+/** The districts among `codes` that exist (any order). */
+export async function findDistrictsByCodes(db: Knex, codes: string[]): Promise<DistrictRef[]> {
+  if (!codes.length) return [];
+  const rows = await db('districts').whereIn('code', codes).select('id', 'code', 'name');
+  return rows.map((r: Record<string, unknown>) => ({ id: Number(r.id), code: String(r.code), name: String(r.name) }));
+}
+
+/** Every district's code and name, by name. */
+export async function listDistrictNames(db: Knex): Promise<{ code: string; name: string }[]> {
+  return db('districts').orderBy('name').select('code', 'name');
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { districtCode } from '../districts/router';
+import { districtCode } from '../http/params';
 import { CurveRow, ModelSpec } from '../estimation';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';

@@ -1,13 +1,20 @@
-import { z } from 'zod';
 import type { AppContext } from '../context';
-import { districtCode } from '../districts/router';
+import { districtParams } from '../http/params';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
 
-const byCode = { params: z.object({ code: districtCode }) };
+const byCode = { params: districtParams };
 
 export function estimateRoutes({ db }: AppContext): RouteSpec[] {
   return [
+    route({
+      method: 'get',
+      path: '/api/districts',
+      allow: SIGNED_IN,
+      tag: 'districts',
+      summary: 'Every district with its years covered, latest values and standing in the latest published run',
+      handler: () => service.listDistricts(db),
+    }),
     route({
       method: 'get',
       path: '/api/region',

@@ -1,14 +1,17 @@
 /**
- * What officials see: the latest published run only. The region's standings, one
- * district's published estimate with its sensitivity variants, and a district's history
- * across published runs.
+ * What officials see: the latest published run only. The region's standings, the district
+ * list with each standing, one district's published estimate with its sensitivity variants,
+ * and a district's history across published runs. Also what alerts compare between two
+ * published runs.
  */
 import type { Knex } from 'knex';
-import { NotFoundError } from '../http/errors';
+import { districtByCode, districtNames, districtSummaries } from '../districts/service';
 import type { EstimateRecord } from '../runs/estimate-record';
-import * as runs from '../runs/store';
+import * as store from './store';
 
-export function publishedRunMeta(run: runs.RunRow) {
+export type { ComparableEstimate, PublishedRun } from './store';
+
+export function publishedRunMeta(run: store.PublishedRun) {
   return {
     id: run.id,
     publishedAt: run.publishedAt,
@@ -54,23 +57,39 @@ function nullsToDefaults(s: Record<string, unknown>): Record<string, unknown> {
   return out;
 }
 
-export async function latestPublished(db: Knex): Promise<runs.RunRow | null> {
-  return runs.latestPublished(db);
+export async function latestPublished(db: Knex): Promise<store.PublishedRun | null> {
+  return store.latestPublished(db);
+}
+
+/** The main estimates of a run on the columns two runs are compared on (alerts). */
+export function comparableEstimates(db: Knex, runId: number): Promise<store.ComparableEstimate[]> {
+  return store.comparableEstimates(db, runId);
 }
 
 /** Code → summary of the latest published run (for the district list and the region view). */
-export async function publishedSummaries(db: Knex): Promise<{ run: runs.RunRow | null; byCode: Map<string, EstimateSummary> }> {
-  const run = await runs.latestPublished(db);
+export async function publishedSummaries(db: Knex): Promise<{ run: store.PublishedRun | null; byCode: Map<string, EstimateSummary> }> {
+  const run = await store.latestPublished(db);
   if (!run) return { run: null, byCode: new Map() };
-  // Built in SQL (runs/store.ts mainSummaryRows) with the same fields as summaryOf: decoding
+  // Built in SQL (store.ts mainSummaryRows) with the same fields as summaryOf: decoding
   // every full record took over a second for 3,000 districts.
-  const rows = await runs.mainSummaryRows(db, run.id);
+  const rows = await store.mainSummaryRows(db, run.id);
   return { run, byCode: new Map(rows.map((r) => [r.code, nullsToDefaults(r.summary) as EstimateSummary])) };
+}
+
+/** Every district with its data span, latest values and its standing in the latest published run. */
+export async function listDistricts(db: Knex) {
+  const [districts, published] = await Promise.all([districtSummaries(db), publishedSummaries(db)]);
+  return {
+    publishedRunId: published.run?.id ?? null,
+    /** The run the standings come from (what the region list's header names). */
+    run: published.run ? publishedRunMeta(published.run) : null,
+    districts: districts.map((d) => ({ ...d, estimate: published.byCode.get(d.code) ?? null })),
+  };
 }
 
 export async function region(db: Knex) {
   const { run, byCode } = await publishedSummaries(db);
-  const districts = await db('districts').orderBy('name').select('code', 'name');
+  const districts = await districtNames(db);
   const counts: Record<string, number> = {};
   const rows = districts.map((d: { code: string; name: string }) => {
     const estimate = byCode.get(d.code) ?? null;
@@ -89,18 +108,11 @@ export async function region(db: Knex) {
   };
 }
 
-async function districtRow(db: Knex, code: string): Promise<{ id: number; code: string; name: string }> {
-  const d = await db('districts').where({ code }).first('id', 'code', 'name');
-  if (!d) throw new NotFoundError(`No district with code ${code}`, { code });
-  return { id: Number(d.id), code: d.code, name: d.name };
-}
-
 export async function districtEstimate(db: Knex, code: string) {
-  const d = await districtRow(db, code);
-  const run = await runs.latestPublished(db);
+  const d = await districtByCode(db, code);
+  const run = await store.latestPublished(db);
   if (!run) return { district: { code: d.code, name: d.name }, run: null, main: null, variants: [], note: null };
-  const records = await runs.estimateRecords(db, run.id, d.id);
-  const note = (await runs.notesFor(db, run.id)).get(d.id) ?? null;
+  const [records, note] = await Promise.all([store.estimateRecords(db, run.id, d.id), store.noteFor(db, run.id, d.id)]);
   const main = records.find((r) => r.variant === 'main') ?? null;
   const variants = records
     .filter((r) => r.variant !== 'main')
@@ -109,19 +121,10 @@ export async function districtEstimate(db: Knex, code: string) {
 }
 
 export async function districtHistory(db: Knex, code: string) {
-  const d = await districtRow(db, code);
-  const rows = await db('run_estimates as e')
-    .join('runs as r', 'r.id', 'e.run_id')
-    .where({ 'e.district_id': d.id, 'e.variant': 'main', 'r.state': 'published' })
-    .orderBy('r.published_at', 'desc')
-    .select('r.id', 'r.published_at', 'r.data_version', 'e.result');
+  const d = await districtByCode(db, code);
+  const rows = await store.publishedHistory(db, d.id);
   return {
     district: { code: d.code, name: d.name },
-    history: rows.map((r: { id: number; published_at: string; data_version: number; result: EstimateRecord }) => ({
-      runId: Number(r.id),
-      publishedAt: new Date(r.published_at).toISOString(),
-      dataVersion: r.data_version,
-      ...summaryOf(r.result),
-    })),
+    history: rows.map((r) => ({ runId: r.runId, publishedAt: r.publishedAt, dataVersion: r.dataVersion, ...summaryOf(r.record) })),
   };
 }

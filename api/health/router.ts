@@ -1,5 +1,6 @@
 import type { AppContext } from '../context';
 import { route, type RouteSpec } from '../http/routes';
+import { databaseAnswers } from './store';
 
 export function healthRoutes({ db }: AppContext): RouteSpec[] {
   return [
@@ -10,12 +11,7 @@ export function healthRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'system',
       summary: 'The server answers and says whether the database does',
       handler: async (_input, _req, res) => {
-        let database: 'up' | 'down' = 'up';
-        try {
-          await db.raw('SELECT 1');
-        } catch {
-          database = 'down';
-        }
+        const database = (await databaseAnswers(db)) ? 'up' : 'down';
         res.status(database === 'up' ? 200 : 503).json({ status: database === 'up' ? 'ok' : 'degraded', database });
       },
     }),

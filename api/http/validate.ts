@@ -38,5 +38,5 @@ export function validate<P extends z.ZodType = z.ZodAny, Q extends z.ZodType = z
   };
 }
 
-/** Path parameters `{ id }` of a numeric resource id, shared by every `/:id` route. */
-export const idParams = z.object({ id: z.coerce.number().int().positive() });
+/** Kept for the routers that still import it from here; the schema lives in `./params`. */
+export { idParams } from './params';

@@ -6,6 +6,7 @@ import type { Knex } from 'knex';
 import { simpleParser } from 'mailparser';
 import type { AddressInfo } from 'node:net';
 import { SMTPServer } from 'smtp-server';
+import { insertCaughtMail } from './store';
 
 export interface MailCatcher {
   port: number;
@@ -26,17 +27,15 @@ export async function startMailCatcher(db: Knex, port = 0, host = '127.0.0.1'): 
         try {
           const raw = Buffer.concat(chunks);
           const mail = await simpleParser(raw);
-          await db('caught_mail').insert({
-            envelope_from: session.envelope.mailFrom ? session.envelope.mailFrom.address : null,
-            envelope_to: session.envelope.rcptTo.map((r) => r.address),
+          await insertCaughtMail(db, {
+            from: session.envelope.mailFrom ? session.envelope.mailFrom.address : null,
+            to: session.envelope.rcptTo.map((r) => r.address),
             subject: mail.subject ?? '',
-            text_body: mail.text ?? '',
-            html_body: typeof mail.html === 'string' ? mail.html : null,
-            attachments: JSON.stringify(
-              mail.attachments.map((a) => ({ filename: a.filename ?? null, contentType: a.contentType, size: a.size })),
-            ),
-            message_id: mail.messageId ?? null,
-            size_bytes: raw.length,
+            text: mail.text ?? '',
+            html: typeof mail.html === 'string' ? mail.html : null,
+            attachments: mail.attachments.map((a) => ({ filename: a.filename ?? null, contentType: a.contentType, size: a.size })),
+            messageId: mail.messageId ?? null,
+            sizeBytes: raw.length,
           });
           callback();
         } catch (err) {

@@ -1,9 +1,8 @@
 /** A district's stored series, for the data tab and for export. */
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { districtCode } from '../districts/router';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
-import { indicatorCode } from '../indicators/schema';
+import { districtCode, indicatorCode } from '../http/params';
 import * as service from './service';
 
 const params = z.object({ code: districtCode });

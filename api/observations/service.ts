@@ -5,6 +5,7 @@
  * uploaded again.
  */
 import type { Knex } from 'knex';
+import { districtByCode } from '../districts/service';
 import { csvLine } from '../http/csv-escape';
 import { NotFoundError } from '../http/errors';
 import * as store from './store';
@@ -32,8 +33,7 @@ export interface DistrictObservations {
 }
 
 export async function districtObservations(db: Knex, code: string, q: { indicators?: string[]; asOf?: number }): Promise<DistrictObservations> {
-  const district = await store.findDistrict(db, code);
-  if (!district) throw new NotFoundError(`No district with code ${code}`, { code });
+  const district = await districtByCode(db, code);
   const latest = await store.latestVersion(db);
   if (q.asOf !== undefined && q.asOf > latest) throw new NotFoundError(`No data version ${q.asOf}: the latest is ${latest}.`, { asOf: q.asOf, latest });
   const asOf = q.asOf === undefined || q.asOf === latest ? null : q.asOf;

@@ -9,11 +9,6 @@ export interface SeriesRow {
   uploadId: number | null;
 }
 
-export async function findDistrict(db: Knex, code: string): Promise<{ id: number; code: string; name: string } | null> {
-  const row = await db('districts').where({ code }).first('id', 'code', 'name');
-  return row ?? null;
-}
-
 export async function latestVersion(db: Knex): Promise<number> {
   const { rows } = await db.raw(`SELECT coalesce(max(version), 0)::int AS v FROM uploads`);
   return rows[0].v;
@@ -39,5 +34,12 @@ export interface CatalogueRow {
 
 export async function catalogue(db: Knex): Promise<CatalogueRow[]> {
   const rows = await db('indicators').orderBy('id').select('id', 'code', 'name', 'unit', 'must_be_positive', 'derivation');
-  return rows.map((r: Record<string, any>) => ({ id: r.id, code: r.code, name: r.name, unit: r.unit, mustBePositive: r.must_be_positive, derivation: r.derivation }));
+  return rows.map((r: Record<string, unknown>) => ({
+    id: Number(r.id),
+    code: String(r.code),
+    name: String(r.name),
+    unit: String(r.unit),
+    mustBePositive: Boolean(r.must_be_positive),
+    derivation: String(r.derivation),
+  }));
 }

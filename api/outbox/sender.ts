@@ -7,6 +7,7 @@
  */
 import type { AppContext } from '../context';
 import { renderAttachment, type AttachmentSpec } from './attachments';
+import * as store from './store';
 
 export interface OutboxMessage {
   subject: string;
@@ -22,38 +23,29 @@ export async function deliverOutbox(ctx: AppContext, limit = 100): Promise<{ sen
   let failed = 0;
   for (let i = 0; i < limit; i++) {
     const outcome = await ctx.db.transaction(async (trx) => {
-      const row = await trx('outbox')
-        .where('status', 'pending')
-        .where('next_attempt_at', '<=', trx.fn.now())
-        .orderBy('id')
-        .forUpdate()
-        .skipLocked()
-        .first();
+      const row = await store.claimNextDue(trx);
       if (!row) return 'empty' as const;
       const message = row.message as OutboxMessage;
       try {
         const attachments = [];
         for (const spec of message.attachments ?? []) attachments.push(await renderAttachment(ctx, spec));
         await ctx.mailer.send({
-          to: row.to_address,
+          to: row.toAddress,
           subject: message.subject,
           text: message.text,
           attachments,
-          headers: { 'Message-ID': `<outbox-${row.id}-${row.dedupe_key.replace(/[^A-Za-z0-9.-]/g, '-')}@crestwatch.example>` },
+          headers: { 'Message-ID': `<outbox-${row.id}-${row.dedupeKey.replace(/[^A-Za-z0-9.-]/g, '-')}@crestwatch.example>` },
         });
-        await trx('outbox').where({ id: row.id }).update({ status: 'sent', sent_at: trx.fn.now(), attempts: row.attempts + 1, last_error: null });
+        await store.markSent(trx, row.id, row.attempts + 1);
         return 'sent' as const;
       } catch (err) {
         const attempts = row.attempts + 1;
-        const delay = Math.min(ctx.config.mailRetrySeconds * 2 ** (attempts - 1), 3600);
-        await trx('outbox')
-          .where({ id: row.id })
-          .update({
-            attempts,
-            last_error: String((err as Error).message).slice(0, 1000),
-            status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending',
-            next_attempt_at: trx.raw(`now() + make_interval(secs => ?)`, [delay]),
-          });
+        await store.markAttemptFailed(trx, row.id, {
+          attempts,
+          error: String((err as Error).message).slice(0, 1000),
+          giveUp: attempts >= MAX_ATTEMPTS,
+          delaySeconds: Math.min(ctx.config.mailRetrySeconds * 2 ** (attempts - 1), 3600),
+        });
         return 'failed' as const;
       }
     });

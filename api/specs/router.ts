@@ -1,4 +1,4 @@
-import { idParams } from '../http/validate';
+import { idParams } from '../http/params';
 import type { AppContext } from '../context';
 import { callerOf, route, STAFF, type RouteSpec } from '../http/routes';
 import { SavedSpecInput } from './schema';

@@ -1,6 +1,7 @@
 /** Saved model specs: one is the region's default; every change is audited. */
 import type { Knex } from 'knex';
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
+import { lockForTransaction } from '../db/locks';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
 import { DEFAULT_SPEC, type SavedSpec, type SavedSpecInput } from './schema';
@@ -8,7 +9,7 @@ import * as store from './store';
 
 async function checkIndicators(db: Knex, s: SavedSpecInput): Promise<void> {
   const codes = [s.emissionsIndicator, s.driverIndicator, ...s.controls];
-  const known = new Set((await db('indicators').whereIn('code', codes).select('code')).map((r: { code: string }) => r.code));
+  const known = new Set(await store.knownIndicatorCodes(db, codes));
   const unknown = codes.filter((c) => !known.has(c));
   if (unknown.length) throw new AppError(400, 'unknown_indicator', `Unknown indicator: ${unknown.join(', ')}`, { unknown });
   const missing = s.levelControls.filter((c) => !s.controls.includes(c));
@@ -65,7 +66,8 @@ export async function defaultSpec(db: Knex): Promise<SavedSpec> {
   const found = await store.findDefault(db);
   if (found) return found;
   return db.transaction(async (trx) => {
-    await trx.raw('SELECT pg_advisory_xact_lock(20261202)');
+    // Its own lock: creating the default spec must not wait on an upload holding the observations lock.
+    await lockForTransaction(trx, 'defaultSpec');
     return (await store.findDefault(trx)) ?? store.insert(trx, DEFAULT_SPEC, null);
   });
 }

@@ -1,9 +1,8 @@
 import { z } from 'zod';
-import { idParams } from '../http/validate';
-import { ALERT_KINDS } from '../alerts/compare';
 import type { AppContext } from '../context';
-import { districtCode } from '../districts/router';
+import { districtCode, idParams } from '../http/params';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
+import { ALERT_KINDS } from '../shared/alert-kinds';
 import { confirmPage, resultPage } from './pages';
 import * as service from './service';
 

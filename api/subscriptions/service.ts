@@ -1,10 +1,14 @@
 /** Subscriptions to alerts: a district, a set of districts, or the whole region. */
 import type { Knex } from 'knex';
-import { ALERT_KINDS, type AlertKind } from '../alerts/compare';
+import type { Config } from '../config';
+import { districtsByCodes } from '../districts/service';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
+import { ALERT_KINDS, type AlertKind } from '../shared/alert-kinds';
 import * as store from './store';
-import { checkUnsubscribeToken } from './token';
+import { checkUnsubscribeToken, unsubscribeToken } from './token';
+
+export type { SubscriptionRow } from './store';
 
 export interface SubscriptionInput {
   scope: 'district' | 'districts' | 'region';
@@ -33,9 +37,7 @@ export async function subscribe(db: Knex, caller: Caller, input: SubscriptionInp
   if (input.scope === 'region' && codes.length) throw new AppError(400, 'invalid_request', 'A region subscription names no districts.');
   if (input.scope === 'district' && codes.length !== 1) throw new AppError(400, 'invalid_request', 'A district subscription names exactly one district.');
   if (input.scope === 'districts' && codes.length < 1) throw new AppError(400, 'invalid_request', 'Name at least one district.');
-  const found: { id: number; code: string }[] = codes.length ? await db('districts').whereIn('code', codes).select('id', 'code') : [];
-  const missing = codes.filter((c) => !found.some((f) => f.code === c));
-  if (missing.length) throw new NotFoundError(`No district with code ${missing.join(', ')}`, { missing });
+  const found = await districtsByCodes(db, codes);
   const id = await store.insert(db, {
     userId: caller.id,
     scope: input.scope,
@@ -61,4 +63,14 @@ export async function unsubscribeByToken(db: Knex, secret: string, token: string
   }
   const removed = await store.remove(db, check.subscriptionId);
   return { ok: true, message: removed ? 'You will get no more e-mails from this subscription.' : 'This subscription had already been removed.' };
+}
+
+/** Active people's subscriptions with their e-mail address (whom a publish may alert). */
+export function activeSubscribers(db: Knex): Promise<(store.SubscriptionRow & { email: string })[]> {
+  return store.subscribersFor(db);
+}
+
+/** The signed link that ends one subscription without signing in. */
+export function unsubscribeUrl(config: Pick<Config, 'publicUrl' | 'sessionSecret'>, subscriptionId: number): string {
+  return `${config.publicUrl}/api/subscriptions/unsubscribe?token=${unsubscribeToken(config.sessionSecret, subscriptionId)}`;
 }

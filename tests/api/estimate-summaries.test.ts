@@ -1,13 +1,12 @@
 /**
  * The district list's and the region's standings are built in SQL from the stored records
- * (runs/store.ts mainSummaryRows); they must equal summaryOf on the decoded records, field
+ * (estimates/store.ts mainSummaryRows); they must equal summaryOf on the decoded records, field
  * for field, for every district of a published demo run (every shape, substitutes, unbounded
  * intervals), and the list names the run they come from.
  */
 import type { CrestwatchApp } from '../../api/app';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
-import { listDistricts } from '../../api/districts/service';
-import { publishedSummaries, summaryOf } from '../../api/estimates/service';
+import { listDistricts, publishedSummaries, summaryOf } from '../../api/estimates/service';
 import { ensureDemoAccounts } from '../../api/people/service';
 import * as runs from '../../api/runs/store';
 import { publishDefaultRun } from '../support/published-run';

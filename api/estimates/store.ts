@@ -1,0 +1,155 @@
+/**
+ * Reading what runs stored, for the published views (region, district list, card, history)
+ * and for comparing two published runs (alerts). Runs write these rows; this store only
+ * reads them. Rows come back camelCased.
+ */
+import type { Knex } from 'knex';
+import type { ModelSpec } from '../estimation';
+import type { EstimateRecord } from '../runs/estimate-record';
+
+/** What the published views show of a run. */
+export interface PublishedRun {
+  id: number;
+  publishedAt: string | null;
+  spec: { name: string; model: ModelSpec; selection: Record<string, unknown> };
+  dataVersion: number | null;
+  dataHash: string | null;
+  softwareVersion: string;
+  pooled: unknown;
+}
+
+const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
+const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
+
+function toPublishedRun(r: Record<string, unknown>): PublishedRun {
+  return {
+    id: Number(r.id),
+    publishedAt: iso(r.published_at),
+    spec: r.spec as PublishedRun['spec'],
+    dataVersion: num(r.data_version),
+    dataHash: (r.data_hash as string | null) ?? null,
+    softwareVersion: String(r.software_version),
+    pooled: r.pooled ?? null,
+  };
+}
+
+/** The latest published run (or the latest before a given publish time). */
+export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<PublishedRun | null> {
+  const q = db('runs')
+    .where({ state: 'published' })
+    .orderBy([
+      { column: 'published_at', order: 'desc' },
+      { column: 'id', order: 'desc' },
+    ])
+    .first('id', 'published_at', 'spec', 'data_version', 'data_hash', 'software_version', 'pooled');
+  if (before) q.where('published_at', '<', before.publishedAt);
+  const r = await q;
+  return r ? toPublishedRun(r) : null;
+}
+
+/** The columns two runs are compared on, per district (main variant). */
+export interface ComparableEstimate {
+  districtId: number;
+  code: string;
+  name: string;
+  standing: string;
+  shape: string | null;
+  threshold: number | null;
+  uTestRejects: boolean | null;
+}
+
+/** The main estimates of a run with the columns alerts compare, in district-code order. */
+export async function comparableEstimates(db: Knex, runId: number): Promise<ComparableEstimate[]> {
+  const rows = await db('run_estimates as e')
+    .join('districts as d', 'd.id', 'e.district_id')
+    .where({ 'e.run_id': runId, 'e.variant': 'main' })
+    .orderBy('d.code')
+    .select('e.district_id', 'e.standing', 'e.shape', 'e.threshold', 'e.u_test_rejects', 'd.code', 'd.name');
+  return rows.map((r: Record<string, unknown>) => ({
+    districtId: Number(r.district_id),
+    code: String(r.code),
+    name: String(r.name),
+    standing: String(r.standing),
+    shape: (r.shape as string | null) ?? null,
+    threshold: num(r.threshold),
+    uTestRejects: (r.u_test_rejects as boolean | null) ?? null,
+  }));
+}
+
+/** Every record of one district in a run (all variants). */
+export async function estimateRecords(db: Knex, runId: number, districtId: number): Promise<EstimateRecord[]> {
+  const rows = await db('run_estimates').where({ run_id: runId, district_id: districtId }).select('result');
+  return rows.map((r: { result: EstimateRecord }) => r.result);
+}
+
+/** An analyst's note on one district in a run, if any. */
+export async function noteFor(
+  db: Knex,
+  runId: number,
+  districtId: number,
+): Promise<{ note: string; authorEmail: string | null; updatedAt: string } | null> {
+  const r = await db('run_notes')
+    .where({ run_id: runId, district_id: districtId })
+    .first('note', 'author_email', 'updated_at');
+  return r
+    ? { note: String(r.note), authorEmail: (r.author_email as string | null) ?? null, updatedAt: iso(r.updated_at)! }
+    : null;
+}
+
+/** A district's main record in every published run, newest first. */
+export async function publishedHistory(
+  db: Knex,
+  districtId: number,
+): Promise<{ runId: number; publishedAt: string; dataVersion: number; record: EstimateRecord }[]> {
+  const rows = await db('run_estimates as e')
+    .join('runs as r', 'r.id', 'e.run_id')
+    .where({ 'e.district_id': districtId, 'e.variant': 'main', 'r.state': 'published' })
+    .orderBy('r.published_at', 'desc')
+    .select('r.id', 'r.published_at', 'r.data_version', 'e.result');
+  return rows.map((r: { id: number; published_at: string; data_version: number; result: EstimateRecord }) => ({
+    runId: Number(r.id),
+    publishedAt: new Date(r.published_at).toISOString(),
+    dataVersion: r.data_version,
+    record: r.result,
+  }));
+}
+
+/**
+ * The card-level summary of every main record of a run, built in SQL from the stored JSON
+ * (the same fields as service.ts summaryOf), so listing 3,000 districts reads a few hundred
+ * bytes per district instead of decoding each full record.
+ */
+export async function mainSummaryRows(
+  db: Knex,
+  runId: number,
+): Promise<{ code: string; summary: Record<string, unknown> }[]> {
+  const rows = await db.raw(
+    `SELECT d.code, jsonb_build_object(
+        'status', r->'status',
+        'standing', r#>'{standing,standing}',
+        'intervalBounded', r#>'{standing,intervalBounded}',
+        'intervalMethod', r#>'{standing,intervalMethod}',
+        'shape', r#>'{shape,shape}',
+        'threshold', r#>'{threshold,level}',
+        'thresholdLo', r#>'{standing,levelLo}',
+        'thresholdHi', r#>'{standing,levelHi}',
+        'fiellerKind', r#>'{threshold,fieller,kind}',
+        'extrapolated', coalesce(r#>'{threshold,extrapolated}', 'false'::jsonb),
+        'gapPercent', r->'gapPercent',
+        'crossingYear', r#>'{projection,crossingYear}',
+        'crossingEarliest', r#>'{projection,earliest}',
+        'crossingLatest', r#>'{projection,latest}',
+        'projectionStatus', r#>'{projection,status}',
+        'lastYear', r->'lastYear',
+        'levelNow', r#>'{range,levelNow}'
+      ) AS summary
+       FROM run_estimates e
+       JOIN districts d ON d.id = e.district_id
+       -- Detoast each record once (OFFSET 0 keeps the subquery from being inlined), not once per path.
+       CROSS JOIN LATERAL (SELECT e.result || '{}'::jsonb AS r OFFSET 0) x
+      WHERE e.run_id = ? AND e.variant = 'main'
+      ORDER BY d.code`,
+    [runId],
+  );
+  return rows.rows as { code: string; summary: Record<string, unknown> }[];
+}
