@@ -11,7 +11,7 @@
  */
 import { randomBytes } from 'node:crypto';
 import type { Knex } from 'knex';
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
 import { getSettings } from '../settings/service';
 import * as store from './store';
 

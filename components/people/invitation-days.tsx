@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
 import { MutationNotice } from '@/components/form/mutation-notice';
@@ -17,9 +17,12 @@ export function InvitationDays({ days, onSave }: InvitationDaysProps) {
   const [draft, setDraft] = useState(days === null ? '' : String(days));
   const [problem, setProblem] = useState<string | undefined>();
   const [state, setState] = useState<{ busy: boolean; error?: unknown; success?: string }>({ busy: false });
-  useEffect(() => {
+  // When the saved setting arrives or changes, the draft follows it (state adjusted during render, not in an effect).
+  const [shownDays, setShownDays] = useState(days);
+  if (days !== shownDays) {
+    setShownDays(days);
     if (days !== null) setDraft(String(days));
-  }, [days]);
+  }
 
   const save = async () => {
     const n = Number(draft.trim());
