@@ -9,6 +9,7 @@ import type { Knex } from 'knex';
 import morgan from 'morgan';
 import { createPassport } from './auth/passport';
 import { sessionMiddleware } from './auth/session';
+import { createComputePool, type ComputePool } from './compute/pool';
 import type { Config } from './config';
 import type { AppContext } from './context';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
@@ -24,15 +25,18 @@ export interface AppDeps {
   log?: (msg: string) => void;
   mailer?: Mailer;
   jobs?: Jobs | null;
+  /** A pool to share (e.g. with the job handlers); by default the app makes and closes its own. */
+  compute?: ComputePool;
 }
 
 export interface CrestwatchApp extends Express {
   locals: Express['locals'] & { routes: RouteSpec[]; ctx: AppContext; close(): Promise<void> };
 }
 
-export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`), mailer, jobs = null }: AppDeps): CrestwatchApp {
+export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`), mailer, jobs = null, compute }: AppDeps): CrestwatchApp {
   const app = express() as CrestwatchApp;
-  const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config), jobs };
+  const ownPool = compute === undefined;
+  const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config), jobs, compute: compute ?? createComputePool(config.computePoolSize) };
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(
@@ -71,6 +75,7 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
   app.locals.close = async () => {
     await sessions.close();
     ctx.mailer.close();
+    if (ownPool) await ctx.compute.close();
   };
   return app;
 }

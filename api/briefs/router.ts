@@ -18,7 +18,7 @@ function sendPdf(res: import('express').Response, pdf: { filename: string; conte
   res.send(pdf.content);
 }
 
-export function briefRoutes({ db }: AppContext): RouteSpec[] {
+export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
   return [
     // The .pdf route comes first: path-to-regexp 8 reads `:code.pdf` as the parameter
     // `code` followed by the literal ".pdf", and /:code alone would not match a dot anyway
@@ -31,7 +31,7 @@ export function briefRoutes({ db }: AppContext): RouteSpec[] {
       summary: 'A district brief as a one-page PDF (A4 or Letter per the settings), from the latest published run or ?run=<id>',
       produces: 'application/pdf',
       schemas: byCode,
-      handler: async ({ params, query }, _req, res) => sendPdf(res, await service.districtBriefPdf(db, params.code, query.run)),
+      handler: async ({ params, query }, _req, res) => sendPdf(res, await service.districtBriefPdf(db, compute, params.code, query.run)),
     }),
     route({
       method: 'get',
@@ -50,7 +50,7 @@ export function briefRoutes({ db }: AppContext): RouteSpec[] {
       summary: 'The region brief as PDF: summary, every district in a table with repeated headers, the pooled curve',
       produces: 'application/pdf',
       schemas: { query: runQuery },
-      handler: async ({ query }, _req, res) => sendPdf(res, await service.regionBriefPdf(db, query.run)),
+      handler: async ({ query }, _req, res) => sendPdf(res, await service.regionBriefPdf(db, compute, query.run)),
     }),
     route({
       method: 'get',
