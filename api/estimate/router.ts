@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import { districtCode } from '../districts/router';
 import { CurveRow, ModelSpec } from '../estimation';
-import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
+import { COMPUTE_LIMIT, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
 import { MAX_CONTROLS } from './service';
 
@@ -38,6 +38,7 @@ export function curveRoutes({ db, compute }: AppContext): RouteSpec[] {
       path: '/api/estimate',
       allow: SIGNED_IN,
       tag: 'estimation',
+      rateLimit: COMPUTE_LIMIT,
       summary: 'Fit one curve (fitCurve over HTTP): rows in the body, or a district read from the current data',
       schemas: { body: EstimateRequest },
       handler: async ({ body }) => {

@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import { districtCode } from '../districts/router';
-import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
+import { COMPUTE_LIMIT, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { indicatorCode } from '../indicators/schema';
 import * as service from './service';
 
@@ -37,6 +37,7 @@ export function observationRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'districts',
       summary: "A district's uploaded series as a wide CSV (text cells escaped against formula injection); it can be uploaded again",
       produces: 'text/csv',
+      rateLimit: COMPUTE_LIMIT,
       schemas: { params, query: z.object({ asOf }) },
       handler: async ({ params: p, query: q }, _req, res) => {
         const csv = await service.districtObservationsCsv(db, p.code, q);
