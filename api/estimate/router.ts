@@ -29,7 +29,15 @@ export const EstimateRequest = z.union([
       lastYear: z.number().int().min(1900).max(2100).optional(),
     })
     .strict(),
-]);
+], {
+  // Name the field of the form the caller meant (rows in the body, or a district), not just "invalid input".
+  error: (iss) => {
+    if (iss.code !== 'invalid_union' || !('errors' in iss)) return undefined;
+    const input = iss.input as Record<string, unknown> | undefined;
+    const branch = iss.errors[input && typeof input === 'object' && 'rows' in input ? 0 : 1] ?? [];
+    return branch.map((i) => `${i.path.join('.') || '(body)'}: ${i.message}`).join('; ') || undefined;
+  },
+});
 
 export function curveRoutes({ db, compute }: AppContext): RouteSpec[] {
   return [
