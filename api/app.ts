@@ -17,6 +17,7 @@ import { mountRoutes, type RouteSpec } from './http/routes';
 import type { Jobs } from './jobs/boss';
 import { createMailer, type Mailer } from './mail/mailer';
 import { routeTable } from './routes';
+import { loadCspHashes } from './web/csp';
 import { webRouter } from './web/static-routes';
 
 export interface AppDeps {
@@ -44,8 +45,10 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
       contentSecurityPolicy: {
         useDefaults: true,
         directives: {
-          // Expo's static pages inline a small bootstrap script and style tags.
-          'script-src': ["'self'", "'unsafe-inline'"],
+          // The exported pages' few inline scripts are allowed by their hashes, computed at
+          // web-build time (api/web/csp.ts); no 'unsafe-inline' for scripts.
+          'script-src': ["'self'", ...loadCspHashes(config.webDir)],
+          // React Native Web writes its styles into style tags at run time.
           'style-src': ["'self'", "'unsafe-inline'"],
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
