@@ -68,7 +68,7 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
   app.use('/api', sessions.middleware, passport.session());
   const routes = routeTable(ctx, passport);
   const api = express.Router();
-  mountRoutes(api, routes);
+  mountRoutes(api, routes, { compute: { perMinute: config.computeRequestsPerMinute } });
   app.use(api);
   app.use('/api', apiNotFound);
   app.use(webRouter(config.webDir));

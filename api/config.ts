@@ -1,4 +1,5 @@
 import os from 'node:os';
+import { COMPUTE_LIMIT } from './http/rate-limit';
 import path from 'node:path';
 
 /**
@@ -61,6 +62,8 @@ export interface Config {
   mailRetrySeconds: number;
   /** Worker threads for fits and PDFs (api/compute/pool.ts); 0 runs them on the main thread. */
   computePoolSize: number;
+  /** Heavy requests (the route table's 'compute' bucket) a person may start in one minute. */
+  computeRequestsPerMinute: number;
 }
 
 /** Default pool size: every core but the one the event loop needs, at least one. */
@@ -138,5 +141,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     runChunkSize: intFrom(env, 'RUN_CHUNK_SIZE', 250),
     mailRetrySeconds: intFrom(env, 'MAIL_RETRY_SECONDS', 30),
     computePoolSize: env.COMPUTE_POOL_SIZE === '0' ? 0 : intFrom(env, 'COMPUTE_POOL_SIZE', defaultPoolSize()),
+    computeRequestsPerMinute: intFrom(env, 'COMPUTE_RATE_LIMIT_PER_MINUTE', COMPUTE_LIMIT.perMinute),
   };
 }

@@ -5,6 +5,7 @@
  * the spec's lag is not_estimable with that reason (never clamped); compute routes answer
  * 429 `rate_limited` with Retry-After past 30 a minute or 2 at once per person.
  */
+import { loadConfig } from '../../api/config';
 import { fitDistrict } from '../../api/runs/district-fit';
 import type { DistrictData } from '../../api/runs/estimate-record';
 import { maximalEstimateBody } from '../support/maximal-estimate';
@@ -121,6 +122,19 @@ describe('per-person limits on compute routes', () => {
       // Another person is not held back by this one's count; readers are not limited at all.
       expect((await s.agent.post('/api/estimate').send(small)).status).toBe(200);
       expect((await other.agent.get('/api/districts/D01')).status).toBe(200);
+    } finally {
+      await other.close();
+    }
+  });
+
+  it('takes the per-minute figure from COMPUTE_RATE_LIMIT_PER_MINUTE', async () => {
+    expect(loadConfig({ CRESTWATCH_MODE: 'test' }).computeRequestsPerMinute).toBe(30);
+    expect(loadConfig({ CRESTWATCH_MODE: 'test', COMPUTE_RATE_LIMIT_PER_MINUTE: '3' }).computeRequestsPerMinute).toBe(3);
+    expect(() => loadConfig({ CRESTWATCH_MODE: 'test', COMPUTE_RATE_LIMIT_PER_MINUTE: '0' })).toThrow(/COMPUTE_RATE_LIMIT_PER_MINUTE must be a positive integer/);
+    const other = await signedInApp({ as: 'official', config: { computeRequestsPerMinute: 3 } });
+    try {
+      for (let i = 0; i < 3; i++) expect((await other.agent.get('/api/districts/D01/observations.csv')).status).toBe(200);
+      expect((await other.agent.get('/api/districts/D01/observations.csv')).status).toBe(429);
     } finally {
       await other.close();
     }
