@@ -35,6 +35,8 @@ module.exports = {
       testEnvironment: 'node',
       roots: ['<rootDir>/tests/api', '<rootDir>/tests/security'],
       testMatch: ['**/*.test.ts'],
+      // Browser checks in tests/security run with the e2e project (they need the web build).
+      testPathIgnorePatterns: ['/node_modules/', '\\.browser\\.test\\.ts$'],
       transform: {
         '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json' }],
       },
@@ -46,8 +48,8 @@ module.exports = {
       // Browser tests: the built web app in Debian's Chromium, served by the real API.
       displayName: 'e2e',
       testEnvironment: 'node',
-      roots: ['<rootDir>/tests/e2e'],
-      testMatch: ['**/*.test.ts'],
+      roots: ['<rootDir>/tests/e2e', '<rootDir>/tests/security'],
+      testMatch: ['<rootDir>/tests/e2e/**/*.test.ts', '**/*.browser.test.ts'],
       transform: {
         '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json' }],
       },

@@ -9,6 +9,7 @@ import type { Knex } from 'knex';
 import morgan from 'morgan';
 import { createPassport } from './auth/passport';
 import { sessionExpiredErrors, sessionLimits, sessionMiddleware } from './auth/session';
+import { createComputePool, type ComputePool } from './compute/pool';
 import type { Config } from './config';
 import type { AppContext } from './context';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
@@ -17,6 +18,7 @@ import { mountRoutes, type RouteSpec } from './http/routes';
 import type { Jobs } from './jobs/boss';
 import { createMailer, type Mailer } from './mail/mailer';
 import { routeTable } from './routes';
+import { loadCspHashes } from './web/csp';
 import { webRouter } from './web/static-routes';
 
 export interface AppDeps {
@@ -25,15 +27,18 @@ export interface AppDeps {
   log?: (msg: string) => void;
   mailer?: Mailer;
   jobs?: Jobs | null;
+  /** A pool to share (e.g. with the job handlers); by default the app makes and closes its own. */
+  compute?: ComputePool;
 }
 
 export interface CrestwatchApp extends Express {
   locals: Express['locals'] & { routes: RouteSpec[]; ctx: AppContext; close(): Promise<void> };
 }
 
-export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`), mailer, jobs = null }: AppDeps): CrestwatchApp {
+export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`), mailer, jobs = null, compute }: AppDeps): CrestwatchApp {
   const app = express() as CrestwatchApp;
-  const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config), jobs };
+  const ownPool = compute === undefined;
+  const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config), jobs, compute: compute ?? createComputePool(config.computePoolSize) };
   app.disable('x-powered-by');
   // TRUST_PROXY: whose X-Forwarded-For / -Proto to believe (req.ip for rate limits, req.secure for the cookie).
   app.set('trust proxy', config.trustProxy);
@@ -42,8 +47,10 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
       contentSecurityPolicy: {
         useDefaults: true,
         directives: {
-          // Expo's static pages inline a small bootstrap script and style tags.
-          'script-src': ["'self'", "'unsafe-inline'"],
+          // The exported pages' few inline scripts are allowed by their hashes, computed at
+          // web-build time (api/web/csp.ts); no 'unsafe-inline' for scripts.
+          'script-src': ["'self'", ...loadCspHashes(config.webDir)],
+          // React Native Web writes its styles into style tags at run time.
           'style-src': ["'self'", "'unsafe-inline'"],
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
@@ -65,7 +72,7 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
   app.use('/api', sessions.middleware, sessionLimits(config), passport.session());
   const routes = routeTable(ctx, passport);
   const api = express.Router();
-  mountRoutes(api, routes);
+  mountRoutes(api, routes, { compute: { perMinute: config.computeRequestsPerMinute } });
   app.use(api);
   app.use('/api', apiNotFound);
   app.use('/api', sessionExpiredErrors(config));
@@ -76,6 +83,7 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
   app.locals.close = async () => {
     await sessions.close();
     ctx.mailer.close();
+    if (ownPool) await ctx.compute.close();
   };
   return app;
 }

@@ -1,4 +1,6 @@
 import { isIP } from 'node:net';
+import os from 'node:os';
+import { COMPUTE_LIMIT } from './http/rate-limit';
 import path from 'node:path';
 
 /**
@@ -68,6 +70,15 @@ export interface Config {
   runChunkSize: number;
   /** Seconds before the first retry of an e-mail that could not be sent (doubles each time). */
   mailRetrySeconds: number;
+  /** Worker threads for fits and PDFs (api/compute/pool.ts); 0 runs them on the main thread. */
+  computePoolSize: number;
+  /** Heavy requests (the route table's 'compute' bucket) a person may start in one minute. */
+  computeRequestsPerMinute: number;
+}
+
+/** Default pool size: every core but the one the event loop needs, at least one. */
+function defaultPoolSize(): number {
+  return Math.max(1, os.availableParallelism() - 1);
 }
 
 function intFrom(env: NodeJS.ProcessEnv, name: string, fallback: number): number {
@@ -181,5 +192,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     jobMaintenanceSeconds: intFrom(env, 'JOB_MAINTENANCE_SECONDS', 30),
     runChunkSize: intFrom(env, 'RUN_CHUNK_SIZE', 250),
     mailRetrySeconds: intFrom(env, 'MAIL_RETRY_SECONDS', 30),
+    computePoolSize: env.COMPUTE_POOL_SIZE === '0' ? 0 : intFrom(env, 'COMPUTE_POOL_SIZE', defaultPoolSize()),
+    computeRequestsPerMinute: intFrom(env, 'COMPUTE_RATE_LIMIT_PER_MINUTE', COMPUTE_LIMIT.perMinute),
   };
 }

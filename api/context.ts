@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { ComputePool } from './compute/pool';
 import type { Config } from './config';
 import type { Jobs } from './jobs/boss';
 import type { Mailer } from './mail/mailer';
@@ -11,4 +12,6 @@ export interface AppContext {
   mailer: Mailer;
   /** The job queue; null where none was started (then starting a run answers 503). */
   jobs: Jobs | null;
+  /** Worker threads for CPU-heavy work (fits, PDFs), so readers are never starved. */
+  compute: ComputePool;
 }

@@ -2,6 +2,7 @@
  * npm run worker: a process that only works jobs (runs, chunks, mail) from the same
  * PostgreSQL-backed queue as the server, so more processes or machines can share a run.
  */
+import { createComputePool } from './compute/pool';
 import { loadConfig } from './config';
 import type { AppContext } from './context';
 import { createDb } from './db';
@@ -18,12 +19,13 @@ export async function startWorker(config = loadConfig()) {
     maintenanceIntervalSeconds: config.jobMaintenanceSeconds,
     schedule: false,
   });
-  const ctx: AppContext = { db, config, log: (m) => process.stderr.write(`${m}\n`), mailer: createMailer(config), jobs };
+  const ctx: AppContext = { db, config, log: (m) => process.stderr.write(`${m}\n`), mailer: createMailer(config), jobs, compute: createComputePool(config.computePoolSize) };
   await jobs.work(allHandlers(ctx));
   return {
     async close() {
       await jobs.stop();
       ctx.mailer.close();
+      await ctx.compute.close();
       await db.destroy();
     },
   };

@@ -4,6 +4,7 @@
  * published run, alerts). Timed with one worker process and with two, from the moment a
  * worker picks the run up. Prints the fitting share and the database share.
  */
+import { createComputePool } from '../api/compute/pool';
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { loadConfig } from '../api/config';
@@ -87,7 +88,7 @@ async function main(): Promise<void> {
   const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: url };
   const db = createDb(url);
   const jobs = await startJobs({ databaseUrl: url, expireInSeconds: 300, pollingIntervalSeconds: 0.5, maintenanceIntervalSeconds: 30, schedule: false });
-  const ctx: AppContext = { db, config, log: () => {}, mailer: createMailer(config), jobs };
+  const ctx: AppContext = { db, config, log: () => {}, mailer: createMailer(config), jobs, compute: createComputePool(config.computePoolSize) };
   try {
     await db('indicators').insert(DEMO_INDICATORS.map((i) => ({ code: i.code, name: i.name, unit: i.unit, description: i.description, must_be_positive: i.mustBePositive })));
     await db('users').insert({ id: 0, email: 'bench@crestwatch.example', name: 'bench', role: 'analyst' });
@@ -112,6 +113,7 @@ async function main(): Promise<void> {
   } finally {
     await jobs.stop();
     ctx.mailer.close();
+    await ctx.compute.close();
     await db.destroy();
     await dropDatabase(TEST_CLUSTER.port, DB);
   }

@@ -1,11 +1,14 @@
 /**
  * Builds the static web app (`expo export -p web`) into dist/ when its inputs changed
- * since the last build. The stamp file holds a hash of every input.
+ * since the last build. The stamp file holds a hash of every input. Writes
+ * dist/csp-hashes.json: the SHA-256 of every inline script of the exported pages, which
+ * the server lists in its Content-Security-Policy.
  */
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
+import { CSP_HASHES_FILE, writeCspHashes } from '../api/web/csp';
 
 const root = path.resolve(__dirname, '..');
 export const distDir = path.join(root, 'dist');
@@ -32,6 +35,8 @@ export function webInputsHash(): string {
 export function buildWebIfStale(log: (m: string) => void = (m) => process.stderr.write(`[web] ${m}\n`)): boolean {
   const hash = webInputsHash();
   if (fs.existsSync(stampFile) && fs.readFileSync(stampFile, 'utf8') === hash && fs.existsSync(path.join(distDir, 'index.html'))) {
+    // A build from before the hashes file: add it (it is read from the HTML, no rebuild needed).
+    if (!fs.existsSync(path.join(distDir, CSP_HASHES_FILE))) log(`wrote ${writeCspHashes(distDir).length} inline-script hashes for the CSP`);
     return false;
   }
   log('building the web app (expo export -p web)…');
@@ -42,6 +47,8 @@ export function buildWebIfStale(log: (m: string) => void = (m) => process.stderr
     { cwd: root, stdio: ['ignore', 'inherit', 'inherit'], env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1' } },
   );
   if (r.status !== 0) throw new Error(`expo export failed with exit code ${r.status}`);
+  // The CSP's script-src lists these hashes (api/web/csp.ts), so they follow the scripts.
+  log(`wrote ${writeCspHashes(distDir).length} inline-script hashes for the CSP`);
   fs.writeFileSync(stampFile, hash);
   log(`web app built in ${((Date.now() - started) / 1000).toFixed(1)} s`);
   return true;

@@ -1,8 +1,8 @@
 /**
  * A run's estimates as CSV: one row per district (main estimate), every figure of the
  * card, at full precision (no rounding for reading: the CSV is for re-use; numbers are
- * written as the shortest text that reads back to the same double). Text cells that begin
- * with = + - @ are escaped against formula injection (api/http/csv-escape.ts). An
+ * written as the shortest text that reads back to the same double). Text cells
+ * are quoted, and a leading = + - @ is escaped (api/http/csv-escape.ts). An
  * interval is written only where it is bounded; where the Fieller set is two rays, the
  * ray ends go in their own columns, so no spreadsheet reads them as an interval.
  * UTF-8 with a byte-order mark (spreadsheets need it for names such as "Жарово"), CRLF.

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { districtCode } from '../http/params';
-import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
+import { callerOf, COMPUTE_LIMIT, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import './attachment';
 import { exportRun } from './export-csv';
 import * as service from './service';
@@ -18,7 +18,7 @@ function sendPdf(res: import('express').Response, pdf: { filename: string; conte
   res.send(pdf.content);
 }
 
-export function briefRoutes({ db }: AppContext): RouteSpec[] {
+export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
   return [
     // The .pdf route comes first: path-to-regexp 8 reads `:code.pdf` as the parameter
     // `code` followed by the literal ".pdf", and /:code alone would not match a dot anyway
@@ -28,16 +28,18 @@ export function briefRoutes({ db }: AppContext): RouteSpec[] {
       path: '/api/briefs/district/:code.pdf',
       allow: SIGNED_IN,
       tag: 'briefs',
+      rateLimit: COMPUTE_LIMIT,
       summary: 'A district brief as a one-page PDF (A4 or Letter per the settings), from the latest published run or ?run=<id>',
       produces: 'application/pdf',
       schemas: byCode,
-      handler: async ({ params, query }, _req, res) => sendPdf(res, await service.districtBriefPdf(db, params.code, query.run)),
+      handler: async ({ params, query }, _req, res) => sendPdf(res, await service.districtBriefPdf(db, compute, params.code, query.run)),
     }),
     route({
       method: 'get',
       path: '/api/briefs/district/:code',
       allow: SIGNED_IN,
       tag: 'briefs',
+      rateLimit: COMPUTE_LIMIT,
       summary: 'The content of a district brief (figures rounded for reading, charts as vector scenes) for the print-friendly view',
       schemas: byCode,
       handler: ({ params, query }) => service.districtBrief(db, params.code, query.run),
@@ -47,16 +49,18 @@ export function briefRoutes({ db }: AppContext): RouteSpec[] {
       path: '/api/briefs/region.pdf',
       allow: SIGNED_IN,
       tag: 'briefs',
+      rateLimit: COMPUTE_LIMIT,
       summary: 'The region brief as PDF: summary, every district in a table with repeated headers, the pooled curve',
       produces: 'application/pdf',
       schemas: { query: runQuery },
-      handler: async ({ query }, _req, res) => sendPdf(res, await service.regionBriefPdf(db, query.run)),
+      handler: async ({ query }, _req, res) => sendPdf(res, await service.regionBriefPdf(db, compute, query.run)),
     }),
     route({
       method: 'get',
       path: '/api/briefs/region',
       allow: SIGNED_IN,
       tag: 'briefs',
+      rateLimit: COMPUTE_LIMIT,
       summary: 'The content of the region brief for the print-friendly view',
       schemas: { query: runQuery },
       handler: ({ query }) => service.regionBrief(db, query.run),
@@ -66,6 +70,7 @@ export function briefRoutes({ db }: AppContext): RouteSpec[] {
       path: '/api/runs/:id/export.csv',
       allow: SIGNED_IN,
       tag: 'briefs',
+      rateLimit: COMPUTE_LIMIT,
       summary: 'A run’s estimates as CSV, one row per district, full precision, text cells escaped against formula injection (published runs; runs in review for analysts and admins)',
       produces: 'text/csv',
       schemas: { params: idParams },

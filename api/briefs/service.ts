@@ -6,12 +6,11 @@
  */
 import type { Knex } from 'knex';
 import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
+import type { ComputePool } from '../compute/pool';
 import { AppError, NotFoundError } from '../http/errors';
 import * as runs from '../runs/store';
 import { getSettings } from '../settings/service';
 import { districtBriefContent } from './district-content';
-import { renderDistrictPdf } from './pdf/district-pdf';
-import { renderRegionPdf } from './pdf/region-pdf';
 import { regionBriefContent, type PooledFit } from './region-content';
 import { summaryRecords } from './store';
 import type { BriefSource, Indicator } from './trace';
@@ -67,12 +66,18 @@ export async function regionBrief(db: Knex, runId?: number): Promise<RegionBrief
   );
 }
 
-export async function districtBriefPdf(db: Knex, code: string, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
+/** A thread hands back the PDF's bytes as a Uint8Array; Express and mail want a Buffer. */
+const asBuffer = (u: Uint8Array): Buffer => (Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength));
+
+/** The content is read here; the PDF is drawn in the compute pool, off the event loop. */
+export async function districtBriefPdf(db: Knex, compute: ComputePool, code: string, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
   const c = await districtBrief(db, code, runId);
-  return { filename: `crestwatch-${c.code}-run-${c.trace.runId}.pdf`, content: await renderDistrictPdf(c), runId: c.trace.runId };
+  const content = asBuffer(await compute.run({ kind: 'district-pdf', content: c }));
+  return { filename: `crestwatch-${c.code}-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };
 }
 
-export async function regionBriefPdf(db: Knex, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
+export async function regionBriefPdf(db: Knex, compute: ComputePool, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
   const c = await regionBrief(db, runId);
-  return { filename: `crestwatch-region-run-${c.trace.runId}.pdf`, content: await renderRegionPdf(c), runId: c.trace.runId };
+  const content = asBuffer(await compute.run({ kind: 'region-pdf', content: c }));
+  return { filename: `crestwatch-region-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };
 }

@@ -1,10 +1,12 @@
 /**
  * POST /api/estimate: fitCurve over HTTP. Rows come in the body, or are read for one
  * district from the current observations (emissions, driver and controls by indicator
- * code). Bad input is a 400 naming the row and the reason.
+ * code). Bad input is a 400 naming the row and the reason. The fit runs in the compute
+ * pool, off the event loop; controls are capped at 8 and the Newey–West lag at n − 1.
  */
 import type { Knex } from 'knex';
-import { EstimationInputError, fitCurve, type CurveRow, type ModelSpecInput } from '../estimation';
+import type { ComputePool } from '../compute/pool';
+import type { CurveRow, ModelSpecInput } from '../estimation';
 import { AppError, NotFoundError } from '../http/errors';
 import { currentDataVersion, loadSeries } from '../runs/data-store';
 
@@ -36,14 +38,24 @@ export async function rowsForDistrict(db: Knex, src: DistrictSource): Promise<{ 
   return { rows, droppedYears: series.data.droppedYears, dataVersion: version };
 }
 
-export function estimate(rows: CurveRow[], model: ModelSpecInput) {
-  try {
-    return fitCurve(rows, model);
-  } catch (err) {
-    if (err instanceof EstimationInputError) {
-      const row = typeof err.details.row === 'number' ? ` (row ${err.details.row}${err.details.year !== undefined ? `, year ${err.details.year}` : ''})` : '';
-      throw new AppError(400, err.code, `${err.message}${row}`, err.details);
-    }
-    throw err;
-  }
+/** The most controls a fit may use (each row's and the model's), as in saved specs. */
+export const MAX_CONTROLS = 8;
+
+/**
+ * The Newey–West lag must leave at least one row: lag ≤ n − 1. Refused before any fitting
+ * (400 `lag_too_large`), never clamped.
+ */
+export function checkLag(n: number, lag: number | undefined): void {
+  if (lag === undefined || lag <= n - 1) return;
+  throw new AppError(400, 'lag_too_large', `The Newey–West lag ${lag} is too large for ${n} rows: it may be at most ${Math.max(0, n - 1)} (n − 1).`, { lag, n, max: Math.max(0, n - 1) });
+}
+
+/** Fits one curve in the compute pool; an engine refusal becomes a 400 naming the row. */
+export async function estimate(compute: ComputePool, rows: CurveRow[], model: ModelSpecInput) {
+  const out = await compute.run({ kind: 'fit-curve', rows, model });
+  if (out.ok) return out.result;
+  const { code, message, details } = out.error;
+  if (code === 'invalid_argument' && details.reason === 'lag') throw new AppError(400, 'lag_too_large', message, details);
+  const row = typeof details.row === 'number' ? ` (row ${details.row}${details.year !== undefined ? `, year ${details.year}` : ''})` : '';
+  throw new AppError(400, code, `${message}${row}`, details);
 }

@@ -25,3 +25,10 @@ export class ValidationError extends AppError {
     super(400, 'invalid_request', message, details);
   }
 }
+
+/** 429: too many requests from one person; `Retry-After` says when to try again. */
+export class RateLimitedError extends AppError {
+  constructor(message: string, retryAfterSeconds: number) {
+    super(429, 'rate_limited', message, { retryAfterSeconds });
+  }
+}

@@ -25,6 +25,7 @@ export function openApiDocument(specs: RouteSpec[], version: string) {
       summary: spec.summary,
       tags: [spec.tag],
       'x-allow': spec.allow === 'public' ? 'public' : [...spec.allow],
+      ...(spec.rateLimit ? { 'x-rate-limit': { perMinute: spec.rateLimit.perMinute, inFlight: spec.rateLimit.inFlight, bucket: spec.rateLimit.bucket } } : {}),
       security: spec.allow === 'public' ? [] : [{ session: [] }],
       parameters: [...parameters(spec.schemas?.params, 'path'), ...parameters(spec.schemas?.query, 'query')],
       responses: {

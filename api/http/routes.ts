@@ -7,7 +7,10 @@ import { timingSafeEqual } from 'node:crypto';
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import type { z } from 'zod';
 import { AppError } from './errors';
+import { personLimiter, type RateLimit } from './rate-limit';
 import { validate, type Parsed } from './validate';
+
+export { COMPUTE_LIMIT, type RateLimit } from './rate-limit';
 
 export const ROLES = ['admin', 'analyst', 'official'] as const;
 export type Role = (typeof ROLES)[number];
@@ -43,6 +46,8 @@ export interface RouteSpec<P extends z.ZodType = z.ZodType, Q extends z.ZodType 
   produces?: string;
   /** State-changing routes open to anonymous callers must say why (checked by tests). */
   anonymousWriteReason?: string;
+  /** A per-person limit on heavy routes (see COMPUTE_LIMIT); routes naming one bucket share it. */
+  rateLimit?: RateLimit;
   /** Return a value to send it as JSON; or write to res yourself and return undefined. */
   handler: (input: Parsed<P, Q, B>, req: Request, res: Response) => unknown | Promise<unknown>;
 }
@@ -109,13 +114,20 @@ export function csrfCheck(spec: Pick<RouteSpec, 'anonymousWriteReason'>): Reques
   };
 }
 
-export function mountRoutes(router: Router, specs: RouteSpec[]): void {
+/** `limits` adjusts a declared bucket's figures from the configuration (e.g. a test's burst). */
+export function mountRoutes(router: Router, specs: RouteSpec[], limits: Record<string, Partial<RateLimit>> = {}): void {
+  const limiters = new Map<string, RequestHandler>();
+  const limiterFor = (l: RateLimit) => {
+    if (!limiters.has(l.bucket)) limiters.set(l.bucket, personLimiter({ ...l, ...limits[l.bucket] }));
+    return limiters.get(l.bucket)!;
+  };
   for (const spec of specs) {
     const handler: RequestHandler = async (req, res) => {
       const result = await spec.handler(res.locals.input as Parsed<z.ZodType, z.ZodType, z.ZodType>, req, res);
       if (result !== undefined && !res.headersSent) res.json(result);
     };
     const csrf = UNSAFE.has(spec.method) ? [csrfCheck(spec)] : [];
-    router[spec.method](spec.path, guard(spec.allow), ...csrf, ...(spec.before ?? []), validate(spec.schemas ?? {}), handler);
+    const limit = spec.rateLimit ? [limiterFor(spec.rateLimit)] : [];
+    router[spec.method](spec.path, guard(spec.allow), ...limit, ...csrf, ...(spec.before ?? []), validate(spec.schemas ?? {}), handler);
   }
 }

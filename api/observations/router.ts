@@ -1,7 +1,7 @@
 /** A district's stored series, for the data tab and for export. */
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
+import { COMPUTE_LIMIT, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { districtCode, indicatorCode } from '../http/params';
 import * as service from './service';
 
@@ -36,6 +36,7 @@ export function observationRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'districts',
       summary: "A district's uploaded series as a wide CSV (text cells escaped against formula injection); it can be uploaded again",
       produces: 'text/csv',
+      rateLimit: COMPUTE_LIMIT,
       schemas: { params, query: z.object({ asOf }) },
       handler: async ({ params: p, query: q }, _req, res) => {
         const csv = await service.districtObservationsCsv(db, p.code, q);

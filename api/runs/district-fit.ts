@@ -59,8 +59,11 @@ function fitOne(variant: Variant, m: RunModel & { window?: number }, data: Distr
     return recordFromFit(variant, fit, d, pooled, m.controls, variant === 'main');
   } catch (err) {
     if (!(err instanceof EstimationInputError)) throw err;
-    // Bad data (e.g. a non-positive value under logs) is reported on the district, never dropped.
-    const fit = { status: 'not_estimable' as const, model: { ...m.spec, controls: m.controls }, n: d.years.length, k: 0, minYears: 0, reason: { code: err.code as 'too_few_rows', message: err.message, details: {} }, standing: { standing: 'not_estimable' as const } };
+    // Bad data (e.g. a non-positive value under logs) is reported on the district, never
+    // dropped; a series too short for the spec's Newey–West lag says so (the lag is never clamped).
+    const code = err.code === 'invalid_argument' && err.details.reason === 'lag' ? 'lag_too_large' : err.code;
+    const message = code === 'lag_too_large' ? `${d.years.length} years are too few for the spec's Newey–West lag of ${m.spec.lag} (it needs at least ${(m.spec.lag ?? 0) + 1})` : err.message;
+    const fit = { status: 'not_estimable' as const, model: { ...m.spec, controls: m.controls }, n: d.years.length, k: 0, minYears: 0, reason: { code: code as 'too_few_rows', message, details: {} }, standing: { standing: 'not_estimable' as const } };
     return recordFromFit(variant, fit, d, pooled, m.controls, false);
   }
 }

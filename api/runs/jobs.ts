@@ -9,7 +9,6 @@ import { fitPanel, type FitPanelResult, type PanelRow } from '../estimation';
 import type { AppContext } from '../context';
 import { QUEUES, type Handler } from '../jobs/boss';
 import { hashSeries, loadSeries, currentDataVersion, type DistrictSeries } from './data-store';
-import { fitDistrict } from './district-fit';
 import * as store from './store';
 
 function panelRows(series: DistrictSeries[], controls: string[]): PanelRow[] {
@@ -96,7 +95,8 @@ export async function runChunk(ctx: AppContext, data: { runId: number; chunk: nu
     const t1 = performance.now();
     const pooled = run.pooled && (run.pooled as { status: string }).status === 'ok' ? (run.pooled as FitPanelResult) : null;
     const model = { spec: run.spec.model, controls: run.spec.selection.controls };
-    const rows = series.flatMap((s) => fitDistrict(model, s.data, pooled).map((record) => ({ districtId: s.districtId, record })));
+    // The fits run in the compute pool, so a run never stalls the readers of this process.
+    const rows = await ctx.compute.run({ kind: 'district-fits', model, districts: series.map((s) => ({ districtId: s.districtId, data: s.data })), pooled });
     const t2 = performance.now();
     await db.transaction(async (trx) => {
       await store.writeEstimates(trx, run.id, rows);

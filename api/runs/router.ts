@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { districtCode } from '../http/params';
-import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
+import { callerOf, COMPUTE_LIMIT, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
 import * as service from './service';
 
 const byId = idParams;
@@ -109,6 +109,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
       allow: STAFF,
       tag: 'runs',
       summary: 'Re-execute a run from its recorded spec, data version and data hash',
+      rateLimit: COMPUTE_LIMIT,
       schemas: { params: byId },
       handler: async ({ params }, req, res) => {
         const run = await service.reproduceRun(ctx, callerOf(req)!, params.id);

@@ -57,7 +57,9 @@ beforeAll(async () => {
   catcher = await startMailCatcher(t.db, 0);
   const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), mailCatcherPort: catcher.port, mailRetrySeconds: 1 };
   jobs = await testJobs(t.url);
-  app = testApp(t.db, { mailCatcherPort: catcher.port, mailRetrySeconds: 1 }, createMailer(config));
+  // One analyst prints every district's brief here, past the per-person limit of 30 a minute
+  // (tests/security/compute-limits.test.ts checks that limit).
+  app = testApp(t.db, { mailCatcherPort: catcher.port, mailRetrySeconds: 1, computeRequestsPerMinute: 1000 }, createMailer(config));
   app.locals.ctx.jobs = jobs;
   await workIn(app.locals.ctx, jobs);
   server = await listen(app);

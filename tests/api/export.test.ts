@@ -93,7 +93,8 @@ describe('run export as CSV', () => {
     expect(res.text.charCodeAt(0)).toBe(0xfeff);
     expect(res.text).toContain('\r\n');
     const header = res.text.slice(1, res.text.indexOf('\r\n')).split(',');
-    expect(header).toEqual([...EXPORT_COLUMNS]);
+    // Every text cell is quoted, the header's names included.
+    expect(header).toEqual(EXPORT_COLUMNS.map((c) => `"${c}"`));
     const rows = rowsOf(res.text);
     const records = await mainRecords(t.db, runId);
     expect(rows).toHaveLength(records.length);

@@ -1,12 +1,11 @@
 /**
  * The streaming reader on its own (no database): the staged rows and the problems must
  * not depend on where the file is cut into chunks — every fixture is read whole, in 7-byte
- * pieces and byte by byte, and the results compared. Plus CSV export escaping.
+ * pieces and byte by byte, and the results compared.
  */
 import fs from 'node:fs';
 import path from 'node:path';
 import { DEMO_INDICATORS } from '../../api/demo/catalogue';
-import { csvLine, escapeCsvText } from '../../api/http/csv-escape';
 import { UploadReader, type CatalogueEntry } from '../../api/uploads/parse/upload-reader';
 import { ProblemList } from '../../api/uploads/problems';
 
@@ -59,20 +58,5 @@ describe('upload reader', () => {
       ['bad_district_name', 4, 2],
       ['not_a_number', 4, 5],
     ]);
-  });
-});
-
-describe('CSV export escaping', () => {
-  it('prefixes text that a spreadsheet would take for a formula, and quotes where needed', () => {
-    expect(escapeCsvText('=SUM(A1)')).toBe("'=SUM(A1)");
-    expect(escapeCsvText('+1 555')).toBe("'+1 555");
-    expect(escapeCsvText('-2')).toBe("'-2");
-    expect(escapeCsvText('@cmd')).toBe("'@cmd");
-    expect(escapeCsvText('Hollin Cross')).toBe('Hollin Cross');
-    expect(escapeCsvText('a,b')).toBe('"a,b"');
-    expect(escapeCsvText('=HYPERLINK("x")')).toBe(`"'=HYPERLINK(""x"")"`);
-    expect(escapeCsvText('a;b', ';')).toBe('"a;b"');
-    // Numbers stay numbers, negative ones included.
-    expect(csvLine(['D01', -1.5, null, 2010])).toBe('D01,-1.5,,2010');
   });
 });

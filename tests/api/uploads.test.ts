@@ -187,7 +187,7 @@ describe('formats and options', () => {
     const csvOut = await w.official.get('/api/districts/D25/observations.csv');
     expect(csvOut.status).toBe(200);
     expect(csvOut.headers['content-type']).toMatch(/text\/csv/);
-    expect(csvOut.text.split('\r\n')[1]).toBe(`D25,"'=HYPERLINK(""x"")",2024,1200`);
+    expect(csvOut.text.split('\r\n')[1]).toBe(`"D25","'=HYPERLINK(""x"")",2024,1200`);
   });
 
   it('refuses unknown district codes without names unless new codes are allowed', async () => {

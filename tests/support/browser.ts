@@ -1,7 +1,9 @@
 /**
  * Browser-test harness: the real app (API + exported web build) on a loopback port over a
  * fresh seeded database, and Debian's Chromium driven by playwright-core. Every request
- * the page makes is recorded so a test can check none leaves 127.0.0.1.
+ * the page makes is recorded so a test can check none leaves 127.0.0.1, and every page
+ * listens for `securitypolicyviolation`: any Content-Security-Policy violation on any page
+ * a test visits fails that test file when the harness closes.
  */
 import fs from 'node:fs';
 import type { Server } from 'node:http';
@@ -34,6 +36,8 @@ export interface Harness {
   browser: Browser;
   t: TestDatabase;
   requests: string[];
+  /** CSP violations seen on any page so far ("<directive> blocked <uri> on <page>"). */
+  cspViolations: string[];
   newPage(viewport: { width: number; height: number }): Promise<{ context: BrowserContext; page: Page }>;
   shot(page: Page, name: string): Promise<string>;
   close(): Promise<void>;
@@ -95,13 +99,25 @@ export async function startHarness(options: HarnessOptions = {}): Promise<Harnes
     });
   fs.mkdirSync(artifactsDir, { recursive: true });
   const requests: string[] = [];
+  const cspViolations: string[] = [];
   return {
     baseUrl,
     browser,
     t,
     requests,
+    cspViolations,
     async newPage(viewport) {
       const context = await browser.newContext({ viewport, deviceScaleFactor: 1 });
+      // Runs in every page of the context before its own scripts (not subject to the CSP).
+      await context.exposeBinding('__cwCspViolation', (_source, text: string) => {
+        cspViolations.push(text);
+      });
+      await context.addInitScript(() => {
+        document.addEventListener('securitypolicyviolation', (e) => {
+          const report = (window as unknown as { __cwCspViolation(t: string): void }).__cwCspViolation;
+          report(`${e.effectiveDirective} blocked ${e.blockedURI || '(inline)'} on ${e.documentURI}${e.sample ? ` (${e.sample})` : ''}`);
+        });
+      });
       const page = await context.newPage();
       page.on('request', (req) => requests.push(req.url()));
       return { context, page };
@@ -121,6 +137,7 @@ export async function startHarness(options: HarnessOptions = {}): Promise<Harnes
       await app.locals.close();
       await catcher?.stop();
       await t.drop();
+      if (cspViolations.length) throw new Error(`Content-Security-Policy violations:\n${cspViolations.join('\n')}`);
     },
   };
 }
