@@ -9,6 +9,6 @@ import { regionBriefPdf } from './service';
 
 registerAttachment('region_brief', async (ctx, spec) => {
   if (spec.runId === undefined) throw new Error('a region_brief attachment needs a runId');
-  const pdf = await regionBriefPdf(ctx.db, ctx.compute, spec.runId);
+  const pdf = await regionBriefPdf(ctx, spec.runId);
   return { filename: pdf.filename, content: pdf.content, contentType: 'application/pdf' };
 });

@@ -32,7 +32,7 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       summary: 'A district brief as a one-page PDF (A4 or Letter per the settings), from the latest published run or ?run=<id>',
       produces: 'application/pdf',
       schemas: byCode,
-      handler: async ({ params, query }, _req, res) => sendPdf(res, await service.districtBriefPdf(db, compute, params.code, query.run)),
+      handler: async ({ params, query }, _req, res) => sendPdf(res, await service.districtBriefPdf({ db, compute }, params.code, query.run)),
     }),
     route({
       method: 'get',
@@ -53,7 +53,7 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       summary: 'The region brief as PDF: summary, every district in a table with repeated headers, the pooled curve',
       produces: 'application/pdf',
       schemas: { query: runQuery },
-      handler: async ({ query }, _req, res) => sendPdf(res, await service.regionBriefPdf(db, compute, query.run)),
+      handler: async ({ query }, _req, res) => sendPdf(res, await service.regionBriefPdf({ db, compute }, query.run)),
     }),
     route({
       method: 'get',

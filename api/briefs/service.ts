@@ -6,7 +6,7 @@
  */
 import type { Knex } from 'knex';
 import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
-import type { ComputePool } from '../compute/pool';
+import type { AppContext } from '../context';
 import { AppError, NotFoundError } from '../http/errors';
 import * as runs from '../runs/store';
 import { getSettings } from '../settings/service';
@@ -70,13 +70,13 @@ export async function regionBrief(db: Knex, runId?: number): Promise<RegionBrief
 const asBuffer = (u: Uint8Array): Buffer => (Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength));
 
 /** The content is read here; the PDF is drawn in the compute pool, off the event loop. */
-export async function districtBriefPdf(db: Knex, compute: ComputePool, code: string, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
+export async function districtBriefPdf({ db, compute }: Pick<AppContext, 'db' | 'compute'>, code: string, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
   const c = await districtBrief(db, code, runId);
   const content = asBuffer(await compute.run({ kind: 'district-pdf', content: c }));
   return { filename: `crestwatch-${c.code}-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };
 }
 
-export async function regionBriefPdf(db: Knex, compute: ComputePool, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
+export async function regionBriefPdf({ db, compute }: Pick<AppContext, 'db' | 'compute'>, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
   const c = await regionBrief(db, runId);
   const content = asBuffer(await compute.run({ kind: 'region-pdf', content: c }));
   return { filename: `crestwatch-region-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };

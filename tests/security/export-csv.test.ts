@@ -32,8 +32,10 @@ function fieldsOf(line: string): { value: string; quoted: boolean }[] {
       let value = '';
       i++;
       for (;;) {
-        if (line[i] === '"' && line[i + 1] === '"') (value += '"'), (i += 2);
-        else if (line[i] === '"') break;
+        if (line[i] === '"' && line[i + 1] === '"') {
+          value += '"';
+          i += 2;
+        } else if (line[i] === '"') break;
         else value += line[i++];
       }
       i++;
