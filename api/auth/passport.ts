@@ -15,6 +15,7 @@ import * as audit from '../audit/store';
 import type { AppContext } from '../context';
 import type { Caller } from '../http/routes';
 import { invitationExpired } from '../people/service';
+import { sessionPerson } from '../people/session-person';
 import * as users from '../people/store';
 
 export type SignInRefusal =
@@ -82,8 +83,7 @@ export function createPassport({ db, config }: AppContext): InstanceType<typeof 
   passport.serializeUser((user, done) => done(null, (user as Caller).id));
   passport.deserializeUser(async (id: number, done) => {
     try {
-      const u = await users.findById(db, Number(id));
-      done(null, u ? { id: u.id, email: u.email, name: u.name, role: u.role, active: u.active } : false);
+      done(null, (await sessionPerson(db, Number(id))) ?? false);
     } catch (err) {
       done(err);
     }

@@ -1,6 +1,7 @@
 import type { AppContext } from '../context';
 import { districtParams } from '../http/params';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
+import { sendPublished } from './published-cache';
 import * as service from './service';
 
 const byCode = { params: districtParams };
@@ -13,7 +14,7 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'districts',
       summary: 'Every district with its years covered, latest values and standing in the latest published run',
-      handler: () => service.listDistricts(db),
+      handler: (_input, req, res) => sendPublished(db, req, res, 'districts', () => service.listDistricts(db)),
     }),
     route({
       method: 'get',
@@ -21,7 +22,7 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'estimates',
       summary: 'The region in the latest published run: each district’s standing, counts per standing, the pooled curve',
-      handler: () => service.region(db),
+      handler: (_input, req, res) => sendPublished(db, req, res, 'region', () => service.region(db)),
     }),
     route({
       method: 'get',
@@ -30,7 +31,7 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'estimates',
       summary: 'A district’s published estimate (card): curve, threshold and interval, standing, sensitivity variants, note',
       schemas: byCode,
-      handler: ({ params }) => service.districtEstimate(db, params.code),
+      handler: ({ params }, req, res) => sendPublished(db, req, res, `estimate ${params.code}`, () => service.districtEstimate(db, params.code)),
     }),
     route({
       method: 'get',
@@ -39,7 +40,7 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'estimates',
       summary: 'A district’s estimates across published runs, newest first',
       schemas: byCode,
-      handler: ({ params }) => service.districtHistory(db, params.code),
+      handler: ({ params }, req, res) => sendPublished(db, req, res, `history ${params.code}`, () => service.districtHistory(db, params.code)),
     }),
   ];
 }

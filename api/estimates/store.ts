@@ -153,3 +153,22 @@ export async function mainSummaryRows(
   );
   return rows.rows as { code: string; summary: Record<string, unknown> }[];
 }
+
+/**
+ * What every published answer depends on, in one cheap statement: the run officials see,
+ * the notes attached to it (count and last edit), the data version (uploads applied) and
+ * the district table (count and highest id). Any change to one of them changes the answer.
+ */
+export async function publishedVersion(db: Knex): Promise<string> {
+  const { rows } = await db.raw(`
+    WITH latest AS (
+      SELECT id FROM runs WHERE state = 'published' ORDER BY published_at DESC, id DESC LIMIT 1
+    )
+    SELECT
+      coalesce((SELECT id FROM latest), 0) AS run_id,
+      (SELECT count(*) || '@' || coalesce(max(updated_at)::text, '') FROM run_notes WHERE run_id = (SELECT id FROM latest)) AS notes,
+      (SELECT coalesce(max(version), 0) FROM uploads WHERE version IS NOT NULL) AS data_version,
+      (SELECT count(*) || '@' || coalesce(max(id), 0) FROM districts) AS districts`);
+  const r = rows[0];
+  return `run ${r.run_id}; notes ${r.notes}; data ${r.data_version}; districts ${r.districts}`;
+}

@@ -12,6 +12,7 @@ import { AppError, NotFoundError } from '../http/errors';
 import type { Caller, Role } from '../http/routes';
 import { forgetPerson, type ForgetResult } from '../retention/service';
 import { getSettings } from '../settings/service';
+import { forgetSessionPerson } from './session-person';
 import * as store from './store';
 
 export type PersonStatus = 'active' | 'invited' | 'expired' | 'deactivated';
@@ -124,7 +125,7 @@ export async function resendInvitation(
  * at once. Audited with before and after.
  */
 export async function resetIdentity(db: Knex, caller: Caller, id: number): Promise<PublicUser> {
-  return db.transaction(async (trx) => {
+  const result = await db.transaction(async (trx) => {
     const before = await store.findById(trx, id);
     if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
     if (before.googleSub === null) throw new AppError(409, 'identity_not_pinned', `${before.email} is not pinned to a Google identity yet.`, { id });
@@ -133,6 +134,9 @@ export async function resetIdentity(db: Knex, caller: Caller, id: number): Promi
     await audit.record(trx, { ...actor(caller), action: 'person.identity_reset', targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
     return publicUser(after);
   });
+  // The guard sees the change on this person's next request (other processes within PERSON_CACHE_MS).
+  forgetSessionPerson(id);
+  return result;
 }
 
 export async function updatePerson(
@@ -141,7 +145,7 @@ export async function updatePerson(
   id: number,
   patch: { role?: Role; active?: boolean; name?: string },
 ): Promise<PublicUser> {
-  return db.transaction(async (trx) => {
+  const result = await db.transaction(async (trx) => {
     const before = await store.findById(trx, id);
     if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
     const demotesLastAdmin =
@@ -158,6 +162,9 @@ export async function updatePerson(
     await audit.record(trx, { ...actor(caller), action, targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
     return publicUser(after);
   });
+  // The guard sees the change on this person's next request (other processes within PERSON_CACHE_MS).
+  forgetSessionPerson(id);
+  return result;
 }
 
 /**
@@ -166,7 +173,7 @@ export async function updatePerson(
  */
 export async function deletePerson(db: Knex, caller: Caller, id: number): Promise<{ id: number } & ForgetResult> {
   if (id === caller.id) throw new AppError(409, 'cannot_delete_self', 'You cannot delete your own account: ask another admin.');
-  return db.transaction(async (trx) => {
+  const result = await db.transaction(async (trx) => {
     const before = await store.findById(trx, id);
     if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
     const forgotten = await forgetPerson(trx, before);
@@ -181,6 +188,9 @@ export async function deletePerson(db: Knex, caller: Caller, id: number): Promis
     });
     return { id, ...forgotten };
   });
+  // The guard sees the change on this person's next request (other processes within PERSON_CACHE_MS).
+  forgetSessionPerson(id);
+  return result;
 }
 
 /** Start-up: make sure the first admin (from CRESTWATCH_FIRST_ADMIN) exists when there is none. */

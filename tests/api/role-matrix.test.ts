@@ -7,6 +7,7 @@ import type { Server } from 'node:http';
 import request from 'supertest';
 import type { CrestwatchApp } from '../../api/app';
 import { ensureDemoAccounts } from '../../api/people/service';
+import { PERSON_CACHE_MS } from '../../api/people/session-person';
 import type { Role, RouteSpec } from '../../api/http/routes';
 import type { Jobs } from '../../api/jobs/boss';
 import { closeServer, DEMO, listen, signInAs, type SignedIn } from '../support/auth';
@@ -39,6 +40,9 @@ beforeAll(async () => {
   // Deactivated after signing in: the session remains, the guard must refuse it.
   sessions.set('deactivated', await signInAs(server, 'leaver@crestwatch.example'));
   await t.db('users').where({ email: 'leaver@crestwatch.example' }).update({ active: false });
+  // A change made outside the people service (here: SQL by hand) reaches the guard once the
+  // signed-in person's cache entry lapses (api/people/session-person.ts).
+  await new Promise((r) => setTimeout(r, PERSON_CACHE_MS + 100));
 });
 afterAll(async () => {
   await jobs?.stop();
