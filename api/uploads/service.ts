@@ -80,7 +80,14 @@ const CHANGE_SETS = {
   derived: { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
 } satisfies Record<string, ChangeTable>;
 
-export async function receiveUpload(db: Knex, file: ReceivedFile, options: UploadOptions & { commit: boolean }, who: Who, now = new Date()): Promise<UploadAnswer> {
+/** `maxNewDistricts`: more new district codes in one file stop the read (UPLOAD_MAX_NEW_DISTRICTS). */
+export async function receiveUpload(
+  db: Knex,
+  file: ReceivedFile,
+  options: UploadOptions & { commit: boolean; maxNewDistricts?: number },
+  who: Who,
+  now = new Date(),
+): Promise<UploadAnswer> {
   return withConnection(db, async (conn) => {
     await staging.pruneStaging(conn, now);
     const done = await store.findCommittedByChecksum(conn, file.checksum);
@@ -182,9 +189,17 @@ type Outcome =
   | { kind: 'previewed' | 'failed'; preview: Preview; counts: Partial<store.UploadCounts> }
   | { kind: 'committed'; upload: store.UploadRecord; preview: Preview; counts: Partial<store.UploadCounts> };
 
-async function readIntoStaging(conn: PoolClient, t: staging.StagingNames, file: ReceivedFile, options: UploadOptions, problems: ProblemList, now: Date): Promise<ReadSummary> {
+async function readIntoStaging(
+  conn: PoolClient,
+  t: staging.StagingNames,
+  file: ReceivedFile,
+  options: UploadOptions & { maxNewDistricts?: number },
+  problems: ProblemList,
+  now: Date,
+): Promise<ReadSummary> {
   const catalogue = await loadCatalogue(conn);
-  const reader = new UploadReader({ catalogue, options, currentYear: now.getUTCFullYear(), problems });
+  const knownDistricts = options.maxNewDistricts === undefined ? undefined : await store.districtCodes(conn);
+  const reader = new UploadReader({ catalogue, options, currentYear: now.getUTCFullYear(), problems, knownDistricts, maxNewDistricts: options.maxNewDistricts });
   const parse = new Transform({
     transform(chunk: Buffer, _enc, cb) {
       try {

@@ -38,7 +38,11 @@ const SPACE = 32;
 const TAB = 9;
 const EMPTY = Buffer.alloc(0);
 
-/** A quoted field longer than this is taken for an unclosed quote. */
+/**
+ * The longest field, quoted or not: a quoted field that runs on past it is taken for an
+ * unclosed quote, an unquoted one stops the read where it passes the cap (no cell of an
+ * upload is anywhere near this long; the cell checks cap each kind far below it).
+ */
 export const MAX_FIELD_BYTES = 10_000;
 /** A record longer than this stops the read. */
 const MAX_RECORD_BYTES = 1 << 20;
@@ -67,6 +71,9 @@ export class CsvByteTokenizer {
   private badLines = 0;
   private validUpTo = 0;
   private openQuote: { line: number; column: number } | null = null;
+  /** Where the field being read starts (line, 1-based column), for a record cut off by the record cap. */
+  private atLine = 1;
+  private atColumn = 1;
   stopped = false;
 
   constructor(
@@ -104,7 +111,7 @@ export class CsvByteTokenizer {
       this.fatal(
         q
           ? { line: q.line, column: q.column, code: 'unclosed_quote', reason: 'the quote opened here is never closed (the field runs on past 1 MB)' }
-          : { line: this.line, column: null, code: 'field_too_long', reason: 'a line runs on past 1 MB' },
+          : { line: this.atLine, column: this.atColumn, code: 'field_too_long', reason: 'a line runs on past 1 MB' },
       );
     }
   }
@@ -120,6 +127,8 @@ export class CsvByteTokenizer {
     this.recordProblems.length = 0;
     this.openQuote = null;
     for (;;) {
+      this.atLine = line;
+      this.atColumn = count + 1;
       while (p < n && (b[p] === SPACE || (b[p] === TAB && delim !== TAB))) p++;
       if (p >= n) {
         if (!eof) return -1;
@@ -195,6 +204,7 @@ export class CsvByteTokenizer {
             });
           }
         }
+        if (p - s > MAX_FIELD_BYTES) return this.tooLong(line, count + 1);
         if (p >= n && !eof) return -1;
         e = p;
         while (e > s && (b[e - 1] === SPACE || (b[e - 1] === TAB && delim !== TAB))) e--;
@@ -280,6 +290,16 @@ export class CsvByteTokenizer {
       return;
     }
     this.recordProblems.push(p);
+  }
+
+  private tooLong(line: number, column: number): number {
+    this.fatal({
+      line,
+      column,
+      code: 'field_too_long',
+      reason: `a field runs on past ${MAX_FIELD_BYTES.toLocaleString('en')} bytes (the cap for one field, quoted or not)`,
+    });
+    return -1;
   }
 
   private unclosed(line: number, column: number): number {

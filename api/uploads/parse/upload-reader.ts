@@ -32,6 +32,9 @@ type Seen = DistrictSeen & { index: number; bytes: Buffer; keys: Int32Array };
 
 const TAB = 9;
 const LF = 10;
+/** Distinct unknown indicator codes kept for the problem list; rows naming others are counted in one problem. */
+const MAX_UNKNOWN_CODES = 1000;
+const NO_DISTRICTS: ReadonlySet<string> = new Set();
 
 export class UploadReader implements RecordSink {
   private tokenizer: CsvByteTokenizer | null = null;
@@ -47,6 +50,8 @@ export class UploadReader implements RecordSink {
   private readonly derivedSeen = new Map<string, { line: number; column: number; count: number }>();
   private readonly indicatorIndex = new Map<number, number>();
   private readonly nameConflicts = new Set<string>();
+  private newDistricts = 0;
+  private unknownBeyondCap: { line: number; column: number; count: number } | null = null;
   /** Duplicates listed in the problems, to be told the line of their first occurrence. */
   readonly duplicates: DuplicateRef[] = [];
   private lastDistrict: Seen | null = null;
@@ -194,6 +199,7 @@ export class UploadReader implements RecordSink {
       return;
     }
     const district = this.district(r);
+    if (this.summary.fatal) return;
     const year = this.year(r, L.year);
     if (L.format === 'long') {
       this.summary.values++;
@@ -236,6 +242,7 @@ export class UploadReader implements RecordSink {
     }
     let seen = this.districts.get(code.value);
     if (!seen) {
+      if (this.overNewDistrictCap(code.value, r.line, i)) return null;
       seen = {
         code: code.value,
         firstLine: r.line,
@@ -258,6 +265,22 @@ export class UploadReader implements RecordSink {
       if (raw !== '') this.districtName(seen, raw, r.line, L);
     }
     return seen;
+  }
+
+  /** Counts a code not seen before in this file; true (and the read stops) when it is one new district too many. */
+  private overNewDistrictCap(code: string, line: number, index: number): boolean {
+    const cap = this.ctx.maxNewDistricts;
+    if (cap === undefined || (this.ctx.knownDistricts ?? NO_DISTRICTS).has(code)) return false;
+    if (++this.newDistricts <= cap) return false;
+    this.stop({
+      line,
+      column: index + 1,
+      code: 'too_many_new_districts',
+      reason:
+        `district ${code} is new district number ${(cap + 1).toLocaleString('en')} in this file, over the cap of ` +
+        `${cap.toLocaleString('en')} new districts per upload (UPLOAD_MAX_NEW_DISTRICTS): split the file`,
+    });
+    return true;
   }
 
   private districtName(seen: Seen, raw: string, line: number, L: HeaderLayout): void {
@@ -294,9 +317,12 @@ export class UploadReader implements RecordSink {
     }
     this.lastIndicatorBytes = null;
     const bucket = ref ? this.derivedSeen : this.unknownIndicators;
-    const entry = bucket.get(code);
+    const key = code.length > 64 ? `${code.slice(0, 64)}…` : code;
+    const entry = bucket.get(key);
     if (entry) entry.count++;
-    else bucket.set(code, { line: r.line, column: i + 1, count: 1 });
+    else if (bucket.size < MAX_UNKNOWN_CODES) bucket.set(key, { line: r.line, column: i + 1, count: 1 });
+    else if (this.unknownBeyondCap) this.unknownBeyondCap.count++;
+    else this.unknownBeyondCap = { line: r.line, column: i + 1, count: 1 };
     return null;
   }
 
@@ -378,6 +404,16 @@ export class UploadReader implements RecordSink {
     const times = (n: number) => (n > 1 ? ` (${n.toLocaleString('en')} rows)` : '');
     for (const [code, e] of this.unknownIndicators) {
       this.problems.add({ line: e.line, column: e.column, field: 'indicator', code: 'unknown_indicator', reason: `"${clip(code)}" is not an indicator in the catalogue${times(e.count)}` });
+    }
+    const more = this.unknownBeyondCap;
+    if (more) {
+      this.problems.add({
+        line: more.line,
+        column: more.column,
+        field: 'indicator',
+        code: 'unknown_indicator',
+        reason: `${more.count.toLocaleString('en')} more row${more.count === 1 ? '' : 's'} name indicators that are not in the catalogue (only the first ${MAX_UNKNOWN_CODES.toLocaleString('en')} distinct codes are listed)`,
+      });
     }
     for (const [code, e] of this.derivedSeen) {
       this.problems.add({ line: e.line, column: e.column, field: 'indicator', code: 'derived_indicator', reason: `${derivedReason(code)}${times(e.count)}` });
