@@ -33,7 +33,8 @@ module.exports = {
       // API tests: supertest against the exported app and a real PostgreSQL.
       displayName: 'api',
       testEnvironment: 'node',
-      roots: ['<rootDir>/tests/api'],
+      // tests/security: the hostile-input suite (same database and server as the API tests).
+      roots: ['<rootDir>/tests/api', '<rootDir>/tests/security'],
       testMatch: ['**/*.test.ts'],
       transform: {
         '^.+\\.[tj]sx?$': ['ts-jest', { tsconfig: '<rootDir>/api/tsconfig.json' }],
