@@ -15,7 +15,15 @@ export interface ReferenceCounts {
 const NOT_INDICATORS = new Set(['district_code', 'district_name', 'year']);
 
 export function referenceCounts(bytes: Buffer, delimiter: string, format: 'long' | 'wide'): ReferenceCounts {
-  const records: string[][] = parse(bytes, { bom: true, delimiter, trim: true, relax_column_count: true, skip_empty_lines: false });
+  const records: string[][] = parse(bytes, {
+    bom: true,
+    delimiter,
+    // The upload dialect: any of the three line ends, on any line (a file pieced together from two exports mixes them).
+    record_delimiter: ['\r\n', '\n', '\r'],
+    trim: true,
+    relax_column_count: true,
+    skip_empty_lines: false,
+  });
   const blank = (r: string[]) => r.every((c) => c === '');
   const start = records.findIndex((r) => !blank(r));
   const header = records[start].map((c) => c.trim().toLowerCase().replace(/[\s-]+/g, '_'));
