@@ -91,7 +91,8 @@ function baseCells(u: U): Base {
     const t = chance(u, 0.1) ? `${(Number(v) / 1000).toString()}e3` : v;
     return decimalComma ? t.replace('.', ',') : t;
   };
-  const nameOf = (d: string) => (d.startsWith('Z') ? `${pick(u, NAME_PARTS)} ${d}` : '');
+  // One name per new code (a second name for the same code is a conflict, not a benign file).
+  const nameOf = (d: string) => (d.startsWith('Z') ? `${NAME_PARTS[Number(d.slice(1)) % NAME_PARTS.length]} ${d}` : '');
   let header: string[];
   const rows: string[][] = [];
   if (format === 'long') {
