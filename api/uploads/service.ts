@@ -13,7 +13,7 @@ import { AppError, NotFoundError } from '../http/errors';
 import { dropEvaluationViews, evaluateStaged, type Columns, type Evaluation } from './evaluate-store';
 import { applyChanges, type ChangeTable } from './merge-store';
 import { UploadReader, type CatalogueEntry, type ReadSummary } from './parse/upload-reader';
-import { buildPreview, summaryOf, type Preview, type UploadSummary } from './present';
+import { buildPreview, DISTRICT_ORDER, PREVIEW_LIST_CAP, summaryOf, type Preview, type UploadSummary } from './present';
 import { ProblemList, summarise, type Problem } from './problems';
 import type { UploadOptions } from './schema';
 import { inTransaction, lockObservations, withConnection, type Sql } from './sql';
@@ -297,8 +297,14 @@ function countsOf(ev: Evaluation): Partial<store.UploadCounts> {
 }
 
 async function previewOf(conn: Sql, read: ReadSummary, ev: Evaluation, options: UploadOptions): Promise<Preview> {
+  // Names only for the districts the preview lists (the first PREVIEW_LIST_CAP by code).
   const districtIds = [...new Set(ev.cells.map((c) => c.districtId))];
-  const { rows: ds } = await conn.query(`SELECT id, code, name FROM districts WHERE id = ANY($1)`, [districtIds]);
+  let listed = districtIds;
+  if (districtIds.length > PREVIEW_LIST_CAP) {
+    const { rows: codes } = await conn.query<{ id: number; code: string }>(`SELECT id, code FROM districts WHERE id = ANY($1)`, [districtIds]);
+    listed = codes.sort((a, b) => DISTRICT_ORDER.compare(a.code, b.code)).slice(0, PREVIEW_LIST_CAP).map((d) => d.id);
+  }
+  const { rows: ds } = await conn.query(`SELECT id, code, name FROM districts WHERE id = ANY($1)`, [listed]);
   const { rows: is } = await conn.query(`SELECT id, code, name FROM indicators`);
   return buildPreview(
     read,

@@ -28,7 +28,7 @@ const SLOW = cells.NumberKind.Slow;
 
 export type { CatalogueEntry, DistrictSeen, DuplicateRef, ReaderContext, ReadSummary } from './read-summary';
 
-type Seen = DistrictSeen & { index: number; bytes: Buffer; keys: Int32Array };
+type Seen = DistrictSeen & { index: number; bytes: Buffer; keys: number };
 
 const TAB = 9;
 const LF = 10;
