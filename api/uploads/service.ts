@@ -220,6 +220,8 @@ async function readIntoStaging(
   const read = reader.result();
   if (read.fatal) return read;
   await staging.saveDistrictsSeen(conn, t, read.districts);
+  // They are in the staging table now; up to 50,000 of them need not stay in memory through the checks.
+  read.districts = [];
   const lines = await staging.firstLines(conn, t, reader.duplicates);
   for (const d of reader.duplicates) {
     const line = lines.get(`${d.district}|${d.indicatorId}|${d.year}`);
