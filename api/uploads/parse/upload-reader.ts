@@ -13,6 +13,7 @@ import * as cells from './cells';
 import { CsvByteTokenizer, fieldText, type RecordSink, type RecordView, type TokenizerProblem } from './csv-bytes';
 import { derivedReason, detectDelimiter, readHeader, type HeaderLayout } from './header';
 import { KeySet } from './key-set';
+import { CodeTally, NewDistrictCap } from './tallies';
 import type { CatalogueEntry, DistrictSeen, DuplicateRef, ReaderContext, ReadSummary } from './read-summary';
 import { checkDistrictCode, checkDistrictName, checkNumber, checkYear, clip, MAX_YEAR as MAX_Y, MIN_YEAR as MIN_Y } from './values';
 
@@ -32,9 +33,6 @@ type Seen = DistrictSeen & { index: number; bytes: Buffer; keys: number };
 
 const TAB = 9;
 const LF = 10;
-/** Distinct unknown indicator codes kept for the problem list; rows naming others are counted in one problem. */
-const MAX_UNKNOWN_CODES = 1000;
-const NO_DISTRICTS: ReadonlySet<string> = new Set();
 
 export class UploadReader implements RecordSink {
   private tokenizer: CsvByteTokenizer | null = null;
@@ -46,12 +44,11 @@ export class UploadReader implements RecordSink {
   private readonly out: cells.OutBuffer = new OutBuffer();
   private readonly districts = new Map<string, Seen>();
   private readonly keys: KeySet;
-  private readonly unknownIndicators = new Map<string, { line: number; column: number; count: number }>();
-  private readonly derivedSeen = new Map<string, { line: number; column: number; count: number }>();
+  private readonly unknownIndicators = new CodeTally();
+  private readonly derivedSeen = new CodeTally();
   private readonly indicatorIndex = new Map<number, number>();
   private readonly nameConflicts = new Set<string>();
-  private newDistricts = 0;
-  private unknownBeyondCap: { line: number; column: number; count: number } | null = null;
+  private readonly newDistricts: NewDistrictCap;
   /** Duplicates listed in the problems, to be told the line of their first occurrence. */
   readonly duplicates: DuplicateRef[] = [];
   private lastDistrict: Seen | null = null;
@@ -78,6 +75,7 @@ export class UploadReader implements RecordSink {
     let k = 0;
     for (const ref of ctx.catalogue.values()) this.indicatorIndex.set(ref.id, k++);
     this.keys = new KeySet(k);
+    this.newDistricts = new NewDistrictCap(ctx.knownDistricts, ctx.maxNewDistricts);
   }
 
   /** Feed a chunk of the file; returns COPY text for the rows it completed. */
@@ -242,7 +240,11 @@ export class UploadReader implements RecordSink {
     }
     let seen = this.districts.get(code.value);
     if (!seen) {
-      if (this.overNewDistrictCap(code.value, r.line, i)) return null;
+      const tooMany = this.newDistricts.admit(code.value, r.line, i + 1);
+      if (tooMany) {
+        this.stop(tooMany);
+        return null;
+      }
       seen = {
         code: code.value,
         firstLine: r.line,
@@ -265,22 +267,6 @@ export class UploadReader implements RecordSink {
       if (raw !== '') this.districtName(seen, raw, r.line, L);
     }
     return seen;
-  }
-
-  /** Counts a code not seen before in this file; true (and the read stops) when it is one new district too many. */
-  private overNewDistrictCap(code: string, line: number, index: number): boolean {
-    const cap = this.ctx.maxNewDistricts;
-    if (cap === undefined || (this.ctx.knownDistricts ?? NO_DISTRICTS).has(code)) return false;
-    if (++this.newDistricts <= cap) return false;
-    this.stop({
-      line,
-      column: index + 1,
-      code: 'too_many_new_districts',
-      reason:
-        `district ${code} is new district number ${(cap + 1).toLocaleString('en')} in this file, over the cap of ` +
-        `${cap.toLocaleString('en')} new districts per upload (UPLOAD_MAX_NEW_DISTRICTS): split the file`,
-    });
-    return true;
   }
 
   private districtName(seen: Seen, raw: string, line: number, L: HeaderLayout): void {
@@ -316,13 +302,7 @@ export class UploadReader implements RecordSink {
       return this.lastIndicator;
     }
     this.lastIndicatorBytes = null;
-    const bucket = ref ? this.derivedSeen : this.unknownIndicators;
-    const key = code.length > 64 ? `${code.slice(0, 64)}…` : code;
-    const entry = bucket.get(key);
-    if (entry) entry.count++;
-    else if (bucket.size < MAX_UNKNOWN_CODES) bucket.set(key, { line: r.line, column: i + 1, count: 1 });
-    else if (this.unknownBeyondCap) this.unknownBeyondCap.count++;
-    else this.unknownBeyondCap = { line: r.line, column: i + 1, count: 1 };
+    (ref ? this.derivedSeen : this.unknownIndicators).add(code, r.line, i + 1);
     return null;
   }
 
@@ -401,23 +381,8 @@ export class UploadReader implements RecordSink {
       this.summary.fatal = true;
       return;
     }
-    const times = (n: number) => (n > 1 ? ` (${n.toLocaleString('en')} rows)` : '');
-    for (const [code, e] of this.unknownIndicators) {
-      this.problems.add({ line: e.line, column: e.column, field: 'indicator', code: 'unknown_indicator', reason: `"${clip(code)}" is not an indicator in the catalogue${times(e.count)}` });
-    }
-    const more = this.unknownBeyondCap;
-    if (more) {
-      this.problems.add({
-        line: more.line,
-        column: more.column,
-        field: 'indicator',
-        code: 'unknown_indicator',
-        reason: `${more.count.toLocaleString('en')} more row${more.count === 1 ? '' : 's'} name indicators that are not in the catalogue (only the first ${MAX_UNKNOWN_CODES.toLocaleString('en')} distinct codes are listed)`,
-      });
-    }
-    for (const [code, e] of this.derivedSeen) {
-      this.problems.add({ line: e.line, column: e.column, field: 'indicator', code: 'derived_indicator', reason: `${derivedReason(code)}${times(e.count)}` });
-    }
+    for (const p of this.unknownIndicators.problems('unknown_indicator', (c) => `"${clip(c)}" is not an indicator in the catalogue`)) this.problems.add(p);
+    for (const p of this.derivedSeen.problems('derived_indicator', derivedReason)) this.problems.add(p);
   }
 }
 
