@@ -33,6 +33,7 @@ module.exports = {
       // API tests: supertest against the exported app and a real PostgreSQL.
       displayName: 'api',
       testEnvironment: 'node',
+      // tests/security: the hostile-input suite (same database and server as the API tests).
       roots: ['<rootDir>/tests/api', '<rootDir>/tests/security'],
       testMatch: ['**/*.test.ts'],
       // Browser checks in tests/security run with the e2e project (they need the web build).

@@ -60,6 +60,8 @@ export interface Config {
   firstAdminEmail: string | null;
   /** Maximum upload size in bytes. */
   uploadMaxBytes: number;
+  /** New district codes one upload may bring; one more stops the read (keeps a file of distinct codes from filling memory). */
+  uploadMaxNewDistricts: number;
   /** Seconds before a job whose worker died is retried elsewhere. */
   jobExpireSeconds: number;
   /** Worker polling interval in seconds (pg-boss's floor is 0.5). */
@@ -187,6 +189,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: env.MAIL_FROM ?? 'Crestwatch <no-reply@crestwatch.example>',
     firstAdminEmail: env.CRESTWATCH_FIRST_ADMIN ?? (mode === 'production' ? null : 'admin@crestwatch.example'),
     uploadMaxBytes: intFrom(env, 'UPLOAD_MAX_BYTES', 50 * 1024 * 1024),
+    uploadMaxNewDistricts: intFrom(env, 'UPLOAD_MAX_NEW_DISTRICTS', 50_000),
     jobExpireSeconds: intFrom(env, 'JOB_EXPIRE_SECONDS', 300),
     jobPollSeconds: Math.max(0.5, Number(env.JOB_POLL_SECONDS ?? 0.5)),
     jobMaintenanceSeconds: intFrom(env, 'JOB_MAINTENANCE_SECONDS', 30),

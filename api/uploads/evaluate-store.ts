@@ -96,17 +96,20 @@ export async function dropEvaluationViews(conn: Sql): Promise<void> {
 
 async function settleDistricts(conn: Sql, t: StagingNames, columns: Columns, options: EvaluateOptions, problems: ProblemList) {
   const { rows } = await conn.query(
-    `SELECT sd.code, sd.first_line, sd.rows, sd.name, sd.name_line, sd.name_refused, d.id, d.name AS stored_name
+    // A new district's name stays in the database (the INSERT below reads it there): a file
+    // of 50,000 new districts need not bring their names back and forth.
+    `SELECT sd.code, sd.first_line, sd.rows, CASE WHEN d.id IS NULL THEN NULL ELSE sd.name END AS name,
+            sd.name IS NOT NULL AS has_name, sd.name_line, sd.name_refused, d.id, d.name AS stored_name
        FROM ${t.districts} sd LEFT JOIN districts d ON d.code = sd.code
       ORDER BY sd.first_line`,
   );
-  const create: { code: string; name: string; line: number }[] = [];
+  const create: { code: string; line: number }[] = [];
   let refusedRows = 0;
   const nameField = columns.name === null ? null : columns.names[columns.name - 1];
   for (const r of rows) {
     if (r.id === null) {
-      if (r.name !== null || options.allowNewDistricts) {
-        create.push({ code: r.code, name: r.name ?? r.code, line: r.first_line });
+      if (r.has_name || options.allowNewDistricts) {
+        create.push({ code: r.code, line: r.first_line });
       } else if (r.name_refused) {
         // Its name cell was refused already; that problem says what to fix.
         refusedRows += r.rows;
@@ -137,9 +140,11 @@ async function settleDistricts(conn: Sql, t: StagingNames, columns: Columns, opt
   if (create.length) {
     const { rows: made } = await conn.query(
       `INSERT INTO districts (code, name)
-       SELECT code, name FROM unnest($1::text[], $2::text[]) WITH ORDINALITY AS n(code, name, i) ORDER BY i
+       SELECT sd.code, coalesce(sd.name, sd.code)
+         FROM unnest($1::text[]) WITH ORDINALITY AS n(code, i) JOIN ${t.districts} sd ON sd.code = n.code
+        ORDER BY n.i
        ON CONFLICT (code) DO NOTHING RETURNING id, code, name`,
-      [create.map((c) => c.code), create.map((c) => c.name)],
+      [create.map((c) => c.code)],
     );
     const lines = new Map(create.map((c) => [c.code, c.line]));
     for (const m of made) newDistricts.push({ id: m.id, code: m.code, name: m.name, line: lines.get(m.code)! });

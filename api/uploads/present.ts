@@ -71,6 +71,9 @@ export interface Preview {
   byIndicator: ({ indicator: string; name: string } & KindCounts)[];
   byDistrict: ({ district: string; name: string; isNew: boolean; indicators: Record<string, KindCounts> } & KindCounts)[];
   newDistricts: { code: string; name: string; line: number }[];
+  /** How many districts the file touches and how many it adds (the two lists above stop at PREVIEW_LIST_CAP). */
+  districtsTotal: number;
+  newDistrictsTotal: number;
   derived: { indicator: string; insert: number; change: number; remove: number }[];
   /** When the staged rows of a preview are dropped. */
   expiresAt: string | null;
@@ -78,6 +81,17 @@ export interface Preview {
 
 const zero = (): KindCounts => ({ insert: 0, change: 0, unchanged: 0 });
 const KIND = { i: 'insert', c: 'change', u: 'unchanged' } as const;
+/**
+ * One collator for every comparison: `localeCompare` with options builds a collator per
+ * call, which for a preview of 50,000 districts cost over 100 MB of memory and seconds.
+ */
+export const DISTRICT_ORDER = new Intl.Collator('en', { numeric: true });
+
+/**
+ * The per-district lists of a preview stop here (the totals count all): a file of 50,000
+ * new districts would otherwise answer, and keep in the upload's row, a preview of 30 MB.
+ */
+export const PREVIEW_LIST_CAP = 1000;
 
 export function buildPreview(
   read: ReadSummary,
@@ -89,12 +103,16 @@ export function buildPreview(
   const totals = zero();
   const byIndicator = new Map<number, KindCounts>();
   const byDistrict = new Map<number, KindCounts & { indicators: Record<string, KindCounts> }>();
+  const districtIds = new Set<number>();
   for (const c of ev?.cells ?? []) {
     const k = KIND[c.kind];
     totals[k] += c.n;
     const ind = byIndicator.get(c.indicatorId) ?? zero();
     ind[k] += c.n;
     byIndicator.set(c.indicatorId, ind);
+    districtIds.add(c.districtId);
+    // Only the districts named in `names` are listed (the caller picks at most PREVIEW_LIST_CAP).
+    if (!names.districts.has(c.districtId)) continue;
     const dist = byDistrict.get(c.districtId) ?? { ...zero(), indicators: {} };
     dist[k] += c.n;
     const code = names.indicators.get(c.indicatorId)?.code ?? String(c.indicatorId);
@@ -122,8 +140,11 @@ export function buildPreview(
       .sort((a, b) => a.indicator.localeCompare(b.indicator)),
     byDistrict: [...byDistrict]
       .map(([id, c]) => ({ district: names.districts.get(id)?.code ?? String(id), name: names.districts.get(id)?.name ?? '', isNew: newIds.has(id), ...c }))
-      .sort((a, b) => a.district.localeCompare(b.district, 'en', { numeric: true })),
-    newDistricts: (ev?.newDistricts ?? []).map(({ code, name, line }) => ({ code, name, line })),
+      .sort((a, b) => DISTRICT_ORDER.compare(a.district, b.district))
+      .slice(0, PREVIEW_LIST_CAP),
+    newDistricts: (ev?.newDistricts ?? []).slice(0, PREVIEW_LIST_CAP).map(({ code, name, line }) => ({ code, name, line })),
+    districtsTotal: districtIds.size,
+    newDistrictsTotal: ev?.newDistricts.length ?? 0,
     derived: [...derived].map(([id, c]) => ({ indicator: names.indicators.get(id)?.code ?? String(id), ...c })),
     expiresAt: previewedAt ? new Date(previewedAt.getTime() + STAGING_TTL_HOURS * 3600_000).toISOString() : null,
   };

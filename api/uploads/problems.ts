@@ -19,6 +19,8 @@ export type ProblemCode =
   | 'unclosed_quote'
   | 'stray_quote'
   | 'field_too_long'
+  | 'cell_too_long'
+  | 'too_many_new_districts'
   | 'empty_value'
   | 'not_a_number'
   | 'not_finite'

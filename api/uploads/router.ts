@@ -30,7 +30,7 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
       handler: async ({ query }, req, res) => {
         const w = who(req);
         const changeFactor = query.changeFactor ?? (await getSettings(db)).uploadChangeFactor;
-        const answer = await service.receiveUpload(db, receivedFile(req), { ...query, changeFactor }, w);
+        const answer = await service.receiveUpload(db, receivedFile(req), { ...query, changeFactor, maxNewDistricts: config.uploadMaxNewDistricts }, w);
         if (!answer.noop) answer.timings.receiveMs = res.locals.receiveMs;
         if (!answer.noop && answer.upload.status === 'committed') {
           await record(w, 'upload.commit', answer.upload.id, { fileName: answer.upload.fileName, version: answer.upload.version, counts: answer.upload.counts });

@@ -13,7 +13,7 @@ import { AppError, NotFoundError } from '../http/errors';
 import { dropEvaluationViews, evaluateStaged, type Columns, type Evaluation } from './evaluate-store';
 import { applyChanges, type ChangeTable } from './merge-store';
 import { UploadReader, type CatalogueEntry, type ReadSummary } from './parse/upload-reader';
-import { buildPreview, summaryOf, type Preview, type UploadSummary } from './present';
+import { buildPreview, DISTRICT_ORDER, PREVIEW_LIST_CAP, summaryOf, type Preview, type UploadSummary } from './present';
 import { ProblemList, summarise, type Problem } from './problems';
 import type { UploadOptions } from './schema';
 import { inTransaction, lockObservations, withConnection, type Sql } from './sql';
@@ -80,7 +80,14 @@ const CHANGE_SETS = {
   derived: { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
 } satisfies Record<string, ChangeTable>;
 
-export async function receiveUpload(db: Knex, file: ReceivedFile, options: UploadOptions & { commit: boolean }, who: Who, now = new Date()): Promise<UploadAnswer> {
+/** `maxNewDistricts`: more new district codes in one file stop the read (UPLOAD_MAX_NEW_DISTRICTS). */
+export async function receiveUpload(
+  db: Knex,
+  file: ReceivedFile,
+  options: UploadOptions & { commit: boolean; maxNewDistricts?: number },
+  who: Who,
+  now = new Date(),
+): Promise<UploadAnswer> {
   return withConnection(db, async (conn) => {
     await staging.pruneStaging(conn, now);
     const done = await store.findCommittedByChecksum(conn, file.checksum);
@@ -182,9 +189,17 @@ type Outcome =
   | { kind: 'previewed' | 'failed'; preview: Preview; counts: Partial<store.UploadCounts> }
   | { kind: 'committed'; upload: store.UploadRecord; preview: Preview; counts: Partial<store.UploadCounts> };
 
-async function readIntoStaging(conn: PoolClient, t: staging.StagingNames, file: ReceivedFile, options: UploadOptions, problems: ProblemList, now: Date): Promise<ReadSummary> {
+async function readIntoStaging(
+  conn: PoolClient,
+  t: staging.StagingNames,
+  file: ReceivedFile,
+  options: UploadOptions & { maxNewDistricts?: number },
+  problems: ProblemList,
+  now: Date,
+): Promise<ReadSummary> {
   const catalogue = await loadCatalogue(conn);
-  const reader = new UploadReader({ catalogue, options, currentYear: now.getUTCFullYear(), problems });
+  const knownDistricts = options.maxNewDistricts === undefined ? undefined : await store.districtCodes(conn);
+  const reader = new UploadReader({ catalogue, options, currentYear: now.getUTCFullYear(), problems, knownDistricts, maxNewDistricts: options.maxNewDistricts });
   const parse = new Transform({
     transform(chunk: Buffer, _enc, cb) {
       try {
@@ -205,6 +220,8 @@ async function readIntoStaging(conn: PoolClient, t: staging.StagingNames, file: 
   const read = reader.result();
   if (read.fatal) return read;
   await staging.saveDistrictsSeen(conn, t, read.districts);
+  // They are in the staging table now; up to 50,000 of them need not stay in memory through the checks.
+  read.districts = [];
   const lines = await staging.firstLines(conn, t, reader.duplicates);
   for (const d of reader.duplicates) {
     const line = lines.get(`${d.district}|${d.indicatorId}|${d.year}`);
@@ -282,8 +299,14 @@ function countsOf(ev: Evaluation): Partial<store.UploadCounts> {
 }
 
 async function previewOf(conn: Sql, read: ReadSummary, ev: Evaluation, options: UploadOptions): Promise<Preview> {
+  // Names only for the districts the preview lists (the first PREVIEW_LIST_CAP by code).
   const districtIds = [...new Set(ev.cells.map((c) => c.districtId))];
-  const { rows: ds } = await conn.query(`SELECT id, code, name FROM districts WHERE id = ANY($1)`, [districtIds]);
+  let listed = districtIds;
+  if (districtIds.length > PREVIEW_LIST_CAP) {
+    const { rows: codes } = await conn.query<{ id: number; code: string }>(`SELECT id, code FROM districts WHERE id = ANY($1)`, [districtIds]);
+    listed = codes.sort((a, b) => DISTRICT_ORDER.compare(a.code, b.code)).slice(0, PREVIEW_LIST_CAP).map((d) => d.id);
+  }
+  const { rows: ds } = await conn.query(`SELECT id, code, name FROM districts WHERE id = ANY($1)`, [listed]);
   const { rows: is } = await conn.query(`SELECT id, code, name FROM indicators`);
   return buildPreview(
     read,

@@ -207,3 +207,9 @@ export async function latestVersion(db: Knex | Sql): Promise<{ version: number; 
 function isKnex(db: Knex | Sql): db is Knex {
   return typeof (db as Knex).raw === 'function';
 }
+
+/** Every stored district code (the reader counts the codes of a file that are not among them). */
+export async function districtCodes(conn: Sql): Promise<Set<string>> {
+  const { rows } = await conn.query<{ code: string }>(`SELECT code FROM districts`);
+  return new Set(rows.map((r) => r.code));
+}

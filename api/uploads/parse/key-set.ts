@@ -9,17 +9,28 @@
 export class KeySet {
   private bits = new Uint32Array(8 * 1024);
   private pairs = 0;
+  /** Every district's table of pair offsets by indicator position (-1 = none yet), end to end: one array, not one per district. */
+  private tables = new Int32Array(1024).fill(-1);
+  private tablesUsed = 0;
 
   constructor(private readonly indicatorCount: number) {}
 
-  /** A table for one district: pair offsets by indicator position (-1 = none yet). */
-  newDistrict(): Int32Array {
-    return new Int32Array(this.indicatorCount).fill(-1);
+  /** A table for one district; returns where it starts. */
+  newDistrict(): number {
+    const at = this.tablesUsed;
+    this.tablesUsed += this.indicatorCount;
+    if (this.tablesUsed > this.tables.length) {
+      const next = new Int32Array(Math.max(this.tables.length * 2, this.tablesUsed)).fill(-1);
+      next.set(this.tables);
+      this.tables = next;
+    }
+    return at;
   }
 
   /** Marks the key; false if it was marked already. `offset` is 0–255. */
-  add(district: Int32Array, indicator: number, offset: number): boolean {
-    let base = district[indicator];
+  add(district: number, indicator: number, offset: number): boolean {
+    const tables = this.tables;
+    let base = tables[district + indicator];
     if (base < 0) {
       base = this.pairs * 8;
       this.pairs++;
@@ -28,7 +39,7 @@ export class KeySet {
         next.set(this.bits);
         this.bits = next;
       }
-      district[indicator] = base;
+      tables[district + indicator] = base;
     }
     const w = base + (offset >>> 5);
     const m = 1 << (offset & 31);

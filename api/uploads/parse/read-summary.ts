@@ -40,6 +40,10 @@ export interface ReaderContext {
   options: UploadOptions;
   currentYear: number;
   problems: ProblemList;
+  /** Codes of the districts already stored (a code not among them is new). */
+  knownDistricts?: ReadonlySet<string>;
+  /** More new district codes than this stop the read (no cap when absent). */
+  maxNewDistricts?: number;
 }
 
 /** A duplicate key whose first line is looked up in the staged rows. */

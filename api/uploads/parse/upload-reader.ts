@@ -13,6 +13,7 @@ import * as cells from './cells';
 import { CsvByteTokenizer, fieldText, type RecordSink, type RecordView, type TokenizerProblem } from './csv-bytes';
 import { derivedReason, detectDelimiter, readHeader, type HeaderLayout } from './header';
 import { KeySet } from './key-set';
+import { CodeTally, NewDistrictCap } from './tallies';
 import type { CatalogueEntry, DistrictSeen, DuplicateRef, ReaderContext, ReadSummary } from './read-summary';
 import { checkDistrictCode, checkDistrictName, checkNumber, checkYear, clip, MAX_YEAR as MAX_Y, MIN_YEAR as MIN_Y } from './values';
 
@@ -28,7 +29,7 @@ const SLOW = cells.NumberKind.Slow;
 
 export type { CatalogueEntry, DistrictSeen, DuplicateRef, ReaderContext, ReadSummary } from './read-summary';
 
-type Seen = DistrictSeen & { index: number; bytes: Buffer; keys: Int32Array };
+type Seen = DistrictSeen & { index: number; bytes: Buffer; keys: number };
 
 const TAB = 9;
 const LF = 10;
@@ -43,10 +44,11 @@ export class UploadReader implements RecordSink {
   private readonly out: cells.OutBuffer = new OutBuffer();
   private readonly districts = new Map<string, Seen>();
   private readonly keys: KeySet;
-  private readonly unknownIndicators = new Map<string, { line: number; column: number; count: number }>();
-  private readonly derivedSeen = new Map<string, { line: number; column: number; count: number }>();
+  private readonly unknownIndicators = new CodeTally();
+  private readonly derivedSeen = new CodeTally();
   private readonly indicatorIndex = new Map<number, number>();
   private readonly nameConflicts = new Set<string>();
+  private readonly newDistricts: NewDistrictCap;
   /** Duplicates listed in the problems, to be told the line of their first occurrence. */
   readonly duplicates: DuplicateRef[] = [];
   private lastDistrict: Seen | null = null;
@@ -73,6 +75,7 @@ export class UploadReader implements RecordSink {
     let k = 0;
     for (const ref of ctx.catalogue.values()) this.indicatorIndex.set(ref.id, k++);
     this.keys = new KeySet(k);
+    this.newDistricts = new NewDistrictCap(ctx.knownDistricts, ctx.maxNewDistricts);
   }
 
   /** Feed a chunk of the file; returns COPY text for the rows it completed. */
@@ -194,6 +197,7 @@ export class UploadReader implements RecordSink {
       return;
     }
     const district = this.district(r);
+    if (this.summary.fatal) return;
     const year = this.year(r, L.year);
     if (L.format === 'long') {
       this.summary.values++;
@@ -236,6 +240,11 @@ export class UploadReader implements RecordSink {
     }
     let seen = this.districts.get(code.value);
     if (!seen) {
+      const tooMany = this.newDistricts.admit(code.value, r.line, i + 1);
+      if (tooMany) {
+        this.stop(tooMany);
+        return null;
+      }
       seen = {
         code: code.value,
         firstLine: r.line,
@@ -293,10 +302,7 @@ export class UploadReader implements RecordSink {
       return this.lastIndicator;
     }
     this.lastIndicatorBytes = null;
-    const bucket = ref ? this.derivedSeen : this.unknownIndicators;
-    const entry = bucket.get(code);
-    if (entry) entry.count++;
-    else bucket.set(code, { line: r.line, column: i + 1, count: 1 });
+    (ref ? this.derivedSeen : this.unknownIndicators).add(code, r.line, i + 1);
     return null;
   }
 
@@ -375,13 +381,8 @@ export class UploadReader implements RecordSink {
       this.summary.fatal = true;
       return;
     }
-    const times = (n: number) => (n > 1 ? ` (${n.toLocaleString('en')} rows)` : '');
-    for (const [code, e] of this.unknownIndicators) {
-      this.problems.add({ line: e.line, column: e.column, field: 'indicator', code: 'unknown_indicator', reason: `"${clip(code)}" is not an indicator in the catalogue${times(e.count)}` });
-    }
-    for (const [code, e] of this.derivedSeen) {
-      this.problems.add({ line: e.line, column: e.column, field: 'indicator', code: 'derived_indicator', reason: `${derivedReason(code)}${times(e.count)}` });
-    }
+    for (const p of this.unknownIndicators.problems('unknown_indicator', (c) => `"${clip(c)}" is not an indicator in the catalogue`)) this.problems.add(p);
+    for (const p of this.derivedSeen.problems('derived_indicator', derivedReason)) this.problems.add(p);
   }
 }
 

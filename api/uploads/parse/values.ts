@@ -1,15 +1,61 @@
 /**
  * Cell checks shared by both formats: numbers (decimal point, or decimal comma when the
  * analyst says so), years, district codes and names. Each returns the clean value or a
- * reason; the caller adds the line and column.
+ * reason; the caller adds the line and column. No pattern here backtracks: the cells are
+ * capped in length first and numbers are read by a scanner, so a hostile cell costs time
+ * in proportion to its length, never more.
  */
 import type { ProblemCode } from '../problems';
 
 export type Checked<T> = { ok: true; value: T } | { ok: false; code: ProblemCode; reason: string };
 
-const POINT_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
-const COMMA_NUMBER = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
 const NOT_FINITE = /^[+-]?(?:nan|inf|infinity|#num!|#div\/0!)$/i;
+
+/**
+ * Length caps per cell kind, checked before any pattern: every check after them runs on
+ * a short string, and the scanners below read each character once whatever the input.
+ */
+export const MAX_NUMBER_CHARS = 64;
+export const MAX_YEAR_CHARS = 64;
+export const MAX_CODE_CHARS = 64;
+export const MAX_NAME_CHARS = 200;
+function tooLong(raw: string, kind: string, cap: number): Checked<never> {
+  return {
+    ok: false,
+    code: 'cell_too_long',
+    reason: `the ${kind} is ${raw.length.toLocaleString('en')} characters long, over the cap of ${cap} characters for a ${kind} cell`,
+  };
+}
+
+const PLUS = 43;
+const MINUS = 45;
+const isDigit = (c: number) => c >= 48 && c <= 57;
+
+/**
+ * One pass: `[+-]? digits [sep digits] [(e|E) [+-]? digits]` with at least one digit
+ * before the exponent (so `5.`, `.5` and `-1,5e3` with a comma separator pass, `.`, `1e`
+ * and `1.2.3` do not).
+ */
+export function isDecimal(s: string, sep: number): boolean {
+  const n = s.length;
+  let i = 0;
+  if (i < n && (s.charCodeAt(i) === PLUS || s.charCodeAt(i) === MINUS)) i++;
+  let digits = 0;
+  while (i < n && isDigit(s.charCodeAt(i))) i++, digits++;
+  if (i < n && s.charCodeAt(i) === sep) {
+    i++;
+    while (i < n && isDigit(s.charCodeAt(i))) i++, digits++;
+  }
+  if (digits === 0) return false;
+  if (i < n && (s.charCodeAt(i) === 101 || s.charCodeAt(i) === 69)) {
+    i++;
+    if (i < n && (s.charCodeAt(i) === PLUS || s.charCodeAt(i) === MINUS)) i++;
+    let exp = 0;
+    while (i < n && isDigit(s.charCodeAt(i))) i++, exp++;
+    if (exp === 0) return false;
+  }
+  return i === n;
+}
 
 /**
  * A number cell. `text` is the form to hand to PostgreSQL (decimal point), which parses it
@@ -17,11 +63,12 @@ const NOT_FINITE = /^[+-]?(?:nan|inf|infinity|#num!|#div\/0!)$/i;
  */
 export function checkNumber(raw: string, decimalComma: boolean): Checked<number> & { text?: string } {
   if (raw === '') return { ok: false, code: 'empty_value', reason: 'the value is empty (leave the row out to record a gap)' };
+  if (raw.length > MAX_NUMBER_CHARS) return tooLong(raw, 'number', MAX_NUMBER_CHARS);
   let text = raw;
   if (decimalComma) {
-    if (!COMMA_NUMBER.test(raw)) return notNumber(raw, decimalComma);
+    if (!isDecimal(raw, 44)) return notNumber(raw, decimalComma);
     text = raw.replace(',', '.');
-  } else if (!POINT_NUMBER.test(raw)) {
+  } else if (!isDecimal(raw, 46)) {
     return notNumber(raw, decimalComma);
   }
   const n = Number(text);
@@ -45,6 +92,7 @@ export const MIN_YEAR = 1900;
 export const MAX_YEAR = 2100;
 
 export function checkYear(raw: string, currentYear: number): Checked<number> {
+  if (raw.length > MAX_YEAR_CHARS) return tooLong(raw, 'year', MAX_YEAR_CHARS);
   if (!/^\d{1,4}$/.test(raw)) {
     return { ok: false, code: 'bad_year', reason: raw === '' ? 'the year is empty' : `"${clip(raw)}" is not a year (four digits)` };
   }
@@ -58,6 +106,7 @@ export function checkYear(raw: string, currentYear: number): Checked<number> {
 export const DISTRICT_CODE = /^[A-Za-z0-9_-]{1,32}$/;
 
 export function checkDistrictCode(raw: string): Checked<string> {
+  if (raw.length > MAX_CODE_CHARS) return tooLong(raw, 'district code', MAX_CODE_CHARS);
   if (DISTRICT_CODE.test(raw)) return { ok: true, value: raw };
   return {
     ok: false,
@@ -66,14 +115,12 @@ export function checkDistrictCode(raw: string): Checked<string> {
   };
 }
 
-export const MAX_NAME_CHARS = 200;
-
 /**
  * A district name is kept as the text it is — a leading = + - @ stays, because it is a
  * name, not a formula; exports escape it (api/http/csv-escape.ts).
  */
 export function checkDistrictName(raw: string): Checked<string> {
-  if (raw.length > MAX_NAME_CHARS) return { ok: false, code: 'bad_district_name', reason: `the district name is longer than ${MAX_NAME_CHARS} characters` };
+  if (raw.length > MAX_NAME_CHARS) return tooLong(raw, 'district name', MAX_NAME_CHARS);
   if (/[\u0000-\u001F\u007F]/.test(raw)) return { ok: false, code: 'bad_district_name', reason: 'the district name contains a line break or control character' };
   return { ok: true, value: raw };
 }
