@@ -33,7 +33,8 @@ import { acquireWorkspace, releaseWorkspace, take, toArray, type Workspace } fro
  * Returns a plain JSON-serialisable object: `{ status: 'ok', … }`, or
  * `{ status: 'not_estimable', reason }` when there are fewer rows than spec.minYears
  * (default k + 5) or the design is rank deficient (e.g. a constant control) or HC3 is
- * undefined. No NaN or Infinity appears: undefined quantities are null with a reason.
+ * undefined, or a result fails its own check (`numerical_failure`, e.g. a cubic Fieller set
+ * without its turning point). No NaN or Infinity appears: undefined quantities are null with a reason.
  *
  * Throws: EstimationInputError for bad input — `invalid_argument` (model spec, cluster
  * covariance for one district, bad lag), `non_finite_value`, `non_positive_under_log`,
@@ -102,9 +103,15 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
   const xNow = x[last];
   const levelNow = data.xRaw[last];
   const lastYear = data.years[last];
-  const inf = curveInference({
-    coefficients: result.coefficients, covariance: result.covariance, slopeStart: 1, slopeTerms: m, xMin, xMax, df: result.df, spec,
-  });
+  let inf;
+  try {
+    inf = curveInference({
+      coefficients: result.coefficients, covariance: result.covariance, slopeStart: 1, slopeTerms: m, xMin, xMax, df: result.df, spec,
+    });
+  } catch (err) {
+    if (err instanceof EstimationInputError && err.code === 'numerical_failure') return notEstimable(spec, n, k, minYears, err.code, err.message, err.details);
+    throw err;
+  }
   const standing = districtStanding({
     shape: inf.shape.shape, turningPoints: inf.turningPoints, xNow, levelNow, method: spec.intervalMethod, level: spec.level,
   });

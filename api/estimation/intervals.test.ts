@@ -72,8 +72,35 @@ describe('real polynomial roots', () => {
     expect(realPolynomialRoots([0, 0, 0])).toEqual([]);
     const r = realPolynomialRoots([24, -50, 35, -10, 1]); // (x−1)(x−2)(x−3)(x−4)
     [1, 2, 3, 4].forEach((v, i) => expect(r[i]).toBeCloseTo(v, 12));
-    expect(realPolynomialRoots([2, 1e-20, 0])).toEqual([]); // leading terms below 1e-14 of the largest count as zero: a constant
     expect(realPolynomialRoots([2, 1e-3, 0])).toEqual([-2000]);
+    // only exact zeros lower the degree: 2 + 1e-20·x has its root at −2e20 (arithmetic)
+    expect(realPolynomialRoots([2, 1e-20, 0])[0] / -2e20).toBeCloseTo(1, 14);
+  });
+
+  // A quartic shaped like the level-form cubic Fieller quartic (coefficients spanning
+  // 1e-7 … 1e-24, leading one below 1e-14 of the largest): built from chosen roots, so the
+  // expected roots are the chosen ones (arithmetic).
+  const chosen = [-6751, 20178, 23821, 410000];
+  const expand = (roots: number[], lead: number): number[] => {
+    let c = [lead];
+    for (const r of roots) { const n = new Array(c.length + 1).fill(0); c.forEach((v, i) => { n[i + 1] += v; n[i] -= r * v; }); c = n; }
+    return c;
+  };
+  test('a tiny leading coefficient is kept: all four roots of a wide-range quartic come back', () => {
+    const q = expand(chosen, -1.6e-24);
+    expect(Math.abs(q[4]) / Math.max(...q.map(Math.abs))).toBeLessThan(1e-14); // the case the old relative test dropped
+    const r = realPolynomialRoots(q, 23821);
+    expect(r).toHaveLength(4);
+    r.forEach((v, i) => expect(Math.abs(v / chosen[i] - 1)).toBeLessThan(1e-12));
+    const auto = realPolynomialRoots(q); // without a scale: the root-size estimate
+    auto.forEach((v, i) => expect(Math.abs(v / chosen[i] - 1)).toBeLessThan(1e-12));
+  });
+  test.each([-3, 0, 3, 7])('roots follow the units of x: x × 10^%i scales every root by 10^k', (k) => {
+    const f = 10 ** k;
+    const q = expand(chosen.map((v) => v * f), -1.6e-24);
+    const r = realPolynomialRoots(q, 23821 * f);
+    expect(r).toHaveLength(4);
+    r.forEach((v, i) => expect(Math.abs(v / (chosen[i] * f) - 1)).toBeLessThan(1e-12));
   });
 });
 

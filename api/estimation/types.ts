@@ -140,6 +140,8 @@ export interface FiellerSet {
   B?: number;
   C?: number;
   discriminant?: number;
+  /** cubic sets: false when no piece contains x* (a numerical failure, never shown as an interval) */
+  containsTurningPoint?: boolean;
 }
 
 export interface UTestResult {
@@ -339,7 +341,7 @@ export interface CurveNotEstimable {
   n: number;
   k: number;
   minYears: number;
-  reason: { code: 'too_few_rows' | 'rank_deficient' | 'covariance_undefined'; message: string; details: Record<string, unknown> };
+  reason: { code: 'too_few_rows' | 'rank_deficient' | 'covariance_undefined' | 'numerical_failure'; message: string; details: Record<string, unknown> };
   standing: { standing: 'not_estimable' };
 }
 
@@ -391,7 +393,7 @@ export interface PanelNotEstimable {
   model: import('./model-spec').ModelSpec;
   n: number;
   k: number;
-  reason: { code: 'too_few_rows' | 'too_few_districts' | 'rank_deficient' | 'not_converged'; message: string; details: Record<string, unknown> };
+  reason: { code: 'too_few_rows' | 'too_few_districts' | 'rank_deficient' | 'not_converged' | 'numerical_failure'; message: string; details: Record<string, unknown> };
 }
 
 export type FitPanelResult = PanelFit | PanelNotEstimable;
