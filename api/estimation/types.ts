@@ -71,7 +71,7 @@ export interface CovarianceOptions {
 export interface OlsOptions extends CovarianceOptions {
   /** column names used in messages and results; default x0, x1, ... */
   names?: readonly string[];
-  /** 'auto' (default) uses double-double when the scaled condition estimate exceeds 1e7 */
+  /** 'auto' (default) uses double-double when the estimated forward error u·κ·(1 + κ‖r‖/(‖X‖‖b‖)) exceeds 1e-11 */
   precision?: 'auto' | 'double' | 'double-double';
   /** relative remaining-norm threshold for rank deficiency (default 1e-12) */
   rankTolerance?: number;
