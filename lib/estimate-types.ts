@@ -6,7 +6,7 @@
 export const STANDINGS = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'] as const;
 export type Standing = (typeof STANDINGS)[number];
 
-export const SHAPES = ['inverted_u', 'u', 'increasing', 'decreasing', 'flat'] as const;
+export const SHAPES = ['inverted_u', 'u', 'n_shape', 'inverted_n', 'increasing', 'decreasing', 'flat'] as const;
 export type Shape = (typeof SHAPES)[number];
 
 /**

@@ -183,7 +183,11 @@ export interface WaldTestResult {
   reason: string | null;
 }
 
-export type ShapeName = 'inverted_u' | 'u' | 'increasing' | 'decreasing' | 'flat';
+/**
+ * Shape over the observed range; `n_shape` (rises, falls, rises again) and `inverted_n`
+ * (falls, rises, falls) only for a cubic whose slope changes sign twice inside the range.
+ */
+export type ShapeName = 'inverted_u' | 'u' | 'increasing' | 'decreasing' | 'flat' | 'n_shape' | 'inverted_n';
 export type StandingName = 'approaching' | 'at_turn' | 'past_turn' | 'no_turn' | 'not_estimable';
 
 /** An interval end pair on the model's x scale and in real units (exp under the log transform). */
@@ -222,7 +226,7 @@ export interface SignRuleReading {
 
 export interface ShapeResult {
   shape: ShapeName;
-  decidedBy: 'u_test' | 'wald_flat' | 'slope_at_midpoint';
+  decidedBy: 'u_test' | 'wald_flat' | 'two_turns_in_range' | 'slope_at_midpoint';
   notes: string[];
   slopeAtMidpoint: { x: number; value: number; se: number | null };
   /** the common-practice first read from the signs of b1 and b2 */
