@@ -1,4 +1,5 @@
 import { curveDiagnostics } from './curve-diagnostics';
+import { centredCubicInference } from './centred-inference';
 import { curveInference } from './curve-inference';
 import { elasticityNow } from './elasticity';
 import { EstimationInputError } from './errors';
@@ -23,7 +24,8 @@ import { acquireWorkspace, releaseWorkspace, take, toArray, type Workspace } fro
  * the controls. OLS by pivoted QR (ols.ts) with the spec's covariance; inference with t on
  * n − k df (or normal); shape, standing, gap, elasticity, trend and projection as in
  * DOMAIN.md (see curve-inference.ts, standing.ts, gap.ts, elasticity.ts, income-trend.ts,
- * projection.ts, curve-diagnostics.ts). Under the log transform x_now, x_min, x_max are ln
+ * projection.ts, curve-diagnostics.ts); for a cubic the slope inference is computed on the
+ * centred and scaled design (centred-inference.ts). Under the log transform x_now, x_min, x_max are ln
  * values and the `level` fields exp of them.
  * References: Grossman, G. M. and Krueger, A. B. (1995), "Economic growth and the
  * environment", Quarterly Journal of Economics 110(2), 353–377 (the curve); Lind & Mehlum
@@ -104,10 +106,19 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
   const levelNow = data.xRaw[last];
   const lastYear = data.years[last];
   let inf;
+  let centred: ReturnType<typeof centredCubicInference> | null = null;
   try {
-    inf = curveInference({
-      coefficients: result.coefficients, covariance: result.covariance, slopeStart: 1, slopeTerms: m, xMin, xMax, df: result.df, spec,
-    });
+    if (m === 3 && xMax > xMin) {
+      centred = centredCubicInference({
+        x, controls: data.controls, y: data.y, n, rawSlope: [result.coefficients[1], result.coefficients[2], result.coefficients[3]],
+        xMin, xMax, xNow: x[n - 1], df: result.df, spec, options: { covariance: spec.covariance, lag: spec.lag },
+      });
+      inf = centred.inference;
+    } else {
+      inf = curveInference({
+        coefficients: result.coefficients, covariance: result.covariance, slopeStart: 1, slopeTerms: m, xMin, xMax, df: result.df, spec,
+      });
+    }
   } catch (err) {
     if (err instanceof EstimationInputError && err.code === 'numerical_failure') return notEstimable(spec, n, k, minYears, err.code, err.message, err.details);
     throw err;
@@ -119,7 +130,7 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
   const gap = tp ? thresholdGap(levelNow, tp.level, tp.extrapolated) : { percent: null, extrapolated: false, reason: 'no turning point' };
   const designRowNow = new Array<number>(k);
   for (let c = 0; c < k; c++) designRowNow[c] = design[c * n + last];
-  const elasticity = elasticityNow({
+  const elasticity = centred && spec.transform === 'log' ? centred.logElasticity(inf.critical.value) : elasticityNow({
     transform: spec.transform, coefficients: result.coefficients, covariance: result.covariance, slopeTerms: m, xNow,
     designRowNow, fittedNow: result.fitted[last], critical: inf.critical.value,
   });

@@ -174,6 +174,8 @@ describe('Wald test', () => {
     expect(w.pValue).toBeCloseTo(Math.pow(1 + 4 / 30, -15), 14); // F(2, 30) tail
     const chi = waldTest([1, 2], [[2, 0.5], [0.5, 1]], null, 0.05);
     expect(chi.pValue).toBeCloseTo(Math.exp(-2), 14); // χ²(2) tail at 4
+    // equilibrated pivoted Cholesky: C = [[1, 0.5/√2], [0.5/√2, 1]], pivots 1 and 1 − 1/8, condition (1/0.875)
+    expect(w.condition).toBeCloseTo(1 / 0.875, 14);
     const bad = waldTest([1, 2], [[1, 2], [2, 1]], 30, 0.05);
     expect(bad.statistic).toBeNull();
     expect(bad.reason).toMatch(/not positive definite/);

@@ -181,6 +181,8 @@ export interface WaldTestResult {
   pValue: number | null;
   rejects: boolean | null;
   reason: string | null;
+  /** condition of the equilibrated block (pivoted Cholesky estimate); null when not computed */
+  condition: number | null;
 }
 
 /**

@@ -60,7 +60,7 @@ describe('N-shapes in the engine', () => {
       slopeAtMidpoint: { x: 2, value: -1, se: 0.1 },
       signRule: null,
     };
-    const wald = (rejects: boolean | null) => ({ statistic: 1, q: 3, fStatistic: 1, df: 20, pValue: 0.01, rejects, reason: null });
+    const wald = (rejects: boolean | null) => ({ statistic: 1, q: 3, fStatistic: 1, df: 20, pValue: 0.01, rejects, reason: null, condition: 1 });
     const two = [{ x: 1, inRange: true, kind: 'peak' as const }, { x: 3, inRange: true, kind: 'trough' as const }];
     expect(classifyShape({ ...base, wald: wald(true), turningPoints: two }).shape).toBe('n_shape');
     expect(classifyShape({ ...base, wald: wald(false), turningPoints: two }).shape).toBe('flat');
