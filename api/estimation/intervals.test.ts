@@ -133,6 +133,11 @@ describe('cubic turning points and their Fieller-type sets', () => {
       const near = f.pieces.some((p) => [p.lo, p.hi].some((e) => e !== null && Math.abs(e - t) < 1e-9));
       if (!near) expect(inside).toBe(s * s <= c * c * v);
     }
+    // a point no piece contains (0 is not a turning point of −3 + 3x²) is reported, never given a ray
+    const stray = cubicFieller(-3, 0, 1, V, c, 0);
+    expect(stray.containsTurningPoint).toBe(false);
+    expect([stray.lo, stray.hi]).toEqual([null, null]);
+    expect(f.containsTurningPoint).toBe(true);
     const wide = cubicFieller(-3, 0, 1, [[100, 0, 0], [0, 100, 0], [0, 0, 100]], c, 1);
     expect(wide.kind).toBe('whole_line');
   });
