@@ -171,7 +171,7 @@ describe('runs', () => {
     const original = (await analyst.get(`/api/runs/${firstRun}`)).body;
     expect(view.dataHash).toBe(original.dataHash);
     expect(view.dataVersion).toBe(original.dataVersion);
-    expect(view.reproduction).toEqual({ of: firstRun, identical: true, differences: 0 });
+    expect(view.reproduction).toEqual({ of: firstRun, identical: true, differences: 0, softwareChanged: false, originalSoftware: expect.any(String), changedAnswers: [] });
     // The current data differ from the first run's (the revision): reading as of the old version matters.
     expect(view.dataVersion).toBeLessThan((await analyst.get(`/api/runs/${secondRun}`)).body.dataVersion);
   });
