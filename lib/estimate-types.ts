@@ -140,6 +140,8 @@ export type DistrictEstimateResponse = {
   variants: VariantSummary[];
   /** The reviewing analyst's note on this district in the published run. */
   note: { note: string; authorEmail: string | null; updatedAt: string } | null;
+  /** Dated notice while the latest publish corrected this district's answer (api/runs/corrections.ts). */
+  correction?: { softwareVersion: string; previousSoftware: string; date: string; fields: string[]; text: string } | null;
 };
 
 export type RegionDistrict = { code: string; name: string; estimate: EstimateSummary | null };

@@ -103,7 +103,9 @@ function standingDetail(r: EstimateRecord): string | null {
   return null;
 }
 
-export function districtBriefContent(src: BriefSource, district: { code: string; name: string }, r: EstimateRecord, note: string | null): DistrictBriefContent {
+export function districtBriefContent(
+  src: BriefSource, district: { code: string; name: string }, r: EstimateRecord, note: string | null, correction: string | null = null,
+): DistrictBriefContent {
   const th = thresholdTexts(r);
   const pr = projectionTexts(r);
   const el = elasticityTexts(r);
@@ -164,6 +166,7 @@ export function districtBriefContent(src: BriefSource, district: { code: string;
     reading: reading(r, th, incomeName),
     substitute: sub ? `Series too short for its own curve (${r.n} years, ${span(r)}): the regional pooled curve stands in, read at this district’s income and trend.` : null,
     analystNote: note,
+    correctionNotice: correction,
     modelLine: `${sub ? 'Regional substitute. ' : ''}${modelLine(src, { pooled: sub, lag: r.model.lag })} ${r.n} years used (${span(r)})${r.droppedYears.length ? `; left out for missing values: ${r.droppedYears.join(', ')}` : ''}.`,
     cautions: [...CAUTIONS],
     trace,

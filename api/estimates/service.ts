@@ -6,6 +6,7 @@
 import type { Knex } from 'knex';
 import { NotFoundError } from '../http/errors';
 import type { EstimateRecord } from '../runs/estimate-record';
+import { correctionNotice } from '../runs/corrections';
 import * as runs from '../runs/store';
 
 export function publishedRunMeta(run: runs.RunRow) {
@@ -98,14 +99,15 @@ async function districtRow(db: Knex, code: string): Promise<{ id: number; code: 
 export async function districtEstimate(db: Knex, code: string) {
   const d = await districtRow(db, code);
   const run = await runs.latestPublished(db);
-  if (!run) return { district: { code: d.code, name: d.name }, run: null, main: null, variants: [], note: null };
+  if (!run) return { district: { code: d.code, name: d.name }, run: null, main: null, variants: [], note: null, correction: null };
   const records = await runs.estimateRecords(db, run.id, d.id);
+  const correction = await correctionNotice(db, run, d.id);
   const note = (await runs.notesFor(db, run.id)).get(d.id) ?? null;
   const main = records.find((r) => r.variant === 'main') ?? null;
   const variants = records
     .filter((r) => r.variant !== 'main')
     .map((r) => ({ variant: r.variant, ...summaryOf(r), reason: r.reason }));
-  return { district: { code: d.code, name: d.name }, run: publishedRunMeta(run), main, variants, note };
+  return { district: { code: d.code, name: d.name }, run: publishedRunMeta(run), main, variants, note, correction };
 }
 
 export async function districtHistory(db: Knex, code: string) {

@@ -4,7 +4,9 @@
  * the current software on the same data version. The review screen lists them, naming the
  * software change, so a correction in the engine is never silent.
  */
+import type { Knex } from 'knex';
 import type { EstimateRecord } from './estimate-record';
+import { estimateRecords, findRun, type RunRow } from './store';
 
 export type AnswerField = 'status' | 'threshold' | 'interval' | 'standing';
 
@@ -71,4 +73,43 @@ export function answerChanges(
   }
   for (const r of reproduced) if (!seen.has(r.code)) out.push({ code: r.code, name: r.name, fields: ['status'], before: null, after: snapshot(r) });
   return out.sort((a, b) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0));
+}
+
+/**
+ * The dated notice a district's card and brief carry while the latest published run is a
+ * reproduction, on newer software, of an earlier run and this district's answer changed
+ * ("threshold corrected in software version …"). It lasts until the next publish, because
+ * only the latest published run is ever read.
+ *
+ * Example: → { softwareVersion: '0.2.0', previousSoftware: '0.1.0', date: '2026-12-04', fields: ['threshold'],
+ *   text: 'Threshold corrected in software version 0.2.0 on 2026-12-04 (first published with version 0.1.0).' }
+ */
+export async function correctionNotice(db: Knex, run: RunRow, districtId: number): Promise<CorrectionNotice | null> {
+  if (!run.reproducesRunId || !run.publishedAt) return null;
+  const original = await findRun(db, run.reproducesRunId);
+  if (!original || original.softwareVersion === run.softwareVersion) return null;
+  const [before, after] = await Promise.all([estimateRecords(db, original.id, districtId), estimateRecords(db, run.id, districtId)]);
+  const b = before.find((r) => r.variant === 'main');
+  const a = after.find((r) => r.variant === 'main');
+  if (!b || !a) return null;
+  const [change] = answerChanges([{ ...b, code: '', name: '' }], [{ ...a, code: '', name: '' }]);
+  if (!change) return null;
+  const date = run.publishedAt.slice(0, 10);
+  const what = change.fields.includes('threshold') ? 'Threshold' : change.fields.includes('interval') ? 'Threshold interval' : 'Standing';
+  return {
+    softwareVersion: run.softwareVersion,
+    previousSoftware: original.softwareVersion,
+    date,
+    fields: change.fields,
+    text: `${what} corrected in software version ${run.softwareVersion} on ${date} (first published with version ${original.softwareVersion}).`,
+  };
+}
+
+export interface CorrectionNotice {
+  softwareVersion: string;
+  previousSoftware: string;
+  /** the day the corrected run was published (YYYY-MM-DD) */
+  date: string;
+  fields: AnswerField[];
+  text: string;
 }
