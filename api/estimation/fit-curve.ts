@@ -120,7 +120,11 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
       });
     }
   } catch (err) {
-    if (err instanceof EstimationInputError && err.code === 'numerical_failure') return notEstimable(spec, n, k, minYears, err.code, err.message, err.details);
+    // numerical_failure from a cubic set; rank_deficient / covariance_undefined only if the
+    // centred refit of a cubic disagrees with the raw one at the rounding margin
+    if (err instanceof EstimationInputError && (err.code === 'numerical_failure' || err.code === 'rank_deficient' || err.code === 'covariance_undefined')) {
+      return notEstimable(spec, n, k, minYears, err.code, err.message, err.details);
+    }
     throw err;
   }
   const standing = districtStanding({
