@@ -84,6 +84,8 @@ export interface DistrictBriefContent {
   /** Said when the regional pooled curve stands in for the district's own. */
   substitute: string | null;
   analystNote: string | null;
+  /** "Threshold corrected in software version … on …" while the latest publish corrects an earlier one */
+  correctionNotice?: string | null;
   modelLine: string;
   cautions: string[];
   trace: BriefTrace;

@@ -6,8 +6,17 @@
 export const STANDINGS = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'] as const;
 export type Standing = (typeof STANDINGS)[number];
 
-export const SHAPES = ['inverted_u', 'u', 'increasing', 'decreasing', 'flat'] as const;
+export const SHAPES = ['inverted_u', 'u', 'n_shape', 'inverted_n', 'increasing', 'decreasing', 'flat'] as const;
 export type Shape = (typeof SHAPES)[number];
+
+/**
+ * Why a district's curve could not be read (api/estimation/types.ts CurveNotEstimable);
+ * input-error codes of the engine may also appear, hence the open end.
+ * `numerical_failure`: the result failed its own check (e.g. a cubic Fieller set that did
+ * not contain its turning point) and no number is shown.
+ */
+export type NotEstimableCode =
+  | 'too_few_rows' | 'rank_deficient' | 'covariance_undefined' | 'numerical_failure' | (string & Record<never, never>);
 
 export type FiellerKind = 'bounded' | 'two_rays' | 'whole_line';
 export type EstimateStatus = 'ok' | 'not_estimable' | 'substitute';
@@ -78,7 +87,7 @@ export type XY = { x: number; y: number };
 export type EstimateRecord = {
   variant: string;
   status: EstimateStatus;
-  reason: { code: string; message: string } | null;
+  reason: { code: NotEstimableCode; message: string } | null;
   model: ModelSpecView & { lag: number | null };
   n: number;
   k: number;
@@ -121,7 +130,7 @@ export type VariantName = 'no_controls' | 'cubic' | 'last20' | 'level';
 
 export type VariantSummary = EstimateSummary & {
   variant: VariantName;
-  reason: { code: string; message: string } | null;
+  reason: { code: NotEstimableCode; message: string } | null;
 };
 
 export type DistrictEstimateResponse = {
@@ -131,6 +140,8 @@ export type DistrictEstimateResponse = {
   variants: VariantSummary[];
   /** The reviewing analyst's note on this district in the published run. */
   note: { note: string; authorEmail: string | null; updatedAt: string } | null;
+  /** Dated notice while the latest publish corrected this district's answer (api/runs/corrections.ts). */
+  correction?: { softwareVersion: string; previousSoftware: string; date: string; fields: string[]; text: string } | null;
 };
 
 export type RegionDistrict = { code: string; name: string; estimate: EstimateSummary | null };

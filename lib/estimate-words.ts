@@ -24,6 +24,8 @@ export const STANDING_MEANING: Record<Standing, string> = {
 export const SHAPE_LABEL: Record<Shape, string> = {
   inverted_u: 'Rise then fall',
   u: 'Fall then rise',
+  n_shape: 'Rise, fall, rise again',
+  inverted_n: 'Fall, rise, fall again',
   increasing: 'Rising',
   decreasing: 'Falling',
   flat: 'Flat',
@@ -33,6 +35,8 @@ export const SHAPE_LABEL: Record<Shape, string> = {
 export const SHAPE_TECHNICAL: Record<Shape, string> = {
   inverted_u: 'inverted U',
   u: 'U',
+  n_shape: 'N-shaped',
+  inverted_n: 'inverted N',
   increasing: 'increasing',
   decreasing: 'decreasing',
   flat: 'flat',
@@ -138,4 +142,4 @@ export function yearWithRange(year: number, earliest: number | null, latest: num
 }
 
 /** Shapes in the order the method page explains them. */
-export const SHAPES_IN_ORDER = ['inverted_u', 'u', 'increasing', 'decreasing', 'flat'] as const;
+export const SHAPES_IN_ORDER = ['inverted_u', 'u', 'n_shape', 'inverted_n', 'increasing', 'decreasing', 'flat'] as const;

@@ -17,6 +17,8 @@ export type HeadlineInput = {
   status: EstimateStatus;
   standing: Standing;
   shape: Shape | null;
+  /** kind of the turning point the standing is read from (N shapes read a peak like an inverted U, a trough like a U); null when unknown */
+  turnKind?: 'peak' | 'trough' | null;
   /** X* in real units; null when the fit has no turning point. */
   threshold: number | null;
   intervalBounded: boolean | null;
@@ -47,6 +49,7 @@ export function headlineInputFromRecord(r: EstimateRecord): HeadlineInput {
     status: r.status,
     standing: r.standing.standing,
     shape: r.shape?.shape ?? null,
+    turnKind: r.threshold?.kind ?? null,
     threshold: r.threshold?.level ?? null,
     intervalBounded: r.standing.intervalBounded,
     fiellerKind: r.threshold ? (r.standing.intervalMethod === 'delta' ? (r.threshold.intervalBounded ? 'bounded' : 'whole_line') : r.threshold.fieller.kind) : null,
@@ -84,8 +87,8 @@ const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const sentence = (s: string) => (/[.!?]$/.test(s) ? s : `${s}.`);
 
 /** What the standing means for emissions, by the curve's orientation. */
-function meaningOf(standing: Standing, shape: Shape | null): string | null {
-  const trough = shape === 'u';
+function meaningOf(standing: Standing, shape: Shape | null, turnKind?: 'peak' | 'trough' | null): string | null {
+  const trough = shape === 'u' || ((shape === 'n_shape' || shape === 'inverted_n') && turnKind === 'trough');
   switch (standing) {
     case 'approaching':
       return trough ? 'emissions still tend to fall as income grows' : 'emissions still tend to rise with income';
@@ -128,8 +131,9 @@ function unboundedNote(input: HeadlineInput): string {
 }
 
 function turnNoun(input: HeadlineInput): string {
-  if (input.status === 'substitute') return input.shape === 'u' ? 'the regional low point' : 'the regional turning point';
-  return input.shape === 'u' ? 'the estimated low point' : 'the estimated turning point';
+  const low = input.shape === 'u' || ((input.shape === 'n_shape' || input.shape === 'inverted_n') && input.turnKind === 'trough');
+  if (input.status === 'substitute') return low ? 'the regional low point' : 'the regional turning point';
+  return low ? 'the estimated low point' : 'the estimated turning point';
 }
 
 function gapClause(input: HeadlineInput): string {
@@ -184,7 +188,7 @@ export function headline(input: HeadlineInput): Headline {
     const projection = projectionClause(input.projection, input.gapPercent);
     const head = gapClause(input);
     const main = sentence(projection ? `${head}; ${projection}` : head);
-    const meaning = meaningOf(input.standing, input.shape);
+    const meaning = meaningOf(input.standing, input.shape, input.turnKind);
     if (meaning) notes.splice(input.status === 'substitute' ? 1 : 0, 0, sentence(capitalise(meaning)));
     if (unbounded) {
       notes.push(unboundedNote(input));

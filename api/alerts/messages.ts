@@ -14,6 +14,18 @@ const STANDING_WORDS: Record<string, string> = {
   past_turn: 'beyond the threshold band',
 };
 
+/** Shapes in plain words for the e-mail (the same words as the card). */
+const SHAPE_WORDS: Record<string, string> = {
+  inverted_u: 'rise then fall',
+  u: 'fall then rise',
+  n_shape: 'rise, fall, rise again',
+  inverted_n: 'fall, rise, fall again',
+  increasing: 'rising',
+  decreasing: 'falling',
+  flat: 'flat',
+};
+const shapeWords = (v: unknown): string => SHAPE_WORDS[String(v)] ?? String(v).replace(/_/g, ' ');
+
 export interface AlertForMail {
   id: number;
   kind: AlertKind;
@@ -31,7 +43,7 @@ export function alertSentence(a: AlertForMail): string {
     case 'threshold_shift':
       return `${a.districtName} (${a.districtCode}): the estimated threshold moved ${Number(d.percent) > 0 ? 'up' : 'down'} by ${Math.abs(Number(d.percent)).toFixed(0)}%.`;
     case 'shape_change':
-      return `${a.districtName} (${a.districtCode}): the curve now reads ${String(d.to).replace('_', ' ')} (was ${String(d.from).replace('_', ' ')}).`;
+      return `${a.districtName} (${a.districtCode}): the curve now reads ${shapeWords(d.to)} (was ${shapeWords(d.from)}).`;
     case 'significance_change':
       return `${a.districtName} (${a.districtCode}): the U-test ${d.to ? 'now supports' : 'no longer supports'} a turn at the chosen test level.`;
   }

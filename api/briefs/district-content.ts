@@ -64,7 +64,11 @@ function reading(r: EstimateRecord, th: ThresholdTexts, incomeName: string): str
   if (r.status === 'not_estimable') lines.push(`No curve could be fitted: ${r.reason?.message ?? 'the series cannot carry the model'}.`);
   else if (shape === 'inverted_u') lines.push(`${lead}emissions rose with ${incomeName} at first and have tended to fall once it passed about ${t}.`);
   else if (shape === 'u') lines.push(`${lead}emissions fell with ${incomeName} at first and have tended to rise again once it passed about ${t}.`);
-  else if (shape === 'increasing') lines.push(`${lead}emissions rose with ${incomeName} throughout the incomes observed; no turn shows there.`);
+  else if (shape === 'n_shape' || shape === 'inverted_n') {
+    const order = shape === 'n_shape' ? 'rose, then fell, then rose again' : 'fell, then rose, then fell again';
+    const turn = r.threshold?.kind === 'trough' ? 'low point' : 'high point';
+    lines.push(`${lead}emissions ${order} as ${incomeName} grew; the threshold read here is the ${turn} nearest today’s income, about ${t}.`);
+  } else if (shape === 'increasing') lines.push(`${lead}emissions rose with ${incomeName} throughout the incomes observed; no turn shows there.`);
   else if (shape === 'decreasing') lines.push(`${lead}emissions fell as ${incomeName} grew, throughout the incomes observed; no turn shows there.`);
   else lines.push(`${lead}emissions show no clear relation to ${incomeName}: the income terms together are not significant.`);
   if (r.range) {
@@ -95,10 +99,13 @@ function standingDetail(r: EstimateRecord): string | null {
   if (r.standing.standing === 'not_estimable') return r.reason?.message ?? null;
   if (r.standing.intervalBounded && r.standing.standing !== 'no_turn') return `read against the ${levelTextOf(r)} ${r.standing.intervalMethod === 'delta' ? 'delta-method' : 'Fieller'} interval`;
   if (r.shape?.shape === 'u' && r.standing.standing !== 'no_turn') return 'a U shape: past its trough emissions rise with income';
+  if ((r.shape?.shape === 'n_shape' || r.shape?.shape === 'inverted_n') && r.threshold?.kind === 'trough' && r.standing.standing !== 'no_turn') return 'read from a low point: past it emissions rise with income';
   return null;
 }
 
-export function districtBriefContent(src: BriefSource, district: { code: string; name: string }, r: EstimateRecord, note: string | null): DistrictBriefContent {
+export function districtBriefContent(
+  src: BriefSource, district: { code: string; name: string }, r: EstimateRecord, note: string | null, correction: string | null = null,
+): DistrictBriefContent {
   const th = thresholdTexts(r);
   const pr = projectionTexts(r);
   const el = elasticityTexts(r);
@@ -159,6 +166,7 @@ export function districtBriefContent(src: BriefSource, district: { code: string;
     reading: reading(r, th, incomeName),
     substitute: sub ? `Series too short for its own curve (${r.n} years, ${span(r)}): the regional pooled curve stands in, read at this district’s income and trend.` : null,
     analystNote: note,
+    correctionNotice: correction,
     modelLine: `${sub ? 'Regional substitute. ' : ''}${modelLine(src, { pooled: sub, lag: r.model.lag })} ${r.n} years used (${span(r)})${r.droppedYears.length ? `; left out for missing values: ${r.droppedYears.join(', ')}` : ''}.`,
     cautions: [...CAUTIONS],
     trace,

@@ -8,6 +8,7 @@ import type { Knex } from 'knex';
 import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
 import type { AppContext } from '../context';
 import { AppError, NotFoundError } from '../http/errors';
+import { correctionNotice } from '../runs/corrections';
 import * as runs from '../runs/store';
 import { getSettings } from '../settings/service';
 import { districtBriefContent } from './district-content';
@@ -45,7 +46,8 @@ export async function districtBrief(db: Knex, code: string, runId?: number): Pro
   const main = records.find((r) => r.variant === 'main');
   if (!main) throw new AppError(404, 'not_in_run', `District ${code} has no estimate in published run #${run.id} (no data when it ran).`, { code, runId: run.id });
   const note = (await runs.notesFor(db, run.id)).get(Number(district.id))?.note ?? null;
-  return districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note);
+  const correction = await correctionNotice(db, run.id, Number(district.id));
+  return districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note, correction?.text ?? null);
 }
 
 export async function regionBrief(db: Knex, runId?: number): Promise<RegionBriefContent> {

@@ -23,6 +23,8 @@ export const STANDING_ORDER = ['approaching', 'at_turn', 'past_turn', 'no_turn',
 export const SHAPE_LABEL: Record<string, string> = {
   inverted_u: 'Rise then fall',
   u: 'Fall then rise',
+  n_shape: 'Rise, fall, rise again',
+  inverted_n: 'Fall, rise, fall again',
   increasing: 'Rising',
   decreasing: 'Falling',
   flat: 'Flat',
@@ -33,7 +35,7 @@ export function standingLabel(standing: string): string {
 }
 
 /** Trade names, in brackets after the plain words where they differ. */
-const SHAPE_TECHNICAL: Record<string, string> = { inverted_u: 'inverted U', u: 'U' };
+const SHAPE_TECHNICAL: Record<string, string> = { inverted_u: 'inverted U', u: 'U', n_shape: 'N-shaped', inverted_n: 'inverted N' };
 
 export function shapeLabel(shape: string | null): string {
   if (!shape) return 'Not estimated';

@@ -7,6 +7,7 @@
 import type { Knex } from 'knex';
 import { districtByCode, districtNames, districtSummaries } from '../districts/service';
 import type { EstimateRecord } from '../runs/estimate-record';
+import { correctionNotice } from '../runs/corrections';
 import * as store from './store';
 
 export type { ComparableEstimate, PublishedRun } from './store';
@@ -111,13 +112,17 @@ export async function region(db: Knex) {
 export async function districtEstimate(db: Knex, code: string) {
   const d = await districtByCode(db, code);
   const run = await store.latestPublished(db);
-  if (!run) return { district: { code: d.code, name: d.name }, run: null, main: null, variants: [], note: null };
-  const [records, note] = await Promise.all([store.estimateRecords(db, run.id, d.id), store.noteFor(db, run.id, d.id)]);
+  if (!run) return { district: { code: d.code, name: d.name }, run: null, main: null, variants: [], note: null, correction: null };
+  const [records, note, correction] = await Promise.all([
+    store.estimateRecords(db, run.id, d.id),
+    store.noteFor(db, run.id, d.id),
+    correctionNotice(db, run.id, d.id),
+  ]);
   const main = records.find((r) => r.variant === 'main') ?? null;
   const variants = records
     .filter((r) => r.variant !== 'main')
     .map((r) => ({ variant: r.variant, ...summaryOf(r), reason: r.reason }));
-  return { district: { code: d.code, name: d.name }, run: publishedRunMeta(run), main, variants, note };
+  return { district: { code: d.code, name: d.name }, run: publishedRunMeta(run), main, variants, note, correction };
 }
 
 export async function districtHistory(db: Knex, code: string) {

@@ -1,6 +1,7 @@
 import { cubicFieller } from './cubic-fieller';
 import { cubicTurningPoints } from './cubic-turning-points';
 import { deltaMethod } from './delta-method';
+import { EstimationInputError } from './errors';
 import { fiellerInterval } from './fieller';
 import { quadraticTurningPoint } from './turning-point';
 import type { FiellerSet, TurningPoint } from './types';
@@ -19,7 +20,9 @@ import type { FiellerSet, TurningPoint } from './types';
  * References: Fieller (1954), JRSS B 16(2), 175–185; Oehlert (1992), The American
  * Statistician 46(1), 27–29.
  *
- * Throws: nothing.
+ * Throws: EstimationInputError `numerical_failure` when a cubic's Fieller-type set does not
+ * contain its turning point (impossible in exact arithmetic; the caller reports the district
+ * not_estimable rather than print a set that is wrong).
  *
  * Example (PA01, classical, c = qt(0.975, 31)):
  *   buildTurningPoints({ slope: [12.1077, -0.61929], slopeCovariance: V, xMin: 9, xMax: 10.59, critical: 2.0395,
@@ -41,8 +44,15 @@ export function buildTurningPoints(input: {
     const tp = quadraticTurningPoint(slope[0], slope[1], V[0][0], V[0][1], V[1][1]);
     if (tp) out.push(assemble(tp.x, tp.kind, tp.gradient, fiellerInterval(slope[0], slope[1], V[0][0], V[0][1], V[1][1], c), V, c, xMin, xMax, transform, intervalMethod));
   } else {
-    for (const tp of cubicTurningPoints(slope[0], slope[1], slope[2], V)) {
-      out.push(assemble(tp.x, tp.kind, tp.gradient, cubicFieller(slope[0], slope[1], slope[2], V, c, tp.x), V, c, xMin, xMax, transform, intervalMethod));
+    const scale = Math.max(Math.abs(xMin), Math.abs(xMax));
+    for (const tp of cubicTurningPoints(slope[0], slope[1], slope[2], V, scale)) {
+      const set = cubicFieller(slope[0], slope[1], slope[2], V, c, tp.x, scale);
+      if (set.containsTurningPoint === false) {
+        throw new EstimationInputError('numerical_failure',
+          `The Fieller-type set of the ${tp.kind} at x = ${tp.x} does not contain it; the interval cannot be trusted`,
+          { reason: 'fieller_set_excludes_turning_point', x: tp.x, kind: tp.kind, pieces: set.pieces });
+      }
+      out.push(assemble(tp.x, tp.kind, tp.gradient, set, V, c, xMin, xMax, transform, intervalMethod));
     }
   }
   return out;

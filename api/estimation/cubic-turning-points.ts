@@ -7,7 +7,8 @@ import { realPolynomialRoots } from './real-polynomial-roots';
  * when s′(x) = 2·b2 + 6·b3·x < 0, a trough when > 0 (a double root, s′ = 0, is an
  * inflection and is not returned). Delta gradient by the implicit function rule:
  * ∂x* / ∂(b1, b2, b3) = −(1, 2x*, 3x*²)/s′(x*); Var(x*) ≈ gᵀ V g with V the 3 × 3 block of
- * (b1, b2, b3). With b3 = 0 this is the quadratic case (turning-point.ts).
+ * (b1, b2, b3). The roots are found with x scaled by `scale` (the largest |x| of the data;
+ * real-polynomial-roots.ts), so a small b3 in large units is never taken for zero. With b3 = 0 this is the quadratic case (turning-point.ts).
  * Reference: the implicit function theorem with the delta method (Oehlert 1992, The
  * American Statistician 46(1), 27–29).
  *
@@ -18,9 +19,9 @@ import { realPolynomialRoots } from './real-polynomial-roots';
  *   // → [{ x: -1, kind: 'peak', … }, { x: 1, kind: 'trough', … }]
  */
 export function cubicTurningPoints(
-  b1: number, b2: number, b3: number, v: ReadonlyArray<ArrayLike<number>>,
+  b1: number, b2: number, b3: number, v: ReadonlyArray<ArrayLike<number>>, scale?: number,
 ): Array<{ x: number; kind: 'peak' | 'trough'; gradient: [number, number, number]; se: number | null }> {
-  const roots = realPolynomialRoots([b1, 2 * b2, 3 * b3]);
+  const roots = realPolynomialRoots([b1, 2 * b2, 3 * b3], scale);
   const out: Array<{ x: number; kind: 'peak' | 'trough'; gradient: [number, number, number]; se: number | null }> = [];
   for (const x of roots) {
     const ds = 2 * b2 + 6 * b3 * x;

@@ -17,6 +17,8 @@
  * - `rank_deficient`        the design matrix does not have full column rank
  *                           (details: rank, k, dependent column names, involved column names)
  * - `covariance_undefined`  a robust covariance cannot be formed (e.g. HC3 with leverage 1)
+ * - `numerical_failure`     a result failed its own consistency check (e.g. a cubic
+ *                           Fieller set that does not contain its turning point)
  *
  * Example:
  *   new EstimationInputError('duplicate_year', 'Row 4 repeats year 2001 (first seen in row 2)',
@@ -47,4 +49,5 @@ export type EstimationErrorCode =
   | 'missing_control'
   | 'invalid_argument'
   | 'rank_deficient'
-  | 'covariance_undefined';
+  | 'covariance_undefined'
+  | 'numerical_failure';

@@ -7,7 +7,9 @@ import type { FiellerSet } from './types';
  * A = 4·b2² − 4c²·V22, B = 4·b1·b2 − 4c²·V12, C = b1² − c²·V11, D = B² − 4AC.
  * A > 0 → bounded [r1, r2]; A < 0, D > 0 → two rays (−∞, r1] ∪ [r2, ∞), reported as
  * kind 'two_rays' with lo = r1, hi = r2; A < 0, D ≤ 0 → the whole line (lo = hi = null);
- * A = 0 to rounding (|A| ≤ 1e-12·max(4b2², 4c²V22)) → one ray Bθ + C ≤ 0, reported as
+ * A = 0 to rounding (|A| ≤ A_TOLERANCE·max(4b2², 4c²V22), A_TOLERANCE = 1e-12: A is a
+ * difference of two terms each rounded to ~1e-16 of itself, so within 1e-12 of their size its
+ * sign is not known and |t(b2)| = c to 12 digits) → one ray Bθ + C ≤ 0, reported as
  * 'two_rays' with the missing end null. Roots by the cancellation-free form
  * q = −(B + sign(B)√D)/2, roots q/A and C/q.
  * Reference: Fieller, E. C. (1954), "Some problems in interval estimation", Journal of the
@@ -20,6 +22,9 @@ import type { FiellerSet } from './types';
  *   fiellerInterval(2, -1, 0.01, 0, 0.0025, 1.96)
  *   // → { kind: 'bounded', lo: 0.87009…, hi: 1.14929…, pieces: [{ lo: 0.87009…, hi: 1.14929… }], A: 3.961584, … }
  */
+/** Relative tolerance on A below which the Fieller set is read as one ray (see above). */
+export const A_TOLERANCE = 1e-12;
+
 export function fiellerInterval(
   b1: number, b2: number, v11: number, v12: number, v22: number, c: number,
 ): FiellerSet {
@@ -32,7 +37,7 @@ export function fiellerInterval(
   const whole: FiellerSet = { kind: 'whole_line', lo: null, hi: null, pieces: [{ lo: null, hi: null }], ...base };
   if (![A, B, C, D].every(Number.isFinite)) return whole;
   const scale = Math.max(4 * b2 * b2, 4 * c2 * v22);
-  if (Math.abs(A) <= 1e-12 * scale) {
+  if (Math.abs(A) <= A_TOLERANCE * scale) {
     if (B === 0) return C <= 0 ? whole : { kind: 'bounded', lo: null, hi: null, pieces: [], ...base };
     const r = -C / B;
     return B > 0

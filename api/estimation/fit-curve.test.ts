@@ -147,7 +147,7 @@ describe('fitCurve', () => {
     const [, b1, b2, b3] = f.coefficients;
     expect(f.turningPoints.map((t) => t.kind)).toEqual(['peak', 'trough']); // the N shape generated: peak at 10, trough above
     expect(f.turningPoints[0].x).toBeCloseTo(10, 1);
-    expect(f.shape.notes).toContain('two turning points inside observed range');
+    expect(f.shape.shape).toBe('n_shape'); // two turns inside the range, peak first (DOMAIN.md)
     for (const tp of f.turningPoints) {
       expect(Math.abs(b1 + 2 * b2 * tp.x + 3 * b3 * tp.x * tp.x)).toBeLessThan(1e-9 * (Math.abs(b1) + 1));
       expect(tp.kind).toBe(2 * b2 + 6 * b3 * tp.x < 0 ? 'peak' : 'trough');

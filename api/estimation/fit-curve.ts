@@ -1,4 +1,5 @@
 import { curveDiagnostics } from './curve-diagnostics';
+import { centredCubicInference } from './centred-inference';
 import { curveInference } from './curve-inference';
 import { elasticityNow } from './elasticity';
 import { EstimationInputError } from './errors';
@@ -23,7 +24,8 @@ import { acquireWorkspace, releaseWorkspace, take, toArray, type Workspace } fro
  * the controls. OLS by pivoted QR (ols.ts) with the spec's covariance; inference with t on
  * n − k df (or normal); shape, standing, gap, elasticity, trend and projection as in
  * DOMAIN.md (see curve-inference.ts, standing.ts, gap.ts, elasticity.ts, income-trend.ts,
- * projection.ts, curve-diagnostics.ts). Under the log transform x_now, x_min, x_max are ln
+ * projection.ts, curve-diagnostics.ts); for a cubic the slope inference is computed on the
+ * centred and scaled design (centred-inference.ts). Under the log transform x_now, x_min, x_max are ln
  * values and the `level` fields exp of them.
  * References: Grossman, G. M. and Krueger, A. B. (1995), "Economic growth and the
  * environment", Quarterly Journal of Economics 110(2), 353–377 (the curve); Lind & Mehlum
@@ -33,7 +35,8 @@ import { acquireWorkspace, releaseWorkspace, take, toArray, type Workspace } fro
  * Returns a plain JSON-serialisable object: `{ status: 'ok', … }`, or
  * `{ status: 'not_estimable', reason }` when there are fewer rows than spec.minYears
  * (default k + 5) or the design is rank deficient (e.g. a constant control) or HC3 is
- * undefined. No NaN or Infinity appears: undefined quantities are null with a reason.
+ * undefined, or a result fails its own check (`numerical_failure`, e.g. a cubic Fieller set
+ * without its turning point). No NaN or Infinity appears: undefined quantities are null with a reason.
  *
  * Throws: EstimationInputError for bad input — `invalid_argument` (model spec, cluster
  * covariance for one district, bad lag), `non_finite_value`, `non_positive_under_log`,
@@ -102,9 +105,28 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
   const xNow = x[last];
   const levelNow = data.xRaw[last];
   const lastYear = data.years[last];
-  const inf = curveInference({
-    coefficients: result.coefficients, covariance: result.covariance, slopeStart: 1, slopeTerms: m, xMin, xMax, df: result.df, spec,
-  });
+  let inf;
+  let centred: ReturnType<typeof centredCubicInference> | null = null;
+  try {
+    if (m === 3 && xMax > xMin) {
+      centred = centredCubicInference({
+        x, controls: data.controls, y: data.y, n, rawSlope: [result.coefficients[1], result.coefficients[2], result.coefficients[3]],
+        xMin, xMax, xNow: x[n - 1], df: result.df, spec, options: { covariance: spec.covariance, lag: spec.lag },
+      });
+      inf = centred.inference;
+    } else {
+      inf = curveInference({
+        coefficients: result.coefficients, covariance: result.covariance, slopeStart: 1, slopeTerms: m, xMin, xMax, df: result.df, spec,
+      });
+    }
+  } catch (err) {
+    // numerical_failure from a cubic set; rank_deficient / covariance_undefined only if the
+    // centred refit of a cubic disagrees with the raw one at the rounding margin
+    if (err instanceof EstimationInputError && (err.code === 'numerical_failure' || err.code === 'rank_deficient' || err.code === 'covariance_undefined')) {
+      return notEstimable(spec, n, k, minYears, err.code, err.message, err.details);
+    }
+    throw err;
+  }
   const standing = districtStanding({
     shape: inf.shape.shape, turningPoints: inf.turningPoints, xNow, levelNow, method: spec.intervalMethod, level: spec.level,
   });
@@ -112,7 +134,7 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
   const gap = tp ? thresholdGap(levelNow, tp.level, tp.extrapolated) : { percent: null, extrapolated: false, reason: 'no turning point' };
   const designRowNow = new Array<number>(k);
   for (let c = 0; c < k; c++) designRowNow[c] = design[c * n + last];
-  const elasticity = elasticityNow({
+  const elasticity = centred && spec.transform === 'log' ? centred.logElasticity(inf.critical.value) : elasticityNow({
     transform: spec.transform, coefficients: result.coefficients, covariance: result.covariance, slopeTerms: m, xNow,
     designRowNow, fittedNow: result.fitted[last], critical: inf.critical.value,
   });

@@ -3,13 +3,36 @@ import { EstimationInputError } from './errors';
 import { leastSquaresDoubleDouble } from './least-squares-dd';
 import { leastSquaresDouble } from './least-squares-double';
 import { DEFAULT_RANK_TOLERANCE } from './qr';
+import { compensatedResiduals } from './compensated-residuals';
 import { conditionEstimates } from './condition-estimate';
+import { gradientRefinement } from './gradient-refinement';
 import { robustCovariance } from './robust-covariance';
 import type { DesignMatrix, LeastSquaresCore, OlsOptions, OlsResult } from './types';
 import { take, toArray, type Workspace } from './workspace';
 
-/** Scaled condition estimate above which 'auto' precision refits in double-double. */
-export const DOUBLE_DOUBLE_THRESHOLD = 1e7;
+/** Estimated relative forward error above which 'auto' precision refits in double-double. */
+export const FORWARD_ERROR_THRESHOLD = 1e-11;
+/** Unit roundoff of double precision, 2⁻⁵³. */
+const UNIT_ROUNDOFF = 2 ** -53;
+
+/**
+ * Estimated relative forward error of a least-squares solution computed in double, from
+ * the perturbation bound u·κ·(1 + κ·‖r‖/(‖X‖·‖b‖)) (Higham 2002, §20.1; Golub & Van Loan
+ * 2013, §5.3.8), on the column-equilibrated problem that pivoted QR effectively solves:
+ * κ = κ₁(R·D⁻¹) (condition-estimate.ts), ‖X·D⁻¹‖₂ taken as 1 (its lower bound with unit
+ * columns, so the estimate can only be high), ‖D·b‖₂, ‖r‖₂.
+ * A small κ with a large residual (R² near 0) can still lose digits through the κ² term.
+ */
+export function forwardErrorEstimate(core: Pick<LeastSquaresCore, 'k' | 'perm' | 'columnNorms' | 'coefficients' | 'residuals' | 'n'>, kappa: number): number {
+  const { k, n, perm, columnNorms, coefficients, residuals } = core;
+  let nb = 0;
+  for (let j = 0; j < k; j++) { const v = columnNorms[j] * coefficients[perm[j]]; nb += v * v; }
+  let nr = 0;
+  for (let i = 0; i < n; i++) nr += residuals[i] * residuals[i];
+  const denom = Math.sqrt(nb);
+  const ratio = denom > 0 ? Math.sqrt(nr) / denom : Infinity;
+  return UNIT_ROUNDOFF * kappa * (1 + kappa * ratio);
+}
 
 /**
  * The OLS fit behind `ols` and `fitCurve`, on a column-major design: solves, checks the
@@ -18,8 +41,11 @@ export const DOUBLE_DOUBLE_THRESHOLD = 1e7;
  * R⁻¹) that the diagnostics reuse.
  *
  * Formulas: b by pivoted Householder QR with refinement (least-squares-double.ts), or in
- * double-double when precision is 'double-double', or 'auto' and κ₁(R·D⁻¹) > 1e7
- * (least-squares-dd.ts); RSS = Σe², R² = 1 − RSS/TSS (TSS about the mean when X has a
+ * double-double when precision is 'double-double', or 'auto' and the estimated forward
+ * error u·κ·(1 + κ·‖r‖/(‖X‖‖b‖)) of the double solution exceeds 1e-11
+ * (forwardErrorEstimate below): then the κ² term is first removed by refinement with a
+ * double-double gradient (gradient-refinement.ts), and the fit is redone in double-double
+ * (least-squares-dd.ts) unless u·κ plus the last correction is within 1e-11; RSS = Σe², R² = 1 − RSS/TSS (TSS about the mean when X has a
  * constant column, else about zero, as R's summary.lm), adj R² = 1 − (1 − R²)(n − i)/(n − k)
  * with i = 1 for a centred R² and 0 otherwise, s = √(RSS/(n − k)), t = b/SE, two-sided p
  * from t(n − k); condition κ₁(R) = ‖R‖₁‖R⁻¹‖₁ (within a factor k of κ₂(X)).
@@ -53,8 +79,8 @@ export function fitLeastSquares(
     : leastSquaresDouble(data, y, n, k, tol, 3, dataLo, ws);
   if (core.rank < k) throw rankError(core, names);
   let cond = conditionEstimates(core);
-  if (precision === 'auto' && cond.scaled > DOUBLE_DOUBLE_THRESHOLD) {
-    core = leastSquaresDoubleDouble(data, y, n, k, tol, dataLo);
+  if (precision === 'auto' && !(forwardErrorEstimate(core, cond.scaled) <= FORWARD_ERROR_THRESHOLD)) {
+    core = improveOrRefit(core, cond.scaled, data, y, n, k, tol, dataLo);
     if (core.rank < k) throw rankError(core, names);
     cond = conditionEstimates(core);
   }
@@ -105,6 +131,28 @@ export function fitLeastSquares(
     condition: { estimate: cond.raw, scaledEstimate: cond.scaled, precision: core.precision, refinementSteps: core.refinementSteps },
   };
   return { result, core };
+}
+
+/**
+ * The double solution's estimated error exceeds the threshold: first refine with the
+ * gradient in double-double (gradient-refinement.ts), which removes the κ²·‖r‖ term and
+ * leaves about u·κ; keep that when u·κ plus the last correction is within the threshold
+ * and the refinement contracts (u·κ² < 0.1); otherwise refit in double-double.
+ */
+function improveOrRefit(
+  core: LeastSquaresCore, kappa: number, data: Float64Array, y: Float64Array, n: number, k: number, tol: number, dataLo?: Float64Array,
+): LeastSquaresCore {
+  if (UNIT_ROUNDOFF * kappa * kappa < 0.1) {
+    const saved = Float64Array.from(core.coefficients);
+    const { steps, lastRelative } = gradientRefinement(data, y, n, k, core, dataLo);
+    if (UNIT_ROUNDOFF * kappa + lastRelative <= FORWARD_ERROR_THRESHOLD) {
+      compensatedResiduals(data, y, core.coefficients, n, k, core.residuals, dataLo);
+      core.refinementSteps += steps;
+      return core;
+    }
+    core.coefficients.set(saved);
+  }
+  return leastSquaresDoubleDouble(data, y, n, k, tol, dataLo);
 }
 
 function hasConstantColumn(data: Float64Array, n: number, k: number): boolean {

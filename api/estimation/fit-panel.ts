@@ -94,9 +94,15 @@ export function fitPanel(rows: ReadonlyArray<PanelRow>, model: ModelSpecInput | 
     xMin = Math.min(xMin, x[i]); xMax = Math.max(xMax, x[i]);
     levelMin = Math.min(levelMin, data.xRaw[i]); levelMax = Math.max(levelMax, data.xRaw[i]);
   }
-  const inf = curveInference({
-    coefficients: r.coefficients, covariance: r.covariance, slopeStart: 0, slopeTerms: m, xMin, xMax, df: G - 1, spec,
-  });
+  let inf;
+  try {
+    inf = curveInference({
+      coefficients: r.coefficients, covariance: r.covariance, slopeStart: 0, slopeTerms: m, xMin, xMax, df: G - 1, spec,
+    });
+  } catch (err) {
+    if (err instanceof EstimationInputError && err.code === 'numerical_failure') return notEstimable('numerical_failure', err.message, err.details);
+    throw err;
+  }
   const tStatistics = r.coefficients.map((b, j) => b / r.standardErrors[j]);
   return {
     status: 'ok',

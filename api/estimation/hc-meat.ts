@@ -10,8 +10,10 @@
  * matrix estimators with improved finite sample properties", Journal of Econometrics
  * 29(3), 305–325 (HC1, HC3).
  *
- * Throws: EstimationInputError `covariance_undefined` for HC3 when some h_i ≥ 1 − 1e-10
- * (the row is fitted exactly and 1/(1 − h_i) does not exist); details name the row.
+ * Throws: EstimationInputError `covariance_undefined` for HC3 when some 1 − h_i ≤
+ * LEVERAGE_MARGIN·k (h_i = ‖q_i‖² carries a rounding error of about k·u, so a smaller
+ * 1 − h_i is not known to even one digit and the row counts as fitted exactly; with the
+ * margin 1e-9·k the weight 1/(1 − h_i)² keeps about six digits or more); details name the row.
  *
  * Example: n = 2, k = 1, q = (1/√2, 1/√2), e = (1, −1):
  *   heteroskedasticMeat(q, e, h = (0.5, 0.5), 2, 1, 'hc0')  // → [1.0000000000000002]   (0.5·1 + 0.5·1)
@@ -19,6 +21,9 @@
  */
 import { EstimationInputError } from './errors';
 import { take, type Workspace } from './workspace';
+
+/** Per-column margin below which 1 − h_i is treated as zero for HC3 (see above). */
+export const LEVERAGE_MARGIN = 1e-9;
 
 export function heteroskedasticMeat(
   q1: Float64Array, e: ArrayLike<number>, leverage: ArrayLike<number>, n: number, k: number,
@@ -31,7 +36,7 @@ export function heteroskedasticMeat(
     if (type === 'hc1') w *= hc1;
     else if (type === 'hc3') {
       const h = leverage[i];
-      if (!(h < 1 - 1e-10)) {
+      if (!(1 - h > LEVERAGE_MARGIN * k)) {
         throw new EstimationInputError('covariance_undefined',
           `HC3 covariance is undefined: row ${i} has leverage ${h} (fitted exactly)`, { row: i, leverage: h });
       }

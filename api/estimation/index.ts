@@ -14,7 +14,7 @@ export { fitPanel } from './fit-panel';
 export { twoWayWithin } from './two-way-within';
 export { fixedEffectsRank } from './fixed-effects-rank';
 export { ols } from './ols';
-export { fitLeastSquares, DOUBLE_DOUBLE_THRESHOLD } from './fit-least-squares';
+export { fitLeastSquares, FORWARD_ERROR_THRESHOLD, forwardErrorEstimate } from './fit-least-squares';
 export { polynomialDesign } from './polynomial-design';
 
 // linear algebra

@@ -72,8 +72,35 @@ describe('real polynomial roots', () => {
     expect(realPolynomialRoots([0, 0, 0])).toEqual([]);
     const r = realPolynomialRoots([24, -50, 35, -10, 1]); // (x−1)(x−2)(x−3)(x−4)
     [1, 2, 3, 4].forEach((v, i) => expect(r[i]).toBeCloseTo(v, 12));
-    expect(realPolynomialRoots([2, 1e-20, 0])).toEqual([]); // leading terms below 1e-14 of the largest count as zero: a constant
     expect(realPolynomialRoots([2, 1e-3, 0])).toEqual([-2000]);
+    // only exact zeros lower the degree: 2 + 1e-20·x has its root at −2e20 (arithmetic)
+    expect(realPolynomialRoots([2, 1e-20, 0])[0] / -2e20).toBeCloseTo(1, 14);
+  });
+
+  // A quartic shaped like the level-form cubic Fieller quartic (coefficients spanning
+  // 1e-7 … 1e-24, leading one below 1e-14 of the largest): built from chosen roots, so the
+  // expected roots are the chosen ones (arithmetic).
+  const chosen = [-6751, 20178, 23821, 410000];
+  const expand = (roots: number[], lead: number): number[] => {
+    let c = [lead];
+    for (const r of roots) { const n = new Array(c.length + 1).fill(0); c.forEach((v, i) => { n[i + 1] += v; n[i] -= r * v; }); c = n; }
+    return c;
+  };
+  test('a tiny leading coefficient is kept: all four roots of a wide-range quartic come back', () => {
+    const q = expand(chosen, -1.6e-24);
+    expect(Math.abs(q[4]) / Math.max(...q.map(Math.abs))).toBeLessThan(1e-14); // the case the old relative test dropped
+    const r = realPolynomialRoots(q, 23821);
+    expect(r).toHaveLength(4);
+    r.forEach((v, i) => expect(Math.abs(v / chosen[i] - 1)).toBeLessThan(1e-12));
+    const auto = realPolynomialRoots(q); // without a scale: the root-size estimate
+    auto.forEach((v, i) => expect(Math.abs(v / chosen[i] - 1)).toBeLessThan(1e-12));
+  });
+  test.each([-3, 0, 3, 7])('roots follow the units of x: x × 10^%i scales every root by 10^k', (k) => {
+    const f = 10 ** k;
+    const q = expand(chosen.map((v) => v * f), -1.6e-24);
+    const r = realPolynomialRoots(q, 23821 * f);
+    expect(r).toHaveLength(4);
+    r.forEach((v, i) => expect(Math.abs(v / (chosen[i] * f) - 1)).toBeLessThan(1e-12));
   });
 });
 
@@ -106,6 +133,11 @@ describe('cubic turning points and their Fieller-type sets', () => {
       const near = f.pieces.some((p) => [p.lo, p.hi].some((e) => e !== null && Math.abs(e - t) < 1e-9));
       if (!near) expect(inside).toBe(s * s <= c * c * v);
     }
+    // a point no piece contains (0 is not a turning point of −3 + 3x²) is reported, never given a ray
+    const stray = cubicFieller(-3, 0, 1, V, c, 0);
+    expect(stray.containsTurningPoint).toBe(false);
+    expect([stray.lo, stray.hi]).toEqual([null, null]);
+    expect(f.containsTurningPoint).toBe(true);
     const wide = cubicFieller(-3, 0, 1, [[100, 0, 0], [0, 100, 0], [0, 0, 100]], c, 1);
     expect(wide.kind).toBe('whole_line');
   });
@@ -147,6 +179,8 @@ describe('Wald test', () => {
     expect(w.pValue).toBeCloseTo(Math.pow(1 + 4 / 30, -15), 14); // F(2, 30) tail
     const chi = waldTest([1, 2], [[2, 0.5], [0.5, 1]], null, 0.05);
     expect(chi.pValue).toBeCloseTo(Math.exp(-2), 14); // χ²(2) tail at 4
+    // equilibrated pivoted Cholesky: C = [[1, 0.5/√2], [0.5/√2, 1]], pivots 1 and 1 − 1/8, condition (1/0.875)
+    expect(w.condition).toBeCloseTo(1 / 0.875, 14);
     const bad = waldTest([1, 2], [[1, 2], [2, 1]], 30, 0.05);
     expect(bad.statistic).toBeNull();
     expect(bad.reason).toMatch(/not positive definite/);

@@ -1,3 +1,4 @@
+import { hasTurn } from './classify-shape';
 import { selectTurningPoint } from './select-turning-point';
 import type { IntervalEnds, ShapeName, StandingResult, TurningPoint } from './types';
 
@@ -8,7 +9,9 @@ import type { IntervalEnds, ShapeName, StandingResult, TurningPoint } from './ty
  * select-turning-point.ts and its interval (Fieller by default, delta if asked):
  * 'approaching' when x_now is below the interval's lower end, 'at_turn' inside it,
  * 'past_turn' above its upper end (for a U the turn is a trough, so 'past_turn' means
- * emissions now rise with income: the meaning mirrors, the positions do not). When the
+ * emissions now rise with income: the meaning mirrors, the positions do not). An N or
+ * inverted N is read from the turning point inside the range nearest x_now, as a peak
+ * (like an inverted U) or a trough (like a U). When the
  * interval is not bounded (Fieller two rays or whole line), the standing follows the point
  * estimate and carries intervalBounded: false with the note "interval not bounded at
  * <level>". Increasing, decreasing and flat shapes give 'no_turn' (the turning point, if
@@ -36,7 +39,7 @@ export function districtStanding(input: {
       ? { lo: tp.delta.lo, hi: tp.delta.hi, levelLo: tp.delta.levelLo, levelHi: tp.delta.levelHi }
       : { lo: tp.fieller.lo, hi: tp.fieller.hi, levelLo: tp.fieller.levelLo, levelHi: tp.fieller.levelHi };
   const base = { turningPointIndex: index, intervalMethod: method, interval, extrapolated: tp ? tp.extrapolated : false, xNow, levelNow };
-  if (shape !== 'inverted_u' && shape !== 'u') {
+  if (!hasTurn(shape)) {
     return { standing: 'no_turn', intervalBounded: tp ? tp.intervalBounded : null, note: null, ...base };
   }
   if (tp === null) {

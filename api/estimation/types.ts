@@ -71,7 +71,7 @@ export interface CovarianceOptions {
 export interface OlsOptions extends CovarianceOptions {
   /** column names used in messages and results; default x0, x1, ... */
   names?: readonly string[];
-  /** 'auto' (default) uses double-double when the scaled condition estimate exceeds 1e7 */
+  /** 'auto' (default) uses double-double when the estimated forward error u·κ·(1 + κ‖r‖/(‖X‖‖b‖)) exceeds 1e-11 */
   precision?: 'auto' | 'double' | 'double-double';
   /** relative remaining-norm threshold for rank deficiency (default 1e-12) */
   rankTolerance?: number;
@@ -140,6 +140,8 @@ export interface FiellerSet {
   B?: number;
   C?: number;
   discriminant?: number;
+  /** cubic sets: false when no piece contains x* (a numerical failure, never shown as an interval) */
+  containsTurningPoint?: boolean;
 }
 
 export interface UTestResult {
@@ -179,9 +181,15 @@ export interface WaldTestResult {
   pValue: number | null;
   rejects: boolean | null;
   reason: string | null;
+  /** condition of the equilibrated block (pivoted Cholesky estimate); null when not computed */
+  condition: number | null;
 }
 
-export type ShapeName = 'inverted_u' | 'u' | 'increasing' | 'decreasing' | 'flat';
+/**
+ * Shape over the observed range; `n_shape` (rises, falls, rises again) and `inverted_n`
+ * (falls, rises, falls) only for a cubic whose slope changes sign twice inside the range.
+ */
+export type ShapeName = 'inverted_u' | 'u' | 'increasing' | 'decreasing' | 'flat' | 'n_shape' | 'inverted_n';
 export type StandingName = 'approaching' | 'at_turn' | 'past_turn' | 'no_turn' | 'not_estimable';
 
 /** An interval end pair on the model's x scale and in real units (exp under the log transform). */
@@ -220,7 +228,7 @@ export interface SignRuleReading {
 
 export interface ShapeResult {
   shape: ShapeName;
-  decidedBy: 'u_test' | 'wald_flat' | 'slope_at_midpoint';
+  decidedBy: 'u_test' | 'wald_flat' | 'two_turns_in_range' | 'slope_at_midpoint';
   notes: string[];
   slopeAtMidpoint: { x: number; value: number; se: number | null };
   /** the common-practice first read from the signs of b1 and b2 */
@@ -339,7 +347,7 @@ export interface CurveNotEstimable {
   n: number;
   k: number;
   minYears: number;
-  reason: { code: 'too_few_rows' | 'rank_deficient' | 'covariance_undefined'; message: string; details: Record<string, unknown> };
+  reason: { code: 'too_few_rows' | 'rank_deficient' | 'covariance_undefined' | 'numerical_failure'; message: string; details: Record<string, unknown> };
   standing: { standing: 'not_estimable' };
 }
 
@@ -391,7 +399,7 @@ export interface PanelNotEstimable {
   model: import('./model-spec').ModelSpec;
   n: number;
   k: number;
-  reason: { code: 'too_few_rows' | 'too_few_districts' | 'rank_deficient' | 'not_converged'; message: string; details: Record<string, unknown> };
+  reason: { code: 'too_few_rows' | 'too_few_districts' | 'rank_deficient' | 'not_converged' | 'numerical_failure'; message: string; details: Record<string, unknown> };
 }
 
 export type FitPanelResult = PanelFit | PanelNotEstimable;

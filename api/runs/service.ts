@@ -15,6 +15,7 @@ import { getSettings } from '../settings/service';
 import type { SavedSpec } from '../specs/schema';
 import { defaultSpec, getSpec } from '../specs/service';
 import { SOFTWARE_VERSION } from '../version';
+import { answerChanges, type AnswerChange } from './corrections';
 import { loadSeries } from './data-store';
 import { fitDistrict } from './district-fit';
 import type { EstimateRecord } from './estimate-record';
@@ -122,7 +123,10 @@ export async function runView(db: Knex, id: number) {
   const counts: Record<string, number> = {};
   for (const r of rows) counts[r.standing] = (counts[r.standing] ?? 0) + 1;
   const pooled = run.pooled as { status: string; turningPoints?: { level: number | null; fieller: { kind: string; levelLo: number | null; levelHi: number | null } }[]; shape?: { shape: string }; n?: number; districts?: number } | null;
-  let reproduction: { of: number; identical: boolean | null; differences: number } | null = null;
+  let reproduction: {
+    of: number; identical: boolean | null; differences: number;
+    softwareChanged: boolean; originalSoftware: string | null; changedAnswers: AnswerChange[];
+  } | null = null;
   if (run.reproducesRunId && estimatesVisible) {
     const diff = await db.raw(
       `SELECT count(*)::int AS n FROM run_estimates a FULL JOIN run_estimates b
@@ -131,7 +135,14 @@ export async function runView(db: Knex, id: number) {
       [run.reproducesRunId, id],
     );
     const n = Number(diff.rows[0].n);
-    reproduction = { of: run.reproducesRunId, identical: n === 0, differences: n };
+    const original = await store.findRun(db, run.reproducesRunId);
+    const changedAnswers = n === 0 ? [] : answerChanges(await store.mainRecords(db, run.reproducesRunId), await store.mainRecords(db, id));
+    reproduction = {
+      of: run.reproducesRunId, identical: n === 0, differences: n,
+      softwareChanged: original !== null && original.softwareVersion !== run.softwareVersion,
+      originalSoftware: original ? original.softwareVersion : null,
+      changedAnswers,
+    };
   }
   return {
     id: run.id,

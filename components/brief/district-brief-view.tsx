@@ -36,6 +36,12 @@ export function DistrictBriefView({ content: c }: { content: DistrictBriefConten
           </Text>
         ))}
       </View>
+      {c.correctionNotice ? (
+        <View style={styles.block} {...keepTogether} testID="brief-correction">
+          <BriefHeading>Correction</BriefHeading>
+          <Text style={styles.reading}>{c.correctionNotice}</Text>
+        </View>
+      ) : null}
       {c.analystNote ? (
         <View style={styles.block} {...keepTogether}>
           <BriefHeading>Analyst’s note for this run</BriefHeading>

@@ -134,6 +134,12 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
       {main ? (
         <>
           <HeadlinePanel record={main} actions={actions} />
+          {data.correction ? (
+            <View style={styles.analystNote} testID="correction-notice">
+              <Text style={styles.noteTerm}>Correction</Text>
+              <Text style={styles.noteText}>{data.correction.text}</Text>
+            </View>
+          ) : null}
           {data.note ? (
             <View style={styles.analystNote} testID="analyst-note">
               <Text style={styles.noteTerm}>Analyst’s note</Text>

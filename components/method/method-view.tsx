@@ -60,7 +60,9 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
           Lind–Mehlum U-test (Lind and Mehlum 2010) asks whether the slope is positive at the lowest observed income and
           negative at the highest (or the reverse for a U). If it does not confirm a turn, a Wald F test asks whether
           income matters at all (if not: flat); otherwise the slope in the middle of the range says rising or falling.
-          A turning point outside the observed incomes is kept visible but flagged “turn beyond observed range”.
+          A turning point outside the observed incomes is kept visible but flagged “turn beyond observed range”. A cubic
+          curve can turn twice inside the observed incomes: emissions rise, fall and rise again (N-shaped), or fall, rise
+          and fall again (inverted N).
         </P>
         <View style={styles.list}>
           {SHAPES_IN_ORDER.map((s) => (
@@ -83,7 +85,7 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
             </View>
           ))}
         </View>
-        <P>For a U-shaped curve the turn is a low point, so past it emissions rise again with income. Where the interval is not bounded, the standing follows the point estimate and says so.</P>
+        <P>For a U-shaped curve the turn is a low point, so past it emissions rise again with income. A curve that turns twice is read from the turn nearest the latest income: a high point reads like a rise then fall, a low point like a fall then rise. Where the interval is not bounded, the standing follows the point estimate and says so.</P>
         <Formula>gap = 100·(X_now / X* − 1) %</Formula>
         <Formula>elasticity now = b1 + 2·b2·ln x_now</Formula>
         <P>

@@ -62,7 +62,20 @@ export function RunFacts({ run }: { run: RunView }) {
         <Text style={styles.line} testID="run-reproduction">
           Reproduces run #{run.reproduction.of}:{' '}
           {run.reproduction.identical ? 'identical to the last digit.' : `${run.reproduction.differences} estimates differ.`}
+          {run.reproduction.softwareChanged ? ` Software changed from version ${run.reproduction.originalSoftware} to ${run.softwareVersion}.` : ''}
         </Text>
+      ) : null}
+      {run.reproduction?.changedAnswers?.length ? (
+        <View testID="run-reproduction-changes">
+          <Text style={styles.line}>Published answers that change ({run.reproduction.changedAnswers.length}):</Text>
+          {run.reproduction.changedAnswers.map((c) => (
+            <Text key={c.code} style={styles.line}>
+              {c.name} ({c.code}): {c.fields.join(', ')}
+              {c.before && c.after && c.before.standing !== c.after.standing ? ` — ${STANDING_LABEL[c.before.standing as Standing] ?? c.before.standing} → ${STANDING_LABEL[c.after.standing as Standing] ?? c.after.standing}` : ''}
+              {c.before?.threshold != null && c.after?.threshold != null && c.fields.includes('threshold') ? ` — threshold ${formatLevel(c.before.threshold)} → ${formatLevel(c.after.threshold)}` : ''}
+            </Text>
+          ))}
+        </View>
       ) : null}
     </View>
   );

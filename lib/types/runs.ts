@@ -45,7 +45,24 @@ export type RunView = {
   timings: Record<string, number> | null;
   standingCounts: Record<string, number> | null;
   pooled: { status: string; shape: string | null; threshold: { level: number | null } | null; n: number | null; districts: number | null } | null;
-  reproduction: { of: number; identical: boolean | null; differences: number } | null;
+  reproduction: {
+    of: number;
+    identical: boolean | null;
+    differences: number;
+    /** the reproduction ran on another software version than the original */
+    softwareChanged?: boolean;
+    originalSoftware?: string | null;
+    /** districts whose published answer (threshold, interval, standing) differs (api/runs/corrections.ts) */
+    changedAnswers?: ChangedAnswer[];
+  } | null;
+};
+
+export type ChangedAnswer = {
+  code: string;
+  name: string;
+  fields: ('status' | 'threshold' | 'interval' | 'standing')[];
+  before: { status: string; standing: string; threshold: number | null; intervalLo: number | null; intervalHi: number | null } | null;
+  after: { status: string; standing: string; threshold: number | null; intervalLo: number | null; intervalHi: number | null } | null;
 };
 
 export type DistrictChange = {

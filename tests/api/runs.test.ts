@@ -181,7 +181,7 @@ describe('runs', () => {
     const original = (await analyst.get(`/api/runs/${firstRun}`)).body;
     expect(view.dataHash).toBe(original.dataHash);
     expect(view.dataVersion).toBe(original.dataVersion);
-    expect(view.reproduction).toEqual({ of: firstRun, identical: true, differences: 0 });
+    expect(view.reproduction).toEqual({ of: firstRun, identical: true, differences: 0, softwareChanged: false, originalSoftware: expect.any(String), changedAnswers: [] });
     // The current data differ from the first run's (the revision): reading as of the old version matters.
     expect(view.dataVersion).toBeLessThan((await analyst.get(`/api/runs/${secondRun}`)).body.dataVersion);
   });
@@ -220,6 +220,35 @@ describe('runs', () => {
       const got = (await mailsTo(row.to_address)).filter((m) => m.message_id?.startsWith(`<outbox-${row.id}-`));
       expect(got).toHaveLength(1);
     }
+  });
+
+  it('a reproduction on newer software lists the changed answers; once published, card and brief carry a dated correction', async () => {
+    const latest = await t.db('runs').where({ state: 'published' }).orderBy('published_at', 'desc').first('id');
+    const target = await t.db('run_estimates as e').join('districts as d', 'd.id', 'e.district_id')
+      .where({ 'e.run_id': latest.id, 'e.variant': 'main', 'e.status': 'ok' }).whereNotNull('e.threshold').orderBy('d.code').first('d.code', 'e.district_id');
+    // What an older engine published: another software version and, for one district, another threshold.
+    await t.db('runs').where({ id: latest.id }).update({ software_version: '0.0.1-older' });
+    await t.db('run_estimates').where({ run_id: latest.id, district_id: target.district_id, variant: 'main' })
+      .update({ result: t.db.raw(`jsonb_set(result, '{threshold,level}', to_jsonb((result->'threshold'->>'level')::float8 * 1.5))`) });
+    const res = await analyst.post(`/api/runs/${latest.id}/reproduce`);
+    expect(res.status).toBe(202);
+    const view = await until('corrected reproduction in review', async () => {
+      const r = (await analyst.get(`/api/runs/${res.body.id}`)).body;
+      if (r.state === 'failed') throw new Error(r.error);
+      return r.state === 'in_review' ? r : null;
+    });
+    expect(view.reproduction.softwareChanged).toBe(true);
+    expect(view.reproduction.originalSoftware).toBe('0.0.1-older');
+    expect(view.reproduction.changedAnswers.map((c: { code: string; fields: string[] }) => [c.code, c.fields])).toEqual([[target.code, ['threshold']]]);
+    // not yet published: officials see no notice
+    expect((await official.get(`/api/districts/${target.code}/estimate`)).body.correction).toBeNull();
+    expect((await analyst.post(`/api/runs/${res.body.id}/publish`)).status).toBe(200);
+    const card = (await official.get(`/api/districts/${target.code}/estimate`)).body;
+    expect(card.correction.text).toMatch(new RegExp(`^Threshold corrected in software version ${view.softwareVersion.replace(/\./g, '\\.')} on \\d{4}-\\d{2}-\\d{2} \\(first published with version 0\\.0\\.1-older\\)\\.$`));
+    const brief = (await official.get(`/api/briefs/district/${target.code}`)).body;
+    expect(brief.correctionNotice).toBe(card.correction.text);
+    const other = await t.db('districts').whereNot({ id: target.district_id }).orderBy('code').first('code');
+    expect((await official.get(`/api/districts/${other.code}/estimate`)).body.correction).toBeNull();
   });
 });
 

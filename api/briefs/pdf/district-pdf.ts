@@ -118,6 +118,11 @@ export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer
     }
     y += 4;
   }
+  if (c.correctionNotice && room() > 20) {
+    textLine(doc, 'Correction', x, y, { size: 8.5, face: 'bold' });
+    y += 12;
+    y += textBlock(doc, c.correctionNotice, x, y, width, { size: 8, lineGap: 0.6, color: INK.text }, room()) + 4;
+  }
   if (c.analystNote && room() > 20) {
     textLine(doc, 'Analyst’s note for this run', x, y, { size: 8.5, face: 'bold' });
     y += 12;
