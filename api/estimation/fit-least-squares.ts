@@ -20,19 +20,44 @@ const UNIT_ROUNDOFF = 2 ** -53;
  * the perturbation bound u·κ·(1 + κ·‖r‖/(‖X‖·‖b‖)) (Higham 2002, §20.1; Golub & Van Loan
  * 2013, §5.3.8), on the column-equilibrated problem that pivoted QR effectively solves:
  * κ = κ₁(R·D⁻¹) (condition-estimate.ts), ‖X·D⁻¹‖₂ taken as 1 (its lower bound with unit
- * columns, so the estimate can only be high), ‖D·b‖₂, ‖r‖₂.
+ * columns, so the estimate can only be high), ‖D·b‖₂, ‖r‖₂, times the factor that turns a
+ * normwise bound into one for the smallest coefficient (scaledCoefficients below): the
+ * goal is digits in every coefficient, not in their norm.
  * A small κ with a large residual (R² near 0) can still lose digits through the κ² term.
+ * The refinement that follows a high estimate (improveOrRefit) removes that term.
  */
 export function forwardErrorEstimate(core: Pick<LeastSquaresCore, 'k' | 'perm' | 'columnNorms' | 'coefficients' | 'residuals' | 'n'>, kappa: number): number {
-  const { k, n, perm, columnNorms, coefficients, residuals } = core;
-  let nb = 0;
-  for (let j = 0; j < k; j++) { const v = columnNorms[j] * coefficients[perm[j]]; nb += v * v; }
+  const { n, residuals } = core;
+  const { norm, amplification } = scaledCoefficients(core);
   let nr = 0;
   for (let i = 0; i < n; i++) nr += residuals[i] * residuals[i];
-  const denom = Math.sqrt(nb);
-  const ratio = denom > 0 ? Math.sqrt(nr) / denom : Infinity;
-  return UNIT_ROUNDOFF * kappa * (1 + kappa * ratio);
+  const ratio = norm > 0 ? Math.sqrt(nr) / norm : Infinity;
+  return UNIT_ROUNDOFF * kappa * (1 + kappa * ratio) * amplification;
 }
+
+/**
+ * ‖D·b‖₂ and the factor that turns the normwise bound into one for every coefficient:
+ * ‖D·b‖ / min |D_j·b_j| over the coefficients that carry at least SMALLEST_SHARE of ‖D·b‖
+ * (an error of size E·‖D·b‖ in D·b is a relative error of E·‖D·b‖/|D_j·b_j| in b_j).
+ * Without it, a fit whose coefficients differ in scale by 10⁵ after equilibration (a
+ * degree-5 polynomial in x = 1…21 whose coefficients are all 1) passes the normwise test
+ * while its smallest coefficient keeps under 10 digits.
+ */
+function scaledCoefficients(core: Pick<LeastSquaresCore, 'k' | 'perm' | 'columnNorms' | 'coefficients'>): { norm: number; amplification: number } {
+  const { k, perm, columnNorms, coefficients } = core;
+  let nb = 0;
+  for (let j = 0; j < k; j++) { const v = columnNorms[j] * coefficients[perm[j]]; nb += v * v; }
+  const norm = Math.sqrt(nb);
+  let smallest = norm;
+  for (let j = 0; j < k; j++) {
+    const v = Math.abs(columnNorms[j] * coefficients[perm[j]]);
+    if (v >= SMALLEST_SHARE * norm && v < smallest) smallest = v;
+  }
+  return { norm, amplification: smallest > 0 ? norm / smallest : 1 };
+}
+
+/** Coefficients below this share of ‖D·b‖ are zero for the purpose of the error bound (their digits are noise). */
+const SMALLEST_SHARE = 1e-8;
 
 /**
  * The OLS fit behind `ols` and `fitCurve`, on a column-major design: solves, checks the

@@ -53,19 +53,25 @@ describe("'auto' precision from the forward-error bound", () => {
     expect(forwardErrorEstimate(f.core, f.result.condition.scaledEstimate)).toBeLessThan(FORWARD_ERROR_THRESHOLD);
   });
 
-  test('the estimate follows its definition: u·κ·(1 + κ·‖r‖/‖D·b‖) (‖X·D⁻¹‖ taken as 1)', () => {
+  test('the estimate follows its definition: u·κ·(1 + κ·‖r‖/‖D·b‖)·‖D·b‖/min|D_j·b_j| (‖X·D⁻¹‖ taken as 1)', () => {
     const { data, y, n, k } = degree5(3);
     const f = fitLeastSquares({ nRows: n, nCols: k, data }, y, { precision: 'double' });
     const kappa = 1e3;
     let nb = 0;
+    const scaled: number[] = [];
     for (let j = 0; j < k; j++) {
       let cn = 0;
       for (let i = 0; i < n; i++) cn += data[j * n + i] ** 2;
       nb += cn * f.result.coefficients[j] ** 2;
+      scaled.push(Math.sqrt(cn) * Math.abs(f.result.coefficients[j]));
     }
-    const expected = 2 ** -53 * kappa * (1 + kappa * Math.sqrt(f.result.rss) / Math.sqrt(nb));
+    // Every coefficient here carries far more than 1e-8 of ‖D·b‖, so all count for the smallest.
+    const amplification = Math.sqrt(nb) / Math.min(...scaled);
+    expect(amplification).toBeGreaterThan(1);
+    const expected = 2 ** -53 * kappa * (1 + kappa * Math.sqrt(f.result.rss) / Math.sqrt(nb)) * amplification;
     expect(forwardErrorEstimate(f.core, kappa) / expected).toBeCloseTo(1, 10);
   });
+
 });
 
 test('plain double really loses digits on that problem (why the rule exists)', () => {
