@@ -65,7 +65,7 @@ export function centredCubicInference(input: {
     const e = Math.exp(v);
     return Number.isFinite(e) ? e : null;
   };
-  const [b1, b2, b3] = rawSlope;
+  const [, b2, b3] = rawSlope;
   const turningPoints: TurningPoint[] = inf.turningPoints.map((tp) => {
     const xs = c + h * tp.x;
     const ds = 2 * b2 + 6 * b3 * xs;

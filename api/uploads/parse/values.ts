@@ -41,17 +41,26 @@ export function isDecimal(s: string, sep: number): boolean {
   let i = 0;
   if (i < n && (s.charCodeAt(i) === PLUS || s.charCodeAt(i) === MINUS)) i++;
   let digits = 0;
-  while (i < n && isDigit(s.charCodeAt(i))) i++, digits++;
+  while (i < n && isDigit(s.charCodeAt(i))) {
+    i++;
+    digits++;
+  }
   if (i < n && s.charCodeAt(i) === sep) {
     i++;
-    while (i < n && isDigit(s.charCodeAt(i))) i++, digits++;
+    while (i < n && isDigit(s.charCodeAt(i))) {
+      i++;
+      digits++;
+    }
   }
   if (digits === 0) return false;
   if (i < n && (s.charCodeAt(i) === 101 || s.charCodeAt(i) === 69)) {
     i++;
     if (i < n && (s.charCodeAt(i) === PLUS || s.charCodeAt(i) === MINUS)) i++;
     let exp = 0;
-    while (i < n && isDigit(s.charCodeAt(i))) i++, exp++;
+    while (i < n && isDigit(s.charCodeAt(i))) {
+      i++;
+      exp++;
+    }
     if (exp === 0) return false;
   }
   return i === n;
