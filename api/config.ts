@@ -48,6 +48,10 @@ export interface Config {
   firstAdminEmail: string | null;
   /** Maximum upload size in bytes. */
   uploadMaxBytes: number;
+  /** Largest boundary (GeoJSON) file accepted, in bytes. */
+  boundaryMaxBytes: number;
+  /** Most vertices one district's boundary may have. */
+  boundaryMaxVertices: number;
   /** Seconds before a job whose worker died is retried elsewhere. */
   jobExpireSeconds: number;
   /** Worker polling interval in seconds (pg-boss's floor is 0.5). */
@@ -124,6 +128,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: env.MAIL_FROM ?? 'Crestwatch <no-reply@crestwatch.example>',
     firstAdminEmail: env.CRESTWATCH_FIRST_ADMIN ?? (mode === 'production' ? null : 'admin@crestwatch.example'),
     uploadMaxBytes: intFrom(env, 'UPLOAD_MAX_BYTES', 50 * 1024 * 1024),
+    boundaryMaxBytes: intFrom(env, 'BOUNDARY_MAX_BYTES', 50 * 1024 * 1024),
+    boundaryMaxVertices: intFrom(env, 'BOUNDARY_MAX_VERTICES', 100_000),
     jobExpireSeconds: intFrom(env, 'JOB_EXPIRE_SECONDS', 300),
     jobPollSeconds: Math.max(0.5, Number(env.JOB_POLL_SECONDS ?? 0.5)),
     jobMaintenanceSeconds: intFrom(env, 'JOB_MAINTENANCE_SECONDS', 30),
