@@ -12,8 +12,8 @@
  * arcs (topojson-client), so neighbours keep one common edge. Rounding a shared point
  * gives the same result on both sides, so rounding keeps that too.
  *
- * Detail: `phone` keeps about 30 points per district on average, `print` about 300
- * (never more than the source), and rounds coordinates to 1/4,000 and 1/40,000 of the
+ * Detail: `phone` keeps about 8 arc points per district on average, `print` about 300
+ * (never more than the source), and rounds coordinates to 1/2,000 and 1/40,000 of the
  * region's extent.
  */
 import type { Feature, FeatureCollection, MultiPolygon, Polygon, Position } from 'geojson';
@@ -26,7 +26,7 @@ import type { BoundaryRow } from './store';
 export type Detail = 'phone' | 'print';
 
 export const DETAIL: Record<Detail, { pointsPerDistrict: number; resolution: number }> = {
-  phone: { pointsPerDistrict: 30, resolution: 4_000 },
+  phone: { pointsPerDistrict: 8, resolution: 2_000 },
   print: { pointsPerDistrict: 300, resolution: 40_000 },
 };
 
@@ -95,7 +95,8 @@ export function simplifiedCollection(rows: BoundaryRow[], version: number | null
   let points = 0;
   for (const arc of topo.arcs) points += arc.length;
   const keep = pointsPerDistrict * source.length;
-  const simplified: Topology = points > keep ? simplify(topo as never, quantile(topo as never, 1 - keep / points)) : topo;
+  // quantile sorts the weights largest first: the keep/points quantile keeps that share.
+  const simplified: Topology = points > keep ? simplify(topo as never, quantile(topo as never, keep / points)) : topo;
   const rebuilt = feature(simplified as Topology, simplified.objects.districts as GeometryCollection<DistrictProps>) as FeatureCollection<Polygon | MultiPolygon, DistrictProps>;
 
   const features: Feature<MultiPolygon, DistrictProps>[] = [];
