@@ -1,6 +1,9 @@
 import Head from 'expo-router/head';
+import { ScrollView } from 'react-native';
 
 import { DistrictListPanel } from '@/components/district/district-list-panel';
+import { MapListChoice, useRegionView } from '@/components/region/map-list-choice';
+import { RegionMap } from '@/components/region/region-map';
 import { RegionOverview } from '@/components/region/region-overview';
 import { RegionStrip } from '@/components/region/region-strip';
 import { useDistrictsQuery } from '@/hooks/use-districts';
@@ -19,6 +22,13 @@ export default function RegionScreen() {
   const region = useRegionQuery({ enabled: mode === 'wide' });
   const run = usePublishedRunQuery();
   const level = run.data?.model.level ?? null;
+  const [view, setView] = useRegionView();
+  const header = (
+    <>
+      <RegionStrip run={run} />
+      <MapListChoice value={view} onChange={setView} />
+    </>
+  );
   return (
     <>
       <Head>
@@ -26,9 +36,16 @@ export default function RegionScreen() {
         <script>{EARLY}</script>
       </Head>
       {mode === 'wide' ? (
-        <RegionOverview region={region} districts={districts} />
+        <RegionOverview region={region} districts={districts} map={<RegionMap districts={districts} />} />
+      ) : view === 'map' ? (
+        <ScrollView contentContainerStyle={{ paddingBottom: 24 }} testID="region-map-view">
+          {header}
+          <ScrollView horizontal={false} style={{ padding: 12 }}>
+            <RegionMap districts={districts} />
+          </ScrollView>
+        </ScrollView>
       ) : (
-        <DistrictListPanel districts={districts} level={level} header={<RegionStrip run={run} />} />
+        <DistrictListPanel districts={districts} level={level} header={header} />
       )}
     </>
   );
