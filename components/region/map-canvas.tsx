@@ -99,10 +99,20 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
     );
   };
 
+  const frameRef = useRef<View>(null);
   const onPress = (e: GestureResponderEvent) => {
     if (moved.current) return;
     const v = viewRef.current;
-    const { locationX, locationY } = e.nativeEvent;
+    let { locationX, locationY } = e.nativeEvent;
+    // Web: locationX is relative to the element under the pointer (an SVG path), so use the
+    // page position against the frame's box instead.
+    const el = frameRef.current as unknown as { getBoundingClientRect?: () => DOMRect } | null;
+    if (Platform.OS === 'web' && el?.getBoundingClientRect) {
+      const r = el.getBoundingClientRect();
+      const ne = e.nativeEvent as unknown as { clientX?: number; clientY?: number; pageX: number; pageY: number };
+      locationX = (ne.clientX ?? ne.pageX - window.scrollX) - r.left;
+      locationY = (ne.clientY ?? ne.pageY - window.scrollY) - r.top;
+    }
     const hit = districtAt(scene, (locationX - v.tx) / v.k, (locationY - v.ty) / v.k);
     if (hit) onOpen(hit.code);
   };
@@ -112,7 +122,7 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
   const markSize = 12;
 
   return (
-    <View style={[styles.frame, { width: w, height: h }]} testID={testID}>
+    <View ref={frameRef} style={[styles.frame, { width: w, height: h }]} testID={testID}>
       <View ref={attachWheel} style={StyleSheet.absoluteFill} {...pan.panHandlers}>
         <Pressable onPress={onPress} style={StyleSheet.absoluteFill} accessible={false} testID={testID ? `${testID}-surface` : undefined}>
           <Svg width={w} height={h} viewBox={`0 0 ${w} ${h}`} aria-hidden>
