@@ -8,6 +8,7 @@ import { createHash } from 'node:crypto';
 import { promisify } from 'node:util';
 import { gzip } from 'node:zlib';
 import type { Knex } from 'knex';
+import type { BoundaryCollection } from '../../lib/map-scene';
 import { simplifiedCollection, type Detail } from './geometry';
 import * as store from './store';
 
@@ -42,4 +43,11 @@ export function encodedAnswer(db: Knex, version: number | null, detail: Detail):
     while (cache.size > KEPT) cache.delete(cache.keys().next().value!);
   }
   return hit;
+}
+
+/** The current boundaries as an object (the briefs' maps): null when none are loaded. */
+export async function currentCollection(db: Knex, detail: Detail): Promise<BoundaryCollection | null> {
+  const version = await store.currentVersionId(db);
+  if (version === null) return null;
+  return JSON.parse((await encodedAnswer(db, version, detail)).json.toString('utf8')) as BoundaryCollection;
 }

@@ -6,15 +6,21 @@
  */
 import type { Knex } from 'knex';
 import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
+import { currentCollection } from '../boundaries/answer';
 import { AppError, NotFoundError } from '../http/errors';
 import * as runs from '../runs/store';
 import { getSettings } from '../settings/service';
 import { districtBriefContent } from './district-content';
 import { renderDistrictPdf } from './pdf/district-pdf';
 import { renderRegionPdf } from './pdf/region-pdf';
+import { locatorScene, standingsMapScene } from './map-figure';
 import { regionBriefContent, type PooledFit } from './region-content';
 import { summaryRecords } from './store';
 import type { BriefSource, Indicator } from './trace';
+
+/** Sizes of the brief's maps, in points. */
+export const REGION_MAP = { width: 170, height: 150 };
+export const LOCATOR = { width: 110, height: 90 };
 
 /** The published run a brief reads: `runId` when given (it must be published), else the latest. */
 export async function publishedRun(db: Knex, runId?: number): Promise<runs.RunRow> {
@@ -46,7 +52,9 @@ export async function districtBrief(db: Knex, code: string, runId?: number): Pro
   const main = records.find((r) => r.variant === 'main');
   if (!main) throw new AppError(404, 'not_in_run', `District ${code} has no estimate in published run #${run.id} (no data when it ran).`, { code, runId: run.id });
   const note = (await runs.notesFor(db, run.id)).get(Number(district.id))?.note ?? null;
-  return districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note);
+  const content = districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note);
+  const fc = await currentCollection(db, 'print');
+  return { ...content, locator: fc ? locatorScene(fc, district.code, main.standing.standing, district.name, LOCATOR.width, LOCATOR.height) : null };
 }
 
 export async function regionBrief(db: Knex, runId?: number): Promise<RegionBriefContent> {
@@ -60,11 +68,14 @@ export async function regionBrief(db: Knex, runId?: number): Promise<RegionBrief
     getSettings(db),
     briefSource(db, run),
   ]);
-  return regionBriefContent(
+  const content = regionBriefContent(
     src,
     { records, districts, current, previous: previous && previousRows ? { runId: previous.id, rows: previousRows } : null, shiftPercent: settings.thresholdShiftPercent },
     run.pooled as PooledFit | null,
   );
+  const fc = await currentCollection(db, 'print');
+  const standings = new Map(current.map((r) => [r.code, r.standing]));
+  return { ...content, map: fc ? standingsMapScene(fc, standings, REGION_MAP.width, REGION_MAP.height) : null };
 }
 
 export async function districtBriefPdf(db: Knex, code: string, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {

@@ -52,7 +52,7 @@ export function LocatorMap({ code, name, standing, maxWidth = 160 }: LocatorMapP
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: space.xs, width: "100%", maxWidth: 200 },
+  wrap: { gap: space.xs, width: '100%', maxWidth: 200 },
   frame: { backgroundColor: mapInk.sea, borderRadius: radius.sm, borderWidth: 1, borderColor: colors.border, overflow: 'hidden' },
   caption: { ...type.caption, color: colors.textMuted },
 });
