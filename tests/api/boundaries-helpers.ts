@@ -20,9 +20,9 @@ function lcg(seed: number) {
  * An invented region of cols × rows districts on a grid whose edges are wiggly lines of
  * `perEdge` points, each edge drawn once and used by both neighbours (so shared edges are
  * exactly shared, as in a real boundary file). Centred in open ocean like the demo.
- * Outer rings counter-clockwise (RFC 7946).
+ * Outer rings counter-clockwise (RFC 7946). `codes` names the cells in row order (default G0001…).
  */
-export function gridRegion(cols: number, rows: number, perEdge = 24, cell = 0.05) {
+export function gridRegion(cols: number, rows: number, perEdge = 24, cell = 0.05, codes?: string[]) {
   const rnd = lcg(20261204);
   const x0 = -150;
   const y0 = -50;
@@ -63,7 +63,7 @@ export function gridRegion(cols: number, rows: number, perEdge = 24, cell = 0.05
         ...[...h(i, j + 1)].reverse().slice(1),
         ...[...v(i, j)].reverse().slice(1),
       ].map(round);
-      const code = `G${String(j * cols + i + 1).padStart(4, '0')}`;
+      const code = codes?.[j * cols + i] ?? `G${String(j * cols + i + 1).padStart(4, '0')}`;
       districts.push({ code, name: `Grid district ${j * cols + i + 1}` });
       features.push({ type: 'Feature', properties: { code, name: `Grid district ${j * cols + i + 1}` }, geometry: { type: 'Polygon', coordinates: [ring] } });
     }
