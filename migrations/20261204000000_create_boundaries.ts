@@ -11,7 +11,7 @@ import type { Knex } from 'knex';
  * data version and shows in the upload history) with one row in `boundary_versions` and
  * one polygonal geometry per district in `district_boundaries`. The current boundaries are
  * those of the latest boundary version whose upload is still committed: reverting the
- * upload (here or through the upload history) brings back the version before it.
+ * upload brings back the version before it.
  *
  * Area (km², on the geography type) and a point inside each district (ST_PointOnSurface,
  * for its mark on the map) are computed by the database when the version is written.

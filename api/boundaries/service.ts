@@ -10,7 +10,10 @@
 import type { Knex } from 'knex';
 import { AppError, NotFoundError } from '../http/errors';
 import type { ReceivedFile, Who } from '../uploads/service';
-import { inTransaction, lockObservations, withConnection } from '../uploads/sql';
+import { revertUpload } from '../uploads/change-sets';
+import { createDerivedTable, deriveChanges, derivedDefs } from '../uploads/derived-store';
+import { applyChanges } from '../uploads/merge-store';
+import { inTransaction, lockObservations, withConnection, type Sql } from '../uploads/sql';
 import * as uploads from '../uploads/store';
 import { checkFeatures, type BoundaryProblem } from './check-features';
 import { JsonReadError, readJsonFile } from './json-reader';
@@ -137,6 +140,8 @@ export async function receiveBoundaries(db: Knex, file: ReceivedFile, options: B
         missing: missing.length,
       });
       await store.writeBoundaries(conn, versionId);
+      const derived = await deriveFromBoundaries(conn, upload.id, version);
+      if (derived > 0) await conn.query(`UPDATE uploads SET derived_count = $2, value_count = value_count + $2 WHERE id = $1`, [upload.id, derived]);
       return { ...answer, committed: true, versionId, uploadId: upload.id, dataVersion: version, rollback: false };
     }),
   ).then((a) => {
@@ -169,28 +174,45 @@ function finish(options: BoundaryOptions, answer: BoundaryAnswer): BoundaryAnswe
 export const listVersions = (db: Knex) => store.listVersions(db);
 
 /**
- * Reverts a boundary upload: a change set of kind 'revert' (the next data version) marks
- * it reverted, so the boundary version before it is current again.
+ * Values derived from the boundaries, written by the boundary change set: first every
+ * `from_boundaries` indicator (land area), then the derived indicators that read one of
+ * them (e.g. density = population ÷ land area), so the second pass sees the new areas.
+ * Returns the cells changed.
+ */
+async function deriveFromBoundaries(conn: Sql, uploadId: number, version: number): Promise<number> {
+  const defs = await derivedDefs(conn);
+  const areas = defs.filter((d) => d.derivation === 'from_boundaries');
+  if (!areas.length) return 0;
+  const ids = new Set(areas.map((a) => a.id));
+  const readers = defs.filter((d) => d.derivation !== 'from_boundaries' && (ids.has(d.sourceId) || ids.has(d.divisorId)));
+  let n = 0;
+  for (const pass of [areas, readers]) {
+    if (!pass.length) continue;
+    await createDerivedTable(conn);
+    await conn.query(`TRUNCATE upload_derived`);
+    let m = 0;
+    for (const def of pass) m += await deriveChanges(conn, def, 'all');
+    if (m > 0) await applyChanges(conn, uploadId, version, [{ table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] }]);
+    n += m;
+  }
+  return n;
+}
+
+/**
+ * Reverts a boundary upload as any change set is reverted (a 'revert' change set, the
+ * next data version; the areas and the values derived from them go back to what they
+ * were), so the boundary version before it is current again.
  */
 export async function revertVersion(db: Knex, id: number, who: Who) {
-  return withConnection(db, (conn) =>
-    inTransaction(conn, async () => {
-      await lockObservations(conn);
-      const v = await store.findVersion(conn, id);
-      if (!v) throw new NotFoundError(`No boundary version ${id}.`, { id });
-      if (v.status !== 'committed') throw new AppError(409, 'already_reverted', `Boundary version ${id} (upload ${v.uploadId}) is already reverted.`, { id, uploadId: v.uploadId });
-      const version = await uploads.nextVersion(conn);
-      const rev = await uploads.insertUpload(conn, {
-        kind: 'revert',
-        status: 'committed',
-        version,
-        revertsUploadId: v.uploadId,
-        userId: who.id,
-        userEmail: who.email,
-        note: `boundaries of upload ${v.uploadId} reverted`,
-      });
-      await uploads.markReverted(conn, v.uploadId, rev.id);
-      return { reverted: await store.findVersion(conn, id), revertUploadId: rev.id, dataVersion: version, currentVersionId: await store.currentVersionId(conn) };
-    }),
-  );
+  const v = await store.findVersion(db, id);
+  if (!v) throw new NotFoundError(`No boundary version ${id}.`, { id });
+  if (v.status !== 'committed') throw new AppError(409, 'already_reverted', `Boundary version ${id} (upload ${v.uploadId}) is already reverted.`, { id, uploadId: v.uploadId });
+  const answer = await revertUpload(db, v.uploadId, who);
+  return {
+    reverted: await store.findVersion(db, id),
+    revertUploadId: answer.revert.id,
+    dataVersion: answer.revert.version,
+    restored: answer.restored,
+    currentVersionId: await store.currentVersionId(db),
+  };
 }
