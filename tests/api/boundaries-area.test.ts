@@ -54,7 +54,7 @@ it('defines land area and density, fills them from the boundaries, and reverts w
   for (const p of pops) expect(dens.get(`${p.code}|${p.year}`)).toBeCloseTo(p.value / km2.get(p.code)!, 9);
 
   const dv = await w.analyst.get('/api/data-version');
-  expect(dv.body).toMatchObject({ version: up.body.dataVersion + 0, boundaryVersion: up.body.versionId });
+  expect(dv.body).toMatchObject({ version: up.body.dataVersion, boundaryVersion: up.body.versionId });
 
   const rev = await w.analyst.post(`/api/boundaries/versions/${up.body.versionId}/revert`);
   expect(rev.status).toBe(200);
