@@ -46,7 +46,7 @@ it('defines land area and density, fills them from the boundaries, and reverts w
     `SELECT d.code, ST_Area(b.geom::geography) / 1e6 AS km2 FROM district_boundaries b JOIN districts d ON d.id = b.district_id WHERE b.version_id = ?`,
     [up.body.versionId],
   );
-  const km2 = new Map(ref.map((r: { code: string; km2: number }) => [r.code, Number(r.km2)]));
+  const km2 = new Map<string, number>(ref.map((r: { code: string; km2: number }) => [r.code, Number(r.km2)]));
   for (const a of areas) expect(a.value).toBeCloseTo(km2.get(a.code)!, 9);
   // density = population ÷ land area (the ratio's own definition), cell by cell
   const dens = new Map((await cells('density_from_area')).map((c) => [`${c.code}|${c.year}`, c.value]));
