@@ -1,8 +1,8 @@
 import Head from 'expo-router/head';
-import { ScrollView } from 'react-native';
 
 import { DistrictListPanel } from '@/components/district/district-list-panel';
 import { MapListChoice, useRegionView } from '@/components/region/map-list-choice';
+import { MapPhoneView } from '@/components/region/map-phone-view';
 import { RegionMap } from '@/components/region/region-map';
 import { RegionOverview } from '@/components/region/region-overview';
 import { RegionStrip } from '@/components/region/region-strip';
@@ -38,12 +38,7 @@ export default function RegionScreen() {
       {mode === 'wide' ? (
         <RegionOverview region={region} districts={districts} map={<RegionMap districts={districts} />} />
       ) : view === 'map' ? (
-        <ScrollView contentContainerStyle={{ paddingBottom: 24 }} testID="region-map-view">
-          {header}
-          <ScrollView horizontal={false} style={{ padding: 12 }}>
-            <RegionMap districts={districts} />
-          </ScrollView>
-        </ScrollView>
+        <MapPhoneView header={header} districts={districts} />
       ) : (
         <DistrictListPanel districts={districts} level={level} header={header} />
       )}

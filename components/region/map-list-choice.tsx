@@ -51,5 +51,5 @@ export function MapListChoice({ value, onChange }: { value: RegionView; onChange
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', gap: space.xs, paddingHorizontal: space.md, paddingTop: space.sm },
+  row: { flexDirection: 'row', gap: space.xs },
 });
