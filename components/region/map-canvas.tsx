@@ -124,7 +124,12 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
   return (
     <View ref={frameRef} style={[styles.frame, { width: w, height: h }]} testID={testID}>
       <View ref={attachWheel} style={StyleSheet.absoluteFill} {...pan.panHandlers}>
-        <Pressable onPress={onPress} style={StyleSheet.absoluteFill} accessible={false} testID={testID ? `${testID}-surface` : undefined}>
+        <Pressable
+          onPressIn={() => {
+            moved.current = false;
+          }}
+          onPress={onPress}
+          style={StyleSheet.absoluteFill} accessible={false} testID={testID ? `${testID}-surface` : undefined}>
           <Svg width={w} height={h} viewBox={`0 0 ${w} ${h}`} aria-hidden>
             <G transform={`translate(${view.tx} ${view.ty}) scale(${view.k})`}>
               {scene.fills.map((f) => (

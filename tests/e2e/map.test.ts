@@ -2,7 +2,8 @@
  * Browser test of the region map at a phone (390×844) and a wide (1440×900) viewport:
  * the demo boundaries drawn one path per standing with the standing marks, the legend as
  * the standing filter, a tap on a district opening its card (with the locator), the
- * phone's remembered Map | List choice, no horizontal overflow. Screenshots are kept
+ * phone's remembered Map | List choice, zoom by buttons and wheel, pan by dragging, reset,
+ * no horizontal overflow. Screenshots are kept
  * under tests/artifacts/screenshots.
  */
 import type { Page } from 'playwright-core';
@@ -63,6 +64,23 @@ describe.each([
       await page.waitForFunction(() => document.querySelectorAll('[data-testid^="map-mark-"]').length === 24);
       await h.shot(page, `map-${name}-zoomed`);
       await page.getByTestId('map-reset').click();
+      const transform = () => page.locator('[data-testid="region-map-canvas"] svg g').first().getAttribute('transform');
+      await page.waitForFunction(() => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') === 'translate(0 0) scale(1)');
+      // The wheel zooms in about the pointer; a drag pans; reset goes back.
+      const frame = (await page.getByTestId('region-map-canvas').boundingBox())!;
+      const cx = frame.x + frame.width / 2;
+      const cy = frame.y + frame.height / 2;
+      await page.mouse.move(cx, cy);
+      await page.mouse.wheel(0, -200);
+      await page.waitForFunction(() => /scale\(1\.25\)/.test(document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') ?? ''));
+      const zoomed = await transform();
+      await page.mouse.down();
+      await page.mouse.move(cx + 40, cy + 30, { steps: 6 });
+      await page.mouse.up();
+      await page.waitForFunction((before) => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') !== before, zoomed);
+      expect(await transform()).toMatch(/scale\(1\.25\)/);
+      await page.getByTestId('map-reset').click();
+      await page.waitForFunction(() => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') === 'translate(0 0) scale(1)');
 
       // The legend filters: past the turn only; its chip is on, and its count is the API's.
       const past = [...standingOf.values()].filter((s) => s === 'past_turn').length;
