@@ -48,7 +48,7 @@ function outline(rnd: ReturnType<typeof seededRandom>): Position[] {
 function sites(rnd: ReturnType<typeof seededRandom>): Map<string, [number, number]> {
   const out = new Map<string, [number, number]>();
   VALLEY.forEach((code, i) => {
-    const u = -0.8 + (1.6 * i) / (VALLEY.length - 1) + rnd.between(-0.04, 0.04);
+    const u = -0.68 + (1.36 * i) / (VALLEY.length - 1) + rnd.between(-0.04, 0.04);
     out.set(code, [u, river(u) + rnd.between(-0.05, 0.05)]);
   });
   UPLAND.forEach((code, i) => {
