@@ -62,6 +62,10 @@ export interface Config {
   uploadMaxBytes: number;
   /** New district codes one upload may bring; one more stops the read (keeps a file of distinct codes from filling memory). */
   uploadMaxNewDistricts: number;
+  /** Largest boundary (GeoJSON) file accepted, in bytes. */
+  boundaryMaxBytes: number;
+  /** Most vertices one district's boundary may have. */
+  boundaryMaxVertices: number;
   /** Seconds before a job whose worker died is retried elsewhere. */
   jobExpireSeconds: number;
   /** Worker polling interval in seconds (pg-boss's floor is 0.5). */
@@ -190,6 +194,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     firstAdminEmail: env.CRESTWATCH_FIRST_ADMIN ?? (mode === 'production' ? null : 'admin@crestwatch.example'),
     uploadMaxBytes: intFrom(env, 'UPLOAD_MAX_BYTES', 50 * 1024 * 1024),
     uploadMaxNewDistricts: intFrom(env, 'UPLOAD_MAX_NEW_DISTRICTS', 50_000),
+    boundaryMaxBytes: intFrom(env, 'BOUNDARY_MAX_BYTES', 50 * 1024 * 1024),
+    boundaryMaxVertices: intFrom(env, 'BOUNDARY_MAX_VERTICES', 100_000),
     jobExpireSeconds: intFrom(env, 'JOB_EXPIRE_SECONDS', 300),
     jobPollSeconds: Math.max(0.5, Number(env.JOB_POLL_SECONDS ?? 0.5)),
     jobMaintenanceSeconds: intFrom(env, 'JOB_MAINTENANCE_SECONDS', 30),

@@ -1,6 +1,7 @@
 /** Every feature's routes in one list: the route table the guard, OpenAPI and tests read. */
 import { alertRoutes } from './alerts/router';
 import { auditRoutes } from './audit/router';
+import { boundaryRoutes } from './boundaries/router';
 import { briefRoutes } from './briefs/router';
 import { authRoutes } from './auth/router';
 import type { createPassport } from './auth/passport';
@@ -33,6 +34,7 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     ...indicatorRoutes(ctx),
     ...observationRoutes(ctx),
     ...uploadRoutes(ctx),
+    ...boundaryRoutes(ctx),
     ...estimateRoutes(ctx),
     ...curveRoutes(ctx),
     ...settingsRoutes(ctx),

@@ -1,6 +1,9 @@
 import Head from 'expo-router/head';
 
 import { DistrictListPanel } from '@/components/district/district-list-panel';
+import { MapListChoice, useRegionView } from '@/components/region/map-list-choice';
+import { MapPhoneView } from '@/components/region/map-phone-view';
+import { RegionMap } from '@/components/region/region-map';
 import { RegionOverview } from '@/components/region/region-overview';
 import { RegionStrip } from '@/components/region/region-strip';
 import { useDistrictsQuery } from '@/hooks/use-districts';
@@ -19,6 +22,13 @@ export default function RegionScreen() {
   const region = useRegionQuery({ enabled: mode === 'wide' });
   const run = usePublishedRunQuery();
   const level = run.data?.model.level ?? null;
+  const [view, setView] = useRegionView();
+  const header = (
+    <>
+      <RegionStrip run={run} />
+      <MapListChoice value={view} onChange={setView} />
+    </>
+  );
   return (
     <>
       <Head>
@@ -26,9 +36,11 @@ export default function RegionScreen() {
         <script>{EARLY}</script>
       </Head>
       {mode === 'wide' ? (
-        <RegionOverview region={region} districts={districts} />
+        <RegionOverview region={region} districts={districts} map={<RegionMap districts={districts} />} />
+      ) : view === 'map' ? (
+        <MapPhoneView header={header} districts={districts} />
       ) : (
-        <DistrictListPanel districts={districts} level={level} header={<RegionStrip run={run} />} />
+        <DistrictListPanel districts={districts} level={level} header={header} />
       )}
     </>
   );

@@ -5,24 +5,30 @@
  * passes: Largest Contentful Paint, the time the card's headline and its chart were drawn,
  * and the JavaScript the first route transferred (raw and gzipped). Goals: LCP ≤ 2.5 s
  * (the Core Web Vitals "good" threshold), chart ≤ 3 s, first-route JS ≤ 600 KB gzipped.
+ * The region map (phone's Map view, every district with a boundary from an invented grid):
+ * the boundaries answer's size on the wire and the time from its arrival to the map's
+ * first drawn path; goals ≤ 250 KB gzipped and ≤ 1.5 s.
  * A benchmark that prints figures, not a pass/fail test. Everything stays on 127.0.0.1.
  *
  * Needs the web build (node --import tsx scripts/web-build.ts) and Debian's Chromium.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
+import os from 'node:os';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { chromium, type BrowserContext, type CDPSession, type Page } from 'playwright-core';
 import { TEST_STAND_IN_PORT } from '../api/config';
+import { receiveBoundaries } from '../api/boundaries/service';
 import { seedDemoIfEmpty } from '../api/demo/seed';
 import { ensureDemoAccounts } from '../api/people/service';
 import { dropDatabase, ensureDatabase } from '../scripts/database';
 import * as pg from '../scripts/pg';
 import { prepareTestTemplate } from '../scripts/test-template';
 import { buildWebIfStale, distDir } from '../scripts/web-build';
+import { gridRegion } from '../tests/api/boundaries-helpers';
 import { DEMO } from '../tests/support/auth';
 import { publishDefaultRun } from '../tests/support/published-run';
 import { insertSyntheticDistricts } from '../tests/support/synthetic';
@@ -51,6 +57,7 @@ const PROBE = `
     if (!window.__seen.headline && document.querySelector('[data-testid="card-headline"]')) window.__seen.headline = performance.now();
     if (!window.__seen.chart && document.querySelector('[data-testid="curve-chart-box"] svg path')) window.__seen.chart = performance.now();
     if (!window.__seen.row && document.querySelector('[data-testid^="district-row-"]')) window.__seen.row = performance.now();
+    if (!window.__seen.map && document.querySelector('[data-testid="region-map-canvas"] svg path')) window.__seen.map = performance.now();
     requestAnimationFrame(look);
   };
   requestAnimationFrame(look);
@@ -121,6 +128,37 @@ async function measure(context: BrowserContext, url: string, ready: 'row' | 'cha
   return { timeline, lcpMs: r.lcp, lcpElement: r.el, rowMs: r.seen.row ?? null, headlineMs: r.seen.headline ?? null, chartMs: r.seen.chart ?? null, jsRaw, jsGzip, jsFiles: files.length, apiMs };
 }
 
+type MapFigures = { answerEndMs: number; drawnMs: number; afterAnswerMs: number; gzipBytes: number };
+
+/** The phone's map view, cold and throttled: when the boundaries answer ended, when the map's paths were drawn. */
+async function measureMap(context: BrowserContext, url: string): Promise<MapFigures> {
+  const page: Page = await context.newPage();
+  const cdp: CDPSession = await context.newCDPSession(page);
+  await cdp.send('Network.enable');
+  await cdp.send('Network.setCacheDisabled', { cacheDisabled: true });
+  await cdp.send('Emulation.setCPUThrottlingRate', { rate: CPU_SLOWDOWN });
+  let gzipBytes = 0;
+  const ids = new Set<string>();
+  cdp.on('Network.requestWillBeSent', (e: { requestId: string; request: { url: string } }) => {
+    if (new URL(e.request.url).pathname === '/api/boundaries') ids.add(e.requestId);
+  });
+  cdp.on('Network.loadingFinished', (e: { requestId: string; encodedDataLength: number }) => {
+    if (ids.has(e.requestId)) gzipBytes = e.encodedDataLength;
+  });
+  await page.addInitScript(`localStorage.setItem('crestwatch.regionView', 'map');${PROBE}`);
+  await page.goto(url, { waitUntil: 'load' });
+  await page.waitForFunction(() => Boolean((window as unknown as { __seen?: Record<string, number> }).__seen?.map), undefined, { timeout: 120_000 });
+  const r = await page.evaluate(() => {
+    const w = window as unknown as { __seen: Record<string, number> };
+    const answer = (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).filter((e) => e.name.includes('/api/boundaries'));
+    return { answerEnd: answer.length ? answer[answer.length - 1].responseEnd : NaN, drawn: w.__seen.map };
+  });
+  // The choice is remembered: put the list back for the other measurements.
+  await page.evaluate(() => localStorage.setItem('crestwatch.regionView', 'list'));
+  await page.close();
+  return { answerEndMs: r.answerEnd, drawnMs: r.drawn, afterAnswerMs: r.drawn - r.answerEnd, gzipBytes };
+}
+
 const median = (v: number[]) => {
   const s = [...v].sort((a, b) => a - b);
   return s.length ? (s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2) : NaN;
@@ -151,6 +189,18 @@ async function main(): Promise<void> {
     const l0 = performance.now();
     await insertSyntheticDistricts(db, DISTRICTS - 24, { years: 31, seed: 11, prefix: 'W' });
     const nDistricts = Number((await db('districts').count<{ count: string }[]>('* as count'))[0].count);
+    // Boundaries for every district: an invented grid with wiggly shared edges (the same
+    // generator as the topology tests), loaded through the boundary upload.
+    const codes = (await db('districts').orderBy('code').pluck('code')) as string[];
+    const cols = Math.ceil(Math.sqrt(codes.length * 1.2));
+    const grid = gridRegion(cols, Math.ceil(codes.length / cols), 24, 0.05, codes);
+    grid.geojson.features = grid.geojson.features.filter((f) => codes.includes(f.properties.code));
+    const gridFile = path.join(os.tmpdir(), `cw-bench-boundaries-${process.pid}.geojson`);
+    fs.writeFileSync(gridFile, JSON.stringify(grid.geojson));
+    const b0 = performance.now();
+    const loaded = await receiveBoundaries(db, { path: gridFile, originalName: 'bench.geojson', size: fs.statSync(gridFile).size, checksum: 'bench' }, { codeProperty: 'code', commit: true, repair: false }, { id: null, email: null }, { maxVertices: 100_000 });
+    fs.rmSync(gridFile, { force: true });
+    console.log(`loaded boundaries for ${loaded.counts.matched} districts in ${((performance.now() - b0) / 1000).toFixed(1)} s`);
     console.log(`loaded ${nDistricts} districts in ${((performance.now() - l0) / 1000).toFixed(1)} s; fitting and publishing a run…`);
     const r0 = performance.now();
     await publishDefaultRun(app, url, { timeoutMs: 600_000 });
@@ -173,7 +223,9 @@ async function main(): Promise<void> {
     const card: Figures[] = [];
     const regionFiles = new Map<string, number>();
     const cardFiles = new Map<string, number>();
+    const maps: MapFigures[] = [];
     for (let i = 0; i < PASSES; i++) {
+      maps.push(await measureMap(context, `${base}/`));
       region.push(await measure(context, `${base}/`, 'row', regionFiles));
       card.push(await measure(context, `${base}/district/D01`, 'chart', cardFiles));
     }
@@ -210,6 +262,11 @@ async function main(): Promise<void> {
     console.log(`same bound for content: first row ${firstRow <= 2500 ? 'met' : 'not met'}, card headline ${headline <= 2500 ? 'met' : 'not met'}`);
     console.log(`goal chart ≤ 3 s: ${chart <= 3000 ? 'met' : 'not met'}`);
     console.log(`goal first-route JS ≤ 600 KB gzipped: ${region[0].jsGzip <= 600 * 1024 ? 'met' : 'not met'} (${kb(region[0].jsGzip)})`);
+    const mapAfter = median(maps.map((m) => m.afterAnswerMs));
+    console.log(
+      `region map (phone): boundaries answer ${kb(maps[0].gzipBytes)} on the wire (gzip, with headers); answer in at ${ms(median(maps.map((m) => m.answerEndMs)))}, map drawn at ${ms(median(maps.map((m) => m.drawnMs)))}, ${ms(mapAfter)} after the answer`,
+    );
+    console.log(`goal map drawn ≤ 1.5 s after the answer: ${mapAfter <= 1500 ? 'met' : 'not met'}; goal answer ≤ 250 KB gzipped: ${maps[0].gzipBytes <= 250 * 1024 ? 'met' : 'not met'}`);
     console.log(`requests beyond 127.0.0.1: ${offLoopback.length}`);
     await context.close();
   } finally {

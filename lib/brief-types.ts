@@ -5,7 +5,30 @@
 // so they cannot say different things. Types only: imported by the API and by the app.
 
 /** Semantic colours of a chart; each renderer maps them to its own palette. */
-export type BriefTone = 'ink' | 'muted' | 'grid' | 'curve' | 'pooled' | 'band' | 'threshold' | 'latest' | 'point' | 'projection';
+export type BriefTone =
+  | 'ink'
+  | 'muted'
+  | 'grid'
+  | 'curve'
+  | 'pooled'
+  | 'band'
+  | 'threshold'
+  | 'latest'
+  | 'point'
+  | 'projection'
+  // the region map: a standing's mark, its fill (a light tint), the land of other districts, the sea
+  | 'approaching'
+  | 'at_turn'
+  | 'past_turn'
+  | 'no_turn'
+  | 'not_estimable'
+  | 'approaching_fill'
+  | 'at_turn_fill'
+  | 'past_turn_fill'
+  | 'no_turn_fill'
+  | 'not_estimable_fill'
+  | 'land'
+  | 'sea';
 
 export type ChartItem =
   | {
@@ -79,6 +102,8 @@ export interface DistrictBriefContent {
   /** Standing, threshold, income now, projected crossing, elasticity, shape. */
   figures: BriefFigure[];
   charts: { curve: ChartScene; path: ChartScene };
+  /** Where the district lies among its neighbours (null: no boundaries loaded). */
+  locator?: ChartScene | null;
   /** Three plain-language lines. */
   reading: string[];
   /** Said when the regional pooled curve stands in for the district's own. */
@@ -114,6 +139,8 @@ export interface RegionBriefContent {
   shifts: { code: string; name: string; text: string; overLimit: boolean }[];
   shiftsNote: string | null;
   pooled: { figures: BriefFigure[]; chart: ChartScene | null; note: string | null };
+  /** The standings map, the same scene as the region view's (null: no boundaries loaded). */
+  map?: ChartScene | null;
   table: { columns: { key: keyof RegionBriefRow; label: string }[]; rows: RegionBriefRow[] };
   modelLine: string;
   cautions: string[];

@@ -59,6 +59,27 @@ export function ensureServerBinaries(): string {
   return bin;
 }
 
+/** Debian's PostGIS package for the server version in binDir ("postgresql-15-postgis-3"). */
+export function postgisPackage(binDir: string): string {
+  return `postgresql-${path.basename(path.dirname(binDir))}-postgis-3`;
+}
+
+/**
+ * PostGIS for the server in binDir: the boundaries migration creates the extension, so
+ * its files must be on the server. Installed as root; otherwise a one-line apt-get hint.
+ */
+export function ensurePostgis(binDir: string): void {
+  const version = path.basename(path.dirname(binDir));
+  const control = `/usr/share/postgresql/${version}/extension/postgis.control`;
+  if (fs.existsSync(control)) return;
+  const pkg = postgisPackage(binDir);
+  if (!isRoot) throw new Error(`PostGIS is missing: run \`sudo apt-get install -y ${pkg}\` and try again.`);
+  log(`PostGIS missing; installing Debian package ${pkg}…`);
+  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
+  execFileSync('apt-get', ['install', '-y', '-qq', pkg], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  if (!fs.existsSync(control)) throw new Error(`apt-get install ${pkg} finished but ${control} was not found.`);
+}
+
 /** Can the postgres user enter every parent of dir? (Only matters when running as root.) */
 function postgresCanReach(dir: string): boolean {
   const r = spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', dir]);
@@ -153,6 +174,7 @@ function sleep(ms: number): void {
 export function start(options: ClusterOptions): Cluster {
   const c = cluster(options);
   c.binDir = ensureServerBinaries();
+  ensurePostgis(c.binDir);
   if (isReady(c)) return c;
   if (!fs.existsSync(path.join(c.dataDir, 'PG_VERSION'))) initCluster(c);
   for (let attempt = 1; attempt <= 3; attempt++) {

@@ -4,6 +4,7 @@
  */
 import { loadConfig } from '../api/config';
 import { createDb } from '../api/db';
+import { seedDemoBoundariesIfEmpty } from '../api/demo/boundaries';
 import { publishInitialDemoRun } from '../api/demo/initial-run';
 import { seedDemoIfEmpty } from '../api/demo/seed';
 import { closeOnSignals, startServer } from '../api/server';
@@ -20,6 +21,8 @@ async function main(): Promise<void> {
     try {
       const r = await seedDemoIfEmpty(db);
       if (r.seeded) console.log(`Loaded the demo region: ${r.districts} districts, ${r.observations} observations.`);
+      const b = await seedDemoBoundariesIfEmpty(db, config.boundaryMaxVertices);
+      if (b.seeded) console.log(`Loaded the demo region's boundaries: ${b.districts} districts.`);
     } finally {
       await db.destroy();
     }

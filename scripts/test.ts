@@ -31,7 +31,7 @@ function main(): number {
   const t0 = Date.now();
   fs.mkdirSync(artifacts, { recursive: true });
 
-  let t = step('prerequisites: Debian chromium and poppler-utils, test PostgreSQL');
+  let t = step('prerequisites: Debian chromium and poppler-utils, test PostgreSQL with PostGIS');
   ensureDebianPackage('/usr/bin/chromium', 'chromium');
   ensureDebianPackage('/usr/bin/pdftotext', 'poppler-utils');
   pg.start(TEST_CLUSTER);

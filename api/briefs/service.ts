@@ -7,14 +7,20 @@
 import type { Knex } from 'knex';
 import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
 import type { AppContext } from '../context';
+import { currentCollection } from '../boundaries/answer';
 import { AppError, NotFoundError } from '../http/errors';
 import { correctionNotice } from '../runs/corrections';
 import * as runs from '../runs/store';
 import { getSettings } from '../settings/service';
 import { districtBriefContent } from './district-content';
+import { locatorScene, standingsMapScene } from './map-figure';
 import { regionBriefContent, type PooledFit } from './region-content';
 import { summaryRecords } from './store';
 import type { BriefSource, Indicator } from './trace';
+
+/** Sizes of the brief's maps, in points. */
+export const REGION_MAP = { width: 170, height: 150 };
+export const LOCATOR = { width: 110, height: 90 };
 
 /** The published run a brief reads: `runId` when given (it must be published), else the latest. */
 export async function publishedRun(db: Knex, runId?: number): Promise<runs.RunRow> {
@@ -47,7 +53,9 @@ export async function districtBrief(db: Knex, code: string, runId?: number): Pro
   if (!main) throw new AppError(404, 'not_in_run', `District ${code} has no estimate in published run #${run.id} (no data when it ran).`, { code, runId: run.id });
   const note = (await runs.notesFor(db, run.id)).get(Number(district.id))?.note ?? null;
   const correction = await correctionNotice(db, run.id, Number(district.id));
-  return districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note, correction?.text ?? null);
+  const content = districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note, correction?.text ?? null);
+  const fc = await currentCollection(db, 'print');
+  return { ...content, locator: fc ? locatorScene(fc, district.code, main.standing.standing, district.name, LOCATOR.width, LOCATOR.height) : null };
 }
 
 export async function regionBrief(db: Knex, runId?: number): Promise<RegionBriefContent> {
@@ -61,11 +69,14 @@ export async function regionBrief(db: Knex, runId?: number): Promise<RegionBrief
     getSettings(db),
     briefSource(db, run),
   ]);
-  return regionBriefContent(
+  const content = regionBriefContent(
     src,
     { records, districts, current, previous: previous && previousRows ? { runId: previous.id, rows: previousRows } : null, shiftPercent: settings.thresholdShiftPercent },
     run.pooled as PooledFit | null,
   );
+  const fc = await currentCollection(db, 'print');
+  const standings = new Map(current.map((r) => [r.code, r.standing]));
+  return { ...content, map: fc ? standingsMapScene(fc, standings, REGION_MAP.width, REGION_MAP.height) : null };
 }
 
 /** A thread hands back the PDF's bytes as a Uint8Array; Express and mail want a Buffer. */

@@ -19,6 +19,18 @@ export const derivationInput = z.discriminatedUnion('kind', [
     divisor: indicatorCode,
     baseYear: z.number().int().min(1900).max(2100),
   }),
+  z.object({
+    /** The district's land area in km², from the current boundaries, for every year it has data. */
+    kind: z.literal('from_boundaries'),
+    measure: z.literal('area_km2').default('area_km2'),
+  }),
+  z.object({
+    kind: z.literal('ratio'),
+    /** The numerator, e.g. population. */
+    source: indicatorCode,
+    /** The denominator, e.g. land area (from boundaries). */
+    divisor: indicatorCode,
+  }),
 ]);
 export type DerivationInput = z.infer<typeof derivationInput>;
 

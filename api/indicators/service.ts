@@ -21,7 +21,9 @@ export interface IndicatorView {
   derivation:
     | null
     | { kind: 'per_person'; source: string; divisor: string; formula: string }
-    | { kind: 'real_from_nominal'; source: string; divisor: string; baseYear: number; formula: string };
+    | { kind: 'real_from_nominal'; source: string; divisor: string; baseYear: number; formula: string }
+    | { kind: 'from_boundaries'; measure: 'area_km2'; formula: string }
+    | { kind: 'ratio'; source: string; divisor: string; formula: string };
   stats: store.IndicatorRow['stats'];
 }
 
@@ -29,6 +31,10 @@ export function viewOf(r: store.IndicatorRow): IndicatorView {
   let derivation: IndicatorView['derivation'] = null;
   if (r.derivation === 'per_person') {
     derivation = { kind: 'per_person', source: r.sourceCode!, divisor: r.divisorCode!, formula: `${r.sourceCode} ÷ ${r.divisorCode}` };
+  } else if (r.derivation === 'from_boundaries') {
+    derivation = { kind: 'from_boundaries', measure: 'area_km2', formula: 'land area of the district’s current boundary, km² (on the ellipsoid)' };
+  } else if (r.derivation === 'ratio') {
+    derivation = { kind: 'ratio', source: r.sourceCode!, divisor: r.divisorCode!, formula: `${r.sourceCode} ÷ ${r.divisorCode}` };
   } else if (r.derivation === 'real_from_nominal') {
     derivation = {
       kind: 'real_from_nominal',
@@ -118,6 +124,8 @@ export async function updateIndicator(db: Knex, code: string, body: UpdateIndica
 
 function inputOf(d: IndicatorView['derivation']): DerivationInput | null {
   if (!d) return null;
+  if (d.kind === 'from_boundaries') return { kind: 'from_boundaries', measure: 'area_km2' };
+  if (d.kind === 'ratio') return { kind: 'ratio', source: d.source, divisor: d.divisor };
   return d.kind === 'per_person'
     ? { kind: 'per_person', source: d.source, divisor: d.divisor }
     : { kind: 'real_from_nominal', source: d.source, divisor: d.divisor, baseYear: d.baseYear };
@@ -129,6 +137,7 @@ function keep(cur: store.IndicatorRow) {
 
 async function resolveDerivation(conn: Sql, code: string, d: DerivationInput | null) {
   if (!d) return { derivation: 'none' as const, sourceId: null, divisorId: null, baseYear: null };
+  if (d.kind === 'from_boundaries') return { derivation: 'from_boundaries' as const, sourceId: null, divisorId: null, baseYear: null };
   if (d.source === code || d.divisor === code || d.source === d.divisor) {
     throw new AppError(422, 'bad_derivation', 'A derivation needs two different indicators, neither of them the derived one.', { derivation: d });
   }
@@ -136,7 +145,8 @@ async function resolveDerivation(conn: Sql, code: string, d: DerivationInput | n
   const divisor = await store.findIndicator(conn, d.divisor);
   const missing = [!source ? d.source : null, !divisor ? d.divisor : null].filter(Boolean);
   if (missing.length) throw new AppError(422, 'bad_derivation', `No indicator ${missing.join(' or ')} to derive from.`, { missing });
-  const derived = [source!, divisor!].filter((s) => s.derivation !== 'none').map((s) => s.code);
+  // A ratio may read land area from the boundaries; everything else derives from uploaded series.
+  const derived = [source!, divisor!].filter((s) => s.derivation !== 'none' && !(d.kind === 'ratio' && s.derivation === 'from_boundaries')).map((s) => s.code);
   if (derived.length) throw new AppError(422, 'bad_derivation', `${derived.join(' and ')} ${derived.length > 1 ? 'are' : 'is'} derived: derive only from uploaded series.`, { derived });
   if (!divisor!.mustBePositive) {
     throw new AppError(422, 'bad_derivation', `The divisor ${divisor!.code} must be a positive-only indicator, so the division is always defined.`, { divisor: divisor!.code });

@@ -9,7 +9,7 @@ export interface IndicatorRow {
   unit: string;
   description: string;
   mustBePositive: boolean;
-  derivation: 'none' | 'per_person' | 'real_from_nominal';
+  derivation: 'none' | 'per_person' | 'real_from_nominal' | 'from_boundaries' | 'ratio';
   sourceId: number | null;
   divisorId: number | null;
   sourceCode: string | null;
@@ -65,7 +65,7 @@ export interface IndicatorWrite {
   unit: string;
   description: string;
   mustBePositive: boolean;
-  derivation: 'none' | 'per_person' | 'real_from_nominal';
+  derivation: 'none' | 'per_person' | 'real_from_nominal' | 'from_boundaries' | 'ratio';
   sourceId: number | null;
   divisorId: number | null;
   baseYear: number | null;

@@ -29,7 +29,7 @@ export async function revertUpload(db: Knex, id: number, who: Who): Promise<Reve
         throw new AppError(409, 'already_reverted', `Upload ${id} was already reverted (by upload ${x.revertedByUploadId}).`, { id, revertedByUploadId: x.revertedByUploadId });
       }
       if (x.status !== 'committed') throw new AppError(409, 'not_committed', `Upload ${id} is ${x.status}: only a committed upload can be reverted.`, { id, status: x.status });
-      if (x.kind !== 'file' && x.kind !== 'derivation') {
+      if (x.kind !== 'file' && x.kind !== 'derivation' && x.kind !== 'boundaries') {
         throw new AppError(409, 'not_revertable', `Upload ${id} is a ${x.kind} change set, which cannot be reverted.`, { id, kind: x.kind });
       }
       const conflicts = await revertConflicts(conn, x.id, x.version!);
@@ -131,6 +131,8 @@ export interface DataVersion {
   /** md5 over every observation as "district|indicator|year|value" in code order. */
   rowsHash: string;
   rows: number;
+  /** The boundary version in force at this data version (null: none), which land areas come from. */
+  boundaryVersion: number | null;
 }
 
 /**
@@ -147,12 +149,18 @@ export async function dataVersion(db: Knex, at?: number): Promise<DataVersion> {
       const v = at ?? current;
       const { rows: applied } = await conn.query(`SELECT id, committed_at FROM uploads WHERE version = $1`, [v]);
       const hash = await rowsHash(conn, v === current ? 'observations' : observationsAsOfSql(v));
+      const { rows: bounds } = await conn.query(
+        `SELECT b.id FROM boundary_versions b JOIN uploads u ON u.id = b.upload_id LEFT JOIN uploads r ON r.id = u.reverted_by_upload_id
+          WHERE u.version <= $1 AND (r.version IS NULL OR r.version > $1) ORDER BY u.version DESC LIMIT 1`,
+        [v],
+      );
       return {
         version: v,
         uploadId: applied[0]?.id ?? null,
         appliedAt: applied[0]?.committed_at ? new Date(applied[0].committed_at).toISOString() : null,
         rowsHash: hash.hash,
         rows: hash.rows,
+        boundaryVersion: bounds[0]?.id ?? null,
         rollback: true,
       };
     }),

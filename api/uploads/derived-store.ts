@@ -13,7 +13,8 @@ import type { Sql } from './sql';
 export interface DerivedDef {
   id: number;
   code: string;
-  derivation: 'per_person' | 'real_from_nominal';
+  derivation: 'per_person' | 'real_from_nominal' | 'ratio' | 'from_boundaries';
+  /** null for from_boundaries */
   sourceId: number;
   divisorId: number;
   mustBePositive: boolean;
@@ -45,6 +46,7 @@ export async function createDerivedTable(conn: Sql): Promise<void> {
 
 /** Computes the changes to D for the touched keys into upload_derived; returns how many. */
 export async function deriveChanges(conn: Sql, def: DerivedDef, keys: KeySource): Promise<number> {
+  if (def.derivation === 'from_boundaries') return deriveAreaChanges(conn, def, keys);
   const scale = def.derivation === 'real_from_nominal' ? 100 : 1;
   const keySql = {
     staged: `SELECT district_id, year FROM upload_eval WHERE kind = 'c' AND indicator_id IN ($1, $2)
@@ -102,4 +104,36 @@ export async function derivedNotPositive(conn: Sql, def: DerivedDef, limit: numb
       reason: `the derived ${def.code} for ${r.district} ${r.year} would be ${clip(String(r.value))}, but it must be positive`,
     })),
   };
+}
+
+/**
+ * Land area from the current boundary version (api/boundaries), km², for every touched
+ * (district, year) where the district has data: staged keys of any indicator, or every
+ * key of a plain indicator. A revert's restore set already holds the right values, so it
+ * derives nothing. A district without a boundary gets no value (a stored one is removed).
+ */
+async function deriveAreaChanges(conn: Sql, def: DerivedDef, keys: KeySource): Promise<number> {
+  if (keys === 'restored') return 0;
+  const keySql =
+    keys === 'staged'
+      ? `SELECT district_id, year FROM upload_eval WHERE kind = 'c' UNION SELECT district_id, year FROM upload_new`
+      : `SELECT o.district_id, o.year FROM observations o JOIN indicators i ON i.id = o.indicator_id WHERE i.derivation = 'none' GROUP BY 1, 2`;
+  const { rowCount } = await conn.query(
+    `INSERT INTO upload_derived (district_id, indicator_id, year, value, old_value, old_upload_id, kind, line)
+     WITH k AS (${keySql}),
+     cur AS (SELECT b.id FROM boundary_versions b JOIN uploads u ON u.id = b.upload_id
+              WHERE u.status = 'committed' ORDER BY u.version DESC LIMIT 1),
+     v AS (
+       SELECT k.district_id, k.year, db.area_km2 AS value, od.value AS old_value, od.upload_id AS old_upload_id
+         FROM k
+         LEFT JOIN district_boundaries db ON db.district_id = k.district_id AND db.version_id = (SELECT id FROM cur)
+         LEFT JOIN observations od ON od.district_id = k.district_id AND od.year = k.year AND od.indicator_id = $1
+     )
+     SELECT district_id, $1, year, value, old_value, old_upload_id,
+            CASE WHEN old_value IS NULL THEN 'i' WHEN value IS NULL THEN 'r' ELSE 'c' END, NULL::int
+       FROM v
+      WHERE value IS DISTINCT FROM old_value`,
+    [def.id],
+  );
+  return rowCount ?? 0;
 }

@@ -49,7 +49,7 @@ export function summaryOf(u: UploadRecord): UploadSummary {
     revertedAt: iso(u.revertedAt),
     counts: u.counts,
     canCommit: u.status === 'previewed' && u.stagingTable !== null,
-    canRevert: u.status === 'committed' && (u.kind === 'file' || u.kind === 'derivation'),
+    canRevert: u.status === 'committed' && (u.kind === 'file' || u.kind === 'derivation' || u.kind === 'boundaries'),
   };
 }
 

@@ -3,7 +3,7 @@ import type { Knex } from 'knex';
 import type { Problem } from './problems';
 import type { Sql } from './sql';
 
-export type UploadKind = 'file' | 'seed' | 'revert' | 'derivation';
+export type UploadKind = 'file' | 'seed' | 'revert' | 'derivation' | 'boundaries';
 export type UploadStatus = 'previewed' | 'committed' | 'reverted' | 'failed';
 
 export interface UploadCounts {

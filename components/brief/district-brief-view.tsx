@@ -23,6 +23,11 @@ export function DistrictBriefView({ content: c }: { content: DistrictBriefConten
       </View>
       <Text style={styles.headline}>{c.headline}</Text>
       <FigureGrid figures={c.figures} testID="brief-figures" />
+      {c.locator ? (
+        <View style={styles.locator}>
+          <BriefChart scene={c.locator} testID="brief-locator" />
+        </View>
+      ) : null}
       <View style={styles.charts} {...keepTogether}>
         <BriefChart scene={c.charts.curve} testID="brief-curve-chart" />
         <BriefChart scene={c.charts.path} testID="brief-path-chart" />
@@ -56,6 +61,7 @@ export function DistrictBriefView({ content: c }: { content: DistrictBriefConten
 }
 
 const styles = StyleSheet.create({
+  locator: { width: 180, maxWidth: '100%' },
   page: { gap: space.md },
   name: { ...type.heading, color: colors.text },
   standingRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },

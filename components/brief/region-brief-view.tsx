@@ -52,6 +52,11 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
       <View style={styles.lists}>
         <SummaryList title="Crossed since the last publish" items={c.crossed} note={c.crossedNote} more="in the alerts of this run" />
         <SummaryList title="Largest threshold shifts" items={c.shifts.map((s) => ({ ...s, mark: s.overLimit }))} note={c.shiftsNote} more="in the table" />
+        {c.map ? (
+          <View style={styles.map}>
+            <BriefChart scene={c.map} testID="brief-region-map" />
+          </View>
+        ) : null}
       </View>
       {c.shifts.some((s) => s.overLimit) ? <Text style={styles.muted}>• moved more than the alert limit for a threshold shift.</Text> : null}
       <View style={styles.block} {...keepTogether}>
@@ -94,6 +99,7 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
 }
 
 const styles = StyleSheet.create({
+  map: { width: 240, maxWidth: '100%' },
   page: { gap: space.md },
   title: { ...type.heading, color: colors.text },
   headline: { ...type.body, color: colors.text },

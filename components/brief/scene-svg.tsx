@@ -3,7 +3,8 @@
 // the brief has mounted (see brief-chart.tsx).
 import Svg, { Circle, Path, Text as SvgText } from 'react-native-svg';
 
-import { chartColors, colors, fonts } from '@/components/theme';
+import { mapFill, mapInk } from '@/components/region/map-palette';
+import { chartColors, colors, fonts, standingColors } from '@/components/theme';
 import type { BriefTone, ChartScene } from '@/lib/brief-types';
 
 const TONE: Record<BriefTone, string> = {
@@ -17,6 +18,18 @@ const TONE: Record<BriefTone, string> = {
   latest: chartColors.latest,
   point: chartColors.points,
   projection: chartColors.projection,
+  approaching: standingColors.approaching,
+  at_turn: standingColors.at_turn,
+  past_turn: standingColors.past_turn,
+  no_turn: standingColors.no_turn,
+  not_estimable: standingColors.not_estimable,
+  approaching_fill: mapFill.approaching,
+  at_turn_fill: mapFill.at_turn,
+  past_turn_fill: mapFill.past_turn,
+  no_turn_fill: mapFill.no_turn,
+  not_estimable_fill: mapFill.not_estimable,
+  land: mapInk.hidden,
+  sea: colors.surface,
 };
 
 export type SceneSvgProps = { scene: ChartScene };

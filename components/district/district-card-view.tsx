@@ -23,6 +23,7 @@ import { FreshnessNotice, type Freshness } from './freshness-notice';
 import { HeadlinePanel } from './headline-panel';
 import { HistoryList } from './history-list';
 import { KeyFigures } from './key-figures';
+import { LocatorMap } from './locator-map';
 import { SensitivityStrip } from './sensitivity-strip';
 import { SeriesTable } from './series-table';
 
@@ -131,6 +132,7 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
         <Text style={styles.coverage}>{district ? coverageText(district) : ' '}</Text>
       </View>
       <FreshnessNotice freshness={estimate} what="this district’s figures" />
+      <LocatorMap code={code} name={data.district.name} standing={main?.standing.standing ?? 'not_estimable'} />
       {main ? (
         <>
           <HeadlinePanel record={main} actions={actions} />

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { CautionNote } from '@/components/district/caution-note';
@@ -18,19 +19,22 @@ import { StandingMark } from './standing-mark';
 export type RegionOverviewProps = {
   region: QueryState<RegionResponse>;
   districts: QueryState<RegionRow[]>;
+  /** The region map, shown beside the list (wide screens). */
+  map?: ReactNode;
 };
 
 /**
  * The wide home screen's right-hand side: the published run, districts per standing with
  * what each standing means, the regional pooled curve, the region brief and the cautions.
  */
-export function RegionOverview({ region, districts }: RegionOverviewProps) {
+export function RegionOverview({ region, districts, map }: RegionOverviewProps) {
   const run = region.data?.run ?? null;
   const counts = countByStanding(districts.data ?? []);
   const pooled = region.data?.pooled ?? null;
   const level = run?.model.level ?? 0.95;
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.wrap} testID="region-overview">
+      {map ? <View style={styles.card}>{map}</View> : null}
       <View style={styles.card}>
         <Text role="heading" aria-level={1} style={styles.title}>
           The region at a glance

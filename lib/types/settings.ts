@@ -51,7 +51,8 @@ export type CatalogueIndicator = {
   unit: string;
   description: string;
   mustBePositive: boolean;
-  derivation: null | { kind: string; source: string; divisor: string; formula: string };
+  /** from_boundaries has no source or divisor */
+  derivation: null | { kind: string; source?: string; divisor?: string; formula: string };
   stats: { districts: number; values: number; firstYear: number | null; lastYear: number | null };
 };
 

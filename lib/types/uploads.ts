@@ -1,6 +1,6 @@
 // Shapes of the uploads API (api/uploads/present.ts, problems.ts, change-sets.ts).
 
-export type UploadKind = 'file' | 'seed' | 'revert' | 'derivation';
+export type UploadKind = 'file' | 'seed' | 'revert' | 'derivation' | 'boundaries';
 export type UploadStatus = 'previewed' | 'committed' | 'reverted' | 'failed';
 
 export type UploadCounts = {

@@ -86,11 +86,17 @@ export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer
   const limit = modelY - 6;
 
   let y = pageTop(doc, c.subtitle);
-  y += title(doc, c.name, x, y, width) + 4;
+  // The locator sits at the top right, beside the name, the standing and the headline.
+  const locator = c.locator ?? null;
+  const locatorBottom = locator ? y + locator.height + 10 : 0;
+  if (locator) drawScene(doc, locator, x + width - locator.width, y);
+  const textW = locator ? width - locator.width - 12 : width;
+  y += title(doc, c.name, x, y, textW) + 4;
   const chipW = chip(doc, c.standing.label, x, y, STANDING_COLOUR[c.standing.key] ?? INK.accent);
   if (c.standing.note) textLine(doc, c.standing.note, x + chipW + 8, y + 3.5, { size: 7.5, face: 'bold', color: INK.warn });
   y += 20;
-  y += textBlock(doc, c.headline, x, y, width, { size: 10.5, lineGap: 1.2 }, 58) + 10;
+  y += textBlock(doc, c.headline, x, y, textW, { size: 10.5, lineGap: 1.2 }, 58) + 10;
+  y = Math.max(y, locatorBottom);
   rule(doc, x, x + width, y - 4);
   y += figures(doc, c.figures, x, y + 3, width) + 2;
 

@@ -29,6 +29,19 @@ const TONE: Record<BriefTone, string> = {
   latest: '#E0A030',
   point: '#4D5E63',
   projection: '#1F5A60',
+  // the region map (our own palette: each standing's ink and a light tint of it)
+  approaching: '#A0421A',
+  at_turn: '#6A3F8F',
+  past_turn: '#22663F',
+  no_turn: '#4D5E63',
+  not_estimable: '#5C5346',
+  approaching_fill: '#D4AA98',
+  at_turn_fill: '#BCA9CD',
+  past_turn_fill: '#9CBAA9',
+  no_turn_fill: '#CACFD0',
+  not_estimable_fill: '#DEDDDA',
+  land: '#DDD7CB',
+  sea: '#FFFFFF',
 };
 
 export const MARGIN = 40;

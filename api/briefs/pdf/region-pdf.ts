@@ -69,10 +69,20 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
   });
   y += 50;
 
-  const colW = (width - 16) / 2;
+  // With boundaries loaded, the standings map takes a third column beside the two lists.
+  const map = c.map ?? null;
+  const mapW = map ? map.width : 0;
+  const colW = (width - 16 - (map ? mapW + 16 : 0)) / 2;
   const hLeft = list(doc, 'Crossed since the last publish', c.crossed, c.crossedNote, 'in the alerts of this run', x, y, colW);
   const hRight = list(doc, 'Largest threshold shifts', c.shifts.map((s) => ({ ...s, mark: s.overLimit })), c.shiftsNote, 'in the table', x + colW + 16, y, colW);
-  y += Math.max(hLeft, hRight);
+  let hMap = 0;
+  if (map) {
+    const mx = x + width - mapW;
+    textLine(doc, map.title, mx, y, { size: 8.5, face: 'bold' });
+    drawScene(doc, map, mx, y + 14);
+    hMap = 14 + map.height + 6;
+  }
+  y += Math.max(hLeft, hRight, hMap);
   if (c.shifts.some((s) => s.overLimit)) {
     y += textBlock(doc, '• moved more than the alert limit for a threshold shift.', x + colW + 16, y, colW, { size: 6.8, color: INK.muted }) + 2;
   }

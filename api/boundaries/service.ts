@@ -1,0 +1,218 @@
+/**
+ * Boundary uploads: read the GeoJSON (sliced, capped: json-reader.ts), the database-free
+ * checks (check-features.ts), then in one transaction on one connection the checks that
+ * need the region and PostGIS — codes the region does not know, districts left without a
+ * boundary, self-intersections (repaired with ST_MakeValid only when the analyst asks) —
+ * and, when the whole file is accepted and a commit was asked for, the write: a change
+ * set in `uploads` (kind 'boundaries', the next data version) and a boundary version.
+ * Nothing is written otherwise.
+ */
+import type { Knex } from 'knex';
+import { AppError, NotFoundError } from '../http/errors';
+import type { ReceivedFile, Who } from '../uploads/service';
+import { revertUpload } from '../uploads/change-sets';
+import { createDerivedTable, deriveChanges, derivedDefs } from '../uploads/derived-store';
+import { applyChanges } from '../uploads/merge-store';
+import { inTransaction, lockObservations, withConnection, type Sql } from '../uploads/sql';
+import * as uploads from '../uploads/store';
+import { checkFeatures, type BoundaryProblem } from './check-features';
+import { JsonReadError, readJsonFile } from './json-reader';
+import * as store from './store';
+
+export interface BoundaryOptions {
+  codeProperty: string;
+  commit: boolean;
+  repair: boolean;
+}
+
+export interface BoundaryLimits {
+  maxVertices: number;
+}
+
+export interface BoundaryAnswer {
+  accepted: boolean;
+  committed: boolean;
+  /** the boundary version written (commit only) */
+  versionId: number | null;
+  uploadId: number | null;
+  dataVersion: number | null;
+  counts: { features: number; vertices: number; matched: number; missing: number; repaired: number; errors: number; warnings: number };
+  problems: BoundaryProblem[];
+  /** the first features as they would be written: code, district name, area */
+  preview: { feature: number; code: string; name: string; areaKm2: number }[];
+  missingDistricts: string[];
+}
+
+/** Problems listed in an answer (the counts always cover them all). */
+const LISTED = 200;
+const PREVIEW = 50;
+
+export class BoundariesRejected extends AppError {
+  constructor(answer: BoundaryAnswer) {
+    super(422, 'boundaries_rejected', `The boundaries were not loaded: ${answer.counts.errors} problem${answer.counts.errors === 1 ? '' : 's'} to fix. ${answer.problems.find((p) => p.severity === 'error')?.reason ?? ''}`.trim(), answer);
+  }
+}
+
+function counted(problems: BoundaryProblem[]) {
+  return { errors: problems.filter((p) => p.severity === 'error').length, warnings: problems.filter((p) => p.severity === 'warning').length };
+}
+
+export async function receiveBoundaries(db: Knex, file: ReceivedFile, options: BoundaryOptions, who: Who, limits: BoundaryLimits): Promise<BoundaryAnswer> {
+  let root: unknown;
+  try {
+    root = await readJsonFile(file.path);
+  } catch (err) {
+    if (!(err instanceof JsonReadError)) throw err;
+    const problems: BoundaryProblem[] = [{ feature: null, code: null, problem: 'not_feature_collection', severity: 'error', reason: `the file is not readable JSON: ${err.message}` }];
+    return finish(options, emptyAnswer(problems));
+  }
+  const check = checkFeatures(root, options.codeProperty, limits.maxVertices);
+  root = null;
+  return withConnection(db, (conn) =>
+    inTransaction(conn, async () => {
+      const problems = [...check.problems];
+      const known = await store.districtCodes(conn);
+      const matched = check.features.filter((f) => {
+        if (known.has(f.code)) return true;
+        problems.push({ feature: f.index, code: f.code, problem: 'unknown_code', severity: 'error', reason: `feature ${f.index} has the code ${f.code}, which is not a district of the region` });
+        return false;
+      });
+      const given = new Set(check.features.map((f) => f.code));
+      const missing = [...known.keys()].filter((c) => !given.has(c)).sort();
+      for (const code of missing) {
+        problems.push({ feature: null, code, problem: 'no_boundary', severity: 'warning', reason: `district ${code} (${known.get(code)!.name}) has no feature in the file: it will be listed under the map without a shape` });
+      }
+      await store.stageFeatures(conn, matched);
+      const invalid = await store.invalidFeatures(conn);
+      let repaired = 0;
+      if (invalid.length && options.repair) {
+        const empty = new Set((await store.repairInvalid(conn)).map((e) => e.index));
+        for (const f of invalid) {
+          if (empty.has(f.index)) {
+            problems.push({ feature: f.index, code: f.code, problem: 'self_intersection', severity: 'error', reason: `feature ${f.index} (${f.code}) is not a valid polygon (${f.reason}) and the repair left no area` });
+          } else {
+            repaired += 1;
+            problems.push({ feature: f.index, code: f.code, problem: 'repaired', severity: 'warning', reason: `feature ${f.index} (${f.code}) was not a valid polygon (${f.reason}); repaired with ST_MakeValid, keeping its polygonal parts` });
+          }
+        }
+      } else {
+        for (const f of invalid) {
+          problems.push({ feature: f.index, code: f.code, problem: 'self_intersection', severity: 'error', reason: `feature ${f.index} (${f.code}) is not a valid polygon: ${f.reason}; fix it, or send repair=true to repair it with ST_MakeValid` });
+        }
+      }
+      problems.sort((a, b) => (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1) || (a.feature ?? Infinity) - (b.feature ?? Infinity));
+      const areas = await store.stagedAreas(conn, PREVIEW);
+      const { errors, warnings } = counted(problems);
+      const answer: BoundaryAnswer = {
+        accepted: errors === 0,
+        committed: false,
+        versionId: null,
+        uploadId: null,
+        dataVersion: null,
+        counts: { features: check.total, vertices: check.vertices, matched: matched.length, missing: missing.length, repaired, errors, warnings },
+        problems: problems.slice(0, LISTED),
+        preview: areas.map((a) => ({ feature: a.index, code: a.code, name: known.get(a.code)!.name, areaKm2: a.areaKm2 })),
+        missingDistricts: missing,
+      };
+      if (errors > 0 || !options.commit) return { ...finish(options, answer), rollback: true };
+      await lockObservations(conn);
+      const version = await uploads.nextVersion(conn);
+      const upload = await uploads.insertUpload(conn, {
+        kind: 'boundaries',
+        status: 'committed',
+        fileName: file.originalName,
+        checksum: file.checksum,
+        byteSize: file.size,
+        options: { codeProperty: options.codeProperty, repair: options.repair },
+        userId: who.id,
+        userEmail: who.email,
+        note: `district boundaries: ${matched.length} districts${missing.length ? `, ${missing.length} without a boundary` : ''}`,
+        version,
+        counts: { rowsRead: check.total, values: matched.length, insert: matched.length, warnings },
+        problems: answer.problems as never,
+      });
+      const versionId = await store.insertVersion(conn, {
+        uploadId: upload.id,
+        codeProperty: options.codeProperty,
+        features: matched.length,
+        vertices: check.vertices,
+        repaired,
+        missing: missing.length,
+      });
+      await store.writeBoundaries(conn, versionId);
+      const derived = await deriveFromBoundaries(conn, upload.id, version);
+      if (derived > 0) await conn.query(`UPDATE uploads SET derived_count = $2, value_count = value_count + $2 WHERE id = $1`, [upload.id, derived]);
+      return { ...answer, committed: true, versionId, uploadId: upload.id, dataVersion: version, rollback: false };
+    }),
+  ).then((a) => {
+    const { rollback: _r, ...rest } = a as BoundaryAnswer & { rollback?: boolean };
+    return rest;
+  });
+}
+
+function emptyAnswer(problems: BoundaryProblem[]): BoundaryAnswer {
+  const { errors, warnings } = counted(problems);
+  return {
+    accepted: false,
+    committed: false,
+    versionId: null,
+    uploadId: null,
+    dataVersion: null,
+    counts: { features: 0, vertices: 0, matched: 0, missing: 0, repaired: 0, errors, warnings },
+    problems,
+    preview: [],
+    missingDistricts: [],
+  };
+}
+
+/** A refused commit is an error answer (422); a dry run answers its findings either way. */
+function finish(options: BoundaryOptions, answer: BoundaryAnswer): BoundaryAnswer {
+  if (options.commit && !answer.accepted) throw new BoundariesRejected(answer);
+  return answer;
+}
+
+export const listVersions = (db: Knex) => store.listVersions(db);
+
+/**
+ * Values derived from the boundaries, written by the boundary change set: first every
+ * `from_boundaries` indicator (land area), then the derived indicators that read one of
+ * them (e.g. density = population ÷ land area), so the second pass sees the new areas.
+ * Returns the cells changed.
+ */
+async function deriveFromBoundaries(conn: Sql, uploadId: number, version: number): Promise<number> {
+  const defs = await derivedDefs(conn);
+  const areas = defs.filter((d) => d.derivation === 'from_boundaries');
+  if (!areas.length) return 0;
+  const ids = new Set(areas.map((a) => a.id));
+  const readers = defs.filter((d) => d.derivation !== 'from_boundaries' && (ids.has(d.sourceId) || ids.has(d.divisorId)));
+  let n = 0;
+  for (const pass of [areas, readers]) {
+    if (!pass.length) continue;
+    await createDerivedTable(conn);
+    await conn.query(`TRUNCATE upload_derived`);
+    let m = 0;
+    for (const def of pass) m += await deriveChanges(conn, def, 'all');
+    if (m > 0) await applyChanges(conn, uploadId, version, [{ table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] }]);
+    n += m;
+  }
+  return n;
+}
+
+/**
+ * Reverts a boundary upload as any change set is reverted (a 'revert' change set, the
+ * next data version; the areas and the values derived from them go back to what they
+ * were), so the boundary version before it is current again.
+ */
+export async function revertVersion(db: Knex, id: number, who: Who) {
+  const v = await store.findVersion(db, id);
+  if (!v) throw new NotFoundError(`No boundary version ${id}.`, { id });
+  if (v.status !== 'committed') throw new AppError(409, 'already_reverted', `Boundary version ${id} (upload ${v.uploadId}) is already reverted.`, { id, uploadId: v.uploadId });
+  const answer = await revertUpload(db, v.uploadId, who);
+  return {
+    reverted: await store.findVersion(db, id),
+    revertUploadId: answer.revert.id,
+    dataVersion: answer.revert.version,
+    restored: answer.restored,
+    currentVersionId: await store.currentVersionId(db),
+  };
+}

@@ -1,0 +1,33 @@
+// The region's district boundaries: GET /api/boundaries (simplified GeoJSON; the server
+// answers it with an ETag, so a refetch after the stale time costs a 304).
+import { useQuery } from '@tanstack/react-query';
+
+import { apiGet } from '@/lib/api-client';
+import type { BoundaryCollection } from '@/lib/map-scene';
+import { STALE_TIMES } from '@/lib/stale-times';
+
+export const boundaryKeysRoot = ['boundaries'] as const;
+
+export const boundaryKeys = {
+  all: boundaryKeysRoot,
+  current: (detail: 'phone' | 'print') => [...boundaryKeysRoot, 'current', detail] as const,
+};
+
+function isCollection(body: unknown): boolean {
+  return typeof body === 'object' && body !== null && (body as BoundaryCollection).type === 'FeatureCollection' && Array.isArray((body as BoundaryCollection).features);
+}
+
+export function fetchBoundaries(detail: 'phone' | 'print', signal?: AbortSignal): Promise<BoundaryCollection> {
+  return apiGet<BoundaryCollection>(`/api/boundaries?detail=${detail}`, { signal, accept: isCollection });
+}
+
+/** The current boundaries (boundaries change only when an analyst loads new ones). */
+export function useBoundariesQuery(options: { detail?: 'phone' | 'print'; enabled?: boolean } = {}) {
+  const detail = options.detail ?? 'phone';
+  return useQuery({
+    queryKey: boundaryKeys.current(detail),
+    queryFn: ({ signal }) => fetchBoundaries(detail, signal),
+    staleTime: STALE_TIMES.districtList,
+    enabled: options.enabled ?? true,
+  });
+}

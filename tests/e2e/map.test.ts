@@ -1,0 +1,116 @@
+/**
+ * Browser test of the region map at a phone (390×844) and a wide (1440×900) viewport:
+ * the demo boundaries drawn one path per standing with the standing marks, the legend as
+ * the standing filter, a tap on a district opening its card (with the locator), the
+ * phone's remembered Map | List choice, zoom by buttons and wheel, pan by dragging, reset,
+ * no horizontal overflow. Screenshots are kept
+ * under tests/artifacts/screenshots.
+ */
+import type { Page } from 'playwright-core';
+import { seedDemoBoundariesIfEmpty } from '../../api/demo/boundaries';
+import { DEMO } from '../support/auth';
+import { offLoopback, startHarness, VIEWPORTS, type Harness } from '../support/browser';
+
+jest.setTimeout(240_000);
+
+let h: Harness;
+beforeAll(async () => {
+  h = await startHarness({ publishRun: true });
+  await seedDemoBoundariesIfEmpty(h.t.db);
+});
+afterAll(async () => h?.close());
+
+async function signIn(page: Page, email: string): Promise<void> {
+  await page.goto(`${h.baseUrl}/api/auth/google?login_hint=${encodeURIComponent(email)}`);
+  await page.waitForURL(`${h.baseUrl}/`);
+}
+
+async function noHorizontalOverflow(page: Page): Promise<void> {
+  const { scroll, inner } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, inner: window.innerWidth }));
+  expect(scroll).toBeLessThanOrEqual(inner);
+}
+
+/** Clicks the middle of a district's standing mark (marks let clicks through to the map). */
+async function tapDistrict(page: Page, code: string): Promise<void> {
+  const box = await page.getByTestId(`map-mark-${code}`).boundingBox();
+  expect(box).not.toBeNull();
+  await page.mouse.click(box!.x + box!.width / 2, box!.y + box!.height / 2);
+}
+
+describe.each([
+  ['phone', VIEWPORTS.phone],
+  ['wide', VIEWPORTS.wide],
+] as const)('the region map at the %s viewport', (name, viewport) => {
+  it('draws the districts by standing, filters by the legend, opens a card on tap', async () => {
+    const { context, page } = await h.newPage(viewport);
+    try {
+      await signIn(page, DEMO.official);
+      const api = (await (await page.request.get(`${h.baseUrl}/api/districts`)).json()) as { districts: { code: string; estimate: { standing: string } | null }[] };
+      const standingOf = new Map(api.districts.map((d) => [d.code, d.estimate?.standing ?? 'not_estimable']));
+      if (name === 'phone') {
+        await page.getByTestId('region-view-map').click();
+      }
+      await page.getByTestId('region-map-canvas').waitFor();
+      await page.waitForFunction(() => document.fonts.status === 'loaded');
+      // One fill path per standing present, never one per district.
+      const fills = await page.locator('[data-testid="region-map-canvas"] svg path').count();
+      const standings = new Set(standingOf.values());
+      expect(fills).toBe(standings.size + 1); // + the borders
+      await noHorizontalOverflow(page);
+      await h.shot(page, `map-${name}-region`);
+      // Zoomed in twice, every one of the 24 demo districts has room for its mark.
+      await page.getByTestId('map-zoom-in').click();
+      await page.getByTestId('map-zoom-in').click();
+      await page.waitForFunction(() => document.querySelectorAll('[data-testid^="map-mark-"]').length === 24);
+      await h.shot(page, `map-${name}-zoomed`);
+      await page.getByTestId('map-reset').click();
+      const transform = () => page.locator('[data-testid="region-map-canvas"] svg g').first().getAttribute('transform');
+      await page.waitForFunction(() => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') === 'translate(0 0) scale(1)');
+      // The wheel zooms in about the pointer; a drag pans; reset goes back.
+      const frame = (await page.getByTestId('region-map-canvas').boundingBox())!;
+      const cx = frame.x + frame.width / 2;
+      const cy = frame.y + frame.height / 2;
+      await page.mouse.move(cx, cy);
+      await page.mouse.wheel(0, -200);
+      await page.waitForFunction(() => /scale\(1\.25\)/.test(document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') ?? ''));
+      const zoomed = await transform();
+      await page.mouse.down();
+      await page.mouse.move(cx + 40, cy + 30, { steps: 6 });
+      await page.mouse.up();
+      await page.waitForFunction((before) => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') !== before, zoomed);
+      expect(await transform()).toMatch(/scale\(1\.25\)/);
+      await page.getByTestId('map-reset').click();
+      await page.waitForFunction(() => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') === 'translate(0 0) scale(1)');
+
+      // The legend filters: past the turn only; its chip is on, and its count is the API's.
+      const past = [...standingOf.values()].filter((s) => s === 'past_turn').length;
+      const chip = page.getByTestId('map-legend-past_turn');
+      await expect(chip.textContent()).resolves.toContain(String(past));
+      await chip.click();
+      await page.waitForFunction(() => document.querySelector('[data-testid="map-legend-past_turn"]')?.getAttribute('aria-checked') === 'true');
+      const marks = await page.locator('[data-testid^="map-mark-"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!.replace('map-mark-', '')));
+      expect(marks.length).toBeGreaterThan(0);
+      expect(marks.every((c) => standingOf.get(c) === 'past_turn')).toBe(true);
+      await h.shot(page, `map-${name}-filtered`);
+      await chip.click();
+
+      // Tap a district: its card opens (the detail pane on wide screens), with the locator.
+      const code = (await page.locator('[data-testid^="map-mark-"]').first().getAttribute('data-testid'))!.replace('map-mark-', '');
+      await tapDistrict(page, code);
+      await page.waitForURL(`${h.baseUrl}/district/${code}`);
+      await page.getByTestId('district-name').waitFor();
+      await page.getByTestId('locator-map').locator('svg').waitFor();
+      await noHorizontalOverflow(page);
+      await h.shot(page, `map-${name}-card`);
+
+      if (name === 'phone') {
+        // The choice is remembered.
+        await page.goto(`${h.baseUrl}/`);
+        await page.getByTestId('region-map-canvas').waitFor();
+      }
+      expect(offLoopback(h.requests)).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
