@@ -1,5 +1,5 @@
 /**
- * npm test: its own PostgreSQL (own data dir and port), the web build, typecheck, then
+ * npm test: its own PostgreSQL (own data dir and port), the web build, typecheck, lint, then
  * every jest project (app components, engine and reference checks, API against the real
  * database, browser tests in Debian's Chromium), and a one-line summary.
  */
@@ -48,6 +48,15 @@ function main(): number {
       console.error(`typecheck failed for ${project}`);
       return 1;
     }
+  }
+  console.log(`done in ${((Date.now() - t) / 1000).toFixed(1)} s`);
+
+  t = step('lint (ESLint with the project rules: SQL only in stores, features through services; Prettier check)');
+  const lint = spawnSync('npm', ['run', '--silent', 'lint'], { cwd: root, stdio: 'inherit' });
+  if (lint.status !== 0) {
+    console.error('lint failed: run `npm run lint` to see why (and `npm run format` for formatting)');
+    pg.stop(TEST_CLUSTER);
+    return 1;
   }
   console.log(`done in ${((Date.now() - t) / 1000).toFixed(1)} s`);
 
