@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
-import type { AlertFeedResponse, DistrictAlertsResponse } from '@/lib/estimate-types';
+import type { AlertFeedResponse, DistrictAlertsResponse } from '@/contracts/alerts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const alertKeysRoot = ['alerts'] as const;

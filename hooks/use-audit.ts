@@ -3,7 +3,7 @@ import { useInfiniteQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { AuditFilter, AuditResponse } from '@/lib/types/people';
+import type { AuditFilter, AuditResponse } from '@/contracts/people';
 
 export const auditKeysRoot = ['audit'] as const;
 

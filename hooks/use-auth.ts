@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend, rememberCsrfToken } from '@/lib/api-client';
-import type { AuthOptionsResponse, MeResponse } from '@/lib/api-types';
+import type { AuthOptionsResponse, MeResponse } from '@/contracts/districts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const authKeysRoot = ['auth'] as const;

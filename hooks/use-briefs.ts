@@ -4,7 +4,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { DistrictBriefContent, RegionBriefContent } from '@/lib/brief-types';
+import type { DistrictBriefContent, RegionBriefContent } from '@/contracts/briefs';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const briefKeysRoot = ['briefs'] as const;

@@ -2,7 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { DistrictDetailResponse, DistrictListResponse } from '@/lib/api-types';
+import type { DistrictDetailResponse, DistrictListResponse } from '@/contracts/districts';
 import { earlyJson } from '@/lib/early-fetch';
 import { STALE_TIMES } from '@/lib/stale-times';
 

@@ -4,7 +4,7 @@ import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { earlyJson } from '@/lib/early-fetch';
-import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/lib/estimate-types';
+import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/contracts/estimates';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 /** Publishing a run changes every estimate: hooks/use-published.ts invalidates this root with the others it changes. */

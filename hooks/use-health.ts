@@ -2,7 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { HealthResponse } from '@/lib/api-types';
+import type { HealthResponse } from '@/contracts/districts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const healthKeysRoot = ['health'] as const;

@@ -3,7 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { IndicatorsResponse } from '@/lib/types/settings';
+import type { IndicatorsResponse } from '@/contracts/settings';
 
 export const indicatorKeysRoot = ['indicators'] as const;
 

@@ -3,7 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { MailboxResponse } from '@/lib/types/people';
+import type { MailboxResponse } from '@/contracts/people';
 
 export const mailboxKeysRoot = ['mailbox'] as const;
 

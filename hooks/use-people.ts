@@ -3,7 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { InviteAnswer, InviteInput, PeopleResponse, Person, PersonPatch } from '@/lib/types/people';
+import type { InviteAnswer, InviteInput, PeopleResponse, Person, PersonPatch } from '@/contracts/people';
 
 import { auditKeysRoot } from './use-audit';
 import { mailboxKeysRoot } from './use-mailbox';

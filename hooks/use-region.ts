@@ -2,7 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { PublishedRunMeta, RegionResponse } from '@/lib/estimate-types';
+import type { PublishedRunMeta, RegionResponse } from '@/contracts/estimates';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 import { districtKeys, fetchDistricts } from './use-districts';

@@ -4,14 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { RUN_POLL_MS, STALE_TIMES } from '@/lib/stale-times';
-import type {
-  DistrictReview,
-  PublishAnswer,
-  ReviewResponse,
-  RunListResponse,
-  RunState,
-  RunView,
-} from '@/lib/types/runs';
+import type { DistrictReview, PublishAnswer, ReviewResponse, RunListResponse, RunState, RunView } from '@/contracts/runs';
 
 import { invalidatePublished } from './use-published';
 

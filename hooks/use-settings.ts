@@ -4,7 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { Settings, SettingsResponse } from '@/lib/types/settings';
+import type { Settings, SettingsResponse } from '@/contracts/settings';
 
 import { auditKeysRoot } from './use-audit';
 

@@ -3,7 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { SavedSpec, SpecInput, SpecsResponse } from '@/lib/types/settings';
+import type { SavedSpec, SpecInput, SpecsResponse } from '@/contracts/settings';
 
 import { invalidatePublished } from './use-published';
 

@@ -2,7 +2,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
-import type { Subscription, SubscriptionInput, SubscriptionsResponse } from '@/lib/estimate-types';
+import type { Subscription, SubscriptionInput, SubscriptionsResponse } from '@/contracts/alerts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 import { alertKeys } from './use-alerts';

@@ -6,13 +6,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiGet, apiSend } from '@/lib/api-client';
 import type { PickedFile } from '@/lib/pick-file.types';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type {
-  RevertAnswer,
-  UploadAnswer,
-  UploadDetailResponse,
-  UploadListResponse,
-  UploadOptions,
-} from '@/lib/types/uploads';
+import type { RevertAnswer, UploadAnswer, UploadDetailResponse, UploadListResponse, UploadOptions } from '@/contracts/uploads';
 
 import { invalidatePublished } from './use-published';
 

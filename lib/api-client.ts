@@ -1,6 +1,6 @@
 // The one place the app talks HTTP. Paths are relative to the page's origin (the Express
 // server serves both the web build and /api); a native build sets EXPO_PUBLIC_API_BASE_URL.
-import type { ApiErrorBody } from './api-types';
+import type { ApiErrorBody } from '@/contracts/common';
 
 const BASE_URL = process.env.EXPO_PUBLIC_API_BASE_URL ?? '';
 

@@ -1,6 +1,7 @@
 // Words for published estimates, shared by the list, the card, the charts' text summaries
 // and the method page: one place, so a standing reads the same everywhere.
-import type { AlertKind, FiellerKind, IntervalMethod, Shape, Standing, VariantName } from './estimate-types';
+import type { AlertKind } from '@/contracts/alerts';
+import type { FiellerKind, IntervalMethod, Shape, Standing, VariantName } from '@/contracts/estimates';
 import { formatIncome } from './format';
 
 /** Standing as a word (the list, the card's badge, the filters). */

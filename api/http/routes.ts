@@ -9,8 +9,9 @@ import type { z } from 'zod';
 import { AppError } from './errors';
 import { validate, type Parsed } from './validate';
 
-export const ROLES = ['admin', 'analyst', 'official'] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type Role } from '../../contracts/common';
+
+export { ROLES, type Role };
 
 /** Who may call a route: nobody signed in needed, or one of these roles. */
 export type Allow = 'public' | readonly Role[];

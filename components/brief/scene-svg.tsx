@@ -4,7 +4,7 @@
 import Svg, { Circle, Path, Text as SvgText } from 'react-native-svg';
 
 import { chartColors, colors, fonts } from '@/components/theme';
-import type { BriefTone, ChartScene } from '@/lib/brief-types';
+import type { BriefTone, ChartScene } from '@/contracts/briefs';
 
 const TONE: Record<BriefTone, string> = {
   ink: colors.text,

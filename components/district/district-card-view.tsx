@@ -11,8 +11,9 @@ import { StatePanel } from '@/components/state/state-panel';
 import { colors, layout, radius, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
-import type { DistrictDetailResponse } from '@/lib/api-types';
-import type { DistrictAlertsResponse, DistrictEstimateResponse, DistrictHistoryResponse } from '@/lib/estimate-types';
+import type { DistrictDetailResponse } from '@/contracts/districts';
+import type { DistrictAlertsResponse } from '@/contracts/alerts';
+import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/contracts/estimates';
 
 import { CardTabs, type CardTab } from './card-tabs';
 import { CautionNote } from './caution-note';

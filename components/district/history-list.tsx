@@ -7,7 +7,7 @@ import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
 import { formatDay } from '@/lib/alert-text';
-import type { DistrictHistoryResponse } from '@/lib/estimate-types';
+import type { DistrictHistoryResponse } from '@/contracts/estimates';
 import { formatLevel, gapShort, intervalText, notBoundedText } from '@/lib/estimate-words';
 
 /** The district's estimate in each published run, newest first. */

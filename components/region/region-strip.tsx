@@ -5,7 +5,7 @@ import type { QueryState } from '@/components/state/query-state';
 import { colors, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import { formatDay } from '@/lib/alert-text';
-import type { PublishedRunMeta } from '@/lib/estimate-types';
+import type { PublishedRunMeta } from '@/contracts/estimates';
 
 /** The phone home's top line: which run the standings come from, the region brief, the method page. */
 export function RegionStrip({ run: published }: { run: QueryState<PublishedRunMeta | null> }) {

@@ -8,7 +8,7 @@ import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
-import type { DistrictReview, PublishAnswer, ReviewResponse, RunView } from '@/lib/types/runs';
+import type { DistrictReview, PublishAnswer, ReviewResponse, RunView } from '@/contracts/runs';
 
 import { DecisionBar } from './decision-bar';
 import { DistrictReviewPanel } from './district-review-panel';

@@ -14,7 +14,7 @@ import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
 import { formatBytes, formatDateTime } from '@/lib/format-time';
-import type { RevertAnswer, UploadAnswer, UploadDetailResponse } from '@/lib/types/uploads';
+import type { RevertAnswer, UploadAnswer, UploadDetailResponse } from '@/contracts/uploads';
 
 import { PreviewSummary } from './preview-summary';
 import { ProblemsTable } from './problems-table';

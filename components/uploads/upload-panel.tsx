@@ -10,7 +10,7 @@ import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
 import { formatBytes, formatDateTime } from '@/lib/format-time';
 import type { PickedFile } from '@/lib/pick-file.types';
-import type { UploadAnswer, UploadOptions, UploadRejectionDetails } from '@/lib/types/uploads';
+import type { UploadAnswer, UploadOptions, UploadRejectionDetails } from '@/contracts/uploads';
 
 import { PreviewSummary } from './preview-summary';
 import { ProblemsTable } from './problems-table';

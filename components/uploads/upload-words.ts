@@ -1,6 +1,6 @@
 // Words for uploads: statuses, kinds and counts, shared by the upload screen and its history.
 import type { Tone } from '@/components/theme';
-import type { UploadStatus, UploadSummary } from '@/lib/types/uploads';
+import type { UploadStatus, UploadSummary } from '@/contracts/uploads';
 
 export const UPLOAD_STATUS: Record<UploadStatus, { label: string; tone: Tone }> = {
   previewed: { label: 'Checked, not loaded', tone: 'warning' },

@@ -24,7 +24,7 @@ import { deliverOutbox } from '../../api/outbox/sender';
 import { ensureDemoAccounts } from '../../api/people/service';
 import type { EstimateRecord } from '../../api/runs/estimate-record';
 import { mainRecords } from '../../api/runs/store';
-import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
+import type { DistrictBriefContent, RegionBriefContent } from '../../contracts/briefs';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
 import { copyDistrictSeries } from '../support/synthetic';
 import { startRunAndWait, testJobs, until, workIn } from '../support/jobs';

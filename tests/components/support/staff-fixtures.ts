@@ -1,7 +1,7 @@
 // Invented answers for the staff screens' component tests (plumbing only: no figure here means anything).
-import type { ReviewResponse, RunView } from '@/lib/types/runs';
-import type { SettingsResponse } from '@/lib/types/settings';
-import type { UploadAnswer, UploadPreview, UploadSummary } from '@/lib/types/uploads';
+import type { ReviewResponse, RunView } from '@/contracts/runs';
+import type { SettingsResponse } from '@/contracts/settings';
+import type { UploadAnswer, UploadPreview, UploadSummary } from '@/contracts/uploads';
 
 export const settingsAnswer: SettingsResponse = {
   settings: {
