@@ -1,6 +1,6 @@
 /**
- * Shapes every feature shares: the roles, the one error body, and the marker for answers
- * that are not JSON (a PDF, a CSV, an HTML page, a redirect or no content at all).
+ * Shapes every feature shares: the roles, the one error body, and the markers for answers
+ * without a JSON body (no content, a redirect).
  */
 import { z } from 'zod/mini';
 
@@ -14,16 +14,19 @@ export const ApiErrorBodySchema = z.object({
 /** The one error shape every API failure answers with. */
 export type ApiErrorBody = z.infer<typeof ApiErrorBodySchema>;
 
-/** An answer that is not a JSON body: its status and media type (none for 204 and redirects). */
-export type OtherAnswer = { status: 204 | 302; mediaType?: undefined } | { status: 200; mediaType: string };
-
-export const NO_CONTENT: OtherAnswer = { status: 204 };
-export const REDIRECT: OtherAnswer = { status: 302 };
-export const pdfAnswer: OtherAnswer = { status: 200, mediaType: 'application/pdf' };
-export const csvAnswer: OtherAnswer = { status: 200, mediaType: 'text/csv' };
-export const htmlAnswer: OtherAnswer = { status: 200, mediaType: 'text/html' };
+/** A route that answers 204 with no body. */
+export const NO_CONTENT = { noContent: true } as const;
+/** A route that answers by sending the browser elsewhere (sign-in with Google and its callback). */
+export const REDIRECT = { redirect: true } as const;
 
 /** ISO 8601 timestamps travel as strings. */
 export const isoTime = z.string();
 export const nullableNumber = z.nullable(z.number());
 export const nullableString = z.nullable(z.string());
+
+/** GET /api/openapi.json: this API described as OpenAPI 3.1. */
+export const OpenApiDocumentSchema = z.looseObject({
+  openapi: z.string(),
+  info: z.object({ title: z.string(), version: z.string() }),
+  paths: z.record(z.string(), z.record(z.string(), z.unknown())),
+});

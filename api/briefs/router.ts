@@ -6,6 +6,7 @@ import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import './attachment';
 import { exportRun } from './export-csv';
 import * as service from './service';
+import { DistrictBriefContentSchema, RegionBriefContentSchema } from '../../contracts/briefs';
 
 /** `?run=<id>`: a published run other than the latest. */
 const runQuery = z.object({ run: z.coerce.number().int().positive().optional() });
@@ -36,6 +37,7 @@ export function briefRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/briefs/district/:code',
+      answer: DistrictBriefContentSchema,
       allow: SIGNED_IN,
       tag: 'briefs',
       summary: 'The content of a district brief (figures rounded for reading, charts as vector scenes) for the print-friendly view',
@@ -55,6 +57,7 @@ export function briefRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/briefs/region',
+      answer: RegionBriefContentSchema,
       allow: SIGNED_IN,
       tag: 'briefs',
       summary: 'The content of the region brief for the print-friendly view',

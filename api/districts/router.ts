@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
+import { DistrictDetailResponseSchema, DistrictListResponseSchema } from '../../contracts/districts';
 
 export const districtCode = z.string().regex(/^[A-Za-z0-9_-]{1,32}$/, 'a district code is 1–32 letters, digits, _ or -');
 
@@ -10,6 +11,7 @@ export function districtRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/districts',
+      answer: DistrictListResponseSchema,
       allow: SIGNED_IN,
       tag: 'districts',
       summary: 'Every district with its years covered, latest values and standing in the latest published run',
@@ -18,6 +20,7 @@ export function districtRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/districts/:code',
+      answer: DistrictDetailResponseSchema,
       allow: SIGNED_IN,
       tag: 'districts',
       summary: 'One district with its yearly series (gap years as nulls)',

@@ -4,6 +4,7 @@ import { districtCode } from '../districts/router';
 import { CurveRow, ModelSpec } from '../estimation';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
+import { WhatIfAnswerSchema } from '../../contracts/settings';
 
 const indicator = z.string().regex(/^[a-z][a-z0-9_]{0,62}$/);
 
@@ -27,6 +28,7 @@ export function curveRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/estimate',
+      answer: WhatIfAnswerSchema,
       allow: SIGNED_IN,
       tag: 'estimation',
       summary: 'Fit one curve (fitCurve over HTTP): rows in the body, or a district read from the current data',

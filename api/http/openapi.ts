@@ -1,9 +1,44 @@
-/** The OpenAPI 3.1 document, generated from the route table. */
+/**
+ * The OpenAPI 3.1 document, generated from the route table: parameters and request bodies
+ * from the routers' zod schemas, answers from the contracts (contracts/) through zod 4's
+ * JSON Schema output. A named contract becomes a component, so a generated client gets one
+ * type per answer.
+ */
 import { z } from 'zod';
-import type { RouteSpec } from './routes';
+import type { core } from 'zod/mini';
+import * as alerts from '../../contracts/alerts';
+import * as briefs from '../../contracts/briefs';
+import * as common from '../../contracts/common';
+import * as districts from '../../contracts/districts';
+import * as estimates from '../../contracts/estimates';
+import * as people from '../../contracts/people';
+import * as runs from '../../contracts/runs';
+import * as settings from '../../contracts/settings';
+import * as uploads from '../../contracts/uploads';
+import type { Answer, RouteSpec } from './routes';
 
-function jsonSchema(schema: z.ZodType): Record<string, unknown> {
-  return z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any' }) as Record<string, unknown>;
+type JsonSchema = Record<string, unknown>;
+
+function jsonSchema(schema: core.$ZodType, io: 'input' | 'output' = 'input'): JsonSchema {
+  const { $schema: _dialect, ...js } = z.toJSONSchema(schema, { io, unrepresentable: 'any' }) as JsonSchema;
+  return js;
+}
+
+/** Every exported `...Schema` of the contracts, by the name it gets in components.schemas. */
+function contractNames(): Map<core.$ZodType, string> {
+  const names = new Map<core.$ZodType, string>();
+  for (const mod of [common, districts, estimates, alerts, runs, uploads, people, settings, briefs]) {
+    for (const [key, value] of Object.entries(mod)) {
+      if (key.endsWith('Schema') && typeof value === 'object' && value !== null && '_zod' in value && !names.has(value as core.$ZodType)) {
+        names.set(value as core.$ZodType, key.slice(0, -'Schema'.length));
+      }
+    }
+  }
+  return names;
+}
+
+function isSchema(answer: Answer): answer is core.$ZodType {
+  return '_zod' in answer;
 }
 
 function parameters(schema: z.ZodType | undefined, where: 'path' | 'query') {
@@ -17,7 +52,36 @@ function parameters(schema: z.ZodType | undefined, where: 'path' | 'query') {
   }));
 }
 
+/** The success responses of one route. */
+function successes(spec: RouteSpec, ref: (schema: core.$ZodType) => JsonSchema): Record<string, unknown> {
+  if (spec.produces) {
+    const binary = !spec.produces.startsWith('text/');
+    const schema = binary ? { type: 'string', contentMediaType: spec.produces } : { type: 'string' };
+    return { '200': { description: `A ${spec.produces} document`, content: { [spec.produces]: { schema } } } };
+  }
+  const answer = spec.answer;
+  if (!answer) return { '200': { description: 'Success (answer not described)' } };
+  if (!isSchema(answer)) {
+    return 'noContent' in answer
+      ? { '204': { description: 'Done; no content' } }
+      : { '302': { description: 'Redirect to the next step of signing in' } };
+  }
+  const out: Record<string, unknown> = {};
+  for (const status of spec.statuses ?? [200]) {
+    out[String(status)] = { description: status === 202 ? 'Accepted' : status === 201 ? 'Created' : status >= 500 ? 'Fault reported' : 'Success', content: { 'application/json': { schema: ref(answer) } } };
+  }
+  return out;
+}
+
 export function openApiDocument(specs: RouteSpec[], version: string) {
+  const names = contractNames();
+  const components: Record<string, JsonSchema> = {};
+  const ref = (schema: core.$ZodType): JsonSchema => {
+    const name = names.get(schema);
+    if (!name) return jsonSchema(schema, 'output');
+    components[name] ??= jsonSchema(schema, 'output');
+    return { $ref: `#/components/schemas/${name}` };
+  };
   const paths: Record<string, Record<string, unknown>> = {};
   for (const spec of specs) {
     const p = spec.path.replace(/:([A-Za-z0-9_]+)/g, '{$1}');
@@ -28,7 +92,7 @@ export function openApiDocument(specs: RouteSpec[], version: string) {
       security: spec.allow === 'public' ? [] : [{ session: [] }],
       parameters: [...parameters(spec.schemas?.params, 'path'), ...parameters(spec.schemas?.query, 'query')],
       responses: {
-        '200': { description: 'Success', content: { [spec.produces ?? 'application/json']: {} } },
+        ...successes(spec, ref),
         '4XX': { description: 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } },
       },
     };
@@ -42,19 +106,7 @@ export function openApiDocument(specs: RouteSpec[], version: string) {
     info: { title: 'Crestwatch API', version },
     components: {
       securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'cw.sid' } },
-      schemas: {
-        Error: {
-          type: 'object',
-          required: ['error'],
-          properties: {
-            error: {
-              type: 'object',
-              required: ['code', 'message'],
-              properties: { code: { type: 'string' }, message: { type: 'string' }, details: {} },
-            },
-          },
-        },
-      },
+      schemas: { Error: jsonSchema(common.ApiErrorBodySchema, 'output'), ...components },
     },
     paths,
   };

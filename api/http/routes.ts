@@ -6,10 +6,11 @@
 import { timingSafeEqual } from 'node:crypto';
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import type { z } from 'zod';
+import type { core } from 'zod/mini';
 import { AppError } from './errors';
 import { validate, type Parsed } from './validate';
 
-import { ROLES, type Role } from '../../contracts/common';
+import { ROLES, type NO_CONTENT, type REDIRECT, type Role } from '../../contracts/common';
 
 export { ROLES, type Role };
 
@@ -20,6 +21,13 @@ export const STAFF: readonly Role[] = ['admin', 'analyst'];
 export const ADMIN: readonly Role[] = ['admin'];
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+
+/**
+ * What a route answers on success: a contracts schema for a JSON body (contracts/), or one
+ * of the markers for no body at all (204) and for a redirect. Routes with `produces` (PDF,
+ * CSV, HTML) are described by that media type instead.
+ */
+export type Answer = core.$ZodType | typeof NO_CONTENT | typeof REDIRECT;
 
 /** The signed-in person as the guard sees it (set on req.user by the auth layer). */
 export interface Caller {
@@ -42,6 +50,10 @@ export interface RouteSpec<P extends z.ZodType = z.ZodType, Q extends z.ZodType 
   before?: RequestHandler[];
   /** Content type of a successful answer when it is not JSON. */
   produces?: string;
+  /** The JSON answer's contract, or NO_CONTENT / REDIRECT (OpenAPI's responses come from it). */
+  answer?: Answer;
+  /** Success statuses of the answer when not just 200 (201 created, 202 queued; 503 for a health answer that reports a fault). */
+  statuses?: readonly number[];
   /** State-changing routes open to anonymous callers must say why (checked by tests). */
   anonymousWriteReason?: string;
   /** Return a value to send it as JSON; or write to res yourself and return undefined. */

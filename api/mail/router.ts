@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import { NotFoundError } from '../http/errors';
 import { ADMIN, route, type RouteSpec } from '../http/routes';
+import { MailboxResponseSchema } from '../../contracts/people';
 
 export function mailboxRoutes({ db, config }: AppContext): RouteSpec[] {
   const available = () => {
@@ -11,6 +12,7 @@ export function mailboxRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/mailbox',
+      answer: MailboxResponseSchema,
       allow: ADMIN,
       tag: 'mail',
       summary: 'Demo mode: the messages the local mail catcher received, newest first',

@@ -6,6 +6,8 @@ import { districtCode } from '../districts/router';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { confirmPage, resultPage } from './pages';
 import * as service from './service';
+import { SubscriptionAnswerSchema, SubscriptionsResponseSchema } from '../../contracts/alerts';
+import { NO_CONTENT } from '../../contracts/common';
 
 const body = z.object({
   scope: z.enum(['district', 'districts', 'region']),
@@ -20,6 +22,7 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/subscriptions',
+      answer: SubscriptionsResponseSchema,
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Your alert subscriptions',
@@ -28,6 +31,8 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/subscriptions',
+      answer: SubscriptionAnswerSchema,
+      statuses: [201],
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Subscribe to a district, a set of districts or the region: alert kinds, instant or digest, brief attached',
@@ -40,6 +45,7 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'delete',
       path: '/api/subscriptions/:id',
+      answer: NO_CONTENT,
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Remove one of your subscriptions',
