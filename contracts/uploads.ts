@@ -87,7 +87,16 @@ export const UploadAnswerSchema = z.discriminatedUnion('noop', [
     problems: z.array(UploadProblemSchema),
     problemsTruncated: z.boolean(),
     bulk: z.optional(z.boolean()),
-    timings: z.optional(z.record(z.string(), z.number())),
+    /** milliseconds per step (receive, read, check, merge) and whether the merge took the bulk path */
+    timings: z.optional(
+      z.object({
+        receiveMs: z.optional(z.number()),
+        readMs: z.optional(z.number()),
+        checkMs: z.optional(z.number()),
+        mergeMs: z.optional(z.number()),
+        bulkPath: z.optional(z.boolean()),
+      }),
+    ),
   }),
   /** The same file was loaded before: `upload` is that earlier upload; nothing changed. */
   z.object({ noop: z.literal(true), upload: UploadSummarySchema, message: z.string() }),
