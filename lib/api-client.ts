@@ -115,6 +115,9 @@ export const CSRF_HEADER = 'x-csrf-token';
 /** The signed-in person's own answer, which carries the CSRF token (hooks/use-auth.ts reads it too). */
 export const ME_PATH = '/api/me';
 
+/** The one field of that answer this module needs. */
+const CsrfTokenSchema = z.pick(MeResponseSchema, { csrfToken: true });
+
 let csrfToken: string | null = null;
 let csrfLookup: Promise<string | null> | null = null;
 
@@ -125,7 +128,7 @@ export function rememberCsrfToken(token: string | null): void {
 
 async function currentCsrfToken(refresh = false): Promise<string | null> {
   if (csrfToken && !refresh) return csrfToken;
-  csrfLookup ??= apiGet(ME_PATH, { schema: MeResponseSchema })
+  csrfLookup ??= apiGet(ME_PATH, { schema: CsrfTokenSchema })
     .then((me) => me.csrfToken)
     .catch(() => null)
     .finally(() => {
