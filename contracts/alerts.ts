@@ -1,5 +1,5 @@
 /** Alerts and subscriptions: GET /api/alerts, /api/districts/:code/alerts, /api/subscriptions. */
-import { z } from 'zod/mini';
+import * as z from './kit';
 import { isoTime } from './common';
 
 export const ALERT_KINDS = ['crossing', 'threshold_shift', 'shape_change', 'significance_change'] as const;

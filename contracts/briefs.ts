@@ -4,7 +4,7 @@
  * every figure already rounded for reading by api/briefs/format.ts); the PDF and the
  * print-friendly view in the app both render this object, so they cannot say different things.
  */
-import { z } from 'zod/mini';
+import * as z from './kit';
 import { nullableString } from './common';
 import { PAPER_SIZES } from './settings';
 

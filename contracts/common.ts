@@ -2,7 +2,7 @@
  * Shapes every feature shares: the roles, the one error body, and the markers for answers
  * without a JSON body (no content, a redirect).
  */
-import { z } from 'zod/mini';
+import * as z from './kit';
 
 export const ROLES = ['admin', 'analyst', 'official'] as const;
 export const RoleSchema = z.enum(ROLES);

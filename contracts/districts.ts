@@ -3,7 +3,7 @@
  * plus the small system answers (health, sign-in options, the signed-in person, the latest
  * published run id).
  */
-import { z } from 'zod/mini';
+import * as z from './kit';
 import { isoTime, nullableNumber, nullableString, RoleSchema } from './common';
 import { EstimateSummarySchema, PublishedRunMetaSchema } from './estimates';
 

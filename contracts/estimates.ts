@@ -3,7 +3,7 @@
  * built on the server from the run's per-district record (api/runs/estimate-record.ts) and its
  * card-level summary (summaryOf in api/estimates/service.ts).
  */
-import { z } from 'zod/mini';
+import * as z from './kit';
 import { isoTime, nullableNumber, nullableString } from './common';
 
 export const STANDINGS = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'] as const;

@@ -1,5 +1,5 @@
 /** People, audit and the demo mailbox: api/people, api/audit, api/mail. */
-import { z } from 'zod/mini';
+import * as z from './kit';
 import { isoTime, nullableNumber, nullableString, RoleSchema } from './common';
 
 export const PersonStatusSchema = z.enum(['active', 'invited', 'deactivated']);

@@ -2,7 +2,7 @@
  * Runs: GET /api/runs, /api/runs/:id, /review, /districts/:code, and the answers of starting,
  * publishing and reproducing one (api/runs/service.ts, estimate-record.ts, alerts/compare.ts).
  */
-import { z } from 'zod/mini';
+import * as z from './kit';
 import { isoTime, nullableNumber, nullableString } from './common';
 import { AnalystNoteSchema, EstimateRecordSchema, ShapeSchema, StandingSchema } from './estimates';
 

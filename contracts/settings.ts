@@ -1,5 +1,5 @@
 /** Settings, saved model specs and the indicator catalogue: api/settings, api/specs, api/indicators. */
-import { z } from 'zod/mini';
+import * as z from './kit';
 import { isoTime, nullableNumber, nullableString } from './common';
 import { UploadSummarySchema } from './uploads';
 

@@ -1,5 +1,5 @@
 /** Uploads: POST /api/uploads, /:id/commit, /:id/revert, GET /api/uploads[/:id] (api/uploads/present.ts, problems.ts, change-sets.ts). */
-import { z } from 'zod/mini';
+import * as z from './kit';
 import { isoTime, nullableNumber, nullableString } from './common';
 
 export const UploadKindSchema = z.enum(['file', 'seed', 'revert', 'derivation']);

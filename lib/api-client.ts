@@ -1,10 +1,9 @@
 // The one place the app talks HTTP (the base address comes from lib/api-config.ts). Answers
-// are read through their contracts (contracts/, zod/mini): a body that does not match is an
-// ApiError `bad_response` naming the fields, never a half-read screen.
-import { z, type core } from 'zod/mini';
-
+// are read through their contracts (contracts/): a body that does not match is an ApiError
+// `bad_response` naming the fields, never a half-read screen.
 import type { ApiErrorBody } from '@/contracts/common';
 import { MeResponseSchema } from '@/contracts/districts';
+import { pick, safeParse, type Issue, type Schema } from '@/contracts/kit';
 
 import { serverUrl } from './api-config';
 
@@ -54,20 +53,20 @@ async function readJson(response: Response): Promise<unknown> {
 export type ApiGetOptions<T> = {
   signal?: AbortSignal;
   /** The answer's contract: the body is parsed with it and returned typed. */
-  schema?: core.$ZodType<T>;
+  schema?: Schema<T>;
 };
 
 /** Where a body departs from its contract, for the `bad_response` details (at most five fields). */
-function mismatches(error: core.$ZodError): { path: string; message: string }[] {
-  return error.issues.slice(0, 5).map((i) => ({ path: i.path.map(String).join('.') || '(answer)', message: i.message }));
+function mismatches(issues: Issue[]): { path: string; message: string }[] {
+  return issues.slice(0, 5).map((i) => ({ path: i.path.map(String).join('.') || '(answer)', message: i.message }));
 }
 
 /** The body read through its contract; a mismatch is an ApiError `bad_response`. */
-export function readAnswer<T>(path: string, status: number, body: unknown, schema: core.$ZodType<T> | undefined): T {
+export function readAnswer<T>(path: string, status: number, body: unknown, schema: Schema<T> | undefined): T {
   if (!schema) return body as T;
-  const parsed = z.safeParse(schema, body);
+  const parsed = safeParse(schema, body);
   if (!parsed.success) {
-    throw new ApiError(status, 'bad_response', `Unexpected answer from ${path}.`, { fields: mismatches(parsed.error) });
+    throw new ApiError(status, 'bad_response', `Unexpected answer from ${path}.`, { fields: mismatches(parsed.issues) });
   }
   return parsed.data;
 }
@@ -116,7 +115,7 @@ export const CSRF_HEADER = 'x-csrf-token';
 export const ME_PATH = '/api/me';
 
 /** The one field of that answer this module needs. */
-const CsrfTokenSchema = z.pick(MeResponseSchema, { csrfToken: true });
+const CsrfTokenSchema = pick(MeResponseSchema, { csrfToken: true });
 
 let csrfToken: string | null = null;
 let csrfLookup: Promise<string | null> | null = null;

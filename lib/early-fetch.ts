@@ -2,7 +2,7 @@
 // still parsing the pre-rendered HTML — seconds before the app's JavaScript has run on a
 // slow phone. The query functions take the answer from here when it is there, and fall back
 // to their ordinary request (and its error handling) when it is not or did not succeed.
-import { z, type core } from 'zod/mini';
+import { safeParse, type Schema } from '@/contracts/kit';
 
 type EarlyMap = Record<string, Promise<Response> | undefined>;
 
@@ -21,7 +21,7 @@ export function earlyFetchScript(route: RegExp, api: (group: string) => string):
 }
 
 /** The early answer for `path` once, decoded and read through its contract; null when there is none to use. */
-export async function earlyJson<T>(path: string, schema: core.$ZodType<T>): Promise<T | null> {
+export async function earlyJson<T>(path: string, schema: Schema<T>): Promise<T | null> {
   const map = typeof window === 'undefined' ? undefined : (window as unknown as { __cwEarly?: EarlyMap }).__cwEarly;
   const pending = map?.[path];
   if (!pending) return null;
@@ -29,7 +29,7 @@ export async function earlyJson<T>(path: string, schema: core.$ZodType<T>): Prom
   try {
     const res = await pending;
     if (!res.ok) return null;
-    const parsed = z.safeParse(schema, await res.json());
+    const parsed = safeParse(schema, await res.json());
     return parsed.success ? parsed.data : null;
   } catch {
     return null;

@@ -5,7 +5,6 @@
  * type per answer.
  */
 import { z } from 'zod';
-import type { core } from 'zod/mini';
 import * as alerts from '../../contracts/alerts';
 import * as briefs from '../../contracts/briefs';
 import * as common from '../../contracts/common';
@@ -15,30 +14,32 @@ import * as people from '../../contracts/people';
 import * as runs from '../../contracts/runs';
 import * as settings from '../../contracts/settings';
 import * as uploads from '../../contracts/uploads';
+import type { Schema } from '../../contracts/kit';
+import { toZod } from './contract-zod';
 import type { Answer, RouteSpec } from './routes';
 
 type JsonSchema = Record<string, unknown>;
 
-function jsonSchema(schema: core.$ZodType, io: 'input' | 'output' = 'input'): JsonSchema {
+function jsonSchema(schema: z.ZodType, io: 'input' | 'output' = 'input'): JsonSchema {
   const { $schema: _dialect, ...js } = z.toJSONSchema(schema, { io, unrepresentable: 'any' }) as JsonSchema;
   return js;
 }
 
 /** Every exported `...Schema` of the contracts, by the name it gets in components.schemas. */
-function contractNames(): Map<core.$ZodType, string> {
-  const names = new Map<core.$ZodType, string>();
+function contractNames(): Map<Schema, string> {
+  const names = new Map<Schema, string>();
   for (const mod of [common, districts, estimates, alerts, runs, uploads, people, settings, briefs]) {
     for (const [key, value] of Object.entries(mod)) {
-      if (key.endsWith('Schema') && typeof value === 'object' && value !== null && '_zod' in value && !names.has(value as core.$ZodType)) {
-        names.set(value as core.$ZodType, key.slice(0, -'Schema'.length));
+      if (key.endsWith('Schema') && typeof value === 'object' && value !== null && 'node' in value && !names.has(value as Schema)) {
+        names.set(value as Schema, key.slice(0, -'Schema'.length));
       }
     }
   }
   return names;
 }
 
-function isSchema(answer: Answer): answer is core.$ZodType {
-  return '_zod' in answer;
+function isSchema(answer: Answer): answer is Schema {
+  return 'node' in answer;
 }
 
 function parameters(schema: z.ZodType | undefined, where: 'path' | 'query') {
@@ -53,7 +54,7 @@ function parameters(schema: z.ZodType | undefined, where: 'path' | 'query') {
 }
 
 /** The success responses of one route. */
-function successes(spec: RouteSpec, ref: (schema: core.$ZodType) => JsonSchema): Record<string, unknown> {
+function successes(spec: RouteSpec, ref: (schema: Schema) => JsonSchema): Record<string, unknown> {
   if (spec.produces) {
     const binary = !spec.produces.startsWith('text/');
     const schema = binary ? { type: 'string', contentMediaType: spec.produces } : { type: 'string' };
@@ -76,10 +77,10 @@ function successes(spec: RouteSpec, ref: (schema: core.$ZodType) => JsonSchema):
 export function openApiDocument(specs: RouteSpec[], version: string) {
   const names = contractNames();
   const components: Record<string, JsonSchema> = {};
-  const ref = (schema: core.$ZodType): JsonSchema => {
+  const ref = (schema: Schema): JsonSchema => {
     const name = names.get(schema);
-    if (!name) return jsonSchema(schema, 'output');
-    components[name] ??= jsonSchema(schema, 'output');
+    if (!name) return jsonSchema(toZod(schema), 'output');
+    components[name] ??= jsonSchema(toZod(schema), 'output');
     return { $ref: `#/components/schemas/${name}` };
   };
   const paths: Record<string, Record<string, unknown>> = {};
@@ -106,7 +107,7 @@ export function openApiDocument(specs: RouteSpec[], version: string) {
     info: { title: 'Crestwatch API', version },
     components: {
       securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'cw.sid' } },
-      schemas: { Error: jsonSchema(common.ApiErrorBodySchema, 'output'), ...components },
+      schemas: { Error: jsonSchema(toZod(common.ApiErrorBodySchema), 'output'), ...components },
     },
     paths,
   };

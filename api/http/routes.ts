@@ -6,11 +6,11 @@
 import { timingSafeEqual } from 'node:crypto';
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import type { z } from 'zod';
-import type { core } from 'zod/mini';
 import { AppError } from './errors';
 import { validate, type Parsed } from './validate';
 
 import { ROLES, type NO_CONTENT, type REDIRECT, type Role } from '../../contracts/common';
+import type { Schema } from '../../contracts/kit';
 
 export { ROLES, type Role };
 
@@ -27,7 +27,7 @@ export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
  * of the markers for no body at all (204) and for a redirect. Routes with `produces` (PDF,
  * CSV, HTML) are described by that media type instead.
  */
-export type Answer = core.$ZodType | typeof NO_CONTENT | typeof REDIRECT;
+export type Answer = Schema | typeof NO_CONTENT | typeof REDIRECT;
 
 /** The signed-in person as the guard sees it (set on req.user by the auth layer). */
 export interface Caller {

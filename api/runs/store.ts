@@ -4,6 +4,7 @@ import type { ModelSpec } from '../estimation';
 import type { EstimateRecord, Variant } from './estimate-record';
 import type { Selection } from './data-store';
 import { PooledCurveSchema, type PooledCurve } from '../../contracts/estimates';
+import { parse } from '../../contracts/kit';
 
 export type RunState = 'queued' | 'running' | 'in_review' | 'published' | 'discarded' | 'failed';
 
@@ -61,7 +62,7 @@ function toRun(r: Record<string, unknown>): RunRow {
     reviewedBy: num(r.reviewed_by),
     chunksTotal: num(r.chunks_total),
     districtsTotal: num(r.districts_total),
-    pooled: r.pooled ? PooledCurveSchema.parse(r.pooled) : null,
+    pooled: r.pooled ? parse(PooledCurveSchema, r.pooled) : null,
     timings: (r.timings as Record<string, number> | null) ?? null,
     error: (r.error as string | null) ?? null,
     attempts: Number(r.attempts),
