@@ -106,7 +106,13 @@ export const ReviewRowSchema = z.object({
 });
 export type ReviewRow = z.infer<typeof ReviewRowSchema>;
 
-export const ReviewResponseSchema = z.object({ runId: z.number(), previousRunId: nullableNumber, districts: z.array(ReviewRowSchema) });
+export const ReviewResponseSchema = z.object({
+  runId: z.number(),
+  previousRunId: nullableNumber,
+  /** the settings' threshold-shift limit (percent) the comparison marks moves against */
+  thresholdShiftPercent: z.number(),
+  districts: z.array(ReviewRowSchema),
+});
 export type ReviewResponse = z.infer<typeof ReviewResponseSchema>;
 
 export const VARIANTS = ['main', 'no_controls', 'cubic', 'last20', 'level'] as const;

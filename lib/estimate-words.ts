@@ -75,13 +75,13 @@ export const COVARIANCE_LABEL: Record<string, string> = {
 };
 
 /** "95%" from 0.95 (one decimal where needed: 0.975 → "97.5%"). */
-export function levelPercent(level: number): string {
-  return `${Math.round(level * 1000) / 10}%`;
+export function levelPercent(level: number | null): string {
+  return level === null ? 'level not set' : `${Math.round(level * 1000) / 10}%`;
 }
 
-/** DOMAIN.md's phrase, with the run's confidence level. */
-export function notBoundedText(level: number): string {
-  return `interval not bounded at ${levelPercent(level)}`;
+/** The method page's phrase, with the run's confidence level (said as not set when an answer carries none). */
+export function notBoundedText(level: number | null): string {
+  return level === null ? 'interval not bounded (confidence level not set)' : `interval not bounded at ${levelPercent(level)}`;
 }
 
 /** Income levels: whole units, and a plain bound for absurd interval ends. */

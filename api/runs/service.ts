@@ -184,15 +184,17 @@ export async function reviewRows(db: Knex, id: number) {
   const run = await mustFind(db, id);
   visibleOrThrow(run);
   const previous = await previousPublishedFor(db, run);
-  const [rows, prevRows, notes] = await Promise.all([
+  const [rows, prevRows, notes, settings] = await Promise.all([
     store.listEstimateRows(db, id),
     previous ? store.listEstimateRows(db, previous.id) : Promise.resolve([]),
     store.notesFor(db, id),
+    getSettings(db),
   ]);
   const prevById = new Map(prevRows.map((p) => [p.districtId, p]));
   return {
     runId: id,
     previousRunId: previous?.id ?? null,
+    thresholdShiftPercent: settings.thresholdShiftPercent,
     districts: rows.map((r) => {
       const p = prevById.get(r.districtId) ?? null;
       const { districtId, ...current } = r;

@@ -2,6 +2,7 @@ import { ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { CautionNote } from '@/components/district/caution-note';
 import { ExternalLink } from '@/components/district/external-link';
+import { briefPdfPath } from '@/hooks/use-briefs';
 import { QueryErrorPanel } from '@/components/state/query-error-panel';
 import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
@@ -28,7 +29,7 @@ export function RegionOverview({ region, districts }: RegionOverviewProps) {
   const run = region.data?.run ?? null;
   const counts = countByStanding(districts.data ?? []);
   const pooled = region.data?.pooled ?? null;
-  const level = run?.model.level ?? 0.95;
+  const level = run?.model.level ?? null;
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.wrap} testID="region-overview">
       <View style={styles.card}>
@@ -77,7 +78,7 @@ export function RegionOverview({ region, districts }: RegionOverviewProps) {
           </Text>
         ) : null}
         <View style={styles.links}>
-          {run ? <ExternalLink path="/api/briefs/region.pdf" label="Region brief (PDF)" testID="region-brief-link" /> : null}
+          {run ? <ExternalLink path={briefPdfPath.region()} label="Region brief (PDF)" testID="region-brief-link" /> : null}
           <TextLink href="/method" label="How Crestwatch estimates" />
         </View>
         <Text style={styles.hint}>Choose a district on the left to open its card.</Text>

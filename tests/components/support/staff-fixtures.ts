@@ -110,6 +110,8 @@ const unchanged = { thresholdPercent: 0, standingChanged: false, shapeChanged: f
 export const reviewAnswer: ReviewResponse = {
   runId: 5,
   previousRunId: 4,
+  // The settings' default limit (api/settings/schema.ts), as settingsAnswer above has it.
+  thresholdShiftPercent: 10,
   districts: [
     {
       code: 'T01', name: 'Ashgrove', status: 'ok', standing: 'approaching', shape: 'inverted_u', threshold: 30000, gapPercent: -20,
