@@ -3,10 +3,10 @@
  * (route matching, form checks). One definition each, so the two cannot disagree.
  */
 
-/** A district code: 1–32 letters, digits, `_` or `-` (e.g. `D07`, `north-3`). */
-export const DISTRICT_CODE = /^[A-Za-z0-9_-]{1,32}$/;
-/** The same rule as a fragment for building other patterns (a route path, a script). */
+/** A district code's characters as a fragment, for building other patterns (a route path, a script). */
 export const DISTRICT_CODE_PART = '[A-Za-z0-9_-]{1,32}';
+/** A district code: 1–32 letters, digits, `_` or `-` (e.g. `D07`, `north-3`). */
+export const DISTRICT_CODE = new RegExp(`^${DISTRICT_CODE_PART}$`);
 export const DISTRICT_CODE_RULE = 'a district code is 1–32 letters, digits, _ or -';
 
 /** An indicator code: a lower-case letter, then up to 62 lower-case letters, digits or `_`. */

@@ -2,9 +2,10 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
+import { DISTRICT_CODE, DISTRICT_CODE_RULE } from '../../contracts/patterns';
 import { DistrictDetailResponseSchema, DistrictListResponseSchema } from '../../contracts/districts';
 
-export const districtCode = z.string().regex(/^[A-Za-z0-9_-]{1,32}$/, 'a district code is 1–32 letters, digits, _ or -');
+export const districtCode = z.string().regex(DISTRICT_CODE, DISTRICT_CODE_RULE);
 
 export function districtRoutes({ db }: AppContext): RouteSpec[] {
   return [

@@ -4,9 +4,10 @@ import { districtCode } from '../districts/router';
 import { CurveRow, ModelSpec } from '../estimation';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
+import { INDICATOR_CODE, INDICATOR_CODE_RULE } from '../../contracts/patterns';
 import { WhatIfAnswerSchema } from '../../contracts/settings';
 
-const indicator = z.string().regex(/^[a-z][a-z0-9_]{0,62}$/);
+const indicator = z.string().regex(INDICATOR_CODE, INDICATOR_CODE_RULE);
 
 export const EstimateRequest = z.union([
   z.object({ model: ModelSpec, rows: z.array(CurveRow).min(1).max(1000) }).strict(),

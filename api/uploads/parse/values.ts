@@ -4,6 +4,7 @@
  * reason; the caller adds the line and column.
  */
 import type { ProblemCode } from '../problems';
+import { DISTRICT_CODE } from '../../../contracts/patterns';
 
 export type Checked<T> = { ok: true; value: T } | { ok: false; code: ProblemCode; reason: string };
 
@@ -55,7 +56,7 @@ export function checkYear(raw: string, currentYear: number): Checked<number> {
 }
 
 /** Same rule as the districts API's code parameter. */
-export const DISTRICT_CODE = /^[A-Za-z0-9_-]{1,32}$/;
+export { DISTRICT_CODE };
 
 export function checkDistrictCode(raw: string): Checked<string> {
   if (DISTRICT_CODE.test(raw)) return { ok: true, value: raw };
