@@ -22,6 +22,7 @@ import { settingsRoutes } from './settings/router';
 import { specRoutes } from './specs/router';
 import { subscriptionRoutes } from './subscriptions/router';
 import { SOFTWARE_VERSION } from './version';
+import { OpenApiDocumentSchema } from '../contracts/common';
 
 export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPassport>): RouteSpec[] {
   const routes: RouteSpec[] = [
@@ -48,6 +49,7 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     route({
       method: 'get',
       path: '/api/openapi.json',
+      answer: OpenApiDocumentSchema,
       allow: 'public',
       tag: 'system',
       summary: 'This API described as OpenAPI 3.1 (generated from the route table)',

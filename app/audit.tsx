@@ -6,7 +6,7 @@ import { GatedPage } from '@/components/layout/role-gate';
 import { useAuditQuery } from '@/hooks/use-audit';
 import { useMeQuery } from '@/hooks/use-auth';
 import { can } from '@/lib/roles';
-import type { AuditFilter } from '@/lib/types/people';
+import type { AuditFilter } from '@/contracts/people';
 
 /** Admin: the audit log, filtered. */
 export default function AuditRoute() {

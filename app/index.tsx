@@ -6,13 +6,13 @@ import { MapPhoneView } from '@/components/region/map-phone-view';
 import { RegionMap } from '@/components/region/region-map';
 import { RegionOverview } from '@/components/region/region-overview';
 import { RegionStrip } from '@/components/region/region-strip';
-import { useDistrictsQuery } from '@/hooks/use-districts';
+import { DISTRICTS_PATH, useDistrictsQuery } from '@/hooks/use-districts';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
 import { usePublishedRunQuery, useRegionQuery } from '@/hooks/use-region';
 import { earlyFetchScript } from '@/lib/early-fetch';
 
 // Starts the list's request while the page's HTML is still parsing.
-const EARLY = earlyFetchScript(/^\/$/, () => '/api/districts');
+const EARLY = earlyFetchScript(/^\/$/, () => DISTRICTS_PATH);
 
 /** Home: the region. Phone: the list with the run line; wide: the list is beside, this shows the overview. */
 export default function RegionScreen() {

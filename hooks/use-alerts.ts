@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
-import type { AlertFeedResponse, DistrictAlertsResponse } from '@/lib/estimate-types';
+import { AlertFeedResponseSchema, DistrictAlertsResponseSchema, type AlertFeedResponse } from '@/contracts/alerts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const alertKeysRoot = ['alerts'] as const;
@@ -14,13 +14,11 @@ export const alertKeys = {
   district: (code: string) => [...alertKeysRoot, 'district', code] as const,
 };
 
-const hasAlerts = (body: unknown) => typeof body === 'object' && body !== null && Array.isArray((body as DistrictAlertsResponse).alerts);
-
 /** What the caller's subscriptions cover, newest first, unread marked. */
 export function useAlertFeedQuery(enabled = true) {
   return useQuery({
     queryKey: alertKeys.feed(),
-    queryFn: ({ signal }) => apiGet<AlertFeedResponse>('/api/alerts?limit=50', { signal, accept: hasAlerts }),
+    queryFn: ({ signal }) => apiGet('/api/alerts?limit=50', { signal, schema: AlertFeedResponseSchema }),
     staleTime: STALE_TIMES.alertFeed,
     enabled,
   });
@@ -31,7 +29,7 @@ export function useDistrictAlertsQuery(code: string, enabled = true) {
   return useQuery({
     queryKey: alertKeys.district(code),
     queryFn: ({ signal }) =>
-      apiGet<DistrictAlertsResponse>(`/api/districts/${encodeURIComponent(code)}/alerts?limit=20`, { signal, accept: hasAlerts }),
+      apiGet(`/api/districts/${encodeURIComponent(code)}/alerts?limit=20`, { signal, schema: DistrictAlertsResponseSchema }),
     staleTime: STALE_TIMES.estimate,
     enabled: enabled && code !== '',
   });

@@ -3,7 +3,7 @@ import { useInfiniteQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { AuditFilter, AuditResponse } from '@/lib/types/people';
+import { AuditResponseSchema, type AuditFilter } from '@/contracts/people';
 
 export const auditKeysRoot = ['audit'] as const;
 
@@ -29,9 +29,9 @@ export function useAuditQuery(filter: AuditFilter, enabled = true) {
   return useInfiniteQuery({
     queryKey: auditKeys.list(filter),
     queryFn: ({ signal, pageParam }) =>
-      apiGet<AuditResponse>(auditPath(filter, pageParam), {
+      apiGet(auditPath(filter, pageParam), {
         signal,
-        accept: (b) => Array.isArray((b as AuditResponse).entries),
+        schema: AuditResponseSchema,
       }),
     initialPageParam: undefined as number | undefined,
     getNextPageParam: (last) => (last.entries.length === AUDIT_PAGE ? last.entries[last.entries.length - 1].id : undefined),

@@ -2,8 +2,8 @@
 // and the CSRF token every state-changing call carries), POST /api/auth/sign-out.
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import { apiGet, apiSend, rememberCsrfToken } from '@/lib/api-client';
-import type { AuthOptionsResponse, MeResponse } from '@/lib/api-types';
+import { apiGet, apiSend, ME_PATH, rememberCsrfToken } from '@/lib/api-client';
+import { AuthOptionsResponseSchema, MeResponseSchema, type MeResponse } from '@/contracts/districts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const authKeysRoot = ['auth'] as const;
@@ -18,18 +18,18 @@ export function useAuthOptionsQuery() {
   return useQuery({
     queryKey: authKeys.options(),
     queryFn: ({ signal }) =>
-      apiGet<AuthOptionsResponse>('/api/auth/options', {
+      apiGet('/api/auth/options', {
         signal,
-        accept: (b) => typeof (b as AuthOptionsResponse | null)?.signInUrl === 'string',
+        schema: AuthOptionsResponseSchema,
       }),
     staleTime: STALE_TIMES.authOptions,
   });
 }
 
 export async function fetchMe(signal?: AbortSignal): Promise<MeResponse> {
-  const me = await apiGet<MeResponse>('/api/me', {
+  const me = await apiGet(ME_PATH, {
     signal,
-    accept: (b) => typeof (b as MeResponse | null)?.email === 'string',
+    schema: MeResponseSchema,
   });
   rememberCsrfToken(typeof me.csrfToken === 'string' ? me.csrfToken : null);
   return me;

@@ -2,6 +2,7 @@
 // answers it with an ETag, so a refetch after the stale time costs a 304).
 import { useQuery } from '@tanstack/react-query';
 
+import { BoundaryCollectionSchema } from '@/contracts/boundaries';
 import { apiGet } from '@/lib/api-client';
 import type { BoundaryCollection } from '@/lib/map-scene';
 import { STALE_TIMES } from '@/lib/stale-times';
@@ -13,12 +14,10 @@ export const boundaryKeys = {
   current: (detail: 'phone' | 'print') => [...boundaryKeysRoot, 'current', detail] as const,
 };
 
-function isCollection(body: unknown): boolean {
-  return typeof body === 'object' && body !== null && (body as BoundaryCollection).type === 'FeatureCollection' && Array.isArray((body as BoundaryCollection).features);
-}
-
 export function fetchBoundaries(detail: 'phone' | 'print', signal?: AbortSignal): Promise<BoundaryCollection> {
-  return apiGet<BoundaryCollection>(`/api/boundaries?detail=${detail}`, { signal, accept: isCollection });
+  // The contract checks the collection's frame and keeps every member; the geometry's own
+  // shape is read by lib/map-scene.ts, which is typed for it.
+  return apiGet(`/api/boundaries?detail=${detail}`, { signal, schema: BoundaryCollectionSchema }) as Promise<unknown> as Promise<BoundaryCollection>;
 }
 
 /** The current boundaries (boundaries change only when an analyst loads new ones). */

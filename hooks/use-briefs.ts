@@ -4,7 +4,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { DistrictBriefContent, RegionBriefContent } from '@/lib/brief-types';
+import { DistrictBriefContentSchema, RegionBriefContentSchema, type DistrictBriefContent, type RegionBriefContent } from '@/contracts/briefs';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const briefKeysRoot = ['briefs'] as const;
@@ -15,22 +15,12 @@ export const briefKeys = {
   region: () => [...briefKeysRoot, 'region'] as const,
 };
 
-function isDistrictBrief(body: unknown): boolean {
-  const b = body as DistrictBriefContent | null;
-  return typeof b === 'object' && b !== null && b.kind === 'district' && Array.isArray(b.figures) && Array.isArray(b.cautions);
-}
-
-function isRegionBrief(body: unknown): boolean {
-  const b = body as RegionBriefContent | null;
-  return typeof b === 'object' && b !== null && b.kind === 'region' && Array.isArray(b.table?.rows) && Array.isArray(b.cautions);
-}
-
 export function fetchDistrictBrief(code: string, signal?: AbortSignal): Promise<DistrictBriefContent> {
-  return apiGet<DistrictBriefContent>(`/api/briefs/district/${encodeURIComponent(code)}`, { signal, accept: isDistrictBrief });
+  return apiGet(`/api/briefs/district/${encodeURIComponent(code)}`, { signal, schema: DistrictBriefContentSchema });
 }
 
 export function fetchRegionBrief(signal?: AbortSignal): Promise<RegionBriefContent> {
-  return apiGet<RegionBriefContent>('/api/briefs/region', { signal, accept: isRegionBrief });
+  return apiGet('/api/briefs/region', { signal, schema: RegionBriefContentSchema });
 }
 
 /** PDF paths, for links that open the printable file. */

@@ -2,7 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { DistrictDetailResponse, DistrictListResponse } from '@/lib/api-types';
+import { DistrictDetailResponseSchema, DistrictListResponseSchema, type DistrictDetailResponse, type DistrictListResponse } from '@/contracts/districts';
 import { earlyJson } from '@/lib/early-fetch';
 import { STALE_TIMES } from '@/lib/stale-times';
 
@@ -15,27 +15,17 @@ export const districtKeys = {
   detail: (code: string) => [...districtKeysRoot, 'detail', code] as const,
 };
 
-function isListResponse(body: unknown): boolean {
-  return typeof body === 'object' && body !== null && Array.isArray((body as DistrictListResponse).districts);
-}
-
-function isDetailResponse(body: unknown): boolean {
-  if (typeof body !== 'object' || body === null) return false;
-  const b = body as DistrictDetailResponse;
-  return typeof b.district === 'object' && b.district !== null && Array.isArray(b.series) && Array.isArray(b.indicators);
-}
+/** The district list's path; the home route also starts it early from the page's <head>. */
+export const DISTRICTS_PATH = '/api/districts';
 
 export async function fetchDistricts(signal?: AbortSignal): Promise<DistrictListResponse> {
   // The home route starts this request from the page's <head> (lib/early-fetch.ts).
-  const early = await earlyJson<DistrictListResponse>('/api/districts', isListResponse);
-  return early ?? apiGet<DistrictListResponse>('/api/districts', { signal, accept: isListResponse });
+  const early = await earlyJson(DISTRICTS_PATH, DistrictListResponseSchema);
+  return early ?? apiGet(DISTRICTS_PATH, { signal, schema: DistrictListResponseSchema });
 }
 
 export function fetchDistrict(code: string, signal?: AbortSignal): Promise<DistrictDetailResponse> {
-  return apiGet<DistrictDetailResponse>(`/api/districts/${encodeURIComponent(code)}`, {
-    signal,
-    accept: isDetailResponse,
-  });
+  return apiGet(`/api/districts/${encodeURIComponent(code)}`, { signal, schema: DistrictDetailResponseSchema });
 }
 
 /** All districts, sorted by name (the server's order); `enabled: false` where no list is shown. */

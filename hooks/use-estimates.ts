@@ -4,7 +4,8 @@ import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { earlyJson } from '@/lib/early-fetch';
-import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/lib/estimate-types';
+import { DistrictEstimateResponseSchema, DistrictHistoryResponseSchema, type DistrictEstimateResponse } from '@/contracts/estimates';
+import { DISTRICT_CODE_PART } from '@/contracts/patterns';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 /** Publishing a run changes every estimate: hooks/use-published.ts invalidates this root with the others it changes. */
@@ -18,24 +19,14 @@ export const estimateKeys = {
 
 const path = (code: string, tail: string) => `/api/districts/${encodeURIComponent(code)}/${tail}`;
 
-function isEstimateResponse(body: unknown): boolean {
-  if (typeof body !== 'object' || body === null) return false;
-  const b = body as DistrictEstimateResponse;
-  return typeof b.district === 'object' && b.district !== null && 'main' in b && Array.isArray(b.variants);
-}
-
-function isHistoryResponse(body: unknown): boolean {
-  return typeof body === 'object' && body !== null && Array.isArray((body as DistrictHistoryResponse).history);
-}
-
 export async function fetchDistrictEstimate(code: string, signal?: AbortSignal): Promise<DistrictEstimateResponse> {
   // The card's route starts this request from the page's <head> (lib/early-fetch.ts).
-  const early = await earlyJson<DistrictEstimateResponse>(path(code, 'estimate'), isEstimateResponse);
-  return early ?? apiGet<DistrictEstimateResponse>(path(code, 'estimate'), { signal, accept: isEstimateResponse });
+  const early = await earlyJson(path(code, 'estimate'), DistrictEstimateResponseSchema);
+  return early ?? apiGet(path(code, 'estimate'), { signal, schema: DistrictEstimateResponseSchema });
 }
 
 /** The card's route, for its inline early request (codes need no escaping: letters, digits, _ and -). */
-export const ESTIMATE_ROUTE = /^\/district\/([A-Za-z0-9_-]{1,32})\/?$/;
+export const ESTIMATE_ROUTE = new RegExp(`^/district/(${DISTRICT_CODE_PART})/?$`);
 export const estimateApiPath = (code: string) => `/api/districts/${code}/estimate`;
 
 /** The district's estimate in the latest published run, with its sensitivity variants. */
@@ -52,7 +43,7 @@ export function useDistrictEstimateQuery(code: string) {
 export function useDistrictHistoryQuery(code: string, enabled = true) {
   return useQuery({
     queryKey: estimateKeys.history(code),
-    queryFn: ({ signal }) => apiGet<DistrictHistoryResponse>(path(code, 'history'), { signal, accept: isHistoryResponse }),
+    queryFn: ({ signal }) => apiGet(path(code, 'history'), { signal, schema: DistrictHistoryResponseSchema }),
     staleTime: STALE_TIMES.estimate,
     enabled: enabled && code !== '',
   });

@@ -2,7 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { HealthResponse } from '@/lib/api-types';
+import { HealthResponseSchema } from '@/contracts/districts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const healthKeysRoot = ['health'] as const;
@@ -16,9 +16,9 @@ export function useHealthQuery() {
   return useQuery({
     queryKey: healthKeys.status(),
     queryFn: ({ signal }) =>
-      apiGet<HealthResponse>('/api/health', {
+      apiGet('/api/health', {
         signal,
-        accept: (b) => typeof b === 'object' && b !== null && 'database' in b,
+        schema: HealthResponseSchema,
       }),
     staleTime: STALE_TIMES.health,
     refetchInterval: STALE_TIMES.health,

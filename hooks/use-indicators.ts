@@ -3,7 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { IndicatorsResponse } from '@/lib/types/settings';
+import { IndicatorsResponseSchema } from '@/contracts/settings';
 
 export const indicatorKeysRoot = ['indicators'] as const;
 
@@ -16,9 +16,9 @@ export function useIndicatorsQuery(enabled = true) {
   return useQuery({
     queryKey: indicatorKeys.list(),
     queryFn: ({ signal }) =>
-      apiGet<IndicatorsResponse>('/api/indicators', {
+      apiGet('/api/indicators', {
         signal,
-        accept: (b) => Array.isArray((b as IndicatorsResponse).indicators),
+        schema: IndicatorsResponseSchema,
       }),
     staleTime: STALE_TIMES.indicators,
     select: (data) => data.indicators,

@@ -3,7 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { MailboxResponse } from '@/lib/types/people';
+import { MailboxResponseSchema } from '@/contracts/people';
 
 export const mailboxKeysRoot = ['mailbox'] as const;
 
@@ -18,9 +18,9 @@ export function useMailboxQuery(to: string, enabled = true) {
   return useQuery({
     queryKey: mailboxKeys.list(to.trim()),
     queryFn: ({ signal }) =>
-      apiGet<MailboxResponse>(`/api/mailbox?${q.toString()}`, {
+      apiGet(`/api/mailbox?${q.toString()}`, {
         signal,
-        accept: (b) => Array.isArray((b as MailboxResponse).messages),
+        schema: MailboxResponseSchema,
       }),
     staleTime: STALE_TIMES.mailbox,
     select: (data) => data.messages,

@@ -4,7 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { InviteAnswer, InviteInput, PeopleResponse, Person, PersonPatch } from '@/lib/types/people';
+import { InviteAnswerSchema, PeopleResponseSchema, PersonAnswerSchema, type InviteInput, type PersonPatch } from '@/contracts/people';
 
 import { auditKeysRoot } from './use-audit';
 import { mailboxKeysRoot } from './use-mailbox';
@@ -20,7 +20,7 @@ export function usePeopleQuery(enabled = true) {
   return useQuery({
     queryKey: peopleKeys.list(),
     queryFn: ({ signal }) =>
-      apiGet<PeopleResponse>('/api/people', { signal, accept: (b) => Array.isArray((b as PeopleResponse).people) }),
+      apiGet('/api/people', { signal, schema: PeopleResponseSchema }),
     staleTime: STALE_TIMES.people,
     select: (data) => data.people,
     enabled,
@@ -32,9 +32,9 @@ export function useInviteMutation() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: (input: InviteInput) =>
-      apiSend<InviteAnswer>('POST', '/api/people/invitations', {
+      apiSend('POST', '/api/people/invitations', {
         json: input,
-        accept: (b) => typeof b === 'object' && b !== null && 'user' in b,
+        schema: InviteAnswerSchema,
       }),
     onSettled: () =>
       Promise.all([
@@ -50,9 +50,9 @@ export function usePersonMutation() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: ({ id, patch }: { id: number; patch: PersonPatch }) =>
-      apiSend<{ person: Person }>('PATCH', `/api/people/${id}`, {
+      apiSend('PATCH', `/api/people/${id}`, {
         json: patch,
-        accept: (b) => typeof b === 'object' && b !== null && 'person' in b,
+        schema: PersonAnswerSchema,
       }),
     onSettled: () =>
       Promise.all([
@@ -67,9 +67,7 @@ export function useResendInvitationMutation() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: (id: number) =>
-      apiSend<InviteAnswer>('POST', `/api/people/${id}/invitation`, {
-        accept: (b) => typeof b === 'object' && b !== null && 'user' in b,
-      }),
+      apiSend('POST', `/api/people/${id}/invitation`, { schema: InviteAnswerSchema }),
     onSettled: () =>
       Promise.all([
         client.invalidateQueries({ queryKey: peopleKeysRoot }),
@@ -84,9 +82,7 @@ export function useResetIdentityMutation() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: (id: number) =>
-      apiSend<{ person: Person }>('POST', `/api/people/${id}/identity-reset`, {
-        accept: (b) => typeof b === 'object' && b !== null && 'person' in b,
-      }),
+      apiSend('POST', `/api/people/${id}/identity-reset`, { schema: PersonAnswerSchema }),
     onSettled: () =>
       Promise.all([
         client.invalidateQueries({ queryKey: peopleKeysRoot }),

@@ -6,6 +6,7 @@
 import { useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useEffect, useRef } from 'react';
 
+import { PublishedResponseSchema, type PublishedResponse } from '@/contracts/districts';
 import { apiGet } from '@/lib/api-client';
 import { PUBLISHED_POLL_MS, STALE_TIMES } from '@/lib/stale-times';
 
@@ -29,13 +30,10 @@ export function invalidatePublished(client: QueryClient): Promise<unknown> {
   return Promise.all(PUBLISHED_ROOTS.map((queryKey) => client.invalidateQueries({ queryKey })));
 }
 
-export type PublishedAnswer = { runId: number | null };
-
-const isPublished = (b: unknown): boolean =>
-  typeof b === 'object' && b !== null && 'runId' in b && ((b as PublishedAnswer).runId === null || typeof (b as PublishedAnswer).runId === 'number');
+export type PublishedAnswer = PublishedResponse;
 
 export function fetchPublished(signal?: AbortSignal): Promise<PublishedAnswer> {
-  return apiGet<PublishedAnswer>('/api/published', { signal, accept: isPublished });
+  return apiGet('/api/published', { signal, schema: PublishedResponseSchema });
 }
 
 /**

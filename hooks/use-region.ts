@@ -2,7 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import type { PublishedRunMeta, RegionResponse } from '@/lib/estimate-types';
+import { RegionResponseSchema, type PublishedRunMeta, type RegionResponse } from '@/contracts/estimates';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 import { districtKeys, fetchDistricts } from './use-districts';
@@ -14,12 +14,8 @@ export const regionKeys = {
   summary: () => [...regionKeysRoot, 'summary'] as const,
 };
 
-function isRegionResponse(body: unknown): boolean {
-  return typeof body === 'object' && body !== null && Array.isArray((body as RegionResponse).districts) && 'run' in body;
-}
-
 export function fetchRegion(signal?: AbortSignal): Promise<RegionResponse> {
-  return apiGet<RegionResponse>('/api/region', { signal, accept: isRegionResponse });
+  return apiGet('/api/region', { signal, schema: RegionResponseSchema });
 }
 
 /** The region as the latest published run sees it (the wide overview: pooled curve, run). */
@@ -41,7 +37,7 @@ export function usePublishedRunQuery(options: { enabled?: boolean } = {}) {
     queryKey: districtKeys.list(),
     queryFn: ({ signal }) => fetchDistricts(signal),
     staleTime: STALE_TIMES.districtList,
-    select: (data): PublishedRunMeta | null => (data as { run?: PublishedRunMeta | null }).run ?? null,
+    select: (data): PublishedRunMeta | null => data.run ?? null,
     enabled: options.enabled ?? true,
   });
 }

@@ -4,14 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { RUN_POLL_MS, STALE_TIMES } from '@/lib/stale-times';
-import type {
-  DistrictReview,
-  PublishAnswer,
-  ReviewResponse,
-  RunListResponse,
-  RunState,
-  RunView,
-} from '@/lib/types/runs';
+import { DistrictReviewSchema, PublishAnswerSchema, ReviewResponseSchema, RunListResponseSchema, RunStartedSchema, RunViewSchema, type RunState } from '@/contracts/runs';
 
 import { invalidatePublished } from './use-published';
 
@@ -30,13 +23,11 @@ export const ACTIVE_RUN_STATES: readonly RunState[] = ['queued', 'running'];
 /** States whose estimates can be read. */
 export const REVIEWABLE_RUN_STATES: readonly RunState[] = ['in_review', 'published', 'discarded'];
 
-const isObject = (b: unknown): b is Record<string, unknown> => typeof b === 'object' && b !== null;
-
 export function useRunsQuery(enabled = true) {
   return useQuery({
     queryKey: runKeys.list(),
     queryFn: ({ signal }) =>
-      apiGet<RunListResponse>('/api/runs?limit=30', { signal, accept: (b) => isObject(b) && Array.isArray(b.runs) }),
+      apiGet('/api/runs?limit=30', { signal, schema: RunListResponseSchema }),
     staleTime: STALE_TIMES.runs,
     select: (data) => data.runs,
     // While a run in the list is working, its state changes by itself.
@@ -50,7 +41,7 @@ export function useRunQuery(id: number) {
   return useQuery({
     queryKey: runKeys.detail(id),
     queryFn: ({ signal }) =>
-      apiGet<RunView>(`/api/runs/${id}`, { signal, accept: (b) => isObject(b) && typeof b.state === 'string' }),
+      apiGet(`/api/runs/${id}`, { signal, schema: RunViewSchema }),
     staleTime: STALE_TIMES.runDetail,
     refetchInterval: (query) => (query.state.data && ACTIVE_RUN_STATES.includes(query.state.data.state) ? RUN_POLL_MS : false),
     enabled: id > 0,
@@ -61,9 +52,9 @@ export function useRunReviewQuery(id: number, enabled: boolean) {
   return useQuery({
     queryKey: runKeys.review(id),
     queryFn: ({ signal }) =>
-      apiGet<ReviewResponse>(`/api/runs/${id}/review`, {
+      apiGet(`/api/runs/${id}/review`, {
         signal,
-        accept: (b) => isObject(b) && Array.isArray(b.districts),
+        schema: ReviewResponseSchema,
       }),
     staleTime: STALE_TIMES.runReview,
     enabled: enabled && id > 0,
@@ -74,9 +65,9 @@ export function useRunDistrictQuery(id: number, code: string | null, enabled: bo
   return useQuery({
     queryKey: runKeys.district(id, code ?? ''),
     queryFn: ({ signal }) =>
-      apiGet<DistrictReview>(`/api/runs/${id}/districts/${encodeURIComponent(code ?? '')}`, {
+      apiGet(`/api/runs/${id}/districts/${encodeURIComponent(code ?? '')}`, {
         signal,
-        accept: (b) => isObject(b) && Array.isArray(b.records),
+        schema: DistrictReviewSchema,
       }),
     staleTime: STALE_TIMES.runReview,
     enabled: enabled && id > 0 && !!code,
@@ -88,9 +79,9 @@ export function useStartRunMutation() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: (specId?: number) =>
-      apiSend<{ id: number; state: RunState }>('POST', '/api/runs', {
+      apiSend('POST', '/api/runs', {
         json: specId ? { specId } : {},
-        accept: (b) => isObject(b) && typeof b.id === 'number',
+        schema: RunStartedSchema,
       }),
     onSettled: () => client.invalidateQueries({ queryKey: runKeys.list() }),
   });
@@ -112,7 +103,7 @@ export function usePublishRunMutation() {
   const refresh = useAfterRunChange();
   return useMutation({
     mutationFn: (id: number) =>
-      apiSend<PublishAnswer>('POST', `/api/runs/${id}/publish`, { accept: (b) => isObject(b) && 'alerts' in b }),
+      apiSend('POST', `/api/runs/${id}/publish`, { schema: PublishAnswerSchema }),
     onSettled: (_data, _error, id) => refresh(id),
   });
 }

@@ -4,7 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { Settings, SettingsResponse } from '@/lib/types/settings';
+import { SettingsResponseSchema, type Settings } from '@/contracts/settings';
 
 import { auditKeysRoot } from './use-audit';
 
@@ -15,12 +15,11 @@ export const settingsKeys = {
   current: () => [...settingsKeysRoot, 'current'] as const,
 };
 
-const isSettings = (b: unknown) => typeof b === 'object' && b !== null && 'settings' in b && 'schedule' in b;
 
 export function useSettingsQuery(enabled = true) {
   return useQuery({
     queryKey: settingsKeys.current(),
-    queryFn: ({ signal }) => apiGet<SettingsResponse>('/api/settings', { signal, accept: isSettings }),
+    queryFn: ({ signal }) => apiGet('/api/settings', { signal, schema: SettingsResponseSchema }),
     staleTime: STALE_TIMES.settings,
     enabled,
   });
@@ -30,7 +29,7 @@ export function useSettingsMutation() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: (patch: Partial<Settings>) =>
-      apiSend<SettingsResponse>('PATCH', '/api/settings', { json: patch, accept: isSettings }),
+      apiSend('PATCH', '/api/settings', { json: patch, schema: SettingsResponseSchema }),
     onSuccess: (data) => client.setQueryData(settingsKeys.current(), data),
     onSettled: () => client.invalidateQueries({ queryKey: auditKeysRoot }),
   });

@@ -3,7 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type { SavedSpec, SpecInput, SpecsResponse } from '@/lib/types/settings';
+import { SpecAnswerSchema, SpecsResponseSchema, type SpecInput } from '@/contracts/settings';
 
 import { invalidatePublished } from './use-published';
 
@@ -18,13 +18,11 @@ export function useSpecsQuery(enabled = true) {
   return useQuery({
     queryKey: specKeys.list(),
     queryFn: ({ signal }) =>
-      apiGet<SpecsResponse>('/api/specs', { signal, accept: (b) => Array.isArray((b as SpecsResponse).specs) }),
+      apiGet('/api/specs', { signal, schema: SpecsResponseSchema }),
     staleTime: STALE_TIMES.specs,
     enabled,
   });
 }
-
-const isSpecAnswer = (b: unknown) => typeof b === 'object' && b !== null && 'spec' in b;
 
 /** Saves a new spec (id null) or replaces a saved one. */
 export function useSaveSpecMutation() {
@@ -32,8 +30,8 @@ export function useSaveSpecMutation() {
   return useMutation({
     mutationFn: ({ id, input }: { id: number | null; input: SpecInput }) =>
       id === null
-        ? apiSend<{ spec: SavedSpec }>('POST', '/api/specs', { json: input, accept: isSpecAnswer })
-        : apiSend<{ spec: SavedSpec }>('PUT', `/api/specs/${id}`, { json: input, accept: isSpecAnswer }),
+        ? apiSend('POST', '/api/specs', { json: input, schema: SpecAnswerSchema })
+        : apiSend('PUT', `/api/specs/${id}`, { json: input, schema: SpecAnswerSchema }),
     onSettled: () => Promise.all([client.invalidateQueries({ queryKey: specKeysRoot }), invalidatePublished(client)]),
   });
 }

@@ -2,7 +2,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
-import type { Subscription, SubscriptionInput, SubscriptionsResponse } from '@/lib/estimate-types';
+import { SubscriptionAnswerSchema, SubscriptionsResponseSchema, type Subscription, type SubscriptionInput } from '@/contracts/alerts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 import { alertKeys } from './use-alerts';
@@ -18,9 +18,9 @@ export function useSubscriptionsQuery() {
   return useQuery({
     queryKey: subscriptionKeys.own(),
     queryFn: ({ signal }) =>
-      apiGet<SubscriptionsResponse>('/api/subscriptions', {
+      apiGet('/api/subscriptions', {
         signal,
-        accept: (b) => typeof b === 'object' && b !== null && Array.isArray((b as SubscriptionsResponse).subscriptions),
+        schema: SubscriptionsResponseSchema,
       }),
     staleTime: STALE_TIMES.subscriptions,
     select: (data) => data.subscriptions,
@@ -59,9 +59,9 @@ export function useSubscribeMutation() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: (input: SubscriptionInput) =>
-      apiSend<{ subscription: Subscription }>('POST', '/api/subscriptions', {
+      apiSend('POST', '/api/subscriptions', {
         json: input,
-        accept: (b) => typeof b === 'object' && b !== null && 'subscription' in b,
+        schema: SubscriptionAnswerSchema,
       }),
     onSettled: async () => {
       await client.invalidateQueries({ queryKey: subscriptionKeys.all });

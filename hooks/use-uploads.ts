@@ -6,13 +6,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiGet, apiSend } from '@/lib/api-client';
 import type { PickedFile } from '@/lib/pick-file.types';
 import { STALE_TIMES } from '@/lib/stale-times';
-import type {
-  RevertAnswer,
-  UploadAnswer,
-  UploadDetailResponse,
-  UploadListResponse,
-  UploadOptions,
-} from '@/lib/types/uploads';
+import { RevertAnswerSchema, UploadAnswerSchema, UploadDetailResponseSchema, UploadListResponseSchema, type UploadOptions } from '@/contracts/uploads';
 
 import { invalidatePublished } from './use-published';
 
@@ -24,15 +18,14 @@ export const uploadKeys = {
   detail: (id: number) => [...uploadKeysRoot, 'detail', id] as const,
 };
 
-const isAnswer = (b: unknown) => typeof b === 'object' && b !== null && 'upload' in b;
 
 export function useUploadsQuery(enabled = true) {
   return useQuery({
     queryKey: uploadKeys.list(),
     queryFn: ({ signal }) =>
-      apiGet<UploadListResponse>('/api/uploads?limit=50', {
+      apiGet('/api/uploads?limit=50', {
         signal,
-        accept: (b) => Array.isArray((b as UploadListResponse).uploads),
+        schema: UploadListResponseSchema,
       }),
     staleTime: STALE_TIMES.uploads,
     enabled,
@@ -42,7 +35,7 @@ export function useUploadsQuery(enabled = true) {
 export function useUploadQuery(id: number | null) {
   return useQuery({
     queryKey: uploadKeys.detail(id ?? 0),
-    queryFn: ({ signal }) => apiGet<UploadDetailResponse>(`/api/uploads/${id}`, { signal, accept: isAnswer }),
+    queryFn: ({ signal }) => apiGet(`/api/uploads/${id}`, { signal, schema: UploadDetailResponseSchema }),
     staleTime: STALE_TIMES.uploadDetail,
     // A malformed id (≤ 0) is asked for too: the server's 400 is the screen's answer.
     enabled: id !== null,
@@ -65,7 +58,7 @@ export function useUploadPreviewMutation() {
     mutationFn: ({ file, options }: { file: PickedFile; options: UploadOptions }) => {
       const form = new FormData();
       file.appendTo(form, 'file');
-      return apiSend<UploadAnswer>('POST', `/api/uploads${uploadQueryString(options)}`, { form, accept: isAnswer });
+      return apiSend('POST', `/api/uploads${uploadQueryString(options)}`, { form, schema: UploadAnswerSchema });
     },
     onSettled: () => client.invalidateQueries({ queryKey: uploadKeys.list() }),
   });
@@ -85,7 +78,7 @@ function useAfterDataChange() {
 export function useCommitUploadMutation() {
   const refresh = useAfterDataChange();
   return useMutation({
-    mutationFn: (id: number) => apiSend<UploadAnswer>('POST', `/api/uploads/${id}/commit`, { accept: isAnswer }),
+    mutationFn: (id: number) => apiSend('POST', `/api/uploads/${id}/commit`, { schema: UploadAnswerSchema }),
     onSettled: refresh,
   });
 }
@@ -95,8 +88,8 @@ export function useRevertUploadMutation() {
   const refresh = useAfterDataChange();
   return useMutation({
     mutationFn: (id: number) =>
-      apiSend<RevertAnswer>('POST', `/api/uploads/${id}/revert`, {
-        accept: (b) => typeof b === 'object' && b !== null && 'revert' in b,
+      apiSend('POST', `/api/uploads/${id}/revert`, {
+        schema: RevertAnswerSchema,
       }),
     onSettled: refresh,
   });

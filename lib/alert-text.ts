@@ -1,5 +1,6 @@
 // One alert in words (the district's alerts section and the caller's feed).
-import type { AlertKind, Shape, Standing } from './estimate-types';
+import type { AlertKind } from '@/contracts/alerts';
+import type { Shape, Standing } from '@/contracts/estimates';
 import { ALERT_KIND_LABEL, formatLevel, SHAPE_LABEL, STANDING_LABEL } from './estimate-words';
 import { formatDate } from './format-time';
 

@@ -1,8 +1,11 @@
-// The one place the app talks HTTP. Paths are relative to the page's origin (the Express
-// server serves both the web build and /api); a native build sets EXPO_PUBLIC_API_BASE_URL.
-import type { ApiErrorBody } from './api-types';
+// The one place the app talks HTTP (the base address comes from lib/api-config.ts). Answers
+// are read through their contracts (contracts/): a body that does not match is an ApiError
+// `bad_response` naming the fields, never a half-read screen.
+import type { ApiErrorBody } from '@/contracts/common';
+import { MeResponseSchema } from '@/contracts/districts';
+import { pick, safeParse, type Issue, type Schema } from '@/contracts/kit';
 
-const BASE_URL = process.env.EXPO_PUBLIC_API_BASE_URL ?? '';
+import { serverUrl } from './api-config';
 
 /** A failed API call: the server's error code and message, or one of ours for transport faults. */
 export class ApiError extends Error {
@@ -47,19 +50,31 @@ async function readJson(response: Response): Promise<unknown> {
   }
 }
 
-export type ApiGetOptions = {
+export type ApiGetOptions<T> = {
   signal?: AbortSignal;
-  /**
-   * Checks the decoded body and returns it typed; throws (or returns false) when the shape is
-   * not what the caller expects, which surfaces as an ApiError `bad_response`.
-   */
-  accept?: (body: unknown) => boolean;
+  /** The answer's contract: the body is parsed with it and returned typed. */
+  schema?: Schema<T>;
 };
+
+/** Where a body departs from its contract, for the `bad_response` details (at most five fields). */
+function mismatches(issues: Issue[]): { path: string; message: string }[] {
+  return issues.slice(0, 5).map((i) => ({ path: i.path.map(String).join('.') || '(answer)', message: i.message }));
+}
+
+/** The body read through its contract; a mismatch is an ApiError `bad_response`. */
+export function readAnswer<T>(path: string, status: number, body: unknown, schema: Schema<T> | undefined): T {
+  if (!schema) return body as T;
+  const parsed = safeParse(schema, body);
+  if (!parsed.success) {
+    throw new ApiError(status, 'bad_response', `Unexpected answer from ${path}.`, { fields: mismatches(parsed.issues) });
+  }
+  return parsed.data;
+}
 
 /** Sends the request; a fetch that throws (offline, refused) becomes ApiError `network_error`. */
 async function send(path: string, init: RequestInit, signal?: AbortSignal): Promise<Response> {
   try {
-    return await fetch(`${BASE_URL}${path}`, { ...init, credentials: 'same-origin', signal });
+    return await fetch(serverUrl(path), { ...init, credentials: 'same-origin', signal });
   } catch (cause) {
     if (signal?.aborted) throw cause;
     throw new ApiError(0, 'network_error', 'The Crestwatch server could not be reached.', {
@@ -81,14 +96,12 @@ function failure(response: Response, body: unknown): ApiError {
 }
 
 /** GET a JSON resource. Resolves with the body, or rejects with an ApiError. */
-export async function apiGet<T>(path: string, options: ApiGetOptions = {}): Promise<T> {
+export async function apiGet<T>(path: string, options: ApiGetOptions<T> = {}): Promise<T> {
   const response = await send(path, { method: 'GET', headers: { Accept: 'application/json' } }, options.signal);
   const body = await readJson(response);
   if (!response.ok) throw failure(response, body);
-  if (body === undefined || (options.accept && !options.accept(body))) {
-    throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
-  }
-  return body as T;
+  if (body === undefined) throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
+  return readAnswer(path, response.status, body, options.schema);
 }
 
 // ---- State-changing calls --------------------------------------------------------------
@@ -97,6 +110,12 @@ export async function apiGet<T>(path: string, options: ApiGetOptions = {}): Prom
 // here with `rememberCsrfToken`, and a send made before that fetches it once itself.
 
 export const CSRF_HEADER = 'x-csrf-token';
+
+/** The signed-in person's own answer, which carries the CSRF token (hooks/use-auth.ts reads it too). */
+export const ME_PATH = '/api/me';
+
+/** The one field of that answer this module needs. */
+const CsrfTokenSchema = pick(MeResponseSchema, { csrfToken: true });
 
 let csrfToken: string | null = null;
 let csrfLookup: Promise<string | null> | null = null;
@@ -108,8 +127,8 @@ export function rememberCsrfToken(token: string | null): void {
 
 async function currentCsrfToken(refresh = false): Promise<string | null> {
   if (csrfToken && !refresh) return csrfToken;
-  csrfLookup ??= apiGet<{ csrfToken?: unknown }>('/api/me')
-    .then((me) => (typeof me.csrfToken === 'string' ? me.csrfToken : null))
+  csrfLookup ??= apiGet(ME_PATH, { schema: CsrfTokenSchema })
+    .then((me) => me.csrfToken)
     .catch(() => null)
     .finally(() => {
       csrfLookup = null;
@@ -120,7 +139,7 @@ async function currentCsrfToken(refresh = false): Promise<string | null> {
 
 export type ApiSendMethod = 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
-export type ApiSendOptions = ApiGetOptions & {
+export type ApiSendOptions<T> = ApiGetOptions<T> & {
   /** A JSON body (sent as application/json). */
   json?: unknown;
   /** A multipart body (the browser sets its boundary). */
@@ -133,7 +152,7 @@ export type ApiSendOptions = ApiGetOptions & {
  * (`csrf_failed`, e.g. the session was renewed in another tab) fetches a fresh token and
  * tries once more.
  */
-export async function apiSend<T = void>(method: ApiSendMethod, path: string, options: ApiSendOptions = {}): Promise<T> {
+export async function apiSend<T = void>(method: ApiSendMethod, path: string, options: ApiSendOptions<T> = {}): Promise<T> {
   const attempt = async (token: string | null) => {
     const headers: Record<string, string> = { Accept: 'application/json' };
     if (token) headers[CSRF_HEADER] = token;
@@ -152,8 +171,6 @@ export async function apiSend<T = void>(method: ApiSendMethod, path: string, opt
     body = await readJson(response);
   }
   if (!response.ok) throw failure(response, body);
-  if (options.accept && (body === undefined || !options.accept(body))) {
-    throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
-  }
-  return body as T;
+  if (options.schema && body === undefined) throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
+  return readAnswer(path, response.status, body, options.schema);
 }

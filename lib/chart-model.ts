@@ -2,7 +2,7 @@
 // band (only for a bounded interval), the curve to use (the regional one for a substitute)
 // and the projected path. Pure, so tests can check the rules without an SVG.
 import { clamp, incomeDomain, logTicks, padLog } from './chart-scale';
-import type { EstimateRecord, XY } from './estimate-types';
+import type { EstimateRecord, XY } from '@/contracts/estimates';
 
 /** Whether the chart may draw a bounded band for the threshold: only a bounded interval. */
 export function bandOf(r: EstimateRecord): { lo: number; hi: number } | null {

@@ -1,7 +1,7 @@
 // Text summaries of the card's two charts, for screen readers and as the visible caption
 // "In words" under each chart. Pure functions of the published record.
 import { bandOf, curveChartModel, pathChartModel, thresholdOf } from './chart-model';
-import type { EstimateRecord } from './estimate-types';
+import type { EstimateRecord } from '@/contracts/estimates';
 import { formatLevel, intervalText, levelPercent, METHOD_LABEL, notBoundedText, SHAPE_LABEL } from './estimate-words';
 import { formatEmissions } from './format';
 

@@ -1,4 +1,4 @@
-import type { DistrictSummary } from './api-types';
+import type { DistrictSummary } from '@/contracts/districts';
 
 /** Letters that carry no combining mark, so NFD leaves them alone: fold them by hand. */
 const LETTER_FOLDS: Record<string, string> = {

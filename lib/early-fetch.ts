@@ -2,6 +2,7 @@
 // still parsing the pre-rendered HTML — seconds before the app's JavaScript has run on a
 // slow phone. The query functions take the answer from here when it is there, and fall back
 // to their ordinary request (and its error handling) when it is not or did not succeed.
+import { safeParse, type Schema } from '@/contracts/kit';
 
 type EarlyMap = Record<string, Promise<Response> | undefined>;
 
@@ -19,8 +20,8 @@ export function earlyFetchScript(route: RegExp, api: (group: string) => string):
   );
 }
 
-/** The early answer for `path` once, decoded and checked; null when there is none to use. */
-export async function earlyJson<T>(path: string, accept: (body: unknown) => boolean): Promise<T | null> {
+/** The early answer for `path` once, decoded and read through its contract; null when there is none to use. */
+export async function earlyJson<T>(path: string, schema: Schema<T>): Promise<T | null> {
   const map = typeof window === 'undefined' ? undefined : (window as unknown as { __cwEarly?: EarlyMap }).__cwEarly;
   const pending = map?.[path];
   if (!pending) return null;
@@ -28,8 +29,8 @@ export async function earlyJson<T>(path: string, accept: (body: unknown) => bool
   try {
     const res = await pending;
     if (!res.ok) return null;
-    const body: unknown = await res.json();
-    return accept(body) ? (body as T) : null;
+    const parsed = safeParse(schema, await res.json());
+    return parsed.success ? parsed.data : null;
   } catch {
     return null;
   }

@@ -1,6 +1,7 @@
 // Words for published estimates, shared by the list, the card, the charts' text summaries
 // and the method page: one place, so a standing reads the same everywhere.
-import type { AlertKind, FiellerKind, IntervalMethod, Shape, Standing, VariantName } from './estimate-types';
+import type { AlertKind } from '@/contracts/alerts';
+import type { FiellerKind, IntervalMethod, Shape, Standing, VariantName } from '@/contracts/estimates';
 import { formatIncome } from './format';
 
 /** Standing as a word (the list, the card's badge, the filters). */
@@ -78,13 +79,13 @@ export const COVARIANCE_LABEL: Record<string, string> = {
 };
 
 /** "95%" from 0.95 (one decimal where needed: 0.975 → "97.5%"). */
-export function levelPercent(level: number): string {
-  return `${Math.round(level * 1000) / 10}%`;
+export function levelPercent(level: number | null): string {
+  return level === null ? 'level not set' : `${Math.round(level * 1000) / 10}%`;
 }
 
-/** DOMAIN.md's phrase, with the run's confidence level. */
-export function notBoundedText(level: number): string {
-  return `interval not bounded at ${levelPercent(level)}`;
+/** The method page's phrase, with the run's confidence level (said as not set when an answer carries none). */
+export function notBoundedText(level: number | null): string {
+  return level === null ? 'interval not bounded (confidence level not set)' : `interval not bounded at ${levelPercent(level)}`;
 }
 
 /** Income levels: whole units, and a plain bound for absurd interval ends. */

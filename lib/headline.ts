@@ -2,15 +2,7 @@
 // few short notes (what the standing means for emissions, an unbounded interval, an
 // extrapolated turn, the regional substitute). Pure: inputs are the engine's output shape
 // (the card's EstimateRecord, or the list's EstimateSummary), nothing is fetched.
-import type {
-  EstimateRecord,
-  EstimateStatus,
-  EstimateSummary,
-  FiellerKind,
-  ProjectionStatus,
-  Shape,
-  Standing,
-} from './estimate-types';
+import type { EstimateRecord, EstimateStatus, EstimateSummary, FiellerKind, ProjectionStatus, Shape, Standing } from '@/contracts/estimates';
 import { formatLevel, gapWords, levelPercent, notBoundedText, yearWithRange } from './estimate-words';
 
 export type HeadlineInput = {

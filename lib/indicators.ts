@@ -1,7 +1,7 @@
 // How each indicator the client shows is labelled and formatted. Full names and units come
 // from the API (GET /api/districts/:code `indicators`); these short labels fit a 390 px
 // table header and a list row, where the API's long unit would not.
-import type { IndicatorCode, SeriesRow } from './api-types';
+import type { IndicatorCode, SeriesRow } from '@/contracts/districts';
 import { formatDensity, formatEmissions, formatIncome, formatPopulation } from './format';
 
 export type IndicatorColumn = {

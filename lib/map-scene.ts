@@ -7,7 +7,7 @@
 // (x = longitude × cos(mid-latitude), y = −latitude) fitted to the box is enough; being
 // planar, it does not care about ring winding (RFC 7946 outer rings are counter-clockwise,
 // which spherical projections would read as the whole globe minus the district).
-import type { Standing } from './estimate-types';
+import type { Standing } from '../contracts/estimates';
 
 export type BoundaryFeature = {
   type: 'Feature';

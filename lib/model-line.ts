@@ -1,5 +1,5 @@
 // The card's model line and its figures' words (form, covariance, n, years, run, data).
-import type { EstimateRecord, PublishedRunMeta } from './estimate-types';
+import type { EstimateRecord, PublishedRunMeta } from '@/contracts/estimates';
 import { COVARIANCE_LABEL, levelPercent, METHOD_LABEL } from './estimate-words';
 import { formatDate } from './format-time';
 

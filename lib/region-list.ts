@@ -1,7 +1,7 @@
 // The region list's order, filters and search, as pure functions over the district list
 // (GET /api/districts, each district with its latest published estimate summary).
-import type { DistrictSummary } from './api-types';
-import type { EstimateSummary, Shape, Standing } from './estimate-types';
+import type { DistrictSummary } from '@/contracts/districts';
+import type { EstimateSummary, Shape, Standing } from '@/contracts/estimates';
 import { searchDistricts } from './district-search';
 
 export type RegionRow = DistrictSummary & { estimate?: EstimateSummary | null };

@@ -1,8 +1,7 @@
 // What each role may do in the app, mirroring the server's route table (api/http/routes.ts:
 // ADMIN, STAFF, SIGNED_IN). The app hides what a role cannot use; the server still refuses
 // with 403 whatever slips through, and screens show that refusal as it is.
-
-export type Role = 'admin' | 'analyst' | 'official';
+import { ROLES, type Role } from '@/contracts/common';
 
 export const ROLE_LABELS: Record<Role, string> = {
   admin: 'Admin',
@@ -37,7 +36,7 @@ const CAPABILITIES: Record<Role, readonly Capability[]> = {
 };
 
 export function isRole(value: unknown): value is Role {
-  return value === 'admin' || value === 'analyst' || value === 'official';
+  return (ROLES as readonly unknown[]).includes(value);
 }
 
 /** Whether a role may use a capability; an unknown role may use none. */

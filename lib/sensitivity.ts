@@ -1,6 +1,6 @@
 // The sensitivity strip's rows: the threshold under the spec and its published variants,
 // each with its interval, on one shared log scale so fragility shows at a glance.
-import type { EstimateRecord, FiellerKind, VariantName, VariantSummary } from './estimate-types';
+import type { EstimateRecord, FiellerKind, VariantName, VariantSummary } from '@/contracts/estimates';
 import { formatLevel, intervalText, notBoundedText, VARIANT_LABEL, VARIANT_ORDER } from './estimate-words';
 
 export type SensitivityRow = {

@@ -13,7 +13,7 @@ import { CSP_HASHES_FILE, writeCspHashes } from '../api/web/csp';
 const root = path.resolve(__dirname, '..');
 export const distDir = path.join(root, 'dist');
 const stampFile = path.join(distDir, '.build-stamp');
-const inputDirs = ['app', 'components', 'hooks', 'lib', 'assets'];
+const inputDirs = ['app', 'components', 'contracts', 'hooks', 'lib', 'assets'];
 const inputFiles = ['app.json', 'babel.config.js', 'metro.config.js', 'package-lock.json', 'tsconfig.json'];
 
 function hashTree(h: ReturnType<typeof createHash>, dir: string): void {

@@ -3,12 +3,15 @@ import type { AppContext } from '../context';
 import { districtCode, idParams } from '../http/params';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
+import { AlertFeedResponseSchema, DistrictAlertsResponseSchema } from '../../contracts/alerts';
+import { NO_CONTENT } from '../../contracts/common';
 
 export function alertRoutes({ db }: AppContext): RouteSpec[] {
   return [
     route({
       method: 'get',
       path: '/api/alerts',
+      answer: AlertFeedResponseSchema,
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Your alerts feed (what your subscriptions cover), newest first, unread marked',
@@ -27,6 +30,7 @@ export function alertRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/alerts/:id/read',
+      answer: NO_CONTENT,
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Mark an alert as read',
@@ -39,6 +43,7 @@ export function alertRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/districts/:code/alerts',
+      answer: DistrictAlertsResponseSchema,
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Every alert published for one district, newest first',

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import { ADMIN, route, type RouteSpec } from '../http/routes';
 import * as audit from './service';
+import { AuditResponseSchema } from '../../contracts/people';
 
 const query = z.object({
   action: z.string().max(64).optional(),
@@ -18,6 +19,7 @@ export function auditRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/audit',
+      answer: AuditResponseSchema,
       allow: ADMIN,
       tag: 'people',
       summary: 'The audit log, newest first, filtered by action, actor, target type and time',

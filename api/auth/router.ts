@@ -12,6 +12,8 @@ import { callerOf, route, SIGNED_IN, type Caller, type RouteSpec } from '../http
 import type { createPassport, SignInRefusal } from './passport';
 import { sessionCookieName, sessionCookieOptions, startSessionClock } from './session';
 import { standInPage } from './stand-in-page';
+import { NO_CONTENT, REDIRECT } from '../../contracts/common';
+import { AuthOptionsResponseSchema, MeResponseSchema } from '../../contracts/districts';
 
 /** Runs an Express middleware inside a handler; resolves when it calls next or answers. */
 function run(mw: RequestHandler, req: Request, res: Response): Promise<void> {
@@ -52,6 +54,7 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
     route({
       method: 'get',
       path: '/api/auth/options',
+      answer: AuthOptionsResponseSchema,
       allow: 'public',
       tag: 'auth',
       summary: 'How this server signs people in (Google, or the local stand-in in demo mode)',
@@ -75,6 +78,7 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
     route({
       method: 'get',
       path: '/api/auth/google',
+      answer: REDIRECT,
       allow: 'public',
       tag: 'auth',
       summary: 'Start Google sign-in (login_hint chooses the account at the stand-in)',
@@ -95,6 +99,7 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
     route({
       method: 'get',
       path: '/api/auth/google/callback',
+      answer: REDIRECT,
       allow: 'public',
       tag: 'auth',
       summary: 'Google redirects here; checks state, signs an invited person in',
@@ -129,6 +134,7 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
     route({
       method: 'post',
       path: '/api/auth/sign-out',
+      answer: NO_CONTENT,
       allow: SIGNED_IN,
       tag: 'auth',
       summary: 'Sign out: ends and deletes the session',
@@ -144,6 +150,7 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
     route({
       method: 'get',
       path: '/api/me',
+      answer: MeResponseSchema,
       allow: SIGNED_IN,
       tag: 'auth',
       summary: 'The signed-in person, their role, and the CSRF token for state-changing calls',

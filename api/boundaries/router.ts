@@ -12,6 +12,7 @@ import type { Who } from '../uploads/service';
 import { encodedAnswer } from './answer';
 import * as service from './service';
 import * as store from './store';
+import { BoundaryRevertAnswerSchema, BoundaryUploadAnswerSchema, BoundaryVersionsSchema } from '../../contracts/boundaries';
 
 export const boundaryUploadQuery = z.object({
   codeProperty: z.string().min(1).max(100).default('code'),
@@ -52,6 +53,8 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
       path: '/api/boundaries',
       allow: STAFF,
       tag: 'boundaries',
+      answer: BoundaryUploadAnswerSchema,
+      statuses: [200, 201],
       summary:
         'Upload district boundaries (GeoJSON FeatureCollection of polygons, multipart field "file"; ?codeProperty names the code property): a dry run with the preview by default; ?commit=true writes a new boundary version when the whole file is accepted; ?repair=true repairs invalid polygons with ST_MakeValid',
       before: [receiveFile(config.boundaryMaxBytes)],
@@ -93,6 +96,7 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'boundaries',
       summary: 'Boundary versions, newest first: who loaded them, when, the counts, and which is current',
+      answer: BoundaryVersionsSchema,
       handler: () => service.listVersions(db),
     }),
     route({
@@ -101,6 +105,7 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
       allow: STAFF,
       tag: 'boundaries',
       summary: 'Revert a boundary version: the version before it becomes current again (a change set in the upload history)',
+      answer: BoundaryRevertAnswerSchema,
       schemas: { params: idParams },
       handler: async ({ params }, req) => {
         const w = who(req);

@@ -3,7 +3,7 @@
  * plot with light grid lines and tick labels in real units, and the x-axis label at the
  * bottom. Returns the scales so a chart can place its marks. Pure: no fonts, no pdfkit.
  */
-import type { BriefTone, ChartItem } from '../../lib/brief-types';
+import type { BriefTone, ChartItem } from '../../contracts/briefs';
 import { makeScale, px, type Scale } from './chart-axes';
 
 export type LegendMark = 'dot' | 'line' | 'dash' | 'band' | 'faint';

@@ -8,7 +8,7 @@
  * - the regional pooled curve as an index (100 at the threshold).
  * Pure: the PDF renderer and the app's SVG draw the same scene.
  */
-import type { ChartItem, ChartScene } from '../../lib/brief-types';
+import type { ChartItem, ChartScene } from '../../contracts/briefs';
 import { extent, polyline, px, rect, yearTicks } from './chart-axes';
 import { buildFrame, clampTo, estimateWidth, inside, LABEL_SIZE, type LegendEntry } from './chart-frame';
 import { formatLevel, formatTick } from './format';

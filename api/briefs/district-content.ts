@@ -3,7 +3,7 @@
  * the headline, the standing, the figures, the two charts, a three-line reading, the
  * model line, the cautions and the trace. Pure; the PDF and the HTML view render it.
  */
-import type { BriefFigure, DistrictBriefContent } from '../../lib/brief-types';
+import type { BriefFigure, DistrictBriefContent } from '../../contracts/briefs';
 import type { EstimateRecord } from '../runs/estimate-record';
 import { curveChart, pathChart, type ThresholdMark } from './chart-scene';
 import { elasticityTexts, gapText, levelTextOf, projectionTexts, thresholdTexts, type ThresholdTexts } from './figures';

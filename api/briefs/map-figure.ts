@@ -5,8 +5,8 @@
  * the district's locator (the district in its standing's tint, outlined, among its
  * neighbours). The PDF and the app's SVG draw them alike.
  */
-import type { ChartItem, ChartScene } from '../../lib/brief-types';
-import type { Standing } from '../../lib/estimate-types';
+import type { ChartItem, ChartScene } from '../../contracts/briefs';
+import type { Standing } from '../../contracts/estimates';
 import { buildMapScene, type BoundaryCollection } from '../../lib/map-scene';
 
 const KNOWN: readonly Standing[] = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'];

@@ -4,7 +4,7 @@
  * shifts (the same comparison the alerts use, api/alerts/compare.ts), the regional pooled
  * curve, and one table row per district. Pure.
  */
-import type { BriefFigure, RegionBriefContent, RegionBriefRow } from '../../lib/brief-types';
+import type { BriefFigure, RegionBriefContent, RegionBriefRow } from '../../contracts/briefs';
 import { alertsFor, districtChange } from '../alerts/compare';
 import type { EstimateListRow } from '../runs/store';
 import { pooledChart, type ThresholdMark } from './chart-scene';

@@ -6,6 +6,7 @@ import { callerOf, COMPUTE_LIMIT, route, SIGNED_IN, type RouteSpec } from '../ht
 import './attachment';
 import { exportRun } from './export-csv';
 import * as service from './service';
+import { DistrictBriefContentSchema, RegionBriefContentSchema } from '../../contracts/briefs';
 
 /** `?run=<id>`: a published run other than the latest. */
 const runQuery = z.object({ run: z.coerce.number().int().positive().optional() });
@@ -37,6 +38,7 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/briefs/district/:code',
+      answer: DistrictBriefContentSchema,
       allow: SIGNED_IN,
       tag: 'briefs',
       rateLimit: COMPUTE_LIMIT,
@@ -58,6 +60,7 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/briefs/region',
+      answer: RegionBriefContentSchema,
       allow: SIGNED_IN,
       tag: 'briefs',
       rateLimit: COMPUTE_LIMIT,

@@ -5,7 +5,7 @@
  * the JSON view are both made from that content.
  */
 import type { Knex } from 'knex';
-import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
+import type { DistrictBriefContent, RegionBriefContent } from '../../contracts/briefs';
 import type { AppContext } from '../context';
 import { currentCollection } from '../boundaries/answer';
 import { AppError, NotFoundError } from '../http/errors';

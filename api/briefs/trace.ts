@@ -2,7 +2,7 @@
  * What every brief page says about where its numbers came from (run, publish date, data
  * version and hash, software version, generated on), and the model line.
  */
-import type { BriefPaperSize, BriefTrace } from '../../lib/brief-types';
+import type { BriefPaperSize, BriefTrace } from '../../contracts/briefs';
 import type { RunRow } from '../runs/store';
 import { formatDateTime, formatLevelPercent, shortHash } from './format';
 import { COVARIANCE_LABEL, inSentence, intervalMethodLabel } from './words';

@@ -7,7 +7,7 @@
  * An engine refusal (EstimationInputError) is returned as data, not thrown: a thread
  * boundary keeps only an error's message, and callers need its code and details.
  */
-import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
+import type { DistrictBriefContent, RegionBriefContent } from '../../contracts/briefs';
 import { renderDistrictPdf } from '../briefs/pdf/district-pdf';
 import { renderRegionPdf } from '../briefs/pdf/region-pdf';
 import { EstimationInputError, fitCurve, type CurveRow, type FitCurveResult, type FitPanelResult, type ModelSpecInput } from '../estimation';

@@ -2,12 +2,15 @@ import type { AppContext } from '../context';
 import { districtParams } from '../http/params';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
+import { DISTRICT_CODE, DISTRICT_CODE_RULE } from '../../contracts/patterns';
+import { DistrictDetailResponseSchema, DistrictListResponseSchema } from '../../contracts/districts';
 
 export function districtRoutes({ db }: AppContext): RouteSpec[] {
   return [
     route({
       method: 'get',
       path: '/api/districts/:code',
+      answer: DistrictDetailResponseSchema,
       allow: SIGNED_IN,
       tag: 'districts',
       summary: 'One district with its yearly series (gap years as nulls)',

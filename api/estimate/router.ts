@@ -5,8 +5,10 @@ import { CurveRow, ModelSpec } from '../estimation';
 import { COMPUTE_LIMIT, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
 import { MAX_CONTROLS } from './service';
+import { INDICATOR_CODE, INDICATOR_CODE_RULE } from '../../contracts/patterns';
+import { WhatIfAnswerSchema } from '../../contracts/settings';
 
-const indicator = z.string().regex(/^[a-z][a-z0-9_]{0,62}$/);
+const indicator = z.string().regex(INDICATOR_CODE, INDICATOR_CODE_RULE);
 
 /** The model as saved specs allow it: at most 8 controls. */
 const EstimateModel = ModelSpec.extend({ controls: z.array(z.string().min(1)).max(MAX_CONTROLS).optional() });
@@ -44,6 +46,7 @@ export function curveRoutes({ db, compute }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/estimate',
+      answer: WhatIfAnswerSchema,
       allow: SIGNED_IN,
       tag: 'estimation',
       rateLimit: COMPUTE_LIMIT,

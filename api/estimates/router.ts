@@ -3,6 +3,7 @@ import { districtParams } from '../http/params';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { sendPublished } from './published-cache';
 import * as service from './service';
+import { DistrictEstimateResponseSchema, DistrictHistoryResponseSchema, RegionResponseSchema } from '../../contracts/estimates';
 
 const byCode = { params: districtParams };
 
@@ -19,6 +20,7 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/region',
+      answer: RegionResponseSchema,
       allow: SIGNED_IN,
       tag: 'estimates',
       summary: 'The region in the latest published run: each district’s standing, counts per standing, the pooled curve',
@@ -27,6 +29,7 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/districts/:code/estimate',
+      answer: DistrictEstimateResponseSchema,
       allow: SIGNED_IN,
       tag: 'estimates',
       summary: 'A district’s published estimate (card): curve, threshold and interval, standing, sensitivity variants, note',
@@ -36,6 +39,7 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/districts/:code/history',
+      answer: DistrictHistoryResponseSchema,
       allow: SIGNED_IN,
       tag: 'estimates',
       summary: 'A district’s estimates across published runs, newest first',

@@ -98,12 +98,12 @@ export async function region(db: Knex) {
     counts[key] = (counts[key] ?? 0) + 1;
     return { code: d.code, name: d.name, estimate };
   });
-  const pooled = run?.pooled as { status: string; turningPoints?: { level: number | null; fieller: { kind: string; levelLo: number | null; levelHi: number | null } }[]; shape?: { shape: string }; coefficients?: number[]; terms?: string[]; range?: { levelMin: number; levelMax: number } } | null;
+  const pooled = run?.pooled ?? null;
   return {
     run: run ? publishedRunMeta(run) : null,
     counts,
     pooled: pooled && pooled.status === 'ok'
-      ? { shape: pooled.shape?.shape ?? null, threshold: pooled.turningPoints?.[0]?.level ?? null, fieller: pooled.turningPoints?.[0]?.fieller ?? null, terms: pooled.terms, coefficients: pooled.coefficients, range: pooled.range }
+      ? { shape: pooled.shape.shape, threshold: pooled.turningPoints[0]?.level ?? null, fieller: pooled.turningPoints[0]?.fieller ?? null, terms: pooled.terms, coefficients: pooled.coefficients, range: pooled.range }
       : null,
     districts: rows,
   };

@@ -6,6 +6,8 @@
 import type { Knex } from 'knex';
 import type { ModelSpec } from '../estimation';
 import type { EstimateRecord } from '../runs/estimate-record';
+import { PooledCurveSchema, type PooledCurve } from '../../contracts/estimates';
+import { parse } from '../../contracts/kit';
 
 /** What the published views show of a run. */
 export interface PublishedRun {
@@ -15,7 +17,8 @@ export interface PublishedRun {
   dataVersion: number | null;
   dataHash: string | null;
   softwareVersion: string;
-  pooled: unknown;
+  /** the regional pooled curve as fitted (parsed with its contract) */
+  pooled: PooledCurve | null;
 }
 
 const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
@@ -29,7 +32,7 @@ function toPublishedRun(r: Record<string, unknown>): PublishedRun {
     dataVersion: num(r.data_version),
     dataHash: (r.data_hash as string | null) ?? null,
     softwareVersion: String(r.software_version),
-    pooled: r.pooled ?? null,
+    pooled: r.pooled ? parse(PooledCurveSchema, r.pooled) : null,
   };
 }
 

@@ -12,8 +12,10 @@ import { validate, type Parsed } from './validate';
 
 export { COMPUTE_LIMIT, type RateLimit } from './rate-limit';
 
-export const ROLES = ['admin', 'analyst', 'official'] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type NO_CONTENT, type REDIRECT, type Role } from '../../contracts/common';
+import type { Schema } from '../../contracts/kit';
+
+export { ROLES, type Role };
 
 /** Who may call a route: nobody signed in needed, or one of these roles. */
 export type Allow = 'public' | readonly Role[];
@@ -22,6 +24,13 @@ export const STAFF: readonly Role[] = ['admin', 'analyst'];
 export const ADMIN: readonly Role[] = ['admin'];
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+
+/**
+ * What a route answers on success: a contracts schema for a JSON body (contracts/), or one
+ * of the markers for no body at all (204) and for a redirect. Routes with `produces` (PDF,
+ * CSV, HTML) are described by that media type instead.
+ */
+export type Answer = Schema | typeof NO_CONTENT | typeof REDIRECT;
 
 /** The signed-in person as the guard sees it (set on req.user by the auth layer). */
 export interface Caller {
@@ -44,6 +53,10 @@ export interface RouteSpec<P extends z.ZodType = z.ZodType, Q extends z.ZodType 
   before?: RequestHandler[];
   /** Content type of a successful answer when it is not JSON. */
   produces?: string;
+  /** The JSON answer's contract, or NO_CONTENT / REDIRECT (OpenAPI's responses come from it). */
+  answer?: Answer;
+  /** Success statuses of the answer when not just 200 (201 created, 202 queued; 503 for a health answer that reports a fault). */
+  statuses?: readonly number[];
   /** State-changing routes open to anonymous callers must say why (checked by tests). */
   anonymousWriteReason?: string;
   /** A per-person limit on heavy routes (see COMPUTE_LIMIT); routes naming one bucket share it. */

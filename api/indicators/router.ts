@@ -4,6 +4,7 @@ import type { AppContext } from '../context';
 import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
 import { createIndicatorBody, indicatorParams, updateIndicatorBody } from './schema';
 import * as service from './service';
+import { IndicatorAnswerSchema, IndicatorsResponseSchema } from '../../contracts/settings';
 
 export function indicatorRoutes({ db }: AppContext): RouteSpec[] {
   const whoOf = (req: Parameters<typeof callerOf>[0]) => {
@@ -14,6 +15,7 @@ export function indicatorRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/indicators',
+      answer: IndicatorsResponseSchema,
       allow: SIGNED_IN,
       tag: 'indicators',
       summary: 'The indicator catalogue: units, positivity rule, derivation, and how much data each has',
@@ -22,6 +24,8 @@ export function indicatorRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/indicators',
+      answer: IndicatorAnswerSchema,
+      statuses: [201],
       allow: STAFF,
       tag: 'indicators',
       summary: 'Add an indicator; a derived one (per person, or real from nominal) is computed at once from its sources',
@@ -37,6 +41,7 @@ export function indicatorRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'patch',
       path: '/api/indicators/:code',
+      answer: IndicatorAnswerSchema,
       allow: STAFF,
       tag: 'indicators',
       summary: 'Change an indicator; a new or changed derivation recomputes its series as a change set of its own',

@@ -1,7 +1,8 @@
 /** The indicator catalogue's request schemas. */
 import { z } from 'zod';
+import { INDICATOR_CODE, INDICATOR_CODE_RULE } from '../../contracts/patterns';
 
-export const indicatorCode = z.string().regex(/^[a-z][a-z0-9_]{0,62}$/, 'an indicator code is a lower-case letter then up to 62 letters, digits or _');
+export const indicatorCode = z.string().regex(INDICATOR_CODE, INDICATOR_CODE_RULE);
 
 export const derivationInput = z.discriminatedUnion('kind', [
   z.object({

@@ -3,6 +3,7 @@ import type { AppContext } from '../context';
 import { NotFoundError } from '../http/errors';
 import { ADMIN, route, type RouteSpec } from '../http/routes';
 import { listCaughtMail } from './store';
+import { MailboxResponseSchema } from '../../contracts/people';
 
 export function mailboxRoutes({ db, config }: AppContext): RouteSpec[] {
   const available = () => {
@@ -12,6 +13,7 @@ export function mailboxRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/mailbox',
+      answer: MailboxResponseSchema,
       allow: ADMIN,
       tag: 'mail',
       summary: 'Demo mode: the messages the local mail catcher received, newest first',

@@ -4,6 +4,7 @@ import type { AppContext } from '../context';
 import { COMPUTE_LIMIT, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { districtCode, indicatorCode } from '../http/params';
 import * as service from './service';
+import { DistrictObservationsResponseSchema } from '../../contracts/districts';
 
 const params = z.object({ code: districtCode });
 const asOf = z.coerce.number().int().min(0).optional();
@@ -23,6 +24,7 @@ export function observationRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/districts/:code/observations',
+      answer: DistrictObservationsResponseSchema,
       allow: SIGNED_IN,
       tag: 'districts',
       summary: "A district's yearly series for every indicator, gap years as nulls, each value with its upload; optionally as of a data version",

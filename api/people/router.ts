@@ -3,6 +3,7 @@ import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { ADMIN, callerOf, ROLES, route, type RouteSpec } from '../http/routes';
 import * as service from './service';
+import { InviteAnswerSchema, PeopleResponseSchema, PersonAnswerSchema, PersonDeletedSchema } from '../../contracts/people';
 
 const role = z.enum(ROLES);
 
@@ -12,6 +13,7 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/people',
+      answer: PeopleResponseSchema,
       allow: ADMIN,
       tag: 'people',
       summary: 'Everyone with access, their role and status',
@@ -20,6 +22,8 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/people/invitations',
+      answer: InviteAnswerSchema,
+      statuses: [201],
       allow: ADMIN,
       tag: 'people',
       summary: 'Invite an e-mail address with a role (sends the invitation by e-mail)',
@@ -32,6 +36,7 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'patch',
       path: '/api/people/:id',
+      answer: PersonAnswerSchema,
       allow: ADMIN,
       tag: 'people',
       summary: 'Change a person’s role, name, or deactivate / reactivate them',
@@ -46,6 +51,7 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'delete',
       path: '/api/people/:id',
+      answer: PersonDeletedSchema,
       allow: ADMIN,
       tag: 'people',
       summary: 'Delete a person: ends their sessions, removes their subscriptions, keeps their audit entries under a pseudonym',

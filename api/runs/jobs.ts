@@ -10,6 +10,7 @@ import type { AppContext } from '../context';
 import { QUEUES, type Handler } from '../jobs/boss';
 import { hashSeries, loadSeries, currentDataVersion, type DistrictSeries } from './data-store';
 import * as store from './store';
+import type { PooledCurve } from '../../contracts/estimates';
 
 function panelRows(series: DistrictSeries[], controls: string[]): PanelRow[] {
   const rows: PanelRow[] = [];
@@ -21,6 +22,16 @@ function panelRows(series: DistrictSeries[], controls: string[]): PanelRow[] {
     }
   }
   return rows;
+}
+
+
+/**
+ * The pooled curve as the engine needs it. The run row holds the engine's own panel fit,
+ * written by the pooled step of this job (a JSON round trip keeps every field); the
+ * contract checks the parts answers read, so this is the one place the rest is trusted.
+ */
+function panelFitOf(pooled: PooledCurve | null): FitPanelResult | null {
+  return pooled && pooled.status === 'ok' ? (pooled as unknown as FitPanelResult) : null;
 }
 
 export function fitPooled(series: DistrictSeries[], spec: store.RunSpec): FitPanelResult | { status: 'failed'; message: string } {
@@ -93,7 +104,7 @@ export async function runChunk(ctx: AppContext, data: { runId: number; chunk: nu
     const t0 = performance.now();
     const series = await loadSeries(db, run.dataVersion!, run.spec.selection, data.districtIds);
     const t1 = performance.now();
-    const pooled = run.pooled && (run.pooled as { status: string }).status === 'ok' ? (run.pooled as FitPanelResult) : null;
+    const pooled = panelFitOf(run.pooled);
     const model = { spec: run.spec.model, controls: run.spec.selection.controls };
     // The fits run in the compute pool, so a run never stalls the readers of this process.
     const rows = await ctx.compute.run({ kind: 'district-fits', model, districts: series.map((s) => ({ districtId: s.districtId, data: s.data })), pooled });

@@ -4,6 +4,9 @@ import type { AppContext } from '../context';
 import { districtCode } from '../http/params';
 import { callerOf, COMPUTE_LIMIT, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
 import * as service from './service';
+import { NO_CONTENT } from '../../contracts/common';
+import { PublishedResponseSchema } from '../../contracts/districts';
+import { DistrictReviewSchema, PublishAnswerSchema, ReviewResponseSchema, RunListResponseSchema, RunStartedSchema, RunViewSchema } from '../../contracts/runs';
 
 const byId = idParams;
 
@@ -13,6 +16,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/published',
+      answer: PublishedResponseSchema,
       allow: SIGNED_IN,
       tag: 'runs',
       summary: 'The latest published run id: the cheap question an open app asks to learn of a publish (never cached)',
@@ -24,6 +28,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/runs',
+      answer: RunListResponseSchema,
       allow: STAFF,
       tag: 'runs',
       summary: 'Recent runs, newest first',
@@ -33,6 +38,8 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/runs',
+      answer: RunStartedSchema,
+      statuses: [202],
       allow: STAFF,
       tag: 'runs',
       summary: 'Re-estimate now: queue a run of a spec (the default when none is named)',
@@ -46,6 +53,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/runs/:id',
+      answer: RunViewSchema,
       allow: STAFF,
       tag: 'runs',
       summary: 'A run: state, progress, spec, data version and hash, standing counts once in review',
@@ -55,6 +63,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/runs/:id/review',
+      answer: ReviewResponseSchema,
       allow: STAFF,
       tag: 'runs',
       summary: 'Per district: this run against the last published one (threshold move, standing, shape, significance)',
@@ -64,6 +73,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/runs/:id/districts/:code',
+      answer: DistrictReviewSchema,
       allow: STAFF,
       tag: 'runs',
       summary: 'One district in a run: every variant, diagnostics, residuals, and why the threshold moved',
@@ -73,6 +83,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'put',
       path: '/api/runs/:id/districts/:code/note',
+      answer: NO_CONTENT,
       allow: STAFF,
       tag: 'runs',
       summary: 'Attach a short note to a district for the next brief',
@@ -85,6 +96,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/runs/:id/publish',
+      answer: PublishAnswerSchema,
       allow: STAFF,
       tag: 'runs',
       summary: 'Publish a run in review: officials see it, alerts go out',
@@ -94,6 +106,7 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/runs/:id/discard',
+      answer: NO_CONTENT,
       allow: STAFF,
       tag: 'runs',
       summary: 'Discard a run (nothing changes for officials)',
@@ -106,6 +119,8 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/runs/:id/reproduce',
+      answer: RunStartedSchema,
+      statuses: [202],
       allow: STAFF,
       tag: 'runs',
       summary: 'Re-execute a run from its recorded spec, data version and data hash',

@@ -122,7 +122,7 @@ export async function runView(db: Knex, id: number) {
   const rows = estimatesVisible ? await store.listEstimateRows(db, id) : [];
   const counts: Record<string, number> = {};
   for (const r of rows) counts[r.standing] = (counts[r.standing] ?? 0) + 1;
-  const pooled = run.pooled as { status: string; turningPoints?: { level: number | null; fieller: { kind: string; levelLo: number | null; levelHi: number | null } }[]; shape?: { shape: string }; n?: number; districts?: number } | null;
+  const pooled = run.pooled;
   let reproduction: {
     of: number; identical: boolean | null; differences: number;
     softwareChanged: boolean; originalSoftware: string | null; changedAnswers: AnswerChange[];
@@ -163,9 +163,11 @@ export async function runView(db: Knex, id: number) {
     progress: { chunksDone: done, chunksTotal: run.chunksTotal, districts: run.districtsTotal },
     timings: run.timings,
     standingCounts: estimatesVisible ? counts : null,
-    pooled: pooled
-      ? { status: pooled.status, shape: pooled.shape?.shape ?? null, threshold: pooled.turningPoints?.[0] ?? null, n: pooled.n ?? null, districts: pooled.districts ?? null }
-      : null,
+    pooled: !pooled
+      ? null
+      : pooled.status === 'ok'
+        ? { status: pooled.status, shape: pooled.shape.shape, threshold: pooled.turningPoints[0] ?? null, n: pooled.n, districts: pooled.districts }
+        : { status: pooled.status, shape: null, threshold: null, n: pooled.n, districts: null },
     reproduction,
   };
 }
@@ -193,15 +195,17 @@ export async function reviewRows(db: Knex, id: number) {
   const run = await mustFind(db, id);
   visibleOrThrow(run);
   const previous = await previousPublishedFor(db, run);
-  const [rows, prevRows, notes] = await Promise.all([
+  const [rows, prevRows, notes, settings] = await Promise.all([
     store.listEstimateRows(db, id),
     previous ? store.listEstimateRows(db, previous.id) : Promise.resolve([]),
     store.notesFor(db, id),
+    getSettings(db),
   ]);
   const prevById = new Map(prevRows.map((p) => [p.districtId, p]));
   return {
     runId: id,
     previousRunId: previous?.id ?? null,
+    thresholdShiftPercent: settings.thresholdShiftPercent,
     districts: rows.map((r) => {
       const p = prevById.get(r.districtId) ?? null;
       const { districtId, ...current } = r;

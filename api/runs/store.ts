@@ -3,6 +3,8 @@ import type { Knex } from 'knex';
 import type { ModelSpec } from '../estimation';
 import type { EstimateRecord, Variant } from './estimate-record';
 import type { Selection } from './data-store';
+import { PooledCurveSchema, type PooledCurve } from '../../contracts/estimates';
+import { parse } from '../../contracts/kit';
 
 export type RunState = 'queued' | 'running' | 'in_review' | 'published' | 'discarded' | 'failed';
 
@@ -29,7 +31,8 @@ export interface RunRow {
   reviewedBy: number | null;
   chunksTotal: number | null;
   districtsTotal: number | null;
-  pooled: unknown;
+  /** the regional pooled curve as fitted (null until the run has fitted it) */
+  pooled: PooledCurve | null;
   timings: Record<string, number> | null;
   error: string | null;
   attempts: number;
@@ -59,7 +62,7 @@ function toRun(r: Record<string, unknown>): RunRow {
     reviewedBy: num(r.reviewed_by),
     chunksTotal: num(r.chunks_total),
     districtsTotal: num(r.districts_total),
-    pooled: r.pooled ?? null,
+    pooled: r.pooled ? parse(PooledCurveSchema, r.pooled) : null,
     timings: (r.timings as Record<string, number> | null) ?? null,
     error: (r.error as string | null) ?? null,
     attempts: Number(r.attempts),

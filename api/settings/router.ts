@@ -4,6 +4,7 @@ import { ValidationError } from '../http/errors';
 import { ADMIN, callerOf, route, STAFF, type RouteSpec } from '../http/routes';
 import { SettingsSchema, type Settings } from './schema';
 import * as service from './service';
+import { SettingsResponseSchema } from '../../contracts/settings';
 
 /** The scheduled job as pg-boss will start it: its cron, time zone and next start. */
 export function scheduleView(s: Settings, now = new Date()) {
@@ -22,6 +23,7 @@ export function settingsRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/settings',
+      answer: SettingsResponseSchema,
       allow: STAFF,
       tag: 'settings',
       summary: 'The settings the engine, alerts, uploads and briefs use, and the schedule with its next start',
@@ -33,6 +35,7 @@ export function settingsRoutes(ctx: AppContext): RouteSpec[] {
     route({
       method: 'patch',
       path: '/api/settings',
+      answer: SettingsResponseSchema,
       allow: ADMIN,
       tag: 'settings',
       summary: 'Change settings (audited); a schedule change re-registers the cron job',

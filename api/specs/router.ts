@@ -3,6 +3,8 @@ import type { AppContext } from '../context';
 import { callerOf, route, STAFF, type RouteSpec } from '../http/routes';
 import { SavedSpecInput } from './schema';
 import * as service from './service';
+import { NO_CONTENT } from '../../contracts/common';
+import { SpecAnswerSchema, SpecsResponseSchema } from '../../contracts/settings';
 
 const byId = idParams;
 
@@ -11,6 +13,7 @@ export function specRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/specs',
+      answer: SpecsResponseSchema,
       allow: STAFF,
       tag: 'runs',
       summary: 'Saved model specs (the default first)',
@@ -23,6 +26,8 @@ export function specRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/specs',
+      answer: SpecAnswerSchema,
+      statuses: [201],
       allow: STAFF,
       tag: 'runs',
       summary: 'Save a new model spec',
@@ -35,6 +40,7 @@ export function specRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'put',
       path: '/api/specs/:id',
+      answer: SpecAnswerSchema,
       allow: STAFF,
       tag: 'runs',
       summary: 'Replace a saved model spec',
@@ -44,6 +50,7 @@ export function specRoutes({ db }: AppContext): RouteSpec[] {
     route({
       method: 'delete',
       path: '/api/specs/:id',
+      answer: NO_CONTENT,
       allow: STAFF,
       tag: 'runs',
       summary: 'Archive a saved model spec (runs keep their copy)',

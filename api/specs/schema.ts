@@ -7,8 +7,9 @@
  */
 import { z } from 'zod';
 import { ModelSpec } from '../estimation/model-spec';
+import { INDICATOR_CODE, INDICATOR_CODE_RULE } from '../../contracts/patterns';
 
-const indicatorCode = z.string().regex(/^[a-z][a-z0-9_]{0,62}$/, 'an indicator code (lower case, digits, _)');
+const indicatorCode = z.string().regex(INDICATOR_CODE, INDICATOR_CODE_RULE);
 
 export const SpecModelFields = ModelSpec.pick({ form: true, transform: true, covariance: true, lag: true, intervalMethod: true, levelControls: true });
 

@@ -5,6 +5,8 @@ import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { ALERT_KINDS } from '../shared/alert-kinds';
 import { confirmPage, resultPage } from './pages';
 import * as service from './service';
+import { SubscriptionAnswerSchema, SubscriptionsResponseSchema } from '../../contracts/alerts';
+import { NO_CONTENT } from '../../contracts/common';
 
 const body = z.object({
   scope: z.enum(['district', 'districts', 'region']),
@@ -19,6 +21,7 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/subscriptions',
+      answer: SubscriptionsResponseSchema,
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Your alert subscriptions',
@@ -27,6 +30,8 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/subscriptions',
+      answer: SubscriptionAnswerSchema,
+      statuses: [201],
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Subscribe to a district, a set of districts or the region: alert kinds, instant or digest, brief attached',
@@ -39,6 +44,7 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'delete',
       path: '/api/subscriptions/:id',
+      answer: NO_CONTENT,
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Remove one of your subscriptions',

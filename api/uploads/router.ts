@@ -8,6 +8,8 @@ import { dataVersion, revertUpload } from './change-sets';
 import { receivedFile, receiveFile } from './multipart';
 import { uploadIdParams, uploadListQuery, uploadQuery } from './schema';
 import * as service from './service';
+import { DataVersionSchema } from '../../contracts/districts';
+import { RevertAnswerSchema, UploadAnswerSchema, UploadDetailResponseSchema, UploadListResponseSchema } from '../../contracts/uploads';
 
 function who(req: Parameters<typeof callerOf>[0]): service.Who {
   const c = callerOf(req);
@@ -21,6 +23,8 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/uploads',
+      answer: UploadAnswerSchema,
+      statuses: [200, 201],
       allow: STAFF,
       tag: 'uploads',
       summary:
@@ -42,6 +46,7 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/uploads',
+      answer: UploadListResponseSchema,
       // Staff only: failed previews quote old and new values and the uploader's address.
       allow: STAFF,
       tag: 'uploads',
@@ -52,6 +57,7 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/uploads/:id',
+      answer: UploadDetailResponseSchema,
       allow: STAFF,
       tag: 'uploads',
       summary: 'One upload with its preview and problems',
@@ -61,6 +67,8 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/uploads/:id/commit',
+      answer: UploadAnswerSchema,
+      statuses: [200, 201],
       allow: STAFF,
       tag: 'uploads',
       summary: 'Commit a previewed upload from its kept staged rows (checked again against the data as it is now)',
@@ -78,6 +86,7 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'post',
       path: '/api/uploads/:id/revert',
+      answer: RevertAnswerSchema,
       allow: STAFF,
       tag: 'uploads',
       summary: 'Revert a committed upload: every value it wrote goes back to what it was before (refused when later uploads changed them)',
@@ -92,6 +101,7 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     route({
       method: 'get',
       path: '/api/data-version',
+      answer: DataVersionSchema,
       allow: SIGNED_IN,
       tag: 'uploads',
       summary: 'The current data version (last change applied and a hash of the rows), or an earlier one rebuilt from history',

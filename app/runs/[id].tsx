@@ -14,7 +14,6 @@ import {
   useRunQuery,
   useRunReviewQuery,
 } from '@/hooks/use-runs';
-import { useSettingsQuery } from '@/hooks/use-settings';
 import { can } from '@/lib/roles';
 
 /** One run: progress, then the review of every district, publish or discard. `?district=` opens one. */
@@ -30,7 +29,6 @@ export default function RunRoute() {
   const reviewable = !!run.data && REVIEWABLE_RUN_STATES.includes(run.data.state);
   const review = useRunReviewQuery(runId, allowed && reviewable);
   const district = useRunDistrictQuery(runId, code, allowed && reviewable);
-  const settings = useSettingsQuery(allowed);
   const publish = usePublishRunMutation();
   const discard = useDiscardRunMutation();
   const note = useRunNoteMutation();
@@ -48,7 +46,6 @@ export default function RunRoute() {
             run={run}
             review={review}
             district={district}
-            shiftPercent={settings.data?.settings.thresholdShiftPercent ?? 10}
             onPublish={() => publish.mutateAsync(runId)}
             onDiscard={() => discard.mutateAsync(runId)}
             onSaveNote={(c, text) => note.mutateAsync({ id: runId, code: c, note: text })}

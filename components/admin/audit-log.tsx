@@ -10,7 +10,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { formatDateTime } from '@/lib/format-time';
-import type { AuditEntry, AuditFilter } from '@/lib/types/people';
+import type { AuditEntry, AuditFilter } from '@/contracts/people';
 
 /** What an infinite query gives the screen. */
 export type AuditPages = {

@@ -11,7 +11,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { ApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-time';
-import type { CaughtMail } from '@/lib/types/people';
+import type { CaughtMail } from '@/contracts/people';
 
 export type MailboxScreenProps = {
   to: string;

@@ -12,7 +12,7 @@ import { Skeleton } from '@/components/state/skeleton';
 import { colors, radius, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { formatDateTime, formatRelative } from '@/lib/format-time';
-import type { Schedule, Settings, SettingsResponse } from '@/lib/types/settings';
+import type { Schedule, Settings, SettingsResponse } from '@/contracts/settings';
 
 import { cronWords } from './cron-words';
 

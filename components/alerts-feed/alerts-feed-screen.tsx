@@ -15,7 +15,7 @@ import { LinkTarget } from '@/components/ui/link-target';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { alertDetail, alertTitle } from '@/lib/alert-text';
-import type { AlertFeedResponse, FeedAlert } from '@/lib/estimate-types';
+import type { AlertFeedResponse, FeedAlert } from '@/contracts/alerts';
 import { formatDateTime } from '@/lib/format-time';
 
 export type AlertsFeedScreenProps = {

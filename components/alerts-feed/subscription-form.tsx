@@ -8,7 +8,7 @@ import { TextField } from '@/components/form/text-field';
 import { colors, radius, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { searchDistricts } from '@/lib/district-search';
-import { ALERT_KINDS, type AlertKind, type SubscriptionInput } from '@/lib/estimate-types';
+import { ALERT_KINDS, type AlertKind, type SubscriptionInput } from '@/contracts/alerts';
 import { ALERT_KIND_LABEL } from '@/lib/estimate-words';
 
 export const KIND_HINT: Record<AlertKind, string> = {

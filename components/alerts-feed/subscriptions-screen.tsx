@@ -11,7 +11,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { ConfirmAction } from '@/components/ui/confirm-action';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
-import type { Subscription, SubscriptionInput } from '@/lib/estimate-types';
+import type { Subscription, SubscriptionInput } from '@/contracts/alerts';
 import { ALERT_KIND_LABEL } from '@/lib/estimate-words';
 import { formatDate } from '@/lib/format-time';
 

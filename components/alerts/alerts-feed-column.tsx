@@ -9,7 +9,7 @@ import { colors, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { LinkTarget } from '@/components/ui/link-target';
 import { alertDetail, alertTitle, formatDay } from '@/lib/alert-text';
-import type { AlertFeedResponse, FeedAlert } from '@/lib/estimate-types';
+import type { AlertFeedResponse, FeedAlert } from '@/contracts/alerts';
 
 export type AlertsFeedColumnProps = {
   feed: QueryState<AlertFeedResponse>;

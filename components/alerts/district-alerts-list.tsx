@@ -6,7 +6,7 @@ import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
 import { alertDetail, alertTitle, formatDay } from '@/lib/alert-text';
-import type { DistrictAlertsResponse } from '@/lib/estimate-types';
+import type { DistrictAlertsResponse } from '@/contracts/alerts';
 
 /** Every alert published for one district (what each published run changed). */
 export function DistrictAlertsList({ alerts }: { alerts: QueryState<DistrictAlertsResponse> }) {

@@ -4,7 +4,7 @@ import type { QueryState } from '@/components/state/query-state';
 import { colors, layout, radius, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { ApiError } from '@/lib/api-client';
-import type { Subscription } from '@/lib/estimate-types';
+import type { Subscription } from '@/contracts/alerts';
 
 export type SubscribeToggleProps = {
   code: string;

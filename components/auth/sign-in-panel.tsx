@@ -6,7 +6,7 @@ import { StatePanel } from '@/components/state/state-panel';
 import { colors, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { TextLink } from '@/components/ui/text-link';
-import type { AuthOptionsResponse, MeResponse } from '@/lib/api-types';
+import type { AuthOptionsResponse, MeResponse } from '@/contracts/districts';
 import { SESSION_END_TITLES, sessionEndReason } from '@/lib/session-end';
 
 import { QueryErrorPanel } from '../state/query-error-panel';

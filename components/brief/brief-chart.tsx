@@ -2,7 +2,7 @@ import { lazy, Suspense, useEffect, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
 import { chartColors, colors, radius, space, type } from '@/components/theme';
-import type { ChartScene } from '@/lib/brief-types';
+import type { ChartScene } from '@/contracts/briefs';
 
 import { loadSceneSvg } from './load-scene';
 

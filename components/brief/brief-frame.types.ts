@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 
-import type { BriefPaperSize } from '@/lib/brief-types';
+import type { BriefPaperSize } from '@/contracts/briefs';
 
 export type BriefFrameProps = {
   /** The server path of the same brief as PDF. */

@@ -7,7 +7,7 @@ import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { space } from '@/components/theme';
 import { ApiError } from '@/lib/api-client';
-import type { BriefPaperSize } from '@/lib/brief-types';
+import type { BriefPaperSize } from '@/contracts/briefs';
 
 import { BriefFrame } from './brief-frame';
 

@@ -3,7 +3,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
-import type { BriefFigure, BriefTrace } from '@/lib/brief-types';
+import type { BriefFigure, BriefTrace } from '@/contracts/briefs';
 
 /** Marks a block the printed page should not split (see brief-frame.web.tsx). */
 export const keepTogether = { dataSet: { briefBlock: 'keep' } } as object;

@@ -1,7 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, space, type } from '@/components/theme';
-import type { RegionBriefContent, RegionBriefRow } from '@/lib/brief-types';
+import type { RegionBriefContent, RegionBriefRow } from '@/contracts/briefs';
 
 import { BriefChart } from './brief-chart';
 import { BriefHeading, BriefTop, Cautions, FigureGrid, keepTogether, ModelLine, TraceFooter } from './brief-sections';

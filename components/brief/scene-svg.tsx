@@ -5,7 +5,7 @@ import Svg, { Circle, Path, Text as SvgText } from 'react-native-svg';
 
 import { mapFill, mapInk } from '@/components/region/map-palette';
 import { chartColors, colors, fonts, standingColors } from '@/components/theme';
-import type { BriefTone, ChartScene } from '@/lib/brief-types';
+import type { BriefTone, ChartScene } from '@/contracts/briefs';
 
 const TONE: Record<BriefTone, string> = {
   ink: colors.text,

@@ -4,7 +4,7 @@ import { chartColors, layout } from '@/components/theme';
 import { useTextScale } from '@/hooks/use-text-scale';
 import { curveChartModel } from '@/lib/chart-model';
 import { curveChartSummary } from '@/lib/chart-summary';
-import type { EstimateRecord } from '@/lib/estimate-types';
+import type { EstimateRecord } from '@/contracts/estimates';
 import { levelPercent, METHOD_LABEL, notBoundedText } from '@/lib/estimate-words';
 
 import { ChartFrame } from './chart-frame';

@@ -10,9 +10,11 @@ import type { QueryState } from '@/components/state/query-state';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, layout, radius, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
+import { briefPdfPath } from '@/hooks/use-briefs';
 import { ApiError } from '@/lib/api-client';
-import type { DistrictDetailResponse } from '@/lib/api-types';
-import type { DistrictAlertsResponse, DistrictEstimateResponse, DistrictHistoryResponse } from '@/lib/estimate-types';
+import type { DistrictDetailResponse } from '@/contracts/districts';
+import type { DistrictAlertsResponse } from '@/contracts/alerts';
+import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/contracts/estimates';
 
 import { CardTabs, type CardTab } from './card-tabs';
 import { CautionNote } from './caution-note';
@@ -108,11 +110,12 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
     return () => cancelAnimationFrame(id);
   }, []);
   const main = data.main;
-  const level = main?.model.level ?? data.run?.model.level ?? 0.95;
+  // From the answer: the main record's model, else the published run's; none without a run.
+  const level = main?.model.level ?? data.run?.model.level ?? null;
   const district = detail.data?.district;
   const actions = (
     <>
-      <ExternalLink path={`/api/briefs/district/${encodeURIComponent(code)}.pdf`} label="Brief (PDF)" accessibilityLabel={`Brief for ${data.district.name}, PDF`} testID="district-brief-link" />
+      <ExternalLink path={briefPdfPath.district(code)} label="Brief (PDF)" accessibilityLabel={`Brief for ${data.district.name}, PDF`} testID="district-brief-link" />
       <SubscribeToggle code={code} name={data.district.name} {...subscribe} />
     </>
   );

@@ -1,7 +1,7 @@
 // Words for one district's coverage and latest values, shared by the list row (visible and
 // screen-reader text) and the region overview.
-import type { DistrictSummary } from '@/lib/api-types';
-import type { EstimateSummary } from '@/lib/estimate-types';
+import type { DistrictSummary } from '@/contracts/districts';
+import type { EstimateSummary } from '@/contracts/estimates';
 import { STANDING_LABEL, gapShort, gapWords } from '@/lib/estimate-words';
 import { countGapYears, formatYearCount, formatYearSpan } from '@/lib/format';
 import { indicatorColumn } from '@/lib/indicators';

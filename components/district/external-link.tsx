@@ -3,10 +3,9 @@ import { Linking, Pressable, StyleSheet, Text } from 'react-native';
 
 import { colors, layout, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
+import { serverUrl } from '@/lib/api-config';
 
 import type { ExternalLinkProps } from './external-link.types';
-
-const BASE_URL = process.env.EXPO_PUBLIC_API_BASE_URL ?? '';
 
 export function ExternalLink({ path, label, accessibilityLabel, testID }: ExternalLinkProps) {
   return (
@@ -14,7 +13,7 @@ export function ExternalLink({ path, label, accessibilityLabel, testID }: Extern
       testID={testID}
       accessibilityRole="link"
       accessibilityLabel={accessibilityLabel ?? label}
-      onPress={() => void Linking.openURL(`${BASE_URL}${path}`)}
+      onPress={() => void Linking.openURL(serverUrl(path))}
       style={(state: InteractionState) => [styles.target, focusOutline(state)]}
     >
       <Text style={styles.text}>{label} ↗</Text>

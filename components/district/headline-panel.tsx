@@ -3,7 +3,7 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import { StandingBadge } from '@/components/region/standing-mark';
 import { colors, radius, space, standingColors, type } from '@/components/theme';
-import type { EstimateRecord } from '@/lib/estimate-types';
+import type { EstimateRecord } from '@/contracts/estimates';
 import { SHAPE_LABEL, SHAPE_TECHNICAL, STANDING_MEANING } from '@/lib/estimate-words';
 import { headline, headlineInputFromRecord } from '@/lib/headline';
 

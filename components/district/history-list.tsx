@@ -7,11 +7,11 @@ import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
 import { formatDay } from '@/lib/alert-text';
-import type { DistrictHistoryResponse } from '@/lib/estimate-types';
+import type { DistrictHistoryResponse } from '@/contracts/estimates';
 import { formatLevel, gapShort, intervalText, notBoundedText } from '@/lib/estimate-words';
 
 /** The district's estimate in each published run, newest first. */
-export function HistoryList({ history, level }: { history: QueryState<DistrictHistoryResponse>; level: number }) {
+export function HistoryList({ history, level }: { history: QueryState<DistrictHistoryResponse>; level: number | null }) {
   if (history.status === 'pending') {
     return (
       <View style={styles.list} accessible accessibilityLabel="Loading the history">

@@ -1,7 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
-import type { EstimateRecord, PublishedRunMeta } from '@/lib/estimate-types';
+import type { EstimateRecord, PublishedRunMeta } from '@/contracts/estimates';
 import { formatLevel, gapWords, intervalText, levelPercent, METHOD_LABEL, notBoundedText, yearWithRange } from '@/lib/estimate-words';
 import { modelLine, runLine } from '@/lib/model-line';
 

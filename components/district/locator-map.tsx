@@ -7,7 +7,7 @@ import Svg, { Path } from 'react-native-svg';
 import { mapFill, mapInk } from '@/components/region/map-palette';
 import { colors, radius, space, type } from '@/components/theme';
 import { useBoundariesQuery } from '@/hooks/use-boundaries';
-import type { Standing } from '@/lib/estimate-types';
+import type { Standing } from '@/contracts/estimates';
 import { buildMapScene, mapAspect } from '@/lib/map-scene';
 
 export type LocatorMapProps = {

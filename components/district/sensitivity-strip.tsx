@@ -1,7 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { chartColors, colors, radius, space, type } from '@/components/theme';
-import type { EstimateRecord, VariantSummary } from '@/lib/estimate-types';
+import type { EstimateRecord, VariantSummary } from '@/contracts/estimates';
 import { textSize } from '@/lib/text-size';
 import { formatLevel, levelPercent } from '@/lib/estimate-words';
 import { sensitivityRows, stripDomain, stripPosition, type SensitivityRow } from '@/lib/sensitivity';

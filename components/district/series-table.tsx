@@ -1,7 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
-import type { Indicator, SeriesRow } from '@/lib/api-types';
+import type { Indicator, SeriesRow } from '@/contracts/districts';
 import { INDICATOR_COLUMNS, type IndicatorColumn } from '@/lib/indicators';
 
 /** Relative column widths: the longer headers and numbers get more of a 390 px screen. */

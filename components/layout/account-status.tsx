@@ -7,7 +7,7 @@ import { focusOutline, type InteractionState } from '@/components/ui/interaction
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
-import type { MeResponse } from '@/lib/api-types';
+import type { MeResponse } from '@/contracts/districts';
 import { roleLabel } from '@/lib/roles';
 
 export type AccountStatusProps = {

@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 
 import type { QueryState } from '@/components/state/query-state';
 import type { LayoutMode } from '@/hooks/use-layout-mode';
-import type { MeResponse } from '@/lib/api-types';
+import type { MeResponse } from '@/contracts/districts';
 
 import { AccountPanel, AccountStatus } from './account-status';
 import { AppHeader } from './app-header';

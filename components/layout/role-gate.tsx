@@ -5,7 +5,7 @@ import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { TextLink } from '@/components/ui/text-link';
-import type { MeResponse } from '@/lib/api-types';
+import type { MeResponse } from '@/contracts/districts';
 import { can, roleLabel, type Capability } from '@/lib/roles';
 
 import { Page } from './page';

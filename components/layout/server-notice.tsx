@@ -2,7 +2,7 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import type { QueryState } from '@/components/state/query-state';
 import { colors, space, type } from '@/components/theme';
-import type { HealthResponse } from '@/lib/api-types';
+import type { HealthResponse } from '@/contracts/districts';
 
 /**
  * A thin notice under the header when the server or its database is down, so stale or

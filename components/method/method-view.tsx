@@ -5,7 +5,7 @@ import { StandingMark } from '@/components/region/standing-mark';
 import { colors, layout, radius, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import { CAUTIONS } from '@/lib/cautions';
-import { STANDINGS } from '@/lib/estimate-types';
+import { STANDINGS } from '@/contracts/estimates';
 import { SHAPE_LABEL, SHAPE_TECHNICAL, SHAPES_IN_ORDER, STANDING_LABEL, STANDING_MEANING } from '@/lib/estimate-words';
 
 /** How Crestwatch estimates, in plain words with the formulas, the references and the cautions. */

@@ -6,8 +6,9 @@ import { fieldErrorsOf, MutationNotice } from '@/components/form/mutation-notice
 import { TextField } from '@/components/form/text-field';
 import { colors, radius, space } from '@/components/theme';
 import { Button } from '@/components/ui/button';
-import { ROLE_DESCRIPTIONS, ROLE_LABELS, type Role } from '@/lib/roles';
-import type { InviteAnswer, InviteInput } from '@/lib/types/people';
+import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/roles';
+import type { Role } from '@/contracts/common';
+import type { InviteAnswer, InviteInput } from '@/contracts/people';
 
 const ROLES: Role[] = ['official', 'analyst', 'admin'];
 const EMAIL = /^[^\s@]+@[^\s@]+\.[^\s@]+$/;

@@ -9,7 +9,7 @@ import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
-import type { InviteAnswer, InviteInput, Person, PersonPatch } from '@/lib/types/people';
+import type { InviteAnswer, InviteInput, Person, PersonPatch } from '@/contracts/people';
 
 import { InvitationDays } from './invitation-days';
 import { InviteForm } from './invite-form';

@@ -8,8 +8,9 @@ import { Button } from '@/components/ui/button';
 import { ConfirmAction } from '@/components/ui/confirm-action';
 import { Pill } from '@/components/ui/pill';
 import { formatDate } from '@/lib/format-time';
-import { ROLE_LABELS, type Role } from '@/lib/roles';
-import type { Person, PersonPatch, PersonStatus } from '@/lib/types/people';
+import { ROLE_LABELS } from '@/lib/roles';
+import type { Role } from '@/contracts/common';
+import type { Person, PersonPatch, PersonStatus } from '@/contracts/people';
 
 const STATUS: Record<PersonStatus, { label: string; tone: Tone }> = {
   active: { label: 'Active', tone: 'success' },

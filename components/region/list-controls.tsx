@@ -3,7 +3,7 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 
 import { colors, layout, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
-import { SHAPES, type Shape } from '@/lib/estimate-types';
+import { SHAPES, type Shape } from '@/contracts/estimates';
 import { SHAPE_LABEL } from '@/lib/estimate-words';
 import { SORT_LABEL, type SortKey } from '@/lib/region-list';
 

@@ -7,7 +7,7 @@ import { PanResponder, Platform, Pressable, StyleSheet, Text, View, type Gesture
 import Svg, { G, Path } from 'react-native-svg';
 
 import { colors, radius, space, type } from '@/components/theme';
-import type { Standing } from '@/lib/estimate-types';
+import type { Standing } from '@/contracts/estimates';
 import { districtAt, type MapScene } from '@/lib/map-scene';
 
 import { mapFill, mapInk } from './map-palette';

@@ -1,7 +1,7 @@
 // Fills of the region map: light tints of each standing's own colour (the mark on top
 // carries the full colour and the shape), a muted fill for districts the filter hides.
 import { colors, standingColors } from '@/components/theme';
-import type { Standing } from '@/lib/estimate-types';
+import type { Standing } from '@/contracts/estimates';
 
 /** Mixes a #rrggbb colour with white: t = 0 keeps it, 1 is white. */
 function tint(hex: string, t: number): string {

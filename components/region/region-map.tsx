@@ -12,7 +12,7 @@ import { Skeleton } from '@/components/state/skeleton';
 import { colors, space, type } from '@/components/theme';
 import { useBoundariesQuery } from '@/hooks/use-boundaries';
 import { useRegionFilter } from '@/hooks/use-region-filter';
-import { STANDINGS, type Standing } from '@/lib/estimate-types';
+import { STANDINGS, type Standing } from '@/contracts/estimates';
 import { STANDING_LABEL } from '@/lib/estimate-words';
 import { buildMapScene, mapAspect } from '@/lib/map-scene';
 import { standingOf, toggle, type RegionRow } from '@/lib/region-list';

@@ -3,13 +3,14 @@ import { ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { CautionNote } from '@/components/district/caution-note';
 import { ExternalLink } from '@/components/district/external-link';
+import { briefPdfPath } from '@/hooks/use-briefs';
 import { QueryErrorPanel } from '@/components/state/query-error-panel';
 import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { colors, layout, radius, space, standingColors, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
-import type { RegionResponse } from '@/lib/estimate-types';
-import { STANDINGS } from '@/lib/estimate-types';
+import type { RegionResponse } from '@/contracts/estimates';
+import { STANDINGS } from '@/contracts/estimates';
 import { formatLevel, intervalText, notBoundedText, SHAPE_LABEL, STANDING_LABEL, STANDING_MEANING } from '@/lib/estimate-words';
 import { modelLineOfRun, runLine } from '@/lib/model-line';
 import { countByStanding, type RegionRow } from '@/lib/region-list';
@@ -31,7 +32,7 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
   const run = region.data?.run ?? null;
   const counts = countByStanding(districts.data ?? []);
   const pooled = region.data?.pooled ?? null;
-  const level = run?.model.level ?? 0.95;
+  const level = run?.model.level ?? null;
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.wrap} testID="region-overview">
       {map ? <View style={styles.card}>{map}</View> : null}
@@ -81,7 +82,7 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
           </Text>
         ) : null}
         <View style={styles.links}>
-          {run ? <ExternalLink path="/api/briefs/region.pdf" label="Region brief (PDF)" testID="region-brief-link" /> : null}
+          {run ? <ExternalLink path={briefPdfPath.region()} label="Region brief (PDF)" testID="region-brief-link" /> : null}
           <TextLink href="/method" label="How Crestwatch estimates" />
         </View>
         <Text style={styles.hint}>Choose a district on the left to open its card.</Text>

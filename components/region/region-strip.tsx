@@ -1,11 +1,12 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { ExternalLink } from '@/components/district/external-link';
+import { briefPdfPath } from '@/hooks/use-briefs';
 import type { QueryState } from '@/components/state/query-state';
 import { colors, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import { formatDay } from '@/lib/alert-text';
-import type { PublishedRunMeta } from '@/lib/estimate-types';
+import type { PublishedRunMeta } from '@/contracts/estimates';
 
 /** The phone home's top line: which run the standings come from, the region brief, the method page. */
 export function RegionStrip({ run: published }: { run: QueryState<PublishedRunMeta | null> }) {
@@ -17,7 +18,7 @@ export function RegionStrip({ run: published }: { run: QueryState<PublishedRunMe
           Districts
         </Text>
         <View style={styles.links}>
-          {run ? <ExternalLink path="/api/briefs/region.pdf" label="Region brief" testID="region-brief-link" /> : null}
+          {run ? <ExternalLink path={briefPdfPath.region()} label="Region brief" testID="region-brief-link" /> : null}
           <TextLink href="/method" label="Method" />
         </View>
       </View>

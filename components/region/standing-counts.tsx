@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { space } from '@/components/theme';
-import { STANDINGS, type Standing } from '@/lib/estimate-types';
+import { STANDINGS, type Standing } from '@/contracts/estimates';
 import { STANDING_LABEL } from '@/lib/estimate-words';
 
 import { Chip } from './chip';

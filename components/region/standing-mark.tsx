@@ -1,7 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { standingColors, space, type } from '@/components/theme';
-import type { Standing } from '@/lib/estimate-types';
+import type { Standing } from '@/contracts/estimates';
 import { STANDING_LABEL } from '@/lib/estimate-words';
 
 /**

@@ -4,7 +4,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import { MutationNotice } from '@/components/form/mutation-notice';
 import { colors, radius, space, type } from '@/components/theme';
 import { ConfirmAction } from '@/components/ui/confirm-action';
-import type { PublishAnswer, RunState } from '@/lib/types/runs';
+import type { PublishAnswer, RunState } from '@/contracts/runs';
 
 export type DecisionBarProps = {
   runId: number;

@@ -2,7 +2,7 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
-import type { Diagnostics } from '@/lib/types/runs';
+import type { Diagnostics } from '@/contracts/runs';
 
 type Line = { key: string; test: string; stat: string; p: number | null; flagged: string };
 

@@ -8,7 +8,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { formatLevel, intervalText, levelPercent, notBoundedText, VARIANT_LABEL } from '@/lib/estimate-words';
-import type { DistrictReview, ReviewRow, RunEstimateRecord } from '@/lib/types/runs';
+import type { DistrictReview, ReviewRow, RunEstimateRecord } from '@/contracts/runs';
 
 import { DiagnosticsList } from './diagnostics-list';
 import { MovementSplit } from './movement-split';

@@ -2,7 +2,7 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
 import { formatLevel } from '@/lib/estimate-words';
-import type { Movement } from '@/lib/types/runs';
+import type { Movement } from '@/contracts/runs';
 
 import { levelDelta, percentShort } from './run-words';
 

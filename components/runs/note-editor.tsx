@@ -6,7 +6,7 @@ import { TextField } from '@/components/form/text-field';
 import { colors, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { formatDateTime } from '@/lib/format-time';
-import type { DistrictReview } from '@/lib/types/runs';
+import type { DistrictReview } from '@/contracts/runs';
 
 const MAX = 600;
 

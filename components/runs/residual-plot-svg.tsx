@@ -2,7 +2,7 @@
 import Svg, { G, Line, Rect, Text as SvgText } from 'react-native-svg';
 
 import { chartColors, fonts } from '@/components/theme';
-import type { Diagnostics } from '@/lib/types/runs';
+import type { Diagnostics } from '@/contracts/runs';
 
 export type ResidualPlotSvgProps = { residuals: Diagnostics['residualsByYear']; width: number; height: number };
 

@@ -1,7 +1,7 @@
 import { lazy } from 'react';
 
 import { ChartFrame } from '@/components/chart/chart-frame';
-import type { Diagnostics } from '@/lib/types/runs';
+import type { Diagnostics } from '@/contracts/runs';
 
 const ResidualPlotSvg = lazy(() => import('./residual-plot-svg'));
 

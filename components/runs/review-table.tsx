@@ -8,7 +8,7 @@ import { colors, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { formatLevel } from '@/lib/estimate-words';
-import type { ReviewRow } from '@/lib/types/runs';
+import type { ReviewRow } from '@/contracts/runs';
 
 import {
   matchesReviewFilter,

@@ -3,9 +3,9 @@ import { StyleSheet, Text, View } from 'react-native';
 import { colors, radius, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
 import { COVARIANCE_LABEL, formatLevel, levelPercent, STANDING_LABEL } from '@/lib/estimate-words';
-import type { Standing } from '@/lib/estimate-types';
+import type { Standing } from '@/contracts/estimates';
 import { formatDateTime } from '@/lib/format-time';
-import type { RunView } from '@/lib/types/runs';
+import type { RunView } from '@/contracts/runs';
 
 import { RUN_STATE, shapeWord, TRIGGER_LABEL } from './run-words';
 

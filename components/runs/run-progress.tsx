@@ -1,7 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
-import type { RunView } from '@/lib/types/runs';
+import type { RunView } from '@/contracts/runs';
 
 /** How far a queued or running run has got: chunks done of chunks planned. */
 export function RunProgress({ run }: { run: RunView }) {

@@ -8,7 +8,7 @@ import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
-import type { DistrictReview, PublishAnswer, ReviewResponse, RunView } from '@/lib/types/runs';
+import type { DistrictReview, PublishAnswer, ReviewResponse, RunView } from '@/contracts/runs';
 
 import { DecisionBar } from './decision-bar';
 import { DistrictReviewPanel } from './district-review-panel';
@@ -24,7 +24,6 @@ export type RunScreenProps = {
   run: QueryState<RunView>;
   review: QueryState<ReviewResponse>;
   district: QueryState<DistrictReview>;
-  shiftPercent: number;
   onPublish: () => Promise<PublishAnswer>;
   onDiscard: () => Promise<unknown>;
   onSaveNote: (code: string, note: string) => Promise<unknown>;
@@ -44,7 +43,7 @@ export function RunScreen(props: RunScreenProps) {
   );
 }
 
-function RunBody({ runId, selectedCode, wide, run, review, district, shiftPercent, onPublish, onDiscard, onSaveNote }: RunScreenProps) {
+function RunBody({ runId, selectedCode, wide, run, review, district, onPublish, onDiscard, onSaveNote }: RunScreenProps) {
   if (run.status === 'pending') {
     return (
       <View style={styles.gap} accessible accessibilityLabel="Loading the run">
@@ -92,7 +91,7 @@ function RunBody({ runId, selectedCode, wide, run, review, district, shiftPercen
       reviewBlock = <QueryErrorPanel what="the review" error={review.error} retrying={review.isFetching} onRetry={() => void review.refetch()} />;
     else
       reviewBlock = (
-        <ReviewTable runId={runId} rows={rows} previousRunId={review.data.previousRunId} shiftPercent={shiftPercent} selectedCode={selectedCode} />
+        <ReviewTable runId={runId} rows={rows} previousRunId={review.data.previousRunId} shiftPercent={review.data.thresholdShiftPercent} selectedCode={selectedCode} />
       );
   }
 

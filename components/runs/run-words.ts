@@ -1,8 +1,8 @@
 // Words for runs and their review: states, triggers, changes between published runs.
 import type { Tone } from '@/components/theme';
-import type { Shape, Standing } from '@/lib/estimate-types';
+import type { Shape, Standing } from '@/contracts/estimates';
 import { formatLevel, SHAPE_LABEL, STANDING_LABEL } from '@/lib/estimate-words';
-import type { ReviewRow, RunState } from '@/lib/types/runs';
+import type { ReviewRow, RunState } from '@/contracts/runs';
 
 export const RUN_STATE: Record<RunState, { label: string; tone: Tone; meaning: string }> = {
   queued: { label: 'Queued', tone: 'neutral', meaning: 'Waiting for a worker to pick it up.' },

@@ -14,8 +14,8 @@ import { Button } from '@/components/ui/button';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { formatDateTime, formatRelative } from '@/lib/format-time';
-import type { RunListItem } from '@/lib/types/runs';
-import type { SettingsResponse, SpecsResponse } from '@/lib/types/settings';
+import type { RunListItem } from '@/contracts/runs';
+import type { SettingsResponse, SpecsResponse } from '@/contracts/settings';
 
 import { RUN_STATE, TRIGGER_LABEL } from './run-words';
 

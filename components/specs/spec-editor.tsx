@@ -8,7 +8,7 @@ import { TextField } from '@/components/form/text-field';
 import { colors, radius, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { ConfirmAction } from '@/components/ui/confirm-action';
-import type { CatalogueIndicator, SavedSpec, SpecInput } from '@/lib/types/settings';
+import type { CatalogueIndicator, SavedSpec, SpecInput } from '@/contracts/settings';
 
 import { draftOf, EMPTY_DRAFT, specInputOf, type SpecDraft } from './spec-form-model';
 

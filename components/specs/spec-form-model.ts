@@ -1,5 +1,5 @@
 // The spec editor's draft: text fields as typed, turned into the API body (or problems) on save.
-import type { SavedSpec, SpecCovariance, SpecForm, SpecInput, SpecInterval, SpecTransform } from '@/lib/types/settings';
+import type { SavedSpec, SpecCovariance, SpecForm, SpecInput, SpecInterval, SpecTransform } from '@/contracts/settings';
 
 export type SpecDraft = {
   name: string;

@@ -10,7 +10,7 @@ import { colors, layout, radius, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { COVARIANCE_LABEL } from '@/lib/estimate-words';
-import type { CatalogueIndicator, SavedSpec, SpecInput, SpecsResponse } from '@/lib/types/settings';
+import type { CatalogueIndicator, SavedSpec, SpecInput, SpecsResponse } from '@/contracts/settings';
 
 import { SpecEditor } from './spec-editor';
 

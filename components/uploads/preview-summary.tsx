@@ -4,7 +4,7 @@ import { Section } from '@/components/layout/page';
 import { DataTable, type Column } from '@/components/table/data-table';
 import { colors, radius, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
-import type { UploadPreview } from '@/lib/types/uploads';
+import type { UploadPreview } from '@/contracts/uploads';
 
 import { count } from './upload-words';
 

@@ -3,7 +3,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import { DataTable, type Column } from '@/components/table/data-table';
 import { colors, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
-import type { UploadProblem } from '@/lib/types/uploads';
+import type { UploadProblem } from '@/contracts/uploads';
 
 /** More than this many rows would make a phone scroll for ever; the counts say how many there are. */
 const SHOWN = 200;

@@ -14,11 +14,11 @@ import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
 import { formatBytes, formatDateTime } from '@/lib/format-time';
-import type { RevertAnswer, UploadAnswer, UploadDetailResponse } from '@/lib/types/uploads';
+import type { RevertAnswer, UploadAnswer, UploadDetailResponse } from '@/contracts/uploads';
 
 import { PreviewSummary } from './preview-summary';
 import { ProblemsTable } from './problems-table';
-import { uploadStatus, uploadTitle } from './upload-words';
+import { noopSummary, uploadStatus, uploadTitle } from './upload-words';
 
 export type UploadDetailProps = {
   id: number;
@@ -37,7 +37,7 @@ export function UploadDetail({ id, detail, onCommit, onRevert }: UploadDetailPro
     try {
       if (which === 'commit') {
         const a = await onCommit(id);
-        setOutcome({ success: a.noop ? a.message : `Loaded. Data version ${a.upload.version ?? '—'}.` });
+        setOutcome({ success: a.noop ? noopSummary(a.upload) : `Loaded. Data version ${a.upload.version ?? '—'}.` });
       } else {
         const r = await onRevert(id);
         setOutcome({ success: `Reverted by upload #${r.revert.id}: ${r.restored.changedBack} values put back, ${r.restored.removed} removed.` });

@@ -12,7 +12,7 @@ import { ConfirmAction } from '@/components/ui/confirm-action';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { formatDateTime } from '@/lib/format-time';
-import type { RevertAnswer, UploadListResponse, UploadSummary } from '@/lib/types/uploads';
+import type { RevertAnswer, UploadListResponse, UploadSummary } from '@/contracts/uploads';
 
 import { uploadStatus, uploadTitle } from './upload-words';
 

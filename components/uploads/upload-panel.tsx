@@ -10,11 +10,12 @@ import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
 import { formatBytes, formatDateTime } from '@/lib/format-time';
 import type { PickedFile } from '@/lib/pick-file.types';
-import type { UploadAnswer, UploadOptions, UploadRejectionDetails } from '@/lib/types/uploads';
+import { safeParse } from '@/contracts/kit';
+import { UploadRejectionDetailsSchema, type UploadAnswer, type UploadOptions, type UploadRejectionDetails } from '@/contracts/uploads';
 
 import { PreviewSummary } from './preview-summary';
 import { ProblemsTable } from './problems-table';
-import { changeWords } from './upload-words';
+import { changeWords, noopSummary, refusalSummary } from './upload-words';
 
 export type UploadPanelProps = {
   /** The settings' change factor (a value moving by more than this is flagged); null until known. */
@@ -34,18 +35,11 @@ type Phase =
   | { step: 'committing'; file: PickedFile; answer: UploadAnswer }
   | { step: 'committed'; file: PickedFile; answer: UploadAnswer };
 
+/** The refusal's fields (code `upload_rejected`), read through their contract. */
 function rejection(error: unknown): UploadRejectionDetails | null {
-  if (error instanceof ApiError && error.code === 'upload_rejected' && typeof error.details === 'object' && error.details !== null) {
-    const d = error.details as Partial<UploadRejectionDetails>;
-    if (Array.isArray(d.problems)) return d as UploadRejectionDetails;
-  }
-  return null;
-}
-
-/** The server's summary of a refused file, without its opening words (the panel's title says them). */
-function refusalReason(error: unknown): string {
-  const message = error instanceof Error ? error.message : '';
-  return message.replace(/^The file was not loaded\.\s*/, '');
+  if (!(error instanceof ApiError) || error.code !== 'upload_rejected') return null;
+  const parsed = safeParse(UploadRejectionDetailsSchema, error.details);
+  return parsed.success ? parsed.data : null;
 }
 
 /**
@@ -162,7 +156,7 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
             title={details ? 'The file was not loaded' : tooLarge ? 'The file is too large' : 'The upload did not go through'}
             message={
               details
-                ? `${refusalReason(phase.error)} Nothing was written.`
+                ? `${refusalSummary(details)} Nothing was written.`
                 : describeSendError(phase.error)
             }
           />
@@ -180,7 +174,7 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
         return (
           <View style={styles.result}>
             <FileLine file={file} />
-            <StatePanel testID="upload-noop" title="Already loaded" message={answer.message}>
+            <StatePanel testID="upload-noop" title="Already loaded" message={noopSummary(answer.upload)}>
               <TextLink href={{ pathname: '/uploads/[id]', params: { id: String(answer.upload.id) } }} label={`Open upload #${answer.upload.id}`} />
             </StatePanel>
           </View>
@@ -215,7 +209,7 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
     case 'committed': {
       const { answer, file } = phase;
       if (answer.noop) {
-        return <MutationNotice success={answer.message} testID="upload-done" />;
+        return <MutationNotice success={noopSummary(answer.upload)} testID="upload-done" />;
       }
       const first = answer.preview.byDistrict.find((d) => d.insert + d.change > 0) ?? answer.preview.byDistrict[0];
       return (

@@ -1,7 +1,7 @@
 import { Section, Page } from '@/components/layout/page';
 import type { QueryState } from '@/components/state/query-state';
 import type { PickedFile } from '@/lib/pick-file.types';
-import type { RevertAnswer, UploadAnswer, UploadListResponse, UploadOptions } from '@/lib/types/uploads';
+import type { RevertAnswer, UploadAnswer, UploadListResponse, UploadOptions } from '@/contracts/uploads';
 
 import { UploadHistory } from './upload-history';
 import { UploadPanel } from './upload-panel';

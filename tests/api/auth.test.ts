@@ -9,6 +9,9 @@ import { createMailer } from '../../api/mail/mailer';
 import { startMailCatcher, type MailCatcher } from '../../api/mail/catcher';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { loadConfig } from '../../api/config';
+import { MeResponseSchema } from '../../contracts/districts';
+import { AuditResponseSchema, InviteAnswerSchema, MailboxResponseSchema, PeopleResponseSchema, PersonAnswerSchema } from '../../contracts/people';
+import { parseAnswer } from '../support/contract';
 import { closeServer, DEMO, listen, signInAs, startSignIn } from '../support/auth';
 import { testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
@@ -133,8 +136,9 @@ describe('invitations', () => {
     const admin = await signInAs(server, DEMO.admin);
     const res = await admin.agent.post('/api/people/invitations').send({ email: 'new.analyst@crestwatch.example', role: 'analyst' });
     expect(res.status).toBe(201);
-    expect(res.body.mail).toEqual({ sent: true });
-    expect(res.body.user).toMatchObject({ email: 'new.analyst@crestwatch.example', role: 'analyst', status: 'invited' });
+    const invited = parseAnswer(InviteAnswerSchema, res);
+    expect(invited.mail).toEqual({ sent: true });
+    expect(invited.user).toMatchObject({ email: 'new.analyst@crestwatch.example', role: 'analyst', status: 'invited' });
 
     const mail = await t.db('caught_mail').whereRaw("'new.analyst@crestwatch.example' = ANY(envelope_to)").first();
     expect(mail.subject).toBe('You are invited to Crestwatch');
@@ -142,11 +146,13 @@ describe('invitations', () => {
     expect(mail.text_body).toContain('/sign-in');
 
     const box = await admin.agent.get('/api/mailbox?to=new.analyst@crestwatch.example');
-    expect(box.body.messages).toHaveLength(1);
+    expect(parseAnswer(MailboxResponseSchema, box).messages).toHaveLength(1);
+    const people = parseAnswer(PeopleResponseSchema, await admin.agent.get('/api/people'));
+    expect(people.people.find((p) => p.email === 'new.analyst@crestwatch.example')?.status).toBe('invited');
 
     const invitee = await signInAs(server, 'new.analyst@crestwatch.example');
     expect(invitee.landedOn).toBe('/');
-    expect((await invitee.agent.get('/api/me')).body.role).toBe('analyst');
+    expect(parseAnswer(MeResponseSchema, await invitee.agent.get('/api/me')).role).toBe('analyst');
 
     const dup = await admin.agent.post('/api/people/invitations').send({ email: 'NEW.analyst@crestwatch.example', role: 'official' });
     expect(dup.status).toBe(409);
@@ -157,13 +163,14 @@ describe('invitations', () => {
     const person = await signInAs(server, DEMO.official);
     const id = (await person.agent.get('/api/me')).body.id;
     const promoted = await admin.agent.patch(`/api/people/${id}`).send({ role: 'analyst' });
-    expect(promoted.body.person.role).toBe('analyst');
+    expect(parseAnswer(PersonAnswerSchema, promoted).person.role).toBe('analyst');
     expect((await person.agent.get('/api/me')).body.role).toBe('analyst');
     const off = await admin.agent.patch(`/api/people/${id}`).send({ active: false });
     expect(off.body.person.status).toBe('deactivated');
     expect((await person.agent.get('/api/me')).status).toBe(401);
 
     const log = await admin.agent.get(`/api/audit?targetType=user`);
+    parseAnswer(AuditResponseSchema, log);
     const actions = log.body.entries.filter((e: { targetId: string }) => e.targetId === String(id)).map((e: { action: string }) => e.action);
     expect(actions).toEqual(expect.arrayContaining(['person.update', 'person.deactivate']));
     const update = log.body.entries.find((e: { action: string; targetId: string }) => e.action === 'person.update' && e.targetId === String(id));

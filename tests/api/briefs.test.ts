@@ -24,8 +24,9 @@ import { deliverOutbox } from '../../api/outbox/sender';
 import { ensureDemoAccounts } from '../../api/people/service';
 import type { EstimateRecord } from '../../api/runs/estimate-record';
 import { mainRecords } from '../../api/runs/store';
-import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
+import { DistrictBriefContentSchema, RegionBriefContentSchema, type RegionBriefContent } from '../../contracts/briefs';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
+import { parseAnswer } from '../support/contract';
 import { copyDistrictSeries } from '../support/synthetic';
 import { startRunAndWait, testJobs, until, workIn } from '../support/jobs';
 import { flat, pdfFonts, pdfInfo, pdfText, pdfWords, renderFirstPage, savePdf } from '../support/poppler';
@@ -258,7 +259,7 @@ describe('briefs', () => {
   });
 
   it('repeats the table header on every page of a long region table', async () => {
-    const content = (await official.get('/api/briefs/region')).body as RegionBriefContent;
+    const content = parseAnswer(RegionBriefContentSchema, await official.get('/api/briefs/region'));
     const rows = Array.from({ length: 12 }, (_, k) => content.table.rows.map((r) => ({ ...r, code: `${r.code}-${k}` }))).flat();
     const file = savePdf('region-long', await renderRegionPdf({ ...content, table: { ...content.table, rows } }));
     const info = pdfInfo(file);
@@ -283,7 +284,7 @@ describe('briefs', () => {
   it('answers the same content as JSON for the print view', async () => {
     const anon = await request(server).get('/api/briefs/district/D01');
     expect(anon.status).toBe(401);
-    const c = (await official.get('/api/briefs/district/D01')).body as DistrictBriefContent;
+    const c = parseAnswer(DistrictBriefContentSchema, await official.get('/api/briefs/district/D01'));
     const d01 = records.find((r) => r.code === 'D01')!;
     expect(c).toMatchObject({ kind: 'district', code: 'D01', name: d01.name, paperSize: 'A4', pdfPath: '/api/briefs/district/D01.pdf' });
     expect(c.trace.runId).toBe(runId);

@@ -3,6 +3,8 @@ import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import { DEMO_DISTRICTS, generateDemoRegion } from '../../api/demo/generate';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
+import { DistrictDetailResponseSchema, DistrictListResponseSchema } from '../../contracts/districts';
+import { parseAnswer } from '../support/contract';
 import { signedInApp, type SignedInApp } from '../support/signed-in-app';
 import type { TestDatabase } from '../support/test-db';
 
@@ -20,7 +22,7 @@ describe('districts API over the seeded demo region', () => {
   it('lists every district sorted by name with its span and latest values', async () => {
     const res = await agent.get('/api/districts');
     expect(res.status).toBe(200);
-    const list = res.body.districts as { code: string; name: string; firstYear: number; lastYear: number; nYears: number; latest: Record<string, number> }[];
+    const list = parseAnswer(DistrictListResponseSchema, res).districts;
     expect(list).toHaveLength(DEMO_DISTRICTS.length);
     const names = list.map((d) => d.name);
     expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b, 'en')));
@@ -33,11 +35,12 @@ describe('districts API over the seeded demo region', () => {
   it('returns a district series with gap years present as nulls', async () => {
     const res = await agent.get('/api/districts/D09');
     expect(res.status).toBe(200);
-    expect(res.body.district).toMatchObject({ code: 'D09', firstYear: 1995, lastYear: 2025, nYears: 30 });
-    expect(res.body.series).toHaveLength(31);
-    const gap = res.body.series.find((r: { year: number }) => r.year === 2008);
+    const body = parseAnswer(DistrictDetailResponseSchema, res);
+    expect(body.district).toMatchObject({ code: 'D09', firstYear: 1995, lastYear: 2025, nYears: 30 });
+    expect(body.series).toHaveLength(31);
+    const gap = body.series.find((r) => r.year === 2008);
     expect(gap).toEqual({ year: 2008, emissionsPc: null, incomePc: null, population: null, popDensity: null });
-    expect(res.body.indicators.map((i: { code: string }) => i.code)).toEqual(['emissions_pc', 'income_pc', 'population', 'pop_density']);
+    expect(body.indicators.map((i) => i.code)).toEqual(['emissions_pc', 'income_pc', 'population', 'pop_density']);
   });
 
   it('keeps non-Latin names intact', async () => {

@@ -9,6 +9,8 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
+import { WhatIfAnswerSchema } from '../../contracts/settings';
+import { parseAnswer } from '../support/contract';
 import { signedInApp, type SignedInApp } from '../support/signed-in-app';
 import type { TestDatabase } from '../support/test-db';
 
@@ -65,7 +67,7 @@ describe('POST /api/estimate', () => {
       .post('/api/estimate')
       .send({ model: { form: 'quadratic', transform: 'log', covariance: 'newey_west' }, district: 'D01', controls: ['pop_density'] });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ source: 'district', district: 'D01' });
+    expect(parseAnswer(WhatIfAnswerSchema, res)).toMatchObject({ source: 'district', district: 'D01' });
     expect(res.body.result.status).toBe('ok');
     expect(res.body.result.n).toBe(31);
     expect(res.body.result.terms).toEqual(['const', 'x', 'x2', 'pop_density']);

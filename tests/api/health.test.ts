@@ -1,5 +1,7 @@
 import request from 'supertest';
 import { createDb } from '../../api/db';
+import { HealthResponseSchema } from '../../contracts/districts';
+import { parseAnswer } from '../support/contract';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
 import { testApp } from '../support/test-app';
 
@@ -13,7 +15,7 @@ describe('GET /api/health', () => {
   it('reports the database as up when it answers', async () => {
     const res = await request(testApp(t.db)).get('/api/health');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ status: 'ok', database: 'up' });
+    expect(parseAnswer(HealthResponseSchema, res)).toEqual({ status: 'ok', database: 'up' });
   });
 
   it('reports the database as down (503) when it does not answer', async () => {

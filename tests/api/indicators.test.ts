@@ -3,6 +3,8 @@
  * region: expected values are the same divisions done in JavaScript on the same doubles).
  */
 import { DEMO_INDICATORS } from '../../api/demo/catalogue';
+import { IndicatorsResponseSchema } from '../../contracts/settings';
+import { parseAnswer } from '../support/contract';
 import { storedValue, upload, uploadWorld, type UploadWorld } from './upload-helpers';
 
 let w: UploadWorld;
@@ -17,8 +19,9 @@ describe('indicator catalogue', () => {
   it('lists the demo catalogue with how much data each indicator has', async () => {
     const res = await w.official.get('/api/indicators');
     expect(res.status).toBe(200);
-    expect(res.body.indicators.map((i: { code: string }) => i.code)).toEqual(DEMO_INDICATORS.map((i) => i.code));
-    const e = res.body.indicators[0];
+    const { indicators } = parseAnswer(IndicatorsResponseSchema, res);
+    expect(indicators.map((i) => i.code)).toEqual(DEMO_INDICATORS.map((i) => i.code));
+    const e = indicators[0];
     expect(e).toMatchObject({ code: 'emissions_pc', mustBePositive: true, derivation: null, stats: { districts: 24, firstYear: 1995, lastYear: 2025 } });
   });
 

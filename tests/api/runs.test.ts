@@ -17,7 +17,14 @@ import { createMailer } from '../../api/mail/mailer';
 import { deliverOutbox } from '../../api/outbox/sender';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { defaultSpec } from '../../api/specs/service';
+import { AlertFeedResponseSchema, DistrictAlertsResponseSchema, SubscriptionAnswerSchema, SubscriptionsResponseSchema } from '../../contracts/alerts';
+import { DistrictListResponseSchema } from '../../contracts/districts';
+import { DistrictEstimateResponseSchema, DistrictHistoryResponseSchema, RegionResponseSchema } from '../../contracts/estimates';
+import { DistrictReviewSchema, PublishAnswerSchema, ReviewResponseSchema, RunListResponseSchema, RunStartedSchema, RunViewSchema } from '../../contracts/runs';
+import { SpecsResponseSchema } from '../../contracts/settings';
+import { RevertAnswerSchema, UploadAnswerSchema, UploadListResponseSchema } from '../../contracts/uploads';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
+import { parseAnswer } from '../support/contract';
 import { startRunAndWait, testJobs, until, workIn } from '../support/jobs';
 import { testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
@@ -74,7 +81,7 @@ describe('runs', () => {
     // the refusal deterministic: the second start must be 409, whatever the workers do.
     const spec = await defaultSpec(t.db);
     const [held] = await t.db('runs')
-      .insert({ spec_id: spec.id, spec: JSON.stringify({}), trigger: 'manual', software_version: 'test' })
+      .insert({ spec_id: spec.id, spec: JSON.stringify({ savedSpecId: spec.id, name: spec.name }), trigger: 'manual', software_version: 'test' })
       .returning('id');
     const refused = await analyst.post('/api/runs').send({});
     expect(refused.status).toBe(409);
@@ -91,36 +98,38 @@ describe('runs', () => {
   });
 
   it('fits every district with its sensitivity variants and the regional substitute for short series', async () => {
-    const view = (await analyst.get(`/api/runs/${firstRun}`)).body;
+    const view = parseAnswer(RunViewSchema, await analyst.get(`/api/runs/${firstRun}`));
     expect(view.progress.districts).toBe(24);
-    expect(view.pooled.status).toBe('ok');
-    const review = (await analyst.get(`/api/runs/${firstRun}/review`)).body;
+    expect(view.pooled?.status).toBe('ok');
+    const review = parseAnswer(ReviewResponseSchema, await analyst.get(`/api/runs/${firstRun}/review`));
     expect(review.districts).toHaveLength(24);
     const [{ count }] = await t.db('run_estimates').where({ run_id: firstRun }).count<{ count: string }[]>({ count: '*' });
     expect(Number(count)).toBe(24 * 5);
     // D10 has 2018–2025 only (8 years < k + 5 = 9): the pooled curve stands in.
-    const d10 = (await analyst.get(`/api/runs/${firstRun}/districts/D10`)).body;
-    const main = d10.records.find((r: { variant: string }) => r.variant === 'main');
-    expect(main.status).toBe('substitute');
-    expect(main.reason.message).toMatch(/regional pooled curve/);
-    const d01 = (await analyst.get(`/api/runs/${firstRun}/districts/D01`)).body;
-    const d01main = d01.records.find((r: { variant: string }) => r.variant === 'main');
-    expect(d01main.status).toBe('ok');
-    expect(d01main.diagnostics.residualsByYear).toHaveLength(31);
+    const d10 = parseAnswer(DistrictReviewSchema, await analyst.get(`/api/runs/${firstRun}/districts/D10`));
+    const main = d10.records.find((r) => r.variant === 'main');
+    expect(main?.status).toBe('substitute');
+    expect(main?.reason?.message).toMatch(/regional pooled curve/);
+    const d01 = parseAnswer(DistrictReviewSchema, await analyst.get(`/api/runs/${firstRun}/districts/D01`));
+    const d01main = d01.records.find((r) => r.variant === 'main');
+    expect(d01main?.status).toBe('ok');
+    expect(d01main?.diagnostics?.residualsByYear).toHaveLength(31);
     expect(d01.records.map((r: { variant: string }) => r.variant).sort()).toEqual(['cubic', 'last20', 'level', 'main', 'no_controls']);
   });
 
   it('publishes the first run without alerts (nothing to compare with)', async () => {
     const res = await analyst.post(`/api/runs/${firstRun}/publish`);
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ previousRunId: null, alerts: 0 });
+    expect(parseAnswer(PublishAnswerSchema, res)).toMatchObject({ previousRunId: null, alerts: 0 });
     const again = await analyst.post(`/api/runs/${firstRun}/publish`);
     expect(again.status).toBe(409);
     expect((await official.post(`/api/runs/${firstRun}/publish`)).status).toBe(403);
   });
 
   it('the demo income revision moves Mirefield Uplands across its band: one crossing alert, one mail per subscriber', async () => {
-    expect((await official.post('/api/subscriptions').send({ scope: 'region', delivery: 'instant' })).status).toBe(201);
+    const subscribed = await official.post('/api/subscriptions').send({ scope: 'region', delivery: 'instant' });
+    expect(subscribed.status).toBe(201);
+    expect(parseAnswer(SubscriptionAnswerSchema, subscribed).subscription).toMatchObject({ scope: 'region', delivery: 'instant' });
     const review = (await analyst.get(`/api/runs/${firstRun}/review`)).body.districts as { code: string; standing: string; threshold: number }[];
     // The demo region is built so that D13 has fallen back below its turn in a downturn.
     const candidate = review.find((d) => d.code === 'D13');
@@ -128,6 +137,7 @@ describe('runs', () => {
     const csv = fs.readFileSync(path.join(__dirname, '..', '..', 'assets', 'demo-data', 'income-revision-2025.csv'));
     const up = await analyst.post('/api/uploads?commit=true').attach('file', csv, 'income-revision-2025.csv');
     expect(up.status).toBe(201);
+    expect(parseAnswer(UploadAnswerSchema, up).noop).toBe(false);
 
     secondRun = await runToReview();
     const row = (await analyst.get(`/api/runs/${secondRun}/review`)).body.districts.find((d: { code: string }) => d.code === candidate!.code);
@@ -138,7 +148,7 @@ describe('runs', () => {
     const pub = await analyst.post(`/api/runs/${secondRun}/publish`);
     expect(pub.status).toBe(200);
     expect(pub.body.previousRunId).toBe(firstRun);
-    const feed = (await official.get('/api/alerts')).body.alerts as { kind: string; districtCode: string; read: boolean; id: number }[];
+    const feed = parseAnswer(AlertFeedResponseSchema, await official.get('/api/alerts')).alerts;
     const crossings = feed.filter((a) => a.kind === 'crossing' && a.districtCode === crossing.code);
     expect(crossings).toHaveLength(1);
     expect(crossings[0].read).toBe(false);
@@ -164,7 +174,7 @@ describe('runs', () => {
     const alertsBefore = await t.db('alerts').count<{ count: string }[]>({ count: '*' });
     const third = await runToReview();
     const pub = await analyst.post(`/api/runs/${third}/publish`);
-    expect(pub.body).toMatchObject({ alerts: 0, mails: 0 });
+    expect(parseAnswer(PublishAnswerSchema, pub)).toMatchObject({ alerts: 0, mails: 0 });
     await deliverOutbox(app.locals.ctx);
     expect(await t.db('caught_mail').count<{ count: string }[]>({ count: '*' })).toEqual(before);
     expect(await t.db('alerts').count<{ count: string }[]>({ count: '*' })).toEqual(alertsBefore);
@@ -173,6 +183,7 @@ describe('runs', () => {
   it('re-executes a run from its recorded spec and data hash to the same estimates, digit for digit', async () => {
     const res = await analyst.post(`/api/runs/${firstRun}/reproduce`);
     expect(res.status).toBe(202);
+    expect(parseAnswer(RunStartedSchema, res).state).toBe('queued');
     const view = await until('reproduction in review', async () => {
       const r = (await analyst.get(`/api/runs/${res.body.id}`)).body;
       if (r.state === 'failed') throw new Error(r.error);
@@ -186,6 +197,28 @@ describe('runs', () => {
     expect(view.dataVersion).toBeLessThan((await analyst.get(`/api/runs/${secondRun}`)).body.dataVersion);
   });
 
+  it('answers the published run\'s readers with their contracts: region, district list, card, history, alerts, subscriptions, runs, specs', async () => {
+    const region = parseAnswer(RegionResponseSchema, await official.get('/api/region'));
+    const latest = Math.max(...parseAnswer(RunListResponseSchema, await analyst.get('/api/runs')).runs.filter((r) => r.state === 'published').map((r) => r.id));
+    expect(region.run?.id).toBe(latest);
+    expect(region.districts).toHaveLength(24);
+    const list = parseAnswer(DistrictListResponseSchema, await official.get('/api/districts'));
+    expect(list.districts.find((d) => d.code === crossing.code)?.estimate?.standing).toBe(crossing.to);
+    const card = parseAnswer(DistrictEstimateResponseSchema, await official.get(`/api/districts/${crossing.code}/estimate`));
+    expect(card.main?.standing.standing).toBe(crossing.to);
+    expect(card.run?.model.level).toBeGreaterThan(0);
+    const history = parseAnswer(DistrictHistoryResponseSchema, await official.get(`/api/districts/${crossing.code}/history`));
+    expect(history.history.map((h) => h.runId)).toEqual(expect.arrayContaining([secondRun, firstRun]));
+    const alerts = parseAnswer(DistrictAlertsResponseSchema, await official.get(`/api/districts/${crossing.code}/alerts`));
+    expect(alerts.alerts.some((a) => a.kind === 'crossing')).toBe(true);
+    const subscriptions = parseAnswer(SubscriptionsResponseSchema, await official.get('/api/subscriptions'));
+    expect(subscriptions.subscriptions).toHaveLength(1);
+    const runs = parseAnswer(RunListResponseSchema, await analyst.get('/api/runs'));
+    expect(runs.runs.map((r) => r.id)).toEqual(expect.arrayContaining([firstRun, secondRun]));
+    const specs = parseAnswer(SpecsResponseSchema, await analyst.get('/api/specs'));
+    expect(specs.specs.some((x) => x.id === specs.defaultSpecId)).toBe(true);
+  });
+
   it('holds mail while SMTP is down and delivers each exactly once when it is back', async () => {
     await official.post('/api/subscriptions').send({ scope: 'districts', districtCodes: [crossing.code], delivery: 'digest' });
     const port = catcher.port;
@@ -197,9 +230,11 @@ describe('runs', () => {
       .orderBy('o.year', 'desc')
       .first('o.year');
     // Revert the revision: the district moves back.
-    const uploads = (await analyst.get('/api/uploads')).body;
-    const revision = (uploads.uploads ?? uploads.items ?? uploads).find((u: { fileName: string | null }) => u.fileName === 'income-revision-2025.csv');
-    expect((await analyst.post(`/api/uploads/${revision.id}/revert`)).status).toBeLessThan(300);
+    const uploads = parseAnswer(UploadListResponseSchema, await analyst.get('/api/uploads'));
+    const revision = uploads.uploads.find((u) => u.fileName === 'income-revision-2025.csv')!;
+    const reverted = await analyst.post(`/api/uploads/${revision.id}/revert`);
+    expect(reverted.status).toBe(200);
+    expect(parseAnswer(RevertAnswerSchema, reverted).reverted.id).toBe(revision.id);
     expect(back.year).toBeGreaterThan(2000);
     const run = await runToReview();
     const pub = await analyst.post(`/api/runs/${run}/publish`);
@@ -262,8 +297,9 @@ describe('saved specs', () => {
       const agent = (await signInAs(s, DEMO.analyst)).agent;
       const res = await agent.get('/api/specs');
       expect(res.status).toBe(200);
-      expect(res.body.specs.map((x: { id: number }) => x.id)).toEqual([res.body.defaultSpecId]);
-      expect(res.body.specs[0]).toMatchObject({ name: 'Regional default', isDefault: true });
+      const answer = parseAnswer(SpecsResponseSchema, res);
+      expect(answer.specs.map((x) => x.id)).toEqual([answer.defaultSpecId]);
+      expect(answer.specs[0]).toMatchObject({ name: 'Regional default', isDefault: true });
     } finally {
       await closeServer(s, a);
       await fresh.drop();

@@ -8,6 +8,9 @@ import path from 'node:path';
 import { generateDemoRegion } from '../../api/demo/generate';
 import { withConnection } from '../../api/uploads/sql';
 import { pruneStaging, STAGING_TTL_HOURS } from '../../api/uploads/staging-store';
+import { DataVersionSchema, DistrictObservationsResponseSchema } from '../../contracts/districts';
+import { RevertAnswerSchema, UploadAnswerSchema, UploadListResponseSchema, UploadRejectionDetailsSchema } from '../../contracts/uploads';
+import { parseAnswer } from '../support/contract';
 import { observationsChecksum, storedValue, upload, uploadWorld, type UploadWorld } from './upload-helpers';
 
 const demoDir = path.resolve(__dirname, '..', '..', 'assets', 'demo-data');
@@ -27,7 +30,7 @@ describe('POST /api/uploads (long format, dry run then commit)', () => {
     const before = await observationsChecksum(w.t.db);
     const res = await upload(w.analyst, demoLong, 'demo-long.csv');
     expect(res.status).toBe(200);
-    expect(res.body.noop).toBe(false);
+    expect(parseAnswer(UploadAnswerSchema, res).noop).toBe(false);
     expect(res.body.upload).toMatchObject({ status: 'previewed', kind: 'file', format: 'long', fileName: 'demo-long.csv', canCommit: true });
     const p = res.body.preview;
     // Expected counts: each row of the file against the seeded value for its key.
@@ -51,25 +54,25 @@ describe('POST /api/uploads (long format, dry run then commit)', () => {
 
   it('commits the kept preview, and the district shows the new values', async () => {
     const list = await w.analyst.get('/api/uploads?status=previewed');
-    const id = list.body.uploads[0].id;
+    const id = parseAnswer(UploadListResponseSchema, list).uploads[0].id;
     const res = await w.analyst.post(`/api/uploads/${id}/commit`);
     expect(res.status).toBe(201);
-    expect(res.body.upload).toMatchObject({ id, status: 'committed', canRevert: true, counts: { insert: list.body.uploads[0].counts.insert } });
+    expect(parseAnswer(UploadAnswerSchema, res).upload).toMatchObject({ id, status: 'committed', canRevert: true, counts: { insert: list.body.uploads[0].counts.insert } });
     const revised = Number(/^D03,emissions_pc,2025,(.*)$/m.exec(demoLong.toString('utf8'))![1]);
     expect(await storedValue(w.t.db, 'D03', 'emissions_pc', 2025)).toBe(revised);
     const obs = await w.official.get('/api/districts/D09/observations');
     expect(obs.status).toBe(200);
-    const emissions = obs.body.indicators.find((i: { code: string }) => i.code === 'emissions_pc');
-    expect(emissions.series.find((s: { year: number }) => s.year === 2008)).toMatchObject({ uploadId: id });
-    expect(emissions.gaps).toEqual([]);
+    const emissions = parseAnswer(DistrictObservationsResponseSchema, obs).indicators.find((i) => i.code === 'emissions_pc');
+    expect(emissions?.series.find((s) => s.year === 2008)).toMatchObject({ uploadId: id });
+    expect(emissions?.gaps).toEqual([]);
   });
 
   it('answers a re-upload of the same file with a no-op', async () => {
     const before = await observationsChecksum(w.t.db);
     const res = await upload(w.analyst, demoLong, 'demo-long-again.csv', { commit: true });
     expect(res.status).toBe(200);
-    expect(res.body.noop).toBe(true);
-    expect(res.body.message).toMatch(/already committed as upload \d+/);
+    const answer = parseAnswer(UploadAnswerSchema, res);
+    expect(answer.noop && answer.message).toMatch(/already committed as upload \d+/);
     expect(await observationsChecksum(w.t.db)).toBe(before);
   });
 });
@@ -78,6 +81,7 @@ describe('revert', () => {
   it('restores exactly the previous values and data version hash', async () => {
     const v0 = await w.official.get('/api/data-version');
     expect(v0.status).toBe(200);
+    parseAnswer(DataVersionSchema, v0);
     const before = await storedValue(w.t.db, 'D07', 'population', 2025);
     const writer = () =>
       w.t.db('observations as o').join('districts as d', 'd.id', 'o.district_id').join('indicators as i', 'i.id', 'o.indicator_id')
@@ -91,7 +95,7 @@ describe('revert', () => {
     expect(await storedValue(w.t.db, 'D07', 'population', 2025)).toBe(before! + 1234);
     const res = await w.analyst.post(`/api/uploads/${up.body.upload.id}/revert`);
     expect(res.status).toBe(200);
-    expect(res.body.restored).toEqual({ changedBack: 1, removed: 1, reinserted: 0, derived: 0 });
+    expect(parseAnswer(RevertAnswerSchema, res).restored).toEqual({ changedBack: 1, removed: 1, reinserted: 0, derived: 0 });
     expect(res.body.reverted).toMatchObject({ id: up.body.upload.id, status: 'reverted', canRevert: false });
     expect(res.body.revert).toMatchObject({ kind: 'revert', revertsUploadId: up.body.upload.id, version: v0.body.version + 2 });
     expect(await storedValue(w.t.db, 'D07', 'population', 2025)).toBe(before);
@@ -166,7 +170,7 @@ describe('formats and options', () => {
     const csv = '\uFEFFdistrict_code;year;industry_share;trade_openness\r\nD11;2012;"31,5";88,25\r\nD11;2013;30,9;\r\n';
     const dry = await upload(w.analyst, csv, 'semicolons.csv');
     expect(dry.status).toBe(422);
-    expect(dry.body.error.details.problems[0]).toMatchObject({ line: 2, column: 3, code: 'not_a_number' });
+    expect(parseAnswer(UploadRejectionDetailsSchema, { status: dry.status, body: dry.body.error.details }).problems[0]).toMatchObject({ line: 2, column: 3, code: 'not_a_number' });
     expect(dry.body.error.message).toMatch(/decimal-comma option/);
     const res = await upload(w.analyst, csv, 'semicolons.csv', { commit: true, decimalComma: true });
     expect(res.status).toBe(201);

@@ -3,7 +3,7 @@
 import { fireEvent, screen, waitFor, within } from 'expo-router/testing-library';
 
 import { ApiError, apiGet, apiSend } from '@/lib/api-client';
-import type { Person } from '@/lib/types/people';
+import type { Person } from '@/contracts/people';
 
 import { answerWith } from './support/mock-api';
 import { me, renderStaff } from './support/render-staff';

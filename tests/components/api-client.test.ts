@@ -1,3 +1,4 @@
+import { DistrictListResponseSchema } from '@/contracts/districts';
 import { ApiError, apiGet } from '@/lib/api-client';
 import { shouldRetry } from '@/lib/query-client';
 
@@ -42,11 +43,20 @@ describe('apiGet', () => {
     await expect(apiGet('/api/districts')).rejects.toMatchObject({ status: 0, code: 'network_error' });
   });
 
-  it('rejects a 2xx body the caller does not accept as bad_response', async () => {
+  it('rejects a 2xx body that does not match its contract as bad_response, naming the field', async () => {
     fetchMock.mockReturnValue(respond(200, JSON.stringify({ rows: [] })));
-    await expect(
-      apiGet('/api/districts', { accept: (b) => Array.isArray((b as { districts?: unknown }).districts) }),
-    ).rejects.toMatchObject({ code: 'bad_response' });
+    await expect(apiGet('/api/districts', { schema: DistrictListResponseSchema })).rejects.toMatchObject({
+      code: 'bad_response',
+      details: { fields: [expect.objectContaining({ path: 'districts' })] },
+    });
+  });
+
+  it('returns the body read through its contract: typed, and without fields the contract does not name', async () => {
+    const row = { code: 'D01', name: 'Alder Vale', firstYear: 1995, lastYear: 2025, nYears: 31, latest: null, extra: 'dropped' };
+    fetchMock.mockReturnValue(respond(200, JSON.stringify({ districts: [row] })));
+    const answer = await apiGet('/api/districts', { schema: DistrictListResponseSchema });
+    expect(answer.districts[0].nYears).toBe(31);
+    expect(answer.districts[0]).not.toHaveProperty('extra');
   });
 
   it('passes an abort through untouched (react-query cancels on unmount)', async () => {

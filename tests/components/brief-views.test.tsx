@@ -9,7 +9,7 @@ import { BriefScreen } from '@/components/brief/brief-screen';
 import { DistrictBriefView } from '@/components/brief/district-brief-view';
 import { RegionBriefView } from '@/components/brief/region-brief-view';
 import { ApiError } from '@/lib/api-client';
-import type { ChartScene, DistrictBriefContent, RegionBriefContent } from '@/lib/brief-types';
+import type { ChartScene, DistrictBriefContent, RegionBriefContent } from '@/contracts/briefs';
 import { CAUTIONS } from '@/lib/cautions';
 import { SHAPE_LABEL, STANDING_LABEL } from '@/lib/estimate-words';
 

@@ -5,7 +5,7 @@ import { render, screen, within } from '@testing-library/react-native';
 import { MethodView } from '@/components/method/method-view';
 import { RegionOverview } from '@/components/region/region-overview';
 import { CAUTIONS } from '@/lib/cautions';
-import type { RegionResponse } from '@/lib/estimate-types';
+import type { RegionResponse } from '@/contracts/estimates';
 
 import { estimateRecord, run, summaryOf } from './support/estimates';
 import { districtSummaries } from './support/fixtures';

@@ -3,7 +3,7 @@
 import { fireEvent, screen, waitFor, within } from 'expo-router/testing-library';
 
 import { apiGet, apiSend } from '@/lib/api-client';
-import type { DistrictReview, RunEstimateRecord } from '@/lib/types/runs';
+import type { DistrictReview, RunEstimateRecord } from '@/contracts/runs';
 
 import { answerWith } from './support/mock-api';
 import { me, renderStaff } from './support/render-staff';

@@ -4,7 +4,7 @@ import { fireEvent, renderRouter, screen } from 'expo-router/testing-library';
 
 import { HeaderArea, type HeaderAreaProps } from '@/components/layout/header-area';
 import { activeNavKey, isRegionRoute, navItemsFor } from '@/components/layout/nav-items';
-import type { MeResponse } from '@/lib/api-types';
+import type { MeResponse } from '@/contracts/districts';
 
 import { me } from './support/render-staff';
 

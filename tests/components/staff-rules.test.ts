@@ -7,7 +7,7 @@ import { residualSummary } from '@/components/runs/residual-plot';
 import { levelDelta, matchesReviewFilter, percentShort } from '@/components/runs/run-words';
 import { EMPTY_DRAFT, specInputOf } from '@/components/specs/spec-form-model';
 import { sortRows, type Column } from '@/components/table/data-table';
-import { changeWords, uploadStatus } from '@/components/uploads/upload-words';
+import { changeWords, noopSummary, refusalSummary, uploadStatus } from '@/components/uploads/upload-words';
 import { ApiError } from '@/lib/api-client';
 import { formatBytes, formatDateTime, formatRelative } from '@/lib/format-time';
 
@@ -169,5 +169,26 @@ describe('refusals in words', () => {
     // Only the body's fields belong to a form; a query problem stays in the message.
     expect(fieldErrorsOf(e)).toEqual({ alpha: 'too big', controls: 'bad code' });
     expect(fieldErrorsOf(new ApiError(409, 'x', 'y'))).toEqual({});
+  });
+});
+
+describe('upload refusal and no-op words, composed from the answer fields', () => {
+  const problem = (over: object) => ({ line: 7, column: 2, field: 'year', code: 'bad_year', severity: 'error' as const, reason: 'year "20x5" is not a year', ...over });
+
+  it('names the first error by place, then how many more errors and warnings there are', () => {
+    const warning = problem({ line: 2, severity: 'warning', reason: 'value changed by more than ×10' });
+    expect(refusalSummary({ problems: [warning, problem({})], errorCount: 3, warningCount: 1 })).toBe(
+      'Line 7, column 2 (year): year "20x5" is not a year (and 2 more errors and 1 warning).',
+    );
+  });
+
+  it('starts with the reason when the problem has no place (a file-level problem)', () => {
+    expect(refusalSummary({ problems: [problem({ line: null, column: null, field: null, reason: 'the file is empty' })], errorCount: 1, warningCount: 0 })).toBe(
+      'The file is empty.',
+    );
+  });
+
+  it('says which earlier upload a re-sent file is, and that nothing changed', () => {
+    expect(noopSummary({ id: 12, committedAt: null, version: 4 })).toBe('This file was already loaded as upload #12 (—, data version 4): nothing was changed.');
   });
 });

@@ -68,7 +68,8 @@ describe('upload screen', () => {
   it('lists every problem of a refused file by line and column, and says nothing was written', async () => {
     answers();
     mockedSend.mockRejectedValue(
-      new ApiError(422, 'upload_rejected', 'The file was not loaded. 2 errors.', {
+      // The panel composes its words from the fields; the server's own sentence is not read.
+      new ApiError(422, 'upload_rejected', 'A sentence the panel does not show.', {
         uploadId: 9,
         problems: [
           { line: 3, column: 4, field: 'value', code: 'not_a_number', severity: 'error', reason: 'value "abc" is not a number' },
@@ -84,8 +85,9 @@ describe('upload screen', () => {
     fireEvent.press(await screen.findByTestId('upload-choose'));
     const refused = await screen.findByTestId('upload-refused');
     expect(within(refused).getByText('The file was not loaded')).toBeTruthy();
-    // The server's summary without its opening words, which the title already says.
-    expect(within(refused).getByText('2 errors. Nothing was written.')).toBeTruthy();
+    // Composed from the refusal's fields: the first error's place and reason, and the count of the rest.
+    expect(within(refused).getByText('Line 3, column 4 (value): value "abc" is not a number (and 1 more error). Nothing was written.')).toBeTruthy();
+    expect(within(refused).queryByText(/A sentence the panel does not show/)).toBeNull();
     const first = within(screen.getByTestId('problem-0'));
     expect(first.getByText('3')).toBeTruthy();
     expect(first.getByText('4 · value')).toBeTruthy();

@@ -8,7 +8,7 @@
  */
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import type { DistrictBriefContent, RegionBriefContent } from '../../lib/brief-types';
+import type { DistrictBriefContent, RegionBriefContent } from '../../contracts/briefs';
 import { DEMO } from '../support/auth';
 import { artifactsDir, offLoopback, startHarness, VIEWPORTS, type Harness } from '../support/browser';
 import { flat, pdfInfo, pdfText, pdfWords, renderFirstPage, savePdf } from '../support/poppler';

@@ -5,7 +5,7 @@
  * fitted into the room left above the bottom-anchored model line, cautions and footer, so
  * the brief never runs onto a second page.
  */
-import type { BriefFigure, DistrictBriefContent } from '../../../lib/brief-types';
+import type { BriefFigure, DistrictBriefContent } from '../../../contracts/briefs';
 import { CHART_WIDTH } from '../district-content';
 import { cautionsBox, chip, createBriefDocument, drawScene, footer, FOOTER_HEIGHT, geometry, INK, measure, pageTop, rule, textBlock, textLine, type TextStyle } from './page';
 

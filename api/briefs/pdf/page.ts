@@ -4,7 +4,7 @@
  * scenes drawn as pdfkit paths, and the footer with the trace and page numbers.
  */
 import PDFDocument from 'pdfkit';
-import type { BriefPaperSize, BriefTone, BriefTrace, ChartScene } from '../../../lib/brief-types';
+import type { BriefPaperSize, BriefTone, BriefTrace, ChartScene } from '../../../contracts/briefs';
 import { printable, registerBriefFonts, type Face } from './fonts';
 
 /** Print colours (chosen for paper and for grey-scale copiers: every pair differs in lightness too). */

@@ -5,7 +5,7 @@
  * repeated on each. Rows are measured and paginated before drawing, so every page gets
  * its footer (trace, page n of N) as it is drawn.
  */
-import type { RegionBriefContent, RegionBriefRow } from '../../../lib/brief-types';
+import type { RegionBriefContent, RegionBriefRow } from '../../../contracts/briefs';
 import { printable } from './fonts';
 import { cautionsBox, createBriefDocument, drawScene, footer, FOOTER_HEIGHT, geometry, INK, measure, PAGE_TOP_END, pageTop, rule, textBlock, textLine, type TextStyle } from './page';
 

@@ -6,6 +6,7 @@
  * in proportion to its length, never more.
  */
 import type { ProblemCode } from '../problems';
+import { DISTRICT_CODE } from '../../../contracts/patterns';
 
 export type Checked<T> = { ok: true; value: T } | { ok: false; code: ProblemCode; reason: string };
 
@@ -112,7 +113,7 @@ export function checkYear(raw: string, currentYear: number): Checked<number> {
 }
 
 /** Same rule as the districts API's code parameter. */
-export const DISTRICT_CODE = /^[A-Za-z0-9_-]{1,32}$/;
+export { DISTRICT_CODE };
 
 export function checkDistrictCode(raw: string): Checked<string> {
   if (raw.length > MAX_CODE_CHARS) return tooLong(raw, 'district code', MAX_CODE_CHARS);

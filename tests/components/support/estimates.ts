@@ -1,12 +1,6 @@
 // Invented published estimates in the engine's output shape (api/runs/estimate-record.ts),
 // for component tests. Plumbing only: the figures are made up to exercise the screens.
-import type {
-  DistrictEstimateResponse,
-  EstimateRecord,
-  EstimateSummary,
-  PublishedRunMeta,
-  VariantSummary,
-} from '@/lib/estimate-types';
+import type { DistrictEstimateResponse, EstimateRecord, EstimateSummary, PublishedRunMeta, VariantSummary } from '@/contracts/estimates';
 
 /** ln y = a + b1 ln x + b2 (ln x)², peak at x* = 30,000 (ln x* ≈ 10.309). */
 function curveY(x: number): number {

@@ -1,5 +1,5 @@
 // Invented districts for component tests (plumbing only: no figure here means anything).
-import type { DistrictDetailResponse, DistrictSummary, SeriesRow } from '@/lib/api-types';
+import type { DistrictDetailResponse, DistrictSummary, SeriesRow } from '@/contracts/districts';
 
 export const districtSummaries: DistrictSummary[] = [
   {

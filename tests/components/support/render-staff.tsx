@@ -16,7 +16,7 @@ import SpecsIndexRoute from '@/app/specs/index';
 import SubscriptionsRoute from '@/app/subscriptions';
 import UploadRoute from '@/app/uploads/[id]';
 import UploadsRoute from '@/app/uploads/index';
-import type { MeResponse } from '@/lib/api-types';
+import type { MeResponse } from '@/contracts/districts';
 
 export function renderStaff(initialUrl: string) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false, gcTime: Infinity } } });

@@ -1,7 +1,7 @@
 // Invented answers for the staff screens' component tests (plumbing only: no figure here means anything).
-import type { ReviewResponse, RunView } from '@/lib/types/runs';
-import type { SettingsResponse } from '@/lib/types/settings';
-import type { UploadAnswer, UploadPreview, UploadSummary } from '@/lib/types/uploads';
+import type { ReviewResponse, RunView } from '@/contracts/runs';
+import type { SettingsResponse } from '@/contracts/settings';
+import type { UploadAnswer, UploadPreview, UploadSummary } from '@/contracts/uploads';
 
 export const settingsAnswer: SettingsResponse = {
   settings: {
@@ -110,6 +110,8 @@ const unchanged = { thresholdPercent: 0, standingChanged: false, shapeChanged: f
 export const reviewAnswer: ReviewResponse = {
   runId: 5,
   previousRunId: 4,
+  // The settings' default limit (api/settings/schema.ts), as settingsAnswer above has it.
+  thresholdShiftPercent: 10,
   districts: [
     {
       code: 'T01', name: 'Ashgrove', status: 'ok', standing: 'approaching', shape: 'inverted_u', threshold: 30000, gapPercent: -20,
