@@ -3,6 +3,7 @@ import { districtParams } from '../http/params';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { sendPublished } from './published-cache';
 import * as service from './service';
+import { DistrictListResponseSchema } from '../../contracts/districts';
 import { DistrictEstimateResponseSchema, DistrictHistoryResponseSchema, RegionResponseSchema } from '../../contracts/estimates';
 
 const byCode = { params: districtParams };
@@ -15,6 +16,7 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'districts',
       summary: 'Every district with its years covered, latest values and standing in the latest published run',
+      answer: DistrictListResponseSchema,
       handler: (_input, req, res) => sendPublished(db, req, res, 'districts', () => service.listDistricts(db)),
     }),
     route({
