@@ -1,0 +1,61 @@
+/**
+ * The bulk path of the merge: a first load of at least BULK_MIN_ROWS values drops
+ * observations' keys, copies the rows in with COPY and re-creates the keys. Invented
+ * values; every expected number is counted from the file written here (plumbing checks).
+ */
+import { BULK_MIN_ROWS } from '../../api/uploads/merge-store';
+import { storedValue, upload, uploadWorld, type UploadWorld } from './upload-helpers';
+
+jest.setTimeout(120_000);
+
+let w: UploadWorld;
+beforeAll(async () => {
+  w = await uploadWorld();
+});
+afterAll(async () => w.close());
+
+const INDICATORS = ['emissions_pc', 'income_pc', 'population', 'pop_density'];
+const DISTRICTS = Math.ceil(BULK_MIN_ROWS / (INDICATORS.length * 50));
+
+/** value of district d, indicator k, year y: distinct, positive, with a fraction that must survive COPY exactly. */
+const valueOf = (d: number, k: number, y: number) => 1000 * (k + 1) + d + (y - 1975) / 7;
+
+function bigCsv(): string {
+  let out = 'district_code,district_name,indicator,year,value\n';
+  for (let d = 1; d <= DISTRICTS; d++) {
+    for (let k = 0; k < INDICATORS.length; k++) {
+      for (let y = 1976; y <= 2025; y++) out += `Q${String(d).padStart(4, '0')},Bulk district ${d},${INDICATORS[k]},${y},${valueOf(d, k, y)}\n`;
+    }
+  }
+  return out;
+}
+
+describe('a first load large enough for the bulk path', () => {
+  it('inserts every value exactly, by the upload, and puts the keys back', async () => {
+    const rows = DISTRICTS * INDICATORS.length * 50;
+    const res = await upload(w.analyst, bigCsv(), 'bulk.csv', { commit: true, allowNewDistricts: true });
+    expect(res.status).toBe(201);
+    expect(res.body.timings.bulkPath).toBe(true);
+    expect(res.body.upload.counts.insert).toBe(rows);
+    const id = res.body.upload.id;
+    const { rows: counted } = await w.t.db.raw(
+      `SELECT count(*)::int AS n, count(*) FILTER (WHERE o.upload_id = ?)::int AS mine
+         FROM observations o JOIN districts d ON d.id = o.district_id WHERE d.code LIKE 'Q%'`,
+      [id],
+    );
+    expect(counted[0]).toEqual({ n: rows, mine: rows });
+    // Doubles through COPY's text form and back: the value as the file wrote it.
+    expect(await storedValue(w.t.db, 'Q0007', 'income_pc', 1990)).toBe(valueOf(7, 1, 1990));
+    expect(await storedValue(w.t.db, `Q${String(DISTRICTS).padStart(4, '0')}`, 'pop_density', 2025)).toBe(valueOf(DISTRICTS, 3, 2025));
+    const { rows: cons } = await w.t.db.raw(
+      `SELECT contype, pg_get_constraintdef(oid) AS def FROM pg_constraint
+        WHERE conrelid = 'observations'::regclass AND contype IN ('p', 'f') ORDER BY contype, conname`,
+    );
+    expect(cons.map((c: { contype: string; def: string }) => `${c.contype} ${c.def}`)).toEqual([
+      'f FOREIGN KEY (district_id) REFERENCES districts(id) ON DELETE CASCADE',
+      'f FOREIGN KEY (indicator_id) REFERENCES indicators(id) ON DELETE RESTRICT',
+      'f FOREIGN KEY (upload_id) REFERENCES uploads(id)',
+      'p PRIMARY KEY (district_id, indicator_id, year)',
+    ]);
+  });
+});
