@@ -20,15 +20,33 @@ const DISTRICTS = Math.ceil(BULK_MIN_ROWS / (INDICATORS.length * 50));
 /** value of district d, indicator k, year y: distinct, positive, with a fraction that must survive COPY exactly. */
 const valueOf = (d: number, k: number, y: number) => 1000 * (k + 1) + d + (y - 1975) / 7;
 
-function bigCsv(): string {
+/** A revision changes every 4th year's value (years 1976, 1980, …) by 1%. */
+const revised = (d: number, k: number, y: number) => valueOf(d, k, y) * ((y - 1976) % 4 === 0 ? 1.01 : 1);
+
+function bigCsv(value = valueOf): string {
   let out = 'district_code,district_name,indicator,year,value\n';
   for (let d = 1; d <= DISTRICTS; d++) {
     for (let k = 0; k < INDICATORS.length; k++) {
-      for (let y = 1976; y <= 2025; y++) out += `Q${String(d).padStart(4, '0')},Bulk district ${d},${INDICATORS[k]},${y},${valueOf(d, k, y)}\n`;
+      for (let y = 1976; y <= 2025; y++) out += `Q${String(d).padStart(4, '0')},Bulk district ${d},${INDICATORS[k]},${y},${value(d, k, y)}\n`;
     }
   }
   return out;
 }
+
+const foreignKeys = async () =>
+  (
+    await w.t.db.raw(
+      `SELECT contype, pg_get_constraintdef(oid) AS def FROM pg_constraint
+        WHERE conrelid = 'observations'::regclass AND contype IN ('p', 'f') ORDER BY contype, conname`,
+    )
+  ).rows.map((c: { contype: string; def: string }) => `${c.contype} ${c.def}`);
+
+const KEYS = [
+  'f FOREIGN KEY (district_id) REFERENCES districts(id) ON DELETE CASCADE',
+  'f FOREIGN KEY (indicator_id) REFERENCES indicators(id) ON DELETE RESTRICT',
+  'f FOREIGN KEY (upload_id) REFERENCES uploads(id)',
+  'p PRIMARY KEY (district_id, indicator_id, year)',
+];
 
 describe('a first load large enough for the bulk path', () => {
   it('inserts every value exactly, by the upload, and puts the keys back', async () => {
@@ -47,15 +65,23 @@ describe('a first load large enough for the bulk path', () => {
     // Doubles through COPY's text form and back: the value as the file wrote it.
     expect(await storedValue(w.t.db, 'Q0007', 'income_pc', 1990)).toBe(valueOf(7, 1, 1990));
     expect(await storedValue(w.t.db, `Q${String(DISTRICTS).padStart(4, '0')}`, 'pop_density', 2025)).toBe(valueOf(DISTRICTS, 3, 2025));
-    const { rows: cons } = await w.t.db.raw(
-      `SELECT contype, pg_get_constraintdef(oid) AS def FROM pg_constraint
-        WHERE conrelid = 'observations'::regclass AND contype IN ('p', 'f') ORDER BY contype, conname`,
+    expect(await foreignKeys()).toEqual(KEYS);
+  });
+
+  it('then takes a large revision: every changed value, its history, and the keys back', async () => {
+    const changes = DISTRICTS * INDICATORS.length * Math.ceil(50 / 4); // years 1976 + 4j, j = 0..12
+    const res = await upload(w.analyst, bigCsv(revised), 'bulk-revision.csv', { commit: true });
+    expect(res.status).toBe(201);
+    expect(res.body.upload.counts.change).toBe(changes);
+    const id = res.body.upload.id;
+    expect(await storedValue(w.t.db, 'Q0007', 'income_pc', 1980)).toBe(revised(7, 1, 1980));
+    expect(await storedValue(w.t.db, 'Q0007', 'income_pc', 1981)).toBe(valueOf(7, 1, 1981));
+    const { rows } = await w.t.db.raw(
+      `SELECT (SELECT count(*)::int FROM observations WHERE upload_id = ?) AS mine,
+              (SELECT count(*)::int FROM observation_history WHERE upload_id = ?) AS history`,
+      [id, id],
     );
-    expect(cons.map((c: { contype: string; def: string }) => `${c.contype} ${c.def}`)).toEqual([
-      'f FOREIGN KEY (district_id) REFERENCES districts(id) ON DELETE CASCADE',
-      'f FOREIGN KEY (indicator_id) REFERENCES indicators(id) ON DELETE RESTRICT',
-      'f FOREIGN KEY (upload_id) REFERENCES uploads(id)',
-      'p PRIMARY KEY (district_id, indicator_id, year)',
-    ]);
+    expect(rows[0]).toEqual({ mine: changes, history: changes });
+    expect(await foreignKeys()).toEqual(KEYS);
   });
 });
