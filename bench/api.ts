@@ -201,6 +201,7 @@ async function main(): Promise<void> {
         );
       }
     }
+    await drain(base); // the last target's backlog, before the server is stopped
     console.log(`goals: card ≥ 60% of the static file's req/s with p99 ≤ 2× its p99; health ≥ 80%; 0 errors at 200 connections (${errorsAt200 === 0 ? 'met' : `${errorsAt200} errors or non-2xx`})`);
   } finally {
     // Stopped before the database is dropped, so no pooled connection holds it.
