@@ -1,6 +1,6 @@
 /**
  * The bulk path of the merge: a first load of at least BULK_MIN_ROWS values drops
- * observations' keys, copies the rows in with COPY and re-creates the keys. Invented
+ * observations' keys, inserts the rows in one statement and re-creates the keys. Invented
  * values; every expected number is counted from the file written here (plumbing checks).
  */
 import { BULK_MIN_ROWS } from '../../api/uploads/merge-store';
@@ -62,7 +62,7 @@ describe('a first load large enough for the bulk path', () => {
       [id],
     );
     expect(counted[0]).toEqual({ n: rows, mine: rows });
-    // Doubles through COPY's text form and back: the value as the file wrote it.
+    // Doubles through the file, staging and the merge: the value as the file wrote it.
     expect(await storedValue(w.t.db, 'Q0007', 'income_pc', 1990)).toBe(valueOf(7, 1, 1990));
     expect(await storedValue(w.t.db, `Q${String(DISTRICTS).padStart(4, '0')}`, 'pop_density', 2025)).toBe(valueOf(DISTRICTS, 3, 2025));
     expect(await foreignKeys()).toEqual(KEYS);
