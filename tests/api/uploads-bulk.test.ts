@@ -17,7 +17,7 @@ afterAll(async () => w.close());
 const INDICATORS = ['emissions_pc', 'income_pc', 'population', 'pop_density'];
 const DISTRICTS = Math.ceil(BULK_MIN_ROWS / (INDICATORS.length * 50));
 
-/** value of district d, indicator k, year y: distinct, positive, with a fraction that must survive COPY exactly. */
+/** value of district d, indicator k, year y: distinct, positive, with a fraction that must survive the staging COPY exactly. */
 const valueOf = (d: number, k: number, y: number) => 1000 * (k + 1) + d + (y - 1975) / 7;
 
 /** A revision changes every 4th year's value (years 1976, 1980, …) by 1%. */
