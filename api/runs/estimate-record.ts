@@ -1,6 +1,8 @@
 /**
- * What a run stores per district and variant: the figures a card, a review screen and a
- * brief need, in plain JSON, taken from the engine's result. Real units (income per person,
+ * What a run stores per district and variant: the figures a card, a review screen, a
+ * brief, the CSV export and the alerts read, in plain JSON, taken from the engine's result
+ * (nothing else: standard errors and p-values of the terms and the residual standard
+ * error are left to a reproduction, and variants keep only what their summaries show). Real units (income per person,
  * emissions per person) are used for every point a chart draws.
  */
 import type { CurveFit, FitCurveResult, FitPanelResult, TurningPoint } from '../estimation';
@@ -31,10 +33,7 @@ export interface EstimateRecord {
   droppedYears: number[];
   terms: string[];
   coefficients: number[];
-  standardErrors: number[];
-  pValues: number[];
   rSquared: number | null;
-  residualStandardError: number | null;
   range: { levelMin: number; levelMax: number; levelNow: number; xNow: number } | null;
   threshold: ThresholdRecord | null;
   turningPoints: ThresholdRecord[];
@@ -54,6 +53,23 @@ export interface EstimateRecord {
   /** the regional pooled curve anchored at this district's mean, same axes */
   pooledCurve: { x: number; y: number }[];
 }
+
+/**
+ * What a sensitivity variant does not store: its readers (the card's sensitivity strip,
+ * the review's variant table) show its standing, threshold, shape, gap, crossing and
+ * years only; the rest is recomputed by reproducing the run. Kept in step with the
+ * migration that compacted records written before.
+ */
+export const VARIANT_BLANKS = {
+  terms: [],
+  coefficients: [],
+  rSquared: null,
+  turningPoints: [],
+  uTest: null,
+  wald: null,
+  elasticity: null,
+  trendPerYear: null,
+} satisfies Partial<EstimateRecord>;
 
 export function thresholdRecord(tp: TurningPoint): ThresholdRecord {
   return {
@@ -180,10 +196,7 @@ export function recordFromFit(
       lastYear: data.years[data.years.length - 1] ?? null,
       terms: [],
       coefficients: [],
-      standardErrors: [],
-      pValues: [],
       rSquared: null,
-      residualStandardError: null,
       range: null,
       threshold: null,
       turningPoints: [],
@@ -201,7 +214,7 @@ export function recordFromFit(
   }
   const st = fit.standing;
   const tp = st.turningPointIndex === null ? null : fit.turningPoints[st.turningPointIndex];
-  return {
+  const record: EstimateRecord = {
     ...base,
     status: 'ok',
     reason: null,
@@ -211,10 +224,7 @@ export function recordFromFit(
     lastYear: fit.range.lastYear,
     terms: fit.terms,
     coefficients: fit.coefficients,
-    standardErrors: fit.standardErrors,
-    pValues: fit.pValues,
     rSquared: fit.rSquared,
-    residualStandardError: fit.residualStandardError,
     range: { levelMin: fit.range.levelMin, levelMax: fit.range.levelMax, levelNow: fit.range.levelNow, xNow: fit.range.xNow },
     threshold: tp ? thresholdRecord(tp) : null,
     turningPoints: fit.turningPoints.map(thresholdRecord),
@@ -251,4 +261,5 @@ export function recordFromFit(
     diagnostics: withDiagnostics ? fit.diagnostics : null,
     curve: main ? districtCurve(fit, data) : [],
   };
+  return main ? record : { ...record, ...VARIANT_BLANKS };
 }

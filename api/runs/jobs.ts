@@ -8,7 +8,7 @@
 import { fitPanel, type FitPanelResult, type PanelRow } from '../estimation';
 import type { AppContext } from '../context';
 import { QUEUES, type Handler } from '../jobs/boss';
-import { hashSeries, loadSeries, currentDataVersion, type DistrictSeries } from './data-store';
+import { hashSeries, loadSeries, currentDataVersion, packSeries, unpackSeries, type DistrictSeries, type PackedSeries } from './data-store';
 import * as store from './store';
 import type { PooledCurve } from '../../contracts/estimates';
 
@@ -64,8 +64,8 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
     const pooled = fitPooled(series, run.spec);
     const t2 = performance.now();
     const size = ctx.config.runChunkSize;
-    const chunks: number[][] = [];
-    for (let i = 0; i < series.length; i += size) chunks.push(series.slice(i, i + size).map((s) => s.districtId));
+    const chunks: DistrictSeries[][] = [];
+    for (let i = 0; i < series.length; i += size) chunks.push(series.slice(i, i + size));
     await db.transaction(async (trx) => {
       await store.clearRunOutput(trx, runId);
       await store.update(trx, runId, {
@@ -87,7 +87,8 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
     }
     await ctx.jobs!.insert(
       QUEUES.runChunk,
-      chunks.map((districtIds, chunk) => ({ runId, chunk, districtIds })),
+      // Each chunk carries its series: the run's data are read once, here.
+      chunks.map((part, chunk) => ({ runId, chunk, districtIds: part.map((s) => s.districtId), series: packSeries(part, run.spec.selection.controls) })),
     );
     ctx.jobs!.notify(QUEUES.runChunk);
   } catch (err) {
@@ -96,13 +97,15 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
   }
 }
 
-export async function runChunk(ctx: AppContext, data: { runId: number; chunk: number; districtIds: number[] }, isLastAttempt: boolean): Promise<void> {
+export async function runChunk(ctx: AppContext, data: { runId: number; chunk: number; districtIds: number[]; series?: PackedSeries }, isLastAttempt: boolean): Promise<void> {
   const { db } = ctx;
   const run = await store.findRun(db, data.runId);
   if (!run || run.state !== 'running') return;
   try {
     const t0 = performance.now();
-    const series = await loadSeries(db, run.dataVersion!, run.spec.selection, data.districtIds);
+    const series = data.series
+      ? unpackSeries(data.series, run.spec.selection.controls)
+      : await loadSeries(db, run.dataVersion!, run.spec.selection, data.districtIds);
     const t1 = performance.now();
     const pooled = panelFitOf(run.pooled);
     const model = { spec: run.spec.model, controls: run.spec.selection.controls };
@@ -135,7 +138,7 @@ export function runHandlers(ctx: AppContext): { 'run-start': Handler; 'run-chunk
   return {
     'run-start': (data, meta) => startRun(ctx, Number(data.runId), meta.retryCount >= meta.retryLimit),
     'run-chunk': (data, meta) =>
-      runChunk(ctx, data as unknown as { runId: number; chunk: number; districtIds: number[] }, meta.retryCount >= meta.retryLimit),
+      runChunk(ctx, data as unknown as { runId: number; chunk: number; districtIds: number[]; series?: PackedSeries }, meta.retryCount >= meta.retryLimit),
   };
 }
 

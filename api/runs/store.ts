@@ -1,5 +1,9 @@
 /** Runs, their chunks and estimates: the only place their SQL lives. */
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import type { Knex } from 'knex';
+import type { PoolClient } from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
 import type { ModelSpec } from '../estimation';
 import type { EstimateRecord, Variant } from './estimate-record';
 import type { Selection } from './data-store';
@@ -124,37 +128,48 @@ export interface EstimateRow {
   record: EstimateRecord;
 }
 
-/** Idempotent: a retried chunk overwrites its own rows. */
+const ESTIMATE_COLUMNS = 'run_id, district_id, variant, status, standing, shape, threshold, gap_percent, crossing_year, u_test_rejects, interval_bounded, last_year, result';
+
+/** One value in COPY's text format: \N for null, backslash, tab and line breaks escaped. */
+function copyText(v: string | number | boolean | null | undefined): string {
+  if (v === null || v === undefined) return '\\N';
+  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '\\N';
+  if (typeof v === 'boolean') return v ? 't' : 'f';
+  return v.replace(/[\\\t\n\r]/g, (c) => (c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r'));
+}
+
+/** The COPY text of a chunk's estimates: one line per district and variant. */
+export function estimatesCopyText(runId: number, rows: EstimateRow[]): string {
+  let out = '';
+  for (const { districtId, record: r } of rows) {
+    out +=
+      [
+        runId, districtId, r.variant, r.status, r.standing.standing, r.shape?.shape ?? null, r.threshold?.level ?? null,
+        r.gapPercent, r.projection?.crossingYear ?? null, r.uTest?.rejects ?? null, r.standing.intervalBounded, r.lastYear,
+        JSON.stringify(r),
+      ]
+        .map(copyText)
+        .join('\t') + '\n';
+  }
+  return out;
+}
+
+/**
+ * Writes a chunk's estimates with COPY. Idempotent: a retried chunk first deletes its own
+ * rows. Call inside a transaction (a Knex transaction hands COPY its own connection), so
+ * the delete and the copy land together.
+ */
 export async function writeEstimates(db: Knex, runId: number, rows: EstimateRow[]): Promise<void> {
   if (!rows.length) return;
-  const values = rows.map(({ districtId, record: r }) => ({
-    run_id: runId,
-    district_id: districtId,
-    variant: r.variant,
-    status: r.status,
-    standing: r.standing.standing,
-    shape: r.shape?.shape ?? null,
-    threshold: r.threshold?.level ?? null,
-    gap_percent: r.gapPercent,
-    crossing_year: r.projection?.crossingYear ?? null,
-    u_test_rejects: r.uTest?.rejects ?? null,
-    interval_bounded: r.standing.intervalBounded,
-    last_year: r.lastYear,
-    result: r,
-  }));
-  // One JSON parameter for the whole chunk: far cheaper than thousands of bound values.
-  await db.raw(
-    `INSERT INTO run_estimates (run_id, district_id, variant, status, standing, shape, threshold, gap_percent, crossing_year,
-                                u_test_rejects, interval_bounded, last_year, result)
-     SELECT run_id, district_id, variant, status, standing, shape, threshold, gap_percent, crossing_year,
-            u_test_rejects, interval_bounded, last_year, result
-       FROM jsonb_populate_recordset(NULL::run_estimates, ?::jsonb)
-     ON CONFLICT (run_id, district_id, variant) DO UPDATE SET
-       status = EXCLUDED.status, standing = EXCLUDED.standing, shape = EXCLUDED.shape, threshold = EXCLUDED.threshold,
-       gap_percent = EXCLUDED.gap_percent, crossing_year = EXCLUDED.crossing_year, u_test_rejects = EXCLUDED.u_test_rejects,
-       interval_bounded = EXCLUDED.interval_bounded, last_year = EXCLUDED.last_year, result = EXCLUDED.result`,
-    [JSON.stringify(values)],
-  );
+  const districtIds = [...new Set(rows.map((r) => r.districtId))];
+  await db.raw(`DELETE FROM run_estimates WHERE run_id = ? AND district_id = ANY(?::int[])`, [runId, districtIds]);
+  const client = db.client as { acquireConnection(): Promise<PoolClient>; releaseConnection(c: PoolClient): Promise<void> };
+  const conn = await client.acquireConnection();
+  try {
+    await pipeline(Readable.from([estimatesCopyText(runId, rows)]), conn.query(copyFrom(`COPY run_estimates (${ESTIMATE_COLUMNS}) FROM STDIN`)));
+  } finally {
+    await client.releaseConnection(conn);
+  }
 }
 
 /** Records a finished chunk; returns how many of the run's chunks are done. */

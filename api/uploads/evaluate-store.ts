@@ -7,7 +7,8 @@
  *
  * Relations it leaves for the merge (all dropped at the end of the transaction):
  * - view `upload_staged`: the staged rows with district ids;
- * - table `upload_eval`: staged rows that meet a stored value, kind 'c' (changed) or 'u';
+ * - table `upload_eval`: staged rows that change a stored value, kind 'c' (rows equal to
+ *   the stored value are counted, not kept);
  * - view `upload_new`: staged rows for empty cells, kind 'i'. A first load of a million
  *   rows is thus never copied into a temp table: the merge reads it straight from staging.
  */
@@ -66,15 +67,16 @@ export async function evaluateStaged(conn: Sql, t: StagingNames, columns: Column
        LEFT JOIN observations o ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year
       GROUP BY 1, 2, 3`,
   );
-  // The values that meet a stored one are kept for the merge; a first load has none, and skips the pass.
-  const matched = rows.some((r) => r.kind !== 'i');
+  // The values that change a stored one are kept for the merge (unchanged ones are only
+  // counted); a first load has none, and skips the pass. A revision of a million cells
+  // with a tenth changed thus writes 100,000 rows here, not a million.
+  const changed = rows.some((r) => r.kind === 'c');
   await conn.query(`CREATE TEMP TABLE upload_eval ON COMMIT DROP AS
     SELECT v.line, v.col, v.district_id, v.indicator_id, v.year, v.value,
-           o.value AS old_value, o.upload_id AS old_upload_id,
-           (CASE WHEN o.value = v.value THEN 'u' ELSE 'c' END)::"char" AS kind
+           o.value AS old_value, o.upload_id AS old_upload_id, 'c'::"char" AS kind
       FROM upload_staged v
       JOIN observations o ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year
-     ${matched ? '' : 'WHERE false'}`);
+     WHERE ${changed ? 'o.value <> v.value' : 'false'}`);
   await conn.query(`CREATE TEMP VIEW upload_new AS
     SELECT v.district_id, v.indicator_id, v.year, v.value, NULL::float8 AS old_value, NULL::int AS old_upload_id,
            'i'::"char" AS kind, v.line

@@ -30,7 +30,7 @@ export async function revertConflicts(conn: Sql, uploadId: number, version: numb
        SELECT DISTINCT m.district_id, m.indicator_id, m.year, o.upload_id AS held_by
          FROM mine m LEFT JOIN observations o
            ON o.district_id = m.district_id AND o.indicator_id = m.indicator_id AND o.year = m.year
-        WHERE CASE WHEN m.removed THEN o.id IS NOT NULL ELSE o.upload_id IS DISTINCT FROM $1 END
+        WHERE CASE WHEN m.removed THEN o.year IS NOT NULL ELSE o.upload_id IS DISTINCT FROM $1 END
      )
      SELECT d.code AS district, i.code AS indicator, b.year, b.held_by, count(*) OVER () AS total
        FROM bad b JOIN districts d ON d.id = b.district_id JOIN indicators i ON i.id = b.indicator_id
@@ -54,7 +54,7 @@ export async function buildRestoreSet(conn: Sql, uploadId: number, version: numb
     SELECT h.district_id, h.indicator_id, h.year,
            h.previous_value AS value, h.previous_upload_id AS value_upload_id,
            o.value AS old_value, o.upload_id AS old_upload_id,
-           (CASE WHEN h.previous_value IS NULL THEN 'r' WHEN o.id IS NULL THEN 'i' ELSE 'c' END)::"char" AS kind
+           (CASE WHEN h.previous_value IS NULL THEN 'r' WHEN o.year IS NULL THEN 'i' ELSE 'c' END)::"char" AS kind
       FROM observation_history h
       LEFT JOIN observations o ON o.district_id = h.district_id AND o.indicator_id = h.indicator_id AND o.year = h.year
      WHERE h.version = ${Number(version)} AND h.upload_id = ${Number(uploadId)}

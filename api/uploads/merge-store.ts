@@ -39,6 +39,35 @@ export interface MergeCounts {
 /** Inserts at least this many rows, and at least half the rows already stored, take the bulk path. */
 export const BULK_MIN_ROWS = 50_000;
 
+/**
+ * Changes of at least this many rows, and at least a twentieth of the rows stored, check
+ * the upload foreign key once for the table instead of once per row: the per-row check
+ * measured about 10 µs (1.06 s of a 3.9 s UPDATE of 100,000 rows under load), one
+ * re-check of a million rows 0.2-0.3 s.
+ */
+export const BULK_CHANGE_MIN_ROWS = 10_000;
+
+async function storedRows(conn: Sql): Promise<number> {
+  const { rows } = await conn.query(`SELECT greatest(reltuples, 0)::float8 AS n FROM pg_class WHERE oid = 'observations'::regclass`);
+  return Number(rows[0].n);
+}
+
+/**
+ * Drops the foreign key from observations.upload_id, runs fn, and re-creates it from its
+ * own definition (one set-based check), in the caller's transaction.
+ */
+async function withUploadKeyRebuilt(conn: Sql, fn: () => Promise<void>): Promise<void> {
+  const { rows } = await conn.query<{ name: string; def: string }>(
+    `SELECT c.conname AS name, pg_get_constraintdef(c.oid) AS def
+       FROM pg_constraint c JOIN pg_attribute a ON a.attrelid = c.conrelid AND a.attnum = ANY(c.conkey)
+      WHERE c.conrelid = 'observations'::regclass AND c.contype = 'f' AND a.attname = 'upload_id'`,
+  );
+  const q = (name: string) => `"${name.replace(/"/g, '""')}"`;
+  for (const c of rows) await conn.query(`ALTER TABLE observations DROP CONSTRAINT ${q(c.name)}`);
+  await fn();
+  for (const c of rows) await conn.query(`ALTER TABLE observations ADD CONSTRAINT ${q(c.name)} ${c.def}`);
+}
+
 export async function applyChanges(conn: Sql, uploadId: number, version: number, sets: ChangeTable[]): Promise<MergeCounts> {
   const counts: MergeCounts = { inserted: 0, changed: 0, removed: 0, bulk: false };
   for (const s of sets) {
@@ -53,13 +82,17 @@ export async function applyChanges(conn: Sql, uploadId: number, version: number,
       );
     }
     if (has('c')) {
-      const r = await conn.query(
-        `UPDATE observations o SET value = t.value, upload_id = ${s.writer}, updated_at = now()
-           FROM ${s.table} t
-          WHERE t.kind = 'c' AND o.district_id = t.district_id AND o.indicator_id = t.indicator_id AND o.year = t.year`,
-        [uploadId],
-      );
-      counts.changed += r.rowCount ?? 0;
+      const update = async () => {
+        const r = await conn.query(
+          `UPDATE observations o SET value = t.value, upload_id = ${s.writer}, updated_at = now()
+             FROM ${s.table} t
+            WHERE t.kind = 'c' AND o.district_id = t.district_id AND o.indicator_id = t.indicator_id AND o.year = t.year`,
+          [uploadId],
+        );
+        counts.changed += r.rowCount ?? 0;
+      };
+      if (s.known && s.known.c >= BULK_CHANGE_MIN_ROWS && s.known.c >= (await storedRows(conn)) / 20) await withUploadKeyRebuilt(conn, update);
+      else await update();
     }
     if (has('r')) {
       const r = await conn.query(

@@ -51,11 +51,14 @@ export function upload(agent: TestAgent, content: string | Buffer, fileName: str
   return agent.post('/api/uploads').query(query).attach('file', body, { filename: fileName, contentType: 'text/csv' });
 }
 
-/** Every column of every observation row, in id order: "byte-for-byte unchanged" means this md5 is the same. */
+/**
+ * Every column of every observation row and where it lies (ctid: a rewritten row moves),
+ * in key order: "byte-for-byte unchanged" means this md5 is the same.
+ */
 export async function observationsChecksum(db: TestDatabase['db']): Promise<string> {
   const { rows } = await db.raw(`
-    SELECT md5(coalesce(string_agg(concat_ws('|', o.id, o.district_id, o.indicator_id, o.year, o.value::text,
-                                              o.updated_at, o.upload_id), E'\\n' ORDER BY o.id), '')) AS sum
+    SELECT md5(coalesce(string_agg(concat_ws('|', o.ctid::text, o.district_id, o.indicator_id, o.year, o.value::text,
+                                              o.updated_at, o.upload_id), E'\\n' ORDER BY o.district_id, o.indicator_id, o.year), '')) AS sum
       FROM observations o`);
   return rows[0].sum;
 }
