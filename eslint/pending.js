@@ -8,9 +8,7 @@
 const SQL_OUTSIDE_STORES = [
   'api/briefs/export-csv.ts',
   'api/briefs/service.ts',
-  'api/demo/initial-run.ts',
   'api/what-if/service.ts',
-  'api/people/service.ts',
   'api/runs/jobs.ts',
   'api/runs/service.ts',
   'api/uploads/change-sets.ts',
@@ -20,26 +18,18 @@ const SQL_OUTSIDE_STORES = [
 
 /** "api/<file> -> api/<other feature's store>" imports (`crestwatch/feature-boundaries`). */
 const FOREIGN_STORE_IMPORTS = [
-  'api/auth/passport.ts -> api/audit/store.ts',
-  'api/auth/passport.ts -> api/people/store.ts',
-  'api/auth/router.ts -> api/audit/store.ts',
   'api/briefs/export-csv.ts -> api/runs/store.ts',
   'api/briefs/region-content.ts -> api/runs/store.ts',
   'api/briefs/service.ts -> api/runs/store.ts',
   'api/briefs/trace.ts -> api/runs/store.ts',
-  'api/demo/initial-run.ts -> api/people/store.ts',
-  'api/demo/initial-run.ts -> api/runs/store.ts',
   'api/what-if/service.ts -> api/runs/data-store.ts',
-  'api/indicators/router.ts -> api/audit/store.ts',
   'api/observations/store.ts -> api/uploads/history-store.ts',
-  'api/people/service.ts -> api/audit/store.ts',
   'api/runs/service.ts -> api/audit/store.ts',
-  'api/settings/service.ts -> api/audit/store.ts',
   'api/uploads/router.ts -> api/audit/store.ts',
 ];
 
 /** Feature folder pairs that import each other, "a<->b" in alphabetical order. */
-const MUTUAL_FOLDER_IMPORTS = ['auth<->people', 'jobs<->runs'];
+const MUTUAL_FOLDER_IMPORTS = ['jobs<->runs'];
 
 /**
  * Findings of the general rules (Expo's, typescript-eslint's) in files being changed
