@@ -23,7 +23,6 @@ const FOREIGN_STORE_IMPORTS = [
   'api/briefs/service.ts -> api/runs/store.ts',
   'api/briefs/trace.ts -> api/runs/store.ts',
   'api/what-if/service.ts -> api/runs/data-store.ts',
-  'api/observations/store.ts -> api/uploads/history-store.ts',
   'api/runs/service.ts -> api/audit/store.ts',
   'api/uploads/router.ts -> api/audit/store.ts',
 ];
