@@ -7,7 +7,7 @@ import { authRoutes } from './auth/router';
 import type { createPassport } from './auth/passport';
 import type { AppContext } from './context';
 import { districtRoutes } from './districts/router';
-import { curveRoutes } from './estimate/router';
+import { curveRoutes } from './what-if/router';
 import { estimateRoutes } from './estimates/router';
 import { healthRoutes } from './health/router';
 import { indicatorRoutes } from './indicators/router';

@@ -1,5 +1,6 @@
 /** The audit log: who did what, when, with the state before and after. */
 import type { Knex } from 'knex';
+import type { PoolClient } from 'pg';
 
 export interface AuditEntry {
   actorId: number | null;
@@ -17,8 +18,8 @@ export interface AuditRow extends Required<Omit<AuditEntry, 'targetId'>> {
   targetId: string | null;
 }
 
-export async function record(db: Knex, e: AuditEntry): Promise<void> {
-  await db('audit_log').insert({
+function columnsOf(e: AuditEntry) {
+  return {
     actor_id: e.actorId,
     actor_email: e.actorEmail,
     action: e.action,
@@ -26,7 +27,24 @@ export async function record(db: Knex, e: AuditEntry): Promise<void> {
     target_id: e.targetId === undefined || e.targetId === null ? null : String(e.targetId),
     before: e.before === undefined ? null : JSON.stringify(e.before),
     after: e.after === undefined ? null : JSON.stringify(e.after),
-  });
+  };
+}
+
+export async function record(db: Knex, e: AuditEntry): Promise<void> {
+  await db('audit_log').insert(columnsOf(e));
+}
+
+/** A pooled pg connection in the middle of a transaction (BEGIN … COMMIT written by hand). */
+export type PgConnection = Pick<PoolClient, 'query'>;
+
+/** The same row as `record`, written on a raw pg connection inside its open transaction. */
+export async function recordOn(conn: PgConnection, e: AuditEntry): Promise<void> {
+  const c = columnsOf(e);
+  await conn.query(
+    `INSERT INTO audit_log (actor_id, actor_email, action, target_type, target_id, before, after)
+     VALUES ($1, $2, $3, $4, $5, $6, $7)`,
+    [c.actor_id, c.actor_email, c.action, c.target_type, c.target_id, c.before, c.after],
+  );
 }
 
 export interface AuditFilter {

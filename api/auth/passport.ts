@@ -11,12 +11,11 @@
  */
 import { Passport } from 'passport';
 import { Strategy as GoogleStrategy, type Profile } from 'passport-google-oauth20';
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
 import type { AppContext } from '../context';
 import type { Caller } from '../http/routes';
-import { invitationExpired } from '../people/service';
+import * as people from '../people/service';
 import { sessionPerson } from '../people/session-person';
-import * as users from '../people/store';
 
 export type SignInRefusal =
   | 'not_invited'
@@ -59,20 +58,22 @@ export function createPassport({ db, config }: AppContext): InstanceType<typeof 
           if (config.googleHostedDomain && (json.hd ?? '').toLowerCase() !== config.googleHostedDomain) {
             return done(null, false, { reason: 'wrong_domain', email });
           }
-          const user = await users.findByEmail(db, email);
+          const user = await people.findPersonByEmail(db, email);
           if (!user) return done(null, false, { reason: 'not_invited', email });
           if (!user.active) return done(null, false, { reason: 'deactivated', email });
-          const holder = await users.findByGoogleSub(db, profile.id);
+          const holder = await people.findPersonByGoogleSub(db, profile.id);
           if ((user.googleSub !== null && user.googleSub !== profile.id) || (holder && holder.id !== user.id)) {
             await audit.record(db, { actorId: null, actorEmail: email, action: 'sign_in.refused', targetType: 'user', targetId: user.id, after: { reason: 'identity_mismatch' } });
             return done(null, false, { reason: 'identity_mismatch', email });
           }
-          if (invitationExpired(user)) {
+          if (people.invitationExpired(user)) {
             await audit.record(db, { actorId: null, actorEmail: email, action: 'sign_in.refused', targetType: 'user', targetId: user.id, after: { reason: 'invitation_expired' } });
             return done(null, false, { reason: 'invitation_expired', email });
           }
-          await users.recordSignIn(db, user.id, profile.id, profile.displayName ?? '');
-          await audit.record(db, { actorId: user.id, actorEmail: user.email, action: 'sign_in', targetType: 'user', targetId: user.id });
+          await db.transaction(async (trx) => {
+            await people.recordSignIn(trx, user.id, profile.id, profile.displayName ?? '');
+            await audit.record(trx, { actorId: user.id, actorEmail: user.email, action: 'sign_in', targetType: 'user', targetId: user.id });
+          });
           done(null, { id: user.id, email: user.email, name: user.name, role: user.role, active: user.active });
         } catch (err) {
           done(err);

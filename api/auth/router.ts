@@ -5,7 +5,7 @@ import { randomBytes } from 'node:crypto';
 import type { Request, RequestHandler, Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
 import type { AppContext } from '../context';
 import { NotFoundError } from '../http/errors';
 import { callerOf, route, SIGNED_IN, type Caller, type RouteSpec } from '../http/routes';

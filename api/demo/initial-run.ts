@@ -5,22 +5,19 @@
  */
 import * as audit from '../audit/service';
 import type { AppContext } from '../context';
-import * as users from '../people/store';
-import { publishRun, startRun } from '../runs/service';
-import * as runs from '../runs/store';
+import { callerByEmail } from '../people/service';
+import { listRuns, publishRun, runView, startRun } from '../runs/service';
 
 export async function publishInitialDemoRun(ctx: AppContext, email: string | null, timeoutMs = 120_000): Promise<number | null> {
-  const [{ count }] = await ctx.db('runs').count<{ count: string }[]>({ count: '*' });
-  if (Number(count) > 0 || !email) return null;
-  const admin = await users.findByEmail(ctx.db, email);
-  if (!admin) return null;
-  const caller = { id: admin.id, email: admin.email, name: admin.name, role: admin.role, active: admin.active };
+  if (!email || (await listRuns(ctx.db, 1)).length > 0) return null;
+  const caller = await callerByEmail(ctx.db, email);
+  if (!caller) return null;
   const run = await startRun(ctx, null, { trigger: 'schedule' });
   const until = Date.now() + timeoutMs;
   for (;;) {
-    const r = await runs.findRun(ctx.db, run.id);
-    if (r?.state === 'in_review') break;
-    if (!r || r.state === 'failed' || Date.now() > until) throw new Error(`the first demo run did not reach review (${r?.state ?? 'missing'}: ${r?.error ?? 'timeout'})`);
+    const r = await runView(ctx.db, run.id);
+    if (r.state === 'in_review') break;
+    if (r.state === 'failed' || Date.now() > until) throw new Error(`the first demo run did not reach review (${r.state}: ${r.error ?? 'timeout'})`);
     await new Promise((res) => setTimeout(res, 250));
   }
   await publishRun(ctx, caller, run.id);

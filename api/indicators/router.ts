@@ -1,5 +1,4 @@
 /** The indicator catalogue: everyone signed in reads it, analysts and admins edit it. */
-import * as audit from '../audit/store';
 import type { AppContext } from '../context';
 import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
 import { createIndicatorBody, indicatorParams, updateIndicatorBody } from './schema';
@@ -31,9 +30,7 @@ export function indicatorRoutes({ db }: AppContext): RouteSpec[] {
       summary: 'Add an indicator; a derived one (per person, or real from nominal) is computed at once from its sources',
       schemas: { body: createIndicatorBody },
       handler: async ({ body }, req, res) => {
-        const who = whoOf(req);
-        const answer = await service.createIndicator(db, body, who);
-        await audit.record(db, { actorId: who.id, actorEmail: who.email, action: 'indicator.create', targetType: 'indicator', targetId: body.code, after: answer.indicator });
+        const answer = await service.createIndicator(db, body, whoOf(req));
         res.status(201);
         return answer;
       },
@@ -46,12 +43,7 @@ export function indicatorRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'indicators',
       summary: 'Change an indicator; a new or changed derivation recomputes its series as a change set of its own',
       schemas: { params: indicatorParams, body: updateIndicatorBody },
-      handler: async ({ params, body }, req) => {
-        const who = whoOf(req);
-        const { before, ...answer } = await service.updateIndicator(db, params.code, body, who);
-        await audit.record(db, { actorId: who.id, actorEmail: who.email, action: 'indicator.update', targetType: 'indicator', targetId: params.code, before, after: answer.indicator });
-        return answer;
-      },
+      handler: ({ params, body }, req) => service.updateIndicator(db, params.code, body, whoOf(req)),
     }),
   ];
 }

@@ -1,9 +1,11 @@
 /**
  * The indicator catalogue's rules: what a derivation may be built from, when a positivity
  * rule can be switched on, and that defining or changing a derivation recomputes the
- * series in the database (a change set of its own, in history, revertable).
+ * series in the database (a change set of its own, in history, revertable). Every change
+ * is audited in the transaction that makes it.
  */
 import type { Knex } from 'knex';
+import * as audit from '../audit/service';
 import { AppError, NotFoundError } from '../http/errors';
 import { recomputeDerivedIndicator } from '../uploads/change-sets';
 import type { UploadSummary } from '../uploads/present';
@@ -74,12 +76,14 @@ export async function createIndicator(db: Knex, body: CreateIndicator, who: Who)
       });
       const created = (await store.findIndicator(conn, body.code))!;
       const recomputed = body.derivation ? await recomputeDerivedIndicator(conn, created.id, created.code, who) : null;
-      return { indicator: viewOf((await store.findIndicator(conn, body.code))!), recomputed };
+      const indicator = viewOf((await store.findIndicator(conn, body.code))!);
+      await audit.recordOn(conn, { actorId: who.id, actorEmail: who.email, action: 'indicator.create', targetType: 'indicator', targetId: body.code, after: indicator });
+      return { indicator, recomputed };
     }),
   );
 }
 
-export async function updateIndicator(db: Knex, code: string, body: UpdateIndicator, who: Who): Promise<IndicatorAnswer & { before: IndicatorView }> {
+export async function updateIndicator(db: Knex, code: string, body: UpdateIndicator, who: Who): Promise<IndicatorAnswer> {
   return withConnection(db, (conn) =>
     inTransaction(conn, async () => {
       const cur = await store.findIndicator(conn, code, { forUpdate: true });
@@ -117,7 +121,9 @@ export async function updateIndicator(db: Knex, code: string, body: UpdateIndica
         ...sources,
       });
       const recomputed = derivationChanged && body.derivation ? await recomputeDerivedIndicator(conn, cur.id, code, who) : null;
-      return { before, indicator: viewOf((await store.findIndicator(conn, code))!), recomputed };
+      const indicator = viewOf((await store.findIndicator(conn, code))!);
+      await audit.recordOn(conn, { actorId: who.id, actorEmail: who.email, action: 'indicator.update', targetType: 'indicator', targetId: code, before, after: indicator });
+      return { indicator, recomputed };
     }),
   );
 }

@@ -31,7 +31,27 @@ const SELECT = `
         FROM observations o WHERE o.indicator_id = i.id
     ) st ON true`;
 
-function toRow(r: Record<string, any>): IndicatorRow {
+/** One row of SELECT above, as pg returns it (integer columns come back as numbers). */
+interface IndicatorDbRow {
+  id: number;
+  code: string;
+  name: string;
+  unit: string;
+  description: string;
+  must_be_positive: boolean;
+  derivation: IndicatorRow['derivation'];
+  source_indicator_id: number | null;
+  divisor_indicator_id: number | null;
+  source_code: string | null;
+  divisor_code: string | null;
+  base_year: number | null;
+  districts: number;
+  n: number;
+  first_year: number | null;
+  last_year: number | null;
+}
+
+function toRow(r: IndicatorDbRow): IndicatorRow {
   return {
     id: r.id,
     code: r.code,

@@ -1,6 +1,5 @@
 /** A district's stored values, current or as of a data version. */
 import type { Knex } from 'knex';
-import { observationsAsOfSql } from '../uploads/history-store';
 
 export interface SeriesRow {
   indicatorId: number;
@@ -15,10 +14,11 @@ export async function latestVersion(db: Knex): Promise<number> {
 }
 
 export async function seriesOf(db: Knex, districtId: number, asOf: number | null): Promise<SeriesRow[]> {
-  const source = asOf === null ? 'observations' : observationsAsOfSql(asOf);
+  // The observation set of a past data version is the database function observations_as_of (see its migration).
+  const source = asOf === null ? 'observations' : 'observations_as_of(?::int)';
   const { rows } = await db.raw(
     `SELECT o.indicator_id, o.year, o.value, o.upload_id FROM ${source} o WHERE o.district_id = ? ORDER BY o.indicator_id, o.year`,
-    [districtId],
+    asOf === null ? [districtId] : [asOf, districtId],
   );
   return rows.map((r: Record<string, number>) => ({ indicatorId: r.indicator_id, year: r.year, value: r.value, uploadId: r.upload_id }));
 }

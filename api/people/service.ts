@@ -5,13 +5,13 @@
  * the audit log with before and after.
  */
 import type { Knex } from 'knex';
-import * as audit from '../audit/store';
-import { DEMO_ACCOUNTS } from '../auth/demo-accounts';
+import * as audit from '../audit/service';
 import type { AppContext } from '../context';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller, Role } from '../http/routes';
 import { forgetPerson, type ForgetResult } from '../retention/service';
 import { getSettings } from '../settings/service';
+import { DEMO_ACCOUNTS } from '../shared/demo-accounts';
 import { forgetSessionPerson } from './session-person';
 import * as store from './store';
 
@@ -195,21 +195,39 @@ export async function deletePerson(db: Knex, caller: Caller, id: number): Promis
 
 /** Start-up: make sure the first admin (from CRESTWATCH_FIRST_ADMIN) exists when there is none. */
 export async function ensureFirstAdmin(db: Knex, email: string | null): Promise<void> {
-  if (!email || (await store.countAdmins(db)) > 0) return;
-  const existing = await store.findByEmail(db, email);
-  if (existing) await store.update(db, existing.id, { role: 'admin', active: true });
-  else await store.insert(db, { email: email.toLowerCase(), name: '', role: 'admin' });
-  await audit.record(db, { actorId: null, actorEmail: null, action: 'person.first_admin', targetType: 'user', after: { email } });
+  if (!email) return;
+  await db.transaction(async (trx) => {
+    if ((await store.countAdmins(trx)) > 0) return;
+    const existing = await store.findByEmail(trx, email);
+    if (existing) await store.update(trx, existing.id, { role: 'admin', active: true });
+    else await store.insert(trx, { email: email.toLowerCase(), name: '', role: 'admin' });
+    await audit.record(trx, { actorId: null, actorEmail: null, action: 'person.first_admin', targetType: 'user', after: { email } });
+  });
 }
 
 /** Demo and test mode: the demo accounts, one per role plus a deactivated one. */
 export async function ensureDemoAccounts(db: Knex): Promise<void> {
-  for (const a of DEMO_ACCOUNTS) {
-    await db.raw(`INSERT INTO users (email, name, role, active) VALUES (?, ?, ?, ?) ON CONFLICT ((lower(email))) DO NOTHING`, [
-      a.email,
-      a.name,
-      a.role,
-      a.active,
-    ]);
-  }
+  for (const a of DEMO_ACCOUNTS) await store.insertIfAbsent(db, a);
+}
+
+/** A person as sign-in sees them (the auth feature decides whether they may enter). */
+export type PersonRecord = store.UserRow;
+
+export function findPersonByEmail(db: Knex, email: string): Promise<PersonRecord | null> {
+  return store.findByEmail(db, email);
+}
+
+export function findPersonByGoogleSub(db: Knex, googleSub: string): Promise<PersonRecord | null> {
+  return store.findByGoogleSub(db, googleSub);
+}
+
+/** A sign-in: pins the Google subject when none is stored yet and fills an empty name. */
+export function recordSignIn(db: Knex, id: number, googleSub: string, name: string): Promise<void> {
+  return store.recordSignIn(db, id, googleSub, name);
+}
+
+/** The person with this address as a caller (id, e-mail, name, role, active), or null. */
+export async function callerByEmail(db: Knex, email: string): Promise<Caller | null> {
+  const u = await store.findByEmail(db, email);
+  return u ? { id: u.id, email: u.email, name: u.name, role: u.role, active: u.active } : null;
 }

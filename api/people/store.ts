@@ -73,6 +73,17 @@ export async function insert(
   return toUser(r);
 }
 
+/** Adds an account unless one with its address (in any case) exists; returns whether it was added. */
+export async function insertIfAbsent(db: Knex, u: { email: string; name: string; role: Role; active: boolean }): Promise<boolean> {
+  const r = await db.raw(`INSERT INTO users (email, name, role, active) VALUES (?, ?, ?, ?) ON CONFLICT ((lower(email))) DO NOTHING`, [
+    u.email,
+    u.name,
+    u.role,
+    u.active,
+  ]);
+  return Number(r.rowCount) > 0;
+}
+
 export async function update(db: Knex, id: number, patch: { role?: Role; active?: boolean; name?: string }): Promise<UserRow> {
   const [r] = await db('users').where({ id }).update(patch).returning(columns);
   return toUser(r);

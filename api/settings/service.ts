@@ -1,6 +1,6 @@
 /** Settings with their defaults; every change is audited. */
 import type { Knex } from 'knex';
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
 import type { Caller } from '../http/routes';
 import { DEFAULT_SETTINGS, SettingsSchema, type Settings } from './schema';
 import * as store from './store';
