@@ -1,6 +1,6 @@
 import Head from 'expo-router/head';
 
-import { AlertsFeedScreen } from '@/components/alerts-feed/alerts-feed-screen';
+import { AlertsFeedScreen } from '@/components/alerts/alerts-feed-screen';
 import { GatedPage } from '@/components/layout/role-gate';
 import { useAlertFeedQuery, useMarkAlertReadMutation } from '@/hooks/use-alerts';
 import { useMeQuery } from '@/hooks/use-auth';

@@ -1,6 +1,6 @@
 import Head from 'expo-router/head';
 
-import { SubscriptionsScreen } from '@/components/alerts-feed/subscriptions-screen';
+import { SubscriptionsScreen } from '@/components/alerts/subscriptions-screen';
 import { GatedPage } from '@/components/layout/role-gate';
 import { useMeQuery } from '@/hooks/use-auth';
 import { useDistrictsQuery } from '@/hooks/use-districts';

@@ -1,7 +1,7 @@
 /** Boundary routes: GeoJSON in (dry run or commit), the geometry for screens, versions and revert. */
 import type { Request, Response } from 'express';
 import { z } from 'zod';
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
 import type { AppContext } from '../context';
 import { NotFoundError } from '../http/errors';
 import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
@@ -11,7 +11,6 @@ import { queryBool } from '../uploads/schema';
 import type { Who } from '../uploads/service';
 import { encodedAnswer } from './answer';
 import * as service from './service';
-import * as store from './store';
 import { BoundaryRevertAnswerSchema, BoundaryUploadAnswerSchema, BoundaryVersionsSchema } from '../../contracts/boundaries';
 
 export const boundaryUploadQuery = z.object({
@@ -81,10 +80,10 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
       handler: async ({ query }, req, res) => {
         let version: number | null;
         if (query.version !== undefined) {
-          if (!(await store.findVersion(db, query.version))) throw new NotFoundError(`No boundary version ${query.version}.`, { version: query.version });
+          if (!(await service.findVersion(db, query.version))) throw new NotFoundError(`No boundary version ${query.version}.`, { version: query.version });
           version = query.version;
         } else {
-          version = await store.currentVersionId(db);
+          version = await service.currentVersionId(db);
         }
         send(req, res, await encodedAnswer(db, version, query.detail), query.version !== undefined);
         return undefined;

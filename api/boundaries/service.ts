@@ -141,7 +141,7 @@ export async function receiveBoundaries(db: Knex, file: ReceivedFile, options: B
       });
       await store.writeBoundaries(conn, versionId);
       const derived = await deriveFromBoundaries(conn, upload.id, version);
-      if (derived > 0) await conn.query(`UPDATE uploads SET derived_count = $2, value_count = value_count + $2 WHERE id = $1`, [upload.id, derived]);
+      if (derived > 0) await store.addDerivedCount(conn, upload.id, derived);
       return { ...answer, committed: true, versionId, uploadId: upload.id, dataVersion: version, rollback: false };
     }),
   ).then((a) => {
@@ -172,6 +172,14 @@ function finish(options: BoundaryOptions, answer: BoundaryAnswer): BoundaryAnswe
 }
 
 export const listVersions = (db: Knex) => store.listVersions(db);
+export const findVersion = (db: Knex, id: number) => store.findVersion(db, id);
+export const currentVersionId = (db: Knex) => store.currentVersionId(db);
+
+/** True when the region has districts and no boundary version yet (the demo loads its boundaries then). */
+export async function awaitsFirstBoundaries(db: Knex): Promise<boolean> {
+  const { versions, districts } = await store.boundaryCounts(db);
+  return versions === 0 && districts > 0;
+}
 
 /**
  * Values derived from the boundaries, written by the boundary change set: first every
@@ -189,7 +197,7 @@ async function deriveFromBoundaries(conn: Sql, uploadId: number, version: number
   for (const pass of [areas, readers]) {
     if (!pass.length) continue;
     await createDerivedTable(conn);
-    await conn.query(`TRUNCATE upload_derived`);
+    await store.clearDerived(conn);
     let m = 0;
     for (const def of pass) m += await deriveChanges(conn, def, 'all');
     if (m > 0) await applyChanges(conn, uploadId, version, [{ table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] }]);

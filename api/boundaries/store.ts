@@ -59,6 +59,24 @@ export async function stagedAreas(conn: Sql, limit: number): Promise<StagedSumma
   return rows.map((r) => ({ index: r.feature_index, code: r.code, areaKm2: Number(r.km2) }));
 }
 
+/** Records on the boundary change set's upload row the cells derived from the new areas. */
+export async function addDerivedCount(conn: Sql, uploadId: number, derived: number): Promise<void> {
+  await conn.query(`UPDATE uploads SET derived_count = $2, value_count = value_count + $2 WHERE id = $1`, [uploadId, derived]);
+}
+
+/** Empties the derivation scratch table between the two derivation passes. */
+export async function clearDerived(conn: Sql): Promise<void> {
+  await conn.query(`TRUNCATE upload_derived`);
+}
+
+/** How many boundary versions and districts the region has (the demo seeds boundaries only into an empty one). */
+export async function boundaryCounts(db: Knex): Promise<{ versions: number; districts: number }> {
+  const { rows } = await db.raw(
+    `SELECT (SELECT count(*)::int FROM boundary_versions) AS versions, (SELECT count(*)::int FROM districts) AS districts`,
+  );
+  return { versions: rows[0].versions, districts: rows[0].districts };
+}
+
 export async function districtCodes(conn: Sql): Promise<Map<string, { id: number; name: string }>> {
   const { rows } = await conn.query(`SELECT id, code, name FROM districts`);
   return new Map(rows.map((r) => [r.code as string, { id: r.id as number, name: r.name as string }]));
@@ -109,7 +127,23 @@ const VERSION_SQL = `
          b.feature_count, b.vertex_count, b.repaired_count, b.missing_count
     FROM boundary_versions b JOIN uploads u ON u.id = b.upload_id`;
 
-function toVersion(r: Record<string, any>, currentId: number | null): BoundaryVersionRecord {
+/** A row of VERSION_SQL as pg returns it. */
+interface VersionRow {
+  id: number;
+  upload_id: number;
+  data_version: number | null;
+  status: string;
+  file_name: string | null;
+  user_email: string | null;
+  created_at: Date;
+  code_property: string;
+  feature_count: number;
+  vertex_count: number;
+  repaired_count: number;
+  missing_count: number;
+}
+
+function toVersion(r: VersionRow, currentId: number | null): BoundaryVersionRecord {
   return {
     id: r.id,
     uploadId: r.upload_id,
@@ -137,7 +171,7 @@ export async function currentVersionId(db: Knex | Sql): Promise<number | null> {
 export async function listVersions(db: Knex): Promise<BoundaryVersionRecord[]> {
   const current = await currentVersionId(db);
   const { rows } = await db.raw(`${VERSION_SQL} ORDER BY b.id DESC`);
-  return rows.map((r: Record<string, any>) => toVersion(r, current));
+  return rows.map((r: VersionRow) => toVersion(r, current));
 }
 
 export async function findVersion(db: Knex | Sql, id: number): Promise<BoundaryVersionRecord | null> {
@@ -162,7 +196,13 @@ export async function versionGeometry(db: Knex, versionId: number): Promise<Boun
       WHERE b.version_id = ? ORDER BY d.code COLLATE "C"`,
     [versionId],
   );
-  return rows.map((r: Record<string, any>) => ({ code: r.code, name: r.name, areaKm2: Number(r.area_km2), point: [Number(r.px), Number(r.py)], geometry: r.gj }));
+  return rows.map((r: { code: string; name: string; area_km2: string | number; px: string | number; py: string | number; gj: string }) => ({
+    code: r.code,
+    name: r.name,
+    areaKm2: Number(r.area_km2),
+    point: [Number(r.px), Number(r.py)],
+    geometry: r.gj,
+  }));
 }
 
 /** Districts with no boundary in a version, in code order. */

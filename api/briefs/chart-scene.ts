@@ -1,5 +1,5 @@
 /**
- * The brief charts as vector scenes (lib/brief-types.ts ChartScene):
+ * The brief charts as vector scenes (contracts/briefs.ts ChartScene):
  * - the curve chart: observed years, the fitted curve, the threshold with its band (the
  *   band only when the interval is bounded), the latest year highlighted, the regional
  *   pooled curve faint behind; log axes in real units under the log form;

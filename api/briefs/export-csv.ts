@@ -11,7 +11,7 @@ import type { Knex } from 'knex';
 import { AppError, NotFoundError } from '../http/errors';
 import { csvLine, type CsvCell } from '../http/csv-escape';
 import { STAFF, type Caller } from '../http/routes';
-import * as runs from '../runs/store';
+import { findRun, notesByCode, type PublishedRun } from '../estimates/service';
 import { summaryRecords, type SummaryRecord } from './store';
 
 type Row = SummaryRecord;
@@ -83,7 +83,7 @@ const RUN_COLUMNS = ['run_id', 'run_state', 'published_at', 'data_version', 'dat
 
 export const EXPORT_COLUMNS: readonly string[] = [...RUN_COLUMNS, ...COLUMNS.map(([name]) => name)];
 
-export function estimatesCsv(run: runs.RunRow, rows: Row[], notes: Map<string, string>): string {
+export function estimatesCsv(run: PublishedRun, rows: Row[], notes: Map<string, string>): string {
   const runCells: CsvCell[] = [run.id, run.state, run.publishedAt, num(run.dataVersion), run.dataHash, run.softwareVersion, run.spec.name];
   const lines = [csvLine([...EXPORT_COLUMNS])];
   for (const r of rows) {
@@ -98,18 +98,12 @@ export function estimatesCsv(run: runs.RunRow, rows: Row[], notes: Map<string, s
  * run in review (to check it before publishing). Other states have nothing to export.
  */
 export async function exportRun(db: Knex, caller: Caller, runId: number): Promise<{ filename: string; csv: string }> {
-  const run = await runs.findRun(db, runId);
+  const run = await findRun(db, runId);
   if (!run) throw new NotFoundError(`No run ${runId}`, { runId });
   if (run.state !== 'published') {
     if (run.state !== 'in_review') throw new AppError(409, 'run_not_ready', `Run #${runId} is ${run.state}: only published runs (and, for analysts, runs in review) can be exported.`);
     if (!STAFF.includes(caller.role)) throw new AppError(403, 'forbidden', `Run #${runId} is still in review: officials can export it once it is published.`);
   }
-  const [rows, noteRows] = await Promise.all([summaryRecords(db, runId), runs.notesFor(db, runId)]);
-  const codes = new Map<number, string>((await db('districts').select('id', 'code')).map((d: { id: number; code: string }) => [Number(d.id), d.code]));
-  const notes = new Map<string, string>();
-  for (const [districtId, n] of noteRows) {
-    const code = codes.get(districtId);
-    if (code) notes.set(code, n.note);
-  }
+  const [rows, notes] = await Promise.all([summaryRecords(db, runId), notesByCode(db, runId)]);
   return { filename: `crestwatch-run-${runId}-estimates.csv`, csv: estimatesCsv(run, rows, notes) };
 }

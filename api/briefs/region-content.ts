@@ -6,7 +6,7 @@
  */
 import type { BriefFigure, RegionBriefContent, RegionBriefRow } from '../../contracts/briefs';
 import { alertsFor, districtChange } from '../alerts/compare';
-import type { EstimateListRow } from '../runs/store';
+import type { EstimateListRow } from '../estimates/service';
 import { pooledChart, type ThresholdMark } from './chart-scene';
 import { gapText, projectionTexts, thresholdTexts, thresholdTextsOf } from './figures';
 import { formatCount, formatDate, formatLevel, formatLevelPercent, formatPValue, formatSignedPercent } from './format';

@@ -9,50 +9,46 @@ import type { DistrictBriefContent, RegionBriefContent } from '../../contracts/b
 import type { AppContext } from '../context';
 import { currentCollection } from '../boundaries/answer';
 import { AppError, NotFoundError } from '../http/errors';
+import { districtByCode, districtNames } from '../districts/service';
+import * as estimates from '../estimates/service';
+import type { PublishedRun } from '../estimates/service';
 import { correctionNotice } from '../runs/corrections';
-import * as runs from '../runs/store';
 import { getSettings } from '../settings/service';
 import { districtBriefContent } from './district-content';
 import { locatorScene, standingsMapScene } from './map-figure';
 import { regionBriefContent, type PooledFit } from './region-content';
-import { summaryRecords } from './store';
-import type { BriefSource, Indicator } from './trace';
+import { indicatorWords, summaryRecords } from './store';
+import type { BriefSource } from './trace';
 
 /** Sizes of the brief's maps, in points. */
 export const REGION_MAP = { width: 170, height: 150 };
 export const LOCATOR = { width: 110, height: 90 };
 
 /** The published run a brief reads: `runId` when given (it must be published), else the latest. */
-export async function publishedRun(db: Knex, runId?: number): Promise<runs.RunRow> {
+export async function publishedRun(db: Knex, runId?: number): Promise<PublishedRun> {
   if (runId !== undefined) {
-    const run = await runs.findRun(db, runId);
+    const run = await estimates.findRun(db, runId);
     if (!run || run.state !== 'published') throw new NotFoundError(`No published run ${runId}: briefs are made from published runs only.`, { runId });
     return run;
   }
-  const run = await runs.latestPublished(db);
+  const run = await estimates.latestPublished(db);
   if (!run) throw new AppError(404, 'no_published_run', 'Nothing has been published yet: a brief appears once a run is published.');
   return run;
 }
 
-async function indicators(db: Knex): Promise<Map<string, Indicator>> {
-  const rows: { code: string; name: string; unit: string }[] = await db('indicators').select('code', 'name', 'unit');
-  return new Map(rows.map((r) => [r.code, { name: r.name, unit: r.unit }]));
-}
-
-export async function briefSource(db: Knex, run: runs.RunRow, generatedAt = new Date()): Promise<BriefSource> {
-  const [settings, catalogue] = await Promise.all([getSettings(db), indicators(db)]);
+export async function briefSource(db: Knex, run: PublishedRun, generatedAt = new Date()): Promise<BriefSource> {
+  const [settings, catalogue] = await Promise.all([getSettings(db), indicatorWords(db)]);
   return { run, timeZone: settings.regionTimeZone, paperSize: settings.briefPaperSize, generatedAt, indicators: catalogue };
 }
 
 export async function districtBrief(db: Knex, code: string, runId?: number): Promise<DistrictBriefContent> {
-  const district = await db('districts').where({ code }).first('id', 'code', 'name');
-  if (!district) throw new NotFoundError(`No district with code ${code}`, { code });
+  const district = await districtByCode(db, code);
   const run = await publishedRun(db, runId);
-  const records = await runs.estimateRecords(db, run.id, Number(district.id));
+  const records = await estimates.estimateRecords(db, run.id, district.id);
   const main = records.find((r) => r.variant === 'main');
   if (!main) throw new AppError(404, 'not_in_run', `District ${code} has no estimate in published run #${run.id} (no data when it ran).`, { code, runId: run.id });
-  const note = (await runs.notesFor(db, run.id)).get(Number(district.id))?.note ?? null;
-  const correction = await correctionNotice(db, run.id, Number(district.id));
+  const note = (await estimates.noteFor(db, run.id, district.id))?.note ?? null;
+  const correction = await correctionNotice(db, run.id, district.id);
   const content = districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note, correction?.text ?? null);
   const fc = await currentCollection(db, 'print');
   return { ...content, locator: fc ? locatorScene(fc, district.code, main.standing.standing, district.name, LOCATOR.width, LOCATOR.height) : null };
@@ -60,12 +56,12 @@ export async function districtBrief(db: Knex, code: string, runId?: number): Pro
 
 export async function regionBrief(db: Knex, runId?: number): Promise<RegionBriefContent> {
   const run = await publishedRun(db, runId);
-  const previous = run.publishedAt ? await runs.latestPublished(db, { publishedAt: run.publishedAt }) : null;
+  const previous = run.publishedAt ? await estimates.latestPublished(db, { publishedAt: run.publishedAt }) : null;
   const [records, districts, current, previousRows, settings, src] = await Promise.all([
     summaryRecords(db, run.id),
-    db('districts').orderBy('code').select('code', 'name') as Promise<{ code: string; name: string }[]>,
-    runs.listEstimateRows(db, run.id),
-    previous ? runs.listEstimateRows(db, previous.id) : Promise.resolve(null),
+    districtNames(db),
+    estimates.mainEstimateRows(db, run.id),
+    previous ? estimates.mainEstimateRows(db, previous.id) : Promise.resolve(null),
     getSettings(db),
     briefSource(db, run),
   ]);

@@ -20,3 +20,9 @@ export async function summaryRecords(db: Knex, runId: number): Promise<SummaryRe
     .select(db.raw(`e.result${minus} AS result`, [...CHART_ONLY_FIELDS]), 'd.code', 'd.name');
   return rows.map((r: { result: SummaryRecord; code: string; name: string }) => ({ ...r.result, code: r.code, name: r.name }));
 }
+
+/** The words a brief uses for each indicator: code → name and unit. */
+export async function indicatorWords(db: Knex): Promise<Map<string, { name: string; unit: string }>> {
+  const rows: { code: string; name: string; unit: string }[] = await db('indicators').select('code', 'name', 'unit');
+  return new Map(rows.map((r) => [r.code, { name: r.name, unit: r.unit }]));
+}

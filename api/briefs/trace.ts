@@ -3,7 +3,7 @@
  * version and hash, software version, generated on), and the model line.
  */
 import type { BriefPaperSize, BriefTrace } from '../../contracts/briefs';
-import type { RunRow } from '../runs/store';
+import type { PublishedRun } from '../estimates/service';
 import { formatDateTime, formatLevelPercent, shortHash } from './format';
 import { COVARIANCE_LABEL, inSentence, intervalMethodLabel } from './words';
 
@@ -14,7 +14,7 @@ export interface Indicator {
 
 /** What a brief is built from besides the estimates: the run, the settings, the words for indicators. */
 export interface BriefSource {
-  run: RunRow;
+  run: PublishedRun;
   timeZone: string;
   paperSize: BriefPaperSize;
   generatedAt: Date;

@@ -7,13 +7,11 @@ import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Knex } from 'knex';
-import { receiveBoundaries } from '../boundaries/service';
+import { awaitsFirstBoundaries, receiveBoundaries } from '../boundaries/service';
 import { DEMO_BOUNDARY_FILE } from './geography';
 
 export async function seedDemoBoundariesIfEmpty(db: Knex, maxVertices = 100_000): Promise<{ seeded: boolean; districts: number }> {
-  const [{ n }] = (await db.raw(`SELECT count(*)::int AS n FROM boundary_versions`)).rows;
-  const [{ d }] = (await db.raw(`SELECT count(*)::int AS d FROM districts`)).rows;
-  if (n > 0 || d === 0) return { seeded: false, districts: 0 };
+  if (!(await awaitsFirstBoundaries(db))) return { seeded: false, districts: 0 };
   const bytes = fs.readFileSync(DEMO_BOUNDARY_FILE);
   const answer = await receiveBoundaries(
     db,

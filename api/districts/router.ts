@@ -2,8 +2,7 @@ import type { AppContext } from '../context';
 import { districtParams } from '../http/params';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
-import { DISTRICT_CODE, DISTRICT_CODE_RULE } from '../../contracts/patterns';
-import { DistrictDetailResponseSchema, DistrictListResponseSchema } from '../../contracts/districts';
+import { DistrictDetailResponseSchema } from '../../contracts/districts';
 
 export function districtRoutes({ db }: AppContext): RouteSpec[] {
   return [

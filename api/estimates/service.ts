@@ -10,7 +10,7 @@ import type { EstimateRecord } from '../runs/estimate-record';
 import { correctionNotice } from '../runs/corrections';
 import * as store from './store';
 
-export type { ComparableEstimate, PublishedRun } from './store';
+export type { ComparableEstimate, EstimateListRow, PublishedRun } from './store';
 
 export function publishedRunMeta(run: store.PublishedRun) {
   return {
@@ -58,9 +58,21 @@ function nullsToDefaults(s: Record<string, unknown>): Record<string, unknown> {
   return out;
 }
 
-export async function latestPublished(db: Knex): Promise<store.PublishedRun | null> {
-  return store.latestPublished(db);
+/** The latest published run, or the latest published before `before.publishedAt`. */
+export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<store.PublishedRun | null> {
+  return store.latestPublished(db, before);
 }
+
+/** A run by id in any state; briefs and exports decide which states they read. */
+export const findRun = (db: Knex, id: number) => store.findRun(db, id);
+/** Every record (all variants) of one district in a run. */
+export const estimateRecords = (db: Knex, runId: number, districtId: number) => store.estimateRecords(db, runId, districtId);
+/** An analyst's note on one district in a run, if any. */
+export const noteFor = (db: Knex, runId: number, districtId: number) => store.noteFor(db, runId, districtId);
+/** A run's analyst notes by district code. */
+export const notesByCode = (db: Knex, runId: number) => store.notesByCode(db, runId);
+/** The summary columns of a run's main estimates, in district-code order. */
+export const mainEstimateRows = (db: Knex, runId: number) => store.mainEstimateRows(db, runId);
 
 /** The main estimates of a run on the columns two runs are compared on (alerts). */
 export function comparableEstimates(db: Knex, runId: number): Promise<store.ComparableEstimate[]> {

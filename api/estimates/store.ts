@@ -9,11 +9,24 @@ import type { EstimateRecord } from '../runs/estimate-record';
 import { PooledCurveSchema, type PooledCurve } from '../../contracts/estimates';
 import { parse } from '../../contracts/kit';
 
-/** What the published views show of a run. */
+/** The series a run was fitted on, as the run recorded them. */
+export interface RunSelection {
+  emissions: string;
+  driver: string;
+  controls: string[];
+  firstYear: number | null;
+  lastYear: number | null;
+}
+
+/**
+ * What the published views, briefs and exports show of a run (`state` tells a published
+ * run from one in review, which analysts may export).
+ */
 export interface PublishedRun {
   id: number;
+  state: string;
   publishedAt: string | null;
-  spec: { name: string; model: ModelSpec; selection: Record<string, unknown> };
+  spec: { name: string; model: ModelSpec; selection: RunSelection };
   dataVersion: number | null;
   dataHash: string | null;
   softwareVersion: string;
@@ -27,6 +40,7 @@ const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 function toPublishedRun(r: Record<string, unknown>): PublishedRun {
   return {
     id: Number(r.id),
+    state: String(r.state),
     publishedAt: iso(r.published_at),
     spec: r.spec as PublishedRun['spec'],
     dataVersion: num(r.data_version),
@@ -36,6 +50,8 @@ function toPublishedRun(r: Record<string, unknown>): PublishedRun {
   };
 }
 
+const RUN_COLUMNS = ['id', 'state', 'published_at', 'spec', 'data_version', 'data_hash', 'software_version', 'pooled'];
+
 /** The latest published run (or the latest before a given publish time). */
 export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<PublishedRun | null> {
   const q = db('runs')
@@ -44,10 +60,66 @@ export async function latestPublished(db: Knex, before?: { publishedAt: string }
       { column: 'published_at', order: 'desc' },
       { column: 'id', order: 'desc' },
     ])
-    .first('id', 'published_at', 'spec', 'data_version', 'data_hash', 'software_version', 'pooled');
+    .first(...RUN_COLUMNS);
   if (before) q.where('published_at', '<', before.publishedAt);
   const r = await q;
   return r ? toPublishedRun(r) : null;
+}
+
+/** One run by id in any state (callers decide which states they show). */
+export async function findRun(db: Knex, id: number): Promise<PublishedRun | null> {
+  const r = await db('runs').where({ id }).first(...RUN_COLUMNS);
+  return r ? toPublishedRun(r) : null;
+}
+
+/** A run's analyst notes by district code. */
+export async function notesByCode(db: Knex, runId: number): Promise<Map<string, string>> {
+  const rows: { code: string; note: string }[] = await db('run_notes as n')
+    .join('districts as d', 'd.id', 'n.district_id')
+    .where({ 'n.run_id': runId })
+    .select('d.code', 'n.note');
+  return new Map(rows.map((r) => [r.code, String(r.note)]));
+}
+
+/** The summary columns of a run's main estimates, in district-code order. */
+export interface EstimateListRow {
+  districtId: number;
+  code: string;
+  name: string;
+  status: string;
+  standing: string;
+  shape: string | null;
+  threshold: number | null;
+  gapPercent: number | null;
+  crossingYear: number | null;
+  uTestRejects: boolean | null;
+  intervalBounded: boolean | null;
+  lastYear: number | null;
+}
+
+export async function mainEstimateRows(db: Knex, runId: number): Promise<EstimateListRow[]> {
+  const rows: Record<string, unknown>[] = await db('run_estimates as e')
+    .join('districts as d', 'd.id', 'e.district_id')
+    .where({ 'e.run_id': runId, 'e.variant': 'main' })
+    .orderBy('d.code')
+    .select(
+      'e.district_id', 'e.status', 'e.standing', 'e.shape', 'e.threshold', 'e.gap_percent', 'e.crossing_year',
+      'e.u_test_rejects', 'e.interval_bounded', 'e.last_year', 'd.code', 'd.name',
+    );
+  return rows.map((r) => ({
+    districtId: Number(r.district_id),
+    code: String(r.code),
+    name: String(r.name),
+    status: String(r.status),
+    standing: String(r.standing),
+    shape: (r.shape as string | null) ?? null,
+    threshold: num(r.threshold),
+    gapPercent: num(r.gap_percent),
+    crossingYear: num(r.crossing_year),
+    uTestRejects: (r.u_test_rejects as boolean | null) ?? null,
+    intervalBounded: (r.interval_bounded as boolean | null) ?? null,
+    lastYear: num(r.last_year),
+  }));
 }
 
 /** The columns two runs are compared on, per district (main variant). */

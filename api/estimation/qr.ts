@@ -68,7 +68,7 @@ export function pivotedQr(a: Float64Array, n: number, k: number, rankTolerance =
     if (best !== j) {
       const oj = j * n, ob = best * n;
       for (let i = 0; i < n; i++) { const t = a[oj + i]; a[oj + i] = a[ob + i]; a[ob + i] = t; }
-      let t = orig[j]; orig[j] = orig[best]; orig[best] = t;
+      const t = orig[j]; orig[j] = orig[best]; orig[best] = t;
       const p = perm[j]; perm[j] = perm[best]; perm[best] = p;
     }
     rel[j] = bestRel;

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
 import { CheckBox } from '@/components/form/check-box';
@@ -120,7 +120,12 @@ function SettingsBody({ data, onSave }: { data: SettingsResponse; onSave: Settin
   const [draft, setDraft] = useState<Draft>(draftOf(data.settings));
   const [problems, setProblems] = useState<Record<string, string>>({});
   const [state, setState] = useState<{ busy: boolean; error?: unknown; success?: string }>({ busy: false });
-  useEffect(() => setDraft(draftOf(data.settings)), [data.settings]);
+  // New settings from the server start a new draft (adjusted while rendering, not in an effect).
+  const [draftFor, setDraftFor] = useState(data.settings);
+  if (draftFor !== data.settings) {
+    setDraftFor(data.settings);
+    setDraft(draftOf(data.settings));
+  }
   const set = <K extends keyof Draft>(k: K, v: Draft[K]) => setDraft((d) => ({ ...d, [k]: v }));
   const readOnly = onSave === null;
   const { patch } = settingsPatch(data.settings, draft);

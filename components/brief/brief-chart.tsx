@@ -1,8 +1,9 @@
-import { lazy, Suspense, useEffect, useState } from 'react';
+import { lazy, Suspense } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
 import { chartColors, colors, radius, space, type } from '@/components/theme';
 import type { ChartScene } from '@/contracts/briefs';
+import { useHydrated } from '@/hooks/use-hydrated';
 
 import { loadSceneSvg } from './load-scene';
 
@@ -14,8 +15,7 @@ const SceneSvg = lazy(() => loadSceneSvg());
  * chart in words.
  */
 export function BriefChart({ scene, testID }: { scene: ChartScene; testID: string }) {
-  const [mounted, setMounted] = useState(false);
-  useEffect(() => setMounted(true), []);
+  const mounted = useHydrated();
   const placeholder = <View style={styles.placeholder} aria-hidden />;
   return (
     <View style={styles.wrap} testID={testID}>

@@ -3,12 +3,13 @@
 // no scroll box cutting it at the window's height. The print style sheet keeps blocks
 // whole and turns the region table into a real table, whose header row the browser
 // repeats on every printed page.
-import { useEffect, useState, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
 import { ExternalLink } from '@/components/district/external-link';
 import { colors, layout, space } from '@/components/theme';
 import { Button } from '@/components/ui/button';
+import { useHydrated } from '@/hooks/use-hydrated';
 
 import type { BriefFrameProps } from './brief-frame.types';
 
@@ -38,17 +39,8 @@ function printCss(paper: 'A4' | 'LETTER'): string {
 }
 
 export function BriefFrame({ pdfPath, what, paperSize, back, children }: BriefFrameProps) {
-  // The portal needs the document: made after mount (the static page has only the screen copy).
-  const [host, setHost] = useState<HTMLElement | null>(null);
-  useEffect(() => {
-    const el = document.createElement('div');
-    el.id = PRINT_ID;
-    document.body.appendChild(el);
-    setHost(el);
-    return () => {
-      el.remove();
-    };
-  }, []);
+  // The portal needs the document: rendered once hydrated (the static page has only the screen copy).
+  const host = useHydrated();
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.content} testID="brief-frame">
       <style>{printCss(paperSize)}</style>
@@ -68,7 +60,14 @@ export function BriefFrame({ pdfPath, what, paperSize, back, children }: BriefFr
         </View>
         <View style={styles.sheet}>{children}</View>
       </View>
-      {host ? createPortal(<View style={styles.printSheet}>{children}</View>, host) : null}
+      {host
+        ? createPortal(
+            <div id={PRINT_ID}>
+              <View style={styles.printSheet}>{children}</View>
+            </div>,
+            document.body,
+          )
+        : null}
     </ScrollView>
   );
 }

@@ -1,4 +1,4 @@
-// A brief chart drawn from its vector scene (lib/brief-types.ts) with react-native-svg: the
+// A brief chart drawn from its vector scene (contracts/briefs.ts) with react-native-svg: the
 // same paths, marks and labels the server draws into the PDF. Loaded on its own, after
 // the brief has mounted (see brief-chart.tsx).
 import Svg, { Circle, Path, Text as SvgText } from 'react-native-svg';

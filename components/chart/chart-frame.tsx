@@ -1,7 +1,8 @@
-import { Suspense, useEffect, useState, type ReactNode } from 'react';
+import { Suspense, useState, type ReactNode } from 'react';
 import { StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
 
 import { chartColors, colors, radius, space, type } from '@/components/theme';
+import { useHydrated } from '@/hooks/use-hydrated';
 
 export type ChartFrameProps = {
   title: string;
@@ -21,9 +22,8 @@ export type ChartFrameProps = {
  * loads on its own), the legend, and the chart in words.
  */
 export function ChartFrame({ title, summary, height, testID, legend, children }: ChartFrameProps) {
-  const [mounted, setMounted] = useState(false);
   const [width, setWidth] = useState(0);
-  useEffect(() => setMounted(true), []);
+  const mounted = useHydrated();
   const onLayout = (e: LayoutChangeEvent) => {
     const w = Math.round(e.nativeEvent.layout.width);
     if (w !== width) setWidth(w);

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 
 import type { QueryState } from '@/components/state/query-state';
 import type { LayoutMode } from '@/hooks/use-layout-mode';
@@ -27,7 +27,12 @@ export type HeaderAreaProps = {
  */
 export function HeaderArea({ mode, pathname, me, demo, unreadAlerts, onSignOut, signingOut }: HeaderAreaProps) {
   const [menuOpen, setMenuOpen] = useState(false);
-  useEffect(() => setMenuOpen(false), [pathname, mode]);
+  // Any change of route or layout closes the menu (adjusted while rendering).
+  const [menuAt, setMenuAt] = useState({ pathname, mode });
+  if (menuAt.pathname !== pathname || menuAt.mode !== mode) {
+    setMenuAt({ pathname, mode });
+    setMenuOpen(false);
+  }
   const items = me.data ? navItemsFor(me.data.role, { demo }) : [];
   const activeKey = activeNavKey(items, pathname);
   const counts = { alerts: unreadAlerts };

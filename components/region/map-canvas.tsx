@@ -37,11 +37,15 @@ function clampView(v: MapView, w: number, h: number): MapView {
 export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
   const { width: w, height: h } = scene;
   const [view, setView] = useState<MapView>(IDENTITY);
+  // The view as last applied, for handlers that run between renders (wheel, drag, press).
   const viewRef = useRef(view);
-  viewRef.current = view;
   const moved = useRef(false);
   const start = useRef<{ view: MapView; dist: number | null }>({ view: IDENTITY, dist: null });
-  const apply = (v: MapView) => setView(clampView(v, w, h));
+  const apply = (v: MapView) => {
+    const next = clampView(v, w, h);
+    viewRef.current = next;
+    setView(next);
+  };
 
   const zoomAt = (factor: number, x: number, y: number) => {
     const v = viewRef.current;
@@ -52,6 +56,10 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
 
   const pan = useMemo(
     () =>
+      // PanResponder.create only keeps its handlers for later gestures; React's compiler
+      // learned this after eslint-plugin-react-hooks 7.1 (react PR 35893), so the rule still
+      // reads the refs in the handlers as render-time access.
+      // eslint-disable-next-line react-hooks/refs
       PanResponder.create({
         onMoveShouldSetPanResponder: (_e, g) => Math.abs(g.dx) + Math.abs(g.dy) > 6 || g.numberActiveTouches > 1,
         onPanResponderGrant: (e) => {

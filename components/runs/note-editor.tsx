@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
 import { MutationNotice } from '@/components/form/mutation-notice';
@@ -21,7 +21,12 @@ export type NoteEditorProps = {
 export function NoteEditor({ note, onSave, closed }: NoteEditorProps) {
   const [text, setText] = useState(note?.note ?? '');
   const [state, setState] = useState<{ busy: boolean; error?: unknown; saved?: boolean }>({ busy: false });
-  useEffect(() => setText(note?.note ?? ''), [note?.note]);
+  // A note saved elsewhere (or another district's) replaces the text, adjusted while rendering.
+  const [textFor, setTextFor] = useState(note?.note);
+  if (textFor !== note?.note) {
+    setTextFor(note?.note);
+    setText(note?.note ?? '');
+  }
   const trimmed = text.trim();
   const save = async () => {
     setState({ busy: true });

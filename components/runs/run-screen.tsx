@@ -35,7 +35,7 @@ export type RunScreenProps = {
  * the decision to publish or discard.
  */
 export function RunScreen(props: RunScreenProps) {
-  const { runId, run } = props;
+  const { runId } = props;
   return (
     <Page title={`Run #${runId}`} actions={<TextLink href="/runs" label="All runs" leading="← " />} fill={props.wide} testID="run-screen">
       <RunBody {...props} />

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
 import { CheckBox } from '@/components/form/check-box';
@@ -26,11 +26,14 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
   const [draft, setDraft] = useState<SpecDraft>(spec ? draftOf(spec) : EMPTY_DRAFT);
   const [problems, setProblems] = useState<Record<string, string>>({});
   const [state, setState] = useState<{ busy: boolean; error?: unknown; success?: string }>({ busy: false });
-  useEffect(() => {
+  // Another spec (or the saved one coming back) starts afresh, adjusted while rendering.
+  const [editing, setEditing] = useState(spec);
+  if (editing !== spec) {
+    setEditing(spec);
     setDraft(spec ? draftOf(spec) : EMPTY_DRAFT);
     setProblems({});
     setState({ busy: false });
-  }, [spec]);
+  }
   const set = <K extends keyof SpecDraft>(key: K, value: SpecDraft[K]) => setDraft((d) => ({ ...d, [key]: value }));
   const choices = indicators.map((i) => ({ value: i.code, label: i.name || i.code, hint: i.unit }));
   const controlCandidates = indicators.filter((i) => i.code !== draft.emissionsIndicator && i.code !== draft.driverIndicator);

@@ -131,7 +131,9 @@ describe('the demo boundaries', () => {
 
 describe('the GeoJSON bad-input corpus: each problem reported by feature and reason', () => {
   type Case = { name: string; make: () => unknown; problem: string; feature: number | null; reason: RegExp };
-  const first = (mutate: (f: any) => void) => () => {
+  /** A demo feature as the mutations below see it (the demo file's features are Polygons). */
+  type DemoFeature = { properties: Record<string, unknown>; geometry: { type: string; coordinates: number[][][] } };
+  const first = (mutate: (f: DemoFeature) => void) => () => {
     const fc = clone();
     mutate(fc.features[0]);
     return fc;
@@ -140,7 +142,7 @@ describe('the GeoJSON bad-input corpus: each problem reported by feature and rea
     { name: 'not a FeatureCollection', make: () => demo.features[0], problem: 'not_feature_collection', feature: null, reason: /GeoJSON Feature, not a GeoJSON FeatureCollection/ },
     { name: 'not JSON at all', make: () => 'code,name\nD01,x\n', problem: 'not_feature_collection', feature: null, reason: /not readable JSON: line 1, column 1/ },
     { name: 'a foreign crs member', make: () => ({ ...clone(), crs: { type: 'name', properties: { name: 'urn:ogc:def:crs:EPSG::3857' } } }), problem: 'foreign_crs', feature: null, reason: /EPSG::3857/ },
-    { name: 'a geometry that is not a polygon', make: first((f) => (f.geometry = { type: 'Point', coordinates: [-131, -45] })), problem: 'not_polygon', feature: 0, reason: /Point geometry/ },
+    { name: 'a geometry that is not a polygon', make: first((f) => Object.assign(f, { geometry: { type: 'Point', coordinates: [-131, -45] } })), problem: 'not_polygon', feature: 0, reason: /Point geometry/ },
     { name: 'an unclosed ring', make: first((f) => f.geometry.coordinates[0].pop()), problem: 'unclosed_ring', feature: 0, reason: /not closed/ },
     { name: 'a ring too short', make: first((f) => (f.geometry.coordinates[0] = f.geometry.coordinates[0].slice(0, 2).concat([f.geometry.coordinates[0][0]]))), problem: 'short_ring', feature: 0, reason: /3 positions/ },
     { name: 'coordinates out of range', make: first((f) => (f.geometry.coordinates[0][1] = [-231.5, -45.5])), problem: 'out_of_range', feature: 0, reason: /position 1 is \[-231.5, -45.5\]/ },
@@ -154,7 +156,7 @@ describe('the GeoJSON bad-input corpus: each problem reported by feature and rea
       make: first((f) => {
         const r = f.geometry.coordinates[0];
         const many = Array.from({ length: 60_000 }, () => r[0]);
-        f.geometry = { type: 'MultiPolygon', coordinates: [[many], [many]] };
+        Object.assign(f, { geometry: { type: 'MultiPolygon', coordinates: [[many], [many]] } });
       }),
       problem: 'too_many_vertices',
       feature: 0,
