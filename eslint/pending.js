@@ -6,12 +6,8 @@
 
 /** Files with SQL outside a store (`crestwatch/sql-in-stores`). */
 const SQL_OUTSIDE_STORES = [
-  'api/what-if/service.ts',
-  'api/runs/jobs.ts',
-  'api/runs/service.ts',
   'api/uploads/change-sets.ts',
   'api/uploads/service.ts',
-  'api/uploads/sql.ts',
 ];
 
 /** "api/<file> -> api/<other feature's store>" imports (`crestwatch/feature-boundaries`). */
@@ -22,9 +18,6 @@ const FOREIGN_STORE_IMPORTS = [
   'api/boundaries/service.ts -> api/uploads/derived-store.ts',
   'api/boundaries/service.ts -> api/uploads/merge-store.ts',
   'api/boundaries/service.ts -> api/uploads/store.ts',
-  'api/what-if/service.ts -> api/runs/data-store.ts',
-  'api/runs/service.ts -> api/audit/store.ts',
-  'api/uploads/router.ts -> api/audit/store.ts',
 ];
 
 /** Feature folder pairs that import each other, "a<->b" in alphabetical order. */

@@ -13,7 +13,7 @@ import type { ReceivedFile, Who } from '../uploads/service';
 import { revertUpload } from '../uploads/change-sets';
 import { createDerivedTable, deriveChanges, derivedDefs } from '../uploads/derived-store';
 import { applyChanges } from '../uploads/merge-store';
-import { inTransaction, lockObservations, withConnection, type Sql } from '../uploads/sql';
+import { inTransaction, lockObservations, withConnection, type Sql } from '../db/connection';
 import * as uploads from '../uploads/store';
 import { checkFeatures, type BoundaryProblem } from './check-features';
 import { JsonReadError, readJsonFile } from './json-reader';

@@ -4,7 +4,7 @@
  * version and its geometry, the version history.
  */
 import type { Knex } from 'knex';
-import type { Sql } from '../uploads/sql';
+import type { Sql } from '../db/connection';
 import type { CheckedFeature } from './check-features';
 
 /** Features per INSERT when staging. */

@@ -10,7 +10,7 @@ import { AppError, NotFoundError } from '../http/errors';
 import { recomputeDerivedIndicator } from '../uploads/change-sets';
 import type { UploadSummary } from '../uploads/present';
 import type { Who } from '../uploads/service';
-import { inTransaction, withConnection, type Sql } from '../uploads/sql';
+import { inTransaction, withConnection, type Sql } from '../db/connection';
 import type { CreateIndicator, DerivationInput, UpdateIndicator } from './schema';
 import * as store from './store';
 
@@ -163,4 +163,9 @@ async function resolveDerivation(conn: Sql, code: string, d: DerivationInput | n
     divisorId: divisor!.id,
     baseYear: d.kind === 'real_from_nominal' ? d.baseYear : null,
   };
+}
+
+/** The codes among these that the indicator catalogue knows. */
+export function knownIndicatorCodes(db: Knex, codes: string[]): Promise<string[]> {
+  return store.existingCodes(db, codes);
 }

@@ -1,6 +1,6 @@
 /** Indicator catalogue SQL. Writes take a raw connection so they share the transaction of a recomputation. */
 import type { Knex } from 'knex';
-import type { Sql } from '../uploads/sql';
+import type { Sql } from '../db/connection';
 
 export interface IndicatorRow {
   id: number;
@@ -125,5 +125,11 @@ export async function dependents(conn: Sql, id: number): Promise<string[]> {
     `SELECT code FROM indicators WHERE source_indicator_id = $1 OR divisor_indicator_id = $1 ORDER BY code`,
     [id],
   );
+  return rows.map((r) => r.code);
+}
+
+/** Which of these codes the catalogue has (the light check a spec or a what-if fit needs). */
+export async function existingCodes(db: Knex, codes: string[]): Promise<string[]> {
+  const rows: { code: string }[] = await db('indicators').whereIn('code', codes).select('code');
   return rows.map((r) => r.code);
 }

@@ -77,7 +77,7 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
         chunks_total: chunks.length,
         districts_total: series.length,
         pooled: JSON.stringify(pooled),
-        attempts: trx.raw('attempts + 1'),
+        attempts: store.incremented(trx, 'attempts'),
         timings: JSON.stringify({ pickedAt, readMs: t1 - t0, pooledMs: t2 - t1 }),
       });
     });
@@ -120,14 +120,7 @@ export async function runChunk(ctx: AppContext, data: { runId: number; chunk: nu
       }
     });
     const t3 = performance.now();
-    await db('runs')
-      .where({ id: run.id })
-      .update({
-        timings: db.raw(
-          `coalesce(timings, '{}'::jsonb) || jsonb_build_object('chunkReadMs', coalesce((timings->>'chunkReadMs')::float8, 0) + ?::float8, 'fitMs', coalesce((timings->>'fitMs')::float8, 0) + ?::float8, 'writeMs', coalesce((timings->>'writeMs')::float8, 0) + ?::float8)`,
-          [t1 - t0, t2 - t1, t3 - t2],
-        ),
-      });
+    await store.addChunkTimings(db, run.id, { chunkReadMs: t1 - t0, fitMs: t2 - t1, writeMs: t3 - t2 });
   } catch (err) {
     if (isLastAttempt) await failRun(ctx, run.id, `Chunk ${data.chunk} failed: ${(err as Error).message}`);
     throw err;

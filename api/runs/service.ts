@@ -5,8 +5,10 @@
 import type { Knex } from 'knex';
 import { createAlertsForPublish } from '../alerts/service';
 import { districtChange } from '../alerts/compare';
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
 import type { AppContext } from '../context';
+import { lockForTransaction } from '../db/locks';
+import { districtByCode } from '../districts/service';
 import { ModelSpec } from '../estimation';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
@@ -128,13 +130,7 @@ export async function runView(db: Knex, id: number) {
     softwareChanged: boolean; originalSoftware: string | null; changedAnswers: AnswerChange[];
   } | null = null;
   if (run.reproducesRunId && estimatesVisible) {
-    const diff = await db.raw(
-      `SELECT count(*)::int AS n FROM run_estimates a FULL JOIN run_estimates b
-         ON b.run_id = ? AND a.district_id = b.district_id AND a.variant = b.variant
-        WHERE a.run_id = ? AND (b.result IS NULL OR a.result IS DISTINCT FROM b.result)`,
-      [run.reproducesRunId, id],
-    );
-    const n = Number(diff.rows[0].n);
+    const n = await store.countDifferences(db, run.reproducesRunId, id);
     const original = await store.findRun(db, run.reproducesRunId);
     const changedAnswers = n === 0 ? [] : answerChanges(await store.mainRecords(db, run.reproducesRunId), await store.mainRecords(db, id));
     reproduction = {
@@ -219,9 +215,7 @@ async function previousPublishedFor(db: Knex, run: store.RunRow) {
 }
 
 async function districtId(db: Knex, code: string): Promise<number> {
-  const d = await db('districts').where({ code }).first('id');
-  if (!d) throw new NotFoundError(`No district with code ${code}`, { code });
-  return Number(d.id);
+  return (await districtByCode(db, code)).id;
 }
 
 /**
@@ -264,7 +258,7 @@ export async function districtReview(db: Knex, id: number, code: string) {
 export async function publishRun(ctx: AppContext, caller: Caller, id: number) {
   const result = await ctx.db.transaction(async (trx) => {
     // One publish at a time, so "the previous published run" is well defined.
-    await trx.raw('SELECT pg_advisory_xact_lock(20261203)');
+    await lockForTransaction(trx, 'publish');
     const run = await store.findRun(trx, id, true);
     if (!run) throw new NotFoundError(`No run ${id}`, { id });
     if (run.state !== 'in_review') throw new AppError(409, 'not_in_review', `Run #${id} is ${run.state}; only a run in review can be published.`);
@@ -299,3 +293,6 @@ export async function addNote(db: Knex, caller: Caller, id: number, code: string
 export async function latestPublishedRunId(db: Knex): Promise<number | null> {
   return (await store.latestPublished(db))?.id ?? null;
 }
+
+/** The data a run reads, for the what-if fit of one district on the current data. */
+export { currentDataVersion, loadSeries } from './data-store';

@@ -305,3 +305,31 @@ export async function notesFor(db: Knex, runId: number): Promise<Map<number, { n
   const rows = await db('run_notes').where({ run_id: runId }).select('*');
   return new Map(rows.map((r: Record<string, unknown>) => [Number(r.district_id), { note: String(r.note), authorEmail: (r.author_email as string | null) ?? null, updatedAt: iso(r.updated_at)! }]));
 }
+
+/** `column + 1` inside an update (a retried start counts its attempts). */
+export function incremented(db: Knex, column: string): Knex.Raw {
+  return db.raw('?? + 1', [column]);
+}
+
+/** Adds one chunk's phase times to the run's running totals (ms). */
+export async function addChunkTimings(db: Knex, runId: number, t: { chunkReadMs: number; fitMs: number; writeMs: number }): Promise<void> {
+  await db('runs')
+    .where({ id: runId })
+    .update({
+      timings: db.raw(
+        `coalesce(timings, '{}'::jsonb) || jsonb_build_object('chunkReadMs', coalesce((timings->>'chunkReadMs')::float8, 0) + ?::float8, 'fitMs', coalesce((timings->>'fitMs')::float8, 0) + ?::float8, 'writeMs', coalesce((timings->>'writeMs')::float8, 0) + ?::float8)`,
+        [t.chunkReadMs, t.fitMs, t.writeMs],
+      ),
+    });
+}
+
+/** Estimates of a reproduction that differ from its original's (district × variant), or exist on one side only. */
+export async function countDifferences(db: Knex, originalRunId: number, runId: number): Promise<number> {
+  const diff = await db.raw(
+    `SELECT count(*)::int AS n FROM run_estimates a FULL JOIN run_estimates b
+       ON b.run_id = ? AND a.district_id = b.district_id AND a.variant = b.variant
+      WHERE a.run_id = ? AND (b.result IS NULL OR a.result IS DISTINCT FROM b.result)`,
+    [originalRunId, runId],
+  );
+  return Number(diff.rows[0].n);
+}

@@ -3,13 +3,14 @@ import type { Knex } from 'knex';
 import * as audit from '../audit/service';
 import { lockForTransaction } from '../db/locks';
 import { AppError, NotFoundError } from '../http/errors';
+import { knownIndicatorCodes } from '../indicators/service';
 import type { Caller } from '../http/routes';
 import { DEFAULT_SPEC, type SavedSpec, type SavedSpecInput } from './schema';
 import * as store from './store';
 
 async function checkIndicators(db: Knex, s: SavedSpecInput): Promise<void> {
   const codes = [s.emissionsIndicator, s.driverIndicator, ...s.controls];
-  const known = new Set(await store.knownIndicatorCodes(db, codes));
+  const known = new Set(await knownIndicatorCodes(db, codes));
   const unknown = codes.filter((c) => !known.has(c));
   if (unknown.length) throw new AppError(400, 'unknown_indicator', `Unknown indicator: ${unknown.join(', ')}`, { unknown });
   const missing = s.levelControls.filter((c) => !s.controls.includes(c));

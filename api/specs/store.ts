@@ -78,12 +78,3 @@ export async function update(db: Knex, id: number, s: SavedSpecInput): Promise<S
 export async function archive(db: Knex, id: number): Promise<void> {
   await db('model_specs').where({ id }).update({ archived: true, is_default: false, updated_at: db.fn.now() });
 }
-
-/**
- * Which of `codes` name an indicator in the catalogue. (To become a call to the indicators
- * feature's catalogue once it offers a light one; its list carries per-indicator statistics.)
- */
-export async function knownIndicatorCodes(db: Knex, codes: string[]): Promise<string[]> {
-  const rows: { code: string }[] = await db('indicators').whereIn('code', codes).select('code');
-  return rows.map((r) => r.code);
-}

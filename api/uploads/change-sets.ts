@@ -9,7 +9,7 @@ import { createDerivedTable, deriveChanges, derivedDefs } from './derived-store'
 import { buildRestoreSet, revertConflicts, rowsHash, observationsAsOfSql } from './history-store';
 import { applyChanges } from './merge-store';
 import { summaryOf, type UploadSummary } from './present';
-import { inTransaction, lockObservations, withConnection, type Sql } from './sql';
+import { inTransaction, lockObservations, withConnection, type Sql } from '../db/connection';
 import * as store from './store';
 import type { Who } from './service';
 

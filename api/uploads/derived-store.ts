@@ -8,7 +8,7 @@
  */
 import { clip } from './parse/values';
 import type { Problem } from './problems';
-import type { Sql } from './sql';
+import type { Sql } from '../db/connection';
 
 export interface DerivedDef {
   id: number;

@@ -17,7 +17,7 @@ import type { Problem, ProblemList } from './problems';
 import { PROBLEM_LIST_CAP } from './problems';
 import { createDerivedTable, deriveChanges, derivedDefs, derivedNotPositive } from './derived-store';
 import type { StagingNames } from './staging-store';
-import type { Sql } from './sql';
+import type { Sql } from '../db/connection';
 
 export interface Columns {
   district: number;

@@ -5,7 +5,7 @@
  * The rebuild rule lives in the migration's observations_as_of(v): it holds because
  * every write except a first write into an empty cell leaves a history row.
  */
-import type { Sql } from './sql';
+import type { Sql } from '../db/connection';
 
 export interface RevertConflict {
   district: string;

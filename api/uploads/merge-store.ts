@@ -16,7 +16,7 @@
  * ever sees the table without them, and the foreign keys are re-checked by one set-based
  * query each instead of a trigger call per row.
  */
-import type { Sql } from './sql';
+import type { Sql } from '../db/connection';
 
 export interface ChangeTable {
   /** A temp table with district_id, indicator_id, year, value, old_value, old_upload_id, kind. */

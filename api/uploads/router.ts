@@ -1,6 +1,6 @@
 /** Upload routes: CSV in (dry run or commit), the upload history, commit of a preview, revert, data version. */
 import { z } from 'zod';
-import * as audit from '../audit/store';
+import * as audit from '../audit/service';
 import type { AppContext } from '../context';
 import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
 import { getSettings } from '../settings/service';

@@ -16,7 +16,7 @@ import { UploadReader, type CatalogueEntry, type ReadSummary } from './parse/upl
 import { buildPreview, DISTRICT_ORDER, PREVIEW_LIST_CAP, summaryOf, type Preview, type UploadSummary } from './present';
 import { ProblemList, summarise, type Problem } from './problems';
 import type { UploadOptions } from './schema';
-import { inTransaction, lockObservations, withConnection, type Sql } from './sql';
+import { inTransaction, lockObservations, withConnection, type Sql } from '../db/connection';
 import * as staging from './staging-store';
 import * as store from './store';
 

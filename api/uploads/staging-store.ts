@@ -8,7 +8,7 @@ import { from as copyFrom } from 'pg-copy-streams';
 import type { PoolClient } from 'pg';
 import type { Writable } from 'node:stream';
 import type { DistrictSeen } from './parse/upload-reader';
-import { ident, type Sql } from './sql';
+import { ident, type Sql } from '../db/connection';
 
 export const STAGING_SCHEMA = 'upload_staging';
 /** Previews keep their staged rows this long. */

@@ -1,7 +1,7 @@
 /** The uploads table: rows in, camelCased records out. */
 import type { Knex } from 'knex';
 import type { Problem } from './problems';
-import type { Sql } from './sql';
+import type { Sql } from '../db/connection';
 
 export type UploadKind = 'file' | 'seed' | 'revert' | 'derivation' | 'boundaries';
 export type UploadStatus = 'previewed' | 'committed' | 'reverted' | 'failed';

@@ -7,8 +7,10 @@
 import type { Knex } from 'knex';
 import type { ComputePool } from '../compute/pool';
 import type { CurveRow, ModelSpecInput } from '../estimation';
-import { AppError, NotFoundError } from '../http/errors';
-import { currentDataVersion, loadSeries } from '../runs/data-store';
+import { AppError } from '../http/errors';
+import { districtByCode } from '../districts/service';
+import { knownIndicatorCodes } from '../indicators/service';
+import { currentDataVersion, loadSeries } from '../runs/service';
 
 export interface DistrictSource {
   district: string;
@@ -20,9 +22,8 @@ export interface DistrictSource {
 }
 
 export async function rowsForDistrict(db: Knex, src: DistrictSource): Promise<{ rows: CurveRow[]; droppedYears: number[]; dataVersion: number }> {
-  const d = await db('districts').where({ code: src.district }).first('id');
-  if (!d) throw new NotFoundError(`No district with code ${src.district}`, { code: src.district });
-  const known = new Set((await db('indicators').whereIn('code', [src.emissions, src.driver, ...src.controls]).select('code')).map((r: { code: string }) => r.code));
+  const d = await districtByCode(db, src.district);
+  const known = new Set(await knownIndicatorCodes(db, [src.emissions, src.driver, ...src.controls]));
   const unknown = [src.emissions, src.driver, ...src.controls].filter((c) => !known.has(c));
   if (unknown.length) throw new AppError(400, 'unknown_indicator', `Unknown indicator: ${unknown.join(', ')}`, { unknown });
   const version = await currentDataVersion(db);

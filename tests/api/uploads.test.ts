@@ -6,7 +6,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { generateDemoRegion } from '../../api/demo/generate';
-import { withConnection } from '../../api/uploads/sql';
+import { withConnection } from '../../api/db/connection';
 import { pruneStaging, STAGING_TTL_HOURS } from '../../api/uploads/staging-store';
 import { DataVersionSchema, DistrictObservationsResponseSchema } from '../../contracts/districts';
 import { RevertAnswerSchema, UploadAnswerSchema, UploadListResponseSchema, UploadRejectionDetailsSchema } from '../../contracts/uploads';

@@ -1,10 +1,11 @@
 /**
- * One pooled connection taken from Knex for the upload pipeline: COPY needs the raw pg
- * client, and staging, checks and merge run as plain SQL on it. Only the uploads stores
- * use this.
+ * One pooled connection taken from Knex for the bulk pipelines (uploads, indicators'
+ * derived series, boundaries): COPY needs the raw pg client, and staging, checks and merge
+ * run as plain SQL on it, in the features' stores. Database plumbing, like the named locks.
  */
 import type { Knex } from 'knex';
 import type { PoolClient } from 'pg';
+import { LOCKS } from './locks';
 
 export type Sql = Pick<PoolClient, 'query'>;
 
@@ -36,10 +37,8 @@ export async function inTransaction<T>(conn: Sql, fn: () => Promise<T & { rollba
 }
 
 /** Every change to observations takes this lock first, so checks and merge see one state. */
-export const OBSERVATIONS_LOCK = 20261202;
-
 export async function lockObservations(conn: Sql): Promise<void> {
-  await conn.query('SELECT pg_advisory_xact_lock($1)', [OBSERVATIONS_LOCK]);
+  await conn.query('SELECT pg_advisory_xact_lock($1)', [LOCKS.observations]);
 }
 
 /** A quoted identifier for names built from our own tokens (staging tables). */
