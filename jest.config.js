@@ -1,6 +1,12 @@
 // Two jest projects share one jest (~29.7): the app (jest-expo) and the API (ts-jest, node).
 const esmOnly = [
-  'oauth2-mock-server', 'jose', 'ml-regression-.*', 'ml-array-.*', 'is-any-array', 'is-plain-obj', '@apidevtools/json-schema-ref-parser',
+  'oauth2-mock-server',
+  'jose',
+  'ml-regression-.*',
+  'ml-array-.*',
+  'is-any-array',
+  'is-plain-obj',
+  '@apidevtools/json-schema-ref-parser',
 ];
 module.exports = {
   // Generous per-test limit: API and browser tests start databases and servers; a 2-core

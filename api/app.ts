@@ -36,10 +36,24 @@ export interface CrestwatchApp extends Express {
   locals: Express['locals'] & { routes: RouteSpec[]; ctx: AppContext; close(): Promise<void> };
 }
 
-export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\n`), mailer, jobs = null, compute }: AppDeps): CrestwatchApp {
+export function createApp({
+  db,
+  config,
+  log = (m) => process.stderr.write(`${m}\n`),
+  mailer,
+  jobs = null,
+  compute,
+}: AppDeps): CrestwatchApp {
   const app = express() as CrestwatchApp;
   const ownPool = compute === undefined;
-  const ctx: AppContext = { db, config, log, mailer: mailer ?? createMailer(config), jobs, compute: compute ?? createComputePool(config.computePoolSize) };
+  const ctx: AppContext = {
+    db,
+    config,
+    log,
+    mailer: mailer ?? createMailer(config),
+    jobs,
+    compute: compute ?? createComputePool(config.computePoolSize),
+  };
   app.disable('x-powered-by');
   // TRUST_PROXY: whose X-Forwarded-For / -Proto to believe (req.ip for rate limits, req.secure for the cookie).
   app.set('trust proxy', config.trustProxy);
@@ -56,7 +70,12 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
           'connect-src': ["'self'"],
-          'form-action': ["'self'", ...(config.mode === 'production' ? ['https://accounts.google.com'] : [`http://127.0.0.1:${config.standInPort}`])],
+          'form-action': [
+            "'self'",
+            ...(config.mode === 'production'
+              ? ['https://accounts.google.com']
+              : [`http://127.0.0.1:${config.standInPort}`]),
+          ],
           'upgrade-insecure-requests': null,
         },
       },
@@ -68,7 +87,11 @@ export function createApp({ db, config, log = (m) => process.stderr.write(`${m}\
   if (config.logRequests) {
     // The path as sent, with the values of token, code and state redacted.
     morgan.token('safe-url', (req) => redactUrl((req as { originalUrl?: string }).originalUrl ?? req.url ?? ''));
-    app.use(morgan(':method :safe-url :status :res[content-length] - :response-time ms', { stream: { write: (l) => log(l.trimEnd()) } }));
+    app.use(
+      morgan(':method :safe-url :status :res[content-length] - :response-time ms', {
+        stream: { write: (l) => log(l.trimEnd()) },
+      }),
+    );
   }
   const sessions = sessionMiddleware(ctx);
   const passport = createPassport(ctx);

@@ -107,12 +107,20 @@ export function parseTrustProxy(raw: string | undefined): number | string[] {
   if (raw === undefined || raw.trim() === '') return ['loopback'];
   const text = raw.trim();
   if (/^\d+$/.test(text)) return Number(text);
-  if (text === 'true') throw new Error('TRUST_PROXY=true would trust any client\'s X-Forwarded-For; give the hop count (e.g. 1) or the proxies\' addresses');
+  if (text === 'true')
+    throw new Error(
+      "TRUST_PROXY=true would trust any client's X-Forwarded-For; give the hop count (e.g. 1) or the proxies' addresses",
+    );
   const items = text.split(',').map((x) => x.trim());
   for (const item of items) {
     const [addr, bits, extra] = item.split('/');
-    const ok = NAMED_RANGES.has(item) || (extra === undefined && isIP(addr) !== 0 && (bits === undefined || /^\d{1,3}$/.test(bits)));
-    if (!ok) throw new Error(`TRUST_PROXY: "${item}" is not a hop count, an address, a subnet (a.b.c.d/n) or loopback / linklocal / uniquelocal`);
+    const ok =
+      NAMED_RANGES.has(item) ||
+      (extra === undefined && isIP(addr) !== 0 && (bits === undefined || /^\d{1,3}$/.test(bits)));
+    if (!ok)
+      throw new Error(
+        `TRUST_PROXY: "${item}" is not a hop count, an address, a subnet (a.b.c.d/n) or loopback / linklocal / uniquelocal`,
+      );
   }
   return items;
 }
@@ -151,7 +159,9 @@ function oauthConfig(env: NodeJS.ProcessEnv, mode: Mode, standInPort: number | n
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const productionEnv = env.NODE_ENV === 'production';
   if (productionEnv && env.CRESTWATCH_MODE !== undefined && env.CRESTWATCH_MODE !== 'production') {
-    throw new Error(`NODE_ENV=production refuses CRESTWATCH_MODE=${env.CRESTWATCH_MODE}: unset it or set it to production`);
+    throw new Error(
+      `NODE_ENV=production refuses CRESTWATCH_MODE=${env.CRESTWATCH_MODE}: unset it or set it to production`,
+    );
   }
   const mode = (env.CRESTWATCH_MODE ?? (productionEnv ? 'production' : 'demo')) as Mode;
   if (!['demo', 'test', 'production'].includes(mode)) {
@@ -170,7 +180,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       : null;
   const host = env.HOST ?? '127.0.0.1';
   const port = intFrom(env, 'PORT', 8080);
-  const standInPort = mode === 'production' ? null : intFrom(env, 'OAUTH_STAND_IN_PORT', mode === 'test' ? TEST_STAND_IN_PORT : 8079);
+  const standInPort =
+    mode === 'production' ? null : intFrom(env, 'OAUTH_STAND_IN_PORT', mode === 'test' ? TEST_STAND_IN_PORT : 8079);
   return {
     mode,
     host,

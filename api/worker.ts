@@ -19,7 +19,14 @@ export async function startWorker(config = loadConfig()) {
     maintenanceIntervalSeconds: config.jobMaintenanceSeconds,
     schedule: false,
   });
-  const ctx: AppContext = { db, config, log: (m) => process.stderr.write(`${m}\n`), mailer: createMailer(config), jobs, compute: createComputePool(config.computePoolSize) };
+  const ctx: AppContext = {
+    db,
+    config,
+    log: (m) => process.stderr.write(`${m}\n`),
+    mailer: createMailer(config),
+    jobs,
+    compute: createComputePool(config.computePoolSize),
+  };
   await jobs.work(allHandlers(ctx));
   return {
     async close() {

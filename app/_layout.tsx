@@ -33,7 +33,6 @@ export default function RootLayout() {
   );
 }
 
-
 function Frame() {
   const mode = useLayoutMode();
   const health = useHealthQuery();
@@ -74,7 +73,11 @@ function Frame() {
           <ServerNotice health={health} />
         </>
       }
-      list={withList ? <DistrictListPanel districts={districts} selectedCode={code} level={run.data?.model.level ?? null} /> : null}
+      list={
+        withList ? (
+          <DistrictListPanel districts={districts} selectedCode={code} level={run.data?.model.level ?? null} />
+        ) : null
+      }
       aside={withFeed ? <AlertsFeedColumn feed={feed} onRead={markRead.mutate} /> : null}
     >
       <Slot />

@@ -16,7 +16,13 @@ export default function AlertsRoute() {
         <title>Your alerts · Crestwatch</title>
       </Head>
       <GatedPage title="Alerts" me={me} need="read" what="your alerts">
-        {() => <AlertsFeedScreen feed={feed} onRead={markRead.mutate} onReadAll={(ids) => ids.forEach((id) => markRead.mutate(id))} />}
+        {() => (
+          <AlertsFeedScreen
+            feed={feed}
+            onRead={markRead.mutate}
+            onReadAll={(ids) => ids.forEach((id) => markRead.mutate(id))}
+          />
+        )}
       </GatedPage>
     </>
   );

@@ -3,7 +3,13 @@ import Head from 'expo-router/head';
 import { GatedPage } from '@/components/layout/role-gate';
 import { PeopleScreen } from '@/components/people/people-screen';
 import { useAuthOptionsQuery, useMeQuery } from '@/hooks/use-auth';
-import { useInviteMutation, usePeopleQuery, usePersonMutation, useResendInvitationMutation, useResetIdentityMutation } from '@/hooks/use-people';
+import {
+  useInviteMutation,
+  usePeopleQuery,
+  usePersonMutation,
+  useResendInvitationMutation,
+  useResetIdentityMutation,
+} from '@/hooks/use-people';
 import { useSettingsMutation, useSettingsQuery } from '@/hooks/use-settings';
 import { can } from '@/lib/roles';
 

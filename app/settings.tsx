@@ -17,7 +17,12 @@ export default function SettingsRoute() {
         <title>Settings · Crestwatch</title>
       </Head>
       <GatedPage title="Settings" me={me} need="settings.read" what="the settings">
-        {(who) => <SettingsScreen settings={settings} onSave={can(who.role, 'settings.write') ? (patch) => save.mutateAsync(patch) : null} />}
+        {(who) => (
+          <SettingsScreen
+            settings={settings}
+            onSave={can(who.role, 'settings.write') ? (patch) => save.mutateAsync(patch) : null}
+          />
+        )}
       </GatedPage>
     </>
   );

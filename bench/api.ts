@@ -59,7 +59,11 @@ function freePort(): Promise<number> {
 /** Spawns a tsx script and resolves once its stdout shows `ready`. */
 function spawnReady(script: string, args: string[], env: NodeJS.ProcessEnv, ready: string): Promise<ChildProcess> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, script), ...args], { cwd: root, env, stdio: ['ignore', 'pipe', 'inherit'] });
+    const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, script), ...args], {
+      cwd: root,
+      env,
+      stdio: ['ignore', 'pipe', 'inherit'],
+    });
     child.stdout!.on('data', (b: Buffer) => {
       if (b.toString().includes(ready)) resolve(child);
     });
@@ -71,12 +75,38 @@ function spawnReady(script: string, args: string[], env: NodeJS.ProcessEnv, read
 async function buildDatabase(url: string): Promise<void> {
   const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: url };
   const db = createDb(url);
-  const jobs = await startJobs({ databaseUrl: url, expireInSeconds: 300, pollingIntervalSeconds: 0.5, maintenanceIntervalSeconds: 30, schedule: false });
+  const jobs = await startJobs({
+    databaseUrl: url,
+    expireInSeconds: 300,
+    pollingIntervalSeconds: 0.5,
+    maintenanceIntervalSeconds: 30,
+    schedule: false,
+  });
   // Starting a run fits nothing here (the worker process does): an inline pool of size 0 is enough.
-  const ctx: AppContext = { db, config, log: () => {}, mailer: createMailer(config), jobs, compute: createComputePool(0) };
-  const worker = await spawnReady('api/worker.ts', [], { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, LOG_REQUESTS: '0' }, 'is working jobs');
+  const ctx: AppContext = {
+    db,
+    config,
+    log: () => {},
+    mailer: createMailer(config),
+    jobs,
+    compute: createComputePool(0),
+  };
+  const worker = await spawnReady(
+    'api/worker.ts',
+    [],
+    { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, LOG_REQUESTS: '0' },
+    'is working jobs',
+  );
   try {
-    await db('indicators').insert(DEMO_INDICATORS.map((i) => ({ code: i.code, name: i.name, unit: i.unit, description: i.description, must_be_positive: i.mustBePositive })));
+    await db('indicators').insert(
+      DEMO_INDICATORS.map((i) => ({
+        code: i.code,
+        name: i.name,
+        unit: i.unit,
+        description: i.description,
+        must_be_positive: i.mustBePositive,
+      })),
+    );
     await ensureDemoAccounts(db);
     await insertSyntheticDistricts(db, DISTRICTS, { years: 40, seed: 42, prefix: 'B' });
     const run = await startRun(ctx, null, {});
@@ -87,7 +117,11 @@ async function buildDatabase(url: string): Promise<void> {
       await new Promise((res) => setTimeout(res, 100));
     }
     const analyst = await db('users').where({ role: 'analyst' }).first();
-    await publishRun(ctx, { id: analyst.id, email: analyst.email, name: analyst.name, role: 'analyst', active: true } as never, run.id);
+    await publishRun(
+      ctx,
+      { id: analyst.id, email: analyst.email, name: analyst.name, role: 'analyst', active: true } as never,
+      run.id,
+    );
     await db.raw('VACUUM ANALYZE');
   } finally {
     worker.kill('SIGTERM');
@@ -108,11 +142,16 @@ async function signIn(base: string): Promise<string> {
     }
   };
   const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
-  const start = await fetch(`${base}/api/auth/google?login_hint=${encodeURIComponent(OFFICIAL)}`, { redirect: 'manual' });
+  const start = await fetch(`${base}/api/auth/google?login_hint=${encodeURIComponent(OFFICIAL)}`, {
+    redirect: 'manual',
+  });
   keep(start);
   const authorize = await fetch(start.headers.get('location')!, { redirect: 'manual' });
   const back = new URL(authorize.headers.get('location')!);
-  const cb = await fetch(`${base}${back.pathname}${back.search}`, { redirect: 'manual', headers: { cookie: cookie() } });
+  const cb = await fetch(`${base}${back.pathname}${back.search}`, {
+    redirect: 'manual',
+    headers: { cookie: cookie() },
+  });
   keep(cb);
   const me = await fetch(`${base}/api/me`, { headers: { cookie: cookie() } });
   if (me.status !== 200) throw new Error(`sign-in failed: /api/me answered ${me.status}`);
@@ -151,7 +190,14 @@ async function drain(base: string): Promise<number> {
   const t0 = performance.now();
   while (performance.now() - t0 < 180_000) {
     const s = performance.now();
-    const ok = await Promise.all(['/static.txt', '/api/health'].map((p) => fetch(`${base}${p}`, { signal: AbortSignal.timeout(5000) }).then((r) => r.ok, () => false)));
+    const ok = await Promise.all(
+      ['/static.txt', '/api/health'].map((p) =>
+        fetch(`${base}${p}`, { signal: AbortSignal.timeout(5000) }).then(
+          (r) => r.ok,
+          () => false,
+        ),
+      ),
+    );
     if (ok.every(Boolean) && performance.now() - s < 1000) break;
     await new Promise((r) => setTimeout(r, 500));
   }
@@ -169,13 +215,24 @@ async function main(): Promise<void> {
   try {
     const t0 = performance.now();
     await buildDatabase(url);
-    console.log(`built ${DISTRICTS} districts × 40 years with one published run in ${((performance.now() - t0) / 1000).toFixed(1)} s (load ${load().toFixed(2)}, ${os.cpus().length} cores)`);
+    console.log(
+      `built ${DISTRICTS} districts × 40 years with one published run in ${((performance.now() - t0) / 1000).toFixed(1)} s (load ${load().toFixed(2)}, ${os.cpus().length} cores)`,
+    );
     // The yardstick: a small static file served by the same server's static route.
     fs.writeFileSync(path.join(webDir, 'index.html'), '<!doctype html><title>bench</title>');
     fs.writeFileSync(path.join(webDir, 'static.txt'), 'x'.repeat(512));
     const [standInPort, port] = [await freePort(), await freePort()];
     procs.push(await spawnReady('scripts/stand-in.ts', [String(standInPort)], process.env, 'stand-in ready'));
-    const env = { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, PORT: String(port), HOST: '127.0.0.1', WEB_DIR: webDir, OAUTH_STAND_IN_PORT: String(standInPort), LOG_REQUESTS: '0' };
+    const env = {
+      ...process.env,
+      CRESTWATCH_MODE: 'test',
+      DATABASE_URL: url,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      WEB_DIR: webDir,
+      OAUTH_STAND_IN_PORT: String(standInPort),
+      LOG_REQUESTS: '0',
+    };
     procs.push(await spawnReady('api/server.ts', [], env, 'is serving'));
     const base = `http://127.0.0.1:${port}`;
     const cookie = await signIn(base);
@@ -187,14 +244,21 @@ async function main(): Promise<void> {
       ['GET /api/districts', '/api/districts'],
       ['GET /api/districts/B0001/estimate', '/api/districts/B0001/estimate'],
     ];
-    console.log(`\nautocannon, ${SECONDS} s per target; the server in its own process; ratios to the static file at the same connection count`);
-    console.log('target                              conn    req/s   ×static   p50 ms  p99 ms  ×static p99  errors  non-2xx   bytes/answer  load');
+    console.log(
+      `\nautocannon, ${SECONDS} s per target; the server in its own process; ratios to the static file at the same connection count`,
+    );
+    console.log(
+      'target                              conn    req/s   ×static   p50 ms  p99 ms  ×static p99  errors  non-2xx   bytes/answer  load',
+    );
     let errorsAt200 = 0;
     for (const connections of CONNECTIONS) {
       let yard: Figure | null = null;
       for (const [name, p] of targets) {
         const waited = await drain(base);
-        if (waited > 1500) console.log(`  (waited ${(waited / 1000).toFixed(1)} s for the server to finish the previous target's backlog)`);
+        if (waited > 1500)
+          console.log(
+            `  (waited ${(waited / 1000).toFixed(1)} s for the server to finish the previous target's backlog)`,
+          );
         const f = await drive(`${base}${p}`, connections, cookie);
         yard ??= f;
         if (connections >= 200) errorsAt200 += f.errors + f.non2xx;
@@ -204,15 +268,22 @@ async function main(): Promise<void> {
       }
     }
     await drain(base); // the last target's backlog, before the server is stopped
-    console.log(`goals: card ≥ 60% of the static file's req/s with p99 ≤ 2× its p99; health ≥ 80%; 0 errors at 200 connections (${errorsAt200 === 0 ? 'met' : `${errorsAt200} errors or non-2xx`})`);
+    console.log(
+      `goals: card ≥ 60% of the static file's req/s with p99 ≤ 2× its p99; health ≥ 80%; 0 errors at 200 connections (${errorsAt200 === 0 ? 'met' : `${errorsAt200} errors or non-2xx`})`,
+    );
   } finally {
     // Stopped before the database is dropped, so no pooled connection holds it.
-    await Promise.all(procs.map((p) => new Promise<void>((resolve) => {
-      if (p.exitCode !== null) return resolve();
-      const t = setTimeout(() => (p.kill('SIGKILL'), resolve()), 10_000);
-      p.once('exit', () => (clearTimeout(t), resolve()));
-      p.kill('SIGTERM');
-    })));
+    await Promise.all(
+      procs.map(
+        (p) =>
+          new Promise<void>((resolve) => {
+            if (p.exitCode !== null) return resolve();
+            const t = setTimeout(() => (p.kill('SIGKILL'), resolve()), 10_000);
+            p.once('exit', () => (clearTimeout(t), resolve()));
+            p.kill('SIGTERM');
+          }),
+      ),
+    );
     fs.rmSync(webDir, { recursive: true, force: true });
     await dropDatabase(TEST_CLUSTER.port, DB).catch(() => {});
   }

@@ -45,8 +45,65 @@ function random(seed: number) {
   };
 }
 
-const SYLLABLES = ['am', 'ber', 'lyn', 'brack', 'en', 'moor', 'cin', 'der', 'vale', 'dun', 'mar', 'row', 'fal', 'low', 'mere', 'glen', 'har', 'hol', 'lin', 'iron', 'beck', 'kes', 'trel', 'holm', 'larch', 'moss', 'nettle', 'by', 'ox', 'marsh', 'pel', 'quar', 'ren', 'don', 'rush', 'lake', 'salt', 'grave', 'thorn', 'wood', 'um', 'vesper', 'ton', 'wynd', 'combe'];
-const OTHER_SCRIPTS = ['Θεσσαλονίκη', 'Όρμος', 'Новгородская', 'Слобода', 'Łęczyca', 'Şelé-Çamlık', 'Ørsted', 'Žďár', 'Ηράκλειο', 'Жарово'];
+const SYLLABLES = [
+  'am',
+  'ber',
+  'lyn',
+  'brack',
+  'en',
+  'moor',
+  'cin',
+  'der',
+  'vale',
+  'dun',
+  'mar',
+  'row',
+  'fal',
+  'low',
+  'mere',
+  'glen',
+  'har',
+  'hol',
+  'lin',
+  'iron',
+  'beck',
+  'kes',
+  'trel',
+  'holm',
+  'larch',
+  'moss',
+  'nettle',
+  'by',
+  'ox',
+  'marsh',
+  'pel',
+  'quar',
+  'ren',
+  'don',
+  'rush',
+  'lake',
+  'salt',
+  'grave',
+  'thorn',
+  'wood',
+  'um',
+  'vesper',
+  'ton',
+  'wynd',
+  'combe',
+];
+const OTHER_SCRIPTS = [
+  'Θεσσαλονίκη',
+  'Όρμος',
+  'Новгородская',
+  'Слобода',
+  'Łęczyca',
+  'Şelé-Çamlık',
+  'Ørsted',
+  'Žďár',
+  'Ηράκλειο',
+  'Жарово',
+];
 
 function name(rnd: () => number, i: number): string {
   const word = () => {
@@ -67,7 +124,12 @@ function inventRegion(): { series: DistrictSeries[] } {
     const obs = demo.observations.filter((o) => o.districtCode === d.code);
     const years = [...new Set(obs.map((o) => o.year))].sort((a, b) => a - b);
     const get = (ind: string, y: number) => obs.find((o) => o.indicator === ind && o.year === y)!.value;
-    return { years, x: years.map((y) => get('income_pc', y)), y: years.map((y) => get('emissions_pc', y)), density: years.map((y) => get('pop_density', y)) };
+    return {
+      years,
+      x: years.map((y) => get('income_pc', y)),
+      y: years.map((y) => get('emissions_pc', y)),
+      density: years.map((y) => get('pop_density', y)),
+    };
   });
   const series: DistrictSeries[] = [];
   for (let i = 0; i < DISTRICTS; i++) {
@@ -117,14 +179,42 @@ interface Prepared {
 function prepare(): Prepared {
   const t0 = performance.now();
   const { series } = inventRegion();
-  const model = ModelSpec.parse({ form: DEFAULT_SPEC.form, transform: DEFAULT_SPEC.transform, covariance: DEFAULT_SPEC.covariance, intervalMethod: DEFAULT_SPEC.intervalMethod, controls: DEFAULT_SPEC.controls, level: 0.95, alpha: 0.05 });
-  const spec: RunSpec = { savedSpecId: 1, name: DEFAULT_SPEC.name, selection: { emissions: 'emissions_pc', driver: 'income_pc', controls: DEFAULT_SPEC.controls, firstYear: null, lastYear: null }, model };
+  const model = ModelSpec.parse({
+    form: DEFAULT_SPEC.form,
+    transform: DEFAULT_SPEC.transform,
+    covariance: DEFAULT_SPEC.covariance,
+    intervalMethod: DEFAULT_SPEC.intervalMethod,
+    controls: DEFAULT_SPEC.controls,
+    level: 0.95,
+    alpha: 0.05,
+  });
+  const spec: RunSpec = {
+    savedSpecId: 1,
+    name: DEFAULT_SPEC.name,
+    selection: {
+      emissions: 'emissions_pc',
+      driver: 'income_pc',
+      controls: DEFAULT_SPEC.controls,
+      firstYear: null,
+      lastYear: null,
+    },
+    model,
+  };
   const pooled = fitPooled(series.slice(0, 24), spec);
   const okPooled = pooled.status === 'ok' ? (pooled as FitPanelResult) : null;
-  const records = series.map((s) => ({ ...fitDistrict({ spec: model, controls: spec.selection.controls }, s.data, okPooled)[0], code: s.code, name: s.name }));
+  const records = series.map((s) => ({
+    ...fitDistrict({ spec: model, controls: spec.selection.controls }, s.data, okPooled)[0],
+    code: s.code,
+    name: s.name,
+  }));
   // The region brief reads its rows without the chart-only fields (api/briefs/store.ts);
   // the district brief reads one full record.
-  const summaries = records.map((r) => Object.fromEntries(Object.entries(r).filter(([k]) => !(CHART_ONLY_FIELDS as readonly string[]).includes(k))) as SummaryRecord);
+  const summaries = records.map(
+    (r) =>
+      Object.fromEntries(
+        Object.entries(r).filter(([k]) => !(CHART_ONLY_FIELDS as readonly string[]).includes(k)),
+      ) as SummaryRecord,
+  );
   return { spec, pooled, full: records[0], records: summaries, preparedMs: performance.now() - t0 };
 }
 
@@ -132,7 +222,31 @@ async function measure(file: string) {
   const { spec, pooled, full, records, preparedMs: prepared } = JSON.parse(readFileSync(file, 'utf8')) as Prepared;
   const cpu0 = process.cpuUsage();
   const now = new Date().toISOString();
-  const run = { id: 2, specId: 1, spec, state: 'published', trigger: 'manual', reproducesRunId: null, dataVersion: 7, dataHash: 'b3c1e0f5a2d4'.padEnd(64, '0'), dataRows: 0, softwareVersion: 'bench', requestedBy: null, reviewedBy: null, chunksTotal: null, districtsTotal: records.length, pooled, timings: null, error: null, attempts: 1, createdAt: now, startedAt: now, finishedAt: now, publishedAt: now, discardedAt: null } as RunRow;
+  const run = {
+    id: 2,
+    specId: 1,
+    spec,
+    state: 'published',
+    trigger: 'manual',
+    reproducesRunId: null,
+    dataVersion: 7,
+    dataHash: 'b3c1e0f5a2d4'.padEnd(64, '0'),
+    dataRows: 0,
+    softwareVersion: 'bench',
+    requestedBy: null,
+    reviewedBy: null,
+    chunksTotal: null,
+    districtsTotal: records.length,
+    pooled,
+    timings: null,
+    error: null,
+    attempts: 1,
+    createdAt: now,
+    startedAt: now,
+    finishedAt: now,
+    publishedAt: now,
+    discardedAt: null,
+  } as RunRow;
   const src: BriefSource = {
     run,
     timeZone: 'Europe/Lisbon',
@@ -165,10 +279,26 @@ async function measure(file: string) {
   // The region brief for every district, against a previous run whose thresholds differ.
   const rnd = random(7);
   const previousRows = records.map((r, i) => listRow(i + 1, r, Math.exp((rnd() - 0.5) * 0.3)));
-  for (let i = 0; i < previousRows.length; i += 37) previousRows[i].standing = previousRows[i].standing === 'past_turn' ? 'at_turn' : previousRows[i].standing === 'at_turn' ? 'approaching' : previousRows[i].standing;
+  for (let i = 0; i < previousRows.length; i += 37)
+    previousRows[i].standing =
+      previousRows[i].standing === 'past_turn'
+        ? 'at_turn'
+        : previousRows[i].standing === 'at_turn'
+          ? 'approaching'
+          : previousRows[i].standing;
   const r0 = performance.now();
   const c0 = process.cpuUsage();
-  const content = regionBriefContent(src, { records, districts: records.map((r) => ({ code: r.code, name: r.name })), current: records.map((r, i) => listRow(i + 1, r)), previous: { runId: 1, rows: previousRows }, shiftPercent: 10 }, pooled as PooledFit);
+  const content = regionBriefContent(
+    src,
+    {
+      records,
+      districts: records.map((r) => ({ code: r.code, name: r.name })),
+      current: records.map((r, i) => listRow(i + 1, r)),
+      previous: { runId: 1, rows: previousRows },
+      shiftPercent: 10,
+    },
+    pooled as PooledFit,
+  );
   const r1 = performance.now();
   const regionPdf = await renderRegionPdf(content);
   const r2 = performance.now();
@@ -182,7 +312,11 @@ async function measure(file: string) {
     `region brief: ${ms(r2 - r0)} for ${records.length.toLocaleString('en-GB')} districts (CPU ${ms((regionCpu.user + regionCpu.system) / 1000)}) — content ${ms(r1 - r0)}, PDF ${ms(r2 - r1)}; ${pages} pages, ${(regionPdf.length / 1024 / 1024).toFixed(2)} MB (goal ≤ ${GOAL.regionMs / 1000} s)`,
     `peak RSS of the process that read the records and made the briefs: ${mb(rss)} (goal < ${GOAL.rssMb} MB); CPU ${ms((process.cpuUsage(cpu0).user + process.cpuUsage(cpu0).system) / 1000)} in all`,
   ];
-  lines.push(`load average while measuring: ${loadavg().map((l) => l.toFixed(1)).join(', ')} on ${cpus().length} cores (wall times stretch when others run; CPU times do not)`);
+  lines.push(
+    `load average while measuring: ${loadavg()
+      .map((l) => l.toFixed(1))
+      .join(', ')} on ${cpus().length} cores (wall times stretch when others run; CPU times do not)`,
+  );
   process.stdout.write(`${lines.join('\n')}\n`);
 }
 
@@ -193,7 +327,10 @@ async function main() {
   try {
     const records = path.join(dir, 'records.json');
     writeFileSync(records, JSON.stringify(prepare()));
-    const child = spawnSync(process.execPath, [...process.execArgv, __filename], { stdio: 'inherit', env: { ...process.env, BENCH_BRIEFS_RECORDS: records } });
+    const child = spawnSync(process.execPath, [...process.execArgv, __filename], {
+      stdio: 'inherit',
+      env: { ...process.env, BENCH_BRIEFS_RECORDS: records },
+    });
     if (child.status !== 0) throw new Error(`the measuring process exited with ${child.status}`);
   } finally {
     rmSync(dir, { recursive: true, force: true });

@@ -46,9 +46,15 @@ function makePanel(seed: number): { district: string; rows: CurveRow[] }[] {
   const u = rng(seed);
   const out: { district: string; rows: CurveRow[] }[] = [];
   for (let g = 0; g < G; g++) {
-    const lx0 = 8.5 + u(), growth = 0.01 + 0.03 * u();
-    const tp = 9 + 2 * u(), b2 = -(0.2 + 0.4 * u()), b1 = -2 * b2 * tp, b3 = 0.3 * u();
-    let lx = lx0, ld = 4 + 2 * u(), e = 0;
+    const lx0 = 8.5 + u(),
+      growth = 0.01 + 0.03 * u();
+    const tp = 9 + 2 * u(),
+      b2 = -(0.2 + 0.4 * u()),
+      b1 = -2 * b2 * tp,
+      b3 = 0.3 * u();
+    let lx = lx0,
+      ld = 4 + 2 * u(),
+      e = 0;
     const rows: CurveRow[] = [];
     for (let t = 0; t < T; t++) {
       lx += growth + 0.015 * normal(u);
@@ -81,16 +87,31 @@ function panelChild(): void {
   }
   const ms = Math.min(...times);
   const mem = process.memoryUsage();
-  process.stdout.write(JSON.stringify({
-    ms, cold, times, rows: rows.length, status: res.status, iterations: res.status === 'ok' ? res.absorption.iterations : null,
-    maxRssMiB: process.resourceUsage().maxRSS / 1024, rssBeforeMiB: rss0 / 2 ** 20, heapUsedMiB: mem.heapUsed / 2 ** 20, heapDeltaMiB: (mem.heapUsed - heap0) / 2 ** 20,
-    turningPoint: res.status === 'ok' ? res.turningPoints[0]?.level : null,
-  }));
+  process.stdout.write(
+    JSON.stringify({
+      ms,
+      cold,
+      times,
+      rows: rows.length,
+      status: res.status,
+      iterations: res.status === 'ok' ? res.absorption.iterations : null,
+      maxRssMiB: process.resourceUsage().maxRSS / 1024,
+      rssBeforeMiB: rss0 / 2 ** 20,
+      heapUsedMiB: mem.heapUsed / 2 ** 20,
+      heapDeltaMiB: (mem.heapUsed - heap0) / 2 ** 20,
+      turningPoint: res.status === 'ok' ? res.turningPoints[0]?.level : null,
+    }),
+  );
 }
 
 function rscriptAvailable(): boolean {
   if (process.argv.includes('--no-r')) return false;
-  try { execFileSync('Rscript', ['--version'], { stdio: 'ignore' }); return true; } catch { return false; }
+  try {
+    execFileSync('Rscript', ['--version'], { stdio: 'ignore' });
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 const R_SCRIPT = `
@@ -116,7 +137,10 @@ cat(sprintf("%.6f\\n", t1 - t0))
 `;
 
 function main(): void {
-  if (process.argv.includes('--panel-child')) { panelChild(); return; }
+  if (process.argv.includes('--panel-child')) {
+    panelChild();
+    return;
+  }
   console.log(`Crestwatch estimation bench: ${G} districts × ${T} years, one control, log form, Newey–West`);
   const panel = makePanel(20261201);
   // warm-up (JIT) on a few districts, then timed passes over all districts
@@ -130,33 +154,49 @@ function main(): void {
     const t0 = performance.now();
     for (const d of panel) {
       const res = fitCurve(d.rows, MODEL);
-      if (r === 0 && res.status === 'ok') { ok++; shapes[res.shape.shape] = (shapes[res.shape.shape] ?? 0) + 1; }
+      if (r === 0 && res.status === 'ok') {
+        ok++;
+        shapes[res.shape.shape] = (shapes[res.shape.shape] ?? 0) + 1;
+      }
     }
     passes.push(performance.now() - t0);
     const c = process.cpuUsage(c0);
     cpu.push((c.user + c.system) / 1000);
   }
   const best = Math.min(...passes);
-  console.log(`load average before the run: ${loadavg().map((v) => v.toFixed(2)).join(', ')} (2 cores shared with other work inflate every figure below)`);
-  console.log(`fitCurve (full, with diagnostics): total ${best.toFixed(1)} ms for ${G} districts = ${(best / G * 1000).toFixed(1)} µs per district` +
-    ` (best of ${REPEAT} wall-clock passes: ${passes.map((p) => p.toFixed(1)).join(', ')} ms; process CPU ${cpu.map((p) => p.toFixed(1)).join(', ')} ms)`);
-  console.log(`  estimated ${ok}/${G}; shapes ${JSON.stringify(shapes)}; goal ≤ 130 ms total: ${best <= 130 ? 'met' : 'NOT met'}`);
+  console.log(
+    `load average before the run: ${loadavg()
+      .map((v) => v.toFixed(2))
+      .join(', ')} (2 cores shared with other work inflate every figure below)`,
+  );
+  console.log(
+    `fitCurve (full, with diagnostics): total ${best.toFixed(1)} ms for ${G} districts = ${((best / G) * 1000).toFixed(1)} µs per district` +
+      ` (best of ${REPEAT} wall-clock passes: ${passes.map((p) => p.toFixed(1)).join(', ')} ms; process CPU ${cpu.map((p) => p.toFixed(1)).join(', ')} ms)`,
+  );
+  console.log(
+    `  estimated ${ok}/${G}; shapes ${JSON.stringify(shapes)}; goal ≤ 130 ms total: ${best <= 130 ? 'met' : 'NOT met'}`,
+  );
   const t1 = performance.now();
   for (const d of panel) fitCurve(d.rows, MODEL, { diagnostics: false });
   const nodiag = performance.now() - t1;
-  console.log(`fitCurve without diagnostics: total ${nodiag.toFixed(1)} ms (${(nodiag / G * 1000).toFixed(1)} µs per district)`);
+  console.log(
+    `fitCurve without diagnostics: total ${nodiag.toFixed(1)} ms (${((nodiag / G) * 1000).toFixed(1)} µs per district)`,
+  );
 
   if (rscriptAvailable()) {
     const dir = mkdtempSync(join(tmpdir(), 'crestwatch-bench-'));
     try {
       const lines = ['district,year,y,x,density'];
-      for (const d of panel) for (const r of d.rows) lines.push(`${d.district},${r.year},${r.y},${r.x},${r.controls!.density}`);
+      for (const d of panel)
+        for (const r of d.rows) lines.push(`${d.district},${r.year},${r.y},${r.x},${r.controls!.density}`);
       writeFileSync(join(dir, 'panel.csv'), lines.join('\n'));
       writeFileSync(join(dir, 'bench.R'), R_SCRIPT);
       const out = execFileSync('Rscript', [join(dir, 'bench.R'), join(dir, 'panel.csv')], { encoding: 'utf8' });
       const rSeconds = Number(out.trim().split('\n').pop());
-      console.log(`R (lm + sandwich::NeweyWest + delta SE per district, same data): ${(rSeconds * 1000).toFixed(0)} ms` +
-        ` → ratio R / fitCurve = ${(rSeconds * 1000 / best).toFixed(1)}× (goal ≥ 50×)`);
+      console.log(
+        `R (lm + sandwich::NeweyWest + delta SE per district, same data): ${(rSeconds * 1000).toFixed(0)} ms` +
+          ` → ratio R / fitCurve = ${((rSeconds * 1000) / best).toFixed(1)}× (goal ≥ 50×)`,
+      );
     } catch (err) {
       console.log(`R comparison failed: ${(err as Error).message}`);
     } finally {
@@ -166,11 +206,17 @@ function main(): void {
     console.log('Rscript not on PATH: R comparison skipped');
   }
 
-  const child = spawnSync(process.execPath, [...process.execArgv, __filename, '--panel-child', '--districts', String(G), '--years', String(T)], { encoding: 'utf8' });
+  const child = spawnSync(
+    process.execPath,
+    [...process.execArgv, __filename, '--panel-child', '--districts', String(G), '--years', String(T)],
+    { encoding: 'utf8' },
+  );
   if (child.status === 0) {
     const p = JSON.parse(child.stdout);
-    console.log(`fitPanel (two-way FE, clustered) on ${p.rows} rows: ${p.ms.toFixed(1)} ms warm (best of 3; first, cold call ${p.cold.toFixed(1)} ms), ${p.iterations} sweep(s); ` +
-      `peak RSS ${p.maxRssMiB.toFixed(0)} MiB (whole child process; ${p.rssBeforeMiB.toFixed(0)} MiB with the 120,000 input rows built, before the fits), heap after ${p.heapUsedMiB.toFixed(0)} MiB`);
+    console.log(
+      `fitPanel (two-way FE, clustered) on ${p.rows} rows: ${p.ms.toFixed(1)} ms warm (best of 3; first, cold call ${p.cold.toFixed(1)} ms), ${p.iterations} sweep(s); ` +
+        `peak RSS ${p.maxRssMiB.toFixed(0)} MiB (whole child process; ${p.rssBeforeMiB.toFixed(0)} MiB with the 120,000 input rows built, before the fits), heap after ${p.heapUsedMiB.toFixed(0)} MiB`,
+    );
   } else {
     console.log(`fitPanel child failed: ${child.stderr}`);
   }

@@ -25,7 +25,8 @@ function scriptsOf(html: string): string[] {
 }
 
 function main(): void {
-  if (!fs.existsSync(path.join(dist, 'index.html'))) throw new Error('dist/index.html is missing: build the web app first');
+  if (!fs.existsSync(path.join(dist, 'index.html')))
+    throw new Error('dist/index.html is missing: build the web app first');
   const kb = (n: number) => `${(n / 1024).toFixed(1)} KB`;
   console.log(`first-route JavaScript of dist/ (load ${os.loadavg()[0].toFixed(2)})`);
   for (const page of PAGES) {
@@ -40,7 +41,9 @@ function main(): void {
       gz += z;
       console.log(`  ${src.padEnd(90)} ${kb(body.length).padStart(10)} ${kb(z).padStart(10)} gz`);
     }
-    console.log(`  total${' '.repeat(86)}${kb(raw).padStart(10)} ${kb(gz).padStart(10)} gz   (goal ≤ 300 KB gz: ${gz <= 300 * 1024 ? 'met' : 'not met'})`);
+    console.log(
+      `  total${' '.repeat(86)}${kb(raw).padStart(10)} ${kb(gz).padStart(10)} gz   (goal ≤ 300 KB gz: ${gz <= 300 * 1024 ? 'met' : 'not met'})`,
+    );
   }
 }
 

@@ -66,7 +66,8 @@ const name200 = (i: number) => `District ${i} `.padEnd(200, 'x');
 const CASES: Case[] = [
   {
     name: '4 million distinct new codes',
-    write: (f) => writeFile(f, 'district_code,year,population\n', (i) => (i < 4_000_000 ? `${i.toString(36)},2020,1\n` : null)),
+    write: (f) =>
+      writeFile(f, 'district_code,year,population\n', (i) => (i < 4_000_000 ? `${i.toString(36)},2020,1\n` : null)),
   },
   {
     name: '50,000 new districts (the cap), 200-character names',
@@ -83,11 +84,17 @@ const CASES: Case[] = [
   },
   {
     name: 'an invalid number in every cell',
-    write: (f) => writeFile(f, 'district_code,year,population,income_pc,emissions_pc\n', (i) => `D${String((i % 24) + 1).padStart(2, '0')},${1900 + (i % 120)},1.2.3,4e,${'9'.repeat(60)}x\n`),
+    write: (f) =>
+      writeFile(
+        f,
+        'district_code,year,population,income_pc,emissions_pc\n',
+        (i) => `D${String((i % 24) + 1).padStart(2, '0')},${1900 + (i % 120)},1.2.3,4e,${'9'.repeat(60)}x\n`,
+      ),
   },
   {
     name: '1 MB lines of digits and x',
-    write: (f) => writeFile(f, 'district_code,indicator,year,value\n', () => `D01,population,2020,${'7'.repeat(1 << 20)}x\n`),
+    write: (f) =>
+      writeFile(f, 'district_code,indicator,year,value\n', () => `D01,population,2020,${'7'.repeat(1 << 20)}x\n`),
   },
 ];
 
@@ -127,9 +134,21 @@ async function main(): Promise<void> {
   const children: ChildProcess[] = [];
   try {
     await buildDatabase();
-    const standIn = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'scripts', 'stand-in.ts'), String(STAND_IN_PORT)], { stdio: ['ignore', 'ignore', 'inherit'] });
+    const standIn = spawn(
+      process.execPath,
+      ['--import', 'tsx', path.join(root, 'scripts', 'stand-in.ts'), String(STAND_IN_PORT)],
+      { stdio: ['ignore', 'ignore', 'inherit'] },
+    );
     children.push(standIn);
-    await waitFor(() => fetch(`http://127.0.0.1:${STAND_IN_PORT}/.well-known/openid-configuration`).then((r) => r.ok, () => false), 'the OAuth stand-in', standIn);
+    await waitFor(
+      () =>
+        fetch(`http://127.0.0.1:${STAND_IN_PORT}/.well-known/openid-configuration`).then(
+          (r) => r.ok,
+          () => false,
+        ),
+      'the OAuth stand-in',
+      standIn,
+    );
     const base = `http://127.0.0.1:${SERVER_PORT}`;
     const lines: string[] = [];
     let refuseMs: number | null = null;
@@ -142,10 +161,25 @@ async function main(): Promise<void> {
       const server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'api', 'server.ts')], {
         cwd: root,
         stdio: ['ignore', 'ignore', 'inherit'],
-        env: { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, PORT: String(SERVER_PORT), OAUTH_STAND_IN_PORT: String(STAND_IN_PORT), LOG_REQUESTS: '0' },
+        env: {
+          ...process.env,
+          CRESTWATCH_MODE: 'test',
+          DATABASE_URL: url,
+          PORT: String(SERVER_PORT),
+          OAUTH_STAND_IN_PORT: String(STAND_IN_PORT),
+          LOG_REQUESTS: '0',
+        },
       });
       try {
-        await waitFor(() => fetch(`${base}/api/health`).then((r) => r.ok, () => false), 'the server', server);
+        await waitFor(
+          () =>
+            fetch(`${base}/api/health`).then(
+              (r) => r.ok,
+              () => false,
+            ),
+          'the server',
+          server,
+        );
         const pid = server.pid!;
         const agent = request.agent(base);
         await agent.get(await startSignIn(agent, DEMO.analyst));
@@ -163,7 +197,9 @@ async function main(): Promise<void> {
           res.status === 200
             ? `200, ${res.body.preview.values.toLocaleString('en')} values, ${res.body.preview.newDistricts.length.toLocaleString('en')} new districts`
             : `${res.status} ${first ? `${first.code} at line ${first.line}, column ${first.column}` : res.body?.error?.code}`;
-        lines.push(`  ${c.name.padEnd(54)} ${(bytes / 1024 / 1024).toFixed(1).padStart(5)} MB  ${(ms / 1000).toFixed(2).padStart(6)} s  server RSS ${idle.toFixed(0)} MB idle, peak ${hwm.toFixed(0).padStart(4)} MB  ${answer}`);
+        lines.push(
+          `  ${c.name.padEnd(54)} ${(bytes / 1024 / 1024).toFixed(1).padStart(5)} MB  ${(ms / 1000).toFixed(2).padStart(6)} s  server RSS ${idle.toFixed(0)} MB idle, peak ${hwm.toFixed(0).padStart(4)} MB  ${answer}`,
+        );
         console.log(lines[lines.length - 1]);
         if (res.status >= 500) throw new Error(`${c.name}: answered ${res.status}`);
         if (c.name.startsWith('1 MB lines')) {
@@ -181,7 +217,10 @@ async function main(): Promise<void> {
       }
     }
     console.log(`
-hostile ingest bench: ${os.cpus().length} cores, load ${os.loadavg().map((l) => l.toFixed(2)).join(' ')}
+hostile ingest bench: ${os.cpus().length} cores, load ${os
+      .loadavg()
+      .map((l) => l.toFixed(2))
+      .join(' ')}
 ${lines.join('\n')}
   worst server peak RSS (VmHWM)   ${worst.toFixed(0)} MB   (goal < 300 MB)
   time to refuse one 1 MB line of digits and x (header + that line, dry run, round trip)   ${refuseMs === null ? '—' : `${refuseMs.toFixed(0)} ms`}`);

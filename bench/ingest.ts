@@ -30,7 +30,11 @@ import { dropDatabase, ensureDatabase, migrate } from '../scripts/database';
 import * as pg from '../scripts/pg';
 import { closeServer, DEMO, listen, signInAs } from '../tests/support/auth';
 
-const CLUSTER: pg.ClusterOptions = { name: 'bench', port: Number(process.env.BENCH_INGEST_DB_PORT) || 54359, fast: true };
+const CLUSTER: pg.ClusterOptions = {
+  name: 'bench',
+  port: Number(process.env.BENCH_INGEST_DB_PORT) || 54359,
+  fast: true,
+};
 const STAND_IN_PORT = Number(process.env.BENCH_INGEST_STAND_IN_PORT) || 54369;
 const TEMPLATE = 'crestwatch_bench_template';
 const DISTRICTS = 5000;
@@ -112,9 +116,24 @@ function timeCopy(db: string, file: string): number {
   const t0 = performance.now();
   const r = spawnSync(
     'psql',
-    ['-X', '-q', '-v', 'ON_ERROR_STOP=1', '-h', '127.0.0.1', '-p', String(CLUSTER.port), '-U', 'postgres', '-d', db,
-      '-c', 'CREATE TABLE bench_bare (district_code text, indicator text, year integer, value double precision, PRIMARY KEY (district_code, indicator, year))',
-      '-c', `\\copy bench_bare FROM '${file.replace(/'/g, "''")}' WITH (FORMAT csv, HEADER true)`],
+    [
+      '-X',
+      '-q',
+      '-v',
+      'ON_ERROR_STOP=1',
+      '-h',
+      '127.0.0.1',
+      '-p',
+      String(CLUSTER.port),
+      '-U',
+      'postgres',
+      '-d',
+      db,
+      '-c',
+      'CREATE TABLE bench_bare (district_code text, indicator text, year integer, value double precision, PRIMARY KEY (district_code, indicator, year))',
+      '-c',
+      `\\copy bench_bare FROM '${file.replace(/'/g, "''")}' WITH (FORMAT csv, HEADER true)`,
+    ],
     { encoding: 'utf8' },
   );
   const ms = performance.now() - t0;
@@ -150,7 +169,10 @@ async function round(i: number, file: string, revision: string): Promise<Round> 
   await sql(name, 'VACUUM ANALYZE');
   const copyMs = timeCopy(name, file);
   const db = createDb(url(name), { pool: { min: 0, max: 10 } });
-  const config = { ...loadConfig({ CRESTWATCH_MODE: 'test', DATABASE_URL: url(name), OAUTH_STAND_IN_PORT: String(STAND_IN_PORT) }), logRequests: false };
+  const config = {
+    ...loadConfig({ CRESTWATCH_MODE: 'test', DATABASE_URL: url(name), OAUTH_STAND_IN_PORT: String(STAND_IN_PORT) }),
+    logRequests: false,
+  };
   const app = createApp({ db, config, log: () => {} });
   const server = await listen(app);
   try {
@@ -170,10 +192,18 @@ async function round(i: number, file: string, revision: string): Promise<Round> 
     const rev = await agent.post('/api/uploads').query({ commit: true }).attach('file', revision);
     const revisionMs = performance.now() - t1;
     clearInterval(sampler2);
-    if (rev.status !== 201) throw new Error(`revision answered ${rev.status}: ${JSON.stringify(rev.body).slice(0, 500)}`);
+    if (rev.status !== 201)
+      throw new Error(`revision answered ${rev.status}: ${JSON.stringify(rev.body).slice(0, 500)}`);
     return {
-      copyMs, uploadMs, timings: res.body.timings, inserted: res.body.upload.counts.insert, rssBeforeMb, rssPeakMb,
-      revisionMs, revisionTimings: rev.body.timings, changed: rev.body.upload.counts.change,
+      copyMs,
+      uploadMs,
+      timings: res.body.timings,
+      inserted: res.body.upload.counts.insert,
+      rssBeforeMb,
+      rssPeakMb,
+      revisionMs,
+      revisionTimings: rev.body.timings,
+      changed: rev.body.upload.counts.change,
     };
   } finally {
     await closeServer(server, app);
@@ -186,12 +216,20 @@ async function main(): Promise<void> {
   const wasRunning = pg.isReady(pg.cluster(CLUSTER));
   pg.start(CLUSTER);
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'crestwatch-ingest-'));
-  const standIn = spawn(process.execPath, ['--import', 'tsx', path.join(__dirname, '..', 'scripts', 'stand-in.ts'), String(STAND_IN_PORT)], {
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
+  const standIn = spawn(
+    process.execPath,
+    ['--import', 'tsx', path.join(__dirname, '..', 'scripts', 'stand-in.ts'), String(STAND_IN_PORT)],
+    {
+      stdio: ['ignore', 'ignore', 'inherit'],
+    },
+  );
   try {
     await waitFor(
-      () => fetch(`http://127.0.0.1:${STAND_IN_PORT}/.well-known/openid-configuration`).then((r) => r.ok, () => false),
+      () =>
+        fetch(`http://127.0.0.1:${STAND_IN_PORT}/.well-known/openid-configuration`).then(
+          (r) => r.ok,
+          () => false,
+        ),
       'the OAuth stand-in',
       standIn,
     );
@@ -204,7 +242,9 @@ async function main(): Promise<void> {
     for (let i = 1; i <= ROUNDS; i++) {
       const r = await round(i, file, revision);
       rounds.push(r);
-      console.log(`round ${i}: \\copy ${(r.copyMs / 1000).toFixed(2)} s, upload ${(r.uploadMs / 1000).toFixed(2)} s, revision ${(r.revisionMs / 1000).toFixed(2)} s (load ${os.loadavg()[0].toFixed(2)})`);
+      console.log(
+        `round ${i}: \\copy ${(r.copyMs / 1000).toFixed(2)} s, upload ${(r.uploadMs / 1000).toFixed(2)} s, revision ${(r.revisionMs / 1000).toFixed(2)} s (load ${os.loadavg()[0].toFixed(2)})`,
+      );
     }
     // Least-disturbed figures: the fastest \copy and the fastest upload over the rounds.
     const best = rounds.reduce((a, b) => (b.uploadMs < a.uploadMs ? b : a));

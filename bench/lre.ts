@@ -13,4 +13,8 @@ const rows = NIST_DATASETS.map((name) => {
   return lreRow(c, fitNist(c));
 });
 console.log(formatLreTable(rows));
-console.log(`load average ${loadavg().map((v) => v.toFixed(2)).join(' ')}`);
+console.log(
+  `load average ${loadavg()
+    .map((v) => v.toFixed(2))
+    .join(' ')}`,
+);

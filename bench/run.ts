@@ -39,18 +39,20 @@ const DB = 'cw_bench_run';
 
 function startWorkers(n: number, url: string): Promise<ChildProcess[]> {
   return Promise.all(
-    Array.from({ length: n }, () =>
-      new Promise<ChildProcess>((resolve, reject) => {
-        const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'api', 'worker.ts')], {
-          cwd: root,
-          env: { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, LOG_REQUESTS: '0' },
-          stdio: ['ignore', 'pipe', 'inherit'],
-        });
-        child.stdout!.on('data', (b: Buffer) => {
-          if (b.toString().includes('is working jobs')) resolve(child);
-        });
-        child.once('exit', (code) => reject(new Error(`worker exited ${code}`)));
-      }),
+    Array.from(
+      { length: n },
+      () =>
+        new Promise<ChildProcess>((resolve, reject) => {
+          const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'api', 'worker.ts')], {
+            cwd: root,
+            env: { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, LOG_REQUESTS: '0' },
+            stdio: ['ignore', 'pipe', 'inherit'],
+          });
+          child.stdout!.on('data', (b: Buffer) => {
+            if (b.toString().includes('is working jobs')) resolve(child);
+          });
+          child.once('exit', (code) => reject(new Error(`worker exited ${code}`)));
+        }),
     ),
   );
 }
@@ -83,7 +85,11 @@ async function timedRun(ctx: AppContext, workers: number): Promise<Record<string
     const finished = new Date(r.finishedAt!).getTime();
     const t = r.timings!;
     const p0 = performance.now();
-    const published = await publishRun(ctx, { id: 0, email: 'bench@crestwatch.example', name: 'bench', role: 'analyst', active: true } as never, run.id).catch(async (err) => {
+    const published = await publishRun(
+      ctx,
+      { id: 0, email: 'bench@crestwatch.example', name: 'bench', role: 'analyst', active: true } as never,
+      run.id,
+    ).catch(async (err) => {
       throw err;
     });
     const publishMs = performance.now() - p0;
@@ -115,14 +121,37 @@ async function main(): Promise<void> {
   const url = testDatabaseUrl(DB);
   const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: url };
   const db = createDb(url);
-  const jobs = await startJobs({ databaseUrl: url, expireInSeconds: 300, pollingIntervalSeconds: 0.5, maintenanceIntervalSeconds: 30, schedule: false });
-  const ctx: AppContext = { db, config, log: () => {}, mailer: createMailer(config), jobs, compute: createComputePool(config.computePoolSize) };
+  const jobs = await startJobs({
+    databaseUrl: url,
+    expireInSeconds: 300,
+    pollingIntervalSeconds: 0.5,
+    maintenanceIntervalSeconds: 30,
+    schedule: false,
+  });
+  const ctx: AppContext = {
+    db,
+    config,
+    log: () => {},
+    mailer: createMailer(config),
+    jobs,
+    compute: createComputePool(config.computePoolSize),
+  };
   try {
-    await db('indicators').insert(DEMO_INDICATORS.map((i) => ({ code: i.code, name: i.name, unit: i.unit, description: i.description, must_be_positive: i.mustBePositive })));
+    await db('indicators').insert(
+      DEMO_INDICATORS.map((i) => ({
+        code: i.code,
+        name: i.name,
+        unit: i.unit,
+        description: i.description,
+        must_be_positive: i.mustBePositive,
+      })),
+    );
     await db('users').insert({ id: 0, email: 'bench@crestwatch.example', name: 'bench', role: 'analyst' });
     const l0 = performance.now();
     await insertSyntheticDistricts(db, DISTRICTS, { years: YEARS, seed: 42, prefix: 'B' });
-    console.log(`loaded ${DISTRICTS} districts × ${YEARS} years in ${((performance.now() - l0) / 1000).toFixed(1)} s (load ${load().toFixed(2)}, ${os.cpus().length} cores)`);
+    console.log(
+      `loaded ${DISTRICTS} districts × ${YEARS} years in ${((performance.now() - l0) / 1000).toFixed(1)} s (load ${load().toFixed(2)}, ${os.cpus().length} cores)`,
+    );
     // A first published run, so the timed runs compare with a previous one.
     const first = await timedRun(ctx, 1);
     const results: [string, Record<string, number>][] = [];
@@ -138,18 +167,27 @@ async function main(): Promise<void> {
       results.push([`${LARGE}, 1 worker`, { ...large, yardMs: yard }]);
     }
     const sec = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
-    console.log(`\nfull runs × ${YEARS} years, 5 variants each (main, no controls, cubic, last 20 years, level); phases summed over chunks`);
-    console.log('districts, workers   run→review  publish   total   | fits         reads        writes       pooled  | yardstick: fits alone  run/yardstick  load');
+    console.log(
+      `\nfull runs × ${YEARS} years, 5 variants each (main, no controls, cubic, last 20 years, level); phases summed over chunks`,
+    );
+    console.log(
+      'districts, workers   run→review  publish   total   | fits         reads        writes       pooled  | yardstick: fits alone  run/yardstick  load',
+    );
     for (const [k, v] of results) {
       const share = (x: number) => `${sec(x)} ${`(${((100 * x) / v.runToReviewMs).toFixed(0)}%)`.padStart(6)}`;
       console.log(
         `${k.padEnd(20)} ${sec(v.runToReviewMs).padStart(9)} ${sec(v.publishMs).padStart(8)} ${sec(v.totalMs).padStart(8)} | ${share(v.fitMs)} ${share(v.readMs)} ${share(v.writeMs)} ${sec(v.pooledMs)} | ${sec(v.yardMs).padStart(10)}            ${(v.runToReviewMs / v.yardMs).toFixed(2).padStart(5)}×       ${v.load.toFixed(2)}`,
       );
     }
-    for (const [k, v] of results) console.log(`${k}: start read ${v.startReadMs.toFixed(0)} ms, chunk reads ${v.chunkReadMs.toFixed(0)} ms, writes ${v.writeMs.toFixed(0)} ms`);
+    for (const [k, v] of results)
+      console.log(
+        `${k}: start read ${v.startReadMs.toFixed(0)} ms, chunk reads ${v.chunkReadMs.toFixed(0)} ms, writes ${v.writeMs.toFixed(0)} ms`,
+      );
     console.log('(phases are summed over chunks, so with two workers they can exceed the wall time)');
     const one = results[0][1];
-    console.log(`goal: total ≤ 2 s with one worker at ${DISTRICTS} districts — ${one.totalMs <= 2000 ? 'met' : 'not met'} (${sec(one.totalMs)} at load ${one.load.toFixed(2)})`);
+    console.log(
+      `goal: total ≤ 2 s with one worker at ${DISTRICTS} districts — ${one.totalMs <= 2000 ? 'met' : 'not met'} (${sec(one.totalMs)} at load ${one.load.toFixed(2)})`,
+    );
   } finally {
     await jobs.stop();
     ctx.mailer.close();

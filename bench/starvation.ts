@@ -18,7 +18,10 @@ import globalTeardown from '../tests/support/global-teardown';
 import { signedInApp } from '../tests/support/signed-in-app';
 import { describeTimings, readersUnderLoad } from '../tests/support/starvation';
 
-const load = () => loadavg().map((l) => l.toFixed(2)).join(' ');
+const load = () =>
+  loadavg()
+    .map((l) => l.toFixed(2))
+    .join(' ');
 
 async function measure(label: string, computePoolSize: number): Promise<void> {
   const s = await signedInApp({ as: 'official', config: { computePoolSize } });
@@ -28,14 +31,20 @@ async function measure(label: string, computePoolSize: number): Promise<void> {
     const people = [];
     for (const email of emails) people.push((await signInAs(s.server, email)).agent);
     // Warm up: one fit (loads the worker thread and the engine), one card, one health.
-    await people[0].post('/api/estimate').send({ model: { form: 'quadratic', transform: 'log', covariance: 'hc1' }, rows: Array.from({ length: 12 }, (_, i) => ({ year: 2000 + i, x: 1000 + 100 * i, y: 5 + i - 0.05 * i * i })) });
+    await people[0].post('/api/estimate').send({
+      model: { form: 'quadratic', transform: 'log', covariance: 'hc1' },
+      rows: Array.from({ length: 12 }, (_, i) => ({ year: 2000 + i, x: 1000 + 100 * i, y: 5 + i - 0.05 * i * i })),
+    });
     await s.agent.get('/api/districts/D01');
     await s.agent.get('/api/health');
     const idle = await readersUnderLoad([], s.agent, () => true);
     const t = await readersUnderLoad(people, s.agent, () => true);
-    if (t.heavy.some((h) => h.status !== 200)) throw new Error(`a heavy estimate answered ${t.heavy.map((h) => h.status).join(',')}`);
+    if (t.heavy.some((h) => h.status !== 200))
+      throw new Error(`a heavy estimate answered ${t.heavy.map((h) => h.status).join(',')}`);
     console.log(`${label}`);
-    console.log(`  idle:   card ${idle.readers.find((r) => r.what === 'card')!.ms.toFixed(0)} ms, health ${idle.readers.find((r) => r.what === 'health')!.ms.toFixed(0)} ms`);
+    console.log(
+      `  idle:   card ${idle.readers.find((r) => r.what === 'card')!.ms.toFixed(0)} ms, health ${idle.readers.find((r) => r.what === 'health')!.ms.toFixed(0)} ms`,
+    );
     console.log(`  loaded: ${describeTimings(t)}`);
     console.log(`  load average (1, 5, 15 min): ${load()}`);
   } finally {
@@ -48,7 +57,8 @@ async function main(): Promise<void> {
   try {
     console.log(`load average before (1, 5, 15 min): ${load()}`);
     await measure('fits inline on the event loop (COMPUTE_POOL_SIZE=0, before the pool)', 0);
-    const size = loadConfig({ CRESTWATCH_MODE: 'test', COMPUTE_POOL_SIZE: process.env.COMPUTE_POOL_SIZE }).computePoolSize || 1;
+    const size =
+      loadConfig({ CRESTWATCH_MODE: 'test', COMPUTE_POOL_SIZE: process.env.COMPUTE_POOL_SIZE }).computePoolSize || 1;
     await measure(`fits in the compute pool (COMPUTE_POOL_SIZE=${size})`, size);
   } finally {
     await globalTeardown();

@@ -43,7 +43,18 @@ const VIEWPORT = { width: 390, height: 844 };
 const DB = 'cw_bench_web';
 const root = path.resolve(__dirname, '..');
 
-type Figures = { timeline: string; lcpMs: number; lcpElement: string; rowMs: number | null; headlineMs: number | null; chartMs: number | null; jsRaw: number; jsGzip: number; jsFiles: number; apiMs: number | null };
+type Figures = {
+  timeline: string;
+  lcpMs: number;
+  lcpElement: string;
+  rowMs: number | null;
+  headlineMs: number | null;
+  chartMs: number | null;
+  jsRaw: number;
+  jsGzip: number;
+  jsFiles: number;
+  apiMs: number | null;
+};
 
 // Recorded in the page from navigation start: LCP entries, and when the headline and the
 // chart's first SVG path appeared in the DOM (checked every animation frame).
@@ -64,9 +75,17 @@ const PROBE = `
 `;
 
 async function standIn(): Promise<ChildProcess | null> {
-  const up = async () => fetch(`http://127.0.0.1:${TEST_STAND_IN_PORT}/.well-known/openid-configuration`).then((r) => r.ok, () => false);
+  const up = async () =>
+    fetch(`http://127.0.0.1:${TEST_STAND_IN_PORT}/.well-known/openid-configuration`).then(
+      (r) => r.ok,
+      () => false,
+    );
   if (await up()) return null;
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'scripts', 'stand-in.ts'), String(TEST_STAND_IN_PORT)], { cwd: root, stdio: 'ignore' });
+  const child = spawn(
+    process.execPath,
+    ['--import', 'tsx', path.join(root, 'scripts', 'stand-in.ts'), String(TEST_STAND_IN_PORT)],
+    { cwd: root, stdio: 'ignore' },
+  );
   for (let i = 0; i < 100; i++) {
     if (await up()) return child;
     await new Promise((r) => setTimeout(r, 100));
@@ -76,7 +95,12 @@ async function standIn(): Promise<ChildProcess | null> {
 }
 
 /** Loads `url` cold in a fresh page, throttled; returns the figures once the probe has seen `ready` drawn. */
-async function measure(context: BrowserContext, url: string, ready: 'row' | 'chart', jsFiles: Map<string, number>): Promise<Figures> {
+async function measure(
+  context: BrowserContext,
+  url: string,
+  ready: 'row' | 'chart',
+  jsFiles: Map<string, number>,
+): Promise<Figures> {
   const page: Page = await context.newPage();
   const cdp: CDPSession = await context.newCDPSession(page);
   await cdp.send('Network.enable');
@@ -90,7 +114,8 @@ async function measure(context: BrowserContext, url: string, ready: 'row' | 'cha
     if (e.type === 'Script') scripts.set(e.requestId, e.response.url);
   });
   cdp.on('Network.requestWillBeSent', (e: { requestId: string; request: { url: string }; timestamp: number }) => {
-    if (/\/api\/(districts|region)(\/[A-Za-z0-9]+\/estimate)?$/.test(new URL(e.request.url).pathname)) apiStart.set(e.requestId, e.timestamp);
+    if (/\/api\/(districts|region)(\/[A-Za-z0-9]+\/estimate)?$/.test(new URL(e.request.url).pathname))
+      apiStart.set(e.requestId, e.timestamp);
   });
   cdp.on('Network.loadingFinished', (e: { requestId: string; encodedDataLength: number; timestamp: number }) => {
     const u = scripts.get(e.requestId);
@@ -103,7 +128,11 @@ async function measure(context: BrowserContext, url: string, ready: 'row' | 'cha
   });
   await page.addInitScript(PROBE);
   await page.goto(url, { waitUntil: 'load' });
-  await page.waitForFunction((key) => Boolean((window as unknown as { __seen?: Record<string, number> }).__seen?.[key]), ready, { timeout: 120_000 });
+  await page.waitForFunction(
+    (key) => Boolean((window as unknown as { __seen?: Record<string, number> }).__seen?.[key]),
+    ready,
+    { timeout: 120_000 },
+  );
   // Let the last paints land before reading LCP (it is final once the page is idle).
   await page.waitForTimeout(1500);
   const r = await page.evaluate(() => {
@@ -115,7 +144,13 @@ async function measure(context: BrowserContext, url: string, ready: 'row' | 'cha
     const api = res.filter((e) => e.name.includes('/api/'));
     const apiStart = api.length ? Math.min(...api.map((e) => e.startTime)) : NaN;
     const apiEnd = api.length ? Math.max(...api.map((e) => e.responseEnd)) : NaN;
-    return { lcp: last?.t ?? NaN, el: last?.el ?? '?', seen: w.__seen, marks: [nav?.responseEnd ?? NaN, scriptsEnd, nav?.domContentLoadedEventEnd ?? NaN, apiStart, apiEnd], calls: api.length };
+    return {
+      lcp: last?.t ?? NaN,
+      el: last?.el ?? '?',
+      seen: w.__seen,
+      marks: [nav?.responseEnd ?? NaN, scriptsEnd, nav?.domContentLoadedEventEnd ?? NaN, apiStart, apiEnd],
+      calls: api.length,
+    };
   });
   const [html, scriptsIn, dcl, apiFirst, apiLast] = r.marks.map((v) => (Number.isNaN(v) ? '—' : (v / 1000).toFixed(2)));
   const timeline = `html ${html} · scripts in ${scriptsIn} · DOMContentLoaded ${dcl} · first API call ${apiFirst} · last API answer ${apiLast} (${r.calls} calls)`;
@@ -125,7 +160,18 @@ async function measure(context: BrowserContext, url: string, ready: 'row' | 'cha
     return s + (fs.existsSync(local) ? gzipSync(fs.readFileSync(local)).length : 0);
   }, 0);
   await page.close();
-  return { timeline, lcpMs: r.lcp, lcpElement: r.el, rowMs: r.seen.row ?? null, headlineMs: r.seen.headline ?? null, chartMs: r.seen.chart ?? null, jsRaw, jsGzip, jsFiles: files.length, apiMs };
+  return {
+    timeline,
+    lcpMs: r.lcp,
+    lcpElement: r.el,
+    rowMs: r.seen.row ?? null,
+    headlineMs: r.seen.headline ?? null,
+    chartMs: r.seen.chart ?? null,
+    jsRaw,
+    jsGzip,
+    jsFiles: files.length,
+    apiMs,
+  };
 }
 
 type MapFigures = { answerEndMs: number; drawnMs: number; afterAnswerMs: number; gzipBytes: number };
@@ -147,10 +193,16 @@ async function measureMap(context: BrowserContext, url: string): Promise<MapFigu
   });
   await page.addInitScript(`localStorage.setItem('crestwatch.regionView', 'map');${PROBE}`);
   await page.goto(url, { waitUntil: 'load' });
-  await page.waitForFunction(() => Boolean((window as unknown as { __seen?: Record<string, number> }).__seen?.map), undefined, { timeout: 120_000 });
+  await page.waitForFunction(
+    () => Boolean((window as unknown as { __seen?: Record<string, number> }).__seen?.map),
+    undefined,
+    { timeout: 120_000 },
+  );
   const r = await page.evaluate(() => {
     const w = window as unknown as { __seen: Record<string, number> };
-    const answer = (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).filter((e) => e.name.includes('/api/boundaries'));
+    const answer = (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).filter((e) =>
+      e.name.includes('/api/boundaries'),
+    );
     return { answerEnd: answer.length ? answer[answer.length - 1].responseEnd : NaN, drawn: w.__seen.map };
   });
   // The choice is remembered: put the list back for the other measurements.
@@ -167,7 +219,8 @@ const ms = (v: number | null) => (v === null || Number.isNaN(v) ? '—' : `${(v 
 const kb = (v: number) => `${(v / 1024).toFixed(0)} KB`;
 
 async function main(): Promise<void> {
-  if (!fs.existsSync('/usr/bin/chromium')) throw new Error('needs Debian’s Chromium at /usr/bin/chromium (apt-get install -y chromium)');
+  if (!fs.existsSync('/usr/bin/chromium'))
+    throw new Error('needs Debian’s Chromium at /usr/bin/chromium (apt-get install -y chromium)');
   buildWebIfStale();
   pg.start(TEST_CLUSTER);
   await prepareTestTemplate();
@@ -181,7 +234,15 @@ async function main(): Promise<void> {
   const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
     headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   try {
     await seedDemoIfEmpty(db);
@@ -198,10 +259,20 @@ async function main(): Promise<void> {
     const gridFile = path.join(os.tmpdir(), `cw-bench-boundaries-${process.pid}.geojson`);
     fs.writeFileSync(gridFile, JSON.stringify(grid.geojson));
     const b0 = performance.now();
-    const loaded = await receiveBoundaries(db, { path: gridFile, originalName: 'bench.geojson', size: fs.statSync(gridFile).size, checksum: 'bench' }, { codeProperty: 'code', commit: true, repair: false }, { id: null, email: null }, { maxVertices: 100_000 });
+    const loaded = await receiveBoundaries(
+      db,
+      { path: gridFile, originalName: 'bench.geojson', size: fs.statSync(gridFile).size, checksum: 'bench' },
+      { codeProperty: 'code', commit: true, repair: false },
+      { id: null, email: null },
+      { maxVertices: 100_000 },
+    );
     fs.rmSync(gridFile, { force: true });
-    console.log(`loaded boundaries for ${loaded.counts.matched} districts in ${((performance.now() - b0) / 1000).toFixed(1)} s`);
-    console.log(`loaded ${nDistricts} districts in ${((performance.now() - l0) / 1000).toFixed(1)} s; fitting and publishing a run…`);
+    console.log(
+      `loaded boundaries for ${loaded.counts.matched} districts in ${((performance.now() - b0) / 1000).toFixed(1)} s`,
+    );
+    console.log(
+      `loaded ${nDistricts} districts in ${((performance.now() - l0) / 1000).toFixed(1)} s; fitting and publishing a run…`,
+    );
     const r0 = performance.now();
     await publishDefaultRun(app, url, { timeoutMs: 600_000 });
     console.log(`published in ${((performance.now() - r0) / 1000).toFixed(1)} s`);
@@ -209,7 +280,12 @@ async function main(): Promise<void> {
       const s = app.listen(0, '127.0.0.1', () => resolve(s));
     });
     const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-    const context = await browser.newContext({ viewport: VIEWPORT, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
+    const context = await browser.newContext({
+      viewport: VIEWPORT,
+      deviceScaleFactor: 2,
+      isMobile: true,
+      hasTouch: true,
+    });
     const offLoopback: string[] = [];
     context.on('request', (req) => {
       if (!/^(data:|blob:|http:\/\/127\.0\.0\.1:\d+\/)/.test(req.url())) offLoopback.push(req.url());
@@ -239,7 +315,9 @@ async function main(): Promise<void> {
           `  API ${ms(median(f.map((x) => x.apiMs ?? NaN))).padStart(7)}` +
           `  JS ${kb(f[0].jsRaw)} raw / ${kb(f[0].jsGzip)} gzip in ${f[0].jsFiles} files`,
       );
-    console.log(`\n${nDistricts} districts, ${VIEWPORT.width}×${VIEWPORT.height}, ${CPU_SLOWDOWN}× CPU throttling, cold cache, medians of ${PASSES} passes`);
+    console.log(
+      `\n${nDistricts} districts, ${VIEWPORT.width}×${VIEWPORT.height}, ${CPU_SLOWDOWN}× CPU throttling, cold cache, medians of ${PASSES} passes`,
+    );
     for (let i = 0; i < PASSES; i++) {
       console.log(
         `pass ${i + 1}: region LCP ${ms(region[i].lcpMs)}, first row ${ms(region[i].rowMs)}; card LCP ${ms(card[i].lcpMs)}, headline ${ms(card[i].headlineMs)}, chart ${ms(card[i].chartMs)}`,
@@ -256,17 +334,25 @@ async function main(): Promise<void> {
     const chart = median(card.map((x) => x.chartMs ?? NaN));
     const headline = median(card.map((x) => x.headlineMs ?? NaN));
     const firstRow = median(region.map((x) => x.rowMs ?? NaN));
-    console.log(`goal LCP ≤ 2.5 s: region ${regionLcp <= 2500 ? 'met' : 'not met'}, card ${cardLcp <= 2500 ? 'met' : 'not met'}`);
+    console.log(
+      `goal LCP ≤ 2.5 s: region ${regionLcp <= 2500 ? 'met' : 'not met'}, card ${cardLcp <= 2500 ? 'met' : 'not met'}`,
+    );
     // LCP can be the pre-rendered page's own text, painted before any data; the times the
     // first row and the headline were drawn are held to the same 2.5 s.
-    console.log(`same bound for content: first row ${firstRow <= 2500 ? 'met' : 'not met'}, card headline ${headline <= 2500 ? 'met' : 'not met'}`);
+    console.log(
+      `same bound for content: first row ${firstRow <= 2500 ? 'met' : 'not met'}, card headline ${headline <= 2500 ? 'met' : 'not met'}`,
+    );
     console.log(`goal chart ≤ 3 s: ${chart <= 3000 ? 'met' : 'not met'}`);
-    console.log(`goal first-route JS ≤ 600 KB gzipped: ${region[0].jsGzip <= 600 * 1024 ? 'met' : 'not met'} (${kb(region[0].jsGzip)})`);
+    console.log(
+      `goal first-route JS ≤ 600 KB gzipped: ${region[0].jsGzip <= 600 * 1024 ? 'met' : 'not met'} (${kb(region[0].jsGzip)})`,
+    );
     const mapAfter = median(maps.map((m) => m.afterAnswerMs));
     console.log(
       `region map (phone): boundaries answer ${kb(maps[0].gzipBytes)} on the wire (gzip, with headers); answer in at ${ms(median(maps.map((m) => m.answerEndMs)))}, map drawn at ${ms(median(maps.map((m) => m.drawnMs)))}, ${ms(mapAfter)} after the answer`,
     );
-    console.log(`goal map drawn ≤ 1.5 s after the answer: ${mapAfter <= 1500 ? 'met' : 'not met'}; goal answer ≤ 250 KB gzipped: ${maps[0].gzipBytes <= 250 * 1024 ? 'met' : 'not met'}`);
+    console.log(
+      `goal map drawn ≤ 1.5 s after the answer: ${mapAfter <= 1500 ? 'met' : 'not met'}; goal answer ≤ 250 KB gzipped: ${maps[0].gzipBytes <= 250 * 1024 ? 'met' : 'not met'}`,
+    );
     console.log(`requests beyond 127.0.0.1: ${offLoopback.length}`);
     await context.close();
   } finally {

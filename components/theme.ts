@@ -136,7 +136,12 @@ export const type = {
   label: { fontFamily: fonts.semibold, fontSize: textSize(13), lineHeight: textSize(18) },
   body: { fontFamily: fonts.regular, fontSize: textSize(15), lineHeight: textSize(22) },
   bodyStrong: { fontFamily: fonts.semibold, fontSize: textSize(15), lineHeight: textSize(22) },
-  numeric: { fontFamily: fonts.regular, fontSize: textSize(14), lineHeight: textSize(20), fontVariant: ['tabular-nums'] },
+  numeric: {
+    fontFamily: fonts.regular,
+    fontSize: textSize(14),
+    lineHeight: textSize(20),
+    fontVariant: ['tabular-nums'],
+  },
   title: { fontFamily: fonts.semibold, fontSize: textSize(18), lineHeight: textSize(24) },
   heading: { fontFamily: fonts.bold, fontSize: textSize(22), lineHeight: textSize(28) },
   display: { fontFamily: fonts.bold, fontSize: textSize(28), lineHeight: textSize(34) },
@@ -181,5 +186,18 @@ export const focusRing = {
 /** The same ring drawn inside the element, for full-bleed rows a scroll view would clip. */
 export const focusRingInset = { ...focusRing, outlineOffset: -3 } as const;
 
-export const theme = { colors, toneColors, standingColors, chartColors, space, radius, fonts, type, breakpoints, layout, focusRing, focusRingInset } as const;
+export const theme = {
+  colors,
+  toneColors,
+  standingColors,
+  chartColors,
+  space,
+  radius,
+  fonts,
+  type,
+  breakpoints,
+  layout,
+  focusRing,
+  focusRingInset,
+} as const;
 export type Theme = typeof theme;

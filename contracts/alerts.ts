@@ -17,7 +17,11 @@ export type DistrictAlert = z.infer<typeof DistrictAlertSchema>;
 export const DistrictAlertsResponseSchema = z.object({ alerts: z.array(DistrictAlertSchema) });
 export type DistrictAlertsResponse = z.infer<typeof DistrictAlertsResponseSchema>;
 
-export const FeedAlertSchema = z.extend(DistrictAlertSchema, { districtCode: z.string(), districtName: z.string(), read: z.boolean() });
+export const FeedAlertSchema = z.extend(DistrictAlertSchema, {
+  districtCode: z.string(),
+  districtName: z.string(),
+  read: z.boolean(),
+});
 export type FeedAlert = z.infer<typeof FeedAlertSchema>;
 export const AlertFeedResponseSchema = z.object({ alerts: z.array(FeedAlertSchema), unread: z.number() });
 export type AlertFeedResponse = z.infer<typeof AlertFeedResponseSchema>;

@@ -10,11 +10,29 @@ import { PAPER_SIZES } from './settings';
 
 /** Semantic colours of a chart; each renderer maps them to its own palette. */
 export const BriefToneSchema = z.enum([
-  'ink', 'muted', 'grid', 'curve', 'pooled', 'band', 'threshold', 'latest', 'point', 'projection',
+  'ink',
+  'muted',
+  'grid',
+  'curve',
+  'pooled',
+  'band',
+  'threshold',
+  'latest',
+  'point',
+  'projection',
   // the region map: a standing's mark, its fill (a light tint), the land of other districts, the sea
-  'approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable',
-  'approaching_fill', 'at_turn_fill', 'past_turn_fill', 'no_turn_fill', 'not_estimable_fill',
-  'land', 'sea',
+  'approaching',
+  'at_turn',
+  'past_turn',
+  'no_turn',
+  'not_estimable',
+  'approaching_fill',
+  'at_turn_fill',
+  'past_turn_fill',
+  'no_turn_fill',
+  'not_estimable_fill',
+  'land',
+  'sea',
 ]);
 export type BriefTone = z.infer<typeof BriefToneSchema>;
 
@@ -66,7 +84,12 @@ export const ChartSceneSchema = z.object({
 export type ChartScene = z.infer<typeof ChartSceneSchema>;
 
 /** One labelled figure of a brief: a value and a line of detail under it. */
-export const BriefFigureSchema = z.object({ key: z.string(), label: z.string(), value: z.string(), detail: nullableString });
+export const BriefFigureSchema = z.object({
+  key: z.string(),
+  label: z.string(),
+  value: z.string(),
+  detail: nullableString,
+});
 export type BriefFigure = z.infer<typeof BriefFigureSchema>;
 
 /** Where the numbers came from, printed on every page. */
@@ -142,7 +165,10 @@ export const RegionBriefContentSchema = z.object({
   pooled: z.object({ figures: z.array(BriefFigureSchema), chart: z.nullable(ChartSceneSchema), note: nullableString }),
   /** The standings map, the same scene as the region view's (null: no boundaries loaded). */
   map: z.optional(z.nullable(ChartSceneSchema)),
-  table: z.object({ columns: z.array(z.object({ key: z.enum(REGION_COLUMNS), label: z.string() })), rows: z.array(RegionBriefRowSchema) }),
+  table: z.object({
+    columns: z.array(z.object({ key: z.enum(REGION_COLUMNS), label: z.string() })),
+    rows: z.array(RegionBriefRowSchema),
+  }),
   modelLine: z.string(),
   cautions: z.array(z.string()),
   trace: BriefTraceSchema,

@@ -34,7 +34,9 @@ export const DistrictSummarySchema = z.object({ ...districtHeaderFields, latest:
 export type DistrictSummary = z.infer<typeof DistrictSummarySchema>;
 
 /** A row of the district list: its summary and its standing in the latest published run. */
-export const DistrictListItemSchema = z.extend(DistrictSummarySchema, { estimate: z.optional(z.nullable(EstimateSummarySchema)) });
+export const DistrictListItemSchema = z.extend(DistrictSummarySchema, {
+  estimate: z.optional(z.nullable(EstimateSummarySchema)),
+});
 export type DistrictListItem = z.infer<typeof DistrictListItemSchema>;
 
 export const DistrictListResponseSchema = z.object({

@@ -131,9 +131,13 @@ export const EstimateRecordSchema = z.object({
     note: nullableString,
   }),
   shape: z.nullable(z.object({ shape: ShapeSchema, decidedBy: z.string(), notes: z.array(z.string()) })),
-  uTest: z.nullable(z.object({ statistic: nullableNumber, pValue: nullableNumber, rejects: z.boolean(), orientation: z.string() })),
+  uTest: z.nullable(
+    z.object({ statistic: nullableNumber, pValue: nullableNumber, rejects: z.boolean(), orientation: z.string() }),
+  ),
   gapPercent: nullableNumber,
-  elasticity: z.nullable(z.object({ value: nullableNumber, se: nullableNumber, lo: nullableNumber, hi: nullableNumber })),
+  elasticity: z.nullable(
+    z.object({ value: nullableNumber, se: nullableNumber, lo: nullableNumber, hi: nullableNumber }),
+  ),
   trendPerYear: nullableNumber,
   projection: z.nullable(
     z.object({
@@ -176,12 +180,24 @@ export const DistrictEstimateResponseSchema = z.object({
   note: z.nullable(AnalystNoteSchema),
   /** Dated notice while the latest publish corrected this district's answer (api/runs/corrections.ts). */
   correction: z.optional(
-    z.nullable(z.object({ softwareVersion: z.string(), previousSoftware: z.string(), date: z.string(), fields: z.array(z.string()), text: z.string() })),
+    z.nullable(
+      z.object({
+        softwareVersion: z.string(),
+        previousSoftware: z.string(),
+        date: z.string(),
+        fields: z.array(z.string()),
+        text: z.string(),
+      }),
+    ),
   ),
 });
 export type DistrictEstimateResponse = z.infer<typeof DistrictEstimateResponseSchema>;
 
-export const RegionDistrictSchema = z.object({ code: z.string(), name: z.string(), estimate: z.nullable(EstimateSummarySchema) });
+export const RegionDistrictSchema = z.object({
+  code: z.string(),
+  name: z.string(),
+  estimate: z.nullable(EstimateSummarySchema),
+});
 export type RegionDistrict = z.infer<typeof RegionDistrictSchema>;
 
 export const RegionResponseSchema = z.object({
@@ -201,9 +217,16 @@ export const RegionResponseSchema = z.object({
 });
 export type RegionResponse = z.infer<typeof RegionResponseSchema>;
 
-export const HistoryEntrySchema = z.extend(EstimateSummarySchema, { runId: z.number(), publishedAt: isoTime, dataVersion: z.number() });
+export const HistoryEntrySchema = z.extend(EstimateSummarySchema, {
+  runId: z.number(),
+  publishedAt: isoTime,
+  dataVersion: z.number(),
+});
 export type HistoryEntry = z.infer<typeof HistoryEntrySchema>;
-export const DistrictHistoryResponseSchema = z.object({ district: DistrictRefSchema, history: z.array(HistoryEntrySchema) });
+export const DistrictHistoryResponseSchema = z.object({
+  district: DistrictRefSchema,
+  history: z.array(HistoryEntrySchema),
+});
 export type DistrictHistoryResponse = z.infer<typeof DistrictHistoryResponseSchema>;
 
 /**

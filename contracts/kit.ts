@@ -37,7 +37,9 @@ interface OptionalSchema<T> extends Schema<T | undefined> {
 type Flat<T> = { [K in keyof T]: T[K] } & {};
 type OptionalKeys<S extends Shape> = { [K in keyof S]: S[K] extends OptionalSchema<unknown> ? K : never }[keyof S];
 export type ObjectOf<S extends Shape> = Flat<
-  { -readonly [K in Exclude<keyof S, OptionalKeys<S>>]: Infer<S[K]> } & { -readonly [K in OptionalKeys<S>]?: Infer<S[K]> }
+  { -readonly [K in Exclude<keyof S, OptionalKeys<S>>]: Infer<S[K]> } & {
+    -readonly [K in OptionalKeys<S>]?: Infer<S[K]>;
+  }
 >;
 
 export interface ObjectSchema<S extends Shape, T = ObjectOf<S>> extends Schema<T> {
@@ -67,17 +69,24 @@ export function looseObject<S extends Shape>(shape: S): ObjectSchema<S, ObjectOf
   return { node: { kind: 'object', shape, loose: true }, shape };
 }
 
-export function extend<S extends Shape, E extends Shape>(base: ObjectSchema<S>, more: E): ObjectSchema<Omit<S, keyof E> & E> {
+export function extend<S extends Shape, E extends Shape>(
+  base: ObjectSchema<S>,
+  more: E,
+): ObjectSchema<Omit<S, keyof E> & E> {
   return object({ ...base.shape, ...more } as Omit<S, keyof E> & E);
 }
 
-export function pick<S extends Shape, K extends keyof S & string>(base: ObjectSchema<S>, keys: { [P in K]: true }): ObjectSchema<Pick<S, K>> {
+export function pick<S extends Shape, K extends keyof S & string>(
+  base: ObjectSchema<S>,
+  keys: { [P in K]: true },
+): ObjectSchema<Pick<S, K>> {
   const shape: Record<string, Schema> = {};
   for (const k of Object.keys(keys)) shape[k] = base.shape[k];
   return object(shape as Pick<S, K>);
 }
 
-export const record = <V>(_key: Schema<string>, value: Schema<V>) => make<Record<string, V>>({ kind: 'record', keys: null, value });
+export const record = <V>(_key: Schema<string>, value: Schema<V>) =>
+  make<Record<string, V>>({ kind: 'record', keys: null, value });
 
 /** A record whose keys are some of an enum's values. */
 export function partialRecord<K extends string, V>(key: Schema<K>, value: Schema<V>): Schema<Partial<Record<K, V>>> {
@@ -85,9 +94,11 @@ export function partialRecord<K extends string, V>(key: Schema<K>, value: Schema
   return make({ kind: 'record', keys, value });
 }
 
-export const tuple = <const T extends readonly Schema[]>(items: T) => make<{ -readonly [I in keyof T]: Infer<T[I]> }>({ kind: 'tuple', items });
+export const tuple = <const T extends readonly Schema[]>(items: T) =>
+  make<{ -readonly [I in keyof T]: Infer<T[I]> }>({ kind: 'tuple', items });
 
-export const union = <const T extends readonly Schema[]>(options: T) => make<Infer<T[number]>>({ kind: 'union', options, discriminator: null });
+export const union = <const T extends readonly Schema[]>(options: T) =>
+  make<Infer<T[number]>>({ kind: 'union', options, discriminator: null });
 
 export const discriminatedUnion = <const T extends readonly Schema[]>(discriminator: string, options: T) =>
   make<Infer<T[number]>>({ kind: 'union', options, discriminator });
@@ -119,11 +130,15 @@ function walk(schema: Schema, value: unknown, path: (string | number)[], issues:
     case 'boolean':
       return typeof value === node.kind ? value : fail(`expected ${node.kind}, received ${kindOf(value)}`);
     case 'number':
-      return typeof value === 'number' && Number.isFinite(value) ? value : fail(`expected number, received ${kindOf(value)}`);
+      return typeof value === 'number' && Number.isFinite(value)
+        ? value
+        : fail(`expected number, received ${kindOf(value)}`);
     case 'literal':
       return value === node.value ? value : fail(`expected ${JSON.stringify(node.value)}`);
     case 'enum':
-      return typeof value === 'string' && node.values.includes(value) ? value : fail(`expected one of ${node.values.join(', ')}`);
+      return typeof value === 'string' && node.values.includes(value)
+        ? value
+        : fail(`expected one of ${node.values.join(', ')}`);
     case 'nullable':
       return value === null ? null : walk(node.of, value, path, issues);
     case 'optional':
@@ -132,7 +147,8 @@ function walk(schema: Schema, value: unknown, path: (string | number)[], issues:
       if (!Array.isArray(value)) return fail(`expected array, received ${kindOf(value)}`);
       return value.map((item, i) => walk(node.of, item, [...path, i], issues));
     case 'tuple':
-      if (!Array.isArray(value) || value.length !== node.items.length) return fail(`expected ${node.items.length} items`);
+      if (!Array.isArray(value) || value.length !== node.items.length)
+        return fail(`expected ${node.items.length} items`);
       return node.items.map((item, i) => walk(item, value[i], [...path, i], issues));
     case 'object': {
       if (kindOf(value) !== 'object') return fail(`expected object, received ${kindOf(value)}`);
@@ -165,7 +181,9 @@ function walk(schema: Schema, value: unknown, path: (string | number)[], issues:
           const d = n.shape[node.discriminator!]?.node;
           return d?.kind === 'literal' && d.value === tag;
         });
-        return match ? walk(match, value, path, issues) : fail(`no variant with ${node.discriminator} ${JSON.stringify(tag)}`);
+        return match
+          ? walk(match, value, path, issues)
+          : fail(`no variant with ${node.discriminator} ${JSON.stringify(tag)}`);
       }
       for (const option of node.options) {
         const trial: Issue[] = [];

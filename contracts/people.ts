@@ -36,7 +36,11 @@ export const InviteAnswerSchema = z.object({
 export type InviteAnswer = z.infer<typeof InviteAnswerSchema>;
 
 /** The body of PATCH /api/people/:id. */
-export const PersonPatchSchema = z.object({ role: z.optional(RoleSchema), active: z.optional(z.boolean()), name: z.optional(z.string()) });
+export const PersonPatchSchema = z.object({
+  role: z.optional(RoleSchema),
+  active: z.optional(z.boolean()),
+  name: z.optional(z.string()),
+});
 export type PersonPatch = z.infer<typeof PersonPatchSchema>;
 export const PersonAnswerSchema = z.object({ person: PersonSchema });
 export type PersonAnswer = z.infer<typeof PersonAnswerSchema>;

@@ -126,7 +126,12 @@ export const ReviewRowSchema = z.object({
   intervalBounded: z.nullable(z.boolean()),
   lastYear: nullableNumber,
   previous: z.nullable(
-    z.object({ standing: StandingSchema, shape: z.nullable(ShapeSchema), threshold: nullableNumber, uTestRejects: z.nullable(z.boolean()) }),
+    z.object({
+      standing: StandingSchema,
+      shape: z.nullable(ShapeSchema),
+      threshold: nullableNumber,
+      uTestRejects: z.nullable(z.boolean()),
+    }),
   ),
   change: DistrictChangeSchema,
   note: nullableString,
@@ -158,7 +163,10 @@ export const DiagnosticsSchema = z.object({
 export type Diagnostics = z.infer<typeof DiagnosticsSchema>;
 
 /** A run's record of one district and variant: the published shape plus its residual diagnostics. */
-export const RunEstimateRecordSchema = z.extend(EstimateRecordSchema, { variant: VariantSchema, diagnostics: z.nullable(DiagnosticsSchema) });
+export const RunEstimateRecordSchema = z.extend(EstimateRecordSchema, {
+  variant: VariantSchema,
+  diagnostics: z.nullable(DiagnosticsSchema),
+});
 export type RunEstimateRecord = z.infer<typeof RunEstimateRecordSchema>;
 
 export const MovementSchema = z.object({

@@ -22,7 +22,12 @@ export const SettingsSchema = z.object({
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 
-export const ScheduleSchema = z.object({ cron: z.string(), timeZone: z.string(), enabled: z.boolean(), nextRunAt: z.nullable(isoTime) });
+export const ScheduleSchema = z.object({
+  cron: z.string(),
+  timeZone: z.string(),
+  enabled: z.boolean(),
+  nextRunAt: z.nullable(isoTime),
+});
 export type Schedule = z.infer<typeof ScheduleSchema>;
 
 export const SettingsResponseSchema = z.object({ settings: SettingsSchema, schedule: ScheduleSchema });
@@ -80,7 +85,13 @@ export const CatalogueIndicatorSchema = z.object({
   mustBePositive: z.boolean(),
   derivation: z.nullable(
     // from_boundaries has no source or divisor
-    z.object({ kind: z.string(), source: z.optional(z.string()), divisor: z.optional(z.string()), formula: z.string(), baseYear: z.optional(z.number()) }),
+    z.object({
+      kind: z.string(),
+      source: z.optional(z.string()),
+      divisor: z.optional(z.string()),
+      formula: z.string(),
+      baseYear: z.optional(z.number()),
+    }),
   ),
   stats: z.object({ districts: z.number(), values: z.number(), firstYear: nullableNumber, lastYear: nullableNumber }),
 });
@@ -90,7 +101,10 @@ export const IndicatorsResponseSchema = z.object({ indicators: z.array(Catalogue
 export type IndicatorsResponse = z.infer<typeof IndicatorsResponseSchema>;
 
 /** POST /api/indicators and PATCH /api/indicators/:code: the indicator and the recomputation it caused. */
-export const IndicatorAnswerSchema = z.object({ indicator: CatalogueIndicatorSchema, recomputed: z.nullable(UploadSummarySchema) });
+export const IndicatorAnswerSchema = z.object({
+  indicator: CatalogueIndicatorSchema,
+  recomputed: z.nullable(UploadSummarySchema),
+});
 export type IndicatorAnswer = z.infer<typeof IndicatorAnswerSchema>;
 
 /** POST /api/estimate: one what-if fit; `result` is the engine's fit (status `ok` or `not_estimable`). */
@@ -99,6 +113,9 @@ export const WhatIfAnswerSchema = z.object({
   district: z.optional(z.string()),
   dataVersion: z.optional(z.number()),
   droppedYears: z.optional(z.array(z.number())),
-  result: z.looseObject({ status: z.string(), reason: z.optional(z.looseObject({ code: z.string(), message: nullableString })) }),
+  result: z.looseObject({
+    status: z.string(),
+    reason: z.optional(z.looseObject({ code: z.string(), message: nullableString })),
+  }),
 });
 export type WhatIfAnswer = z.infer<typeof WhatIfAnswerSchema>;

@@ -59,7 +59,13 @@ export const UploadPreviewSchema = z.object({
   totals: KindCountsSchema,
   byIndicator: z.array(z.object({ indicator: z.string(), name: z.string(), ...kindCounts })),
   byDistrict: z.array(
-    z.object({ district: z.string(), name: z.string(), isNew: z.boolean(), indicators: z.record(z.string(), KindCountsSchema), ...kindCounts }),
+    z.object({
+      district: z.string(),
+      name: z.string(),
+      isNew: z.boolean(),
+      indicators: z.record(z.string(), KindCountsSchema),
+      ...kindCounts,
+    }),
   ),
   newDistricts: z.array(z.object({ code: z.string(), name: z.string(), line: z.number() })),
   derived: z.array(z.object({ indicator: z.string(), insert: z.number(), change: z.number(), remove: z.number() })),

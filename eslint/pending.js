@@ -5,10 +5,7 @@
  */
 
 /** Files with SQL outside a store (`crestwatch/sql-in-stores`). */
-const SQL_OUTSIDE_STORES = [
-  'api/uploads/change-sets.ts',
-  'api/uploads/service.ts',
-];
+const SQL_OUTSIDE_STORES = ['api/uploads/change-sets.ts', 'api/uploads/service.ts'];
 
 /** "api/<file> -> api/<other feature's store>" imports (`crestwatch/feature-boundaries`). */
 const FOREIGN_STORE_IMPORTS = [

@@ -29,7 +29,10 @@ export function useDistrictAlertsQuery(code: string, enabled = true) {
   return useQuery({
     queryKey: alertKeys.district(code),
     queryFn: ({ signal }) =>
-      apiGet(`/api/districts/${encodeURIComponent(code)}/alerts?limit=20`, { signal, schema: DistrictAlertsResponseSchema }),
+      apiGet(`/api/districts/${encodeURIComponent(code)}/alerts?limit=20`, {
+        signal,
+        schema: DistrictAlertsResponseSchema,
+      }),
     staleTime: STALE_TIMES.estimate,
     enabled: enabled && code !== '',
   });
@@ -43,7 +46,10 @@ export function useMarkAlertReadMutation() {
     onMutate: (id) => {
       client.setQueryData<AlertFeedResponse>(alertKeys.feed(), (old) =>
         old
-          ? { alerts: old.alerts.map((a) => (a.id === id ? { ...a, read: true } : a)), unread: Math.max(0, old.unread - (old.alerts.some((a) => a.id === id && !a.read) ? 1 : 0)) }
+          ? {
+              alerts: old.alerts.map((a) => (a.id === id ? { ...a, read: true } : a)),
+              unread: Math.max(0, old.unread - (old.alerts.some((a) => a.id === id && !a.read) ? 1 : 0)),
+            }
           : old,
       );
     },

@@ -34,7 +34,8 @@ export function useAuditQuery(filter: AuditFilter, enabled = true) {
         schema: AuditResponseSchema,
       }),
     initialPageParam: undefined as number | undefined,
-    getNextPageParam: (last) => (last.entries.length === AUDIT_PAGE ? last.entries[last.entries.length - 1].id : undefined),
+    getNextPageParam: (last) =>
+      last.entries.length === AUDIT_PAGE ? last.entries[last.entries.length - 1].id : undefined,
     staleTime: STALE_TIMES.audit,
     enabled,
   });

@@ -17,7 +17,10 @@ export const boundaryKeys = {
 export function fetchBoundaries(detail: 'phone' | 'print', signal?: AbortSignal): Promise<BoundaryCollection> {
   // The contract checks the collection's frame and keeps every member; the geometry's own
   // shape is read by lib/map-scene.ts, which is typed for it.
-  return apiGet(`/api/boundaries?detail=${detail}`, { signal, schema: BoundaryCollectionSchema }) as Promise<unknown> as Promise<BoundaryCollection>;
+  return apiGet(`/api/boundaries?detail=${detail}`, {
+    signal,
+    schema: BoundaryCollectionSchema,
+  }) as Promise<unknown> as Promise<BoundaryCollection>;
 }
 
 /** The current boundaries (boundaries change only when an analyst loads new ones). */

@@ -4,7 +4,12 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import { DistrictBriefContentSchema, RegionBriefContentSchema, type DistrictBriefContent, type RegionBriefContent } from '@/contracts/briefs';
+import {
+  DistrictBriefContentSchema,
+  RegionBriefContentSchema,
+  type DistrictBriefContent,
+  type RegionBriefContent,
+} from '@/contracts/briefs';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 export const briefKeysRoot = ['briefs'] as const;

@@ -2,7 +2,12 @@
 import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
-import { DistrictDetailResponseSchema, DistrictListResponseSchema, type DistrictDetailResponse, type DistrictListResponse } from '@/contracts/districts';
+import {
+  DistrictDetailResponseSchema,
+  DistrictListResponseSchema,
+  type DistrictDetailResponse,
+  type DistrictListResponse,
+} from '@/contracts/districts';
 import { earlyJson } from '@/lib/early-fetch';
 import { STALE_TIMES } from '@/lib/stale-times';
 

@@ -4,7 +4,11 @@ import { useQuery } from '@tanstack/react-query';
 
 import { apiGet } from '@/lib/api-client';
 import { earlyJson } from '@/lib/early-fetch';
-import { DistrictEstimateResponseSchema, DistrictHistoryResponseSchema, type DistrictEstimateResponse } from '@/contracts/estimates';
+import {
+  DistrictEstimateResponseSchema,
+  DistrictHistoryResponseSchema,
+  type DistrictEstimateResponse,
+} from '@/contracts/estimates';
 import { DISTRICT_CODE_PART } from '@/contracts/patterns';
 import { STALE_TIMES } from '@/lib/stale-times';
 

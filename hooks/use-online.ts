@@ -6,5 +6,9 @@ const subscribe = (onChange: () => void) => onlineManager.subscribe(onChange);
 
 /** True while online; true during pre-rendering and hydration, where nothing is known. */
 export function useOnline(): boolean {
-  return useSyncExternalStore(subscribe, () => onlineManager.isOnline(), () => true);
+  return useSyncExternalStore(
+    subscribe,
+    () => onlineManager.isOnline(),
+    () => true,
+  );
 }

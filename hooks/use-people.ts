@@ -4,7 +4,13 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { STALE_TIMES } from '@/lib/stale-times';
-import { InviteAnswerSchema, PeopleResponseSchema, PersonAnswerSchema, type InviteInput, type PersonPatch } from '@/contracts/people';
+import {
+  InviteAnswerSchema,
+  PeopleResponseSchema,
+  PersonAnswerSchema,
+  type InviteInput,
+  type PersonPatch,
+} from '@/contracts/people';
 
 import { auditKeysRoot } from './use-audit';
 import { mailboxKeysRoot } from './use-mailbox';
@@ -19,8 +25,7 @@ export const peopleKeys = {
 export function usePeopleQuery(enabled = true) {
   return useQuery({
     queryKey: peopleKeys.list(),
-    queryFn: ({ signal }) =>
-      apiGet('/api/people', { signal, schema: PeopleResponseSchema }),
+    queryFn: ({ signal }) => apiGet('/api/people', { signal, schema: PeopleResponseSchema }),
     staleTime: STALE_TIMES.people,
     select: (data) => data.people,
     enabled,
@@ -66,8 +71,7 @@ export function usePersonMutation() {
 export function useResendInvitationMutation() {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (id: number) =>
-      apiSend('POST', `/api/people/${id}/invitation`, { schema: InviteAnswerSchema }),
+    mutationFn: (id: number) => apiSend('POST', `/api/people/${id}/invitation`, { schema: InviteAnswerSchema }),
     onSettled: () =>
       Promise.all([
         client.invalidateQueries({ queryKey: peopleKeysRoot }),
@@ -81,8 +85,7 @@ export function useResendInvitationMutation() {
 export function useResetIdentityMutation() {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (id: number) =>
-      apiSend('POST', `/api/people/${id}/identity-reset`, { schema: PersonAnswerSchema }),
+    mutationFn: (id: number) => apiSend('POST', `/api/people/${id}/identity-reset`, { schema: PersonAnswerSchema }),
     onSettled: () =>
       Promise.all([
         client.invalidateQueries({ queryKey: peopleKeysRoot }),

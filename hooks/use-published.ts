@@ -24,7 +24,13 @@ export const publishedKeys = {
 };
 
 /** Every query root whose answer a publish changes. */
-export const PUBLISHED_ROOTS = [estimateKeysRoot, regionKeysRoot, briefKeysRoot, districtKeysRoot, alertKeysRoot] as const;
+export const PUBLISHED_ROOTS = [
+  estimateKeysRoot,
+  regionKeysRoot,
+  briefKeysRoot,
+  districtKeysRoot,
+  alertKeysRoot,
+] as const;
 
 export function invalidatePublished(client: QueryClient): Promise<unknown> {
   return Promise.all(PUBLISHED_ROOTS.map((queryKey) => client.invalidateQueries({ queryKey })));

@@ -4,7 +4,15 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { RUN_POLL_MS, STALE_TIMES } from '@/lib/stale-times';
-import { DistrictReviewSchema, PublishAnswerSchema, ReviewResponseSchema, RunListResponseSchema, RunStartedSchema, RunViewSchema, type RunState } from '@/contracts/runs';
+import {
+  DistrictReviewSchema,
+  PublishAnswerSchema,
+  ReviewResponseSchema,
+  RunListResponseSchema,
+  RunStartedSchema,
+  RunViewSchema,
+  type RunState,
+} from '@/contracts/runs';
 
 import { invalidatePublished } from './use-published';
 
@@ -26,8 +34,7 @@ export const REVIEWABLE_RUN_STATES: readonly RunState[] = ['in_review', 'publish
 export function useRunsQuery(enabled = true) {
   return useQuery({
     queryKey: runKeys.list(),
-    queryFn: ({ signal }) =>
-      apiGet('/api/runs?limit=30', { signal, schema: RunListResponseSchema }),
+    queryFn: ({ signal }) => apiGet('/api/runs?limit=30', { signal, schema: RunListResponseSchema }),
     staleTime: STALE_TIMES.runs,
     select: (data) => data.runs,
     // While a run in the list is working, its state changes by itself.
@@ -40,10 +47,10 @@ export function useRunsQuery(enabled = true) {
 export function useRunQuery(id: number) {
   return useQuery({
     queryKey: runKeys.detail(id),
-    queryFn: ({ signal }) =>
-      apiGet(`/api/runs/${id}`, { signal, schema: RunViewSchema }),
+    queryFn: ({ signal }) => apiGet(`/api/runs/${id}`, { signal, schema: RunViewSchema }),
     staleTime: STALE_TIMES.runDetail,
-    refetchInterval: (query) => (query.state.data && ACTIVE_RUN_STATES.includes(query.state.data.state) ? RUN_POLL_MS : false),
+    refetchInterval: (query) =>
+      query.state.data && ACTIVE_RUN_STATES.includes(query.state.data.state) ? RUN_POLL_MS : false,
     enabled: id > 0,
   });
 }
@@ -102,8 +109,7 @@ function useAfterRunChange() {
 export function usePublishRunMutation() {
   const refresh = useAfterRunChange();
   return useMutation({
-    mutationFn: (id: number) =>
-      apiSend('POST', `/api/runs/${id}/publish`, { schema: PublishAnswerSchema }),
+    mutationFn: (id: number) => apiSend('POST', `/api/runs/${id}/publish`, { schema: PublishAnswerSchema }),
     onSettled: (_data, _error, id) => refresh(id),
   });
 }

@@ -15,7 +15,6 @@ export const settingsKeys = {
   current: () => [...settingsKeysRoot, 'current'] as const,
 };
 
-
 export function useSettingsQuery(enabled = true) {
   return useQuery({
     queryKey: settingsKeys.current(),

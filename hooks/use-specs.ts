@@ -17,8 +17,7 @@ export const specKeys = {
 export function useSpecsQuery(enabled = true) {
   return useQuery({
     queryKey: specKeys.list(),
-    queryFn: ({ signal }) =>
-      apiGet('/api/specs', { signal, schema: SpecsResponseSchema }),
+    queryFn: ({ signal }) => apiGet('/api/specs', { signal, schema: SpecsResponseSchema }),
     staleTime: STALE_TIMES.specs,
     enabled,
   });

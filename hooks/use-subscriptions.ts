@@ -2,7 +2,12 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
-import { SubscriptionAnswerSchema, SubscriptionsResponseSchema, type Subscription, type SubscriptionInput } from '@/contracts/alerts';
+import {
+  SubscriptionAnswerSchema,
+  SubscriptionsResponseSchema,
+  type Subscription,
+  type SubscriptionInput,
+} from '@/contracts/alerts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
 import { alertKeys } from './use-alerts';
@@ -41,7 +46,13 @@ export function useDistrictSubscriptionMutation(code: string) {
   return useMutation({
     mutationFn: async (action: { subscribe: true } | { subscribe: false; ids: number[] }) => {
       if (action.subscribe) {
-        const input: SubscriptionInput = { scope: 'district', districtCodes: [code], kinds: [], delivery: 'instant', attachBrief: false };
+        const input: SubscriptionInput = {
+          scope: 'district',
+          districtCodes: [code],
+          kinds: [],
+          delivery: 'instant',
+          attachBrief: false,
+        };
         await apiSend('POST', '/api/subscriptions', { json: input });
       } else {
         for (const id of action.ids) await apiSend('DELETE', `/api/subscriptions/${id}`);

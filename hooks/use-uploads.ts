@@ -6,7 +6,13 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiGet, apiSend } from '@/lib/api-client';
 import type { PickedFile } from '@/lib/pick-file.types';
 import { STALE_TIMES } from '@/lib/stale-times';
-import { RevertAnswerSchema, UploadAnswerSchema, UploadDetailResponseSchema, UploadListResponseSchema, type UploadOptions } from '@/contracts/uploads';
+import {
+  RevertAnswerSchema,
+  UploadAnswerSchema,
+  UploadDetailResponseSchema,
+  UploadListResponseSchema,
+  type UploadOptions,
+} from '@/contracts/uploads';
 
 import { invalidatePublished } from './use-published';
 
@@ -17,7 +23,6 @@ export const uploadKeys = {
   list: () => [...uploadKeysRoot, 'list'] as const,
   detail: (id: number) => [...uploadKeysRoot, 'detail', id] as const,
 };
-
 
 export function useUploadsQuery(enabled = true) {
   return useQuery({

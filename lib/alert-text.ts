@@ -4,7 +4,8 @@ import type { Shape, Standing } from '@/contracts/estimates';
 import { ALERT_KIND_LABEL, formatLevel, SHAPE_LABEL, STANDING_LABEL } from './estimate-words';
 import { formatDate } from './format-time';
 
-const standingWord = (v: unknown) => (typeof v === 'string' && v in STANDING_LABEL ? STANDING_LABEL[v as Standing] : String(v));
+const standingWord = (v: unknown) =>
+  typeof v === 'string' && v in STANDING_LABEL ? STANDING_LABEL[v as Standing] : String(v);
 const shapeWord = (v: unknown) => (typeof v === 'string' && v in SHAPE_LABEL ? SHAPE_LABEL[v as Shape] : String(v));
 const num = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? v : null);
 
@@ -22,7 +23,9 @@ export function alertDetail(kind: AlertKind, details: Record<string, unknown>): 
       const to = num(details.to);
       const pct = num(details.percent);
       const move = pct === null ? '' : ` (${pct >= 0 ? '+' : '−'}${Math.abs(Math.round(pct))}%)`;
-      return from !== null && to !== null ? `Threshold moved from ${formatLevel(from)} to ${formatLevel(to)}${move}.` : `Threshold moved${move}.`;
+      return from !== null && to !== null
+        ? `Threshold moved from ${formatLevel(from)} to ${formatLevel(to)}${move}.`
+        : `Threshold moved${move}.`;
     }
     case 'shape_change':
       return `Shape changed from ${shapeWord(details.from)} to ${shapeWord(details.to)}.`;

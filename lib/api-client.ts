@@ -66,7 +66,9 @@ export function readAnswer<T>(path: string, status: number, body: unknown, schem
   if (!schema) return body as T;
   const parsed = safeParse(schema, body);
   if (!parsed.success) {
-    throw new ApiError(status, 'bad_response', `Unexpected answer from ${path}.`, { fields: mismatches(parsed.issues) });
+    throw new ApiError(status, 'bad_response', `Unexpected answer from ${path}.`, {
+      fields: mismatches(parsed.issues),
+    });
   }
   return parsed.data;
 }
@@ -152,7 +154,11 @@ export type ApiSendOptions<T> = ApiGetOptions<T> & {
  * (`csrf_failed`, e.g. the session was renewed in another tab) fetches a fresh token and
  * tries once more.
  */
-export async function apiSend<T = void>(method: ApiSendMethod, path: string, options: ApiSendOptions<T> = {}): Promise<T> {
+export async function apiSend<T = void>(
+  method: ApiSendMethod,
+  path: string,
+  options: ApiSendOptions<T> = {},
+): Promise<T> {
   const attempt = async (token: string | null) => {
     const headers: Record<string, string> = { Accept: 'application/json' };
     if (token) headers[CSRF_HEADER] = token;
@@ -171,6 +177,7 @@ export async function apiSend<T = void>(method: ApiSendMethod, path: string, opt
     body = await readJson(response);
   }
   if (!response.ok) throw failure(response, body);
-  if (options.schema && body === undefined) throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
+  if (options.schema && body === undefined)
+    throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
   return readAnswer(path, response.status, body, options.schema);
 }

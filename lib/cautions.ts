@@ -11,17 +11,20 @@ export const CAUTIONS: Caution[] = [
   },
   {
     key: 'leakage',
-    short: 'Emissions can fall locally because production moved elsewhere; consumption-based figures can tell another story.',
+    short:
+      'Emissions can fall locally because production moved elsewhere; consumption-based figures can tell another story.',
     full: 'Emissions can fall locally because production moved elsewhere; trade-adjusted (consumption-based) figures can tell a different story.',
   },
   {
     key: 'fragile',
-    short: 'Short series, trending variables and serial correlation make estimates fragile: read the interval, not the point.',
+    short:
+      'Short series, trending variables and serial correlation make estimates fragile: read the interval, not the point.',
     full: 'Short series, trending variables and serial correlation make estimates fragile; read the interval, not the point.',
   },
   {
     key: 'standards',
-    short: 'It does not replace statutory air-quality standards, the agency’s official methodology or qualified staff; local rules prevail.',
+    short:
+      'It does not replace statutory air-quality standards, the agency’s official methodology or qualified staff; local rules prevail.',
     full: 'It does not replace statutory air-quality standards, the agency’s official methodology, or the judgement of qualified staff; local rules prevail.',
   },
 ];

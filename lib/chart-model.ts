@@ -50,7 +50,9 @@ export function curveChartModel(r: EstimateRecord): CurveChartModel {
   );
   const ys = [...points, ...curve, ...reference].map((p) => p.y);
   const yDomain = ys.length ? padLog(Math.min(...ys), Math.max(...ys), 1.12) : ([1, 10] as [number, number]);
-  const band = bandRaw ? { lo: clamp(bandRaw.lo, xDomain[0], xDomain[1]), hi: clamp(bandRaw.hi, xDomain[0], xDomain[1]) } : null;
+  const band = bandRaw
+    ? { lo: clamp(bandRaw.lo, xDomain[0], xDomain[1]), hi: clamp(bandRaw.hi, xDomain[0], xDomain[1]) }
+    : null;
   return {
     xDomain,
     yDomain,
@@ -81,7 +83,8 @@ export type PathChartModel = {
 /** How far ahead the dashed path runs: to the crossing (plus a little), else ten years. */
 function horizon(r: EstimateRecord, last: number): number {
   const p = r.projection;
-  if (p?.status === 'projected' && p.crossingYear !== null && p.crossingYear > last) return Math.min(p.crossingYear + 2, last + 30);
+  if (p?.status === 'projected' && p.crossingYear !== null && p.crossingYear > last)
+    return Math.min(p.crossingYear + 2, last + 30);
   return last + 10;
 }
 
@@ -106,8 +109,14 @@ export function pathChartModel(r: EstimateRecord): PathChartModel {
   }
   const first = path[0]?.x ?? 2000;
   const lastYear = projection.length ? projection[projection.length - 1].x : (last?.x ?? first + 1);
-  const incomeDom = incomeDomain([...path, ...projection].map((p) => p.y), [threshold, bandRaw?.lo ?? null, bandRaw?.hi ?? null], 2.5);
-  const band = bandRaw ? { lo: clamp(bandRaw.lo, incomeDom[0], incomeDom[1]), hi: clamp(bandRaw.hi, incomeDom[0], incomeDom[1]) } : null;
+  const incomeDom = incomeDomain(
+    [...path, ...projection].map((p) => p.y),
+    [threshold, bandRaw?.lo ?? null, bandRaw?.hi ?? null],
+    2.5,
+  );
+  const band = bandRaw
+    ? { lo: clamp(bandRaw.lo, incomeDom[0], incomeDom[1]), hi: clamp(bandRaw.hi, incomeDom[0], incomeDom[1]) }
+    : null;
   // The projection is cut at the frame (an off-trend path can run away).
   projection = projection.filter((p) => p.y >= incomeDom[0] && p.y <= incomeDom[1]);
   return {

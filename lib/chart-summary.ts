@@ -13,7 +13,9 @@ function thresholdWords(r: EstimateRecord, drawn: boolean): string {
   const where = r.threshold?.extrapolated ? ', beyond the observed incomes' : '';
   const band = bandOf(r);
   if (!drawn) {
-    const interval = band ? `its ${levelPercent(r.model.level)} ${METHOD_LABEL[r.standing.intervalMethod]} interval is ${formatLevel(band.lo)}–${formatLevel(band.hi)}` : notBoundedText(r.model.level);
+    const interval = band
+      ? `its ${levelPercent(r.model.level)} ${METHOD_LABEL[r.standing.intervalMethod]} interval is ${formatLevel(band.lo)}–${formatLevel(band.hi)}`
+      : notBoundedText(r.model.level);
     return `The ${noun} lies at ${formatLevel(x)} per person${where}, too far from the observed incomes to fall inside the chart (${interval}).`;
   }
   const method = METHOD_LABEL[r.standing.intervalMethod];
@@ -35,12 +37,17 @@ export function curveChartSummary(r: EstimateRecord): string {
   const parts = [
     `Emissions per person against real income per person, both on log scales, for ${pts.length} observed years (${first.year}–${last.year}).`,
   ];
-  if (r.status === 'substitute') parts.push('The district’s own series is too short: the regional pooled curve stands in as the fitted line.');
-  else if (r.curve.length > 0 && r.shape) parts.push(`The fitted curve over the observed incomes: ${SHAPE_LABEL[r.shape.shape].toLowerCase()}.`);
+  if (r.status === 'substitute')
+    parts.push('The district’s own series is too short: the regional pooled curve stands in as the fitted line.');
+  else if (r.curve.length > 0 && r.shape)
+    parts.push(`The fitted curve over the observed incomes: ${SHAPE_LABEL[r.shape.shape].toLowerCase()}.`);
   else parts.push('No fitted curve: the district is not estimable in this run.');
   if (r.status !== 'not_estimable') parts.push(thresholdWords(r, curveChartModel(r).threshold !== null));
-  parts.push(`Latest year ${last.year} highlighted: income ${formatLevel(last.x)}, emissions ${formatEmissions(last.y)} t per person.`);
-  if (r.status === 'ok' && r.pooledCurve.length > 0) parts.push('The regional pooled curve is drawn faint for reference.');
+  parts.push(
+    `Latest year ${last.year} highlighted: income ${formatLevel(last.x)}, emissions ${formatEmissions(last.y)} t per person.`,
+  );
+  if (r.status === 'ok' && r.pooledCurve.length > 0)
+    parts.push('The regional pooled curve is drawn faint for reference.');
   return parts.join(' ');
 }
 
@@ -57,9 +64,12 @@ export function pathChartSummary(r: EstimateRecord): string {
   if (p && r.trendPerYear !== null) {
     const pct = (Math.exp(r.trendPerYear) - 1) * 100;
     const trend = `The recent income trend (${pct >= 0 ? '+' : '−'}${Math.abs(pct).toFixed(1)}% a year) is drawn dashed ahead of ${last.year}`;
-    if (p.status === 'projected' && p.crossingYear !== null) parts.push(`${trend}; it meets the threshold around ${p.crossingYear}.`);
-    else if (p.status === 'already_past' && p.crossingYear !== null) parts.push(`${trend}; income passed the threshold around ${p.crossingYear}.`);
-    else if (p.status === 'not_on_current_trend') parts.push(`${trend}; it does not meet the threshold (not on current trend).`);
+    if (p.status === 'projected' && p.crossingYear !== null)
+      parts.push(`${trend}; it meets the threshold around ${p.crossingYear}.`);
+    else if (p.status === 'already_past' && p.crossingYear !== null)
+      parts.push(`${trend}; income passed the threshold around ${p.crossingYear}.`);
+    else if (p.status === 'not_on_current_trend')
+      parts.push(`${trend}; it does not meet the threshold (not on current trend).`);
     else parts.push(`${trend}.`);
   }
   return parts.join(' ');

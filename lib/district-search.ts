@@ -2,7 +2,17 @@ import type { DistrictSummary } from '@/contracts/districts';
 
 /** Letters that carry no combining mark, so NFD leaves them alone: fold them by hand. */
 const LETTER_FOLDS: Record<string, string> = {
-  ł: 'l', ø: 'o', đ: 'd', ħ: 'h', ı: 'i', ŧ: 't', ß: 'ss', æ: 'ae', œ: 'oe', þ: 'th', ð: 'd',
+  ł: 'l',
+  ø: 'o',
+  đ: 'd',
+  ħ: 'h',
+  ı: 'i',
+  ŧ: 't',
+  ß: 'ss',
+  æ: 'ae',
+  œ: 'oe',
+  þ: 'th',
+  ð: 'd',
 };
 
 /** Lower case without accents, so "lakow" finds "Łąkowice" and "d07" finds "D07". */

@@ -85,7 +85,9 @@ export function levelPercent(level: number | null): string {
 
 /** The method page's phrase, with the run's confidence level (said as not set when an answer carries none). */
 export function notBoundedText(level: number | null): string {
-  return level === null ? 'interval not bounded (confidence level not set)' : `interval not bounded at ${levelPercent(level)}`;
+  return level === null
+    ? 'interval not bounded (confidence level not set)'
+    : `interval not bounded at ${levelPercent(level)}`;
 }
 
 /** Income levels: whole units, and a plain bound for absurd interval ends. */
@@ -143,4 +145,12 @@ export function yearWithRange(year: number, earliest: number | null, latest: num
 }
 
 /** Shapes in the order the method page explains them. */
-export const SHAPES_IN_ORDER = ['inverted_u', 'u', 'n_shape', 'inverted_n', 'increasing', 'decreasing', 'flat'] as const;
+export const SHAPES_IN_ORDER = [
+  'inverted_u',
+  'u',
+  'n_shape',
+  'inverted_n',
+  'increasing',
+  'decreasing',
+  'flat',
+] as const;

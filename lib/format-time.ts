@@ -18,7 +18,9 @@ function inZone(d: Date, timeZone?: string): Date {
 
 /** "UTC", "CET", "GMT+2": the zone's short name at that moment, as the platform names it. */
 function zoneName(d: Date, timeZone: string): string {
-  const part = new Intl.DateTimeFormat('en-GB', { timeZone, timeZoneName: 'short' }).formatToParts(d).find((p) => p.type === 'timeZoneName');
+  const part = new Intl.DateTimeFormat('en-GB', { timeZone, timeZoneName: 'short' })
+    .formatToParts(d)
+    .find((p) => p.type === 'timeZoneName');
   return part?.value ?? timeZone;
 }
 

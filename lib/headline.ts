@@ -2,7 +2,15 @@
 // few short notes (what the standing means for emissions, an unbounded interval, an
 // extrapolated turn, the regional substitute). Pure: inputs are the engine's output shape
 // (the card's EstimateRecord, or the list's EstimateSummary), nothing is fetched.
-import type { EstimateRecord, EstimateStatus, EstimateSummary, FiellerKind, ProjectionStatus, Shape, Standing } from '@/contracts/estimates';
+import type {
+  EstimateRecord,
+  EstimateStatus,
+  EstimateSummary,
+  FiellerKind,
+  ProjectionStatus,
+  Shape,
+  Standing,
+} from '@/contracts/estimates';
 import { formatLevel, gapWords, levelPercent, notBoundedText, yearWithRange } from './estimate-words';
 
 export type HeadlineInput = {
@@ -20,7 +28,12 @@ export type HeadlineInput = {
   thresholdHi: number | null;
   extrapolated: boolean;
   gapPercent: number | null;
-  projection: { status: ProjectionStatus; crossingYear: number | null; earliest: number | null; latest: number | null } | null;
+  projection: {
+    status: ProjectionStatus;
+    crossingYear: number | null;
+    earliest: number | null;
+    latest: number | null;
+  } | null;
   /** The run's confidence level, e.g. 0.95. */
   level: number;
   /** Why the district's own fit failed (not_estimable, substitute). */
@@ -44,7 +57,13 @@ export function headlineInputFromRecord(r: EstimateRecord): HeadlineInput {
     turnKind: r.threshold?.kind ?? null,
     threshold: r.threshold?.level ?? null,
     intervalBounded: r.standing.intervalBounded,
-    fiellerKind: r.threshold ? (r.standing.intervalMethod === 'delta' ? (r.threshold.intervalBounded ? 'bounded' : 'whole_line') : r.threshold.fieller.kind) : null,
+    fiellerKind: r.threshold
+      ? r.standing.intervalMethod === 'delta'
+        ? r.threshold.intervalBounded
+          ? 'bounded'
+          : 'whole_line'
+        : r.threshold.fieller.kind
+      : null,
     thresholdLo: r.standing.levelLo,
     thresholdHi: r.standing.levelHi,
     extrapolated: r.threshold?.extrapolated ?? false,
@@ -68,7 +87,12 @@ export function headlineInputFromSummary(s: EstimateSummary, level: number): Hea
     extrapolated: s.extrapolated,
     gapPercent: s.gapPercent,
     projection: s.projectionStatus
-      ? { status: s.projectionStatus, crossingYear: s.crossingYear, earliest: s.crossingEarliest, latest: s.crossingLatest }
+      ? {
+          status: s.projectionStatus,
+          crossingYear: s.crossingYear,
+          earliest: s.crossingEarliest,
+          latest: s.crossingLatest,
+        }
       : null,
     level,
     reason: null,
@@ -85,7 +109,9 @@ function meaningOf(standing: Standing, shape: Shape | null, turnKind?: 'peak' | 
     case 'approaching':
       return trough ? 'emissions still tend to fall as income grows' : 'emissions still tend to rise with income';
     case 'at_turn':
-      return trough ? 'emissions are near the low point of the curve' : 'emissions have about stopped rising with income';
+      return trough
+        ? 'emissions are near the low point of the curve'
+        : 'emissions have about stopped rising with income';
     case 'past_turn':
       return trough ? 'emissions now tend to rise again as income grows' : 'emissions now tend to fall as income grows';
     default:
@@ -96,7 +122,8 @@ function meaningOf(standing: Standing, shape: Shape | null, turnKind?: 'peak' | 
 /** "at the recent trend it would reach it around 2031 (2028–2040)" and its kin. */
 function projectionClause(p: HeadlineInput['projection'], gapPercent: number | null): string | null {
   if (!p) return null;
-  if (p.status === 'not_on_current_trend') return 'at the recent income trend it would not reach it (not on current trend)';
+  if (p.status === 'not_on_current_trend')
+    return 'at the recent income trend it would not reach it (not on current trend)';
   if (p.crossingYear === null) return null;
   const when = yearWithRange(p.crossingYear, p.earliest, p.latest);
   if (p.status === 'already_past') return `income passed it around ${when}`;
@@ -116,14 +143,17 @@ function unboundedNote(input: HeadlineInput): string {
     if (lo !== null && hi !== null) {
       return `${head}: the data rule out only a turning point between ${formatLevel(lo)} and ${formatLevel(hi)}, so read the point with care.`;
     }
-    if (lo !== null) return `${head}: the data rule out only a turning point above ${formatLevel(lo)}, so read the point with care.`;
-    if (hi !== null) return `${head}: the data rule out only a turning point below ${formatLevel(hi)}, so read the point with care.`;
+    if (lo !== null)
+      return `${head}: the data rule out only a turning point above ${formatLevel(lo)}, so read the point with care.`;
+    if (hi !== null)
+      return `${head}: the data rule out only a turning point below ${formatLevel(hi)}, so read the point with care.`;
   }
   return `${head}: the data are consistent with a turning point at any income, so the point says little on its own.`;
 }
 
 function turnNoun(input: HeadlineInput): string {
-  const low = input.shape === 'u' || ((input.shape === 'n_shape' || input.shape === 'inverted_n') && input.turnKind === 'trough');
+  const low =
+    input.shape === 'u' || ((input.shape === 'n_shape' || input.shape === 'inverted_n') && input.turnKind === 'trough');
   if (input.status === 'substitute') return low ? 'the regional low point' : 'the regional turning point';
   return low ? 'the estimated low point' : 'the estimated turning point';
 }
@@ -162,7 +192,9 @@ export function headline(input: HeadlineInput): Headline {
   }
   if (input.status === 'substitute') {
     tone = 'caution';
-    notes.push('Regional substitute: this district’s own series is too short, so the regional pooled curve stands in for it.');
+    notes.push(
+      'Regional substitute: this district’s own series is too short, so the regional pooled curve stands in for it.',
+    );
   }
 
   if (input.standing === 'not_estimable') {
@@ -194,7 +226,9 @@ export function headline(input: HeadlineInput): Headline {
   const shape = input.shape === 'increasing' || input.shape === 'decreasing' ? input.shape : 'flat';
   const main = sentence(NO_TURN_SENTENCE[shape]);
   if (shape !== 'flat' && hasTurn && input.gapPercent !== null) {
-    const where = input.extrapolated ? 'beyond the observed incomes' : 'inside the observed incomes, though the test does not confirm a turn';
+    const where = input.extrapolated
+      ? 'beyond the observed incomes'
+      : 'inside the observed incomes, though the test does not confirm a turn';
     const projection = projectionClause(input.projection, input.gapPercent);
     notes.push(
       sentence(

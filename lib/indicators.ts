@@ -16,7 +16,13 @@ export type IndicatorColumn = {
 };
 
 export const INDICATOR_COLUMNS: readonly IndicatorColumn[] = [
-  { code: 'emissions_pc', field: 'emissionsPc', short: 'Emissions', shortUnit: 't CO₂ per person', format: formatEmissions },
+  {
+    code: 'emissions_pc',
+    field: 'emissionsPc',
+    short: 'Emissions',
+    shortUnit: 't CO₂ per person',
+    format: formatEmissions,
+  },
   { code: 'income_pc', field: 'incomePc', short: 'Income', shortUnit: 'per person, real', format: formatIncome },
   { code: 'population', field: 'population', short: 'People', shortUnit: 'persons', format: formatPopulation },
   { code: 'pop_density', field: 'popDensity', short: 'Density', shortUnit: 'per km²', format: formatDensity },

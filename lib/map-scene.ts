@@ -64,7 +64,9 @@ export function fitProjection(bbox: [number, number, number, number], width: num
 export function collectionBox(fc: BoundaryCollection): [number, number, number, number] {
   if (fc.bbox) return fc.bbox;
   let b: [number, number, number, number] = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const f of fc.features) for (const poly of f.geometry.coordinates) for (const [x, y] of poly[0]) b = [Math.min(b[0], x), Math.min(b[1], y), Math.max(b[2], x), Math.max(b[3], y)];
+  for (const f of fc.features)
+    for (const poly of f.geometry.coordinates)
+      for (const [x, y] of poly[0]) b = [Math.min(b[0], x), Math.min(b[1], y), Math.max(b[2], x), Math.max(b[3], y)];
   return b;
 }
 
@@ -92,7 +94,14 @@ export type SceneInput = {
   highlight?: string | null;
 };
 
-export function buildMapScene({ collection, standingOf, width, height, pad = 8, highlight = null }: SceneInput): MapScene {
+export function buildMapScene({
+  collection,
+  standingOf,
+  width,
+  height,
+  pad = 8,
+  highlight = null,
+}: SceneInput): MapScene {
   const project = fitProjection(collectionBox(collection), width, height, pad);
   const byStanding = new Map<Standing, { d: string[]; count: number }>();
   const borders: string[] = [];
@@ -106,7 +115,8 @@ export function buildMapScene({ collection, standingOf, width, height, pad = 8, 
     for (const poly of f.geometry.coordinates) {
       for (const ring of poly) {
         const r = ring.map(([lon, lat]) => project(lon, lat));
-        for (const [x, y] of r) box = [Math.min(box[0], x), Math.min(box[1], y), Math.max(box[2], x), Math.max(box[3], y)];
+        for (const [x, y] of r)
+          box = [Math.min(box[0], x), Math.min(box[1], y), Math.max(box[2], x), Math.max(box[3], y)];
         rings.push(r);
         paths.push(ringPath(r));
       }
@@ -119,7 +129,15 @@ export function buildMapScene({ collection, standingOf, width, height, pad = 8, 
     borders.push(d);
     if (highlight && f.properties.code === highlight) highlightPath = d;
     const [x, y] = project(f.properties.point[0], f.properties.point[1]);
-    districts.push({ code: f.properties.code, name: f.properties.name, standing, x: round1(x), y: round1(y), box, rings });
+    districts.push({
+      code: f.properties.code,
+      name: f.properties.name,
+      standing,
+      x: round1(x),
+      y: round1(y),
+      box,
+      rings,
+    });
   }
   return {
     width,

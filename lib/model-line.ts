@@ -37,5 +37,10 @@ export function modelLineOfRun(run: PublishedRunMeta): string {
   const m = run.model;
   const form = `${m.form === 'cubic' ? 'Cubic' : 'Quadratic'} ${m.transform === 'log' ? 'in logs' : 'in levels'}`;
   const controls = m.controls.length ? `controls: ${m.controls.map(controlLabel).join(', ')}` : 'no controls';
-  return [form, `${COVARIANCE_LABEL[m.covariance] ?? m.covariance} errors`, controls, `${levelPercent(m.level)} ${METHOD_LABEL[m.intervalMethod]} intervals`].join(' · ');
+  return [
+    form,
+    `${COVARIANCE_LABEL[m.covariance] ?? m.covariance} errors`,
+    controls,
+    `${levelPercent(m.level)} ${METHOD_LABEL[m.intervalMethod]} intervals`,
+  ].join(' · ');
 }

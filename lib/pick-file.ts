@@ -8,7 +8,11 @@ export type { PickedFile } from './pick-file.types';
 
 /** Opens the system picker for one CSV file; null when the person cancels. */
 export async function pickCsvFile(): Promise<PickedFile | null> {
-  const result = await DocumentPicker.getDocumentAsync({ type: CSV_TYPES, copyToCacheDirectory: true, multiple: false });
+  const result = await DocumentPicker.getDocumentAsync({
+    type: CSV_TYPES,
+    copyToCacheDirectory: true,
+    multiple: false,
+  });
   if (result.canceled || !result.assets?.length) return null;
   const asset = result.assets[0];
   return {

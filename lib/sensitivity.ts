@@ -16,8 +16,17 @@ export type SensitivityRow = {
   text: string;
 };
 
-function textOf(threshold: number | null, bounded: boolean, kind: FiellerKind | null, lo: number | null, hi: number | null, level: number, reason: string | null): string {
-  if (threshold === null || !(threshold > 0)) return reason ? `no threshold (${reason.replace(/\.$/, '')})` : 'no positive threshold';
+function textOf(
+  threshold: number | null,
+  bounded: boolean,
+  kind: FiellerKind | null,
+  lo: number | null,
+  hi: number | null,
+  level: number,
+  reason: string | null,
+): string {
+  if (threshold === null || !(threshold > 0))
+    return reason ? `no threshold (${reason.replace(/\.$/, '')})` : 'no positive threshold';
   const point = formatLevel(threshold);
   if (bounded && lo !== null && hi !== null) return `${point} (${formatLevel(lo)}–${formatLevel(hi)})`;
   return `${point}; ${notBoundedText(level)}${kind ? ` (${intervalText(kind, lo, hi)})` : ''}`;
@@ -36,7 +45,15 @@ export function sensitivityRows(main: EstimateRecord, variants: VariantSummary[]
       hi: main.standing.levelHi,
       kind: main.threshold?.fieller.kind ?? null,
       bounded: mainBounded,
-      text: textOf(mainThreshold, mainBounded, main.threshold?.fieller.kind ?? null, main.standing.levelLo, main.standing.levelHi, level, main.reason?.message ?? null),
+      text: textOf(
+        mainThreshold,
+        mainBounded,
+        main.threshold?.fieller.kind ?? null,
+        main.standing.levelLo,
+        main.standing.levelHi,
+        level,
+        main.reason?.message ?? null,
+      ),
     },
   ];
   for (const name of VARIANT_ORDER) {
@@ -51,7 +68,10 @@ export function sensitivityRows(main: EstimateRecord, variants: VariantSummary[]
       hi: v.thresholdHi,
       kind: v.fiellerKind,
       bounded,
-      text: v.status === 'not_estimable' ? `not estimable${v.reason ? ` (${v.reason.message.replace(/\.$/, '')})` : ''}` : textOf(v.threshold, bounded, v.fiellerKind, v.thresholdLo, v.thresholdHi, level, null),
+      text:
+        v.status === 'not_estimable'
+          ? `not estimable${v.reason ? ` (${v.reason.message.replace(/\.$/, '')})` : ''}`
+          : textOf(v.threshold, bounded, v.fiellerKind, v.thresholdLo, v.thresholdHi, level, null),
     });
   }
   return rows;

@@ -18,7 +18,9 @@ export async function up(knex: Knex): Promise<void> {
     t.boolean('must_be_positive').notNullable().defaultTo(false);
     t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
   });
-  await knex.raw(`ALTER TABLE indicators ADD CONSTRAINT indicators_code_format CHECK (code ~ '^[a-z][a-z0-9_]{0,62}$')`);
+  await knex.raw(
+    `ALTER TABLE indicators ADD CONSTRAINT indicators_code_format CHECK (code ~ '^[a-z][a-z0-9_]{0,62}$')`,
+  );
 
   await knex.schema.createTable('observations', (t) => {
     t.bigIncrements('id').primary();
@@ -30,7 +32,9 @@ export async function up(knex: Knex): Promise<void> {
     t.unique(['district_id', 'indicator_id', 'year']);
   });
   await knex.raw(`ALTER TABLE observations ADD CONSTRAINT observations_year_range CHECK (year BETWEEN 1900 AND 2100)`);
-  await knex.raw(`ALTER TABLE observations ADD CONSTRAINT observations_value_finite CHECK (value <> 'NaN'::float8 AND value < 'Infinity'::float8 AND value > '-Infinity'::float8)`);
+  await knex.raw(
+    `ALTER TABLE observations ADD CONSTRAINT observations_value_finite CHECK (value <> 'NaN'::float8 AND value < 'Infinity'::float8 AND value > '-Infinity'::float8)`,
+  );
 
   await knex.schema.createTable('users', (t) => {
     t.increments('id').primary();

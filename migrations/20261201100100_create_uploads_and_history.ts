@@ -68,7 +68,9 @@ export async function up(knex: Knex): Promise<void> {
       ADD CONSTRAINT uploads_applied_has_version CHECK ((status IN ('committed', 'reverted')) = (version IS NOT NULL)),
       ADD CONSTRAINT uploads_revert_names_target CHECK ((kind = 'revert') = (reverts_upload_id IS NOT NULL))`);
   // A file is committed at most once at a time: the same bytes again are a no-op.
-  await knex.raw(`CREATE UNIQUE INDEX uploads_committed_checksum ON uploads (checksum) WHERE kind = 'file' AND status = 'committed'`);
+  await knex.raw(
+    `CREATE UNIQUE INDEX uploads_committed_checksum ON uploads (checksum) WHERE kind = 'file' AND status = 'committed'`,
+  );
   await knex.raw(`CREATE INDEX uploads_created_at ON uploads (created_at DESC, id DESC)`);
 
   await knex.schema.alterTable('observations', (t) => {

@@ -61,7 +61,9 @@ export async function up(knex: Knex): Promise<void> {
     t.timestamp('published_at', { useTz: true }).nullable();
     t.timestamp('discarded_at', { useTz: true }).nullable();
   });
-  await knex.raw(`ALTER TABLE runs ADD CONSTRAINT runs_state_known CHECK (state IN ('queued', 'running', 'in_review', 'published', 'discarded', 'failed'))`);
+  await knex.raw(
+    `ALTER TABLE runs ADD CONSTRAINT runs_state_known CHECK (state IN ('queued', 'running', 'in_review', 'published', 'discarded', 'failed'))`,
+  );
   // Only one run per spec at a time.
   await knex.raw(`CREATE UNIQUE INDEX runs_one_active_per_spec ON runs (spec_id) WHERE state IN ('queued', 'running')`);
   await knex.raw(`CREATE INDEX runs_published ON runs (published_at DESC) WHERE state = 'published'`);
@@ -113,7 +115,9 @@ export async function up(knex: Knex): Promise<void> {
     t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
     t.unique(['run_id', 'district_id', 'kind']);
   });
-  await knex.raw(`ALTER TABLE alerts ADD CONSTRAINT alerts_kind_known CHECK (kind IN ('crossing', 'threshold_shift', 'shape_change', 'significance_change'))`);
+  await knex.raw(
+    `ALTER TABLE alerts ADD CONSTRAINT alerts_kind_known CHECK (kind IN ('crossing', 'threshold_shift', 'shape_change', 'significance_change'))`,
+  );
 
   await knex.schema.createTable('alert_reads', (t) => {
     t.integer('alert_id').notNullable().references('alerts.id').onDelete('CASCADE');
@@ -132,8 +136,12 @@ export async function up(knex: Knex): Promise<void> {
     t.boolean('attach_brief').notNullable().defaultTo(false);
     t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
   });
-  await knex.raw(`ALTER TABLE subscriptions ADD CONSTRAINT subscriptions_scope_known CHECK (scope IN ('district', 'districts', 'region'))`);
-  await knex.raw(`ALTER TABLE subscriptions ADD CONSTRAINT subscriptions_delivery_known CHECK (delivery IN ('instant', 'digest'))`);
+  await knex.raw(
+    `ALTER TABLE subscriptions ADD CONSTRAINT subscriptions_scope_known CHECK (scope IN ('district', 'districts', 'region'))`,
+  );
+  await knex.raw(
+    `ALTER TABLE subscriptions ADD CONSTRAINT subscriptions_delivery_known CHECK (delivery IN ('instant', 'digest'))`,
+  );
 
   // Each (alert, subscriber) or (run, digest subscriber) is one row: sent exactly once.
   await knex.schema.createTable('outbox', (t) => {
@@ -154,7 +162,18 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const table of ['outbox', 'subscriptions', 'alert_reads', 'alerts', 'run_notes', 'run_estimates', 'run_chunks', 'runs', 'model_specs', 'settings']) {
+  for (const table of [
+    'outbox',
+    'subscriptions',
+    'alert_reads',
+    'alerts',
+    'run_notes',
+    'run_estimates',
+    'run_chunks',
+    'runs',
+    'model_specs',
+    'settings',
+  ]) {
     await knex.schema.dropTableIfExists(table);
   }
 }

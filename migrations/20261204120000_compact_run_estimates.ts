@@ -8,7 +8,16 @@ import type { Knex } from 'knex';
  * records are compressed with lz4 where the server has it: far cheaper to write than
  * the default pglz at a similar size for these JSON documents.
  */
-const VARIANT_BLANKS = { terms: [], coefficients: [], rSquared: null, turningPoints: [], uTest: null, wald: null, elasticity: null, trendPerYear: null };
+const VARIANT_BLANKS = {
+  terms: [],
+  coefficients: [],
+  rSquared: null,
+  turningPoints: [],
+  uTest: null,
+  wald: null,
+  elasticity: null,
+  trendPerYear: null,
+};
 
 export async function up(knex: Knex): Promise<void> {
   await knex.raw(

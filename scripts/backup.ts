@@ -58,12 +58,18 @@ export async function schemaVersion(url: string): Promise<string> {
 
 /** The newest migration this checkout ships (what `npm run db:migrate` would reach). */
 export function codeSchemaVersion(): string {
-  const names = fs.readdirSync(migrationsDir).filter((f) => /^\d{14}_.*\.[cm]?[jt]s$/.test(f)).sort();
+  const names = fs
+    .readdirSync(migrationsDir)
+    .filter((f) => /^\d{14}_.*\.[cm]?[jt]s$/.test(f))
+    .sort();
   return names.length ? names[names.length - 1].replace(/\.[cm]?[jt]s$/, '') : 'empty';
 }
 
 export function backupFileName(version: string, at = new Date()): string {
-  const stamp = at.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z');
+  const stamp = at
+    .toISOString()
+    .replace(/[-:]/g, '')
+    .replace(/\.\d+Z$/, 'Z');
   return `crestwatch-${version}-${stamp}.dump`;
 }
 
@@ -91,9 +97,18 @@ export async function restore(url: string, file: string): Promise<{ schemaVersio
     return rows[0].n as number;
   });
   if (tables > 0) {
-    throw new Error(`the target database already holds ${tables} tables: restore into a new, empty database (createdb) and point DATABASE_URL or --url at it`);
+    throw new Error(
+      `the target database already holds ${tables} tables: restore into a new, empty database (createdb) and point DATABASE_URL or --url at it`,
+    );
   }
-  tool('pg_restore', ['--no-owner', '--no-privileges', '--exit-on-error', '--single-transaction', `--dbname=${url}`, file]);
+  tool('pg_restore', [
+    '--no-owner',
+    '--no-privileges',
+    '--exit-on-error',
+    '--single-transaction',
+    `--dbname=${url}`,
+    file,
+  ]);
   return { schemaVersion: await schemaVersion(url) };
 }
 
@@ -116,7 +131,9 @@ async function main(argv: string[]): Promise<void> {
     const named = versionOfBackup(file);
     const code = codeSchemaVersion();
     if (named && named !== 'empty' && named > code) {
-      throw new Error(`the backup's schema ${named} is newer than this release's ${code}: restore it with the release that wrote it`);
+      throw new Error(
+        `the backup's schema ${named} is newer than this release's ${code}: restore it with the release that wrote it`,
+      );
     }
     const r = await restore(url, file);
     const next = r.schemaVersion < code ? `; run \`npm run db:migrate\` to bring it to ${code}` : '';

@@ -76,7 +76,10 @@ export function ensurePostgis(binDir: string): void {
   if (!isRoot) throw new Error(`PostGIS is missing: run \`sudo apt-get install -y ${pkg}\` and try again.`);
   log(`PostGIS missing; installing Debian package ${pkg}…`);
   execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-  execFileSync('apt-get', ['install', '-y', '-qq', pkg], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  execFileSync('apt-get', ['install', '-y', '-qq', pkg], {
+    stdio: 'inherit',
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
   if (!fs.existsSync(control)) throw new Error(`apt-get install ${pkg} finished but ${control} was not found.`);
 }
 

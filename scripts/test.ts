@@ -24,7 +24,10 @@ function ensureDebianPackage(binary: string, pkg: string): void {
   if (fs.existsSync(binary)) return;
   if (!isRoot) throw new Error(`${binary} is missing: run \`sudo apt-get install -y ${pkg}\` and try again.`);
   execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-  execFileSync('apt-get', ['install', '-y', '-qq', pkg], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  execFileSync('apt-get', ['install', '-y', '-qq', pkg], {
+    stdio: 'inherit',
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
 }
 
 function main(): number {
@@ -63,14 +66,20 @@ function main(): number {
   t = step('jest: app, engine + reference checks, API, browser');
   const report = path.join(artifacts, 'jest-report.json');
   const jestArgs = ['--ci', '--maxWorkers=2', '--json', `--outputFile=${report}`, ...process.argv.slice(2)];
-  const r = spawnSync(bin('jest'), jestArgs, { cwd: root, stdio: 'inherit', env: { ...process.env, FORCE_COLOR: '0' } });
+  const r = spawnSync(bin('jest'), jestArgs, {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, FORCE_COLOR: '0' },
+  });
   let summary = '';
   if (fs.existsSync(report)) {
     const j = JSON.parse(fs.readFileSync(report, 'utf8'));
     summary = `${j.numPassedTests} passed, ${j.numFailedTests} failed`;
   }
   pg.stop(TEST_CLUSTER);
-  console.log(`\njest finished in ${((Date.now() - t) / 1000).toFixed(1)} s; whole run ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+  console.log(
+    `\njest finished in ${((Date.now() - t) / 1000).toFixed(1)} s; whole run ${((Date.now() - t0) / 1000).toFixed(1)} s`,
+  );
   if (summary) console.log(`\n${summary}`);
   return r.status ?? 1;
 }

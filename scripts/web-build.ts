@@ -28,15 +28,21 @@ function hashTree(h: ReturnType<typeof createHash>, dir: string): void {
 export function webInputsHash(): string {
   const h = createHash('sha256');
   for (const d of inputDirs) hashTree(h, path.join(root, d));
-  for (const f of inputFiles) if (fs.existsSync(path.join(root, f))) h.update(f).update(fs.readFileSync(path.join(root, f)));
+  for (const f of inputFiles)
+    if (fs.existsSync(path.join(root, f))) h.update(f).update(fs.readFileSync(path.join(root, f)));
   return h.digest('hex');
 }
 
 export function buildWebIfStale(log: (m: string) => void = (m) => process.stderr.write(`[web] ${m}\n`)): boolean {
   const hash = webInputsHash();
-  if (fs.existsSync(stampFile) && fs.readFileSync(stampFile, 'utf8') === hash && fs.existsSync(path.join(distDir, 'index.html'))) {
+  if (
+    fs.existsSync(stampFile) &&
+    fs.readFileSync(stampFile, 'utf8') === hash &&
+    fs.existsSync(path.join(distDir, 'index.html'))
+  ) {
     // A build from before the hashes file: add it (it is read from the HTML, no rebuild needed).
-    if (!fs.existsSync(path.join(distDir, CSP_HASHES_FILE))) log(`wrote ${writeCspHashes(distDir).length} inline-script hashes for the CSP`);
+    if (!fs.existsSync(path.join(distDir, CSP_HASHES_FILE)))
+      log(`wrote ${writeCspHashes(distDir).length} inline-script hashes for the CSP`);
     return false;
   }
   log('building the web app (expo export -p web)…');
@@ -44,7 +50,11 @@ export function buildWebIfStale(log: (m: string) => void = (m) => process.stderr
   const r = spawnSync(
     process.execPath,
     [path.join(root, 'node_modules', 'expo', 'bin', 'cli'), 'export', '-p', 'web', '--output-dir', 'dist'],
-    { cwd: root, stdio: ['ignore', 'inherit', 'inherit'], env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1' } },
+    {
+      cwd: root,
+      stdio: ['ignore', 'inherit', 'inherit'],
+      env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1' },
+    },
   );
   if (r.status !== 0) throw new Error(`expo export failed with exit code ${r.status}`);
   // The CSP's script-src lists these hashes (api/web/csp.ts), so they follow the scripts.

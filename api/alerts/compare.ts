@@ -27,12 +27,16 @@ export interface Summary {
 
 export function districtChange(prev: Summary | null, next: Summary): DistrictChange {
   if (!prev) return { thresholdPercent: null, standingChanged: false, shapeChanged: false, significanceChanged: false };
-  const thresholdPercent = prev.threshold !== null && next.threshold !== null && prev.threshold > 0 ? 100 * (next.threshold / prev.threshold - 1) : null;
+  const thresholdPercent =
+    prev.threshold !== null && next.threshold !== null && prev.threshold > 0
+      ? 100 * (next.threshold / prev.threshold - 1)
+      : null;
   return {
     thresholdPercent,
     standingChanged: prev.standing !== next.standing,
     shapeChanged: prev.shape !== null && next.shape !== null && prev.shape !== next.shape,
-    significanceChanged: prev.uTestRejects !== null && next.uTestRejects !== null && prev.uTestRejects !== next.uTestRejects,
+    significanceChanged:
+      prev.uTestRejects !== null && next.uTestRejects !== null && prev.uTestRejects !== next.uTestRejects,
   };
 }
 
@@ -49,9 +53,13 @@ export function alertsFor(prev: Summary | null, next: Summary, shiftPercent: num
     out.push({ kind: 'crossing', details: { from: prev.standing, to: next.standing } });
   }
   if (c.thresholdPercent !== null && Math.abs(c.thresholdPercent) > shiftPercent) {
-    out.push({ kind: 'threshold_shift', details: { from: prev.threshold, to: next.threshold, percent: c.thresholdPercent, limitPercent: shiftPercent } });
+    out.push({
+      kind: 'threshold_shift',
+      details: { from: prev.threshold, to: next.threshold, percent: c.thresholdPercent, limitPercent: shiftPercent },
+    });
   }
   if (c.shapeChanged) out.push({ kind: 'shape_change', details: { from: prev.shape, to: next.shape } });
-  if (c.significanceChanged) out.push({ kind: 'significance_change', details: { from: prev.uTestRejects, to: next.uTestRejects } });
+  if (c.significanceChanged)
+    out.push({ kind: 'significance_change', details: { from: prev.uTestRejects, to: next.uTestRejects } });
   return out;
 }

@@ -55,11 +55,26 @@ const CAUTION =
 export function instantMail(a: AlertForMail, publicUrl: string, unsubscribeUrl: string) {
   return {
     subject: `Crestwatch: ${a.districtName} ${KIND_LABEL[a.kind]}`,
-    text: [alertSentence(a), '', `District card: ${publicUrl}/district/${encodeURIComponent(a.districtCode)}`, `Published run #${a.runId}.`, '', CAUTION, '', `Stop these e-mails: ${unsubscribeUrl}`].join('\n'),
+    text: [
+      alertSentence(a),
+      '',
+      `District card: ${publicUrl}/district/${encodeURIComponent(a.districtCode)}`,
+      `Published run #${a.runId}.`,
+      '',
+      CAUTION,
+      '',
+      `Stop these e-mails: ${unsubscribeUrl}`,
+    ].join('\n'),
   };
 }
 
-export function digestMail(alerts: AlertForMail[], runId: number, publicUrl: string, unsubscribeUrl: string, withBrief: boolean) {
+export function digestMail(
+  alerts: AlertForMail[],
+  runId: number,
+  publicUrl: string,
+  unsubscribeUrl: string,
+  withBrief: boolean,
+) {
   return {
     subject: `Crestwatch: ${alerts.length} change${alerts.length === 1 ? '' : 's'} in published run #${runId}`,
     text: [

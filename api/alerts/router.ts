@@ -23,7 +23,11 @@ export function alertRoutes({ db }: AppContext): RouteSpec[] {
         }),
       },
       handler: async ({ query }, req) => {
-        const alerts = await service.feed(db, callerOf(req)!, { districtCode: query.district, limit: query.limit, unreadOnly: query.unread === 'true' });
+        const alerts = await service.feed(db, callerOf(req)!, {
+          districtCode: query.district,
+          limit: query.limit,
+          unreadOnly: query.unread === 'true',
+        });
         return { alerts, unread: alerts.filter((a) => !a.read).length };
       },
     }),
@@ -47,7 +51,10 @@ export function alertRoutes({ db }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'alerts',
       summary: 'Every alert published for one district, newest first',
-      schemas: { params: z.object({ code: districtCode }), query: z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) }) },
+      schemas: {
+        params: z.object({ code: districtCode }),
+        query: z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) }),
+      },
       handler: async ({ params, query }) => ({ alerts: await service.districtAlerts(db, params.code, query.limit) }),
     }),
   ];

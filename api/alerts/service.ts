@@ -53,12 +53,20 @@ export async function createAlertsForPublish(
     runId: run.id,
   });
   for (const s of subs) {
-    const matched = inserted.filter((a) => s.kinds.includes(a.kind) && (s.scope === 'region' || s.districtIds.includes(a.districtId)));
+    const matched = inserted.filter(
+      (a) => s.kinds.includes(a.kind) && (s.scope === 'region' || s.districtIds.includes(a.districtId)),
+    );
     if (!matched.length) continue;
     const unsubscribe = unsubscribeUrl(config, s.id);
     if (s.delivery === 'instant') {
       for (const a of matched) {
-        mails.push({ dedupeKey: `alert:${a.id}:user:${s.userId}`, userId: s.userId, runId: run.id, to: s.email, message: instantMail(forMail(a), config.publicUrl, unsubscribe) });
+        mails.push({
+          dedupeKey: `alert:${a.id}:user:${s.userId}`,
+          userId: s.userId,
+          runId: run.id,
+          to: s.email,
+          message: instantMail(forMail(a), config.publicUrl, unsubscribe),
+        });
       }
     } else {
       mails.push({
@@ -79,7 +87,11 @@ export async function createAlertsForPublish(
 }
 
 /** The caller's feed: alerts their subscriptions cover (optionally one district's). */
-export function feed(db: Knex, caller: Caller, opts: { districtCode?: string; limit: number; unreadOnly?: boolean }): Promise<store.FeedRow[]> {
+export function feed(
+  db: Knex,
+  caller: Caller,
+  opts: { districtCode?: string; limit: number; unreadOnly?: boolean },
+): Promise<store.FeedRow[]> {
   return store.feedFor(db, caller.id, opts);
 }
 

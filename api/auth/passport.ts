@@ -47,7 +47,12 @@ export function createPassport({ db, config }: AppContext): InstanceType<typeof 
         state: true,
         pkce: true,
       },
-      async (_accessToken: string, _refreshToken: string, profile: Profile, done: (err: unknown, user?: Caller | false, info?: { reason: SignInRefusal; email?: string }) => void) => {
+      async (
+        _accessToken: string,
+        _refreshToken: string,
+        profile: Profile,
+        done: (err: unknown, user?: Caller | false, info?: { reason: SignInRefusal; email?: string }) => void,
+      ) => {
         try {
           const email = profile.emails?.[0]?.value;
           if (!email) return done(null, false, { reason: 'no_email' });
@@ -63,16 +68,36 @@ export function createPassport({ db, config }: AppContext): InstanceType<typeof 
           if (!user.active) return done(null, false, { reason: 'deactivated', email });
           const holder = await people.findPersonByGoogleSub(db, profile.id);
           if ((user.googleSub !== null && user.googleSub !== profile.id) || (holder && holder.id !== user.id)) {
-            await audit.record(db, { actorId: null, actorEmail: email, action: 'sign_in.refused', targetType: 'user', targetId: user.id, after: { reason: 'identity_mismatch' } });
+            await audit.record(db, {
+              actorId: null,
+              actorEmail: email,
+              action: 'sign_in.refused',
+              targetType: 'user',
+              targetId: user.id,
+              after: { reason: 'identity_mismatch' },
+            });
             return done(null, false, { reason: 'identity_mismatch', email });
           }
           if (people.invitationExpired(user)) {
-            await audit.record(db, { actorId: null, actorEmail: email, action: 'sign_in.refused', targetType: 'user', targetId: user.id, after: { reason: 'invitation_expired' } });
+            await audit.record(db, {
+              actorId: null,
+              actorEmail: email,
+              action: 'sign_in.refused',
+              targetType: 'user',
+              targetId: user.id,
+              after: { reason: 'invitation_expired' },
+            });
             return done(null, false, { reason: 'invitation_expired', email });
           }
           await db.transaction(async (trx) => {
             await people.recordSignIn(trx, user.id, profile.id, profile.displayName ?? '');
-            await audit.record(trx, { actorId: user.id, actorEmail: user.email, action: 'sign_in', targetType: 'user', targetId: user.id });
+            await audit.record(trx, {
+              actorId: user.id,
+              actorEmail: user.email,
+              action: 'sign_in',
+              targetType: 'user',
+              targetId: user.id,
+            });
           });
           done(null, { id: user.id, email: user.email, name: user.name, role: user.role, active: user.active });
         } catch (err) {

@@ -45,7 +45,9 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts; wait a minute and try again.' } });
+      res
+        .status(429)
+        .json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts; wait a minute and try again.' } });
     },
   });
   const standInAvailable = config.mode !== 'production';
@@ -113,7 +115,10 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
               if (NO_ACCESS.has(reason)) {
                 res.redirect(303, `/no-access?reason=${reason}`);
               } else {
-                res.redirect(303, `/sign-in?error=${encodeURIComponent(reason === 'no_email' ? 'no_email' : 'failed')}`);
+                res.redirect(
+                  303,
+                  `/sign-in?error=${encodeURIComponent(reason === 'no_email' ? 'no_email' : 'failed')}`,
+                );
               }
               return resolve();
             }
@@ -140,7 +145,13 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
       summary: 'Sign out: ends and deletes the session',
       handler: async (_input, req, res) => {
         const caller = callerOf(req)!;
-        await audit.record(db, { actorId: caller.id, actorEmail: caller.email, action: 'sign_out', targetType: 'user', targetId: caller.id });
+        await audit.record(db, {
+          actorId: caller.id,
+          actorEmail: caller.email,
+          action: 'sign_out',
+          targetType: 'user',
+          targetId: caller.id,
+        });
         await new Promise<void>((resolve, reject) => req.logOut((err) => (err ? reject(err) : resolve())));
         await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
         res.clearCookie(sessionCookieName(config), sessionCookieOptions(config));
@@ -157,7 +168,13 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
       handler: (_input, req) => {
         const caller = callerOf(req)!;
         if (!req.session.csrfToken) req.session.csrfToken = newCsrfToken();
-        return { id: caller.id, email: caller.email, name: caller.name, role: caller.role, csrfToken: req.session.csrfToken };
+        return {
+          id: caller.id,
+          email: caller.email,
+          name: caller.name,
+          role: caller.role,
+          csrfToken: req.session.csrfToken,
+        };
       },
     }),
   ];

@@ -54,7 +54,11 @@ type Limits = Pick<Config, 'sessionIdleMinutes' | 'sessionMaxHours'>;
  * have passed, the one that passed first is named. A signed-in session without `createdAt`
  * (made before limits existed) counts as past its lifetime.
  */
-export function sessionEnd(s: { createdAt?: number; lastSeenAt?: number }, now: number, limits: Limits): SessionEndReason | null {
+export function sessionEnd(
+  s: { createdAt?: number; lastSeenAt?: number },
+  now: number,
+  limits: Limits,
+): SessionEndReason | null {
   if (typeof s.createdAt !== 'number') return 'lifetime';
   const lifetimeEnds = s.createdAt + limits.sessionMaxHours * 3_600_000;
   const idleEnds = (s.lastSeenAt ?? s.createdAt) + limits.sessionIdleMinutes * 60_000;
@@ -85,7 +89,10 @@ export function sessionLimits(limits: Limits, now: () => number = Date.now): Req
 }
 
 /** Starts the limits' clock for a session that just signed in. */
-export function startSessionClock(s: { createdAt?: number; lastSeenAt?: number; endedReason?: SessionEndReason }, now = Date.now()): void {
+export function startSessionClock(
+  s: { createdAt?: number; lastSeenAt?: number; endedReason?: SessionEndReason },
+  now = Date.now(),
+): void {
   s.createdAt = now;
   s.lastSeenAt = now;
   delete s.endedReason;
@@ -112,7 +119,12 @@ export function sessionExpiredErrors(limits: Limits): ErrorRequestHandler {
 export function sessionMiddleware({ config }: AppContext): { middleware: RequestHandler; close(): Promise<void> } {
   const PgStore = connectPgSimple(session);
   // A small pool of its own; idle clients do not keep the process alive.
-  const pool = new Pool({ connectionString: config.databaseUrl, max: 4, idleTimeoutMillis: 5_000, allowExitOnIdle: true });
+  const pool = new Pool({
+    connectionString: config.databaseUrl,
+    max: 4,
+    idleTimeoutMillis: 5_000,
+    allowExitOnIdle: true,
+  });
   const store = new PgStore({
     pool,
     tableName: 'session',

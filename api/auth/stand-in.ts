@@ -52,7 +52,11 @@ export function identityFromHint(hint: string, testIdentities: boolean): Identit
   return id;
 }
 
-export async function startStandIn(port: number, host = '127.0.0.1', opts: { testIdentities?: boolean } = {}): Promise<StandIn> {
+export async function startStandIn(
+  port: number,
+  host = '127.0.0.1',
+  opts: { testIdentities?: boolean } = {},
+): Promise<StandIn> {
   const { OAuth2Server } = await import('oauth2-mock-server');
   const server = new OAuth2Server();
   await server.issuer.keys.generate('RS256');

@@ -102,7 +102,8 @@ function checkPolygon(poly: unknown, where: string, z: { dropped: number }): str
     }
     const a = ring[0] as Position;
     const b = ring[ring.length - 1] as Position;
-    if (a[0] !== b[0] || a[1] !== b[1]) return `unclosed:${at} is not closed: its last position [${b[0]}, ${b[1]}] differs from its first [${a[0]}, ${a[1]}]`;
+    if (a[0] !== b[0] || a[1] !== b[1])
+      return `unclosed:${at} is not closed: its last position [${b[0]}, ${b[1]}] differs from its first [${a[0]}, ${a[1]}]`;
     count += ring.length;
   }
   return count;
@@ -112,57 +113,114 @@ function checkPolygon(poly: unknown, where: string, z: { dropped: number }): str
 export function checkFeatures(root: unknown, codeProperty: string, maxVertices: number): FeatureCheck {
   const problems: BoundaryProblem[] = [];
   const out: CheckedFeature[] = [];
-  const fileError = (problem: BoundaryProblemCode, reason: string) => problems.push({ feature: null, code: null, problem, severity: 'error', reason });
+  const fileError = (problem: BoundaryProblemCode, reason: string) =>
+    problems.push({ feature: null, code: null, problem, severity: 'error', reason });
   if (!isObject(root) || root.type !== 'FeatureCollection' || !Array.isArray(root.features)) {
-    const what = isObject(root) ? (typeof root.type === 'string' ? `a GeoJSON ${root.type}` : 'an object without a GeoJSON "type"') : kindOf(root);
+    const what = isObject(root)
+      ? typeof root.type === 'string'
+        ? `a GeoJSON ${root.type}`
+        : 'an object without a GeoJSON "type"'
+      : kindOf(root);
     fileError('not_feature_collection', `the file is ${what}, not a GeoJSON FeatureCollection with a "features" list`);
     return { features: [], problems, total: 0, vertices: 0 };
   }
   if (root.crs !== undefined) {
     const name = crsName(root.crs);
     if (name && CRS84.test(name)) {
-      problems.push({ feature: null, code: null, problem: 'crs84_member', severity: 'warning', reason: `the "crs" member names ${name}, which is WGS 84 longitude/latitude as RFC 7946 requires; it is ignored` });
+      problems.push({
+        feature: null,
+        code: null,
+        problem: 'crs84_member',
+        severity: 'warning',
+        reason: `the "crs" member names ${name}, which is WGS 84 longitude/latitude as RFC 7946 requires; it is ignored`,
+      });
     } else {
-      fileError('foreign_crs', `the "crs" member names ${name ?? 'an unreadable reference system'}; RFC 7946 GeoJSON is WGS 84 longitude/latitude only: reproject the file to WGS 84 (EPSG:4326) and drop "crs"`);
+      fileError(
+        'foreign_crs',
+        `the "crs" member names ${name ?? 'an unreadable reference system'}; RFC 7946 GeoJSON is WGS 84 longitude/latitude only: reproject the file to WGS 84 (EPSG:4326) and drop "crs"`,
+      );
     }
   }
   const seen = new Map<string, number>();
   let vertices = 0;
   root.features.forEach((f: unknown, index: number) => {
-    const err = (problem: BoundaryProblemCode, code: string | null, reason: string) => problems.push({ feature: index, code, problem, severity: 'error', reason });
-    if (!isObject(f) || f.type !== 'Feature') return err('not_feature', null, `feature ${index} is ${isObject(f) ? `of type ${JSON.stringify(f.type)}` : kindOf(f)}, not a GeoJSON Feature`);
+    const err = (problem: BoundaryProblemCode, code: string | null, reason: string) =>
+      problems.push({ feature: index, code, problem, severity: 'error', reason });
+    if (!isObject(f) || f.type !== 'Feature')
+      return err(
+        'not_feature',
+        null,
+        `feature ${index} is ${isObject(f) ? `of type ${JSON.stringify(f.type)}` : kindOf(f)}, not a GeoJSON Feature`,
+      );
     const props = isObject(f.properties) ? f.properties : {};
     const raw = props[codeProperty];
     const code = typeof raw === 'string' ? raw.trim() : typeof raw === 'number' ? String(raw) : '';
-    if (!code) return err('no_code', null, `feature ${index} has no district code in its "${codeProperty}" property (choose the property with codeProperty)`);
+    if (!code)
+      return err(
+        'no_code',
+        null,
+        `feature ${index} has no district code in its "${codeProperty}" property (choose the property with codeProperty)`,
+      );
     const first = seen.get(code);
-    if (first !== undefined) return err('duplicate_code', code, `feature ${index} repeats the code ${code} of feature ${first}; each district needs exactly one feature (merge its parts into one MultiPolygon)`);
+    if (first !== undefined)
+      return err(
+        'duplicate_code',
+        code,
+        `feature ${index} repeats the code ${code} of feature ${first}; each district needs exactly one feature (merge its parts into one MultiPolygon)`,
+      );
     seen.set(code, index);
     const g = f.geometry;
     if (!isObject(g) || (g.type !== 'Polygon' && g.type !== 'MultiPolygon')) {
-      return err('not_polygon', code, `feature ${index} (${code}) has ${isObject(g) ? `a ${String(g.type)} geometry` : 'no geometry'}; a district boundary must be a Polygon or MultiPolygon`);
+      return err(
+        'not_polygon',
+        code,
+        `feature ${index} (${code}) has ${isObject(g) ? `a ${String(g.type)} geometry` : 'no geometry'}; a district boundary must be a Polygon or MultiPolygon`,
+      );
     }
     const polys = g.type === 'Polygon' ? [g.coordinates] : g.coordinates;
-    if (!Array.isArray(polys) || polys.length === 0) return err('bad_coordinates', code, `feature ${index} (${code}): "coordinates" is not a list of polygons`);
+    if (!Array.isArray(polys) || polys.length === 0)
+      return err('bad_coordinates', code, `feature ${index} (${code}): "coordinates" is not a list of polygons`);
     const z = { dropped: 0 };
     let count = 0;
     for (let p = 0; p < polys.length; p++) {
       const r = checkPolygon(polys[p], g.type === 'Polygon' ? 'the polygon' : `polygon ${p}`, z);
       if (typeof r === 'string') {
-        const [kind, text] = r.startsWith('short:') ? ['short_ring', r.slice(6)] : r.startsWith('range:') ? ['out_of_range', r.slice(6)] : r.startsWith('unclosed:') ? ['unclosed_ring', r.slice(9)] : ['bad_coordinates', r];
+        const [kind, text] = r.startsWith('short:')
+          ? ['short_ring', r.slice(6)]
+          : r.startsWith('range:')
+            ? ['out_of_range', r.slice(6)]
+            : r.startsWith('unclosed:')
+              ? ['unclosed_ring', r.slice(9)]
+              : ['bad_coordinates', r];
         return err(kind as BoundaryProblemCode, code, `feature ${index} (${code}): ${text}`);
       }
       count += r;
       if (count > maxVertices) {
-        return err('too_many_vertices', code, `feature ${index} (${code}) has more than ${maxVertices.toLocaleString('en')} vertices (BOUNDARY_MAX_VERTICES); simplify it before uploading`);
+        return err(
+          'too_many_vertices',
+          code,
+          `feature ${index} (${code}) has more than ${maxVertices.toLocaleString('en')} vertices (BOUNDARY_MAX_VERTICES); simplify it before uploading`,
+        );
       }
     }
     if (z.dropped > 0) {
-      problems.push({ feature: index, code, problem: 'dropped_z', severity: 'warning', reason: `feature ${index} (${code}): ${z.dropped} positions had a third (height) value, which was dropped` });
+      problems.push({
+        feature: index,
+        code,
+        problem: 'dropped_z',
+        severity: 'warning',
+        reason: `feature ${index} (${code}): ${z.dropped} positions had a third (height) value, which was dropped`,
+      });
     }
     vertices += count;
     const name = typeof props.name === 'string' ? props.name : null;
-    out.push({ index, code, name, geometry: { type: 'MultiPolygon', coordinates: polys as Position[][][] }, vertices: count });
+    out.push({
+      index,
+      code,
+      name,
+      geometry: { type: 'MultiPolygon', coordinates: polys as Position[][][] },
+      vertices: count,
+    });
   });
   return { features: out, problems, total: root.features.length, vertices };
 }

@@ -91,13 +91,18 @@ export function simplifiedCollection(rows: BoundaryRow[], version: number | null
   const digits = Math.max(0, Math.ceil(-Math.log10(span / resolution)));
   const k = 10 ** digits;
 
-  const topo = presimplify(topology({ districts: { type: 'FeatureCollection', features: source } as FeatureCollection }) as never) as Topology;
+  const topo = presimplify(
+    topology({ districts: { type: 'FeatureCollection', features: source } as FeatureCollection }) as never,
+  ) as Topology;
   let points = 0;
   for (const arc of topo.arcs) points += arc.length;
   const keep = pointsPerDistrict * source.length;
   // quantile sorts the weights largest first: the keep/points quantile keeps that share.
   const simplified: Topology = points > keep ? simplify(topo as never, quantile(topo as never, keep / points)) : topo;
-  const rebuilt = feature(simplified as Topology, simplified.objects.districts as GeometryCollection<DistrictProps>) as FeatureCollection<Polygon | MultiPolygon, DistrictProps>;
+  const rebuilt = feature(
+    simplified as Topology,
+    simplified.objects.districts as GeometryCollection<DistrictProps>,
+  ) as FeatureCollection<Polygon | MultiPolygon, DistrictProps>;
 
   const features: Feature<MultiPolygon, DistrictProps>[] = [];
   for (const f of rebuilt.features) {
@@ -105,13 +110,22 @@ export function simplifiedCollection(rows: BoundaryRow[], version: number | null
     for (const poly of toMulti(f.geometry)) {
       const outer = roundRing(poly[0], k);
       if (!outer) continue;
-      polys.push([outer, ...poly.slice(1).flatMap((h) => roundRing(h, k) ?? [])].filter((r): r is Position[] => Array.isArray(r[0])));
+      polys.push(
+        [outer, ...poly.slice(1).flatMap((h) => roundRing(h, k) ?? [])].filter((r): r is Position[] =>
+          Array.isArray(r[0]),
+        ),
+      );
     }
     if (!polys.length) continue;
     const p = f.properties;
     features.push({
       type: 'Feature',
-      properties: { code: p.code, name: p.name, areaKm2: Math.round(p.areaKm2 * 100) / 100, point: [Math.round(p.point[0] * k) / k, Math.round(p.point[1] * k) / k] },
+      properties: {
+        code: p.code,
+        name: p.name,
+        areaKm2: Math.round(p.areaKm2 * 100) / 100,
+        point: [Math.round(p.point[0] * k) / k, Math.round(p.point[1] * k) / k],
+      },
       geometry: { type: 'MultiPolygon', coordinates: polys },
     });
   }

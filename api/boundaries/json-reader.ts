@@ -24,7 +24,12 @@ export interface JsonLimits {
   sliceChars: number;
 }
 
-export const DEFAULT_JSON_LIMITS: JsonLimits = { maxDepth: 12, maxArray: 100_001, maxString: 100_000, sliceChars: 256 * 1024 };
+export const DEFAULT_JSON_LIMITS: JsonLimits = {
+  maxDepth: 12,
+  maxArray: 100_001,
+  maxString: 100_000,
+  sliceChars: 256 * 1024,
+};
 
 export class JsonReadError extends Error {
   constructor(
@@ -95,10 +100,12 @@ export async function parseJsonText(text: string, limits: JsonLimits = DEFAULT_J
       }
       i = q + 1;
     }
-    if (i - start - 1 > limits.maxString) fail(`a text value is longer than ${limits.maxString.toLocaleString('en')} characters`, start);
+    if (i - start - 1 > limits.maxString)
+      fail(`a text value is longer than ${limits.maxString.toLocaleString('en')} characters`, start);
     const raw = text.slice(start + 1, i);
     pos = i + 1;
-    for (let k = 0; k < raw.length; k++) if (raw.charCodeAt(k) < 0x20) fail('a control character inside a text value', start + 1 + k);
+    for (let k = 0; k < raw.length; k++)
+      if (raw.charCodeAt(k) < 0x20) fail('a control character inside a text value', start + 1 + k);
     if (!escaped) return raw;
     try {
       return JSON.parse(`"${raw}"`) as string;
@@ -115,7 +122,8 @@ export async function parseJsonText(text: string, limits: JsonLimits = DEFAULT_J
       return;
     }
     if ('array' in top) {
-      if (top.array.length >= limits.maxArray) fail(`an array has more than ${(limits.maxArray - 1).toLocaleString('en')} items`, pos);
+      if (top.array.length >= limits.maxArray)
+        fail(`an array has more than ${(limits.maxArray - 1).toLocaleString('en')} items`, pos);
       top.array.push(v);
     } else {
       Object.defineProperty(top.object, top.key!, { value: v, enumerable: true, writable: true, configurable: true });
@@ -216,7 +224,8 @@ export async function parseJsonText(text: string, limits: JsonLimits = DEFAULT_J
       }
     }
   }
-  if (state !== State.Done) fail(stack.length ? 'the file ends inside an object or array' : 'the file holds no JSON value', n);
+  if (state !== State.Done)
+    fail(stack.length ? 'the file ends inside an object or array' : 'the file holds no JSON value', n);
   return root;
 }
 

@@ -11,7 +11,11 @@ import { queryBool } from '../uploads/schema';
 import type { Who } from '../uploads/service';
 import { encodedAnswer } from './answer';
 import * as service from './service';
-import { BoundaryRevertAnswerSchema, BoundaryUploadAnswerSchema, BoundaryVersionsSchema } from '../../contracts/boundaries';
+import {
+  BoundaryRevertAnswerSchema,
+  BoundaryUploadAnswerSchema,
+  BoundaryVersionsSchema,
+} from '../../contracts/boundaries';
 
 export const boundaryUploadQuery = z.object({
   codeProperty: z.string().min(1).max(100).default('code'),
@@ -60,9 +64,18 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
       schemas: { query: boundaryUploadQuery },
       handler: async ({ query }, req, res) => {
         const w = who(req);
-        const answer = await service.receiveBoundaries(db, receivedFile(req), query, w, { maxVertices: config.boundaryMaxVertices });
+        const answer = await service.receiveBoundaries(db, receivedFile(req), query, w, {
+          maxVertices: config.boundaryMaxVertices,
+        });
         if (answer.committed) {
-          await audit.record(db, { actorId: w.id, actorEmail: w.email, action: 'boundaries.commit', targetType: 'upload', targetId: answer.uploadId!, after: { versionId: answer.versionId, counts: answer.counts } });
+          await audit.record(db, {
+            actorId: w.id,
+            actorEmail: w.email,
+            action: 'boundaries.commit',
+            targetType: 'upload',
+            targetId: answer.uploadId!,
+            after: { versionId: answer.versionId, counts: answer.counts },
+          });
           res.status(201);
         }
         return answer;
@@ -80,7 +93,8 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
       handler: async ({ query }, req, res) => {
         let version: number | null;
         if (query.version !== undefined) {
-          if (!(await service.findVersion(db, query.version))) throw new NotFoundError(`No boundary version ${query.version}.`, { version: query.version });
+          if (!(await service.findVersion(db, query.version)))
+            throw new NotFoundError(`No boundary version ${query.version}.`, { version: query.version });
           version = query.version;
         } else {
           version = await service.currentVersionId(db);
@@ -103,13 +117,21 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
       path: '/api/boundaries/versions/:id/revert',
       allow: STAFF,
       tag: 'boundaries',
-      summary: 'Revert a boundary version: the version before it becomes current again (a change set in the upload history)',
+      summary:
+        'Revert a boundary version: the version before it becomes current again (a change set in the upload history)',
       answer: BoundaryRevertAnswerSchema,
       schemas: { params: idParams },
       handler: async ({ params }, req) => {
         const w = who(req);
         const answer = await service.revertVersion(db, params.id, w);
-        await audit.record(db, { actorId: w.id, actorEmail: w.email, action: 'boundaries.revert', targetType: 'upload', targetId: answer.reverted!.uploadId, after: { versionId: params.id, revertUploadId: answer.revertUploadId } });
+        await audit.record(db, {
+          actorId: w.id,
+          actorEmail: w.email,
+          action: 'boundaries.revert',
+          targetType: 'upload',
+          targetId: answer.reverted!.uploadId,
+          after: { versionId: params.id, revertUploadId: answer.revertUploadId },
+        });
         return answer;
       },
     }),

@@ -36,7 +36,15 @@ export interface BoundaryAnswer {
   versionId: number | null;
   uploadId: number | null;
   dataVersion: number | null;
-  counts: { features: number; vertices: number; matched: number; missing: number; repaired: number; errors: number; warnings: number };
+  counts: {
+    features: number;
+    vertices: number;
+    matched: number;
+    missing: number;
+    repaired: number;
+    errors: number;
+    warnings: number;
+  };
   problems: BoundaryProblem[];
   /** the first features as they would be written: code, district name, area */
   preview: { feature: number; code: string; name: string; areaKm2: number }[];
@@ -49,21 +57,43 @@ const PREVIEW = 50;
 
 export class BoundariesRejected extends AppError {
   constructor(answer: BoundaryAnswer) {
-    super(422, 'boundaries_rejected', `The boundaries were not loaded: ${answer.counts.errors} problem${answer.counts.errors === 1 ? '' : 's'} to fix. ${answer.problems.find((p) => p.severity === 'error')?.reason ?? ''}`.trim(), answer);
+    super(
+      422,
+      'boundaries_rejected',
+      `The boundaries were not loaded: ${answer.counts.errors} problem${answer.counts.errors === 1 ? '' : 's'} to fix. ${answer.problems.find((p) => p.severity === 'error')?.reason ?? ''}`.trim(),
+      answer,
+    );
   }
 }
 
 function counted(problems: BoundaryProblem[]) {
-  return { errors: problems.filter((p) => p.severity === 'error').length, warnings: problems.filter((p) => p.severity === 'warning').length };
+  return {
+    errors: problems.filter((p) => p.severity === 'error').length,
+    warnings: problems.filter((p) => p.severity === 'warning').length,
+  };
 }
 
-export async function receiveBoundaries(db: Knex, file: ReceivedFile, options: BoundaryOptions, who: Who, limits: BoundaryLimits): Promise<BoundaryAnswer> {
+export async function receiveBoundaries(
+  db: Knex,
+  file: ReceivedFile,
+  options: BoundaryOptions,
+  who: Who,
+  limits: BoundaryLimits,
+): Promise<BoundaryAnswer> {
   let root: unknown;
   try {
     root = await readJsonFile(file.path);
   } catch (err) {
     if (!(err instanceof JsonReadError)) throw err;
-    const problems: BoundaryProblem[] = [{ feature: null, code: null, problem: 'not_feature_collection', severity: 'error', reason: `the file is not readable JSON: ${err.message}` }];
+    const problems: BoundaryProblem[] = [
+      {
+        feature: null,
+        code: null,
+        problem: 'not_feature_collection',
+        severity: 'error',
+        reason: `the file is not readable JSON: ${err.message}`,
+      },
+    ];
     return finish(options, emptyAnswer(problems));
   }
   const check = checkFeatures(root, options.codeProperty, limits.maxVertices);
@@ -74,13 +104,25 @@ export async function receiveBoundaries(db: Knex, file: ReceivedFile, options: B
       const known = await store.districtCodes(conn);
       const matched = check.features.filter((f) => {
         if (known.has(f.code)) return true;
-        problems.push({ feature: f.index, code: f.code, problem: 'unknown_code', severity: 'error', reason: `feature ${f.index} has the code ${f.code}, which is not a district of the region` });
+        problems.push({
+          feature: f.index,
+          code: f.code,
+          problem: 'unknown_code',
+          severity: 'error',
+          reason: `feature ${f.index} has the code ${f.code}, which is not a district of the region`,
+        });
         return false;
       });
       const given = new Set(check.features.map((f) => f.code));
       const missing = [...known.keys()].filter((c) => !given.has(c)).sort();
       for (const code of missing) {
-        problems.push({ feature: null, code, problem: 'no_boundary', severity: 'warning', reason: `district ${code} (${known.get(code)!.name}) has no feature in the file: it will be listed under the map without a shape` });
+        problems.push({
+          feature: null,
+          code,
+          problem: 'no_boundary',
+          severity: 'warning',
+          reason: `district ${code} (${known.get(code)!.name}) has no feature in the file: it will be listed under the map without a shape`,
+        });
       }
       await store.stageFeatures(conn, matched);
       const invalid = await store.invalidFeatures(conn);
@@ -89,18 +131,40 @@ export async function receiveBoundaries(db: Knex, file: ReceivedFile, options: B
         const empty = new Set((await store.repairInvalid(conn)).map((e) => e.index));
         for (const f of invalid) {
           if (empty.has(f.index)) {
-            problems.push({ feature: f.index, code: f.code, problem: 'self_intersection', severity: 'error', reason: `feature ${f.index} (${f.code}) is not a valid polygon (${f.reason}) and the repair left no area` });
+            problems.push({
+              feature: f.index,
+              code: f.code,
+              problem: 'self_intersection',
+              severity: 'error',
+              reason: `feature ${f.index} (${f.code}) is not a valid polygon (${f.reason}) and the repair left no area`,
+            });
           } else {
             repaired += 1;
-            problems.push({ feature: f.index, code: f.code, problem: 'repaired', severity: 'warning', reason: `feature ${f.index} (${f.code}) was not a valid polygon (${f.reason}); repaired with ST_MakeValid, keeping its polygonal parts` });
+            problems.push({
+              feature: f.index,
+              code: f.code,
+              problem: 'repaired',
+              severity: 'warning',
+              reason: `feature ${f.index} (${f.code}) was not a valid polygon (${f.reason}); repaired with ST_MakeValid, keeping its polygonal parts`,
+            });
           }
         }
       } else {
         for (const f of invalid) {
-          problems.push({ feature: f.index, code: f.code, problem: 'self_intersection', severity: 'error', reason: `feature ${f.index} (${f.code}) is not a valid polygon: ${f.reason}; fix it, or send repair=true to repair it with ST_MakeValid` });
+          problems.push({
+            feature: f.index,
+            code: f.code,
+            problem: 'self_intersection',
+            severity: 'error',
+            reason: `feature ${f.index} (${f.code}) is not a valid polygon: ${f.reason}; fix it, or send repair=true to repair it with ST_MakeValid`,
+          });
         }
       }
-      problems.sort((a, b) => (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1) || (a.feature ?? Infinity) - (b.feature ?? Infinity));
+      problems.sort(
+        (a, b) =>
+          (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1) ||
+          (a.feature ?? Infinity) - (b.feature ?? Infinity),
+      );
       const areas = await store.stagedAreas(conn, PREVIEW);
       const { errors, warnings } = counted(problems);
       const answer: BoundaryAnswer = {
@@ -109,9 +173,22 @@ export async function receiveBoundaries(db: Knex, file: ReceivedFile, options: B
         versionId: null,
         uploadId: null,
         dataVersion: null,
-        counts: { features: check.total, vertices: check.vertices, matched: matched.length, missing: missing.length, repaired, errors, warnings },
+        counts: {
+          features: check.total,
+          vertices: check.vertices,
+          matched: matched.length,
+          missing: missing.length,
+          repaired,
+          errors,
+          warnings,
+        },
         problems: problems.slice(0, LISTED),
-        preview: areas.map((a) => ({ feature: a.index, code: a.code, name: known.get(a.code)!.name, areaKm2: a.areaKm2 })),
+        preview: areas.map((a) => ({
+          feature: a.index,
+          code: a.code,
+          name: known.get(a.code)!.name,
+          areaKm2: a.areaKm2,
+        })),
         missingDistricts: missing,
       };
       if (errors > 0 || !options.commit) return { ...finish(options, answer), rollback: true };
@@ -192,7 +269,9 @@ async function deriveFromBoundaries(conn: Sql, uploadId: number, version: number
   const areas = defs.filter((d) => d.derivation === 'from_boundaries');
   if (!areas.length) return 0;
   const ids = new Set(areas.map((a) => a.id));
-  const readers = defs.filter((d) => d.derivation !== 'from_boundaries' && (ids.has(d.sourceId) || ids.has(d.divisorId)));
+  const readers = defs.filter(
+    (d) => d.derivation !== 'from_boundaries' && (ids.has(d.sourceId) || ids.has(d.divisorId)),
+  );
   let n = 0;
   for (const pass of [areas, readers]) {
     if (!pass.length) continue;
@@ -200,7 +279,10 @@ async function deriveFromBoundaries(conn: Sql, uploadId: number, version: number
     await store.clearDerived(conn);
     let m = 0;
     for (const def of pass) m += await deriveChanges(conn, def, 'all');
-    if (m > 0) await applyChanges(conn, uploadId, version, [{ table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] }]);
+    if (m > 0)
+      await applyChanges(conn, uploadId, version, [
+        { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
+      ]);
     n += m;
   }
   return n;
@@ -214,7 +296,11 @@ async function deriveFromBoundaries(conn: Sql, uploadId: number, version: number
 export async function revertVersion(db: Knex, id: number, who: Who) {
   const v = await store.findVersion(db, id);
   if (!v) throw new NotFoundError(`No boundary version ${id}.`, { id });
-  if (v.status !== 'committed') throw new AppError(409, 'already_reverted', `Boundary version ${id} (upload ${v.uploadId}) is already reverted.`, { id, uploadId: v.uploadId });
+  if (v.status !== 'committed')
+    throw new AppError(409, 'already_reverted', `Boundary version ${id} (upload ${v.uploadId}) is already reverted.`, {
+      id,
+      uploadId: v.uploadId,
+    });
   const answer = await revertUpload(db, v.uploadId, who);
   return {
     reverted: await store.findVersion(db, id),

@@ -22,12 +22,16 @@ export async function stageFeatures(conn: Sql, features: CheckedFeature[]): Prom
     );
   }
   await conn.query(`UPDATE boundary_stage SET geom = ST_SetSRID(ST_GeomFromGeoJSON(gj), 4326), gj = ''`);
-  await conn.query(`UPDATE boundary_stage SET valid = ST_IsValid(geom), reason = CASE WHEN ST_IsValid(geom) THEN NULL ELSE ST_IsValidReason(geom) END`);
+  await conn.query(
+    `UPDATE boundary_stage SET valid = ST_IsValid(geom), reason = CASE WHEN ST_IsValid(geom) THEN NULL ELSE ST_IsValidReason(geom) END`,
+  );
 }
 
 /** Features PostGIS finds invalid (self-intersections and the like), with its reason. */
 export async function invalidFeatures(conn: Sql): Promise<{ index: number; code: string; reason: string }[]> {
-  const { rows } = await conn.query(`SELECT feature_index, code, reason FROM boundary_stage WHERE NOT valid ORDER BY feature_index`);
+  const { rows } = await conn.query(
+    `SELECT feature_index, code, reason FROM boundary_stage WHERE NOT valid ORDER BY feature_index`,
+  );
   return rows.map((r) => ({ index: r.feature_index, code: r.code, reason: r.reason }));
 }
 
@@ -37,7 +41,9 @@ export async function invalidFeatures(conn: Sql): Promise<{ index: number; code:
  * repair left empty.
  */
 export async function repairInvalid(conn: Sql): Promise<{ index: number; code: string }[]> {
-  await conn.query(`UPDATE boundary_stage SET fixed = ST_Multi(ST_CollectionExtract(ST_MakeValid(geom), 3)) WHERE NOT valid`);
+  await conn.query(
+    `UPDATE boundary_stage SET fixed = ST_Multi(ST_CollectionExtract(ST_MakeValid(geom), 3)) WHERE NOT valid`,
+  );
   const { rows } = await conn.query(
     `SELECT feature_index, code FROM boundary_stage WHERE NOT valid AND (fixed IS NULL OR ST_IsEmpty(fixed) OR NOT ST_IsValid(fixed)) ORDER BY feature_index`,
   );
@@ -61,7 +67,10 @@ export async function stagedAreas(conn: Sql, limit: number): Promise<StagedSumma
 
 /** Records on the boundary change set's upload row the cells derived from the new areas. */
 export async function addDerivedCount(conn: Sql, uploadId: number, derived: number): Promise<void> {
-  await conn.query(`UPDATE uploads SET derived_count = $2, value_count = value_count + $2 WHERE id = $1`, [uploadId, derived]);
+  await conn.query(`UPDATE uploads SET derived_count = $2, value_count = value_count + $2 WHERE id = $1`, [
+    uploadId,
+    derived,
+  ]);
 }
 
 /** Empties the derivation scratch table between the two derivation passes. */
@@ -176,7 +185,8 @@ export async function listVersions(db: Knex): Promise<BoundaryVersionRecord[]> {
 
 export async function findVersion(db: Knex | Sql, id: number): Promise<BoundaryVersionRecord | null> {
   const sql = `${VERSION_SQL} WHERE b.id = $1`;
-  const rows = 'query' in db ? (await db.query(sql, [id])).rows : (await (db as Knex).raw(sql.replace('$1', '?'), [id])).rows;
+  const rows =
+    'query' in db ? (await db.query(sql, [id])).rows : (await (db as Knex).raw(sql.replace('$1', '?'), [id])).rows;
   return rows[0] ? toVersion(rows[0], await currentVersionId(db)) : null;
 }
 
@@ -196,13 +206,22 @@ export async function versionGeometry(db: Knex, versionId: number): Promise<Boun
       WHERE b.version_id = ? ORDER BY d.code COLLATE "C"`,
     [versionId],
   );
-  return rows.map((r: { code: string; name: string; area_km2: string | number; px: string | number; py: string | number; gj: string }) => ({
-    code: r.code,
-    name: r.name,
-    areaKm2: Number(r.area_km2),
-    point: [Number(r.px), Number(r.py)],
-    geometry: r.gj,
-  }));
+  return rows.map(
+    (r: {
+      code: string;
+      name: string;
+      area_km2: string | number;
+      px: string | number;
+      py: string | number;
+      gj: string;
+    }) => ({
+      code: r.code,
+      name: r.name,
+      areaKm2: Number(r.area_km2),
+      point: [Number(r.px), Number(r.py)],
+      geometry: r.gj,
+    }),
+  );
 }
 
 /** Districts with no boundary in a version, in code order. */

@@ -49,11 +49,34 @@ function legendSwatch(e: LegendEntry, x: number, baseline: number): ChartItem[] 
     case 'dot':
       return [{ kind: 'circle', cx: px(x + 5), cy: px(mid), r: 2.2, fill: e.tone }];
     case 'band':
-      return [{ kind: 'path', d: `M${px(x)} ${px(mid - 3)} L${px(x + 11)} ${px(mid - 3)} L${px(x + 11)} ${px(mid + 3)} L${px(x)} ${px(mid + 3)} Z`, fill: e.tone, opacity: 0.35 }];
+      return [
+        {
+          kind: 'path',
+          d: `M${px(x)} ${px(mid - 3)} L${px(x + 11)} ${px(mid - 3)} L${px(x + 11)} ${px(mid + 3)} L${px(x)} ${px(mid + 3)} Z`,
+          fill: e.tone,
+          opacity: 0.35,
+        },
+      ];
     case 'dash':
-      return [{ kind: 'path', d: `M${px(x)} ${px(mid)} L${px(x + 11)} ${px(mid)}`, stroke: e.tone, width: 1.2, dash: [2.5, 1.5] }];
+      return [
+        {
+          kind: 'path',
+          d: `M${px(x)} ${px(mid)} L${px(x + 11)} ${px(mid)}`,
+          stroke: e.tone,
+          width: 1.2,
+          dash: [2.5, 1.5],
+        },
+      ];
     case 'faint':
-      return [{ kind: 'path', d: `M${px(x)} ${px(mid)} L${px(x + 11)} ${px(mid)}`, stroke: e.tone, width: 1.4, opacity: 0.55 }];
+      return [
+        {
+          kind: 'path',
+          d: `M${px(x)} ${px(mid)} L${px(x + 11)} ${px(mid)}`,
+          stroke: e.tone,
+          width: 1.4,
+          opacity: 0.55,
+        },
+      ];
     default:
       return [{ kind: 'path', d: `M${px(x)} ${px(mid)} L${px(x + 11)} ${px(mid)}`, stroke: e.tone, width: 1.4 }];
   }
@@ -71,11 +94,27 @@ export function buildFrame(width: number, height: number, legend: LegendEntry[],
       baseline += LEGEND_SIZE + 4;
     }
     items.push(...legendSwatch(e, lx, baseline));
-    items.push({ kind: 'text', x: px(lx + 14), y: px(baseline), text: e.label, size: LEGEND_SIZE, tone: 'ink', anchor: 'start' });
+    items.push({
+      kind: 'text',
+      x: px(lx + 14),
+      y: px(baseline),
+      text: e.label,
+      size: LEGEND_SIZE,
+      tone: 'ink',
+      anchor: 'start',
+    });
     lx += w;
   }
   const yLabelBaseline = baseline + LABEL_SIZE + 5;
-  items.push({ kind: 'text', x: 0, y: px(yLabelBaseline), text: y.label, size: LABEL_SIZE, tone: 'muted', anchor: 'start' });
+  items.push({
+    kind: 'text',
+    x: 0,
+    y: px(yLabelBaseline),
+    text: y.label,
+    size: LABEL_SIZE,
+    tone: 'muted',
+    anchor: 'start',
+  });
   const plot = { left: 32, right: width - 6, top: yLabelBaseline + 7, bottom: height - 21 };
   const xs = makeScale(x.kind, x.lo, x.hi, plot.left, plot.right, x.pad ?? 0.04);
   const ys = makeScale(y.kind, y.lo, y.hi, plot.bottom, plot.top, y.pad ?? 0.06);
@@ -85,14 +124,43 @@ export function buildFrame(width: number, height: number, legend: LegendEntry[],
   for (const t of yTicks) grid.push(`M${px(plot.left)} ${px(ys.map(t))} L${px(plot.right)} ${px(ys.map(t))}`);
   for (const t of xTicks) grid.push(`M${px(xs.map(t))} ${px(plot.top)} L${px(xs.map(t))} ${px(plot.bottom)}`);
   if (grid.length) items.push({ kind: 'path', d: grid.join(' '), stroke: 'grid', width: 0.4 });
-  items.push({ kind: 'path', d: `M${px(plot.left)} ${px(plot.top)} L${px(plot.left)} ${px(plot.bottom)} L${px(plot.right)} ${px(plot.bottom)}`, stroke: 'muted', width: 0.6 });
+  items.push({
+    kind: 'path',
+    d: `M${px(plot.left)} ${px(plot.top)} L${px(plot.left)} ${px(plot.bottom)} L${px(plot.right)} ${px(plot.bottom)}`,
+    stroke: 'muted',
+    width: 0.6,
+  });
   for (const t of yTicks) {
-    items.push({ kind: 'text', x: px(plot.left - 3), y: px(ys.map(t) + TICK_SIZE * 0.35), text: y.format(t), size: TICK_SIZE, tone: 'muted', anchor: 'end' });
+    items.push({
+      kind: 'text',
+      x: px(plot.left - 3),
+      y: px(ys.map(t) + TICK_SIZE * 0.35),
+      text: y.format(t),
+      size: TICK_SIZE,
+      tone: 'muted',
+      anchor: 'end',
+    });
   }
   for (const t of xTicks) {
-    items.push({ kind: 'text', x: px(xs.map(t)), y: px(plot.bottom + TICK_SIZE + 3), text: x.format(t), size: TICK_SIZE, tone: 'muted', anchor: 'middle' });
+    items.push({
+      kind: 'text',
+      x: px(xs.map(t)),
+      y: px(plot.bottom + TICK_SIZE + 3),
+      text: x.format(t),
+      size: TICK_SIZE,
+      tone: 'muted',
+      anchor: 'middle',
+    });
   }
-  items.push({ kind: 'text', x: px(plot.right), y: px(height - 2), text: x.label, size: LABEL_SIZE, tone: 'muted', anchor: 'end' });
+  items.push({
+    kind: 'text',
+    x: px(plot.right),
+    y: px(height - 2),
+    text: x.label,
+    size: LABEL_SIZE,
+    tone: 'muted',
+    anchor: 'end',
+  });
   return { items, xs, ys, plot };
 }
 

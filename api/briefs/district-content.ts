@@ -32,7 +32,10 @@ function headline(r: EstimateRecord, name: string, th: ThresholdTexts): string {
   const now = r.range ? formatLevel(r.range.levelNow) : null;
   const year = r.lastYear ?? '';
   const peak = r.threshold?.kind !== 'trough';
-  const unbounded = th.value !== 'none' && !th.bounded ? ` The interval is not bounded at ${levelTextOf(r)}, so this reading rests on the point estimate alone.` : '';
+  const unbounded =
+    th.value !== 'none' && !th.bounded
+      ? ` The interval is not bounded at ${levelTextOf(r)}, so this reading rests on the point estimate alone.`
+      : '';
   const sub = r.status === 'substitute' ? ' (read on the regional pooled curve)' : '';
   switch (r.standing.standing) {
     case 'approaching':
@@ -47,7 +50,12 @@ function headline(r: EstimateRecord, name: string, th: ThresholdTexts): string {
         : `${name} is past the trough of a U-shaped curve${sub}: at ${now} (${year}) income is above ${th.value}, where emissions have tended to rise again with income.${unbounded}`;
     case 'no_turn': {
       const shape = r.shape?.shape;
-      const how = shape === 'increasing' ? 'emissions rise with income' : shape === 'decreasing' ? 'emissions fall as income grows' : 'emissions show no clear relation to income';
+      const how =
+        shape === 'increasing'
+          ? 'emissions rise with income'
+          : shape === 'decreasing'
+            ? 'emissions fall as income grows'
+            : 'emissions show no clear relation to income';
       return `${name} shows no turn in the data${sub}: over ${span(r)} ${how}, and no turning point lies where the district has been.`;
     }
     default:
@@ -60,35 +68,62 @@ function reading(r: EstimateRecord, th: ThresholdTexts, incomeName: string): str
   const years = span(r);
   const t = th.value;
   const shape = r.shape?.shape ?? null;
-  const lead = r.status === 'substitute' ? `The district’s own series (${years}) is too short for its own curve, so the region’s pooled curve is read at its income: ` : `Over ${years}, `;
-  if (r.status === 'not_estimable') lines.push(`No curve could be fitted: ${r.reason?.message ?? 'the series cannot carry the model'}.`);
-  else if (shape === 'inverted_u') lines.push(`${lead}emissions rose with ${incomeName} at first and have tended to fall once it passed about ${t}.`);
-  else if (shape === 'u') lines.push(`${lead}emissions fell with ${incomeName} at first and have tended to rise again once it passed about ${t}.`);
+  const lead =
+    r.status === 'substitute'
+      ? `The district’s own series (${years}) is too short for its own curve, so the region’s pooled curve is read at its income: `
+      : `Over ${years}, `;
+  if (r.status === 'not_estimable')
+    lines.push(`No curve could be fitted: ${r.reason?.message ?? 'the series cannot carry the model'}.`);
+  else if (shape === 'inverted_u')
+    lines.push(`${lead}emissions rose with ${incomeName} at first and have tended to fall once it passed about ${t}.`);
+  else if (shape === 'u')
+    lines.push(
+      `${lead}emissions fell with ${incomeName} at first and have tended to rise again once it passed about ${t}.`,
+    );
   else if (shape === 'n_shape' || shape === 'inverted_n') {
     const order = shape === 'n_shape' ? 'rose, then fell, then rose again' : 'fell, then rose, then fell again';
     const turn = r.threshold?.kind === 'trough' ? 'low point' : 'high point';
-    lines.push(`${lead}emissions ${order} as ${incomeName} grew; the threshold read here is the ${turn} nearest today’s income, about ${t}.`);
-  } else if (shape === 'increasing') lines.push(`${lead}emissions rose with ${incomeName} throughout the incomes observed; no turn shows there.`);
-  else if (shape === 'decreasing') lines.push(`${lead}emissions fell as ${incomeName} grew, throughout the incomes observed; no turn shows there.`);
-  else lines.push(`${lead}emissions show no clear relation to ${incomeName}: the income terms together are not significant.`);
+    lines.push(
+      `${lead}emissions ${order} as ${incomeName} grew; the threshold read here is the ${turn} nearest today’s income, about ${t}.`,
+    );
+  } else if (shape === 'increasing')
+    lines.push(`${lead}emissions rose with ${incomeName} throughout the incomes observed; no turn shows there.`);
+  else if (shape === 'decreasing')
+    lines.push(`${lead}emissions fell as ${incomeName} grew, throughout the incomes observed; no turn shows there.`);
+  else
+    lines.push(
+      `${lead}emissions show no clear relation to ${incomeName}: the income terms together are not significant.`,
+    );
   if (r.range) {
     const e = r.elasticity?.value ?? null;
-    const el = e !== null && Math.abs(e) >= 0.005 ? `; today 1% more income goes with about ${formatElasticity(Math.abs(e))}% ${e > 0 ? 'more' : 'less'} emissions` : '';
+    const el =
+      e !== null && Math.abs(e) >= 0.005
+        ? `; today 1% more income goes with about ${formatElasticity(Math.abs(e))}% ${e > 0 ? 'more' : 'less'} emissions`
+        : '';
     const gap = r.gapPercent !== null && t !== 'none' ? ` (${gapText(r)} against the threshold)` : '';
     lines.push(`In ${r.lastYear}, ${incomeName} was ${formatLevel(r.range.levelNow)}${gap}${el}.`);
   } else {
     lines.push('There is no latest income to read against a threshold.');
   }
-  if (t === 'none') lines.push('Without a turning point there is no threshold to watch; follow the trend of emissions itself.');
-  else if (th.bounded && th.band) lines.push(`The ${levelTextOf(r)} interval runs from ${formatLowerEnd(th.band.lo)} to ${formatUpperEnd(th.band.hi)}: read the band, not the point.`);
-  else lines.push(`The data do not pin the threshold down (its interval is not bounded at ${levelTextOf(r)}): treat ${t} as a rough guide only.`);
+  if (t === 'none')
+    lines.push('Without a turning point there is no threshold to watch; follow the trend of emissions itself.');
+  else if (th.bounded && th.band)
+    lines.push(
+      `The ${levelTextOf(r)} interval runs from ${formatLowerEnd(th.band.lo)} to ${formatUpperEnd(th.band.hi)}: read the band, not the point.`,
+    );
+  else
+    lines.push(
+      `The data do not pin the threshold down (its interval is not bounded at ${levelTextOf(r)}): treat ${t} as a rough guide only.`,
+    );
   return lines;
 }
 
 function shapeDetail(r: EstimateRecord): string | null {
   const parts: string[] = [];
   if (r.uTest?.pValue !== null && r.uTest?.pValue !== undefined) {
-    parts.push(`Lind–Mehlum U-test ${formatPValue(r.uTest.pValue)}, ${r.uTest.rejects ? 'supports' : 'does not support'} a turn at α = ${r.model.alpha}`);
+    parts.push(
+      `Lind–Mehlum U-test ${formatPValue(r.uTest.pValue)}, ${r.uTest.rejects ? 'supports' : 'does not support'} a turn at α = ${r.model.alpha}`,
+    );
   }
   for (const n of r.shape?.notes ?? []) parts.push(n);
   return parts.length ? parts.join('; ') : null;
@@ -97,14 +132,25 @@ function shapeDetail(r: EstimateRecord): string | null {
 function standingDetail(r: EstimateRecord): string | null {
   if (r.standing.note) return r.standing.note;
   if (r.standing.standing === 'not_estimable') return r.reason?.message ?? null;
-  if (r.standing.intervalBounded && r.standing.standing !== 'no_turn') return `read against the ${levelTextOf(r)} ${r.standing.intervalMethod === 'delta' ? 'delta-method' : 'Fieller'} interval`;
-  if (r.shape?.shape === 'u' && r.standing.standing !== 'no_turn') return 'a U shape: past its trough emissions rise with income';
-  if ((r.shape?.shape === 'n_shape' || r.shape?.shape === 'inverted_n') && r.threshold?.kind === 'trough' && r.standing.standing !== 'no_turn') return 'read from a low point: past it emissions rise with income';
+  if (r.standing.intervalBounded && r.standing.standing !== 'no_turn')
+    return `read against the ${levelTextOf(r)} ${r.standing.intervalMethod === 'delta' ? 'delta-method' : 'Fieller'} interval`;
+  if (r.shape?.shape === 'u' && r.standing.standing !== 'no_turn')
+    return 'a U shape: past its trough emissions rise with income';
+  if (
+    (r.shape?.shape === 'n_shape' || r.shape?.shape === 'inverted_n') &&
+    r.threshold?.kind === 'trough' &&
+    r.standing.standing !== 'no_turn'
+  )
+    return 'read from a low point: past it emissions rise with income';
   return null;
 }
 
 export function districtBriefContent(
-  src: BriefSource, district: { code: string; name: string }, r: EstimateRecord, note: string | null, correction: string | null = null,
+  src: BriefSource,
+  district: { code: string; name: string },
+  r: EstimateRecord,
+  note: string | null,
+  correction: string | null = null,
 ): DistrictBriefContent {
   const th = thresholdTexts(r);
   const pr = projectionTexts(r);
@@ -113,20 +159,36 @@ export function districtBriefContent(
   const driver = indicatorOf(src, src.run.spec.selection.driver);
   const emissions = indicatorOf(src, src.run.spec.selection.emissions);
   const incomeName = inSentence(driver.name);
-  const mark: ThresholdMark | null = r.threshold?.level !== null && r.threshold?.level !== undefined && Number.isFinite(r.threshold.level) ? { level: r.threshold.level, band: th.band } : null;
+  const mark: ThresholdMark | null =
+    r.threshold?.level !== null && r.threshold?.level !== undefined && Number.isFinite(r.threshold.level)
+      ? { level: r.threshold.level, band: th.band }
+      : null;
   const sub = r.status === 'substitute';
   const figures: BriefFigure[] = [
     { key: 'standing', label: 'Standing', value: standingLabel(r.standing.standing), detail: standingDetail(r) },
-    { key: 'threshold', label: sub ? 'Threshold (regional)' : 'Threshold (turning point)', value: th.value, detail: th.detail },
+    {
+      key: 'threshold',
+      label: sub ? 'Threshold (regional)' : 'Threshold (turning point)',
+      value: th.value,
+      detail: th.detail,
+    },
     {
       key: 'now',
       label: r.lastYear ? `Income per person, ${r.lastYear}` : 'Income per person',
       value: r.range ? formatLevel(r.range.levelNow) : '—',
-      detail: r.gapPercent !== null && th.value !== 'none' ? `${gapText(r)} against the threshold${r.threshold?.extrapolated ? ' (extrapolated)' : ''}` : null,
+      detail:
+        r.gapPercent !== null && th.value !== 'none'
+          ? `${gapText(r)} against the threshold${r.threshold?.extrapolated ? ' (extrapolated)' : ''}`
+          : null,
     },
     { key: 'crossing', label: 'Projected crossing', value: pr.value, detail: pr.detail },
     { key: 'elasticity', label: 'Elasticity now', value: el.value, detail: el.detail },
-    { key: 'shape', label: 'Shape over the observed range', value: shapeLabel(r.shape?.shape ?? null), detail: shapeDetail(r) },
+    {
+      key: 'shape',
+      label: 'Shape over the observed range',
+      value: shapeLabel(r.shape?.shape ?? null),
+      detail: shapeDetail(r),
+    },
   ];
   const trace = traceOf(src);
   return {
@@ -164,7 +226,9 @@ export function districtBriefContent(
       }),
     },
     reading: reading(r, th, incomeName),
-    substitute: sub ? `Series too short for its own curve (${r.n} years, ${span(r)}): the regional pooled curve stands in, read at this district’s income and trend.` : null,
+    substitute: sub
+      ? `Series too short for its own curve (${r.n} years, ${span(r)}): the regional pooled curve stands in, read at this district’s income and trend.`
+      : null,
     analystNote: note,
     correctionNotice: correction,
     modelLine: `${sub ? 'Regional substitute. ' : ''}${modelLine(src, { pooled: sub, lag: r.model.lag })} ${r.n} years used (${span(r)})${r.droppedYears.length ? `; left out for missing values: ${r.droppedYears.join(', ')}` : ''}.`,

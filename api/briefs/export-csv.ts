@@ -16,7 +16,8 @@ import { summaryRecords, type SummaryRecord } from './store';
 
 type Row = SummaryRecord;
 
-const num = (v: number | null | undefined): CsvCell => (v === null || v === undefined || !Number.isFinite(v) ? null : v);
+const num = (v: number | null | undefined): CsvCell =>
+  v === null || v === undefined || !Number.isFinite(v) ? null : v;
 const bool = (v: boolean | null | undefined): CsvCell => (v === null || v === undefined ? null : v ? 'true' : 'false');
 
 /** Column name → how to read it from a district's record (and the run / note). */
@@ -34,13 +35,25 @@ const COLUMNS: [string, (r: Row, note: string | null) => CsvCell][] = [
   ['threshold', (r) => num(r.threshold?.level)],
   ['threshold_kind', (r) => r.threshold?.kind ?? null],
   ['threshold_in_range', (r) => bool(r.threshold?.inRange)],
-  ['interval_lo', (r) => (r.standing.intervalBounded && r.threshold?.fieller.kind === 'bounded' ? num(r.standing.levelLo) : null)],
-  ['interval_hi', (r) => (r.standing.intervalBounded && r.threshold?.fieller.kind === 'bounded' ? num(r.standing.levelHi) : null)],
+  [
+    'interval_lo',
+    (r) => (r.standing.intervalBounded && r.threshold?.fieller.kind === 'bounded' ? num(r.standing.levelLo) : null),
+  ],
+  [
+    'interval_hi',
+    (r) => (r.standing.intervalBounded && r.threshold?.fieller.kind === 'bounded' ? num(r.standing.levelHi) : null),
+  ],
   ['fieller_kind', (r) => r.threshold?.fieller.kind ?? null],
   ['fieller_lo', (r) => (r.threshold?.fieller.kind === 'bounded' ? num(r.threshold.fieller.levelLo) : null)],
   ['fieller_hi', (r) => (r.threshold?.fieller.kind === 'bounded' ? num(r.threshold.fieller.levelHi) : null)],
-  ['fieller_lower_ray_ends_at', (r) => (r.threshold?.fieller.kind === 'two_rays' ? num(r.threshold.fieller.levelLo) : null)],
-  ['fieller_upper_ray_starts_at', (r) => (r.threshold?.fieller.kind === 'two_rays' ? num(r.threshold.fieller.levelHi) : null)],
+  [
+    'fieller_lower_ray_ends_at',
+    (r) => (r.threshold?.fieller.kind === 'two_rays' ? num(r.threshold.fieller.levelLo) : null),
+  ],
+  [
+    'fieller_upper_ray_starts_at',
+    (r) => (r.threshold?.fieller.kind === 'two_rays' ? num(r.threshold.fieller.levelHi) : null),
+  ],
   ['delta_se_log', (r) => num(r.threshold?.delta.se)],
   ['delta_lo', (r) => (r.threshold?.fieller.kind === 'bounded' ? num(r.threshold.delta.levelLo) : null)],
   ['delta_hi', (r) => (r.threshold?.fieller.kind === 'bounded' ? num(r.threshold.delta.levelHi) : null)],
@@ -79,12 +92,28 @@ const COLUMNS: [string, (r: Row, note: string | null) => CsvCell][] = [
   ['analyst_note', (_r, note) => note],
 ];
 
-const RUN_COLUMNS = ['run_id', 'run_state', 'published_at', 'data_version', 'data_hash', 'software_version', 'spec_name'];
+const RUN_COLUMNS = [
+  'run_id',
+  'run_state',
+  'published_at',
+  'data_version',
+  'data_hash',
+  'software_version',
+  'spec_name',
+];
 
 export const EXPORT_COLUMNS: readonly string[] = [...RUN_COLUMNS, ...COLUMNS.map(([name]) => name)];
 
 export function estimatesCsv(run: PublishedRun, rows: Row[], notes: Map<string, string>): string {
-  const runCells: CsvCell[] = [run.id, run.state, run.publishedAt, num(run.dataVersion), run.dataHash, run.softwareVersion, run.spec.name];
+  const runCells: CsvCell[] = [
+    run.id,
+    run.state,
+    run.publishedAt,
+    num(run.dataVersion),
+    run.dataHash,
+    run.softwareVersion,
+    run.spec.name,
+  ];
   const lines = [csvLine([...EXPORT_COLUMNS])];
   for (const r of rows) {
     const note = notes.get(r.code) ?? null;
@@ -101,8 +130,18 @@ export async function exportRun(db: Knex, caller: Caller, runId: number): Promis
   const run = await findRun(db, runId);
   if (!run) throw new NotFoundError(`No run ${runId}`, { runId });
   if (run.state !== 'published') {
-    if (run.state !== 'in_review') throw new AppError(409, 'run_not_ready', `Run #${runId} is ${run.state}: only published runs (and, for analysts, runs in review) can be exported.`);
-    if (!STAFF.includes(caller.role)) throw new AppError(403, 'forbidden', `Run #${runId} is still in review: officials can export it once it is published.`);
+    if (run.state !== 'in_review')
+      throw new AppError(
+        409,
+        'run_not_ready',
+        `Run #${runId} is ${run.state}: only published runs (and, for analysts, runs in review) can be exported.`,
+      );
+    if (!STAFF.includes(caller.role))
+      throw new AppError(
+        403,
+        'forbidden',
+        `Run #${runId} is still in review: officials can export it once it is published.`,
+      );
   }
   const [rows, notes] = await Promise.all([summaryRecords(db, runId), notesByCode(db, runId)]);
   return { filename: `crestwatch-run-${runId}-estimates.csv`, csv: estimatesCsv(run, rows, notes) };

@@ -31,7 +31,10 @@ export interface ThresholdTexts {
 const DASH = '—';
 
 /** The parts of a district's record the figures read (a region table row has no more). */
-export type FigureRecord = Pick<EstimateRecord, 'status' | 'threshold' | 'standing' | 'model' | 'projection' | 'gapPercent' | 'elasticity'>;
+export type FigureRecord = Pick<
+  EstimateRecord,
+  'status' | 'threshold' | 'standing' | 'model' | 'projection' | 'gapPercent' | 'elasticity'
+>;
 
 export function levelTextOf(r: Pick<FigureRecord, 'model'>): string {
   return formatLevelPercent(r.model.level);
@@ -47,7 +50,12 @@ type TurningPointLike = Pick<ThresholdRecord, 'level'> & {
 };
 
 /** The threshold of a district record or of the pooled fit, read at `level` with `method`. */
-export function thresholdTextsOf(tp: TurningPointLike | null, method: string, confidence: number, notEstimated = false): ThresholdTexts {
+export function thresholdTextsOf(
+  tp: TurningPointLike | null,
+  method: string,
+  confidence: number,
+  notEstimated = false,
+): ThresholdTexts {
   const level = formatLevelPercent(confidence);
   if (!tp || tp.level === null || !Number.isFinite(tp.level)) {
     const why = notEstimated ? 'not estimated' : 'the fitted curve has no turning point';
@@ -61,15 +69,31 @@ export function thresholdTextsOf(tp: TurningPointLike | null, method: string, co
   if (!fiellerBounded) {
     const kind = FIELLER_KIND_LABEL[tp.fieller.kind] ?? tp.fieller.kind;
     const note = method === 'delta' && deltaBounded ? '; the delta-method interval is not shown' : '';
-    return { value, interval: `not bounded at ${level}`, detail: `not bounded at ${level} (the Fieller set is ${kind})${note}`, bounded: false, band: null };
+    return {
+      value,
+      interval: `not bounded at ${level}`,
+      detail: `not bounded at ${level} (the Fieller set is ${kind})${note}`,
+      bounded: false,
+      band: null,
+    };
   }
   const fieller = { lo: tp.fieller.levelLo!, hi: tp.fieller.levelHi! };
   const delta = deltaBounded ? { lo: tp.delta.levelLo!, hi: tp.delta.levelHi! } : null;
   const useDelta = method === 'delta' && delta !== null;
   const main = useDelta ? delta : fieller;
-  const other = useDelta ? `Fieller ${formatLevelInterval(fieller.lo, fieller.hi)}` : delta ? `delta method ${formatLevelInterval(delta.lo, delta.hi)}` : 'delta method not available';
+  const other = useDelta
+    ? `Fieller ${formatLevelInterval(fieller.lo, fieller.hi)}`
+    : delta
+      ? `delta method ${formatLevelInterval(delta.lo, delta.hi)}`
+      : 'delta method not available';
   const interval = formatLevelInterval(main.lo, main.hi);
-  return { value, interval, detail: `${level} ${intervalMethodLabel(useDelta ? 'delta' : 'fieller')} interval ${interval}; ${other}`, bounded: true, band: main };
+  return {
+    value,
+    interval,
+    detail: `${level} ${intervalMethodLabel(useDelta ? 'delta' : 'fieller')} interval ${interval}; ${other}`,
+    bounded: true,
+    band: main,
+  };
 }
 
 export interface ProjectionTexts {
@@ -84,18 +108,31 @@ export interface ProjectionTexts {
 export function projectionTexts(r: FigureRecord): ProjectionTexts {
   const p = r.projection;
   const extrapolated = r.threshold?.extrapolated ? '; the threshold lies outside the observed incomes' : '';
-  if (!p || p.status === 'no_threshold') return { value: 'no threshold', detail: 'no threshold to project towards', short: DASH };
+  if (!p || p.status === 'no_threshold')
+    return { value: 'no threshold', detail: 'no threshold to project towards', short: DASH };
   if (p.status === 'not_on_current_trend' || p.crossingYear === null) {
-    return { value: 'not on current trend', detail: `${p.note ?? 'the income trend does not lead to the threshold'}${extrapolated}`, short: 'not on trend' };
+    return {
+      value: 'not on current trend',
+      detail: `${p.note ?? 'the income trend does not lead to the threshold'}${extrapolated}`,
+      short: 'not on trend',
+    };
   }
   const both = p.earliest !== null && p.latest !== null;
   const range = both ? (p.earliest === p.latest ? `${p.earliest}` : `${p.earliest}–${p.latest}`) : null;
   const rangeText = range ? `range ${range} from the interval ends` : 'range not bounded (the interval is not bounded)';
   const short = `${p.crossingYear}${range && range !== String(p.crossingYear) ? ` (${range})` : ''}`;
   if (p.status === 'already_past') {
-    return { value: `passed about ${p.crossingYear}`, detail: `on the income trend line; ${rangeText}${extrapolated}`, short: `passed ${short}` };
+    return {
+      value: `passed about ${p.crossingYear}`,
+      detail: `on the income trend line; ${rangeText}${extrapolated}`,
+      short: `passed ${short}`,
+    };
   }
-  return { value: `about ${p.crossingYear}`, detail: `on the current income trend; ${rangeText}${extrapolated}`, short };
+  return {
+    value: `about ${p.crossingYear}`,
+    detail: `on the current income trend; ${rangeText}${extrapolated}`,
+    short,
+  };
 }
 
 export function gapText(r: FigureRecord): string {
@@ -110,11 +147,17 @@ export interface ElasticityTexts {
 export function elasticityTexts(r: FigureRecord): ElasticityTexts {
   const e = r.elasticity;
   if (!e || e.value === null) {
-    return { value: 'not available', detail: r.status === 'substitute' ? 'the district’s own series is too short to estimate it' : 'not estimated' };
+    return {
+      value: 'not available',
+      detail: r.status === 'substitute' ? 'the district’s own series is too short to estimate it' : 'not estimated',
+    };
   }
   const level = levelTextOf(r);
   const interval = e.lo !== null && e.hi !== null ? `${level} interval ${formatElasticityInterval(e.lo, e.hi)}; ` : '';
   const size = formatElasticity(Math.abs(e.value));
-  const words = Math.abs(e.value) < 0.005 ? '1% more income goes with about no change in emissions' : `1% more income goes with about ${size}% ${e.value > 0 ? 'more' : 'less'} emissions`;
+  const words =
+    Math.abs(e.value) < 0.005
+      ? '1% more income goes with about no change in emissions'
+      : `1% more income goes with about ${size}% ${e.value > 0 ? 'more' : 'less'} emissions`;
   return { value: formatElasticity(e.value), detail: `${interval}${words}` };
 }

@@ -36,7 +36,19 @@ function nf(options: Intl.NumberFormatOptions): Intl.NumberFormat {
 }
 
 const minus = (s: string) => s.replace(/-/g, MINUS);
-const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
+const SUPERSCRIPT: Record<string, string> = {
+  '-': '⁻',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
+};
 
 /** Significant figures of levels in real units. */
 export const LEVEL_DIGITS = 3;
@@ -46,9 +58,19 @@ const SCIENTIFIC_BELOW = 1e-3;
 function sig(value: number, mode: Mode): string {
   const abs = Math.abs(value);
   if (abs >= SCIENTIFIC_FROM || (abs > 0 && abs < SCIENTIFIC_BELOW)) {
-    const parts = nf({ notation: 'scientific', maximumSignificantDigits: LEVEL_DIGITS, roundingMode: mode }).formatToParts(value);
-    const mantissa = parts.filter((p) => p.type !== 'exponentSeparator' && p.type !== 'exponentInteger' && p.type !== 'exponentMinusSign').map((p) => p.value).join('');
-    const exponent = parts.filter((p) => p.type === 'exponentInteger' || p.type === 'exponentMinusSign').map((p) => (p.type === 'exponentMinusSign' ? '-' : p.value)).join('');
+    const parts = nf({
+      notation: 'scientific',
+      maximumSignificantDigits: LEVEL_DIGITS,
+      roundingMode: mode,
+    }).formatToParts(value);
+    const mantissa = parts
+      .filter((p) => p.type !== 'exponentSeparator' && p.type !== 'exponentInteger' && p.type !== 'exponentMinusSign')
+      .map((p) => p.value)
+      .join('');
+    const exponent = parts
+      .filter((p) => p.type === 'exponentInteger' || p.type === 'exponentMinusSign')
+      .map((p) => (p.type === 'exponentMinusSign' ? '-' : p.value))
+      .join('');
     return `${minus(mantissa)} × 10${[...exponent].map((c) => SUPERSCRIPT[c] ?? c).join('')}`;
   }
   return minus(nf({ maximumSignificantDigits: LEVEL_DIGITS, roundingMode: mode }).format(value));
@@ -96,7 +118,8 @@ export function formatElasticity(value: number): string {
 
 /** An elasticity interval, outward at two decimals: "−1.21 to −0.03". */
 export function formatElasticityInterval(lo: number, hi: number): string {
-  const end = (v: number, mode: Mode) => minus(nf({ minimumFractionDigits: 2, maximumFractionDigits: 2, roundingMode: mode }).format(v));
+  const end = (v: number, mode: Mode) =>
+    minus(nf({ minimumFractionDigits: 2, maximumFractionDigits: 2, roundingMode: mode }).format(v));
   return `${end(lo, 'floor')} to ${end(hi, 'ceil')}`;
 }
 
@@ -128,12 +151,19 @@ export function shortHash(hash: string | null): string {
 
 /** "3 December 2026" in the region's time zone. */
 export function formatDate(iso: string | Date, timeZone: string): string {
-  return new Intl.DateTimeFormat(LOCALE, { timeZone, day: 'numeric', month: 'long', year: 'numeric' }).format(new Date(iso));
+  return new Intl.DateTimeFormat(LOCALE, { timeZone, day: 'numeric', month: 'long', year: 'numeric' }).format(
+    new Date(iso),
+  );
 }
 
 /** "3 December 2026, 14:05 (Europe/Lisbon)" in the region's time zone. */
 export function formatDateTime(iso: string | Date, timeZone: string): string {
   const d = new Date(iso);
-  const time = new Intl.DateTimeFormat(LOCALE, { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(d);
+  const time = new Intl.DateTimeFormat(LOCALE, {
+    timeZone,
+    hour: '2-digit',
+    minute: '2-digit',
+    hourCycle: 'h23',
+  }).format(d);
   return `${formatDate(d, timeZone)}, ${time} (${timeZone})`;
 }

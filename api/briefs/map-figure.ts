@@ -10,7 +10,8 @@ import type { Standing } from '../../contracts/estimates';
 import { buildMapScene, type BoundaryCollection } from '../../lib/map-scene';
 
 const KNOWN: readonly Standing[] = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'];
-const asStanding = (s: string | undefined): Standing => (KNOWN.includes(s as Standing) ? (s as Standing) : 'not_estimable');
+const asStanding = (s: string | undefined): Standing =>
+  KNOWN.includes(s as Standing) ? (s as Standing) : 'not_estimable';
 
 /** Each standing's mark as a path (the shapes of components/region/standing-mark.tsx). */
 export function markPath(standing: Standing, x: number, y: number, size: number): { d: string; filled: boolean } {
@@ -24,15 +25,32 @@ export function markPath(standing: Standing, x: number, y: number, size: number)
     case 'at_turn':
       return { d: `M${f(x)},${f(y - h)}L${f(x + h)},${f(y)}L${f(x)},${f(y + h)}L${f(x - h)},${f(y)}Z`, filled: true };
     case 'no_turn':
-      return { d: `M${f(x - h)},${f(y - size / 6)}L${f(x + h)},${f(y - size / 6)}L${f(x + h)},${f(y + size / 6)}L${f(x - h)},${f(y + size / 6)}Z`, filled: true };
+      return {
+        d: `M${f(x - h)},${f(y - size / 6)}L${f(x + h)},${f(y - size / 6)}L${f(x + h)},${f(y + size / 6)}L${f(x - h)},${f(y + size / 6)}Z`,
+        filled: true,
+      };
     default:
-      return { d: `M${f(x - h)},${f(y)}A${f(h)},${f(h)} 0 1,0 ${f(x + h)},${f(y)}A${f(h)},${f(h)} 0 1,0 ${f(x - h)},${f(y)}Z`, filled: false };
+      return {
+        d: `M${f(x - h)},${f(y)}A${f(h)},${f(h)} 0 1,0 ${f(x + h)},${f(y)}A${f(h)},${f(h)} 0 1,0 ${f(x - h)},${f(y)}Z`,
+        filled: false,
+      };
   }
 }
 
-export function standingsMapScene(fc: BoundaryCollection, standings: Map<string, string>, width: number, height: number): ChartScene | null {
+export function standingsMapScene(
+  fc: BoundaryCollection,
+  standings: Map<string, string>,
+  width: number,
+  height: number,
+): ChartScene | null {
   if (!fc.features.length) return null;
-  const scene = buildMapScene({ collection: fc, standingOf: (c) => asStanding(standings.get(c)), width, height, pad: 4 });
+  const scene = buildMapScene({
+    collection: fc,
+    standingOf: (c) => asStanding(standings.get(c)),
+    width,
+    height,
+    pad: 4,
+  });
   const items: ChartItem[] = [];
   for (const f of scene.fills) items.push({ kind: 'path', d: f.d, fill: `${f.standing}_fill` });
   items.push({ kind: 'path', d: scene.borders, stroke: 'sea', width: 0.6 });
@@ -40,7 +58,9 @@ export function standingsMapScene(fc: BoundaryCollection, standings: Map<string,
   for (const d of scene.districts) {
     if (d.box[2] - d.box[0] < size * 1.6 || d.box[3] - d.box[1] < size * 1.6) continue;
     const m = markPath(d.standing, d.x, d.y, size);
-    items.push(m.filled ? { kind: 'path', d: m.d, fill: d.standing } : { kind: 'path', d: m.d, stroke: d.standing, width: 1 });
+    items.push(
+      m.filled ? { kind: 'path', d: m.d, fill: d.standing } : { kind: 'path', d: m.d, stroke: d.standing, width: 1 },
+    );
   }
   const counts = scene.fills.map((f) => `${f.count} ${f.standing.replace('_', ' ')}`).join(', ');
   return {
@@ -52,7 +72,14 @@ export function standingsMapScene(fc: BoundaryCollection, standings: Map<string,
   };
 }
 
-export function locatorScene(fc: BoundaryCollection, code: string, standing: string, name: string, width: number, height: number): ChartScene | null {
+export function locatorScene(
+  fc: BoundaryCollection,
+  code: string,
+  standing: string,
+  name: string,
+  width: number,
+  height: number,
+): ChartScene | null {
   if (!fc.features.some((f) => f.properties.code === code)) return null;
   const s = asStanding(standing);
   const scene = buildMapScene({ collection: fc, standingOf: () => s, width, height, pad: 3, highlight: code });

@@ -30,7 +30,12 @@ export interface PooledFit {
   shape?: { shape: string; notes?: string[] };
   uTest?: { pValue: number | null; rejects: boolean };
   model?: { form: string; transform: string; level: number; alpha: number; intervalMethod: string };
-  turningPoints?: { level: number | null; kind: string; delta: { levelLo: number | null; levelHi: number | null }; fieller: { kind: string; levelLo: number | null; levelHi: number | null } }[];
+  turningPoints?: {
+    level: number | null;
+    kind: string;
+    delta: { levelLo: number | null; levelHi: number | null };
+    fieller: { kind: string; levelLo: number | null; levelHi: number | null };
+  }[];
   message?: string;
 }
 
@@ -46,23 +51,36 @@ export interface RegionInput {
 
 function pooledPart(src: BriefSource, pooled: PooledFit | null): RegionBriefContent['pooled'] {
   if (!pooled || pooled.status !== 'ok' || !pooled.coefficients || !pooled.terms || !pooled.range || !pooled.model) {
-    return { figures: [], chart: null, note: `No regional pooled curve in this run${pooled?.message ? `: ${pooled.message}` : ''}.` };
+    return {
+      figures: [],
+      chart: null,
+      note: `No regional pooled curve in this run${pooled?.message ? `: ${pooled.message}` : ''}.`,
+    };
   }
   const m = pooled.model.form === 'cubic' ? 3 : 2;
   const tp = pooled.turningPoints?.[0] ?? null;
   const th = thresholdTextsOf(tp, pooled.model.intervalMethod, pooled.model.level);
   const level = formatLevelPercent(pooled.model.level);
   const driver = indicatorOf(src, src.run.spec.selection.driver);
-  const mark: ThresholdMark | null = tp && tp.level !== null && Number.isFinite(tp.level) ? { level: tp.level, band: th.band } : null;
+  const mark: ThresholdMark | null =
+    tp && tp.level !== null && Number.isFinite(tp.level) ? { level: tp.level, band: th.band } : null;
   const figures: BriefFigure[] = [
     { key: 'threshold', label: 'Regional threshold', value: th.value, detail: th.detail },
     {
       key: 'shape',
       label: 'Shape over the observed range',
       value: shapeLabel(pooled.shape?.shape ?? null),
-      detail: pooled.uTest?.pValue !== null && pooled.uTest?.pValue !== undefined ? `Lind–Mehlum U-test ${formatPValue(pooled.uTest.pValue)}, ${pooled.uTest.rejects ? 'supports' : 'does not support'} a turn at α = ${pooled.model.alpha}` : null,
+      detail:
+        pooled.uTest?.pValue !== null && pooled.uTest?.pValue !== undefined
+          ? `Lind–Mehlum U-test ${formatPValue(pooled.uTest.pValue)}, ${pooled.uTest.rejects ? 'supports' : 'does not support'} a turn at α = ${pooled.model.alpha}`
+          : null,
     },
-    { key: 'sample', label: 'Pooled sample', value: `${formatCount(pooled.n ?? 0)} district-years`, detail: `${formatCount(pooled.districts ?? 0)} districts; incomes ${formatLevel(pooled.range.levelMin)} to ${formatLevel(pooled.range.levelMax)}` },
+    {
+      key: 'sample',
+      label: 'Pooled sample',
+      value: `${formatCount(pooled.n ?? 0)} district-years`,
+      detail: `${formatCount(pooled.districts ?? 0)} districts; incomes ${formatLevel(pooled.range.levelMin)} to ${formatLevel(pooled.range.levelMax)}`,
+    },
   ];
   const chart = pooledChart({
     ...POOLED_CHART,
@@ -74,7 +92,11 @@ function pooledPart(src: BriefSource, pooled: PooledFit | null): RegionBriefCont
     levelText: level,
     xLabel: driver.name,
   });
-  return { figures, chart, note: 'The pooled curve stands in for districts whose own series is too short; fixed effects absorb each district’s level, so it is drawn as an index.' };
+  return {
+    figures,
+    chart,
+    note: 'The pooled curve stands in for districts whose own series is too short; fixed effects absorb each district’s level, so it is drawn as an index.',
+  };
 }
 
 function tableRow(r: SummaryRecord): RegionBriefRow {
@@ -95,7 +117,11 @@ export function regionBriefContent(src: BriefSource, input: RegionInput, pooled:
   for (const r of input.records) counts.set(r.standing.standing, (counts.get(r.standing.standing) ?? 0) + 1);
   const estimated = new Set(input.records.map((r) => r.code));
   const missing = input.districts.filter((d) => !estimated.has(d.code));
-  const countList: RegionBriefContent['counts'] = STANDING_ORDER.map((key) => ({ key, label: STANDING_LABEL[key], count: counts.get(key) ?? 0 }));
+  const countList: RegionBriefContent['counts'] = STANDING_ORDER.map((key) => ({
+    key,
+    label: STANDING_LABEL[key],
+    count: counts.get(key) ?? 0,
+  }));
   if (missing.length) countList.push({ key: 'not_in_run', label: 'Not in this run (no data)', count: missing.length });
 
   let crossed: RegionBriefContent['crossed'] = [];
@@ -113,11 +139,16 @@ export function regionBriefContent(src: BriefSource, input: RegionInput, pooled:
       if (!prev) continue;
       for (const a of alertsFor(prev, row, input.shiftPercent)) {
         if (a.kind === 'crossing') {
-          crossed.push({ code: row.code, name: row.name, text: `${STANDING_LABEL[String(a.details.from)] ?? a.details.from} → ${STANDING_LABEL[String(a.details.to)] ?? a.details.to}` });
+          crossed.push({
+            code: row.code,
+            name: row.name,
+            text: `${STANDING_LABEL[String(a.details.from)] ?? a.details.from} → ${STANDING_LABEL[String(a.details.to)] ?? a.details.to}`,
+          });
         }
       }
       const c = districtChange(prev, row);
-      if (c.thresholdPercent !== null && Number.isFinite(c.thresholdPercent)) moves.push({ row, percent: c.thresholdPercent, from: prev.threshold!, to: row.threshold! });
+      if (c.thresholdPercent !== null && Number.isFinite(c.thresholdPercent))
+        moves.push({ row, percent: c.thresholdPercent, from: prev.threshold!, to: row.threshold! });
     }
     moves.sort((a, b) => Math.abs(b.percent) - Math.abs(a.percent) || a.row.code.localeCompare(b.row.code));
     shifts = moves.slice(0, SHIFTS_LISTED).map((m) => ({
@@ -126,12 +157,24 @@ export function regionBriefContent(src: BriefSource, input: RegionInput, pooled:
       text: `${formatLevel(m.from)} → ${formatLevel(m.to)} (${formatSignedPercent(m.percent)})`,
       overLimit: Math.abs(m.percent) > input.shiftPercent,
     }));
-    if (!crossed.length) crossedNote = `No district crossed into or out of its threshold band since run #${input.previous.runId}.`;
+    if (!crossed.length)
+      crossedNote = `No district crossed into or out of its threshold band since run #${input.previous.runId}.`;
     if (!shifts.length) shiftsNote = `No threshold to compare with run #${input.previous.runId}.`;
     crossed = crossed.sort((a, b) => a.code.localeCompare(b.code));
   }
 
-  const rows = [...input.records.map(tableRow), ...missing.map((d) => ({ code: d.code, name: d.name, standing: 'Not in run', gap: '—', threshold: '—', interval: '—', crossing: '—' }))].sort((a, b) => a.code.localeCompare(b.code));
+  const rows = [
+    ...input.records.map(tableRow),
+    ...missing.map((d) => ({
+      code: d.code,
+      name: d.name,
+      standing: 'Not in run',
+      gap: '—',
+      threshold: '—',
+      interval: '—',
+      crossing: '—',
+    })),
+  ].sort((a, b) => a.code.localeCompare(b.code));
   const total = input.records.length + missing.length;
   const parts = countList.filter((c) => c.count > 0).map((c) => `${formatCount(c.count)} ${c.label.toLowerCase()}`);
   return {

@@ -30,10 +30,12 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'briefs',
       rateLimit: COMPUTE_LIMIT,
-      summary: 'A district brief as a one-page PDF (A4 or Letter per the settings), from the latest published run or ?run=<id>',
+      summary:
+        'A district brief as a one-page PDF (A4 or Letter per the settings), from the latest published run or ?run=<id>',
       produces: 'application/pdf',
       schemas: byCode,
-      handler: async ({ params, query }, _req, res) => sendPdf(res, await service.districtBriefPdf({ db, compute }, params.code, query.run)),
+      handler: async ({ params, query }, _req, res) =>
+        sendPdf(res, await service.districtBriefPdf({ db, compute }, params.code, query.run)),
     }),
     route({
       method: 'get',
@@ -42,7 +44,8 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'briefs',
       rateLimit: COMPUTE_LIMIT,
-      summary: 'The content of a district brief (figures rounded for reading, charts as vector scenes) for the print-friendly view',
+      summary:
+        'The content of a district brief (figures rounded for reading, charts as vector scenes) for the print-friendly view',
       schemas: byCode,
       handler: ({ params, query }) => service.districtBrief(db, params.code, query.run),
     }),
@@ -74,7 +77,8 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'briefs',
       rateLimit: COMPUTE_LIMIT,
-      summary: 'A run’s estimates as CSV, one row per district, full precision, text cells escaped against formula injection (published runs; runs in review for analysts and admins)',
+      summary:
+        'A run’s estimates as CSV, one row per district, full precision, text cells escaped against formula injection (published runs; runs in review for analysts and admins)',
       produces: 'text/csv',
       schemas: { params: idParams },
       handler: async ({ params }, req, res) => {

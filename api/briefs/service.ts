@@ -28,17 +28,29 @@ export const LOCATOR = { width: 110, height: 90 };
 export async function publishedRun(db: Knex, runId?: number): Promise<PublishedRun> {
   if (runId !== undefined) {
     const run = await estimates.findRun(db, runId);
-    if (!run || run.state !== 'published') throw new NotFoundError(`No published run ${runId}: briefs are made from published runs only.`, { runId });
+    if (!run || run.state !== 'published')
+      throw new NotFoundError(`No published run ${runId}: briefs are made from published runs only.`, { runId });
     return run;
   }
   const run = await estimates.latestPublished(db);
-  if (!run) throw new AppError(404, 'no_published_run', 'Nothing has been published yet: a brief appears once a run is published.');
+  if (!run)
+    throw new AppError(
+      404,
+      'no_published_run',
+      'Nothing has been published yet: a brief appears once a run is published.',
+    );
   return run;
 }
 
 export async function briefSource(db: Knex, run: PublishedRun, generatedAt = new Date()): Promise<BriefSource> {
   const [settings, catalogue] = await Promise.all([getSettings(db), indicatorWords(db)]);
-  return { run, timeZone: settings.regionTimeZone, paperSize: settings.briefPaperSize, generatedAt, indicators: catalogue };
+  return {
+    run,
+    timeZone: settings.regionTimeZone,
+    paperSize: settings.briefPaperSize,
+    generatedAt,
+    indicators: catalogue,
+  };
 }
 
 export async function districtBrief(db: Knex, code: string, runId?: number): Promise<DistrictBriefContent> {
@@ -46,12 +58,29 @@ export async function districtBrief(db: Knex, code: string, runId?: number): Pro
   const run = await publishedRun(db, runId);
   const records = await estimates.estimateRecords(db, run.id, district.id);
   const main = records.find((r) => r.variant === 'main');
-  if (!main) throw new AppError(404, 'not_in_run', `District ${code} has no estimate in published run #${run.id} (no data when it ran).`, { code, runId: run.id });
+  if (!main)
+    throw new AppError(
+      404,
+      'not_in_run',
+      `District ${code} has no estimate in published run #${run.id} (no data when it ran).`,
+      { code, runId: run.id },
+    );
   const note = (await estimates.noteFor(db, run.id, district.id))?.note ?? null;
   const correction = await correctionNotice(db, run.id, district.id);
-  const content = districtBriefContent(await briefSource(db, run), { code: district.code, name: district.name }, main, note, correction?.text ?? null);
+  const content = districtBriefContent(
+    await briefSource(db, run),
+    { code: district.code, name: district.name },
+    main,
+    note,
+    correction?.text ?? null,
+  );
   const fc = await currentCollection(db, 'print');
-  return { ...content, locator: fc ? locatorScene(fc, district.code, main.standing.standing, district.name, LOCATOR.width, LOCATOR.height) : null };
+  return {
+    ...content,
+    locator: fc
+      ? locatorScene(fc, district.code, main.standing.standing, district.name, LOCATOR.width, LOCATOR.height)
+      : null,
+  };
 }
 
 export async function regionBrief(db: Knex, runId?: number): Promise<RegionBriefContent> {
@@ -67,7 +96,13 @@ export async function regionBrief(db: Knex, runId?: number): Promise<RegionBrief
   ]);
   const content = regionBriefContent(
     src,
-    { records, districts, current, previous: previous && previousRows ? { runId: previous.id, rows: previousRows } : null, shiftPercent: settings.thresholdShiftPercent },
+    {
+      records,
+      districts,
+      current,
+      previous: previous && previousRows ? { runId: previous.id, rows: previousRows } : null,
+      shiftPercent: settings.thresholdShiftPercent,
+    },
     run.pooled as PooledFit | null,
   );
   const fc = await currentCollection(db, 'print');
@@ -76,16 +111,24 @@ export async function regionBrief(db: Knex, runId?: number): Promise<RegionBrief
 }
 
 /** A thread hands back the PDF's bytes as a Uint8Array; Express and mail want a Buffer. */
-const asBuffer = (u: Uint8Array): Buffer => (Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength));
+const asBuffer = (u: Uint8Array): Buffer =>
+  Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength);
 
 /** The content is read here; the PDF is drawn in the compute pool, off the event loop. */
-export async function districtBriefPdf({ db, compute }: Pick<AppContext, 'db' | 'compute'>, code: string, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
+export async function districtBriefPdf(
+  { db, compute }: Pick<AppContext, 'db' | 'compute'>,
+  code: string,
+  runId?: number,
+): Promise<{ filename: string; content: Buffer; runId: number }> {
   const c = await districtBrief(db, code, runId);
   const content = asBuffer(await compute.run({ kind: 'district-pdf', content: c }));
   return { filename: `crestwatch-${c.code}-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };
 }
 
-export async function regionBriefPdf({ db, compute }: Pick<AppContext, 'db' | 'compute'>, runId?: number): Promise<{ filename: string; content: Buffer; runId: number }> {
+export async function regionBriefPdf(
+  { db, compute }: Pick<AppContext, 'db' | 'compute'>,
+  runId?: number,
+): Promise<{ filename: string; content: Buffer; runId: number }> {
   const c = await regionBrief(db, runId);
   const content = asBuffer(await compute.run({ kind: 'region-pdf', content: c }));
   return { filename: `crestwatch-region-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };

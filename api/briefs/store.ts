@@ -3,7 +3,17 @@ import type { Knex } from 'knex';
 import type { EstimateRecord } from '../runs/estimate-record';
 
 /** The fields a region table row and an export row leave out (a district's charts and diagnostics). */
-export const CHART_ONLY_FIELDS = ['diagnostics', 'points', 'curve', 'pooledCurve', 'turningPoints', 'coefficients', 'standardErrors', 'pValues', 'terms'] as const;
+export const CHART_ONLY_FIELDS = [
+  'diagnostics',
+  'points',
+  'curve',
+  'pooledCurve',
+  'turningPoints',
+  'coefficients',
+  'standardErrors',
+  'pValues',
+  'terms',
+] as const;
 
 export type SummaryRecord = Omit<EstimateRecord, (typeof CHART_ONLY_FIELDS)[number]> & { code: string; name: string };
 
@@ -18,7 +28,11 @@ export async function summaryRecords(db: Knex, runId: number): Promise<SummaryRe
     .where({ 'e.run_id': runId, 'e.variant': 'main' })
     .orderBy('d.code')
     .select(db.raw(`e.result${minus} AS result`, [...CHART_ONLY_FIELDS]), 'd.code', 'd.name');
-  return rows.map((r: { result: SummaryRecord; code: string; name: string }) => ({ ...r.result, code: r.code, name: r.name }));
+  return rows.map((r: { result: SummaryRecord; code: string; name: string }) => ({
+    ...r.result,
+    code: r.code,
+    name: r.name,
+  }));
 }
 
 /** The words a brief uses for each indicator: code → name and unit. */

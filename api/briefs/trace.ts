@@ -54,9 +54,18 @@ export function modelLine(src: BriefSource, opts: { pooled: boolean; lag?: numbe
   const emissions = indicatorOf(src, selection.emissions);
   const driver = indicatorOf(src, selection.driver);
   const form = `${model.transform === 'log' ? 'Log–' : 'Level '}${model.form}`;
-  const controls = selection.controls.length ? `, controlling for ${list(selection.controls.map((c) => inSentence(indicatorOf(src, c).name)))}` : '';
-  const covariance = opts.pooled ? `district and year fixed effects, ${COVARIANCE_LABEL.cluster}` : `${COVARIANCE_LABEL[model.covariance] ?? model.covariance}${opts.lag ? ` (lag ${opts.lag})` : ''}`;
+  const controls = selection.controls.length
+    ? `, controlling for ${list(selection.controls.map((c) => inSentence(indicatorOf(src, c).name)))}`
+    : '';
+  const covariance = opts.pooled
+    ? `district and year fixed effects, ${COVARIANCE_LABEL.cluster}`
+    : `${COVARIANCE_LABEL[model.covariance] ?? model.covariance}${opts.lag ? ` (lag ${opts.lag})` : ''}`;
   const critical = model.criticalValue === 'normal' ? 'normal' : 't';
-  const units = [driver.unit && `${inSentence(driver.name)} in ${driver.unit}`, emissions.unit && `emissions in ${emissions.unit}`].filter(Boolean).join(', ');
+  const units = [
+    driver.unit && `${inSentence(driver.name)} in ${driver.unit}`,
+    emissions.unit && `emissions in ${emissions.unit}`,
+  ]
+    .filter(Boolean)
+    .join(', ');
   return `${form} of ${inSentence(emissions.name)} on ${inSentence(driver.name)}${controls}; ${covariance}; ${formatLevelPercent(model.level)} ${intervalMethodLabel(model.intervalMethod)} intervals, ${critical} critical values, tests at α = ${model.alpha}; spec “${src.run.spec.name}”${units ? `; ${units}` : ''}.`;
 }

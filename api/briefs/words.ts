@@ -35,7 +35,12 @@ export function standingLabel(standing: string): string {
 }
 
 /** Trade names, in brackets after the plain words where they differ. */
-const SHAPE_TECHNICAL: Record<string, string> = { inverted_u: 'inverted U', u: 'U', n_shape: 'N-shaped', inverted_n: 'inverted N' };
+const SHAPE_TECHNICAL: Record<string, string> = {
+  inverted_u: 'inverted U',
+  u: 'U',
+  n_shape: 'N-shaped',
+  inverted_n: 'inverted N',
+};
 
 export function shapeLabel(shape: string | null): string {
   if (!shape) return 'Not estimated';

@@ -10,7 +10,14 @@
 import type { DistrictBriefContent, RegionBriefContent } from '../../contracts/briefs';
 import { renderDistrictPdf } from '../briefs/pdf/district-pdf';
 import { renderRegionPdf } from '../briefs/pdf/region-pdf';
-import { EstimationInputError, fitCurve, type CurveRow, type FitCurveResult, type FitPanelResult, type ModelSpecInput } from '../estimation';
+import {
+  EstimationInputError,
+  fitCurve,
+  type CurveRow,
+  type FitCurveResult,
+  type FitPanelResult,
+  type ModelSpecInput,
+} from '../estimation';
 import { fitDistrict, type RunModel } from '../runs/district-fit';
 import type { DistrictData, EstimateRecord } from '../runs/estimate-record';
 
@@ -22,7 +29,12 @@ export interface EngineRefusal {
 
 export type Task =
   | { kind: 'fit-curve'; rows: CurveRow[]; model: ModelSpecInput }
-  | { kind: 'district-fits'; model: RunModel; districts: { districtId: number; data: DistrictData }[]; pooled: FitPanelResult | null }
+  | {
+      kind: 'district-fits';
+      model: RunModel;
+      districts: { districtId: number; data: DistrictData }[];
+      pooled: FitPanelResult | null;
+    }
   | { kind: 'district-pdf'; content: DistrictBriefContent }
   | { kind: 'region-pdf'; content: RegionBriefContent };
 
@@ -39,11 +51,14 @@ export async function runTask(task: Task): Promise<TaskResults[Task['kind']]> {
       try {
         return { ok: true, result: fitCurve(task.rows, task.model) };
       } catch (err) {
-        if (err instanceof EstimationInputError) return { ok: false, error: { code: err.code, message: err.message, details: err.details } };
+        if (err instanceof EstimationInputError)
+          return { ok: false, error: { code: err.code, message: err.message, details: err.details } };
         throw err;
       }
     case 'district-fits':
-      return task.districts.flatMap((d) => fitDistrict(task.model, d.data, task.pooled).map((record) => ({ districtId: d.districtId, record })));
+      return task.districts.flatMap((d) =>
+        fitDistrict(task.model, d.data, task.pooled).map((record) => ({ districtId: d.districtId, record })),
+      );
     case 'district-pdf':
       return renderDistrictPdf(task.content);
     case 'region-pdf':

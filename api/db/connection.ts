@@ -11,7 +11,10 @@ export type Sql = Pick<PoolClient, 'query'>;
 
 /** Runs fn on one connection; rolls back an open transaction if fn fails. */
 export async function withConnection<T>(db: Knex, fn: (conn: PoolClient) => Promise<T>): Promise<T> {
-  const client = db.client as { acquireConnection(): Promise<PoolClient>; releaseConnection(c: PoolClient): Promise<void> };
+  const client = db.client as {
+    acquireConnection(): Promise<PoolClient>;
+    releaseConnection(c: PoolClient): Promise<void>;
+  };
   const conn = await client.acquireConnection();
   try {
     return await fn(conn);

@@ -10,12 +10,20 @@ import type { Knex } from 'knex';
 import { awaitsFirstBoundaries, receiveBoundaries } from '../boundaries/service';
 import { DEMO_BOUNDARY_FILE } from './geography';
 
-export async function seedDemoBoundariesIfEmpty(db: Knex, maxVertices = 100_000): Promise<{ seeded: boolean; districts: number }> {
+export async function seedDemoBoundariesIfEmpty(
+  db: Knex,
+  maxVertices = 100_000,
+): Promise<{ seeded: boolean; districts: number }> {
   if (!(await awaitsFirstBoundaries(db))) return { seeded: false, districts: 0 };
   const bytes = fs.readFileSync(DEMO_BOUNDARY_FILE);
   const answer = await receiveBoundaries(
     db,
-    { path: DEMO_BOUNDARY_FILE, originalName: path.basename(DEMO_BOUNDARY_FILE), size: bytes.length, checksum: createHash('sha256').update(bytes).digest('hex') },
+    {
+      path: DEMO_BOUNDARY_FILE,
+      originalName: path.basename(DEMO_BOUNDARY_FILE),
+      size: bytes.length,
+      checksum: createHash('sha256').update(bytes).digest('hex'),
+    },
     { codeProperty: 'code', commit: true, repair: false },
     { id: null, email: null },
     { maxVertices },

@@ -41,30 +41,109 @@ export interface DemoDistrictSpec {
 
 export const DEMO_DISTRICTS: DemoDistrictSpec[] = [
   { code: 'D01', name: 'Amberlyn Reach', shape: 'inverted_u', lxStart: 9.0, lxEnd: 10.5, turn: 9.75, curvature: -0.6 },
-  { code: 'D02', name: 'Brackenmoor', shape: 'inverted_u', lxStart: 9.2, lxEnd: 10.2, turn: 10.25, curvature: -0.8, seedOffset: 5 },
+  {
+    code: 'D02',
+    name: 'Brackenmoor',
+    shape: 'inverted_u',
+    lxStart: 9.2,
+    lxEnd: 10.2,
+    turn: 10.25,
+    curvature: -0.8,
+    seedOffset: 5,
+  },
   { code: 'D03', name: 'Cindervale', shape: 'inverted_u', lxStart: 9.4, lxEnd: 10.8, turn: 10.0, curvature: -0.9 },
   { code: 'D04', name: 'Dunmarrow', shape: 'u', lxStart: 8.9, lxEnd: 10.2, turn: 9.55, curvature: 0.9 },
   { code: 'D05', name: 'Elderwick Fen', shape: 'increasing', lxStart: 8.7, lxEnd: 9.9, slope: 0.8 },
   { code: 'D06', name: 'Fallowmere', shape: 'decreasing', lxStart: 9.7, lxEnd: 10.9, slope: -0.7 },
   { code: 'D07', name: 'Glenharrow Flats', shape: 'flat', lxStart: 9.3, lxEnd: 10.1, slope: 0, noise: 0.05, rho: 0 },
-  { code: 'D08', name: 'Hollin Cross', shape: 'turn_beyond_range', lxStart: 9.1, lxEnd: 10.3, turn: 11.0, curvature: -0.45 },
-  { code: 'D09', name: 'Ironbeck', shape: 'inverted_u', lxStart: 9.1, lxEnd: 10.4, turn: 9.9, curvature: -0.65, missingYears: [2008] },
+  {
+    code: 'D08',
+    name: 'Hollin Cross',
+    shape: 'turn_beyond_range',
+    lxStart: 9.1,
+    lxEnd: 10.3,
+    turn: 11.0,
+    curvature: -0.45,
+  },
+  {
+    code: 'D09',
+    name: 'Ironbeck',
+    shape: 'inverted_u',
+    lxStart: 9.1,
+    lxEnd: 10.4,
+    turn: 9.9,
+    curvature: -0.65,
+    missingYears: [2008],
+  },
   { code: 'D10', name: 'Juniper Hythe', shape: 'increasing', lxStart: 8.8, lxEnd: 9.8, slope: 0.6, firstYear: 2018 },
   { code: 'D11', name: 'Kestrelholm', shape: 'u', lxStart: 9.3, lxEnd: 10.6, turn: 10.0, curvature: 0.45 },
   { code: 'D12', name: 'Larchmoss', shape: 'decreasing', lxStart: 9.9, lxEnd: 11.0, slope: -0.9 },
   // Income rose past the turn, then fell back below it in a downturn: approaching it again.
-  { code: 'D13', name: 'Mirefield Uplands', shape: 'inverted_u', lxStart: 9.0, lxEnd: 9.95, turn: 10.12, curvature: -1.2, peakYear: 2017, lxPeak: 10.4, noise: 0.02 },
-  { code: 'D14', name: 'Nettleby Coast', shape: 'flat', lxStart: 9.5, lxEnd: 10.2, slope: 0, noise: 0.06, rho: 0, seedOffset: 1 },
+  {
+    code: 'D13',
+    name: 'Mirefield Uplands',
+    shape: 'inverted_u',
+    lxStart: 9.0,
+    lxEnd: 9.95,
+    turn: 10.12,
+    curvature: -1.2,
+    peakYear: 2017,
+    lxPeak: 10.4,
+    noise: 0.02,
+  },
+  {
+    code: 'D14',
+    name: 'Nettleby Coast',
+    shape: 'flat',
+    lxStart: 9.5,
+    lxEnd: 10.2,
+    slope: 0,
+    noise: 0.06,
+    rho: 0,
+    seedOffset: 1,
+  },
   { code: 'D15', name: 'Oxmarsh', shape: 'turn_beyond_range', lxStart: 9.4, lxEnd: 10.6, turn: 11.3, curvature: -0.4 },
-  { code: 'D16', name: 'Pellow Basin', shape: 'increasing', lxStart: 8.9, lxEnd: 10.0, slope: 0.5, missingYears: [2003, 2004] },
-  { code: 'D17', name: 'Quarrendon Hills', shape: 'inverted_u', lxStart: 9.3, lxEnd: 10.7, turn: 10.2, curvature: -0.55 },
+  {
+    code: 'D16',
+    name: 'Pellow Basin',
+    shape: 'increasing',
+    lxStart: 8.9,
+    lxEnd: 10.0,
+    slope: 0.5,
+    missingYears: [2003, 2004],
+  },
+  {
+    code: 'D17',
+    name: 'Quarrendon Hills',
+    shape: 'inverted_u',
+    lxStart: 9.3,
+    lxEnd: 10.7,
+    turn: 10.2,
+    curvature: -0.55,
+  },
   { code: 'D18', name: 'Rushlake', shape: 'decreasing', lxStart: 9.6, lxEnd: 10.7, slope: -0.5, firstYear: 2019 },
   { code: 'D19', name: 'Saltgrave', shape: 'inverted_u', lxStart: 8.8, lxEnd: 10.0, turn: 9.45, curvature: -1.0 },
-  { code: 'D20', name: 'Thornwood Levels', shape: 'turn_beyond_range', lxStart: 9.0, lxEnd: 10.0, turn: 8.4, curvature: -0.5 },
+  {
+    code: 'D20',
+    name: 'Thornwood Levels',
+    shape: 'turn_beyond_range',
+    lxStart: 9.0,
+    lxEnd: 10.0,
+    turn: 8.4,
+    curvature: -0.5,
+  },
   { code: 'D21', name: 'Umberdale', shape: 'flat', lxStart: 9.2, lxEnd: 9.9, slope: 0, noise: 0.05, rho: 0 },
   { code: 'D22', name: 'Vesperton', shape: 'inverted_u', lxStart: 9.5, lxEnd: 10.9, turn: 10.6, curvature: -1.0 },
   { code: 'D23', name: 'Wyndcombe', shape: 'increasing', lxStart: 9.0, lxEnd: 10.3, slope: 0.7 },
-  { code: 'D24', name: 'Yarrowgate (Jarłowo-Şelé / Жарово)', shape: 'inverted_u', lxStart: 9.2, lxEnd: 10.6, turn: 9.95, curvature: -0.6 },
+  {
+    code: 'D24',
+    name: 'Yarrowgate (Jarłowo-Şelé / Жарово)',
+    shape: 'inverted_u',
+    lxStart: 9.2,
+    lxEnd: 10.6,
+    turn: 9.95,
+    curvature: -0.6,
+  },
 ];
 
 export interface DemoObservation {
@@ -87,8 +166,11 @@ function incomePath(spec: DemoDistrictSpec, year: number, first: number): number
   if (spec.peakYear === undefined || spec.lxPeak === undefined) {
     return spec.lxStart + ((spec.lxEnd - spec.lxStart) * (year - first)) / span;
   }
-  if (year <= spec.peakYear) return spec.lxStart + ((spec.lxPeak - spec.lxStart) * (year - first)) / Math.max(1, spec.peakYear - first);
-  return spec.lxPeak + ((spec.lxEnd - spec.lxPeak) * (year - spec.peakYear)) / Math.max(1, DEMO_LAST_YEAR - spec.peakYear);
+  if (year <= spec.peakYear)
+    return spec.lxStart + ((spec.lxPeak - spec.lxStart) * (year - first)) / Math.max(1, spec.peakYear - first);
+  return (
+    spec.lxPeak + ((spec.lxEnd - spec.lxPeak) * (year - spec.peakYear)) / Math.max(1, DEMO_LAST_YEAR - spec.peakYear)
+  );
 }
 
 function generateDistrict(spec: DemoDistrictSpec, rng: Random): DemoObservation[] {
@@ -138,6 +220,8 @@ function generateDistrict(spec: DemoDistrictSpec, rng: Random): DemoObservation[
 /** The whole demo region for a seed (default DEMO_SEED); the same seed gives the same numbers. */
 export function generateDemoRegion(seed = DEMO_SEED): DemoRegion {
   // One stream per district, so tuning one district leaves the others' numbers alone.
-  const observations = DEMO_DISTRICTS.flatMap((d, i) => generateDistrict(d, seededRandom(seed + 7919 * (i + 1) + (d.seedOffset ?? 0))));
+  const observations = DEMO_DISTRICTS.flatMap((d, i) =>
+    generateDistrict(d, seededRandom(seed + 7919 * (i + 1) + (d.seedOffset ?? 0))),
+  );
   return { districts: DEMO_DISTRICTS.map(({ code, name }) => ({ code, name })), observations };
 }

@@ -58,7 +58,8 @@ function sites(rnd: ReturnType<typeof seededRandom>): Map<string, [number, numbe
   });
   const rest = DEMO_DISTRICTS.map((d) => d.code).filter((c) => !out.has(c));
   rest.forEach((code, i) => {
-    const u = -0.65 + (1.3 * Math.floor(i / 2)) / Math.max(1, Math.ceil(rest.length / 2) - 1) + rnd.between(-0.05, 0.05);
+    const u =
+      -0.65 + (1.3 * Math.floor(i / 2)) / Math.max(1, Math.ceil(rest.length / 2) - 1) + rnd.between(-0.05, 0.05);
     const side = i % 2 === 0 ? 1 : -1;
     out.set(code, [u, river(u) + side * rnd.between(0.2, 0.26)]);
   });
@@ -128,7 +129,11 @@ export async function demoGeography(): Promise<FeatureCollection<Polygon, { code
     const ring = part.filter((p, k) => k === 0 || p[0] !== part[k - 1][0] || p[1] !== part[k - 1][1]);
     if (ring[0][0] !== ring[ring.length - 1][0] || ring[0][1] !== ring[ring.length - 1][1]) ring.push(ring[0]);
     if (signedArea(ring) < 0) ring.reverse();
-    return { type: 'Feature', properties: { code: d.code, name: d.name }, geometry: { type: 'Polygon', coordinates: [ring] } };
+    return {
+      type: 'Feature',
+      properties: { code: d.code, name: d.name },
+      geometry: { type: 'Polygon', coordinates: [ring] },
+    };
   });
   return { type: 'FeatureCollection', features };
 }
@@ -138,7 +143,9 @@ export async function demoGeography(): Promise<FeatureCollection<Polygon, { code
  * district D07's ring crosses itself (a bow tie) and one feature carries the code D31,
  * which is not a district of the region.
  */
-export function withProblems(fc: FeatureCollection<Polygon, { code: string; name: string }>): FeatureCollection<Polygon, { code: string; name: string }> {
+export function withProblems(
+  fc: FeatureCollection<Polygon, { code: string; name: string }>,
+): FeatureCollection<Polygon, { code: string; name: string }> {
   const features = fc.features.map((f) => {
     if (f.properties.code !== 'D07') return f;
     const ring = f.geometry.coordinates[0];
@@ -151,7 +158,14 @@ export function withProblems(fc: FeatureCollection<Polygon, { code: string; name
 }
 
 export const DEMO_BOUNDARY_FILE = path.resolve(__dirname, '..', '..', 'assets', 'demo-data', 'boundaries.geojson');
-export const DEMO_BAD_BOUNDARY_FILE = path.resolve(__dirname, '..', '..', 'assets', 'demo-data', 'boundaries-with-problems.geojson');
+export const DEMO_BAD_BOUNDARY_FILE = path.resolve(
+  __dirname,
+  '..',
+  '..',
+  'assets',
+  'demo-data',
+  'boundaries-with-problems.geojson',
+);
 
 async function main(check: boolean): Promise<void> {
   const good = await demoGeography();
@@ -162,7 +176,8 @@ async function main(check: boolean): Promise<void> {
   for (const [file, value] of files) {
     const text = `${JSON.stringify(value)}\n`;
     if (check) {
-      if (fs.readFileSync(file, 'utf8') !== text) throw new Error(`${path.basename(file)} differs from a fresh build: regenerate it`);
+      if (fs.readFileSync(file, 'utf8') !== text)
+        throw new Error(`${path.basename(file)} differs from a fresh build: regenerate it`);
     } else {
       fs.writeFileSync(file, text);
     }

@@ -28,7 +28,13 @@ function cacheFor(db: Knex): Map<string, Kept> {
  * Answers `key` (the route and its parameters) from the cache when its version is current,
  * with 304 when the caller already holds it; otherwise builds, keeps and sends it.
  */
-export async function sendPublished(db: Knex, req: Request, res: Response, key: string, build: () => Promise<unknown>): Promise<void> {
+export async function sendPublished(
+  db: Knex,
+  req: Request,
+  res: Response,
+  key: string,
+  build: () => Promise<unknown>,
+): Promise<void> {
   const version = await publishedVersion(db);
   const etag = `"p-${createHash('sha1').update(`${key}\n${version}`).digest('base64url').slice(0, 22)}"`;
   res.set('ETag', etag);

@@ -4,7 +4,11 @@ import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { sendPublished } from './published-cache';
 import * as service from './service';
 import { DistrictListResponseSchema } from '../../contracts/districts';
-import { DistrictEstimateResponseSchema, DistrictHistoryResponseSchema, RegionResponseSchema } from '../../contracts/estimates';
+import {
+  DistrictEstimateResponseSchema,
+  DistrictHistoryResponseSchema,
+  RegionResponseSchema,
+} from '../../contracts/estimates';
 
 const byCode = { params: districtParams };
 
@@ -25,7 +29,8 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       answer: RegionResponseSchema,
       allow: SIGNED_IN,
       tag: 'estimates',
-      summary: 'The region in the latest published run: each district’s standing, counts per standing, the pooled curve',
+      summary:
+        'The region in the latest published run: each district’s standing, counts per standing, the pooled curve',
       handler: (_input, req, res) => sendPublished(db, req, res, 'region', () => service.region(db)),
     }),
     route({
@@ -34,9 +39,11 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       answer: DistrictEstimateResponseSchema,
       allow: SIGNED_IN,
       tag: 'estimates',
-      summary: 'A district’s published estimate (card): curve, threshold and interval, standing, sensitivity variants, note',
+      summary:
+        'A district’s published estimate (card): curve, threshold and interval, standing, sensitivity variants, note',
       schemas: byCode,
-      handler: ({ params }, req, res) => sendPublished(db, req, res, `estimate ${params.code}`, () => service.districtEstimate(db, params.code)),
+      handler: ({ params }, req, res) =>
+        sendPublished(db, req, res, `estimate ${params.code}`, () => service.districtEstimate(db, params.code)),
     }),
     route({
       method: 'get',
@@ -46,7 +53,8 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'estimates',
       summary: 'A district’s estimates across published runs, newest first',
       schemas: byCode,
-      handler: ({ params }, req, res) => sendPublished(db, req, res, `history ${params.code}`, () => service.districtHistory(db, params.code)),
+      handler: ({ params }, req, res) =>
+        sendPublished(db, req, res, `history ${params.code}`, () => service.districtHistory(db, params.code)),
     }),
   ];
 }

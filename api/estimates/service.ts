@@ -66,7 +66,8 @@ export async function latestPublished(db: Knex, before?: { publishedAt: string }
 /** A run by id in any state; briefs and exports decide which states they read. */
 export const findRun = (db: Knex, id: number) => store.findRun(db, id);
 /** Every record (all variants) of one district in a run. */
-export const estimateRecords = (db: Knex, runId: number, districtId: number) => store.estimateRecords(db, runId, districtId);
+export const estimateRecords = (db: Knex, runId: number, districtId: number) =>
+  store.estimateRecords(db, runId, districtId);
 /** An analyst's note on one district in a run, if any. */
 export const noteFor = (db: Knex, runId: number, districtId: number) => store.noteFor(db, runId, districtId);
 /** A run's analyst notes by district code. */
@@ -80,7 +81,9 @@ export function comparableEstimates(db: Knex, runId: number): Promise<store.Comp
 }
 
 /** Code → summary of the latest published run (for the district list and the region view). */
-export async function publishedSummaries(db: Knex): Promise<{ run: store.PublishedRun | null; byCode: Map<string, EstimateSummary> }> {
+export async function publishedSummaries(
+  db: Knex,
+): Promise<{ run: store.PublishedRun | null; byCode: Map<string, EstimateSummary> }> {
   const run = await store.latestPublished(db);
   if (!run) return { run: null, byCode: new Map() };
   // Built in SQL (store.ts mainSummaryRows) with the same fields as summaryOf: decoding
@@ -114,9 +117,17 @@ export async function region(db: Knex) {
   return {
     run: run ? publishedRunMeta(run) : null,
     counts,
-    pooled: pooled && pooled.status === 'ok'
-      ? { shape: pooled.shape.shape, threshold: pooled.turningPoints[0]?.level ?? null, fieller: pooled.turningPoints[0]?.fieller ?? null, terms: pooled.terms, coefficients: pooled.coefficients, range: pooled.range }
-      : null,
+    pooled:
+      pooled && pooled.status === 'ok'
+        ? {
+            shape: pooled.shape.shape,
+            threshold: pooled.turningPoints[0]?.level ?? null,
+            fieller: pooled.turningPoints[0]?.fieller ?? null,
+            terms: pooled.terms,
+            coefficients: pooled.coefficients,
+            range: pooled.range,
+          }
+        : null,
     districts: rows,
   };
 }
@@ -124,7 +135,15 @@ export async function region(db: Knex) {
 export async function districtEstimate(db: Knex, code: string) {
   const d = await districtByCode(db, code);
   const run = await store.latestPublished(db);
-  if (!run) return { district: { code: d.code, name: d.name }, run: null, main: null, variants: [], note: null, correction: null };
+  if (!run)
+    return {
+      district: { code: d.code, name: d.name },
+      run: null,
+      main: null,
+      variants: [],
+      note: null,
+      correction: null,
+    };
   const [records, note, correction] = await Promise.all([
     store.estimateRecords(db, run.id, d.id),
     store.noteFor(db, run.id, d.id),
@@ -142,6 +161,11 @@ export async function districtHistory(db: Knex, code: string) {
   const rows = await store.publishedHistory(db, d.id);
   return {
     district: { code: d.code, name: d.name },
-    history: rows.map((r) => ({ runId: r.runId, publishedAt: r.publishedAt, dataVersion: r.dataVersion, ...summaryOf(r.record) })),
+    history: rows.map((r) => ({
+      runId: r.runId,
+      publishedAt: r.publishedAt,
+      dataVersion: r.dataVersion,
+      ...summaryOf(r.record),
+    })),
   };
 }

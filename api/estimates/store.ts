@@ -68,7 +68,9 @@ export async function latestPublished(db: Knex, before?: { publishedAt: string }
 
 /** One run by id in any state (callers decide which states they show). */
 export async function findRun(db: Knex, id: number): Promise<PublishedRun | null> {
-  const r = await db('runs').where({ id }).first(...RUN_COLUMNS);
+  const r = await db('runs')
+    .where({ id })
+    .first(...RUN_COLUMNS);
   return r ? toPublishedRun(r) : null;
 }
 
@@ -103,8 +105,18 @@ export async function mainEstimateRows(db: Knex, runId: number): Promise<Estimat
     .where({ 'e.run_id': runId, 'e.variant': 'main' })
     .orderBy('d.code')
     .select(
-      'e.district_id', 'e.status', 'e.standing', 'e.shape', 'e.threshold', 'e.gap_percent', 'e.crossing_year',
-      'e.u_test_rejects', 'e.interval_bounded', 'e.last_year', 'd.code', 'd.name',
+      'e.district_id',
+      'e.status',
+      'e.standing',
+      'e.shape',
+      'e.threshold',
+      'e.gap_percent',
+      'e.crossing_year',
+      'e.u_test_rejects',
+      'e.interval_bounded',
+      'e.last_year',
+      'd.code',
+      'd.name',
     );
   return rows.map((r) => ({
     districtId: Number(r.district_id),

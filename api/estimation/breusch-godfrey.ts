@@ -22,7 +22,12 @@ import { take, type Workspace } from './workspace';
  *   // → [{ order: 1, statistic: 2.2009…, df: 1, pValue: 0.1379… }, { order: 2, statistic: 2.5793…, df: 2, pValue: 0.2754… }]
  */
 export function breuschGodfrey(
-  e: ArrayLike<number>, q1: Float64Array, n: number, k: number, maxOrder: number, ws?: Workspace,
+  e: ArrayLike<number>,
+  q1: Float64Array,
+  n: number,
+  k: number,
+  maxOrder: number,
+  ws?: Workspace,
 ): Array<{ order: number; statistic: number | null; df: number; pValue: number | null }> {
   const out: Array<{ order: number; statistic: number | null; df: number; pValue: number | null }> = [];
   let ee = 0;
@@ -62,7 +67,10 @@ export function breuschGodfrey(
       }
       if (nz > 1e-10 * norm0) {
         let s = 0;
-        for (let t = 0; t < n; t++) { basis[oz + t] /= nz; s += basis[oz + t] * e[t]; }
+        for (let t = 0; t < n; t++) {
+          basis[oz + t] /= nz;
+          s += basis[oz + t] * e[t];
+        }
         fitted += s * s;
         const statistic = (n * fitted) / ee;
         out.push({ order: j, statistic, df: j, pValue: chiSquareUpperTail(statistic, j) });

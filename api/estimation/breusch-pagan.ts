@@ -17,7 +17,11 @@ import { take, type Workspace } from './workspace';
  * Example: breuschPagan(e, q1, 35, 4) on PA01   // → { statistic: …, df: 3, pValue: … } (see the R fixture)
  */
 export function breuschPagan(
-  e: ArrayLike<number>, q1: Float64Array, n: number, k: number, ws?: Workspace,
+  e: ArrayLike<number>,
+  q1: Float64Array,
+  n: number,
+  k: number,
+  ws?: Workspace,
 ): { statistic: number | null; df: number; pValue: number | null } {
   const df = k - 1;
   if (k < 2) return { statistic: null, df, pValue: null };
@@ -26,7 +30,10 @@ export function breuschPagan(
   s2 /= n;
   const w = take(ws, n);
   let ww = 0;
-  for (let i = 0; i < n; i++) { w[i] = e[i] * e[i] - s2; ww += w[i] * w[i]; }
+  for (let i = 0; i < n; i++) {
+    w[i] = e[i] * e[i] - s2;
+    ww += w[i] * w[i];
+  }
   if (!(ww > 0)) return { statistic: null, df, pValue: null };
   let fit = 0;
   for (let c = 0; c < k; c++) {

@@ -42,15 +42,31 @@ export function buildTurningPoints(input: {
   const out: TurningPoint[] = [];
   if (slope.length === 2) {
     const tp = quadraticTurningPoint(slope[0], slope[1], V[0][0], V[0][1], V[1][1]);
-    if (tp) out.push(assemble(tp.x, tp.kind, tp.gradient, fiellerInterval(slope[0], slope[1], V[0][0], V[0][1], V[1][1], c), V, c, xMin, xMax, transform, intervalMethod));
+    if (tp)
+      out.push(
+        assemble(
+          tp.x,
+          tp.kind,
+          tp.gradient,
+          fiellerInterval(slope[0], slope[1], V[0][0], V[0][1], V[1][1], c),
+          V,
+          c,
+          xMin,
+          xMax,
+          transform,
+          intervalMethod,
+        ),
+      );
   } else {
     const scale = Math.max(Math.abs(xMin), Math.abs(xMax));
     for (const tp of cubicTurningPoints(slope[0], slope[1], slope[2], V, scale)) {
       const set = cubicFieller(slope[0], slope[1], slope[2], V, c, tp.x, scale);
       if (set.containsTurningPoint === false) {
-        throw new EstimationInputError('numerical_failure',
+        throw new EstimationInputError(
+          'numerical_failure',
           `The Fieller-type set of the ${tp.kind} at x = ${tp.x} does not contain it; the interval cannot be trusted`,
-          { reason: 'fieller_set_excludes_turning_point', x: tp.x, kind: tp.kind, pieces: set.pieces });
+          { reason: 'fieller_set_excludes_turning_point', x: tp.x, kind: tp.kind, pieces: set.pieces },
+        );
       }
       out.push(assemble(tp.x, tp.kind, tp.gradient, set, V, c, xMin, xMax, transform, intervalMethod));
     }
@@ -59,8 +75,16 @@ export function buildTurningPoints(input: {
 }
 
 function assemble(
-  x: number, kind: 'peak' | 'trough', gradient: number[], fieller: FiellerSet, V: ReadonlyArray<ReadonlyArray<number>>, c: number,
-  xMin: number, xMax: number, transform: 'log' | 'level', intervalMethod: 'fieller' | 'delta',
+  x: number,
+  kind: 'peak' | 'trough',
+  gradient: number[],
+  fieller: FiellerSet,
+  V: ReadonlyArray<ReadonlyArray<number>>,
+  c: number,
+  xMin: number,
+  xMax: number,
+  transform: 'log' | 'level',
+  intervalMethod: 'fieller' | 'delta',
 ): TurningPoint {
   const d = deltaMethod(gradient, V, x, c);
   const inRange = x >= xMin && x <= xMax;
@@ -73,9 +97,15 @@ function assemble(
     gradient,
     delta: { se: d.se, lo: d.lo, hi: d.hi, levelLo: toLevel(d.lo, log), levelHi: toLevel(d.hi, log) },
     fieller: {
-      kind: fieller.kind, lo: fieller.lo, hi: fieller.hi, pieces: fieller.pieces,
-      ...(fieller.A !== undefined ? { A: fieller.A, B: fieller.B, C: fieller.C, discriminant: fieller.discriminant } : {}),
-      levelLo: toLevel(fieller.lo, log), levelHi: toLevel(fieller.hi, log),
+      kind: fieller.kind,
+      lo: fieller.lo,
+      hi: fieller.hi,
+      pieces: fieller.pieces,
+      ...(fieller.A !== undefined
+        ? { A: fieller.A, B: fieller.B, C: fieller.C, discriminant: fieller.discriminant }
+        : {}),
+      levelLo: toLevel(fieller.lo, log),
+      levelHi: toLevel(fieller.hi, log),
     },
     intervalBounded: intervalMethod === 'delta' ? d.se !== null : fieller.kind === 'bounded',
     extrapolated: !inRange,

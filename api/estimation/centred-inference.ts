@@ -49,13 +49,24 @@ export function centredCubicInference(input: {
   const data = new Float64Array(n * k);
   for (let i = 0; i < n; i++) {
     const t = (x[i] - c) / h;
-    data[i] = 1; data[n + i] = t; data[2 * n + i] = t * t; data[3 * n + i] = t * t * t;
+    data[i] = 1;
+    data[n + i] = t;
+    data[2 * n + i] = t * t;
+    data[3 * n + i] = t * t * t;
   }
   for (let j = 0; j < controls.length; j++) for (let i = 0; i < n; i++) data[(4 + j) * n + i] = controls[j][i];
   const { result } = fitLeastSquares({ nRows: n, nCols: k, data }, y, options);
-  const tMin = (xMin - c) / h, tMax = (xMax - c) / h;
+  const tMin = (xMin - c) / h,
+    tMax = (xMax - c) / h;
   const inf = curveInference({
-    coefficients: result.coefficients, covariance: result.covariance, slopeStart: 1, slopeTerms: 3, xMin: tMin, xMax: tMax, df: input.df, spec,
+    coefficients: result.coefficients,
+    covariance: result.covariance,
+    slopeStart: 1,
+    slopeTerms: 3,
+    xMin: tMin,
+    xMax: tMax,
+    df: input.df,
+    spec,
   });
   const log = spec.transform === 'log';
   const toX = (t: number | null): number | null => (t === null ? null : c + h * t);
@@ -70,29 +81,51 @@ export function centredCubicInference(input: {
     const xs = c + h * tp.x;
     const ds = 2 * b2 + 6 * b3 * xs;
     const se = tp.delta.se === null ? null : tp.delta.se * h;
-    const dLo = toX(tp.delta.lo), dHi = toX(tp.delta.hi);
-    const fLo = toX(tp.fieller.lo), fHi = toX(tp.fieller.hi);
+    const dLo = toX(tp.delta.lo),
+      dHi = toX(tp.delta.hi);
+    const fLo = toX(tp.fieller.lo),
+      fHi = toX(tp.fieller.hi);
     return {
       ...tp,
       x: xs,
       level: level(xs),
-      gradient: ds !== 0 ? [-1 / ds, -2 * xs / ds, -3 * xs * xs / ds] : tp.gradient,
+      gradient: ds !== 0 ? [-1 / ds, (-2 * xs) / ds, (-3 * xs * xs) / ds] : tp.gradient,
       delta: { se, lo: dLo, hi: dHi, levelLo: level(dLo), levelHi: level(dHi) },
       fieller: {
         ...tp.fieller,
-        lo: fLo, hi: fHi, levelLo: level(fLo), levelHi: level(fHi),
+        lo: fLo,
+        hi: fHi,
+        levelLo: level(fLo),
+        levelHi: level(fHi),
         pieces: tp.fieller.pieces.map((p) => ({ lo: toX(p.lo), hi: toX(p.hi) })),
       },
     };
   });
   const u = inf.uTest;
-  const uTest = { ...u, xMin, xMax, slopeAtMin: u.slopeAtMin / h, seAtMin: u.seAtMin / h, slopeAtMax: u.slopeAtMax / h, seAtMax: u.seAtMax / h };
+  const uTest = {
+    ...u,
+    xMin,
+    xMax,
+    slopeAtMin: u.slopeAtMin / h,
+    seAtMin: u.seAtMin / h,
+    slopeAtMax: u.slopeAtMax / h,
+    seAtMax: u.seAtMax / h,
+  };
   const mid = inf.shape.slopeAtMidpoint;
-  const shape = { ...inf.shape, slopeAtMidpoint: { x: c, value: mid.value / h, se: mid.se === null ? null : mid.se / h } };
+  const shape = {
+    ...inf.shape,
+    slopeAtMidpoint: { x: c, value: mid.value / h, se: mid.se === null ? null : mid.se / h },
+  };
   const logElasticity = (critical: number): ElasticityResult => {
     const e = elasticityNow({
-      transform: 'log', coefficients: result.coefficients, covariance: result.covariance, slopeTerms: 3, xNow: (xNow - c) / h,
-      designRowNow: [], fittedNow: 0, critical,
+      transform: 'log',
+      coefficients: result.coefficients,
+      covariance: result.covariance,
+      slopeTerms: 3,
+      xNow: (xNow - c) / h,
+      designRowNow: [],
+      fittedNow: 0,
+      critical,
     });
     const d = (v: number | null) => (v === null ? null : v / h);
     return { ...e, xNow, value: d(e.value), se: d(e.se), lo: d(e.lo), hi: d(e.hi) };

@@ -17,7 +17,13 @@ import { take, type Workspace } from './workspace';
  *   clusterMeat(q, e, 2, 1, Int32Array.from([0, 0]), 1)   // → [2.0000000000000004]   ((1/√2 + 1/√2)²)
  */
 export function clusterMeat(
-  q1: Float64Array, e: ArrayLike<number>, n: number, k: number, groups: Int32Array, nGroups: number, ws?: Workspace,
+  q1: Float64Array,
+  e: ArrayLike<number>,
+  n: number,
+  k: number,
+  groups: Int32Array,
+  nGroups: number,
+  ws?: Workspace,
 ): Float64Array {
   const u = new Float64Array(nGroups * k);
   for (let i = 0; i < n; i++) {

@@ -22,7 +22,12 @@
  *   // → Float64Array [2.220446049250313e-16, 0]
  */
 export function compensatedResiduals(
-  x: Float64Array, y: Float64Array, b: Float64Array, n: number, k: number, out: Float64Array,
+  x: Float64Array,
+  y: Float64Array,
+  b: Float64Array,
+  n: number,
+  k: number,
+  out: Float64Array,
   xLo?: Float64Array,
 ): Float64Array {
   const SPLIT = 134217729;
@@ -34,13 +39,15 @@ export function compensatedResiduals(
       const v = -b[c];
       const p = u * v;
       let t = SPLIT * u;
-      const uh = t - (t - u), ul = u - uh;
+      const uh = t - (t - u),
+        ul = u - uh;
       t = SPLIT * v;
-      const vh = t - (t - v), vl = v - vh;
-      const pe = ((uh * vh - p) + uh * vl + ul * vh) + ul * vl;
+      const vh = t - (t - v),
+        vl = v - vh;
+      const pe = uh * vh - p + uh * vl + ul * vh + ul * vl;
       const s2 = s + p;
       const bb = s2 - s;
-      err += ((s - (s2 - bb)) + (p - bb)) + pe;
+      err += s - (s2 - bb) + (p - bb) + pe;
       s = s2;
     }
     if (xLo) for (let c = 0; c < k; c++) err -= xLo[c * n + i] * b[c];

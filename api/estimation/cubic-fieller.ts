@@ -29,7 +29,13 @@ import type { FiellerSet, SetPiece } from './types';
  *   // → { kind: 'bounded', lo: 0.96287…, hi: 1.04034…, pieces: [[−1.0403, −0.9629], [0.9629, 1.0403]] }
  */
 export function cubicFieller(
-  b1: number, b2: number, b3: number, v: ReadonlyArray<ArrayLike<number>>, c: number, xStar: number, scale?: number,
+  b1: number,
+  b2: number,
+  b3: number,
+  v: ReadonlyArray<ArrayLike<number>>,
+  c: number,
+  xStar: number,
+  scale?: number,
 ): FiellerSet {
   const c2 = c * c;
   const q = [
@@ -40,17 +46,23 @@ export function cubicFieller(
     9 * b3 * b3 - 9 * c2 * v[2][2],
   ];
   const qAt = (x: number): number => (((q[4] * x + q[3]) * x + q[2]) * x + q[1]) * x + q[0];
-  const s = scale !== undefined && scale > 0 && Number.isFinite(scale) ? scale : Math.max(Math.abs(xStar), Number.MIN_VALUE);
+  const s =
+    scale !== undefined && scale > 0 && Number.isFinite(scale) ? scale : Math.max(Math.abs(xStar), Number.MIN_VALUE);
   const tol = PIECE_TOLERANCE * s;
   const roots = realPolynomialRoots(q, s);
   const edges: Array<number | null> = [null, ...roots, null];
   const pieces: SetPiece[] = [];
   for (let j = 0; j + 1 < edges.length; j++) {
-    const lo = edges[j], hi = edges[j + 1];
-    const probe = lo === null && hi === null ? 0
-      : lo === null ? (hi as number) - s - Math.abs(hi as number)
-        : hi === null ? lo + s + Math.abs(lo)
-          : 0.5 * (lo + hi);
+    const lo = edges[j],
+      hi = edges[j + 1];
+    const probe =
+      lo === null && hi === null
+        ? 0
+        : lo === null
+          ? (hi as number) - s - Math.abs(hi as number)
+          : hi === null
+            ? lo + s + Math.abs(lo)
+            : 0.5 * (lo + hi);
     if (qAt(probe) <= 0) {
       const last = pieces[pieces.length - 1];
       if (last && last.hi !== null && lo !== null && lo - last.hi <= tol) last.hi = hi;
@@ -62,10 +74,17 @@ export function cubicFieller(
   }
   const own = pieces.find((p) => (p.lo === null || p.lo - tol <= xStar) && (p.hi === null || xStar <= p.hi + tol));
   if (!own) return { kind: 'two_rays', lo: null, hi: null, pieces, containsTurningPoint: false };
-  if (own.lo !== null && own.hi !== null) return { kind: 'bounded', lo: own.lo, hi: own.hi, pieces, containsTurningPoint: true };
+  if (own.lo !== null && own.hi !== null)
+    return { kind: 'bounded', lo: own.lo, hi: own.hi, pieces, containsTurningPoint: true };
   const left = pieces.find((p) => p.lo === null);
   const right = pieces.find((p) => p.hi === null);
-  return { kind: 'two_rays', lo: left ? left.hi : null, hi: right ? right.lo : null, pieces, containsTurningPoint: true };
+  return {
+    kind: 'two_rays',
+    lo: left ? left.hi : null,
+    hi: right ? right.lo : null,
+    pieces,
+    containsTurningPoint: true,
+  };
 }
 
 /**

@@ -19,17 +19,26 @@ import { realPolynomialRoots } from './real-polynomial-roots';
  *   // → [{ x: -1, kind: 'peak', … }, { x: 1, kind: 'trough', … }]
  */
 export function cubicTurningPoints(
-  b1: number, b2: number, b3: number, v: ReadonlyArray<ArrayLike<number>>, scale?: number,
+  b1: number,
+  b2: number,
+  b3: number,
+  v: ReadonlyArray<ArrayLike<number>>,
+  scale?: number,
 ): Array<{ x: number; kind: 'peak' | 'trough'; gradient: [number, number, number]; se: number | null }> {
   const roots = realPolynomialRoots([b1, 2 * b2, 3 * b3], scale);
   const out: Array<{ x: number; kind: 'peak' | 'trough'; gradient: [number, number, number]; se: number | null }> = [];
   for (const x of roots) {
     const ds = 2 * b2 + 6 * b3 * x;
     if (ds === 0 || !Number.isFinite(x)) continue;
-    const g: [number, number, number] = [-1 / ds, -2 * x / ds, -3 * x * x / ds];
+    const g: [number, number, number] = [-1 / ds, (-2 * x) / ds, (-3 * x * x) / ds];
     let s = 0;
     for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) s += g[a] * v[a][b] * g[b];
-    out.push({ x, kind: ds < 0 ? 'peak' : 'trough', gradient: g, se: s >= 0 && Number.isFinite(s) ? Math.sqrt(s) : null });
+    out.push({
+      x,
+      kind: ds < 0 ? 'peak' : 'trough',
+      gradient: g,
+      se: s >= 0 && Number.isFinite(s) ? Math.sqrt(s) : null,
+    });
   }
   return out;
 }

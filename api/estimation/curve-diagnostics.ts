@@ -24,8 +24,14 @@ import type { Workspace } from './workspace';
  * Example: curveDiagnostics(e, q1, leverage, years, 35, 4).breuschGodfrey[1].order   // → 2
  */
 export function curveDiagnostics(
-  e: ArrayLike<number>, q1: Float64Array, leverage: ArrayLike<number>, years: ArrayLike<number>, n: number, k: number,
-  ws?: Workspace, exactDurbinWatson = false,
+  e: ArrayLike<number>,
+  q1: Float64Array,
+  leverage: ArrayLike<number>,
+  years: ArrayLike<number>,
+  n: number,
+  k: number,
+  ws?: Workspace,
+  exactDurbinWatson = false,
 ): CurveDiagnostics {
   let best = 0;
   for (let i = 1; i < n; i++) if (leverage[i] > leverage[best]) best = i;

@@ -35,30 +35,59 @@ export function curveInference(input: {
   xMax: number;
   df: number;
   spec: ModelSpec;
-}): { critical: CriticalValueInfo; turningPoints: TurningPoint[]; uTest: UTestResult; wald: WaldTestResult; shape: ShapeResult } {
+}): {
+  critical: CriticalValueInfo;
+  turningPoints: TurningPoint[];
+  uTest: UTestResult;
+  wald: WaldTestResult;
+  shape: ShapeResult;
+} {
   const { coefficients: b, covariance: V, slopeStart: s0, slopeTerms: m, xMin, xMax, spec } = input;
   const df = spec.criticalValue === 'normal' ? null : input.df;
   const c = criticalValue(spec.level, df);
   const slope = b.slice(s0, s0 + m);
   const slopeCov = V.slice(s0, s0 + m).map((row) => row.slice(s0, s0 + m));
   const turningPoints = buildTurningPoints({
-    slope, slopeCovariance: slopeCov, xMin, xMax, critical: c, transform: spec.transform, intervalMethod: spec.intervalMethod,
+    slope,
+    slopeCovariance: slopeCov,
+    xMin,
+    xMax,
+    critical: c,
+    transform: spec.transform,
+    intervalMethod: spec.intervalMethod,
   });
   const uTest = lindMehlumTest(slope, slopeCov, xMin, xMax, df, spec.alpha);
   const wald = waldTest(slope, slopeCov, df, spec.alpha);
   const xm = 0.5 * (xMin + xMax);
   const a = [1, 2 * xm, 3 * xm * xm].slice(0, m);
-  let value = 0, v = 0;
+  let value = 0,
+    v = 0;
   for (let i = 0; i < m; i++) {
     value += a[i] * slope[i];
     for (let j = 0; j < m; j++) v += a[i] * slopeCov[i][j] * a[j];
   }
-  const signRule = m === 2
-    ? signRuleReading(slope[0], slope[1], twoSidedP(slope[0] / Math.sqrt(slopeCov[0][0]), df), twoSidedP(slope[1] / Math.sqrt(slopeCov[1][1]), df), spec.alpha)
-    : null;
+  const signRule =
+    m === 2
+      ? signRuleReading(
+          slope[0],
+          slope[1],
+          twoSidedP(slope[0] / Math.sqrt(slopeCov[0][0]), df),
+          twoSidedP(slope[1] / Math.sqrt(slopeCov[1][1]), df),
+          spec.alpha,
+        )
+      : null;
   const shape = classifyShape({
-    uTest, wald, turningPoints, signRule,
+    uTest,
+    wald,
+    turningPoints,
+    signRule,
     slopeAtMidpoint: { x: xm, value, se: v >= 0 ? Math.sqrt(v) : null },
   });
-  return { critical: { kind: df === null ? 'normal' : 't', df, value: c, level: spec.level }, turningPoints, uTest, wald, shape };
+  return {
+    critical: { kind: df === null ? 'normal' : 't', df, value: c, level: spec.level },
+    turningPoints,
+    uTest,
+    wald,
+    shape,
+  };
 }

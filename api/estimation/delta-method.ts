@@ -13,7 +13,10 @@
  *   deltaMethod([1, 2], [[1, 0], [0, 0.25]], 10, 2)   // → { se: 1.4142135623730951, lo: 7.17157…, hi: 12.82842… }
  */
 export function deltaMethod(
-  gradient: ArrayLike<number>, covariance: ReadonlyArray<ArrayLike<number>>, point: number, critical: number,
+  gradient: ArrayLike<number>,
+  covariance: ReadonlyArray<ArrayLike<number>>,
+  point: number,
+  critical: number,
 ): { se: number | null; lo: number | null; hi: number | null } {
   const m = gradient.length;
   let v = 0;

@@ -73,15 +73,23 @@ export function chiSquareUpperTail(x: number, df: number): number {
   if (Number.isInteger(df) && df >= 1 && df <= 30) {
     const h = x / 2;
     if (df % 2 === 0) {
-      let term = 1, sum = 1;
-      for (let i = 1; i < df / 2; i++) { term *= h / i; sum += term; }
+      let term = 1,
+        sum = 1;
+      for (let i = 1; i < df / 2; i++) {
+        term *= h / i;
+        sum += term;
+      }
       return Math.exp(-h) * sum;
     }
     const z = Math.sqrt(x);
     let p = 2 * normalCdf(-z, 0, 1);
     if (df > 1) {
-      let term = z, sum = z;
-      for (let r = 2; r <= (df - 1) / 2; r++) { term *= x / (2 * r - 1); sum += term; }
+      let term = z,
+        sum = z;
+      for (let r = 2; r <= (df - 1) / 2; r++) {
+        term *= x / (2 * r - 1);
+        sum += term;
+      }
       p += 2 * (Math.exp(-h) / Math.sqrt(2 * Math.PI)) * sum;
     }
     return Math.min(1, p);

@@ -26,7 +26,7 @@ const SPLITTER = 134217729; // 2^27 + 1
 export function twoSum(a: number, b: number): DD {
   const s = a + b;
   const bb = s - a;
-  const e = (a - (s - bb)) + (b - bb);
+  const e = a - (s - bb) + (b - bb);
   return [s, e];
 }
 
@@ -39,7 +39,7 @@ export function twoProd(a: number, b: number): DD {
   t = SPLITTER * b;
   const bh = t - (t - b);
   const bl = b - bh;
-  const e = ((ah * bh - p) + ah * bl + al * bh) + al * bl;
+  const e = ah * bh - p + ah * bl + al * bh + al * bl;
   return [p, e];
 }
 
@@ -47,10 +47,10 @@ export function twoProd(a: number, b: number): DD {
 export function ddAdd(ah: number, al: number, bh: number, bl: number): DD {
   let s = ah + bh;
   let v = s - ah;
-  let e = (ah - (s - v)) + (bh - v);
+  let e = ah - (s - v) + (bh - v);
   let t = al + bl;
   v = t - al;
-  const f = (al - (t - v)) + (bl - v);
+  const f = al - (t - v) + (bl - v);
   e += t;
   t = s + e;
   e = e - (t - s);

@@ -41,11 +41,12 @@ export function durbinWatsonExactP(dw: number, q1: Float64Array, n: number, k: n
     }
   }
   const cm = new Float64Array(k * k);
-  for (let c = 0; c < k; c++) for (let d = 0; d < k; d++) {
-    let s = 0;
-    for (let t = 0; t < n; t++) s += q1[c * n + t] * b[d * n + t];
-    cm[d * k + c] = s;
-  }
+  for (let c = 0; c < k; c++)
+    for (let d = 0; d < k; d++) {
+      let s = 0;
+      for (let t = 0; t < n; t++) s += q1[c * n + t] * b[d * n + t];
+      cm[d * k + c] = s;
+    }
   // M A M = A − Q Bᵀ − B Qᵀ + Q C Qᵀ (lower triangle suffices)
   const mam = new Float64Array(n * n);
   for (let j = 0; j < n; j++) {
@@ -60,7 +61,9 @@ export function durbinWatsonExactP(dw: number, q1: Float64Array, n: number, k: n
       mam[j * n + i] = v;
     }
   }
-  const ev = symmetricEigenvalues(mam, n).slice(k).filter((v) => v > 1e-10);
+  const ev = symmetricEigenvalues(mam, n)
+    .slice(k)
+    .filter((v) => v > 1e-10);
   const mu = ev.map((v) => v - dw).filter((v) => Math.abs(v) > 1e-14);
   const m = mu.length;
   if (m === 0) return null;
@@ -68,7 +71,8 @@ export function durbinWatsonExactP(dw: number, q1: Float64Array, n: number, k: n
   if (mu.every((v) => v < 0)) return 1;
   const integrand = (u: number): number => {
     if (u === 0) return 0.5 * mu.reduce((s, v) => s + v, 0);
-    let theta = 0, logRho = 0;
+    let theta = 0,
+      logRho = 0;
     for (let i = 0; i < m; i++) {
       const a = mu[i] * u;
       theta += Math.atan(a);
@@ -86,18 +90,24 @@ export function durbinWatsonExactP(dw: number, q1: Float64Array, n: number, k: n
   return Math.min(1, Math.max(0, p));
 }
 
-const XK = [0.991455371120812639, 0.949107912342758525, 0.864864423359769073, 0.741531185599394440,
-  0.586087235467691130, 0.405845151377397167, 0.207784955007898468, 0];
-const WK = [0.022935322010529225, 0.063092092629978553, 0.104790010322250184, 0.140653259715525919,
-  0.169004726639267903, 0.190350578064785410, 0.204432940075298892, 0.209482141084727828];
+const XK = [
+  0.991455371120812639, 0.949107912342758525, 0.864864423359769073, 0.74153118559939444, 0.58608723546769113,
+  0.405845151377397167, 0.207784955007898468, 0,
+];
+const WK = [
+  0.022935322010529225, 0.063092092629978553, 0.104790010322250184, 0.140653259715525919, 0.169004726639267903,
+  0.19035057806478541, 0.204432940075298892, 0.209482141084727828,
+];
 const WG = [0.129484966168869693, 0.279705391489276668, 0.381830050505118945, 0.417959183673469388];
 
 /** Adaptive Gauss–Kronrod 7/15 quadrature (global bisection of the worst interval). */
 function adaptiveKronrod(f: (x: number) => number, a: number, b: number, tol: number, maxDepth: number): number {
   const rule = (lo: number, hi: number): [number, number] => {
-    const c = 0.5 * (lo + hi), h = 0.5 * (hi - lo);
+    const c = 0.5 * (lo + hi),
+      h = 0.5 * (hi - lo);
     const fc = f(c);
-    let k = WK[7] * fc, g = WG[3] * fc;
+    let k = WK[7] * fc,
+      g = WG[3] * fc;
     for (let j = 0; j < 7; j++) {
       const dx = h * XK[j];
       const s = f(c - dx) + f(c + dx);

@@ -19,9 +19,14 @@ import { take, type Workspace } from './workspace';
  * Example: residuals (1, −1, 1, −1, …) alternate, so DW ≈ 4 and the p-value is ≈ 1.
  */
 export function durbinWatson(
-  e: ArrayLike<number>, q1: Float64Array, n: number, k: number, ws?: Workspace,
+  e: ArrayLike<number>,
+  q1: Float64Array,
+  n: number,
+  k: number,
+  ws?: Workspace,
 ): { statistic: number; pValue: number | null; mean: number | null; variance: number | null; method: string } {
-  let num = 0, den = 0;
+  let num = 0,
+    den = 0;
   for (let t = 0; t < n; t++) {
     den += e[t] * e[t];
     if (t > 0) num += (e[t] - e[t - 1]) * (e[t] - e[t - 1]);
@@ -42,12 +47,17 @@ export function durbinWatson(
     }
   }
   // Q₁ᵀAQ₁ is symmetric: its trace and squared Frobenius norm from the upper triangle
-  let trQAQ = 0, trQA2Q = 0, trSq = 0;
+  let trQAQ = 0,
+    trQA2Q = 0,
+    trSq = 0;
   for (let c = 0; c < k; c++) {
     for (let d = c; d < k; d++) {
       let s = 0;
       for (let t = 0; t < n; t++) s += q1[c * n + t] * b[d * n + t];
-      if (c === d) { trQAQ += s; trSq += s * s; } else trSq += 2 * s * s;
+      if (c === d) {
+        trQAQ += s;
+        trSq += s * s;
+      } else trSq += 2 * s * s;
     }
     for (let t = 0; t < n; t++) trQA2Q += b[c * n + t] * b[c * n + t];
   }

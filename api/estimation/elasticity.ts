@@ -29,7 +29,16 @@ export function elasticityNow(input: {
   fittedNow: number;
   critical: number;
 }): ElasticityResult {
-  const { transform, coefficients: b, covariance: V, slopeTerms: m, xNow: x, designRowNow: d, fittedNow, critical } = input;
+  const {
+    transform,
+    coefficients: b,
+    covariance: V,
+    slopeTerms: m,
+    xNow: x,
+    designRowNow: d,
+    fittedNow,
+    critical,
+  } = input;
   const k = b.length;
   const a = [1, 2 * x, 3 * x * x].slice(0, m);
   let s = 0;
@@ -41,16 +50,32 @@ export function elasticityNow(input: {
     for (let i = 0; i < m; i++) g[i + 1] = a[i];
   } else {
     if (fittedNow === 0 || !Number.isFinite(fittedNow)) {
-      return { xNow: x, value: null, se: null, lo: null, hi: null, form: transform, reason: 'fitted value in the latest year is zero' };
+      return {
+        xNow: x,
+        value: null,
+        se: null,
+        lo: null,
+        hi: null,
+        form: transform,
+        reason: 'fitted value in the latest year is zero',
+      };
     }
     value = (s * x) / fittedNow;
-    for (let j = 0; j < k; j++) g[j] = -(s * x) / (fittedNow * fittedNow) * d[j];
+    for (let j = 0; j < k; j++) g[j] = (-(s * x) / (fittedNow * fittedNow)) * d[j];
     for (let i = 0; i < m; i++) g[i + 1] += (x / fittedNow) * a[i];
   }
   let v = 0;
   for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) v += g[i] * V[i][j] * g[j];
   if (!(v >= 0) || !Number.isFinite(v) || !Number.isFinite(value)) {
-    return { xNow: x, value: Number.isFinite(value) ? value : null, se: null, lo: null, hi: null, form: transform, reason: 'variance not available' };
+    return {
+      xNow: x,
+      value: Number.isFinite(value) ? value : null,
+      se: null,
+      lo: null,
+      hi: null,
+      form: transform,
+      reason: 'variance not available',
+    };
   }
   const se = Math.sqrt(v);
   return { xNow: x, value, se, lo: value - critical * se, hi: value + critical * se, form: transform, reason: null };

@@ -25,9 +25,7 @@ import type { FiellerSet } from './types';
 /** Relative tolerance on A below which the Fieller set is read as one ray (see above). */
 export const A_TOLERANCE = 1e-12;
 
-export function fiellerInterval(
-  b1: number, b2: number, v11: number, v12: number, v22: number, c: number,
-): FiellerSet {
+export function fiellerInterval(b1: number, b2: number, v11: number, v12: number, v22: number, c: number): FiellerSet {
   const c2 = c * c;
   const A = 4 * b2 * b2 - 4 * c2 * v22;
   const B = 4 * b1 * b2 - 4 * c2 * v12;
@@ -47,14 +45,33 @@ export function fiellerInterval(
   if (A > 0) {
     const d = Math.sqrt(Math.max(D, 0));
     const q = -0.5 * (B + (B >= 0 ? d : -d));
-    let r1 = q / A, r2 = q !== 0 ? C / q : r1;
-    if (r1 > r2) { const t = r1; r1 = r2; r2 = t; }
+    let r1 = q / A,
+      r2 = q !== 0 ? C / q : r1;
+    if (r1 > r2) {
+      const t = r1;
+      r1 = r2;
+      r2 = t;
+    }
     return { kind: 'bounded', lo: r1, hi: r2, pieces: [{ lo: r1, hi: r2 }], ...base };
   }
   if (D <= 0) return whole;
   const d = Math.sqrt(D);
   const q = -0.5 * (B + (B >= 0 ? d : -d));
-  let r1 = q / A, r2 = C / q;
-  if (r1 > r2) { const t = r1; r1 = r2; r2 = t; }
-  return { kind: 'two_rays', lo: r1, hi: r2, pieces: [{ lo: null, hi: r1 }, { lo: r2, hi: null }], ...base };
+  let r1 = q / A,
+    r2 = C / q;
+  if (r1 > r2) {
+    const t = r1;
+    r1 = r2;
+    r2 = t;
+  }
+  return {
+    kind: 'two_rays',
+    lo: r1,
+    hi: r2,
+    pieces: [
+      { lo: null, hi: r1 },
+      { lo: r2, hi: null },
+    ],
+    ...base,
+  };
 }

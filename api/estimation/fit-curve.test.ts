@@ -3,7 +3,10 @@ import { EstimationInputError, fitCurve, ols, type CurveFit, type CurveRow, type
 // Synthetic districts with known structure; expected values follow from the model's
 // definition (an exact curve, the same fit by ols, or the DOMAIN.md conventions).
 
-function district(n: number, opts: { tp?: number; b2?: number; start?: number; growth?: number; noise?: number; cubic?: number } = {}): CurveRow[] {
+function district(
+  n: number,
+  opts: { tp?: number; b2?: number; start?: number; growth?: number; noise?: number; cubic?: number } = {},
+): CurveRow[] {
   const { tp = 10, b2 = -0.5, start = 9, growth = 0.05, noise = 0.01, cubic = 0 } = opts;
   const rows: CurveRow[] = [];
   for (let t = 0; t < n; t++) {
@@ -15,9 +18,17 @@ function district(n: number, opts: { tp?: number; b2?: number; start?: number; g
   return rows;
 }
 const M = { form: 'quadratic', transform: 'log', covariance: 'newey_west' } as const;
-const ok = (r: FitCurveResult): CurveFit => { if (r.status !== 'ok') throw new Error(r.reason.message); return r; };
+const ok = (r: FitCurveResult): CurveFit => {
+  if (r.status !== 'ok') throw new Error(r.reason.message);
+  return r;
+};
 const errorOf = (f: () => unknown): EstimationInputError => {
-  try { f(); } catch (e) { if (e instanceof EstimationInputError) return e; throw e; }
+  try {
+    f();
+  } catch (e) {
+    if (e instanceof EstimationInputError) return e;
+    throw e;
+  }
   throw new Error('expected an EstimationInputError');
 };
 
@@ -27,7 +38,11 @@ describe('fitCurve', () => {
     const f = ok(fitCurve(rows, M));
     expect(f.terms).toEqual(['const', 'x', 'x2', 'density']);
     const X = rows.map((r) => [1, Math.log(r.x), Math.log(r.x) ** 2, Math.log(r.controls!.density)]);
-    const o = ols(X, rows.map((r) => Math.log(r.y)), { covariance: 'newey_west' });
+    const o = ols(
+      X,
+      rows.map((r) => Math.log(r.y)),
+      { covariance: 'newey_west' },
+    );
     f.coefficients.forEach((b, j) => expect(b).toBeCloseTo(o.coefficients[j], 12));
     f.standardErrors.forEach((s, j) => expect(s).toBeCloseTo(o.standardErrors[j], 12));
     expect(f.turningPoints[0].x).toBeCloseTo(10, 2); // the curve's true peak (ln scale)
@@ -39,7 +54,8 @@ describe('fitCurve', () => {
   test('row order does not matter: unsorted rows give the same fit, residuals by year in year order', () => {
     const rows = district(25);
     const shuffled = [...rows].reverse();
-    const a = ok(fitCurve(rows, M)), b = ok(fitCurve(shuffled, M));
+    const a = ok(fitCurve(rows, M)),
+      b = ok(fitCurve(shuffled, M));
     expect(b.coefficients).toEqual(a.coefficients);
     expect(b.diagnostics!.residualsByYear.map((r) => r.year)).toEqual(rows.map((r) => r.year));
   });
@@ -85,30 +101,77 @@ describe('fitCurve', () => {
 
   test('bad rows are errors naming the row: non-finite, ≤ 0 under logs, duplicate year, missing control', () => {
     const rows = district(20);
-    let e = errorOf(() => fitCurve(rows.map((r, i) => (i === 4 ? { ...r, y: NaN } : r)), M));
+    let e = errorOf(() =>
+      fitCurve(
+        rows.map((r, i) => (i === 4 ? { ...r, y: NaN } : r)),
+        M,
+      ),
+    );
     expect([e.code, e.details.row, e.details.year, e.details.column]).toEqual(['non_finite_value', 4, 1994, 'y']);
-    e = errorOf(() => fitCurve(rows.map((r, i) => (i === 7 ? { ...r, x: 0 } : r)), M));
+    e = errorOf(() =>
+      fitCurve(
+        rows.map((r, i) => (i === 7 ? { ...r, x: 0 } : r)),
+        M,
+      ),
+    );
     expect([e.code, e.details.row, e.details.column, e.details.value]).toEqual(['non_positive_under_log', 7, 'x', 0]);
-    e = errorOf(() => fitCurve(rows.map((r, i) => (i === 3 ? { ...r, controls: { density: -1 } } : r)), M));
+    e = errorOf(() =>
+      fitCurve(
+        rows.map((r, i) => (i === 3 ? { ...r, controls: { density: -1 } } : r)),
+        M,
+      ),
+    );
     expect([e.code, e.details.row, e.details.column]).toEqual(['non_positive_under_log', 3, 'density']);
-    e = errorOf(() => fitCurve(rows.map((r, i) => (i === 9 ? { ...r, year: 1991 } : r)), M));
+    e = errorOf(() =>
+      fitCurve(
+        rows.map((r, i) => (i === 9 ? { ...r, year: 1991 } : r)),
+        M,
+      ),
+    );
     expect([e.code, e.details.row, e.details.firstRow, e.details.year]).toEqual(['duplicate_year', 9, 1, 1991]);
-    e = errorOf(() => fitCurve(rows.map((r, i) => (i === 5 ? { year: r.year, y: r.y, x: r.x } : r)), M));
+    e = errorOf(() =>
+      fitCurve(
+        rows.map((r, i) => (i === 5 ? { year: r.year, y: r.y, x: r.x } : r)),
+        M,
+      ),
+    );
     expect([e.code, e.details.row, e.details.column]).toEqual(['missing_control', 5, 'density']);
-    e = errorOf(() => fitCurve(rows.map((r, i) => (i === 2 ? { ...r, year: 1992.5 } : r)), M));
+    e = errorOf(() =>
+      fitCurve(
+        rows.map((r, i) => (i === 2 ? { ...r, year: 1992.5 } : r)),
+        M,
+      ),
+    );
     expect([e.code, e.details.row, e.details.column]).toEqual(['invalid_argument', 2, 'year']);
     // the level form accepts zero and negative values
-    expect(fitCurve(rows.map((r, i) => (i === 7 ? { ...r, y: -1 } : r)), { ...M, transform: 'level' }).status).toBe('ok');
+    expect(
+      fitCurve(
+        rows.map((r, i) => (i === 7 ? { ...r, y: -1 } : r)),
+        { ...M, transform: 'level' },
+      ).status,
+    ).toBe('ok');
   });
 
   test('levelControls keeps a control in levels under the log transform; controls selects and orders', () => {
-    const rows = district(25).map((r, i) => ({ ...r, controls: { density: r.controls!.density, share: 0.2 + 0.01 * i + 0.02 * Math.sin(i) } }));
+    const rows = district(25).map((r, i) => ({
+      ...r,
+      controls: { density: r.controls!.density, share: 0.2 + 0.01 * i + 0.02 * Math.sin(i) },
+    }));
     const f = ok(fitCurve(rows, { ...M, levelControls: ['share'] }));
     expect(f.terms).toEqual(['const', 'x', 'x2', 'density', 'share']);
     const X = rows.map((r) => [1, Math.log(r.x), Math.log(r.x) ** 2, Math.log(r.controls.density), r.controls.share]);
-    const o = ols(X, rows.map((r) => Math.log(r.y)));
+    const o = ols(
+      X,
+      rows.map((r) => Math.log(r.y)),
+    );
     f.coefficients.forEach((b, j) => expect(b).toBeCloseTo(o.coefficients[j], 10));
-    expect(ok(fitCurve(rows, { ...M, controls: ['share', 'density'] })).terms).toEqual(['const', 'x', 'x2', 'share', 'density']);
+    expect(ok(fitCurve(rows, { ...M, controls: ['share', 'density'] })).terms).toEqual([
+      'const',
+      'x',
+      'x2',
+      'share',
+      'density',
+    ]);
     expect(errorOf(() => fitCurve(rows, { ...M, levelControls: ['nope'] })).code).toBe('invalid_argument');
   });
 
@@ -135,8 +198,9 @@ describe('fitCurve', () => {
     const [, b1, b2] = f.coefficients;
     expect(f.turningPoints[0].x).toBeCloseTo(-b1 / (2 * b2), 12);
     expect(f.turningPoints[0].level).toBe(f.turningPoints[0].x);
-    const X = 39, yhat = f.fitted[29];
-    expect(f.elasticity.value).toBeCloseTo((b1 + 2 * b2 * X) * X / yhat, 12);
+    const X = 39,
+      yhat = f.fitted[29];
+    expect(f.elasticity.value).toBeCloseTo(((b1 + 2 * b2 * X) * X) / yhat, 12);
     expect(f.elasticity.se).toBeGreaterThan(0);
     expect(f.trend.slopePerYear).toBeCloseTo((Math.log(39) - Math.log(30)) / 9, 2); // ln driver on year over 2020–2029
   });
@@ -165,7 +229,11 @@ describe('fitCurve', () => {
 
 describe('exact Durbin–Watson p-value on request', () => {
   test('null by default, a probability when asked; agrees with the approximation to a few hundredths', () => {
-    const rows = Array.from({ length: 30 }, (_, t) => ({ year: 2000 + t, y: Math.exp(1 + 0.1 * t + 0.05 * Math.sin(t * 1.3) + 0.03 * Math.cos(t * 0.4)), x: Math.exp(9 + 0.05 * t + 0.01 * Math.sin(2 * t)) }));
+    const rows = Array.from({ length: 30 }, (_, t) => ({
+      year: 2000 + t,
+      y: Math.exp(1 + 0.1 * t + 0.05 * Math.sin(t * 1.3) + 0.03 * Math.cos(t * 0.4)),
+      x: Math.exp(9 + 0.05 * t + 0.01 * Math.sin(2 * t)),
+    }));
     const spec = { form: 'quadratic', transform: 'log', covariance: 'hc1' } as const;
     const a = fitCurve(rows, spec) as CurveFit;
     expect(a.diagnostics!.durbinWatson.pValueExact).toBeNull();

@@ -48,10 +48,18 @@ import { acquireWorkspace, releaseWorkspace, take, toArray, type Workspace } fro
  *   //     turningPoints: [{ x: 9.7755…, level: 17597.7…, kind: 'peak', … }], shape: { shape: 'inverted_u', … },
  *   //     standing: { standing: 'past_turn', … }, gap: { percent: 126.73… }, … }
  */
-export function fitCurve(rows: ReadonlyArray<CurveRow>, model: ModelSpecInput | ModelSpec, options: FitCurveOptions = {}): FitCurveResult {
+export function fitCurve(
+  rows: ReadonlyArray<CurveRow>,
+  model: ModelSpecInput | ModelSpec,
+  options: FitCurveOptions = {},
+): FitCurveResult {
   const spec = parseModelSpec(model);
   if (spec.covariance === 'cluster') {
-    throw new EstimationInputError('invalid_argument', "Covariance 'cluster' is for the pooled panel (fitPanel); choose classical, hc1, hc3 or newey_west for one district", { reason: 'covariance' });
+    throw new EstimationInputError(
+      'invalid_argument',
+      "Covariance 'cluster' is for the pooled panel (fitPanel); choose classical, hc1, hc3 or newey_west for one district",
+      { reason: 'covariance' },
+    );
   }
   const n0 = Array.isArray(rows) ? rows.length : 0;
   const nc0 = spec.controls ? spec.controls.length : 4;
@@ -63,7 +71,12 @@ export function fitCurve(rows: ReadonlyArray<CurveRow>, model: ModelSpecInput | 
   }
 }
 
-function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: FitCurveOptions, ws: Workspace): FitCurveResult {
+function fitCurveWith(
+  rows: ReadonlyArray<CurveRow>,
+  spec: ModelSpec,
+  options: FitCurveOptions,
+  ws: Workspace,
+): FitCurveResult {
   const data = prepareRows(rows, spec, false, ws);
   const m = spec.form === 'cubic' ? 3 : 2;
   const terms = m === 3 ? ['const', 'x', 'x2', 'x3'] : ['const', 'x', 'x2'];
@@ -72,7 +85,15 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
   const n = data.n;
   const minYears = spec.minYears ?? k + 5;
   if (n < minYears || n <= k) {
-    return notEstimable(spec, n, k, minYears, 'too_few_rows', `${n} rows; the model needs at least ${Math.max(minYears, k + 1)}`, { n, k, minYears });
+    return notEstimable(
+      spec,
+      n,
+      k,
+      minYears,
+      'too_few_rows',
+      `${n} rows; the model needs at least ${Math.max(minYears, k + 1)}`,
+      { n, k, minYears },
+    );
   }
   const design = take(ws, n * k);
   const x = data.x;
@@ -86,7 +107,12 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
   for (let c = 0; c < data.controls.length; c++) design.set(data.controls[c], (1 + m + c) * n);
   let fit;
   try {
-    fit = fitLeastSquares({ nRows: n, nCols: k, data: design }, data.y, { covariance: spec.covariance, lag: spec.lag, names: terms }, ws);
+    fit = fitLeastSquares(
+      { nRows: n, nCols: k, data: design },
+      data.y,
+      { covariance: spec.covariance, lag: spec.lag, names: terms },
+      ws,
+    );
   } catch (err) {
     if (err instanceof EstimationInputError && (err.code === 'rank_deficient' || err.code === 'covariance_undefined')) {
       return notEstimable(spec, n, k, minYears, err.code, err.message, err.details);
@@ -94,7 +120,10 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
     throw err;
   }
   const { result, core } = fit;
-  let xMin = Infinity, xMax = -Infinity, levelMin = Infinity, levelMax = -Infinity;
+  let xMin = Infinity,
+    xMax = -Infinity,
+    levelMin = Infinity,
+    levelMax = -Infinity;
   for (let i = 0; i < n; i++) {
     if (x[i] < xMin) xMin = x[i];
     if (x[i] > xMax) xMax = x[i];
@@ -110,34 +139,69 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
   try {
     if (m === 3 && xMax > xMin) {
       centred = centredCubicInference({
-        x, controls: data.controls, y: data.y, n, rawSlope: [result.coefficients[1], result.coefficients[2], result.coefficients[3]],
-        xMin, xMax, xNow: x[n - 1], df: result.df, spec, options: { covariance: spec.covariance, lag: spec.lag },
+        x,
+        controls: data.controls,
+        y: data.y,
+        n,
+        rawSlope: [result.coefficients[1], result.coefficients[2], result.coefficients[3]],
+        xMin,
+        xMax,
+        xNow: x[n - 1],
+        df: result.df,
+        spec,
+        options: { covariance: spec.covariance, lag: spec.lag },
       });
       inf = centred.inference;
     } else {
       inf = curveInference({
-        coefficients: result.coefficients, covariance: result.covariance, slopeStart: 1, slopeTerms: m, xMin, xMax, df: result.df, spec,
+        coefficients: result.coefficients,
+        covariance: result.covariance,
+        slopeStart: 1,
+        slopeTerms: m,
+        xMin,
+        xMax,
+        df: result.df,
+        spec,
       });
     }
   } catch (err) {
     // numerical_failure from a cubic set; rank_deficient / covariance_undefined only if the
     // centred refit of a cubic disagrees with the raw one at the rounding margin
-    if (err instanceof EstimationInputError && (err.code === 'numerical_failure' || err.code === 'rank_deficient' || err.code === 'covariance_undefined')) {
+    if (
+      err instanceof EstimationInputError &&
+      (err.code === 'numerical_failure' || err.code === 'rank_deficient' || err.code === 'covariance_undefined')
+    ) {
       return notEstimable(spec, n, k, minYears, err.code, err.message, err.details);
     }
     throw err;
   }
   const standing = districtStanding({
-    shape: inf.shape.shape, turningPoints: inf.turningPoints, xNow, levelNow, method: spec.intervalMethod, level: spec.level,
+    shape: inf.shape.shape,
+    turningPoints: inf.turningPoints,
+    xNow,
+    levelNow,
+    method: spec.intervalMethod,
+    level: spec.level,
   });
   const tp = standing.turningPointIndex === null ? null : inf.turningPoints[standing.turningPointIndex];
-  const gap = tp ? thresholdGap(levelNow, tp.level, tp.extrapolated) : { percent: null, extrapolated: false, reason: 'no turning point' };
+  const gap = tp
+    ? thresholdGap(levelNow, tp.level, tp.extrapolated)
+    : { percent: null, extrapolated: false, reason: 'no turning point' };
   const designRowNow = new Array<number>(k);
   for (let c = 0; c < k; c++) designRowNow[c] = design[c * n + last];
-  const elasticity = centred && spec.transform === 'log' ? centred.logElasticity(inf.critical.value) : elasticityNow({
-    transform: spec.transform, coefficients: result.coefficients, covariance: result.covariance, slopeTerms: m, xNow,
-    designRowNow, fittedNow: result.fitted[last], critical: inf.critical.value,
-  });
+  const elasticity =
+    centred && spec.transform === 'log'
+      ? centred.logElasticity(inf.critical.value)
+      : elasticityNow({
+          transform: spec.transform,
+          coefficients: result.coefficients,
+          covariance: result.covariance,
+          slopeTerms: m,
+          xNow,
+          designRowNow,
+          fittedNow: result.fitted[last],
+          critical: inf.critical.value,
+        });
   const trend = incomeTrend(data.years, data.xRaw, spec.trendYears);
   const log = spec.transform === 'log';
   const bounded = tp !== null && standing.intervalBounded === true && standing.interval !== null;
@@ -150,8 +214,19 @@ function fitCurveWith(rows: ReadonlyArray<CurveRow>, spec: ModelSpec, options: F
     lastYear,
     extrapolated: tp ? tp.extrapolated : false,
   });
-  const diagnostics = options.diagnostics === false ? null
-    : curveDiagnostics(core.residuals, core.q1, result.leverage, data.years, n, k, ws, options.exactDurbinWatson === true);
+  const diagnostics =
+    options.diagnostics === false
+      ? null
+      : curveDiagnostics(
+          core.residuals,
+          core.q1,
+          result.leverage,
+          data.years,
+          n,
+          k,
+          ws,
+          options.exactDurbinWatson === true,
+        );
   return {
     status: 'ok',
     model: spec,
@@ -200,8 +275,21 @@ function lnOf(v: number | null, log: boolean): number | null {
 }
 
 function notEstimable(
-  spec: ModelSpec, n: number, k: number, minYears: number,
-  code: CurveNotEstimable['reason']['code'], message: string, details: Record<string, unknown>,
+  spec: ModelSpec,
+  n: number,
+  k: number,
+  minYears: number,
+  code: CurveNotEstimable['reason']['code'],
+  message: string,
+  details: Record<string, unknown>,
 ): CurveNotEstimable {
-  return { status: 'not_estimable', model: spec, n, k, minYears, reason: { code, message, details }, standing: { standing: 'not_estimable' } };
+  return {
+    status: 'not_estimable',
+    model: spec,
+    n,
+    k,
+    minYears,
+    reason: { code, message, details },
+    standing: { standing: 'not_estimable' },
+  };
 }

@@ -26,7 +26,10 @@ const UNIT_ROUNDOFF = 2 ** -53;
  * A small κ with a large residual (R² near 0) can still lose digits through the κ² term.
  * The refinement that follows a high estimate (improveOrRefit) removes that term.
  */
-export function forwardErrorEstimate(core: Pick<LeastSquaresCore, 'k' | 'perm' | 'columnNorms' | 'coefficients' | 'residuals' | 'n'>, kappa: number): number {
+export function forwardErrorEstimate(
+  core: Pick<LeastSquaresCore, 'k' | 'perm' | 'columnNorms' | 'coefficients' | 'residuals' | 'n'>,
+  kappa: number,
+): number {
   const { n, residuals } = core;
   const { norm, amplification } = scaledCoefficients(core);
   let nr = 0;
@@ -43,10 +46,16 @@ export function forwardErrorEstimate(core: Pick<LeastSquaresCore, 'k' | 'perm' |
  * degree-5 polynomial in x = 1…21 whose coefficients are all 1) passes the normwise test
  * while its smallest coefficient keeps under 10 digits.
  */
-function scaledCoefficients(core: Pick<LeastSquaresCore, 'k' | 'perm' | 'columnNorms' | 'coefficients'>): { norm: number; amplification: number } {
+function scaledCoefficients(core: Pick<LeastSquaresCore, 'k' | 'perm' | 'columnNorms' | 'coefficients'>): {
+  norm: number;
+  amplification: number;
+} {
   const { k, perm, columnNorms, coefficients } = core;
   let nb = 0;
-  for (let j = 0; j < k; j++) { const v = columnNorms[j] * coefficients[perm[j]]; nb += v * v; }
+  for (let j = 0; j < k; j++) {
+    const v = columnNorms[j] * coefficients[perm[j]];
+    nb += v * v;
+  }
   const norm = Math.sqrt(nb);
   let smallest = norm;
   for (let j = 0; j < k; j++) {
@@ -87,21 +96,31 @@ const SMALLEST_SHARE = 1e-8;
  *   Float64Array.from([1, 2, 4])).result.coefficients   // → [-0.6666666666666667, 1.5]
  */
 export function fitLeastSquares(
-  X: DesignMatrix, y: Float64Array, options: OlsOptions = {}, ws?: Workspace,
+  X: DesignMatrix,
+  y: Float64Array,
+  options: OlsOptions = {},
+  ws?: Workspace,
 ): { result: OlsResult; core: LeastSquaresCore } {
   const { nRows: n, nCols: k, data, dataLo } = X;
   const names = options.names ? [...options.names] : Array.from({ length: k }, (_, j) => `x${j}`);
   if (names.length !== k) {
-    throw new EstimationInputError('invalid_argument', `Got ${names.length} column names for ${k} columns`, { reason: 'names' });
+    throw new EstimationInputError('invalid_argument', `Got ${names.length} column names for ${k} columns`, {
+      reason: 'names',
+    });
   }
   if (!(n > k)) {
-    throw new EstimationInputError('invalid_argument', `OLS needs more rows than columns (n = ${n}, k = ${k})`, { reason: 'too_few_rows', n, k });
+    throw new EstimationInputError('invalid_argument', `OLS needs more rows than columns (n = ${n}, k = ${k})`, {
+      reason: 'too_few_rows',
+      n,
+      k,
+    });
   }
   const tol = options.rankTolerance ?? DEFAULT_RANK_TOLERANCE;
   const precision = options.precision ?? 'auto';
-  let core = precision === 'double-double'
-    ? leastSquaresDoubleDouble(data, y, n, k, tol, dataLo)
-    : leastSquaresDouble(data, y, n, k, tol, 3, dataLo, ws);
+  let core =
+    precision === 'double-double'
+      ? leastSquaresDoubleDouble(data, y, n, k, tol, dataLo)
+      : leastSquaresDouble(data, y, n, k, tol, 3, dataLo, ws);
   if (core.rank < k) throw rankError(core, names);
   let cond = conditionEstimates(core);
   if (precision === 'auto' && !(forwardErrorEstimate(core, cond.scaled) <= FORWARD_ERROR_THRESHOLD)) {
@@ -150,10 +169,31 @@ export function fitLeastSquares(
   const fitted = new Array<number>(n);
   for (let i = 0; i < n; i++) fitted[i] = y[i] - e[i];
   const result: OlsResult = {
-    names, coefficients, standardErrors, tStatistics, pValues, covariance, covarianceInfo: info,
-    residuals: toArray(e), fitted, leverage: toArray(leverage), n, k, df, rank: core.rank, rss, tss,
-    rSquared, adjRSquared, residualStandardError: Math.sqrt(rss / df),
-    condition: { estimate: cond.raw, scaledEstimate: cond.scaled, precision: core.precision, refinementSteps: core.refinementSteps },
+    names,
+    coefficients,
+    standardErrors,
+    tStatistics,
+    pValues,
+    covariance,
+    covarianceInfo: info,
+    residuals: toArray(e),
+    fitted,
+    leverage: toArray(leverage),
+    n,
+    k,
+    df,
+    rank: core.rank,
+    rss,
+    tss,
+    rSquared,
+    adjRSquared,
+    residualStandardError: Math.sqrt(rss / df),
+    condition: {
+      estimate: cond.raw,
+      scaledEstimate: cond.scaled,
+      precision: core.precision,
+      refinementSteps: core.refinementSteps,
+    },
   };
   return { result, core };
 }
@@ -165,7 +205,14 @@ export function fitLeastSquares(
  * and the refinement contracts (u·κ² < 0.1); otherwise refit in double-double.
  */
 function improveOrRefit(
-  core: LeastSquaresCore, kappa: number, data: Float64Array, y: Float64Array, n: number, k: number, tol: number, dataLo?: Float64Array,
+  core: LeastSquaresCore,
+  kappa: number,
+  data: Float64Array,
+  y: Float64Array,
+  n: number,
+  k: number,
+  tol: number,
+  dataLo?: Float64Array,
 ): LeastSquaresCore {
   if (UNIT_ROUNDOFF * kappa * kappa < 0.1) {
     const saved = Float64Array.from(core.coefficients);
@@ -217,7 +264,9 @@ function rankError(core: LeastSquaresCore, names: string[]): EstimationInputErro
     dependsOn[name] = on;
     parts.push(`column '${name}' is a linear combination of ${on.map((s) => `'${s}'`).join(', ')}`);
   }
-  return new EstimationInputError('rank_deficient',
+  return new EstimationInputError(
+    'rank_deficient',
     `Design matrix is rank deficient (rank ${rank} of ${k}): ${parts.join('; ')}`,
-    { rank, k, dependent, dependsOn });
+    { rank, k, dependent, dependsOn },
+  );
 }

@@ -5,12 +5,13 @@ import { EstimationInputError, fitPanel, fixedEffectsRank, ols, twoWayWithin, ty
 
 function panel(G: number, T: number, drop: (g: number, t: number) => boolean = () => false): PanelRow[] {
   const rows: PanelRow[] = [];
-  for (let g = 0; g < G; g++) for (let t = 0; t < T; t++) {
-    if (drop(g, t)) continue;
-    const lx = 9 + 0.04 * t + 0.3 * g / G + 0.05 * Math.sin(g * 3 + t);
-    const ly = 0.2 * g + 0.01 * t + 6 * lx - 0.3 * lx * lx + 0.02 * Math.cos(5 * g + 7 * t);
-    rows.push({ district: `D${g}`, year: 2000 + t, y: Math.exp(ly), x: Math.exp(lx) });
-  }
+  for (let g = 0; g < G; g++)
+    for (let t = 0; t < T; t++) {
+      if (drop(g, t)) continue;
+      const lx = 9 + 0.04 * t + (0.3 * g) / G + 0.05 * Math.sin(g * 3 + t);
+      const ly = 0.2 * g + 0.01 * t + 6 * lx - 0.3 * lx * lx + 0.02 * Math.cos(5 * g + 7 * t);
+      rows.push({ district: `D${g}`, year: 2000 + t, y: Math.exp(ly), x: Math.exp(lx) });
+    }
   return rows;
 }
 const M = { form: 'quadratic', transform: 'log', covariance: 'cluster' } as const;
@@ -22,9 +23,19 @@ describe('fitPanel', () => {
     if (f.status !== 'ok') throw new Error(f.reason.message);
     expect(f.balanced).toBe(false);
     expect(f.absorption.converged).toBe(true);
-    const ds = [...new Set(rows.map((r) => r.district))], ys = [...new Set(rows.map((r) => r.year))];
-    const X = rows.map((r) => [1, ...ds.slice(1).map((d) => (r.district === d ? 1 : 0)), ...ys.slice(1).map((y) => (r.year === y ? 1 : 0)), Math.log(r.x), Math.log(r.x) ** 2]);
-    const o = ols(X, rows.map((r) => Math.log(r.y)));
+    const ds = [...new Set(rows.map((r) => r.district))],
+      ys = [...new Set(rows.map((r) => r.year))];
+    const X = rows.map((r) => [
+      1,
+      ...ds.slice(1).map((d) => (r.district === d ? 1 : 0)),
+      ...ys.slice(1).map((y) => (r.year === y ? 1 : 0)),
+      Math.log(r.x),
+      Math.log(r.x) ** 2,
+    ]);
+    const o = ols(
+      X,
+      rows.map((r) => Math.log(r.y)),
+    );
     expect(f.coefficients[0]).toBeCloseTo(o.coefficients[o.k - 2], 9);
     expect(f.coefficients[1]).toBeCloseTo(o.coefficients[o.k - 1], 9);
     expect(f.dfResidual).toBe(o.df);
@@ -38,7 +49,10 @@ describe('fitPanel', () => {
     expect(fitPanel(panel(1, 20), M).status).toBe('not_estimable');
     const rows = panel(3, 10);
     rows.push({ ...rows[4] });
-    try { fitPanel(rows, M); throw new Error('no error'); } catch (e) {
+    try {
+      fitPanel(rows, M);
+      throw new Error('no error');
+    } catch (e) {
       const err = e as EstimationInputError;
       expect(err.code).toBe('duplicate_row');
       expect(err.details).toMatchObject({ row: 30, firstRow: 4, district: 'D0', year: 2004 });
@@ -54,7 +68,13 @@ describe('twoWayWithin and fixedEffectsRank', () => {
     expect(r).toEqual({ iterations: 2, converged: true, maxRelativeChange: 0 });
   });
   test('rank G + T − C: connected and disconnected designs', () => {
-    expect(fixedEffectsRank(Int32Array.from([0, 0, 1, 1]), Int32Array.from([0, 1, 0, 1]), 2, 2)).toEqual({ rank: 3, components: 1 });
-    expect(fixedEffectsRank(Int32Array.from([0, 1]), Int32Array.from([0, 1]), 2, 2)).toEqual({ rank: 2, components: 2 });
+    expect(fixedEffectsRank(Int32Array.from([0, 0, 1, 1]), Int32Array.from([0, 1, 0, 1]), 2, 2)).toEqual({
+      rank: 3,
+      components: 1,
+    });
+    expect(fixedEffectsRank(Int32Array.from([0, 1]), Int32Array.from([0, 1]), 2, 2)).toEqual({
+      rank: 2,
+      components: 2,
+    });
   });
 });

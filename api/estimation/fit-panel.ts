@@ -44,22 +44,41 @@ export function fitPanel(rows: ReadonlyArray<PanelRow>, model: ModelSpecInput | 
   const m = spec.form === 'cubic' ? 3 : 2;
   const terms = ['x', 'x2', 'x3'].slice(0, m).concat(data.controlNames);
   const k = terms.length;
-  const notEstimable = (code: PanelNotEstimable['reason']['code'], message: string, details: Record<string, unknown>): PanelNotEstimable =>
-    ({ status: 'not_estimable', model: spec, n, k, reason: { code, message, details } });
-  const unitIndex = new Map<string, number>(), periodIndex = new Map<number, number>();
-  const unit = new Int32Array(n), period = new Int32Array(n);
+  const notEstimable = (
+    code: PanelNotEstimable['reason']['code'],
+    message: string,
+    details: Record<string, unknown>,
+  ): PanelNotEstimable => ({ status: 'not_estimable', model: spec, n, k, reason: { code, message, details } });
+  const unitIndex = new Map<string, number>(),
+    periodIndex = new Map<number, number>();
+  const unit = new Int32Array(n),
+    period = new Int32Array(n);
   for (let i = 0; i < n; i++) {
     let u = unitIndex.get(data.districts[i]);
-    if (u === undefined) { u = unitIndex.size; unitIndex.set(data.districts[i], u); }
+    if (u === undefined) {
+      u = unitIndex.size;
+      unitIndex.set(data.districts[i], u);
+    }
     let p = periodIndex.get(data.years[i]);
-    if (p === undefined) { p = periodIndex.size; periodIndex.set(data.years[i], p); }
-    unit[i] = u; period[i] = p;
+    if (p === undefined) {
+      p = periodIndex.size;
+      periodIndex.set(data.years[i], p);
+    }
+    unit[i] = u;
+    period[i] = p;
   }
-  const G = unitIndex.size, T = periodIndex.size;
-  if (G < 2) return notEstimable('too_few_districts', `${G} district(s); a clustered panel needs at least 2`, { districts: G });
+  const G = unitIndex.size,
+    T = periodIndex.size;
+  if (G < 2)
+    return notEstimable('too_few_districts', `${G} district(s); a clustered panel needs at least 2`, { districts: G });
   const { rank: feRank, components } = fixedEffectsRank(unit, period, G, T);
   const dfResidual = n - k - feRank;
-  if (dfResidual < 1) return notEstimable('too_few_rows', `${n} rows cannot carry ${k} slopes and ${feRank} fixed effects`, { n, k, fixedEffects: feRank });
+  if (dfResidual < 1)
+    return notEstimable('too_few_rows', `${n} rows cannot carry ${k} slopes and ${feRank} fixed effects`, {
+      n,
+      k,
+      fixedEffects: feRank,
+    });
   const x = data.x;
   // the design is built once and within-transformed in place, column by column
   const design = new Float64Array(n * k);
@@ -75,32 +94,54 @@ export function fitPanel(rows: ReadonlyArray<PanelRow>, model: ModelSpecInput | 
   const y = data.y; // prepareRows' own array: transformed in place
   const absorption = twoWayWithin([y, ...cols], unit, period, G, T, 1e-12);
   if (!absorption.converged) {
-    return notEstimable('not_converged', `Within transformation did not converge (largest relative change ${absorption.maxRelativeChange})`, { ...absorption });
+    return notEstimable(
+      'not_converged',
+      `Within transformation did not converge (largest relative change ${absorption.maxRelativeChange})`,
+      { ...absorption },
+    );
   }
   let fit;
   try {
     fit = fitLeastSquares({ nRows: n, nCols: k, data: design }, y, {
-      names: terms, covariance: 'cluster', clusters: data.districts, clusterAdjustment: spec.clusterAdjustment,
-      clusterParameterCount: k, centeredRSquared: false,
+      names: terms,
+      covariance: 'cluster',
+      clusters: data.districts,
+      clusterAdjustment: spec.clusterAdjustment,
+      clusterParameterCount: k,
+      centeredRSquared: false,
     });
   } catch (err) {
-    if (err instanceof EstimationInputError && err.code === 'rank_deficient') return notEstimable('rank_deficient', err.message, err.details);
+    if (err instanceof EstimationInputError && err.code === 'rank_deficient')
+      return notEstimable('rank_deficient', err.message, err.details);
     throw err;
   }
   const r = fit.result;
   const dfInf = spec.criticalValue === 'normal' ? null : G - 1;
-  let xMin = Infinity, xMax = -Infinity, levelMin = Infinity, levelMax = -Infinity;
+  let xMin = Infinity,
+    xMax = -Infinity,
+    levelMin = Infinity,
+    levelMax = -Infinity;
   for (let i = 0; i < n; i++) {
-    xMin = Math.min(xMin, x[i]); xMax = Math.max(xMax, x[i]);
-    levelMin = Math.min(levelMin, data.xRaw[i]); levelMax = Math.max(levelMax, data.xRaw[i]);
+    xMin = Math.min(xMin, x[i]);
+    xMax = Math.max(xMax, x[i]);
+    levelMin = Math.min(levelMin, data.xRaw[i]);
+    levelMax = Math.max(levelMax, data.xRaw[i]);
   }
   let inf;
   try {
     inf = curveInference({
-      coefficients: r.coefficients, covariance: r.covariance, slopeStart: 0, slopeTerms: m, xMin, xMax, df: G - 1, spec,
+      coefficients: r.coefficients,
+      covariance: r.covariance,
+      slopeStart: 0,
+      slopeTerms: m,
+      xMin,
+      xMax,
+      df: G - 1,
+      spec,
     });
   } catch (err) {
-    if (err instanceof EstimationInputError && err.code === 'numerical_failure') return notEstimable('numerical_failure', err.message, err.details);
+    if (err instanceof EstimationInputError && err.code === 'numerical_failure')
+      return notEstimable('numerical_failure', err.message, err.details);
     throw err;
   }
   const tStatistics = r.coefficients.map((b, j) => b / r.standardErrors[j]);
@@ -123,7 +164,13 @@ export function fitPanel(rows: ReadonlyArray<PanelRow>, model: ModelSpecInput | 
     rss: r.rss,
     rSquaredWithin: r.rSquared,
     adjRSquaredWithin: 1 - (1 - r.rSquared) * ((n - 1) / dfResidual),
-    absorption: { method: 'alternating_projections', iterations: absorption.iterations, converged: true, maxRelativeChange: absorption.maxRelativeChange, components },
+    absorption: {
+      method: 'alternating_projections',
+      iterations: absorption.iterations,
+      converged: true,
+      maxRelativeChange: absorption.maxRelativeChange,
+      components,
+    },
     range: { xMin, xMax, levelMin, levelMax },
     critical: inf.critical,
     turningPoints: inf.turningPoints,

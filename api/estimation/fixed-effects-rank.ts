@@ -13,11 +13,23 @@
  *
  * Example: units (0, 1), periods (0, 1): two separate components → fixedEffectsRank(...) = 2 + 2 − 2 = 2
  */
-export function fixedEffectsRank(unit: Int32Array, period: Int32Array, nUnits: number, nPeriods: number): { rank: number; components: number } {
+export function fixedEffectsRank(
+  unit: Int32Array,
+  period: Int32Array,
+  nUnits: number,
+  nPeriods: number,
+): { rank: number; components: number } {
   const parent = Int32Array.from({ length: nUnits + nPeriods }, (_, i) => i);
-  const find = (a: number): number => { while (parent[a] !== a) { parent[a] = parent[parent[a]]; a = parent[a]; } return a; };
+  const find = (a: number): number => {
+    while (parent[a] !== a) {
+      parent[a] = parent[parent[a]];
+      a = parent[a];
+    }
+    return a;
+  };
   for (let i = 0; i < unit.length; i++) {
-    const a = find(unit[i]), b = find(nUnits + period[i]);
+    const a = find(unit[i]),
+      b = find(nUnits + period[i]);
     if (a !== b) parent[a] = b;
   }
   let components = 0;

@@ -13,8 +13,11 @@ import type { GapResult } from './types';
  *   thresholdGap(39898.97, 17597.711464345546, false).percent   // → 126.728… (PA01)
  */
 export function thresholdGap(levelNow: number, threshold: number | null, extrapolated: boolean): GapResult {
-  if (threshold === null || !Number.isFinite(threshold)) return { percent: null, extrapolated, reason: 'no finite threshold' };
+  if (threshold === null || !Number.isFinite(threshold))
+    return { percent: null, extrapolated, reason: 'no finite threshold' };
   if (!(threshold > 0)) return { percent: null, extrapolated, reason: 'threshold is not positive' };
   const percent = 100 * (levelNow / threshold - 1);
-  return Number.isFinite(percent) ? { percent, extrapolated, reason: null } : { percent: null, extrapolated, reason: 'gap not finite' };
+  return Number.isFinite(percent)
+    ? { percent, extrapolated, reason: null }
+    : { percent: null, extrapolated, reason: 'gap not finite' };
 }

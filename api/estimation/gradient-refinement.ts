@@ -23,49 +23,79 @@ import type { LeastSquaresCore } from './types';
  * solve to ~1e-15 (fit-least-squares tests).
  */
 export function gradientRefinement(
-  x: Float64Array, y: Float64Array, n: number, k: number, core: LeastSquaresCore, xLo?: Float64Array, maxSteps = 8,
+  x: Float64Array,
+  y: Float64Array,
+  n: number,
+  k: number,
+  core: LeastSquaresCore,
+  xLo?: Float64Array,
+  maxSteps = 8,
 ): { steps: number; lastRelative: number } {
   const { perm, rinv, columnNorms } = core;
   const b = core.coefficients;
-  const rh = new Float64Array(n), rl = new Float64Array(n);
-  const w = new Float64Array(k), z = new Float64Array(k);
+  const rh = new Float64Array(n),
+    rl = new Float64Array(n);
+  const w = new Float64Array(k),
+    z = new Float64Array(k);
   const SPLIT = 134217729;
-  let previous = Infinity, last = Infinity, steps = 0;
+  let previous = Infinity,
+    last = Infinity,
+    steps = 0;
   for (let step = 0; step < maxSteps; step++) {
     for (let i = 0; i < n; i++) {
-      let s = y[i], err = 0;
+      let s = y[i],
+        err = 0;
       for (let c = 0; c < k; c++) {
-        const u = x[c * n + i], v = -b[c];
+        const u = x[c * n + i],
+          v = -b[c];
         const p = u * v;
-        let t = SPLIT * u; const uh = t - (t - u), ul = u - uh;
-        t = SPLIT * v; const vh = t - (t - v), vl = v - vh;
-        const pe = ((uh * vh - p) + uh * vl + ul * vh) + ul * vl;
-        const s2 = s + p, bb = s2 - s;
-        err += ((s - (s2 - bb)) + (p - bb)) + pe;
+        let t = SPLIT * u;
+        const uh = t - (t - u),
+          ul = u - uh;
+        t = SPLIT * v;
+        const vh = t - (t - v),
+          vl = v - vh;
+        const pe = uh * vh - p + uh * vl + ul * vh + ul * vl;
+        const s2 = s + p,
+          bb = s2 - s;
+        err += s - (s2 - bb) + (p - bb) + pe;
         s = s2;
       }
       if (xLo) for (let c = 0; c < k; c++) err -= xLo[c * n + i] * b[c];
       const hi = s + err;
-      rh[i] = hi; rl[i] = err - (hi - s);
+      rh[i] = hi;
+      rl[i] = err - (hi - s);
     }
     for (let j = 0; j < k; j++) {
       const c = perm[j];
-      let s = 0, err = 0;
+      let s = 0,
+        err = 0;
       for (let i = 0; i < n; i++) {
-        const u = x[c * n + i], v = rh[i];
+        const u = x[c * n + i],
+          v = rh[i];
         const p = u * v;
-        let t = SPLIT * u; const uh = t - (t - u), ul = u - uh;
-        t = SPLIT * v; const vh = t - (t - v), vl = v - vh;
-        const pe = ((uh * vh - p) + uh * vl + ul * vh) + ul * vl;
-        const s2 = s + p, bb = s2 - s;
-        err += ((s - (s2 - bb)) + (p - bb)) + pe + u * rl[i] + (xLo ? xLo[c * n + i] * v : 0);
+        let t = SPLIT * u;
+        const uh = t - (t - u),
+          ul = u - uh;
+        t = SPLIT * v;
+        const vh = t - (t - v),
+          vl = v - vh;
+        const pe = uh * vh - p + uh * vl + ul * vh + ul * vl;
+        const s2 = s + p,
+          bb = s2 - s;
+        err += s - (s2 - bb) + (p - bb) + pe + u * rl[i] + (xLo ? xLo[c * n + i] * v : 0);
         s = s2;
       }
       w[j] = s + err;
     }
     // z = R⁻ᵀ w, then δ = R⁻¹ z (pivot order; rinv column-major upper triangular)
-    for (let i = 0; i < k; i++) { let s = 0; for (let m = 0; m <= i; m++) s += rinv[i * k + m] * w[m]; z[i] = s; }
-    let num = 0, den = 0;
+    for (let i = 0; i < k; i++) {
+      let s = 0;
+      for (let m = 0; m <= i; m++) s += rinv[i * k + m] * w[m];
+      z[i] = s;
+    }
+    let num = 0,
+      den = 0;
     for (let j = 0; j < k; j++) {
       let d = 0;
       for (let m = j; m < k; m++) d += rinv[m * k + j] * z[m];

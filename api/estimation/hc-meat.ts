@@ -26,8 +26,13 @@ import { take, type Workspace } from './workspace';
 export const LEVERAGE_MARGIN = 1e-9;
 
 export function heteroskedasticMeat(
-  q1: Float64Array, e: ArrayLike<number>, leverage: ArrayLike<number>, n: number, k: number,
-  type: 'hc0' | 'hc1' | 'hc3', ws?: Workspace,
+  q1: Float64Array,
+  e: ArrayLike<number>,
+  leverage: ArrayLike<number>,
+  n: number,
+  k: number,
+  type: 'hc0' | 'hc1' | 'hc3',
+  ws?: Workspace,
 ): Float64Array {
   const m = take(ws, k * k);
   const hc1 = n / (n - k);
@@ -37,8 +42,11 @@ export function heteroskedasticMeat(
     else if (type === 'hc3') {
       const h = leverage[i];
       if (!(1 - h > LEVERAGE_MARGIN * k)) {
-        throw new EstimationInputError('covariance_undefined',
-          `HC3 covariance is undefined: row ${i} has leverage ${h} (fitted exactly)`, { row: i, leverage: h });
+        throw new EstimationInputError(
+          'covariance_undefined',
+          `HC3 covariance is undefined: row ${i} has leverage ${h} (fitted exactly)`,
+          { row: i, leverage: h },
+        );
       }
       w /= (1 - h) * (1 - h);
     }

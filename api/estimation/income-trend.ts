@@ -18,16 +18,28 @@ export function incomeTrend(years: ArrayLike<number>, driver: ArrayLike<number>,
   for (let i = 0; i < n; i++) if (years[i] > last) last = years[i];
   const idx: number[] = [];
   for (let i = 0; i < n; i++) if (years[i] > last - window) idx.push(i);
-  const none = (reason: string): TrendResult => ({ slopePerYear: null, nUsed: idx.length, firstYear: null, lastYear: null, window, reason });
+  const none = (reason: string): TrendResult => ({
+    slopePerYear: null,
+    nUsed: idx.length,
+    firstYear: null,
+    lastYear: null,
+    window,
+    reason,
+  });
   if (idx.length < 2) return none('fewer than 2 years in the trend window');
-  let tm = 0, lm = 0, first = Infinity;
+  let tm = 0,
+    lm = 0,
+    first = Infinity;
   for (const i of idx) {
     if (!(driver[i] > 0)) return none('driver not positive in the trend window');
-    tm += years[i]; lm += Math.log(driver[i]);
+    tm += years[i];
+    lm += Math.log(driver[i]);
     if (years[i] < first) first = years[i];
   }
-  tm /= idx.length; lm /= idx.length;
-  let sxy = 0, sxx = 0;
+  tm /= idx.length;
+  lm /= idx.length;
+  let sxy = 0,
+    sxx = 0;
   for (const i of idx) {
     const dt = years[i] - tm;
     sxy += dt * (Math.log(driver[i]) - lm);

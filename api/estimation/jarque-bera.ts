@@ -15,19 +15,30 @@ import { chiSquareUpperTail } from './distributions';
  *   jarqueBera([-1, 0, 1]).statistic   // → 0.28125 (S = 0, K = 1.5: 3/6·(2.25/4))
  */
 export function jarqueBera(e: ArrayLike<number>): {
-  statistic: number | null; skewness: number | null; kurtosis: number | null; df: 2; pValue: number | null;
+  statistic: number | null;
+  skewness: number | null;
+  kurtosis: number | null;
+  df: 2;
+  pValue: number | null;
 } {
   const n = e.length;
   if (n < 3) return { statistic: null, skewness: null, kurtosis: null, df: 2, pValue: null };
   let mean = 0;
   for (let i = 0; i < n; i++) mean += e[i];
   mean /= n;
-  let m2 = 0, m3 = 0, m4 = 0;
+  let m2 = 0,
+    m3 = 0,
+    m4 = 0;
   for (let i = 0; i < n; i++) {
-    const d = e[i] - mean, d2 = d * d;
-    m2 += d2; m3 += d2 * d; m4 += d2 * d2;
+    const d = e[i] - mean,
+      d2 = d * d;
+    m2 += d2;
+    m3 += d2 * d;
+    m4 += d2 * d2;
   }
-  m2 /= n; m3 /= n; m4 /= n;
+  m2 /= n;
+  m3 /= n;
+  m4 /= n;
   if (!(m2 > 0)) return { statistic: null, skewness: null, kurtosis: null, df: 2, pValue: null };
   const skewness = m3 / Math.pow(m2, 1.5);
   const kurtosis = m4 / (m2 * m2);

@@ -23,19 +23,31 @@ import type { LeastSquaresCore } from './types';
  * about 14 significant digits (see tests/reference/nist.test.ts), where a double QR gives ~7.
  */
 export function leastSquaresDoubleDouble(
-  x: Float64Array, y: Float64Array, n: number, k: number, rankTolerance: number, xLo?: Float64Array,
+  x: Float64Array,
+  y: Float64Array,
+  n: number,
+  k: number,
+  rankTolerance: number,
+  xLo?: Float64Array,
 ): LeastSquaresCore {
   const ah = Float64Array.from(x);
   const al = xLo ? Float64Array.from(xLo) : new Float64Array(n * k);
-  if (xLo) for (let i = 0; i < n * k; i++) { const t = ah[i] + al[i]; al[i] = al[i] - (t - ah[i]); ah[i] = t; }
+  if (xLo)
+    for (let i = 0; i < n * k; i++) {
+      const t = ah[i] + al[i];
+      al[i] = al[i] - (t - ah[i]);
+      ah[i] = t;
+    }
   const yh = Float64Array.from(y);
   const yl = new Float64Array(n);
-  const tauH = new Float64Array(k), tauL = new Float64Array(k);
+  const tauH = new Float64Array(k),
+    tauL = new Float64Array(k);
   const perm = new Int32Array(k);
   const orig = new Float64Array(k);
   const rel = new Float64Array(k);
   const sumSq = (c: number, from: number): [number, number] => {
-    let sh = 0, sl = 0;
+    let sh = 0,
+      sl = 0;
     const off = c * n;
     for (let i = from; i < n; i++) {
       const [ph, pl] = ddMul(ah[off + i], al[off + i], ah[off + i], al[off + i]);
@@ -43,38 +55,66 @@ export function leastSquaresDoubleDouble(
     }
     return [sh, sl];
   };
-  for (let j = 0; j < k; j++) { perm[j] = j; orig[j] = Math.sqrt(sumSq(j, 0)[0]); }
+  for (let j = 0; j < k; j++) {
+    perm[j] = j;
+    orig[j] = Math.sqrt(sumSq(j, 0)[0]);
+  }
   let rank = Math.min(n, k);
   for (let j = 0; j < Math.min(n, k); j++) {
-    let best = -1, bestRel = -1;
+    let best = -1,
+      bestRel = -1;
     for (let c = j; c < k; c++) {
       const r = orig[c] > 0 ? Math.sqrt(sumSq(c, j)[0]) / orig[c] : 0;
-      if (r > bestRel) { bestRel = r; best = c; }
+      if (r > bestRel) {
+        bestRel = r;
+        best = c;
+      }
     }
     if (best !== j) {
-      const oj = j * n, ob = best * n;
+      const oj = j * n,
+        ob = best * n;
       for (let i = 0; i < n; i++) {
-        let t = ah[oj + i]; ah[oj + i] = ah[ob + i]; ah[ob + i] = t;
-        t = al[oj + i]; al[oj + i] = al[ob + i]; al[ob + i] = t;
+        let t = ah[oj + i];
+        ah[oj + i] = ah[ob + i];
+        ah[ob + i] = t;
+        t = al[oj + i];
+        al[oj + i] = al[ob + i];
+        al[ob + i] = t;
       }
-      const t = orig[j]; orig[j] = orig[best]; orig[best] = t;
-      const p = perm[j]; perm[j] = perm[best]; perm[best] = p;
+      const t = orig[j];
+      orig[j] = orig[best];
+      orig[best] = t;
+      const p = perm[j];
+      perm[j] = perm[best];
+      perm[best] = p;
     }
     rel[j] = bestRel;
-    if (!(bestRel > rankTolerance)) { rank = j; break; }
+    if (!(bestRel > rankTolerance)) {
+      rank = j;
+      break;
+    }
     const oj = j * n;
-    const alH = ah[oj + j], alL = al[oj + j];
+    const alH = ah[oj + j],
+      alL = al[oj + j];
     const [xh, xl] = sumSq(j, j + 1);
-    if (xh === 0) { tauH[j] = 0; tauL[j] = 0; continue; }
+    if (xh === 0) {
+      tauH[j] = 0;
+      tauL[j] = 0;
+      continue;
+    }
     const [a2h, a2l] = ddMul(alH, alL, alH, alL);
     const [t2h, t2l] = ddAdd(a2h, a2l, xh, xl);
     let [bh, bl] = ddSqrt(t2h, t2l);
-    if (alH >= 0) { bh = -bh; bl = -bl; }
+    if (alH >= 0) {
+      bh = -bh;
+      bl = -bl;
+    }
     const [dh, dl] = ddAdd(bh, bl, -alH, -alL);
     [tauH[j], tauL[j]] = ddDiv(dh, dl, bh, bl);
     const [sh, sl] = ddDiv(1, 0, -dh, -dl); // 1 / (alpha − beta)
     for (let i = j + 1; i < n; i++) [ah[oj + i], al[oj + i]] = ddMul(ah[oj + i], al[oj + i], sh, sl);
-    ah[oj + j] = bh; al[oj + j] = bl;
+    ah[oj + j] = bh;
+    al[oj + j] = bl;
     const reflect = (vh: Float64Array, vl: Float64Array, oc: number): void => {
       let [wh, wl] = [vh[oc + j], vl[oc + j]];
       for (let i = j + 1; i < n; i++) {
@@ -92,9 +132,21 @@ export function leastSquaresDoubleDouble(
     reflect(yh, yl, 0);
   }
   const core: LeastSquaresCore = {
-    n, k, rank, perm, columnNorms: orig, relativePivots: rel, precision: 'double-double', refinementSteps: 0,
-    coefficients: new Float64Array(k), residuals: new Float64Array(n), q1: new Float64Array(0),
-    rinv: new Float64Array(0), xtxInv: new Float64Array(0), rDiagonal: new Float64Array(rank), r: new Float64Array(0),
+    n,
+    k,
+    rank,
+    perm,
+    columnNorms: orig,
+    relativePivots: rel,
+    precision: 'double-double',
+    refinementSteps: 0,
+    coefficients: new Float64Array(k),
+    residuals: new Float64Array(n),
+    q1: new Float64Array(0),
+    rinv: new Float64Array(0),
+    xtxInv: new Float64Array(0),
+    rDiagonal: new Float64Array(rank),
+    r: new Float64Array(0),
   };
   for (let j = 0; j < rank; j++) core.rDiagonal[j] = ah[j * n + j];
   // R (rounded) for condition estimates and dependency reports
@@ -103,11 +155,13 @@ export function leastSquaresDoubleDouble(
   core.r = rr;
   if (rank < k) return core;
   // R⁻¹ in double-double (column-major k × k)
-  const ih = new Float64Array(k * k), il = new Float64Array(k * k);
+  const ih = new Float64Array(k * k),
+    il = new Float64Array(k * k);
   for (let j = 0; j < k; j++) {
     [ih[j * k + j], il[j * k + j]] = ddDiv(1, 0, ah[j * n + j], al[j * n + j]);
     for (let i = j - 1; i >= 0; i--) {
-      let sh = 0, sl = 0;
+      let sh = 0,
+        sl = 0;
       for (let m = i + 1; m <= j; m++) {
         const [ph, pl] = ddMul(ah[m * n + i], al[m * n + i], ih[j * k + m], il[j * k + m]);
         [sh, sl] = ddAdd(sh, sl, ph, pl);
@@ -117,16 +171,22 @@ export function leastSquaresDoubleDouble(
   }
   // z = R⁻¹ (Qᵀy)(0:k), b = P z
   for (let i = 0; i < k; i++) {
-    let sh = 0, sl = 0;
+    let sh = 0,
+      sl = 0;
     for (let m = i; m < k; m++) {
       const [ph, pl] = ddMul(ih[m * k + i], il[m * k + i], yh[m], yl[m]);
       [sh, sl] = ddAdd(sh, sl, ph, pl);
     }
     core.coefficients[perm[i]] = sh + sl;
-    yh[i] = sh; yl[i] = sl; // keep z in DD for the residuals
+    yh[i] = sh;
+    yl[i] = sl; // keep z in DD for the residuals
   }
-  const zH = new Float64Array(k), zL = new Float64Array(k);
-  for (let i = 0; i < k; i++) { zH[perm[i]] = yh[i]; zL[perm[i]] = yl[i]; }
+  const zH = new Float64Array(k),
+    zL = new Float64Array(k);
+  for (let i = 0; i < k; i++) {
+    zH[perm[i]] = yh[i];
+    zL[perm[i]] = yl[i];
+  }
   for (let i = 0; i < n; i++) {
     let [sh, sl] = [y[i], 0];
     for (let c = 0; c < k; c++) {
@@ -139,7 +199,8 @@ export function leastSquaresDoubleDouble(
   const xtx = new Float64Array(k * k);
   for (let a = 0; a < k; a++) {
     for (let b = a; b < k; b++) {
-      let sh = 0, sl = 0;
+      let sh = 0,
+        sl = 0;
       for (let m = b; m < k; m++) {
         const [ph, pl] = ddMul(ih[m * k + a], il[m * k + a], ih[m * k + b], il[m * k + b]);
         [sh, sl] = ddAdd(sh, sl, ph, pl);
@@ -154,7 +215,8 @@ export function leastSquaresDoubleDouble(
   for (let i = 0; i < k * k; i++) rinv[i] = ih[i] + il[i];
   core.rinv = rinv;
   // Q₁ in double-double, rounded
-  const qh = new Float64Array(n * k), ql = new Float64Array(n * k);
+  const qh = new Float64Array(n * k),
+    ql = new Float64Array(n * k);
   for (let c = 0; c < k; c++) qh[c * n + c] = 1;
   for (let j = k - 1; j >= 0; j--) {
     if (tauH[j] === 0 && tauL[j] === 0) continue;

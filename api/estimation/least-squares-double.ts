@@ -29,8 +29,14 @@ import { take, type Workspace } from './workspace';
  * values to about 15 digits (tests/reference/nist.test.ts).
  */
 export function leastSquaresDouble(
-  x: Float64Array, y: Float64Array, n: number, k: number, rankTolerance: number, maxRefinement = 3,
-  xLo?: Float64Array, ws?: Workspace,
+  x: Float64Array,
+  y: Float64Array,
+  n: number,
+  k: number,
+  rankTolerance: number,
+  maxRefinement = 3,
+  xLo?: Float64Array,
+  ws?: Workspace,
 ): LeastSquaresCore {
   const a = take(ws, n * k);
   a.set(x);
@@ -41,9 +47,21 @@ export function leastSquaresDouble(
   const r = take(ws, k * k);
   for (let c = 0; c < k; c++) for (let i = 0; i <= Math.min(c, rank - 1); i++) r[c * k + i] = a[c * n + i];
   const core: LeastSquaresCore = {
-    n, k, rank, perm, columnNorms: f.columnNorms, relativePivots: f.relativePivots, precision: 'double',
-    refinementSteps: 0, coefficients: new Float64Array(k), residuals: take(ws, n), q1: EMPTY,
-    rinv: EMPTY, xtxInv: EMPTY, rDiagonal, r,
+    n,
+    k,
+    rank,
+    perm,
+    columnNorms: f.columnNorms,
+    relativePivots: f.relativePivots,
+    precision: 'double',
+    refinementSteps: 0,
+    coefficients: new Float64Array(k),
+    residuals: take(ws, n),
+    q1: EMPTY,
+    rinv: EMPTY,
+    xtxInv: EMPTY,
+    rDiagonal,
+    r,
   };
   if (rank < k) return core;
   const rinv = upperTriangularInverse(a, k, n, ws);
@@ -56,7 +74,10 @@ export function leastSquaresDouble(
   compensatedResiduals(x, y, b, n, k, e, xLo);
   // refinement contracts errors by about κ·u per step: stop when the next correction is
   // predicted to fall below the last bit, or when corrections stop shrinking
-  const contraction = Math.max(conditionEstimates({ k, r, rinv, columnNorms: f.columnNorms }).scaled * 1.1102230246251565e-16, 1e-16);
+  const contraction = Math.max(
+    conditionEstimates({ k, r, rinv, columnNorms: f.columnNorms }).scaled * 1.1102230246251565e-16,
+    1e-16,
+  );
   let previous = Infinity;
   for (let step = 0; step < maxRefinement; step++) {
     work.set(e);
@@ -87,7 +108,14 @@ export function leastSquaresDouble(
 const EMPTY = new Float64Array(0);
 
 /** target (±)= P·R⁻¹·(Qᵀ·work)(0:k); returns max |correction|. */
-function solveStep(f: QrFactorisation, rinv: Float64Array, work: Float64Array, z: Float64Array, target: Float64Array, add: boolean): number {
+function solveStep(
+  f: QrFactorisation,
+  rinv: Float64Array,
+  work: Float64Array,
+  z: Float64Array,
+  target: Float64Array,
+  add: boolean,
+): number {
   const { k, perm } = f;
   applyQt(f, work);
   let maxDelta = 0;
@@ -98,7 +126,8 @@ function solveStep(f: QrFactorisation, rinv: Float64Array, work: Float64Array, z
   }
   for (let i = 0; i < k; i++) {
     const d = z[i];
-    if (add) target[perm[i]] += d; else target[perm[i]] = d;
+    if (add) target[perm[i]] += d;
+    else target[perm[i]] = d;
     if (Math.abs(d) > maxDelta) maxDelta = Math.abs(d);
   }
   return maxDelta;

@@ -25,22 +25,38 @@ import { z } from 'zod';
  *   //     criticalValue: 't', intervalMethod: 'fieller', levelControls: [], trendYears: 10,
  *   //     clusterAdjustment: 'n_over_n_minus_k' }
  */
-export const ModelSpec = z.object({
-  form: z.enum(['quadratic', 'cubic']).describe('Polynomial in the driver: quadratic (one turning point) or cubic (up to two)'),
-  transform: z.enum(['log', 'level']).describe('log: ln of emissions, driver and controls (except levelControls); level: raw values'),
-  covariance: z.enum(['classical', 'hc1', 'hc3', 'newey_west', 'cluster']).describe('Coefficient covariance; cluster is for the pooled panel'),
-  lag: z.number().int().min(0).optional().describe('Newey–West lag in rows; default floor(4·(n/100)^(2/9))'),
-  level: z.number().gt(0).lt(1).default(0.95).describe('Confidence level of intervals'),
-  alpha: z.number().gt(0).lt(1).default(0.05).describe('Test level for the U-test, the Wald test and shapes'),
-  criticalValue: z.enum(['t', 'normal']).default('t').describe('t with n−k df (G−1 for the panel) or standard normal'),
-  intervalMethod: z.enum(['fieller', 'delta']).default('fieller').describe('Interval that sets the standing'),
-  controls: z.array(z.string().min(1)).optional().describe('Controls to use, in order; default all controls in the rows, sorted'),
-  levelControls: z.array(z.string().min(1)).default([]).describe('Controls kept in levels under the log transform'),
-  minYears: z.number().int().min(1).optional().describe('Minimum rows for a district fit; default k + 5'),
-  trendYears: z.number().int().min(2).default(10).describe('Years in the income-trend window'),
-  clusterAdjustment: z.enum(['n_over_n_minus_k', 'none', 'g_over_g_minus_1', 'combined']).default('n_over_n_minus_k')
-    .describe('Panel cluster small-sample factor: N/(N−k), 1, G/(G−1), or G/(G−1)·(N−1)/(N−k)'),
-}).strict();
+export const ModelSpec = z
+  .object({
+    form: z
+      .enum(['quadratic', 'cubic'])
+      .describe('Polynomial in the driver: quadratic (one turning point) or cubic (up to two)'),
+    transform: z
+      .enum(['log', 'level'])
+      .describe('log: ln of emissions, driver and controls (except levelControls); level: raw values'),
+    covariance: z
+      .enum(['classical', 'hc1', 'hc3', 'newey_west', 'cluster'])
+      .describe('Coefficient covariance; cluster is for the pooled panel'),
+    lag: z.number().int().min(0).optional().describe('Newey–West lag in rows; default floor(4·(n/100)^(2/9))'),
+    level: z.number().gt(0).lt(1).default(0.95).describe('Confidence level of intervals'),
+    alpha: z.number().gt(0).lt(1).default(0.05).describe('Test level for the U-test, the Wald test and shapes'),
+    criticalValue: z
+      .enum(['t', 'normal'])
+      .default('t')
+      .describe('t with n−k df (G−1 for the panel) or standard normal'),
+    intervalMethod: z.enum(['fieller', 'delta']).default('fieller').describe('Interval that sets the standing'),
+    controls: z
+      .array(z.string().min(1))
+      .optional()
+      .describe('Controls to use, in order; default all controls in the rows, sorted'),
+    levelControls: z.array(z.string().min(1)).default([]).describe('Controls kept in levels under the log transform'),
+    minYears: z.number().int().min(1).optional().describe('Minimum rows for a district fit; default k + 5'),
+    trendYears: z.number().int().min(2).default(10).describe('Years in the income-trend window'),
+    clusterAdjustment: z
+      .enum(['n_over_n_minus_k', 'none', 'g_over_g_minus_1', 'combined'])
+      .default('n_over_n_minus_k')
+      .describe('Panel cluster small-sample factor: N/(N−k), 1, G/(G−1), or G/(G−1)·(N−1)/(N−k)'),
+  })
+  .strict();
 
 /** A parsed model spec (defaults filled in). */
 export type ModelSpec = z.output<typeof ModelSpec>;

@@ -20,7 +20,14 @@ import { take, type Workspace } from './workspace';
  * Example: n = 2, k = 1, q = (1/√2, 1/√2), e = (1, 1), L = 1 (w₁ = 1/2):
  *   neweyWestMeat(q, e, 2, 1, 1)  // → [1.5000000000000002]   (0.5 + 0.5 + 0.5·(0.5 + 0.5))
  */
-export function neweyWestMeat(q1: Float64Array, e: ArrayLike<number>, n: number, k: number, lag: number, ws?: Workspace): Float64Array {
+export function neweyWestMeat(
+  q1: Float64Array,
+  e: ArrayLike<number>,
+  n: number,
+  k: number,
+  lag: number,
+  ws?: Workspace,
+): Float64Array {
   const m = take(ws, k * k);
   // scores s_a(t) = e_t·q_t[a], stored column by column
   const s = take(ws, n * k);
@@ -46,9 +53,13 @@ export function neweyWestMeat(q1: Float64Array, e: ArrayLike<number>, n: number,
     const oa = a * n;
     for (let b = a; b < k; b++) {
       const ob = b * n;
-      let acc0 = 0, acc1 = 0;
+      let acc0 = 0,
+        acc1 = 0;
       let t = 0;
-      for (; t + 1 < n; t += 2) { acc0 += s[oa + t] * u[ob + t]; acc1 += s[oa + t + 1] * u[ob + t + 1]; }
+      for (; t + 1 < n; t += 2) {
+        acc0 += s[oa + t] * u[ob + t];
+        acc1 += s[oa + t + 1] * u[ob + t + 1];
+      }
       if (t < n) acc0 += s[oa + t] * u[ob + t];
       m[b * k + a] = acc0 + acc1;
       m[a * k + b] = acc0 + acc1;

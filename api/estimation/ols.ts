@@ -32,18 +32,26 @@ import type { DesignMatrix, OlsOptions, OlsResult } from './types';
  *   //   linear combination of 'a'", details { rank: 2, k: 3, dependent: ['b'], dependsOn: { b: ['a'] } }
  */
 export function ols(
-  X: ReadonlyArray<ReadonlyArray<number>> | DesignMatrix, y: ArrayLike<number>, options: OlsOptions = {},
+  X: ReadonlyArray<ReadonlyArray<number>> | DesignMatrix,
+  y: ArrayLike<number>,
+  options: OlsOptions = {},
 ): OlsResult {
   const design = toDesign(X);
   const n = design.nRows;
   if (y.length !== n) {
-    throw new EstimationInputError('invalid_argument', `y has ${y.length} values for ${n} rows of X`, { reason: 'length_mismatch' });
+    throw new EstimationInputError('invalid_argument', `y has ${y.length} values for ${n} rows of X`, {
+      reason: 'length_mismatch',
+    });
   }
   const yy = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const v = y[i];
     if (typeof v !== 'number' || !Number.isFinite(v)) {
-      throw new EstimationInputError('non_finite_value', `y[${i}] is not a finite number`, { row: i, column: 'y', value: String(v) });
+      throw new EstimationInputError('non_finite_value', `y[${i}] is not a finite number`, {
+        row: i,
+        column: 'y',
+        value: String(v),
+      });
     }
     yy[i] = v;
   }
@@ -53,7 +61,11 @@ export function ols(
       const v = design.data[c * n + i];
       if (!Number.isFinite(v)) {
         const column = names?.[c] ?? `x${c}`;
-        throw new EstimationInputError('non_finite_value', `X[${i}][${c}] (${column}) is not a finite number`, { row: i, column, value: String(v) });
+        throw new EstimationInputError('non_finite_value', `X[${i}][${c}] (${column}) is not a finite number`, {
+          row: i,
+          column,
+          value: String(v),
+        });
       }
     }
   }
@@ -64,10 +76,21 @@ function toDesign(X: ReadonlyArray<ReadonlyArray<number>> | DesignMatrix): Desig
   if (!Array.isArray(X)) {
     const d = X as DesignMatrix;
     if (!(d.data instanceof Float64Array) || d.data.length !== d.nRows * d.nCols) {
-      throw new EstimationInputError('invalid_argument', 'DesignMatrix data must be a Float64Array of nRows·nCols values', { reason: 'design' });
+      throw new EstimationInputError(
+        'invalid_argument',
+        'DesignMatrix data must be a Float64Array of nRows·nCols values',
+        { reason: 'design' },
+      );
     }
-    if (d.dataLo !== undefined && (!(d.dataLo instanceof Float64Array) || d.dataLo.length !== d.data.length || !d.dataLo.every(Number.isFinite))) {
-      throw new EstimationInputError('invalid_argument', 'DesignMatrix dataLo must be a finite Float64Array of the same length as data', { reason: 'design' });
+    if (
+      d.dataLo !== undefined &&
+      (!(d.dataLo instanceof Float64Array) || d.dataLo.length !== d.data.length || !d.dataLo.every(Number.isFinite))
+    ) {
+      throw new EstimationInputError(
+        'invalid_argument',
+        'DesignMatrix dataLo must be a finite Float64Array of the same length as data',
+        { reason: 'design' },
+      );
     }
     return d;
   }
@@ -78,7 +101,11 @@ function toDesign(X: ReadonlyArray<ReadonlyArray<number>> | DesignMatrix): Desig
   for (let i = 0; i < n; i++) {
     const row = rows[i];
     if (!row || row.length !== k) {
-      throw new EstimationInputError('invalid_argument', `Row ${i} of X has ${row ? row.length : 0} values, expected ${k}`, { reason: 'ragged', row: i });
+      throw new EstimationInputError(
+        'invalid_argument',
+        `Row ${i} of X has ${row ? row.length : 0} values, expected ${k}`,
+        { reason: 'ragged', row: i },
+      );
     }
     for (let c = 0; c < k; c++) {
       const v = row[c];

@@ -19,15 +19,21 @@ export function parseModelSpec(model: ModelSpecInput | ModelSpec): ModelSpec {
   const r = ModelSpec.safeParse(model);
   if (!r.success) {
     const issues = r.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message }));
-    throw new EstimationInputError('invalid_argument',
-      `Invalid model spec: ${issues.map((i) => `${i.path || '(root)'}: ${i.message}`).join('; ')}`, { reason: 'model', issues });
+    throw new EstimationInputError(
+      'invalid_argument',
+      `Invalid model spec: ${issues.map((i) => `${i.path || '(root)'}: ${i.message}`).join('; ')}`,
+      { reason: 'model', issues },
+    );
   }
   const spec = r.data;
   if (spec.controls) {
     const unknown = spec.levelControls.filter((c) => !spec.controls!.includes(c));
     if (unknown.length > 0) {
-      throw new EstimationInputError('invalid_argument', `levelControls names controls not in controls: ${unknown.join(', ')}`,
-        { reason: 'model', issues: [{ path: 'levelControls', message: `not in controls: ${unknown.join(', ')}` }] });
+      throw new EstimationInputError(
+        'invalid_argument',
+        `levelControls names controls not in controls: ${unknown.join(', ')}`,
+        { reason: 'model', issues: [{ path: 'levelControls', message: `not in controls: ${unknown.join(', ')}` }] },
+      );
     }
   }
   return spec;

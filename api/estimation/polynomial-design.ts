@@ -24,7 +24,8 @@ export function polynomialDesign(x: ArrayLike<number>, degree: number, intercept
   const data = new Float64Array(n * k);
   const dataLo = new Float64Array(n * k);
   for (let i = 0; i < n; i++) {
-    let ph = 1, pl = 0;
+    let ph = 1,
+      pl = 0;
     for (let p = 0; p <= degree; p++) {
       if (p > 0) [ph, pl] = ddMul(ph, pl, x[i], 0);
       if (p >= first) {

@@ -18,7 +18,8 @@ function rng(seed: number): () => number {
 
 function degree5(seed: number): { data: Float64Array; y: Float64Array; n: number; k: number } {
   const u = rng(seed);
-  const n = 21, k = 6;
+  const n = 21,
+    k = 6;
   const data = new Float64Array(n * k);
   const y = new Float64Array(n);
   for (let i = 0; i < n; i++) {
@@ -37,7 +38,9 @@ describe("'auto' precision from the forward-error bound", () => {
     const auto = fitLeastSquares(X, y);
     expect(plain.result.condition.scaledEstimate).toBeLessThan(1e5); // the old κ > 1e7 switch never fired here
     expect(plain.result.rSquared).toBeLessThan(0.5);
-    expect(forwardErrorEstimate(plain.core, plain.result.condition.scaledEstimate)).toBeGreaterThan(FORWARD_ERROR_THRESHOLD);
+    expect(forwardErrorEstimate(plain.core, plain.result.condition.scaledEstimate)).toBeGreaterThan(
+      FORWARD_ERROR_THRESHOLD,
+    );
     const rel = (a: number[], b: number[]) => Math.max(...a.map((v, j) => Math.abs(v - b[j]) / Math.abs(b[j])));
     expect(rel(auto.result.coefficients, dd.result.coefficients)).toBeLessThan(1e-11);
     expect(rel(auto.result.standardErrors, dd.result.standardErrors)).toBeLessThan(1e-10);
@@ -47,7 +50,11 @@ describe("'auto' precision from the forward-error bound", () => {
     const n = 30;
     const data = new Float64Array(n * 2);
     const y = new Float64Array(n);
-    for (let i = 0; i < n; i++) { data[i] = 1; data[n + i] = i / n; y[i] = 2 + 3 * (i / n) + 0.01 * Math.sin(i); }
+    for (let i = 0; i < n; i++) {
+      data[i] = 1;
+      data[n + i] = i / n;
+      y[i] = 2 + 3 * (i / n) + 0.01 * Math.sin(i);
+    }
     const f = fitLeastSquares({ nRows: n, nCols: 2, data }, y);
     expect(f.result.condition.precision).toBe('double');
     expect(forwardErrorEstimate(f.core, f.result.condition.scaledEstimate)).toBeLessThan(FORWARD_ERROR_THRESHOLD);
@@ -68,16 +75,15 @@ describe("'auto' precision from the forward-error bound", () => {
     // Every coefficient here carries far more than 1e-8 of ‖D·b‖, so all count for the smallest.
     const amplification = Math.sqrt(nb) / Math.min(...scaled);
     expect(amplification).toBeGreaterThan(1);
-    const expected = 2 ** -53 * kappa * (1 + kappa * Math.sqrt(f.result.rss) / Math.sqrt(nb)) * amplification;
+    const expected = 2 ** -53 * kappa * (1 + (kappa * Math.sqrt(f.result.rss)) / Math.sqrt(nb)) * amplification;
     expect(forwardErrorEstimate(f.core, kappa) / expected).toBeCloseTo(1, 10);
   });
-
 });
 
 test('plain double really loses digits on that problem (why the rule exists)', () => {
   const { data, y, n, k } = degree5(12);
   const X = { nRows: n, nCols: k, data };
-  const plain = fitLeastSquares(X, y, { precision: 'double', }).result.coefficients;
+  const plain = fitLeastSquares(X, y, { precision: 'double' }).result.coefficients;
   const dd = fitLeastSquares(X, y, { precision: 'double-double' }).result.coefficients;
   const worst = Math.max(...plain.map((v, j) => Math.abs(v - dd[j]) / Math.abs(dd[j])));
   expect(worst).toBeGreaterThan(1e-11);

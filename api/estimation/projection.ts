@@ -41,19 +41,42 @@ export function projectCrossing(input: {
 }): ProjectionResult {
   const { lnThreshold, lnNow, lnLo, lnHi, trend: g, lastYear, extrapolated } = input;
   if (lnThreshold === null || !Number.isFinite(lnThreshold)) {
-    return { status: 'no_threshold', yearsToThreshold: null, crossingYear: null, range: null, extrapolated, note: 'no positive threshold' };
+    return {
+      status: 'no_threshold',
+      yearsToThreshold: null,
+      crossingYear: null,
+      range: null,
+      extrapolated,
+      note: 'no positive threshold',
+    };
   }
   if (g === null || g === 0 || !Number.isFinite(g)) {
-    return { status: 'not_on_current_trend', yearsToThreshold: null, crossingYear: null, range: null, extrapolated, note: 'not on current trend (no income trend)' };
+    return {
+      status: 'not_on_current_trend',
+      yearsToThreshold: null,
+      crossingYear: null,
+      range: null,
+      extrapolated,
+      note: 'not on current trend (no income trend)',
+    };
   }
   const years = (lnThreshold - lnNow) / g;
   if (years < 0 && lnNow < lnThreshold) {
-    return { status: 'not_on_current_trend', yearsToThreshold: years, crossingYear: null, range: null, extrapolated, note: 'not on current trend (income moving away from the threshold)' };
+    return {
+      status: 'not_on_current_trend',
+      yearsToThreshold: years,
+      crossingYear: null,
+      range: null,
+      extrapolated,
+      note: 'not on current trend (income moving away from the threshold)',
+    };
   }
   const status = years >= 0 ? 'projected' : 'already_past';
   const crossingYear = lastYear + ceilYears(years);
-  const endYear = (ln: number | null): number | null => (ln === null || !Number.isFinite(ln) ? null : lastYear + ceilYears((ln - lnNow) / g));
-  const a = endYear(lnLo), b = endYear(lnHi);
+  const endYear = (ln: number | null): number | null =>
+    ln === null || !Number.isFinite(ln) ? null : lastYear + ceilYears((ln - lnNow) / g);
+  const a = endYear(lnLo),
+    b = endYear(lnHi);
   let range: ProjectionResult['range'];
   let note: string | null = null;
   if (a !== null && b !== null) range = { earliest: Math.min(a, b), latest: Math.max(a, b) };

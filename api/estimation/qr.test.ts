@@ -11,7 +11,8 @@ function design(n: number, k: number, f: (i: number, j: number) => number): Floa
 
 describe('pivotedQr', () => {
   test('reproduces A·P = Q·R with orthonormal Q (definition)', () => {
-    const n = 12, k = 4;
+    const n = 12,
+      k = 4;
     const a = design(n, k, (i, j) => Math.cos(i * (j + 1)) + (j === 3 ? 100 * i : 0));
     const f = pivotedQr(Float64Array.from(a), n, k);
     expect(f.rank).toBe(4);
@@ -77,10 +78,19 @@ describe('symmetricEigenvalues', () => {
   test('the trace and the sum of squares are preserved for a 20 × 20 matrix (invariants)', () => {
     const n = 20;
     const a = new Float64Array(n * n);
-    for (let i = 0; i < n; i++) for (let j = 0; j <= i; j++) { const v = Math.sin(i * 7 + j * 3); a[j * n + i] = v; a[i * n + j] = v; }
+    for (let i = 0; i < n; i++)
+      for (let j = 0; j <= i; j++) {
+        const v = Math.sin(i * 7 + j * 3);
+        a[j * n + i] = v;
+        a[i * n + j] = v;
+      }
     const ev = symmetricEigenvalues(a, n);
-    let tr = 0, fro = 0;
-    for (let i = 0; i < n; i++) { tr += a[i * n + i]; for (let j = 0; j < n; j++) fro += a[j * n + i] ** 2; }
+    let tr = 0,
+      fro = 0;
+    for (let i = 0; i < n; i++) {
+      tr += a[i * n + i];
+      for (let j = 0; j < n; j++) fro += a[j * n + i] ** 2;
+    }
     expect(ev.reduce((s, v) => s + v, 0)).toBeCloseTo(tr, 12);
     expect(ev.reduce((s, v) => s + v * v, 0)).toBeCloseTo(fro, 11);
   });

@@ -41,7 +41,12 @@ export interface QrFactorisation {
 
 export const DEFAULT_RANK_TOLERANCE = 1e-12;
 
-export function pivotedQr(a: Float64Array, n: number, k: number, rankTolerance = DEFAULT_RANK_TOLERANCE): QrFactorisation {
+export function pivotedQr(
+  a: Float64Array,
+  n: number,
+  k: number,
+  rankTolerance = DEFAULT_RANK_TOLERANCE,
+): QrFactorisation {
   const tau = new Float64Array(k);
   const perm = new Int32Array(k);
   const orig = new Float64Array(k);
@@ -63,22 +68,40 @@ export function pivotedQr(a: Float64Array, n: number, k: number, rankTolerance =
       const off = c * n;
       for (let i = j; i < n; i++) s += a[off + i] * a[off + i];
       const r = orig[c] > 0 ? Math.sqrt(s) / orig[c] : 0;
-      if (r > bestRel) { bestRel = r; best = c; }
+      if (r > bestRel) {
+        bestRel = r;
+        best = c;
+      }
     }
     if (best !== j) {
-      const oj = j * n, ob = best * n;
-      for (let i = 0; i < n; i++) { const t = a[oj + i]; a[oj + i] = a[ob + i]; a[ob + i] = t; }
-      const t = orig[j]; orig[j] = orig[best]; orig[best] = t;
-      const p = perm[j]; perm[j] = perm[best]; perm[best] = p;
+      const oj = j * n,
+        ob = best * n;
+      for (let i = 0; i < n; i++) {
+        const t = a[oj + i];
+        a[oj + i] = a[ob + i];
+        a[ob + i] = t;
+      }
+      const t = orig[j];
+      orig[j] = orig[best];
+      orig[best] = t;
+      const p = perm[j];
+      perm[j] = perm[best];
+      perm[best] = p;
     }
     rel[j] = bestRel;
-    if (!(bestRel > rankTolerance)) { rank = j; break; }
+    if (!(bestRel > rankTolerance)) {
+      rank = j;
+      break;
+    }
     // Householder reflector for column j, rows j..n-1
     const oj = j * n;
     const alpha = a[oj + j];
     let xs = 0;
     for (let i = j + 1; i < n; i++) xs += a[oj + i] * a[oj + i];
-    if (xs === 0) { tau[j] = 0; continue; }
+    if (xs === 0) {
+      tau[j] = 0;
+      continue;
+    }
     const norm = Math.sqrt(alpha * alpha + xs);
     const beta = alpha >= 0 ? -norm : norm;
     const tj = (beta - alpha) / beta;

@@ -57,7 +57,11 @@ function rootsUnscaled(a: number[]): number[] {
     const r = [q / c2, c0 / q].sort((x, y) => x - y);
     return r;
   }
-  const p = (x: number): number => { let v = 0; for (let i = d; i >= 0; i--) v = v * x + a[i]; return v; };
+  const p = (x: number): number => {
+    let v = 0;
+    for (let i = d; i >= 0; i--) v = v * x + a[i];
+    return v;
+  };
   const deriv = a.slice(1).map((c, i) => c * (i + 1));
   const crit = rootsUnscaled(deriv);
   let bound = 0;
@@ -66,18 +70,30 @@ function rootsUnscaled(a: number[]): number[] {
   const edges = [-bound, ...crit.filter((c) => c > -bound && c < bound), bound];
   const roots: number[] = [];
   for (let j = 0; j + 1 < edges.length; j++) {
-    let lo = edges[j], hi = edges[j + 1];
-    const plo = p(lo), phi = p(hi);
-    if (plo === 0) { if (j > 0 && roots[roots.length - 1] !== lo) roots.push(lo); continue; }
-    if (phi === 0) { roots.push(hi); continue; }
-    if ((plo < 0) === (phi < 0)) continue;
+    let lo = edges[j],
+      hi = edges[j + 1];
+    const plo = p(lo),
+      phi = p(hi);
+    if (plo === 0) {
+      if (j > 0 && roots[roots.length - 1] !== lo) roots.push(lo);
+      continue;
+    }
+    if (phi === 0) {
+      roots.push(hi);
+      continue;
+    }
+    if (plo < 0 === phi < 0) continue;
     const neg = plo < 0;
     for (let it = 0; it < 2200; it++) {
       const mid = 0.5 * (lo + hi);
       if (mid <= lo || mid >= hi) break;
       const pm = p(mid);
-      if (pm === 0) { lo = hi = mid; break; }
-      if ((pm < 0) === neg) lo = mid; else hi = mid;
+      if (pm === 0) {
+        lo = hi = mid;
+        break;
+      }
+      if (pm < 0 === neg) lo = mid;
+      else hi = mid;
     }
     roots.push(Math.abs(p(lo)) <= Math.abs(p(hi)) ? lo : hi);
   }

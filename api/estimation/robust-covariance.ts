@@ -34,12 +34,20 @@ import { take, type Workspace } from './workspace';
  *   // → [7/18, −1/6, −1/6, 1/12]   (column-major 2 × 2)
  */
 export function robustCovariance(
-  core: LeastSquaresCore, e: ArrayLike<number>, leverage: ArrayLike<number>, options: CovarianceOptions, ws?: Workspace,
+  core: LeastSquaresCore,
+  e: ArrayLike<number>,
+  leverage: ArrayLike<number>,
+  options: CovarianceOptions,
+  ws?: Workspace,
 ): { matrix: Float64Array; info: CovarianceInfo } {
   const { n, k, perm, rinv, q1, xtxInv } = core;
   const type = options.covariance ?? 'classical';
   if (!(n > k)) {
-    throw new EstimationInputError('invalid_argument', `Need more rows than columns for a covariance (n = ${n}, k = ${k})`, { n, k });
+    throw new EstimationInputError(
+      'invalid_argument',
+      `Need more rows than columns for a covariance (n = ${n}, k = ${k})`,
+      { n, k },
+    );
   }
   if (type === 'classical') {
     let rss = 0;
@@ -59,7 +67,11 @@ export function robustCovariance(
   } else if (type === 'newey_west') {
     lag = options.lag ?? defaultNeweyWestLag(n);
     if (!Number.isInteger(lag) || lag < 0 || lag >= n) {
-      throw new EstimationInputError('invalid_argument', `Newey–West lag must be an integer in [0, n−1] (n = ${n}), got ${lag}`, { reason: 'lag', lag, n });
+      throw new EstimationInputError(
+        'invalid_argument',
+        `Newey–West lag must be an integer in [0, n−1] (n = ${n}), got ${lag}`,
+        { reason: 'lag', lag, n },
+      );
     }
     meat = neweyWestMeat(q1, e, n, k, lag, ws);
     factor = options.adjust === false ? 1 : n / (n - k);
@@ -67,28 +79,46 @@ export function robustCovariance(
   } else if (type === 'cluster') {
     const labels = options.clusters;
     if (!labels || labels.length !== n) {
-      throw new EstimationInputError('invalid_argument', `Cluster covariance needs one cluster label per row (${n}), got ${labels ? labels.length : 'none'}`, { reason: 'clusters', n });
+      throw new EstimationInputError(
+        'invalid_argument',
+        `Cluster covariance needs one cluster label per row (${n}), got ${labels ? labels.length : 'none'}`,
+        { reason: 'clusters', n },
+      );
     }
     const index = new Map<string | number, number>();
     const groups = new Int32Array(n);
     for (let i = 0; i < n; i++) {
       let g = index.get(labels[i]);
-      if (g === undefined) { g = index.size; index.set(labels[i], g); }
+      if (g === undefined) {
+        g = index.size;
+        index.set(labels[i], g);
+      }
       groups[i] = g;
     }
     const G = index.size;
-    if (G < 2) throw new EstimationInputError('invalid_argument', 'Cluster covariance needs at least 2 clusters', { reason: 'clusters', clusters: G });
+    if (G < 2)
+      throw new EstimationInputError('invalid_argument', 'Cluster covariance needs at least 2 clusters', {
+        reason: 'clusters',
+        clusters: G,
+      });
     clusters = G;
     meat = clusterMeat(q1, e, n, k, groups, G, ws);
     const kc = options.clusterParameterCount ?? k;
     const adj = options.clusterAdjustment ?? 'n_over_n_minus_k';
-    factor = adj === 'none' ? 1
-      : adj === 'g_over_g_minus_1' ? G / (G - 1)
-        : adj === 'combined' ? (G / (G - 1)) * ((n - 1) / (n - kc))
-          : n / (n - kc);
+    factor =
+      adj === 'none'
+        ? 1
+        : adj === 'g_over_g_minus_1'
+          ? G / (G - 1)
+          : adj === 'combined'
+            ? (G / (G - 1)) * ((n - 1) / (n - kc))
+            : n / (n - kc);
     for (let i = 0; i < k * k; i++) meat[i] *= factor;
   } else {
-    throw new EstimationInputError('invalid_argument', `Unknown covariance type '${String(type)}'`, { reason: 'covariance', covariance: type });
+    throw new EstimationInputError('invalid_argument', `Unknown covariance type '${String(type)}'`, {
+      reason: 'covariance',
+      covariance: type,
+    });
   }
   // V_piv = R⁻¹ M R⁻ᵀ (R⁻¹ upper triangular, column-major k × k)
   const t = take(ws, k * k); // T = R⁻¹ M

@@ -15,7 +15,9 @@ import type { ShapeName } from './types';
  *   selectTurningPoint([{ x: 8, kind: 'peak', inRange: false }, { x: 10, kind: 'trough', inRange: true }], 'u', 9.5)  // → 1
  */
 export function selectTurningPoint(
-  points: ReadonlyArray<{ x: number; kind: 'peak' | 'trough'; inRange: boolean }>, shape: ShapeName, xNow: number,
+  points: ReadonlyArray<{ x: number; kind: 'peak' | 'trough'; inRange: boolean }>,
+  shape: ShapeName,
+  xNow: number,
 ): number | null {
   if (points.length === 0) return null;
   const want = shape === 'inverted_u' ? 'peak' : shape === 'u' ? 'trough' : null;

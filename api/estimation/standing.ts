@@ -34,11 +34,20 @@ export function districtStanding(input: {
   const { shape, turningPoints, xNow, levelNow, method, level } = input;
   const index = selectTurningPoint(turningPoints, shape, xNow);
   const tp = index === null ? null : turningPoints[index];
-  const interval: IntervalEnds | null = tp === null ? null
-    : method === 'delta'
-      ? { lo: tp.delta.lo, hi: tp.delta.hi, levelLo: tp.delta.levelLo, levelHi: tp.delta.levelHi }
-      : { lo: tp.fieller.lo, hi: tp.fieller.hi, levelLo: tp.fieller.levelLo, levelHi: tp.fieller.levelHi };
-  const base = { turningPointIndex: index, intervalMethod: method, interval, extrapolated: tp ? tp.extrapolated : false, xNow, levelNow };
+  const interval: IntervalEnds | null =
+    tp === null
+      ? null
+      : method === 'delta'
+        ? { lo: tp.delta.lo, hi: tp.delta.hi, levelLo: tp.delta.levelLo, levelHi: tp.delta.levelHi }
+        : { lo: tp.fieller.lo, hi: tp.fieller.hi, levelLo: tp.fieller.levelLo, levelHi: tp.fieller.levelHi };
+  const base = {
+    turningPointIndex: index,
+    intervalMethod: method,
+    interval,
+    extrapolated: tp ? tp.extrapolated : false,
+    xNow,
+    levelNow,
+  };
   if (!hasTurn(shape)) {
     return { standing: 'no_turn', intervalBounded: tp ? tp.intervalBounded : null, note: null, ...base };
   }

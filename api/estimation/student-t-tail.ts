@@ -29,7 +29,9 @@ export function studentTUpperTail(t: number, nu: number): number {
   const even = nu % 2 === 0;
   const m = even ? nu / 2 : (nu - 1) / 2;
   // finite sum Σ_{j<m}; its complement is accurate while the tail is not small
-  let coef = 1, xp = 1, sum = 0;
+  let coef = 1,
+    xp = 1,
+    sum = 0;
   for (let j = 0; j < m; j++) {
     sum += coef * xp;
     const jj = j + 1;

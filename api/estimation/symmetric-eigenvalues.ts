@@ -33,7 +33,10 @@ export function symmetricEigenvalues(matrix: Float64Array, n: number): number[] 
       for (let k = 0; k <= l; k++) scale += Math.abs(a[i][k]);
       if (scale === 0) e[i] = a[i][l];
       else {
-        for (let k = 0; k <= l; k++) { a[i][k] /= scale; h += a[i][k] * a[i][k]; }
+        for (let k = 0; k <= l; k++) {
+          a[i][k] /= scale;
+          h += a[i][k] * a[i][k];
+        }
         let f = a[i][l];
         const g = f >= 0 ? -Math.sqrt(h) : Math.sqrt(h);
         e[i] = scale * g;
@@ -75,14 +78,20 @@ export function symmetricEigenvalues(matrix: Float64Array, n: number): number[] 
         let g = (d[l + 1] - d[l]) / (2 * e[l]);
         let r = Math.hypot(g, 1);
         g = d[m] - d[l] + e[l] / (g + (g >= 0 ? Math.abs(r) : -Math.abs(r)));
-        let s = 1, c = 1, p = 0;
+        let s = 1,
+          c = 1,
+          p = 0;
         let i: number;
         for (i = m - 1; i >= l; i--) {
           let f = s * e[i];
           const b = c * e[i];
           r = Math.hypot(f, g);
           e[i + 1] = r;
-          if (r === 0) { d[i + 1] -= p; e[m] = 0; break; }
+          if (r === 0) {
+            d[i + 1] -= p;
+            e[m] = 0;
+            break;
+          }
           s = f / r;
           c = g / r;
           g = d[i + 1] - p;

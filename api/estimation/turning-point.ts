@@ -15,12 +15,21 @@
  *   // → { x: 9.775524142136641, kind: 'peak', gradient: [0.80738…, 15.78517…], se: 0.0297288… }
  */
 export function quadraticTurningPoint(
-  b1: number, b2: number, v11: number, v12: number, v22: number,
+  b1: number,
+  b2: number,
+  v11: number,
+  v12: number,
+  v22: number,
 ): { x: number; kind: 'peak' | 'trough'; gradient: [number, number]; se: number | null } | null {
   if (b2 === 0 || !Number.isFinite(b1) || !Number.isFinite(b2)) return null;
   const x = -b1 / (2 * b2);
   const g1 = -1 / (2 * b2);
   const g2 = b1 / (2 * b2 * b2);
   const v = g1 * g1 * v11 + 2 * g1 * g2 * v12 + g2 * g2 * v22;
-  return { x, kind: b2 < 0 ? 'peak' : 'trough', gradient: [g1, g2], se: v >= 0 && Number.isFinite(v) ? Math.sqrt(v) : null };
+  return {
+    x,
+    kind: b2 < 0 ? 'peak' : 'trough',
+    gradient: [g1, g2],
+    se: v >= 0 && Number.isFinite(v) ? Math.sqrt(v) : null,
+  };
 }

@@ -18,29 +18,51 @@
  *   twoWayWithin([col], units, periods, 2, 2)   // col → (0.25, −0.25, −0.25, 0.25), iterations 2
  */
 export function twoWayWithin(
-  columns: Float64Array[], unit: Int32Array, period: Int32Array, nUnits: number, nPeriods: number,
-  tol = 1e-12, maxIterations = 10000,
+  columns: Float64Array[],
+  unit: Int32Array,
+  period: Int32Array,
+  nUnits: number,
+  nPeriods: number,
+  tol = 1e-12,
+  maxIterations = 10000,
 ): { iterations: number; converged: boolean; maxRelativeChange: number } {
   const n = unit.length;
-  const cu = new Float64Array(nUnits), cp = new Float64Array(nPeriods);
-  for (let i = 0; i < n; i++) { cu[unit[i]]++; cp[period[i]]++; }
-  const su = new Float64Array(nUnits), sp = new Float64Array(nPeriods);
-  let iterations = 0, converged = true, worst = 0;
+  const cu = new Float64Array(nUnits),
+    cp = new Float64Array(nPeriods);
+  for (let i = 0; i < n; i++) {
+    cu[unit[i]]++;
+    cp[period[i]]++;
+  }
+  const su = new Float64Array(nUnits),
+    sp = new Float64Array(nPeriods);
+  let iterations = 0,
+    converged = true,
+    worst = 0;
   for (const z of columns) {
     let scale = 0;
     for (let i = 0; i < n; i++) if (Math.abs(z[i]) > scale) scale = Math.abs(z[i]);
     if (scale === 0) continue;
-    let it = 0, change = Infinity;
+    let it = 0,
+      change = Infinity;
     while (it < maxIterations) {
       it++;
-      su.fill(0); sp.fill(0);
+      su.fill(0);
+      sp.fill(0);
       for (let i = 0; i < n; i++) su[unit[i]] += z[i];
       for (let g = 0; g < nUnits; g++) su[g] /= cu[g];
       change = 0;
-      for (let i = 0; i < n; i++) { const d = su[unit[i]]; z[i] -= d; if (Math.abs(d) > change) change = Math.abs(d); }
+      for (let i = 0; i < n; i++) {
+        const d = su[unit[i]];
+        z[i] -= d;
+        if (Math.abs(d) > change) change = Math.abs(d);
+      }
       for (let i = 0; i < n; i++) sp[period[i]] += z[i];
       for (let t = 0; t < nPeriods; t++) sp[t] /= cp[t];
-      for (let i = 0; i < n; i++) { const d = sp[period[i]]; z[i] -= d; if (Math.abs(d) > change) change = Math.abs(d); }
+      for (let i = 0; i < n; i++) {
+        const d = sp[period[i]];
+        z[i] -= d;
+        if (Math.abs(d) > change) change = Math.abs(d);
+      }
       if (change <= tol * scale) break;
     }
     if (it > iterations) iterations = it;

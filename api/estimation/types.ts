@@ -289,10 +289,23 @@ export interface ProjectionResult {
 
 export interface CurveDiagnostics {
   /** pValue: normal approximation with exact moments; pValueExact: Imhof's exact p (null unless requested) */
-  durbinWatson: { statistic: number; pValue: number | null; pValueExact: number | null; mean: number | null; variance: number | null; method: string };
+  durbinWatson: {
+    statistic: number;
+    pValue: number | null;
+    pValueExact: number | null;
+    mean: number | null;
+    variance: number | null;
+    method: string;
+  };
   breuschGodfrey: Array<{ order: number; statistic: number | null; df: number; pValue: number | null }>;
   breuschPagan: { statistic: number | null; df: number; pValue: number | null };
-  jarqueBera: { statistic: number | null; skewness: number | null; kurtosis: number | null; df: 2; pValue: number | null };
+  jarqueBera: {
+    statistic: number | null;
+    skewness: number | null;
+    kurtosis: number | null;
+    df: 2;
+    pValue: number | null;
+  };
   /** row is the index in year order */
   largestLeverage: { value: number; year: number; row: number } | null;
   residualsByYear: Array<{ year: number; residual: number }>;
@@ -347,7 +360,11 @@ export interface CurveNotEstimable {
   n: number;
   k: number;
   minYears: number;
-  reason: { code: 'too_few_rows' | 'rank_deficient' | 'covariance_undefined' | 'numerical_failure'; message: string; details: Record<string, unknown> };
+  reason: {
+    code: 'too_few_rows' | 'rank_deficient' | 'covariance_undefined' | 'numerical_failure';
+    message: string;
+    details: Record<string, unknown>;
+  };
   standing: { standing: 'not_estimable' };
 }
 
@@ -384,7 +401,13 @@ export interface PanelFit {
   rss: number;
   rSquaredWithin: number;
   adjRSquaredWithin: number;
-  absorption: { method: 'alternating_projections'; iterations: number; converged: boolean; maxRelativeChange: number; components: number };
+  absorption: {
+    method: 'alternating_projections';
+    iterations: number;
+    converged: boolean;
+    maxRelativeChange: number;
+    components: number;
+  };
   range: { xMin: number; xMax: number; levelMin: number; levelMax: number };
   critical: CriticalValueInfo;
   turningPoints: TurningPoint[];
@@ -399,7 +422,11 @@ export interface PanelNotEstimable {
   model: import('./model-spec').ModelSpec;
   n: number;
   k: number;
-  reason: { code: 'too_few_rows' | 'too_few_districts' | 'rank_deficient' | 'not_converged' | 'numerical_failure'; message: string; details: Record<string, unknown> };
+  reason: {
+    code: 'too_few_rows' | 'too_few_districts' | 'rank_deficient' | 'not_converged' | 'numerical_failure';
+    message: string;
+    details: Record<string, unknown>;
+  };
 }
 
 export type FitPanelResult = PanelFit | PanelNotEstimable;

@@ -24,13 +24,21 @@ import type { UTestResult } from './types';
  *   // → { orientation: 'inverted_u', statistic: 15.5726…, pValue: 1.66e-16, rejects: true, … }
  */
 export function lindMehlumTest(
-  slopeCoefficients: ReadonlyArray<number>, slopeCovariance: ReadonlyArray<ArrayLike<number>>,
-  xMin: number, xMax: number, df: number | null, alpha: number,
+  slopeCoefficients: ReadonlyArray<number>,
+  slopeCovariance: ReadonlyArray<ArrayLike<number>>,
+  xMin: number,
+  xMax: number,
+  df: number | null,
+  alpha: number,
 ): UTestResult {
   const lo = slopeAt(slopeCoefficients, slopeCovariance, xMin);
   const hi = slopeAt(slopeCoefficients, slopeCovariance, xMax);
-  const loValue = lo[0], loSe = lo[1], hiValue = hi[0], hiSe = hi[1];
-  const tMin = loValue / loSe, tMax = hiValue / hiSe;
+  const loValue = lo[0],
+    loSe = lo[1],
+    hiValue = hi[0],
+    hiSe = hi[1];
+  const tMin = loValue / loSe,
+    tMax = hiValue / hiSe;
   const orientation: 'inverted_u' | 'u' = hiValue < loValue ? 'inverted_u' : 'u';
   const invStat = Math.min(tMin, -tMax);
   const uStat = Math.min(-tMin, tMax);
@@ -41,10 +49,18 @@ export function lindMehlumTest(
   // extremum inside the range: the slope changes sign between x_min and x_max
   const extremumInRange = (loValue > 0 && hiValue < 0) || (loValue < 0 && hiValue > 0);
   return {
-    xMin, xMax,
-    slopeAtMin: loValue, seAtMin: loSe, tAtMin: finite(tMin),
-    slopeAtMax: hiValue, seAtMax: hiSe, tAtMax: finite(tMax),
-    orientation, statistic: finite(statistic), df, pValue,
+    xMin,
+    xMax,
+    slopeAtMin: loValue,
+    seAtMin: loSe,
+    tAtMin: finite(tMin),
+    slopeAtMax: hiValue,
+    seAtMax: hiSe,
+    tAtMax: finite(tMax),
+    orientation,
+    statistic: finite(statistic),
+    df,
+    pValue,
     rejects: pValue !== null && pValue < alpha,
     alpha,
     extremumInRange,
@@ -58,7 +74,9 @@ export function lindMehlumTest(
 /** [s(x), se(s(x))] for the slope polynomial with gradient (1, 2x, 3x²). */
 function slopeAt(b: ReadonlyArray<number>, V: ReadonlyArray<ArrayLike<number>>, x: number): [number, number] {
   const m = b.length;
-  const a0 = 1, a1 = 2 * x, a2 = 3 * x * x;
+  const a0 = 1,
+    a1 = 2 * x,
+    a2 = 3 * x * x;
   let value = a0 * b[0] + a1 * b[1];
   let v = V[0][0] + 2 * a1 * V[0][1] + a1 * a1 * V[1][1];
   if (m > 2) {

@@ -23,10 +23,22 @@ import type { WaldTestResult } from './types';
  *   waldTest([1, 1], [[1, 0], [0, 1]], 30, 0.05)   // → { statistic: 2, q: 2, fStatistic: 1, df: 30, pValue: 0.37981…, rejects: false, condition: 1, … }
  */
 export function waldTest(
-  b: ReadonlyArray<number>, v: ReadonlyArray<ArrayLike<number>>, df: number | null, alpha: number,
+  b: ReadonlyArray<number>,
+  v: ReadonlyArray<ArrayLike<number>>,
+  df: number | null,
+  alpha: number,
 ): WaldTestResult {
   const q = b.length;
-  const fail = (reason: string): WaldTestResult => ({ statistic: null, q, fStatistic: null, df, pValue: null, rejects: null, reason, condition: null });
+  const fail = (reason: string): WaldTestResult => ({
+    statistic: null,
+    q,
+    fStatistic: null,
+    df,
+    pValue: null,
+    rejects: null,
+    reason,
+    condition: null,
+  });
   const d = new Float64Array(q);
   for (let i = 0; i < q; i++) {
     if (!(v[i][i] > 0) || !Number.isFinite(v[i][i])) return fail('covariance block is not positive definite');
@@ -37,22 +49,38 @@ export function waldTest(
   for (let i = 0; i < q; i++) for (let j = 0; j < q; j++) a[i * q + j] = 0.5 * (v[i][j] + v[j][i]) * d[i] * d[j];
   const z = new Float64Array(q);
   for (let i = 0; i < q; i++) z[i] = b[i] * d[i];
-  let maxPivot = 0, minPivot = Infinity;
+  let maxPivot = 0,
+    minPivot = Infinity;
   for (let j = 0; j < q; j++) {
     let p = j;
     for (let i = j + 1; i < q; i++) if (a[i * q + i] > a[p * q + p]) p = i;
     if (p !== j) {
-      for (let c = 0; c < q; c++) { const t = a[j * q + c]; a[j * q + c] = a[p * q + c]; a[p * q + c] = t; }
-      for (let r = 0; r < q; r++) { const t = a[r * q + j]; a[r * q + j] = a[r * q + p]; a[r * q + p] = t; }
-      const t = z[j]; z[j] = z[p]; z[p] = t;
+      for (let c = 0; c < q; c++) {
+        const t = a[j * q + c];
+        a[j * q + c] = a[p * q + c];
+        a[p * q + c] = t;
+      }
+      for (let r = 0; r < q; r++) {
+        const t = a[r * q + j];
+        a[r * q + j] = a[r * q + p];
+        a[r * q + p] = t;
+      }
+      const t = z[j];
+      z[j] = z[p];
+      z[p] = t;
     }
     const piv = a[j * q + j];
     if (!(piv > 1e-14) || !Number.isFinite(piv)) return fail('covariance block is not positive definite');
     const ljj = Math.sqrt(piv);
-    maxPivot = Math.max(maxPivot, ljj); minPivot = Math.min(minPivot, ljj);
+    maxPivot = Math.max(maxPivot, ljj);
+    minPivot = Math.min(minPivot, ljj);
     a[j * q + j] = ljj;
     for (let i = j + 1; i < q; i++) a[i * q + j] /= ljj;
-    for (let i = j + 1; i < q; i++) for (let c = j + 1; c <= i; c++) { a[i * q + c] -= a[i * q + j] * a[c * q + j]; a[c * q + i] = a[i * q + c]; }
+    for (let i = j + 1; i < q; i++)
+      for (let c = j + 1; c <= i; c++) {
+        a[i * q + c] -= a[i * q + j] * a[c * q + j];
+        a[c * q + i] = a[i * q + c];
+      }
   }
   // W = ‖L⁻¹ z‖²
   let w = 0;

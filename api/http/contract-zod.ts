@@ -49,7 +49,9 @@ function build(schema: Schema): z.ZodType {
         : z.record(z.string(), toZod(node.value));
     case 'union': {
       const options = node.options.map(toZod) as [z.ZodType, ...z.ZodType[]];
-      return node.discriminator ? z.discriminatedUnion(node.discriminator, options as unknown as [z.ZodObject, ...z.ZodObject[]]) : z.union(options);
+      return node.discriminator
+        ? z.discriminatedUnion(node.discriminator, options as unknown as [z.ZodObject, ...z.ZodObject[]])
+        : z.union(options);
     }
   }
 }

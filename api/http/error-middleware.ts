@@ -15,9 +15,15 @@ export function errorMiddleware(log: (msg: string) => void): ErrorRequestHandler
       return;
     }
     // body-parser and multer errors carry a status and a type.
-    const status = typeof err?.status === 'number' ? err.status : typeof err?.statusCode === 'number' ? err.statusCode : 500;
+    const status =
+      typeof err?.status === 'number' ? err.status : typeof err?.statusCode === 'number' ? err.statusCode : 500;
     if (status >= 400 && status < 500) {
-      const code = err.type === 'entity.too.large' ? 'payload_too_large' : err.type === 'entity.parse.failed' ? 'malformed_json' : 'bad_request';
+      const code =
+        err.type === 'entity.too.large'
+          ? 'payload_too_large'
+          : err.type === 'entity.parse.failed'
+            ? 'malformed_json'
+            : 'bad_request';
       res.status(status).json({ error: { code, message: err.expose === false ? 'Bad request' : String(err.message) } });
       return;
     }

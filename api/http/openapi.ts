@@ -30,7 +30,13 @@ function contractNames(): Map<Schema, string> {
   const names = new Map<Schema, string>();
   for (const mod of [common, districts, estimates, alerts, runs, uploads, people, settings, briefs]) {
     for (const [key, value] of Object.entries(mod)) {
-      if (key.endsWith('Schema') && typeof value === 'object' && value !== null && 'node' in value && !names.has(value as Schema)) {
+      if (
+        key.endsWith('Schema') &&
+        typeof value === 'object' &&
+        value !== null &&
+        'node' in value &&
+        !names.has(value as Schema)
+      ) {
         names.set(value as Schema, key.slice(0, -'Schema'.length));
       }
     }
@@ -69,7 +75,11 @@ function successes(spec: RouteSpec, ref: (schema: Schema) => JsonSchema): Record
   }
   const out: Record<string, unknown> = {};
   for (const status of spec.statuses ?? [200]) {
-    out[String(status)] = { description: status === 202 ? 'Accepted' : status === 201 ? 'Created' : status >= 500 ? 'Fault reported' : 'Success', content: { 'application/json': { schema: ref(answer) } } };
+    out[String(status)] = {
+      description:
+        status === 202 ? 'Accepted' : status === 201 ? 'Created' : status >= 500 ? 'Fault reported' : 'Success',
+      content: { 'application/json': { schema: ref(answer) } },
+    };
   }
   return out;
 }
@@ -90,12 +100,23 @@ export function openApiDocument(specs: RouteSpec[], version: string) {
       summary: spec.summary,
       tags: [spec.tag],
       'x-allow': spec.allow === 'public' ? 'public' : [...spec.allow],
-      ...(spec.rateLimit ? { 'x-rate-limit': { perMinute: spec.rateLimit.perMinute, inFlight: spec.rateLimit.inFlight, bucket: spec.rateLimit.bucket } } : {}),
+      ...(spec.rateLimit
+        ? {
+            'x-rate-limit': {
+              perMinute: spec.rateLimit.perMinute,
+              inFlight: spec.rateLimit.inFlight,
+              bucket: spec.rateLimit.bucket,
+            },
+          }
+        : {}),
       security: spec.allow === 'public' ? [] : [{ session: [] }],
       parameters: [...parameters(spec.schemas?.params, 'path'), ...parameters(spec.schemas?.query, 'query')],
       responses: {
         ...successes(spec, ref),
-        '4XX': { description: 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } },
+        '4XX': {
+          description: 'Error',
+          content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } },
+        },
       },
     };
     if (spec.schemas?.body) {

@@ -43,7 +43,12 @@ export function personLimiter(limit: RateLimit): RequestHandler {
     handler: (req, res, next) => {
       const reset = (req as { rateLimit?: { resetTime?: Date } }).rateLimit?.resetTime;
       const seconds = reset ? (reset.getTime() - Date.now()) / 1000 : 60;
-      refuse(res, next, seconds, `Too many heavy requests: at most ${limit.perMinute} a minute per person. Try again shortly.`);
+      refuse(
+        res,
+        next,
+        seconds,
+        `Too many heavy requests: at most ${limit.perMinute} a minute per person. Try again shortly.`,
+      );
     },
   });
   const open = new Map<string, number>();

@@ -41,7 +41,11 @@ export interface Caller {
   active: boolean;
 }
 
-export interface RouteSpec<P extends z.ZodType = z.ZodType, Q extends z.ZodType = z.ZodType, B extends z.ZodType = z.ZodType> {
+export interface RouteSpec<
+  P extends z.ZodType = z.ZodType,
+  Q extends z.ZodType = z.ZodType,
+  B extends z.ZodType = z.ZodType,
+> {
   method: Method;
   /** Express path under the app root, e.g. `/api/districts/:code`. */
   path: string;
@@ -141,6 +145,14 @@ export function mountRoutes(router: Router, specs: RouteSpec[], limits: Record<s
     };
     const csrf = UNSAFE.has(spec.method) ? [csrfCheck(spec)] : [];
     const limit = spec.rateLimit ? [limiterFor(spec.rateLimit)] : [];
-    router[spec.method](spec.path, guard(spec.allow), ...limit, ...csrf, ...(spec.before ?? []), validate(spec.schemas ?? {}), handler);
+    router[spec.method](
+      spec.path,
+      guard(spec.allow),
+      ...limit,
+      ...csrf,
+      ...(spec.before ?? []),
+      validate(spec.schemas ?? {}),
+      handler,
+    );
   }
 }

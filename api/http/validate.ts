@@ -18,9 +18,11 @@ export type Parsed<P extends z.ZodType, Q extends z.ZodType, B extends z.ZodType
   body: z.infer<B>;
 };
 
-export function validate<P extends z.ZodType = z.ZodAny, Q extends z.ZodType = z.ZodAny, B extends z.ZodType = z.ZodAny>(
-  schemas: RequestSchemas<P, Q, B>,
-): RequestHandler {
+export function validate<
+  P extends z.ZodType = z.ZodAny,
+  Q extends z.ZodType = z.ZodAny,
+  B extends z.ZodType = z.ZodAny,
+>(schemas: RequestSchemas<P, Q, B>): RequestHandler {
   return (req: Request, res: Response, next: NextFunction) => {
     const input: Record<string, unknown> = {};
     for (const part of ['params', 'query', 'body'] as const) {
@@ -29,7 +31,9 @@ export function validate<P extends z.ZodType = z.ZodAny, Q extends z.ZodType = z
       const result = schema.safeParse(req[part] ?? {});
       if (!result.success) {
         const issues = result.error.issues.map((i) => ({ path: [part, ...i.path].join('.'), message: i.message }));
-        throw new ValidationError(`Invalid ${part}: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`, { issues });
+        throw new ValidationError(`Invalid ${part}: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`, {
+          issues,
+        });
       }
       input[part] = result.data;
     }

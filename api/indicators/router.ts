@@ -27,7 +27,8 @@ export function indicatorRoutes({ db }: AppContext): RouteSpec[] {
       statuses: [201],
       allow: STAFF,
       tag: 'indicators',
-      summary: 'Add an indicator; a derived one (per person, or real from nominal) is computed at once from its sources',
+      summary:
+        'Add an indicator; a derived one (per person, or real from nominal) is computed at once from its sources',
       schemas: { body: createIndicatorBody },
       handler: async ({ body }, req, res) => {
         const answer = await service.createIndicator(db, body, whoOf(req));

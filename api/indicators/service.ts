@@ -32,11 +32,25 @@ export interface IndicatorView {
 export function viewOf(r: store.IndicatorRow): IndicatorView {
   let derivation: IndicatorView['derivation'] = null;
   if (r.derivation === 'per_person') {
-    derivation = { kind: 'per_person', source: r.sourceCode!, divisor: r.divisorCode!, formula: `${r.sourceCode} ÷ ${r.divisorCode}` };
+    derivation = {
+      kind: 'per_person',
+      source: r.sourceCode!,
+      divisor: r.divisorCode!,
+      formula: `${r.sourceCode} ÷ ${r.divisorCode}`,
+    };
   } else if (r.derivation === 'from_boundaries') {
-    derivation = { kind: 'from_boundaries', measure: 'area_km2', formula: 'land area of the district’s current boundary, km² (on the ellipsoid)' };
+    derivation = {
+      kind: 'from_boundaries',
+      measure: 'area_km2',
+      formula: 'land area of the district’s current boundary, km² (on the ellipsoid)',
+    };
   } else if (r.derivation === 'ratio') {
-    derivation = { kind: 'ratio', source: r.sourceCode!, divisor: r.divisorCode!, formula: `${r.sourceCode} ÷ ${r.divisorCode}` };
+    derivation = {
+      kind: 'ratio',
+      source: r.sourceCode!,
+      divisor: r.divisorCode!,
+      formula: `${r.sourceCode} ÷ ${r.divisorCode}`,
+    };
   } else if (r.derivation === 'real_from_nominal') {
     derivation = {
       kind: 'real_from_nominal',
@@ -77,13 +91,25 @@ export async function createIndicator(db: Knex, body: CreateIndicator, who: Who)
       const created = (await store.findIndicator(conn, body.code))!;
       const recomputed = body.derivation ? await recomputeDerivedIndicator(conn, created.id, created.code, who) : null;
       const indicator = viewOf((await store.findIndicator(conn, body.code))!);
-      await audit.recordOn(conn, { actorId: who.id, actorEmail: who.email, action: 'indicator.create', targetType: 'indicator', targetId: body.code, after: indicator });
+      await audit.recordOn(conn, {
+        actorId: who.id,
+        actorEmail: who.email,
+        action: 'indicator.create',
+        targetType: 'indicator',
+        targetId: body.code,
+        after: indicator,
+      });
       return { indicator, recomputed };
     }),
   );
 }
 
-export async function updateIndicator(db: Knex, code: string, body: UpdateIndicator, who: Who): Promise<IndicatorAnswer> {
+export async function updateIndicator(
+  db: Knex,
+  code: string,
+  body: UpdateIndicator,
+  who: Who,
+): Promise<IndicatorAnswer> {
   return withConnection(db, (conn) =>
     inTransaction(conn, async () => {
       const cur = await store.findIndicator(conn, code, { forUpdate: true });
@@ -94,10 +120,16 @@ export async function updateIndicator(db: Knex, code: string, body: UpdateIndica
         const bad = await store.nonPositiveValues(conn, cur.id);
         if (bad.count > 0) {
           const s = bad.sample[0];
-          throw new AppError(409, 'values_not_positive', `${code} holds ${bad.count} values ≤ 0 (e.g. ${s.district} ${s.year}: ${s.value}); fix them before making it positive-only.`, bad);
+          throw new AppError(
+            409,
+            'values_not_positive',
+            `${code} holds ${bad.count} values ≤ 0 (e.g. ${s.district} ${s.year}: ${s.value}); fix them before making it positive-only.`,
+            bad,
+          );
         }
       }
-      const derivationChanged = body.derivation !== undefined && JSON.stringify(body.derivation) !== JSON.stringify(inputOf(before.derivation));
+      const derivationChanged =
+        body.derivation !== undefined && JSON.stringify(body.derivation) !== JSON.stringify(inputOf(before.derivation));
       if (derivationChanged && body.derivation && cur.derivation === 'none' && cur.stats.values > 0) {
         throw new AppError(
           409,
@@ -109,7 +141,12 @@ export async function updateIndicator(db: Knex, code: string, body: UpdateIndica
       if (derivationChanged && body.derivation) {
         const users = await store.dependents(conn, cur.id);
         if (users.length) {
-          throw new AppError(409, 'is_a_source', `${code} is a source of ${users.join(', ')}: a source cannot itself be derived.`, { code, dependents: users });
+          throw new AppError(
+            409,
+            'is_a_source',
+            `${code} is a source of ${users.join(', ')}: a source cannot itself be derived.`,
+            { code, dependents: users },
+          );
         }
       }
       const sources = body.derivation === undefined ? keep(cur) : await resolveDerivation(conn, code, body.derivation);
@@ -120,9 +157,18 @@ export async function updateIndicator(db: Knex, code: string, body: UpdateIndica
         mustBePositive,
         ...sources,
       });
-      const recomputed = derivationChanged && body.derivation ? await recomputeDerivedIndicator(conn, cur.id, code, who) : null;
+      const recomputed =
+        derivationChanged && body.derivation ? await recomputeDerivedIndicator(conn, cur.id, code, who) : null;
       const indicator = viewOf((await store.findIndicator(conn, code))!);
-      await audit.recordOn(conn, { actorId: who.id, actorEmail: who.email, action: 'indicator.update', targetType: 'indicator', targetId: code, before, after: indicator });
+      await audit.recordOn(conn, {
+        actorId: who.id,
+        actorEmail: who.email,
+        action: 'indicator.update',
+        targetType: 'indicator',
+        targetId: code,
+        before,
+        after: indicator,
+      });
       return { indicator, recomputed };
     }),
   );
@@ -143,19 +189,39 @@ function keep(cur: store.IndicatorRow) {
 
 async function resolveDerivation(conn: Sql, code: string, d: DerivationInput | null) {
   if (!d) return { derivation: 'none' as const, sourceId: null, divisorId: null, baseYear: null };
-  if (d.kind === 'from_boundaries') return { derivation: 'from_boundaries' as const, sourceId: null, divisorId: null, baseYear: null };
+  if (d.kind === 'from_boundaries')
+    return { derivation: 'from_boundaries' as const, sourceId: null, divisorId: null, baseYear: null };
   if (d.source === code || d.divisor === code || d.source === d.divisor) {
-    throw new AppError(422, 'bad_derivation', 'A derivation needs two different indicators, neither of them the derived one.', { derivation: d });
+    throw new AppError(
+      422,
+      'bad_derivation',
+      'A derivation needs two different indicators, neither of them the derived one.',
+      { derivation: d },
+    );
   }
   const source = await store.findIndicator(conn, d.source);
   const divisor = await store.findIndicator(conn, d.divisor);
   const missing = [!source ? d.source : null, !divisor ? d.divisor : null].filter(Boolean);
-  if (missing.length) throw new AppError(422, 'bad_derivation', `No indicator ${missing.join(' or ')} to derive from.`, { missing });
+  if (missing.length)
+    throw new AppError(422, 'bad_derivation', `No indicator ${missing.join(' or ')} to derive from.`, { missing });
   // A ratio may read land area from the boundaries; everything else derives from uploaded series.
-  const derived = [source!, divisor!].filter((s) => s.derivation !== 'none' && !(d.kind === 'ratio' && s.derivation === 'from_boundaries')).map((s) => s.code);
-  if (derived.length) throw new AppError(422, 'bad_derivation', `${derived.join(' and ')} ${derived.length > 1 ? 'are' : 'is'} derived: derive only from uploaded series.`, { derived });
+  const derived = [source!, divisor!]
+    .filter((s) => s.derivation !== 'none' && !(d.kind === 'ratio' && s.derivation === 'from_boundaries'))
+    .map((s) => s.code);
+  if (derived.length)
+    throw new AppError(
+      422,
+      'bad_derivation',
+      `${derived.join(' and ')} ${derived.length > 1 ? 'are' : 'is'} derived: derive only from uploaded series.`,
+      { derived },
+    );
   if (!divisor!.mustBePositive) {
-    throw new AppError(422, 'bad_derivation', `The divisor ${divisor!.code} must be a positive-only indicator, so the division is always defined.`, { divisor: divisor!.code });
+    throw new AppError(
+      422,
+      'bad_derivation',
+      `The divisor ${divisor!.code} must be a positive-only indicator, so the division is always defined.`,
+      { divisor: divisor!.code },
+    );
   }
   return {
     derivation: d.kind,

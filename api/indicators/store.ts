@@ -109,14 +109,20 @@ export async function updateIndicator(conn: Sql, id: number, w: IndicatorWrite):
 }
 
 /** Values ≤ 0 stored for an indicator (a positive rule cannot be switched on over them). */
-export async function nonPositiveValues(conn: Sql, id: number): Promise<{ count: number; sample: { district: string; year: number; value: number }[] }> {
+export async function nonPositiveValues(
+  conn: Sql,
+  id: number,
+): Promise<{ count: number; sample: { district: string; year: number; value: number }[] }> {
   const { rows } = await conn.query(
     `SELECT d.code AS district, o.year, o.value, count(*) OVER () AS total
        FROM observations o JOIN districts d ON d.id = o.district_id
       WHERE o.indicator_id = $1 AND o.value <= 0 ORDER BY d.code, o.year LIMIT 5`,
     [id],
   );
-  return { count: rows.length ? Number(rows[0].total) : 0, sample: rows.map((r) => ({ district: r.district, year: r.year, value: r.value })) };
+  return {
+    count: rows.length ? Number(rows[0].total) : 0,
+    sample: rows.map((r) => ({ district: r.district, year: r.year, value: r.value })),
+  };
 }
 
 /** Derived indicators that use this one as a source or divisor. */

@@ -26,7 +26,10 @@ export interface JobsOptions {
   schedule: boolean;
 }
 
-export type Handler = (data: Record<string, unknown>, meta: { retryCount: number; retryLimit: number; id: string }) => Promise<void>;
+export type Handler = (
+  data: Record<string, unknown>,
+  meta: { retryCount: number; retryLimit: number; id: string },
+) => Promise<void>;
 
 export interface Jobs {
   boss: PgBoss;
@@ -63,21 +66,26 @@ export async function startJobs(o: JobsOptions): Promise<Jobs> {
   await boss.start();
   for (const name of Object.values(QUEUES)) {
     const existing = await boss.getQueue(name);
-    if (!existing) await boss.createQueue(name, { name, policy: 'standard', expireInSeconds: o.expireInSeconds, ...RETRIES[name] });
+    if (!existing)
+      await boss.createQueue(name, { name, policy: 'standard', expireInSeconds: o.expireInSeconds, ...RETRIES[name] });
   }
   const workerIds = new Map<QueueName, string[]>();
   return {
     boss,
-    send: (queue, data, options) => boss.send(queue, data, { expireInSeconds: o.expireInSeconds, ...RETRIES[queue], ...options }),
+    send: (queue, data, options) =>
+      boss.send(queue, data, { expireInSeconds: o.expireInSeconds, ...RETRIES[queue], ...options }),
     insert: (queue, items, options) =>
-      boss.insert(items.map((data) => ({ name: queue, data, expireInSeconds: o.expireInSeconds, ...RETRIES[queue], ...options }))),
+      boss.insert(
+        items.map((data) => ({ name: queue, data, expireInSeconds: o.expireInSeconds, ...RETRIES[queue], ...options })),
+      ),
     async work(handlers) {
       for (const [queue, handler] of Object.entries(handlers) as [QueueName, Handler][]) {
         const id = await boss.work<Record<string, unknown>>(
           queue,
           { pollingIntervalSeconds: o.pollingIntervalSeconds, batchSize: 1, includeMetadata: true },
           async (jobs) => {
-            for (const job of jobs) await handler(job.data, { retryCount: job.retryCount, retryLimit: job.retryLimit, id: job.id });
+            for (const job of jobs)
+              await handler(job.data, { retryCount: job.retryCount, retryLimit: job.retryLimit, id: job.id });
           },
         );
         workerIds.set(queue, [...(workerIds.get(queue) ?? []), id]);

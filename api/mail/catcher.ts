@@ -33,7 +33,11 @@ export async function startMailCatcher(db: Knex, port = 0, host = '127.0.0.1'): 
             subject: mail.subject ?? '',
             text: mail.text ?? '',
             html: typeof mail.html === 'string' ? mail.html : null,
-            attachments: mail.attachments.map((a) => ({ filename: a.filename ?? null, contentType: a.contentType, size: a.size })),
+            attachments: mail.attachments.map((a) => ({
+              filename: a.filename ?? null,
+              contentType: a.contentType,
+              size: a.size,
+            })),
             messageId: mail.messageId ?? null,
             sizeBytes: raw.length,
           });

@@ -12,7 +12,12 @@ const query = z.object({
   /** Comma-separated indicator codes (default: every indicator the district has values for). */
   indicators: z
     .string()
-    .transform((s) => s.split(',').map((c) => c.trim()).filter(Boolean))
+    .transform((s) =>
+      s
+        .split(',')
+        .map((c) => c.trim())
+        .filter(Boolean),
+    )
     .pipe(z.array(indicatorCode).min(1))
     .optional(),
   /** A data version (GET /api/data-version); default the current one. */
@@ -27,7 +32,8 @@ export function observationRoutes({ db }: AppContext): RouteSpec[] {
       answer: DistrictObservationsResponseSchema,
       allow: SIGNED_IN,
       tag: 'districts',
-      summary: "A district's yearly series for every indicator, gap years as nulls, each value with its upload; optionally as of a data version",
+      summary:
+        "A district's yearly series for every indicator, gap years as nulls, each value with its upload; optionally as of a data version",
       schemas: { params, query },
       handler: ({ params: p, query: q }) => service.districtObservations(db, p.code, q),
     }),
@@ -36,7 +42,8 @@ export function observationRoutes({ db }: AppContext): RouteSpec[] {
       path: '/api/districts/:code/observations.csv',
       allow: SIGNED_IN,
       tag: 'districts',
-      summary: "A district's uploaded series as a wide CSV (text cells escaped against formula injection); it can be uploaded again",
+      summary:
+        "A district's uploaded series as a wide CSV (text cells escaped against formula injection); it can be uploaded again",
       produces: 'text/csv',
       rateLimit: COMPUTE_LIMIT,
       schemas: { params, query: z.object({ asOf }) },

@@ -32,10 +32,15 @@ export interface DistrictObservations {
   indicators: IndicatorSeries[];
 }
 
-export async function districtObservations(db: Knex, code: string, q: { indicators?: string[]; asOf?: number }): Promise<DistrictObservations> {
+export async function districtObservations(
+  db: Knex,
+  code: string,
+  q: { indicators?: string[]; asOf?: number },
+): Promise<DistrictObservations> {
   const district = await districtByCode(db, code);
   const latest = await store.latestVersion(db);
-  if (q.asOf !== undefined && q.asOf > latest) throw new NotFoundError(`No data version ${q.asOf}: the latest is ${latest}.`, { asOf: q.asOf, latest });
+  if (q.asOf !== undefined && q.asOf > latest)
+    throw new NotFoundError(`No data version ${q.asOf}: the latest is ${latest}.`, { asOf: q.asOf, latest });
   const asOf = q.asOf === undefined || q.asOf === latest ? null : q.asOf;
   const [rows, catalogue] = await Promise.all([store.seriesOf(db, district.id, asOf), store.catalogue(db)]);
   const wanted = q.indicators ? new Set(q.indicators) : null;
@@ -49,7 +54,9 @@ export async function districtObservations(db: Knex, code: string, q: { indicato
     list.push(r);
     byIndicator.set(r.indicatorId, list);
   }
-  const years = rows.length ? { first: Math.min(...rows.map((r) => r.year)), last: Math.max(...rows.map((r) => r.year)) } : null;
+  const years = rows.length
+    ? { first: Math.min(...rows.map((r) => r.year)), last: Math.max(...rows.map((r) => r.year)) }
+    : null;
   const indicators: IndicatorSeries[] = [];
   for (const ind of catalogue) {
     const list = byIndicator.get(ind.id);

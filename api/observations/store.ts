@@ -20,7 +20,12 @@ export async function seriesOf(db: Knex, districtId: number, asOf: number | null
     `SELECT o.indicator_id, o.year, o.value, o.upload_id FROM ${source} o WHERE o.district_id = ? ORDER BY o.indicator_id, o.year`,
     asOf === null ? [districtId] : [asOf, districtId],
   );
-  return rows.map((r: Record<string, number>) => ({ indicatorId: r.indicator_id, year: r.year, value: r.value, uploadId: r.upload_id }));
+  return rows.map((r: Record<string, number>) => ({
+    indicatorId: r.indicator_id,
+    year: r.year,
+    value: r.value,
+    uploadId: r.upload_id,
+  }));
 }
 
 export interface CatalogueRow {
@@ -33,7 +38,9 @@ export interface CatalogueRow {
 }
 
 export async function catalogue(db: Knex): Promise<CatalogueRow[]> {
-  const rows = await db('indicators').orderBy('id').select('id', 'code', 'name', 'unit', 'must_be_positive', 'derivation');
+  const rows = await db('indicators')
+    .orderBy('id')
+    .select('id', 'code', 'name', 'unit', 'must_be_positive', 'derivation');
   return rows.map((r: Record<string, unknown>) => ({
     id: Number(r.id),
     code: String(r.code),

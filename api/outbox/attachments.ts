@@ -10,7 +10,10 @@ export interface AttachmentSpec {
   runId?: number;
 }
 
-export type Renderer = (ctx: AppContext, spec: AttachmentSpec) => Promise<{ filename: string; content: Buffer; contentType: string }>;
+export type Renderer = (
+  ctx: AppContext,
+  spec: AttachmentSpec,
+) => Promise<{ filename: string; content: Buffer; contentType: string }>;
 
 const renderers = new Map<string, Renderer>();
 

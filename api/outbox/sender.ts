@@ -34,7 +34,9 @@ export async function deliverOutbox(ctx: AppContext, limit = 100): Promise<{ sen
           subject: message.subject,
           text: message.text,
           attachments,
-          headers: { 'Message-ID': `<outbox-${row.id}-${row.dedupeKey.replace(/[^A-Za-z0-9.-]/g, '-')}@crestwatch.example>` },
+          headers: {
+            'Message-ID': `<outbox-${row.id}-${row.dedupeKey.replace(/[^A-Za-z0-9.-]/g, '-')}@crestwatch.example>`,
+          },
         });
         await store.markSent(trx, row.id, row.attempts + 1);
         return 'sent' as const;

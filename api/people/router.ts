@@ -3,7 +3,12 @@ import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
 import { ADMIN, callerOf, ROLES, route, type RouteSpec } from '../http/routes';
 import * as service from './service';
-import { InviteAnswerSchema, PeopleResponseSchema, PersonAnswerSchema, PersonDeletedSchema } from '../../contracts/people';
+import {
+  InviteAnswerSchema,
+  PeopleResponseSchema,
+  PersonAnswerSchema,
+  PersonDeletedSchema,
+} from '../../contracts/people';
 
 const role = z.enum(ROLES);
 
@@ -46,7 +51,9 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
           .object({ role: role.optional(), active: z.boolean().optional(), name: z.string().max(120).optional() })
           .refine((b) => Object.keys(b).length > 0, 'give role, active or name'),
       },
-      handler: async ({ params, body }, req) => ({ person: await service.updatePerson(db, callerOf(req)!, params.id, body) }),
+      handler: async ({ params, body }, req) => ({
+        person: await service.updatePerson(db, callerOf(req)!, params.id, body),
+      }),
     }),
     route({
       method: 'delete',
@@ -54,7 +61,8 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
       answer: PersonDeletedSchema,
       allow: ADMIN,
       tag: 'people',
-      summary: 'Delete a person: ends their sessions, removes their subscriptions, keeps their audit entries under a pseudonym',
+      summary:
+        'Delete a person: ends their sessions, removes their subscriptions, keeps their audit entries under a pseudonym',
       schemas: { params: idParams },
       handler: async ({ params }, req) => ({ deleted: await service.deletePerson(db, callerOf(req)!, params.id) }),
     }),
@@ -73,7 +81,8 @@ export function peopleRoutes(ctx: AppContext): RouteSpec[] {
       path: '/api/people/:id/identity-reset',
       allow: ADMIN,
       tag: 'people',
-      summary: 'Forget the Google identity a person is pinned to; their next sign-in pins a new one (audited, ends their sessions)',
+      summary:
+        'Forget the Google identity a person is pinned to; their next sign-in pins a new one (audited, ends their sessions)',
       answer: PersonAnswerSchema,
       schemas: { params: idParams },
       handler: async ({ params }, req) => ({ person: await service.resetIdentity(db, callerOf(req)!, params.id) }),

@@ -18,7 +18,10 @@ import * as store from './store';
 export type PersonStatus = 'active' | 'invited' | 'expired' | 'deactivated';
 
 /** True when the invitation was never used and its expiry has passed. */
-export function invitationExpired(u: Pick<store.UserRow, 'lastSignInAt' | 'invitationExpiresAt'>, now = Date.now()): boolean {
+export function invitationExpired(
+  u: Pick<store.UserRow, 'lastSignInAt' | 'invitationExpiresAt'>,
+  now = Date.now(),
+): boolean {
   return u.lastSignInAt === null && u.invitationExpiresAt !== null && Date.parse(u.invitationExpiresAt) <= now;
 }
 
@@ -50,9 +53,16 @@ export async function listPeople(db: Knex): Promise<PublicUser[]> {
   return (await store.list(db)).map(publicUser);
 }
 
-export function invitationText(ctx: Pick<AppContext, 'config'>, role: Role, inviter: string, expiresAt: string | null = null) {
+export function invitationText(
+  ctx: Pick<AppContext, 'config'>,
+  role: Role,
+  inviter: string,
+  expiresAt: string | null = null,
+) {
   const link = `${ctx.config.publicUrl}/sign-in`;
-  const until = expiresAt ? ['', `The invitation can be used until ${expiresAt.slice(0, 10)} (UTC); after that, ask for it to be sent again.`] : [];
+  const until = expiresAt
+    ? ['', `The invitation can be used until ${expiresAt.slice(0, 10)} (UTC); after that, ask for it to be sent again.`]
+    : [];
   return {
     subject: 'You are invited to Crestwatch',
     text: [
@@ -75,23 +85,43 @@ export async function invite(
   const { db } = ctx;
   const email = input.email.trim().toLowerCase();
   const existing = await store.findByEmail(db, email);
-  if (existing) throw new AppError(409, 'already_invited', `${email} already has access (${existing.role}).`, { email });
+  if (existing)
+    throw new AppError(409, 'already_invited', `${email} already has access (${existing.role}).`, { email });
   const { invitationDays } = await getSettings(db);
   const user = await db.transaction(async (trx) => {
-    const u = await store.insert(trx, { email, name: input.name ?? '', role: input.role, invitedBy: caller.id, invitationDays });
-    await audit.record(trx, { ...actor(caller), action: 'person.invite', targetType: 'user', targetId: u.id, after: publicUser(u) });
+    const u = await store.insert(trx, {
+      email,
+      name: input.name ?? '',
+      role: input.role,
+      invitedBy: caller.id,
+      invitationDays,
+    });
+    await audit.record(trx, {
+      ...actor(caller),
+      action: 'person.invite',
+      targetType: 'user',
+      targetId: u.id,
+      after: publicUser(u),
+    });
     return u;
   });
   return { user: publicUser(user), mail: await sendInvitation(ctx, user, caller) };
 }
 
-async function sendInvitation(ctx: Pick<AppContext, 'config' | 'mailer'>, user: store.UserRow, caller: Caller): Promise<{ sent: boolean; error?: string }> {
+async function sendInvitation(
+  ctx: Pick<AppContext, 'config' | 'mailer'>,
+  user: store.UserRow,
+  caller: Caller,
+): Promise<{ sent: boolean; error?: string }> {
   const message = invitationText(ctx, user.role, caller.name || caller.email, user.invitationExpiresAt);
   try {
     await ctx.mailer.send({ to: user.email, ...message });
     return { sent: true };
   } catch (err) {
-    return { sent: false, error: `The invitation is saved but the e-mail could not be sent: ${(err as Error).message}` };
+    return {
+      sent: false,
+      error: `The invitation is saved but the e-mail could not be sent: ${(err as Error).message}`,
+    };
   }
 }
 
@@ -108,12 +138,32 @@ export async function resendInvitation(
   const user = await ctx.db.transaction(async (trx) => {
     const before = await store.findById(trx, id);
     if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
-    if (before.lastSignInAt) throw new AppError(409, 'already_signed_in', `${before.email} has already signed in; there is no invitation to re-send.`, { id });
-    if (!before.active) throw new AppError(409, 'deactivated', `${before.email} is deactivated: reactivate them first.`, { id });
+    if (before.lastSignInAt)
+      throw new AppError(
+        409,
+        'already_signed_in',
+        `${before.email} has already signed in; there is no invitation to re-send.`,
+        { id },
+      );
+    if (!before.active)
+      throw new AppError(409, 'deactivated', `${before.email} is deactivated: reactivate them first.`, { id });
     // The first admin and the demo accounts were never sent an invitation, and never lapse.
-    if (!before.invitedAt) throw new AppError(409, 'no_invitation', `${before.email} was not invited by e-mail; there is no invitation to re-send.`, { id });
+    if (!before.invitedAt)
+      throw new AppError(
+        409,
+        'no_invitation',
+        `${before.email} was not invited by e-mail; there is no invitation to re-send.`,
+        { id },
+      );
     const after = await store.renewInvitation(trx, id, caller.id, invitationDays);
-    await audit.record(trx, { ...actor(caller), action: 'person.invitation_resend', targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
+    await audit.record(trx, {
+      ...actor(caller),
+      action: 'person.invitation_resend',
+      targetType: 'user',
+      targetId: id,
+      before: publicUser(before),
+      after: publicUser(after),
+    });
     return after;
   });
   return { user: publicUser(user), mail: await sendInvitation(ctx, user, caller) };
@@ -128,10 +178,18 @@ export async function resetIdentity(db: Knex, caller: Caller, id: number): Promi
   const result = await db.transaction(async (trx) => {
     const before = await store.findById(trx, id);
     if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
-    if (before.googleSub === null) throw new AppError(409, 'identity_not_pinned', `${before.email} is not pinned to a Google identity yet.`, { id });
+    if (before.googleSub === null)
+      throw new AppError(409, 'identity_not_pinned', `${before.email} is not pinned to a Google identity yet.`, { id });
     const after = await store.clearGoogleSub(trx, id);
     await store.endSessions(trx, id);
-    await audit.record(trx, { ...actor(caller), action: 'person.identity_reset', targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
+    await audit.record(trx, {
+      ...actor(caller),
+      action: 'person.identity_reset',
+      targetType: 'user',
+      targetId: id,
+      before: publicUser(before),
+      after: publicUser(after),
+    });
     return publicUser(after);
   });
   // The guard sees the change on this person's next request (other processes within PERSON_CACHE_MS).
@@ -151,15 +209,27 @@ export async function updatePerson(
     const demotesLastAdmin =
       before.role === 'admin' && before.active && (patch.active === false || (patch.role && patch.role !== 'admin'));
     if (demotesLastAdmin && (await store.countAdmins(trx)) <= 1) {
-      throw new AppError(409, 'last_admin', 'Crestwatch needs at least one active admin: make someone else admin first.');
+      throw new AppError(
+        409,
+        'last_admin',
+        'Crestwatch needs at least one active admin: make someone else admin first.',
+      );
     }
     const after = await store.update(trx, id, patch);
     if (patch.active === false) {
       // End their sessions at once.
       await store.endSessions(trx, id);
     }
-    const action = patch.active === false ? 'person.deactivate' : patch.active === true ? 'person.reactivate' : 'person.update';
-    await audit.record(trx, { ...actor(caller), action, targetType: 'user', targetId: id, before: publicUser(before), after: publicUser(after) });
+    const action =
+      patch.active === false ? 'person.deactivate' : patch.active === true ? 'person.reactivate' : 'person.update';
+    await audit.record(trx, {
+      ...actor(caller),
+      action,
+      targetType: 'user',
+      targetId: id,
+      before: publicUser(before),
+      after: publicUser(after),
+    });
     return publicUser(after);
   });
   // The guard sees the change on this person's next request (other processes within PERSON_CACHE_MS).
@@ -172,7 +242,8 @@ export async function updatePerson(
  * audit entries (and uploads, notes) stay under a pseudonym. Not oneself (so an admin always remains).
  */
 export async function deletePerson(db: Knex, caller: Caller, id: number): Promise<{ id: number } & ForgetResult> {
-  if (id === caller.id) throw new AppError(409, 'cannot_delete_self', 'You cannot delete your own account: ask another admin.');
+  if (id === caller.id)
+    throw new AppError(409, 'cannot_delete_self', 'You cannot delete your own account: ask another admin.');
   const result = await db.transaction(async (trx) => {
     const before = await store.findById(trx, id);
     if (!before) throw new NotFoundError(`No person with id ${id}`, { id });
@@ -184,7 +255,11 @@ export async function deletePerson(db: Knex, caller: Caller, id: number): Promis
       targetType: 'user',
       targetId: id,
       before: { pseudonym: forgotten.pseudonym, role: before.role, status: publicUser(before).status },
-      after: { sessions: forgotten.sessions, subscriptions: forgotten.subscriptions, auditEntries: forgotten.auditEntries },
+      after: {
+        sessions: forgotten.sessions,
+        subscriptions: forgotten.subscriptions,
+        auditEntries: forgotten.auditEntries,
+      },
     });
     return { id, ...forgotten };
   });
@@ -201,7 +276,13 @@ export async function ensureFirstAdmin(db: Knex, email: string | null): Promise<
     const existing = await store.findByEmail(trx, email);
     if (existing) await store.update(trx, existing.id, { role: 'admin', active: true });
     else await store.insert(trx, { email: email.toLowerCase(), name: '', role: 'admin' });
-    await audit.record(trx, { actorId: null, actorEmail: null, action: 'person.first_admin', targetType: 'user', after: { email } });
+    await audit.record(trx, {
+      actorId: null,
+      actorEmail: null,
+      action: 'person.first_admin',
+      targetType: 'user',
+      after: { email },
+    });
   });
 }
 

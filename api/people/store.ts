@@ -17,7 +17,19 @@ export interface UserRow {
   invitationExpiresAt: string | null;
 }
 
-const columns = ['id', 'email', 'name', 'role', 'active', 'google_sub', 'created_at', 'last_sign_in_at', 'invited_by', 'invited_at', 'invitation_expires_at'];
+const columns = [
+  'id',
+  'email',
+  'name',
+  'role',
+  'active',
+  'google_sub',
+  'created_at',
+  'last_sign_in_at',
+  'invited_by',
+  'invited_at',
+  'invitation_expires_at',
+];
 
 function toUser(r: Record<string, unknown>): UserRow {
   const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
@@ -47,11 +59,17 @@ export async function findByEmail(db: Knex, email: string): Promise<UserRow | nu
 }
 
 export async function list(db: Knex): Promise<UserRow[]> {
-  return (await db('users').orderBy([{ column: 'role' }, { column: 'email' }]).select(columns)).map(toUser);
+  return (
+    await db('users')
+      .orderBy([{ column: 'role' }, { column: 'email' }])
+      .select(columns)
+  ).map(toUser);
 }
 
 export async function countAdmins(db: Knex): Promise<number> {
-  const [{ count }] = await db('users').where({ role: 'admin', active: true }).count<{ count: string }[]>({ count: '*' });
+  const [{ count }] = await db('users')
+    .where({ role: 'admin', active: true })
+    .count<{ count: string }[]>({ count: '*' });
   return Number(count);
 }
 
@@ -67,24 +85,30 @@ export async function insert(
       active: u.active ?? true,
       invited_by: u.invitedBy ?? null,
       invited_at: u.invitedBy ? db.fn.now() : null,
-      invitation_expires_at: u.invitedBy && u.invitationDays ? db.raw(`now() + make_interval(days => ?)`, [u.invitationDays]) : null,
+      invitation_expires_at:
+        u.invitedBy && u.invitationDays ? db.raw(`now() + make_interval(days => ?)`, [u.invitationDays]) : null,
     })
     .returning(columns);
   return toUser(r);
 }
 
 /** Adds an account unless one with its address (in any case) exists; returns whether it was added. */
-export async function insertIfAbsent(db: Knex, u: { email: string; name: string; role: Role; active: boolean }): Promise<boolean> {
-  const r = await db.raw(`INSERT INTO users (email, name, role, active) VALUES (?, ?, ?, ?) ON CONFLICT ((lower(email))) DO NOTHING`, [
-    u.email,
-    u.name,
-    u.role,
-    u.active,
-  ]);
+export async function insertIfAbsent(
+  db: Knex,
+  u: { email: string; name: string; role: Role; active: boolean },
+): Promise<boolean> {
+  const r = await db.raw(
+    `INSERT INTO users (email, name, role, active) VALUES (?, ?, ?, ?) ON CONFLICT ((lower(email))) DO NOTHING`,
+    [u.email, u.name, u.role, u.active],
+  );
   return Number(r.rowCount) > 0;
 }
 
-export async function update(db: Knex, id: number, patch: { role?: Role; active?: boolean; name?: string }): Promise<UserRow> {
+export async function update(
+  db: Knex,
+  id: number,
+  patch: { role?: Role; active?: boolean; name?: string },
+): Promise<UserRow> {
   const [r] = await db('users').where({ id }).update(patch).returning(columns);
   return toUser(r);
 }
@@ -113,7 +137,11 @@ export async function recordSignIn(db: Knex, id: number, googleSub: string, name
 export async function renewInvitation(db: Knex, id: number, invitedBy: number, days: number): Promise<UserRow> {
   const [r] = await db('users')
     .where({ id })
-    .update({ invited_by: invitedBy, invited_at: db.fn.now(), invitation_expires_at: db.raw(`now() + make_interval(days => ?)`, [days]) })
+    .update({
+      invited_by: invitedBy,
+      invited_at: db.fn.now(),
+      invitation_expires_at: db.raw(`now() + make_interval(days => ?)`, [days]),
+    })
     .returning(columns);
   return toUser(r);
 }

@@ -38,7 +38,11 @@ export async function pruneExpired(db: Knex, now = new Date()): Promise<PruneRes
         actorEmail: null,
         action: 'retention.prune',
         targetType: 'retention',
-        after: { ...result, sentMailRetentionDays: s.sentMailRetentionDays, unreadAlertRetentionDays: s.unreadAlertRetentionDays },
+        after: {
+          ...result,
+          sentMailRetentionDays: s.sentMailRetentionDays,
+          unreadAlertRetentionDays: s.unreadAlertRetentionDays,
+        },
       });
     }
     return result;

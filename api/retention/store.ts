@@ -55,7 +55,8 @@ export async function pseudonymise(db: Knex, p: { userId: number; email: string;
   const replaceIn = (col: string) =>
     `CASE WHEN ${col} IS NULL THEN NULL
           ELSE replace(${col}::text, to_json(:email::text)::text, to_json(:pseudonym::text)::text)::jsonb END`;
-  const unname = (col: string) => `CASE WHEN jsonb_typeof(${col}) = 'object' AND (${col} -> 'name') IS NOT NULL THEN jsonb_set(${col}, '{name}', '""') ELSE ${col} END`;
+  const unname = (col: string) =>
+    `CASE WHEN jsonb_typeof(${col}) = 'object' AND (${col} -> 'name') IS NOT NULL THEN jsonb_set(${col}, '{name}', '""') ELSE ${col} END`;
   const inJson = await db.raw(
     `UPDATE audit_log
         SET before = ${replaceIn('before')}, after = ${replaceIn('after')}
@@ -67,16 +68,24 @@ export async function pseudonymise(db: Knex, p: { userId: number; email: string;
       WHERE target_type = 'user' AND target_id = :id`,
     { id: String(userId) },
   );
-  await db.raw(`UPDATE uploads SET user_email = :pseudonym WHERE user_id = :userId OR lower(user_email) = lower(:email)`, {
-    userId,
+  await db.raw(
+    `UPDATE uploads SET user_email = :pseudonym WHERE user_id = :userId OR lower(user_email) = lower(:email)`,
+    {
+      userId,
+      email,
+      pseudonym,
+    },
+  );
+  await db.raw(
+    `UPDATE run_notes SET author_email = :pseudonym WHERE author_id = :userId OR lower(author_email) = lower(:email)`,
+    {
+      userId,
+      email,
+      pseudonym,
+    },
+  );
+  await db.raw(`DELETE FROM caught_mail WHERE lower(:email) = ANY(SELECT lower(x) FROM unnest(envelope_to) x)`, {
     email,
-    pseudonym,
   });
-  await db.raw(`UPDATE run_notes SET author_email = :pseudonym WHERE author_id = :userId OR lower(author_email) = lower(:email)`, {
-    userId,
-    email,
-    pseudonym,
-  });
-  await db.raw(`DELETE FROM caught_mail WHERE lower(:email) = ANY(SELECT lower(x) FROM unnest(envelope_to) x)`, { email });
   return count(asActor) + count(inJson);
 }

@@ -62,16 +62,22 @@ export function answerChanges(
     seen.add(p.code);
     const r = after.get(p.code);
     const before = snapshot(p);
-    if (!r) { out.push({ code: p.code, name: p.name, fields: ['status'], before, after: null }); continue; }
+    if (!r) {
+      out.push({ code: p.code, name: p.name, fields: ['status'], before, after: null });
+      continue;
+    }
     const now = snapshot(r);
     const fields: AnswerField[] = [];
     if (before.status !== now.status) fields.push('status');
     if (!sameFigure(before.threshold, now.threshold)) fields.push('threshold');
-    if (!sameFigure(before.intervalLo, now.intervalLo) || !sameFigure(before.intervalHi, now.intervalHi)) fields.push('interval');
+    if (!sameFigure(before.intervalLo, now.intervalLo) || !sameFigure(before.intervalHi, now.intervalHi))
+      fields.push('interval');
     if (before.standing !== now.standing) fields.push('standing');
     if (fields.length > 0) out.push({ code: p.code, name: p.name, fields, before, after: now });
   }
-  for (const r of reproduced) if (!seen.has(r.code)) out.push({ code: r.code, name: r.name, fields: ['status'], before: null, after: snapshot(r) });
+  for (const r of reproduced)
+    if (!seen.has(r.code))
+      out.push({ code: r.code, name: r.name, fields: ['status'], before: null, after: snapshot(r) });
   return out.sort((a, b) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0));
 }
 
@@ -89,14 +95,21 @@ export async function correctionNotice(db: Knex, runId: number, districtId: numb
   if (!run?.reproducesRunId || !run.publishedAt) return null;
   const original = await findRun(db, run.reproducesRunId);
   if (!original || original.softwareVersion === run.softwareVersion) return null;
-  const [before, after] = await Promise.all([estimateRecords(db, original.id, districtId), estimateRecords(db, run.id, districtId)]);
+  const [before, after] = await Promise.all([
+    estimateRecords(db, original.id, districtId),
+    estimateRecords(db, run.id, districtId),
+  ]);
   const b = before.find((r) => r.variant === 'main');
   const a = after.find((r) => r.variant === 'main');
   if (!b || !a) return null;
   const [change] = answerChanges([{ ...b, code: '', name: '' }], [{ ...a, code: '', name: '' }]);
   if (!change) return null;
   const date = run.publishedAt.slice(0, 10);
-  const what = change.fields.includes('threshold') ? 'Threshold' : change.fields.includes('interval') ? 'Threshold interval' : 'Standing';
+  const what = change.fields.includes('threshold')
+    ? 'Threshold'
+    : change.fields.includes('interval')
+      ? 'Threshold interval'
+      : 'Standing';
   return {
     softwareVersion: run.softwareVersion,
     previousSoftware: original.softwareVersion,

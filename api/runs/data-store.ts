@@ -78,7 +78,13 @@ function assemble(rows: RawRow[], sel: Selection): DistrictSeries[] {
       if (!m) byYear.set(r.year, (m = new Map()));
       m.set(r.indicator, Number(r.value));
     }
-    const data: DistrictData = { years: [], x: [], y: [], controls: Object.fromEntries(sel.controls.map((c) => [c, [] as number[]])), droppedYears: [] };
+    const data: DistrictData = {
+      years: [],
+      x: [],
+      y: [],
+      controls: Object.fromEntries(sel.controls.map((c) => [c, [] as number[]])),
+      droppedYears: [],
+    };
     for (const [year, m] of [...byYear.entries()].sort((a, b) => a[0] - b[0])) {
       if (!needed.every((n) => m.has(n))) {
         data.droppedYears.push(year);
@@ -95,7 +101,12 @@ function assemble(rows: RawRow[], sel: Selection): DistrictSeries[] {
 }
 
 /** Every district's series at a data version (districts with no rows at all are left out). */
-export async function loadSeries(db: Knex, version: number, sel: Selection, districtIds: number[] | null = null): Promise<DistrictSeries[]> {
+export async function loadSeries(
+  db: Knex,
+  version: number,
+  sel: Selection,
+  districtIds: number[] | null = null,
+): Promise<DistrictSeries[]> {
   return assemble(await rawRows(db, version, sel, districtIds), sel);
 }
 
@@ -114,7 +125,6 @@ export function hashSeries(series: DistrictSeries[], sel: Selection): { hash: st
   }
   return { hash: h.digest('hex'), rows };
 }
-
 
 /**
  * A chunk's series as the start job read them, carried in the chunk's job so the data are
@@ -138,7 +148,13 @@ export function packSeries(series: DistrictSeries[], controls: string[]): Packed
     }
   }
   return {
-    districts: series.map((s) => ({ id: s.districtId, code: s.code, name: s.name, years: s.data.years, dropped: s.data.droppedYears })),
+    districts: series.map((s) => ({
+      id: s.districtId,
+      code: s.code,
+      name: s.name,
+      years: s.data.years,
+      dropped: s.data.droppedYears,
+    })),
     values: Buffer.from(values.buffer, values.byteOffset, values.byteLength).toString('base64'),
   };
 }
@@ -154,6 +170,11 @@ export function unpackSeries(packed: PackedSeries, controls: string[]): District
     const x = take(n);
     const c: Record<string, number[]> = {};
     for (const name of controls) c[name] = take(n);
-    return { districtId: d.id, code: d.code, name: d.name, data: { years: d.years, x, y, controls: c, droppedYears: d.dropped } };
+    return {
+      districtId: d.id,
+      code: d.code,
+      name: d.name,
+      data: { years: d.years, x, y, controls: c, droppedYears: d.dropped },
+    };
   });
 }

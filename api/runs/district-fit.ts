@@ -14,7 +14,13 @@ import {
   type FitPanelResult,
   type ModelSpec,
 } from '../estimation';
-import { recordFromFit, thresholdRecord, type DistrictData, type EstimateRecord, type Variant } from './estimate-record';
+import {
+  recordFromFit,
+  thresholdRecord,
+  type DistrictData,
+  type EstimateRecord,
+  type Variant,
+} from './estimate-record';
 
 export interface RunModel {
   spec: ModelSpec;
@@ -36,7 +42,13 @@ function subset(data: DistrictData, keep: (year: number) => boolean): DistrictDa
   const idx = data.years.map((y, i) => (keep(y) ? i : -1)).filter((i) => i >= 0);
   const controls: Record<string, number[]> = {};
   for (const [k, v] of Object.entries(data.controls)) controls[k] = idx.map((i) => v[i]);
-  return { years: idx.map((i) => data.years[i]), x: idx.map((i) => data.x[i]), y: idx.map((i) => data.y[i]), controls, droppedYears: data.droppedYears };
+  return {
+    years: idx.map((i) => data.years[i]),
+    x: idx.map((i) => data.x[i]),
+    y: idx.map((i) => data.y[i]),
+    controls,
+    droppedYears: data.droppedYears,
+  };
 }
 
 export function variantModels(model: RunModel): Record<Variant, RunModel & { window?: number }> {
@@ -50,26 +62,51 @@ export function variantModels(model: RunModel): Record<Variant, RunModel & { win
   };
 }
 
-function fitOne(variant: Variant, m: RunModel & { window?: number }, data: DistrictData, pooled: FitPanelResult | null): EstimateRecord {
+function fitOne(
+  variant: Variant,
+  m: RunModel & { window?: number },
+  data: DistrictData,
+  pooled: FitPanelResult | null,
+): EstimateRecord {
   const last = data.years[data.years.length - 1] ?? 0;
   const keep = m.window ? (y: number) => y > last - m.window! : () => true;
   const d = m.window ? subset(data, keep) : data;
   try {
-    const fit = fitCurve(rowsOf(d, m.controls, () => true), { ...m.spec, controls: m.controls }, { diagnostics: variant === 'main' });
+    const fit = fitCurve(
+      rowsOf(d, m.controls, () => true),
+      { ...m.spec, controls: m.controls },
+      { diagnostics: variant === 'main' },
+    );
     return recordFromFit(variant, fit, d, pooled, m.controls, variant === 'main');
   } catch (err) {
     if (!(err instanceof EstimationInputError)) throw err;
     // Bad data (e.g. a non-positive value under logs) is reported on the district, never
     // dropped; a series too short for the spec's Newey–West lag says so (the lag is never clamped).
     const code = err.code === 'invalid_argument' && err.details.reason === 'lag' ? 'lag_too_large' : err.code;
-    const message = code === 'lag_too_large' ? `${d.years.length} years are too few for the spec's Newey–West lag of ${m.spec.lag} (it needs at least ${(m.spec.lag ?? 0) + 1})` : err.message;
-    const fit = { status: 'not_estimable' as const, model: { ...m.spec, controls: m.controls }, n: d.years.length, k: 0, minYears: 0, reason: { code: code as 'too_few_rows', message, details: {} }, standing: { standing: 'not_estimable' as const } };
+    const message =
+      code === 'lag_too_large'
+        ? `${d.years.length} years are too few for the spec's Newey–West lag of ${m.spec.lag} (it needs at least ${(m.spec.lag ?? 0) + 1})`
+        : err.message;
+    const fit = {
+      status: 'not_estimable' as const,
+      model: { ...m.spec, controls: m.controls },
+      n: d.years.length,
+      k: 0,
+      minYears: 0,
+      reason: { code: code as 'too_few_rows', message, details: {} },
+      standing: { standing: 'not_estimable' as const },
+    };
     return recordFromFit(variant, fit, d, pooled, m.controls, false);
   }
 }
 
 /** The regional substitute for a district whose own series cannot carry the model. */
-export function substituteRecord(own: EstimateRecord, data: DistrictData, pooled: FitPanelResult | null, spec: ModelSpec): EstimateRecord {
+export function substituteRecord(
+  own: EstimateRecord,
+  data: DistrictData,
+  pooled: FitPanelResult | null,
+  spec: ModelSpec,
+): EstimateRecord {
   if (!pooled || pooled.status !== 'ok' || data.x.length === 0) return own;
   const log = spec.transform === 'log';
   const levelNow = data.x[data.x.length - 1];
@@ -101,7 +138,10 @@ export function substituteRecord(own: EstimateRecord, data: DistrictData, pooled
   return {
     ...own,
     status: 'substitute',
-    reason: { code: own.reason?.code ?? 'too_few_rows', message: `${own.reason?.message ?? 'series too short'}; the regional pooled curve stands in` },
+    reason: {
+      code: own.reason?.code ?? 'too_few_rows',
+      message: `${own.reason?.message ?? 'series too short'}; the regional pooled curve stands in`,
+    },
     range: { levelMin: Math.min(...data.x), levelMax: Math.max(...data.x), levelNow, xNow },
     threshold: tp ? thresholdRecord(tp) : null,
     turningPoints: pooled.turningPoints.map(thresholdRecord),
@@ -113,7 +153,11 @@ export function substituteRecord(own: EstimateRecord, data: DistrictData, pooled
       levelHi: standing.interval?.levelHi ?? null,
       note: standing.note,
     },
-    shape: { shape: pooled.shape.shape, decidedBy: pooled.shape.decidedBy, notes: [...pooled.shape.notes, 'regional pooled curve'] },
+    shape: {
+      shape: pooled.shape.shape,
+      decidedBy: pooled.shape.decidedBy,
+      notes: [...pooled.shape.notes, 'regional pooled curve'],
+    },
     uTest: {
       statistic: pooled.uTest.statistic,
       pValue: pooled.uTest.pValue,
@@ -127,7 +171,13 @@ export function substituteRecord(own: EstimateRecord, data: DistrictData, pooled
     gapPercent: gap?.percent ?? null,
     trendPerYear: trend.slopePerYear,
     projection: projection
-      ? { status: projection.status, crossingYear: projection.crossingYear, earliest: projection.range?.earliest ?? null, latest: projection.range?.latest ?? null, note: projection.note }
+      ? {
+          status: projection.status,
+          crossingYear: projection.crossingYear,
+          earliest: projection.range?.earliest ?? null,
+          latest: projection.range?.latest ?? null,
+          note: projection.note,
+        }
       : null,
   };
 }

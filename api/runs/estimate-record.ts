@@ -25,7 +25,17 @@ export interface EstimateRecord {
   variant: Variant;
   status: 'ok' | 'not_estimable' | 'substitute';
   reason: { code: string; message: string } | null;
-  model: { form: string; transform: string; covariance: string; lag: number | null; level: number; alpha: number; intervalMethod: string; criticalValue: string; controls: string[] };
+  model: {
+    form: string;
+    transform: string;
+    covariance: string;
+    lag: number | null;
+    level: number;
+    alpha: number;
+    intervalMethod: string;
+    criticalValue: string;
+    controls: string[];
+  };
   n: number;
   k: number;
   firstYear: number | null;
@@ -37,14 +47,36 @@ export interface EstimateRecord {
   range: { levelMin: number; levelMax: number; levelNow: number; xNow: number } | null;
   threshold: ThresholdRecord | null;
   turningPoints: ThresholdRecord[];
-  standing: { standing: string; intervalMethod: string; intervalBounded: boolean | null; levelLo: number | null; levelHi: number | null; note: string | null };
+  standing: {
+    standing: string;
+    intervalMethod: string;
+    intervalBounded: boolean | null;
+    levelLo: number | null;
+    levelHi: number | null;
+    note: string | null;
+  };
   shape: { shape: string; decidedBy: string; notes: string[] } | null;
-  uTest: { statistic: number | null; pValue: number | null; rejects: boolean; orientation: string; slopeAtMin: number; slopeAtMax: number; tAtMin: number | null; tAtMax: number | null } | null;
+  uTest: {
+    statistic: number | null;
+    pValue: number | null;
+    rejects: boolean;
+    orientation: string;
+    slopeAtMin: number;
+    slopeAtMax: number;
+    tAtMin: number | null;
+    tAtMax: number | null;
+  } | null;
   wald: { fStatistic: number | null; pValue: number | null; rejects: boolean | null } | null;
   gapPercent: number | null;
   elasticity: { value: number | null; se: number | null; lo: number | null; hi: number | null } | null;
   trendPerYear: number | null;
-  projection: { status: string; crossingYear: number | null; earliest: number | null; latest: number | null; note: string | null } | null;
+  projection: {
+    status: string;
+    crossingYear: number | null;
+    earliest: number | null;
+    latest: number | null;
+    note: string | null;
+  } | null;
   diagnostics: CurveFit['diagnostics'] | null;
   /** observed points in real units, year order */
   points: { year: number; x: number; y: number }[];
@@ -123,8 +155,15 @@ export function sampleCurve(
 const mean = (v: number[]) => v.reduce((s, x) => s + x, 0) / v.length;
 
 /** Mean of each control on the model scale (logged unless kept in levels). */
-function controlMeans(data: DistrictData, controls: string[], transform: 'log' | 'level', levelControls: string[]): number[] {
-  return controls.map((c) => mean(data.controls[c].map((v) => (transform === 'log' && !levelControls.includes(c) ? Math.log(v) : v))));
+function controlMeans(
+  data: DistrictData,
+  controls: string[],
+  transform: 'log' | 'level',
+  levelControls: string[],
+): number[] {
+  return controls.map((c) =>
+    mean(data.controls[c].map((v) => (transform === 'log' && !levelControls.includes(c) ? Math.log(v) : v))),
+  );
 }
 
 export function districtCurve(fit: CurveFit, data: DistrictData): { x: number; y: number }[] {
@@ -132,7 +171,13 @@ export function districtCurve(fit: CurveFit, data: DistrictData): { x: number; y
   const controls = fit.terms.slice(1 + m);
   const means = controlMeans(data, controls, fit.model.transform, fit.model.levelControls);
   const intercept = fit.coefficients[0] + controls.reduce((s, _c, j) => s + fit.coefficients[1 + m + j] * means[j], 0);
-  return sampleCurve(fit.coefficients.slice(1, 1 + m), intercept, fit.model.transform, fit.range.levelMin, fit.range.levelMax);
+  return sampleCurve(
+    fit.coefficients.slice(1, 1 + m),
+    intercept,
+    fit.model.transform,
+    fit.range.levelMin,
+    fit.range.levelMax,
+  );
 }
 
 /** The pooled curve's shape passed through this district's mean point (log form). */
@@ -200,7 +245,14 @@ export function recordFromFit(
       range: null,
       threshold: null,
       turningPoints: [],
-      standing: { standing: 'not_estimable', intervalMethod: fit.model.intervalMethod, intervalBounded: null, levelLo: null, levelHi: null, note: fit.reason.message },
+      standing: {
+        standing: 'not_estimable',
+        intervalMethod: fit.model.intervalMethod,
+        intervalBounded: null,
+        levelLo: null,
+        levelHi: null,
+        note: fit.reason.message,
+      },
       shape: null,
       uTest: null,
       wald: null,
@@ -225,7 +277,12 @@ export function recordFromFit(
     terms: fit.terms,
     coefficients: fit.coefficients,
     rSquared: fit.rSquared,
-    range: { levelMin: fit.range.levelMin, levelMax: fit.range.levelMax, levelNow: fit.range.levelNow, xNow: fit.range.xNow },
+    range: {
+      levelMin: fit.range.levelMin,
+      levelMax: fit.range.levelMax,
+      levelNow: fit.range.levelNow,
+      xNow: fit.range.xNow,
+    },
     threshold: tp ? thresholdRecord(tp) : null,
     turningPoints: fit.turningPoints.map(thresholdRecord),
     standing: {

@@ -8,7 +8,15 @@
 import { fitPanel, type FitPanelResult, type PanelRow } from '../estimation';
 import type { AppContext } from '../context';
 import { QUEUES, type Handler } from '../jobs/boss';
-import { hashSeries, loadSeries, currentDataVersion, packSeries, unpackSeries, type DistrictSeries, type PackedSeries } from './data-store';
+import {
+  hashSeries,
+  loadSeries,
+  currentDataVersion,
+  packSeries,
+  unpackSeries,
+  type DistrictSeries,
+  type PackedSeries,
+} from './data-store';
 import * as store from './store';
 import type { PooledCurve } from '../../contracts/estimates';
 
@@ -24,7 +32,6 @@ function panelRows(series: DistrictSeries[], controls: string[]): PanelRow[] {
   return rows;
 }
 
-
 /**
  * The pooled curve as the engine needs it. The run row holds the engine's own panel fit,
  * written by the pooled step of this job (a JSON round trip keeps every field); the
@@ -34,16 +41,26 @@ function panelFitOf(pooled: PooledCurve | null): FitPanelResult | null {
   return pooled && pooled.status === 'ok' ? (pooled as unknown as FitPanelResult) : null;
 }
 
-export function fitPooled(series: DistrictSeries[], spec: store.RunSpec): FitPanelResult | { status: 'failed'; message: string } {
+export function fitPooled(
+  series: DistrictSeries[],
+  spec: store.RunSpec,
+): FitPanelResult | { status: 'failed'; message: string } {
   try {
-    return fitPanel(panelRows(series, spec.selection.controls), { ...spec.model, covariance: 'cluster', controls: spec.selection.controls });
+    return fitPanel(panelRows(series, spec.selection.controls), {
+      ...spec.model,
+      covariance: 'cluster',
+      controls: spec.selection.controls,
+    });
   } catch (err) {
     return { status: 'failed', message: (err as Error).message };
   }
 }
 
 async function failRun(ctx: AppContext, runId: number, message: string): Promise<void> {
-  await store.transition(ctx.db, runId, ['queued', 'running'], 'failed', { error: message.slice(0, 2000), finished_at: ctx.db.fn.now() });
+  await store.transition(ctx.db, runId, ['queued', 'running'], 'failed', {
+    error: message.slice(0, 2000),
+    finished_at: ctx.db.fn.now(),
+  });
 }
 
 export async function startRun(ctx: AppContext, runId: number, isLastAttempt: boolean): Promise<void> {
@@ -57,7 +74,11 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
     const series = await loadSeries(db, version, run.spec.selection);
     const { hash, rows } = hashSeries(series, run.spec.selection);
     if (run.dataHash && run.dataHash !== hash) {
-      await failRun(ctx, runId, `The data of version ${version} no longer hash to ${run.dataHash} (got ${hash}): history was changed.`);
+      await failRun(
+        ctx,
+        runId,
+        `The data of version ${version} no longer hash to ${run.dataHash} (got ${hash}): history was changed.`,
+      );
       return;
     }
     const t1 = performance.now();
@@ -88,7 +109,12 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
     await ctx.jobs!.insert(
       QUEUES.runChunk,
       // Each chunk carries its series: the run's data are read once, here.
-      chunks.map((part, chunk) => ({ runId, chunk, districtIds: part.map((s) => s.districtId), series: packSeries(part, run.spec.selection.controls) })),
+      chunks.map((part, chunk) => ({
+        runId,
+        chunk,
+        districtIds: part.map((s) => s.districtId),
+        series: packSeries(part, run.spec.selection.controls),
+      })),
     );
     ctx.jobs!.notify(QUEUES.runChunk);
   } catch (err) {
@@ -97,7 +123,11 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
   }
 }
 
-export async function runChunk(ctx: AppContext, data: { runId: number; chunk: number; districtIds: number[]; series?: PackedSeries }, isLastAttempt: boolean): Promise<void> {
+export async function runChunk(
+  ctx: AppContext,
+  data: { runId: number; chunk: number; districtIds: number[]; series?: PackedSeries },
+  isLastAttempt: boolean,
+): Promise<void> {
   const { db } = ctx;
   const run = await store.findRun(db, data.runId);
   if (!run || run.state !== 'running') return;
@@ -110,7 +140,12 @@ export async function runChunk(ctx: AppContext, data: { runId: number; chunk: nu
     const pooled = panelFitOf(run.pooled);
     const model = { spec: run.spec.model, controls: run.spec.selection.controls };
     // The fits run in the compute pool, so a run never stalls the readers of this process.
-    const rows = await ctx.compute.run({ kind: 'district-fits', model, districts: series.map((s) => ({ districtId: s.districtId, data: s.data })), pooled });
+    const rows = await ctx.compute.run({
+      kind: 'district-fits',
+      model,
+      districts: series.map((s) => ({ districtId: s.districtId, data: s.data })),
+      pooled,
+    });
     const t2 = performance.now();
     await db.transaction(async (trx) => {
       await store.writeEstimates(trx, run.id, rows);
@@ -131,7 +166,10 @@ export function runHandlers(ctx: AppContext): { 'run-start': Handler; 'run-chunk
   return {
     'run-start': (data, meta) => startRun(ctx, Number(data.runId), meta.retryCount >= meta.retryLimit),
     'run-chunk': (data, meta) =>
-      runChunk(ctx, data as unknown as { runId: number; chunk: number; districtIds: number[]; series?: PackedSeries }, meta.retryCount >= meta.retryLimit),
+      runChunk(
+        ctx,
+        data as unknown as { runId: number; chunk: number; districtIds: number[]; series?: PackedSeries },
+        meta.retryCount >= meta.retryLimit,
+      ),
   };
 }
-

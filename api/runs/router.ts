@@ -6,7 +6,14 @@ import { callerOf, COMPUTE_LIMIT, route, SIGNED_IN, STAFF, type RouteSpec } from
 import * as service from './service';
 import { NO_CONTENT } from '../../contracts/common';
 import { PublishedResponseSchema } from '../../contracts/districts';
-import { DistrictReviewSchema, PublishAnswerSchema, ReviewResponseSchema, RunListResponseSchema, RunStartedSchema, RunViewSchema } from '../../contracts/runs';
+import {
+  DistrictReviewSchema,
+  PublishAnswerSchema,
+  ReviewResponseSchema,
+  RunListResponseSchema,
+  RunStartedSchema,
+  RunViewSchema,
+} from '../../contracts/runs';
 
 const byId = idParams;
 
@@ -87,7 +94,10 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
       allow: STAFF,
       tag: 'runs',
       summary: 'Attach a short note to a district for the next brief',
-      schemas: { params: byId.extend({ code: districtCode }), body: z.object({ note: z.string().trim().min(1).max(600) }) },
+      schemas: {
+        params: byId.extend({ code: districtCode }),
+        body: z.object({ note: z.string().trim().min(1).max(600) }),
+      },
       handler: async ({ params, body }, req, res) => {
         await service.addNote(db, callerOf(req)!, params.id, params.code, body.note);
         res.status(204).end();

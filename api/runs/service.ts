@@ -55,7 +55,11 @@ function jobsOf(ctx: AppContext) {
   return ctx.jobs;
 }
 
-async function insertQueued(ctx: AppContext, args: Parameters<typeof store.insertRun>[1], caller: Caller | null): Promise<store.RunRow> {
+async function insertQueued(
+  ctx: AppContext,
+  args: Parameters<typeof store.insertRun>[1],
+  caller: Caller | null,
+): Promise<store.RunRow> {
   const jobs = jobsOf(ctx);
   let run: store.RunRow;
   try {
@@ -74,7 +78,12 @@ async function insertQueued(ctx: AppContext, args: Parameters<typeof store.inser
   } catch (err) {
     if ((err as { code?: string }).code === '23505') {
       const active = await store.activeRunForSpec(ctx.db, args.specId);
-      throw new AppError(409, 'run_in_progress', `Run #${active?.id ?? '?'} of this spec is still ${active?.state ?? 'active'}; wait for it to finish.`, { runId: active?.id });
+      throw new AppError(
+        409,
+        'run_in_progress',
+        `Run #${active?.id ?? '?'} of this spec is still ${active?.state ?? 'active'}; wait for it to finish.`,
+        { runId: active?.id },
+      );
     }
     throw err;
   }
@@ -83,16 +92,31 @@ async function insertQueued(ctx: AppContext, args: Parameters<typeof store.inser
   return run;
 }
 
-export async function startRun(ctx: AppContext, caller: Caller | null, input: { specId?: number; trigger?: 'manual' | 'schedule' }): Promise<store.RunRow> {
+export async function startRun(
+  ctx: AppContext,
+  caller: Caller | null,
+  input: { specId?: number; trigger?: 'manual' | 'schedule' },
+): Promise<store.RunRow> {
   const spec = input.specId ? await getSpec(ctx.db, input.specId) : await defaultSpec(ctx.db);
   if (spec.archived) throw new AppError(409, 'spec_archived', `Spec "${spec.name}" is archived.`);
-  return insertQueued(ctx, { specId: spec.id, spec: await snapshot(ctx.db, spec), trigger: input.trigger ?? 'manual', requestedBy: caller?.id ?? null, softwareVersion: SOFTWARE_VERSION }, caller);
+  return insertQueued(
+    ctx,
+    {
+      specId: spec.id,
+      spec: await snapshot(ctx.db, spec),
+      trigger: input.trigger ?? 'manual',
+      requestedBy: caller?.id ?? null,
+      softwareVersion: SOFTWARE_VERSION,
+    },
+    caller,
+  );
 }
 
 /** Re-executes a run from its recorded spec, data version and data hash. */
 export async function reproduceRun(ctx: AppContext, caller: Caller, runId: number): Promise<store.RunRow> {
   const original = await mustFind(ctx.db, runId);
-  if (original.dataVersion === null || !original.dataHash) throw new AppError(409, 'not_reproducible', `Run #${runId} never read its data.`);
+  if (original.dataVersion === null || !original.dataHash)
+    throw new AppError(409, 'not_reproducible', `Run #${runId} never read its data.`);
   return insertQueued(
     ctx,
     {
@@ -126,15 +150,22 @@ export async function runView(db: Knex, id: number) {
   for (const r of rows) counts[r.standing] = (counts[r.standing] ?? 0) + 1;
   const pooled = run.pooled;
   let reproduction: {
-    of: number; identical: boolean | null; differences: number;
-    softwareChanged: boolean; originalSoftware: string | null; changedAnswers: AnswerChange[];
+    of: number;
+    identical: boolean | null;
+    differences: number;
+    softwareChanged: boolean;
+    originalSoftware: string | null;
+    changedAnswers: AnswerChange[];
   } | null = null;
   if (run.reproducesRunId && estimatesVisible) {
     const n = await store.countDifferences(db, run.reproducesRunId, id);
     const original = await store.findRun(db, run.reproducesRunId);
-    const changedAnswers = n === 0 ? [] : answerChanges(await store.mainRecords(db, run.reproducesRunId), await store.mainRecords(db, id));
+    const changedAnswers =
+      n === 0 ? [] : answerChanges(await store.mainRecords(db, run.reproducesRunId), await store.mainRecords(db, id));
     reproduction = {
-      of: run.reproducesRunId, identical: n === 0, differences: n,
+      of: run.reproducesRunId,
+      identical: n === 0,
+      differences: n,
       softwareChanged: original !== null && original.softwareVersion !== run.softwareVersion,
       originalSoftware: original ? original.softwareVersion : null,
       changedAnswers,
@@ -162,7 +193,13 @@ export async function runView(db: Knex, id: number) {
     pooled: !pooled
       ? null
       : pooled.status === 'ok'
-        ? { status: pooled.status, shape: pooled.shape.shape, threshold: pooled.turningPoints[0] ?? null, n: pooled.n, districts: pooled.districts }
+        ? {
+            status: pooled.status,
+            shape: pooled.shape.shape,
+            threshold: pooled.turningPoints[0] ?? null,
+            n: pooled.n,
+            districts: pooled.districts,
+          }
         : { status: pooled.status, shape: null, threshold: null, n: pooled.n, districts: null },
     reproduction,
   };
@@ -183,7 +220,12 @@ export async function listRuns(db: Knex, limit: number) {
 }
 
 function visibleOrThrow(run: store.RunRow) {
-  if (!VISIBLE.includes(run.state)) throw new AppError(409, 'run_not_ready', `Run #${run.id} is ${run.state}: its estimates appear when it reaches review.`);
+  if (!VISIBLE.includes(run.state))
+    throw new AppError(
+      409,
+      'run_not_ready',
+      `Run #${run.id} is ${run.state}: its estimates appear when it reaches review.`,
+    );
 }
 
 /** Per district: this run against the last published run (before it). */
@@ -205,13 +247,22 @@ export async function reviewRows(db: Knex, id: number) {
     districts: rows.map((r) => {
       const p = prevById.get(r.districtId) ?? null;
       const { districtId, ...current } = r;
-      return { ...current, previous: p ? { standing: p.standing, shape: p.shape, threshold: p.threshold, uTestRejects: p.uTestRejects } : null, change: districtChange(p, r), note: notes.get(districtId)?.note ?? null };
+      return {
+        ...current,
+        previous: p
+          ? { standing: p.standing, shape: p.shape, threshold: p.threshold, uTestRejects: p.uTestRejects }
+          : null,
+        change: districtChange(p, r),
+        note: notes.get(districtId)?.note ?? null,
+      };
     }),
   };
 }
 
 async function previousPublishedFor(db: Knex, run: store.RunRow) {
-  return run.state === 'published' && run.publishedAt ? store.latestPublished(db, { publishedAt: run.publishedAt }) : store.latestPublished(db);
+  return run.state === 'published' && run.publishedAt
+    ? store.latestPublished(db, { publishedAt: run.publishedAt })
+    : store.latestPublished(db);
 }
 
 async function districtId(db: Knex, code: string): Promise<number> {
@@ -229,9 +280,20 @@ export async function districtReview(db: Knex, id: number, code: string) {
   const did = await districtId(db, code);
   const records = await store.estimateRecords(db, id, did);
   const previous = await previousPublishedFor(db, run);
-  const prevMain = previous ? (await store.estimateRecords(db, previous.id, did)).find((r) => r.variant === 'main') ?? null : null;
+  const prevMain = previous
+    ? ((await store.estimateRecords(db, previous.id, did)).find((r) => r.variant === 'main') ?? null)
+    : null;
   const main = records.find((r) => r.variant === 'main') ?? null;
-  let movement: null | { previous: number | null; current: number | null; previousSpecOnNewData: number | null; dataPart: number | null; specPart: number | null; softwareChanged: boolean; previousSoftware: string; specChanged: boolean } = null;
+  let movement: null | {
+    previous: number | null;
+    current: number | null;
+    previousSpecOnNewData: number | null;
+    dataPart: number | null;
+    specPart: number | null;
+    softwareChanged: boolean;
+    previousSoftware: string;
+    specChanged: boolean;
+  } = null;
   if (previous && main) {
     const series = await loadSeries(db, run.dataVersion!, previous.spec.selection, [did]);
     const refit: EstimateRecord | null = series.length
@@ -261,13 +323,21 @@ export async function publishRun(ctx: AppContext, caller: Caller, id: number) {
     await lockForTransaction(trx, 'publish');
     const run = await store.findRun(trx, id, true);
     if (!run) throw new NotFoundError(`No run ${id}`, { id });
-    if (run.state !== 'in_review') throw new AppError(409, 'not_in_review', `Run #${id} is ${run.state}; only a run in review can be published.`);
+    if (run.state !== 'in_review')
+      throw new AppError(409, 'not_in_review', `Run #${id} is ${run.state}; only a run in review can be published.`);
     const previous = await store.latestPublished(trx);
     const settings = await getSettings(trx);
     await store.transition(trx, id, ['in_review'], 'published', { published_at: trx.fn.now(), reviewed_by: caller.id });
     const published = (await store.findRun(trx, id))!;
     const outcome = await createAlertsForPublish(trx, published, previous, settings.thresholdShiftPercent, ctx.config);
-    await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'run.publish', targetType: 'run', targetId: id, after: { previousRunId: previous?.id ?? null, ...outcome } });
+    await audit.record(trx, {
+      actorId: caller.id,
+      actorEmail: caller.email,
+      action: 'run.publish',
+      targetType: 'run',
+      targetId: id,
+      after: { previousRunId: previous?.id ?? null, ...outcome },
+    });
     return { previousRunId: previous?.id ?? null, ...outcome };
   });
   if (result.mails && ctx.jobs) await ctx.jobs.send(QUEUES.outbox, { reason: `publish ${id}` });
@@ -276,17 +346,34 @@ export async function publishRun(ctx: AppContext, caller: Caller, id: number) {
 
 export async function discardRun(ctx: AppContext, caller: Caller, id: number) {
   await mustFind(ctx.db, id);
-  const ok = await store.transition(ctx.db, id, ['in_review', 'failed', 'queued'], 'discarded', { discarded_at: ctx.db.fn.now(), reviewed_by: caller.id });
+  const ok = await store.transition(ctx.db, id, ['in_review', 'failed', 'queued'], 'discarded', {
+    discarded_at: ctx.db.fn.now(),
+    reviewed_by: caller.id,
+  });
   if (!ok) throw new AppError(409, 'cannot_discard', `Run #${id} can no longer be discarded.`);
-  await audit.record(ctx.db, { actorId: caller.id, actorEmail: caller.email, action: 'run.discard', targetType: 'run', targetId: id });
+  await audit.record(ctx.db, {
+    actorId: caller.id,
+    actorEmail: caller.email,
+    action: 'run.discard',
+    targetType: 'run',
+    targetId: id,
+  });
 }
 
 export async function addNote(db: Knex, caller: Caller, id: number, code: string, note: string) {
   const run = await mustFind(db, id);
-  if (run.state === 'discarded' || run.state === 'failed') throw new AppError(409, 'run_closed', `Run #${id} is ${run.state}.`);
+  if (run.state === 'discarded' || run.state === 'failed')
+    throw new AppError(409, 'run_closed', `Run #${id} is ${run.state}.`);
   const did = await districtId(db, code);
   await store.upsertNote(db, id, did, note, caller);
-  await audit.record(db, { actorId: caller.id, actorEmail: caller.email, action: 'run.note', targetType: 'run', targetId: id, after: { code, note } });
+  await audit.record(db, {
+    actorId: caller.id,
+    actorEmail: caller.email,
+    action: 'run.note',
+    targetType: 'run',
+    targetId: id,
+    after: { code, note },
+  });
 }
 
 /** The id of the run officials see now (null before the first publish). */

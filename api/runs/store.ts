@@ -80,7 +80,16 @@ function toRun(r: Record<string, unknown>): RunRow {
 
 export async function insertRun(
   db: Knex,
-  r: { specId: number; spec: RunSpec; trigger: string; requestedBy: number | null; softwareVersion: string; reproducesRunId?: number | null; dataVersion?: number | null; dataHash?: string | null },
+  r: {
+    specId: number;
+    spec: RunSpec;
+    trigger: string;
+    requestedBy: number | null;
+    softwareVersion: string;
+    reproducesRunId?: number | null;
+    dataVersion?: number | null;
+    dataHash?: string | null;
+  },
 ): Promise<RunRow> {
   const [row] = await db('runs')
     .insert({
@@ -113,8 +122,17 @@ export async function update(db: Knex, id: number, patch: Record<string, unknown
 }
 
 /** Sets state only when the run is in one of `from`; returns whether it did. */
-export async function transition(db: Knex, id: number, from: RunState[], to: RunState, extra: Record<string, unknown> = {}): Promise<boolean> {
-  const n = await db('runs').where({ id }).whereIn('state', from).update({ state: to, ...extra });
+export async function transition(
+  db: Knex,
+  id: number,
+  from: RunState[],
+  to: RunState,
+  extra: Record<string, unknown> = {},
+): Promise<boolean> {
+  const n = await db('runs')
+    .where({ id })
+    .whereIn('state', from)
+    .update({ state: to, ...extra });
   return n > 0;
 }
 
@@ -128,7 +146,8 @@ export interface EstimateRow {
   record: EstimateRecord;
 }
 
-const ESTIMATE_COLUMNS = 'run_id, district_id, variant, status, standing, shape, threshold, gap_percent, crossing_year, u_test_rejects, interval_bounded, last_year, result';
+const ESTIMATE_COLUMNS =
+  'run_id, district_id, variant, status, standing, shape, threshold, gap_percent, crossing_year, u_test_rejects, interval_bounded, last_year, result';
 
 /** One value in COPY's text format: \N for null, backslash, tab and line breaks escaped. */
 function copyText(v: string | number | boolean | null | undefined): string {
@@ -144,8 +163,18 @@ export function estimatesCopyText(runId: number, rows: EstimateRow[]): string {
   for (const { districtId, record: r } of rows) {
     out +=
       [
-        runId, districtId, r.variant, r.status, r.standing.standing, r.shape?.shape ?? null, r.threshold?.level ?? null,
-        r.gapPercent, r.projection?.crossingYear ?? null, r.uTest?.rejects ?? null, r.standing.intervalBounded, r.lastYear,
+        runId,
+        districtId,
+        r.variant,
+        r.status,
+        r.standing.standing,
+        r.shape?.shape ?? null,
+        r.threshold?.level ?? null,
+        r.gapPercent,
+        r.projection?.crossingYear ?? null,
+        r.uTest?.rejects ?? null,
+        r.standing.intervalBounded,
+        r.lastYear,
         JSON.stringify(r),
       ]
         .map(copyText)
@@ -163,10 +192,16 @@ export async function writeEstimates(db: Knex, runId: number, rows: EstimateRow[
   if (!rows.length) return;
   const districtIds = [...new Set(rows.map((r) => r.districtId))];
   await db.raw(`DELETE FROM run_estimates WHERE run_id = ? AND district_id = ANY(?::int[])`, [runId, districtIds]);
-  const client = db.client as { acquireConnection(): Promise<PoolClient>; releaseConnection(c: PoolClient): Promise<void> };
+  const client = db.client as {
+    acquireConnection(): Promise<PoolClient>;
+    releaseConnection(c: PoolClient): Promise<void>;
+  };
   const conn = await client.acquireConnection();
   try {
-    await pipeline(Readable.from([estimatesCopyText(runId, rows)]), conn.query(copyFrom(`COPY run_estimates (${ESTIMATE_COLUMNS}) FROM STDIN`)));
+    await pipeline(
+      Readable.from([estimatesCopyText(runId, rows)]),
+      conn.query(copyFrom(`COPY run_estimates (${ESTIMATE_COLUMNS}) FROM STDIN`)),
+    );
   } finally {
     await client.releaseConnection(conn);
   }
@@ -223,8 +258,18 @@ export async function listEstimateRows(db: Knex, runId: number, variant: Variant
     .where({ 'e.run_id': runId, 'e.variant': variant })
     .orderBy('d.code')
     .select(
-      'e.district_id', 'e.status', 'e.standing', 'e.shape', 'e.threshold', 'e.gap_percent', 'e.crossing_year',
-      'e.u_test_rejects', 'e.interval_bounded', 'e.last_year', 'd.code', 'd.name',
+      'e.district_id',
+      'e.status',
+      'e.standing',
+      'e.shape',
+      'e.threshold',
+      'e.gap_percent',
+      'e.crossing_year',
+      'e.u_test_rejects',
+      'e.interval_bounded',
+      'e.last_year',
+      'd.code',
+      'd.name',
     );
   return rows.map(toListRow);
 }
@@ -236,13 +281,20 @@ export async function estimateRecords(db: Knex, runId: number, districtId: numbe
 }
 
 /** Every main record of a run with district code and name (briefs, exports). */
-export async function mainRecords(db: Knex, runId: number): Promise<(EstimateRecord & { code: string; name: string })[]> {
+export async function mainRecords(
+  db: Knex,
+  runId: number,
+): Promise<(EstimateRecord & { code: string; name: string })[]> {
   const rows = await db('run_estimates as e')
     .join('districts as d', 'd.id', 'e.district_id')
     .where({ 'e.run_id': runId, 'e.variant': 'main' })
     .orderBy('d.code')
     .select('e.result', 'd.code', 'd.name');
-  return rows.map((r: { result: EstimateRecord; code: string; name: string }) => ({ ...r.result, code: r.code, name: r.name }));
+  return rows.map((r: { result: EstimateRecord; code: string; name: string }) => ({
+    ...r.result,
+    code: r.code,
+    name: r.name,
+  }));
 }
 
 /**
@@ -250,7 +302,10 @@ export async function mainRecords(db: Knex, runId: number): Promise<(EstimateRec
  * (the same fields as estimates/service.ts summaryOf), so listing 3,000 districts reads a
  * few hundred bytes per district instead of decoding each full record.
  */
-export async function mainSummaryRows(db: Knex, runId: number): Promise<{ code: string; summary: Record<string, unknown> }[]> {
+export async function mainSummaryRows(
+  db: Knex,
+  runId: number,
+): Promise<{ code: string; summary: Record<string, unknown> }[]> {
   const rows = await db.raw(
     `SELECT d.code, jsonb_build_object(
         'status', r->'status',
@@ -283,7 +338,13 @@ export async function mainSummaryRows(db: Knex, runId: number): Promise<{ code: 
 }
 
 export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<RunRow | null> {
-  const q = db('runs').where({ state: 'published' }).orderBy([{ column: 'published_at', order: 'desc' }, { column: 'id', order: 'desc' }]).first();
+  const q = db('runs')
+    .where({ state: 'published' })
+    .orderBy([
+      { column: 'published_at', order: 'desc' },
+      { column: 'id', order: 'desc' },
+    ])
+    .first();
   if (before) q.where('published_at', '<', before.publishedAt);
   const r = await q;
   return r ? toRun(r) : null;
@@ -294,16 +355,37 @@ export async function activeRunForSpec(db: Knex, specId: number): Promise<RunRow
   return r ? toRun(r) : null;
 }
 
-export async function upsertNote(db: Knex, runId: number, districtId: number, note: string, author: { id: number; email: string }): Promise<void> {
+export async function upsertNote(
+  db: Knex,
+  runId: number,
+  districtId: number,
+  note: string,
+  author: { id: number; email: string },
+): Promise<void> {
   await db('run_notes')
-    .insert({ run_id: runId, district_id: districtId, note, author_id: author.id, author_email: author.email, updated_at: db.fn.now() })
+    .insert({
+      run_id: runId,
+      district_id: districtId,
+      note,
+      author_id: author.id,
+      author_email: author.email,
+      updated_at: db.fn.now(),
+    })
     .onConflict(['run_id', 'district_id'])
     .merge();
 }
 
-export async function notesFor(db: Knex, runId: number): Promise<Map<number, { note: string; authorEmail: string | null; updatedAt: string }>> {
+export async function notesFor(
+  db: Knex,
+  runId: number,
+): Promise<Map<number, { note: string; authorEmail: string | null; updatedAt: string }>> {
   const rows = await db('run_notes').where({ run_id: runId }).select('*');
-  return new Map(rows.map((r: Record<string, unknown>) => [Number(r.district_id), { note: String(r.note), authorEmail: (r.author_email as string | null) ?? null, updatedAt: iso(r.updated_at)! }]));
+  return new Map(
+    rows.map((r: Record<string, unknown>) => [
+      Number(r.district_id),
+      { note: String(r.note), authorEmail: (r.author_email as string | null) ?? null, updatedAt: iso(r.updated_at)! },
+    ]),
+  );
 }
 
 /** `column + 1` inside an update (a retried start counts its attempts). */
@@ -312,7 +394,11 @@ export function incremented(db: Knex, column: string): Knex.Raw {
 }
 
 /** Adds one chunk's phase times to the run's running totals (ms). */
-export async function addChunkTimings(db: Knex, runId: number, t: { chunkReadMs: number; fitMs: number; writeMs: number }): Promise<void> {
+export async function addChunkTimings(
+  db: Knex,
+  runId: number,
+  t: { chunkReadMs: number; fitMs: number; writeMs: number },
+): Promise<void> {
   await db('runs')
     .where({ id: runId })
     .update({

@@ -10,11 +10,20 @@ import { SettingsResponseSchema } from '../../contracts/settings';
 export function scheduleView(s: Settings, now = new Date()) {
   let next: string | null = null;
   try {
-    next = parser.parseExpression(s.scheduleCron, { tz: s.regionTimeZone, currentDate: now }).next().toDate().toISOString();
+    next = parser
+      .parseExpression(s.scheduleCron, { tz: s.regionTimeZone, currentDate: now })
+      .next()
+      .toDate()
+      .toISOString();
   } catch {
     next = null;
   }
-  return { cron: s.scheduleCron, timeZone: s.regionTimeZone, enabled: s.scheduleEnabled, nextRunAt: s.scheduleEnabled ? next : null };
+  return {
+    cron: s.scheduleCron,
+    timeZone: s.regionTimeZone,
+    enabled: s.scheduleEnabled,
+    nextRunAt: s.scheduleEnabled ? next : null,
+  };
 }
 
 export function settingsRoutes(ctx: AppContext): RouteSpec[] {
@@ -47,7 +56,9 @@ export function settingsRoutes(ctx: AppContext): RouteSpec[] {
           try {
             parser.parseExpression(body.scheduleCron);
           } catch (err) {
-            throw new ValidationError(`scheduleCron is not a valid cron expression: ${(err as Error).message}`, { field: 'scheduleCron' });
+            throw new ValidationError(`scheduleCron is not a valid cron expression: ${(err as Error).message}`, {
+              field: 'scheduleCron',
+            });
           }
         }
         const settings = await service.updateSettings(db, callerOf(req)!, body);

@@ -4,8 +4,16 @@ import { z } from 'zod';
 export const SettingsSchema = z.object({
   confidenceLevel: z.number().min(0.5).max(0.999).describe('Confidence level of intervals (default 95%)'),
   alpha: z.number().min(0.001).max(0.5).describe('Test level α of the U-test, Wald test and shapes (default 0.05)'),
-  thresholdShiftPercent: z.number().min(0.1).max(1000).describe('A threshold_shift alert fires when X* moves more than this percent'),
-  uploadChangeFactor: z.number().min(1.01).max(1000).describe('An upload warns when a value changes by more than this factor'),
+  thresholdShiftPercent: z
+    .number()
+    .min(0.1)
+    .max(1000)
+    .describe('A threshold_shift alert fires when X* moves more than this percent'),
+  uploadChangeFactor: z
+    .number()
+    .min(1.01)
+    .max(1000)
+    .describe('An upload warns when a value changes by more than this factor'),
   regionTimeZone: z
     .string()
     .refine((tz) => {
@@ -28,14 +36,21 @@ export const SettingsSchema = z.object({
     .int()
     .min(1)
     .max(3650)
-    .describe('Days a sent (or finally failed) e-mail is kept in the outbox before the nightly retention job deletes it'),
+    .describe(
+      'Days a sent (or finally failed) e-mail is kept in the outbox before the nightly retention job deletes it',
+    ),
   unreadAlertRetentionDays: z
     .number()
     .int()
     .min(7)
     .max(3650)
     .describe('Days an alert nobody has read stays in feeds before the nightly retention job deletes it'),
-  invitationDays: z.number().int().min(1).max(365).describe('Days an invitation may be used before it lapses (re-sending renews it)'),
+  invitationDays: z
+    .number()
+    .int()
+    .min(1)
+    .max(365)
+    .describe('Days an invitation may be used before it lapses (re-sending renews it)'),
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 

@@ -17,11 +17,20 @@ export async function updateSettings(db: Knex, caller: Caller, patch: Partial<Se
   return db.transaction(async (trx) => {
     const before = await getSettings(trx);
     const after = SettingsSchema.parse({ ...before, ...patch });
-    const changed = Object.fromEntries(Object.entries(patch).filter(([k, v]) => JSON.stringify(before[k as keyof Settings]) !== JSON.stringify(v)));
+    const changed = Object.fromEntries(
+      Object.entries(patch).filter(([k, v]) => JSON.stringify(before[k as keyof Settings]) !== JSON.stringify(v)),
+    );
     if (Object.keys(changed).length) {
       await store.write(trx, changed, caller.id);
       const pick = (s: Settings) => Object.fromEntries(Object.keys(changed).map((k) => [k, s[k as keyof Settings]]));
-      await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'settings.update', targetType: 'settings', before: pick(before), after: pick(after) });
+      await audit.record(trx, {
+        actorId: caller.id,
+        actorEmail: caller.email,
+        action: 'settings.update',
+        targetType: 'settings',
+        before: pick(before),
+        after: pick(after),
+      });
     }
     return after;
   });

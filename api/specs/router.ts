@@ -45,7 +45,9 @@ export function specRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'runs',
       summary: 'Replace a saved model spec',
       schemas: { params: byId, body: SavedSpecInput },
-      handler: async ({ params, body }, req) => ({ spec: await service.updateSpec(db, callerOf(req)!, params.id, body) }),
+      handler: async ({ params, body }, req) => ({
+        spec: await service.updateSpec(db, callerOf(req)!, params.id, body),
+      }),
     }),
     route({
       method: 'delete',

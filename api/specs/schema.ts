@@ -11,7 +11,14 @@ import { INDICATOR_CODE, INDICATOR_CODE_RULE } from '../../contracts/patterns';
 
 const indicatorCode = z.string().regex(INDICATOR_CODE, INDICATOR_CODE_RULE);
 
-export const SpecModelFields = ModelSpec.pick({ form: true, transform: true, covariance: true, lag: true, intervalMethod: true, levelControls: true });
+export const SpecModelFields = ModelSpec.pick({
+  form: true,
+  transform: true,
+  covariance: true,
+  lag: true,
+  intervalMethod: true,
+  levelControls: true,
+});
 
 export const SavedSpecInput = z
   .object({
@@ -26,13 +33,22 @@ export const SavedSpecInput = z
     isDefault: z.boolean().default(false),
   })
   .extend(SpecModelFields.shape)
-  .refine((s) => s.covariance !== 'cluster', { message: 'cluster covariance is for the pooled panel; choose classical, hc1, hc3 or newey_west', path: ['covariance'] })
-  .refine((s) => s.emissionsIndicator !== s.driverIndicator, { message: 'the driver must differ from the emissions indicator', path: ['driverIndicator'] })
+  .refine((s) => s.covariance !== 'cluster', {
+    message: 'cluster covariance is for the pooled panel; choose classical, hc1, hc3 or newey_west',
+    path: ['covariance'],
+  })
+  .refine((s) => s.emissionsIndicator !== s.driverIndicator, {
+    message: 'the driver must differ from the emissions indicator',
+    path: ['driverIndicator'],
+  })
   .refine((s) => !s.controls.includes(s.emissionsIndicator) && !s.controls.includes(s.driverIndicator), {
     message: 'controls must differ from the emissions indicator and the driver',
     path: ['controls'],
   })
-  .refine((s) => s.firstYear === null || s.lastYear === null || s.firstYear <= s.lastYear, { message: 'firstYear must not be after lastYear', path: ['firstYear'] });
+  .refine((s) => s.firstYear === null || s.lastYear === null || s.firstYear <= s.lastYear, {
+    message: 'firstYear must not be after lastYear',
+    path: ['firstYear'],
+  });
 export type SavedSpecInput = z.infer<typeof SavedSpecInput>;
 
 export interface SavedSpec extends SavedSpecInput {

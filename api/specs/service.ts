@@ -12,9 +12,13 @@ async function checkIndicators(db: Knex, s: SavedSpecInput): Promise<void> {
   const codes = [s.emissionsIndicator, s.driverIndicator, ...s.controls];
   const known = new Set(await knownIndicatorCodes(db, codes));
   const unknown = codes.filter((c) => !known.has(c));
-  if (unknown.length) throw new AppError(400, 'unknown_indicator', `Unknown indicator: ${unknown.join(', ')}`, { unknown });
+  if (unknown.length)
+    throw new AppError(400, 'unknown_indicator', `Unknown indicator: ${unknown.join(', ')}`, { unknown });
   const missing = s.levelControls.filter((c) => !s.controls.includes(c));
-  if (missing.length) throw new AppError(400, 'invalid_request', `levelControls must be among the controls: ${missing.join(', ')}`, { missing });
+  if (missing.length)
+    throw new AppError(400, 'invalid_request', `levelControls must be among the controls: ${missing.join(', ')}`, {
+      missing,
+    });
 }
 
 const unique = (err: unknown) => (err as { code?: string }).code === '23505';
@@ -25,7 +29,14 @@ export async function createSpec(db: Knex, caller: Caller, input: SavedSpecInput
     if (input.isDefault) await store.clearDefault(trx);
     try {
       const spec = await store.insert(trx, input, caller.id);
-      await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'spec.create', targetType: 'model_spec', targetId: spec.id, after: spec });
+      await audit.record(trx, {
+        actorId: caller.id,
+        actorEmail: caller.email,
+        action: 'spec.create',
+        targetType: 'model_spec',
+        targetId: spec.id,
+        after: spec,
+      });
       return spec;
     } catch (err) {
       if (unique(err)) throw new AppError(409, 'name_taken', `A spec named "${input.name}" exists already.`);
@@ -39,11 +50,20 @@ export async function updateSpec(db: Knex, caller: Caller, id: number, input: Sa
   return db.transaction(async (trx) => {
     const before = await store.find(trx, id);
     if (!before || before.archived) throw new NotFoundError(`No model spec with id ${id}`, { id });
-    if (before.isDefault && !input.isDefault) throw new AppError(409, 'default_required', 'Make another spec the default first.');
+    if (before.isDefault && !input.isDefault)
+      throw new AppError(409, 'default_required', 'Make another spec the default first.');
     if (input.isDefault) await store.clearDefault(trx);
     try {
       const after = await store.update(trx, id, input);
-      await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'spec.update', targetType: 'model_spec', targetId: id, before, after });
+      await audit.record(trx, {
+        actorId: caller.id,
+        actorEmail: caller.email,
+        action: 'spec.update',
+        targetType: 'model_spec',
+        targetId: id,
+        before,
+        after,
+      });
       return after;
     } catch (err) {
       if (unique(err)) throw new AppError(409, 'name_taken', `A spec named "${input.name}" exists already.`);
@@ -56,9 +76,21 @@ export async function archiveSpec(db: Knex, caller: Caller, id: number): Promise
   await db.transaction(async (trx) => {
     const before = await store.find(trx, id);
     if (!before || before.archived) throw new NotFoundError(`No model spec with id ${id}`, { id });
-    if (before.isDefault) throw new AppError(409, 'default_required', 'The default spec cannot be archived: make another spec the default first.');
+    if (before.isDefault)
+      throw new AppError(
+        409,
+        'default_required',
+        'The default spec cannot be archived: make another spec the default first.',
+      );
     await store.archive(trx, id);
-    await audit.record(trx, { actorId: caller.id, actorEmail: caller.email, action: 'spec.archive', targetType: 'model_spec', targetId: id, before });
+    await audit.record(trx, {
+      actorId: caller.id,
+      actorEmail: caller.email,
+      action: 'spec.archive',
+      targetType: 'model_spec',
+      targetId: id,
+      before,
+    });
   });
 }
 

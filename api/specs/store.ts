@@ -66,12 +66,17 @@ export async function clearDefault(db: Knex): Promise<void> {
 }
 
 export async function insert(db: Knex, s: SavedSpecInput, userId: number | null): Promise<SavedSpec> {
-  const [r] = await db('model_specs').insert({ ...toRow(s), created_by: userId }).returning('*');
+  const [r] = await db('model_specs')
+    .insert({ ...toRow(s), created_by: userId })
+    .returning('*');
   return toSpec(r);
 }
 
 export async function update(db: Knex, id: number, s: SavedSpecInput): Promise<SavedSpec> {
-  const [r] = await db('model_specs').where({ id }).update({ ...toRow(s), updated_at: db.fn.now() }).returning('*');
+  const [r] = await db('model_specs')
+    .where({ id })
+    .update({ ...toRow(s), updated_at: db.fn.now() })
+    .returning('*');
   return toSpec(r);
 }
 

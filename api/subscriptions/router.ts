@@ -34,7 +34,8 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
       statuses: [201],
       allow: SIGNED_IN,
       tag: 'alerts',
-      summary: 'Subscribe to a district, a set of districts or the region: alert kinds, instant or digest, brief attached',
+      summary:
+        'Subscribe to a district, a set of districts or the region: alert kinds, instant or digest, brief attached',
       schemas: { body },
       handler: async ({ body }, req, res) => {
         res.status(201);
@@ -77,7 +78,10 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
       schemas: { body: z.object({ token: z.string().max(400) }) },
       handler: async ({ body }, _req, res) => {
         const r = await service.unsubscribeByToken(db, config.sessionSecret, body.token);
-        res.status(r.ok ? 200 : 400).type('html').send(resultPage(r.ok, r.message));
+        res
+          .status(r.ok ? 200 : 400)
+          .type('html')
+          .send(resultPage(r.ok, r.message));
       },
     }),
   ];

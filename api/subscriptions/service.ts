@@ -34,9 +34,12 @@ export async function listOwn(db: Knex, caller: Caller) {
 
 export async function subscribe(db: Knex, caller: Caller, input: SubscriptionInput) {
   const codes = [...new Set(input.districtCodes)];
-  if (input.scope === 'region' && codes.length) throw new AppError(400, 'invalid_request', 'A region subscription names no districts.');
-  if (input.scope === 'district' && codes.length !== 1) throw new AppError(400, 'invalid_request', 'A district subscription names exactly one district.');
-  if (input.scope === 'districts' && codes.length < 1) throw new AppError(400, 'invalid_request', 'Name at least one district.');
+  if (input.scope === 'region' && codes.length)
+    throw new AppError(400, 'invalid_request', 'A region subscription names no districts.');
+  if (input.scope === 'district' && codes.length !== 1)
+    throw new AppError(400, 'invalid_request', 'A district subscription names exactly one district.');
+  if (input.scope === 'districts' && codes.length < 1)
+    throw new AppError(400, 'invalid_request', 'Name at least one district.');
   const found = await districtsByCodes(db, codes);
   const id = await store.insert(db, {
     userId: caller.id,
@@ -55,14 +58,26 @@ export async function unsubscribeOwn(db: Knex, caller: Caller, id: number): Prom
   await store.remove(db, id);
 }
 
-export async function unsubscribeByToken(db: Knex, secret: string, token: string): Promise<{ ok: boolean; message: string }> {
+export async function unsubscribeByToken(
+  db: Knex,
+  secret: string,
+  token: string,
+): Promise<{ ok: boolean; message: string }> {
   const check = checkUnsubscribeToken(secret, token);
   if (!check.ok) {
-    const message = check.reason === 'expired' ? 'This unsubscribe link has expired. Sign in to manage your alerts.' : 'This unsubscribe link is not valid.';
+    const message =
+      check.reason === 'expired'
+        ? 'This unsubscribe link has expired. Sign in to manage your alerts.'
+        : 'This unsubscribe link is not valid.';
     return { ok: false, message };
   }
   const removed = await store.remove(db, check.subscriptionId);
-  return { ok: true, message: removed ? 'You will get no more e-mails from this subscription.' : 'This subscription had already been removed.' };
+  return {
+    ok: true,
+    message: removed
+      ? 'You will get no more e-mails from this subscription.'
+      : 'This subscription had already been removed.',
+  };
 }
 
 /** Active people's subscriptions with their e-mail address (whom a publish may alert). */

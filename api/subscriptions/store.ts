@@ -38,9 +38,19 @@ export async function find(db: Knex, id: number): Promise<SubscriptionRow | null
   return r ? toRow(r) : null;
 }
 
-export async function insert(db: Knex, s: Omit<SubscriptionRow, 'id' | 'createdAt' | 'districtCodes'>): Promise<number> {
+export async function insert(
+  db: Knex,
+  s: Omit<SubscriptionRow, 'id' | 'createdAt' | 'districtCodes'>,
+): Promise<number> {
   const [r] = await db('subscriptions')
-    .insert({ user_id: s.userId, scope: s.scope, district_ids: s.districtIds, kinds: s.kinds, delivery: s.delivery, attach_brief: s.attachBrief })
+    .insert({
+      user_id: s.userId,
+      scope: s.scope,
+      district_ids: s.districtIds,
+      kinds: s.kinds,
+      delivery: s.delivery,
+      attach_brief: s.attachBrief,
+    })
     .returning('id');
   return Number(r.id);
 }

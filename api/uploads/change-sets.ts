@@ -26,15 +26,31 @@ export async function revertUpload(db: Knex, id: number, who: Who): Promise<Reve
       const x = await store.findUpload(conn, id, { forUpdate: true });
       if (!x) throw new NotFoundError(`No upload ${id}`, { id });
       if (x.status === 'reverted') {
-        throw new AppError(409, 'already_reverted', `Upload ${id} was already reverted (by upload ${x.revertedByUploadId}).`, { id, revertedByUploadId: x.revertedByUploadId });
+        throw new AppError(
+          409,
+          'already_reverted',
+          `Upload ${id} was already reverted (by upload ${x.revertedByUploadId}).`,
+          { id, revertedByUploadId: x.revertedByUploadId },
+        );
       }
-      if (x.status !== 'committed') throw new AppError(409, 'not_committed', `Upload ${id} is ${x.status}: only a committed upload can be reverted.`, { id, status: x.status });
+      if (x.status !== 'committed')
+        throw new AppError(
+          409,
+          'not_committed',
+          `Upload ${id} is ${x.status}: only a committed upload can be reverted.`,
+          { id, status: x.status },
+        );
       if (x.kind !== 'file' && x.kind !== 'derivation' && x.kind !== 'boundaries') {
-        throw new AppError(409, 'not_revertable', `Upload ${id} is a ${x.kind} change set, which cannot be reverted.`, { id, kind: x.kind });
+        throw new AppError(409, 'not_revertable', `Upload ${id} is a ${x.kind} change set, which cannot be reverted.`, {
+          id,
+          kind: x.kind,
+        });
       }
       const conflicts = await revertConflicts(conn, x.id, x.version!);
       if (conflicts.total > 0) {
-        const later = [...new Set(conflicts.listed.map((c) => c.heldBy).filter((h): h is number => h !== null))].sort((a, b) => b - a);
+        const later = [...new Set(conflicts.listed.map((c) => c.heldBy).filter((h): h is number => h !== null))].sort(
+          (a, b) => b - a,
+        );
         const first = conflicts.listed[0];
         throw new AppError(
           409,
@@ -58,7 +74,9 @@ export async function revertUpload(db: Knex, id: number, who: Who): Promise<Reve
       });
       const { rows } = await conn.query(`SELECT kind, count(*)::int AS n FROM upload_restore GROUP BY kind`);
       const n = (k: string) => rows.find((r) => r.kind === k)?.n ?? 0;
-      await applyChanges(conn, rev.id, version, [{ table: 'upload_restore', writer: 'coalesce(t.value_upload_id, $1::int)', historyKinds: ['i', 'c', 'r'] }]);
+      await applyChanges(conn, rev.id, version, [
+        { table: 'upload_restore', writer: 'coalesce(t.value_upload_id, $1::int)', historyKinds: ['i', 'c', 'r'] },
+      ]);
       const derived = await recomputeTouched(conn, rev.id, version, 'restored');
       await store.markReverted(conn, x.id, rev.id);
       await conn.query(
@@ -75,7 +93,13 @@ export async function revertUpload(db: Knex, id: number, who: Who): Promise<Reve
 }
 
 /** Recomputes derived series for the keys a change touched (or all keys); returns the cells changed. */
-async function recomputeTouched(conn: Sql, uploadId: number, version: number, keys: 'restored' | 'all', only?: number): Promise<number> {
+async function recomputeTouched(
+  conn: Sql,
+  uploadId: number,
+  version: number,
+  keys: 'restored' | 'all',
+  only?: number,
+): Promise<number> {
   let defs = await derivedDefs(conn);
   if (only !== undefined) defs = defs.filter((d) => d.id === only);
   if (keys === 'restored') {
@@ -88,7 +112,10 @@ async function recomputeTouched(conn: Sql, uploadId: number, version: number, ke
   await conn.query(`TRUNCATE upload_derived`);
   let n = 0;
   for (const def of defs) n += await deriveChanges(conn, def, keys);
-  if (n > 0) await applyChanges(conn, uploadId, version, [{ table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] }]);
+  if (n > 0)
+    await applyChanges(conn, uploadId, version, [
+      { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
+    ]);
   return n;
 }
 
@@ -97,7 +124,12 @@ async function recomputeTouched(conn: Sql, uploadId: number, version: number, ke
  * kind 'derivation' (so it is in history and can be reverted). Call inside a transaction
  * on conn, after the definition was saved. Returns null when nothing changed.
  */
-export async function recomputeDerivedIndicator(conn: Sql, indicatorId: number, code: string, who: Who): Promise<UploadSummary | null> {
+export async function recomputeDerivedIndicator(
+  conn: Sql,
+  indicatorId: number,
+  code: string,
+  who: Who,
+): Promise<UploadSummary | null> {
   await lockObservations(conn);
   const version = await store.nextVersion(conn);
   const cs = await store.insertUpload(conn, {
@@ -145,7 +177,8 @@ export async function dataVersion(db: Knex, at?: number): Promise<DataVersion> {
       await conn.query('SET TRANSACTION ISOLATION LEVEL REPEATABLE READ READ ONLY');
       const latest = await store.latestVersion(conn);
       const current = latest?.version ?? 0;
-      if (at !== undefined && at > current) throw new NotFoundError(`No data version ${at}: the latest is ${current}.`, { version: at, latest: current });
+      if (at !== undefined && at > current)
+        throw new NotFoundError(`No data version ${at}: the latest is ${current}.`, { version: at, latest: current });
       const v = at ?? current;
       const { rows: applied } = await conn.query(`SELECT id, committed_at FROM uploads WHERE version = $1`, [v]);
       const hash = await rowsHash(conn, v === current ? 'observations' : observationsAsOfSql(v));

@@ -84,7 +84,11 @@ export async function deriveChanges(conn: Sql, def: DerivedDef, keys: KeySource)
 }
 
 /** Derived values that break D's positivity rule (only possible when a source may be ≤ 0). */
-export async function derivedNotPositive(conn: Sql, def: DerivedDef, limit: number): Promise<{ listed: Problem[]; total: number }> {
+export async function derivedNotPositive(
+  conn: Sql,
+  def: DerivedDef,
+  limit: number,
+): Promise<{ listed: Problem[]; total: number }> {
   if (!def.mustBePositive) return { listed: [], total: 0 };
   const { rows } = await conn.query(
     `SELECT u.line, d.code AS district, u.year, u.value, count(*) OVER () AS total

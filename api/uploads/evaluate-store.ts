@@ -51,7 +51,13 @@ export interface EvaluateOptions {
   changeFactor: number;
 }
 
-export async function evaluateStaged(conn: Sql, t: StagingNames, columns: Columns, options: EvaluateOptions, problems: ProblemList): Promise<Evaluation> {
+export async function evaluateStaged(
+  conn: Sql,
+  t: StagingNames,
+  columns: Columns,
+  options: EvaluateOptions,
+  problems: ProblemList,
+): Promise<Evaluation> {
   await conn.query(`SET LOCAL work_mem = '128MB'`);
   const { newDistricts, refusedRows } = await settleDistricts(conn, t, columns, options, problems);
 
@@ -83,7 +89,12 @@ export async function evaluateStaged(conn: Sql, t: StagingNames, columns: Column
       FROM upload_staged v
      WHERE NOT EXISTS (SELECT 1 FROM observations o
                         WHERE o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year)`);
-  const cells: CellCount[] = rows.map((r) => ({ districtId: r.district_id, indicatorId: r.indicator_id, kind: r.kind, n: r.n }));
+  const cells: CellCount[] = rows.map((r) => ({
+    districtId: r.district_id,
+    indicatorId: r.indicator_id,
+    kind: r.kind,
+    n: r.n,
+  }));
 
   await recheckIndicatorRules(conn, rows, problems);
   if (cells.some((c) => c.kind === 'c')) await largeChanges(conn, options.changeFactor, problems);
@@ -96,7 +107,13 @@ export async function dropEvaluationViews(conn: Sql): Promise<void> {
   await conn.query(`DROP VIEW IF EXISTS upload_new, upload_staged`);
 }
 
-async function settleDistricts(conn: Sql, t: StagingNames, columns: Columns, options: EvaluateOptions, problems: ProblemList) {
+async function settleDistricts(
+  conn: Sql,
+  t: StagingNames,
+  columns: Columns,
+  options: EvaluateOptions,
+  problems: ProblemList,
+) {
   const { rows } = await conn.query(
     // A new district's name stays in the database (the INSERT below reads it there): a file
     // of 50,000 new districts need not bring their names back and forth.
@@ -155,7 +172,11 @@ async function settleDistricts(conn: Sql, t: StagingNames, columns: Columns, opt
 }
 
 /** The reader checked the rules when it read the file; a preview committed later is checked again. */
-async function recheckIndicatorRules(conn: Sql, groups: { indicator_id: number; min_value: number }[], problems: ProblemList): Promise<void> {
+async function recheckIndicatorRules(
+  conn: Sql,
+  groups: { indicator_id: number; min_value: number }[],
+  problems: ProblemList,
+): Promise<void> {
   const ids = [...new Set(groups.map((g) => g.indicator_id))];
   if (ids.length === 0) return;
   const { rows: rules } = await conn.query(
@@ -180,7 +201,11 @@ async function recheckIndicatorRules(conn: Sql, groups: { indicator_id: number; 
       column: r.col,
       field: null,
       severity: 'error' as const,
-      code: r.gone ? ('unknown_indicator' as const) : r.derivation !== 'none' ? ('derived_indicator' as const) : ('not_positive' as const),
+      code: r.gone
+        ? ('unknown_indicator' as const)
+        : r.derivation !== 'none'
+          ? ('derived_indicator' as const)
+          : ('not_positive' as const),
       reason: r.gone
         ? 'the indicator of this value has been removed from the catalogue since the preview'
         : r.derivation !== 'none'

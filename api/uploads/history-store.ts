@@ -18,7 +18,12 @@ export interface RevertConflict {
  * Cells the upload wrote that now hold something else (a later upload changed them):
  * reverting would undo that later work too, so it is refused.
  */
-export async function revertConflicts(conn: Sql, uploadId: number, version: number, limit = 20): Promise<{ listed: RevertConflict[]; total: number }> {
+export async function revertConflicts(
+  conn: Sql,
+  uploadId: number,
+  version: number,
+  limit = 20,
+): Promise<{ listed: RevertConflict[]; total: number }> {
   const { rows } = await conn.query(
     `WITH mine AS (
        SELECT h.district_id, h.indicator_id, h.year, h.value IS NULL AS removed

@@ -48,7 +48,9 @@ export const BULK_MIN_ROWS = 50_000;
 export const BULK_CHANGE_MIN_ROWS = 10_000;
 
 async function storedRows(conn: Sql): Promise<number> {
-  const { rows } = await conn.query(`SELECT greatest(reltuples, 0)::float8 AS n FROM pg_class WHERE oid = 'observations'::regclass`);
+  const { rows } = await conn.query(
+    `SELECT greatest(reltuples, 0)::float8 AS n FROM pg_class WHERE oid = 'observations'::regclass`,
+  );
   return Number(rows[0].n);
 }
 
@@ -68,7 +70,12 @@ async function withUploadKeyRebuilt(conn: Sql, fn: () => Promise<void>): Promise
   for (const c of rows) await conn.query(`ALTER TABLE observations ADD CONSTRAINT ${q(c.name)} ${c.def}`);
 }
 
-export async function applyChanges(conn: Sql, uploadId: number, version: number, sets: ChangeTable[]): Promise<MergeCounts> {
+export async function applyChanges(
+  conn: Sql,
+  uploadId: number,
+  version: number,
+  sets: ChangeTable[],
+): Promise<MergeCounts> {
   const counts: MergeCounts = { inserted: 0, changed: 0, removed: 0, bulk: false };
   for (const s of sets) {
     const has = (k: 'i' | 'c' | 'r') => !s.known || s.known[k] > 0;
@@ -91,7 +98,8 @@ export async function applyChanges(conn: Sql, uploadId: number, version: number,
         );
         counts.changed += r.rowCount ?? 0;
       };
-      if (s.known && s.known.c >= BULK_CHANGE_MIN_ROWS && s.known.c >= (await storedRows(conn)) / 20) await withUploadKeyRebuilt(conn, update);
+      if (s.known && s.known.c >= BULK_CHANGE_MIN_ROWS && s.known.c >= (await storedRows(conn)) / 20)
+        await withUploadKeyRebuilt(conn, update);
       else await update();
     }
     if (has('r')) {
@@ -104,7 +112,9 @@ export async function applyChanges(conn: Sql, uploadId: number, version: number,
   }
   const withInserts = sets.filter((s) => !s.known || s.known.i > 0);
   if (withInserts.length === 0) return counts;
-  const inserts = withInserts.map((s) => `SELECT t.district_id, t.indicator_id, t.year, t.value, ${s.writer} FROM ${s.table} t WHERE t.kind = 'i'`);
+  const inserts = withInserts.map(
+    (s) => `SELECT t.district_id, t.indicator_id, t.year, t.value, ${s.writer} FROM ${s.table} t WHERE t.kind = 'i'`,
+  );
   const known = withInserts.reduce((a, s) => a + (s.known?.i ?? 0), 0);
   const counted = withInserts.filter((s) => !s.known).map((s) => `(SELECT count(*) FROM ${s.table} WHERE kind = 'i')`);
   const { rows } = await conn.query(
@@ -159,6 +169,7 @@ async function withConstraintsRebuilt(conn: Sql, fn: () => Promise<void>): Promi
   for (const i of plainIndexes) await conn.query(`DROP INDEX ${q(i.name)}`);
   await fn();
   // Keys first (the foreign keys' checks then read a table with its indexes), then the rest.
-  for (const c of [...dropped].reverse()) await conn.query(`ALTER TABLE observations ADD CONSTRAINT ${q(c.name)} ${c.def}`);
+  for (const c of [...dropped].reverse())
+    await conn.query(`ALTER TABLE observations ADD CONSTRAINT ${q(c.name)} ${c.def}`);
   for (const i of plainIndexes) await conn.query(i.def);
 }

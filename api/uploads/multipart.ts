@@ -25,7 +25,11 @@ interface StoredFile {
 class HashingDiskStorage implements multer.StorageEngine {
   constructor(private readonly dir: string) {}
 
-  _handleFile(_req: Request, file: Express.Multer.File, cb: (error?: unknown, info?: Partial<Express.Multer.File> & StoredFile) => void): void {
+  _handleFile(
+    _req: Request,
+    file: Express.Multer.File,
+    cb: (error?: unknown, info?: Partial<Express.Multer.File> & StoredFile) => void,
+  ): void {
     fs.mkdirSync(this.dir, { recursive: true });
     const target = path.join(this.dir, `${Date.now()}-${randomBytes(8).toString('hex')}.csv`);
     const hash = createHash('sha256');
@@ -68,22 +72,39 @@ export function receiveFile(maxBytes: number, dir = path.join(os.tmpdir(), 'cres
       res.locals.receiveMs = Math.round(performance.now() - t0);
       if (!err) {
         if (!req.file) {
-          return next(new AppError(400, 'no_file', `Send the CSV as multipart/form-data in a field named "${UPLOAD_FIELD}".`));
+          return next(
+            new AppError(400, 'no_file', `Send the CSV as multipart/form-data in a field named "${UPLOAD_FIELD}".`),
+          );
         }
         return next();
       }
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') {
           return next(
-            new AppError(413, 'payload_too_large', `The file is larger than the upload limit of ${megabytes(maxBytes)} (set by UPLOAD_MAX_BYTES); nothing was loaded.`, {
-              maxBytes,
-            }),
+            new AppError(
+              413,
+              'payload_too_large',
+              `The file is larger than the upload limit of ${megabytes(maxBytes)} (set by UPLOAD_MAX_BYTES); nothing was loaded.`,
+              {
+                maxBytes,
+              },
+            ),
           );
         }
         if (err.code === 'LIMIT_UNEXPECTED_FILE') {
-          return next(new AppError(400, 'unexpected_field', `Send the file in the multipart field "${UPLOAD_FIELD}" (got "${err.field}").`));
+          return next(
+            new AppError(
+              400,
+              'unexpected_field',
+              `Send the file in the multipart field "${UPLOAD_FIELD}" (got "${err.field}").`,
+            ),
+          );
         }
-        return next(new AppError(400, 'bad_multipart', `The multipart request was refused: ${err.message}.`, { reason: err.code }));
+        return next(
+          new AppError(400, 'bad_multipart', `The multipart request was refused: ${err.message}.`, {
+            reason: err.code,
+          }),
+        );
       }
       // busboy's complaints about a malformed body carry no status.
       const message = err instanceof Error ? err.message : String(err);

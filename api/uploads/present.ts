@@ -69,7 +69,12 @@ export interface Preview {
   years: { first: number | null; last: number | null };
   totals: KindCounts;
   byIndicator: ({ indicator: string; name: string } & KindCounts)[];
-  byDistrict: ({ district: string; name: string; isNew: boolean; indicators: Record<string, KindCounts> } & KindCounts)[];
+  byDistrict: ({
+    district: string;
+    name: string;
+    isNew: boolean;
+    indicators: Record<string, KindCounts>;
+  } & KindCounts)[];
   newDistricts: { code: string; name: string; line: number }[];
   /** How many districts the file touches and how many it adds (the two lists above stop at PREVIEW_LIST_CAP). */
   districtsTotal: number;
@@ -96,7 +101,10 @@ export const PREVIEW_LIST_CAP = 1000;
 export function buildPreview(
   read: ReadSummary,
   ev: Evaluation | null,
-  names: { districts: Map<number, { code: string; name: string }>; indicators: Map<number, { code: string; name: string }> },
+  names: {
+    districts: Map<number, { code: string; name: string }>;
+    indicators: Map<number, { code: string; name: string }>;
+  },
   decimalComma: boolean,
   previewedAt: Date | null,
 ): Preview {
@@ -136,13 +144,24 @@ export function buildPreview(
     years: { first: read.firstYear, last: read.lastYear },
     totals,
     byIndicator: [...byIndicator]
-      .map(([id, c]) => ({ indicator: names.indicators.get(id)?.code ?? String(id), name: names.indicators.get(id)?.name ?? '', ...c }))
+      .map(([id, c]) => ({
+        indicator: names.indicators.get(id)?.code ?? String(id),
+        name: names.indicators.get(id)?.name ?? '',
+        ...c,
+      }))
       .sort((a, b) => a.indicator.localeCompare(b.indicator)),
     byDistrict: [...byDistrict]
-      .map(([id, c]) => ({ district: names.districts.get(id)?.code ?? String(id), name: names.districts.get(id)?.name ?? '', isNew: newIds.has(id), ...c }))
+      .map(([id, c]) => ({
+        district: names.districts.get(id)?.code ?? String(id),
+        name: names.districts.get(id)?.name ?? '',
+        isNew: newIds.has(id),
+        ...c,
+      }))
       .sort((a, b) => DISTRICT_ORDER.compare(a.district, b.district))
       .slice(0, PREVIEW_LIST_CAP),
-    newDistricts: (ev?.newDistricts ?? []).slice(0, PREVIEW_LIST_CAP).map(({ code, name, line }) => ({ code, name, line })),
+    newDistricts: (ev?.newDistricts ?? [])
+      .slice(0, PREVIEW_LIST_CAP)
+      .map(({ code, name, line }) => ({ code, name, line })),
     districtsTotal: districtIds.size,
     newDistrictsTotal: ev?.newDistricts.length ?? 0,
     derived: [...derived].map(([id, c]) => ({ indicator: names.indicators.get(id)?.code ?? String(id), ...c })),

@@ -63,7 +63,12 @@ export class ProblemList {
     if (severity === 'error') this.errors++;
     else this.warnings++;
     if (this.items.length >= this.cap) return -1;
-    this.items.push({ ...p, reason: printable(p.reason), field: p.field == null ? null : printable(p.field), severity });
+    this.items.push({
+      ...p,
+      reason: printable(p.reason),
+      field: p.field == null ? null : printable(p.field),
+      severity,
+    });
     return this.items.length - 1;
   }
 
@@ -81,7 +86,10 @@ export class ProblemList {
   sorted(): Problem[] {
     return [...this.items].sort(
       // By line, then column; a problem of the whole line after those of its cells.
-      (a, b) => (a.line ?? 0) - (b.line ?? 0) || (a.column ?? Infinity) - (b.column ?? Infinity) || a.code.localeCompare(b.code),
+      (a, b) =>
+        (a.line ?? 0) - (b.line ?? 0) ||
+        (a.column ?? Infinity) - (b.column ?? Infinity) ||
+        a.code.localeCompare(b.code),
     );
   }
 }
@@ -105,7 +113,10 @@ export function summarise(problems: Problem[], errors: number, warnings: number)
   if (!first) return 'The file has no problems.';
   const place = placeOf(first);
   const more = errors - 1;
-  const tail = [more > 0 ? `${more} more error${more === 1 ? '' : 's'}` : '', warnings ? `${warnings} warning${warnings === 1 ? '' : 's'}` : '']
+  const tail = [
+    more > 0 ? `${more} more error${more === 1 ? '' : 's'}` : '',
+    warnings ? `${warnings} warning${warnings === 1 ? '' : 's'}` : '',
+  ]
     .filter(Boolean)
     .join(' and ');
   return `${place ? `${capitalise(place)}: ${first.reason}` : capitalise(first.reason)}${tail ? ` (and ${tail})` : ''}.`;

@@ -9,7 +9,12 @@ import { receivedFile, receiveFile } from './multipart';
 import { uploadIdParams, uploadListQuery, uploadQuery } from './schema';
 import * as service from './service';
 import { DataVersionSchema } from '../../contracts/districts';
-import { RevertAnswerSchema, UploadAnswerSchema, UploadDetailResponseSchema, UploadListResponseSchema } from '../../contracts/uploads';
+import {
+  RevertAnswerSchema,
+  UploadAnswerSchema,
+  UploadDetailResponseSchema,
+  UploadListResponseSchema,
+} from '../../contracts/uploads';
 
 function who(req: Parameters<typeof callerOf>[0]): service.Who {
   const c = callerOf(req);
@@ -34,10 +39,19 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
       handler: async ({ query }, req, res) => {
         const w = who(req);
         const changeFactor = query.changeFactor ?? (await getSettings(db)).uploadChangeFactor;
-        const answer = await service.receiveUpload(db, receivedFile(req), { ...query, changeFactor, maxNewDistricts: config.uploadMaxNewDistricts }, w);
+        const answer = await service.receiveUpload(
+          db,
+          receivedFile(req),
+          { ...query, changeFactor, maxNewDistricts: config.uploadMaxNewDistricts },
+          w,
+        );
         if (!answer.noop) answer.timings.receiveMs = res.locals.receiveMs;
         if (!answer.noop && answer.upload.status === 'committed') {
-          await record(w, 'upload.commit', answer.upload.id, { fileName: answer.upload.fileName, version: answer.upload.version, counts: answer.upload.counts });
+          await record(w, 'upload.commit', answer.upload.id, {
+            fileName: answer.upload.fileName,
+            version: answer.upload.version,
+            counts: answer.upload.counts,
+          });
           res.status(201);
         }
         return answer;
@@ -77,7 +91,11 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
         const w = who(req);
         const answer = await service.commitPreviewed(db, params.id, w);
         if (!answer.noop) {
-          await record(w, 'upload.commit', answer.upload.id, { fileName: answer.upload.fileName, version: answer.upload.version, counts: answer.upload.counts });
+          await record(w, 'upload.commit', answer.upload.id, {
+            fileName: answer.upload.fileName,
+            version: answer.upload.version,
+            counts: answer.upload.counts,
+          });
           res.status(201);
         }
         return answer;
@@ -89,12 +107,17 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
       answer: RevertAnswerSchema,
       allow: STAFF,
       tag: 'uploads',
-      summary: 'Revert a committed upload: every value it wrote goes back to what it was before (refused when later uploads changed them)',
+      summary:
+        'Revert a committed upload: every value it wrote goes back to what it was before (refused when later uploads changed them)',
       schemas: { params: uploadIdParams },
       handler: async ({ params }, req) => {
         const w = who(req);
         const answer = await revertUpload(db, params.id, w);
-        await record(w, 'upload.revert', params.id, { revertUploadId: answer.revert.id, version: answer.revert.version, restored: answer.restored });
+        await record(w, 'upload.revert', params.id, {
+          revertUploadId: answer.revert.id,
+          version: answer.revert.version,
+          restored: answer.restored,
+        });
         return answer;
       },
     }),
@@ -104,7 +127,8 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
       answer: DataVersionSchema,
       allow: SIGNED_IN,
       tag: 'uploads',
-      summary: 'The current data version (last change applied and a hash of the rows), or an earlier one rebuilt from history',
+      summary:
+        'The current data version (last change applied and a hash of the rows), or an earlier one rebuilt from history',
       schemas: { query: z.object({ version: z.coerce.number().int().min(0).optional() }) },
       handler: ({ query }) => dataVersion(db, query.version),
     }),

@@ -33,7 +33,14 @@ export interface ReceivedFile {
 }
 
 export type UploadAnswer =
-  | { noop: false; upload: UploadSummary; preview: Preview; problems: Problem[]; problemsTruncated: boolean; timings: Timings }
+  | {
+      noop: false;
+      upload: UploadSummary;
+      preview: Preview;
+      problems: Problem[];
+      problemsTruncated: boolean;
+      timings: Timings;
+    }
   | { noop: true; upload: UploadSummary; message: string };
 
 /** Where the time went (milliseconds), for the analyst's curiosity and the ingest bench. */
@@ -107,13 +114,21 @@ export async function receiveUpload(
         checksum: file.checksum,
         byteSize: file.size,
         format: read.format,
-        options: { allowNewDistricts: options.allowNewDistricts, decimalComma: options.decimalComma, changeFactor: options.changeFactor },
+        options: {
+          allowNewDistricts: options.allowNewDistricts,
+          decimalComma: options.decimalComma,
+          changeFactor: options.changeFactor,
+        },
         userId: who.id,
         userEmail: who.email,
         counts: { rowsRead: read.rowsRead, values: read.values },
       };
       if (read.fatal || !read.columns) {
-        const failed = await store.insertUpload(conn, { ...base, counts: { ...base.counts, errors: problems.errors, warnings: problems.warnings }, problems: problems.sorted() });
+        const failed = await store.insertUpload(conn, {
+          ...base,
+          counts: { ...base.counts, errors: problems.errors, warnings: problems.warnings },
+          problems: problems.sorted(),
+        });
         throw new UploadRejected(problems, failed.id, null);
       }
       const columns = read.columns;
@@ -131,9 +146,19 @@ export async function receiveUpload(
         throw new UploadRejected(problems, failed.id, outcome.preview);
       }
       if (outcome.kind === 'committed') {
-        return { noop: false, upload: summaryOf(outcome.upload), preview: outcome.preview, problems: problems.sorted(), problemsTruncated: problems.truncated, timings };
+        return {
+          noop: false,
+          upload: summaryOf(outcome.upload),
+          preview: outcome.preview,
+          problems: problems.sorted(),
+          problemsTruncated: problems.truncated,
+          timings,
+        };
       }
-      const preview = { ...outcome.preview, expiresAt: new Date(now.getTime() + staging.STAGING_TTL_HOURS * 3600_000).toISOString() };
+      const preview = {
+        ...outcome.preview,
+        expiresAt: new Date(now.getTime() + staging.STAGING_TTL_HOURS * 3600_000).toISOString(),
+      };
       const saved = await store.insertUpload(conn, {
         ...base,
         status: 'previewed',
@@ -144,7 +169,14 @@ export async function receiveUpload(
         stagingTable: name,
       });
       keep = true;
-      return { noop: false, upload: summaryOf(saved), preview, problems: problems.sorted(), problemsTruncated: problems.truncated, timings };
+      return {
+        noop: false,
+        upload: summaryOf(saved),
+        preview,
+        problems: problems.sorted(),
+        problemsTruncated: problems.truncated,
+        timings,
+      };
     } finally {
       if (!keep) await staging.dropStaging(conn, name);
     }
@@ -156,10 +188,20 @@ export async function commitPreviewed(db: Knex, id: number, who: Who): Promise<U
   return withConnection(db, async (conn) => {
     const u = await store.findUpload(conn, id);
     if (!u || u.kind !== 'file') throw new NotFoundError(`No upload ${id}`, { id });
-    if (u.status === 'committed') throw new AppError(409, 'already_committed', `Upload ${id} is already committed.`, { id });
-    if (u.status !== 'previewed') throw new AppError(409, 'not_previewed', `Upload ${id} is ${u.status}; only a preview can be committed.`, { id, status: u.status });
+    if (u.status === 'committed')
+      throw new AppError(409, 'already_committed', `Upload ${id} is already committed.`, { id });
+    if (u.status !== 'previewed')
+      throw new AppError(409, 'not_previewed', `Upload ${id} is ${u.status}; only a preview can be committed.`, {
+        id,
+        status: u.status,
+      });
     if (!u.stagingTable) {
-      throw new AppError(410, 'preview_expired', `The staged rows of upload ${id} were dropped after ${staging.STAGING_TTL_HOURS} hours: upload the file again.`, { id });
+      throw new AppError(
+        410,
+        'preview_expired',
+        `The staged rows of upload ${id} were dropped after ${staging.STAGING_TTL_HOURS} hours: upload the file again.`,
+        { id },
+      );
     }
     const t = staging.stagingTables(u.stagingTable);
     const prior = u.preview as (Preview & { columns?: Columns }) | null;
@@ -180,7 +222,14 @@ export async function commitPreviewed(db: Knex, id: number, who: Who): Promise<U
       throw new UploadRejected(problems, u.id, outcome.preview);
     }
     await staging.dropStaging(conn, u.stagingTable);
-    return { noop: false, upload: summaryOf(outcome.upload), preview: outcome.preview, problems: problems.sorted(), problemsTruncated: problems.truncated, timings };
+    return {
+      noop: false,
+      upload: summaryOf(outcome.upload),
+      preview: outcome.preview,
+      problems: problems.sorted(),
+      problemsTruncated: problems.truncated,
+      timings,
+    };
   });
 }
 
@@ -199,7 +248,14 @@ async function readIntoStaging(
 ): Promise<ReadSummary> {
   const catalogue = await loadCatalogue(conn);
   const knownDistricts = options.maxNewDistricts === undefined ? undefined : await store.districtCodes(conn);
-  const reader = new UploadReader({ catalogue, options, currentYear: now.getUTCFullYear(), problems, knownDistricts, maxNewDistricts: options.maxNewDistricts });
+  const reader = new UploadReader({
+    catalogue,
+    options,
+    currentYear: now.getUTCFullYear(),
+    problems,
+    knownDistricts,
+    maxNewDistricts: options.maxNewDistricts,
+  });
   const parse = new Transform({
     transform(chunk: Buffer, _enc, cb) {
       try {
@@ -233,15 +289,30 @@ async function readIntoStaging(
 
 async function loadCatalogue(conn: Sql): Promise<Map<string, CatalogueEntry>> {
   const { rows } = await conn.query(`SELECT id, code, derivation, must_be_positive FROM indicators ORDER BY id`);
-  return new Map(rows.map((r) => [r.code, { id: r.id, code: r.code, derivation: r.derivation, mustBePositive: r.must_be_positive }]));
+  return new Map(
+    rows.map((r) => [r.code, { id: r.id, code: r.code, derivation: r.derivation, mustBePositive: r.must_be_positive }]),
+  );
 }
 
-async function previewStaged(conn: Sql, t: staging.StagingNames, read: ReadSummary, columns: Columns, options: UploadOptions, problems: ProblemList, timings: Timings): Promise<Outcome> {
+async function previewStaged(
+  conn: Sql,
+  t: staging.StagingNames,
+  read: ReadSummary,
+  columns: Columns,
+  options: UploadOptions,
+  problems: ProblemList,
+  timings: Timings,
+): Promise<Outcome> {
   return inTransaction(conn, async () => {
     await lockObservations(conn);
     const ev = await timed(timings, 'checkMs', () => evaluateStaged(conn, t, columns, options, problems));
     const preview = await previewOf(conn, read, ev, options);
-    return { kind: problems.errors ? 'failed' : 'previewed', preview, counts: countsOf(ev), rollback: true } as Outcome & { rollback: boolean };
+    return {
+      kind: problems.errors ? 'failed' : 'previewed',
+      preview,
+      counts: countsOf(ev),
+      rollback: true,
+    } as Outcome & { rollback: boolean };
   });
 }
 
@@ -282,7 +353,14 @@ async function commitStaged(
     const merged = await timed(timings, 'mergeMs', () => applyChanges(conn, upload, version, sets));
     await dropEvaluationViews(conn);
     timings.bulkPath = merged.bulk;
-    const record = await store.markCommitted(conn, upload, version, { ...counts, remove: merged.removed, errors: 0, warnings: problems.warnings }, { ...preview, expiresAt: null }, problems.sorted());
+    const record = await store.markCommitted(
+      conn,
+      upload,
+      version,
+      { ...counts, remove: merged.removed, errors: 0, warnings: problems.warnings },
+      { ...preview, expiresAt: null },
+      problems.sorted(),
+    );
     return { kind: 'committed', upload: record, preview: { ...preview, expiresAt: null }, counts };
   });
 }
@@ -303,8 +381,14 @@ async function previewOf(conn: Sql, read: ReadSummary, ev: Evaluation, options: 
   const districtIds = [...new Set(ev.cells.map((c) => c.districtId))];
   let listed = districtIds;
   if (districtIds.length > PREVIEW_LIST_CAP) {
-    const { rows: codes } = await conn.query<{ id: number; code: string }>(`SELECT id, code FROM districts WHERE id = ANY($1)`, [districtIds]);
-    listed = codes.sort((a, b) => DISTRICT_ORDER.compare(a.code, b.code)).slice(0, PREVIEW_LIST_CAP).map((d) => d.id);
+    const { rows: codes } = await conn.query<{ id: number; code: string }>(
+      `SELECT id, code FROM districts WHERE id = ANY($1)`,
+      [districtIds],
+    );
+    listed = codes
+      .sort((a, b) => DISTRICT_ORDER.compare(a.code, b.code))
+      .slice(0, PREVIEW_LIST_CAP)
+      .map((d) => d.id);
   }
   const { rows: ds } = await conn.query(`SELECT id, code, name FROM districts WHERE id = ANY($1)`, [listed]);
   const { rows: is } = await conn.query(`SELECT id, code, name FROM indicators`);

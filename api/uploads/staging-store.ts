@@ -60,7 +60,11 @@ export async function saveDistrictsSeen(conn: Sql, t: StagingNames, districts: D
 }
 
 /** The line where each (district, indicator, year) first appears among the staged rows. */
-export async function firstLines(conn: Sql, t: StagingNames, keys: { district: string; indicatorId: number; year: number }[]): Promise<Map<string, number>> {
+export async function firstLines(
+  conn: Sql,
+  t: StagingNames,
+  keys: { district: string; indicatorId: number; year: number }[],
+): Promise<Map<string, number>> {
   const out = new Map<string, number>();
   if (keys.length === 0) return out;
   const { rows } = await conn.query<{ district: string; indicator_id: number; year: number; line: number }>(

@@ -152,18 +152,43 @@ export async function nextVersion(conn: Sql): Promise<number> {
 }
 
 /** Marks a previewed upload committed (same row), with the counts of what it wrote. */
-export async function markCommitted(conn: Sql, id: number, version: number, counts: Partial<UploadCounts>, preview: unknown, problems: Problem[]): Promise<UploadRecord> {
+export async function markCommitted(
+  conn: Sql,
+  id: number,
+  version: number,
+  counts: Partial<UploadCounts>,
+  preview: unknown,
+  problems: Problem[],
+): Promise<UploadRecord> {
   const { rows } = await conn.query(
     `UPDATE uploads SET status = 'committed', version = $2, committed_at = now(), staging_table = NULL,
             insert_count = $3, change_count = $4, unchanged_count = $5, remove_count = $6, derived_count = $7,
             error_count = $8, warning_count = $9, preview = $10, problems = $11
       WHERE id = $1 RETURNING ${COLUMNS}`,
-    [id, version, counts.insert ?? 0, counts.change ?? 0, counts.unchanged ?? 0, counts.remove ?? 0, counts.derived ?? 0, counts.errors ?? 0, counts.warnings ?? 0, JSON.stringify(preview), JSON.stringify(problems)],
+    [
+      id,
+      version,
+      counts.insert ?? 0,
+      counts.change ?? 0,
+      counts.unchanged ?? 0,
+      counts.remove ?? 0,
+      counts.derived ?? 0,
+      counts.errors ?? 0,
+      counts.warnings ?? 0,
+      JSON.stringify(preview),
+      JSON.stringify(problems),
+    ],
   );
   return toRecord(rows[0], false);
 }
 
-export async function markFailed(conn: Sql, id: number, errors: number, warnings: number, problems: Problem[]): Promise<void> {
+export async function markFailed(
+  conn: Sql,
+  id: number,
+  errors: number,
+  warnings: number,
+  problems: Problem[],
+): Promise<void> {
   await conn.query(
     `UPDATE uploads SET status = 'failed', staging_table = NULL, error_count = $2, warning_count = $3, problems = $4 WHERE id = $1`,
     [id, errors, warnings, JSON.stringify(problems)],
@@ -171,7 +196,10 @@ export async function markFailed(conn: Sql, id: number, errors: number, warnings
 }
 
 export async function markReverted(conn: Sql, id: number, byUploadId: number): Promise<void> {
-  await conn.query(`UPDATE uploads SET status = 'reverted', reverted_by_upload_id = $2, reverted_at = now() WHERE id = $1`, [id, byUploadId]);
+  await conn.query(
+    `UPDATE uploads SET status = 'reverted', reverted_by_upload_id = $2, reverted_at = now() WHERE id = $1`,
+    [id, byUploadId],
+  );
 }
 
 export async function findUpload(db: Knex | Sql, id: number, { forUpdate = false } = {}): Promise<UploadRecord | null> {
@@ -181,11 +209,17 @@ export async function findUpload(db: Knex | Sql, id: number, { forUpdate = false
 }
 
 export async function findCommittedByChecksum(conn: Sql, checksum: string): Promise<UploadRecord | null> {
-  const { rows } = await conn.query(`SELECT ${COLUMNS} FROM uploads WHERE kind = 'file' AND status = 'committed' AND checksum = $1`, [checksum]);
+  const { rows } = await conn.query(
+    `SELECT ${COLUMNS} FROM uploads WHERE kind = 'file' AND status = 'committed' AND checksum = $1`,
+    [checksum],
+  );
   return rows.length ? toRecord(rows[0], false) : null;
 }
 
-export async function listUploads(db: Knex, q: { limit: number; before?: number; status?: UploadStatus }): Promise<UploadRecord[]> {
+export async function listUploads(
+  db: Knex,
+  q: { limit: number; before?: number; status?: UploadStatus },
+): Promise<UploadRecord[]> {
   const rows = await db('uploads')
     .select(db.raw(COLUMNS))
     .modify((b) => {
@@ -198,7 +232,9 @@ export async function listUploads(db: Knex, q: { limit: number; before?: number;
 }
 
 /** The last change set applied: the data version (its number and upload). */
-export async function latestVersion(db: Knex | Sql): Promise<{ version: number; uploadId: number; committedAt: Date } | null> {
+export async function latestVersion(
+  db: Knex | Sql,
+): Promise<{ version: number; uploadId: number; committedAt: Date } | null> {
   const sql = `SELECT version, id, committed_at FROM uploads WHERE version IS NOT NULL ORDER BY version DESC LIMIT 1`;
   const rows = isKnex(db) ? (await db.raw(sql)).rows : (await db.query(sql)).rows;
   return rows.length ? { version: rows[0].version, uploadId: rows[0].id, committedAt: rows[0].committed_at } : null;

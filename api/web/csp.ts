@@ -41,7 +41,8 @@ export function scriptHash(text: string): string {
 /** Every distinct inline-script hash of the exported pages, sorted. */
 export function computeCspHashes(webDir: string): string[] {
   const hashes = new Set<string>();
-  for (const file of htmlFiles(webDir)) for (const s of inlineScripts(fs.readFileSync(file, 'utf8'))) hashes.add(scriptHash(s));
+  for (const file of htmlFiles(webDir))
+    for (const s of inlineScripts(fs.readFileSync(file, 'utf8'))) hashes.add(scriptHash(s));
   return [...hashes].sort();
 }
 
@@ -57,7 +58,10 @@ export function loadCspHashes(webDir: string): string[] {
   const file = path.join(webDir, CSP_HASHES_FILE);
   if (fs.existsSync(file)) {
     const parsed = JSON.parse(fs.readFileSync(file, 'utf8')) as { scriptSrc?: unknown };
-    if (!Array.isArray(parsed.scriptSrc) || !parsed.scriptSrc.every((h) => typeof h === 'string' && /^'sha256-[A-Za-z0-9+/]+={0,2}'$/.test(h))) {
+    if (
+      !Array.isArray(parsed.scriptSrc) ||
+      !parsed.scriptSrc.every((h) => typeof h === 'string' && /^'sha256-[A-Za-z0-9+/]+={0,2}'$/.test(h))
+    ) {
       throw new Error(`${file} is not a list of sha256 hash sources: rebuild the web app`);
     }
     return parsed.scriptSrc as string[];

@@ -72,10 +72,7 @@ export function webRouter(webDir: string): Router {
   }
   const routes = htmlRoutes(webDir);
   const notFound = path.join(webDir, '+not-found.html');
-  r.use(
-    '/_expo',
-    express.static(path.join(webDir, '_expo'), { immutable: true, maxAge: '365d', fallthrough: false }),
-  );
+  r.use('/_expo', express.static(path.join(webDir, '_expo'), { immutable: true, maxAge: '365d', fallthrough: false }));
   r.use('/assets', express.static(path.join(webDir, 'assets'), { maxAge: '7d', fallthrough: false }));
   r.use(express.static(webDir, { index: false, extensions: [], redirect: false }));
   r.get('/*splat', ((req, res) => {

@@ -18,28 +18,31 @@ const EstimateRow = CurveRow.refine((r) => r.controls === undefined || Object.ke
   path: ['controls'],
 });
 
-export const EstimateRequest = z.union([
-  z.object({ model: EstimateModel, rows: z.array(EstimateRow).min(1).max(1000) }).strict(),
-  z
-    .object({
-      model: EstimateModel,
-      district: districtCode,
-      emissions: indicator.default('emissions_pc'),
-      driver: indicator.default('income_pc'),
-      controls: z.array(indicator).max(MAX_CONTROLS).default([]),
-      firstYear: z.number().int().min(1900).max(2100).optional(),
-      lastYear: z.number().int().min(1900).max(2100).optional(),
-    })
-    .strict(),
-], {
-  // Name the field of the form the caller meant (rows in the body, or a district), not just "invalid input".
-  error: (iss) => {
-    if (iss.code !== 'invalid_union' || !('errors' in iss)) return undefined;
-    const input = iss.input as Record<string, unknown> | undefined;
-    const branch = iss.errors[input && typeof input === 'object' && 'rows' in input ? 0 : 1] ?? [];
-    return branch.map((i) => `${i.path.join('.') || '(body)'}: ${i.message}`).join('; ') || undefined;
+export const EstimateRequest = z.union(
+  [
+    z.object({ model: EstimateModel, rows: z.array(EstimateRow).min(1).max(1000) }).strict(),
+    z
+      .object({
+        model: EstimateModel,
+        district: districtCode,
+        emissions: indicator.default('emissions_pc'),
+        driver: indicator.default('income_pc'),
+        controls: z.array(indicator).max(MAX_CONTROLS).default([]),
+        firstYear: z.number().int().min(1900).max(2100).optional(),
+        lastYear: z.number().int().min(1900).max(2100).optional(),
+      })
+      .strict(),
+  ],
+  {
+    // Name the field of the form the caller meant (rows in the body, or a district), not just "invalid input".
+    error: (iss) => {
+      if (iss.code !== 'invalid_union' || !('errors' in iss)) return undefined;
+      const input = iss.input as Record<string, unknown> | undefined;
+      const branch = iss.errors[input && typeof input === 'object' && 'rows' in input ? 0 : 1] ?? [];
+      return branch.map((i) => `${i.path.join('.') || '(body)'}: ${i.message}`).join('; ') || undefined;
+    },
   },
-});
+);
 
 export function curveRoutes({ db, compute }: AppContext): RouteSpec[] {
   return [

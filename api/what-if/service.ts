@@ -21,13 +21,23 @@ export interface DistrictSource {
   lastYear?: number;
 }
 
-export async function rowsForDistrict(db: Knex, src: DistrictSource): Promise<{ rows: CurveRow[]; droppedYears: number[]; dataVersion: number }> {
+export async function rowsForDistrict(
+  db: Knex,
+  src: DistrictSource,
+): Promise<{ rows: CurveRow[]; droppedYears: number[]; dataVersion: number }> {
   const d = await districtByCode(db, src.district);
   const known = new Set(await knownIndicatorCodes(db, [src.emissions, src.driver, ...src.controls]));
   const unknown = [src.emissions, src.driver, ...src.controls].filter((c) => !known.has(c));
-  if (unknown.length) throw new AppError(400, 'unknown_indicator', `Unknown indicator: ${unknown.join(', ')}`, { unknown });
+  if (unknown.length)
+    throw new AppError(400, 'unknown_indicator', `Unknown indicator: ${unknown.join(', ')}`, { unknown });
   const version = await currentDataVersion(db);
-  const sel = { emissions: src.emissions, driver: src.driver, controls: src.controls, firstYear: src.firstYear ?? null, lastYear: src.lastYear ?? null };
+  const sel = {
+    emissions: src.emissions,
+    driver: src.driver,
+    controls: src.controls,
+    firstYear: src.firstYear ?? null,
+    lastYear: src.lastYear ?? null,
+  };
   const [series] = await loadSeries(db, version, sel, [Number(d.id)]);
   if (!series) return { rows: [], droppedYears: [], dataVersion: version };
   const rows = series.data.years.map((year, i) => ({
@@ -48,7 +58,12 @@ export const MAX_CONTROLS = 8;
  */
 export function checkLag(n: number, lag: number | undefined): void {
   if (lag === undefined || lag <= n - 1) return;
-  throw new AppError(400, 'lag_too_large', `The Newey–West lag ${lag} is too large for ${n} rows: it may be at most ${Math.max(0, n - 1)} (n − 1).`, { lag, n, max: Math.max(0, n - 1) });
+  throw new AppError(
+    400,
+    'lag_too_large',
+    `The Newey–West lag ${lag} is too large for ${n} rows: it may be at most ${Math.max(0, n - 1)} (n − 1).`,
+    { lag, n, max: Math.max(0, n - 1) },
+  );
 }
 
 /** Fits one curve in the compute pool; an engine refusal becomes a 400 naming the row. */
@@ -56,7 +71,11 @@ export async function estimate(compute: ComputePool, rows: CurveRow[], model: Mo
   const out = await compute.run({ kind: 'fit-curve', rows, model });
   if (out.ok) return out.result;
   const { code, message, details } = out.error;
-  if (code === 'invalid_argument' && details.reason === 'lag') throw new AppError(400, 'lag_too_large', message, details);
-  const row = typeof details.row === 'number' ? ` (row ${details.row}${details.year !== undefined ? `, year ${details.year}` : ''})` : '';
+  if (code === 'invalid_argument' && details.reason === 'lag')
+    throw new AppError(400, 'lag_too_large', message, details);
+  const row =
+    typeof details.row === 'number'
+      ? ` (row ${details.row}${details.year !== undefined ? `, year ${details.year}` : ''})`
+      : '';
   throw new AppError(400, code, `${message}${row}`, details);
 }

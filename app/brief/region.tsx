@@ -13,7 +13,12 @@ export default function RegionBriefScreen() {
       <Head>
         <title>Region brief · Crestwatch</title>
       </Head>
-      <BriefScreen query={brief} what="region brief" pdfPath={briefPdfPath.region()} back={<TextLink href="/" label="Region" leading="← " />}>
+      <BriefScreen
+        query={brief}
+        what="region brief"
+        pdfPath={briefPdfPath.region()}
+        back={<TextLink href="/" label="Region" leading="← " />}
+      >
         {(content) => <RegionBriefView content={content} />}
       </BriefScreen>
     </>

@@ -4,7 +4,12 @@ import Head from 'expo-router/head';
 import { DistrictCardView } from '@/components/district/district-card-view';
 import { useDistrictAlertsQuery } from '@/hooks/use-alerts';
 import { useDistrictQuery } from '@/hooks/use-districts';
-import { ESTIMATE_ROUTE, estimateApiPath, useDistrictEstimateQuery, useDistrictHistoryQuery } from '@/hooks/use-estimates';
+import {
+  ESTIMATE_ROUTE,
+  estimateApiPath,
+  useDistrictEstimateQuery,
+  useDistrictHistoryQuery,
+} from '@/hooks/use-estimates';
 import { earlyFetchScript } from '@/lib/early-fetch';
 
 // Starts the card's request while the page's HTML is still parsing.
@@ -36,7 +41,12 @@ export default function DistrictScreen() {
         detail={detail}
         history={history}
         alerts={alerts}
-        subscribe={{ subscriptions, onChange: subscription.mutate, pending: subscription.isPending, error: subscription.error }}
+        subscribe={{
+          subscriptions,
+          onChange: subscription.mutate,
+          pending: subscription.isPending,
+          error: subscription.error,
+        }}
         showBackLink={mode === 'phone'}
       />
     </>

@@ -10,7 +10,13 @@ import { useArchiveSpecMutation, useSaveSpecMutation, useSpecsQuery } from '@/ho
 import { can } from '@/lib/roles';
 
 /** The specs screen with one spec (or 'new', or none) open; /specs renders it with none. */
-export function SpecsRouteBody({ selected, notice = null }: { selected: 'new' | number | null; notice?: string | null }) {
+export function SpecsRouteBody({
+  selected,
+  notice = null,
+}: {
+  selected: 'new' | number | null;
+  notice?: string | null;
+}) {
   const router = useRouter();
   const mode = useLayoutMode();
   const me = useMeQuery();

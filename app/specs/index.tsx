@@ -6,7 +6,8 @@ import { SpecsRouteBody } from './[id]';
 /** The saved model specs, none open. */
 export default function SpecsIndexRoute() {
   const { archived } = useLocalSearchParams<{ archived?: string }>();
-  const notice = typeof archived === 'string' && archived ? `Archived “${archived}”. Runs keep their own copy of it.` : null;
+  const notice =
+    typeof archived === 'string' && archived ? `Archived “${archived}”. Runs keep their own copy of it.` : null;
   return (
     <>
       <Head>

@@ -23,7 +23,14 @@ export default function UploadRoute() {
         <title>{`Upload #${Number.isInteger(id) ? id : '?'} · Crestwatch`}</title>
       </Head>
       <GatedPage title="Upload" me={me} need="upload" what="the upload screen">
-        {() => <UploadDetail id={id} detail={detail} onCommit={(i) => commit.mutateAsync(i)} onRevert={(i) => revert.mutateAsync(i)} />}
+        {() => (
+          <UploadDetail
+            id={id}
+            detail={detail}
+            onCommit={(i) => commit.mutateAsync(i)}
+            onRevert={(i) => revert.mutateAsync(i)}
+          />
+        )}
       </GatedPage>
     </>
   );

@@ -4,7 +4,12 @@ import { GatedPage } from '@/components/layout/role-gate';
 import { UploadsScreen } from '@/components/uploads/uploads-screen';
 import { useMeQuery } from '@/hooks/use-auth';
 import { useSettingsQuery } from '@/hooks/use-settings';
-import { useCommitUploadMutation, useRevertUploadMutation, useUploadPreviewMutation, useUploadsQuery } from '@/hooks/use-uploads';
+import {
+  useCommitUploadMutation,
+  useRevertUploadMutation,
+  useUploadPreviewMutation,
+  useUploadsQuery,
+} from '@/hooks/use-uploads';
 import { pickCsvFile } from '@/lib/pick-file';
 import { can } from '@/lib/roles';
 

@@ -71,9 +71,14 @@ export function AuditLogScreen({ filter, onFilter, entries }: AuditLogScreenProp
   const [draft, setDraft] = useState<AuditFilter>(filter);
   const set = (k: keyof AuditFilter, v: string) => setDraft((d) => ({ ...d, [k]: v }));
   const rows = entries.data?.pages.flatMap((p) => p.entries) ?? [];
-  const apply = () => onFilter(Object.fromEntries(Object.entries(draft).filter(([, v]) => v && v.trim())) as AuditFilter);
+  const apply = () =>
+    onFilter(Object.fromEntries(Object.entries(draft).filter(([, v]) => v && v.trim())) as AuditFilter);
   return (
-    <Page title="Audit log" intro="Every sign-out, invitation, role change, upload, revert, spec change, run, publish and setting change, newest first." testID="audit-screen">
+    <Page
+      title="Audit log"
+      intro="Every sign-out, invitation, role change, upload, revert, spec change, run, publish and setting change, newest first."
+      testID="audit-screen"
+    >
       <View style={styles.filters}>
         <View style={styles.quick}>
           {QUICK.map((q) => (
@@ -98,19 +103,54 @@ export function AuditLogScreen({ filter, onFilter, entries }: AuditLogScreenProp
         </View>
         <View style={styles.row}>
           <Cell>
-            <TextField label="Action" value={draft.action ?? ''} onChangeText={(v) => set('action', v)} placeholder="e.g. person.invite" testID="audit-action" onSubmitEditing={apply} />
+            <TextField
+              label="Action"
+              value={draft.action ?? ''}
+              onChangeText={(v) => set('action', v)}
+              placeholder="e.g. person.invite"
+              testID="audit-action"
+              onSubmitEditing={apply}
+            />
           </Cell>
           <Cell>
-            <TextField label="Person (e-mail contains)" value={draft.actor ?? ''} onChangeText={(v) => set('actor', v)} placeholder="e.g. analyst" testID="audit-actor" onSubmitEditing={apply} />
+            <TextField
+              label="Person (e-mail contains)"
+              value={draft.actor ?? ''}
+              onChangeText={(v) => set('actor', v)}
+              placeholder="e.g. analyst"
+              testID="audit-actor"
+              onSubmitEditing={apply}
+            />
           </Cell>
           <Cell>
-            <TextField label="Kind of target" value={draft.targetType ?? ''} onChangeText={(v) => set('targetType', v)} placeholder="user, upload, model_spec, run, settings" testID="audit-target" onSubmitEditing={apply} />
+            <TextField
+              label="Kind of target"
+              value={draft.targetType ?? ''}
+              onChangeText={(v) => set('targetType', v)}
+              placeholder="user, upload, model_spec, run, settings"
+              testID="audit-target"
+              onSubmitEditing={apply}
+            />
           </Cell>
           <Cell>
-            <TextField label="From (date)" value={draft.since ?? ''} onChangeText={(v) => set('since', v)} placeholder="YYYY-MM-DD" testID="audit-since" onSubmitEditing={apply} />
+            <TextField
+              label="From (date)"
+              value={draft.since ?? ''}
+              onChangeText={(v) => set('since', v)}
+              placeholder="YYYY-MM-DD"
+              testID="audit-since"
+              onSubmitEditing={apply}
+            />
           </Cell>
           <Cell>
-            <TextField label="Before (date)" value={draft.until ?? ''} onChangeText={(v) => set('until', v)} placeholder="YYYY-MM-DD" testID="audit-until" onSubmitEditing={apply} />
+            <TextField
+              label="Before (date)"
+              value={draft.until ?? ''}
+              onChangeText={(v) => set('until', v)}
+              placeholder="YYYY-MM-DD"
+              testID="audit-until"
+              onSubmitEditing={apply}
+            />
           </Cell>
         </View>
         <Button label="Filter" onPress={apply} testID="audit-apply" />
@@ -118,7 +158,13 @@ export function AuditLogScreen({ filter, onFilter, entries }: AuditLogScreenProp
       {entries.status === 'pending' ? (
         <Skeleton width="100%" height={240} />
       ) : entries.status === 'error' && rows.length === 0 ? (
-        <QueryErrorPanel what="the audit log" error={entries.error} retrying={entries.isFetching} onRetry={() => void entries.refetch()} testID="audit-error" />
+        <QueryErrorPanel
+          what="the audit log"
+          error={entries.error}
+          retrying={entries.isFetching}
+          onRetry={() => void entries.refetch()}
+          testID="audit-error"
+        />
       ) : rows.length === 0 ? (
         <StatePanel testID="audit-empty" title="Nothing recorded" message="No entry matches these filters." />
       ) : (
@@ -127,7 +173,13 @@ export function AuditLogScreen({ filter, onFilter, entries }: AuditLogScreenProp
             <AuditRow key={e.id} entry={e} />
           ))}
           {entries.hasNextPage ? (
-            <Button label="Show older entries" variant="outline" busy={entries.isFetchingNextPage} busyLabel="Loading…" onPress={() => void entries.fetchNextPage()} />
+            <Button
+              label="Show older entries"
+              variant="outline"
+              busy={entries.isFetchingNextPage}
+              busyLabel="Loading…"
+              onPress={() => void entries.fetchNextPage()}
+            />
           ) : (
             <Text style={styles.end}>That is the oldest entry.</Text>
           )}
@@ -146,7 +198,9 @@ function summaryOfChange(before: unknown, after: unknown): string[] {
   const a = (after && typeof after === 'object' ? after : {}) as Record<string, unknown>;
   const keys = [...new Set([...Object.keys(b), ...Object.keys(a)])];
   const show = (v: unknown) => (v === undefined ? '—' : typeof v === 'string' ? v : JSON.stringify(v));
-  return keys.filter((k) => JSON.stringify(b[k]) !== JSON.stringify(a[k])).map((k) => (before ? `${k}: ${show(b[k])} → ${show(a[k])}` : `${k}: ${show(a[k])}`));
+  return keys
+    .filter((k) => JSON.stringify(b[k]) !== JSON.stringify(a[k]))
+    .map((k) => (before ? `${k}: ${show(b[k])} → ${show(a[k])}` : `${k}: ${show(a[k])}`));
 }
 
 function AuditRow({ entry }: { entry: AuditEntry }) {
@@ -192,7 +246,13 @@ const styles = StyleSheet.create({
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   cell: { flexGrow: 1, flexBasis: 180 },
   list: { gap: space.xs },
-  entry: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, borderRadius: radius.md, overflow: 'hidden' },
+  entry: {
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.md,
+    overflow: 'hidden',
+  },
   entryHead: { flexDirection: 'row', alignItems: 'center', gap: space.md, padding: space.md, minHeight: 56 },
   hover: { backgroundColor: colors.selected },
   entryWords: { flex: 1, gap: space.xxs },

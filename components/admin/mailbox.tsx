@@ -51,10 +51,24 @@ function MailList({ messages }: { messages: QueryState<CaughtMail[]> }) {
     if (messages.error instanceof ApiError && messages.error.code === 'not_found') {
       return <StatePanel testID="mailbox-off" title="No mailbox on this server" message={messages.error.message} />;
     }
-    return <QueryErrorPanel what="the mailbox" error={messages.error} retrying={messages.isFetching} onRetry={() => void messages.refetch()} testID="mailbox-error" />;
+    return (
+      <QueryErrorPanel
+        what="the mailbox"
+        error={messages.error}
+        retrying={messages.isFetching}
+        onRetry={() => void messages.refetch()}
+        testID="mailbox-error"
+      />
+    );
   }
   if (messages.data.length === 0) {
-    return <StatePanel testID="mailbox-empty" title="No mail yet" message="Invite someone, or publish a run with subscribers, and the messages appear here." />;
+    return (
+      <StatePanel
+        testID="mailbox-empty"
+        title="No mail yet"
+        message="Invite someone, or publish a run with subscribers, and the messages appear here."
+      />
+    );
   }
   return (
     <View style={styles.list} testID="mailbox-list">
@@ -80,7 +94,9 @@ function MailItem({ mail }: { mail: CaughtMail }) {
           <Text style={styles.subject}>{mail.subject || '(no subject)'}</Text>
           <Text style={styles.meta}>
             To {mail.to.join(', ')} · {formatDateTime(mail.receivedAt)}
-            {mail.attachments?.length ? ` · ${mail.attachments.length} attachment${mail.attachments.length === 1 ? '' : 's'}` : ''}
+            {mail.attachments?.length
+              ? ` · ${mail.attachments.length} attachment${mail.attachments.length === 1 ? '' : 's'}`
+              : ''}
           </Text>
         </View>
         <Text style={styles.toggle}>{open ? 'Hide' : 'Read'}</Text>
@@ -105,7 +121,13 @@ function MailItem({ mail }: { mail: CaughtMail }) {
 const styles = StyleSheet.create({
   filter: { maxWidth: 420 },
   list: { gap: space.xs },
-  item: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, borderRadius: radius.md, overflow: 'hidden' },
+  item: {
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.md,
+    overflow: 'hidden',
+  },
   head: { flexDirection: 'row', alignItems: 'center', gap: space.md, padding: space.md, minHeight: 56 },
   hover: { backgroundColor: colors.selected },
   words: { flex: 1, gap: space.xxs },

@@ -16,7 +16,10 @@ import type { Schedule, Settings, SettingsResponse } from '@/contracts/settings'
 
 import { cronWords } from './cron-words';
 
-type Draft = Record<'confidencePercent' | 'alpha' | 'thresholdShiftPercent' | 'uploadChangeFactor' | 'regionTimeZone' | 'scheduleCron', string> & {
+type Draft = Record<
+  'confidencePercent' | 'alpha' | 'thresholdShiftPercent' | 'uploadChangeFactor' | 'regionTimeZone' | 'scheduleCron',
+  string
+> & {
   briefPaperSize: Settings['briefPaperSize'];
   scheduleEnabled: boolean;
 };
@@ -37,7 +40,10 @@ function draftOf(s: Settings): Draft {
 }
 
 /** The changed settings as the API wants them, or what to fix first. */
-export function settingsPatch(saved: Settings, d: Draft): { patch: Partial<Settings>; problems: Record<string, string> } {
+export function settingsPatch(
+  saved: Settings,
+  d: Draft,
+): { patch: Partial<Settings>; problems: Record<string, string> } {
   const problems: Record<string, string> = {};
   const num = (key: keyof Draft, text: string) => {
     const v = Number(text.trim().replace(',', '.'));
@@ -48,12 +54,16 @@ export function settingsPatch(saved: Settings, d: Draft): { patch: Partial<Setti
   const alpha = num('alpha', d.alpha);
   const shift = num('thresholdShiftPercent', d.thresholdShiftPercent);
   const factor = num('uploadChangeFactor', d.uploadChangeFactor);
-  if (!problems.confidencePercent && (level < 0.5 || level > 0.999)) problems.confidencePercent = 'Between 50 and 99.9.';
+  if (!problems.confidencePercent && (level < 0.5 || level > 0.999))
+    problems.confidencePercent = 'Between 50 and 99.9.';
   if (!problems.alpha && (alpha < 0.001 || alpha > 0.5)) problems.alpha = 'Between 0.001 and 0.5.';
-  if (!problems.thresholdShiftPercent && (shift < 0.1 || shift > 1000)) problems.thresholdShiftPercent = 'Between 0.1 and 1000.';
-  if (!problems.uploadChangeFactor && (factor < 1.01 || factor > 1000)) problems.uploadChangeFactor = 'Between 1.01 and 1000.';
+  if (!problems.thresholdShiftPercent && (shift < 0.1 || shift > 1000))
+    problems.thresholdShiftPercent = 'Between 0.1 and 1000.';
+  if (!problems.uploadChangeFactor && (factor < 1.01 || factor > 1000))
+    problems.uploadChangeFactor = 'Between 1.01 and 1000.';
   if (!d.regionTimeZone.trim()) problems.regionTimeZone = 'An IANA time zone, such as Europe/Lisbon or UTC.';
-  if (d.scheduleCron.trim().split(/\s+/).length !== 5) problems.scheduleCron = 'Five fields: minute hour day-of-month month day-of-week.';
+  if (d.scheduleCron.trim().split(/\s+/).length !== 5)
+    problems.scheduleCron = 'Five fields: minute hour day-of-month month day-of-week.';
   const next: Settings = {
     confidenceLevel: level,
     alpha,
@@ -108,7 +118,13 @@ export function SettingsScreen({ settings, onSave }: SettingsScreenProps) {
       {settings.status === 'pending' ? (
         <Skeleton width="100%" height={320} />
       ) : settings.status === 'error' || !settings.data ? (
-        <QueryErrorPanel what="the settings" error={settings.error} retrying={settings.isFetching} onRetry={() => void settings.refetch()} testID="settings-error" />
+        <QueryErrorPanel
+          what="the settings"
+          error={settings.error}
+          retrying={settings.isFetching}
+          onRetry={() => void settings.refetch()}
+          testID="settings-error"
+        />
       ) : (
         <SettingsBody data={settings.data} onSave={onSave} />
       )}
@@ -139,9 +155,16 @@ function SettingsBody({ data, onSave }: { data: SettingsResponse; onSave: Settin
     setState({ busy: true });
     try {
       await onSave(p);
-      setState({ busy: false, success: `Saved: ${Object.keys(p).length} ${Object.keys(p).length === 1 ? 'setting' : 'settings'} changed.` });
+      setState({
+        busy: false,
+        success: `Saved: ${Object.keys(p).length} ${Object.keys(p).length === 1 ? 'setting' : 'settings'} changed.`,
+      });
     } catch (error) {
-      setProblems(Object.fromEntries(Object.entries(fieldErrorsOf(error)).map(([k, v]) => [k === 'confidenceLevel' ? 'confidencePercent' : k, v])));
+      setProblems(
+        Object.fromEntries(
+          Object.entries(fieldErrorsOf(error)).map(([k, v]) => [k === 'confidenceLevel' ? 'confidencePercent' : k, v]),
+        ),
+      );
       setState({ busy: false, error });
     }
   };
@@ -160,7 +183,13 @@ function SettingsBody({ data, onSave }: { data: SettingsResponse; onSave: Settin
             editable={!readOnly}
             testID="settings-cron"
           />
-          <CheckBox label="Start scheduled runs" checked={draft.scheduleEnabled} onChange={(v) => set('scheduleEnabled', v)} disabled={readOnly} testID="settings-enabled" />
+          <CheckBox
+            label="Start scheduled runs"
+            checked={draft.scheduleEnabled}
+            onChange={(v) => set('scheduleEnabled', v)}
+            disabled={readOnly}
+            testID="settings-enabled"
+          />
           <TextField
             label="Region time zone"
             value={draft.regionTimeZone}
@@ -175,16 +204,52 @@ function SettingsBody({ data, onSave }: { data: SettingsResponse; onSave: Settin
       <Section title="Estimation and alerts">
         <View style={styles.grid}>
           <Cell>
-            <TextField label="Confidence level (%)" value={draft.confidencePercent} onChangeText={(v) => set('confidencePercent', v)} keyboardType="decimal-pad" hint="Intervals of thresholds; default 95" error={problems.confidencePercent} editable={!readOnly} testID="settings-level" />
+            <TextField
+              label="Confidence level (%)"
+              value={draft.confidencePercent}
+              onChangeText={(v) => set('confidencePercent', v)}
+              keyboardType="decimal-pad"
+              hint="Intervals of thresholds; default 95"
+              error={problems.confidencePercent}
+              editable={!readOnly}
+              testID="settings-level"
+            />
           </Cell>
           <Cell>
-            <TextField label="Test level α" value={draft.alpha} onChangeText={(v) => set('alpha', v)} keyboardType="decimal-pad" hint="U-test, Wald test and shapes; default 0.05" error={problems.alpha} editable={!readOnly} testID="settings-alpha" />
+            <TextField
+              label="Test level α"
+              value={draft.alpha}
+              onChangeText={(v) => set('alpha', v)}
+              keyboardType="decimal-pad"
+              hint="U-test, Wald test and shapes; default 0.05"
+              error={problems.alpha}
+              editable={!readOnly}
+              testID="settings-alpha"
+            />
           </Cell>
           <Cell>
-            <TextField label="Threshold shift alert (%)" value={draft.thresholdShiftPercent} onChangeText={(v) => set('thresholdShiftPercent', v)} keyboardType="decimal-pad" hint="Alert when a threshold moves more than this; default 10" error={problems.thresholdShiftPercent} editable={!readOnly} testID="settings-shift" />
+            <TextField
+              label="Threshold shift alert (%)"
+              value={draft.thresholdShiftPercent}
+              onChangeText={(v) => set('thresholdShiftPercent', v)}
+              keyboardType="decimal-pad"
+              hint="Alert when a threshold moves more than this; default 10"
+              error={problems.thresholdShiftPercent}
+              editable={!readOnly}
+              testID="settings-shift"
+            />
           </Cell>
           <Cell>
-            <TextField label="Upload change factor (×)" value={draft.uploadChangeFactor} onChangeText={(v) => set('uploadChangeFactor', v)} keyboardType="decimal-pad" hint="Warn when a stored value changes by more than this factor" error={problems.uploadChangeFactor} editable={!readOnly} testID="settings-factor" />
+            <TextField
+              label="Upload change factor (×)"
+              value={draft.uploadChangeFactor}
+              onChangeText={(v) => set('uploadChangeFactor', v)}
+              keyboardType="decimal-pad"
+              hint="Warn when a stored value changes by more than this factor"
+              error={problems.uploadChangeFactor}
+              editable={!readOnly}
+              testID="settings-factor"
+            />
           </Cell>
         </View>
       </Section>
@@ -206,9 +271,23 @@ function SettingsBody({ data, onSave }: { data: SettingsResponse; onSave: Settin
         </Text>
       ) : (
         <View style={styles.actions}>
-          <Button label="Save settings" busy={state.busy} busyLabel="Saving…" disabled={!dirty} onPress={() => void save()} testID="settings-save" />
+          <Button
+            label="Save settings"
+            busy={state.busy}
+            busyLabel="Saving…"
+            disabled={!dirty}
+            onPress={() => void save()}
+            testID="settings-save"
+          />
           {dirty ? (
-            <Button label="Undo changes" variant="outline" onPress={() => { setDraft(draftOf(data.settings)); setProblems({}); }} />
+            <Button
+              label="Undo changes"
+              variant="outline"
+              onPress={() => {
+                setDraft(draftOf(data.settings));
+                setProblems({});
+              }}
+            />
           ) : null}
         </View>
       )}

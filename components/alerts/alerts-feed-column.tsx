@@ -42,7 +42,13 @@ export function AlertsFeedColumn({ feed, onRead }: AlertsFeedColumnProps) {
         </View>
       ) : feed.status === 'error' && !feed.data ? (
         <View style={styles.pad}>
-          <QueryErrorPanel what="your alerts" error={feed.error} retrying={feed.isFetching} onRetry={() => void feed.refetch()} testID="alerts-feed-error" />
+          <QueryErrorPanel
+            what="your alerts"
+            error={feed.error}
+            retrying={feed.isFetching}
+            onRetry={() => void feed.refetch()}
+            testID="alerts-feed-error"
+          />
         </View>
       ) : (feed.data?.alerts.length ?? 0) === 0 ? (
         <View style={styles.pad}>
@@ -53,7 +59,11 @@ export function AlertsFeedColumn({ feed, onRead }: AlertsFeedColumnProps) {
           />
         </View>
       ) : (
-        <FlatList data={feed.data!.alerts} keyExtractor={(a) => String(a.id)} renderItem={({ item }) => <FeedItem alert={item} onRead={onRead} />} />
+        <FlatList
+          data={feed.data!.alerts}
+          keyExtractor={(a) => String(a.id)}
+          renderItem={({ item }) => <FeedItem alert={item} onRead={onRead} />}
+        />
       )}
     </View>
   );
@@ -68,7 +78,12 @@ function FeedItem({ alert, onRead }: { alert: FeedAlert; onRead: (id: number) =>
         accessibilityRole="link"
         accessibilityLabel={`${alert.read ? '' : 'Unread. '}${alertTitle(alert.kind)}: ${alert.districtName}. ${detail}`}
         onPress={() => (alert.read ? undefined : onRead(alert.id))}
-        stateStyle={(state: InteractionState) => [styles.item, !alert.read && styles.unread, state.hovered && styles.hover, focusOutline(state, 'inside')]}
+        stateStyle={(state: InteractionState) => [
+          styles.item,
+          !alert.read && styles.unread,
+          state.hovered && styles.hover,
+          focusOutline(state, 'inside'),
+        ]}
       >
         <Text style={styles.itemTitle}>
           {alert.read ? '' : '● '}
@@ -89,7 +104,14 @@ const styles = StyleSheet.create({
   title: { ...type.title, color: colors.text },
   count: { ...type.caption, color: colors.textMuted },
   pad: { paddingHorizontal: space.lg, gap: space.sm },
-  item: { paddingHorizontal: space.lg, paddingVertical: space.md, gap: space.xxs, borderBottomWidth: 1, borderBottomColor: colors.border, backgroundColor: colors.surface },
+  item: {
+    paddingHorizontal: space.lg,
+    paddingVertical: space.md,
+    gap: space.xxs,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.border,
+    backgroundColor: colors.surface,
+  },
   unread: { borderLeftWidth: 4, borderLeftColor: colors.selectedRule },
   hover: { backgroundColor: colors.selected },
   itemTitle: { ...type.label, color: colors.text },

@@ -69,7 +69,13 @@ export function AlertsFeedScreen({ feed, onRead, onReadAll }: AlertsFeedScreenPr
           ))}
         </View>
       ) : feed.status === 'error' && !feed.data ? (
-        <QueryErrorPanel what="your alerts" error={feed.error} retrying={feed.isFetching} onRetry={() => void feed.refetch()} testID="alerts-error" />
+        <QueryErrorPanel
+          what="your alerts"
+          error={feed.error}
+          retrying={feed.isFetching}
+          onRetry={() => void feed.refetch()}
+          testID="alerts-error"
+        />
       ) : (feed.data?.alerts.length ?? 0) === 0 ? (
         <StatePanel
           testID="alerts-empty"
@@ -79,7 +85,11 @@ export function AlertsFeedScreen({ feed, onRead, onReadAll }: AlertsFeedScreenPr
           <TextLink href="/subscriptions" label="Choose what to follow" />
         </StatePanel>
       ) : alerts.length === 0 ? (
-        <StatePanel testID="alerts-all-read" title="All read" message="Every alert has been read. Choose “All alerts” to see them again." />
+        <StatePanel
+          testID="alerts-all-read"
+          title="All read"
+          message="Every alert has been read. Choose “All alerts” to see them again."
+        />
       ) : (
         <View style={styles.list} testID="alerts-list">
           {alerts.map((a) => (
@@ -117,7 +127,12 @@ function AlertItem({ alert, onRead }: { alert: FeedAlert; onRead: (id: number) =
       </Link>
       {!alert.read ? (
         <View style={styles.readButton}>
-          <Button label="Mark read" variant="outline" onPress={() => onRead(alert.id)} testID={`alert-read-${alert.id}`} />
+          <Button
+            label="Mark read"
+            variant="outline"
+            onPress={() => onRead(alert.id)}
+            testID={`alert-read-${alert.id}`}
+          />
         </View>
       ) : null}
     </View>
@@ -125,7 +140,13 @@ function AlertItem({ alert, onRead }: { alert: FeedAlert; onRead: (id: number) =
 }
 
 const styles = StyleSheet.create({
-  controls: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end', justifyContent: 'space-between', gap: space.md },
+  controls: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'flex-end',
+    justifyContent: 'space-between',
+    gap: space.md,
+  },
   list: { gap: space.sm },
   item: {
     flexDirection: 'row',

@@ -23,7 +23,15 @@ export function DistrictAlertsList({ alerts }: { alerts: QueryState<DistrictAler
     );
   }
   if (alerts.status === 'error' && !alerts.data) {
-    return <QueryErrorPanel what="the alerts" error={alerts.error} retrying={alerts.isFetching} onRetry={() => void alerts.refetch()} testID="district-alerts-error" />;
+    return (
+      <QueryErrorPanel
+        what="the alerts"
+        error={alerts.error}
+        retrying={alerts.isFetching}
+        onRetry={() => void alerts.refetch()}
+        testID="district-alerts-error"
+      />
+    );
   }
   const rows = alerts.data?.alerts ?? [];
   if (rows.length === 0) {
@@ -51,7 +59,14 @@ export function DistrictAlertsList({ alerts }: { alerts: QueryState<DistrictAler
 
 const styles = StyleSheet.create({
   list: { gap: space.sm },
-  item: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, borderRadius: radius.md, padding: space.md, gap: space.xs },
+  item: {
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.md,
+    padding: space.md,
+    gap: space.xs,
+  },
   title: { ...type.label, color: colors.text },
   line: { ...type.caption, color: colors.text },
 });

@@ -34,7 +34,11 @@ export function SubscribeToggle({ code, name, subscriptions, onChange, pending, 
         aria-checked={on}
         accessibilityState={{ checked: on, disabled, busy: pending }}
         accessibilityLabel={`Alerts for ${name}`}
-        accessibilityHint={on ? 'Stops the alerts for this district' : 'Sends you an alert, in the app and by e-mail, when a published run changes this district'}
+        accessibilityHint={
+          on
+            ? 'Stops the alerts for this district'
+            : 'Sends you an alert, in the app and by e-mail, when a published run changes this district'
+        }
         disabled={disabled}
         onPress={() => onChange(on ? { subscribe: false, ids: own.map((s) => s.id) } : { subscribe: true })}
         style={(state: InteractionState) => [styles.row, disabled && styles.disabled, focusOutline(state)]}
@@ -42,9 +46,15 @@ export function SubscribeToggle({ code, name, subscriptions, onChange, pending, 
         <View style={[styles.track, on && styles.trackOn]} aria-hidden>
           <View style={[styles.knob, on && styles.knobOn]} />
         </View>
-        <Text style={styles.label}>{pending ? 'Saving…' : on ? 'Alerts on for this district' : 'Alert me about this district'}</Text>
+        <Text style={styles.label}>
+          {pending ? 'Saving…' : on ? 'Alerts on for this district' : 'Alert me about this district'}
+        </Text>
       </Pressable>
-      {viaRegion ? <Text style={styles.note}>Your region-wide subscription covers it as well.</Text> : viaSet ? <Text style={styles.note}>One of your district sets covers it as well.</Text> : null}
+      {viaRegion ? (
+        <Text style={styles.note}>Your region-wide subscription covers it as well.</Text>
+      ) : viaSet ? (
+        <Text style={styles.note}>One of your district sets covers it as well.</Text>
+      ) : null}
       {error ? (
         <Text style={styles.error} role="alert">
           Could not save: {error instanceof ApiError ? error.message : 'something went wrong'}.
@@ -56,9 +66,25 @@ export function SubscribeToggle({ code, name, subscriptions, onChange, pending, 
 
 const styles = StyleSheet.create({
   wrap: { gap: space.xxs },
-  row: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minHeight: layout.touchTarget, paddingHorizontal: space.xs, borderRadius: radius.md },
+  row: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.sm,
+    minHeight: layout.touchTarget,
+    paddingHorizontal: space.xs,
+    borderRadius: radius.md,
+  },
   disabled: { opacity: 0.6 },
-  track: { width: 40, height: 24, borderRadius: 12, backgroundColor: colors.surfaceSunken, borderWidth: 2, borderColor: colors.textMuted, justifyContent: 'center', paddingHorizontal: 2 },
+  track: {
+    width: 40,
+    height: 24,
+    borderRadius: 12,
+    backgroundColor: colors.surfaceSunken,
+    borderWidth: 2,
+    borderColor: colors.textMuted,
+    justifyContent: 'center',
+    paddingHorizontal: 2,
+  },
   trackOn: { backgroundColor: colors.action, borderColor: colors.action },
   knob: { width: 16, height: 16, borderRadius: 8, backgroundColor: colors.textMuted },
   knobOn: { backgroundColor: colors.onAction, transform: [{ translateX: 16 }] },

@@ -50,13 +50,26 @@ export function SubscriptionForm({ districts, onSubscribe }: SubscriptionFormPro
   };
 
   const submit = async () => {
-    if (scope !== 'region' && codes.length === 0) return setProblem(scope === 'district' ? 'Choose the district.' : 'Choose at least one district.');
+    if (scope !== 'region' && codes.length === 0)
+      return setProblem(scope === 'district' ? 'Choose the district.' : 'Choose at least one district.');
     if (kinds.length === 0) return setProblem('Choose at least one kind of alert.');
     setProblem(null);
     setState({ busy: true });
     try {
-      await onSubscribe({ scope, districtCodes: scope === 'region' ? [] : codes, kinds, delivery, attachBrief: delivery === 'digest' && attachBrief });
-      setState({ busy: false, success: scope === 'region' ? 'Subscribed to the whole region.' : `Subscribed to ${codes.length === 1 ? codes[0] : `${codes.length} districts`}.` });
+      await onSubscribe({
+        scope,
+        districtCodes: scope === 'region' ? [] : codes,
+        kinds,
+        delivery,
+        attachBrief: delivery === 'digest' && attachBrief,
+      });
+      setState({
+        busy: false,
+        success:
+          scope === 'region'
+            ? 'Subscribed to the whole region.'
+            : `Subscribed to ${codes.length === 1 ? codes[0] : `${codes.length} districts`}.`,
+      });
       setCodes([]);
     } catch (error) {
       setState({ busy: false, error });
@@ -78,7 +91,13 @@ export function SubscriptionForm({ districts, onSubscribe }: SubscriptionFormPro
       />
       {scope !== 'region' ? (
         <View style={styles.picker}>
-          <TextField label="Find districts" value={query} onChangeText={setQuery} placeholder="Name or code" testID="sub-search" />
+          <TextField
+            label="Find districts"
+            value={query}
+            onChangeText={setQuery}
+            placeholder="Name or code"
+            testID="sub-search"
+          />
           <View>
             {shown.map((d) => (
               <CheckBox

@@ -27,7 +27,7 @@ export type SubscriptionsScreenProps = {
 function scopeWords(s: Subscription, names: Map<string, string>): string {
   if (s.scope === 'region') return 'The whole region';
   const list = s.districtCodes.map((c) => (names.get(c) ? `${names.get(c)} (${c})` : c));
-  return s.scope === 'district' ? list[0] ?? '—' : `${list.length} districts: ${list.join(', ')}`;
+  return s.scope === 'district' ? (list[0] ?? '—') : `${list.length} districts: ${list.join(', ')}`;
 }
 
 /** What the signed-in person follows, and a form to follow more. */
@@ -59,9 +59,19 @@ export function SubscriptionsScreen({ subscriptions, districts, onSubscribe, onR
         {subscriptions.status === 'pending' ? (
           <Skeleton width="100%" height={120} />
         ) : subscriptions.status === 'error' || !subscriptions.data ? (
-          <QueryErrorPanel what="your subscriptions" error={subscriptions.error} retrying={subscriptions.isFetching} onRetry={() => void subscriptions.refetch()} testID="subs-error" />
+          <QueryErrorPanel
+            what="your subscriptions"
+            error={subscriptions.error}
+            retrying={subscriptions.isFetching}
+            onRetry={() => void subscriptions.refetch()}
+            testID="subs-error"
+          />
         ) : subscriptions.data.length === 0 ? (
-          <StatePanel testID="subs-empty" title="Nothing yet" message="You get no alerts until you follow a district, a set of districts or the region." />
+          <StatePanel
+            testID="subs-empty"
+            title="Nothing yet"
+            message="You get no alerts until you follow a district, a set of districts or the region."
+          />
         ) : (
           <View style={styles.list} testID="subs-list">
             {subscriptions.data.map((s) => (
@@ -92,7 +102,12 @@ export function SubscriptionsScreen({ subscriptions, districts, onSubscribe, onR
       </Section>
       <Section title="Follow more">
         {districts.status === 'error' ? (
-          <QueryErrorPanel what="the district list" error={districts.error} retrying={districts.isFetching} onRetry={() => void districts.refetch()} />
+          <QueryErrorPanel
+            what="the district list"
+            error={districts.error}
+            retrying={districts.isFetching}
+            onRetry={() => void districts.refetch()}
+          />
         ) : (
           <SubscriptionForm districts={districts.data ?? []} onSubscribe={onSubscribe} />
         )}

@@ -14,7 +14,8 @@ const REASONS: Record<string, { title: string; message: string }> = {
   },
   email_unverified: {
     title: 'This Google account’s address is not verified',
-    message: 'Google does not confirm that this account owns its e-mail address. Verify the address with Google, or sign in with the account your invitation was sent to.',
+    message:
+      'Google does not confirm that this account owns its e-mail address. Verify the address with Google, or sign in with the account your invitation was sent to.',
   },
   wrong_domain: {
     title: 'This account is outside the agency’s domain',

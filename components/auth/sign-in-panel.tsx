@@ -41,11 +41,15 @@ export function SignInPanel({ options, me, errorCode, onContinue }: SignInPanelP
         Sign in to Crestwatch
       </Text>
       <Text style={styles.body}>
-        District series, thresholds and alerts are open to the agency’s invited staff. Sign in with the
-        account your invitation was sent to.
+        District series, thresholds and alerts are open to the agency’s invited staff. Sign in with the account your
+        invitation was sent to.
       </Text>
       {ended && !problem ? (
-        <StatePanel title={SESSION_END_TITLES[ended]} message={(me.error as Error).message} testID={`sign-in-session-${ended}`} />
+        <StatePanel
+          title={SESSION_END_TITLES[ended]}
+          message={(me.error as Error).message}
+          testID={`sign-in-session-${ended}`}
+        />
       ) : null}
       {problem ? (
         <StatePanel tone="alert" title="Sign-in did not work" message={problem} testID="sign-in-problem" />

@@ -13,7 +13,12 @@ export function BriefFrame({ pdfPath, what, back, children }: BriefFrameProps) {
       <View style={styles.column}>
         <View style={styles.toolbar}>
           {back}
-          <ExternalLink path={pdfPath} label="Open the PDF" accessibilityLabel={`${what} as PDF`} testID="brief-pdf-link" />
+          <ExternalLink
+            path={pdfPath}
+            label="Open the PDF"
+            accessibilityLabel={`${what} as PDF`}
+            testID="brief-pdf-link"
+          />
         </View>
         <View style={styles.sheet}>{children}</View>
       </View>
@@ -25,6 +30,12 @@ const styles = StyleSheet.create({
   scroll: { flex: 1, backgroundColor: colors.background },
   content: { padding: space.lg, paddingBottom: space.xxxl },
   column: { width: '100%', maxWidth: layout.detailMaxWidth, gap: space.md },
-  toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  toolbar: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: space.sm,
+  },
   sheet: { backgroundColor: colors.surface, borderRadius: 8, padding: space.lg },
 });

@@ -16,7 +16,9 @@ import type { BriefFrameProps } from './brief-frame.types';
 // react-native-web renders through react-dom; the project carries no react-dom types, so
 // the one function used here is typed where it is taken.
 // eslint-disable-next-line @typescript-eslint/no-require-imports
-const { createPortal } = require('react-dom') as { createPortal: (children: ReactNode, container: Element) => ReactNode };
+const { createPortal } = require('react-dom') as {
+  createPortal: (children: ReactNode, container: Element) => ReactNode;
+};
 
 const PRINT_ID = 'cw-brief-print';
 
@@ -52,8 +54,18 @@ export function BriefFrame({ pdfPath, what, paperSize, back, children }: BriefFr
             <>
               {back}
               <View style={styles.actions}>
-                <Button label="Print" onPress={() => window.print()} accessibilityHint="Prints this brief as it is shown" testID="brief-print" />
-                <ExternalLink path={pdfPath} label="Open the PDF" accessibilityLabel={`${what} as PDF`} testID="brief-pdf-link" />
+                <Button
+                  label="Print"
+                  onPress={() => window.print()}
+                  accessibilityHint="Prints this brief as it is shown"
+                  testID="brief-print"
+                />
+                <ExternalLink
+                  path={pdfPath}
+                  label="Open the PDF"
+                  accessibilityLabel={`${what} as PDF`}
+                  testID="brief-pdf-link"
+                />
               </View>
             </>
           ) : null}
@@ -76,7 +88,14 @@ const styles = StyleSheet.create({
   scroll: { flex: 1, backgroundColor: colors.background },
   content: { padding: space.lg, paddingBottom: space.xxxl },
   column: { width: '100%', maxWidth: layout.detailMaxWidth, gap: space.md },
-  toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm, minHeight: layout.touchTarget },
+  toolbar: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: space.sm,
+    minHeight: layout.touchTarget,
+  },
   actions: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   sheet: { backgroundColor: colors.surface, borderRadius: 8, padding: space.lg },
   printSheet: { backgroundColor: colors.surface },

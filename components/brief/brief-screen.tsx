@@ -34,21 +34,46 @@ function BriefSkeleton() {
 }
 
 /** A brief's loading, empty and error states around its print view. */
-export function BriefScreen<T extends { pdfPath: string; paperSize: BriefPaperSize }>({ query, what, pdfPath, back, children }: BriefScreenProps<T>) {
+export function BriefScreen<T extends { pdfPath: string; paperSize: BriefPaperSize }>({
+  query,
+  what,
+  pdfPath,
+  back,
+  children,
+}: BriefScreenProps<T>) {
   let body: ReactNode;
   if (query.status === 'pending') body = <BriefSkeleton />;
   else if (query.status === 'error') {
     const e = query.error;
     if (e instanceof ApiError && e.code === 'no_published_run') {
-      body = <StatePanel testID="brief-nothing-published" title="No brief yet" message="Briefs are made from published runs, and none has been published. Ask an analyst to publish a run." />;
+      body = (
+        <StatePanel
+          testID="brief-nothing-published"
+          title="No brief yet"
+          message="Briefs are made from published runs, and none has been published. Ask an analyst to publish a run."
+        />
+      );
     } else if (e instanceof ApiError && (e.code === 'not_found' || e.code === 'not_in_run')) {
       body = <StatePanel testID="brief-not-found" title={`No ${what}`} message={e.message} />;
     } else {
-      body = <QueryErrorPanel testID="brief-error" what={what} error={e} retrying={query.isFetching} onRetry={() => void query.refetch()} />;
+      body = (
+        <QueryErrorPanel
+          testID="brief-error"
+          what={what}
+          error={e}
+          retrying={query.isFetching}
+          onRetry={() => void query.refetch()}
+        />
+      );
     }
   } else if (query.data) body = children(query.data);
   return (
-    <BriefFrame pdfPath={query.data?.pdfPath ?? pdfPath} what={what} paperSize={query.data?.paperSize ?? 'A4'} back={back}>
+    <BriefFrame
+      pdfPath={query.data?.pdfPath ?? pdfPath}
+      what={what}
+      paperSize={query.data?.paperSize ?? 'A4'}
+      back={back}
+    >
       {body}
     </BriefFrame>
   );

@@ -65,22 +65,46 @@ export function TraceFooter({ trace }: { trace: BriefTrace }) {
   return (
     <View style={styles.trace} testID="brief-trace">
       <Text style={styles.traceText}>{trace.line}</Text>
-      <Text style={styles.traceText}>Generated on {trace.generatedAt} from this published run only; figures rounded for reading, intervals outward.</Text>
+      <Text style={styles.traceText}>
+        Generated on {trace.generatedAt} from this published run only; figures rounded for reading, intervals outward.
+      </Text>
     </View>
   );
 }
 
 const styles = StyleSheet.create({
-  top: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', alignItems: 'baseline', gap: space.sm, borderBottomWidth: 2, borderBottomColor: colors.action, paddingBottom: space.xs },
+  top: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    justifyContent: 'space-between',
+    alignItems: 'baseline',
+    gap: space.sm,
+    borderBottomWidth: 2,
+    borderBottomColor: colors.action,
+    paddingBottom: space.xs,
+  },
   brand: { ...type.label, color: colors.action },
   subtitle: { ...type.caption, color: colors.textMuted },
   grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg, rowGap: space.md },
   cell: { flexGrow: 1, flexBasis: 200, gap: space.xxs },
-  label: { ...type.caption, fontFamily: type.label.fontFamily, color: colors.textMuted, textTransform: 'uppercase', letterSpacing: 0.4 },
+  label: {
+    ...type.caption,
+    fontFamily: type.label.fontFamily,
+    color: colors.textMuted,
+    textTransform: 'uppercase',
+    letterSpacing: 0.4,
+  },
   value: { ...type.title, color: colors.text },
   detail: { ...type.caption, color: colors.textMuted },
   heading: { ...type.bodyStrong, color: colors.text },
-  cautions: { backgroundColor: colors.surfaceSunken, borderLeftWidth: 3, borderLeftColor: colors.danger, borderRadius: radius.sm, padding: space.md, gap: space.xs },
+  cautions: {
+    backgroundColor: colors.surfaceSunken,
+    borderLeftWidth: 3,
+    borderLeftColor: colors.danger,
+    borderRadius: radius.sm,
+    padding: space.md,
+    gap: space.xs,
+  },
   cautionsTitle: { ...type.label, color: colors.danger },
   caution: { ...type.caption, color: colors.text },
   model: { ...type.caption, color: colors.textMuted },

@@ -13,10 +13,28 @@ const LIST_LINES = 8;
 // the browser repeats the header row on every printed page (brief-frame.web.tsx).
 const part = (name: 'table' | 'thead' | 'tbody' | 'tr' | 'td') => ({ dataSet: { briefTable: name } }) as object;
 
-const COLUMN_BASIS: Record<keyof RegionBriefRow, number> = { code: 48, name: 180, standing: 96, gap: 64, threshold: 72, interval: 132, crossing: 132 };
+const COLUMN_BASIS: Record<keyof RegionBriefRow, number> = {
+  code: 48,
+  name: 180,
+  standing: 96,
+  gap: 64,
+  threshold: 72,
+  interval: 132,
+  crossing: 132,
+};
 const NUMERIC = new Set<keyof RegionBriefRow>(['gap', 'threshold']);
 
-function SummaryList({ title, items, note, more }: { title: string; items: { code: string; name: string; text: string; mark?: boolean }[]; note: string | null; more: string }) {
+function SummaryList({
+  title,
+  items,
+  note,
+  more,
+}: {
+  title: string;
+  items: { code: string; name: string; text: string; mark?: boolean }[];
+  note: string | null;
+  more: string;
+}) {
   return (
     <View style={styles.list} {...keepTogether}>
       <BriefHeading>{title}</BriefHeading>
@@ -27,7 +45,11 @@ function SummaryList({ title, items, note, more }: { title: string; items: { cod
           {it.mark ? ' •' : ''}
         </Text>
       ))}
-      {items.length > LIST_LINES ? <Text style={styles.muted}>… and {items.length - LIST_LINES} more {more}.</Text> : null}
+      {items.length > LIST_LINES ? (
+        <Text style={styles.muted}>
+          … and {items.length - LIST_LINES} more {more}.
+        </Text>
+      ) : null}
     </View>
   );
 }
@@ -50,15 +72,27 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
         ))}
       </View>
       <View style={styles.lists}>
-        <SummaryList title="Crossed since the last publish" items={c.crossed} note={c.crossedNote} more="in the alerts of this run" />
-        <SummaryList title="Largest threshold shifts" items={c.shifts.map((s) => ({ ...s, mark: s.overLimit }))} note={c.shiftsNote} more="in the table" />
+        <SummaryList
+          title="Crossed since the last publish"
+          items={c.crossed}
+          note={c.crossedNote}
+          more="in the alerts of this run"
+        />
+        <SummaryList
+          title="Largest threshold shifts"
+          items={c.shifts.map((s) => ({ ...s, mark: s.overLimit }))}
+          note={c.shiftsNote}
+          more="in the table"
+        />
         {c.map ? (
           <View style={styles.map}>
             <BriefChart scene={c.map} testID="brief-region-map" />
           </View>
         ) : null}
       </View>
-      {c.shifts.some((s) => s.overLimit) ? <Text style={styles.muted}>• moved more than the alert limit for a threshold shift.</Text> : null}
+      {c.shifts.some((s) => s.overLimit) ? (
+        <Text style={styles.muted}>• moved more than the alert limit for a threshold shift.</Text>
+      ) : null}
       <View style={styles.block} {...keepTogether}>
         <BriefHeading>Regional pooled curve</BriefHeading>
         {c.pooled.figures.length ? <FigureGrid figures={c.pooled.figures} /> : null}
@@ -73,7 +107,16 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
           <View {...part('thead')}>
             <View style={[styles.row, styles.headRow]} {...part('tr')}>
               {c.table.columns.map((col) => (
-                <Text key={col.key} style={[styles.cell, styles.headCell, { flexBasis: COLUMN_BASIS[col.key] }, NUMERIC.has(col.key) && styles.numeric]} {...part('td')}>
+                <Text
+                  key={col.key}
+                  style={[
+                    styles.cell,
+                    styles.headCell,
+                    { flexBasis: COLUMN_BASIS[col.key] },
+                    NUMERIC.has(col.key) && styles.numeric,
+                  ]}
+                  {...part('td')}
+                >
                   {col.label}
                 </Text>
               ))}
@@ -83,7 +126,16 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
             {c.table.rows.map((row, i) => (
               <View key={row.code} style={[styles.row, i % 2 === 1 && styles.shaded]} {...part('tr')}>
                 {c.table.columns.map((col) => (
-                  <Text key={col.key} style={[styles.cell, { flexBasis: COLUMN_BASIS[col.key] }, NUMERIC.has(col.key) && styles.numeric, col.key === 'code' && styles.code]} {...part('td')}>
+                  <Text
+                    key={col.key}
+                    style={[
+                      styles.cell,
+                      { flexBasis: COLUMN_BASIS[col.key] },
+                      NUMERIC.has(col.key) && styles.numeric,
+                      col.key === 'code' && styles.code,
+                    ]}
+                    {...part('td')}
+                  >
                     {row[col.key]}
                   </Text>
                 ))}
@@ -91,7 +143,10 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
             ))}
           </View>
         </View>
-        <Text style={styles.muted}>{c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.</Text>
+        <Text style={styles.muted}>
+          {c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional
+          curve”: the pooled curve stands in for a short series.
+        </Text>
       </View>
       <TraceFooter trace={c.trace} />
     </View>
@@ -114,7 +169,13 @@ const styles = StyleSheet.create({
   muted: { ...type.caption, color: colors.textMuted },
   block: { gap: space.sm },
   table: { borderTopWidth: 1, borderTopColor: colors.textMuted },
-  row: { flexDirection: 'row', flexWrap: 'wrap', borderBottomWidth: StyleSheet.hairlineWidth, borderBottomColor: colors.border, paddingVertical: space.xxs },
+  row: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    borderBottomWidth: StyleSheet.hairlineWidth,
+    borderBottomColor: colors.border,
+    paddingVertical: space.xxs,
+  },
   headRow: { backgroundColor: colors.surfaceSunken },
   shaded: { backgroundColor: colors.surface },
   cell: { ...type.caption, color: colors.text, flexGrow: 1, flexShrink: 1, paddingHorizontal: space.xs },

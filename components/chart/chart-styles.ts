@@ -12,6 +12,11 @@ export function axisStyle(horizontal: boolean, scale = 1) {
     grid: { stroke: chartColors.grid, strokeWidth: 1 },
     ticks: { stroke: chartColors.axis, size: 4 },
     tickLabels: { fill: chartColors.axis, fontSize: 11 * scale, fontFamily: type.caption.fontFamily, padding: 4 },
-    axisLabel: { fill: chartColors.axis, fontSize: 12 * scale, fontFamily: type.label.fontFamily, padding: (horizontal ? 30 : 40) * scale },
+    axisLabel: {
+      fill: chartColors.axis,
+      fontSize: 12 * scale,
+      fontFamily: type.label.fontFamily,
+      padding: (horizontal ? 30 : 40) * scale,
+    },
   };
 }

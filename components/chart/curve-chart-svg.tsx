@@ -12,19 +12,37 @@ import type { CurveChartModel } from '@/lib/chart-model';
 
 import { axisStyle, chartPadding } from './chart-styles';
 
-export type CurveChartSvgProps = { model: CurveChartModel; width: number; height: number; emissionsUnit: string; textScale?: number };
+export type CurveChartSvgProps = {
+  model: CurveChartModel;
+  width: number;
+  height: number;
+  emissionsUnit: string;
+  textScale?: number;
+};
 
 export default function CurveChartSvg({ model: m, width, height, emissionsUnit, textScale = 1 }: CurveChartSvgProps) {
   const [y0, y1] = m.yDomain;
   return (
-    <VictoryChart width={width} height={height} padding={chartPadding(textScale)} scale={{ x: 'log', y: 'log' }} domain={{ x: m.xDomain, y: m.yDomain }}>
+    <VictoryChart
+      width={width}
+      height={height}
+      padding={chartPadding(textScale)}
+      scale={{ x: 'log', y: 'log' }}
+      domain={{ x: m.xDomain, y: m.yDomain }}
+    >
       <VictoryAxis
         tickValues={m.xTicks}
         tickFormat={(t: number) => formatTick(t)}
         label="Real income per person (log scale)"
         style={axisStyle(true, textScale)}
       />
-      <VictoryAxis dependentAxis tickValues={m.yTicks} tickFormat={(t: number) => formatTick(t)} label={`${emissionsUnit} (log scale)`} style={axisStyle(false, textScale)} />
+      <VictoryAxis
+        dependentAxis
+        tickValues={m.yTicks}
+        tickFormat={(t: number) => formatTick(t)}
+        label={`${emissionsUnit} (log scale)`}
+        style={axisStyle(false, textScale)}
+      />
       {m.band ? (
         <VictoryArea
           name="threshold-band"
@@ -46,13 +64,23 @@ export default function CurveChartSvg({ model: m, width, height, emissionsUnit, 
         />
       ) : null}
       {m.reference.length > 1 ? (
-        <VictoryLine name="regional-reference" data={m.reference} style={{ data: { stroke: chartColors.pooled, strokeWidth: 1.5, strokeDasharray: '3,4' } }} />
+        <VictoryLine
+          name="regional-reference"
+          data={m.reference}
+          style={{ data: { stroke: chartColors.pooled, strokeWidth: 1.5, strokeDasharray: '3,4' } }}
+        />
       ) : null}
       {m.curve.length > 1 ? (
         <VictoryLine
           name="fitted-curve"
           data={m.curve}
-          style={{ data: { stroke: m.curveIsRegional ? chartColors.pooled : chartColors.curve, strokeWidth: 3, strokeDasharray: m.curveIsRegional ? '8,4' : undefined } }}
+          style={{
+            data: {
+              stroke: m.curveIsRegional ? chartColors.pooled : chartColors.curve,
+              strokeWidth: 3,
+              strokeDasharray: m.curveIsRegional ? '8,4' : undefined,
+            },
+          }}
         />
       ) : null}
       <VictoryScatter name="observed" data={m.points} size={3} style={{ data: { fill: chartColors.points } }} />

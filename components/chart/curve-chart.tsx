@@ -34,16 +34,37 @@ export function CurveChart({ record }: { record: EstimateRecord }) {
         : { key: 'curve', label: 'Fitted curve', swatch: 'line', color: chartColors.curve },
     );
   }
-  if (model.reference.length > 1) items.push({ key: 'reference', label: 'Regional pooled curve', swatch: 'dash', color: chartColors.pooled });
-  if (model.threshold !== null) items.push({ key: 'threshold', label: 'Threshold', swatch: 'dash', color: chartColors.threshold });
+  if (model.reference.length > 1)
+    items.push({ key: 'reference', label: 'Regional pooled curve', swatch: 'dash', color: chartColors.pooled });
+  if (model.threshold !== null)
+    items.push({ key: 'threshold', label: 'Threshold', swatch: 'dash', color: chartColors.threshold });
   if (model.band) {
-    items.push({ key: 'band', label: `${levelPercent(level)} ${METHOD_LABEL[record.standing.intervalMethod]} interval`, swatch: 'band', color: chartColors.band });
+    items.push({
+      key: 'band',
+      label: `${levelPercent(level)} ${METHOD_LABEL[record.standing.intervalMethod]} interval`,
+      swatch: 'band',
+      color: chartColors.band,
+    });
   } else if (model.threshold !== null) {
     items.push({ key: 'no-band', label: `No band: ${notBoundedText(level)}`, swatch: 'line', color: chartColors.grid });
   }
   return (
-    <ChartFrame title="Emissions and income" summary={summary} height={layout.curveChartHeight} testID="curve-chart" legend={<ChartLegend items={items} />}>
-      {(width) => <CurveChartSvg model={model} width={width} height={layout.curveChartHeight} emissionsUnit="t CO₂ per person" textScale={textScale} />}
+    <ChartFrame
+      title="Emissions and income"
+      summary={summary}
+      height={layout.curveChartHeight}
+      testID="curve-chart"
+      legend={<ChartLegend items={items} />}
+    >
+      {(width) => (
+        <CurveChartSvg
+          model={model}
+          width={width}
+          height={layout.curveChartHeight}
+          emissionsUnit="t CO₂ per person"
+          textScale={textScale}
+        />
+      )}
     </ChartFrame>
   );
 }

@@ -18,9 +18,26 @@ export default function PathChartSvg({ model: m, width, height, textScale = 1 }:
   const [t0, t1] = m.yearDomain;
   const last = m.path[m.path.length - 1];
   return (
-    <VictoryChart width={width} height={height} padding={chartPadding(textScale)} scale={{ x: 'linear', y: 'log' }} domain={{ x: m.yearDomain, y: m.incomeDomain }}>
-      <VictoryAxis tickValues={m.yearTicks} tickFormat={(t: number) => String(t)} label="Year" style={axisStyle(true, textScale)} />
-      <VictoryAxis dependentAxis tickValues={m.incomeTicks} tickFormat={(t: number) => formatTick(t)} label="Income per person (log)" style={axisStyle(false, textScale)} />
+    <VictoryChart
+      width={width}
+      height={height}
+      padding={chartPadding(textScale)}
+      scale={{ x: 'linear', y: 'log' }}
+      domain={{ x: m.yearDomain, y: m.incomeDomain }}
+    >
+      <VictoryAxis
+        tickValues={m.yearTicks}
+        tickFormat={(t: number) => String(t)}
+        label="Year"
+        style={axisStyle(true, textScale)}
+      />
+      <VictoryAxis
+        dependentAxis
+        tickValues={m.incomeTicks}
+        tickFormat={(t: number) => formatTick(t)}
+        label="Income per person (log)"
+        style={axisStyle(false, textScale)}
+      />
       {m.band ? (
         <VictoryArea
           name="threshold-band"
@@ -42,11 +59,26 @@ export default function PathChartSvg({ model: m, width, height, textScale = 1 }:
         />
       ) : null}
       {m.projection.length > 1 ? (
-        <VictoryLine name="projection" data={m.projection} style={{ data: { stroke: chartColors.projection, strokeWidth: 2.5, strokeDasharray: '5,4' } }} />
+        <VictoryLine
+          name="projection"
+          data={m.projection}
+          style={{ data: { stroke: chartColors.projection, strokeWidth: 2.5, strokeDasharray: '5,4' } }}
+        />
       ) : null}
-      {m.path.length > 1 ? <VictoryLine name="income-path" data={m.path} style={{ data: { stroke: chartColors.curve, strokeWidth: 2.5 } }} /> : null}
+      {m.path.length > 1 ? (
+        <VictoryLine
+          name="income-path"
+          data={m.path}
+          style={{ data: { stroke: chartColors.curve, strokeWidth: 2.5 } }}
+        />
+      ) : null}
       {last ? (
-        <VictoryScatter name="latest" data={[last]} size={6} style={{ data: { fill: chartColors.surface, stroke: chartColors.latest, strokeWidth: 3 } }} />
+        <VictoryScatter
+          name="latest"
+          data={[last]}
+          size={6}
+          style={{ data: { fill: chartColors.surface, stroke: chartColors.latest, strokeWidth: 3 } }}
+        />
       ) : null}
     </VictoryChart>
   );

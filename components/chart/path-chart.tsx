@@ -20,15 +20,33 @@ export function PathChart({ record }: { record: EstimateRecord }) {
   const level = record.model.level;
   const textScale = useTextScale();
   const items: LegendItem[] = [{ key: 'path', label: 'Income per person', swatch: 'line', color: chartColors.curve }];
-  if (model.projection.length > 1) items.push({ key: 'projection', label: 'Recent trend, carried forward', swatch: 'dash', color: chartColors.projection });
-  if (model.threshold !== null) items.push({ key: 'threshold', label: 'Threshold', swatch: 'dash', color: chartColors.threshold });
+  if (model.projection.length > 1)
+    items.push({
+      key: 'projection',
+      label: 'Recent trend, carried forward',
+      swatch: 'dash',
+      color: chartColors.projection,
+    });
+  if (model.threshold !== null)
+    items.push({ key: 'threshold', label: 'Threshold', swatch: 'dash', color: chartColors.threshold });
   if (model.band) {
-    items.push({ key: 'band', label: `${levelPercent(level)} ${METHOD_LABEL[record.standing.intervalMethod]} interval`, swatch: 'band', color: chartColors.band });
+    items.push({
+      key: 'band',
+      label: `${levelPercent(level)} ${METHOD_LABEL[record.standing.intervalMethod]} interval`,
+      swatch: 'band',
+      color: chartColors.band,
+    });
   } else if (model.threshold !== null) {
     items.push({ key: 'no-band', label: `No band: ${notBoundedText(level)}`, swatch: 'line', color: chartColors.grid });
   }
   return (
-    <ChartFrame title="Income over the years" summary={summary} height={layout.pathChartHeight} testID="path-chart" legend={<ChartLegend items={items} />}>
+    <ChartFrame
+      title="Income over the years"
+      summary={summary}
+      height={layout.pathChartHeight}
+      testID="path-chart"
+      legend={<ChartLegend items={items} />}
+    >
       {(width) => <PathChartSvg model={model} width={width} height={layout.pathChartHeight} textScale={textScale} />}
     </ChartFrame>
   );

@@ -12,7 +12,15 @@ const TABS: { key: CardTab; label: string }[] = [
 ];
 
 /** Tabs for the card's lower sections; arrow keys are not needed: each tab is a button in order. */
-export function CardTabs({ current, onChange, counts }: { current: CardTab; onChange: (t: CardTab) => void; counts?: Partial<Record<CardTab, number>> }) {
+export function CardTabs({
+  current,
+  onChange,
+  counts,
+}: {
+  current: CardTab;
+  onChange: (t: CardTab) => void;
+  counts?: Partial<Record<CardTab, number>>;
+}) {
   return (
     <View style={styles.bar} role="tablist" aria-label="District sections">
       {TABS.map((t) => {
@@ -26,7 +34,12 @@ export function CardTabs({ current, onChange, counts }: { current: CardTab; onCh
             aria-selected={on}
             accessibilityState={{ selected: on }}
             onPress={() => onChange(t.key)}
-            style={(state: InteractionState) => [styles.tab, on && styles.on, state.hovered && !on && styles.hover, focusOutline(state, 'inside')]}
+            style={(state: InteractionState) => [
+              styles.tab,
+              on && styles.on,
+              state.hovered && !on && styles.hover,
+              focusOutline(state, 'inside'),
+            ]}
           >
             <Text style={[styles.label, on && styles.onLabel]}>
               {t.label}
@@ -41,7 +54,13 @@ export function CardTabs({ current, onChange, counts }: { current: CardTab; onCh
 
 const styles = StyleSheet.create({
   bar: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.border },
-  tab: { minHeight: layout.touchTarget, paddingHorizontal: space.lg, justifyContent: 'center', borderBottomWidth: 3, borderBottomColor: colors.transparent },
+  tab: {
+    minHeight: layout.touchTarget,
+    paddingHorizontal: space.lg,
+    justifyContent: 'center',
+    borderBottomWidth: 3,
+    borderBottomColor: colors.transparent,
+  },
   on: { borderBottomColor: colors.selectedRule },
   hover: { backgroundColor: colors.surface },
   label: { ...type.bodyStrong, color: colors.textMuted },

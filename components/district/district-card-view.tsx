@@ -100,7 +100,15 @@ function CardBody(props: DistrictCardViewProps): ReactNode {
   return <LoadedCard {...props} data={data} />;
 }
 
-function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }: DistrictCardViewProps & { data: DistrictEstimateResponse }) {
+function LoadedCard({
+  code,
+  estimate,
+  detail,
+  history,
+  alerts,
+  subscribe,
+  data,
+}: DistrictCardViewProps & { data: DistrictEstimateResponse }) {
   const [tab, setTab] = useState<CardTab>('data');
   // The headline and figures paint first; the sections below the fold (sensitivity strip,
   // tabs with the yearly table) join one frame later, so they never delay the headline.
@@ -115,7 +123,12 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
   const district = detail.data?.district;
   const actions = (
     <>
-      <ExternalLink path={briefPdfPath.district(code)} label="Brief (PDF)" accessibilityLabel={`Brief for ${data.district.name}, PDF`} testID="district-brief-link" />
+      <ExternalLink
+        path={briefPdfPath.district(code)}
+        label="Brief (PDF)"
+        accessibilityLabel={`Brief for ${data.district.name}, PDF`}
+        testID="district-brief-link"
+      />
       <SubscribeToggle code={code} name={data.district.name} {...subscribe} />
     </>
   );
@@ -174,14 +187,18 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
         </StatePanel>
       )}
       {lower ? (
-      <View style={styles.section}>
-        <CardTabs current={tab} onChange={setTab} counts={{ history: history.data?.history.length, alerts: alerts.data?.alerts.length }} />
-        <View role="tabpanel" testID={`tabpanel-${tab}`}>
-          {tab === 'data' ? <DataSection code={code} detail={detail} /> : null}
-          {tab === 'history' ? <HistoryList history={history} level={level} /> : null}
-          {tab === 'alerts' ? <DistrictAlertsList alerts={alerts} /> : null}
+        <View style={styles.section}>
+          <CardTabs
+            current={tab}
+            onChange={setTab}
+            counts={{ history: history.data?.history.length, alerts: alerts.data?.alerts.length }}
+          />
+          <View role="tabpanel" testID={`tabpanel-${tab}`}>
+            {tab === 'data' ? <DataSection code={code} detail={detail} /> : null}
+            {tab === 'history' ? <HistoryList history={history} level={level} /> : null}
+            {tab === 'alerts' ? <DistrictAlertsList alerts={alerts} /> : null}
+          </View>
         </View>
-      </View>
       ) : null}
       <CautionNote />
     </>
@@ -191,7 +208,15 @@ function LoadedCard({ code, estimate, detail, history, alerts, subscribe, data }
 function DataSection({ code, detail }: { code: string; detail: QueryState<DistrictDetailResponse> }) {
   if (detail.status === 'pending') return <Text style={styles.muted}>Loading the yearly values…</Text>;
   if (detail.status === 'error' && !detail.data) {
-    return <QueryErrorPanel testID="district-series-error" what={`the yearly values of ${code}`} error={detail.error} retrying={detail.isFetching} onRetry={() => void detail.refetch()} />;
+    return (
+      <QueryErrorPanel
+        testID="district-series-error"
+        what={`the yearly values of ${code}`}
+        error={detail.error}
+        retrying={detail.isFetching}
+        onRetry={() => void detail.refetch()}
+      />
+    );
   }
   const data = detail.data!;
   if (data.series.length === 0) {
@@ -224,7 +249,13 @@ const styles = StyleSheet.create({
   header: { gap: space.xs },
   titleLine: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', gap: space.md },
   name: { ...type.display, color: colors.text },
-  codeBadge: { borderColor: colors.action, borderWidth: 1, borderRadius: radius.pill, paddingHorizontal: space.sm, paddingVertical: space.xxs },
+  codeBadge: {
+    borderColor: colors.action,
+    borderWidth: 1,
+    borderRadius: radius.pill,
+    paddingHorizontal: space.sm,
+    paddingVertical: space.xxs,
+  },
   code: { ...type.label, color: colors.action },
   coverage: { ...type.body, color: colors.textMuted },
   section: { gap: space.md },

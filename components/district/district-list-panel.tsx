@@ -49,11 +49,17 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
   // grows with the reader's text size so larger text is not cut off.
   const rowHeight = Math.ceil(layout.districtRowHeight * useTextScale());
   const itemLayout = useCallback(
-    (_: ArrayLike<RegionRow> | null | undefined, index: number) => ({ length: rowHeight, offset: rowHeight * index, index }),
+    (_: ArrayLike<RegionRow> | null | undefined, index: number) => ({
+      length: rowHeight,
+      offset: rowHeight * index,
+      index,
+    }),
     [rowHeight],
   );
   const renderItem = useCallback<ListRenderItem<RegionRow>>(
-    ({ item }) => <DistrictRow district={item} selected={item.code === selectedCode} level={level} height={rowHeight} />,
+    ({ item }) => (
+      <DistrictRow district={item} selected={item.code === selectedCode} level={level} height={rowHeight} />
+    ),
     [selectedCode, level, rowHeight],
   );
 
@@ -61,8 +67,14 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
     <View style={styles.panel} testID="district-list-panel">
       <View style={styles.top}>
         {header}
-        {districts.fetchStatus !== undefined ? <FreshnessNotice freshness={districts as Freshness} what="the district list" /> : null}
-        <StandingCounts counts={counts} selected={filter.standings} onToggle={(s) => setFilter({ standings: toggle(filter.standings, s) })} />
+        {districts.fetchStatus !== undefined ? (
+          <FreshnessNotice freshness={districts as Freshness} what="the district list" />
+        ) : null}
+        <StandingCounts
+          counts={counts}
+          selected={filter.standings}
+          onToggle={(s) => setFilter({ standings: toggle(filter.standings, s) })}
+        />
         <DistrictSearchField value={filter.search} onChange={(search) => setFilter({ search })} />
         <ListControls
           sort={filter.sort}
@@ -75,7 +87,12 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
         </Text>
       </View>
       {districts.status === 'pending' ? (
-        <View testID="district-list-loading" accessible accessibilityLabel="Loading the district list" style={styles.list}>
+        <View
+          testID="district-list-loading"
+          accessible
+          accessibilityLabel="Loading the district list"
+          style={styles.list}
+        >
           {Array.from({ length: SKELETON_ROWS }, (_, i) => (
             <DistrictRowSkeleton key={i} index={i} height={rowHeight} />
           ))}
@@ -116,10 +133,18 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
             <View style={styles.pad}>
               <StatePanel
                 testID="district-list-no-match"
-                title={filter.search.trim() ? `Nothing matches “${filter.search.trim()}”` : 'No district matches these filters'}
+                title={
+                  filter.search.trim()
+                    ? `Nothing matches “${filter.search.trim()}”`
+                    : 'No district matches these filters'
+                }
                 message="Search looks at district names and codes; standing and shape filters narrow it further."
               >
-                <Button label="Clear search and filters" variant="outline" onPress={() => setFilter({ search: '', standings: [], shapes: [] })} />
+                <Button
+                  label="Clear search and filters"
+                  variant="outline"
+                  onPress={() => setFilter({ search: '', standings: [], shapes: [] })}
+                />
               </StatePanel>
             </View>
           }
@@ -138,7 +163,6 @@ function countText(status: QueryState<unknown>['status'], total: number, shown: 
 }
 
 const keyOf = (d: RegionRow) => d.code;
-
 
 const styles = StyleSheet.create({
   panel: { flex: 1, backgroundColor: colors.background },

@@ -26,7 +26,12 @@ export type DistrictRowProps = {
  * standing (mark and word), the gap to its threshold, the projected crossing and the years
  * of data. A link to its card.
  */
-export const DistrictRow = memo(function DistrictRow({ district, selected = false, level = null, height = layout.districtRowHeight }: DistrictRowProps) {
+export const DistrictRow = memo(function DistrictRow({
+  district,
+  selected = false,
+  level = null,
+  height = layout.districtRowHeight,
+}: DistrictRowProps) {
   const e = district.estimate ?? null;
   const gap = gapColumn(e);
   const crossing = crossingShort(e);
@@ -97,7 +102,14 @@ const styles = StyleSheet.create({
   name: { ...type.bodyStrong, color: colors.text, flexShrink: 1 },
   code: { ...type.label, color: colors.textMuted },
   standingLine: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
-  tag: { ...type.caption, color: colors.textMuted, borderWidth: 1, borderColor: colors.border, paddingHorizontal: space.xs, borderRadius: 4 },
+  tag: {
+    ...type.caption,
+    color: colors.textMuted,
+    borderWidth: 1,
+    borderColor: colors.border,
+    paddingHorizontal: space.xs,
+    borderRadius: 4,
+  },
   coverage: { ...type.caption, color: colors.textMuted },
   values: { alignItems: 'flex-end', minWidth: 76 },
   number: { ...type.numeric, fontFamily: type.bodyStrong.fontFamily, color: colors.text },

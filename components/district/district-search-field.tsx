@@ -16,9 +16,7 @@ export function DistrictSearchField({ value, onChange }: DistrictSearchFieldProp
   const [focused, setFocused] = useState(false);
   return (
     <View style={styles.wrap}>
-      <Text style={styles.label}>
-        Find a district
-      </Text>
+      <Text style={styles.label}>Find a district</Text>
       <View style={[styles.field, focused && styles.fieldFocused]}>
         <TextInput
           testID={SEARCH_FIELD_ID}

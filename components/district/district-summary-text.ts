@@ -67,8 +67,10 @@ export function standingSentence(e: EstimateSummary | null | undefined, level: n
   if (!e) return 'No published estimate.';
   const parts = [STANDING_LABEL[e.standing]];
   if (e.status === 'substitute') parts.push('regional substitute');
-  if (e.gapPercent !== null && e.threshold !== null && e.threshold > 0) parts.push(`income ${gapWords(e.gapPercent)} the threshold`);
-  if (e.intervalBounded === false) parts.push(`interval not bounded${level ? ` at ${Math.round(level * 1000) / 10}%` : ''}`);
+  if (e.gapPercent !== null && e.threshold !== null && e.threshold > 0)
+    parts.push(`income ${gapWords(e.gapPercent)} the threshold`);
+  if (e.intervalBounded === false)
+    parts.push(`interval not bounded${level ? ` at ${Math.round(level * 1000) / 10}%` : ''}`);
   const crossing = crossingShort(e);
   if (crossing === 'off trend') parts.push('not on current trend');
   else if (crossing?.startsWith('passed')) parts.push(`passed it around ${e.crossingYear}`);

@@ -22,6 +22,11 @@ export function ExternalLink({ path, label, accessibilityLabel, testID }: Extern
 }
 
 const styles = StyleSheet.create({
-  target: { minHeight: layout.touchTarget, justifyContent: 'center', paddingHorizontal: space.xs, alignSelf: 'flex-start' },
+  target: {
+    minHeight: layout.touchTarget,
+    justifyContent: 'center',
+    paddingHorizontal: space.xs,
+    alignSelf: 'flex-start',
+  },
   text: { ...type.bodyStrong, color: colors.link, textDecorationLine: 'underline' },
 });

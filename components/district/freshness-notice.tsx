@@ -35,9 +35,18 @@ export function FreshnessNotice({ freshness, what }: { freshness: Freshness; wha
     <View style={styles.notice} role="status" testID="stale-notice">
       <Text style={styles.text}>
         <Text style={styles.strong}>{offline ? 'Offline. ' : 'Could not refresh. '}</Text>
-        Showing {what} as loaded at {formatDayTime(freshness.dataUpdatedAt)}; {offline ? 'they will refresh when the connection returns' : 'they may be out of date'}.
+        Showing {what} as loaded at {formatDayTime(freshness.dataUpdatedAt)};{' '}
+        {offline ? 'they will refresh when the connection returns' : 'they may be out of date'}.
       </Text>
-      {offline ? null : <Button label="Try again" variant="outline" busy={freshness.isFetching} busyLabel="Trying…" onPress={() => void freshness.refetch()} />}
+      {offline ? null : (
+        <Button
+          label="Try again"
+          variant="outline"
+          busy={freshness.isFetching}
+          busyLabel="Trying…"
+          onPress={() => void freshness.refetch()}
+        />
+      )}
     </View>
   );
 }

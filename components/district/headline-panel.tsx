@@ -19,7 +19,10 @@ export function HeadlinePanel({ record, actions }: HeadlinePanelProps) {
   const standing = record.standing.standing;
   const shape = record.shape?.shape ?? null;
   return (
-    <View style={[styles.panel, { borderLeftColor: standingColors[standing] }, h.tone === 'caution' && styles.caution]} testID="headline-panel">
+    <View
+      style={[styles.panel, { borderLeftColor: standingColors[standing] }, h.tone === 'caution' && styles.caution]}
+      testID="headline-panel"
+    >
       <View style={styles.badges}>
         <StandingBadge standing={standing} size={16} />
         {shape ? (

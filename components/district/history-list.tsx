@@ -11,7 +11,13 @@ import type { DistrictHistoryResponse } from '@/contracts/estimates';
 import { formatLevel, gapShort, intervalText, notBoundedText } from '@/lib/estimate-words';
 
 /** The district's estimate in each published run, newest first. */
-export function HistoryList({ history, level }: { history: QueryState<DistrictHistoryResponse>; level: number | null }) {
+export function HistoryList({
+  history,
+  level,
+}: {
+  history: QueryState<DistrictHistoryResponse>;
+  level: number | null;
+}) {
   if (history.status === 'pending') {
     return (
       <View style={styles.list} accessible accessibilityLabel="Loading the history">
@@ -25,10 +31,25 @@ export function HistoryList({ history, level }: { history: QueryState<DistrictHi
     );
   }
   if (history.status === 'error' && !history.data) {
-    return <QueryErrorPanel what="the history" error={history.error} retrying={history.isFetching} onRetry={() => void history.refetch()} testID="history-error" />;
+    return (
+      <QueryErrorPanel
+        what="the history"
+        error={history.error}
+        retrying={history.isFetching}
+        onRetry={() => void history.refetch()}
+        testID="history-error"
+      />
+    );
   }
   const rows = history.data?.history ?? [];
-  if (rows.length === 0) return <StatePanel testID="history-empty" title="No published estimates yet" message="Each published run adds a line here." />;
+  if (rows.length === 0)
+    return (
+      <StatePanel
+        testID="history-empty"
+        title="No published estimates yet"
+        message="Each published run adds a line here."
+      />
+    );
   return (
     <View style={styles.list} testID="history-list">
       {rows.map((h) => (
@@ -52,7 +73,14 @@ export function HistoryList({ history, level }: { history: QueryState<DistrictHi
 
 const styles = StyleSheet.create({
   list: { gap: space.sm },
-  item: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, borderRadius: radius.md, padding: space.md, gap: space.xs },
+  item: {
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.md,
+    padding: space.md,
+    gap: space.xs,
+  },
   head: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', gap: space.sm },
   when: { ...type.label, color: colors.text },
   line: { ...type.caption, color: colors.text },

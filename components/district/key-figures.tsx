@@ -2,7 +2,15 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
 import type { EstimateRecord, PublishedRunMeta } from '@/contracts/estimates';
-import { formatLevel, gapWords, intervalText, levelPercent, METHOD_LABEL, notBoundedText, yearWithRange } from '@/lib/estimate-words';
+import {
+  formatLevel,
+  gapWords,
+  intervalText,
+  levelPercent,
+  METHOD_LABEL,
+  notBoundedText,
+  yearWithRange,
+} from '@/lib/estimate-words';
 import { modelLine, runLine } from '@/lib/model-line';
 
 /** Threshold with both intervals, income now and its gap, elasticity now, projected crossing; the model line. */
@@ -12,8 +20,16 @@ export function KeyFigures({ record, run }: { record: EstimateRecord; run: Publi
   const pct = levelPercent(level);
   const used = record.standing.intervalMethod;
   const threshold = t?.level !== null && t?.level !== undefined && t.level > 0 ? t.level : null;
-  const fieller = t ? (t.fieller.kind === 'bounded' ? intervalText('bounded', t.fieller.levelLo, t.fieller.levelHi) : `${notBoundedText(level)} (${intervalText(t.fieller.kind, t.fieller.levelLo, t.fieller.levelHi)})`) : null;
-  const delta = t ? (t.delta.levelLo !== null && t.delta.levelHi !== null ? intervalText('bounded', t.delta.levelLo, t.delta.levelHi) : 'not available') : null;
+  const fieller = t
+    ? t.fieller.kind === 'bounded'
+      ? intervalText('bounded', t.fieller.levelLo, t.fieller.levelHi)
+      : `${notBoundedText(level)} (${intervalText(t.fieller.kind, t.fieller.levelLo, t.fieller.levelHi)})`
+    : null;
+  const delta = t
+    ? t.delta.levelLo !== null && t.delta.levelHi !== null
+      ? intervalText('bounded', t.delta.levelLo, t.delta.levelHi)
+      : 'not available'
+    : null;
   const e = record.elasticity;
   const now = record.range;
   const p = record.projection;
@@ -39,18 +55,27 @@ export function KeyFigures({ record, run }: { record: EstimateRecord; run: Publi
           {t?.extrapolated ? <Text style={styles.flag}>Turn beyond observed range</Text> : null}
         </Figure>
         <Figure title="Income now" testID="figure-now">
-          <Text style={styles.big}>{now ? `${formatLevel(now.levelNow)}${record.lastYear ? ` (${record.lastYear})` : ''}` : '—'}</Text>
+          <Text style={styles.big}>
+            {now ? `${formatLevel(now.levelNow)}${record.lastYear ? ` (${record.lastYear})` : ''}` : '—'}
+          </Text>
           <Text style={styles.line}>
-            {record.gapPercent !== null && threshold !== null ? `${capital(gapWords(record.gapPercent))} the threshold` : 'No gap without a threshold'}
+            {record.gapPercent !== null && threshold !== null
+              ? `${capital(gapWords(record.gapPercent))} the threshold`
+              : 'No gap without a threshold'}
           </Text>
         </Figure>
         <Figure title="Elasticity now" testID="figure-elasticity">
           <Text style={styles.big}>{e?.value !== null && e?.value !== undefined ? signed(e.value) : '—'}</Text>
           {e?.value !== null && e?.value !== undefined ? (
             <>
-              {e.lo !== null && e.hi !== null ? <Text style={styles.line}>{pct}: {signed(e.lo)} to {signed(e.hi)}</Text> : null}
+              {e.lo !== null && e.hi !== null ? (
+                <Text style={styles.line}>
+                  {pct}: {signed(e.lo)} to {signed(e.hi)}
+                </Text>
+              ) : null}
               <Text style={styles.line}>
-                1% more income goes with about {Math.abs(e.value).toFixed(2)}% {e.value >= 0 ? 'more' : 'less'} emissions today.
+                1% more income goes with about {Math.abs(e.value).toFixed(2)}% {e.value >= 0 ? 'more' : 'less'}{' '}
+                emissions today.
               </Text>
             </>
           ) : null}
@@ -81,7 +106,8 @@ function crossingBig(p: EstimateRecord['projection']): string {
 }
 
 function crossingLine(p: EstimateRecord['projection'], r: EstimateRecord): string {
-  const trend = r.trendPerYear !== null ? ` Income trend ${((Math.exp(r.trendPerYear) - 1) * 100).toFixed(1)}% a year.` : '';
+  const trend =
+    r.trendPerYear !== null ? ` Income trend ${((Math.exp(r.trendPerYear) - 1) * 100).toFixed(1)}% a year.` : '';
   if (!p || p.status === 'no_threshold') return 'No positive threshold to reach.';
   if (p.status === 'not_on_current_trend') return `At the recent trend income does not reach the threshold.${trend}`;
   if (p.status === 'already_past') return `Income passed it around then (back-projected).${trend}`;

@@ -41,14 +41,26 @@ function StripRow({ row, domain, now }: { row: SensitivityRow; domain: [number, 
   const has = domain !== null && row.threshold !== null && row.threshold > 0;
   const pct = (v: number) => `${(stripPosition(v, domain!) * 100).toFixed(2)}%`;
   return (
-    <View style={styles.row} testID={`sensitivity-${row.key}`} accessible accessibilityLabel={`${row.label}: ${row.text}`}>
+    <View
+      style={styles.row}
+      testID={`sensitivity-${row.key}`}
+      accessible
+      accessibilityLabel={`${row.label}: ${row.text}`}
+    >
       <Text style={[styles.label, row.key === 'main' && styles.mainLabel]}>{row.label}</Text>
       <View style={styles.track} aria-hidden>
         <View style={styles.axis} />
         {has && row.bounded && row.lo !== null && row.hi !== null ? (
           <View
             testID={`sensitivity-band-${row.key}`}
-            style={[styles.band, { left: pct(row.lo) as `${number}%`, width: `${Math.max(1, (stripPosition(row.hi, domain!) - stripPosition(row.lo, domain!)) * 100).toFixed(2)}%` as `${number}%` }]}
+            style={[
+              styles.band,
+              {
+                left: pct(row.lo) as `${number}%`,
+                width:
+                  `${Math.max(1, (stripPosition(row.hi, domain!) - stripPosition(row.lo, domain!)) * 100).toFixed(2)}%` as `${number}%`,
+              },
+            ]}
           />
         ) : null}
         {has && !row.bounded ? <View style={styles.unbounded} testID={`sensitivity-unbounded-${row.key}`} /> : null}

@@ -35,7 +35,11 @@ export function SeriesTable({ districtName, series, indicators }: SeriesTablePro
             <Text style={styles.headLabel}>Year</Text>
           </View>
           {columns.map((c) => (
-            <View key={c.code} role="columnheader" style={[styles.cell, styles.valueCell, { flex: COLUMN_WEIGHT[c.code] }]}>
+            <View
+              key={c.code}
+              role="columnheader"
+              style={[styles.cell, styles.valueCell, { flex: COLUMN_WEIGHT[c.code] }]}
+            >
               <Text style={[styles.headLabel, styles.right]}>{c.short}</Text>
               <Text style={[styles.headUnit, styles.right]}>{c.shortUnit}</Text>
             </View>

@@ -20,7 +20,15 @@ export type ChoiceGroupProps<T extends string> = {
  * Pick one of a few options (a radio group drawn as joined tiles that wrap on a phone).
  * Each tile is a radio for screen readers; the chosen one is filled.
  */
-export function ChoiceGroup<T extends string>({ label, choices, value, onChange, hint, disabled = false, testID }: ChoiceGroupProps<T>) {
+export function ChoiceGroup<T extends string>({
+  label,
+  choices,
+  value,
+  onChange,
+  hint,
+  disabled = false,
+  testID,
+}: ChoiceGroupProps<T>) {
   return (
     <View style={styles.group} testID={testID}>
       <Text style={styles.label} nativeID={testID ? `${testID}-label` : undefined}>

@@ -31,7 +31,11 @@ export function MutationNotice({ error, success, testID }: MutationNoticeProps) 
   if (error) {
     const c = toneColors.danger;
     return (
-      <View style={[styles.box, { backgroundColor: c.fill }]} accessibilityRole="alert" testID={testID ? `${testID}-error` : undefined}>
+      <View
+        style={[styles.box, { backgroundColor: c.fill }]}
+        accessibilityRole="alert"
+        testID={testID ? `${testID}-error` : undefined}
+      >
         <Text style={[styles.text, { color: c.ink }]}>{describeSendError(error)}</Text>
       </View>
     );
@@ -39,7 +43,11 @@ export function MutationNotice({ error, success, testID }: MutationNoticeProps) 
   if (success) {
     const c = toneColors.success;
     return (
-      <View style={[styles.box, { backgroundColor: c.fill }]} accessibilityLiveRegion="polite" testID={testID ? `${testID}-ok` : undefined}>
+      <View
+        style={[styles.box, { backgroundColor: c.fill }]}
+        accessibilityLiveRegion="polite"
+        testID={testID ? `${testID}-ok` : undefined}
+      >
         <Text style={[styles.text, { color: c.ink }]}>{success}</Text>
       </View>
     );

@@ -39,7 +39,11 @@ export function AccountStatus({ me, compact = false, onSignOut, signingOut = fal
             disabled={signingOut}
             onPress={onSignOut}
             testID="sign-out"
-            style={(state: InteractionState) => [styles.signOut, state.hovered && styles.signOutHover, focusOutline(state)]}
+            style={(state: InteractionState) => [
+              styles.signOut,
+              state.hovered && styles.signOutHover,
+              focusOutline(state),
+            ]}
           >
             <Text style={styles.signOutText}>{signingOut ? 'Signing out…' : 'Sign out'}</Text>
           </Pressable>
@@ -64,7 +68,14 @@ export function AccountPanel({ me, onSignOut, signingOut = false }: Omit<Account
       {me.data.name ? <Text style={styles.panelEmail}>{me.data.email}</Text> : null}
       <Text style={styles.panelEmail}>Signed in as {roleLabel(me.data.role).toLowerCase()}</Text>
       {onSignOut ? (
-        <Button label="Sign out" variant="outline" busy={signingOut} busyLabel="Signing out…" onPress={onSignOut} testID="sign-out" />
+        <Button
+          label="Sign out"
+          variant="outline"
+          busy={signingOut}
+          busyLabel="Signing out…"
+          onPress={onSignOut}
+          testID="sign-out"
+        />
       ) : null}
     </View>
   );

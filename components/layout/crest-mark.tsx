@@ -12,10 +12,7 @@ export function CrestMark({ size }: { size: number }) {
   return (
     <View aria-hidden style={[styles.mark, { width: size, height: size, gap: bar / 2 }]}>
       {heights.map((h, i) => (
-        <View
-          key={i}
-          style={[styles.bar, { width: bar, height: Math.round(size * h) }, i === 2 && styles.peak]}
-        />
+        <View key={i} style={[styles.bar, { width: bar, height: Math.round(size * h) }, i === 2 && styles.peak]} />
       ))}
     </View>
   );

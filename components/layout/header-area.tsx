@@ -43,7 +43,9 @@ export function HeaderArea({ mode, pathname, me, demo, unreadAlerts, onSignOut, 
         compact={phone}
         account={<AccountStatus me={me} compact={phone} onSignOut={onSignOut} signingOut={signingOut} />}
         menu={
-          phone && items.length ? <MenuButton open={menuOpen} onPress={() => setMenuOpen((o) => !o)} unread={unreadAlerts} /> : null
+          phone && items.length ? (
+            <MenuButton open={menuOpen} onPress={() => setMenuOpen((o) => !o)} unread={unreadAlerts} />
+          ) : null
         }
       />
       {!phone && items.length ? <NavStrip items={items} activeKey={activeKey} counts={counts} /> : null}

@@ -71,7 +71,11 @@ export function MenuButton({ open, onPress, unread }: MenuButtonProps) {
       accessibilityLabel={open ? 'Close the menu' : count ? `Menu, ${count} unread alerts` : 'Menu'}
       onPress={onPress}
       testID="menu-button"
-      style={(state: InteractionState) => [styles.menuButton, state.hovered && styles.menuButtonHover, focusOutline(state)]}
+      style={(state: InteractionState) => [
+        styles.menuButton,
+        state.hovered && styles.menuButtonHover,
+        focusOutline(state),
+      ]}
     >
       <View aria-hidden style={styles.burger}>
         {open ? (

@@ -14,7 +14,10 @@ export type NavItem = {
 
 type Entry = NavItem & { need: Capability; demoOnly?: boolean };
 
-const under = (...roots: string[]) => (p: string) => roots.some((r) => p === r || p.startsWith(`${r}/`));
+const under =
+  (...roots: string[]) =>
+  (p: string) =>
+    roots.some((r) => p === r || p.startsWith(`${r}/`));
 
 const ENTRIES: readonly Entry[] = [
   { key: 'region', label: 'Region', href: '/', need: 'read', matches: (p) => p === '/' || under('/district')(p) },
@@ -25,7 +28,14 @@ const ENTRIES: readonly Entry[] = [
   { key: 'people', label: 'People', href: '/people', need: 'people', matches: under('/people') },
   { key: 'settings', label: 'Settings', href: '/settings', need: 'settings.write', matches: under('/settings') },
   { key: 'audit', label: 'Audit', href: '/audit', need: 'audit', matches: under('/audit') },
-  { key: 'mailbox', label: 'Mailbox (demo)', href: '/mailbox', need: 'mailbox', demoOnly: true, matches: under('/mailbox') },
+  {
+    key: 'mailbox',
+    label: 'Mailbox (demo)',
+    href: '/mailbox',
+    need: 'mailbox',
+    demoOnly: true,
+    matches: under('/mailbox'),
+  },
   { key: 'method', label: 'Method', href: '/method', need: 'read', matches: under('/method') },
 ];
 

@@ -38,7 +38,15 @@ export type RoleGateProps = {
 export function RoleGate({ me, need, what, children }: RoleGateProps) {
   if (me.status === 'pending') return <Skeleton width="100%" height={120} />;
   if (me.status === 'error' || !me.data) {
-    return <QueryErrorPanel what={what} error={me.error} retrying={me.isFetching} onRetry={() => void me.refetch()} testID="role-gate-error" />;
+    return (
+      <QueryErrorPanel
+        what={what}
+        error={me.error}
+        retrying={me.isFetching}
+        onRetry={() => void me.refetch()}
+        testID="role-gate-error"
+      />
+    );
   }
   if (!can(me.data.role, need)) {
     return (

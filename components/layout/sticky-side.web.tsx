@@ -11,7 +11,10 @@ export function StickySide({ children, testID }: StickySideProps) {
   const { height } = useWindowDimensions();
   return (
     <View style={styles.sticky} testID={testID}>
-      <ScrollView style={{ maxHeight: Math.max(320, height - STICKY_SIDE_CLEARANCE) }} contentContainerStyle={styles.content}>
+      <ScrollView
+        style={{ maxHeight: Math.max(320, height - STICKY_SIDE_CLEARANCE) }}
+        contentContainerStyle={styles.content}
+      >
         {children}
       </ScrollView>
     </View>

@@ -42,7 +42,7 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
         </P>
 
         <H2>The threshold and its interval</H2>
-        <Formula>x* = −b1 / (2·b2)        threshold X* = exp(x*) in real income per person</Formula>
+        <Formula>x* = −b1 / (2·b2) threshold X* = exp(x*) in real income per person</Formula>
         <P>
           Its uncertainty is shown two ways, side by side. The delta method gives an interval on the log scale, whose
           ends are then exponentiated. Fieller’s interval (Fieller 1954) collects every θ with
@@ -59,10 +59,10 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
           The shape is judged over the incomes the district has actually had, not by the signs of b1 and b2 alone. The
           Lind–Mehlum U-test (Lind and Mehlum 2010) asks whether the slope is positive at the lowest observed income and
           negative at the highest (or the reverse for a U). If it does not confirm a turn, a Wald F test asks whether
-          income matters at all (if not: flat); otherwise the slope in the middle of the range says rising or falling.
-          A turning point outside the observed incomes is kept visible but flagged “turn beyond observed range”. A cubic
-          curve can turn twice inside the observed incomes: emissions rise, fall and rise again (N-shaped), or fall, rise
-          and fall again (inverted N).
+          income matters at all (if not: flat); otherwise the slope in the middle of the range says rising or falling. A
+          turning point outside the observed incomes is kept visible but flagged “turn beyond observed range”. A cubic
+          curve can turn twice inside the observed incomes: emissions rise, fall and rise again (N-shaped), or fall,
+          rise and fall again (inverted N).
         </P>
         <View style={styles.list}>
           {SHAPES_IN_ORDER.map((s) => (
@@ -73,7 +73,9 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
         </View>
 
         <H2>Where a district stands</H2>
-        <P>The latest income is compared with the threshold’s interval (Fieller’s unless the specification says delta):</P>
+        <P>
+          The latest income is compared with the threshold’s interval (Fieller’s unless the specification says delta):
+        </P>
         <View style={styles.list} testID="method-standings">
           {STANDINGS.map((s) => (
             <View key={s} style={styles.standing}>
@@ -85,7 +87,11 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
             </View>
           ))}
         </View>
-        <P>For a U-shaped curve the turn is a low point, so past it emissions rise again with income. A curve that turns twice is read from the turn nearest the latest income: a high point reads like a rise then fall, a low point like a fall then rise. Where the interval is not bounded, the standing follows the point estimate and says so.</P>
+        <P>
+          For a U-shaped curve the turn is a low point, so past it emissions rise again with income. A curve that turns
+          twice is read from the turn nearest the latest income: a high point reads like a rise then fall, a low point
+          like a fall then rise. Where the interval is not bounded, the standing follows the point estimate and says so.
+        </P>
         <Formula>gap = 100·(X_now / X* − 1) %</Formula>
         <Formula>elasticity now = b1 + 2·b2·ln x_now</Formula>
         <P>
@@ -95,8 +101,8 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
           unbounded, the card says “not on current trend”.
         </P>
         <P>
-          Each run also fits four variants — without controls, cubic, the last 20 years only, and the level form — so the
-          sensitivity strip on the card shows how much the threshold depends on these choices.
+          Each run also fits four variants — without controls, cubic, the last 20 years only, and the level form — so
+          the sensitivity strip on the card shows how much the threshold depends on these choices.
         </P>
 
         <H2>Read with care</H2>
@@ -120,11 +126,26 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
 
         <H2>References</H2>
         <View style={styles.list}>
-          <Text style={styles.item}>Fieller, E. C. (1954). Some problems in interval estimation. Journal of the Royal Statistical Society, Series B, 16(2), 175–185.</Text>
-          <Text style={styles.item}>Lind, J. T. and Mehlum, H. (2010). With or without U? The appropriate test for a U-shaped relationship. Oxford Bulletin of Economics and Statistics, 72(1), 109–118.</Text>
-          <Text style={styles.item}>Newey, W. K. and West, K. D. (1987). A simple, positive semi-definite, heteroskedasticity and autocorrelation consistent covariance matrix. Econometrica, 55(3), 703–708.</Text>
-          <Text style={styles.item}>MacKinnon, J. G. and White, H. (1985). Some heteroskedasticity-consistent covariance matrix estimators with improved finite sample properties. Journal of Econometrics, 29(3), 305–325.</Text>
-          <Text style={styles.item}>NIST Statistical Reference Datasets (StRD), linear regression: certified values for checking least-squares software.</Text>
+          <Text style={styles.item}>
+            Fieller, E. C. (1954). Some problems in interval estimation. Journal of the Royal Statistical Society,
+            Series B, 16(2), 175–185.
+          </Text>
+          <Text style={styles.item}>
+            Lind, J. T. and Mehlum, H. (2010). With or without U? The appropriate test for a U-shaped relationship.
+            Oxford Bulletin of Economics and Statistics, 72(1), 109–118.
+          </Text>
+          <Text style={styles.item}>
+            Newey, W. K. and West, K. D. (1987). A simple, positive semi-definite, heteroskedasticity and
+            autocorrelation consistent covariance matrix. Econometrica, 55(3), 703–708.
+          </Text>
+          <Text style={styles.item}>
+            MacKinnon, J. G. and White, H. (1985). Some heteroskedasticity-consistent covariance matrix estimators with
+            improved finite sample properties. Journal of Econometrics, 29(3), 305–325.
+          </Text>
+          <Text style={styles.item}>
+            NIST Statistical Reference Datasets (StRD), linear regression: certified values for checking least-squares
+            software.
+          </Text>
         </View>
       </View>
     </ScrollView>
@@ -160,6 +181,12 @@ const styles = StyleSheet.create({
   item: { ...type.body, color: colors.text, flexShrink: 1 },
   term: { fontFamily: type.bodyStrong.fontFamily },
   standing: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
-  formula: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, borderRadius: radius.md, padding: space.md },
+  formula: {
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.md,
+    padding: space.md,
+  },
   formulaText: { ...type.numeric, color: colors.text },
 });

@@ -43,7 +43,8 @@ export function InvitationDays({ days, onSave }: InvitationDaysProps) {
   return (
     <View style={styles.wrap} testID="invitation-days">
       <Text style={styles.note}>
-        An invitation not used in time lapses and shows as expired below; re-send it to renew it. The first admin and the demo accounts never lapse.
+        An invitation not used in time lapses and shows as expired below; re-send it to renew it. The first admin and
+        the demo accounts never lapse.
       </Text>
       <View style={styles.row}>
         <View style={styles.field}>
@@ -58,7 +59,15 @@ export function InvitationDays({ days, onSave }: InvitationDaysProps) {
             testID="invitation-days-input"
           />
         </View>
-        <Button label="Save" variant="outline" busy={state.busy} busyLabel="Saving…" disabled={days === null} onPress={() => void save()} testID="invitation-days-save" />
+        <Button
+          label="Save"
+          variant="outline"
+          busy={state.busy}
+          busyLabel="Saving…"
+          disabled={days === null}
+          onPress={() => void save()}
+          testID="invitation-days-save"
+        />
       </View>
       <MutationNotice error={state.error} success={state.success} testID="invitation-days" />
     </View>

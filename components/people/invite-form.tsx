@@ -33,8 +33,12 @@ export function InviteForm({ onInvite }: { onInvite: (input: InviteInput) => Pro
       const a = await onInvite({ email: address, role, ...(name.trim() ? { name: name.trim() } : {}) });
       setState({
         busy: false,
-        success: a.mail.sent ? `Invited ${a.user.email} as ${ROLE_LABELS[a.user.role].toLowerCase()}; the invitation e-mail is on its way.` : undefined,
-        error: a.mail.sent ? undefined : new Error(a.mail.error ?? 'The invitation is saved but the e-mail could not be sent.'),
+        success: a.mail.sent
+          ? `Invited ${a.user.email} as ${ROLE_LABELS[a.user.role].toLowerCase()}; the invitation e-mail is on its way.`
+          : undefined,
+        error: a.mail.sent
+          ? undefined
+          : new Error(a.mail.error ?? 'The invitation is saved but the e-mail could not be sent.'),
       });
       if (a.mail.sent) {
         setEmail('');
@@ -50,10 +54,26 @@ export function InviteForm({ onInvite }: { onInvite: (input: InviteInput) => Pro
     <View style={styles.box} testID="invite-form">
       <View style={styles.row}>
         <View style={styles.cell}>
-          <TextField label="E-mail address" value={email} onChangeText={setEmail} keyboardType="email-address" error={problems.email} placeholder="name@agency.example" testID="invite-email" onSubmitEditing={() => void submit()} />
+          <TextField
+            label="E-mail address"
+            value={email}
+            onChangeText={setEmail}
+            keyboardType="email-address"
+            error={problems.email}
+            placeholder="name@agency.example"
+            testID="invite-email"
+            onSubmitEditing={() => void submit()}
+          />
         </View>
         <View style={styles.cell}>
-          <TextField label="Name (optional)" value={name} onChangeText={setName} autoCapitalize="words" maxLength={120} testID="invite-name" />
+          <TextField
+            label="Name (optional)"
+            value={name}
+            onChangeText={setName}
+            autoCapitalize="words"
+            maxLength={120}
+            testID="invite-name"
+          />
         </View>
       </View>
       <ChoiceGroup
@@ -63,7 +83,13 @@ export function InviteForm({ onInvite }: { onInvite: (input: InviteInput) => Pro
         onChange={setRole}
         testID="invite-role"
       />
-      <Button label="Send invitation" busy={state.busy} busyLabel="Sending…" onPress={() => void submit()} testID="invite-send" />
+      <Button
+        label="Send invitation"
+        busy={state.busy}
+        busyLabel="Sending…"
+        onPress={() => void submit()}
+        testID="invite-send"
+      />
       <MutationNotice error={state.error} success={state.success} testID="invite" />
     </View>
   );

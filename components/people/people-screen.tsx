@@ -31,7 +31,17 @@ export type PeopleScreenProps = {
 type Show = 'current' | 'all' | 'deactivated';
 
 /** Who has access: invite people with a role, re-send lapsed invitations, change roles, reset a Google identity, switch people off. */
-export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResend, onResetIdentity, invitationDays, onInvitationDays }: PeopleScreenProps) {
+export function PeopleScreen({
+  people,
+  selfId,
+  demo,
+  onInvite,
+  onChange,
+  onResend,
+  onResetIdentity,
+  invitationDays,
+  onInvitationDays,
+}: PeopleScreenProps) {
   const [show, setShow] = useState<Show>('current');
   const rows = useMemo(() => {
     const all = people.data ?? [];
@@ -39,7 +49,11 @@ export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResen
     return all.filter((p) => (show === 'deactivated' ? !p.active : p.active));
   }, [people.data, show]);
   return (
-    <Page title="People" intro="Everyone with access to Crestwatch and their role. Every change here is written to the audit log." testID="people-screen">
+    <Page
+      title="People"
+      intro="Everyone with access to Crestwatch and their role. Every change here is written to the audit log."
+      testID="people-screen"
+    >
       <Section title="Invite someone">
         <InviteForm onInvite={onInvite} />
         {demo ? (
@@ -48,7 +62,9 @@ export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResen
             <TextLink href="/mailbox" label="Read them in the mailbox" />
           </View>
         ) : null}
-        {onInvitationDays && invitationDays !== undefined ? <InvitationDays days={invitationDays} onSave={onInvitationDays} /> : null}
+        {onInvitationDays && invitationDays !== undefined ? (
+          <InvitationDays days={invitationDays} onSave={onInvitationDays} />
+        ) : null}
       </Section>
       <Section title="People with access">
         <ChoiceGroup
@@ -64,7 +80,13 @@ export function PeopleScreen({ people, selfId, demo, onInvite, onChange, onResen
         {people.status === 'pending' ? (
           <Skeleton width="100%" height={160} />
         ) : people.status === 'error' || !people.data ? (
-          <QueryErrorPanel what="the people" error={people.error} retrying={people.isFetching} onRetry={() => void people.refetch()} testID="people-error" />
+          <QueryErrorPanel
+            what="the people"
+            error={people.error}
+            retrying={people.isFetching}
+            onRetry={() => void people.refetch()}
+            testID="people-error"
+          />
         ) : rows.length === 0 ? (
           <StatePanel testID="people-empty" title="Nobody here" message="No one matches this choice." />
         ) : (

@@ -57,7 +57,11 @@ export function PersonCard({ person, isSelf, onChange, onResend, onResetIdentity
   };
   const act = (what: string, patch: PersonPatch, success: string) => run(what, () => onChange(patch), success);
   // Only a real invitation (sent by e-mail) can be re-sent: the first admin and demo accounts have none.
-  const pending = person.active && !person.lastSignInAt && person.invitedAt !== null && (person.status === 'invited' || person.status === 'expired');
+  const pending =
+    person.active &&
+    !person.lastSignInAt &&
+    person.invitedAt !== null &&
+    (person.status === 'invited' || person.status === 'expired');
   const status = STATUS[person.status];
   const who = person.name || person.email;
   return (
@@ -80,7 +84,11 @@ export function PersonCard({ person, isSelf, onChange, onResend, onResetIdentity
         choices={ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }))}
         value={person.role}
         disabled={!person.active || state.busy !== null}
-        onChange={(r) => (r === person.role ? undefined : void act('role', { role: r }, `${who} is now ${ROLE_LABELS[r].toLowerCase()}.`))}
+        onChange={(r) =>
+          r === person.role
+            ? undefined
+            : void act('role', { role: r }, `${who} is now ${ROLE_LABELS[r].toLowerCase()}.`)
+        }
         testID={`person-role-${person.id}`}
       />
       <View style={styles.actions}>
@@ -103,7 +111,13 @@ export function PersonCard({ person, isSelf, onChange, onResend, onResetIdentity
             variant="danger"
             busy={state.busy === 'identity'}
             busyLabel="Resetting…"
-            onConfirm={() => void run('identity', onResetIdentity, `The next Google account that signs in as ${person.email} is kept for ${who}.`)}
+            onConfirm={() =>
+              void run(
+                'identity',
+                onResetIdentity,
+                `The next Google account that signs in as ${person.email} is kept for ${who}.`,
+              )
+            }
             testID={`person-reset-identity-${person.id}`}
           />
         ) : null}
@@ -148,7 +162,13 @@ const styles = StyleSheet.create({
     padding: space.lg,
   },
   inactive: { backgroundColor: colors.background, borderStyle: 'dashed' },
-  head: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', alignItems: 'flex-start', gap: space.sm },
+  head: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    justifyContent: 'space-between',
+    alignItems: 'flex-start',
+    gap: space.sm,
+  },
   names: { flexShrink: 1, gap: space.xxs },
   name: { ...type.bodyStrong, color: colors.text },
   email: { ...type.caption, color: colors.textMuted },

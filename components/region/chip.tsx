@@ -28,7 +28,12 @@ export function Chip({ label, on, onPress, leading, accessibilityLabel, kind = '
       aria-checked={on}
       accessibilityLabel={accessibilityLabel ?? label}
       onPress={onPress}
-      style={(state: InteractionState) => [styles.chip, on && styles.on, state.hovered && !on && styles.hover, focusOutline(state)]}
+      style={(state: InteractionState) => [
+        styles.chip,
+        on && styles.on,
+        state.hovered && !on && styles.hover,
+        focusOutline(state),
+      ]}
     >
       {leading}
       <Text style={[styles.label, on && styles.onLabel]} numberOfLines={1}>

@@ -30,7 +30,15 @@ export function ListControls({ sort, onSort, shapes, onToggleShape }: ListContro
         </Text>
         <View style={styles.options} role="radiogroup" aria-labelledby="sort-label">
           {SORTS.map((key) => (
-            <Chip key={key} kind="radio" testID={`sort-${key}`} label={SORT_SHORT[key]} accessibilityLabel={`Sort by ${SORT_LABEL[key]}`} on={sort === key} onPress={() => onSort(key)} />
+            <Chip
+              key={key}
+              kind="radio"
+              testID={`sort-${key}`}
+              label={SORT_SHORT[key]}
+              accessibilityLabel={`Sort by ${SORT_LABEL[key]}`}
+              on={sort === key}
+              onPress={() => onSort(key)}
+            />
           ))}
         </View>
         <Pressable
@@ -49,7 +57,13 @@ export function ListControls({ sort, onSort, shapes, onToggleShape }: ListContro
       {open ? (
         <View style={styles.shapes} role="group" aria-label="Filter by shape">
           {SHAPES.map((s) => (
-            <Chip key={s} testID={`shape-filter-${s}`} label={SHAPE_LABEL[s]} on={shapes.includes(s)} onPress={() => onToggleShape(s)} />
+            <Chip
+              key={s}
+              testID={`shape-filter-${s}`}
+              label={SHAPE_LABEL[s]}
+              on={shapes.includes(s)}
+              onPress={() => onToggleShape(s)}
+            />
           ))}
         </View>
       ) : null}
@@ -62,7 +76,12 @@ const styles = StyleSheet.create({
   line: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
   label: { ...type.label, color: colors.textMuted },
   options: { flexDirection: 'row', gap: space.xs },
-  disclosure: { minHeight: layout.touchTarget - 8, justifyContent: 'center', paddingHorizontal: space.sm, marginLeft: 'auto' },
+  disclosure: {
+    minHeight: layout.touchTarget - 8,
+    justifyContent: 'center',
+    paddingHorizontal: space.sm,
+    marginLeft: 'auto',
+  },
   disclosureText: { ...type.label, color: colors.link, textDecorationLine: 'underline' },
   shapes: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
 });

@@ -65,7 +65,10 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
         onPanResponderGrant: (e) => {
           moved.current = false;
           const t = e.nativeEvent.touches;
-          start.current = { view: viewRef.current, dist: t && t.length > 1 ? Math.hypot(t[0].pageX - t[1].pageX, t[0].pageY - t[1].pageY) : null };
+          start.current = {
+            view: viewRef.current,
+            dist: t && t.length > 1 ? Math.hypot(t[0].pageX - t[1].pageX, t[0].pageY - t[1].pageY) : null,
+          };
         },
         onPanResponderMove: (e, g) => {
           moved.current = true;
@@ -126,7 +129,9 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
   };
 
   const on = (s: Standing) => shown.length === 0 || shown.includes(s);
-  const marks = scene.districts.filter((d) => (d.box[2] - d.box[0]) * view.k >= MARK_ROOM && (d.box[3] - d.box[1]) * view.k >= MARK_ROOM && on(d.standing));
+  const marks = scene.districts.filter(
+    (d) => (d.box[2] - d.box[0]) * view.k >= MARK_ROOM && (d.box[3] - d.box[1]) * view.k >= MARK_ROOM && on(d.standing),
+  );
   const markSize = 12;
 
   return (
@@ -137,21 +142,47 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
             moved.current = false;
           }}
           onPress={onPress}
-          style={StyleSheet.absoluteFill} accessible={false} testID={testID ? `${testID}-surface` : undefined}>
+          style={StyleSheet.absoluteFill}
+          accessible={false}
+          testID={testID ? `${testID}-surface` : undefined}
+        >
           <Svg width={w} height={h} viewBox={`0 0 ${w} ${h}`} aria-hidden>
             <G transform={`translate(${view.tx} ${view.ty}) scale(${view.k})`}>
               {scene.fills.map((f) => (
-                <Path key={f.standing} d={f.d} fill={on(f.standing) ? mapFill[f.standing] : mapInk.hidden} fillRule="evenodd" testID={`map-fill-${f.standing}`} />
+                <Path
+                  key={f.standing}
+                  d={f.d}
+                  fill={on(f.standing) ? mapFill[f.standing] : mapInk.hidden}
+                  fillRule="evenodd"
+                  testID={`map-fill-${f.standing}`}
+                />
               ))}
-              <Path d={scene.borders} fill="none" stroke={mapInk.border} strokeWidth={1.2 / view.k} strokeLinejoin="round" />
-              {scene.highlight ? <Path d={scene.highlight} fill="none" stroke={mapInk.highlight} strokeWidth={2.4 / view.k} strokeLinejoin="round" /> : null}
+              <Path
+                d={scene.borders}
+                fill="none"
+                stroke={mapInk.border}
+                strokeWidth={1.2 / view.k}
+                strokeLinejoin="round"
+              />
+              {scene.highlight ? (
+                <Path
+                  d={scene.highlight}
+                  fill="none"
+                  stroke={mapInk.highlight}
+                  strokeWidth={2.4 / view.k}
+                  strokeLinejoin="round"
+                />
+              ) : null}
             </G>
           </Svg>
           {marks.map((d) => (
             <View
               key={d.code}
               pointerEvents="none"
-              style={[styles.mark, { left: d.x * view.k + view.tx - (markSize + 2) / 2, top: d.y * view.k + view.ty - (markSize + 2) / 2 }]}
+              style={[
+                styles.mark,
+                { left: d.x * view.k + view.tx - (markSize + 2) / 2, top: d.y * view.k + view.ty - (markSize + 2) / 2 },
+              ]}
               testID={`map-mark-${d.code}`}
             >
               <StandingMark standing={d.standing} size={markSize} />
@@ -168,16 +199,38 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
   );
 }
 
-function ZoomButton({ label, a11y, onPress, testID }: { label: string; a11y: string; onPress: () => void; testID: string }) {
+function ZoomButton({
+  label,
+  a11y,
+  onPress,
+  testID,
+}: {
+  label: string;
+  a11y: string;
+  onPress: () => void;
+  testID: string;
+}) {
   return (
-    <Pressable accessibilityRole="button" accessibilityLabel={a11y} onPress={onPress} style={styles.button} testID={testID}>
+    <Pressable
+      accessibilityRole="button"
+      accessibilityLabel={a11y}
+      onPress={onPress}
+      style={styles.button}
+      testID={testID}
+    >
       <Text style={styles.buttonText}>{label}</Text>
     </Pressable>
   );
 }
 
 const styles = StyleSheet.create({
-  frame: { overflow: 'hidden', backgroundColor: mapInk.sea, borderRadius: radius.md, borderWidth: 1, borderColor: colors.border },
+  frame: {
+    overflow: 'hidden',
+    backgroundColor: mapInk.sea,
+    borderRadius: radius.md,
+    borderWidth: 1,
+    borderColor: colors.border,
+  },
   mark: { position: 'absolute' },
   zoom: { position: 'absolute', right: space.sm, top: space.sm, gap: space.xs },
   button: {

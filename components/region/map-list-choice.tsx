@@ -45,7 +45,13 @@ export function MapListChoice({ value, onChange }: { value: RegionView; onChange
   return (
     <View style={styles.row} role="radiogroup" aria-label="Show the districts as">
       <Chip kind="radio" label="Map" on={value === 'map'} onPress={() => onChange('map')} testID="region-view-map" />
-      <Chip kind="radio" label="List" on={value === 'list'} onPress={() => onChange('list')} testID="region-view-list" />
+      <Chip
+        kind="radio"
+        label="List"
+        on={value === 'list'}
+        onPress={() => onChange('list')}
+        testID="region-view-list"
+      />
     </View>
   );
 }

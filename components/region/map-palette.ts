@@ -18,7 +18,9 @@ export const mapFill: Record<Standing, string> = {
   at_turn: isHex(standingColors.at_turn) ? tint(standingColors.at_turn, 0.55) : standingColors.at_turn,
   past_turn: isHex(standingColors.past_turn) ? tint(standingColors.past_turn, 0.55) : standingColors.past_turn,
   no_turn: isHex(standingColors.no_turn) ? tint(standingColors.no_turn, 0.7) : standingColors.no_turn,
-  not_estimable: isHex(standingColors.not_estimable) ? tint(standingColors.not_estimable, 0.8) : standingColors.not_estimable,
+  not_estimable: isHex(standingColors.not_estimable)
+    ? tint(standingColors.not_estimable, 0.8)
+    : standingColors.not_estimable,
 };
 
 export const mapInk = {

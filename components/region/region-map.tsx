@@ -45,7 +45,12 @@ export function RegionMap({ districts, maxWidth = 720 }: RegionMapProps) {
   const scene = useMemo(
     () =>
       fc && w > 0
-        ? buildMapScene({ collection: fc, standingOf: (code) => (byCode.has(code) ? standingOf(byCode.get(code)!) : 'not_estimable'), width: w, height: h })
+        ? buildMapScene({
+            collection: fc,
+            standingOf: (code) => (byCode.has(code) ? standingOf(byCode.get(code)!) : 'not_estimable'),
+            width: w,
+            height: h,
+          })
         : null,
     [fc, w, h, byCode],
   );
@@ -54,9 +59,13 @@ export function RegionMap({ districts, maxWidth = 720 }: RegionMapProps) {
   const counts: Record<Standing, number> = { approaching: 0, at_turn: 0, past_turn: 0, no_turn: 0, not_estimable: 0 };
   for (const d of scene?.districts ?? []) counts[d.standing] += 1;
   const summary = scene
-    ? `Map of ${plural(scene.districts.length, 'district')} coloured by standing: ${STANDINGS.filter((s) => counts[s] > 0)
+    ? `Map of ${plural(scene.districts.length, 'district')} coloured by standing: ${STANDINGS.filter(
+        (s) => counts[s] > 0,
+      )
         .map((s) => `${counts[s]} ${STANDING_LABEL[s].toLowerCase()}`)
-        .join(', ')}.${without.length ? ` ${plural(without.length, 'district')} without a boundary.` : ''} The list holds the same districts.`
+        .join(
+          ', ',
+        )}.${without.length ? ` ${plural(without.length, 'district')} without a boundary.` : ''} The list holds the same districts.`
     : '';
 
   const onLayout = (e: LayoutChangeEvent) => setWidth(Math.floor(e.nativeEvent.layout.width));
@@ -71,7 +80,12 @@ export function RegionMap({ districts, maxWidth = 720 }: RegionMapProps) {
           No district boundaries have been loaded yet: an analyst can load them as GeoJSON.
         </Text>
       ) : scene ? (
-        <MapCanvas scene={scene} shown={filter.standings} onOpen={(code) => router.push({ pathname: '/district/[code]', params: { code } })} testID="region-map-canvas" />
+        <MapCanvas
+          scene={scene}
+          shown={filter.standings}
+          onOpen={(code) => router.push({ pathname: '/district/[code]', params: { code } })}
+          testID="region-map-canvas"
+        />
       ) : (
         <View style={{ width: w || '100%', height: h || 240 }} testID="region-map-placeholder">
           <Skeleton width={w || 320} height={h || 240} />

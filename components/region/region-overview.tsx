@@ -11,7 +11,14 @@ import { colors, layout, radius, space, standingColors, type } from '@/component
 import { TextLink } from '@/components/ui/text-link';
 import type { RegionResponse } from '@/contracts/estimates';
 import { STANDINGS } from '@/contracts/estimates';
-import { formatLevel, intervalText, notBoundedText, SHAPE_LABEL, STANDING_LABEL, STANDING_MEANING } from '@/lib/estimate-words';
+import {
+  formatLevel,
+  intervalText,
+  notBoundedText,
+  SHAPE_LABEL,
+  STANDING_LABEL,
+  STANDING_MEANING,
+} from '@/lib/estimate-words';
 import { modelLineOfRun, runLine } from '@/lib/model-line';
 import { countByStanding, type RegionRow } from '@/lib/region-list';
 
@@ -43,7 +50,13 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
         {region.status === 'pending' ? (
           <Skeleton width={360} height={20} />
         ) : region.status === 'error' && !region.data ? (
-          <QueryErrorPanel what="the region" error={region.error} retrying={region.isFetching} onRetry={() => void region.refetch()} testID="region-error" />
+          <QueryErrorPanel
+            what="the region"
+            error={region.error}
+            retrying={region.isFetching}
+            onRetry={() => void region.refetch()}
+            testID="region-error"
+          />
         ) : run ? (
           <>
             <Text style={styles.meta} testID="region-run">
@@ -74,7 +87,8 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
         </View>
         {pooled ? (
           <Text style={styles.meta} testID="region-pooled">
-            Regional pooled curve (all districts, fixed effects): {pooled.shape ? SHAPE_LABEL[pooled.shape].toLowerCase() : 'no shape'}
+            Regional pooled curve (all districts, fixed effects):{' '}
+            {pooled.shape ? SHAPE_LABEL[pooled.shape].toLowerCase() : 'no shape'}
             {pooled.threshold !== null && pooled.threshold > 0
               ? `, turning point ${formatLevel(pooled.threshold)} per person (${pooled.fieller?.kind === 'bounded' ? intervalText('bounded', pooled.fieller.levelLo, pooled.fieller.levelHi) : notBoundedText(level)})`
               : ''}
@@ -82,7 +96,9 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
           </Text>
         ) : null}
         <View style={styles.links}>
-          {run ? <ExternalLink path={briefPdfPath.region()} label="Region brief (PDF)" testID="region-brief-link" /> : null}
+          {run ? (
+            <ExternalLink path={briefPdfPath.region()} label="Region brief (PDF)" testID="region-brief-link" />
+          ) : null}
           <TextLink href="/method" label="How Crestwatch estimates" />
         </View>
         <Text style={styles.hint}>Choose a district on the left to open its card.</Text>
@@ -95,14 +111,27 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
 const styles = StyleSheet.create({
   scroll: { flex: 1 },
   wrap: { padding: space.xl, gap: space.xl, maxWidth: layout.detailMaxWidth },
-  card: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, borderRadius: radius.lg, padding: space.xl, gap: space.md },
+  card: {
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.lg,
+    padding: space.xl,
+    gap: space.md,
+  },
   title: { ...type.heading, color: colors.text },
   meta: { ...type.body, color: colors.text },
   table: { gap: space.xs, borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.md },
   countRow: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: 32 },
   countHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm, width: 150 },
   countLabel: { ...type.bodyStrong },
-  countValue: { ...type.numeric, fontFamily: type.bodyStrong.fontFamily, color: colors.text, width: 48, textAlign: 'right' },
+  countValue: {
+    ...type.numeric,
+    fontFamily: type.bodyStrong.fontFamily,
+    color: colors.text,
+    width: 48,
+    textAlign: 'right',
+  },
   countMeaning: { ...type.caption, color: colors.textMuted, flex: 1 },
   links: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg, alignItems: 'center' },
   hint: { ...type.body, color: colors.textMuted },

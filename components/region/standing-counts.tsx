@@ -16,18 +16,23 @@ export type StandingCountsProps = {
 /** Districts per standing, at the top of the region list; each count also filters the list. */
 export function StandingCounts({ counts, selected, onToggle }: StandingCountsProps) {
   return (
-    <View style={styles.row} role="group" aria-label="Districts per standing; choose one or more to filter" testID="standing-counts">
-        {STANDINGS.map((s) => (
-          <Chip
-            key={s}
-            testID={`standing-filter-${s}`}
-            label={`${STANDING_LABEL[s]} ${counts[s]}`}
-            accessibilityLabel={`${STANDING_LABEL[s]}: ${counts[s]} ${counts[s] === 1 ? 'district' : 'districts'}`}
-            on={selected.includes(s)}
-            onPress={() => onToggle(s)}
-            leading={<StandingMark standing={s} size={10} />}
-          />
-        ))}
+    <View
+      style={styles.row}
+      role="group"
+      aria-label="Districts per standing; choose one or more to filter"
+      testID="standing-counts"
+    >
+      {STANDINGS.map((s) => (
+        <Chip
+          key={s}
+          testID={`standing-filter-${s}`}
+          label={`${STANDING_LABEL[s]} ${counts[s]}`}
+          accessibilityLabel={`${STANDING_LABEL[s]}: ${counts[s]} ${counts[s] === 1 ? 'district' : 'districts'}`}
+          on={selected.includes(s)}
+          onPress={() => onToggle(s)}
+          leading={<StandingMark standing={s} size={10} />}
+        />
+      ))}
     </View>
   );
 }

@@ -16,10 +16,24 @@ export function StandingMark({ standing, size = 12 }: { standing: Standing; size
   let mark;
   switch (standing) {
     case 'approaching':
-      mark = <View style={[styles.triangle, { borderLeftWidth: half, borderRightWidth: half, borderBottomWidth: size, borderBottomColor: color }]} />;
+      mark = (
+        <View
+          style={[
+            styles.triangle,
+            { borderLeftWidth: half, borderRightWidth: half, borderBottomWidth: size, borderBottomColor: color },
+          ]}
+        />
+      );
       break;
     case 'past_turn':
-      mark = <View style={[styles.triangle, { borderLeftWidth: half, borderRightWidth: half, borderTopWidth: size, borderTopColor: color }]} />;
+      mark = (
+        <View
+          style={[
+            styles.triangle,
+            { borderLeftWidth: half, borderRightWidth: half, borderTopWidth: size, borderTopColor: color },
+          ]}
+        />
+      );
       break;
     case 'at_turn': {
       const side = Math.round(size * 0.72);
@@ -27,7 +41,11 @@ export function StandingMark({ standing, size = 12 }: { standing: Standing; size
       break;
     }
     case 'no_turn':
-      mark = <View style={{ width: size, height: Math.max(3, Math.round(size / 3)), backgroundColor: color, borderRadius: 1 }} />;
+      mark = (
+        <View
+          style={{ width: size, height: Math.max(3, Math.round(size / 3)), backgroundColor: color, borderRadius: 1 }}
+        />
+      );
       break;
     default:
       mark = <View style={{ width: size, height: size, borderRadius: half, borderWidth: 2, borderColor: color }} />;
@@ -40,7 +58,15 @@ export function StandingMark({ standing, size = 12 }: { standing: Standing; size
 }
 
 /** The mark and the standing's word, side by side. */
-export function StandingBadge({ standing, size = 12, compact = false }: { standing: Standing; size?: number; compact?: boolean }) {
+export function StandingBadge({
+  standing,
+  size = 12,
+  compact = false,
+}: {
+  standing: Standing;
+  size?: number;
+  compact?: boolean;
+}) {
   return (
     <View style={styles.badge}>
       <StandingMark standing={standing} size={size} />
@@ -53,7 +79,13 @@ export function StandingBadge({ standing, size = 12, compact = false }: { standi
 
 const styles = StyleSheet.create({
   box: { alignItems: 'center', justifyContent: 'center' },
-  triangle: { width: 0, height: 0, borderLeftColor: 'transparent', borderRightColor: 'transparent', borderStyle: 'solid' },
+  triangle: {
+    width: 0,
+    height: 0,
+    borderLeftColor: 'transparent',
+    borderRightColor: 'transparent',
+    borderStyle: 'solid',
+  },
   badge: { flexDirection: 'row', alignItems: 'center', gap: space.xs + space.xxs },
   word: { ...type.bodyStrong },
   compactWord: { ...type.label },

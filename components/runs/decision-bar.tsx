@@ -46,7 +46,8 @@ export function DecisionBar({ runId, state, onPublish, onDiscard }: DecisionBarP
     <View style={styles.bar} testID="decision">
       {canPublish ? (
         <Text style={styles.lead}>
-          Read the changes below. Publishing makes run #{runId} what officials see and sends the alerts its changes raise.
+          Read the changes below. Publishing makes run #{runId} what officials see and sends the alerts its changes
+          raise.
         </Text>
       ) : null}
       <View style={styles.buttons}>

@@ -6,19 +6,46 @@ import type { Diagnostics } from '@/contracts/runs';
 
 type Line = { key: string; test: string; stat: string; p: number | null; flagged: string };
 
-const f = (v: number | null | undefined, digits = 2) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits));
+const f = (v: number | null | undefined, digits = 2) =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits);
 const pText = (p: number | null) => (p === null ? 'p —' : p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`);
 
 /** The residual checks of a district fit, each with its statistic, p-value and what a small p means. */
 export function DiagnosticsList({ diagnostics, alpha }: { diagnostics: Diagnostics; alpha: number }) {
   const bg = diagnostics.breuschGodfrey[0];
   const lines: Line[] = [
-    { key: 'dw', test: 'Durbin–Watson', stat: `d = ${f(diagnostics.durbinWatson.statistic)}`, p: diagnostics.durbinWatson.pValue, flagged: 'serial correlation' },
+    {
+      key: 'dw',
+      test: 'Durbin–Watson',
+      stat: `d = ${f(diagnostics.durbinWatson.statistic)}`,
+      p: diagnostics.durbinWatson.pValue,
+      flagged: 'serial correlation',
+    },
     ...(bg
-      ? [{ key: 'bg', test: `Breusch–Godfrey (order ${bg.order})`, stat: `LM = ${f(bg.statistic)}`, p: bg.pValue, flagged: 'serial correlation' }]
+      ? [
+          {
+            key: 'bg',
+            test: `Breusch–Godfrey (order ${bg.order})`,
+            stat: `LM = ${f(bg.statistic)}`,
+            p: bg.pValue,
+            flagged: 'serial correlation',
+          },
+        ]
       : []),
-    { key: 'bp', test: 'Breusch–Pagan', stat: `LM = ${f(diagnostics.breuschPagan.statistic)}`, p: diagnostics.breuschPagan.pValue, flagged: 'changing variance' },
-    { key: 'jb', test: 'Jarque–Bera', stat: `JB = ${f(diagnostics.jarqueBera.statistic)}`, p: diagnostics.jarqueBera.pValue, flagged: 'non-normal residuals' },
+    {
+      key: 'bp',
+      test: 'Breusch–Pagan',
+      stat: `LM = ${f(diagnostics.breuschPagan.statistic)}`,
+      p: diagnostics.breuschPagan.pValue,
+      flagged: 'changing variance',
+    },
+    {
+      key: 'jb',
+      test: 'Jarque–Bera',
+      stat: `JB = ${f(diagnostics.jarqueBera.statistic)}`,
+      p: diagnostics.jarqueBera.pValue,
+      flagged: 'non-normal residuals',
+    },
   ];
   return (
     <View style={styles.wrap} testID="diagnostics">
@@ -32,13 +59,18 @@ export function DiagnosticsList({ diagnostics, alpha }: { diagnostics: Diagnosti
                 {l.stat}, {pText(l.p)}
               </Text>
             </View>
-            {hit ? <Pill label={`Sign of ${l.flagged}`} tone="warning" /> : <Pill label="No sign at α" tone="neutral" />}
+            {hit ? (
+              <Pill label={`Sign of ${l.flagged}`} tone="warning" />
+            ) : (
+              <Pill label="No sign at α" tone="neutral" />
+            )}
           </View>
         );
       })}
       {diagnostics.largestLeverage ? (
         <Text style={styles.stat}>
-          Most influential year: {diagnostics.largestLeverage.year} (leverage {f(diagnostics.largestLeverage.value, 3)}).
+          Most influential year: {diagnostics.largestLeverage.year} (leverage {f(diagnostics.largestLeverage.value, 3)}
+          ).
         </Text>
       ) : null}
     </View>

@@ -20,14 +20,30 @@ const VARIANT_NAMES: Record<string, string> = { main: 'This run’s spec', ...VA
 const VARIANT_ORDER = ['main', 'no_controls', 'cubic', 'last20', 'level'];
 
 const variantColumns: Column<RunEstimateRecord>[] = [
-  { key: 'variant', header: 'Fit', flex: 1.6, render: (r) => <Text style={cellText.strong}>{VARIANT_NAMES[r.variant] ?? r.variant}</Text> },
+  {
+    key: 'variant',
+    header: 'Fit',
+    flex: 1.6,
+    render: (r) => <Text style={cellText.strong}>{VARIANT_NAMES[r.variant] ?? r.variant}</Text>,
+  },
   {
     key: 'standing',
     header: 'Standing',
     flex: 1.4,
-    render: (r) => (r.status === 'not_estimable' ? <Text style={cellText.muted}>{r.reason?.message ?? 'not estimable'}</Text> : standingWord(r.standing.standing)),
+    render: (r) =>
+      r.status === 'not_estimable' ? (
+        <Text style={cellText.muted}>{r.reason?.message ?? 'not estimable'}</Text>
+      ) : (
+        standingWord(r.standing.standing)
+      ),
   },
-  { key: 'threshold', header: 'Threshold', flex: 1, align: 'right', render: (r) => (r.threshold?.level == null ? '—' : formatLevel(r.threshold.level)) },
+  {
+    key: 'threshold',
+    header: 'Threshold',
+    flex: 1,
+    align: 'right',
+    render: (r) => (r.threshold?.level == null ? '—' : formatLevel(r.threshold.level)),
+  },
   { key: 'shape', header: 'Shape', flex: 1, render: (r) => shapeWord(r.shape?.shape) },
   { key: 'n', header: 'Years', width: 64, align: 'right', render: (r) => String(r.n) },
 ];
@@ -69,19 +85,37 @@ function Body({ review, row, code, onSaveNote, runClosed }: Omit<DistrictReviewP
     );
   }
   if (review.status === 'error' || !review.data) {
-    return <QueryErrorPanel what={`district ${code} in this run`} error={review.error} retrying={review.isFetching} onRetry={() => void review.refetch()} />;
+    return (
+      <QueryErrorPanel
+        what={`district ${code} in this run`}
+        error={review.error}
+        retrying={review.isFetching}
+        onRetry={() => void review.refetch()}
+      />
+    );
   }
   const d = review.data;
   const records = [...d.records].sort((a, b) => VARIANT_ORDER.indexOf(a.variant) - VARIANT_ORDER.indexOf(b.variant));
   const main = records.find((r) => r.variant === 'main') ?? null;
   return (
     <View style={styles.gap}>
-      {main ? <Headline main={main} row={row} /> : <Text style={styles.body}>No estimate for this district in the run.</Text>}
+      {main ? (
+        <Headline main={main} row={row} />
+      ) : (
+        <Text style={styles.body}>No estimate for this district in the run.</Text>
+      )}
       <Block title="Why the threshold moved">
         <MovementSplit movement={d.movement} previousRunId={d.previousRunId} />
       </Block>
       <Block title="Sensitivity">
-        <DataTable label={`Fits of ${code} under each variant`} columns={variantColumns} rows={records} rowKey={(r) => r.variant} minWidth={440} testID="variants" />
+        <DataTable
+          label={`Fits of ${code} under each variant`}
+          columns={variantColumns}
+          rows={records}
+          rowKey={(r) => r.variant}
+          minWidth={440}
+          testID="variants"
+        />
       </Block>
       {main?.diagnostics ? (
         <>
@@ -98,7 +132,11 @@ function Body({ review, row, code, onSaveNote, runClosed }: Omit<DistrictReviewP
         </Text>
       )}
       <Block title="Note">
-        {onSaveNote ? <NoteEditor note={d.note} onSave={onSaveNote} closed={runClosed} /> : <Text style={styles.muted}>{d.note?.note ?? 'No note.'}</Text>}
+        {onSaveNote ? (
+          <NoteEditor note={d.note} onSave={onSaveNote} closed={runClosed} />
+        ) : (
+          <Text style={styles.muted}>{d.note?.note ?? 'No note.'}</Text>
+        )}
       </Block>
     </View>
   );
@@ -112,14 +150,17 @@ function Headline({ main, row }: { main: RunEstimateRecord; row: ReviewRow | nul
     <View style={styles.headline}>
       <View style={styles.pills}>
         <Pill label={standingWord(main.standing.standing)} tone="info" testID="district-review-standing" />
-        {row?.change.standingChanged && row.previous ? <Pill label={`was ${standingWord(row.previous.standing)}`} tone="warning" /> : null}
+        {row?.change.standingChanged && row.previous ? (
+          <Pill label={`was ${standingWord(row.previous.standing)}`} tone="warning" />
+        ) : null}
         {main.status === 'substitute' ? <Pill label="Regional curve stands in" tone="neutral" /> : null}
       </View>
       <Text style={styles.body}>
         {t?.level != null
           ? `Threshold ${formatLevel(t.level)} per person; ${levelPercent(level)} Fieller interval ${interval}${t.intervalBounded ? '' : ` (${notBoundedText(level)})`}.`
           : 'No threshold in this fit.'}{' '}
-        Shape: {shapeWord(main.shape?.shape)}. {main.n} years{main.firstYear ? `, ${main.firstYear}–${main.lastYear}` : ''}.
+        Shape: {shapeWord(main.shape?.shape)}. {main.n} years
+        {main.firstYear ? `, ${main.firstYear}–${main.lastYear}` : ''}.
       </Text>
     </View>
   );

@@ -6,13 +6,20 @@ import type { Movement } from '@/contracts/runs';
 
 import { levelDelta, percentShort } from './run-words';
 
-const pct = (part: number | null, base: number | null) => (part === null || base === null || base === 0 ? null : (100 * part) / base);
+const pct = (part: number | null, base: number | null) =>
+  part === null || base === null || base === 0 ? null : (100 * part) / base;
 
 /**
  * Why the threshold moved: the previous spec refitted on this run's data splits the change
  * into the part the data revisions made and the part the spec change made (DOMAIN.md).
  */
-export function MovementSplit({ movement, previousRunId }: { movement: Movement | null; previousRunId: number | null }) {
+export function MovementSplit({
+  movement,
+  previousRunId,
+}: {
+  movement: Movement | null;
+  previousRunId: number | null;
+}) {
   if (!movement || previousRunId === null) {
     return (
       <Text style={styles.lead} testID="movement-none">
@@ -36,7 +43,8 @@ export function MovementSplit({ movement, previousRunId }: { movement: Movement 
   return (
     <View style={styles.wrap} testID="movement">
       <Text style={styles.lead}>
-        Threshold {formatLevel(previous)} → {formatLevel(current)} ({percentShort(pct(total, previous))}) against published run #{previousRunId}.
+        Threshold {formatLevel(previous)} → {formatLevel(current)} ({percentShort(pct(total, previous))}) against
+        published run #{previousRunId}.
       </Text>
       <View style={styles.parts}>
         <Part
@@ -44,26 +52,47 @@ export function MovementSplit({ movement, previousRunId }: { movement: Movement 
           title="Data revisions"
           value={levelDelta(dataPart)}
           share={percentShort(pct(dataPart, previous))}
-          line={mid === null ? 'The previous spec cannot be refitted on the new data.' : `The previous spec on the new data gives ${formatLevel(mid)}.`}
+          line={
+            mid === null
+              ? 'The previous spec cannot be refitted on the new data.'
+              : `The previous spec on the new data gives ${formatLevel(mid)}.`
+          }
         />
         <Part
           testID="movement-spec"
           title="Spec change"
           value={movement.specChanged ? levelDelta(specPart) : '0'}
           share={movement.specChanged ? percentShort(pct(specPart, previous)) : 'same spec'}
-          line={movement.specChanged ? 'From refitting with this run’s spec instead of the previous one.' : 'Both runs used the same spec.'}
+          line={
+            movement.specChanged
+              ? 'From refitting with this run’s spec instead of the previous one.'
+              : 'Both runs used the same spec.'
+          }
         />
       </View>
       {movement.softwareChanged ? (
         <Text style={styles.note} testID="movement-software">
-          The software changed too (previous run: {movement.previousSoftware}); a small part of the move may come from that.
+          The software changed too (previous run: {movement.previousSoftware}); a small part of the move may come from
+          that.
         </Text>
       ) : null}
     </View>
   );
 }
 
-function Part({ title, value, share, line, testID }: { title: string; value: string; share: string; line: string; testID: string }) {
+function Part({
+  title,
+  value,
+  share,
+  line,
+  testID,
+}: {
+  title: string;
+  value: string;
+  share: string;
+  line: string;
+  testID: string;
+}) {
   return (
     <View style={styles.part} testID={testID}>
       <Text style={styles.partTitle}>{title}</Text>

@@ -22,14 +22,42 @@ export default function ResidualPlotSvg({ residuals, width, height }: ResidualPl
   return (
     <Svg width={width} height={height}>
       <Line x1={PAD.left} x2={width - PAD.right} y1={PAD.top} y2={PAD.top} stroke={chartColors.grid} strokeWidth={1} />
-      <Line x1={PAD.left} x2={width - PAD.right} y1={PAD.top + innerH} y2={PAD.top + innerH} stroke={chartColors.grid} strokeWidth={1} />
-      <SvgText x={PAD.left - 6} y={PAD.top + 4} fontSize={11} fontFamily={fonts.regular} fill={chartColors.axis} textAnchor="end">
+      <Line
+        x1={PAD.left}
+        x2={width - PAD.right}
+        y1={PAD.top + innerH}
+        y2={PAD.top + innerH}
+        stroke={chartColors.grid}
+        strokeWidth={1}
+      />
+      <SvgText
+        x={PAD.left - 6}
+        y={PAD.top + 4}
+        fontSize={11}
+        fontFamily={fonts.regular}
+        fill={chartColors.axis}
+        textAnchor="end"
+      >
         {label(max)}
       </SvgText>
-      <SvgText x={PAD.left - 6} y={zero + 4} fontSize={11} fontFamily={fonts.regular} fill={chartColors.axis} textAnchor="end">
+      <SvgText
+        x={PAD.left - 6}
+        y={zero + 4}
+        fontSize={11}
+        fontFamily={fonts.regular}
+        fill={chartColors.axis}
+        textAnchor="end"
+      >
         0
       </SvgText>
-      <SvgText x={PAD.left - 6} y={PAD.top + innerH + 4} fontSize={11} fontFamily={fonts.regular} fill={chartColors.axis} textAnchor="end">
+      <SvgText
+        x={PAD.left - 6}
+        y={PAD.top + innerH + 4}
+        fontSize={11}
+        fontFamily={fonts.regular}
+        fill={chartColors.axis}
+        textAnchor="end"
+      >
         {label(-max)}
       </SvgText>
       <G>
@@ -55,7 +83,14 @@ export default function ResidualPlotSvg({ residuals, width, height }: ResidualPl
         </SvgText>
       ) : null}
       {last !== undefined ? (
-        <SvgText x={width - PAD.right} y={height - 6} fontSize={11} fontFamily={fonts.regular} fill={chartColors.axis} textAnchor="end">
+        <SvgText
+          x={width - PAD.right}
+          y={height - 6}
+          fontSize={11}
+          fontFamily={fonts.regular}
+          fill={chartColors.axis}
+          textAnchor="end"
+        >
           {last}
         </SvgText>
       ) : null}

@@ -97,7 +97,13 @@ export function ReviewTable({ runId, rows, previousRunId, shiftPercent, selected
       width: 96,
       align: 'right',
       render: (r) => (
-        <Text style={r.change.thresholdPercent !== null && Math.abs(r.change.thresholdPercent) > shiftPercent ? cellText.strong : cellText.value}>
+        <Text
+          style={
+            r.change.thresholdPercent !== null && Math.abs(r.change.thresholdPercent) > shiftPercent
+              ? cellText.strong
+              : cellText.value
+          }
+        >
           {percentShort(r.change.thresholdPercent)}
         </Text>
       ),
@@ -125,7 +131,9 @@ export function ReviewTable({ runId, rows, previousRunId, shiftPercent, selected
       flex: 1.2,
       render: (r) => (
         <View style={styles.stack}>
-          <Text style={cellText.value}>{r.uTestRejects === null ? '—' : r.uTestRejects ? 'confirms a turn' : 'no turn shown'}</Text>
+          <Text style={cellText.value}>
+            {r.uTestRejects === null ? '—' : r.uTestRejects ? 'confirms a turn' : 'no turn shown'}
+          </Text>
           <Changed on={r.change.significanceChanged} label="flipped" />
         </View>
       ),
@@ -143,7 +151,13 @@ export function ReviewTable({ runId, rows, previousRunId, shiftPercent, selected
       <View style={styles.controls}>
         <ChoiceGroup label="Show" choices={REVIEW_FILTERS} value={filter} onChange={setFilter} testID="review-filter" />
         <View style={styles.search}>
-          <TextField label="Find a district" value={query} onChangeText={setQuery} placeholder="Name or code" testID="review-search" />
+          <TextField
+            label="Find a district"
+            value={query}
+            onChangeText={setQuery}
+            placeholder="Name or code"
+            testID="review-search"
+          />
         </View>
       </View>
       <Text style={styles.count} accessibilityLiveRegion="polite" testID="review-count">

@@ -37,7 +37,11 @@ export function RunFacts({ run }: { run: RunView }) {
         {run.publishedAt ? <Fact label="Published" value={formatDateTime(run.publishedAt)} /> : null}
         <Fact
           label="Data version"
-          value={run.dataVersion === null ? 'not read yet' : `${run.dataVersion}${run.dataHash ? ` · ${run.dataHash.slice(0, 12)}…` : ''}`}
+          value={
+            run.dataVersion === null
+              ? 'not read yet'
+              : `${run.dataVersion}${run.dataHash ? ` · ${run.dataHash.slice(0, 12)}…` : ''}`
+          }
         />
         {run.dataRows !== null ? <Fact label="Rows read" value={run.dataRows.toLocaleString('en-GB')} /> : null}
         <Fact label="Software" value={run.softwareVersion} />
@@ -61,8 +65,12 @@ export function RunFacts({ run }: { run: RunView }) {
       {run.reproduction ? (
         <Text style={styles.line} testID="run-reproduction">
           Reproduces run #{run.reproduction.of}:{' '}
-          {run.reproduction.identical ? 'identical to the last digit.' : `${run.reproduction.differences} estimates differ.`}
-          {run.reproduction.softwareChanged ? ` Software changed from version ${run.reproduction.originalSoftware} to ${run.softwareVersion}.` : ''}
+          {run.reproduction.identical
+            ? 'identical to the last digit.'
+            : `${run.reproduction.differences} estimates differ.`}
+          {run.reproduction.softwareChanged
+            ? ` Software changed from version ${run.reproduction.originalSoftware} to ${run.softwareVersion}.`
+            : ''}
         </Text>
       ) : null}
       {run.reproduction?.changedAnswers?.length ? (
@@ -71,8 +79,12 @@ export function RunFacts({ run }: { run: RunView }) {
           {run.reproduction.changedAnswers.map((c) => (
             <Text key={c.code} style={styles.line}>
               {c.name} ({c.code}): {c.fields.join(', ')}
-              {c.before && c.after && c.before.standing !== c.after.standing ? ` — ${STANDING_LABEL[c.before.standing as Standing] ?? c.before.standing} → ${STANDING_LABEL[c.after.standing as Standing] ?? c.after.standing}` : ''}
-              {c.before?.threshold != null && c.after?.threshold != null && c.fields.includes('threshold') ? ` — threshold ${formatLevel(c.before.threshold)} → ${formatLevel(c.after.threshold)}` : ''}
+              {c.before && c.after && c.before.standing !== c.after.standing
+                ? ` — ${STANDING_LABEL[c.before.standing as Standing] ?? c.before.standing} → ${STANDING_LABEL[c.after.standing as Standing] ?? c.after.standing}`
+                : ''}
+              {c.before?.threshold != null && c.after?.threshold != null && c.fields.includes('threshold')
+                ? ` — threshold ${formatLevel(c.before.threshold)} → ${formatLevel(c.after.threshold)}`
+                : ''}
             </Text>
           ))}
         </View>

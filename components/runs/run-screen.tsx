@@ -37,13 +37,28 @@ export type RunScreenProps = {
 export function RunScreen(props: RunScreenProps) {
   const { runId } = props;
   return (
-    <Page title={`Run #${runId}`} actions={<TextLink href="/runs" label="All runs" leading="← " />} fill={props.wide} testID="run-screen">
+    <Page
+      title={`Run #${runId}`}
+      actions={<TextLink href="/runs" label="All runs" leading="← " />}
+      fill={props.wide}
+      testID="run-screen"
+    >
       <RunBody {...props} />
     </Page>
   );
 }
 
-function RunBody({ runId, selectedCode, wide, run, review, district, onPublish, onDiscard, onSaveNote }: RunScreenProps) {
+function RunBody({
+  runId,
+  selectedCode,
+  wide,
+  run,
+  review,
+  district,
+  onPublish,
+  onDiscard,
+  onSaveNote,
+}: RunScreenProps) {
   if (run.status === 'pending') {
     return (
       <View style={styles.gap} accessible accessibilityLabel="Loading the run">
@@ -55,12 +70,24 @@ function RunBody({ runId, selectedCode, wide, run, review, district, onPublish, 
   if (run.status === 'error' || !run.data) {
     if (run.error instanceof ApiError && run.error.code === 'not_found') {
       return (
-        <StatePanel testID="run-not-found" title={`No run #${runId}`} message="The number may be mistyped; the list shows every run.">
+        <StatePanel
+          testID="run-not-found"
+          title={`No run #${runId}`}
+          message="The number may be mistyped; the list shows every run."
+        >
           <TextLink href="/runs" label="Go to the runs" />
         </StatePanel>
       );
     }
-    return <QueryErrorPanel what={`run #${runId}`} error={run.error} retrying={run.isFetching} onRetry={() => void run.refetch()} testID="run-error" />;
+    return (
+      <QueryErrorPanel
+        what={`run #${runId}`}
+        error={run.error}
+        retrying={run.isFetching}
+        onRetry={() => void run.refetch()}
+        testID="run-error"
+      />
+    );
   }
   const r = run.data;
   const active = r.state === 'queued' || r.state === 'running';
@@ -80,7 +107,10 @@ function RunBody({ runId, selectedCode, wide, run, review, district, onPublish, 
     />
   ) : wide ? (
     <View style={styles.hint}>
-      <Text style={styles.hintText}>Choose a district in the table to see its fits, why its threshold moved, its residual checks and plot, and to add a note.</Text>
+      <Text style={styles.hintText}>
+        Choose a district in the table to see its fits, why its threshold moved, its residual checks and plot, and to
+        add a note.
+      </Text>
     </View>
   ) : null;
 
@@ -88,10 +118,23 @@ function RunBody({ runId, selectedCode, wide, run, review, district, onPublish, 
   if (reviewable) {
     if (review.status === 'pending') reviewBlock = <Skeleton width="100%" height={320} />;
     else if (review.status === 'error' || !review.data)
-      reviewBlock = <QueryErrorPanel what="the review" error={review.error} retrying={review.isFetching} onRetry={() => void review.refetch()} />;
+      reviewBlock = (
+        <QueryErrorPanel
+          what="the review"
+          error={review.error}
+          retrying={review.isFetching}
+          onRetry={() => void review.refetch()}
+        />
+      );
     else
       reviewBlock = (
-        <ReviewTable runId={runId} rows={rows} previousRunId={review.data.previousRunId} shiftPercent={review.data.thresholdShiftPercent} selectedCode={selectedCode} />
+        <ReviewTable
+          runId={runId}
+          rows={rows}
+          previousRunId={review.data.previousRunId}
+          shiftPercent={review.data.thresholdShiftPercent}
+          selectedCode={selectedCode}
+        />
       );
   }
 
@@ -121,6 +164,12 @@ function RunBody({ runId, selectedCode, wide, run, review, district, onPublish, 
 
 const styles = StyleSheet.create({
   gap: { gap: space.xl },
-  hint: { borderWidth: 1, borderStyle: 'dashed', borderColor: colors.border, borderRadius: radius.lg, padding: space.lg },
+  hint: {
+    borderWidth: 1,
+    borderStyle: 'dashed',
+    borderColor: colors.border,
+    borderRadius: radius.lg,
+    padding: space.lg,
+  },
   hintText: { ...type.body, color: colors.textMuted },
 });

@@ -6,9 +6,21 @@ import type { ReviewRow, RunState } from '@/contracts/runs';
 
 export const RUN_STATE: Record<RunState, { label: string; tone: Tone; meaning: string }> = {
   queued: { label: 'Queued', tone: 'neutral', meaning: 'Waiting for a worker to pick it up.' },
-  running: { label: 'Running', tone: 'info', meaning: 'Fitting every district; estimates appear when it reaches review.' },
-  in_review: { label: 'In review', tone: 'warning', meaning: 'Fitted. Nothing changes for officials until it is published.' },
-  published: { label: 'Published', tone: 'success', meaning: 'What officials see; alerts went out when it was published.' },
+  running: {
+    label: 'Running',
+    tone: 'info',
+    meaning: 'Fitting every district; estimates appear when it reaches review.',
+  },
+  in_review: {
+    label: 'In review',
+    tone: 'warning',
+    meaning: 'Fitted. Nothing changes for officials until it is published.',
+  },
+  published: {
+    label: 'Published',
+    tone: 'success',
+    meaning: 'What officials see; alerts went out when it was published.',
+  },
   discarded: { label: 'Discarded', tone: 'neutral', meaning: 'Set aside: it changed nothing for officials.' },
   failed: { label: 'Failed', tone: 'danger', meaning: 'The run stopped; none of its estimates are shown.' },
 };

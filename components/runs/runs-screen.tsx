@@ -33,14 +33,22 @@ const columns: Column<RunListItem>[] = [
     key: 'id',
     header: 'Run',
     width: 88,
-    render: (r) => <TextLink href={{ pathname: '/runs/[id]', params: { id: String(r.id) } }} label={`#${r.id}`} accessibilityLabel={`Run ${r.id}`} />,
+    render: (r) => (
+      <TextLink
+        href={{ pathname: '/runs/[id]', params: { id: String(r.id) } }}
+        label={`#${r.id}`}
+        accessibilityLabel={`Run ${r.id}`}
+      />
+    ),
     sortValue: (r) => r.id,
   },
   {
     key: 'state',
     header: 'State',
     width: 120,
-    render: (r) => <Pill label={RUN_STATE[r.state].label} tone={RUN_STATE[r.state].tone} testID={`run-row-state-${r.id}`} />,
+    render: (r) => (
+      <Pill label={RUN_STATE[r.state].label} tone={RUN_STATE[r.state].tone} testID={`run-row-state-${r.id}`} />
+    ),
     sortValue: (r) => r.state,
   },
   {
@@ -55,15 +63,32 @@ const columns: Column<RunListItem>[] = [
     ),
     sortValue: (r) => r.specName,
   },
-  { key: 'created', header: 'Queued', flex: 1.4, render: (r) => formatDateTime(r.createdAt), sortValue: (r) => r.createdAt },
+  {
+    key: 'created',
+    header: 'Queued',
+    flex: 1.4,
+    render: (r) => formatDateTime(r.createdAt),
+    sortValue: (r) => r.createdAt,
+  },
   {
     key: 'done',
     header: 'Finished / published',
     flex: 1.6,
-    render: (r) => (r.publishedAt ? `Published ${formatDateTime(r.publishedAt)}` : r.finishedAt ? formatDateTime(r.finishedAt) : (r.error ?? '—')),
+    render: (r) =>
+      r.publishedAt
+        ? `Published ${formatDateTime(r.publishedAt)}`
+        : r.finishedAt
+          ? formatDateTime(r.finishedAt)
+          : (r.error ?? '—'),
     sortValue: (r) => r.publishedAt ?? r.finishedAt,
   },
-  { key: 'districts', header: 'Districts', width: 90, align: 'right', render: (r) => (r.districts === null ? '—' : String(r.districts)) },
+  {
+    key: 'districts',
+    header: 'Districts',
+    width: 90,
+    align: 'right',
+    render: (r) => (r.districts === null ? '—' : String(r.districts)),
+  },
 ];
 
 /** "Re-estimate now", the schedule's next start, and the recent runs. */
@@ -96,11 +121,20 @@ export function RunsScreen({ runs, specs, settings, onStart, onOpen }: RunsScree
           {specs.status === 'pending' ? (
             <Skeleton width="100%" height={44} />
           ) : specs.status === 'error' ? (
-            <QueryErrorPanel what="the specs" error={specs.error} retrying={specs.isFetching} onRetry={() => void specs.refetch()} />
+            <QueryErrorPanel
+              what="the specs"
+              error={specs.error}
+              retrying={specs.isFetching}
+              onRetry={() => void specs.refetch()}
+            />
           ) : available.length > 1 ? (
             <ChoiceGroup
               label="Spec"
-              choices={available.map((s) => ({ value: String(s.id), label: s.name, hint: s.isDefault ? 'the region’s default' : undefined }))}
+              choices={available.map((s) => ({
+                value: String(s.id),
+                label: s.name,
+                hint: s.isDefault ? 'the region’s default' : undefined,
+              }))}
               value={chosen}
               onChange={setSpecId}
               testID="run-spec"
@@ -108,7 +142,13 @@ export function RunsScreen({ runs, specs, settings, onStart, onOpen }: RunsScree
           ) : available.length === 1 ? (
             <Text style={styles.lead}>Spec: {available[0].name}</Text>
           ) : null}
-          <Button label="Re-estimate now" onPress={() => void go()} busy={start.busy} busyLabel="Queuing…" testID="run-start" />
+          <Button
+            label="Re-estimate now"
+            onPress={() => void go()}
+            busy={start.busy}
+            busyLabel="Queuing…"
+            testID="run-start"
+          />
           <MutationNotice error={start.error} testID="run-start" />
           <Text style={styles.note} testID="runs-schedule">
             {schedule
@@ -123,11 +163,29 @@ export function RunsScreen({ runs, specs, settings, onStart, onOpen }: RunsScree
         {runs.status === 'pending' ? (
           <Skeleton width="100%" height={200} />
         ) : runs.status === 'error' || !runs.data ? (
-          <QueryErrorPanel what="the runs" error={runs.error} retrying={runs.isFetching} onRetry={() => void runs.refetch()} testID="runs-error" />
+          <QueryErrorPanel
+            what="the runs"
+            error={runs.error}
+            retrying={runs.isFetching}
+            onRetry={() => void runs.refetch()}
+            testID="runs-error"
+          />
         ) : runs.data.length === 0 ? (
-          <StatePanel testID="runs-empty" title="No runs yet" message="Start one with “Re-estimate now”, or wait for the scheduled run." />
+          <StatePanel
+            testID="runs-empty"
+            title="No runs yet"
+            message="Start one with “Re-estimate now”, or wait for the scheduled run."
+          />
         ) : (
-          <DataTable label="Recent runs" columns={columns} rows={runs.data} rowKey={(r) => String(r.id)} minWidth={760} rowTestID={(r) => `run-row-${r.id}`} testID="runs-table" />
+          <DataTable
+            label="Recent runs"
+            columns={columns}
+            rows={runs.data}
+            rowKey={(r) => String(r.id)}
+            minWidth={760}
+            rowTestID={(r) => `run-row-${r.id}`}
+            testID="runs-table"
+          />
         )}
       </Section>
     </Page>

@@ -36,7 +36,9 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
   }
   const set = <K extends keyof SpecDraft>(key: K, value: SpecDraft[K]) => setDraft((d) => ({ ...d, [key]: value }));
   const choices = indicators.map((i) => ({ value: i.code, label: i.name || i.code, hint: i.unit }));
-  const controlCandidates = indicators.filter((i) => i.code !== draft.emissionsIndicator && i.code !== draft.driverIndicator);
+  const controlCandidates = indicators.filter(
+    (i) => i.code !== draft.emissionsIndicator && i.code !== draft.driverIndicator,
+  );
 
   const save = async () => {
     const { input, problems: p } = specInputOf(draft);
@@ -68,7 +70,15 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
       <Text role="heading" aria-level={2} style={styles.title}>
         {spec ? `Edit “${spec.name}”` : 'New spec'}
       </Text>
-      <TextField label="Name" value={draft.name} onChangeText={(v) => set('name', v)} error={problems.name} autoCapitalize="sentences" maxLength={80} testID="spec-name" />
+      <TextField
+        label="Name"
+        value={draft.name}
+        onChangeText={(v) => set('name', v)}
+        error={problems.name}
+        autoCapitalize="sentences"
+        maxLength={80}
+        testID="spec-name"
+      />
       <TextField
         label="Description"
         value={draft.description}
@@ -79,8 +89,20 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
         hint="What the spec is for, in a sentence."
         testID="spec-description"
       />
-      <ChoiceGroup label="Emissions indicator" choices={choices} value={draft.emissionsIndicator} onChange={(v) => set('emissionsIndicator', v)} testID="spec-emissions" />
-      <ChoiceGroup label="Driver" choices={choices} value={draft.driverIndicator} onChange={(v) => set('driverIndicator', v)} testID="spec-driver" />
+      <ChoiceGroup
+        label="Emissions indicator"
+        choices={choices}
+        value={draft.emissionsIndicator}
+        onChange={(v) => set('emissionsIndicator', v)}
+        testID="spec-emissions"
+      />
+      <ChoiceGroup
+        label="Driver"
+        choices={choices}
+        value={draft.driverIndicator}
+        onChange={(v) => set('driverIndicator', v)}
+        testID="spec-driver"
+      />
       {problems.driverIndicator ? <Text style={styles.error}>{problems.driverIndicator}</Text> : null}
       <View style={styles.group}>
         <Text style={styles.label}>Controls</Text>
@@ -90,7 +112,9 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
             label={i.name || i.code}
             hint={i.unit}
             checked={draft.controls.includes(i.code)}
-            onChange={(on) => set('controls', on ? [...draft.controls, i.code] : draft.controls.filter((c) => c !== i.code))}
+            onChange={(on) =>
+              set('controls', on ? [...draft.controls, i.code] : draft.controls.filter((c) => c !== i.code))
+            }
             testID={`spec-control-${i.code}`}
           />
         ))}
@@ -122,7 +146,9 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
               key={c}
               label={indicators.find((i) => i.code === c)?.name ?? c}
               checked={draft.levelControls.includes(c)}
-              onChange={(on) => set('levelControls', on ? [...draft.levelControls, c] : draft.levelControls.filter((x) => x !== c))}
+              onChange={(on) =>
+                set('levelControls', on ? [...draft.levelControls, c] : draft.levelControls.filter((x) => x !== c))
+              }
             />
           ))}
         </View>
@@ -140,7 +166,14 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
         testID="spec-covariance"
       />
       {draft.covariance === 'newey_west' ? (
-        <TextField label="Newey–West lag (rows)" value={draft.lag} onChangeText={(v) => set('lag', v)} keyboardType="number-pad" hint="Blank: floor(4·(n/100)^(2/9))." error={problems.lag} />
+        <TextField
+          label="Newey–West lag (rows)"
+          value={draft.lag}
+          onChangeText={(v) => set('lag', v)}
+          keyboardType="number-pad"
+          hint="Blank: floor(4·(n/100)^(2/9))."
+          error={problems.lag}
+        />
       ) : null}
       <ChoiceGroup
         label="Interval that sets the standing"
@@ -153,18 +186,51 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
       />
       <View style={styles.row}>
         <View style={styles.cell}>
-          <TextField label="First year" value={draft.firstYear} onChangeText={(v) => set('firstYear', v)} keyboardType="number-pad" hint="Blank: all years." error={problems.firstYear} />
+          <TextField
+            label="First year"
+            value={draft.firstYear}
+            onChangeText={(v) => set('firstYear', v)}
+            keyboardType="number-pad"
+            hint="Blank: all years."
+            error={problems.firstYear}
+          />
         </View>
         <View style={styles.cell}>
-          <TextField label="Last year" value={draft.lastYear} onChangeText={(v) => set('lastYear', v)} keyboardType="number-pad" hint="Blank: all years." error={problems.lastYear} />
+          <TextField
+            label="Last year"
+            value={draft.lastYear}
+            onChangeText={(v) => set('lastYear', v)}
+            keyboardType="number-pad"
+            hint="Blank: all years."
+            error={problems.lastYear}
+          />
         </View>
         <View style={styles.cell}>
-          <TextField label="Minimum years" value={draft.minYears} onChangeText={(v) => set('minYears', v)} keyboardType="number-pad" hint="Blank: k + 5." error={problems.minYears} />
+          <TextField
+            label="Minimum years"
+            value={draft.minYears}
+            onChangeText={(v) => set('minYears', v)}
+            keyboardType="number-pad"
+            hint="Blank: k + 5."
+            error={problems.minYears}
+          />
         </View>
       </View>
-      <CheckBox label="The region’s default spec" hint="Runs without a named spec, and scheduled runs, use it." checked={draft.isDefault} onChange={(v) => set('isDefault', v)} testID="spec-default" />
+      <CheckBox
+        label="The region’s default spec"
+        hint="Runs without a named spec, and scheduled runs, use it."
+        checked={draft.isDefault}
+        onChange={(v) => set('isDefault', v)}
+        testID="spec-default"
+      />
       <View style={styles.actions}>
-        <Button label={spec ? 'Save changes' : 'Save spec'} busy={state.busy} busyLabel="Saving…" onPress={() => void save()} testID="spec-save" />
+        <Button
+          label={spec ? 'Save changes' : 'Save spec'}
+          busy={state.busy}
+          busyLabel="Saving…"
+          onPress={() => void save()}
+          testID="spec-save"
+        />
         {onArchive ? (
           <ConfirmAction
             label="Archive"

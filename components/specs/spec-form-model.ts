@@ -70,11 +70,20 @@ function whole(s: string): number | null {
 export function specInputOf(d: SpecDraft): { input: SpecInput | null; problems: Record<string, string> } {
   const problems: Record<string, string> = {};
   if (!d.name.trim()) problems.name = 'Give the spec a name.';
-  if (d.emissionsIndicator === d.driverIndicator) problems.driverIndicator = 'The driver must differ from the emissions indicator.';
-  const nums = { lag: whole(d.lag), firstYear: whole(d.firstYear), lastYear: whole(d.lastYear), minYears: whole(d.minYears) };
-  for (const [k, v] of Object.entries(nums)) if (v !== null && Number.isNaN(v)) problems[k] = 'A whole number, or leave it blank.';
-  if (nums.firstYear !== null && nums.lastYear !== null && nums.firstYear > nums.lastYear) problems.firstYear = 'The first year must not be after the last.';
-  if (nums.minYears !== null && !Number.isNaN(nums.minYears) && nums.minYears < 3) problems.minYears = 'At least 3 years.';
+  if (d.emissionsIndicator === d.driverIndicator)
+    problems.driverIndicator = 'The driver must differ from the emissions indicator.';
+  const nums = {
+    lag: whole(d.lag),
+    firstYear: whole(d.firstYear),
+    lastYear: whole(d.lastYear),
+    minYears: whole(d.minYears),
+  };
+  for (const [k, v] of Object.entries(nums))
+    if (v !== null && Number.isNaN(v)) problems[k] = 'A whole number, or leave it blank.';
+  if (nums.firstYear !== null && nums.lastYear !== null && nums.firstYear > nums.lastYear)
+    problems.firstYear = 'The first year must not be after the last.';
+  if (nums.minYears !== null && !Number.isNaN(nums.minYears) && nums.minYears < 3)
+    problems.minYears = 'At least 3 years.';
   if (Object.keys(problems).length) return { input: null, problems };
   const controls = d.controls.filter((c) => c !== d.emissionsIndicator && c !== d.driverIndicator);
   const input: SpecInput = {

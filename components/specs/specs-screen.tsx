@@ -33,7 +33,16 @@ export function specLine(s: SavedSpec): string {
 }
 
 /** The saved specs (the default first) and the editor for one; side by side when wide. */
-export function SpecsScreen({ specs, indicators, selected, wide, onSave, onArchive, onSaved, notice }: SpecsScreenProps) {
+export function SpecsScreen({
+  specs,
+  indicators,
+  selected,
+  wide,
+  onSave,
+  onArchive,
+  onSaved,
+  notice,
+}: SpecsScreenProps) {
   const list = (
     <View style={styles.stack}>
       {notice ? <MutationNotice success={notice} testID="specs-notice" /> : null}
@@ -44,12 +53,23 @@ export function SpecsScreen({ specs, indicators, selected, wide, onSave, onArchi
   if (selected !== null) {
     if (specs.status === 'pending' || indicators.status === 'pending') editor = <Skeleton width="100%" height={400} />;
     else if (indicators.status === 'error' || !indicators.data)
-      editor = <QueryErrorPanel what="the indicator catalogue" error={indicators.error} retrying={indicators.isFetching} onRetry={() => void indicators.refetch()} />;
+      editor = (
+        <QueryErrorPanel
+          what="the indicator catalogue"
+          error={indicators.error}
+          retrying={indicators.isFetching}
+          onRetry={() => void indicators.refetch()}
+        />
+      );
     else {
       const spec = selected === 'new' ? null : (specs.data?.specs.find((s) => s.id === selected) ?? null);
       editor =
         selected !== 'new' && !spec ? (
-          <StatePanel testID="spec-not-found" title={`No spec #${selected}`} message="It may have been archived or mistyped.">
+          <StatePanel
+            testID="spec-not-found"
+            title={`No spec #${selected}`}
+            message="It may have been archived or mistyped."
+          >
             <TextLink href="/specs" label="All specs" />
           </StatePanel>
         ) : (
@@ -92,9 +112,20 @@ export function SpecsScreen({ specs, indicators, selected, wide, onSave, onArchi
 function SpecList({ specs, selected }: { specs: QueryState<SpecsResponse>; selected: 'new' | number | null }) {
   if (specs.status === 'pending') return <Skeleton width="100%" height={160} />;
   if (specs.status === 'error' || !specs.data)
-    return <QueryErrorPanel what="the specs" error={specs.error} retrying={specs.isFetching} onRetry={() => void specs.refetch()} testID="specs-error" />;
-  const rows = [...specs.data.specs].sort((a, b) => Number(b.isDefault) - Number(a.isDefault) || a.name.localeCompare(b.name));
-  if (!rows.length) return <StatePanel testID="specs-empty" title="No saved specs" message="Start one with “New spec”." />;
+    return (
+      <QueryErrorPanel
+        what="the specs"
+        error={specs.error}
+        retrying={specs.isFetching}
+        onRetry={() => void specs.refetch()}
+        testID="specs-error"
+      />
+    );
+  const rows = [...specs.data.specs].sort(
+    (a, b) => Number(b.isDefault) - Number(a.isDefault) || a.name.localeCompare(b.name),
+  );
+  if (!rows.length)
+    return <StatePanel testID="specs-empty" title="No saved specs" message="Start one with “New spec”." />;
   return (
     <View style={styles.list} testID="specs-list">
       {rows.map((s) => (

@@ -33,7 +33,11 @@ export function QueryErrorPanel({ what, error, onRetry, retrying = false, testID
   const ended = sessionEndReason(error);
   if (ended) {
     return (
-      <StatePanel testID={testID ? `${testID}-session-ended` : undefined} title={SESSION_END_TITLES[ended]} message={(error as ApiError).message}>
+      <StatePanel
+        testID={testID ? `${testID}-session-ended` : undefined}
+        title={SESSION_END_TITLES[ended]}
+        message={(error as ApiError).message}
+      >
         <TextLink href="/sign-in" label="Sign in again" />
       </StatePanel>
     );

@@ -57,14 +57,33 @@ export function sortRows<T>(rows: readonly T[], column: Column<T> | undefined, d
  * A plain table of rows and columns with sortable headers. On a phone a wide table keeps
  * its columns readable and scrolls sideways (minWidth) rather than wrapping every cell.
  */
-export function DataTable<T>({ label, columns, rows, rowKey, initialSort, selectedKey, minWidth, rowTestID, testID }: DataTableProps<T>) {
+export function DataTable<T>({
+  label,
+  columns,
+  rows,
+  rowKey,
+  initialSort,
+  selectedKey,
+  minWidth,
+  rowTestID,
+  testID,
+}: DataTableProps<T>) {
   const [sort, setSort] = useState<SortState | null>(initialSort ?? null);
   const sorted = useMemo(
-    () => (sort ? sortRows(rows, columns.find((c) => c.key === sort.key), sort.direction) : [...rows]),
+    () =>
+      sort
+        ? sortRows(
+            rows,
+            columns.find((c) => c.key === sort.key),
+            sort.direction,
+          )
+        : [...rows],
     [rows, columns, sort],
   );
   const toggle = (key: string) =>
-    setSort((s) => (s?.key === key ? { key, direction: s.direction === 'asc' ? 'desc' : 'asc' } : { key, direction: 'asc' }));
+    setSort((s) =>
+      s?.key === key ? { key, direction: s.direction === 'asc' ? 'desc' : 'asc' } : { key, direction: 'asc' },
+    );
 
   const table = (
     <View role="table" aria-label={label} style={[styles.table, minWidth ? { minWidth } : null]} testID={testID}>
@@ -78,7 +97,9 @@ export function DataTable<T>({ label, columns, rows, rowKey, initialSort, select
                 {c.header}
                 {arrow ? <Text aria-hidden>{arrow}</Text> : null}
               </Text>
-              {c.subheader ? <Text style={[styles.headUnit, c.align === 'right' && styles.right]}>{c.subheader}</Text> : null}
+              {c.subheader ? (
+                <Text style={[styles.headUnit, c.align === 'right' && styles.right]}>{c.subheader}</Text>
+              ) : null}
             </>
           );
           return (
@@ -94,7 +115,11 @@ export function DataTable<T>({ label, columns, rows, rowKey, initialSort, select
                   accessibilityLabel={`Sort by ${c.header}${active ? (sort!.direction === 'asc' ? ', now ascending' : ', now descending') : ''}`}
                   onPress={() => toggle(c.key)}
                   testID={testID ? `${testID}-sort-${c.key}` : undefined}
-                  style={(state: InteractionState) => [styles.sortButton, state.hovered && styles.sortHover, focusOutline(state)]}
+                  style={(state: InteractionState) => [
+                    styles.sortButton,
+                    state.hovered && styles.sortHover,
+                    focusOutline(state),
+                  ]}
                 >
                   {content}
                 </Pressable>
@@ -117,7 +142,11 @@ export function DataTable<T>({ label, columns, rows, rowKey, initialSort, select
             {columns.map((c) => {
               const content = c.render(row);
               return (
-                <View key={c.key} role="cell" style={[styles.cell, cellSize(c), c.align === 'right' && styles.cellRight]}>
+                <View
+                  key={c.key}
+                  role="cell"
+                  style={[styles.cell, cellSize(c), c.align === 'right' && styles.cellRight]}
+                >
                   {typeof content === 'string' || typeof content === 'number' ? (
                     <Text style={[styles.value, c.align === 'right' && styles.right]}>{content}</Text>
                   ) : (
@@ -133,7 +162,11 @@ export function DataTable<T>({ label, columns, rows, rowKey, initialSort, select
   );
   if (!minWidth) return table;
   return (
-    <ScrollView horizontal contentContainerStyle={styles.scrollContent} accessibilityLabel={`${label} (scrolls sideways)`}>
+    <ScrollView
+      horizontal
+      contentContainerStyle={styles.scrollContent}
+      accessibilityLabel={`${label} (scrolls sideways)`}
+    >
       {table}
     </ScrollView>
   );
@@ -164,7 +197,13 @@ const styles = StyleSheet.create({
   headRow: { backgroundColor: colors.surfaceSunken, borderBottomWidth: 1, borderBottomColor: colors.border },
   striped: { backgroundColor: colors.background },
   selected: { backgroundColor: colors.selected, borderLeftWidth: 3, borderLeftColor: colors.selectedRule },
-  cell: { paddingHorizontal: space.sm, paddingVertical: space.sm, justifyContent: 'center', minWidth: 0, gap: space.xxs },
+  cell: {
+    paddingHorizontal: space.sm,
+    paddingVertical: space.sm,
+    justifyContent: 'center',
+    minWidth: 0,
+    gap: space.xxs,
+  },
   cellRight: { alignItems: 'flex-end' },
   right: { textAlign: 'right' },
   headLabel: { ...type.label, color: colors.text },

@@ -19,7 +19,17 @@ export type ConfirmActionProps = {
 };
 
 /** A button that asks once before it acts, in place (no dialog to lose on a phone). */
-export function ConfirmAction({ label, question, confirmLabel, onConfirm, busy, busyLabel, variant = 'outline', disabled, testID }: ConfirmActionProps) {
+export function ConfirmAction({
+  label,
+  question,
+  confirmLabel,
+  onConfirm,
+  busy,
+  busyLabel,
+  variant = 'outline',
+  disabled,
+  testID,
+}: ConfirmActionProps) {
   const [asking, setAsking] = useState(false);
   if (!asking || busy) {
     return (
@@ -47,7 +57,12 @@ export function ConfirmAction({ label, question, confirmLabel, onConfirm, busy, 
           }}
           testID={testID ? `${testID}-confirm` : undefined}
         />
-        <Button label="Cancel" variant="outline" onPress={() => setAsking(false)} testID={testID ? `${testID}-cancel` : undefined} />
+        <Button
+          label="Cancel"
+          variant="outline"
+          onPress={() => setAsking(false)}
+          testID={testID ? `${testID}-cancel` : undefined}
+        />
       </View>
     </View>
   );

@@ -14,12 +14,13 @@ export type LinkTargetProps = Omit<PressableProps, 'style' | 'children'> & {
  * a Pressable style *function*; this component takes the state-dependent style under its
  * own prop and hands Pressable the function itself, so hover and focus rings survive.
  */
-export const LinkTarget = forwardRef<View, LinkTargetProps & { style?: StyleProp<ViewStyle> }>(
-  function LinkTarget({ stateStyle, style, children, ...rest }, ref) {
-    return (
-      <Pressable ref={ref} {...rest} style={(state) => [style, stateStyle(state as InteractionState)]}>
-        {children as PressableProps['children']}
-      </Pressable>
-    );
-  },
-);
+export const LinkTarget = forwardRef<View, LinkTargetProps & { style?: StyleProp<ViewStyle> }>(function LinkTarget(
+  { stateStyle, style, children, ...rest },
+  ref,
+) {
+  return (
+    <Pressable ref={ref} {...rest} style={(state) => [style, stateStyle(state as InteractionState)]}>
+      {children as PressableProps['children']}
+    </Pressable>
+  );
+});

@@ -26,7 +26,13 @@ export function TextLink({ href, label, leading, accessibilityLabel, tone = 'def
         stateStyle={(state: InteractionState) => [styles.target, focusOutline(state)]}
       >
         {(state: InteractionState) => (
-          <Text style={[styles.text, tone === 'inverse' && styles.inverse, state.hovered && (tone === 'inverse' ? styles.inverseHover : styles.hover)]}>
+          <Text
+            style={[
+              styles.text,
+              tone === 'inverse' && styles.inverse,
+              state.hovered && (tone === 'inverse' ? styles.inverseHover : styles.hover),
+            ]}
+          >
             {leading ? (
               <Text aria-hidden style={styles.leading}>
                 {leading}

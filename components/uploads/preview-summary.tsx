@@ -12,9 +12,30 @@ type DistrictRow = UploadPreview['byDistrict'][number];
 type IndicatorRow = UploadPreview['byIndicator'][number];
 
 const countColumns = <T extends { insert: number; change: number; unchanged: number }>(): Column<T>[] => [
-  { key: 'insert', header: 'New', width: 72, align: 'right', render: (r) => String(r.insert), sortValue: (r) => r.insert },
-  { key: 'change', header: 'Changed', width: 84, align: 'right', render: (r) => String(r.change), sortValue: (r) => r.change },
-  { key: 'unchanged', header: 'Same', width: 72, align: 'right', render: (r) => String(r.unchanged), sortValue: (r) => r.unchanged },
+  {
+    key: 'insert',
+    header: 'New',
+    width: 72,
+    align: 'right',
+    render: (r) => String(r.insert),
+    sortValue: (r) => r.insert,
+  },
+  {
+    key: 'change',
+    header: 'Changed',
+    width: 84,
+    align: 'right',
+    render: (r) => String(r.change),
+    sortValue: (r) => r.change,
+  },
+  {
+    key: 'unchanged',
+    header: 'Same',
+    width: 72,
+    align: 'right',
+    render: (r) => String(r.unchanged),
+    sortValue: (r) => r.unchanged,
+  },
 ];
 
 const districtColumns: Column<DistrictRow>[] = [
@@ -54,7 +75,12 @@ const indicatorColumns: Column<IndicatorRow>[] = [
 
 /** What a checked file would do: totals, then per district and per indicator. */
 export function PreviewSummary({ preview }: { preview: UploadPreview }) {
-  const years = preview.years.first !== null ? (preview.years.first === preview.years.last ? `${preview.years.first}` : `${preview.years.first}–${preview.years.last}`) : '—';
+  const years =
+    preview.years.first !== null
+      ? preview.years.first === preview.years.last
+        ? `${preview.years.first}`
+        : `${preview.years.first}–${preview.years.last}`
+      : '—';
   return (
     <View style={styles.wrap} testID="preview">
       <View style={styles.figures}>
@@ -77,7 +103,13 @@ export function PreviewSummary({ preview }: { preview: UploadPreview }) {
       ) : null}
       {preview.derived.length ? (
         <Text style={styles.format}>
-          Derived series recomputed on load: {preview.derived.map((d) => `${d.indicator} (${d.insert} new, ${d.change} changed${d.remove ? `, ${d.remove} removed` : ''})`).join('; ')}.
+          Derived series recomputed on load:{' '}
+          {preview.derived
+            .map(
+              (d) => `${d.indicator} (${d.insert} new, ${d.change} changed${d.remove ? `, ${d.remove} removed` : ''})`,
+            )
+            .join('; ')}
+          .
         </Text>
       ) : null}
       <Section title="By district">
@@ -91,7 +123,13 @@ export function PreviewSummary({ preview }: { preview: UploadPreview }) {
         />
       </Section>
       <Section title="By indicator">
-        <DataTable label="Values per indicator" columns={indicatorColumns} rows={preview.byIndicator} rowKey={(r) => r.indicator} minWidth={420} />
+        <DataTable
+          label="Values per indicator"
+          columns={indicatorColumns}
+          rows={preview.byIndicator}
+          rowKey={(r) => r.indicator}
+          minWidth={420}
+        />
       </Section>
     </View>
   );

@@ -9,7 +9,14 @@ import type { UploadProblem } from '@/contracts/uploads';
 const SHOWN = 200;
 
 const columns: Column<UploadProblem & { i: number }>[] = [
-  { key: 'line', header: 'Line', width: 64, align: 'right', render: (p) => (p.line === null ? '—' : String(p.line)), sortValue: (p) => p.line },
+  {
+    key: 'line',
+    header: 'Line',
+    width: 64,
+    align: 'right',
+    render: (p) => (p.line === null ? '—' : String(p.line)),
+    sortValue: (p) => p.line,
+  },
   {
     key: 'column',
     header: 'Column',
@@ -21,7 +28,9 @@ const columns: Column<UploadProblem & { i: number }>[] = [
     key: 'severity',
     header: 'Kind',
     width: 96,
-    render: (p) => <Pill label={p.severity === 'error' ? 'Error' : 'Warning'} tone={p.severity === 'error' ? 'danger' : 'warning'} />,
+    render: (p) => (
+      <Pill label={p.severity === 'error' ? 'Error' : 'Warning'} tone={p.severity === 'error' ? 'danger' : 'warning'} />
+    ),
     sortValue: (p) => p.severity,
   },
   { key: 'reason', header: 'What is wrong', flex: 3, render: (p) => p.reason },
@@ -44,7 +53,9 @@ export function ProblemsTable({ problems, truncated = false, errorCount, warning
     <View style={styles.wrap} testID="problems">
       <Text style={styles.summary} testID="problems-summary">
         {errors} {errors === 1 ? 'error' : 'errors'}, {warnings} {warnings === 1 ? 'warning' : 'warnings'}.{' '}
-        {errors > 0 ? 'Errors stop the file from loading; fix them in the file and choose it again.' : 'Warnings ask for a second look; they do not stop the load.'}
+        {errors > 0
+          ? 'Errors stop the file from loading; fix them in the file and choose it again.'
+          : 'Warnings ask for a second look; they do not stop the load.'}
       </Text>
       <DataTable
         label="Problems found in the file"

@@ -40,7 +40,9 @@ export function UploadDetail({ id, detail, onCommit, onRevert }: UploadDetailPro
         setOutcome({ success: a.noop ? noopSummary(a.upload) : `Loaded. Data version ${a.upload.version ?? '—'}.` });
       } else {
         const r = await onRevert(id);
-        setOutcome({ success: `Reverted by upload #${r.revert.id}: ${r.restored.changedBack} values put back, ${r.restored.removed} removed.` });
+        setOutcome({
+          success: `Reverted by upload #${r.revert.id}: ${r.restored.changedBack} values put back, ${r.restored.removed} removed.`,
+        });
       }
     } catch (error) {
       setOutcome({ error });
@@ -55,11 +57,20 @@ export function UploadDetail({ id, detail, onCommit, onRevert }: UploadDetailPro
   } else if (detail.status === 'error' || !detail.data) {
     body =
       detail.error instanceof ApiError && detail.error.code === 'not_found' ? (
-        <StatePanel testID="upload-not-found" title={`No upload #${id}`} message="It may have been mistyped. The history lists every upload.">
+        <StatePanel
+          testID="upload-not-found"
+          title={`No upload #${id}`}
+          message="It may have been mistyped. The history lists every upload."
+        >
           <TextLink href="/uploads" label="Go to the upload history" />
         </StatePanel>
       ) : (
-        <QueryErrorPanel what={`upload #${id}`} error={detail.error} retrying={detail.isFetching} onRetry={() => void detail.refetch()} />
+        <QueryErrorPanel
+          what={`upload #${id}`}
+          error={detail.error}
+          retrying={detail.isFetching}
+          onRetry={() => void detail.refetch()}
+        />
       );
   } else {
     const { upload: u, preview, problems } = detail.data;
@@ -75,16 +86,28 @@ export function UploadDetail({ id, detail, onCommit, onRevert }: UploadDetailPro
           <Fact label="Data version" value={u.version === null ? '—' : String(u.version)} />
           {u.checksum ? <Fact label="Checksum (SHA-256)" value={`${u.checksum.slice(0, 16)}…`} /> : null}
           {u.revertedByUploadId ? (
-            <TextLink href={{ pathname: '/uploads/[id]', params: { id: String(u.revertedByUploadId) } }} label={`Reverted by #${u.revertedByUploadId}`} />
+            <TextLink
+              href={{ pathname: '/uploads/[id]', params: { id: String(u.revertedByUploadId) } }}
+              label={`Reverted by #${u.revertedByUploadId}`}
+            />
           ) : null}
           {u.revertsUploadId ? (
-            <TextLink href={{ pathname: '/uploads/[id]', params: { id: String(u.revertsUploadId) } }} label={`Reverts #${u.revertsUploadId}`} />
+            <TextLink
+              href={{ pathname: '/uploads/[id]', params: { id: String(u.revertsUploadId) } }}
+              label={`Reverts #${u.revertsUploadId}`}
+            />
           ) : null}
         </View>
         {u.canCommit || u.canRevert ? (
           <View style={styles.actions}>
             {u.canCommit ? (
-              <Button label="Load these values" busy={busy === 'commit'} busyLabel="Loading…" onPress={() => void act('commit')} testID="upload-detail-commit" />
+              <Button
+                label="Load these values"
+                busy={busy === 'commit'}
+                busyLabel="Loading…"
+                onPress={() => void act('commit')}
+                testID="upload-detail-commit"
+              />
             ) : null}
             {u.canRevert ? (
               <ConfirmAction

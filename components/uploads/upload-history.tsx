@@ -37,11 +37,25 @@ export function UploadHistory({ uploads, onRevert }: UploadHistoryProps) {
     );
   }
   if (uploads.status === 'error' || !uploads.data) {
-    return <QueryErrorPanel what="the upload history" error={uploads.error} retrying={uploads.isFetching} onRetry={() => void uploads.refetch()} testID="upload-history-error" />;
+    return (
+      <QueryErrorPanel
+        what="the upload history"
+        error={uploads.error}
+        retrying={uploads.isFetching}
+        onRetry={() => void uploads.refetch()}
+        testID="upload-history-error"
+      />
+    );
   }
   const rows = uploads.data.uploads;
   if (rows.length === 0) {
-    return <StatePanel testID="upload-history-empty" title="No uploads yet" message="Files you check or load appear here, newest first." />;
+    return (
+      <StatePanel
+        testID="upload-history-empty"
+        title="No uploads yet"
+        message="Files you check or load appear here, newest first."
+      />
+    );
   }
 
   const revert = async (id: number) => {
@@ -66,7 +80,13 @@ export function UploadHistory({ uploads, onRevert }: UploadHistoryProps) {
       key: 'id',
       header: 'Upload',
       width: 92,
-      render: (u) => <TextLink href={{ pathname: '/uploads/[id]', params: { id: String(u.id) } }} label={`#${u.id}`} accessibilityLabel={`Upload ${u.id}`} />,
+      render: (u) => (
+        <TextLink
+          href={{ pathname: '/uploads/[id]', params: { id: String(u.id) } }}
+          label={`#${u.id}`}
+          accessibilityLabel={`Upload ${u.id}`}
+        />
+      ),
       sortValue: (u) => u.id,
     },
     {
@@ -89,7 +109,9 @@ export function UploadHistory({ uploads, onRevert }: UploadHistoryProps) {
       key: 'status',
       header: 'Status',
       width: 150,
-      render: (u) => <Pill label={uploadStatus(u).label} tone={uploadStatus(u).tone} testID={`upload-status-${u.id}`} />,
+      render: (u) => (
+        <Pill label={uploadStatus(u).label} tone={uploadStatus(u).tone} testID={`upload-status-${u.id}`} />
+      ),
       sortValue: (u) => u.status,
     },
     {

@@ -11,7 +11,12 @@ import { ApiError } from '@/lib/api-client';
 import { formatBytes, formatDateTime } from '@/lib/format-time';
 import type { PickedFile } from '@/lib/pick-file.types';
 import { safeParse } from '@/contracts/kit';
-import { UploadRejectionDetailsSchema, type UploadAnswer, type UploadOptions, type UploadRejectionDetails } from '@/contracts/uploads';
+import {
+  UploadRejectionDetailsSchema,
+  type UploadAnswer,
+  type UploadOptions,
+  type UploadRejectionDetails,
+} from '@/contracts/uploads';
 
 import { PreviewSummary } from './preview-summary';
 import { ProblemsTable } from './problems-table';
@@ -88,8 +93,8 @@ export function UploadPanel({ changeFactor, pickFile, onPreview, onCommit }: Upl
     <View style={styles.wrap}>
       <View style={styles.chooser}>
         <Text style={styles.lead}>
-          A CSV in the long layout (district_code, indicator, year, value) or the wide one (district_code, year, then one
-          column per indicator). Comma or semicolon; UTF-8 with or without a byte-order mark.
+          A CSV in the long layout (district_code, indicator, year, value) or the wide one (district_code, year, then
+          one column per indicator). Comma or semicolon; UTF-8 with or without a byte-order mark.
         </Text>
         <View style={styles.options}>
           <CheckBox
@@ -116,7 +121,9 @@ export function UploadPanel({ changeFactor, pickFile, onPreview, onCommit }: Upl
           testID="upload-choose"
         />
         {changeFactor !== null ? (
-          <Text style={styles.note}>A stored value changing by more than ×{changeFactor} is flagged as a warning (the admin setting).</Text>
+          <Text style={styles.note}>
+            A stored value changing by more than ×{changeFactor} is flagged as a warning (the admin setting).
+          </Text>
         ) : null}
       </View>
       <PhaseView phase={phase} onCommit={commit} />
@@ -153,15 +160,18 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
           <StatePanel
             tone="alert"
             testID="upload-refused"
-            title={details ? 'The file was not loaded' : tooLarge ? 'The file is too large' : 'The upload did not go through'}
-            message={
-              details
-                ? `${refusalSummary(details)} Nothing was written.`
-                : describeSendError(phase.error)
+            title={
+              details ? 'The file was not loaded' : tooLarge ? 'The file is too large' : 'The upload did not go through'
             }
+            message={details ? `${refusalSummary(details)} Nothing was written.` : describeSendError(phase.error)}
           />
           {details ? (
-            <ProblemsTable problems={details.problems} truncated={details.truncated} errorCount={details.errorCount} warningCount={details.warningCount} />
+            <ProblemsTable
+              problems={details.problems}
+              truncated={details.truncated}
+              errorCount={details.errorCount}
+              warningCount={details.warningCount}
+            />
           ) : null}
           {details?.preview ? <PreviewSummary preview={details.preview} /> : null}
         </View>
@@ -175,7 +185,10 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
           <View style={styles.result}>
             <FileLine file={file} />
             <StatePanel testID="upload-noop" title="Already loaded" message={noopSummary(answer.upload)}>
-              <TextLink href={{ pathname: '/uploads/[id]', params: { id: String(answer.upload.id) } }} label={`Open upload #${answer.upload.id}`} />
+              <TextLink
+                href={{ pathname: '/uploads/[id]', params: { id: String(answer.upload.id) } }}
+                label={`Open upload #${answer.upload.id}`}
+              />
             </StatePanel>
           </View>
         );
@@ -187,11 +200,14 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
           <View style={styles.ready} testID="upload-ready">
             <Text style={styles.readyTitle}>Checked: ready to load</Text>
             <Text style={styles.lead}>
-              Loading writes {changeWords(answer.preview.totals)} in one step. Nothing changes until you press the button.
+              Loading writes {changeWords(answer.preview.totals)} in one step. Nothing changes until you press the
+              button.
               {warnings ? ` Read the ${warnings === 1 ? 'warning' : `${warnings} warnings`} below first.` : ''}
             </Text>
             {answer.preview.expiresAt ? (
-              <Text style={styles.note}>The checked rows are kept until {formatDateTime(answer.preview.expiresAt)}.</Text>
+              <Text style={styles.note}>
+                The checked rows are kept until {formatDateTime(answer.preview.expiresAt)}.
+              </Text>
             ) : null}
             <Button
               label="Load these values"
@@ -201,7 +217,9 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
               testID="upload-commit"
             />
           </View>
-          {answer.problems.length ? <ProblemsTable problems={answer.problems} truncated={answer.problemsTruncated} /> : null}
+          {answer.problems.length ? (
+            <ProblemsTable problems={answer.problems} truncated={answer.problemsTruncated} />
+          ) : null}
           <PreviewSummary preview={answer.preview} />
         </View>
       );
@@ -226,7 +244,10 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
                 label={`See the values of ${first.name || first.district}`}
               />
             ) : null}
-            <TextLink href={{ pathname: '/uploads/[id]', params: { id: String(answer.upload.id) } }} label={`Open upload #${answer.upload.id}`} />
+            <TextLink
+              href={{ pathname: '/uploads/[id]', params: { id: String(answer.upload.id) } }}
+              label={`Open upload #${answer.upload.id}`}
+            />
           </View>
           <PreviewSummary preview={answer.preview} />
         </View>

@@ -57,7 +57,9 @@ export function refusalSummary(d: Pick<UploadRejectionDetails, 'problems' | 'err
     d.errorCount > 1 ? count(d.errorCount - 1, 'more error') : '',
     d.warningCount > 0 ? count(d.warningCount, 'warning') : '',
   ].filter(Boolean);
-  const lead = place ? `${place.charAt(0).toUpperCase()}${place.slice(1)}: ${first.reason}` : `${first.reason.charAt(0).toUpperCase()}${first.reason.slice(1)}`;
+  const lead = place
+    ? `${place.charAt(0).toUpperCase()}${place.slice(1)}: ${first.reason}`
+    : `${first.reason.charAt(0).toUpperCase()}${first.reason.slice(1)}`;
   return `${lead}${more.length ? ` (and ${more.join(' and ')})` : ''}.`;
 }
 

@@ -31,7 +31,9 @@ async function refuseAuditOf(actions: string[]): Promise<void> {
       END IF;
       RETURN NEW;
     END $$`);
-  await t.db.raw(`CREATE TRIGGER test_refuse_audit BEFORE INSERT ON audit_log FOR EACH ROW EXECUTE FUNCTION test_refuse_audit()`);
+  await t.db.raw(
+    `CREATE TRIGGER test_refuse_audit BEFORE INSERT ON audit_log FOR EACH ROW EXECUTE FUNCTION test_refuse_audit()`,
+  );
 }
 
 async function auditCount(action: string): Promise<number> {
@@ -55,10 +57,14 @@ afterAll(async () => {
 
 describe('audit rows commit or roll back with their change', () => {
   it('writes one audit row with each change while the log accepts them', async () => {
-    const made = await admin.agent.post('/api/indicators').send({ code: 'audited_total', name: 'Audited total', unit: 't', mustBePositive: true });
+    const made = await admin.agent
+      .post('/api/indicators')
+      .send({ code: 'audited_total', name: 'Audited total', unit: 't', mustBePositive: true });
     expect(made.status).toBe(201);
     expect(await auditCount('indicator.create')).toBe(1);
-    expect((await admin.agent.patch('/api/indicators/audited_total').send({ description: 'Changed once.' })).status).toBe(200);
+    expect(
+      (await admin.agent.patch('/api/indicators/audited_total').send({ description: 'Changed once.' })).status,
+    ).toBe(200);
     expect(await auditCount('indicator.update')).toBe(1);
     expect((await admin.agent.patch('/api/settings').send({ thresholdShiftPercent: 11 })).status).toBe(200);
     expect(await auditCount('settings.update')).toBe(1);
@@ -79,14 +85,20 @@ describe('audit rows commit or roll back with their change', () => {
 
     const changed = await admin.agent.patch('/api/indicators/audited_total').send({ description: 'Changed twice.' });
     expect(changed.status).toBe(500);
-    expect((await t.db('indicators').where({ code: 'audited_total' }).first('description')).description).toBe('Changed once.');
+    expect((await t.db('indicators').where({ code: 'audited_total' }).first('description')).description).toBe(
+      'Changed once.',
+    );
 
     expect((await admin.agent.patch('/api/settings').send({ thresholdShiftPercent: 13 })).status).toBe(500);
     expect((await admin.agent.get('/api/settings')).body.settings.thresholdShiftPercent).toBe(11);
 
-    const invited = await admin.agent.post('/api/people/invitations').send({ email: 'never.audited@crestwatch.example', role: 'analyst' });
+    const invited = await admin.agent
+      .post('/api/people/invitations')
+      .send({ email: 'never.audited@crestwatch.example', role: 'analyst' });
     expect(invited.status).toBe(500);
-    expect(await t.db('users').whereRaw('lower(email) = ?', ['never.audited@crestwatch.example']).first()).toBeUndefined();
+    expect(
+      await t.db('users').whereRaw('lower(email) = ?', ['never.audited@crestwatch.example']).first(),
+    ).toBeUndefined();
 
     const analyst = await t.db('users').whereRaw('lower(email) = ?', [DEMO.analyst]).first('id', 'role');
     expect((await admin.agent.patch(`/api/people/${analyst.id}`).send({ role: 'official' })).status).toBe(500);

@@ -10,7 +10,13 @@ import { startMailCatcher, type MailCatcher } from '../../api/mail/catcher';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { loadConfig } from '../../api/config';
 import { MeResponseSchema } from '../../contracts/districts';
-import { AuditResponseSchema, InviteAnswerSchema, MailboxResponseSchema, PeopleResponseSchema, PersonAnswerSchema } from '../../contracts/people';
+import {
+  AuditResponseSchema,
+  InviteAnswerSchema,
+  MailboxResponseSchema,
+  PeopleResponseSchema,
+  PersonAnswerSchema,
+} from '../../contracts/people';
 import { parseAnswer } from '../support/contract';
 import { closeServer, DEMO, listen, signInAs, startSignIn } from '../support/auth';
 import { testApp } from '../support/test-app';
@@ -112,7 +118,9 @@ describe('CSRF and sign-out', () => {
     // Same cookie jar, no token header.
     const jar = s.agent as unknown as { jar: unknown };
     (bare as unknown as { jar: unknown }).jar = jar.jar;
-    const noToken = await bare.post('/api/people/invitations').send({ email: 'x@crestwatch.example', role: 'official' });
+    const noToken = await bare
+      .post('/api/people/invitations')
+      .send({ email: 'x@crestwatch.example', role: 'official' });
     expect(noToken.status).toBe(403);
     expect(noToken.body.error.code).toBe('csrf_failed');
     const crossSite = await s.agent
@@ -134,7 +142,9 @@ describe('CSRF and sign-out', () => {
 describe('invitations', () => {
   it('admin invites, the catcher receives the mail, the invitee signs in with the role', async () => {
     const admin = await signInAs(server, DEMO.admin);
-    const res = await admin.agent.post('/api/people/invitations').send({ email: 'new.analyst@crestwatch.example', role: 'analyst' });
+    const res = await admin.agent
+      .post('/api/people/invitations')
+      .send({ email: 'new.analyst@crestwatch.example', role: 'analyst' });
     expect(res.status).toBe(201);
     const invited = parseAnswer(InviteAnswerSchema, res);
     expect(invited.mail).toEqual({ sent: true });
@@ -154,7 +164,9 @@ describe('invitations', () => {
     expect(invitee.landedOn).toBe('/');
     expect(parseAnswer(MeResponseSchema, await invitee.agent.get('/api/me')).role).toBe('analyst');
 
-    const dup = await admin.agent.post('/api/people/invitations').send({ email: 'NEW.analyst@crestwatch.example', role: 'official' });
+    const dup = await admin.agent
+      .post('/api/people/invitations')
+      .send({ email: 'NEW.analyst@crestwatch.example', role: 'official' });
     expect(dup.status).toBe(409);
   });
 
@@ -171,9 +183,13 @@ describe('invitations', () => {
 
     const log = await admin.agent.get(`/api/audit?targetType=user`);
     parseAnswer(AuditResponseSchema, log);
-    const actions = log.body.entries.filter((e: { targetId: string }) => e.targetId === String(id)).map((e: { action: string }) => e.action);
+    const actions = log.body.entries
+      .filter((e: { targetId: string }) => e.targetId === String(id))
+      .map((e: { action: string }) => e.action);
     expect(actions).toEqual(expect.arrayContaining(['person.update', 'person.deactivate']));
-    const update = log.body.entries.find((e: { action: string; targetId: string }) => e.action === 'person.update' && e.targetId === String(id));
+    const update = log.body.entries.find(
+      (e: { action: string; targetId: string }) => e.action === 'person.update' && e.targetId === String(id),
+    );
     expect(update.before.role).toBe('official');
     expect(update.after.role).toBe('analyst');
     expect(update.actorEmail).toBe(DEMO.admin);

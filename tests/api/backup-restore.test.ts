@@ -39,14 +39,18 @@ async function tableChecksums(db: Knex): Promise<Record<string, string>> {
   const sums: Record<string, string> = {};
   for (const { schemaname, tablename } of tables as { schemaname: string; tablename: string }[]) {
     const q = `"${schemaname}"."${tablename}"`;
-    const { rows } = await db.raw(`SELECT count(*)::int AS n, md5(coalesce(string_agg(t::text, E'\\n' ORDER BY t::text), '')) AS sum FROM ${q} t`);
+    const { rows } = await db.raw(
+      `SELECT count(*)::int AS n, md5(coalesce(string_agg(t::text, E'\\n' ORDER BY t::text), '')) AS sum FROM ${q} t`,
+    );
     sums[`${schemaname}.${tablename}`] = `${rows[0].n}:${rows[0].sum}`;
   }
   return sums;
 }
 
 async function sequenceValues(db: Knex): Promise<Record<string, string>> {
-  const { rows } = await db.raw(`SELECT schemaname || '.' || sequencename AS name, coalesce(last_value, 0)::text AS v FROM pg_sequences ORDER BY 1`);
+  const { rows } = await db.raw(
+    `SELECT schemaname || '.' || sequencename AS name, coalesce(last_value, 0)::text AS v FROM pg_sequences ORDER BY 1`,
+  );
   return Object.fromEntries((rows as { name: string; v: string }[]).map((r) => [r.name, r.v]));
 }
 
@@ -96,7 +100,10 @@ describe('db:backup and db:restore', () => {
   let file: string;
 
   it('writes one custom-format file named with the schema version', async () => {
-    const { stdout } = await run('npm', ['run', '--silent', 'db:backup', '--', '--out', dir], { cwd: root, env: { ...process.env, DATABASE_URL: t.url } });
+    const { stdout } = await run('npm', ['run', '--silent', 'db:backup', '--', '--out', dir], {
+      cwd: root,
+      env: { ...process.env, DATABASE_URL: t.url },
+    });
     const files = fs.readdirSync(dir);
     expect(files).toHaveLength(1);
     file = path.join(dir, files[0]);
@@ -109,7 +116,15 @@ describe('db:backup and db:restore', () => {
 
   it('restores into a fresh database with every table and sequence equal', async () => {
     const source = await tableChecksums(t.db);
-    for (const table of ['public.uploads', 'public.runs', 'public.run_estimates', 'public.alerts', 'public.outbox', 'public.observations', 'public.audit_log']) {
+    for (const table of [
+      'public.uploads',
+      'public.runs',
+      'public.run_estimates',
+      'public.alerts',
+      'public.outbox',
+      'public.observations',
+      'public.audit_log',
+    ]) {
       expect(source[table]).toBeDefined();
       expect(source[table].startsWith('0:')).toBe(false);
     }
@@ -128,8 +143,13 @@ describe('db:backup and db:restore', () => {
   it('refuses to restore over a database that already holds tables, leaving it untouched', async () => {
     const before = await tableChecksums(t.db);
     await expect(
-      run('npm', ['run', '--silent', 'db:restore', '--', file], { cwd: root, env: { ...process.env, DATABASE_URL: t.url } }),
-    ).rejects.toMatchObject({ stderr: expect.stringMatching(/already holds \d+ tables: restore into a new, empty database/) });
+      run('npm', ['run', '--silent', 'db:restore', '--', file], {
+        cwd: root,
+        env: { ...process.env, DATABASE_URL: t.url },
+      }),
+    ).rejects.toMatchObject({
+      stderr: expect.stringMatching(/already holds \d+ tables: restore into a new, empty database/),
+    });
     expect(await tableChecksums(t.db)).toEqual(before);
   });
 
@@ -137,12 +157,23 @@ describe('db:backup and db:restore', () => {
     const future = path.join(dir, 'crestwatch-29991231000000_from_a_later_release-29991231T000000Z.dump');
     fs.copyFileSync(file, future);
     await expect(
-      run('npm', ['run', '--silent', 'db:restore', '--', future], { cwd: root, env: { ...process.env, DATABASE_URL: t.url } }),
-    ).rejects.toMatchObject({ stderr: expect.stringContaining(`schema 29991231000000_from_a_later_release is newer than this release's ${codeSchemaVersion()}`) });
+      run('npm', ['run', '--silent', 'db:restore', '--', future], {
+        cwd: root,
+        env: { ...process.env, DATABASE_URL: t.url },
+      }),
+    ).rejects.toMatchObject({
+      stderr: expect.stringContaining(
+        `schema 29991231000000_from_a_later_release is newer than this release's ${codeSchemaVersion()}`,
+      ),
+    });
   });
 
   it('steps the restored copy back one migration with db:rollback and forward again with db:migrate', async () => {
-    const names = fs.readdirSync(migrationsDir).filter((f) => /^\d{14}_/.test(f)).sort().map((f) => f.replace(/\.ts$/, ''));
+    const names = fs
+      .readdirSync(migrationsDir)
+      .filter((f) => /^\d{14}_/.test(f))
+      .sort()
+      .map((f) => f.replace(/\.ts$/, ''));
     const env = { ...process.env, DATABASE_URL: testDatabaseUrl(restoredName) };
     const down = await run('npm', ['run', '--silent', 'db:rollback'], { cwd: root, env });
     expect(down.stdout).toContain(`rolled back: ${names[names.length - 1]}`);

@@ -27,11 +27,22 @@ async function cells(code: string) {
 }
 
 it('defines land area and density, fills them from the boundaries, and reverts with them', async () => {
-  const area = await w.analyst.post('/api/indicators').send({ code: 'land_area', name: 'Land area', unit: 'km²', mustBePositive: true, derivation: { kind: 'from_boundaries' } });
+  const area = await w.analyst.post('/api/indicators').send({
+    code: 'land_area',
+    name: 'Land area',
+    unit: 'km²',
+    mustBePositive: true,
+    derivation: { kind: 'from_boundaries' },
+  });
   expect(area.status).toBe(201);
   expect(area.body.indicator.derivation).toMatchObject({ kind: 'from_boundaries', measure: 'area_km2' });
   expect(area.body.recomputed).toBeNull(); // no boundaries yet: nothing to derive
-  const density = await w.analyst.post('/api/indicators').send({ code: 'density_from_area', name: 'Density', unit: 'people per km²', derivation: { kind: 'ratio', source: 'population', divisor: 'land_area' } });
+  const density = await w.analyst.post('/api/indicators').send({
+    code: 'density_from_area',
+    name: 'Density',
+    unit: 'people per km²',
+    derivation: { kind: 'ratio', source: 'population', divisor: 'land_area' },
+  });
   expect(density.status).toBe(201);
   expect(density.body.indicator.derivation).toMatchObject({ kind: 'ratio', formula: 'population ÷ land_area' });
 
@@ -63,5 +74,7 @@ it('defines land area and density, fills them from the boundaries, and reverts w
   expect(await cells('density_from_area')).toEqual([]);
   expect((await w.analyst.get('/api/data-version')).body.boundaryVersion).toBeNull();
   // the data version of the boundary commit still names it
-  expect((await w.analyst.get('/api/data-version').query({ version: up.body.dataVersion })).body.boundaryVersion).toBe(up.body.versionId);
+  expect((await w.analyst.get('/api/data-version').query({ version: up.body.dataVersion })).body.boundaryVersion).toBe(
+    up.body.versionId,
+  );
 });

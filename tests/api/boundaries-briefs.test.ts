@@ -28,12 +28,22 @@ it('with the demo boundaries: the standings map and the locator, drawn into the 
   await seedDemoBoundariesIfEmpty(s.t.db);
   const region = await s.agent.get('/api/briefs/region');
   const map = region.body.map;
-  const standings = new Set((await s.agent.get('/api/districts')).body.districts.map((d: { estimate: { standing: string } | null }) => d.estimate?.standing ?? 'not_estimable'));
-  const fills = map.items.filter((i: { kind: string; fill?: string }) => i.kind === 'path' && i.fill?.endsWith('_fill'));
+  const standings = new Set(
+    (await s.agent.get('/api/districts')).body.districts.map(
+      (d: { estimate: { standing: string } | null }) => d.estimate?.standing ?? 'not_estimable',
+    ),
+  );
+  const fills = map.items.filter(
+    (i: { kind: string; fill?: string }) => i.kind === 'path' && i.fill?.endsWith('_fill'),
+  );
   expect(fills).toHaveLength(standings.size);
   expect(map.items.some((i: { stroke?: string; fill?: string }) => i.stroke === 'sea' && !i.fill)).toBe(true);
   // a mark per district with room for it: at most the 24 demo districts, and most of them
-  const marks = map.items.filter((i: { fill?: string; stroke?: string }) => (i.fill && !i.fill.endsWith('_fill') && i.fill !== 'land') || (i.stroke && i.stroke !== 'sea' && i.stroke !== 'ink'));
+  const marks = map.items.filter(
+    (i: { fill?: string; stroke?: string }) =>
+      (i.fill && !i.fill.endsWith('_fill') && i.fill !== 'land') ||
+      (i.stroke && i.stroke !== 'sea' && i.stroke !== 'ink'),
+  );
   expect(marks.length).toBeGreaterThan(12);
   expect(marks.length).toBeLessThanOrEqual(24);
   expect(map.description).toMatch(/^Map of 24 districts/);

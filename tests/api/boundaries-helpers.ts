@@ -2,9 +2,19 @@
 import type { Knex } from 'knex';
 import type TestAgent from 'supertest/lib/agent';
 
-export function uploadGeoJson(agent: TestAgent, content: unknown, query: { commit?: boolean; repair?: boolean; codeProperty?: string } = {}, fileName = 'boundaries.geojson') {
-  const body = Buffer.isBuffer(content) ? content : Buffer.from(typeof content === 'string' ? content : JSON.stringify(content), 'utf8');
-  return agent.post('/api/boundaries').query(query).attach('file', body, { filename: fileName, contentType: 'application/geo+json' });
+export function uploadGeoJson(
+  agent: TestAgent,
+  content: unknown,
+  query: { commit?: boolean; repair?: boolean; codeProperty?: string } = {},
+  fileName = 'boundaries.geojson',
+) {
+  const body = Buffer.isBuffer(content)
+    ? content
+    : Buffer.from(typeof content === 'string' ? content : JSON.stringify(content), 'utf8');
+  return agent
+    .post('/api/boundaries')
+    .query(query)
+    .attach('file', body, { filename: fileName, contentType: 'application/geo+json' });
 }
 
 /** A small deterministic generator (an LCG) so the grid is the same every run. */
@@ -65,7 +75,11 @@ export function gridRegion(cols: number, rows: number, perEdge = 24, cell = 0.05
       ].map(round);
       const code = codes?.[j * cols + i] ?? `G${String(j * cols + i + 1).padStart(4, '0')}`;
       districts.push({ code, name: `Grid district ${j * cols + i + 1}` });
-      features.push({ type: 'Feature', properties: { code, name: `Grid district ${j * cols + i + 1}` }, geometry: { type: 'Polygon', coordinates: [ring] } });
+      features.push({
+        type: 'Feature',
+        properties: { code, name: `Grid district ${j * cols + i + 1}` },
+        geometry: { type: 'Polygon', coordinates: [ring] },
+      });
     }
   }
   return { geojson: { type: 'FeatureCollection', features }, districts };

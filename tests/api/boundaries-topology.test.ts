@@ -10,7 +10,9 @@ import { gridRegion, insertDistricts, topologyFigures, uploadGeoJson } from './b
 let w: UploadWorld;
 beforeAll(async () => {
   w = await uploadWorld();
-  await w.t.db.raw(`DELETE FROM districts WHERE NOT EXISTS (SELECT 1 FROM observations o WHERE o.district_id = districts.id)`);
+  await w.t.db.raw(
+    `DELETE FROM districts WHERE NOT EXISTS (SELECT 1 FROM observations o WHERE o.district_id = districts.id)`,
+  );
 });
 afterAll(async () => {
   await w.close();
@@ -29,27 +31,33 @@ describe('3,000 districts', () => {
     versionId = r.body.versionId;
   }, 180_000);
 
-  it.each(['phone', 'print'] as const)('%s detail: no overlaps, no gaps, no new holes, every part valid', async (detail) => {
-    const g = await w.official.get('/api/boundaries').query({ detail });
-    const body = JSON.parse(g.text);
-    expect(body.features).toHaveLength(3000);
-    const f = await topologyFigures(w.t.db, body, versionId);
-    // Tolerances (common practice for simplified maps, our choice): overlaps below 0.1% of
-    // the region's area (shared edges are one arc, so only rounding can make any), the
-    // union's area within 0.5% of the original union's (the outer coast is simplified too).
-    expect(Math.abs(f.partsKm2 - f.unionKm2) / f.unionKm2).toBeLessThan(0.001);
-    expect(Math.abs(f.unionKm2 - f.originalUnionKm2) / f.originalUnionKm2).toBeLessThan(0.005);
-    expect(f.holesSimplified).toBe(f.holesOriginal);
-    expect(f.allValid).toBe(true);
-  }, 120_000);
+  it.each(['phone', 'print'] as const)(
+    '%s detail: no overlaps, no gaps, no new holes, every part valid',
+    async (detail) => {
+      const g = await w.official.get('/api/boundaries').query({ detail });
+      const body = JSON.parse(g.text);
+      expect(body.features).toHaveLength(3000);
+      const f = await topologyFigures(w.t.db, body, versionId);
+      // Tolerances (common practice for simplified maps, our choice): overlaps below 0.1% of
+      // the region's area (shared edges are one arc, so only rounding can make any), the
+      // union's area within 0.5% of the original union's (the outer coast is simplified too).
+      expect(Math.abs(f.partsKm2 - f.unionKm2) / f.unionKm2).toBeLessThan(0.001);
+      expect(Math.abs(f.unionKm2 - f.originalUnionKm2) / f.originalUnionKm2).toBeLessThan(0.005);
+      expect(f.holesSimplified).toBe(f.holesOriginal);
+      expect(f.allValid).toBe(true);
+    },
+    120_000,
+  );
 
-  it('phone detail answer is at most 250 KB gzipped (the issue\'s budget)', async () => {
+  it("phone detail answer is at most 250 KB gzipped (the issue's budget)", async () => {
     const g = await w.official.get('/api/boundaries').set('Accept-Encoding', 'gzip');
     expect(g.headers['content-encoding']).toBe('gzip');
     // The client decompresses the body; Content-Length is the size sent, compressed.
     const sent = Number(g.headers['content-length']);
     expect(zlib.gzipSync(g.text, { level: 9 }).length).toBe(sent);
-    process.stdout.write(`[boundaries] 3,000 districts, phone detail: ${(sent / 1024).toFixed(1)} KB gzipped, ${(Buffer.byteLength(g.text) / 1024).toFixed(0)} KB plain\n`);
+    process.stdout.write(
+      `[boundaries] 3,000 districts, phone detail: ${(sent / 1024).toFixed(1)} KB gzipped, ${(Buffer.byteLength(g.text) / 1024).toFixed(0)} KB plain\n`,
+    );
     expect(sent).toBeLessThanOrEqual(250 * 1024);
   }, 120_000);
 });

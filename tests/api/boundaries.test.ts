@@ -21,7 +21,9 @@ afterAll(async () => {
 
 const count = async (table: string) => Number((await w.t.db(table).count<{ n: string }[]>({ n: '*' }))[0].n);
 const clone = () => JSON.parse(JSON.stringify(demo));
-const problemsOf = (body: { problems: { problem: string; feature: number | null; code: string | null; severity: string; reason: string }[] }) => body.problems;
+const problemsOf = (body: {
+  problems: { problem: string; feature: number | null; code: string | null; severity: string; reason: string }[];
+}) => body.problems;
 
 describe('the demo boundaries', () => {
   it('dry run: every district matched, nothing written', async () => {
@@ -52,7 +54,12 @@ describe('the demo boundaries', () => {
     const history = await w.analyst.get('/api/uploads');
     expect(history.body.uploads[0]).toMatchObject({ id: r.body.uploadId, kind: 'boundaries', status: 'committed' });
     const versions = await w.official.get('/api/boundaries/versions');
-    expect(versions.body[0]).toMatchObject({ id: r.body.versionId, features: 24, current: true, fileName: 'boundaries.geojson' });
+    expect(versions.body[0]).toMatchObject({
+      id: r.body.versionId,
+      features: 24,
+      current: true,
+      fileName: 'boundaries.geojson',
+    });
 
     const g = await w.official.get('/api/boundaries');
     expect(g.status).toBe(200);
@@ -139,17 +146,93 @@ describe('the GeoJSON bad-input corpus: each problem reported by feature and rea
     return fc;
   };
   const cases: Case[] = [
-    { name: 'not a FeatureCollection', make: () => demo.features[0], problem: 'not_feature_collection', feature: null, reason: /GeoJSON Feature, not a GeoJSON FeatureCollection/ },
-    { name: 'not JSON at all', make: () => 'code,name\nD01,x\n', problem: 'not_feature_collection', feature: null, reason: /not readable JSON: line 1, column 1/ },
-    { name: 'a foreign crs member', make: () => ({ ...clone(), crs: { type: 'name', properties: { name: 'urn:ogc:def:crs:EPSG::3857' } } }), problem: 'foreign_crs', feature: null, reason: /EPSG::3857/ },
-    { name: 'a geometry that is not a polygon', make: first((f) => Object.assign(f, { geometry: { type: 'Point', coordinates: [-131, -45] } })), problem: 'not_polygon', feature: 0, reason: /Point geometry/ },
-    { name: 'an unclosed ring', make: first((f) => f.geometry.coordinates[0].pop()), problem: 'unclosed_ring', feature: 0, reason: /not closed/ },
-    { name: 'a ring too short', make: first((f) => (f.geometry.coordinates[0] = f.geometry.coordinates[0].slice(0, 2).concat([f.geometry.coordinates[0][0]]))), problem: 'short_ring', feature: 0, reason: /3 positions/ },
-    { name: 'coordinates out of range', make: first((f) => (f.geometry.coordinates[0][1] = [-231.5, -45.5])), problem: 'out_of_range', feature: 0, reason: /position 1 is \[-231.5, -45.5\]/ },
-    { name: 'a self-intersection', make: first((f) => { const r = f.geometry.coordinates[0]; f.geometry.coordinates[0] = [r[0], r[2], r[1], ...r.slice(3)]; }), problem: 'self_intersection', feature: 0, reason: /Self-intersection/ },
-    { name: 'a duplicate code', make: () => { const fc = clone(); fc.features[1].properties.code = 'D01'; return fc; }, problem: 'duplicate_code', feature: 1, reason: /repeats the code D01 of feature 0/ },
-    { name: 'an unknown code', make: first((f) => (f.properties.code = 'Z99')), problem: 'unknown_code', feature: 0, reason: /Z99, which is not a district/ },
-    { name: 'no code in the property', make: first((f) => delete f.properties.code), problem: 'no_code', feature: 0, reason: /"code" property/ },
+    {
+      name: 'not a FeatureCollection',
+      make: () => demo.features[0],
+      problem: 'not_feature_collection',
+      feature: null,
+      reason: /GeoJSON Feature, not a GeoJSON FeatureCollection/,
+    },
+    {
+      name: 'not JSON at all',
+      make: () => 'code,name\nD01,x\n',
+      problem: 'not_feature_collection',
+      feature: null,
+      reason: /not readable JSON: line 1, column 1/,
+    },
+    {
+      name: 'a foreign crs member',
+      make: () => ({ ...clone(), crs: { type: 'name', properties: { name: 'urn:ogc:def:crs:EPSG::3857' } } }),
+      problem: 'foreign_crs',
+      feature: null,
+      reason: /EPSG::3857/,
+    },
+    {
+      name: 'a geometry that is not a polygon',
+      make: first((f) => Object.assign(f, { geometry: { type: 'Point', coordinates: [-131, -45] } })),
+      problem: 'not_polygon',
+      feature: 0,
+      reason: /Point geometry/,
+    },
+    {
+      name: 'an unclosed ring',
+      make: first((f) => f.geometry.coordinates[0].pop()),
+      problem: 'unclosed_ring',
+      feature: 0,
+      reason: /not closed/,
+    },
+    {
+      name: 'a ring too short',
+      make: first(
+        (f) =>
+          (f.geometry.coordinates[0] = f.geometry.coordinates[0].slice(0, 2).concat([f.geometry.coordinates[0][0]])),
+      ),
+      problem: 'short_ring',
+      feature: 0,
+      reason: /3 positions/,
+    },
+    {
+      name: 'coordinates out of range',
+      make: first((f) => (f.geometry.coordinates[0][1] = [-231.5, -45.5])),
+      problem: 'out_of_range',
+      feature: 0,
+      reason: /position 1 is \[-231.5, -45.5\]/,
+    },
+    {
+      name: 'a self-intersection',
+      make: first((f) => {
+        const r = f.geometry.coordinates[0];
+        f.geometry.coordinates[0] = [r[0], r[2], r[1], ...r.slice(3)];
+      }),
+      problem: 'self_intersection',
+      feature: 0,
+      reason: /Self-intersection/,
+    },
+    {
+      name: 'a duplicate code',
+      make: () => {
+        const fc = clone();
+        fc.features[1].properties.code = 'D01';
+        return fc;
+      },
+      problem: 'duplicate_code',
+      feature: 1,
+      reason: /repeats the code D01 of feature 0/,
+    },
+    {
+      name: 'an unknown code',
+      make: first((f) => (f.properties.code = 'Z99')),
+      problem: 'unknown_code',
+      feature: 0,
+      reason: /Z99, which is not a district/,
+    },
+    {
+      name: 'no code in the property',
+      make: first((f) => delete f.properties.code),
+      problem: 'no_code',
+      feature: 0,
+      reason: /"code" property/,
+    },
     {
       // two polygons of 60,000 positions: each array is within the reader's limit, the feature is not
       name: 'too many vertices',
@@ -162,7 +245,13 @@ describe('the GeoJSON bad-input corpus: each problem reported by feature and rea
       feature: 0,
       reason: /more than 100,000 vertices/,
     },
-    { name: 'deep nesting', make: () => `{"type":"FeatureCollection","features":${'['.repeat(5000)}${']'.repeat(5000)}}`, problem: 'not_feature_collection', feature: null, reason: /nesting deeper than 12 levels/ },
+    {
+      name: 'deep nesting',
+      make: () => `{"type":"FeatureCollection","features":${'['.repeat(5000)}${']'.repeat(5000)}}`,
+      problem: 'not_feature_collection',
+      feature: null,
+      reason: /nesting deeper than 12 levels/,
+    },
   ];
   it.each(cases)('$name', async (c) => {
     const r = await uploadGeoJson(w.analyst, c.make());
@@ -193,19 +282,32 @@ describe('the GeoJSON bad-input corpus: each problem reported by feature and rea
     expect(r.body.counts).toMatchObject({ matched: 24, errors: 0 });
   });
 
-  it('a giant coordinate array in one feature stops at the reader\'s array limit', async () => {
+  it("a giant coordinate array in one feature stops at the reader's array limit", async () => {
     // one ring of 400,000 positions (~8 MB)
-    const ring = Array.from({ length: 400_000 }, (_, i) => [-131 + (i % 1000) * 1e-4, -45 + Math.floor(i / 1000) * 1e-4]);
-    const text = JSON.stringify({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { code: 'D01' }, geometry: { type: 'Polygon', coordinates: [ring] } }] });
+    const ring = Array.from({ length: 400_000 }, (_, i) => [
+      -131 + (i % 1000) * 1e-4,
+      -45 + Math.floor(i / 1000) * 1e-4,
+    ]);
+    const text = JSON.stringify({
+      type: 'FeatureCollection',
+      features: [{ type: 'Feature', properties: { code: 'D01' }, geometry: { type: 'Polygon', coordinates: [ring] } }],
+    });
     const r = await uploadGeoJson(w.analyst, text);
     expect(r.body.problems[0].reason).toMatch(/an array has more than 100,000 items/);
   });
 
   it('a large file is read in slices: a request made meanwhile is answered before the upload', async () => {
     // ~18 MB: 8,000 features of 120 positions each (all with one code, refused after reading)
-    const ring = Array.from({ length: 120 }, (_, i) => [+(-131 + Math.cos(i / 19) * 0.01).toFixed(5), +(-45 + Math.sin(i / 19) * 0.01).toFixed(5)]);
+    const ring = Array.from({ length: 120 }, (_, i) => [
+      +(-131 + Math.cos(i / 19) * 0.01).toFixed(5),
+      +(-45 + Math.sin(i / 19) * 0.01).toFixed(5),
+    ]);
     ring.push(ring[0]);
-    const feature = JSON.stringify({ type: 'Feature', properties: { code: 'D01' }, geometry: { type: 'Polygon', coordinates: [ring] } });
+    const feature = JSON.stringify({
+      type: 'Feature',
+      properties: { code: 'D01' },
+      geometry: { type: 'Polygon', coordinates: [ring] },
+    });
     const text = `{"type":"FeatureCollection","features":[${Array.from({ length: 8_000 }, () => feature).join(',')}]}`;
     let uploadDone = 0;
     let healthDone = 0;

@@ -46,7 +46,8 @@ let admin: TestAgent;
 
 /** A name far longer than a title line, with letters from four scripts. */
 const LONG_CODE = 'D90';
-const LONG_NAME = 'Upper Amberlyn Reach and the Southern Estuary Parishes of Łęczyca-Ørsted, Şelé-Çamlık, Θεσσαλονίκη Όρμος and Новгородская Слобода (Joint Statistical District)';
+const LONG_NAME =
+  'Upper Amberlyn Reach and the Southern Estuary Parishes of Łęczyca-Ørsted, Şelé-Çamlık, Θεσσαλονίκη Όρμος and Новгородская Слобода (Joint Statistical District)';
 
 beforeAll(async () => {
   t = await freshDatabase();
@@ -60,7 +61,11 @@ beforeAll(async () => {
   jobs = await testJobs(t.url);
   // One analyst prints every district's brief here, past the per-person limit of 30 a minute
   // (tests/security/compute-limits.test.ts checks that limit).
-  app = testApp(t.db, { mailCatcherPort: catcher.port, mailRetrySeconds: 1, computeRequestsPerMinute: 1000 }, createMailer(config));
+  app = testApp(
+    t.db,
+    { mailCatcherPort: catcher.port, mailRetrySeconds: 1, computeRequestsPerMinute: 1000 },
+    createMailer(config),
+  );
   app.locals.ctx.jobs = jobs;
   await workIn(app.locals.ctx, jobs);
   server = await listen(app);
@@ -82,11 +87,14 @@ async function runToReview(): Promise<number> {
 }
 
 async function pdfOf(agent: TestAgent, url: string): Promise<Buffer> {
-  const res = await agent.get(url).buffer(true).parse((r, cb) => {
-    const chunks: Buffer[] = [];
-    r.on('data', (c: Buffer) => chunks.push(c));
-    r.on('end', () => cb(null, Buffer.concat(chunks)));
-  });
+  const res = await agent
+    .get(url)
+    .buffer(true)
+    .parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
   expect(res.status).toBe(200);
   expect(res.headers['content-type']).toMatch(/^application\/pdf/);
   return res.body as Buffer;
@@ -102,17 +110,26 @@ function threeFigures(v: number, mode: 'round' | 'floor' | 'ceil'): string {
   const scaled = v / step;
   // Guard against binary noise in v/step (e.g. 14300/100 = 142.99999…).
   const near = Math.abs(scaled - Math.round(scaled)) < 1e-9 ? Math.round(scaled) : scaled;
-  const n = mode === 'floor' ? Math.floor(near) : mode === 'ceil' ? Math.ceil(near) : Math.sign(near) * Math.floor(Math.abs(near) + 0.5);
+  const n =
+    mode === 'floor'
+      ? Math.floor(near)
+      : mode === 'ceil'
+        ? Math.ceil(near)
+        : Math.sign(near) * Math.floor(Math.abs(near) + 0.5);
   if (Math.abs(v) >= 1e9 || Math.abs(v) < 1e-3) {
     // n has three digits (or 1000 after rounding up): m.mm × 10ᵉ
     const [digits, exp] = Math.abs(n) >= 1000 ? [n / 10, e + 1] : [n, e];
     const mantissa = (digits / 100).toFixed(2).replace(/\.?0+$/, '');
-    const power = String(exp).replace('-', '⁻').replace(/\d/g, (d) => SUPERSCRIPT[Number(d)]);
+    const power = String(exp)
+      .replace('-', '⁻')
+      .replace(/\d/g, (d) => SUPERSCRIPT[Number(d)]);
     return `${mantissa.replace('-', '\u2212')} × 10${power}`;
   }
   const value = n * step;
   const places = Math.max(0, 2 - e);
-  return value.toLocaleString('en-GB', { minimumFractionDigits: places, maximumFractionDigits: places }).replace('-', '\u2212');
+  return value
+    .toLocaleString('en-GB', { minimumFractionDigits: places, maximumFractionDigits: places })
+    .replace('-', '\u2212');
 }
 
 /** For names: pdftotext joins a word broken after a hyphen at a line end and drops the hyphen. */
@@ -138,7 +155,12 @@ describe('briefs', () => {
   let records: (EstimateRecord & { code: string; name: string })[];
 
   it('answers 401 to anonymous callers and 404 before anything is published', async () => {
-    for (const url of ['/api/briefs/district/D01.pdf', '/api/briefs/district/D01', '/api/briefs/region.pdf', '/api/briefs/region']) {
+    for (const url of [
+      '/api/briefs/district/D01.pdf',
+      '/api/briefs/district/D01',
+      '/api/briefs/region.pdf',
+      '/api/briefs/region',
+    ]) {
       const anon = await request(server).get(url);
       expect(anon.status).toBe(401);
       expect(anon.body.error.code).toBe('unauthenticated');
@@ -153,7 +175,13 @@ describe('briefs', () => {
     // A run in review is not a brief's source.
     const notYet = await official.get(`/api/briefs/district/D01.pdf?run=${runId}`);
     expect(notYet.status).toBe(404);
-    expect((await analyst.put(`/api/runs/${runId}/districts/D01/note`).send({ note: 'Income for 2024 was revised by the statistics office; the band moved little.' })).status).toBe(204);
+    expect(
+      (
+        await analyst
+          .put(`/api/runs/${runId}/districts/D01/note`)
+          .send({ note: 'Income for 2024 was revised by the statistics office; the band moved little.' })
+      ).status,
+    ).toBe(204);
     expect((await analyst.post(`/api/runs/${runId}/publish`)).status).toBe(200);
     records = await mainRecords(t.db, runId);
     expect(records).toHaveLength(25);
@@ -166,7 +194,8 @@ describe('briefs', () => {
       const file = savePdf(`district-${r.code}`, await pdfOf(official, `/api/briefs/district/${r.code}.pdf`));
       const info = pdfInfo(file);
       // A4 is 595.28 × 841.89 pt (ISO 216: 210 × 297 mm at 72 pt per inch).
-      if (info.pages !== 1 || Math.abs(info.width - 595.28) > 0.1 || Math.abs(info.height - 841.89) > 0.1) problems.push(`${r.code}: ${info.pages} pages, ${info.width}×${info.height}`);
+      if (info.pages !== 1 || Math.abs(info.width - 595.28) > 0.1 || Math.abs(info.height - 841.89) > 0.1)
+        problems.push(`${r.code}: ${info.pages} pages, ${info.width}×${info.height}`);
       const text = flat(pdfText(file));
       if (!loose(text).includes(loose(r.name))) problems.push(`${r.code}: missing the name "${r.name}"`);
       const must = [
@@ -180,19 +209,25 @@ describe('briefs', () => {
       ];
       for (const m of must) if (!text.includes(flat(m))) problems.push(`${r.code}: missing "${m}"`);
       // Never a bounded interval where Fieller is two rays or the whole line.
-      if (r.threshold && r.threshold.fieller.kind !== 'bounded' && /Fieller interval \d/.test(text)) problems.push(`${r.code}: prints a Fieller interval for a ${r.threshold.fieller.kind} set`);
+      if (r.threshold && r.threshold.fieller.kind !== 'bounded' && /Fieller interval \d/.test(text))
+        problems.push(`${r.code}: prints a Fieller interval for a ${r.threshold.fieller.kind} set`);
       renderFirstPage(file, `district-${r.code}`);
     }
     expect(problems).toEqual([]);
-    for (const code of ['D01', 'D24', 'D10', LONG_CODE]) expect(statSync(`${__dirname}/../artifacts/briefs/district-${code}.png`).size).toBeGreaterThan(20_000);
+    for (const code of ['D01', 'D24', 'D10', LONG_CODE])
+      expect(statSync(`${__dirname}/../artifacts/briefs/district-${code}.png`).size).toBeGreaterThan(20_000);
   });
 
   it('covers the special cases: a whole-line or two-rays district, the regional substitute, the analyst note', async () => {
     const unbounded = records.filter((r) => r.threshold && r.threshold.fieller.kind !== 'bounded');
     expect(unbounded.length).toBeGreaterThan(0);
     for (const r of unbounded) {
-      const text = flat(pdfText(savePdf(`district-${r.code}`, await pdfOf(official, `/api/briefs/district/${r.code}.pdf`))));
-      expect(text).toContain(`not bounded at 95% (the Fieller set is ${r.threshold!.fieller.kind === 'two_rays' ? 'two rays' : 'the whole line'})`);
+      const text = flat(
+        pdfText(savePdf(`district-${r.code}`, await pdfOf(official, `/api/briefs/district/${r.code}.pdf`))),
+      );
+      expect(text).toContain(
+        `not bounded at 95% (the Fieller set is ${r.threshold!.fieller.kind === 'two_rays' ? 'two rays' : 'the whole line'})`,
+      );
     }
     // D10 has 2018–2025 only: the pooled curve stands in, and the brief says so.
     const d10 = records.find((r) => r.code === 'D10')!;
@@ -202,7 +237,9 @@ describe('briefs', () => {
     expect(d10text).toContain('THRESHOLD (REGIONAL)');
     const d01text = flat(pdfText(`${__dirname}/../artifacts/briefs/district-D01.pdf`));
     expect(d01text).toContain('Income for 2024 was revised by the statistics office');
-    expect(flat(pdfText(`${__dirname}/../artifacts/briefs/district-D02.pdf`))).not.toContain('Income for 2024 was revised');
+    expect(flat(pdfText(`${__dirname}/../artifacts/briefs/district-D02.pdf`))).not.toContain(
+      'Income for 2024 was revised',
+    );
   });
 
   it('sets names from other scripts and a very long name inside the page, in the embedded Inter, with no missing glyph', async () => {
@@ -221,7 +258,9 @@ describe('briefs', () => {
       expect(outside.map((w) => `${w.text} ${w.xMin}-${w.xMax}`)).toEqual([]);
       // The title lines come first and sit above the standing label, which sits above the figures.
       const record = records.find((r) => r.code === code)!;
-      const chipAt = words.findIndex((w) => w.text === STANDING_LABEL[record.standing.standing].toUpperCase().split(' ')[0]);
+      const chipAt = words.findIndex(
+        (w) => w.text === STANDING_LABEL[record.standing.standing].toUpperCase().split(' ')[0],
+      );
       expect(chipAt).toBeGreaterThan(0);
       const nameWords = new Set(name.split(/\s+/));
       const title = words.slice(0, chipAt).filter((w) => w.yMin > 45 && nameWords.has(w.text));
@@ -260,7 +299,9 @@ describe('briefs', () => {
 
   it('repeats the table header on every page of a long region table', async () => {
     const content = parseAnswer(RegionBriefContentSchema, await official.get('/api/briefs/region'));
-    const rows = Array.from({ length: 12 }, (_, k) => content.table.rows.map((r) => ({ ...r, code: `${r.code}-${k}` }))).flat();
+    const rows = Array.from({ length: 12 }, (_, k) =>
+      content.table.rows.map((r) => ({ ...r, code: `${r.code}-${k}` })),
+    ).flat();
     const file = savePdf('region-long', await renderRegionPdf({ ...content, table: { ...content.table, rows } }));
     const info = pdfInfo(file);
     expect(info.pages).toBeGreaterThanOrEqual(6);
@@ -286,7 +327,13 @@ describe('briefs', () => {
     expect(anon.status).toBe(401);
     const c = parseAnswer(DistrictBriefContentSchema, await official.get('/api/briefs/district/D01'));
     const d01 = records.find((r) => r.code === 'D01')!;
-    expect(c).toMatchObject({ kind: 'district', code: 'D01', name: d01.name, paperSize: 'A4', pdfPath: '/api/briefs/district/D01.pdf' });
+    expect(c).toMatchObject({
+      kind: 'district',
+      code: 'D01',
+      name: d01.name,
+      paperSize: 'A4',
+      pdfPath: '/api/briefs/district/D01.pdf',
+    });
     expect(c.trace.runId).toBe(runId);
     expect(c.figures.find((f) => f.key === 'threshold')!.value).toBe(threeFigures(d01.threshold!.level!, 'round'));
     expect(c.charts.curve.items.length).toBeGreaterThan(20);
@@ -305,7 +352,11 @@ describe('briefs', () => {
 
   it('prints US Letter after the setting changes', async () => {
     expect((await admin.patch('/api/settings').send({ briefPaperSize: 'LETTER' })).status).toBe(200);
-    for (const [name, url] of [['district-D24-letter', '/api/briefs/district/D24.pdf'], [`district-${LONG_CODE}-letter`, `/api/briefs/district/${LONG_CODE}.pdf`], ['region-letter', '/api/briefs/region.pdf']]) {
+    for (const [name, url] of [
+      ['district-D24-letter', '/api/briefs/district/D24.pdf'],
+      [`district-${LONG_CODE}-letter`, `/api/briefs/district/${LONG_CODE}.pdf`],
+      ['region-letter', '/api/briefs/region.pdf'],
+    ]) {
       const file = savePdf(name, await pdfOf(official, url));
       const info = pdfInfo(file);
       // US Letter is 8.5 × 11 in = 612 × 792 pt.
@@ -319,23 +370,33 @@ describe('briefs', () => {
   });
 
   it('attaches the region brief to the digest of the next publish for a subscriber who asked for it', async () => {
-    expect((await official.post('/api/subscriptions').send({ scope: 'region', delivery: 'digest', attachBrief: true })).status).toBe(201);
+    expect(
+      (await official.post('/api/subscriptions').send({ scope: 'region', delivery: 'digest', attachBrief: true }))
+        .status,
+    ).toBe(201);
     // A data revision moves a district across its band, so the publish has alerts to send.
     const candidate = records.find((r) => r.standing.standing === 'approaching' || r.standing.standing === 'at_turn')!;
     expect(candidate).toBeDefined();
     const csv = `district_code,indicator,year,value\n${candidate.code},income_pc,${candidate.lastYear},${Math.round(candidate.threshold!.level! * 2)}\n`;
-    expect((await analyst.post('/api/uploads?commit=true').attach('file', Buffer.from(csv), 'brief-revision.csv')).status).toBe(201);
+    expect(
+      (await analyst.post('/api/uploads?commit=true').attach('file', Buffer.from(csv), 'brief-revision.csv')).status,
+    ).toBe(201);
     const second = await runToReview();
     const pub = await analyst.post(`/api/runs/${second}/publish`);
     expect(pub.status).toBe(200);
     expect(pub.body.mails).toBeGreaterThanOrEqual(1);
     const mail = await until('digest with the brief', async () => {
       await deliverOutbox(app.locals.ctx);
-      const rows = await t.db('caught_mail').whereRaw('? = ANY(envelope_to)', [DEMO.official]).select('subject', 'text_body', 'attachments');
+      const rows = await t
+        .db('caught_mail')
+        .whereRaw('? = ANY(envelope_to)', [DEMO.official])
+        .select('subject', 'text_body', 'attachments');
       return rows.find((m: { subject: string }) => m.subject.includes(`published run #${second}`));
     });
     expect(mail.text_body).toContain('The region brief is attached.');
-    expect(mail.attachments).toEqual([{ filename: `crestwatch-region-run-${second}.pdf`, contentType: 'application/pdf', size: expect.any(Number) }]);
+    expect(mail.attachments).toEqual([
+      { filename: `crestwatch-region-run-${second}.pdf`, contentType: 'application/pdf', size: expect.any(Number) },
+    ]);
     expect(mail.attachments[0].size).toBeGreaterThan(10_000);
     // The region brief of that run lists the district that crossed.
     const file = savePdf('region-second', await pdfOf(official, `/api/briefs/region.pdf?run=${second}`));
@@ -345,6 +406,8 @@ describe('briefs', () => {
     expect(summary).toContain('Largest threshold shifts');
     expect(existsSync(renderFirstPage(file, 'region-second'))).toBe(true);
     // The earlier run can still be printed by id, with its own number.
-    expect(flat(pdfText(savePdf('region-first', await pdfOf(official, `/api/briefs/region.pdf?run=${runId}`))))).toContain(`Run #${runId}`);
+    expect(
+      flat(pdfText(savePdf('region-first', await pdfOf(official, `/api/briefs/region.pdf?run=${runId}`)))),
+    ).toContain(`Run #${runId}`);
   });
 });

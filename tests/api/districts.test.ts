@@ -28,7 +28,9 @@ describe('districts API over the seeded demo region', () => {
     expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b, 'en')));
     const d01 = list.find((d) => d.code === 'D01')!;
     expect(d01).toMatchObject({ firstYear: 1995, lastYear: 2025, nYears: 31 });
-    const expected = generateDemoRegion().observations.find((o) => o.districtCode === 'D01' && o.year === 2025 && o.indicator === 'income_pc')!;
+    const expected = generateDemoRegion().observations.find(
+      (o) => o.districtCode === 'D01' && o.year === 2025 && o.indicator === 'income_pc',
+    )!;
     expect(d01.latest).toMatchObject({ year: 2025, incomePc: expected.value });
   });
 

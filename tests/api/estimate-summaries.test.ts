@@ -46,5 +46,11 @@ it('builds the same summaries in SQL as summaryOf on the full records', async ()
 it('names the published run in the district list', async () => {
   const list = await listDistricts(t.db);
   expect(list.publishedRunId).toBe(runId);
-  expect(list.run).toEqual(expect.objectContaining({ id: runId, specName: expect.any(String), model: expect.objectContaining({ level: 0.95 }) }));
+  expect(list.run).toEqual(
+    expect.objectContaining({
+      id: runId,
+      specName: expect.any(String),
+      model: expect.objectContaining({ level: 0.95 }),
+    }),
+  );
 });

@@ -40,7 +40,9 @@ afterAll(async () => env.close());
 
 describe('POST /api/estimate', () => {
   it('matches R for panel A district PA01 with Newey–West errors', async () => {
-    const res = await agent.post('/api/estimate').send({ model: { form: 'quadratic', transform: 'log', covariance: 'newey_west' }, rows: rowsOf('PA01') });
+    const res = await agent
+      .post('/api/estimate')
+      .send({ model: { form: 'quadratic', transform: 'log', covariance: 'newey_west' }, rows: rowsOf('PA01') });
     expect(res.status).toBe(200);
     const fit = res.body.result;
     const r = results.districts.PA01;
@@ -63,9 +65,11 @@ describe('POST /api/estimate', () => {
   });
 
   it('answers for a district of the demo region read from the database', async () => {
-    const res = await agent
-      .post('/api/estimate')
-      .send({ model: { form: 'quadratic', transform: 'log', covariance: 'newey_west' }, district: 'D01', controls: ['pop_density'] });
+    const res = await agent.post('/api/estimate').send({
+      model: { form: 'quadratic', transform: 'log', covariance: 'newey_west' },
+      district: 'D01',
+      controls: ['pop_density'],
+    });
     expect(res.status).toBe(200);
     expect(parseAnswer(WhatIfAnswerSchema, res)).toMatchObject({ source: 'district', district: 'D01' });
     expect(res.body.result.status).toBe('ok');
@@ -76,12 +80,17 @@ describe('POST /api/estimate', () => {
   it('names the row and the reason for bad input', async () => {
     const rows = rowsOf('PA02');
     rows[6] = { ...rows[6], x: -5 };
-    const res = await agent.post('/api/estimate').send({ model: { form: 'quadratic', transform: 'log', covariance: 'hc1' }, rows });
+    const res = await agent
+      .post('/api/estimate')
+      .send({ model: { form: 'quadratic', transform: 'log', covariance: 'hc1' }, rows });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('non_positive_under_log');
     expect(res.body.error.details).toMatchObject({ row: 6, year: rows[6].year });
     expect(res.body.error.message).toMatch(/row 6/);
-    const dup = await agent.post('/api/estimate').send({ model: { form: 'quadratic', transform: 'log', covariance: 'hc1' }, rows: [...rowsOf('PA02'), rowsOf('PA02')[0]] });
+    const dup = await agent.post('/api/estimate').send({
+      model: { form: 'quadratic', transform: 'log', covariance: 'hc1' },
+      rows: [...rowsOf('PA02'), rowsOf('PA02')[0]],
+    });
     expect(dup.status).toBe(400);
     expect(dup.body.error.code).toBe('duplicate_year');
     const schema = await agent.post('/api/estimate').send({ model: { form: 'quartic' }, rows: [] });
@@ -90,7 +99,10 @@ describe('POST /api/estimate', () => {
   });
 
   it('says not_estimable for too few rows', async () => {
-    const res = await agent.post('/api/estimate').send({ model: { form: 'quadratic', transform: 'log', covariance: 'classical' }, rows: rowsOf('PA03').slice(0, 6) });
+    const res = await agent.post('/api/estimate').send({
+      model: { form: 'quadratic', transform: 'log', covariance: 'classical' },
+      rows: rowsOf('PA03').slice(0, 6),
+    });
     expect(res.status).toBe(200);
     expect(res.body.result).toMatchObject({ status: 'not_estimable', reason: { code: 'too_few_rows' } });
   });

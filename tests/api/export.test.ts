@@ -66,7 +66,8 @@ async function runToReview(): Promise<number> {
   return run.id;
 }
 
-const rowsOf = (csv: string): Record<string, string>[] => parse(csv, { columns: true, bom: true, skip_empty_lines: true });
+const rowsOf = (csv: string): Record<string, string>[] =>
+  parse(csv, { columns: true, bom: true, skip_empty_lines: true });
 
 describe('run export as CSV', () => {
   let runId: number;
@@ -88,7 +89,9 @@ describe('run export as CSV', () => {
     const res = await official.get(`/api/runs/${runId}/export.csv`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv; charset=utf-8/);
-    expect(res.headers['content-disposition']).toMatch(new RegExp(`^attachment; filename="?crestwatch-run-${runId}-estimates.csv"?$`));
+    expect(res.headers['content-disposition']).toMatch(
+      new RegExp(`^attachment; filename="?crestwatch-run-${runId}-estimates.csv"?$`),
+    );
     // UTF-8 with a byte-order mark (RFC 3629 §6), CRLF line ends (RFC 4180 §2).
     expect(res.text.charCodeAt(0)).toBe(0xfeff);
     expect(res.text).toContain('\r\n');
@@ -103,9 +106,17 @@ describe('run export as CSV', () => {
     for (const r of records) {
       const row = rows.find((x) => x.district_code === r.code)!;
       expect(row).toBeDefined();
-      expect(row).toMatchObject({ run_id: String(runId), run_state: 'published', data_hash: run.dataHash, software_version: run.softwareVersion, standing: r.standing.standing, status: r.status });
+      expect(row).toMatchObject({
+        run_id: String(runId),
+        run_state: 'published',
+        data_hash: run.dataHash,
+        software_version: run.softwareVersion,
+        standing: r.standing.standing,
+        status: r.status,
+      });
       // Full precision: the text reads back to the very double the run stored.
-      const same = (cell: string, v: number | null | undefined) => (v === null || v === undefined ? cell === '' : Number(cell) === v);
+      const same = (cell: string, v: number | null | undefined) =>
+        v === null || v === undefined ? cell === '' : Number(cell) === v;
       expect(same(row.threshold, r.threshold?.level)).toBe(true);
       expect(same(row.gap_percent, r.gapPercent)).toBe(true);
       expect(same(row.elasticity, r.elasticity?.value)).toBe(true);
@@ -120,7 +131,14 @@ describe('run export as CSV', () => {
         expect(same(row.fieller_hi, r.threshold!.fieller.levelHi)).toBe(true);
         expect(row.fieller_lower_ray_ends_at).toBe('');
       } else {
-        expect([row.fieller_lo, row.fieller_hi, row.interval_lo, row.interval_hi, row.delta_lo, row.delta_hi]).toEqual(['', '', '', '', '', '']);
+        expect([row.fieller_lo, row.fieller_hi, row.interval_lo, row.interval_hi, row.delta_lo, row.delta_hi]).toEqual([
+          '',
+          '',
+          '',
+          '',
+          '',
+          '',
+        ]);
         if (kind === 'two_rays') expect(same(row.fieller_upper_ray_starts_at, r.threshold!.fieller.levelHi)).toBe(true);
       }
     }
@@ -142,7 +160,10 @@ describe('run export as CSV', () => {
     expect(negative).toBeDefined();
     expect(Number(negative!.elasticity)).toBeLessThan(0);
     // No text cell anywhere starts with a formula character.
-    for (const r of rows) for (const [k, v] of Object.entries(r)) if (/^[=+@]/.test(v) || (/^-/.test(v) && Number.isNaN(Number(v)))) throw new Error(`${r.district_code}.${k} = ${v}`);
+    for (const r of rows)
+      for (const [k, v] of Object.entries(r))
+        if (/^[=+@]/.test(v) || (/^-/.test(v) && Number.isNaN(Number(v))))
+          throw new Error(`${r.district_code}.${k} = ${v}`);
   });
 
   it('refuses runs that have nothing to export', async () => {

@@ -38,7 +38,10 @@ describe('GET /api/health', () => {
   });
 
   it('refuses malformed JSON with a 400 in the error shape', async () => {
-    const res = await request(testApp(t.db)).post('/api/districts').set('content-type', 'application/json').send('{"a":');
+    const res = await request(testApp(t.db))
+      .post('/api/districts')
+      .set('content-type', 'application/json')
+      .send('{"a":');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('malformed_json');
   });
@@ -59,6 +62,8 @@ describe('GET /api/openapi.json', () => {
     expect(res.body.paths['/api/districts/{code}'].get.parameters).toEqual([
       expect.objectContaining({ name: 'code', in: 'path', required: true }),
     ]);
-    expect(Object.keys(res.body.paths)).toEqual(expect.arrayContaining(['/api/health', '/api/districts', '/api/openapi.json']));
+    expect(Object.keys(res.body.paths)).toEqual(
+      expect.arrayContaining(['/api/health', '/api/districts', '/api/openapi.json']),
+    );
   });
 });

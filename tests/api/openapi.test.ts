@@ -11,7 +11,10 @@ afterAll(async () => t.drop());
 
 type Operation = { responses: Record<string, { content?: Record<string, { schema?: unknown }> }> };
 
-async function openApi(): Promise<{ paths: Record<string, Record<string, Operation>>; components: { schemas: Record<string, unknown> } }> {
+async function openApi(): Promise<{
+  paths: Record<string, Record<string, Operation>>;
+  components: { schemas: Record<string, unknown> };
+}> {
   const res = await request(testApp(t.db)).get('/api/openapi.json');
   expect(res.status).toBe(200);
   return res.body;
@@ -43,7 +46,10 @@ describe('GET /api/openapi.json', () => {
           return media.some(([type, m]) => type !== 'application/json' && m.schema !== undefined);
         });
         // Signing in with Google answers with redirects only (to Google, then back into the app).
-        const redirect = ok.length === 0 && Object.keys(op.responses).some((s) => /^3\d\d$/.test(s)) && path.startsWith('/api/auth/google');
+        const redirect =
+          ok.length === 0 &&
+          Object.keys(op.responses).some((s) => /^3\d\d$/.test(s)) &&
+          path.startsWith('/api/auth/google');
         if (!described && !redirect) missing.push(`${method.toUpperCase()} ${path}`);
       }
     }
@@ -55,9 +61,13 @@ describe('GET /api/openapi.json', () => {
 
   it('takes answers from the contracts as named components', async () => {
     const doc = await openApi();
-    const estimate = doc.paths['/api/districts/{code}/estimate'].get.responses['200'].content!['application/json'].schema;
+    const estimate =
+      doc.paths['/api/districts/{code}/estimate'].get.responses['200'].content!['application/json'].schema;
     expect(estimate).toEqual({ $ref: '#/components/schemas/DistrictEstimateResponse' });
-    const component = doc.components.schemas.DistrictEstimateResponse as { required: string[]; properties: Record<string, unknown> };
+    const component = doc.components.schemas.DistrictEstimateResponse as {
+      required: string[];
+      properties: Record<string, unknown>;
+    };
     expect(component.required).toEqual(expect.arrayContaining(['district', 'run', 'main', 'variants', 'note']));
     const pdf = doc.paths['/api/briefs/region.pdf'].get.responses['200'].content!;
     expect(Object.keys(pdf)).toEqual(['application/pdf']);

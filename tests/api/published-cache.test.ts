@@ -44,7 +44,10 @@ describe('published answers', () => {
   it('carry their version as an ETag, answer 304 to a device that holds it, and change with a publish and a note', async () => {
     const official = (await signInAs(server, DEMO.official)).agent;
     const analyst = (await signInAs(server, DEMO.analyst)).agent;
-    const tags = async () => Object.fromEntries(await Promise.all(PUBLISHED_PATHS.map(async (p) => [p, (await official.get(p)).headers.etag as string])));
+    const tags = async () =>
+      Object.fromEntries(
+        await Promise.all(PUBLISHED_PATHS.map(async (p) => [p, (await official.get(p)).headers.etag as string])),
+      );
 
     const before = await tags();
     for (const p of PUBLISHED_PATHS) {
@@ -62,7 +65,9 @@ describe('published answers', () => {
     expect((await analyst.post(`/api/runs/${run.id}/publish`).send({})).status).toBe(200);
     const published = await tags();
     for (const p of PUBLISHED_PATHS) expect(published[p]).not.toBe(before[p]);
-    const card = await official.get('/api/districts/D13/estimate').set('If-None-Match', before['/api/districts/D13/estimate']);
+    const card = await official
+      .get('/api/districts/D13/estimate')
+      .set('If-None-Match', before['/api/districts/D13/estimate']);
     expect(card.status).toBe(200);
     expect(card.body.run.id).toBe(run.id);
 
@@ -88,7 +93,10 @@ describe('published answers', () => {
 describe('the signed-in person', () => {
   it('a role change through the people screen reaches the guard at once', async () => {
     const admin = (await signInAs(server, DEMO.admin)).agent;
-    const [person] = await t.db('users').insert({ email: 'mover@crestwatch.example', name: 'Mover', role: 'analyst', active: true }).returning('id');
+    const [person] = await t
+      .db('users')
+      .insert({ email: 'mover@crestwatch.example', name: 'Mover', role: 'analyst', active: true })
+      .returning('id');
     const mover = (await signInAs(server, 'mover@crestwatch.example')).agent;
     expect((await mover.get('/api/runs')).status).toBe(200);
     expect((await admin.patch(`/api/people/${person.id}`).send({ role: 'official' })).status).toBe(200);
@@ -96,7 +104,10 @@ describe('the signed-in person', () => {
   });
 
   it('a change made outside this process takes effect within 5 s', async () => {
-    const [person] = await t.db('users').insert({ email: 'far@crestwatch.example', name: 'Far', role: 'analyst', active: true }).returning('id');
+    const [person] = await t
+      .db('users')
+      .insert({ email: 'far@crestwatch.example', name: 'Far', role: 'analyst', active: true })
+      .returning('id');
     const far = (await signInAs(server, 'far@crestwatch.example')).agent;
     expect((await far.get('/api/runs')).status).toBe(200);
     await t.db('users').where({ id: person.id }).update({ active: false });

@@ -40,14 +40,22 @@ beforeAll(async () => {
   app = testApp(t.db);
   server = await listen(app);
   admin = await signInAs(server, DEMO.admin);
-  const invited = await admin.agent.post('/api/people/invitations').send({ email: LEAVER, role: 'admin', name: LEAVER_NAME });
+  const invited = await admin.agent
+    .post('/api/people/invitations')
+    .send({ email: LEAVER, role: 'admin', name: LEAVER_NAME });
   expect(invited.status).toBe(201);
   leaverId = invited.body.user.id;
   leaver = await signInAs(server, LEAVER);
   expect((await leaver.agent.get('/api/me')).status).toBe(200);
-  expect((await leaver.agent.post('/api/subscriptions').send({ scope: 'region', delivery: 'instant' })).status).toBe(201);
+  expect((await leaver.agent.post('/api/subscriptions').send({ scope: 'region', delivery: 'instant' })).status).toBe(
+    201,
+  );
   expect((await leaver.agent.patch('/api/settings').send({ thresholdShiftPercent: 12 })).status).toBe(200);
-  const preview = await upload(leaver.agent, 'district_code,indicator,year,value\nD02,income_pc,2025,33333\n', 'leaver-preview.csv');
+  const preview = await upload(
+    leaver.agent,
+    'district_code,indicator,year,value\nD02,income_pc,2025,33333\n',
+    'leaver-preview.csv',
+  );
   expect(preview.status).toBe(200);
   expect((await admin.agent.patch(`/api/people/${leaverId}`).send({ role: 'analyst' })).status).toBe(200);
 });
@@ -81,15 +89,23 @@ describe('deleting a person', () => {
     expect((await leaver.agent.get('/api/me')).status).toBe(401);
     expect(await t.db('users').where({ id: leaverId }).first()).toBeUndefined();
     expect(await t.db('subscriptions').where({ user_id: leaverId }).first()).toBeUndefined();
-    const [{ n }] = await t.db('session').whereRaw(`sess->'passport'->>'user' = ?`, [String(leaverId)]).count<{ n: string }[]>({ n: '*' });
+    const [{ n }] = await t
+      .db('session')
+      .whereRaw(`sess->'passport'->>'user' = ?`, [String(leaverId)])
+      .count<{ n: string }[]>({ n: '*' });
     expect(Number(n)).toBe(0);
     // Nothing was removed from the log: one entry more (the deletion itself).
     expect(Number((await t.db('audit_log').count<{ n: string }[]>({ n: '*' }))[0].n)).toBe(entriesBefore + 1);
-    expect((await admin.agent.get('/api/people')).body.people.map((p: { email: string }) => p.email)).not.toContain(LEAVER);
+    expect((await admin.agent.get('/api/people')).body.people.map((p: { email: string }) => p.email)).not.toContain(
+      LEAVER,
+    );
   });
 
   it('keeps their audit entries under the pseudonym, with no trace of the address or name', async () => {
-    const deletion = await t.db('audit_log').where({ action: 'person.delete', target_id: String(leaverId) }).first('before', 'actor_email');
+    const deletion = await t
+      .db('audit_log')
+      .where({ action: 'person.delete', target_id: String(leaverId) })
+      .first('before', 'actor_email');
     const pseudonym = deletion.before.pseudonym as string;
     expect(deletion.actor_email).toBe(DEMO.admin);
 
@@ -118,7 +134,12 @@ describe('deleting a person', () => {
   });
 
   it('keeps the upload they previewed, under the pseudonym', async () => {
-    const pseudonym = (await t.db('audit_log').where({ action: 'person.delete', target_id: String(leaverId) }).first('before')).before.pseudonym;
+    const pseudonym = (
+      await t
+        .db('audit_log')
+        .where({ action: 'person.delete', target_id: String(leaverId) })
+        .first('before')
+    ).before.pseudonym;
     const rows = await t.db('uploads').where({ file_name: 'leaver-preview.csv' }).select('user_id', 'user_email');
     expect(rows).toEqual([{ user_id: null, user_email: pseudonym }]);
   });
@@ -127,7 +148,10 @@ describe('deleting a person', () => {
     const { rows: tables } = await t.db.raw(`SELECT tablename FROM pg_tables WHERE schemaname = 'public' ORDER BY 1`);
     const holding: string[] = [];
     for (const { tablename } of tables as { tablename: string }[]) {
-      const { rows } = await t.db.raw(`SELECT count(*)::int AS n FROM "${tablename}" x WHERE position(lower(?) IN lower(x::text)) > 0`, [LEAVER]);
+      const { rows } = await t.db.raw(
+        `SELECT count(*)::int AS n FROM "${tablename}" x WHERE position(lower(?) IN lower(x::text)) > 0`,
+        [LEAVER],
+      );
       if (rows[0].n > 0) holding.push(`${tablename}: ${rows[0].n}`);
     }
     expect(holding).toEqual([]);

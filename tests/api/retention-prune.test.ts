@@ -33,7 +33,12 @@ async function userId(email: string): Promise<number> {
   return Number((await t.db('users').where({ email }).first('id')).id);
 }
 
-async function insertMail(key: string, status: string, createdDaysAgo: number, sentDaysAgo: number | null): Promise<number> {
+async function insertMail(
+  key: string,
+  status: string,
+  createdDaysAgo: number,
+  sentDaysAgo: number | null,
+): Promise<number> {
   const [r] = await t
     .db('outbox')
     .insert({
@@ -52,7 +57,13 @@ async function insertMail(key: string, status: string, createdDaysAgo: number, s
 async function insertAlert(districtId: number, runId: number, kind: string, createdDaysAgo: number): Promise<number> {
   const [r] = await t
     .db('alerts')
-    .insert({ run_id: runId, district_id: districtId, kind, details: JSON.stringify({}), created_at: ago(createdDaysAgo) })
+    .insert({
+      run_id: runId,
+      district_id: districtId,
+      kind,
+      details: JSON.stringify({}),
+      created_at: ago(createdDaysAgo),
+    })
     .returning('id');
   return Number(r.id);
 }
@@ -70,11 +81,24 @@ beforeAll(async () => {
 
   const [spec] = await t
     .db('model_specs')
-    .insert({ name: 'retention test', emissions_indicator: 'co2', driver_indicator: 'gdp', form: 'quadratic', transform: 'log', covariance: 'hc1' })
+    .insert({
+      name: 'retention test',
+      emissions_indicator: 'co2',
+      driver_indicator: 'gdp',
+      form: 'quadratic',
+      transform: 'log',
+      covariance: 'hc1',
+    })
     .returning('id');
   const [run] = await t
     .db('runs')
-    .insert({ spec_id: spec.id, spec: JSON.stringify({}), state: 'published', software_version: 'test', published_at: ago(400) })
+    .insert({
+      spec_id: spec.id,
+      spec: JSON.stringify({}),
+      state: 'published',
+      software_version: 'test',
+      published_at: ago(400),
+    })
     .returning('id');
   const [district] = await t.db('districts').insert({ code: 'R01', name: 'Retention Reach' }).returning('id');
   const d = Number(district.id);
@@ -133,7 +157,11 @@ describe('the retention job', () => {
     await workIn(app.locals.ctx, jobs);
     await jobs.send(QUEUES.retention, {});
     jobs.notify(QUEUES.retention);
-    await until('the retention job', async () => Boolean(await t.db('audit_log').where({ action: 'retention.prune' }).first('id')), 30_000);
+    await until(
+      'the retention job',
+      async () => Boolean(await t.db('audit_log').where({ action: 'retention.prune' }).first('id')),
+      30_000,
+    );
 
     expect(await t.db('session').where({ sid: 'expired-yesterday' }).first()).toBeUndefined();
     expect(await t.db('session').where({ sid: 'valid-tomorrow' }).first()).toBeDefined();
@@ -149,7 +177,13 @@ describe('the retention job', () => {
 
     const entry = await t.db('audit_log').where({ action: 'retention.prune' }).first('actor_id', 'after');
     expect(entry.actor_id).toBeNull();
-    expect(entry.after).toMatchObject({ sessions: 1, mail: 2, alerts: 1, sentMailRetentionDays: 90, unreadAlertRetentionDays: 365 });
+    expect(entry.after).toMatchObject({
+      sessions: 1,
+      mail: 2,
+      alerts: 1,
+      sentMailRetentionDays: 90,
+      unreadAlertRetentionDays: 365,
+    });
   });
 
   it('a second pass finds nothing more and writes no audit entry', async () => {
@@ -159,7 +193,9 @@ describe('the retention job', () => {
   });
 
   it('follows a shorter setting an admin saves', async () => {
-    const res = await admin.agent.patch('/api/settings').send({ sentMailRetentionDays: 5, unreadAlertRetentionDays: 7 });
+    const res = await admin.agent
+      .patch('/api/settings')
+      .send({ sentMailRetentionDays: 5, unreadAlertRetentionDays: 7 });
     expect(res.status).toBe(200);
     // 10-day sent mail is now past 5 days; the 30-day unread alert past 7; the read alert stays.
     expect(await pruneExpired(t.db, new Date(NOW))).toEqual({ sessions: 0, mail: 1, alerts: 1 });

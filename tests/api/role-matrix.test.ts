@@ -53,7 +53,9 @@ afterAll(async () => {
 /** Paths of every route Express actually has, as "METHOD /path". */
 function mountedRoutes(a: CrestwatchApp): string[] {
   const out: string[] = [];
-  const walk = (stack: { route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: unknown[] } }[]) => {
+  const walk = (
+    stack: { route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: unknown[] } }[],
+  ) => {
     for (const layer of stack) {
       if (layer.route) {
         for (const m of Object.keys(layer.route.methods)) out.push(`${m.toUpperCase()} ${layer.route.path}`);
@@ -130,9 +132,13 @@ describe('role matrix', () => {
         const res = await agent[route.method](samplePath(route.path)).send(route.method === 'get' ? undefined : {});
         const want = expected(route, who);
         // 'allowed' means the guard let it through and the route answered without failing: a 500 is not allowed.
-        const ok = want === 'allowed' ? res.status !== 401 && res.status !== 403 && res.status < 500 : res.status === want;
+        const ok =
+          want === 'allowed' ? res.status !== 401 && res.status !== 403 && res.status < 500 : res.status === want;
         checked++;
-        if (!ok) failures.push(`${key(route)} as ${who}: expected ${want}, got ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
+        if (!ok)
+          failures.push(
+            `${key(route)} as ${who}: expected ${want}, got ${res.status} ${JSON.stringify(res.body?.error ?? '')}`,
+          );
       }
     }
     expect(failures).toEqual([]);

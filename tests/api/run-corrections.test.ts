@@ -4,10 +4,26 @@ import type { EstimateRecord } from '../../api/runs/estimate-record';
 // The listing of published answers that change when a run is reproduced with corrected
 // software (issue: what officials already saw). Pure function; the records are invented.
 
-function record(code: string, standing: string, threshold: number | null, lo: number | null, hi: number | null, status: EstimateRecord['status'] = 'ok') {
+function record(
+  code: string,
+  standing: string,
+  threshold: number | null,
+  lo: number | null,
+  hi: number | null,
+  status: EstimateRecord['status'] = 'ok',
+) {
   return {
-    code, name: `District ${code}`, status,
-    standing: { standing, intervalMethod: 'fieller', intervalBounded: lo !== null, levelLo: lo, levelHi: hi, note: null },
+    code,
+    name: `District ${code}`,
+    status,
+    standing: {
+      standing,
+      intervalMethod: 'fieller',
+      intervalBounded: lo !== null,
+      levelLo: lo,
+      levelHi: hi,
+      note: null,
+    },
     threshold: threshold === null ? null : { level: threshold },
   } as unknown as EstimateRecord & { code: string; name: string };
 }
@@ -35,6 +51,9 @@ describe('answerChanges', () => {
 
   test('a district in only one run is listed with the other side null', () => {
     const changes = answerChanges([record('D01', 'at_turn', 1, 0.5, 2)], [record('D09', 'at_turn', 1, 0.5, 2)]);
-    expect(changes.map((c) => [c.code, c.before === null, c.after === null])).toEqual([['D01', false, true], ['D09', true, false]]);
+    expect(changes.map((c) => [c.code, c.before === null, c.after === null])).toEqual([
+      ['D01', false, true],
+      ['D09', true, false],
+    ]);
   });
 });

@@ -31,7 +31,11 @@ beforeAll(async () => {
   // A queued run of the default spec (no worker picks it up here).
   const config = loadConfig({ CRESTWATCH_MODE: 'test' });
   jobs = await testJobs(t.url);
-  const run = await startRun({ db: t.db, config, log: () => {}, mailer: createMailer(config), jobs, compute: createComputePool(0) }, null, {});
+  const run = await startRun(
+    { db: t.db, config, log: () => {}, mailer: createMailer(config), jobs, compute: createComputePool(0) },
+    null,
+    {},
+  );
   runId = run.id;
   runSpec = run.spec;
 });
@@ -45,12 +49,19 @@ async function fittedRows() {
   const pooled = fitPooled(series, runSpec);
   const ok = pooled.status === 'ok' ? (pooled as Exclude<typeof pooled, { status: 'failed' }>) : null;
   return series.slice(0, 3).flatMap((s) =>
-    fitDistrict({ spec: runSpec.model, controls: runSpec.selection.controls }, s.data, ok as never).map((record) => ({ districtId: s.districtId, record })),
+    fitDistrict({ spec: runSpec.model, controls: runSpec.selection.controls }, s.data, ok as never).map((record) => ({
+      districtId: s.districtId,
+      record,
+    })),
   );
 }
 
 const stored = async () =>
-  (await t.db('run_estimates').where({ run_id: runId }).orderBy(['district_id', 'variant']).select('district_id', 'variant', 'standing', 'threshold', 'result')) as {
+  (await t
+    .db('run_estimates')
+    .where({ run_id: runId })
+    .orderBy(['district_id', 'variant'])
+    .select('district_id', 'variant', 'standing', 'threshold', 'result')) as {
     district_id: number;
     variant: string;
     standing: string;
@@ -94,7 +105,20 @@ describe('compact records', () => {
       // Fields dropped from every record (estimate-record.ts).
       for (const k of ['standardErrors', 'pValues', 'residualStandardError']) expect(record).not.toHaveProperty(k);
       if (record.variant === 'main') continue;
-      expect(record).toMatchObject({ terms: [], coefficients: [], rSquared: null, turningPoints: [], uTest: null, wald: null, elasticity: null, trendPerYear: null, points: [], curve: [], pooledCurve: [], diagnostics: null });
+      expect(record).toMatchObject({
+        terms: [],
+        coefficients: [],
+        rSquared: null,
+        turningPoints: [],
+        uTest: null,
+        wald: null,
+        elasticity: null,
+        trendPerYear: null,
+        points: [],
+        curve: [],
+        pooledCurve: [],
+        diagnostics: null,
+      });
     }
     const main = rows.find((r) => r.record.variant === 'main' && r.record.status === 'ok')!.record;
     expect(main.coefficients.length).toBeGreaterThan(0);
@@ -108,7 +132,18 @@ describe('packSeries / unpackSeries', () => {
     expect(series.length).toBeGreaterThan(20); // the demo region's 24 districts
     // An invented district with a dropped year and awkward doubles.
     const c = runSpec.selection.controls[0];
-    series.push({ districtId: 999, code: 'ZZ9', name: 'Invented', data: { years: [2000, 2002], x: [0.1 + 0.2, 1e-300], y: [Math.PI, -0], controls: { [c]: [5e-324, 1.7976931348623157e308] }, droppedYears: [2001] } });
+    series.push({
+      districtId: 999,
+      code: 'ZZ9',
+      name: 'Invented',
+      data: {
+        years: [2000, 2002],
+        x: [0.1 + 0.2, 1e-300],
+        y: [Math.PI, -0],
+        controls: { [c]: [5e-324, 1.7976931348623157e308] },
+        droppedYears: [2001],
+      },
+    });
     const packed = JSON.parse(JSON.stringify(packSeries(series, runSpec.selection.controls)));
     expect(unpackSeries(packed, runSpec.selection.controls)).toEqual(series);
   });

@@ -66,10 +66,15 @@ it('survives a worker killed mid-run', async () => {
   const start = await analyst.post('/api/runs').send({});
   expect(start.status).toBe(202);
   const id = start.body.id;
-  await until('some chunks done', async () => {
-    const [{ count }] = await t.db('run_chunks').where({ run_id: id }).count<{ count: string }[]>({ count: '*' });
-    return Number(count) >= 3;
-  }, 60_000, 25);
+  await until(
+    'some chunks done',
+    async () => {
+      const [{ count }] = await t.db('run_chunks').where({ run_id: id }).count<{ count: string }[]>({ count: '*' });
+      return Number(count) >= 3;
+    },
+    60_000,
+    25,
+  );
   worker.kill('SIGKILL');
   await new Promise((r) => worker!.once('exit', r));
   worker = null;
@@ -84,11 +89,16 @@ it('survives a worker killed mid-run', async () => {
 
   // Another worker (here, this process) takes over; the lost job comes back after it expires.
   await workIn(app.locals.ctx, jobs);
-  const done = await until('run in review after the crash', async () => {
-    const r = (await analyst.get(`/api/runs/${id}`)).body;
-    if (r.state === 'failed') throw new Error(r.error);
-    return r.state === 'in_review' ? r : null;
-  }, 120_000, 500);
+  const done = await until(
+    'run in review after the crash',
+    async () => {
+      const r = (await analyst.get(`/api/runs/${id}`)).body;
+      if (r.state === 'failed') throw new Error(r.error);
+      return r.state === 'in_review' ? r : null;
+    },
+    120_000,
+    500,
+  );
   expect(done.progress.chunksDone).toBe(done.progress.chunksTotal);
 
   const counts = await t.db.raw(
@@ -99,6 +109,8 @@ it('survives a worker killed mid-run', async () => {
 
   const pub = await analyst.post(`/api/runs/${id}/publish`);
   expect(pub.status).toBe(200);
-  const dupes = await t.db.raw(`SELECT count(*)::int AS n FROM (SELECT run_id, district_id, kind FROM alerts GROUP BY 1, 2, 3 HAVING count(*) > 1) x`);
+  const dupes = await t.db.raw(
+    `SELECT count(*)::int AS n FROM (SELECT run_id, district_id, kind FROM alerts GROUP BY 1, 2, 3 HAVING count(*) > 1) x`,
+  );
   expect(dupes.rows[0].n).toBe(0);
 });

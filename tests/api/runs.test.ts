@@ -17,10 +17,26 @@ import { createMailer } from '../../api/mail/mailer';
 import { deliverOutbox } from '../../api/outbox/sender';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { defaultSpec } from '../../api/specs/service';
-import { AlertFeedResponseSchema, DistrictAlertsResponseSchema, SubscriptionAnswerSchema, SubscriptionsResponseSchema } from '../../contracts/alerts';
+import {
+  AlertFeedResponseSchema,
+  DistrictAlertsResponseSchema,
+  SubscriptionAnswerSchema,
+  SubscriptionsResponseSchema,
+} from '../../contracts/alerts';
 import { DistrictListResponseSchema } from '../../contracts/districts';
-import { DistrictEstimateResponseSchema, DistrictHistoryResponseSchema, RegionResponseSchema } from '../../contracts/estimates';
-import { DistrictReviewSchema, PublishAnswerSchema, ReviewResponseSchema, RunListResponseSchema, RunStartedSchema, RunViewSchema } from '../../contracts/runs';
+import {
+  DistrictEstimateResponseSchema,
+  DistrictHistoryResponseSchema,
+  RegionResponseSchema,
+} from '../../contracts/estimates';
+import {
+  DistrictReviewSchema,
+  PublishAnswerSchema,
+  ReviewResponseSchema,
+  RunListResponseSchema,
+  RunStartedSchema,
+  RunViewSchema,
+} from '../../contracts/runs';
 import { SpecsResponseSchema } from '../../contracts/settings';
 import { RevertAnswerSchema, UploadAnswerSchema, UploadListResponseSchema } from '../../contracts/uploads';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
@@ -69,7 +85,12 @@ async function runToReview(): Promise<number> {
   return run.id;
 }
 
-const mailsTo = async (email: string) => (await t.db('caught_mail').whereRaw('? = ANY(envelope_to)', [email]).select('*')) as { subject: string; text_body: string; message_id: string | null }[];
+const mailsTo = async (email: string) =>
+  (await t.db('caught_mail').whereRaw('? = ANY(envelope_to)', [email]).select('*')) as {
+    subject: string;
+    text_body: string;
+    message_id: string | null;
+  }[];
 
 describe('runs', () => {
   let firstRun: number;
@@ -80,8 +101,14 @@ describe('runs', () => {
     // A run that stays queued (no job is sent for it, so no worker can pick it up) makes
     // the refusal deterministic: the second start must be 409, whatever the workers do.
     const spec = await defaultSpec(t.db);
-    const [held] = await t.db('runs')
-      .insert({ spec_id: spec.id, spec: JSON.stringify({ savedSpecId: spec.id, name: spec.name }), trigger: 'manual', software_version: 'test' })
+    const [held] = await t
+      .db('runs')
+      .insert({
+        spec_id: spec.id,
+        spec: JSON.stringify({ savedSpecId: spec.id, name: spec.name }),
+        trigger: 'manual',
+        software_version: 'test',
+      })
       .returning('id');
     const refused = await analyst.post('/api/runs').send({});
     expect(refused.status).toBe(409);
@@ -93,7 +120,10 @@ describe('runs', () => {
     expect(a.status).toBe(202);
     const early = await analyst.get(`/api/runs/${a.body.id}/review`);
     if ((await analyst.get(`/api/runs/${a.body.id}`)).body.state !== 'in_review') expect(early.status).toBe(409);
-    await until('first run in review', async () => (await analyst.get(`/api/runs/${a.body.id}`)).body.state === 'in_review');
+    await until(
+      'first run in review',
+      async () => (await analyst.get(`/api/runs/${a.body.id}`)).body.state === 'in_review',
+    );
     firstRun = a.body.id;
   });
 
@@ -103,7 +133,10 @@ describe('runs', () => {
     expect(view.pooled?.status).toBe('ok');
     const review = parseAnswer(ReviewResponseSchema, await analyst.get(`/api/runs/${firstRun}/review`));
     expect(review.districts).toHaveLength(24);
-    const [{ count }] = await t.db('run_estimates').where({ run_id: firstRun }).count<{ count: string }[]>({ count: '*' });
+    const [{ count }] = await t
+      .db('run_estimates')
+      .where({ run_id: firstRun })
+      .count<{ count: string }[]>({ count: '*' });
     expect(Number(count)).toBe(24 * 5);
     // D10 has 2018–2025 only (8 years < k + 5 = 9): the pooled curve stands in.
     const d10 = parseAnswer(DistrictReviewSchema, await analyst.get(`/api/runs/${firstRun}/districts/D10`));
@@ -114,7 +147,13 @@ describe('runs', () => {
     const d01main = d01.records.find((r) => r.variant === 'main');
     expect(d01main?.status).toBe('ok');
     expect(d01main?.diagnostics?.residualsByYear).toHaveLength(31);
-    expect(d01.records.map((r: { variant: string }) => r.variant).sort()).toEqual(['cubic', 'last20', 'level', 'main', 'no_controls']);
+    expect(d01.records.map((r: { variant: string }) => r.variant).sort()).toEqual([
+      'cubic',
+      'last20',
+      'level',
+      'main',
+      'no_controls',
+    ]);
   });
 
   it('publishes the first run without alerts (nothing to compare with)', async () => {
@@ -129,8 +168,15 @@ describe('runs', () => {
   it('the demo income revision moves Mirefield Uplands across its band: one crossing alert, one mail per subscriber', async () => {
     const subscribed = await official.post('/api/subscriptions').send({ scope: 'region', delivery: 'instant' });
     expect(subscribed.status).toBe(201);
-    expect(parseAnswer(SubscriptionAnswerSchema, subscribed).subscription).toMatchObject({ scope: 'region', delivery: 'instant' });
-    const review = (await analyst.get(`/api/runs/${firstRun}/review`)).body.districts as { code: string; standing: string; threshold: number }[];
+    expect(parseAnswer(SubscriptionAnswerSchema, subscribed).subscription).toMatchObject({
+      scope: 'region',
+      delivery: 'instant',
+    });
+    const review = (await analyst.get(`/api/runs/${firstRun}/review`)).body.districts as {
+      code: string;
+      standing: string;
+      threshold: number;
+    }[];
     // The demo region is built so that D13 has fallen back below its turn in a downturn.
     const candidate = review.find((d) => d.code === 'D13');
     expect(candidate?.standing).toBe('approaching');
@@ -140,7 +186,9 @@ describe('runs', () => {
     expect(parseAnswer(UploadAnswerSchema, up).noop).toBe(false);
 
     secondRun = await runToReview();
-    const row = (await analyst.get(`/api/runs/${secondRun}/review`)).body.districts.find((d: { code: string }) => d.code === candidate!.code);
+    const row = (await analyst.get(`/api/runs/${secondRun}/review`)).body.districts.find(
+      (d: { code: string }) => d.code === candidate!.code,
+    );
     expect(row.change.standingChanged).toBe(true);
     crossing = { code: candidate!.code, from: candidate!.standing, to: row.standing };
     expect(crossing).toEqual({ code: 'D13', from: 'approaching', to: 'past_turn' });
@@ -152,12 +200,20 @@ describe('runs', () => {
     const crossings = feed.filter((a) => a.kind === 'crossing' && a.districtCode === crossing.code);
     expect(crossings).toHaveLength(1);
     expect(crossings[0].read).toBe(false);
-    await until('crossing mail', async () => (await mailsTo(DEMO.official)).some((m) => m.text_body.includes(`(${crossing.code})`) && /threshold band/.test(m.subject)));
-    const mails = (await mailsTo(DEMO.official)).filter((m) => /threshold band/.test(m.subject) && m.text_body.includes(`(${crossing.code})`));
+    await until('crossing mail', async () =>
+      (await mailsTo(DEMO.official)).some(
+        (m) => m.text_body.includes(`(${crossing.code})`) && /threshold band/.test(m.subject),
+      ),
+    );
+    const mails = (await mailsTo(DEMO.official)).filter(
+      (m) => /threshold band/.test(m.subject) && m.text_body.includes(`(${crossing.code})`),
+    );
     expect(mails).toHaveLength(1);
     expect(mails[0].text_body).toMatch(/Stop these e-mails: http:\/\/.*\/api\/subscriptions\/unsubscribe\?token=/);
     expect((await official.post(`/api/alerts/${crossings[0].id}/read`)).status).toBe(204);
-    expect((await official.get('/api/alerts')).body.alerts.find((a: { id: number }) => a.id === crossings[0].id).read).toBe(true);
+    expect(
+      (await official.get('/api/alerts')).body.alerts.find((a: { id: number }) => a.id === crossings[0].id).read,
+    ).toBe(true);
   });
 
   it('explains the move as a data revision under an unchanged spec', async () => {
@@ -192,24 +248,44 @@ describe('runs', () => {
     const original = (await analyst.get(`/api/runs/${firstRun}`)).body;
     expect(view.dataHash).toBe(original.dataHash);
     expect(view.dataVersion).toBe(original.dataVersion);
-    expect(view.reproduction).toEqual({ of: firstRun, identical: true, differences: 0, softwareChanged: false, originalSoftware: expect.any(String), changedAnswers: [] });
+    expect(view.reproduction).toEqual({
+      of: firstRun,
+      identical: true,
+      differences: 0,
+      softwareChanged: false,
+      originalSoftware: expect.any(String),
+      changedAnswers: [],
+    });
     // The current data differ from the first run's (the revision): reading as of the old version matters.
     expect(view.dataVersion).toBeLessThan((await analyst.get(`/api/runs/${secondRun}`)).body.dataVersion);
   });
 
-  it('answers the published run\'s readers with their contracts: region, district list, card, history, alerts, subscriptions, runs, specs', async () => {
+  it("answers the published run's readers with their contracts: region, district list, card, history, alerts, subscriptions, runs, specs", async () => {
     const region = parseAnswer(RegionResponseSchema, await official.get('/api/region'));
-    const latest = Math.max(...parseAnswer(RunListResponseSchema, await analyst.get('/api/runs')).runs.filter((r) => r.state === 'published').map((r) => r.id));
+    const latest = Math.max(
+      ...parseAnswer(RunListResponseSchema, await analyst.get('/api/runs'))
+        .runs.filter((r) => r.state === 'published')
+        .map((r) => r.id),
+    );
     expect(region.run?.id).toBe(latest);
     expect(region.districts).toHaveLength(24);
     const list = parseAnswer(DistrictListResponseSchema, await official.get('/api/districts'));
     expect(list.districts.find((d) => d.code === crossing.code)?.estimate?.standing).toBe(crossing.to);
-    const card = parseAnswer(DistrictEstimateResponseSchema, await official.get(`/api/districts/${crossing.code}/estimate`));
+    const card = parseAnswer(
+      DistrictEstimateResponseSchema,
+      await official.get(`/api/districts/${crossing.code}/estimate`),
+    );
     expect(card.main?.standing.standing).toBe(crossing.to);
     expect(card.run?.model.level).toBeGreaterThan(0);
-    const history = parseAnswer(DistrictHistoryResponseSchema, await official.get(`/api/districts/${crossing.code}/history`));
+    const history = parseAnswer(
+      DistrictHistoryResponseSchema,
+      await official.get(`/api/districts/${crossing.code}/history`),
+    );
     expect(history.history.map((h) => h.runId)).toEqual(expect.arrayContaining([secondRun, firstRun]));
-    const alerts = parseAnswer(DistrictAlertsResponseSchema, await official.get(`/api/districts/${crossing.code}/alerts`));
+    const alerts = parseAnswer(
+      DistrictAlertsResponseSchema,
+      await official.get(`/api/districts/${crossing.code}/alerts`),
+    );
     expect(alerts.alerts.some((a) => a.kind === 'crossing')).toBe(true);
     const subscriptions = parseAnswer(SubscriptionsResponseSchema, await official.get('/api/subscriptions'));
     expect(subscriptions.subscriptions).toHaveLength(1);
@@ -220,10 +296,13 @@ describe('runs', () => {
   });
 
   it('holds mail while SMTP is down and delivers each exactly once when it is back', async () => {
-    await official.post('/api/subscriptions').send({ scope: 'districts', districtCodes: [crossing.code], delivery: 'digest' });
+    await official
+      .post('/api/subscriptions')
+      .send({ scope: 'districts', districtCodes: [crossing.code], delivery: 'digest' });
     const port = catcher.port;
     await catcher.stop();
-    const back = await t.db('observations as o')
+    const back = await t
+      .db('observations as o')
       .join('districts as d', 'd.id', 'o.district_id')
       .join('indicators as i', 'i.id', 'o.indicator_id')
       .where({ 'd.code': crossing.code, 'i.code': 'income_pc' })
@@ -241,14 +320,22 @@ describe('runs', () => {
     expect(pub.body.mails).toBeGreaterThanOrEqual(2);
     const pending = await until('failed attempts', async () => {
       const rows = await t.db('outbox').where({ run_id: run }).select('*');
-      return rows.length && rows.every((r: { attempts: number; status: string }) => r.attempts >= 1 && r.status === 'pending') ? rows : null;
+      return rows.length &&
+        rows.every((r: { attempts: number; status: string }) => r.attempts >= 1 && r.status === 'pending')
+        ? rows
+        : null;
     });
     catcher = await startMailCatcher(t.db, port);
-    await until('delivery after SMTP is back', async () => {
-      await deliverOutbox(app.locals.ctx);
-      const rows = await t.db('outbox').where({ run_id: run }).select('status');
-      return rows.every((r: { status: string }) => r.status === 'sent');
-    }, 30_000, 500);
+    await until(
+      'delivery after SMTP is back',
+      async () => {
+        await deliverOutbox(app.locals.ctx);
+        const rows = await t.db('outbox').where({ run_id: run }).select('status');
+        return rows.every((r: { status: string }) => r.status === 'sent');
+      },
+      30_000,
+      500,
+    );
     await deliverOutbox(app.locals.ctx);
     // Each outbox row's Message-ID names the row: one arrival per row.
     for (const row of pending) {
@@ -259,12 +346,23 @@ describe('runs', () => {
 
   it('a reproduction on newer software lists the changed answers; once published, card and brief carry a dated correction', async () => {
     const latest = await t.db('runs').where({ state: 'published' }).orderBy('published_at', 'desc').first('id');
-    const target = await t.db('run_estimates as e').join('districts as d', 'd.id', 'e.district_id')
-      .where({ 'e.run_id': latest.id, 'e.variant': 'main', 'e.status': 'ok' }).whereNotNull('e.threshold').orderBy('d.code').first('d.code', 'e.district_id');
+    const target = await t
+      .db('run_estimates as e')
+      .join('districts as d', 'd.id', 'e.district_id')
+      .where({ 'e.run_id': latest.id, 'e.variant': 'main', 'e.status': 'ok' })
+      .whereNotNull('e.threshold')
+      .orderBy('d.code')
+      .first('d.code', 'e.district_id');
     // What an older engine published: another software version and, for one district, another threshold.
     await t.db('runs').where({ id: latest.id }).update({ software_version: '0.0.1-older' });
-    await t.db('run_estimates').where({ run_id: latest.id, district_id: target.district_id, variant: 'main' })
-      .update({ result: t.db.raw(`jsonb_set(result, '{threshold,level}', to_jsonb((result->'threshold'->>'level')::float8 * 1.5))`) });
+    await t
+      .db('run_estimates')
+      .where({ run_id: latest.id, district_id: target.district_id, variant: 'main' })
+      .update({
+        result: t.db.raw(
+          `jsonb_set(result, '{threshold,level}', to_jsonb((result->'threshold'->>'level')::float8 * 1.5))`,
+        ),
+      });
     const res = await analyst.post(`/api/runs/${latest.id}/reproduce`);
     expect(res.status).toBe(202);
     const view = await until('corrected reproduction in review', async () => {
@@ -274,12 +372,18 @@ describe('runs', () => {
     });
     expect(view.reproduction.softwareChanged).toBe(true);
     expect(view.reproduction.originalSoftware).toBe('0.0.1-older');
-    expect(view.reproduction.changedAnswers.map((c: { code: string; fields: string[] }) => [c.code, c.fields])).toEqual([[target.code, ['threshold']]]);
+    expect(view.reproduction.changedAnswers.map((c: { code: string; fields: string[] }) => [c.code, c.fields])).toEqual(
+      [[target.code, ['threshold']]],
+    );
     // not yet published: officials see no notice
     expect((await official.get(`/api/districts/${target.code}/estimate`)).body.correction).toBeNull();
     expect((await analyst.post(`/api/runs/${res.body.id}/publish`)).status).toBe(200);
     const card = (await official.get(`/api/districts/${target.code}/estimate`)).body;
-    expect(card.correction.text).toMatch(new RegExp(`^Threshold corrected in software version ${view.softwareVersion.replace(/\./g, '\\.')} on \\d{4}-\\d{2}-\\d{2} \\(first published with version 0\\.0\\.1-older\\)\\.$`));
+    expect(card.correction.text).toMatch(
+      new RegExp(
+        `^Threshold corrected in software version ${view.softwareVersion.replace(/\./g, '\\.')} on \\d{4}-\\d{2}-\\d{2} \\(first published with version 0\\.0\\.1-older\\)\\.$`,
+      ),
+    );
     const brief = (await official.get(`/api/briefs/district/${target.code}`)).body;
     expect(brief.correctionNotice).toBe(card.correction.text);
     const other = await t.db('districts').whereNot({ id: target.district_id }).orderBy('code').first('code');

@@ -63,7 +63,12 @@ export async function observationsChecksum(db: TestDatabase['db']): Promise<stri
   return rows[0].sum;
 }
 
-export async function storedValue(db: TestDatabase['db'], district: string, indicator: string, year: number): Promise<number | null> {
+export async function storedValue(
+  db: TestDatabase['db'],
+  district: string,
+  indicator: string,
+  year: number,
+): Promise<number | null> {
   const row = await db('observations as o')
     .join('districts as d', 'd.id', 'o.district_id')
     .join('indicators as i', 'i.id', 'o.indicator_id')

@@ -31,10 +31,19 @@ let tmp: string;
 beforeAll(async () => {
   w = await uploadWorld();
   // The derived-indicator file needs one derived indicator in the catalogue.
-  await w.analyst.post('/api/indicators').send({ code: 'co2_total', name: 'CO2 emissions', unit: 't CO2', mustBePositive: true }).expect(201);
   await w.analyst
     .post('/api/indicators')
-    .send({ code: 'co2_pc_derived', name: 'CO2 per person', unit: 't per person', mustBePositive: true, derivation: { kind: 'per_person', source: 'co2_total', divisor: 'population' } })
+    .send({ code: 'co2_total', name: 'CO2 emissions', unit: 't CO2', mustBePositive: true })
+    .expect(201);
+  await w.analyst
+    .post('/api/indicators')
+    .send({
+      code: 'co2_pc_derived',
+      name: 'CO2 per person',
+      unit: 't per person',
+      mustBePositive: true,
+      derivation: { kind: 'per_person', source: 'co2_total', divisor: 'population' },
+    })
     .expect(201);
   checksum = await observationsChecksum(w.t.db);
   districtsBefore = Number((await w.t.db('districts').count({ n: '*' }))[0].n);
@@ -47,7 +56,10 @@ afterAll(async () => {
 
 describe('the bad-input corpus', () => {
   it('has at least 30 files, each listed with what it must produce', () => {
-    const onDisk = fs.readdirSync(dir).filter((f) => f !== 'expected.json' && f !== 'README.md').sort();
+    const onDisk = fs
+      .readdirSync(dir)
+      .filter((f) => f !== 'expected.json' && f !== 'README.md')
+      .sort();
     expect(onDisk).toEqual(Object.keys(expected).sort());
     expect(onDisk.length).toBeGreaterThanOrEqual(30);
   });
@@ -58,9 +70,14 @@ describe('the bad-input corpus', () => {
       const res = await upload(w.analyst, content, name, { ...e.options, commit });
       expect([name, commit, res.status]).toEqual([name, commit, e.status]);
       expect(res.body.error.code).toBe('upload_rejected');
-      const problems: { line: number | null; column: number | null; code: string; severity: string; reason: string }[] = res.body.error.details.problems;
+      const problems: { line: number | null; column: number | null; code: string; severity: string; reason: string }[] =
+        res.body.error.details.problems;
       const firstError = problems.find((p) => p.severity === 'error')!;
-      expect({ code: firstError.code, line: firstError.line, column: firstError.column }).toEqual({ code: e.code, line: e.line, column: e.column });
+      expect({ code: firstError.code, line: firstError.line, column: firstError.column }).toEqual({
+        code: e.code,
+        line: e.line,
+        column: e.column,
+      });
       for (const a of e.also ?? []) expect(problems).toContainEqual(expect.objectContaining(a));
       const message: string = res.body.error.message;
       if (e.line !== null) expect(message).toContain(`ine ${e.line}`);
@@ -75,7 +92,10 @@ describe('the bad-input corpus', () => {
     const file = path.join(tmp, 'sixty-megabytes.csv');
     const out = fs.openSync(file, 'w');
     fs.writeSync(out, 'district_code,indicator,year,value\n');
-    const block = Array.from({ length: 10_000 }, (_, i) => `D${String((i % 24) + 1).padStart(2, '0')},population,${1900 + (i % 120)},${100000 + i}\n`).join('');
+    const block = Array.from(
+      { length: 10_000 },
+      (_, i) => `D${String((i % 24) + 1).padStart(2, '0')},population,${1900 + (i % 120)},${100000 + i}\n`,
+    ).join('');
     let size = 0;
     while (size < 60 * 1024 * 1024) size += fs.writeSync(out, block);
     fs.closeSync(out);

@@ -27,7 +27,8 @@ function bigCsv(value = valueOf): string {
   let out = 'district_code,district_name,indicator,year,value\n';
   for (let d = 1; d <= DISTRICTS; d++) {
     for (let k = 0; k < INDICATORS.length; k++) {
-      for (let y = 1976; y <= 2025; y++) out += `Q${String(d).padStart(4, '0')},Bulk district ${d},${INDICATORS[k]},${y},${value(d, k, y)}\n`;
+      for (let y = 1976; y <= 2025; y++)
+        out += `Q${String(d).padStart(4, '0')},Bulk district ${d},${INDICATORS[k]},${y},${value(d, k, y)}\n`;
     }
   }
   return out;
@@ -64,7 +65,9 @@ describe('a first load large enough for the bulk path', () => {
     expect(counted[0]).toEqual({ n: rows, mine: rows });
     // Doubles through the file, staging and the merge: the value as the file wrote it.
     expect(await storedValue(w.t.db, 'Q0007', 'income_pc', 1990)).toBe(valueOf(7, 1, 1990));
-    expect(await storedValue(w.t.db, `Q${String(DISTRICTS).padStart(4, '0')}`, 'pop_density', 2025)).toBe(valueOf(DISTRICTS, 3, 2025));
+    expect(await storedValue(w.t.db, `Q${String(DISTRICTS).padStart(4, '0')}`, 'pop_density', 2025)).toBe(
+      valueOf(DISTRICTS, 3, 2025),
+    );
     expect(await foreignKeys()).toEqual(KEYS);
   });
 

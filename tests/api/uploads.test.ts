@@ -9,7 +9,12 @@ import { generateDemoRegion } from '../../api/demo/generate';
 import { withConnection } from '../../api/db/connection';
 import { pruneStaging, STAGING_TTL_HOURS } from '../../api/uploads/staging-store';
 import { DataVersionSchema, DistrictObservationsResponseSchema } from '../../contracts/districts';
-import { RevertAnswerSchema, UploadAnswerSchema, UploadListResponseSchema, UploadRejectionDetailsSchema } from '../../contracts/uploads';
+import {
+  RevertAnswerSchema,
+  UploadAnswerSchema,
+  UploadListResponseSchema,
+  UploadRejectionDetailsSchema,
+} from '../../contracts/uploads';
 import { parseAnswer } from '../support/contract';
 import { observationsChecksum, storedValue, upload, uploadWorld, type UploadWorld } from './upload-helpers';
 
@@ -17,7 +22,8 @@ const demoDir = path.resolve(__dirname, '..', '..', 'assets', 'demo-data');
 const demoLong = fs.readFileSync(path.join(demoDir, 'demo-long.csv'));
 const demoWide = fs.readFileSync(path.join(demoDir, 'demo-wide.csv'));
 const seeded = generateDemoRegion();
-const seededValue = (d: string, ind: string, y: number) => seeded.observations.find((o) => o.districtCode === d && o.indicator === ind && o.year === y)?.value;
+const seededValue = (d: string, ind: string, y: number) =>
+  seeded.observations.find((o) => o.districtCode === d && o.indicator === ind && o.year === y)?.value;
 
 let w: UploadWorld;
 beforeAll(async () => {
@@ -31,10 +37,21 @@ describe('POST /api/uploads (long format, dry run then commit)', () => {
     const res = await upload(w.analyst, demoLong, 'demo-long.csv');
     expect(res.status).toBe(200);
     expect(parseAnswer(UploadAnswerSchema, res).noop).toBe(false);
-    expect(res.body.upload).toMatchObject({ status: 'previewed', kind: 'file', format: 'long', fileName: 'demo-long.csv', canCommit: true });
+    expect(res.body.upload).toMatchObject({
+      status: 'previewed',
+      kind: 'file',
+      format: 'long',
+      fileName: 'demo-long.csv',
+      canCommit: true,
+    });
     const p = res.body.preview;
     // Expected counts: each row of the file against the seeded value for its key.
-    const rows = demoLong.toString('utf8').trim().split('\n').slice(1).map((l) => l.split(','));
+    const rows = demoLong
+      .toString('utf8')
+      .trim()
+      .split('\n')
+      .slice(1)
+      .map((l) => l.split(','));
     const kind = ([d, ind, y, v]: string[]) => {
       const stored = seededValue(d, ind, Number(y));
       return stored === undefined ? 'insert' : stored === Number(v) ? 'unchanged' : 'change';
@@ -44,11 +61,20 @@ describe('POST /api/uploads (long format, dry run then commit)', () => {
     expect(p.rowsRead).toBe(rows.length);
     expect(p.totals).toEqual(totals);
     // The file fills D09's missing year 2008 and adds industry_share before 2015 for D01–D04.
-    expect(p.byIndicator.find((i: { indicator: string }) => i.indicator === 'industry_share')).toMatchObject({ insert: 20, change: 0, unchanged: 0 });
+    expect(p.byIndicator.find((i: { indicator: string }) => i.indicator === 'industry_share')).toMatchObject({
+      insert: 20,
+      change: 0,
+      unchanged: 0,
+    });
     const d09 = p.byDistrict.find((d: { district: string }) => d.district === 'D09');
     expect(d09).toMatchObject({ insert: 4, change: 0, unchanged: 0, isNew: false, name: 'Ironbeck' });
     const d01 = rows.find((r) => r[0] === 'D01' && r[1] === 'emissions_pc')!;
-    expect(p.byDistrict.find((d: { district: string }) => d.district === 'D01').indicators.emissions_pc).toEqual({ insert: 0, change: 0, unchanged: 0, [kind(d01)]: 1 });
+    expect(p.byDistrict.find((d: { district: string }) => d.district === 'D01').indicators.emissions_pc).toEqual({
+      insert: 0,
+      change: 0,
+      unchanged: 0,
+      [kind(d01)]: 1,
+    });
     expect(await observationsChecksum(w.t.db)).toBe(before);
   });
 
@@ -57,12 +83,19 @@ describe('POST /api/uploads (long format, dry run then commit)', () => {
     const id = parseAnswer(UploadListResponseSchema, list).uploads[0].id;
     const res = await w.analyst.post(`/api/uploads/${id}/commit`);
     expect(res.status).toBe(201);
-    expect(parseAnswer(UploadAnswerSchema, res).upload).toMatchObject({ id, status: 'committed', canRevert: true, counts: { insert: list.body.uploads[0].counts.insert } });
+    expect(parseAnswer(UploadAnswerSchema, res).upload).toMatchObject({
+      id,
+      status: 'committed',
+      canRevert: true,
+      counts: { insert: list.body.uploads[0].counts.insert },
+    });
     const revised = Number(/^D03,emissions_pc,2025,(.*)$/m.exec(demoLong.toString('utf8'))![1]);
     expect(await storedValue(w.t.db, 'D03', 'emissions_pc', 2025)).toBe(revised);
     const obs = await w.official.get('/api/districts/D09/observations');
     expect(obs.status).toBe(200);
-    const emissions = parseAnswer(DistrictObservationsResponseSchema, obs).indicators.find((i) => i.code === 'emissions_pc');
+    const emissions = parseAnswer(DistrictObservationsResponseSchema, obs).indicators.find(
+      (i) => i.code === 'emissions_pc',
+    );
     expect(emissions?.series.find((s) => s.year === 2008)).toMatchObject({ uploadId: id });
     expect(emissions?.gaps).toEqual([]);
   });
@@ -84,8 +117,12 @@ describe('revert', () => {
     parseAnswer(DataVersionSchema, v0);
     const before = await storedValue(w.t.db, 'D07', 'population', 2025);
     const writer = () =>
-      w.t.db('observations as o').join('districts as d', 'd.id', 'o.district_id').join('indicators as i', 'i.id', 'o.indicator_id')
-        .where({ 'd.code': 'D07', 'i.code': 'population', 'o.year': 2025 }).first('o.upload_id');
+      w.t
+        .db('observations as o')
+        .join('districts as d', 'd.id', 'o.district_id')
+        .join('indicators as i', 'i.id', 'o.indicator_id')
+        .where({ 'd.code': 'D07', 'i.code': 'population', 'o.year': 2025 })
+        .first('o.upload_id');
     const writerBefore = (await writer()).upload_id;
     // Two revisions of the same file shape: one value changed, one inserted (D05 trade_openness 2020).
     const csv = `district_code,indicator,year,value\nD07,population,2025,${before! + 1234}\nD05,trade_openness,2020,61.5\n`;
@@ -95,9 +132,18 @@ describe('revert', () => {
     expect(await storedValue(w.t.db, 'D07', 'population', 2025)).toBe(before! + 1234);
     const res = await w.analyst.post(`/api/uploads/${up.body.upload.id}/revert`);
     expect(res.status).toBe(200);
-    expect(parseAnswer(RevertAnswerSchema, res).restored).toEqual({ changedBack: 1, removed: 1, reinserted: 0, derived: 0 });
+    expect(parseAnswer(RevertAnswerSchema, res).restored).toEqual({
+      changedBack: 1,
+      removed: 1,
+      reinserted: 0,
+      derived: 0,
+    });
     expect(res.body.reverted).toMatchObject({ id: up.body.upload.id, status: 'reverted', canRevert: false });
-    expect(res.body.revert).toMatchObject({ kind: 'revert', revertsUploadId: up.body.upload.id, version: v0.body.version + 2 });
+    expect(res.body.revert).toMatchObject({
+      kind: 'revert',
+      revertsUploadId: up.body.upload.id,
+      version: v0.body.version + 2,
+    });
     expect(await storedValue(w.t.db, 'D07', 'population', 2025)).toBe(before);
     expect(await storedValue(w.t.db, 'D05', 'trade_openness', 2020)).toBeNull();
     const v2 = await w.official.get('/api/data-version');
@@ -110,9 +156,19 @@ describe('revert', () => {
     const hashes = new Map<number, string>();
     const now = await w.official.get('/api/data-version');
     hashes.set(now.body.version, now.body.rowsHash);
-    const a = await upload(w.analyst, 'district_code,indicator,year,value\nD02,income_pc,2025,33333\nD02,trade_openness,2014,70.1\n', 'a.csv', { commit: true });
+    const a = await upload(
+      w.analyst,
+      'district_code,indicator,year,value\nD02,income_pc,2025,33333\nD02,trade_openness,2014,70.1\n',
+      'a.csv',
+      { commit: true },
+    );
     hashes.set(a.body.upload.version, (await w.official.get('/api/data-version')).body.rowsHash);
-    const b = await upload(w.analyst, 'district_code,indicator,year,value\nD02,income_pc,2025,34444\nD02,trade_openness,2013,69.0\n', 'b.csv', { commit: true });
+    const b = await upload(
+      w.analyst,
+      'district_code,indicator,year,value\nD02,income_pc,2025,34444\nD02,trade_openness,2013,69.0\n',
+      'b.csv',
+      { commit: true },
+    );
     hashes.set(b.body.upload.version, (await w.official.get('/api/data-version')).body.rowsHash);
     const rb = await w.analyst.post(`/api/uploads/${b.body.upload.id}/revert`);
     expect(rb.status).toBe(200);
@@ -128,8 +184,12 @@ describe('revert', () => {
   });
 
   it('refuses to revert an upload whose values a later upload changed, until that one is reverted', async () => {
-    const a = await upload(w.analyst, 'district_code,indicator,year,value\nD04,income_pc,2025,22222\n', 'c.csv', { commit: true });
-    const b = await upload(w.analyst, 'district_code,indicator,year,value\nD04,income_pc,2025,22444\n', 'd.csv', { commit: true });
+    const a = await upload(w.analyst, 'district_code,indicator,year,value\nD04,income_pc,2025,22222\n', 'c.csv', {
+      commit: true,
+    });
+    const b = await upload(w.analyst, 'district_code,indicator,year,value\nD04,income_pc,2025,22444\n', 'd.csv', {
+      commit: true,
+    });
     const refused = await w.analyst.post(`/api/uploads/${a.body.upload.id}/revert`);
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('revert_conflict');
@@ -159,7 +219,9 @@ describe('formats and options', () => {
     // 24 districts × 2 indicators over 2015–2025 (11 years), less the short series D10 (8) and D18 (7).
     const rows = 22 * 11 + 8 + 7;
     expect(res.body.preview.rowsRead).toBe(rows);
-    expect(res.body.preview.totals.insert + res.body.preview.totals.change + res.body.preview.totals.unchanged).toBe(2 * rows);
+    expect(res.body.preview.totals.insert + res.body.preview.totals.change + res.body.preview.totals.unchanged).toBe(
+      2 * rows,
+    );
     expect(res.body.problems).toEqual([]);
     const obs = await w.official.get('/api/districts/D10/observations?indicators=industry_share,trade_openness');
     expect(obs.body.indicators.map((i: { code: string }) => i.code)).toEqual(['industry_share', 'trade_openness']);
@@ -170,7 +232,9 @@ describe('formats and options', () => {
     const csv = '\uFEFFdistrict_code;year;industry_share;trade_openness\r\nD11;2012;"31,5";88,25\r\nD11;2013;30,9;\r\n';
     const dry = await upload(w.analyst, csv, 'semicolons.csv');
     expect(dry.status).toBe(422);
-    expect(parseAnswer(UploadRejectionDetailsSchema, { status: dry.status, body: dry.body.error.details }).problems[0]).toMatchObject({ line: 2, column: 3, code: 'not_a_number' });
+    expect(
+      parseAnswer(UploadRejectionDetailsSchema, { status: dry.status, body: dry.body.error.details }).problems[0],
+    ).toMatchObject({ line: 2, column: 3, code: 'not_a_number' });
     expect(dry.body.error.message).toMatch(/decimal-comma option/);
     const res = await upload(w.analyst, csv, 'semicolons.csv', { commit: true, decimalComma: true });
     expect(res.status).toBe(201);
@@ -181,7 +245,8 @@ describe('formats and options', () => {
   });
 
   it('creates new districts named in a district_name column, and keeps a formula-like name as text', async () => {
-    const csv = 'district_code,district_name,indicator,year,value\nD25,"=HYPERLINK(""x"")",population,2024,1200\nD25,"=HYPERLINK(""x"")",population,2025,1210\n';
+    const csv =
+      'district_code,district_name,indicator,year,value\nD25,"=HYPERLINK(""x"")",population,2024,1200\nD25,"=HYPERLINK(""x"")",population,2025,1210\n';
     const res = await upload(w.analyst, csv, 'new-district.csv', { commit: true });
     expect(res.status).toBe(201);
     expect(res.body.preview.newDistricts).toEqual([{ code: 'D25', name: '=HYPERLINK("x")', line: 2 }]);
@@ -199,7 +264,13 @@ describe('formats and options', () => {
     const refused = await upload(w.analyst, csv, 'd26.csv', { commit: true });
     expect(refused.status).toBe(422);
     expect(refused.body.error.details.problems).toEqual([
-      expect.objectContaining({ line: 2, column: 1, field: 'district_code', code: 'unknown_district', severity: 'error' }),
+      expect.objectContaining({
+        line: 2,
+        column: 1,
+        field: 'district_code',
+        code: 'unknown_district',
+        severity: 'error',
+      }),
     ]);
     expect(await w.t.db('districts').where({ code: 'D26' }).first()).toBeUndefined();
     const allowed = await upload(w.analyst, csv, 'd26.csv', { commit: true, allowNewDistricts: true });
@@ -212,7 +283,9 @@ describe('formats and options', () => {
     const csv = `district_code,indicator,year,value\nD14,pop_density,2025,${stored! * 10}\nD14,pop_density,2024,${seededValue('D14', 'pop_density', 2024)}\n`;
     const res = await upload(w.analyst, csv, 'unit-slip.csv', { commit: true, changeFactor: 3 });
     expect(res.status).toBe(201);
-    expect(res.body.problems).toEqual([expect.objectContaining({ line: 2, column: 4, code: 'large_change', severity: 'warning' })]);
+    expect(res.body.problems).toEqual([
+      expect.objectContaining({ line: 2, column: 4, code: 'large_change', severity: 'warning' }),
+    ]);
     expect(res.body.problems[0].reason).toMatch(/more than a factor of 3/);
     expect(res.body.upload.counts).toMatchObject({ change: 1, unchanged: 1, warnings: 1 });
   });
@@ -226,8 +299,15 @@ describe('formats and options', () => {
     expect((await w.official.get(`/api/uploads/${list.body.uploads[0].id}`)).status).toBe(403);
     const denied = await upload(w.official, 'district_code,indicator,year,value\nD01,population,2025,1\n', 'x.csv');
     expect(denied.status).toBe(403);
-    const seed = (await w.analyst.get('/api/uploads?limit=200')).body.uploads.find((u: { kind: string }) => u.kind === 'seed');
-    expect(seed).toMatchObject({ status: 'committed', version: 1, canRevert: false, counts: { insert: seeded.observations.length } });
+    const seed = (await w.analyst.get('/api/uploads?limit=200')).body.uploads.find(
+      (u: { kind: string }) => u.kind === 'seed',
+    );
+    expect(seed).toMatchObject({
+      status: 'committed',
+      version: 1,
+      canRevert: false,
+      counts: { insert: seeded.observations.length },
+    });
   });
 });
 
@@ -237,17 +317,27 @@ describe('kept previews and earlier versions', () => {
     const dry = await upload(w.analyst, csv, 'later.csv');
     expect(dry.body.preview.totals).toEqual({ insert: 0, change: 2, unchanged: 0 });
     // Meanwhile another upload writes one of the same values.
-    expect((await upload(w.analyst, 'district_code,indicator,year,value\nD19,income_pc,2025,30001\n', 'meanwhile.csv', { commit: true })).status).toBe(201);
+    expect(
+      (
+        await upload(w.analyst, 'district_code,indicator,year,value\nD19,income_pc,2025,30001\n', 'meanwhile.csv', {
+          commit: true,
+        })
+      ).status,
+    ).toBe(201);
     const res = await w.analyst.post(`/api/uploads/${dry.body.upload.id}/commit`);
     expect(res.status).toBe(201);
     expect(res.body.preview.totals).toEqual({ insert: 0, change: 1, unchanged: 1 });
-    expect((await w.analyst.post(`/api/uploads/${dry.body.upload.id}/commit`)).body.error.code).toBe('already_committed');
+    expect((await w.analyst.post(`/api/uploads/${dry.body.upload.id}/commit`)).body.error.code).toBe(
+      'already_committed',
+    );
   });
 
   it('answers 410 for a preview whose staged rows were dropped after a day', async () => {
     const dry = await upload(w.analyst, 'district_code,indicator,year,value\nD20,income_pc,2025,19999\n', 'stale.csv');
     expect(dry.body.upload.canCommit).toBe(true);
-    await withConnection(w.t.db, (conn) => pruneStaging(conn, new Date(Date.now() + (STAGING_TTL_HOURS + 1) * 3600_000)));
+    await withConnection(w.t.db, (conn) =>
+      pruneStaging(conn, new Date(Date.now() + (STAGING_TTL_HOURS + 1) * 3600_000)),
+    );
     const res = await w.analyst.post(`/api/uploads/${dry.body.upload.id}/commit`);
     expect(res.status).toBe(410);
     expect(res.body.error.code).toBe('preview_expired');
@@ -257,10 +347,17 @@ describe('kept previews and earlier versions', () => {
   it('shows a district as of an earlier data version', async () => {
     const before = (await w.official.get('/api/data-version')).body.version;
     const old = await storedValue(w.t.db, 'D21', 'population', 2025);
-    expect((await upload(w.analyst, `district_code,indicator,year,value\nD21,population,2025,${old! + 7}\n`, 'd21.csv', { commit: true })).status).toBe(201);
+    expect(
+      (
+        await upload(w.analyst, `district_code,indicator,year,value\nD21,population,2025,${old! + 7}\n`, 'd21.csv', {
+          commit: true,
+        })
+      ).status,
+    ).toBe(201);
     const now = await w.official.get('/api/districts/D21/observations?indicators=population');
     const then = await w.official.get(`/api/districts/D21/observations?indicators=population&asOf=${before}`);
-    const at2025 = (b: { indicators: { series: { year: number; value: number }[] }[] }) => b.indicators[0].series.find((s) => s.year === 2025)!.value;
+    const at2025 = (b: { indicators: { series: { year: number; value: number }[] }[] }) =>
+      b.indicators[0].series.find((s) => s.year === 2025)!.value;
     expect([then.body.dataVersion, at2025(then.body)]).toEqual([before, old]);
     expect([now.body.dataVersion, at2025(now.body)]).toEqual([before + 1, old! + 7]);
     expect((await w.official.get(`/api/districts/D21/observations?asOf=${before + 5}`)).status).toBe(404);
@@ -269,9 +366,17 @@ describe('kept previews and earlier versions', () => {
   it('takes the change factor from the admin settings when the upload does not give one', async () => {
     // Settings default (DOMAIN.md / api/settings): uploadChangeFactor 3.
     const stored = await storedValue(w.t.db, 'D22', 'pop_density', 2025);
-    const twice = await upload(w.analyst, `district_code,indicator,year,value\nD22,pop_density,2025,${stored! * 2.5}\n`, 'x2.csv');
+    const twice = await upload(
+      w.analyst,
+      `district_code,indicator,year,value\nD22,pop_density,2025,${stored! * 2.5}\n`,
+      'x2.csv',
+    );
     expect(twice.body.problems).toEqual([]);
-    const fourfold = await upload(w.analyst, `district_code,indicator,year,value\nD22,pop_density,2025,${stored! * 4}\n`, 'x4.csv');
+    const fourfold = await upload(
+      w.analyst,
+      `district_code,indicator,year,value\nD22,pop_density,2025,${stored! * 4}\n`,
+      'x4.csv',
+    );
     expect(fourfold.body.problems.map((p: { code: string }) => p.code)).toEqual(['large_change']);
   });
 });

@@ -9,7 +9,11 @@ import { answerWith } from './support/mock-api';
 import { me, renderStaff } from './support/render-staff';
 import { settingsAnswer } from './support/staff-fixtures';
 
-jest.mock('@/lib/api-client', () => ({ ...jest.requireActual('@/lib/api-client'), apiGet: jest.fn(), apiSend: jest.fn() }));
+jest.mock('@/lib/api-client', () => ({
+  ...jest.requireActual('@/lib/api-client'),
+  apiGet: jest.fn(),
+  apiSend: jest.fn(),
+}));
 jest.mock('@/hooks/use-layout-mode', () => ({ useLayoutMode: () => 'phone', useThirdColumn: () => false }));
 jest.mock('expo-router/head', () => ({ __esModule: true, default: () => null }));
 
@@ -38,14 +42,29 @@ describe('people', () => {
   const people = [person({ id: 1, email: 'admin@crestwatch.example', name: 'Demo admin', role: 'admin' }), person({})];
 
   it('invites an address with the chosen role and says the mail is on its way', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin'), '/api/people': { people }, '/api/auth/options': { provider: 'stand-in', signInUrl: '/x' } }));
-    mockedSend.mockResolvedValue({ user: person({ id: 9, email: 'new@crestwatch.example', role: 'official', status: 'invited' }), mail: { sent: true } });
+    mockedGet.mockImplementation(
+      answerWith({
+        '/api/me': me('admin'),
+        '/api/people': { people },
+        '/api/auth/options': { provider: 'stand-in', signInUrl: '/x' },
+      }),
+    );
+    mockedSend.mockResolvedValue({
+      user: person({ id: 9, email: 'new@crestwatch.example', role: 'official', status: 'invited' }),
+      mail: { sent: true },
+    });
     renderStaff('/people');
     fireEvent.changeText(await screen.findByTestId('invite-email'), ' new@crestwatch.example ');
     fireEvent.press(screen.getByTestId('invite-role-official'));
     fireEvent.press(screen.getByTestId('invite-send'));
-    expect(await screen.findByText('Invited new@crestwatch.example as official; the invitation e-mail is on its way.')).toBeTruthy();
-    expect(mockedSend).toHaveBeenCalledWith('POST', '/api/people/invitations', expect.objectContaining({ json: { email: 'new@crestwatch.example', role: 'official' } }));
+    expect(
+      await screen.findByText('Invited new@crestwatch.example as official; the invitation e-mail is on its way.'),
+    ).toBeTruthy();
+    expect(mockedSend).toHaveBeenCalledWith(
+      'POST',
+      '/api/people/invitations',
+      expect.objectContaining({ json: { email: 'new@crestwatch.example', role: 'official' } }),
+    );
     expect(screen.getByLabelText('Read them in the mailbox')).toBeTruthy();
   });
 
@@ -64,22 +83,51 @@ describe('people', () => {
     renderStaff('/people');
     fireEvent.press(await screen.findByTestId('person-role-2-official'));
     expect(await screen.findByText('Demo analyst is now official.')).toBeTruthy();
-    expect(mockedSend).toHaveBeenCalledWith('PATCH', '/api/people/2', expect.objectContaining({ json: { role: 'official' } }));
+    expect(mockedSend).toHaveBeenCalledWith(
+      'PATCH',
+      '/api/people/2',
+      expect.objectContaining({ json: { role: 'official' } }),
+    );
 
-    mockedSend.mockRejectedValueOnce(new ApiError(409, 'last_admin', 'Crestwatch needs at least one active admin: make someone else admin first.'));
+    mockedSend.mockRejectedValueOnce(
+      new ApiError(409, 'last_admin', 'Crestwatch needs at least one active admin: make someone else admin first.'),
+    );
     fireEvent.press(screen.getByTestId('person-role-1-analyst'));
-    expect(await screen.findByText('Crestwatch needs at least one active admin: make someone else admin first.')).toBeTruthy();
+    expect(
+      await screen.findByText('Crestwatch needs at least one active admin: make someone else admin first.'),
+    ).toBeTruthy();
     // An admin cannot switch themselves off from here.
     expect(screen.queryByTestId('person-deactivate-1')).toBeNull();
     expect(screen.getByTestId('person-deactivate-2')).toBeTruthy();
   });
 
   it('shows a lapsed invitation as expired and re-sends it', async () => {
-    const lapsed = person({ id: 3, email: 'late@crestwatch.example', name: '', status: 'expired', lastSignInAt: null, invitedAt: '2026-11-01T00:00:00.000Z', invitationExpiresAt: '2026-11-15T00:00:00.000Z', identityPinned: false });
+    const lapsed = person({
+      id: 3,
+      email: 'late@crestwatch.example',
+      name: '',
+      status: 'expired',
+      lastSignInAt: null,
+      invitedAt: '2026-11-01T00:00:00.000Z',
+      invitationExpiresAt: '2026-11-15T00:00:00.000Z',
+      identityPinned: false,
+    });
     // A demo account that never signed in was never sent an invitation: nothing to re-send.
-    const demoAccount = person({ id: 4, email: 'official@crestwatch.example', status: 'invited', lastSignInAt: null, invitedAt: null, invitationExpiresAt: null });
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people: [...people, lapsed, demoAccount] } }));
-    mockedSend.mockResolvedValueOnce({ user: { ...lapsed, status: 'invited', invitationExpiresAt: '2026-12-18T00:00:00.000Z' }, mail: { sent: true } });
+    const demoAccount = person({
+      id: 4,
+      email: 'official@crestwatch.example',
+      status: 'invited',
+      lastSignInAt: null,
+      invitedAt: null,
+      invitationExpiresAt: null,
+    });
+    mockedGet.mockImplementation(
+      answerWith({ '/api/me': me('admin', 1), '/api/people': { people: [...people, lapsed, demoAccount] } }),
+    );
+    mockedSend.mockResolvedValueOnce({
+      user: { ...lapsed, status: 'invited', invitationExpiresAt: '2026-12-18T00:00:00.000Z' },
+      mail: { sent: true },
+    });
     renderStaff('/people');
     expect(await screen.findByText('Invitation expired')).toBeTruthy();
     expect(screen.getByTestId('person-meta-3').props.children).toMatch(/^Invited .* · expired /);
@@ -99,7 +147,11 @@ describe('people', () => {
     fireEvent.press(await screen.findByTestId('person-reset-identity-2'));
     expect(mockedSend).not.toHaveBeenCalled();
     fireEvent.press(await screen.findByTestId('person-reset-identity-2-confirm'));
-    expect(await screen.findByText('The next Google account that signs in as analyst@crestwatch.example is kept for Demo analyst.')).toBeTruthy();
+    expect(
+      await screen.findByText(
+        'The next Google account that signs in as analyst@crestwatch.example is kept for Demo analyst.',
+      ),
+    ).toBeTruthy();
     expect(mockedSend).toHaveBeenCalledWith('POST', '/api/people/2/identity-reset', expect.anything());
     // Not offered for an account with no pinned identity, nor for the admin themself.
     expect(screen.queryByTestId('person-reset-identity-1')).toBeNull();
@@ -107,7 +159,9 @@ describe('people', () => {
 
   it('changes how long invitations can be used (the invitationDays setting)', async () => {
     const withDays = { ...settingsAnswer, settings: { ...settingsAnswer.settings, invitationDays: 14 } };
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin', 1), '/api/people': { people }, '/api/settings': withDays }));
+    mockedGet.mockImplementation(
+      answerWith({ '/api/me': me('admin', 1), '/api/people': { people }, '/api/settings': withDays }),
+    );
     mockedSend.mockResolvedValueOnce({ ...withDays, settings: { ...withDays.settings, invitationDays: 30 } });
     renderStaff('/people');
     const input = await screen.findByTestId('invitation-days-input');
@@ -119,11 +173,20 @@ describe('people', () => {
     fireEvent.changeText(input, '30');
     fireEvent.press(screen.getByTestId('invitation-days-save'));
     expect(await screen.findByText('New and re-sent invitations can be used for 30 days.')).toBeTruthy();
-    expect(mockedSend).toHaveBeenCalledWith('PATCH', '/api/settings', expect.objectContaining({ json: { invitationDays: 30 } }));
+    expect(mockedSend).toHaveBeenCalledWith(
+      'PATCH',
+      '/api/settings',
+      expect.objectContaining({ json: { invitationDays: 30 } }),
+    );
   });
 
   it('shows a 403 plainly', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('admin'), '/api/people': new ApiError(403, 'forbidden', 'This needs the admin role.') }));
+    mockedGet.mockImplementation(
+      answerWith({
+        '/api/me': me('admin'),
+        '/api/people': new ApiError(403, 'forbidden', 'This needs the admin role.'),
+      }),
+    );
     renderStaff('/people');
     expect(await screen.findByText('This needs the admin role.')).toBeTruthy();
   });
@@ -142,12 +205,21 @@ describe('settings', () => {
 
   it('sends only what an admin changed, in the API’s units', async () => {
     mockedGet.mockImplementation(answerWith({ '/api/me': me('admin'), '/api/settings': settingsAnswer }));
-    mockedSend.mockResolvedValue({ ...settingsAnswer, settings: { ...settingsAnswer.settings, confidenceLevel: 0.9, thresholdShiftPercent: 15 } });
+    mockedSend.mockResolvedValue({
+      ...settingsAnswer,
+      settings: { ...settingsAnswer.settings, confidenceLevel: 0.9, thresholdShiftPercent: 15 },
+    });
     renderStaff('/settings');
     fireEvent.changeText(await screen.findByTestId('settings-level'), '90');
     fireEvent.changeText(screen.getByTestId('settings-shift'), '15');
     fireEvent.press(screen.getByTestId('settings-save'));
-    await waitFor(() => expect(mockedSend).toHaveBeenCalledWith('PATCH', '/api/settings', expect.objectContaining({ json: { confidenceLevel: 0.9, thresholdShiftPercent: 15 } })));
+    await waitFor(() =>
+      expect(mockedSend).toHaveBeenCalledWith(
+        'PATCH',
+        '/api/settings',
+        expect.objectContaining({ json: { confidenceLevel: 0.9, thresholdShiftPercent: 15 } }),
+      ),
+    );
     expect(await screen.findByText('Saved: 2 settings changed.')).toBeTruthy();
   });
 
@@ -163,13 +235,43 @@ describe('settings', () => {
 
 describe('specs', () => {
   const indicators = [
-    { code: 'emissions_pc', name: 'CO2 emissions per person', unit: 't', description: '', mustBePositive: true, derivation: null, stats: { districts: 3, values: 30, firstYear: 2000, lastYear: 2025 } },
-    { code: 'income_pc', name: 'Real income per person', unit: 'units', description: '', mustBePositive: true, derivation: null, stats: { districts: 3, values: 30, firstYear: 2000, lastYear: 2025 } },
-    { code: 'pop_density', name: 'Population density', unit: 'per km²', description: '', mustBePositive: true, derivation: null, stats: { districts: 3, values: 30, firstYear: 2000, lastYear: 2025 } },
+    {
+      code: 'emissions_pc',
+      name: 'CO2 emissions per person',
+      unit: 't',
+      description: '',
+      mustBePositive: true,
+      derivation: null,
+      stats: { districts: 3, values: 30, firstYear: 2000, lastYear: 2025 },
+    },
+    {
+      code: 'income_pc',
+      name: 'Real income per person',
+      unit: 'units',
+      description: '',
+      mustBePositive: true,
+      derivation: null,
+      stats: { districts: 3, values: 30, firstYear: 2000, lastYear: 2025 },
+    },
+    {
+      code: 'pop_density',
+      name: 'Population density',
+      unit: 'per km²',
+      description: '',
+      mustBePositive: true,
+      derivation: null,
+      stats: { districts: 3, values: 30, firstYear: 2000, lastYear: 2025 },
+    },
   ];
 
   it('saves a new spec with the chosen controls and model', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('analyst'), '/api/specs': { specs: [], defaultSpecId: 1 }, '/api/indicators': { indicators } }));
+    mockedGet.mockImplementation(
+      answerWith({
+        '/api/me': me('analyst'),
+        '/api/specs': { specs: [], defaultSpecId: 1 },
+        '/api/indicators': { indicators },
+      }),
+    );
     mockedSend.mockResolvedValue({ spec: { id: 4, name: 'Cubic check' } });
     renderStaff('/specs/new');
     fireEvent.changeText(await screen.findByTestId('spec-name'), 'Cubic check');
@@ -180,14 +282,29 @@ describe('specs', () => {
     await waitFor(() => expect(mockedSend).toHaveBeenCalled());
     const [method, path, options] = mockedSend.mock.calls[0];
     expect([method, path]).toEqual(['POST', '/api/specs']);
-    expect(options?.json).toMatchObject({ name: 'Cubic check', controls: ['pop_density'], form: 'cubic', covariance: 'hc3', emissionsIndicator: 'emissions_pc', driverIndicator: 'income_pc' });
+    expect(options?.json).toMatchObject({
+      name: 'Cubic check',
+      controls: ['pop_density'],
+      form: 'cubic',
+      covariance: 'hc3',
+      emissionsIndicator: 'emissions_pc',
+      driverIndicator: 'income_pc',
+    });
     expect((options?.json as Record<string, unknown>).lag).toBeUndefined();
   });
 
   it('names the field the server refused', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('analyst'), '/api/specs': { specs: [], defaultSpecId: 1 }, '/api/indicators': { indicators } }));
+    mockedGet.mockImplementation(
+      answerWith({
+        '/api/me': me('analyst'),
+        '/api/specs': { specs: [], defaultSpecId: 1 },
+        '/api/indicators': { indicators },
+      }),
+    );
     mockedSend.mockRejectedValue(
-      new ApiError(400, 'validation_failed', 'Invalid body: body.name: Too big', { issues: [{ path: 'body.name', message: 'at most 80 characters' }] }),
+      new ApiError(400, 'validation_failed', 'Invalid body: body.name: Too big', {
+        issues: [{ path: 'body.name', message: 'at most 80 characters' }],
+      }),
     );
     renderStaff('/specs/new');
     fireEvent.changeText(await screen.findByTestId('spec-name'), 'x');
@@ -209,7 +326,12 @@ describe('alerts and subscriptions', () => {
   });
 
   it('marks unread alerts, filters to them and marks one read', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('official'), '/api/alerts?limit=50': { alerts: [alert(0, false), alert(1, true)], unread: 1 } }));
+    mockedGet.mockImplementation(
+      answerWith({
+        '/api/me': me('official'),
+        '/api/alerts?limit=50': { alerts: [alert(0, false), alert(1, true)], unread: 1 },
+      }),
+    );
     mockedSend.mockResolvedValue(undefined);
     renderStaff('/alerts');
     const unread = await screen.findByTestId('alert-0');
@@ -227,7 +349,12 @@ describe('alerts and subscriptions', () => {
       answerWith({
         '/api/me': me('official'),
         '/api/subscriptions': { subscriptions: [] },
-        '/api/districts': { districts: [{ code: 'T01', name: 'Ashgrove' }, { code: 'T02', name: 'Bryn Ødegård' }] },
+        '/api/districts': {
+          districts: [
+            { code: 'T01', name: 'Ashgrove' },
+            { code: 'T02', name: 'Bryn Ødegård' },
+          ],
+        },
       }),
     );
     mockedSend.mockResolvedValue({ subscription: { id: 1 } });
@@ -241,15 +368,31 @@ describe('alerts and subscriptions', () => {
     fireEvent.press(screen.getByTestId('sub-brief'));
     fireEvent.press(screen.getByTestId('sub-save'));
     await waitFor(() =>
-      expect(mockedSend).toHaveBeenCalledWith('POST', '/api/subscriptions', expect.objectContaining({
-        json: { scope: 'districts', districtCodes: ['T01', 'T02'], kinds: ['crossing', 'threshold_shift', 'significance_change'], delivery: 'digest', attachBrief: true },
-      })),
+      expect(mockedSend).toHaveBeenCalledWith(
+        'POST',
+        '/api/subscriptions',
+        expect.objectContaining({
+          json: {
+            scope: 'districts',
+            districtCodes: ['T01', 'T02'],
+            kinds: ['crossing', 'threshold_shift', 'significance_change'],
+            delivery: 'digest',
+            attachBrief: true,
+          },
+        }),
+      ),
     );
     expect(await screen.findByText('Subscribed to 2 districts.')).toBeTruthy();
   });
 
   it('asks for a district before subscribing to one', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/me': me('official'), '/api/subscriptions': { subscriptions: [] }, '/api/districts': { districts: [] } }));
+    mockedGet.mockImplementation(
+      answerWith({
+        '/api/me': me('official'),
+        '/api/subscriptions': { subscriptions: [] },
+        '/api/districts': { districts: [] },
+      }),
+    );
     renderStaff('/subscriptions');
     fireEvent.press(await screen.findByTestId('sub-save'));
     expect(await screen.findByText('Choose the district.')).toBeTruthy();

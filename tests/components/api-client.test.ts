@@ -25,11 +25,19 @@ describe('apiGet', () => {
 
   it('turns the error shape into an ApiError with status, code, message and details', async () => {
     fetchMock.mockReturnValue(
-      respond(404, JSON.stringify({ error: { code: 'not_found', message: 'No district ZZ9', details: { code: 'ZZ9' } } })),
+      respond(
+        404,
+        JSON.stringify({ error: { code: 'not_found', message: 'No district ZZ9', details: { code: 'ZZ9' } } }),
+      ),
     );
     const error = await apiGet('/api/districts/ZZ9').catch((e: unknown) => e);
     expect(error).toBeInstanceOf(ApiError);
-    expect(error).toMatchObject({ status: 404, code: 'not_found', message: 'No district ZZ9', details: { code: 'ZZ9' } });
+    expect(error).toMatchObject({
+      status: 404,
+      code: 'not_found',
+      message: 'No district ZZ9',
+      details: { code: 'ZZ9' },
+    });
     expect((error as ApiError).isClientError).toBe(true);
   });
 
@@ -52,7 +60,15 @@ describe('apiGet', () => {
   });
 
   it('returns the body read through its contract: typed, and without fields the contract does not name', async () => {
-    const row = { code: 'D01', name: 'Alder Vale', firstYear: 1995, lastYear: 2025, nYears: 31, latest: null, extra: 'dropped' };
+    const row = {
+      code: 'D01',
+      name: 'Alder Vale',
+      firstYear: 1995,
+      lastYear: 2025,
+      nYears: 31,
+      latest: null,
+      extra: 'dropped',
+    };
     fetchMock.mockReturnValue(respond(200, JSON.stringify({ districts: [row] })));
     const answer = await apiGet('/api/districts', { schema: DistrictListResponseSchema });
     expect(answer.districts[0].nYears).toBe(31);

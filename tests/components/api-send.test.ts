@@ -56,7 +56,12 @@ describe('apiSend', () => {
     );
     const error = await apiSend('POST', '/api/people/invitations', { json: {} }).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(ApiError);
-    expect(error).toMatchObject({ status: 403, code: 'forbidden', message: 'Admins only.', details: { need: 'admin' } });
+    expect(error).toMatchObject({
+      status: 403,
+      code: 'forbidden',
+      message: 'Admins only.',
+      details: { need: 'admin' },
+    });
     expect(fetchMock).toHaveBeenCalledTimes(1);
   });
 

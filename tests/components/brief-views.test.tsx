@@ -4,7 +4,11 @@
 // screen's words.
 import { act, render, screen, within } from '@testing-library/react-native';
 
-import { SHAPE_LABEL as BRIEF_SHAPES, STANDING_LABEL as BRIEF_STANDINGS, CAUTIONS as BRIEF_CAUTIONS } from '@/api/briefs/words';
+import {
+  SHAPE_LABEL as BRIEF_SHAPES,
+  STANDING_LABEL as BRIEF_STANDINGS,
+  CAUTIONS as BRIEF_CAUTIONS,
+} from '@/api/briefs/words';
 import { BriefScreen } from '@/components/brief/brief-screen';
 import { DistrictBriefView } from '@/components/brief/district-brief-view';
 import { RegionBriefView } from '@/components/brief/region-brief-view';
@@ -13,13 +17,17 @@ import type { ChartScene, DistrictBriefContent, RegionBriefContent } from '@/con
 import { CAUTIONS } from '@/lib/cautions';
 import { SHAPE_LABEL, STANDING_LABEL } from '@/lib/estimate-words';
 
-jest.mock('expo-router', () => ({ ...jest.requireActual('expo-router'), Link: ({ children }: { children: unknown }) => children }));
+jest.mock('expo-router', () => ({
+  ...jest.requireActual('expo-router'),
+  Link: ({ children }: { children: unknown }) => children,
+}));
 
 const scene: ChartScene = {
   width: 252,
   height: 205,
   title: 'Emissions and income',
-  description: 'Emissions against real income per person for each observed year, with the fitted curve and the threshold 22,000 with its 95% band.',
+  description:
+    'Emissions against real income per person for each observed year, with the fitted curve and the threshold 22,000 with its 95% band.',
   items: [{ kind: 'path', d: 'M0 0 L10 10', stroke: 'curve', width: 1 }],
 };
 
@@ -42,14 +50,24 @@ const district: DistrictBriefContent = {
   code: 'D24',
   name: 'Yarrowgate (Jarłowo-Şelé / Жарово)',
   subtitle: 'District brief · D24 · published run #12 of 3 December 2026',
-  headline: 'Yarrowgate (Jarłowo-Şelé / Жарово) is past its threshold: income per person (42,100 in 2025) is above the band where emissions have tended to turn down, estimated at 20,800.',
+  headline:
+    'Yarrowgate (Jarłowo-Şelé / Жарово) is past its threshold: income per person (42,100 in 2025) is above the band where emissions have tended to turn down, estimated at 20,800.',
   standing: { key: 'past_turn', label: 'Past the turn', note: null },
   figures: [
     { key: 'standing', label: 'Standing', value: 'Past the turn', detail: 'read against the 95% Fieller interval' },
-    { key: 'threshold', label: 'Threshold (turning point)', value: '20,800', detail: '95% Fieller interval 20,300 – 21,300; delta method 20,300 – 21,300' },
+    {
+      key: 'threshold',
+      label: 'Threshold (turning point)',
+      value: '20,800',
+      detail: '95% Fieller interval 20,300 – 21,300; delta method 20,300 – 21,300',
+    },
   ],
   charts: { curve: scene, path: { ...scene, title: 'Income over the years' } },
-  reading: ['Over 1995–2025, emissions rose with real income per person at first.', 'In 2025, real income per person was 42,100.', 'The 95% interval runs from 20,300 to 21,300: read the band, not the point.'],
+  reading: [
+    'Over 1995–2025, emissions rose with real income per person at first.',
+    'In 2025, real income per person was 42,100.',
+    'The 95% interval runs from 20,300 to 21,300: read the band, not the point.',
+  ],
   substitute: null,
   analystNote: 'Income for 2024 was revised.',
   modelLine: 'Log–quadratic of CO2 emissions per person on real income per person.',
@@ -60,11 +78,18 @@ const district: DistrictBriefContent = {
 };
 
 /** Lets the lazily loaded chart drawing arrive inside act(). */
-const settleCharts = () => act(async () => {
-  await new Promise((resolve) => setTimeout(resolve, 0));
-});
+const settleCharts = () =>
+  act(async () => {
+    await new Promise((resolve) => setTimeout(resolve, 0));
+  });
 
-const ok = <T,>(data: T) => ({ status: 'success' as const, data, error: null, isFetching: false, refetch: () => undefined });
+const ok = <T,>(data: T) => ({
+  status: 'success' as const,
+  data,
+  error: null,
+  isFetching: false,
+  refetch: () => undefined,
+});
 
 describe('district brief view', () => {
   it('shows the name, standing, figures, both charts, the reading, the note, the cautions and the trace', async () => {
@@ -111,8 +136,24 @@ describe('region brief view', () => {
           { key: 'crossing', label: 'Crossing year' },
         ],
         rows: [
-          { code: 'D01', name: 'Amberlyn Reach', standing: 'Past the turn', gap: '+72%', threshold: '22,000', interval: '14,300 – 36,500', crossing: 'passed 2013 (2004–2025)' },
-          { code: 'D05', name: 'Elderwick Fen', standing: 'No turn', gap: '+3,010%', threshold: '609', interval: 'not bounded at 95%', crossing: 'passed 1931' },
+          {
+            code: 'D01',
+            name: 'Amberlyn Reach',
+            standing: 'Past the turn',
+            gap: '+72%',
+            threshold: '22,000',
+            interval: '14,300 – 36,500',
+            crossing: 'passed 2013 (2004–2025)',
+          },
+          {
+            code: 'D05',
+            name: 'Elderwick Fen',
+            standing: 'No turn',
+            gap: '+3,010%',
+            threshold: '609',
+            interval: 'not bounded at 95%',
+            crossing: 'passed 1931',
+          },
         ],
       },
       modelLine: 'Log–quadratic.',
@@ -136,25 +177,53 @@ describe('brief screen states', () => {
   const child = () => <DistrictBriefView content={district} />;
 
   it('shows a skeleton while loading, and the PDF link already', () => {
-    render(<BriefScreen query={{ status: 'pending', data: undefined, error: null, isFetching: true, refetch: () => undefined }} what="district brief of D24" pdfPath="/api/briefs/district/D24.pdf">{child}</BriefScreen>);
+    render(
+      <BriefScreen
+        query={{ status: 'pending', data: undefined, error: null, isFetching: true, refetch: () => undefined }}
+        what="district brief of D24"
+        pdfPath="/api/briefs/district/D24.pdf"
+      >
+        {child}
+      </BriefScreen>,
+    );
     expect(screen.getByTestId('brief-loading')).toBeTruthy();
     expect(screen.getByTestId('brief-pdf-link')).toBeTruthy();
   });
 
   it('says there is no brief before anything is published', () => {
     const error = new ApiError(404, 'no_published_run', 'Nothing has been published yet.');
-    render(<BriefScreen query={{ status: 'error', data: undefined, error, isFetching: false, refetch: () => undefined }} what="district brief of D24" pdfPath="/api/briefs/district/D24.pdf">{child}</BriefScreen>);
+    render(
+      <BriefScreen
+        query={{ status: 'error', data: undefined, error, isFetching: false, refetch: () => undefined }}
+        what="district brief of D24"
+        pdfPath="/api/briefs/district/D24.pdf"
+      >
+        {child}
+      </BriefScreen>,
+    );
     expect(screen.getByTestId('brief-nothing-published')).toBeTruthy();
   });
 
   it('names an unknown district', () => {
     const error = new ApiError(404, 'not_found', 'No district with code D99');
-    render(<BriefScreen query={{ status: 'error', data: undefined, error, isFetching: false, refetch: () => undefined }} what="district brief of D99" pdfPath="/api/briefs/district/D99.pdf">{child}</BriefScreen>);
+    render(
+      <BriefScreen
+        query={{ status: 'error', data: undefined, error, isFetching: false, refetch: () => undefined }}
+        what="district brief of D99"
+        pdfPath="/api/briefs/district/D99.pdf"
+      >
+        {child}
+      </BriefScreen>,
+    );
     expect(within(screen.getByTestId('brief-not-found')).getByText('No district with code D99')).toBeTruthy();
   });
 
   it('renders the content once loaded', async () => {
-    render(<BriefScreen query={ok(district)} what="district brief of D24" pdfPath="/api/briefs/district/D24.pdf">{child}</BriefScreen>);
+    render(
+      <BriefScreen query={ok(district)} what="district brief of D24" pdfPath="/api/briefs/district/D24.pdf">
+        {child}
+      </BriefScreen>,
+    );
     await settleCharts();
     expect(screen.getByTestId('district-brief')).toBeTruthy();
   });

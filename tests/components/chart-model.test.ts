@@ -24,7 +24,11 @@ describe('curve chart model', () => {
     const r = estimateRecord({});
     const twoRays = {
       ...r,
-      threshold: { ...r.threshold!, intervalBounded: false, fieller: { kind: 'two_rays' as const, levelLo: 20000, levelHi: 60000 } },
+      threshold: {
+        ...r.threshold!,
+        intervalBounded: false,
+        fieller: { kind: 'two_rays' as const, levelLo: 20000, levelHi: 60000 },
+      },
       standing: { ...r.standing, intervalBounded: false, levelLo: 20000, levelHi: 60000 },
     };
     const m = curveChartModel(twoRays);
@@ -76,7 +80,12 @@ describe('path chart model', () => {
   });
 
   it('draws ten years of trend when not on current trend', () => {
-    const m = pathChartModel(estimateRecord({ projection: { status: 'not_on_current_trend', crossingYear: null, earliest: null, latest: null, note: null }, trendPerYear: -0.01 }));
+    const m = pathChartModel(
+      estimateRecord({
+        projection: { status: 'not_on_current_trend', crossingYear: null, earliest: null, latest: null, note: null },
+        trendPerYear: -0.01,
+      }),
+    );
     expect(m.projection[m.projection.length - 1].x).toBe(2035);
   });
 });
@@ -102,12 +111,18 @@ describe('log ticks', () => {
 describe('a threshold far outside the observed incomes', () => {
   it('widens nothing, is not marked, and the summary says it lies off the chart', () => {
     const r = estimateRecord({});
-    const far = { ...r, threshold: { ...r.threshold!, level: 119, extrapolated: true }, standing: { ...r.standing, intervalBounded: false, levelLo: null, levelHi: null } };
+    const far = {
+      ...r,
+      threshold: { ...r.threshold!, level: 119, extrapolated: true },
+      standing: { ...r.standing, intervalBounded: false, levelLo: null, levelHi: null },
+    };
     const m = curveChartModel(far);
     expect(m.threshold).toBeNull();
     expect(m.band).toBeNull();
     // The frame stays around the observed incomes (14,000–29,540, padded by 8%).
     expect(m.xDomain[0]).toBeCloseTo(14000 / 1.08, 6);
-    expect(curveChartSummary(far)).toMatch(/The turning point lies at 119 per person, beyond the observed incomes, too far from the observed incomes to fall inside the chart \(interval not bounded at 95%\)\./);
+    expect(curveChartSummary(far)).toMatch(
+      /The turning point lies at 119 per person, beyond the observed incomes, too far from the observed incomes to fall inside the chart \(interval not bounded at 95%\)\./,
+    );
   });
 });

@@ -36,7 +36,9 @@ describe('district card', () => {
     answer();
     renderApp('/district/T02');
     const headline = await screen.findByTestId('card-headline');
-    expect(headline.props.children).toBe('Income is 18% below the estimated turning point; at the recent trend it would reach it around 2031 (2028–2040).');
+    expect(headline.props.children).toBe(
+      'Income is 18% below the estimated turning point; at the recent trend it would reach it around 2031 (2028–2040).',
+    );
     const panel = within(screen.getByTestId('headline-panel'));
     expect(panel.getByText('Approaching')).toBeTruthy();
     expect(panel.getByText('Rise then fall (inverted U)')).toBeTruthy();
@@ -75,9 +77,15 @@ describe('district card', () => {
       expect(chart.queryByTestId('legend-band')).toBeNull();
       expect(chart.getByText('No band: interval not bounded at 95%')).toBeTruthy();
     }
-    expect(textOf(screen.getByTestId('curve-chart-summary'))).toMatch(/as a line without a band: interval not bounded at 95% \(any income \(the whole line\)\)/);
-    expect(screen.getByText(/Interval not bounded at 95%: the data are consistent with a turning point at any income/)).toBeTruthy();
-    expect(within(screen.getByTestId('figure-threshold')).getByText(/Fieller 95%: interval not bounded at 95%/)).toBeTruthy();
+    expect(textOf(screen.getByTestId('curve-chart-summary'))).toMatch(
+      /as a line without a band: interval not bounded at 95% \(any income \(the whole line\)\)/,
+    );
+    expect(
+      screen.getByText(/Interval not bounded at 95%: the data are consistent with a turning point at any income/),
+    ).toBeTruthy();
+    expect(
+      within(screen.getByTestId('figure-threshold')).getByText(/Fieller 95%: interval not bounded at 95%/),
+    ).toBeTruthy();
     // The strip joins one frame after the headline.
     expect(await screen.findByTestId('sensitivity-unbounded-main', { includeHiddenElements: true })).toBeTruthy();
     expect(screen.queryByTestId('sensitivity-band-main', { includeHiddenElements: true })).toBeNull();
@@ -90,7 +98,9 @@ describe('district card', () => {
     expect(await screen.findByLabelText('Published spec: 30,000 (26,000–36,000)')).toBeTruthy();
     expect(screen.getByLabelText('Without controls: 28,000 (25,000–31,000)')).toBeTruthy();
     expect(screen.getByLabelText('Cubic: 33,000 (24,000–52,000)')).toBeTruthy();
-    expect(screen.getByLabelText('Last 20 years only: 31,000; interval not bounded at 95% (below 20,000 or above 60,000)')).toBeTruthy();
+    expect(
+      screen.getByLabelText('Last 20 years only: 31,000; interval not bounded at 95% (below 20,000 or above 60,000)'),
+    ).toBeTruthy();
     expect(screen.getByLabelText('Level form: not estimable (Too few rows)')).toBeTruthy();
     expect(screen.getByTestId('sensitivity-band-cubic', { includeHiddenElements: true })).toBeTruthy();
     expect(screen.getByTestId('sensitivity-unbounded-last20', { includeHiddenElements: true })).toBeTruthy();
@@ -107,14 +117,26 @@ describe('district card', () => {
     await act(async () => {
       fireEvent(box, 'layout', { nativeEvent: { layout: { width: 358, height: 280, x: 0, y: 0 } } });
     });
-    await waitFor(() => expect(screen.queryByTestId('curve-chart-placeholder', { includeHiddenElements: true })).toBeNull(), { timeout: 20_000 });
+    await waitFor(
+      () => expect(screen.queryByTestId('curve-chart-placeholder', { includeHiddenElements: true })).toBeNull(),
+      { timeout: 20_000 },
+    );
   }, 90_000);
 
   it('labels a regional substitute', async () => {
-    answer(estimateRecord({ status: 'substitute', reason: { code: 'too_few_rows', message: 'series too short; the regional pooled curve stands in' } }));
+    answer(
+      estimateRecord({
+        status: 'substitute',
+        reason: { code: 'too_few_rows', message: 'series too short; the regional pooled curve stands in' },
+      }),
+    );
     renderApp('/district/T02');
     expect(await screen.findByTestId('substitute-label')).toBeTruthy();
-    expect(screen.getByText('Regional substitute: this district’s own series is too short, so the regional pooled curve stands in for it.')).toBeTruthy();
+    expect(
+      screen.getByText(
+        'Regional substitute: this district’s own series is too short, so the regional pooled curve stands in for it.',
+      ),
+    ).toBeTruthy();
     expect(within(screen.getByTestId('curve-chart')).getByText('Regional pooled curve (stands in)')).toBeTruthy();
     expect(await screen.findByLabelText(/^Published \(regional substitute\)/)).toBeTruthy();
   });
@@ -123,17 +145,28 @@ describe('district card', () => {
     answer(notEstimableRecord());
     renderApp('/district/T02');
     const headline = await screen.findByTestId('card-headline');
-    expect(headline.props.children).toBe('No curve could be estimated for this district: Only 6 usable years; the model needs at least 9.');
+    expect(headline.props.children).toBe(
+      'No curve could be estimated for this district: Only 6 usable years; the model needs at least 9.',
+    );
     expect(within(screen.getByTestId('headline-panel')).getByText('Not estimable')).toBeTruthy();
     const curve = within(screen.getByTestId('curve-chart'));
     expect(curve.queryByTestId('legend-threshold')).toBeNull();
     expect(curve.queryByTestId('legend-band')).toBeNull();
-    expect(textOf(screen.getByTestId('curve-chart-summary'))).toMatch(/No fitted curve: the district is not estimable in this run/);
+    expect(textOf(screen.getByTestId('curve-chart-summary'))).toMatch(
+      /No fitted curve: the district is not estimable in this run/,
+    );
   });
 
   it('shows the reviewing analyst’s note', async () => {
     answer(estimateRecord({}), {
-      '/api/districts/T02/estimate': { ...cardAnswers(estimateRecord({}))['/api/districts/T02/estimate'] as object, note: { note: 'Series revised in 2026; read with the 2024 upload.', authorEmail: 'analyst@crestwatch.example', updatedAt: run.publishedAt } },
+      '/api/districts/T02/estimate': {
+        ...(cardAnswers(estimateRecord({}))['/api/districts/T02/estimate'] as object),
+        note: {
+          note: 'Series revised in 2026; read with the 2024 upload.',
+          authorEmail: 'analyst@crestwatch.example',
+          updatedAt: run.publishedAt,
+        },
+      },
     });
     renderApp('/district/T02');
     expect(await screen.findByText('Series revised in 2026; read with the 2024 upload.')).toBeTruthy();
@@ -142,7 +175,15 @@ describe('district card', () => {
   it('shows history and alerts in their tabs', async () => {
     answer(estimateRecord({}), {
       '/api/districts/T02/alerts?limit=20': {
-        alerts: [{ id: 3, runId: 7, kind: 'crossing', details: { from: 'approaching', to: 'at_turn' }, createdAt: '2026-10-02T09:00:00.000Z' }],
+        alerts: [
+          {
+            id: 3,
+            runId: 7,
+            kind: 'crossing',
+            details: { from: 'approaching', to: 'at_turn' },
+            createdAt: '2026-10-02T09:00:00.000Z',
+          },
+        ],
       },
     });
     renderApp('/district/T02');
@@ -158,7 +199,18 @@ describe('district card', () => {
     let subscriptions: unknown[] = [];
     answer(estimateRecord({}), { '/api/subscriptions': async () => ({ subscriptions }) });
     mockedSend.mockImplementation(async (method) => {
-      if (method === 'POST') subscriptions = [{ id: 11, scope: 'district', districtCodes: ['T02'], kinds: ['crossing'], delivery: 'instant', attachBrief: false, createdAt: run.publishedAt }];
+      if (method === 'POST')
+        subscriptions = [
+          {
+            id: 11,
+            scope: 'district',
+            districtCodes: ['T02'],
+            kinds: ['crossing'],
+            delivery: 'instant',
+            attachBrief: false,
+            createdAt: run.publishedAt,
+          },
+        ];
       else subscriptions = [];
       return undefined as never;
     });
@@ -215,7 +267,8 @@ function textOf(node: { props: { children?: unknown } }): string {
     if (c === null || c === undefined || typeof c === 'boolean') return '';
     if (typeof c === 'string' || typeof c === 'number') return String(c);
     if (Array.isArray(c)) return c.map(walk).join('');
-    if (typeof c === 'object' && 'props' in (c as object)) return walk((c as { props: { children?: unknown } }).props.children);
+    if (typeof c === 'object' && 'props' in (c as object))
+      return walk((c as { props: { children?: unknown } }).props.children);
     return '';
   };
   return walk(node.props.children);

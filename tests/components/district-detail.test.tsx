@@ -22,7 +22,13 @@ afterEach(() => mockedGet.mockReset());
 
 describe('district screen', () => {
   it('shows a loading skeleton first', async () => {
-    mockedGet.mockImplementation(answerWith({ ...cardAnswers(estimateRecord({})), '/api/districts/T02/estimate': never, '/api/districts/T02': never }));
+    mockedGet.mockImplementation(
+      answerWith({
+        ...cardAnswers(estimateRecord({})),
+        '/api/districts/T02/estimate': never,
+        '/api/districts/T02': never,
+      }),
+    );
     renderApp('/district/T02');
     expect(await screen.findByTestId('district-detail-loading')).toBeTruthy();
     expect(screen.queryByTestId('series-table')).toBeNull();
@@ -99,7 +105,11 @@ describe('district screen', () => {
 
   it('has a back link to the list on phones', async () => {
     mockedGet.mockImplementation(
-      answerWith({ ...cardAnswers(estimateRecord({})), '/api/districts/T02': gappyDetail, '/api/districts': { districts: [] } }),
+      answerWith({
+        ...cardAnswers(estimateRecord({})),
+        '/api/districts/T02': gappyDetail,
+        '/api/districts': { districts: [] },
+      }),
     );
     const app = renderApp('/district/T02');
     await screen.findByText('Bryn Ødegård');
@@ -110,7 +120,13 @@ describe('district screen', () => {
   it('shows an empty state for a district without observations', async () => {
     mockedGet.mockImplementation(
       answerWith({
-        '/api/districts/T03/estimate': { district: { code: 'T03', name: 'Coldwater' }, run: null, main: null, variants: [], note: null },
+        '/api/districts/T03/estimate': {
+          district: { code: 'T03', name: 'Coldwater' },
+          run: null,
+          main: null,
+          variants: [],
+          note: null,
+        },
         '/api/districts/T03/history': { district: { code: 'T03', name: 'Coldwater' }, history: [] },
         '/api/districts/T03/alerts?limit=20': { alerts: [] },
         '/api/subscriptions': { subscriptions: [] },

@@ -28,7 +28,19 @@ afterEach(() => {
 // T01 approaching 18% below, crossing by 2031; T02 past the turn 40% above with an
 // unbounded interval; T03 has no estimate (counts as not estimable).
 const approaching = summaryOf(estimateRecord({}));
-const pastUnbounded = { ...approaching, standing: 'past_turn' as const, gapPercent: 40, intervalBounded: false, fiellerKind: 'whole_line' as const, thresholdLo: null, thresholdHi: null, projectionStatus: 'already_past' as const, crossingYear: 2012, crossingEarliest: null, crossingLatest: null };
+const pastUnbounded = {
+  ...approaching,
+  standing: 'past_turn' as const,
+  gapPercent: 40,
+  intervalBounded: false,
+  fiellerKind: 'whole_line' as const,
+  thresholdLo: null,
+  thresholdHi: null,
+  projectionStatus: 'already_past' as const,
+  crossingYear: 2012,
+  crossingEarliest: null,
+  crossingLatest: null,
+};
 const withEstimates = {
   publishedRunId: 7,
   run,
@@ -74,7 +86,9 @@ describe('region list', () => {
     const row = screen.getByTestId('district-row-T02');
     expect(row.props.accessibilityRole ?? row.props.role).toBe('link');
     // The row's spoken label carries the standing in words and the run's level.
-    expect(row.props.accessibilityLabel).toMatch(/Past the turn, income 40% above the threshold, interval not bounded at 95%/);
+    expect(row.props.accessibilityLabel).toMatch(
+      /Past the turn, income 40% above the threshold, interval not bounded at 95%/,
+    );
     // Counts per standing at the top.
     expect(screen.getByLabelText('Approaching: 1 district')).toBeTruthy();
     expect(screen.getByLabelText('Past the turn: 1 district')).toBeTruthy();
@@ -108,7 +122,14 @@ describe('region list', () => {
 
   it('filters by standing and by shape, and clears both', async () => {
     const rising = { ...approaching, standing: 'no_turn' as const, shape: 'increasing' as const };
-    const data = { publishedRunId: 7, districts: [withEstimates.districts[0], withEstimates.districts[1], { ...districtSummaries[2], estimate: rising }] };
+    const data = {
+      publishedRunId: 7,
+      districts: [
+        withEstimates.districts[0],
+        withEstimates.districts[1],
+        { ...districtSummaries[2], estimate: rising },
+      ],
+    };
     mockedGet.mockImplementation(answerWith({ '/api/districts': data, '/api/region': region }));
     renderApp('/');
     await screen.findByText('Ashgrove');
@@ -192,7 +213,11 @@ describe('region list', () => {
 
   it('opens a district from its row', async () => {
     mockedGet.mockImplementation(
-      answerWith({ '/api/districts': { districts: districtSummaries }, '/api/districts/T02': gappyDetail, ...cardAnswers(estimateRecord({})) }),
+      answerWith({
+        '/api/districts': { districts: districtSummaries },
+        '/api/districts/T02': gappyDetail,
+        ...cardAnswers(estimateRecord({})),
+      }),
     );
     const app = renderApp('/');
     fireEvent.press(await screen.findByTestId('district-row-T02'));

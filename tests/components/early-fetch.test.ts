@@ -11,7 +11,8 @@ const mockedGet = apiGet as jest.MockedFunction<typeof apiGet>;
 
 type EarlyWindow = { __cwEarly?: Record<string, Promise<unknown>> };
 const early = () => window as unknown as EarlyWindow;
-const response = (status: number, body: unknown) => Promise.resolve({ ok: status >= 200 && status < 300, status, json: async () => body });
+const response = (status: number, body: unknown) =>
+  Promise.resolve({ ok: status >= 200 && status < 300, status, json: async () => body });
 
 afterEach(() => {
   mockedGet.mockReset();
@@ -29,7 +30,9 @@ it('takes the early answer once, then asks the server itself', async () => {
 });
 
 it('falls back to the ordinary request when the early one was refused', async () => {
-  early().__cwEarly = { '/api/districts/T02/estimate': response(401, { error: { code: 'unauthenticated', message: 'Sign in' } }) };
+  early().__cwEarly = {
+    '/api/districts/T02/estimate': response(401, { error: { code: 'unauthenticated', message: 'Sign in' } }),
+  };
   mockedGet.mockResolvedValue(estimateResponse(null));
   await expect(fetchDistrictEstimate('T02')).resolves.toEqual(estimateResponse(null));
   expect(mockedGet).toHaveBeenCalledTimes(1);

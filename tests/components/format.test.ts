@@ -23,7 +23,9 @@ describe('coverage', () => {
   });
 
   it('words the span, the count and the gaps', () => {
-    expect(coverageText({ firstYear: 1995, lastYear: 2025, nYears: 30 })).toBe('1995–2025 · 30 years of data · 1 gap year');
+    expect(coverageText({ firstYear: 1995, lastYear: 2025, nYears: 30 })).toBe(
+      '1995–2025 · 30 years of data · 1 gap year',
+    );
     expect(coverageText({ firstYear: 1995, lastYear: 2025, nYears: 28 }, 'compact')).toBe('1995–2025 · 3 gap years');
     expect(coverageText({ firstYear: 2011, lastYear: 2011, nYears: 1 })).toBe('2011 · 1 year of data');
     expect(coverageText({ firstYear: null, lastYear: null, nYears: 0 })).toBe('No data yet');

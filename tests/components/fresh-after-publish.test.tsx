@@ -31,9 +31,17 @@ const nextRun = { ...run, id: 8, publishedAt: '2026-12-01T09:00:00.000Z' };
 let published = run.id;
 
 function answers() {
-  const card = published === run.id ? estimateResponse(estimateRecord({})) : estimateResponse(estimateRecord({}), { run: nextRun });
+  const card =
+    published === run.id
+      ? estimateResponse(estimateRecord({}))
+      : estimateResponse(estimateRecord({}), { run: nextRun });
   mockedGet.mockImplementation((path: string) =>
-    answerWith({ ...cardAnswers(estimateRecord({})), '/api/districts/T02/estimate': card, '/api/districts/T02': gappyDetail, '/api/published': { runId: published } })(path),
+    answerWith({
+      ...cardAnswers(estimateRecord({})),
+      '/api/districts/T02/estimate': card,
+      '/api/districts/T02': gappyDetail,
+      '/api/published': { runId: published },
+    })(path),
   );
 }
 

@@ -10,9 +10,18 @@ import type { RegionResponse } from '@/contracts/estimates';
 import { estimateRecord, run, summaryOf } from './support/estimates';
 import { districtSummaries } from './support/fixtures';
 
-jest.mock('expo-router', () => ({ ...jest.requireActual('expo-router'), Link: ({ children }: { children: unknown }) => children }));
+jest.mock('expo-router', () => ({
+  ...jest.requireActual('expo-router'),
+  Link: ({ children }: { children: unknown }) => children,
+}));
 
-const ok = <T,>(data: T) => ({ status: 'success' as const, data, error: null, isFetching: false, refetch: () => undefined });
+const ok = <T,>(data: T) => ({
+  status: 'success' as const,
+  data,
+  error: null,
+  isFetching: false,
+  refetch: () => undefined,
+});
 
 describe('method page', () => {
   it('explains the threshold, the intervals, the standings and the cautions', () => {
@@ -20,7 +29,8 @@ describe('method page', () => {
     expect(screen.getByText('x* = −b1 / (2·b2)        threshold X* = exp(x*) in real income per person')).toBeTruthy();
     expect(screen.getByText('(b1 + 2·b2·θ)² ≤ t²·(V11 + 4θ·V12 + 4θ²·V22)')).toBeTruthy();
     const standings = within(screen.getByTestId('method-standings'));
-    for (const label of ['Approaching: ', 'At the turn: ', 'Past the turn: ', 'No turn: ', 'Not estimable: ']) expect(standings.getByText(label)).toBeTruthy();
+    for (const label of ['Approaching: ', 'At the turn: ', 'Past the turn: ', 'No turn: ', 'Not estimable: '])
+      expect(standings.getByText(label)).toBeTruthy();
     const cautions = within(screen.getByTestId('method-cautions'));
     for (const c of CAUTIONS) expect(cautions.getByText(`– ${c.full}`)).toBeTruthy();
     expect(screen.getByText(/Fieller, E. C. \(1954\)/)).toBeTruthy();
@@ -37,9 +47,18 @@ describe('region overview', () => {
       { ...districtSummaries[1], estimate: { ...approaching, standing: 'past_turn' as const } },
       { ...districtSummaries[2], estimate: null },
     ];
-    const region: RegionResponse = { run, counts: {}, pooled: { shape: 'inverted_u', threshold: 24000, fieller: { kind: 'bounded', levelLo: 21000, levelHi: 28000 } }, districts: [] };
+    const region: RegionResponse = {
+      run,
+      counts: {},
+      pooled: { shape: 'inverted_u', threshold: 24000, fieller: { kind: 'bounded', levelLo: 21000, levelHi: 28000 } },
+      districts: [],
+    };
     render(<RegionOverview region={ok(region)} districts={ok(rows)} />);
-    expect(within(screen.getByTestId('region-run')).getByText(/Run #7, published 2 Oct 2026 · spec “Regional default” · data version 3/)).toBeTruthy();
+    expect(
+      within(screen.getByTestId('region-run')).getByText(
+        /Run #7, published 2 Oct 2026 · spec “Regional default” · data version 3/,
+      ),
+    ).toBeTruthy();
     expect(within(screen.getByTestId('region-count-approaching')).getByText('1')).toBeTruthy();
     expect(within(screen.getByTestId('region-count-past_turn')).getByText('1')).toBeTruthy();
     expect(within(screen.getByTestId('region-count-not_estimable')).getByText('1')).toBeTruthy();
@@ -49,7 +68,12 @@ describe('region overview', () => {
   });
 
   it('says when no run is published yet, and offers no brief', () => {
-    render(<RegionOverview region={ok<RegionResponse>({ run: null, counts: {}, pooled: null, districts: [] })} districts={ok([])} />);
+    render(
+      <RegionOverview
+        region={ok<RegionResponse>({ run: null, counts: {}, pooled: null, districts: [] })}
+        districts={ok([])}
+      />,
+    );
     expect(screen.getByTestId('region-no-run')).toBeTruthy();
     expect(screen.queryByTestId('region-brief-link')).toBeNull();
   });

@@ -9,7 +9,11 @@ import { answerWith } from './support/mock-api';
 import { me, renderStaff } from './support/render-staff';
 import { reviewAnswer, runView, settingsAnswer } from './support/staff-fixtures';
 
-jest.mock('@/lib/api-client', () => ({ ...jest.requireActual('@/lib/api-client'), apiGet: jest.fn(), apiSend: jest.fn() }));
+jest.mock('@/lib/api-client', () => ({
+  ...jest.requireActual('@/lib/api-client'),
+  apiGet: jest.fn(),
+  apiSend: jest.fn(),
+}));
 jest.mock('@/hooks/use-layout-mode', () => ({ useLayoutMode: () => 'wide', useThirdColumn: () => false }));
 jest.mock('expo-router/head', () => ({ __esModule: true, default: () => null }));
 
@@ -25,7 +29,16 @@ const main = {
   variant: 'main',
   status: 'ok',
   reason: null,
-  model: { form: 'quadratic', transform: 'log', covariance: 'newey_west', level: 0.95, alpha: 0.05, intervalMethod: 'fieller', controls: [], lag: 2 },
+  model: {
+    form: 'quadratic',
+    transform: 'log',
+    covariance: 'newey_west',
+    level: 0.95,
+    alpha: 0.05,
+    intervalMethod: 'fieller',
+    controls: [],
+    lag: 2,
+  },
   n: 20,
   k: 3,
   firstYear: 2006,
@@ -34,11 +47,24 @@ const main = {
   rSquared: 0.9,
   range: null,
   threshold: {
-    x: 9.9, level: 20000, kind: 'peak', inRange: true, extrapolated: false, intervalBounded: true,
-    delta: { se: 0.1, levelLo: 18000, levelHi: 22000 }, fieller: { kind: 'bounded', levelLo: 17500, levelHi: 23000 },
+    x: 9.9,
+    level: 20000,
+    kind: 'peak',
+    inRange: true,
+    extrapolated: false,
+    intervalBounded: true,
+    delta: { se: 0.1, levelLo: 18000, levelHi: 22000 },
+    fieller: { kind: 'bounded', levelLo: 17500, levelHi: 23000 },
   },
   turningPoints: [],
-  standing: { standing: 'past_turn', intervalMethod: 'fieller', intervalBounded: true, levelLo: 17500, levelHi: 23000, note: null },
+  standing: {
+    standing: 'past_turn',
+    intervalMethod: 'fieller',
+    intervalBounded: true,
+    levelLo: 17500,
+    levelHi: 23000,
+    note: null,
+  },
   shape: { shape: 'inverted_u', decidedBy: 'u_test', notes: [] },
   uTest: { statistic: 2.5, pValue: 0.01, rejects: true, orientation: 'inverted_u' },
   gapPercent: 12,
@@ -68,7 +94,16 @@ const t02: DistrictReview = {
   records: [main],
   previousRunId: 4,
   previous: null,
-  movement: { previous: 25000, current: 20000, previousSpecOnNewData: 21000, dataPart: -4000, specPart: -1000, softwareChanged: false, previousSoftware: '0.1.0', specChanged: true },
+  movement: {
+    previous: 25000,
+    current: 20000,
+    previousSpecOnNewData: 21000,
+    dataPart: -4000,
+    specPart: -1000,
+    softwareChanged: false,
+    previousSoftware: '0.1.0',
+    specChanged: true,
+  },
   note: { note: 'Revised income', authorEmail: 'analyst@crestwatch.example', updatedAt: '2026-11-30T10:05:00.000Z' },
 };
 
@@ -89,7 +124,14 @@ const rowOrder = () => screen.getAllByTestId(/^review-row-/).map((r) => r.props.
 
 describe('run review', () => {
   it('shows the progress of a running run and asks for no review yet', async () => {
-    answers({ '/api/runs/5': runView({ state: 'running', progress: { chunksDone: 1, chunksTotal: 4, districts: 24 }, finishedAt: null, standingCounts: null }) });
+    answers({
+      '/api/runs/5': runView({
+        state: 'running',
+        progress: { chunksDone: 1, chunksTotal: 4, districts: 24 },
+        finishedAt: null,
+        standingCounts: null,
+      }),
+    });
     renderStaff('/runs/5');
     expect(await screen.findByTestId('run-progress')).toBeTruthy();
     expect(screen.getByText('Fitting districts: 1 of 4 chunks done (24 districts).')).toBeTruthy();
@@ -157,7 +199,9 @@ describe('run review', () => {
     fireEvent.changeText(input, 'Check the 2024 census revision');
     fireEvent.press(screen.getByTestId('note-save'));
     await waitFor(() =>
-      expect(mockedSend).toHaveBeenCalledWith('PUT', '/api/runs/5/districts/T02/note', { json: { note: 'Check the 2024 census revision' } }),
+      expect(mockedSend).toHaveBeenCalledWith('PUT', '/api/runs/5/districts/T02/note', {
+        json: { note: 'Check the 2024 census revision' },
+      }),
     );
     expect(await screen.findByText('Note saved.')).toBeTruthy();
   });

@@ -48,7 +48,10 @@ describe('signing in', () => {
 
   it('explains a failed sign-in sent back by the server', async () => {
     mockedGet.mockImplementation(
-      answerWith({ '/api/auth/options': { provider: 'google', signInUrl: '/api/auth/google' }, '/api/me': unauthenticated }),
+      answerWith({
+        '/api/auth/options': { provider: 'google', signInUrl: '/api/auth/google' },
+        '/api/me': unauthenticated,
+      }),
     );
     renderApp('/sign-in?error=no_email');
     expect(await screen.findByTestId('sign-in-problem')).toBeTruthy();
@@ -57,7 +60,11 @@ describe('signing in', () => {
   });
 
   it.each([
-    ['idle', 'Your session ended after 30 minutes without activity. Sign in again.', 'Signed out after a while without activity'],
+    [
+      'idle',
+      'Your session ended after 30 minutes without activity. Sign in again.',
+      'Signed out after a while without activity',
+    ],
     ['lifetime', 'Sessions last at most 12 hours. Sign in again.', 'Your session reached its time limit'],
   ])('says the session ended (%s) on the sign-in screen', async (reason, message, title) => {
     mockedGet.mockImplementation(
@@ -75,7 +82,9 @@ describe('signing in', () => {
 
   it('says an idle session ended where a list failed to load, with a way to sign in again', async () => {
     const message = 'Your session ended after 30 minutes without activity. Sign in again.';
-    mockedGet.mockImplementation(answerWith({ '/api/districts': new ApiError(401, 'session_expired', message, { reason: 'idle' }) }));
+    mockedGet.mockImplementation(
+      answerWith({ '/api/districts': new ApiError(401, 'session_expired', message, { reason: 'idle' }) }),
+    );
     const app = renderApp('/');
     expect(await screen.findByText('Signed out after a while without activity')).toBeTruthy();
     expect(screen.getByText(message)).toBeTruthy();

@@ -20,7 +20,18 @@ describe('sections by role', () => {
   });
 
   it('gives admins everything, the mailbox only in demo mode', () => {
-    expect(keys('admin')).toEqual(['region', 'alerts', 'runs', 'uploads', 'specs', 'people', 'settings', 'audit', 'mailbox', 'method']);
+    expect(keys('admin')).toEqual([
+      'region',
+      'alerts',
+      'runs',
+      'uploads',
+      'specs',
+      'people',
+      'settings',
+      'audit',
+      'mailbox',
+      'method',
+    ]);
     expect(keys('admin', false)).not.toContain('mailbox');
   });
 
@@ -91,7 +102,13 @@ describe('header', () => {
     const { ApiError } = jest.requireActual('@/lib/api-client');
     renderHeader({
       mode: 'wide',
-      me: { status: 'error', data: undefined, error: new ApiError(401, 'unauthenticated', 'Sign in'), isFetching: false, refetch: () => undefined },
+      me: {
+        status: 'error',
+        data: undefined,
+        error: new ApiError(401, 'unauthenticated', 'Sign in'),
+        isFetching: false,
+        refetch: () => undefined,
+      },
     });
     expect(screen.getByLabelText('Sign in')).toBeTruthy();
     expect(screen.queryByTestId('nav-strip')).toBeNull();

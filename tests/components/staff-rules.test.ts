@@ -47,13 +47,22 @@ describe('settings draft', () => {
   });
 
   it('turns the percent back into a level, accepts a decimal comma, tidies the cron', () => {
-    const { patch, problems } = settingsPatch(settingsAnswer.settings, { ...draft, confidencePercent: '97,5', scheduleCron: ' 0  5 1 1,4,7,10 * ' });
+    const { patch, problems } = settingsPatch(settingsAnswer.settings, {
+      ...draft,
+      confidencePercent: '97,5',
+      scheduleCron: ' 0  5 1 1,4,7,10 * ',
+    });
     expect(problems).toEqual({});
     expect(patch).toEqual({ confidenceLevel: 0.975, scheduleCron: '0 5 1 1,4,7,10 *' });
   });
 
   it('names every field out of range, and a cron without five fields', () => {
-    const { problems } = settingsPatch(settingsAnswer.settings, { ...draft, confidencePercent: '40', uploadChangeFactor: 'x', scheduleCron: '0 6 1' });
+    const { problems } = settingsPatch(settingsAnswer.settings, {
+      ...draft,
+      confidencePercent: '40',
+      uploadChangeFactor: 'x',
+      scheduleCron: '0 6 1',
+    });
     expect(Object.keys(problems).sort()).toEqual(['confidencePercent', 'scheduleCron', 'uploadChangeFactor']);
   });
 });
@@ -66,23 +75,43 @@ describe('spec draft', () => {
   });
 
   it('reads blank numbers as "not set", refuses others, and keeps the lag only for Newey–West', () => {
-    expect(specInputOf({ ...EMPTY_DRAFT, name: 'A', firstYear: '19x0' }).problems).toEqual({ firstYear: 'A whole number, or leave it blank.' });
-    expect(specInputOf({ ...EMPTY_DRAFT, name: 'A', firstYear: '2010', lastYear: '2000' }).problems.firstYear).toMatch(/not be after/);
+    expect(specInputOf({ ...EMPTY_DRAFT, name: 'A', firstYear: '19x0' }).problems).toEqual({
+      firstYear: 'A whole number, or leave it blank.',
+    });
+    expect(specInputOf({ ...EMPTY_DRAFT, name: 'A', firstYear: '2010', lastYear: '2000' }).problems.firstYear).toMatch(
+      /not be after/,
+    );
     const nw = specInputOf({ ...EMPTY_DRAFT, name: ' A ', lag: '3', minYears: '' }).input!;
     expect(nw).toMatchObject({ name: 'A', lag: 3, minYears: null, firstYear: null });
     expect(specInputOf({ ...EMPTY_DRAFT, name: 'A', lag: '3', covariance: 'hc1' }).input!.lag).toBeUndefined();
   });
 
   it('drops controls that are the emissions or driver series, and level controls outside the log form', () => {
-    const input = specInputOf({ ...EMPTY_DRAFT, name: 'A', controls: ['income_pc', 'pop_density'], levelControls: ['pop_density'], transform: 'level' }).input!;
+    const input = specInputOf({
+      ...EMPTY_DRAFT,
+      name: 'A',
+      controls: ['income_pc', 'pop_density'],
+      levelControls: ['pop_density'],
+      transform: 'level',
+    }).input!;
     expect(input.controls).toEqual(['pop_density']);
     expect(input.levelControls).toEqual([]);
   });
 });
 
 describe('table sorting', () => {
-  const col: Column<{ v: number | null; s: string }> = { key: 'v', header: 'V', render: () => '', sortValue: (r) => r.v };
-  const rows = [{ v: 2, s: 'b' }, { v: null, s: 'n' }, { v: -1, s: 'a' }, { v: 10, s: 'c' }];
+  const col: Column<{ v: number | null; s: string }> = {
+    key: 'v',
+    header: 'V',
+    render: () => '',
+    sortValue: (r) => r.v,
+  };
+  const rows = [
+    { v: 2, s: 'b' },
+    { v: null, s: 'n' },
+    { v: -1, s: 'a' },
+    { v: 10, s: 'c' },
+  ];
 
   it('sorts numbers both ways and keeps nulls last either way', () => {
     expect(sortRows(rows, col, 'asc').map((r) => r.v)).toEqual([-1, 2, 10, null]);
@@ -91,7 +120,11 @@ describe('table sorting', () => {
 
   it('sorts codes in natural order', () => {
     const codes: Column<{ c: string }> = { key: 'c', header: 'C', render: () => '', sortValue: (r) => r.c };
-    expect(sortRows([{ c: 'D10' }, { c: 'D2' }, { c: 'D1' }], codes, 'asc').map((r) => r.c)).toEqual(['D1', 'D2', 'D10']);
+    expect(sortRows([{ c: 'D10' }, { c: 'D2' }, { c: 'D1' }], codes, 'asc').map((r) => r.c)).toEqual([
+      'D1',
+      'D2',
+      'D10',
+    ]);
   });
 });
 
@@ -123,7 +156,10 @@ describe('review filters', () => {
 
 describe('residuals in words', () => {
   it('names the years, the largest either way and the longest run of one sign', () => {
-    const r = [2001, 2002, 2003, 2004, 2005, 2006, 2007].map((year, i) => ({ year, residual: i < 6 ? 0.01 * (i + 1) : -0.2 }));
+    const r = [2001, 2002, 2003, 2004, 2005, 2006, 2007].map((year, i) => ({
+      year,
+      residual: i < 6 ? 0.01 * (i + 1) : -0.2,
+    }));
     expect(residualSummary(r)).toBe(
       '7 years, 2001–2007. Largest above the curve +0.060 in 2006, largest below −0.200 in 2007. Longest run of one sign: 6 years (a sign of serial correlation).',
     );
@@ -146,15 +182,23 @@ describe('times, sizes and upload words', () => {
     expect(uploadStatus({ kind: 'file', status: 'committed' }).label).toBe('Loaded');
     expect(uploadStatus({ kind: 'revert', status: 'committed' }).label).toBe('Applied');
     expect(uploadStatus({ kind: 'file', status: 'previewed' }).label).toBe('Checked, not loaded');
-    expect(changeWords({ insert: 1, change: 2, unchanged: 3, remove: 4 })).toBe('1 new, 2 changed, 3 unchanged, 4 removed');
+    expect(changeWords({ insert: 1, change: 2, unchanged: 3, remove: 4 })).toBe(
+      '1 new, 2 changed, 3 unchanged, 4 removed',
+    );
   });
 });
 
 describe('refusals in words', () => {
   it('keeps the server’s message for 4xx and says what happened otherwise', () => {
-    expect(describeSendError(new ApiError(409, 'run_in_progress', 'Run #4 of this spec is still running.'))).toBe('Run #4 of this spec is still running.');
-    expect(describeSendError(new ApiError(403, 'forbidden', 'Admins only.'))).toBe('Not allowed for your role: Admins only.');
-    expect(describeSendError(new ApiError(0, 'network_error', 'x'))).toMatch(/could not be reached\. Nothing was changed/);
+    expect(describeSendError(new ApiError(409, 'run_in_progress', 'Run #4 of this spec is still running.'))).toBe(
+      'Run #4 of this spec is still running.',
+    );
+    expect(describeSendError(new ApiError(403, 'forbidden', 'Admins only.'))).toBe(
+      'Not allowed for your role: Admins only.',
+    );
+    expect(describeSendError(new ApiError(0, 'network_error', 'x'))).toMatch(
+      /could not be reached\. Nothing was changed/,
+    );
     expect(describeSendError(new ApiError(503, 'jobs_unavailable', 'x'))).toMatch(/\(503 jobs_unavailable\)/);
   });
 
@@ -173,7 +217,15 @@ describe('refusals in words', () => {
 });
 
 describe('upload refusal and no-op words, composed from the answer fields', () => {
-  const problem = (over: object) => ({ line: 7, column: 2, field: 'year', code: 'bad_year', severity: 'error' as const, reason: 'year "20x5" is not a year', ...over });
+  const problem = (over: object) => ({
+    line: 7,
+    column: 2,
+    field: 'year',
+    code: 'bad_year',
+    severity: 'error' as const,
+    reason: 'year "20x5" is not a year',
+    ...over,
+  });
 
   it('names the first error by place, then how many more errors and warnings there are', () => {
     const warning = problem({ line: 2, severity: 'warning', reason: 'value changed by more than ×10' });
@@ -183,12 +235,18 @@ describe('upload refusal and no-op words, composed from the answer fields', () =
   });
 
   it('starts with the reason when the problem has no place (a file-level problem)', () => {
-    expect(refusalSummary({ problems: [problem({ line: null, column: null, field: null, reason: 'the file is empty' })], errorCount: 1, warningCount: 0 })).toBe(
-      'The file is empty.',
-    );
+    expect(
+      refusalSummary({
+        problems: [problem({ line: null, column: null, field: null, reason: 'the file is empty' })],
+        errorCount: 1,
+        warningCount: 0,
+      }),
+    ).toBe('The file is empty.');
   });
 
   it('says which earlier upload a re-sent file is, and that nothing changed', () => {
-    expect(noopSummary({ id: 12, committedAt: null, version: 4 })).toBe('This file was already loaded as upload #12 (—, data version 4): nothing was changed.');
+    expect(noopSummary({ id: 12, committedAt: null, version: 4 })).toBe(
+      'This file was already loaded as upload #12 (—, data version 4): nothing was changed.',
+    );
   });
 });

@@ -10,7 +10,11 @@ import { answerWith } from './support/mock-api';
 import { me, renderStaff } from './support/render-staff';
 import { committedAnswer, previewAnswer, settingsAnswer, upload } from './support/staff-fixtures';
 
-jest.mock('@/lib/api-client', () => ({ ...jest.requireActual('@/lib/api-client'), apiGet: jest.fn(), apiSend: jest.fn() }));
+jest.mock('@/lib/api-client', () => ({
+  ...jest.requireActual('@/lib/api-client'),
+  apiGet: jest.fn(),
+  apiSend: jest.fn(),
+}));
 jest.mock('@/lib/pick-file', () => ({ pickCsvFile: jest.fn() }));
 jest.mock('@/hooks/use-layout-mode', () => ({ useLayoutMode: () => 'phone', useThirdColumn: () => false }));
 jest.mock('expo-router/head', () => ({ __esModule: true, default: () => null }));
@@ -19,7 +23,11 @@ const mockedGet = apiGet as jest.MockedFunction<typeof apiGet>;
 const mockedSend = apiSend as jest.MockedFunction<typeof apiSend>;
 const mockedPick = pickCsvFile as jest.MockedFunction<typeof pickCsvFile>;
 const appended: [string, string][] = [];
-const file = { name: 'series.csv', size: 1200, appendTo: (_form: FormData, field: string) => appended.push([field, 'series.csv']) };
+const file = {
+  name: 'series.csv',
+  size: 1200,
+  appendTo: (_form: FormData, field: string) => appended.push([field, 'series.csv']),
+};
 
 beforeEach(() => {
   appended.length = 0;
@@ -53,10 +61,16 @@ describe('upload screen', () => {
     fireEvent.press(await screen.findByTestId('upload-choose'));
     expect(await screen.findByTestId('upload-ready')).toBeTruthy();
     // A dry run: the file goes in the multipart field `file`; the server applies the change factor itself.
-    expect(mockedSend).toHaveBeenCalledWith('POST', '/api/uploads', expect.objectContaining({ form: expect.anything() }));
+    expect(mockedSend).toHaveBeenCalledWith(
+      'POST',
+      '/api/uploads',
+      expect.objectContaining({ form: expect.anything() }),
+    );
     expect(appended).toEqual([['file', 'series.csv']]);
     expect(screen.getByText(/Loading writes 6 new, 4 changed, 0 unchanged in one step/)).toBeTruthy();
-    expect(within(screen.getByTestId('problems')).getByText('value changes by more than ×3 against the stored 2.1')).toBeTruthy();
+    expect(
+      within(screen.getByTestId('problems')).getByText('value changes by more than ×3 against the stored 2.1'),
+    ).toBeTruthy();
     expect(within(screen.getByTestId('preview-district-T02')).getByText('Bryn Ødegård')).toBeTruthy();
 
     fireEvent.press(screen.getByTestId('upload-commit'));
@@ -72,8 +86,22 @@ describe('upload screen', () => {
       new ApiError(422, 'upload_rejected', 'A sentence the panel does not show.', {
         uploadId: 9,
         problems: [
-          { line: 3, column: 4, field: 'value', code: 'not_a_number', severity: 'error', reason: 'value "abc" is not a number' },
-          { line: 5, column: 3, field: 'year', code: 'year_in_future', severity: 'error', reason: 'year 2999 is in the future' },
+          {
+            line: 3,
+            column: 4,
+            field: 'value',
+            code: 'not_a_number',
+            severity: 'error',
+            reason: 'value "abc" is not a number',
+          },
+          {
+            line: 5,
+            column: 3,
+            field: 'year',
+            code: 'year_in_future',
+            severity: 'error',
+            reason: 'year 2999 is in the future',
+          },
         ],
         errorCount: 2,
         warningCount: 0,
@@ -86,7 +114,11 @@ describe('upload screen', () => {
     const refused = await screen.findByTestId('upload-refused');
     expect(within(refused).getByText('The file was not loaded')).toBeTruthy();
     // Composed from the refusal's fields: the first error's place and reason, and the count of the rest.
-    expect(within(refused).getByText('Line 3, column 4 (value): value "abc" is not a number (and 1 more error). Nothing was written.')).toBeTruthy();
+    expect(
+      within(refused).getByText(
+        'Line 3, column 4 (value): value "abc" is not a number (and 1 more error). Nothing was written.',
+      ),
+    ).toBeTruthy();
     expect(within(refused).queryByText(/A sentence the panel does not show/)).toBeNull();
     const first = within(screen.getByTestId('problem-0'));
     expect(first.getByText('3')).toBeTruthy();
@@ -122,17 +154,23 @@ describe('upload screen', () => {
     fireEvent.press(screen.getByTestId('upload-revert-3'));
     expect(mockedSend).not.toHaveBeenCalled();
     fireEvent.press(screen.getByTestId('upload-revert-3-confirm'));
-    expect(await screen.findByText('Upload #3 reverted: 4 values put back, 6 removed, 0 restored. Data version 6.')).toBeTruthy();
+    expect(
+      await screen.findByText('Upload #3 reverted: 4 values put back, 6 removed, 0 restored. Data version 6.'),
+    ).toBeTruthy();
     expect(mockedSend).toHaveBeenCalledWith('POST', '/api/uploads/3/revert', expect.anything());
   });
 
   it('shows a revert the server refuses in its own words', async () => {
     answers();
-    mockedSend.mockRejectedValue(new ApiError(409, 'superseded', 'Upload 3 cannot be reverted: upload 5 changed the same values since.'));
+    mockedSend.mockRejectedValue(
+      new ApiError(409, 'superseded', 'Upload 3 cannot be reverted: upload 5 changed the same values since.'),
+    );
     renderStaff('/uploads');
     fireEvent.press(await screen.findByTestId('upload-revert-3'));
     fireEvent.press(screen.getByTestId('upload-revert-3-confirm'));
-    expect(await screen.findByText('Upload 3 cannot be reverted: upload 5 changed the same values since.')).toBeTruthy();
+    expect(
+      await screen.findByText('Upload 3 cannot be reverted: upload 5 changed the same values since.'),
+    ).toBeTruthy();
   });
 
   it('is closed to officials, without asking for the history', async () => {

@@ -58,38 +58,44 @@ describe('briefs in the browser', () => {
   it.each([
     ['phone', VIEWPORTS.phone],
     ['wide', VIEWPORTS.wide],
-  ] as const)('shows the district brief as a page at the %s viewport, and prints the brief alone', async (name, viewport) => {
-    const { context, page } = await h.newPage(viewport);
-    try {
-      await signIn(page, DEMO.official);
-      const content = (await (await page.request.get(`${h.baseUrl}/api/briefs/district/D24`)).json()) as DistrictBriefContent;
-      await page.goto(`${h.baseUrl}/brief/D24`);
-      const brief = page.getByTestId('district-brief').first();
-      await brief.waitFor();
-      await page.getByRole('heading', { name: content.name }).first().waitFor();
-      // The figures as the server worded them.
-      for (const f of content.figures) expect(await brief.getByTestId(`brief-figure-${f.key}`).innerText()).toContain(f.value);
-      // Both charts drawn as SVG from their scenes.
-      // (A path can be a flat line with an empty box, which the browser calls hidden: wait for the svg.)
-      await page.locator('[data-testid="brief-curve-chart"] svg').first().waitFor();
-      const paths = await page.locator('[data-testid="brief-curve-chart"]').first().locator('svg path').count();
-      expect(paths).toBeGreaterThan(5);
-      expect(await page.locator('a[href="/api/briefs/district/D24.pdf"]').count()).toBeGreaterThan(0);
-      await page.screenshot({ path: path.join(artifactsDir, `${name}-brief-D24.png`), fullPage: true });
+  ] as const)(
+    'shows the district brief as a page at the %s viewport, and prints the brief alone',
+    async (name, viewport) => {
+      const { context, page } = await h.newPage(viewport);
+      try {
+        await signIn(page, DEMO.official);
+        const content = (await (
+          await page.request.get(`${h.baseUrl}/api/briefs/district/D24`)
+        ).json()) as DistrictBriefContent;
+        await page.goto(`${h.baseUrl}/brief/D24`);
+        const brief = page.getByTestId('district-brief').first();
+        await brief.waitFor();
+        await page.getByRole('heading', { name: content.name }).first().waitFor();
+        // The figures as the server worded them.
+        for (const f of content.figures)
+          expect(await brief.getByTestId(`brief-figure-${f.key}`).innerText()).toContain(f.value);
+        // Both charts drawn as SVG from their scenes.
+        // (A path can be a flat line with an empty box, which the browser calls hidden: wait for the svg.)
+        await page.locator('[data-testid="brief-curve-chart"] svg').first().waitFor();
+        const paths = await page.locator('[data-testid="brief-curve-chart"]').first().locator('svg path').count();
+        expect(paths).toBeGreaterThan(5);
+        expect(await page.locator('a[href="/api/briefs/district/D24.pdf"]').count()).toBeGreaterThan(0);
+        await page.screenshot({ path: path.join(artifactsDir, `${name}-brief-D24.png`), fullPage: true });
 
-      const file = await printed(page, `print-${name}-D24`, 'A4');
-      const text = flat(pdfText(file));
-      expect(text).toContain(flat(content.name));
-      expect(text).toContain(flat(content.headline));
-      expect(text).toContain(flat(content.trace.line));
-      for (const c of content.cautions) expect(text).toContain(flat(c));
-      // Only the brief: not the app's header, navigation or the page's own buttons.
-      for (const word of ['Open the PDF', 'Sign out', 'District card']) expect(text).not.toContain(word);
-      renderFirstPage(file, `print-${name}-D24`);
-    } finally {
-      await context.close();
-    }
-  });
+        const file = await printed(page, `print-${name}-D24`, 'A4');
+        const text = flat(pdfText(file));
+        expect(text).toContain(flat(content.name));
+        expect(text).toContain(flat(content.headline));
+        expect(text).toContain(flat(content.trace.line));
+        for (const c of content.cautions) expect(text).toContain(flat(c));
+        // Only the brief: not the app's header, navigation or the page's own buttons.
+        for (const word of ['Open the PDF', 'Sign out', 'District card']) expect(text).not.toContain(word);
+        renderFirstPage(file, `print-${name}-D24`);
+      } finally {
+        await context.close();
+      }
+    },
+  );
 
   it('prints the region brief with the table header on every page that has rows', async () => {
     const { context, page } = await h.newPage(VIEWPORTS.wide);
@@ -118,7 +124,9 @@ describe('briefs in the browser', () => {
         const rows = onPage.filter((w) => codes.has(w.text));
         if (!rows.length) continue;
         pagesWithRows++;
-        const head = ['Code', 'District', 'Standing', 'Gap', 'Threshold', 'Crossing'].map((t) => onPage.find((w) => w.text === t));
+        const head = ['Code', 'District', 'Standing', 'Gap', 'Threshold', 'Crossing'].map((t) =>
+          onPage.find((w) => w.text === t),
+        );
         expect(head.every(Boolean)).toBe(true);
         for (const w of head) expect(Math.abs(w!.yMin - head[0]!.yMin)).toBeLessThan(2);
         expect(Math.min(...rows.map((w) => w.yMin))).toBeGreaterThan(head[0]!.yMin);

@@ -15,7 +15,17 @@ jest.setTimeout(240_000);
 /** The band's fill (chartColors.band in components/theme.ts). */
 const BAND_FILL = '#e4daf0';
 
-type Summary = { code: string; name: string; estimate: { standing: string; intervalBounded: boolean | null; threshold: number | null; gapPercent: number | null; levelNow: number | null } | null };
+type Summary = {
+  code: string;
+  name: string;
+  estimate: {
+    standing: string;
+    intervalBounded: boolean | null;
+    threshold: number | null;
+    gapPercent: number | null;
+    levelNow: number | null;
+  } | null;
+};
 
 let h: Harness;
 let districts: Summary[];
@@ -35,7 +45,9 @@ async function shot(page: Page, name: string): Promise<void> {
 
 /** Codes of the rows the list shows, top to bottom. */
 async function rowCodes(page: Page): Promise<string[]> {
-  const ids = await page.locator('[data-testid^="district-row-"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid') ?? ''));
+  const ids = await page
+    .locator('[data-testid^="district-row-"]')
+    .evaluateAll((els) => els.map((e) => e.getAttribute('data-testid') ?? ''));
   return ids.map((id) => id.replace('district-row-', ''));
 }
 
@@ -43,7 +55,9 @@ async function rowCodes(page: Page): Promise<string[]> {
 async function chartMarks(page: Page, box: string): Promise<{ svg: number; paths: number; band: number }> {
   return page.locator(`[data-testid="${box}"]`).evaluate((el, fill) => {
     const paths = [...el.querySelectorAll('svg path')];
-    const band = paths.filter((p) => (p.getAttribute('fill') ?? '').toLowerCase() === fill || getComputedStyle(p).fill === 'rgb(228, 218, 240)');
+    const band = paths.filter(
+      (p) => (p.getAttribute('fill') ?? '').toLowerCase() === fill || getComputedStyle(p).fill === 'rgb(228, 218, 240)',
+    );
     return { svg: el.querySelectorAll('svg').length, paths: paths.length, band: band.length };
   }, BAND_FILL);
 }
@@ -56,7 +70,8 @@ describe.each([
     const { context, page } = await h.newPage(viewport);
     try {
       await signIn(page, DEMO.official);
-      districts = ((await (await page.request.get(`${h.baseUrl}/api/districts`)).json()) as { districts: Summary[] }).districts;
+      districts = ((await (await page.request.get(`${h.baseUrl}/api/districts`)).json()) as { districts: Summary[] })
+        .districts;
       expect(districts.filter((d) => d.estimate).length).toBeGreaterThan(20);
 
       await page.getByTestId('district-row-D01').waitFor();
@@ -68,8 +83,16 @@ describe.each([
       await page.getByTestId('sort-gap').click();
       const closest = [...districts]
         .filter((d) => d.estimate?.gapPercent !== null && d.estimate?.gapPercent !== undefined)
-        .sort((a, b) => Math.abs(a.estimate!.gapPercent!) - Math.abs(b.estimate!.gapPercent!) || a.name.localeCompare(b.name, 'en'))[0];
-      await page.waitForFunction((code) => document.querySelector('[data-testid^="district-row-"]')?.getAttribute('data-testid') === `district-row-${code}`, closest.code);
+        .sort(
+          (a, b) =>
+            Math.abs(a.estimate!.gapPercent!) - Math.abs(b.estimate!.gapPercent!) || a.name.localeCompare(b.name, 'en'),
+        )[0];
+      await page.waitForFunction(
+        (code) =>
+          document.querySelector('[data-testid^="district-row-"]')?.getAttribute('data-testid') ===
+          `district-row-${code}`,
+        closest.code,
+      );
       await shot(page, `card-${name}-region-by-gap`);
 
       // Filter to one standing: every row shown has it, and as many as the API says.
@@ -99,7 +122,8 @@ describe.each([
         await shot(page, `card-${name}-region-keyboard-focus`);
         await page.keyboard.press('Enter');
         await expect(page.getByTestId('sort-gap').getAttribute('aria-checked')).resolves.toBe('true');
-        for (let i = 0; i < 12 && !(await focusedId()).startsWith('district-row-'); i++) await page.keyboard.press('Tab');
+        for (let i = 0; i < 12 && !(await focusedId()).startsWith('district-row-'); i++)
+          await page.keyboard.press('Tab');
         const row = await focusedId();
         expect(row).toMatch(/^district-row-/);
         await page.keyboard.press('Enter');
@@ -110,7 +134,12 @@ describe.each([
       }
 
       // A district with a bounded interval: chart drawn, band present, summary says so.
-      const bounded = districts.find((d) => d.estimate?.intervalBounded === true && (d.estimate.threshold ?? 0) > 0 && d.estimate.standing === 'past_turn')!;
+      const bounded = districts.find(
+        (d) =>
+          d.estimate?.intervalBounded === true &&
+          (d.estimate.threshold ?? 0) > 0 &&
+          d.estimate.standing === 'past_turn',
+      )!;
       await page.getByTestId('sort-name').click();
       await page.getByTestId(`district-row-${bounded.code}`).click();
       await page.waitForURL(new RegExp(`/district/${bounded.code}$`));
@@ -123,7 +152,9 @@ describe.each([
       expect(withBand.band).toBeGreaterThan(0);
       expect((await chartMarks(page, 'path-chart-box')).band).toBeGreaterThan(0);
       await expect(page.getByTestId('curve-chart-summary').textContent()).resolves.toMatch(/as a shaded band/);
-      await expect(page.getByTestId('curve-chart-box').getAttribute('aria-label')).resolves.toMatch(/^Emissions per person against real income per person/);
+      await expect(page.getByTestId('curve-chart-box').getAttribute('aria-label')).resolves.toMatch(
+        /^Emissions per person against real income per person/,
+      );
       if (name === 'wide') {
         // List and card side by side, and the alerts column at ≥ 1440 px.
         expect(await page.getByTestId('district-row-D02').isVisible()).toBe(true);
@@ -142,16 +173,28 @@ describe.each([
       await toggle.scrollIntoViewIfNeeded();
       await expect(toggle.getAttribute('aria-checked')).resolves.toBe('false');
       await toggle.click();
-      await page.waitForFunction(() => document.querySelector('[data-testid="subscribe-toggle"]')?.getAttribute('aria-checked') === 'true');
-      const subs = (await (await page.request.get(`${h.baseUrl}/api/subscriptions`)).json()) as { subscriptions: { scope: string; districtCodes: string[] }[] };
-      expect(subs.subscriptions).toEqual([expect.objectContaining({ scope: 'district', districtCodes: [bounded.code] })]);
+      await page.waitForFunction(
+        () => document.querySelector('[data-testid="subscribe-toggle"]')?.getAttribute('aria-checked') === 'true',
+      );
+      const subs = (await (await page.request.get(`${h.baseUrl}/api/subscriptions`)).json()) as {
+        subscriptions: { scope: string; districtCodes: string[] }[];
+      };
+      expect(subs.subscriptions).toEqual([
+        expect.objectContaining({ scope: 'district', districtCodes: [bounded.code] }),
+      ]);
       await toggle.click();
-      await page.waitForFunction(() => document.querySelector('[data-testid="subscribe-toggle"]')?.getAttribute('aria-checked') === 'false');
-      expect(((await (await page.request.get(`${h.baseUrl}/api/subscriptions`)).json()) as { subscriptions: unknown[] }).subscriptions).toEqual([]);
+      await page.waitForFunction(
+        () => document.querySelector('[data-testid="subscribe-toggle"]')?.getAttribute('aria-checked') === 'false',
+      );
+      expect(
+        ((await (await page.request.get(`${h.baseUrl}/api/subscriptions`)).json()) as { subscriptions: unknown[] })
+          .subscriptions,
+      ).toEqual([]);
 
       // A district whose interval is not bounded, with its threshold near enough to today's
       // income to be marked on the chart: the chart is drawn with the line and without a band.
-      const near = (e: NonNullable<Summary['estimate']>) => e.threshold !== null && e.levelNow !== null && e.threshold > e.levelNow / 2 && e.threshold < e.levelNow * 2;
+      const near = (e: NonNullable<Summary['estimate']>) =>
+        e.threshold !== null && e.levelNow !== null && e.threshold > e.levelNow / 2 && e.threshold < e.levelNow * 2;
       const unbounded = districts.find((d) => d.estimate?.intervalBounded === false && near(d.estimate))!;
       expect(unbounded).toBeTruthy();
       await page.goto(`${h.baseUrl}/district/${unbounded.code}`);
@@ -162,14 +205,18 @@ describe.each([
       expect(noBand.paths).toBeGreaterThan(3);
       expect(noBand.band).toBe(0);
       expect((await chartMarks(page, 'path-chart-box')).band).toBe(0);
-      await expect(page.getByTestId('curve-chart-summary').textContent()).resolves.toMatch(/without a band: interval not bounded at 95%/);
+      await expect(page.getByTestId('curve-chart-summary').textContent()).resolves.toMatch(
+        /without a band: interval not bounded at 95%/,
+      );
       await shot(page, `card-${name}-district-unbounded`);
       await page.getByTestId('curve-chart').scrollIntoViewIfNeeded();
       await shot(page, `card-${name}-district-unbounded-chart`);
 
       // A regional substitute is labelled as such.
       // (The demo region has two districts whose series start too late for a fit of their own.)
-      const region = (await (await page.request.get(`${h.baseUrl}/api/region`)).json()) as { districts: { code: string; estimate: { status: string } | null }[] };
+      const region = (await (await page.request.get(`${h.baseUrl}/api/region`)).json()) as {
+        districts: { code: string; estimate: { status: string } | null }[];
+      };
       const substitute = region.districts.find((d) => d.estimate?.status === 'substitute');
       expect(substitute).toBeTruthy();
       await page.goto(`${h.baseUrl}/district/${substitute!.code}`);
@@ -182,7 +229,9 @@ describe.each([
       await context.setOffline(true);
       const cardNotice = page.getByTestId('district-detail-scroll').getByTestId('stale-notice');
       await cardNotice.waitFor();
-      await expect(cardNotice.textContent()).resolves.toMatch(/^Offline\. Showing this district’s figures as loaded at .*; they will refresh when the connection returns\.$/);
+      await expect(cardNotice.textContent()).resolves.toMatch(
+        /^Offline\. Showing this district’s figures as loaded at .*; they will refresh when the connection returns\.$/,
+      );
       expect(await page.getByTestId('card-headline').isVisible()).toBe(true);
       // Beside it on a wide screen, the kept region list says the same of itself.
       if (name === 'wide') await page.getByTestId('district-list-panel').getByTestId('stale-notice').waitFor();

@@ -26,7 +26,10 @@ async function signIn(page: Page, email: string): Promise<void> {
 }
 
 async function noHorizontalOverflow(page: Page): Promise<void> {
-  const { scroll, inner } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, inner: window.innerWidth }));
+  const { scroll, inner } = await page.evaluate(() => ({
+    scroll: document.documentElement.scrollWidth,
+    inner: window.innerWidth,
+  }));
   expect(scroll).toBeLessThanOrEqual(inner);
 }
 
@@ -45,7 +48,9 @@ describe.each([
     const { context, page } = await h.newPage(viewport);
     try {
       await signIn(page, DEMO.official);
-      const api = (await (await page.request.get(`${h.baseUrl}/api/districts`)).json()) as { districts: { code: string; estimate: { standing: string } | null }[] };
+      const api = (await (await page.request.get(`${h.baseUrl}/api/districts`)).json()) as {
+        districts: { code: string; estimate: { standing: string } | null }[];
+      };
       const standingOf = new Map(api.districts.map((d) => [d.code, d.estimate?.standing ?? 'not_estimable']));
       if (name === 'phone') {
         await page.getByTestId('region-view-map').click();
@@ -65,37 +70,60 @@ describe.each([
       await h.shot(page, `map-${name}-zoomed`);
       await page.getByTestId('map-reset').click();
       const transform = () => page.locator('[data-testid="region-map-canvas"] svg g').first().getAttribute('transform');
-      await page.waitForFunction(() => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') === 'translate(0 0) scale(1)');
+      await page.waitForFunction(
+        () =>
+          document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') ===
+          'translate(0 0) scale(1)',
+      );
       // The wheel zooms in about the pointer; a drag pans; reset goes back.
       const frame = (await page.getByTestId('region-map-canvas').boundingBox())!;
       const cx = frame.x + frame.width / 2;
       const cy = frame.y + frame.height / 2;
       await page.mouse.move(cx, cy);
       await page.mouse.wheel(0, -200);
-      await page.waitForFunction(() => /scale\(1\.25\)/.test(document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') ?? ''));
+      await page.waitForFunction(() =>
+        /scale\(1\.25\)/.test(
+          document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') ?? '',
+        ),
+      );
       const zoomed = await transform();
       await page.mouse.down();
       await page.mouse.move(cx + 40, cy + 30, { steps: 6 });
       await page.mouse.up();
-      await page.waitForFunction((before) => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') !== before, zoomed);
+      await page.waitForFunction(
+        (before) =>
+          document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') !== before,
+        zoomed,
+      );
       expect(await transform()).toMatch(/scale\(1\.25\)/);
       await page.getByTestId('map-reset').click();
-      await page.waitForFunction(() => document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') === 'translate(0 0) scale(1)');
+      await page.waitForFunction(
+        () =>
+          document.querySelector('[data-testid="region-map-canvas"] svg g')?.getAttribute('transform') ===
+          'translate(0 0) scale(1)',
+      );
 
       // The legend filters: past the turn only; its chip is on, and its count is the API's.
       const past = [...standingOf.values()].filter((s) => s === 'past_turn').length;
       const chip = page.getByTestId('map-legend-past_turn');
       await expect(chip.textContent()).resolves.toContain(String(past));
       await chip.click();
-      await page.waitForFunction(() => document.querySelector('[data-testid="map-legend-past_turn"]')?.getAttribute('aria-checked') === 'true');
-      const marks = await page.locator('[data-testid^="map-mark-"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!.replace('map-mark-', '')));
+      await page.waitForFunction(
+        () => document.querySelector('[data-testid="map-legend-past_turn"]')?.getAttribute('aria-checked') === 'true',
+      );
+      const marks = await page
+        .locator('[data-testid^="map-mark-"]')
+        .evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!.replace('map-mark-', '')));
       expect(marks.length).toBeGreaterThan(0);
       expect(marks.every((c) => standingOf.get(c) === 'past_turn')).toBe(true);
       await h.shot(page, `map-${name}-filtered`);
       await chip.click();
 
       // Tap a district: its card opens (the detail pane on wide screens), with the locator.
-      const code = (await page.locator('[data-testid^="map-mark-"]').first().getAttribute('data-testid'))!.replace('map-mark-', '');
+      const code = (await page.locator('[data-testid^="map-mark-"]').first().getAttribute('data-testid'))!.replace(
+        'map-mark-',
+        '',
+      );
       await tapDistrict(page, code);
       await page.waitForURL(`${h.baseUrl}/district/${code}`);
       await page.getByTestId('district-name').waitFor();

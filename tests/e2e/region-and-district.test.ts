@@ -43,7 +43,10 @@ describe.each([
 
       await row.click();
       await page.waitForURL(/\/district\/D01$/);
-      await page.getByRole('heading', { name: /Amberlyn Reach/ }).first().waitFor();
+      await page
+        .getByRole('heading', { name: /Amberlyn Reach/ })
+        .first()
+        .waitFor();
       if (name === 'laptop') {
         // Wide layout: the list stays beside the district.
         expect(await page.getByTestId('district-row-D02').isVisible()).toBe(true);

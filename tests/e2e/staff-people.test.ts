@@ -50,7 +50,10 @@ describe.each([
       await openSection(page, 'audit', phone);
       await page.getByTestId('audit-action').fill('person.invite');
       await page.getByTestId('audit-apply').click();
-      const entry = page.getByTestId('audit-list').locator('[data-testid^="audit-"]', { hasText: 'Invited a person' }).first();
+      const entry = page
+        .getByTestId('audit-list')
+        .locator('[data-testid^="audit-"]', { hasText: 'Invited a person' })
+        .first();
       await entry.waitFor();
       await entry.getByRole('button').first().click();
       expect(await entry.innerText()).toContain(email);
@@ -91,7 +94,13 @@ it('shows a lapsed invitation as expired, re-sends it, and resets a pinned Googl
   const [inviter] = await h.t.db('users').where({ email: DEMO.admin }).select('id');
   const [late] = await h.t
     .db('users')
-    .insert({ email: 'late.official@crestwatch.example', role: 'official', invited_by: inviter.id, invited_at: new Date(Date.now() - 20 * 86_400_000), invitation_expires_at: new Date(Date.now() - 86_400_000) })
+    .insert({
+      email: 'late.official@crestwatch.example',
+      role: 'official',
+      invited_by: inviter.id,
+      invited_at: new Date(Date.now() - 20 * 86_400_000),
+      invitation_expires_at: new Date(Date.now() - 86_400_000),
+    })
     .returning('id');
   const { context, page } = await h.newPage(VIEWPORTS.laptop);
   try {
@@ -116,7 +125,12 @@ it('shows a lapsed invitation as expired, re-sends it, and resets a pinned Googl
     await page.getByTestId(`person-${analystId}-ok`).waitFor();
     await h.shot(page, 'staff-laptop-people-lapsed');
     expect((await h.t.db('users').where({ id: analystId }).first()).google_sub).toBeNull();
-    expect(await h.t.db('audit_log').where({ action: 'person.identity_reset', target_id: String(analystId) }).first()).toBeDefined();
+    expect(
+      await h.t
+        .db('audit_log')
+        .where({ action: 'person.identity_reset', target_id: String(analystId) })
+        .first(),
+    ).toBeDefined();
   } finally {
     await context.close();
   }

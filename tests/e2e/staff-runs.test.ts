@@ -142,7 +142,10 @@ describe('at the wide viewport', () => {
       await page.goto(`${h.baseUrl}/alerts`);
       const list = page.getByTestId('alerts-list');
       await list.waitFor();
-      const item = list.locator('[data-testid^="alert-"]', { hasText: 'Mirefield Uplands' }).filter({ hasText: 'Standing moved' }).first();
+      const item = list
+        .locator('[data-testid^="alert-"]', { hasText: 'Mirefield Uplands' })
+        .filter({ hasText: 'Standing moved' })
+        .first();
       await item.waitFor();
       expect(await item.innerText()).toMatch(/New/);
       await h.shot(page, 'staff-wide-alerts');
@@ -151,7 +154,13 @@ describe('at the wide viewport', () => {
       await page.goto(`${h.baseUrl}/alerts`);
       await page.getByTestId('alerts-show-unread').click();
       await page.getByTestId('alerts-screen').waitFor();
-      expect(await page.getByTestId('alerts-screen').getByText('Mirefield Uplands').filter({ hasText: 'Standing moved' }).count()).toBe(0);
+      expect(
+        await page
+          .getByTestId('alerts-screen')
+          .getByText('Mirefield Uplands')
+          .filter({ hasText: 'Standing moved' })
+          .count(),
+      ).toBe(0);
     } finally {
       await context.close();
     }
@@ -165,7 +174,9 @@ describe('at the wide viewport', () => {
       await page.getByTestId('schedule').waitFor();
       const next = await page.getByTestId('schedule-next').innerText();
       expect(next).toMatch(/^Next start: \d{1,2} (Jan|Apr|Jul|Oct) \d{4}, 06:00 UTC/);
-      expect(await page.getByTestId('schedule').innerText()).toMatch(/06:00 on the 1st of January, April, July and October/);
+      expect(await page.getByTestId('schedule').innerText()).toMatch(
+        /06:00 on the 1st of January, April, July and October/,
+      );
       await h.shot(page, 'staff-wide-settings');
     } finally {
       await context.close();

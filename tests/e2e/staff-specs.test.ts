@@ -34,7 +34,9 @@ it('an analyst saves a spec, sees it offered for a run, and archives it (wide)',
     await page.waitForURL(/\/specs\/\d+$/);
     const id = Number(/\/specs\/(\d+)$/.exec(page.url())![1]);
     await page.getByTestId(`spec-row-${id}`).waitFor();
-    expect(await page.getByTestId(`spec-row-${id}`).innerText()).toMatch(/Level quadratic in income_pc, no controls, HC1 errors/);
+    expect(await page.getByTestId(`spec-row-${id}`).innerText()).toMatch(
+      /Level quadratic in income_pc, no controls, HC1 errors/,
+    );
     await h.shot(page, 'staff-wide-spec-saved');
 
     await openSection(page, 'runs', false);
@@ -45,7 +47,9 @@ it('an analyst saves a spec, sees it offered for a run, and archives it (wide)',
     await page.getByTestId('spec-archive').click();
     await page.getByTestId('spec-archive-confirm').click();
     await page.waitForURL(/\/specs\?archived=/);
-    expect(await page.getByTestId('specs-notice-ok').innerText()).toBe('Archived “Levels without controls”. Runs keep their own copy of it.');
+    expect(await page.getByTestId('specs-notice-ok').innerText()).toBe(
+      'Archived “Levels without controls”. Runs keep their own copy of it.',
+    );
     await page.getByTestId('specs-list').waitFor();
     expect(await page.getByTestId(`spec-row-${id}`).count()).toBe(0);
     await h.shot(page, 'staff-wide-spec-archived');

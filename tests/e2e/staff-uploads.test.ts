@@ -16,7 +16,10 @@ const DEMO_LONG = path.join(root, 'assets', 'demo-data', 'demo-long.csv');
 
 /** The file's own value for D03's 2021 emissions, as the district table prints it (two places). */
 function fileValueD03_2021(): string {
-  const line = fs.readFileSync(DEMO_LONG, 'utf8').split(/\r?\n/).find((l) => l.startsWith('D03,emissions_pc,2021,'));
+  const line = fs
+    .readFileSync(DEMO_LONG, 'utf8')
+    .split(/\r?\n/)
+    .find((l) => l.startsWith('D03,emissions_pc,2021,'));
   if (!line) throw new Error('demo-long.csv no longer revises D03 emissions in 2021: pick another value for this test');
   return Number(line.split(',')[3]).toFixed(2);
 }
@@ -86,7 +89,9 @@ describe.each([
       await page.getByTestId(`upload-revert-${uploadId}`).click();
       await page.getByTestId(`upload-revert-${uploadId}-confirm`).click();
       await page.getByTestId('upload-revert-ok').waitFor();
-      expect(await page.getByTestId('upload-revert-ok').innerText()).toMatch(new RegExp(`Upload #${uploadId} reverted`));
+      expect(await page.getByTestId('upload-revert-ok').innerText()).toMatch(
+        new RegExp(`Upload #${uploadId} reverted`),
+      );
       await page.getByText('Reverted', { exact: true }).first().waitFor();
       await h.shot(page, `staff-${name}-upload-reverted`);
 
@@ -106,9 +111,18 @@ it('refuses a file with errors and lists them by line and column', async () => {
     await chooseFile(page, path.join(root, 'tests', 'fixtures', 'bad-csv', 'not-a-number.csv'));
     await page.getByTestId('upload-refused').waitFor();
     // Where the problem is comes from the corpus's own expectations (tests/fixtures/bad-csv/expected.json).
-    const expected = JSON.parse(fs.readFileSync(path.join(root, 'tests', 'fixtures', 'bad-csv', 'expected.json'), 'utf8'))['not-a-number.csv'];
+    const expected = JSON.parse(
+      fs.readFileSync(path.join(root, 'tests', 'fixtures', 'bad-csv', 'expected.json'), 'utf8'),
+    )['not-a-number.csv'];
     const rows = await page.locator('[data-testid^="problem-"]').allInnerTexts();
-    const errors = rows.map((r) => r.split('\n').map((c) => c.trim()).filter(Boolean)).filter((cells) => cells.includes('Error'));
+    const errors = rows
+      .map((r) =>
+        r
+          .split('\n')
+          .map((c) => c.trim())
+          .filter(Boolean),
+      )
+      .filter((cells) => cells.includes('Error'));
     expect(errors).toHaveLength(1);
     expect(errors[0][0]).toBe(String(expected.line));
     expect(errors[0][1]).toMatch(new RegExp(`^${expected.column}\\b`));

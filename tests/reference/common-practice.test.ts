@@ -8,17 +8,21 @@ import { loadPanelA } from './panel-a-loader';
 describe('common practice', () => {
   test('the five sign readings of b1 and b2 (common practice)', () => {
     expect(signRuleReading(2, -0.1, 0.001, 0.001, 0.05).reading).toBe('inverted_u'); // b1 > 0, b2 < 0
-    expect(signRuleReading(-2, 0.1, 0.001, 0.001, 0.05).reading).toBe('u');          // b1 < 0, b2 > 0
-    expect(signRuleReading(2, 0.1, 0.001, 0.001, 0.05).reading).toBe('increasing');  // both > 0
+    expect(signRuleReading(-2, 0.1, 0.001, 0.001, 0.05).reading).toBe('u'); // b1 < 0, b2 > 0
+    expect(signRuleReading(2, 0.1, 0.001, 0.001, 0.05).reading).toBe('increasing'); // both > 0
     expect(signRuleReading(-2, -0.1, 0.001, 0.001, 0.05).reading).toBe('decreasing'); // both < 0
-    expect(signRuleReading(2, -0.1, 0.4, 0.3, 0.05).reading).toBe('flat');           // both insignificant
+    expect(signRuleReading(2, -0.1, 0.4, 0.3, 0.05).reading).toBe('flat'); // both insignificant
   });
 
   const rows = loadPanelA();
   const fits: Record<string, CurveFit> = {};
   for (const code of [...new Set(rows.map((r) => r.district))]) {
-    const r = fitCurve(rows.filter((x) => x.district === code).map((x) => ({ year: x.year, y: x.emissions, x: x.income, controls: { d: x.density } })),
-      { form: 'quadratic', transform: 'log', covariance: 'newey_west' });
+    const r = fitCurve(
+      rows
+        .filter((x) => x.district === code)
+        .map((x) => ({ year: x.year, y: x.emissions, x: x.income, controls: { d: x.density } })),
+      { form: 'quadratic', transform: 'log', covariance: 'newey_west' },
+    );
     if (r.status === 'ok') fits[code] = r;
   }
 

@@ -39,8 +39,12 @@ const FORMS = ['quadratic', 'cubic'] as const;
 const TRANSFORMS = ['level', 'log'] as const;
 const POWERS = [-3, -2, -1, 0, 1, 2, 3, 4, 5, 6, 7];
 
-const ok = (r: FitCurveResult): CurveFit => { if (r.status !== 'ok') throw new Error(`${r.reason.code}: ${r.reason.message}`); return r; };
-const scaleRows = (rows: CurveRow[], fx: number, fy: number): CurveRow[] => rows.map((r) => ({ ...r, x: r.x * fx, y: r.y * fy }));
+const ok = (r: FitCurveResult): CurveFit => {
+  if (r.status !== 'ok') throw new Error(`${r.reason.code}: ${r.reason.message}`);
+  return r;
+};
+const scaleRows = (rows: CurveRow[], fx: number, fy: number): CurveRow[] =>
+  rows.map((r) => ({ ...r, x: r.x * fx, y: r.y * fy }));
 
 /** Relative difference with a floor of 1 on the log scale (values there are O(10)). */
 function rel(a: number | null, b: number | null, floor: number): number {
@@ -55,10 +59,20 @@ function thresholdDeviation(f: CurveFit, base: CurveFit, map: (v: number) => num
   expect(f.turningPoints.length).toBe(base.turningPoints.length);
   f.turningPoints.forEach((tp, i) => {
     const b = base.turningPoints[i];
-    worst = Math.max(worst, rel(tp.x, m(b.x), floor), rel(tp.fieller.lo, m(b.fieller.lo), floor), rel(tp.fieller.hi, m(b.fieller.hi), floor),
-      rel(tp.delta.lo, m(b.delta.lo), floor), rel(tp.delta.hi, m(b.delta.hi), floor));
+    worst = Math.max(
+      worst,
+      rel(tp.x, m(b.x), floor),
+      rel(tp.fieller.lo, m(b.fieller.lo), floor),
+      rel(tp.fieller.hi, m(b.fieller.hi), floor),
+      rel(tp.delta.lo, m(b.delta.lo), floor),
+      rel(tp.delta.hi, m(b.delta.hi), floor),
+    );
     tp.fieller.pieces.forEach((p, j) => {
-      worst = Math.max(worst, rel(p.lo, m(base.turningPoints[i].fieller.pieces[j].lo), floor), rel(p.hi, m(base.turningPoints[i].fieller.pieces[j].hi), floor));
+      worst = Math.max(
+        worst,
+        rel(p.lo, m(base.turningPoints[i].fieller.pieces[j].lo), floor),
+        rel(p.hi, m(base.turningPoints[i].fieller.pieces[j].hi), floor),
+      );
     });
   });
   return worst;
@@ -68,8 +82,9 @@ function sameReading(f: CurveFit, base: CurveFit): void {
   expect(f.shape.shape).toBe(base.shape.shape);
   expect(f.standing.standing).toBe(base.standing.standing);
   expect(f.standing.turningPointIndex).toBe(base.standing.turningPointIndex);
-  expect(f.turningPoints.map((t) => [t.kind, t.fieller.kind, t.inRange, t.fieller.pieces.length]))
-    .toEqual(base.turningPoints.map((t) => [t.kind, t.fieller.kind, t.inRange, t.fieller.pieces.length]));
+  expect(f.turningPoints.map((t) => [t.kind, t.fieller.kind, t.inRange, t.fieller.pieces.length])).toEqual(
+    base.turningPoints.map((t) => [t.kind, t.fieller.kind, t.inRange, t.fieller.pieces.length]),
+  );
   expect(f.projection.status).toBe(base.projection.status);
   expect(f.projection.crossingYear).toBe(base.projection.crossingYear);
   expect(f.projection.range).toEqual(base.projection.range);
@@ -99,11 +114,15 @@ describe.each(FORMS)('%s', (form) => {
         const dev = thresholdDeviation(f, base, map, transform === 'level' ? 0 : 1);
         worst = Math.max(worst, dev);
         expect(dev).toBeLessThan(1e-9);
-        f.turningPoints.forEach((tp, i) => expect(rel(tp.level, base.turningPoints[i].level! * 10 ** k, 0)).toBeLessThan(1e-9));
+        f.turningPoints.forEach((tp, i) =>
+          expect(rel(tp.level, base.turningPoints[i].level! * 10 ** k, 0)).toBeLessThan(1e-9),
+        );
         sameReading(f, base);
         expect(rel(f.gap.percent, base.gap.percent, 1)).toBeLessThan(1e-9);
       }
-      summary.push(`  ${form} ${transform} ${covariance} income: ${worst.toExponential(2)} (shape ${base.shape.shape}, standing ${base.standing.standing})`);
+      summary.push(
+        `  ${form} ${transform} ${covariance} income: ${worst.toExponential(2)} (shape ${base.shape.shape}, standing ${base.standing.standing})`,
+      );
     });
 
     test.each(COVARIANCES)('emissions × 10^k leave the thresholds unchanged, %s covariance', (covariance) => {

@@ -50,6 +50,7 @@ describe('engine OLS agrees with ml-regression-polynomial on well-conditioned po
     const reference = new PolynomialRegression(x, y, 2);
     const design = polynomialDesign(x, 2);
     const engine = ols(design, y);
-    for (let p = 0; p <= 2; p++) expect(relative(engine.coefficients[p], reference.coefficients[p])).toBeLessThan(1e-10);
+    for (let p = 0; p <= 2; p++)
+      expect(relative(engine.coefficients[p], reference.coefficients[p])).toBeLessThan(1e-10);
   });
 });

@@ -13,29 +13,39 @@ function series(sign: 1 | -1, n = 30): CurveRow[] {
     return { year: 1995 + t, x, y };
   });
 }
-const spec = (covariance: 'classical' | 'hc1' | 'hc3' | 'newey_west') =>
-  ({ form: 'cubic' as const, transform: 'level' as const, covariance, controls: [] as string[] });
-const ok = (r: FitCurveResult): CurveFit => { if (r.status !== 'ok') throw new Error(r.reason.message); return r; };
+const spec = (covariance: 'classical' | 'hc1' | 'hc3' | 'newey_west') => ({
+  form: 'cubic' as const,
+  transform: 'level' as const,
+  covariance,
+  controls: [] as string[],
+});
+const ok = (r: FitCurveResult): CurveFit => {
+  if (r.status !== 'ok') throw new Error(r.reason.message);
+  return r;
+};
 
 describe('N-shapes in the engine', () => {
-  test.each(['classical', 'hc1', 'hc3', 'newey_west'] as const)('rises, falls, rises → n_shape (%s); both turns keep their intervals', (cov) => {
-    const f = ok(fitCurve(series(1), spec(cov)));
-    expect(f.shape.shape).toBe('n_shape');
-    expect(f.shape.decidedBy).toBe('two_turns_in_range');
-    expect(f.turningPoints.map((t) => t.kind)).toEqual(['peak', 'trough']);
-    expect(f.turningPoints[0].x).toBeCloseTo(1, 1); // chosen cubic: peak at 1
-    expect(f.turningPoints[1].x).toBeCloseTo(3, 1); // trough at 3
-    for (const tp of f.turningPoints) {
-      expect(tp.inRange).toBe(true);
-      expect(tp.fieller.kind).toBe('bounded');
-      expect(tp.fieller.lo! <= tp.x && tp.x <= tp.fieller.hi!).toBe(true);
-      expect(tp.delta.se).not.toBeNull();
-    }
-    // x_now ≈ 3.8: the nearest turn inside the range is the trough at 3, read like a U: past it
-    expect(f.standing.turningPointIndex).toBe(1);
-    expect(f.standing.standing).toBe('past_turn');
-    expect(f.gap.percent).not.toBeNull();
-  });
+  test.each(['classical', 'hc1', 'hc3', 'newey_west'] as const)(
+    'rises, falls, rises → n_shape (%s); both turns keep their intervals',
+    (cov) => {
+      const f = ok(fitCurve(series(1), spec(cov)));
+      expect(f.shape.shape).toBe('n_shape');
+      expect(f.shape.decidedBy).toBe('two_turns_in_range');
+      expect(f.turningPoints.map((t) => t.kind)).toEqual(['peak', 'trough']);
+      expect(f.turningPoints[0].x).toBeCloseTo(1, 1); // chosen cubic: peak at 1
+      expect(f.turningPoints[1].x).toBeCloseTo(3, 1); // trough at 3
+      for (const tp of f.turningPoints) {
+        expect(tp.inRange).toBe(true);
+        expect(tp.fieller.kind).toBe('bounded');
+        expect(tp.fieller.lo! <= tp.x && tp.x <= tp.fieller.hi!).toBe(true);
+        expect(tp.delta.se).not.toBeNull();
+      }
+      // x_now ≈ 3.8: the nearest turn inside the range is the trough at 3, read like a U: past it
+      expect(f.standing.turningPointIndex).toBe(1);
+      expect(f.standing.standing).toBe('past_turn');
+      expect(f.gap.percent).not.toBeNull();
+    },
+  );
 
   test('falls, rises, falls → inverted_n; the standing is read from the peak at 3', () => {
     const f = ok(fitCurve(series(-1), spec('newey_west')));
@@ -47,7 +57,11 @@ describe('N-shapes in the engine', () => {
 
   test('x_now between the two turns and nearer the first: the standing uses the first', () => {
     const rows = series(1).filter((r) => r.x < 1.8); // the last x lies between 1 and 3, nearer 1
-    rows.push(...series(1).filter((r) => r.x >= 1.8).map((r, i) => ({ ...r, year: 1960 + i }))); // earlier years reach 3.8
+    rows.push(
+      ...series(1)
+        .filter((r) => r.x >= 1.8)
+        .map((r, i) => ({ ...r, year: 1960 + i })),
+    ); // earlier years reach 3.8
     const f = ok(fitCurve(rows, spec('classical')));
     expect(f.shape.shape).toBe('n_shape');
     expect(f.turningPoints[f.standing.turningPointIndex!].kind).toBe('peak');
@@ -60,11 +74,35 @@ describe('N-shapes in the engine', () => {
       slopeAtMidpoint: { x: 2, value: -1, se: 0.1 },
       signRule: null,
     };
-    const wald = (rejects: boolean | null) => ({ statistic: 1, q: 3, fStatistic: 1, df: 20, pValue: 0.01, rejects, reason: null, condition: 1 });
-    const two = [{ x: 1, inRange: true, kind: 'peak' as const }, { x: 3, inRange: true, kind: 'trough' as const }];
+    const wald = (rejects: boolean | null) => ({
+      statistic: 1,
+      q: 3,
+      fStatistic: 1,
+      df: 20,
+      pValue: 0.01,
+      rejects,
+      reason: null,
+      condition: 1,
+    });
+    const two = [
+      { x: 1, inRange: true, kind: 'peak' as const },
+      { x: 3, inRange: true, kind: 'trough' as const },
+    ];
     expect(classifyShape({ ...base, wald: wald(true), turningPoints: two }).shape).toBe('n_shape');
     expect(classifyShape({ ...base, wald: wald(false), turningPoints: two }).shape).toBe('flat');
-    expect(classifyShape({ ...base, wald: wald(true), turningPoints: [two[1], { x: 5, inRange: true, kind: 'peak' as const }] }).shape).toBe('inverted_n');
-    expect(classifyShape({ ...base, wald: wald(true), turningPoints: [two[0], { x: 5, inRange: false, kind: 'trough' as const }] }).shape).toBe('decreasing');
+    expect(
+      classifyShape({
+        ...base,
+        wald: wald(true),
+        turningPoints: [two[1], { x: 5, inRange: true, kind: 'peak' as const }],
+      }).shape,
+    ).toBe('inverted_n');
+    expect(
+      classifyShape({
+        ...base,
+        wald: wald(true),
+        turningPoints: [two[0], { x: 5, inRange: false, kind: 'trough' as const }],
+      }).shape,
+    ).toBe('decreasing');
   });
 });

@@ -1,6 +1,12 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { fitLeastSquares, polynomialDesign, type DesignMatrix, type OlsOptions, type OlsResult } from '../../api/estimation';
+import {
+  fitLeastSquares,
+  polynomialDesign,
+  type DesignMatrix,
+  type OlsOptions,
+  type OlsResult,
+} from '../../api/estimation';
 
 /**
  * The eleven NIST StRD linear least-squares datasets, read from the fixtures
@@ -10,8 +16,17 @@ import { fitLeastSquares, polynomialDesign, type DesignMatrix, type OlsOptions, 
  * with fitLeastSquares, the lowest-level public engine function that takes a design matrix.
  */
 export const NIST_DATASETS = [
-  'Norris', 'Pontius', 'NoInt1', 'NoInt2', 'Filip', 'Longley',
-  'Wampler1', 'Wampler2', 'Wampler3', 'Wampler4', 'Wampler5',
+  'Norris',
+  'Pontius',
+  'NoInt1',
+  'NoInt2',
+  'Filip',
+  'Longley',
+  'Wampler1',
+  'Wampler2',
+  'Wampler3',
+  'Wampler4',
+  'Wampler5',
 ] as const;
 export type NistName = (typeof NIST_DATASETS)[number];
 
@@ -25,9 +40,17 @@ export interface NistCase {
 }
 
 const FOLDER: Record<NistName, string> = {
-  Norris: 'reference/nist', Pontius: 'reference/nist', Filip: 'reference/nist', Longley: 'reference/nist',
-  NoInt1: 'nist-extra', NoInt2: 'nist-extra', Wampler1: 'nist-extra', Wampler2: 'nist-extra',
-  Wampler3: 'nist-extra', Wampler4: 'nist-extra', Wampler5: 'nist-extra',
+  Norris: 'reference/nist',
+  Pontius: 'reference/nist',
+  Filip: 'reference/nist',
+  Longley: 'reference/nist',
+  NoInt1: 'nist-extra',
+  NoInt2: 'nist-extra',
+  Wampler1: 'nist-extra',
+  Wampler2: 'nist-extra',
+  Wampler3: 'nist-extra',
+  Wampler4: 'nist-extra',
+  Wampler5: 'nist-extra',
 };
 
 export function loadNistCase(name: NistName): NistCase {
@@ -97,6 +120,11 @@ export function formatLreTable(rows: LreRow[]): string {
   return [
     'NIST StRD linear regression, default options: minimum digits (LRE; LAE where certified 0; 15 = all)',
     'dataset      coef     sd  resSD     R²  worst(B/SD)  precision',
-    ...rows.map((r) => `${r.dataset.padEnd(10)}${f(r.coefficients)}${f(r.stddevs)}${f(r.residualSd)}${f(r.rSquared)}  ${r.worstCoefficient}/${r.worstStddev}`.padEnd(56) + `  ${r.precision}`),
+    ...rows.map(
+      (r) =>
+        `${r.dataset.padEnd(10)}${f(r.coefficients)}${f(r.stddevs)}${f(r.residualSd)}${f(r.rSquared)}  ${r.worstCoefficient}/${r.worstStddev}`.padEnd(
+          56,
+        ) + `  ${r.precision}`,
+    ),
   ].join('\n');
 }

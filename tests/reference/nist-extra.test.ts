@@ -35,7 +35,7 @@ describe('NIST StRD linear regression, all eleven datasets, default options', ()
       });
       expect(short).toEqual([]);
       expect(row.residualSd).toBeGreaterThanOrEqual(goal); // NIST certified residual standard deviation
-      expect(row.rSquared).toBeGreaterThanOrEqual(goal);   // NIST certified R-squared
+      expect(row.rSquared).toBeGreaterThanOrEqual(goal); // NIST certified R-squared
     });
   }
 
@@ -59,4 +59,3 @@ describe('NIST StRD linear regression, all eleven datasets, default options', ()
     if (table.length > 0) console.log(formatLreTable(table));
   });
 });
-

@@ -6,7 +6,14 @@ import { loadNist, lre } from './nist-loader';
 // certified value, capped at 15). Required by issue 3: ≥ 11 on Longley, Norris, Pontius and
 // ≥ 7 on Filip; the aim for Filip is ≥ 9.
 
-interface Row { dataset: string; coefficients: number; stddevs: number; residualSd: number; rSquared: number; precision: string }
+interface Row {
+  dataset: string;
+  coefficients: number;
+  stddevs: number;
+  residualSd: number;
+  rSquared: number;
+  precision: string;
+}
 const table: Row[] = [];
 
 function measure(label: string, fit: ReturnType<typeof ols>, name: 'Longley' | 'Norris' | 'Pontius' | 'Filip'): Row {
@@ -14,9 +21,9 @@ function measure(label: string, fit: ReturnType<typeof ols>, name: 'Longley' | '
   const row: Row = {
     dataset: label,
     coefficients: Math.min(...fit.coefficients.map((b, j) => lre(b, c.coefficients[j]))), // NIST certified B_j
-    stddevs: Math.min(...fit.standardErrors.map((s, j) => lre(s, c.stddev[j]))),          // NIST certified SD(B_j)
-    residualSd: lre(fit.residualStandardError, c.residual_sd),                              // NIST certified residual SD
-    rSquared: lre(fit.rSquared, c.r_squared),                                               // NIST certified R-squared
+    stddevs: Math.min(...fit.standardErrors.map((s, j) => lre(s, c.stddev[j]))), // NIST certified SD(B_j)
+    residualSd: lre(fit.residualStandardError, c.residual_sd), // NIST certified residual SD
+    rSquared: lre(fit.rSquared, c.r_squared), // NIST certified R-squared
     precision: fit.condition.precision,
   };
   table.push(row);
@@ -63,10 +70,15 @@ describe('NIST StRD linear regression: log relative error against certified valu
 
   afterAll(() => {
     const f = (v: number) => v.toFixed(1).padStart(6);
-    console.log([
-      'NIST StRD LRE (minimum over parameters; 15 = all certified digits)',
-      'dataset              coef    sd  resSD     R²  precision',
-      ...table.map((r) => `${r.dataset.padEnd(19)}${f(r.coefficients)}${f(r.stddevs)}${f(r.residualSd)}${f(r.rSquared)}  ${r.precision}`),
-    ].join('\n'));
+    console.log(
+      [
+        'NIST StRD LRE (minimum over parameters; 15 = all certified digits)',
+        'dataset              coef    sd  resSD     R²  precision',
+        ...table.map(
+          (r) =>
+            `${r.dataset.padEnd(19)}${f(r.coefficients)}${f(r.stddevs)}${f(r.residualSd)}${f(r.rSquared)}  ${r.precision}`,
+        ),
+      ].join('\n'),
+    );
   });
 });

@@ -10,21 +10,32 @@ import { expectAbs, expectRel, loadPanelA } from './panel-a-loader';
 // fixture README), p-values absolute 1e-9 (exact DW p 5e-8, see below), residuals absolute
 // 1e-9, leverage relative 1e-9.
 /* eslint-disable @typescript-eslint/no-explicit-any */
-const fixture: any = JSON.parse(readFileSync(join(__dirname, '..', 'fixtures', 'diagnostics', 'panel_A_diagnostics.json'), 'utf8'));
+const fixture: any = JSON.parse(
+  readFileSync(join(__dirname, '..', 'fixtures', 'diagnostics', 'panel_A_diagnostics.json'), 'utf8'),
+);
 const rows = loadPanelA();
 
 describe.each(Object.keys(fixture.districts))('diagnostics of panel A district %s against R lmtest', (code) => {
   const r = fixture.districts[code];
-  const res = fitCurve(rows.filter((x) => x.district === code)
-    .map((x) => ({ year: x.year, y: x.emissions, x: x.income, controls: { pop_density: x.density } })),
-  { form: 'quadratic', transform: 'log', covariance: 'classical' }, { exactDurbinWatson: true });
+  const res = fitCurve(
+    rows
+      .filter((x) => x.district === code)
+      .map((x) => ({ year: x.year, y: x.emissions, x: x.income, controls: { pop_density: x.density } })),
+    { form: 'quadratic', transform: 'log', covariance: 'classical' },
+    { exactDurbinWatson: true },
+  );
   const f = res as CurveFit;
   const dg = f.diagnostics!;
 
   test('Durbin–Watson statistic and its normal-approximation p (lmtest::dwtest)', () => {
     expect(res.status).toBe('ok');
     expectRel(dg.durbinWatson.statistic, r.durbin_watson.statistic, 1e-8, `${code} ${r.durbin_watson.call}`);
-    expectAbs(dg.durbinWatson.pValue, r.durbin_watson.p_value_normal_approximation, 1e-9, `${code} ${r.durbin_watson.call_approximate}`);
+    expectAbs(
+      dg.durbinWatson.pValue,
+      r.durbin_watson.p_value_normal_approximation,
+      1e-9,
+      `${code} ${r.durbin_watson.call_approximate}`,
+    );
     // exact p: Imhof's integral here, Pan's procedure (15 iterations) in lmtest; they differ by
     // up to 3.3e-8 on this panel (PA05), where a 30-digit evaluation of the integral sides with ours
     expectAbs(dg.durbinWatson.pValueExact, r.durbin_watson.p_value_exact, 5e-8, `${code} ${r.durbin_watson.call}`);
@@ -56,6 +67,8 @@ describe.each(Object.keys(fixture.districts))('diagnostics of panel A district %
     expectRel(dg.largestLeverage!.value, r.largest_leverage.value, 1e-9, `${code} ${r.largest_leverage.call}`);
     expect(dg.largestLeverage!.year).toBe(r.largest_leverage.year); // R: d$year[which.max(hatvalues(fit))]
     expect(dg.residualsByYear.map((x) => x.year)).toEqual(r.years);
-    dg.residualsByYear.forEach((x, i) => expectAbs(x.residual, r.residuals.values[i], 1e-9, `${code} residual ${x.year} (R residuals(fit))`));
+    dg.residualsByYear.forEach((x, i) =>
+      expectAbs(x.residual, r.residuals.values[i], 1e-9, `${code} residual ${x.year} (R residuals(fit))`),
+    );
   });
 });

@@ -27,11 +27,16 @@ const covariances = [
 const termOrder = ['intercept', 'ln_income', 'ln_income_sq', 'ln_pop_density'];
 
 function districtRows(code: string) {
-  return rows.filter((r) => r.district === code)
+  return rows
+    .filter((r) => r.district === code)
     .map((r) => ({ year: r.year, y: r.emissions, x: r.income, controls: { pop_density: r.density } }));
 }
 
-function fit(code: string, covariance: typeof covariances[number]['engine'], criticalValue: 't' | 'normal'): CurveFit {
+function fit(
+  code: string,
+  covariance: (typeof covariances)[number]['engine'],
+  criticalValue: 't' | 'normal',
+): CurveFit {
   const res = fitCurve(districtRows(code), { form: 'quadratic', transform: 'log', covariance, criticalValue });
   if (res.status !== 'ok') throw new Error(`${code} not estimable: ${res.reason.message}`);
   return res;
@@ -54,8 +59,18 @@ describe.each(districts)('panel A district %s against R', (code) => {
     expectRel(f.range.xNow, d.extras.x_now_ln_income, 1e-15, `${code} x_now (R extras)`);
     expectRel(f.gap.percent, d.extras.gap_percent_vs_threshold, 1e-8, `${code} gap_percent_vs_threshold (R extras)`);
     expect(f.trend.nUsed).toBe(d.extras.income_trend_last10.n_used); // R extras: rows with year > last − 10
-    expectRel(f.trend.slopePerYear, d.extras.income_trend_last10.slope_per_year, 1e-10, `${code} income trend slope (R lm on year)`);
-    expectRel(f.projection.yearsToThreshold, d.extras.income_trend_last10.years_to_threshold, 1e-8, `${code} years_to_threshold (R extras)`);
+    expectRel(
+      f.trend.slopePerYear,
+      d.extras.income_trend_last10.slope_per_year,
+      1e-10,
+      `${code} income trend slope (R lm on year)`,
+    );
+    expectRel(
+      f.projection.yearsToThreshold,
+      d.extras.income_trend_last10.years_to_threshold,
+      1e-8,
+      `${code} years_to_threshold (R extras)`,
+    );
     expect(f.covarianceInfo.lag).toBeNull();
   });
 
@@ -71,24 +86,38 @@ describe.each(districts)('panel A district %s against R', (code) => {
       if (engine === 'newey_west') expect(f.covarianceInfo.lag).toBe(d.newey_west_lag); // R: floor(4*(n/100)^(2/9))
       termOrder.forEach((t, j) => expectRel(f.standardErrors[j], ci.se[t], seTol, `${src} SE ${t} (R ${fixture})`));
       termOrder.forEach((t, j) => expectRel(f.standardErrors[j], mp.se[t], 1e-10, `${src} SE ${t} (Rmpfr 256-bit)`));
-      termOrder.forEach((t, j) => expectRel(f.coefficients[j], mpAll.coefficients[t], 1e-10, `${src} coef ${t} (Rmpfr 256-bit)`));
-      termOrder.forEach((t, j) => expectAbs(f.pValues[j], ci.p_two_sided_t[t], 1e-7, `${src} p ${t} (R lmtest::coeftest)`));
+      termOrder.forEach((t, j) =>
+        expectRel(f.coefficients[j], mpAll.coefficients[t], 1e-10, `${src} coef ${t} (Rmpfr 256-bit)`),
+      );
+      termOrder.forEach((t, j) =>
+        expectAbs(f.pValues[j], ci.p_two_sided_t[t], 1e-7, `${src} p ${t} (R lmtest::coeftest)`),
+      );
       // covariance matrix entries (R vcov; off-diagonals symmetric only to ~1e-10 in sandwich)
       const V = d.vcov[fixture].matrix as number[][];
-      for (let a = 0; a < 4; a++) for (let b = 0; b < 4; b++) {
-        expectAbs(f.covariance[a][b], V[a][b], seTol * 10 * Math.sqrt(Math.abs(V[a][a] * V[b][b])), `${src} vcov[${a}][${b}] (R ${fixture})`);
-      }
+      for (let a = 0; a < 4; a++)
+        for (let b = 0; b < 4; b++) {
+          expectAbs(
+            f.covariance[a][b],
+            V[a][b],
+            seTol * 10 * Math.sqrt(Math.abs(V[a][a] * V[b][b])),
+            `${src} vcov[${a}][${b}] (R ${fixture})`,
+          );
+        }
       expect(f.turningPoints).toHaveLength(1);
       const tp = f.turningPoints[0];
       expectRel(tp.x, qi.turning_point.log_scale_point, 1e-8, `${src} x* (R: -b1/(2 b2))`);
       expectRel(tp.level!, qi.turning_point.exp_point, 1e-8, `${src} exp(x*) (R)`);
       expect(tp.kind).toBe(d.coefficients.ln_income_sq < 0 ? 'peak' : 'trough');
       expect(tp.inRange).toBe(qi.lind_mehlum.extremum_inside_range); // R: x_min <= x* <= x_max
-      qi.turning_point.delta_method.gradient.forEach((g: number, j: number) => expectRel(tp.gradient[j], g, 1e-8, `${src} delta gradient[${j}] (R)`));
+      qi.turning_point.delta_method.gradient.forEach((g: number, j: number) =>
+        expectRel(tp.gradient[j], g, 1e-8, `${src} delta gradient[${j}] (R)`),
+      );
       expectRel(tp.delta.se, qi.turning_point.delta_method.se_log_scale, 1e-6, `${src} delta SE (R msm::deltamethod)`);
       expectRel(tp.delta.se, mp.turning_point_delta_se, 1e-9, `${src} delta SE (Rmpfr 256-bit)`);
       expectRel(tp.x, mpAll.turning_point_ln, 1e-12, `${src} x* (Rmpfr 256-bit)`);
-      const dci = qi.turning_point.delta_method.ci.find((c: { critical_value_kind: string }) => c.critical_value_kind === crit);
+      const dci = qi.turning_point.delta_method.ci.find(
+        (c: { critical_value_kind: string }) => c.critical_value_kind === crit,
+      );
       expectRel(f.critical.value, dci.critical_value, 1e-12, `${src} critical value (R qt/qnorm)`);
       expectRel(tp.delta.lo, dci.log_scale[0], 1e-6, `${src} delta CI lo (R)`);
       expectRel(tp.delta.hi, dci.log_scale[1], 1e-6, `${src} delta CI hi (R)`);
@@ -102,8 +131,10 @@ describe.each(districts)('panel A district %s against R', (code) => {
       const pieces = fr.pieces_log_scale as Array<{ lower: number | null; upper: number | null }>;
       expect(tp.fieller.pieces).toHaveLength(pieces.length);
       pieces.forEach((p, j) => {
-        if (p.lower === null) expect(tp.fieller.pieces[j].lo).toBeNull(); else expectRel(tp.fieller.pieces[j].lo, p.lower, 1e-6, `${src} Fieller piece ${j} lower (R)`);
-        if (p.upper === null) expect(tp.fieller.pieces[j].hi).toBeNull(); else expectRel(tp.fieller.pieces[j].hi, p.upper, 1e-6, `${src} Fieller piece ${j} upper (R)`);
+        if (p.lower === null) expect(tp.fieller.pieces[j].lo).toBeNull();
+        else expectRel(tp.fieller.pieces[j].lo, p.lower, 1e-6, `${src} Fieller piece ${j} lower (R)`);
+        if (p.upper === null) expect(tp.fieller.pieces[j].hi).toBeNull();
+        else expectRel(tp.fieller.pieces[j].hi, p.upper, 1e-6, `${src} Fieller piece ${j} upper (R)`);
       });
       if (crit === 't') {
         const ends = [tp.fieller.lo, tp.fieller.hi].filter((v): v is number => v !== null);
@@ -118,7 +149,12 @@ describe.each(districts)('panel A district %s against R', (code) => {
         expectRel(tp.fieller.lo, pieces[0].upper!, 1e-6, `${src} Fieller left ray end (R)`);
         expectRel(tp.fieller.hi, pieces[1].lower!, 1e-6, `${src} Fieller right ray start (R)`);
         expectRel(tp.fieller.levelLo, fr.pieces_exponentiated[0].upper, 1e-6, `${src} Fieller left ray end, exp (R)`);
-        expectRel(tp.fieller.levelHi, fr.pieces_exponentiated[1].lower, 1e-6, `${src} Fieller right ray start, exp (R)`);
+        expectRel(
+          tp.fieller.levelHi,
+          fr.pieces_exponentiated[1].lower,
+          1e-6,
+          `${src} Fieller right ray start, exp (R)`,
+        );
       } else {
         expect(tp.fieller.lo).toBeNull();
         expect(tp.fieller.hi).toBeNull();
@@ -140,8 +176,18 @@ describe.each(districts)('panel A district %s against R', (code) => {
       expectAbs(u.tAtMax, mp.lind_mehlum_t_at_max, 1e-8, `${src} t at x_max (Rmpfr 256-bit)`);
       expectAbs(u.pValue, crit === 't' ? lm.p_value_t : lm.p_value_normal, pTol, `${src} U-test p (R pt/pnorm)`);
       expect(u.df).toBe(crit === 't' ? lm.df : null);
-      expectAbs(u.bothOrientations.inverted_u.statistic, lm.both_orientations.inverse_U.statistic, 1e-6, `${src} inverse-U statistic (R)`);
-      expectAbs(u.bothOrientations.u.pValue, crit === 't' ? lm.both_orientations.U.p_value_t : lm.both_orientations.U.p_value_normal, pTol, `${src} U p (R)`);
+      expectAbs(
+        u.bothOrientations.inverted_u.statistic,
+        lm.both_orientations.inverse_U.statistic,
+        1e-6,
+        `${src} inverse-U statistic (R)`,
+      );
+      expectAbs(
+        u.bothOrientations.u.pValue,
+        crit === 't' ? lm.both_orientations.U.p_value_t : lm.both_orientations.U.p_value_normal,
+        pTol,
+        `${src} U p (R)`,
+      );
       expect(u.extremumInRange).toBe(lm.extremum_inside_range);
       const el = qi.elasticity_at_latest;
       expectRel(f.elasticity.xNow, el.x_now, 1e-15, `${src} elasticity x_now (R)`);

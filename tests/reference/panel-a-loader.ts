@@ -3,7 +3,13 @@ import { join } from 'node:path';
 
 const dir = join(__dirname, '..', 'fixtures', 'reference', 'panel-A');
 
-export interface PanelARow { district: string; year: number; emissions: number; income: number; density: number }
+export interface PanelARow {
+  district: string;
+  year: number;
+  emissions: number;
+  income: number;
+  density: number;
+}
 
 /** tests/fixtures/reference/panel-A/panel_A.csv (8 districts × 1990–2024). */
 export function loadPanelA(): PanelARow[] {
@@ -13,8 +19,11 @@ export function loadPanelA(): PanelARow[] {
   return lines.slice(1).map((line) => {
     const f = line.split(',');
     return {
-      district: f[at('district_code')], year: Number(f[at('year')]), emissions: Number(f[at('emissions_pc')]),
-      income: Number(f[at('income_pc')]), density: Number(f[at('pop_density')]),
+      district: f[at('district_code')],
+      year: Number(f[at('year')]),
+      emissions: Number(f[at('emissions_pc')]),
+      income: Number(f[at('income_pc')]),
+      density: Number(f[at('pop_density')]),
     };
   });
 }
@@ -50,13 +59,17 @@ export function relDiff(a: number, e: number): number {
  */
 export function expectRel(actual: number | null | undefined, expected: number, tol: number, source: string): void {
   if (typeof actual !== 'number' || !(relDiff(actual, expected) <= tol)) {
-    throw new Error(`${source}: expected ${expected}, got ${actual} (relative difference ${typeof actual === 'number' ? relDiff(actual, expected) : 'n/a'} > ${tol})`);
+    throw new Error(
+      `${source}: expected ${expected}, got ${actual} (relative difference ${typeof actual === 'number' ? relDiff(actual, expected) : 'n/a'} > ${tol})`,
+    );
   }
 }
 
 /** Asserts |actual − expected| ≤ tol (absolute). */
 export function expectAbs(actual: number | null | undefined, expected: number, tol: number, source: string): void {
   if (typeof actual !== 'number' || !(Math.abs(actual - expected) <= tol)) {
-    throw new Error(`${source}: expected ${expected}, got ${actual} (absolute difference ${typeof actual === 'number' ? Math.abs(actual - expected) : 'n/a'} > ${tol})`);
+    throw new Error(
+      `${source}: expected ${expected}, got ${actual} (absolute difference ${typeof actual === 'number' ? Math.abs(actual - expected) : 'n/a'} > ${tol})`,
+    );
   }
 }

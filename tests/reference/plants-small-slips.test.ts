@@ -1,6 +1,4 @@
-import {
-  cubicFieller, defaultNeweyWestLag, fitCurve, lindMehlumTest, type CurveRow,
-} from '../../api/estimation';
+import { cubicFieller, defaultNeweyWestLag, fitCurve, lindMehlumTest, type CurveRow } from '../../api/estimation';
 
 // Tests aimed at one-character slips in the inference formulas. Each uses a covariance
 // with non-zero off-diagonal entries (a diagonal V hides a wrong factor on V12, V13 or V23)
@@ -8,7 +6,11 @@ import {
 
 // A positive-definite 3 × 3 covariance of (b1, b2, b3) with every off-diagonal entry non-zero
 // (leading minors 1, 0.49, 0.098: worked by hand).
-const V3 = [[1, 0.1, 0.2], [0.1, 0.5, 0.3], [0.2, 0.3, 0.4]];
+const V3 = [
+  [1, 0.1, 0.2],
+  [0.1, 0.5, 0.3],
+  [0.2, 0.3, 0.4],
+];
 
 describe('cubic U-test variance of the slope, non-diagonal covariance (worked by hand)', () => {
   test('se of s(x) = b1 + 2b2x + 3b3x² at x = 1 and x = 2', () => {
@@ -23,7 +25,10 @@ describe('cubic U-test variance of the slope, non-diagonal covariance (worked by
     expect(u.tAtMax).toBeCloseTo(-3.8 / Math.sqrt(101), 13);
   });
   test('quadratic: se of b1 + 2b2x with V12 ≠ 0 (hand: 1 + 4·2·0.1 + 16·0.5 = 9.8 at x = 2)', () => {
-    const V2 = [[1, 0.1], [0.1, 0.5]];
+    const V2 = [
+      [1, 0.1],
+      [0.1, 0.5],
+    ];
     const u = lindMehlumTest([3, -1], V2, 0, 2, 20, 0.05);
     expect(u.seAtMin).toBeCloseTo(1, 14); // a(0) = (1, 0): V11 = 1
     expect(u.seAtMax).toBeCloseTo(Math.sqrt(9.8), 13);

@@ -9,7 +9,10 @@ import { ensureDemoAccounts } from '../../api/people/service';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
 import { memoryMailer, testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
-import { up as addInvitationExpiry, down as dropInvitationExpiry } from '../../migrations/20261204100000_add_invitation_expiry';
+import {
+  up as addInvitationExpiry,
+  down as dropInvitationExpiry,
+} from '../../migrations/20261204100000_add_invitation_expiry';
 import { signInWithIdentity } from './identity-sign-in';
 
 jest.setTimeout(60_000);
@@ -71,7 +74,10 @@ describe('the Google identity behind an account', () => {
     expect(reset.status).toBe(200);
     expect(reset.body.person).toMatchObject({ id, identityPinned: false });
     expect((await person.agent.get('/api/me')).status).toBe(401);
-    const entry = await t.db('audit_log').where({ action: 'person.identity_reset', target_id: String(id) }).first();
+    const entry = await t
+      .db('audit_log')
+      .where({ action: 'person.identity_reset', target_id: String(id) })
+      .first();
     expect(entry.actor_email).toBe(DEMO.admin);
     expect(entry.before.identityPinned).toBe(true);
     expect(entry.after.identityPinned).toBe(false);
@@ -94,7 +100,9 @@ describe('the Google identity behind an account', () => {
     try {
       // The stand-in answers hd = the address's domain, as Google does for a Workspace account.
       expect((await signInWithIdentity(scopedServer, DEMO.analyst)).landedOn).toBe('/');
-      expect((await signInWithIdentity(scopedServer, DEMO.analyst, '#hd=elsewhere.example')).landedOn).toBe('/no-access?reason=wrong_domain');
+      expect((await signInWithIdentity(scopedServer, DEMO.analyst, '#hd=elsewhere.example')).landedOn).toBe(
+        '/no-access?reason=wrong_domain',
+      );
       // A consumer account has no hd at all.
       const none = await signInWithIdentity(scopedServer, DEMO.analyst, '#hd=');
       expect(none.landedOn).toBe('/no-access?reason=wrong_domain');
@@ -109,7 +117,9 @@ describe('invitations that lapse', () => {
   it('gives a new invitation the invitationDays setting (default 14) and the demo accounts no expiry', async () => {
     const admin = await signInAs(server, DEMO.admin);
     const before = Date.now();
-    const res = await admin.agent.post('/api/people/invitations').send({ email: 'fortnight@crestwatch.example', role: 'official' });
+    const res = await admin.agent
+      .post('/api/people/invitations')
+      .send({ email: 'fortnight@crestwatch.example', role: 'official' });
     expect(res.status).toBe(201);
     // 14 days: the default the issue sets for invitationDays.
     const expires = Date.parse(res.body.user.invitationExpiresAt);
@@ -118,7 +128,9 @@ describe('invitations that lapse', () => {
     expect(mailer.sent.at(-1)!.text).toContain(res.body.user.invitationExpiresAt.slice(0, 10));
 
     expect((await admin.agent.patch('/api/settings').send({ invitationDays: 3 })).status).toBe(200);
-    const short = await admin.agent.post('/api/people/invitations').send({ email: 'three.days@crestwatch.example', role: 'official' });
+    const short = await admin.agent
+      .post('/api/people/invitations')
+      .send({ email: 'three.days@crestwatch.example', role: 'official' });
     expect(Date.parse(short.body.user.invitationExpiresAt) - Date.now()).toBeLessThanOrEqual(3 * DAY + 5_000);
     expect(Date.parse(short.body.user.invitationExpiresAt) - Date.now()).toBeGreaterThan(3 * DAY - 60_000);
     expect((await admin.agent.patch('/api/settings').send({ invitationDays: 0 })).status).toBe(400);
@@ -136,10 +148,15 @@ describe('invitations that lapse', () => {
 
   it('shows an expired invitation as expired, refuses it, and a re-sent one (audited) works', async () => {
     const admin = await signInAs(server, DEMO.admin);
-    const invited = await admin.agent.post('/api/people/invitations').send({ email: 'late@crestwatch.example', role: 'analyst' });
+    const invited = await admin.agent
+      .post('/api/people/invitations')
+      .send({ email: 'late@crestwatch.example', role: 'analyst' });
     const id = invited.body.user.id;
     // The clock cannot be moved inside PostgreSQL: the stored expiry is moved into the past instead.
-    await t.db('users').where({ id }).update({ invitation_expires_at: new Date(Date.now() - 60_000) });
+    await t
+      .db('users')
+      .where({ id })
+      .update({ invitation_expires_at: new Date(Date.now() - 60_000) });
 
     const people = (await admin.agent.get('/api/people')).body.people;
     expect(people.find((p: { id: number }) => p.id === id).status).toBe('expired');
@@ -157,7 +174,10 @@ describe('invitations that lapse', () => {
     expect(resent.body.mail).toEqual({ sent: true });
     expect(mailer.sent.length).toBe(sentBefore + 1);
     expect(mailer.sent.at(-1)!.to).toBe('late@crestwatch.example');
-    const entry = await t.db('audit_log').where({ action: 'person.invitation_resend', target_id: String(id) }).first();
+    const entry = await t
+      .db('audit_log')
+      .where({ action: 'person.invitation_resend', target_id: String(id) })
+      .first();
     expect(entry.before.status).toBe('expired');
     expect(entry.after.status).toBe('invited');
 
@@ -171,11 +191,31 @@ describe('invitations that lapse', () => {
     const m = await freshDatabase();
     try {
       await dropInvitationExpiry(m.db);
-      const [inviter] = await m.db('users').insert({ email: 'boss@crestwatch.example', role: 'admin', google_sub: 'sub-boss', last_sign_in_at: new Date() }).returning('id');
+      const [inviter] = await m
+        .db('users')
+        .insert({
+          email: 'boss@crestwatch.example',
+          role: 'admin',
+          google_sub: 'sub-boss',
+          last_sign_in_at: new Date(),
+        })
+        .returning('id');
       await m.db('users').insert([
-        { email: 'pending@crestwatch.example', role: 'official', invited_by: inviter.id, invited_at: new Date(Date.now() - 40 * DAY) },
+        {
+          email: 'pending@crestwatch.example',
+          role: 'official',
+          invited_by: inviter.id,
+          invited_at: new Date(Date.now() - 40 * DAY),
+        },
         { email: 'first.admin@crestwatch.example', role: 'admin' },
-        { email: 'used@crestwatch.example', role: 'analyst', invited_by: inviter.id, invited_at: new Date(Date.now() - 40 * DAY), last_sign_in_at: new Date(), google_sub: 'sub-used' },
+        {
+          email: 'used@crestwatch.example',
+          role: 'analyst',
+          invited_by: inviter.id,
+          invited_at: new Date(Date.now() - 40 * DAY),
+          last_sign_in_at: new Date(),
+          google_sub: 'sub-used',
+        },
       ]);
       const at = Date.now();
       await addInvitationExpiry(m.db);

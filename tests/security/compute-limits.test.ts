@@ -74,7 +74,19 @@ describe("a run's district too short for the spec's lag", () => {
       controls: {},
       droppedYears: [],
     };
-    const spec = { form: 'quadratic', transform: 'log', covariance: 'newey_west', lag: 20, level: 0.95, alpha: 0.05, criticalValue: 't', intervalMethod: 'fieller', levelControls: [], trendYears: 10, clusterAdjustment: 'n_over_n_minus_k' } as const;
+    const spec = {
+      form: 'quadratic',
+      transform: 'log',
+      covariance: 'newey_west',
+      lag: 20,
+      level: 0.95,
+      alpha: 0.05,
+      criticalValue: 't',
+      intervalMethod: 'fieller',
+      levelControls: [],
+      trendYears: 10,
+      clusterAdjustment: 'n_over_n_minus_k',
+    } as const;
     const records = fitDistrict({ spec: { ...spec, levelControls: [] }, controls: [] }, data, null);
     for (const r of records) {
       expect(r.status).toBe('not_estimable');
@@ -129,11 +141,16 @@ describe('per-person limits on compute routes', () => {
 
   it('takes the per-minute figure from COMPUTE_RATE_LIMIT_PER_MINUTE', async () => {
     expect(loadConfig({ CRESTWATCH_MODE: 'test' }).computeRequestsPerMinute).toBe(30);
-    expect(loadConfig({ CRESTWATCH_MODE: 'test', COMPUTE_RATE_LIMIT_PER_MINUTE: '3' }).computeRequestsPerMinute).toBe(3);
-    expect(() => loadConfig({ CRESTWATCH_MODE: 'test', COMPUTE_RATE_LIMIT_PER_MINUTE: '0' })).toThrow(/COMPUTE_RATE_LIMIT_PER_MINUTE must be a positive integer/);
+    expect(loadConfig({ CRESTWATCH_MODE: 'test', COMPUTE_RATE_LIMIT_PER_MINUTE: '3' }).computeRequestsPerMinute).toBe(
+      3,
+    );
+    expect(() => loadConfig({ CRESTWATCH_MODE: 'test', COMPUTE_RATE_LIMIT_PER_MINUTE: '0' })).toThrow(
+      /COMPUTE_RATE_LIMIT_PER_MINUTE must be a positive integer/,
+    );
     const other = await signedInApp({ as: 'official', config: { computeRequestsPerMinute: 3 } });
     try {
-      for (let i = 0; i < 3; i++) expect((await other.agent.get('/api/districts/D01/observations.csv')).status).toBe(200);
+      for (let i = 0; i < 3; i++)
+        expect((await other.agent.get('/api/districts/D01/observations.csv')).status).toBe(200);
       expect((await other.agent.get('/api/districts/D01/observations.csv')).status).toBe(429);
     } finally {
       await other.close();
@@ -141,7 +158,10 @@ describe('per-person limits on compute routes', () => {
   });
 
   it('declares the limit in the route table for estimate, briefs, exports and reproduce', () => {
-    const limited = s.app.locals.routes.filter((r) => r.rateLimit).map((r) => `${r.method} ${r.path}`).sort();
+    const limited = s.app.locals.routes
+      .filter((r) => r.rateLimit)
+      .map((r) => `${r.method} ${r.path}`)
+      .sort();
     expect(limited).toEqual(
       [
         'get /api/briefs/district/:code',
@@ -154,6 +174,7 @@ describe('per-person limits on compute routes', () => {
         'post /api/runs/:id/reproduce',
       ].sort(),
     );
-    for (const r of s.app.locals.routes.filter((x) => x.rateLimit)) expect(r.rateLimit).toEqual({ bucket: 'compute', perMinute: 30, inFlight: 2 });
+    for (const r of s.app.locals.routes.filter((x) => x.rateLimit))
+      expect(r.rateLimit).toEqual({ bucket: 'compute', perMinute: 30, inFlight: 2 });
   });
 });

@@ -20,7 +20,9 @@ const PRODUCTION = {
 
 describe('loadConfig', () => {
   it('refuses NODE_ENV=production with another CRESTWATCH_MODE', () => {
-    expect(() => loadConfig({ ...PRODUCTION, CRESTWATCH_MODE: 'demo' })).toThrow(/NODE_ENV=production refuses CRESTWATCH_MODE=demo/);
+    expect(() => loadConfig({ ...PRODUCTION, CRESTWATCH_MODE: 'demo' })).toThrow(
+      /NODE_ENV=production refuses CRESTWATCH_MODE=demo/,
+    );
     expect(() => loadConfig({ ...PRODUCTION, CRESTWATCH_MODE: 'test' })).toThrow(/refuses CRESTWATCH_MODE=test/);
     expect(loadConfig({ ...PRODUCTION, CRESTWATCH_MODE: 'production' }).mode).toBe('production');
     expect(loadConfig(PRODUCTION).mode).toBe('production');
@@ -33,9 +35,15 @@ describe('loadConfig', () => {
     expect(() => loadConfig({ ...PRODUCTION, SESSION_SECRET: undefined })).toThrow(/SESSION_SECRET is required/);
     // 16 × "é" is 16 characters but 32 bytes of UTF-8.
     expect(loadConfig({ ...PRODUCTION, SESSION_SECRET: 'é'.repeat(16) }).sessionSecret).toBe('é'.repeat(16));
-    expect(() => loadConfig({ CRESTWATCH_MODE: 'production', DATABASE_URL: 'postgres://x', GOOGLE_CLIENT_ID: 'a', GOOGLE_CLIENT_SECRET: 'b', SESSION_SECRET: 'short' })).toThrow(
-      /at least 32 bytes/,
-    );
+    expect(() =>
+      loadConfig({
+        CRESTWATCH_MODE: 'production',
+        DATABASE_URL: 'postgres://x',
+        GOOGLE_CLIENT_ID: 'a',
+        GOOGLE_CLIENT_SECRET: 'b',
+        SESSION_SECRET: 'short',
+      }),
+    ).toThrow(/at least 32 bytes/);
   });
 
   it('runs the demo when nothing is set, and says so; not when a mode was chosen', () => {

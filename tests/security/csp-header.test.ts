@@ -24,7 +24,10 @@ const PAGE = `<!DOCTYPE html><html><head><script data-rh="true" >${EARLY}</scrip
 const sha = (s: string) => `'sha256-${createHash('sha256').update(Buffer.from(s, 'utf8')).digest('base64')}'`;
 
 function scriptSrc(header: string | undefined): string[] {
-  const directive = (header ?? '').split(';').map((d) => d.trim()).find((d) => d.startsWith('script-src '));
+  const directive = (header ?? '')
+    .split(';')
+    .map((d) => d.trim())
+    .find((d) => d.startsWith('script-src '));
   if (!directive) throw new Error(`no script-src in ${header}`);
   return directive.split(/\s+/).slice(1);
 }

@@ -25,7 +25,10 @@ async function signIn(page: Page, email: string): Promise<void> {
 it('serves a script-src of self and hashes only', async () => {
   const res = await fetch(`${h.baseUrl}/`);
   const csp = res.headers.get('content-security-policy') ?? '';
-  const scriptSrc = csp.split(';').map((d) => d.trim()).find((d) => d.startsWith('script-src '))!;
+  const scriptSrc = csp
+    .split(';')
+    .map((d) => d.trim())
+    .find((d) => d.startsWith('script-src '))!;
   expect(scriptSrc).toMatch(/^script-src 'self'( 'sha256-[A-Za-z0-9+/]+=*')+$/);
   expect(scriptSrc).not.toContain('unsafe-inline');
 });
@@ -61,7 +64,9 @@ it('reports an inline script the build never hashed', async () => {
       document.body.appendChild(s);
     });
     for (let i = 0; i < 50 && h.cspViolations.length === 0; i++) await page.waitForTimeout(50);
-    expect(await page.evaluate(() => (window as unknown as { __cwInjected?: boolean }).__cwInjected ?? false)).toBe(false);
+    expect(await page.evaluate(() => (window as unknown as { __cwInjected?: boolean }).__cwInjected ?? false)).toBe(
+      false,
+    );
     expect(h.cspViolations).toHaveLength(1);
     expect(h.cspViolations[0]).toMatch(/^script-src-elem blocked inline on http:\/\/127\.0\.0\.1:\d+\/sign-in/);
     // Expected here; any other violation still fails the file when the harness closes.

@@ -49,7 +49,14 @@ async function check(f: FuzzFile, index: number): Promise<void> {
     // The generator's own delimiter and format, and csv-parse's reading of the bytes.
     const ref = referenceCounts(f.bytes, f.delimiter, f.format);
     const p = res.body.preview;
-    expect({ name: f.name, format: p.format, delimiter: p.delimiter, rowsRead: p.rowsRead, blankLines: p.blankLines, values: p.values }).toEqual({
+    expect({
+      name: f.name,
+      format: p.format,
+      delimiter: p.delimiter,
+      rowsRead: p.rowsRead,
+      blankLines: p.blankLines,
+      values: p.values,
+    }).toEqual({
       name: f.name,
       format: f.format,
       delimiter: f.delimiter,
@@ -64,11 +71,20 @@ async function check(f: FuzzFile, index: number): Promise<void> {
     expect(first).toBeDefined();
     if (first.line === null || first.column === null) wholeFile.push(`${f.name}: ${first.code}`);
     if (!WHOLE_FILE.has(first.code)) {
-      expect([f.name, first.code, typeof first.line, typeof first.column]).toEqual([f.name, first.code, 'number', 'number']);
+      expect([f.name, first.code, typeof first.line, typeof first.column]).toEqual([
+        f.name,
+        first.code,
+        'number',
+        'number',
+      ]);
       expect(res.body.error.message).toContain(`ine ${first.line}, column ${first.column}`);
     }
     if (index % 4 === 0) {
-      const again = await upload(w.analyst, f.bytes, f.name, { allowNewDistricts: true, decimalComma: f.decimalComma, commit: true });
+      const again = await upload(w.analyst, f.bytes, f.name, {
+        allowNewDistricts: true,
+        decimalComma: f.decimalComma,
+        commit: true,
+      });
       expect([f.name, again.status]).toEqual([f.name, res.status]);
     }
     expect(await observationsChecksum(w.t.db)).toBe(checksum);

@@ -96,28 +96,36 @@ describe("a district's observations as CSV", () => {
   });
   afterAll(async () => s?.close());
 
-  it.each(HOSTILE)('exports $code with its name as one neutralised text cell and its values as numbers', async ({ code, name }) => {
-    const res = await s.agent.get(`/api/districts/${code}/observations.csv`);
-    expect(res.status).toBe(200);
-    const lines = res.text.split('\r\n').filter(Boolean);
-    expect(lines[0].startsWith('"district_code","district_name","year",')).toBe(true);
-    expect(lines.length).toBeGreaterThan(10);
-    for (const line of lines.slice(1)) {
-      const fields = fieldsOf(line);
-      // Code and name are quoted text; the name reads back neutralised.
-      expect(fields.slice(0, 2)).toEqual([
-        { value: code, quoted: true },
-        { value: neutralised(name), quoted: true },
-      ]);
-      // Year and values are bare numbers (empty where a year has no value).
-      for (const f of fields.slice(2)) {
-        expect(f.quoted).toBe(false);
-        if (f.value !== '') expect(Number.isFinite(Number(f.value))).toBe(true);
+  it.each(HOSTILE)(
+    'exports $code with its name as one neutralised text cell and its values as numbers',
+    async ({ code, name }) => {
+      const res = await s.agent.get(`/api/districts/${code}/observations.csv`);
+      expect(res.status).toBe(200);
+      const lines = res.text.split('\r\n').filter(Boolean);
+      expect(lines[0].startsWith('"district_code","district_name","year",')).toBe(true);
+      expect(lines.length).toBeGreaterThan(10);
+      for (const line of lines.slice(1)) {
+        const fields = fieldsOf(line);
+        // Code and name are quoted text; the name reads back neutralised.
+        expect(fields.slice(0, 2)).toEqual([
+          { value: code, quoted: true },
+          { value: neutralised(name), quoted: true },
+        ]);
+        // Year and values are bare numbers (empty where a year has no value).
+        for (const f of fields.slice(2)) {
+          expect(f.quoted).toBe(false);
+          if (f.value !== '') expect(Number.isFinite(Number(f.value))).toBe(true);
+        }
+        // csv-parse agrees with the scanner; outside the quotes there is no ';' or '=' for a
+        // reader in a ';' locale to split on or evaluate.
+        expect(parse(line, { delimiter: ',' })[0]).toEqual(fields.map((f) => f.value));
+        expect(
+          fields
+            .filter((f) => !f.quoted)
+            .map((f) => f.value)
+            .join(','),
+        ).not.toMatch(/[;=@]/);
       }
-      // csv-parse agrees with the scanner; outside the quotes there is no ';' or '=' for a
-      // reader in a ';' locale to split on or evaluate.
-      expect(parse(line, { delimiter: ',' })[0]).toEqual(fields.map((f) => f.value));
-      expect(fields.filter((f) => !f.quoted).map((f) => f.value).join(',')).not.toMatch(/[;=@]/);
-    }
-  });
+    },
+  );
 });

@@ -8,7 +8,11 @@ import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import { CSRF_HEADER } from '../../api/http/routes';
 
-export async function signInWithIdentity(server: Server, email: string, suffix = ''): Promise<{ agent: TestAgent; landedOn: string }> {
+export async function signInWithIdentity(
+  server: Server,
+  email: string,
+  suffix = '',
+): Promise<{ agent: TestAgent; landedOn: string }> {
   const agent = request.agent(server);
   const start = await agent.get(`/api/auth/google?login_hint=${encodeURIComponent(email)}`);
   if (start.status !== 302) throw new Error(`sign-in start answered ${start.status}`);

@@ -24,8 +24,13 @@ const lines: string[] = [];
 beforeAll(async () => {
   t = await freshDatabase();
   await ensureDemoAccounts(t.db);
-  const c = (t.db.client as { connectionSettings: { user: string; host: string; port: string; database: string } }).connectionSettings;
-  const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: `postgres://${c.user}@${c.host}:${c.port}/${c.database}`, logRequests: true };
+  const c = (t.db.client as { connectionSettings: { user: string; host: string; port: string; database: string } })
+    .connectionSettings;
+  const config = {
+    ...loadConfig({ CRESTWATCH_MODE: 'test' }),
+    databaseUrl: `postgres://${c.user}@${c.host}:${c.port}/${c.database}`,
+    logRequests: true,
+  };
   app = createApp({ db: t.db, config, log: (l) => lines.push(l), mailer: memoryMailer() });
   server = await listen(app);
 });

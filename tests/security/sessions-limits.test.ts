@@ -34,17 +34,18 @@ afterAll(async () => {
 
 /** The one session row of a person (tests sign each person in once per check). */
 async function sessionOf(userId: number): Promise<{ sid: string; sess: Record<string, unknown>; expire: Date }[]> {
-  return t.db('session').whereRaw(`sess->'passport'->>'user' = ?`, [String(userId)]).select('sid', 'sess', 'expire');
+  return t
+    .db('session')
+    .whereRaw(`sess->'passport'->>'user' = ?`, [String(userId)])
+    .select('sid', 'sess', 'expire');
 }
 
 /** Moves a session's clock back: the stored timestamps, since PostgreSQL's clock cannot be moved. */
 async function age(sid: string, field: 'createdAt' | 'lastSeenAt', byMs: number): Promise<void> {
-  await t.db.raw(`UPDATE session SET sess = jsonb_set(sess::jsonb, ?, to_jsonb((sess->>?)::bigint - ?))::json WHERE sid = ?`, [
-    `{${field}}`,
-    field,
-    byMs,
-    sid,
-  ]);
+  await t.db.raw(
+    `UPDATE session SET sess = jsonb_set(sess::jsonb, ?, to_jsonb((sess->>?)::bigint - ?))::json WHERE sid = ?`,
+    [`{${field}}`, field, byMs, sid],
+  );
 }
 
 describe('defaults', () => {
@@ -61,7 +62,9 @@ describe('defaults', () => {
     expect(sessionEnd({ createdAt: t0, lastSeenAt: t0 }, t0 + 30 * MIN, limits)).toBe('idle');
     expect(sessionEnd({ createdAt: t0, lastSeenAt: t0 + 12 * HOUR - MIN }, t0 + 12 * HOUR, limits)).toBe('lifetime');
     // Idle since 11:40 after sign-in, seen at 12:01: the idle limit passed (12:10) after the lifetime (12:00).
-    expect(sessionEnd({ createdAt: t0, lastSeenAt: t0 + 11 * HOUR + 40 * MIN }, t0 + 12 * HOUR + MIN, limits)).toBe('lifetime');
+    expect(sessionEnd({ createdAt: t0, lastSeenAt: t0 + 11 * HOUR + 40 * MIN }, t0 + 12 * HOUR + MIN, limits)).toBe(
+      'lifetime',
+    );
     expect(sessionEnd({ createdAt: t0, lastSeenAt: t0 + HOUR }, t0 + 13 * HOUR, limits)).toBe('idle');
     expect(sessionEnd({}, t0, limits)).toBe('lifetime');
   });
@@ -71,27 +74,30 @@ describe('an ended session', () => {
   it.each([
     ['lastSeenAt', 31 * MIN, 'idle', /30 minutes without activity/],
     ['createdAt', 12 * HOUR + MIN, 'lifetime', /at most 12 hours/],
-  ] as const)('moved %s back by %d ms answers 401 session_expired (%s), on every route until sign-in', async (field, by, reason, words) => {
-    const s = await signInAs(server, DEMO.analyst);
-    const me = (await s.agent.get('/api/me')).body;
-    const [row] = await sessionOf(me.id);
-    await age(row.sid, field, by);
-    const res = await s.agent.get('/api/me');
-    expect(res.status).toBe(401);
-    expect(res.body.error).toMatchObject({ code: 'session_expired', details: { reason } });
-    expect(res.body.error.message).toMatch(words);
-    // Still ended, and no longer anyone's session; public routes keep answering.
-    const later = await s.agent.get('/api/districts');
-    expect(later.body.error).toMatchObject({ code: 'session_expired', details: { reason } });
-    expect(await sessionOf(me.id)).toEqual([]);
-    expect((await s.agent.get('/api/auth/options')).status).toBe(200);
-    // A state-changing call is refused too (CSRF token gone with the person).
-    expect((await s.agent.post('/api/auth/sign-out')).status).toBe(401);
-    // Signing in again starts a fresh session.
-    const again = await signInAs(server, DEMO.analyst);
-    expect((await again.agent.get('/api/me')).status).toBe(200);
-    await again.agent.post('/api/auth/sign-out');
-  });
+  ] as const)(
+    'moved %s back by %d ms answers 401 session_expired (%s), on every route until sign-in',
+    async (field, by, reason, words) => {
+      const s = await signInAs(server, DEMO.analyst);
+      const me = (await s.agent.get('/api/me')).body;
+      const [row] = await sessionOf(me.id);
+      await age(row.sid, field, by);
+      const res = await s.agent.get('/api/me');
+      expect(res.status).toBe(401);
+      expect(res.body.error).toMatchObject({ code: 'session_expired', details: { reason } });
+      expect(res.body.error.message).toMatch(words);
+      // Still ended, and no longer anyone's session; public routes keep answering.
+      const later = await s.agent.get('/api/districts');
+      expect(later.body.error).toMatchObject({ code: 'session_expired', details: { reason } });
+      expect(await sessionOf(me.id)).toEqual([]);
+      expect((await s.agent.get('/api/auth/options')).status).toBe(200);
+      // A state-changing call is refused too (CSRF token gone with the person).
+      expect((await s.agent.post('/api/auth/sign-out')).status).toBe(401);
+      // Signing in again starts a fresh session.
+      const again = await signInAs(server, DEMO.analyst);
+      expect((await again.agent.get('/api/me')).status).toBe(200);
+      await again.agent.post('/api/auth/sign-out');
+    },
+  );
 
   it('answers a stranger without a session plain unauthenticated', async () => {
     const res = await request(server).get('/api/me');
@@ -183,12 +189,15 @@ describe('production cookies and TRUST_PROXY', () => {
     const statuses = async (trust: number | string[], ips: string[]) => {
       const limited = testApp(t.db, { authRateLimitPerMinute: 2, trustProxy: trust });
       const out: number[] = [];
-      for (const ip of ips) out.push((await request(limited).get('/api/auth/google').set('X-Forwarded-For', ip)).status);
+      for (const ip of ips)
+        out.push((await request(limited).get('/api/auth/google').set('X-Forwarded-For', ip)).status);
       await limited.locals.close();
       return out;
     };
     // One hop trusted: 203.0.113.7 and .8 (documentation addresses, RFC 5737) are two people.
-    expect(await statuses(1, ['203.0.113.7', '203.0.113.7', '203.0.113.7', '203.0.113.8'])).toEqual([302, 302, 429, 302]);
+    expect(await statuses(1, ['203.0.113.7', '203.0.113.7', '203.0.113.7', '203.0.113.8'])).toEqual([
+      302, 302, 429, 302,
+    ]);
     // The proxy is not trusted: everyone is the proxy, one bucket.
     expect(await statuses(['10.0.0.1'], ['203.0.113.7', '203.0.113.7', '203.0.113.8'])).toEqual([302, 302, 429]);
   });
@@ -196,7 +205,12 @@ describe('production cookies and TRUST_PROXY', () => {
   it('reads TRUST_PROXY as a hop count or addresses, and refuses `true` and nonsense', () => {
     expect(parseTrustProxy(undefined)).toEqual(['loopback']);
     expect(parseTrustProxy('2')).toBe(2);
-    expect(parseTrustProxy('10.0.0.0/8, 192.168.1.4,loopback,::1')).toEqual(['10.0.0.0/8', '192.168.1.4', 'loopback', '::1']);
+    expect(parseTrustProxy('10.0.0.0/8, 192.168.1.4,loopback,::1')).toEqual([
+      '10.0.0.0/8',
+      '192.168.1.4',
+      'loopback',
+      '::1',
+    ]);
     expect(() => parseTrustProxy('true')).toThrow(/hop count/);
     expect(() => parseTrustProxy('proxy.example')).toThrow(/"proxy\.example" is not a hop count/);
     expect(() => loadConfig({ CRESTWATCH_MODE: 'test', TRUST_PROXY: '10.0.0.1/8/2' })).toThrow(/TRUST_PROXY/);

@@ -6,7 +6,15 @@
  * column, quickly, and the server keeps answering.
  */
 import { MAX_FIELD_BYTES } from '../../api/uploads/parse/csv-bytes';
-import { checkDistrictCode, checkDistrictName, checkNumber, checkYear, isDecimal, MAX_NAME_CHARS, MAX_NUMBER_CHARS } from '../../api/uploads/parse/values';
+import {
+  checkDistrictCode,
+  checkDistrictName,
+  checkNumber,
+  checkYear,
+  isDecimal,
+  MAX_NAME_CHARS,
+  MAX_NUMBER_CHARS,
+} from '../../api/uploads/parse/values';
 import { rng } from './support/csv-fuzz-corpus';
 import { observationsChecksum, upload, uploadWorld, type UploadWorld } from '../api/upload-helpers';
 
@@ -21,7 +29,10 @@ describe('the number scanner', () => {
     const u = rng(11);
     const alphabet = '0123456789+-.,eE x';
     for (let k = 0; k < 20_000; k++) {
-      const s = Array.from({ length: 1 + Math.floor(u() * 10) }, () => alphabet[Math.floor(u() * alphabet.length)]).join('');
+      const s = Array.from(
+        { length: 1 + Math.floor(u() * 10) },
+        () => alphabet[Math.floor(u() * alphabet.length)],
+      ).join('');
       expect([s, isDecimal(s, 46)]).toEqual([s, POINT_NUMBER.test(s)]);
       expect([s, isDecimal(s, 44)]).toEqual([s, COMMA_NUMBER.test(s)]);
     }
@@ -78,27 +89,32 @@ describe('hostile lines through the upload route', () => {
     ['an exponent', `1.${digits}e5x`, false],
   ];
   const layouts = {
-    long: (cell: string, sep: string) => `district_code${sep}indicator${sep}year${sep}value\nD01${sep}population${sep}2020${sep}${cell}\n`,
-    wide: (cell: string, sep: string) => `district_code${sep}year${sep}population${sep}income_pc\nD01${sep}2020${sep}${cell}${sep}5\n`,
+    long: (cell: string, sep: string) =>
+      `district_code${sep}indicator${sep}year${sep}value\nD01${sep}population${sep}2020${sep}${cell}\n`,
+    wide: (cell: string, sep: string) =>
+      `district_code${sep}year${sep}population${sep}income_pc\nD01${sep}2020${sep}${cell}${sep}5\n`,
   };
 
   for (const [layout, file] of Object.entries(layouts)) {
-    it.each(cells)(`refuses a 1 MB line of %s in the ${layout} layout at line 2, column 3 (long: 4)`, async (_label, cell, comma) => {
-      const sep = comma ? ';' : ',';
-      const column = layout === 'long' ? 4 : 3;
-      const t0 = performance.now();
-      const res = await upload(w.analyst, file(cell, sep), `hostile-${layout}.csv`, { decimalComma: comma });
-      const ms = performance.now() - t0;
-      expect(res.status).toBe(422);
-      const first = res.body.error.details.problems[0];
-      expect(first).toMatchObject({ line: 2, column, code: 'field_too_long', severity: 'error' });
-      expect(first.reason).toContain(`past ${MAX_FIELD_BYTES.toLocaleString('en')} bytes`);
-      expect(res.body.error.message).toContain(`Line 2, column ${column}`);
-      // Generous for a loaded 2-core machine; the former checks needed about 25 minutes here.
-      expect(ms).toBeLessThan(10_000);
-      expect(await observationsChecksum(w.t.db)).toBe(checksum);
-      expect((await w.official.get('/api/health')).status).toBe(200);
-    });
+    it.each(cells)(
+      `refuses a 1 MB line of %s in the ${layout} layout at line 2, column 3 (long: 4)`,
+      async (_label, cell, comma) => {
+        const sep = comma ? ';' : ',';
+        const column = layout === 'long' ? 4 : 3;
+        const t0 = performance.now();
+        const res = await upload(w.analyst, file(cell, sep), `hostile-${layout}.csv`, { decimalComma: comma });
+        const ms = performance.now() - t0;
+        expect(res.status).toBe(422);
+        const first = res.body.error.details.problems[0];
+        expect(first).toMatchObject({ line: 2, column, code: 'field_too_long', severity: 'error' });
+        expect(first.reason).toContain(`past ${MAX_FIELD_BYTES.toLocaleString('en')} bytes`);
+        expect(res.body.error.message).toContain(`Line 2, column ${column}`);
+        // Generous for a loaded 2-core machine; the former checks needed about 25 minutes here.
+        expect(ms).toBeLessThan(10_000);
+        expect(await observationsChecksum(w.t.db)).toBe(checksum);
+        expect((await w.official.get('/api/health')).status).toBe(200);
+      },
+    );
   }
 
   it('gives an unquoted field the same cap as a quoted one', async () => {
@@ -118,10 +134,16 @@ describe('hostile lines through the upload route', () => {
   });
 
   it('refuses a long number cell under the field cap by the number cap, naming it', async () => {
-    const res = await upload(w.analyst, `district_code,indicator,year,value\nD01,population,2020,${'7'.repeat(5000)}x\n`, 'long-number.csv');
+    const res = await upload(
+      w.analyst,
+      `district_code,indicator,year,value\nD01,population,2020,${'7'.repeat(5000)}x\n`,
+      'long-number.csv',
+    );
     expect(res.status).toBe(422);
     expect(res.body.error.details.problems[0]).toMatchObject({ line: 2, column: 4, code: 'cell_too_long' });
-    expect(res.body.error.message).toMatch(/Line 2, column 4 \(value\): the number is 5,001 characters long, over the cap of 64 characters/);
+    expect(res.body.error.message).toMatch(
+      /Line 2, column 4 \(value\): the number is 5,001 characters long, over the cap of 64 characters/,
+    );
   });
 
   it('names a column when a line of many short fields runs past 1 MB', async () => {

@@ -11,7 +11,9 @@ describe('UPLOAD_MAX_NEW_DISTRICTS', () => {
   it('defaults to 50,000 and can be set', () => {
     expect(loadConfig({}).uploadMaxNewDistricts).toBe(50_000);
     expect(loadConfig({ UPLOAD_MAX_NEW_DISTRICTS: '1200' }).uploadMaxNewDistricts).toBe(1200);
-    expect(() => loadConfig({ UPLOAD_MAX_NEW_DISTRICTS: '-1' })).toThrow(/UPLOAD_MAX_NEW_DISTRICTS must be a positive integer/);
+    expect(() => loadConfig({ UPLOAD_MAX_NEW_DISTRICTS: '-1' })).toThrow(
+      /UPLOAD_MAX_NEW_DISTRICTS must be a positive integer/,
+    );
   });
 });
 
@@ -44,8 +46,18 @@ describe('a small cap (5) on an app', () => {
       expect(res.status).toBe(422);
       // Line 1 is the header, 2–25 the stored districts, 26–31 the new ones: the sixth is on line 31.
       const problems = res.body.error.details.problems;
-      expect(problems).toEqual([expect.objectContaining({ line: 31, column: 1, field: 'district_code', code: 'too_many_new_districts', severity: 'error' })]);
-      expect(res.body.error.message).toContain('Line 31, column 1 (district_code): district N6 is new district number 6 in this file, over the cap of 5 new districts per upload (UPLOAD_MAX_NEW_DISTRICTS)');
+      expect(problems).toEqual([
+        expect.objectContaining({
+          line: 31,
+          column: 1,
+          field: 'district_code',
+          code: 'too_many_new_districts',
+          severity: 'error',
+        }),
+      ]);
+      expect(res.body.error.message).toContain(
+        'Line 31, column 1 (district_code): district N6 is new district number 6 in this file, over the cap of 5 new districts per upload (UPLOAD_MAX_NEW_DISTRICTS)',
+      );
       expect(await observationsChecksum(w.t.db)).toBe(checksum);
     }
   });
@@ -61,7 +73,11 @@ describe('the default cap', () => {
   it('stops at new district number 50,001', async () => {
     const res = await upload(w.analyst, file(50_001), 'fifty-thousand-and-one.csv', { allowNewDistricts: true });
     expect(res.status).toBe(422);
-    expect(res.body.error.details.problems[0]).toMatchObject({ line: 1 + 24 + 50_001, column: 1, code: 'too_many_new_districts' });
+    expect(res.body.error.details.problems[0]).toMatchObject({
+      line: 1 + 24 + 50_001,
+      column: 1,
+      code: 'too_many_new_districts',
+    });
     expect(res.body.error.details.problems[0].reason).toContain('over the cap of 50,000 new districts per upload');
   });
 });

@@ -61,7 +61,11 @@ export async function startHarness(options: HarnessOptions = {}): Promise<Harnes
   await ensureDemoAccounts(t.db);
   const catcher: MailCatcher | null = options.mailCatcher ? await startMailCatcher(t.db, 0) : null;
   const app = catcher
-    ? testApp(t.db, { webDir, mailCatcherPort: catcher.port }, createMailer({ ...loadConfig({ CRESTWATCH_MODE: 'test' }), mailCatcherPort: catcher.port }))
+    ? testApp(
+        t.db,
+        { webDir, mailCatcherPort: catcher.port },
+        createMailer({ ...loadConfig({ CRESTWATCH_MODE: 'test' }), mailCatcherPort: catcher.port }),
+      )
     : testApp(t.db, { webDir });
   if (options.publishRun) await publishDefaultRun(app, t.url);
   let jobs: Jobs | null = null;
@@ -77,17 +81,17 @@ export async function startHarness(options: HarnessOptions = {}): Promise<Harnes
   // playwright gives each launch a fresh, empty profile directory of its own.
   const browser = await chromium
     .launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-    ],
+      executablePath: '/usr/bin/chromium',
+      headless: true,
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-quic',
+        '--no-first-run',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
     })
     .catch(async (err: Error) => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
@@ -115,7 +119,9 @@ export async function startHarness(options: HarnessOptions = {}): Promise<Harnes
       await context.addInitScript(() => {
         document.addEventListener('securitypolicyviolation', (e) => {
           const report = (window as unknown as { __cwCspViolation(t: string): void }).__cwCspViolation;
-          report(`${e.effectiveDirective} blocked ${e.blockedURI || '(inline)'} on ${e.documentURI}${e.sample ? ` (${e.sample})` : ''}`);
+          report(
+            `${e.effectiveDirective} blocked ${e.blockedURI || '(inline)'} on ${e.documentURI}${e.sample ? ` (${e.sample})` : ''}`,
+          );
         });
       });
       const page = await context.newPage();

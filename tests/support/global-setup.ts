@@ -24,11 +24,15 @@ export default async function globalSetup(): Promise<void> {
     stdio: 'inherit',
   });
   if (await standInAnswers()) return;
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'scripts', 'stand-in.ts'), String(TEST_STAND_IN_PORT)], {
-    cwd: root,
-    stdio: ['ignore', 'ignore', 'inherit'],
-    detached: false,
-  });
+  const child = spawn(
+    process.execPath,
+    ['--import', 'tsx', path.join(root, 'scripts', 'stand-in.ts'), String(TEST_STAND_IN_PORT)],
+    {
+      cwd: root,
+      stdio: ['ignore', 'ignore', 'inherit'],
+      detached: false,
+    },
+  );
   (globalThis as { __standIn?: typeof child }).__standIn = child;
   for (let i = 0; i < 100; i++) {
     if (await standInAnswers()) return;

@@ -17,7 +17,12 @@ export async function workIn(ctx: AppContext, jobs: Jobs): Promise<void> {
   await jobs.work(allHandlers(ctx));
 }
 
-export async function until<T>(what: string, probe: () => Promise<T | null | undefined | false>, timeoutMs = 60_000, everyMs = 200): Promise<T> {
+export async function until<T>(
+  what: string,
+  probe: () => Promise<T | null | undefined | false>,
+  timeoutMs = 60_000,
+  everyMs = 200,
+): Promise<T> {
   const end = Date.now() + timeoutMs;
   for (;;) {
     const v = await probe();
@@ -37,7 +42,10 @@ export interface RunToReview {
  * Starts a run of the default spec through POST /api/runs and polls GET /api/runs/:id
  * until it is in review (a failed run throws with its error).
  */
-export async function startRunAndWait(agent: { post(url: string): { send(body: object): PromiseLike<{ status: number; body: { id: number; state: string } }> }; get(url: string): PromiseLike<{ body: RunToReview['run'] & { error?: string } }> }): Promise<RunToReview & { status: number }> {
+export async function startRunAndWait(agent: {
+  post(url: string): { send(body: object): PromiseLike<{ status: number; body: { id: number; state: string } }> };
+  get(url: string): PromiseLike<{ body: RunToReview['run'] & { error?: string } }>;
+}): Promise<RunToReview & { status: number }> {
   const res = await agent.post('/api/runs').send({});
   const id = res.body.id;
   const run = await until(`run ${id} in review`, async () => {

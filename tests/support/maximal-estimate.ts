@@ -18,5 +18,8 @@ export function maximalEstimateBody(seed = 1) {
     const ly = 1 + 4 * (lx - 9.5) - 0.8 * (lx - 9.5) ** 2 + rng.normal() * 0.1;
     return { year: 1000 + i, y: Math.exp(ly), x: Math.exp(lx), controls };
   });
-  return { model: { form: 'quadratic', transform: 'log', covariance: 'newey_west', lag: MAX_ROWS - 1, controls: names }, rows };
+  return {
+    model: { form: 'quadratic', transform: 'log', covariance: 'newey_west', lag: MAX_ROWS - 1, controls: names },
+    rows,
+  };
 }

@@ -30,7 +30,12 @@ export function pdfInfo(file: string): PdfInfo {
   const out = run('pdfinfo', [file]);
   const pages = Number(/^Pages:\s+(\d+)/m.exec(out)?.[1]);
   const size = /^Page size:\s+([\d.]+) x ([\d.]+) pts/m.exec(out);
-  return { pages, width: Number(size?.[1]), height: Number(size?.[2]), title: /^Title:\s+(.*)$/m.exec(out)?.[1] ?? null };
+  return {
+    pages,
+    width: Number(size?.[1]),
+    height: Number(size?.[2]),
+    title: /^Title:\s+(.*)$/m.exec(out)?.[1] ?? null,
+  };
 }
 
 /** Text of the given pages (all by default), in reading order. */
@@ -41,7 +46,10 @@ export function pdfText(file: string, page?: { first: number; last: number }): s
 
 /** Text as one line: whitespace collapsed, and no break kept after a hyphen, dash or slash. */
 export function flat(text: string): string {
-  return text.replace(/\s+/g, ' ').replace(/([-–/]) /g, '$1').trim();
+  return text
+    .replace(/\s+/g, ' ')
+    .replace(/([-–/]) /g, '$1')
+    .trim();
 }
 
 export interface WordBox {
@@ -58,11 +66,25 @@ export function pdfWords(file: string): WordBox[] {
   const html = run('pdftotext', ['-bbox', '-enc', 'UTF-8', file, '-']);
   const words: WordBox[] = [];
   let page = 0;
-  const decode = (s: string) => s.replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, '&');
+  const decode = (s: string) =>
+    s
+      .replace(/&lt;/g, '<')
+      .replace(/&gt;/g, '>')
+      .replace(/&quot;/g, '"')
+      .replace(/&#39;/g, "'")
+      .replace(/&amp;/g, '&');
   for (const line of html.split('\n')) {
     if (line.includes('<page ')) page++;
     const m = /<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">(.*)<\/word>/.exec(line);
-    if (m) words.push({ page, xMin: Number(m[1]), yMin: Number(m[2]), xMax: Number(m[3]), yMax: Number(m[4]), text: decode(m[5]) });
+    if (m)
+      words.push({
+        page,
+        xMin: Number(m[1]),
+        yMin: Number(m[2]),
+        xMax: Number(m[3]),
+        yMax: Number(m[4]),
+        text: decode(m[5]),
+      });
   }
   return words;
 }
@@ -76,12 +98,21 @@ export interface PdfFont {
 }
 
 export function pdfFonts(file: string): PdfFont[] {
-  const lines = run('pdffonts', [file]).split('\n').slice(2).filter((l) => l.trim());
+  const lines = run('pdffonts', [file])
+    .split('\n')
+    .slice(2)
+    .filter((l) => l.trim());
   return lines.map((l) => {
     const cols = l.trim().split(/\s+/);
     // name type… encoding emb sub uni object ID
     const [emb, sub, uni] = cols.slice(-5, -2);
-    return { name: cols[0], type: cols.slice(1, -6).join(' '), embedded: emb === 'yes', subset: sub === 'yes', unicode: uni === 'yes' };
+    return {
+      name: cols[0],
+      type: cols.slice(1, -6).join(' '),
+      embedded: emb === 'yes',
+      subset: sub === 'yes',
+      unicode: uni === 'yes',
+    };
   });
 }
 

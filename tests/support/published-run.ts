@@ -10,12 +10,24 @@ import { DEMO } from './auth';
 import { testJobs, until, workIn } from './jobs';
 
 /** Runs and publishes; returns the published run's id. Stops its workers before returning. */
-export async function publishDefaultRun(app: CrestwatchApp, databaseUrl: string, opts: { timeoutMs?: number } = {}): Promise<number> {
+export async function publishDefaultRun(
+  app: CrestwatchApp,
+  databaseUrl: string,
+  opts: { timeoutMs?: number } = {},
+): Promise<number> {
   const { ctx } = app.locals;
   const db = ctx.db;
-  const row = await db('users').whereRaw('lower(email) = ?', [DEMO.analyst]).first('id', 'email', 'name', 'role', 'active');
+  const row = await db('users')
+    .whereRaw('lower(email) = ?', [DEMO.analyst])
+    .first('id', 'email', 'name', 'role', 'active');
   if (!row) throw new Error('publishDefaultRun: the demo analyst is missing (call ensureDemoAccounts first)');
-  const analyst: Caller = { id: Number(row.id), email: row.email, name: row.name ?? '', role: row.role, active: row.active };
+  const analyst: Caller = {
+    id: Number(row.id),
+    email: row.email,
+    name: row.name ?? '',
+    role: row.role,
+    active: row.active,
+  };
   const jobs = await testJobs(databaseUrl);
   const previousJobs = ctx.jobs;
   ctx.jobs = jobs;

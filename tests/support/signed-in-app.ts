@@ -21,7 +21,9 @@ export interface SignedInApp {
   close(): Promise<void>;
 }
 
-export async function signedInApp(opts: { as?: keyof typeof DEMO; seed?: boolean; config?: Partial<Config> } = {}): Promise<SignedInApp> {
+export async function signedInApp(
+  opts: { as?: keyof typeof DEMO; seed?: boolean; config?: Partial<Config> } = {},
+): Promise<SignedInApp> {
   const t = await freshDatabase();
   if (opts.seed ?? true) await seedDemoIfEmpty(t.db);
   await ensureDemoAccounts(t.db);

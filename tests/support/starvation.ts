@@ -16,7 +16,12 @@ export interface LoadTimings {
   readers: { what: 'card' | 'health'; sentAt: number; ms: number; status: number }[];
 }
 
-export async function readersUnderLoad(heavyAgents: TestAgent[], reader: TestAgent, ready: () => boolean, card = '/api/districts/D01'): Promise<LoadTimings> {
+export async function readersUnderLoad(
+  heavyAgents: TestAgent[],
+  reader: TestAgent,
+  ready: () => boolean,
+  card = '/api/districts/D01',
+): Promise<LoadTimings> {
   const body = maximalEstimateBody();
   const t0 = performance.now();
   const now = () => performance.now() - t0;

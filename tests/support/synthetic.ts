@@ -6,16 +6,30 @@
 import type { Knex } from 'knex';
 import { seededRandom } from '../../api/demo/random';
 
-export async function insertSyntheticDistricts(db: Knex, count: number, opts: { years?: number; seed?: number; prefix?: string } = {}): Promise<void> {
+export async function insertSyntheticDistricts(
+  db: Knex,
+  count: number,
+  opts: { years?: number; seed?: number; prefix?: string } = {},
+): Promise<void> {
   const years = opts.years ?? 40;
   const rng = seededRandom(opts.seed ?? 7);
   const prefix = opts.prefix ?? 'S';
   const ids = new Map<string, number>(
-    (await db('indicators').whereIn('code', ['emissions_pc', 'income_pc', 'pop_density']).select('id', 'code')).map((r: { id: number; code: string }) => [r.code, r.id]),
+    (await db('indicators').whereIn('code', ['emissions_pc', 'income_pc', 'pop_density']).select('id', 'code')).map(
+      (r: { id: number; code: string }) => [r.code, r.id],
+    ),
   );
-  const districts = Array.from({ length: count }, (_, i) => ({ code: `${prefix}${String(i + 1).padStart(4, '0')}`, name: `Synthetic district ${i + 1}` }));
+  const districts = Array.from({ length: count }, (_, i) => ({
+    code: `${prefix}${String(i + 1).padStart(4, '0')}`,
+    name: `Synthetic district ${i + 1}`,
+  }));
   const inserted: { id: number; code: string }[] = [];
-  for (let i = 0; i < districts.length; i += 1000) inserted.push(...(await db('districts').insert(districts.slice(i, i + 1000)).returning(['id', 'code'])));
+  for (let i = 0; i < districts.length; i += 1000)
+    inserted.push(
+      ...(await db('districts')
+        .insert(districts.slice(i, i + 1000))
+        .returning(['id', 'code'])),
+    );
   const rows: { district_id: number; indicator_id: number; year: number; value: number }[] = [];
   for (const d of inserted) {
     const lx0 = rng.between(8.8, 9.6);

@@ -20,7 +20,8 @@ export function memoryMailer(): Mailer & { sent: Parameters<Mailer['send']>[0][]
 export function testApp(db: Knex, overrides: Partial<Config> = {}, mailer: Mailer = memoryMailer()): CrestwatchApp {
   const base = loadConfig({ CRESTWATCH_MODE: 'test' });
   // The session store opens its own pool: point it at the same test database as db.
-  const c = (db.client as { connectionSettings: { user: string; host: string; port: string; database: string } }).connectionSettings;
+  const c = (db.client as { connectionSettings: { user: string; host: string; port: string; database: string } })
+    .connectionSettings;
   const databaseUrl = `postgres://${c.user}@${c.host}:${c.port}/${c.database}`;
   const config: Config = { ...base, databaseUrl, logRequests: false, ...overrides };
   return createApp({ db, config, log: () => {}, mailer });

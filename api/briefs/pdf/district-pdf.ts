@@ -7,7 +7,22 @@
  */
 import type { BriefFigure, DistrictBriefContent } from '../../../contracts/briefs';
 import { CHART_WIDTH } from '../district-content';
-import { cautionsBox, chip, createBriefDocument, drawScene, footer, FOOTER_HEIGHT, geometry, INK, measure, pageTop, rule, textBlock, textLine, type TextStyle } from './page';
+import {
+  cautionsBox,
+  chip,
+  createBriefDocument,
+  drawScene,
+  footer,
+  FOOTER_HEIGHT,
+  geometry,
+  INK,
+  measure,
+  pageTop,
+  rule,
+  textBlock,
+  textLine,
+  type TextStyle,
+} from './page';
 
 /** Title sizes tried in turn, with the most lines each may take. */
 const TITLE_STEPS: { size: number; lines: number }[] = [
@@ -39,7 +54,14 @@ function title(doc: PDFKit.PDFDocument, name: string, x: number, y: number, widt
   return 0;
 }
 
-function figureCell(doc: PDFKit.PDFDocument, f: BriefFigure, x: number, y: number, width: number, draw: boolean): number {
+function figureCell(
+  doc: PDFKit.PDFDocument,
+  f: BriefFigure,
+  x: number,
+  y: number,
+  width: number,
+  draw: boolean,
+): number {
   const label: TextStyle = { size: 6.8, face: 'bold', color: INK.muted };
   const value: TextStyle = { size: 12.5, face: 'bold', color: INK.text };
   const detail: TextStyle = { size: 7, color: INK.muted, lineGap: 0.4 };
@@ -69,7 +91,10 @@ function figures(doc: PDFKit.PDFDocument, list: BriefFigure[], x: number, y: num
 }
 
 export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer> {
-  const { doc, done } = createBriefDocument(c.paperSize, { title: `${c.name} (${c.code}) · district brief`, subject: `Crestwatch district brief, run #${c.trace.runId}` });
+  const { doc, done } = createBriefDocument(c.paperSize, {
+    title: `${c.name} (${c.code}) · district brief`,
+    subject: `Crestwatch district brief, run #${c.trace.runId}`,
+  });
   const g = geometry(doc);
   const x = g.left;
   const width = g.contentWidth;
@@ -93,7 +118,8 @@ export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer
   const textW = locator ? width - locator.width - 12 : width;
   y += title(doc, c.name, x, y, textW) + 4;
   const chipW = chip(doc, c.standing.label, x, y, STANDING_COLOUR[c.standing.key] ?? INK.accent);
-  if (c.standing.note) textLine(doc, c.standing.note, x + chipW + 8, y + 3.5, { size: 7.5, face: 'bold', color: INK.warn });
+  if (c.standing.note)
+    textLine(doc, c.standing.note, x + chipW + 8, y + 3.5, { size: 7.5, face: 'bold', color: INK.warn });
   y += 20;
   y += textBlock(doc, c.headline, x, y, textW, { size: 10.5, lineGap: 1.2 }, 58) + 10;
   y = Math.max(y, locatorBottom);

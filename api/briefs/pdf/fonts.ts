@@ -63,7 +63,12 @@ const LAYOUT_CACHE_LIMIT = 50_000;
  * in place, so every caller gets fresh copies of the cached ones.
  */
 function freshRun(run: { glyphs: unknown[]; positions: GlyphPosition[] }): GlyphRunLike {
-  const positions = run.positions.map((p) => ({ xAdvance: p.xAdvance, yAdvance: p.yAdvance, xOffset: p.xOffset, yOffset: p.yOffset }));
+  const positions = run.positions.map((p) => ({
+    xAdvance: p.xAdvance,
+    yAdvance: p.yAdvance,
+    xOffset: p.xOffset,
+    yOffset: p.yOffset,
+  }));
   return {
     glyphs: run.glyphs,
     positions,
@@ -143,5 +148,9 @@ export function printable(text: string): string {
 /** Code points of `text` (after `printable`) the face cannot draw. */
 export function missingGlyphs(text: string): string[] {
   const face = briefFaces().regular;
-  return [...new Set([...printable(text)].filter((c) => c.codePointAt(0)! >= 0x20 && !face.hasGlyphForCodePoint(c.codePointAt(0)!)))];
+  return [
+    ...new Set(
+      [...printable(text)].filter((c) => c.codePointAt(0)! >= 0x20 && !face.hasGlyphForCodePoint(c.codePointAt(0)!)),
+    ),
+  ];
 }

@@ -61,7 +61,10 @@ export function geometry(doc: PDFKit.PDFDocument): Geometry {
 }
 
 /** A document for a brief; `done` resolves to the PDF bytes once `doc.end()` is called. */
-export function createBriefDocument(size: BriefPaperSize, info: { title: string; subject: string }): { doc: PDFKit.PDFDocument; done: Promise<Buffer> } {
+export function createBriefDocument(
+  size: BriefPaperSize,
+  info: { title: string; subject: string },
+): { doc: PDFKit.PDFDocument; done: Promise<Buffer> } {
   const doc = new PDFDocument({
     size: size === 'LETTER' ? 'LETTER' : 'A4',
     // No margins for pdfkit: every block is placed and measured here, so pdfkit never
@@ -95,7 +98,10 @@ export interface TextStyle {
 }
 
 function apply(doc: PDFKit.PDFDocument, s: TextStyle): void {
-  doc.font(s.face ?? 'regular').fontSize(s.size).fillColor(s.color ?? INK.text);
+  doc
+    .font(s.face ?? 'regular')
+    .fontSize(s.size)
+    .fillColor(s.color ?? INK.text);
 }
 
 /** Height a wrapped text takes at `width`. */
@@ -108,18 +114,39 @@ export function measure(doc: PDFKit.PDFDocument, text: string, width: number, s:
  * Draws wrapped text at (x, y) within `width`; with `maxHeight` it stops there and ends
  * the last line with an ellipsis. Returns the height used.
  */
-export function textBlock(doc: PDFKit.PDFDocument, text: string, x: number, y: number, width: number, s: TextStyle, maxHeight?: number): number {
+export function textBlock(
+  doc: PDFKit.PDFDocument,
+  text: string,
+  x: number,
+  y: number,
+  width: number,
+  s: TextStyle,
+  maxHeight?: number,
+): number {
   const t = printable(text);
   apply(doc, s);
   const full = doc.heightOfString(t, { width, lineGap: s.lineGap ?? 0 });
   const height = maxHeight !== undefined ? Math.min(full, maxHeight) : full;
   if (height < doc.currentLineHeight(true) - 0.01) return 0;
-  doc.text(t, x, y, { width, height: height + 0.5, lineGap: s.lineGap ?? 0, align: s.align ?? 'left', ellipsis: full > height + 0.5 ? '…' : undefined });
+  doc.text(t, x, y, {
+    width,
+    height: height + 0.5,
+    lineGap: s.lineGap ?? 0,
+    align: s.align ?? 'left',
+    ellipsis: full > height + 0.5 ? '…' : undefined,
+  });
   return height;
 }
 
 /** One line of text, no wrapping; anchored at its start, middle or end. */
-export function textLine(doc: PDFKit.PDFDocument, text: string, x: number, y: number, s: TextStyle, anchor: 'start' | 'middle' | 'end' = 'start'): number {
+export function textLine(
+  doc: PDFKit.PDFDocument,
+  text: string,
+  x: number,
+  y: number,
+  s: TextStyle,
+  anchor: 'start' | 'middle' | 'end' = 'start',
+): number {
   const t = printable(text);
   apply(doc, s);
   const w = doc.widthOfString(t);
@@ -128,7 +155,14 @@ export function textLine(doc: PDFKit.PDFDocument, text: string, x: number, y: nu
   return w;
 }
 
-export function rule(doc: PDFKit.PDFDocument, x0: number, x1: number, y: number, color: string = INK.rule, width = 0.6): void {
+export function rule(
+  doc: PDFKit.PDFDocument,
+  x0: number,
+  x1: number,
+  y: number,
+  color: string = INK.rule,
+  width = 0.6,
+): void {
   doc.save().moveTo(x0, y).lineTo(x1, y).lineWidth(width).strokeColor(color).stroke().restore();
 }
 
@@ -142,20 +176,41 @@ export function drawScene(doc: PDFKit.PDFDocument, scene: ChartScene, x: number,
       doc.path(item.d);
       if (item.dash) doc.dash(item.dash[0], { space: item.dash[1] });
       if (item.fill && item.stroke) {
-        doc.lineWidth(item.width ?? 1).fillColor(TONE[item.fill], item.opacity ?? 1).strokeColor(TONE[item.stroke], item.opacity ?? 1).fillAndStroke();
+        doc
+          .lineWidth(item.width ?? 1)
+          .fillColor(TONE[item.fill], item.opacity ?? 1)
+          .strokeColor(TONE[item.stroke], item.opacity ?? 1)
+          .fillAndStroke();
       } else if (item.fill) {
         doc.fillColor(TONE[item.fill], item.opacity ?? 1).fill();
       } else {
-        doc.lineWidth(item.width ?? 1).strokeColor(TONE[item.stroke ?? 'ink'], item.opacity ?? 1).lineJoin('round').lineCap('round').stroke();
+        doc
+          .lineWidth(item.width ?? 1)
+          .strokeColor(TONE[item.stroke ?? 'ink'], item.opacity ?? 1)
+          .lineJoin('round')
+          .lineCap('round')
+          .stroke();
       }
     } else if (item.kind === 'circle') {
       doc.circle(item.cx, item.cy, item.r);
-      if (item.fill && item.stroke) doc.lineWidth(item.width ?? 0.6).fillColor(TONE[item.fill], item.opacity ?? 1).strokeColor(TONE[item.stroke]).fillAndStroke();
+      if (item.fill && item.stroke)
+        doc
+          .lineWidth(item.width ?? 0.6)
+          .fillColor(TONE[item.fill], item.opacity ?? 1)
+          .strokeColor(TONE[item.stroke])
+          .fillAndStroke();
       else if (item.fill) doc.fillColor(TONE[item.fill], item.opacity ?? 1).fill();
-      else doc.lineWidth(item.width ?? 0.6).strokeColor(TONE[item.stroke ?? 'ink']).stroke();
+      else
+        doc
+          .lineWidth(item.width ?? 0.6)
+          .strokeColor(TONE[item.stroke ?? 'ink'])
+          .stroke();
     } else {
       const t = printable(item.text);
-      doc.font(item.bold ? 'bold' : 'regular').fontSize(item.size).fillColor(TONE[item.tone]);
+      doc
+        .font(item.bold ? 'bold' : 'regular')
+        .fontSize(item.size)
+        .fillColor(TONE[item.tone]);
       const w = doc.widthOfString(t);
       const left = item.anchor === 'end' ? item.x - w : item.anchor === 'middle' ? item.x - w / 2 : item.x;
       doc.text(t, left, item.y, { lineBreak: false, baseline: 'alphabetic' });
@@ -178,7 +233,15 @@ export function footer(doc: PDFKit.PDFDocument, trace: BriefTrace, page: number,
   const pageWidth = doc.widthOfString(pageText);
   textBlock(doc, trace.line, g.left, y + 4, g.contentWidth - pageWidth - 12, s, 8);
   textLine(doc, pageText, g.right, y + 4, { ...s, face: 'bold' }, 'end');
-  textBlock(doc, `Generated on ${trace.generatedAt} from this published run only; figures rounded for reading, intervals outward.`, g.left, y + 13, g.contentWidth, s, 8);
+  textBlock(
+    doc,
+    `Generated on ${trace.generatedAt} from this published run only; figures rounded for reading, intervals outward.`,
+    g.left,
+    y + 13,
+    g.contentWidth,
+    s,
+    8,
+  );
 }
 
 const PAGE_TOP = 30;
@@ -201,12 +264,23 @@ export function chip(doc: PDFKit.PDFDocument, text: string, x: number, y: number
   doc.font('bold').fontSize(7.5);
   const w = doc.widthOfString(t) + 12;
   doc.save().roundedRect(x, y, w, 14, 3).fillColor(color).fill().restore();
-  doc.font('bold').fontSize(7.5).fillColor(INK.onAccent).text(t, x + 6, y + 3.6, { lineBreak: false });
+  doc
+    .font('bold')
+    .fontSize(7.5)
+    .fillColor(INK.onAccent)
+    .text(t, x + 6, y + 3.6, { lineBreak: false });
   return w;
 }
 
 /** The cautions box; returns its height. With `draw: false` only measures. */
-export function cautionsBox(doc: PDFKit.PDFDocument, cautions: string[], x: number, y: number, width: number, draw = true): number {
+export function cautionsBox(
+  doc: PDFKit.PDFDocument,
+  cautions: string[],
+  x: number,
+  y: number,
+  width: number,
+  draw = true,
+): number {
   const s: TextStyle = { size: 7, color: INK.text, lineGap: 0.6 };
   const inner = width - 16;
   const texts = cautions.map((c) => `•  ${c}`);

@@ -7,7 +7,22 @@
  */
 import type { RegionBriefContent, RegionBriefRow } from '../../../contracts/briefs';
 import { printable } from './fonts';
-import { cautionsBox, createBriefDocument, drawScene, footer, FOOTER_HEIGHT, geometry, INK, measure, PAGE_TOP_END, pageTop, rule, textBlock, textLine, type TextStyle } from './page';
+import {
+  cautionsBox,
+  createBriefDocument,
+  drawScene,
+  footer,
+  FOOTER_HEIGHT,
+  geometry,
+  INK,
+  measure,
+  PAGE_TOP_END,
+  pageTop,
+  rule,
+  textBlock,
+  textLine,
+  type TextStyle,
+} from './page';
 
 /** How many districts each summary list shows before "and n more". */
 const LIST_LINES = 8;
@@ -30,7 +45,16 @@ const ROW_PAD = 3.2;
 /** Names wrap to two lines at most, then end with an ellipsis. */
 const NAME_LINES = 2;
 
-function list(doc: PDFKit.PDFDocument, heading: string, items: { code: string; name: string; text: string; mark?: boolean }[], note: string | null, more: string, x: number, y: number, width: number): number {
+function list(
+  doc: PDFKit.PDFDocument,
+  heading: string,
+  items: { code: string; name: string; text: string; mark?: boolean }[],
+  note: string | null,
+  more: string,
+  x: number,
+  y: number,
+  width: number,
+): number {
   let cy = y;
   textLine(doc, heading, x, cy, { size: 8.5, face: 'bold' });
   cy += 13;
@@ -43,7 +67,16 @@ function list(doc: PDFKit.PDFDocument, heading: string, items: { code: string; n
     cy += textBlock(doc, line, x, cy, width, { size: 7.8, lineGap: 0.3 }, 20) + 2;
   }
   if (items.length > LIST_LINES) {
-    cy += textBlock(doc, `… and ${items.length - LIST_LINES} more ${more}.`, x, cy, width, { size: 7.5, color: INK.muted }, 20) + 2;
+    cy +=
+      textBlock(
+        doc,
+        `… and ${items.length - LIST_LINES} more ${more}.`,
+        x,
+        cy,
+        width,
+        { size: 7.5, color: INK.muted },
+        20,
+      ) + 2;
   }
   return cy - y;
 }
@@ -64,7 +97,11 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
   boxes.forEach((b, i) => {
     const bx = x + i * (bw + gap);
     doc.save().rect(bx, y, bw, 40).fillColor(INK.fill).fill().restore();
-    textLine(doc, b.count.toLocaleString('en-GB'), bx + 7, y + 5, { size: 15, face: 'bold', color: b.count ? INK.text : INK.muted });
+    textLine(doc, b.count.toLocaleString('en-GB'), bx + 7, y + 5, {
+      size: 15,
+      face: 'bold',
+      color: b.count ? INK.text : INK.muted,
+    });
     textBlock(doc, b.label, bx + 7, y + 24, bw - 10, { size: 6.6, color: INK.muted }, 16);
   });
   y += 50;
@@ -73,8 +110,26 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
   const map = c.map ?? null;
   const mapW = map ? map.width : 0;
   const colW = (width - 16 - (map ? mapW + 16 : 0)) / 2;
-  const hLeft = list(doc, 'Crossed since the last publish', c.crossed, c.crossedNote, 'in the alerts of this run', x, y, colW);
-  const hRight = list(doc, 'Largest threshold shifts', c.shifts.map((s) => ({ ...s, mark: s.overLimit })), c.shiftsNote, 'in the table', x + colW + 16, y, colW);
+  const hLeft = list(
+    doc,
+    'Crossed since the last publish',
+    c.crossed,
+    c.crossedNote,
+    'in the alerts of this run',
+    x,
+    y,
+    colW,
+  );
+  const hRight = list(
+    doc,
+    'Largest threshold shifts',
+    c.shifts.map((s) => ({ ...s, mark: s.overLimit })),
+    c.shiftsNote,
+    'in the table',
+    x + colW + 16,
+    y,
+    colW,
+  );
   let hMap = 0;
   if (map) {
     const mx = x + width - mapW;
@@ -84,7 +139,11 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
   }
   y += Math.max(hLeft, hRight, hMap);
   if (c.shifts.some((s) => s.overLimit)) {
-    y += textBlock(doc, '• moved more than the alert limit for a threshold shift.', x + colW + 16, y, colW, { size: 6.8, color: INK.muted }) + 2;
+    y +=
+      textBlock(doc, '• moved more than the alert limit for a threshold shift.', x + colW + 16, y, colW, {
+        size: 6.8,
+        color: INK.muted,
+      }) + 2;
   }
   y += 6;
   rule(doc, x, x + width, y);
@@ -124,7 +183,8 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
       y += chart.height * scale + 4;
     }
   }
-  if (c.pooled.note) y += textBlock(doc, c.pooled.note, x, y, width, { size: 7, color: INK.muted }, Math.max(0, modelY - 4 - y));
+  if (c.pooled.note)
+    y += textBlock(doc, c.pooled.note, x, y, width, { size: 7, color: INK.muted }, Math.max(0, modelY - 4 - y));
   textBlock(doc, bottomModel, x, modelY, width, modelStyle, 28);
   cautionsBox(doc, c.cautions, x, cautionsY, width);
 }
@@ -150,7 +210,14 @@ function headerRow(doc: PDFKit.PDFDocument, cols: Column[], x: number, y: number
   const h = 16;
   doc.save().rect(x, y, width, h).fillColor(INK.fill).fill().restore();
   for (const col of cols) {
-    textLine(doc, col.label, RIGHT_ALIGNED.has(col.key) ? col.x + col.width - 4 : col.x + 3, y + 4.8, HEAD, RIGHT_ALIGNED.has(col.key) ? 'end' : 'start');
+    textLine(
+      doc,
+      col.label,
+      RIGHT_ALIGNED.has(col.key) ? col.x + col.width - 4 : col.x + 3,
+      y + 4.8,
+      HEAD,
+      RIGHT_ALIGNED.has(col.key) ? 'end' : 'start',
+    );
   }
   rule(doc, x, x + width, y + h, INK.muted, 0.6);
   return h;
@@ -178,7 +245,8 @@ function prepareRows(doc: PDFKit.PDFDocument, c: RegionBriefContent, cols: Colum
     let lines = 1;
     cols.forEach((col, k) => {
       if (widths[k] <= col.width - 6) return;
-      const need = col.key === 'name' ? Math.ceil(doc.heightOfString(cells[k], { width: col.width - 6 }) / lh - 0.01) : 2;
+      const need =
+        col.key === 'name' ? Math.ceil(doc.heightOfString(cells[k], { width: col.width - 6 }) / lh - 0.01) : 2;
       lines = Math.max(lines, Math.min(NAME_LINES, need));
     });
     return { cells, widths, lines, height: lines * lh + 2 * ROW_PAD };
@@ -205,7 +273,15 @@ function paginate(rows: PreparedRow[], firstY: number, bottom: number): [number,
 /** Where the header row of a table page starts: under the page top and the table title. */
 const TABLE_TOP = PAGE_TOP_END + 17;
 
-function drawRow(doc: PDFKit.PDFDocument, r: PreparedRow, cols: Column[], y: number, shaded: boolean, x: number, width: number): void {
+function drawRow(
+  doc: PDFKit.PDFDocument,
+  r: PreparedRow,
+  cols: Column[],
+  y: number,
+  shaded: boolean,
+  x: number,
+  width: number,
+): void {
   if (shaded) doc.save().rect(x, y, width, r.height).fillColor('#FAF8F3').fill().restore();
   doc.font('regular').fontSize(CELL.size).fillColor(INK.text);
   const lh = doc.currentLineHeight(true);
@@ -215,13 +291,21 @@ function drawRow(doc: PDFKit.PDFDocument, r: PreparedRow, cols: Column[], y: num
     if (r.widths[k] <= col.width - 6) {
       doc.text(t, right ? col.x + col.width - 3 - r.widths[k] : col.x + 3, y + ROW_PAD, { lineBreak: false });
     } else {
-      doc.text(t, col.x + 3, y + ROW_PAD, { width: col.width - 6, height: r.lines * lh + 0.5, ellipsis: '…', align: right ? 'right' : 'left' });
+      doc.text(t, col.x + 3, y + ROW_PAD, {
+        width: col.width - 6,
+        height: r.lines * lh + 0.5,
+        ellipsis: '…',
+        align: right ? 'right' : 'left',
+      });
     }
   });
 }
 
 export async function renderRegionPdf(c: RegionBriefContent): Promise<Buffer> {
-  const { doc, done } = createBriefDocument(c.paperSize, { title: `Region brief · run #${c.trace.runId}`, subject: `Crestwatch region brief, run #${c.trace.runId}` });
+  const { doc, done } = createBriefDocument(c.paperSize, {
+    title: `Region brief · run #${c.trace.runId}`,
+    subject: `Crestwatch region brief, run #${c.trace.runId}`,
+  });
   const g = geometry(doc);
   const x = g.left;
   const width = g.contentWidth;
@@ -248,7 +332,14 @@ export async function renderRegionPdf(c: RegionBriefContent): Promise<Buffer> {
     }
     if (p === pages.length - 1) {
       rule(doc, x, x + width, y, INK.muted, 0.6);
-      if (y + 14 < bottom) textLine(doc, `${c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`, x, y + 5, { size: 6.8, color: INK.muted });
+      if (y + 14 < bottom)
+        textLine(
+          doc,
+          `${c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`,
+          x,
+          y + 5,
+          { size: 6.8, color: INK.muted },
+        );
     }
     footer(doc, c.trace, p + 2, total);
   }

@@ -11,7 +11,13 @@ const ZERO = 48;
 const NINE = 57;
 
 /** Plain numbers rather than an enum: imported enums cost a property read per use under tsx. */
-export const NumberKind = { Invalid: 0, Positive: 1, Zero: 2, Negative: 3, /** exponent or very long: use the string check */ Slow: 4 } as const;
+export const NumberKind = {
+  Invalid: 0,
+  Positive: 1,
+  Zero: 2,
+  Negative: 3,
+  /** exponent or very long: use the string check */ Slow: 4,
+} as const;
 export type NumberKind = (typeof NumberKind)[keyof typeof NumberKind];
 
 /** Classifies a plain decimal number in b[s..e) with a point (or a comma when decimalComma). */

@@ -123,7 +123,12 @@ export class CsvByteTokenizer {
       const q = this.openQuote;
       this.fatal(
         q
-          ? { line: q.line, column: q.column, code: 'unclosed_quote', reason: 'the quote opened here is never closed (the field runs on past 1 MB)' }
+          ? {
+              line: q.line,
+              column: q.column,
+              code: 'unclosed_quote',
+              reason: 'the quote opened here is never closed (the field runs on past 1 MB)',
+            }
           : { line: this.atLine, column: this.atColumn, code: 'field_too_long', reason: 'a line runs on past 1 MB' },
       );
     }
@@ -188,7 +193,12 @@ export class CsvByteTokenizer {
         }
         while (p < n && (b[p] === SPACE || (b[p] === TAB && delim !== TAB))) p++;
         if (p < n && b[p] !== delim && b[p] !== LF && b[p] !== CR) {
-          this.recordProblems.push({ line, column, code: 'stray_quote', reason: 'text after the closing quote of a quoted field' });
+          this.recordProblems.push({
+            line,
+            column,
+            code: 'stray_quote',
+            reason: 'text after the closing quote of a quoted field',
+          });
           while (p < n && b[p] !== delim && b[p] !== LF && b[p] !== CR) p++;
           s = fieldStart;
           e = p;
@@ -246,7 +256,12 @@ export class CsvByteTokenizer {
     const v = this.view;
     if (count >= v.start.length) {
       if (count >= MAX_FIELDS) {
-        this.fatal({ line: this.line, column: count + 1, code: 'ragged_row', reason: `a row with more than ${MAX_FIELDS} fields` });
+        this.fatal({
+          line: this.line,
+          column: count + 1,
+          code: 'ragged_row',
+          reason: `a row with more than ${MAX_FIELDS} fields`,
+        });
         return -1;
       }
       const grow = <T extends Int32Array | Uint8Array>(a: T): T => {
@@ -279,9 +294,12 @@ export class CsvByteTokenizer {
   private checkUtf8(v: RecordView): void {
     for (let i = 0; i < v.count; i++) {
       if (!isUtf8(v.buf.subarray(v.start[i], v.end[i]))) {
-        this.bad(
-          { line: v.line, column: i + 1, code: 'invalid_utf8', reason: 'bytes that are not valid UTF-8 (save the file as UTF-8)' },
-        );
+        this.bad({
+          line: v.line,
+          column: i + 1,
+          code: 'invalid_utf8',
+          reason: 'bytes that are not valid UTF-8 (save the file as UTF-8)',
+        });
         return;
       }
     }
@@ -299,7 +317,11 @@ export class CsvByteTokenizer {
   private bad(p: TokenizerProblem): void {
     if (this.recordProblems.some((q) => q.code === 'binary_data' || q.code === 'invalid_utf8')) return;
     if (++this.badLines >= BINARY_LIMIT) {
-      this.fatal({ ...p, code: 'binary_data', reason: `${p.reason}; after ${BINARY_LIMIT} such lines this does not look like a CSV text file` });
+      this.fatal({
+        ...p,
+        code: 'binary_data',
+        reason: `${p.reason}; after ${BINARY_LIMIT} such lines this does not look like a CSV text file`,
+      });
       return;
     }
     this.recordProblems.push(p);

@@ -33,7 +33,10 @@ export const LONG_COLUMNS = ['district_code', 'indicator', 'year', 'value'] as c
 export const NAME_COLUMN = 'district_name';
 
 export function normaliseName(raw: string): string {
-  return raw.trim().toLowerCase().replace(/[\s-]+/g, '_');
+  return raw
+    .trim()
+    .toLowerCase()
+    .replace(/[\s-]+/g, '_');
 }
 
 /** Reads the header; problems go to `problems`. Returns null when the file cannot be read on. */
@@ -53,7 +56,13 @@ export function readHeader(
       problems.add({ line, column: i + 1, code: 'bad_header', reason: 'a column without a name in the header' });
       ok = false;
     } else if (at.has(n)) {
-      problems.add({ line, column: i + 1, field: n, code: 'duplicate_column', reason: `column "${n}" appears twice in the header (also column ${at.get(n)! + 1})` });
+      problems.add({
+        line,
+        column: i + 1,
+        field: n,
+        code: 'duplicate_column',
+        reason: `column "${n}" appears twice in the header (also column ${at.get(n)! + 1})`,
+      });
       ok = false;
     } else {
       at.set(n, i);
@@ -64,8 +73,15 @@ export function readHeader(
   const district = at.get('district_code');
   const year = at.get('year');
   if (district === undefined || year === undefined) {
-    const missing = [district === undefined ? 'district_code' : null, year === undefined ? 'year' : null].filter(Boolean).join(' and ');
-    problems.add({ line, column: null, code: 'bad_header', reason: `no ${missing} column: ${expected}; found ${names.map((n) => `"${n}"`).join(', ')}` });
+    const missing = [district === undefined ? 'district_code' : null, year === undefined ? 'year' : null]
+      .filter(Boolean)
+      .join(' and ');
+    problems.add({
+      line,
+      column: null,
+      code: 'bad_header',
+      reason: `no ${missing} column: ${expected}; found ${names.map((n) => `"${n}"`).join(', ')}`,
+    });
     return null;
   }
   const name = at.get(NAME_COLUMN) ?? null;
@@ -102,7 +118,13 @@ export function readHeader(
     if (i === district || i === year || i === name || n === '') return;
     const ref = catalogue.get(n);
     if (!ref) {
-      problems.add({ line, column: i + 1, field: n, code: 'unknown_indicator', reason: `"${n}" is not an indicator in the catalogue` });
+      problems.add({
+        line,
+        column: i + 1,
+        field: n,
+        code: 'unknown_indicator',
+        reason: `"${n}" is not an indicator in the catalogue`,
+      });
     } else if (ref.derivation !== 'none') {
       problems.add({ line, column: i + 1, field: n, code: 'derived_indicator', reason: derivedReason(n) });
     }
@@ -110,7 +132,12 @@ export function readHeader(
   });
   if (!ok) return null;
   if (valueColumns.length === 0) {
-    problems.add({ line, column: null, code: 'bad_header', reason: `a wide-format header needs at least one indicator column: ${expected}` });
+    problems.add({
+      line,
+      column: null,
+      code: 'bad_header',
+      reason: `a wide-format header needs at least one indicator column: ${expected}`,
+    });
     return null;
   }
   return { format: 'wide', names, district, year, name, indicator: null, value: null, valueColumns, width };
@@ -128,6 +155,8 @@ export function detectDelimiter(headerLine: string): number {
     if (ch === '"') inQuotes = !inQuotes;
     else if (!inQuotes && ch in counts) counts[ch as keyof typeof counts]++;
   }
-  const best = (Object.entries(counts) as [string, number][]).sort((a, b) => b[1] - a[1] || (a[0] === ',' ? -1 : b[0] === ',' ? 1 : 0))[0];
+  const best = (Object.entries(counts) as [string, number][]).sort(
+    (a, b) => b[1] - a[1] || (a[0] === ',' ? -1 : b[0] === ',' ? 1 : 0),
+  )[0];
   return (best[1] > 0 ? best[0] : ',').charCodeAt(0);
 }

@@ -30,9 +30,18 @@ export class CodeTally {
   }
 
   /** One problem per listed code (`reason` of the code), and one for the rows beyond the cap. */
-  problems(code: 'unknown_indicator' | 'derived_indicator', reason: (code: string) => string): (TokenizerProblem & { field: string })[] {
+  problems(
+    code: 'unknown_indicator' | 'derived_indicator',
+    reason: (code: string) => string,
+  ): (TokenizerProblem & { field: string })[] {
     const times = (n: number) => (n > 1 ? ` (${n.toLocaleString('en')} rows)` : '');
-    const out = [...this.codes].map(([c, e]) => ({ line: e.line, column: e.column, field: 'indicator', code, reason: `${reason(c)}${times(e.count)}` }));
+    const out = [...this.codes].map(([c, e]) => ({
+      line: e.line,
+      column: e.column,
+      field: 'indicator',
+      code,
+      reason: `${reason(c)}${times(e.count)}`,
+    }));
     const more = this.beyondCap;
     if (more) {
       out.push({

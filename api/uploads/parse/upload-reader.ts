@@ -15,7 +15,15 @@ import { derivedReason, detectDelimiter, readHeader, type HeaderLayout } from '.
 import { KeySet } from './key-set';
 import { CodeTally, NewDistrictCap } from './tallies';
 import type { CatalogueEntry, DistrictSeen, DuplicateRef, ReaderContext, ReadSummary } from './read-summary';
-import { checkDistrictCode, checkDistrictName, checkNumber, checkYear, clip, MAX_YEAR as MAX_Y, MIN_YEAR as MIN_Y } from './values';
+import {
+  checkDistrictCode,
+  checkDistrictName,
+  checkNumber,
+  checkYear,
+  clip,
+  MAX_YEAR as MAX_Y,
+  MIN_YEAR as MIN_Y,
+} from './values';
 
 // Module-local bindings for the per-cell hot path (imported bindings are getters under tsx).
 const { bytesEqual, scanNumber, scanYear, OutBuffer } = cells;
@@ -99,7 +107,12 @@ export class UploadReader implements RecordSink {
   /** The bytes after a UTF-8 byte-order mark; null (and a problem) for UTF-16. */
   private byteOrderMark(b: Buffer): Buffer | null {
     if ((b[0] === 0xff && b[1] === 0xfe) || (b[0] === 0xfe && b[1] === 0xff)) {
-      this.stop({ line: 1, column: null, code: 'utf16', reason: 'the file is UTF-16 encoded: save it as UTF-8 (with or without BOM)' });
+      this.stop({
+        line: 1,
+        column: null,
+        code: 'utf16',
+        reason: 'the file is UTF-16 encoded: save it as UTF-8 (with or without BOM)',
+      });
       return null;
     }
     return b[0] === 0xef && b[1] === 0xbb && b[2] === 0xbf ? b.subarray(3) : b;
@@ -181,7 +194,11 @@ export class UploadReader implements RecordSink {
       }
       this.layout = layout;
       this.summary.format = layout.format;
-      this.summary.columns = { district: layout.district + 1, name: layout.name === null ? null : layout.name + 1, names: layout.names };
+      this.summary.columns = {
+        district: layout.district + 1,
+        name: layout.name === null ? null : layout.name + 1,
+        names: layout.names,
+      };
       return;
     }
     this.summary.rowsRead++;
@@ -377,11 +394,20 @@ export class UploadReader implements RecordSink {
       return;
     }
     if (this.summary.rowsRead === 0) {
-      this.problems.add({ line: 1, column: null, code: 'header_only', reason: 'the file has a header but no data rows' });
+      this.problems.add({
+        line: 1,
+        column: null,
+        code: 'header_only',
+        reason: 'the file has a header but no data rows',
+      });
       this.summary.fatal = true;
       return;
     }
-    for (const p of this.unknownIndicators.problems('unknown_indicator', (c) => `"${clip(c)}" is not an indicator in the catalogue`)) this.problems.add(p);
+    for (const p of this.unknownIndicators.problems(
+      'unknown_indicator',
+      (c) => `"${clip(c)}" is not an indicator in the catalogue`,
+    ))
+      this.problems.add(p);
     for (const p of this.derivedSeen.problems('derived_indicator', derivedReason)) this.problems.add(p);
   }
 }

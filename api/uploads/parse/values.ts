@@ -72,7 +72,8 @@ export function isDecimal(s: string, sep: number): boolean {
  * to the same double as JavaScript does (both round correctly).
  */
 export function checkNumber(raw: string, decimalComma: boolean): Checked<number> & { text?: string } {
-  if (raw === '') return { ok: false, code: 'empty_value', reason: 'the value is empty (leave the row out to record a gap)' };
+  if (raw === '')
+    return { ok: false, code: 'empty_value', reason: 'the value is empty (leave the row out to record a gap)' };
   if (raw.length > MAX_NUMBER_CHARS) return tooLong(raw, 'number', MAX_NUMBER_CHARS);
   let text = raw;
   if (decimalComma) {
@@ -92,8 +93,10 @@ export function checkNumber(raw: string, decimalComma: boolean): Checked<number>
 function notNumber(raw: string, decimalComma: boolean): Checked<number> {
   if (NOT_FINITE.test(raw)) return { ok: false, code: 'not_finite', reason: `"${clip(raw)}" is not a finite number` };
   let hint = '';
-  if (!decimalComma && /^[+-]?\d+,\d+$/.test(raw)) hint = ' (if the file uses decimal commas, upload it with the decimal-comma option)';
-  else if (decimalComma && /^[+-]?\d+\.\d+$/.test(raw)) hint = ' (the decimal-comma option is on, so a point is not a decimal separator)';
+  if (!decimalComma && /^[+-]?\d+,\d+$/.test(raw))
+    hint = ' (if the file uses decimal commas, upload it with the decimal-comma option)';
+  else if (decimalComma && /^[+-]?\d+\.\d+$/.test(raw))
+    hint = ' (the decimal-comma option is on, so a point is not a decimal separator)';
   else if (/\d[ .,'\u00a0]\d{3}/.test(raw)) hint = ' (remove thousands separators)';
   return { ok: false, code: 'not_a_number', reason: `"${clip(raw)}" is not a number${hint}` };
 }
@@ -104,11 +107,17 @@ export const MAX_YEAR = 2100;
 export function checkYear(raw: string, currentYear: number): Checked<number> {
   if (raw.length > MAX_YEAR_CHARS) return tooLong(raw, 'year', MAX_YEAR_CHARS);
   if (!/^\d{1,4}$/.test(raw)) {
-    return { ok: false, code: 'bad_year', reason: raw === '' ? 'the year is empty' : `"${clip(raw)}" is not a year (four digits)` };
+    return {
+      ok: false,
+      code: 'bad_year',
+      reason: raw === '' ? 'the year is empty' : `"${clip(raw)}" is not a year (four digits)`,
+    };
   }
   const y = Number(raw);
-  if (y < MIN_YEAR || y > MAX_YEAR) return { ok: false, code: 'year_out_of_range', reason: `year ${y} is outside ${MIN_YEAR}–${MAX_YEAR}` };
-  if (y > currentYear) return { ok: false, code: 'year_in_future', reason: `year ${y} is in the future (it is ${currentYear} now)` };
+  if (y < MIN_YEAR || y > MAX_YEAR)
+    return { ok: false, code: 'year_out_of_range', reason: `year ${y} is outside ${MIN_YEAR}–${MAX_YEAR}` };
+  if (y > currentYear)
+    return { ok: false, code: 'year_in_future', reason: `year ${y} is in the future (it is ${currentYear} now)` };
   return { ok: true, value: y };
 }
 
@@ -121,7 +130,10 @@ export function checkDistrictCode(raw: string): Checked<string> {
   return {
     ok: false,
     code: 'bad_district_code',
-    reason: raw === '' ? 'the district code is empty' : `"${clip(raw)}" is not a district code (1–32 letters, digits, _ or -)`,
+    reason:
+      raw === ''
+        ? 'the district code is empty'
+        : `"${clip(raw)}" is not a district code (1–32 letters, digits, _ or -)`,
   };
 }
 
@@ -131,7 +143,12 @@ export function checkDistrictCode(raw: string): Checked<string> {
  */
 export function checkDistrictName(raw: string): Checked<string> {
   if (raw.length > MAX_NAME_CHARS) return tooLong(raw, 'district name', MAX_NAME_CHARS);
-  if (/[\u0000-\u001F\u007F]/.test(raw)) return { ok: false, code: 'bad_district_name', reason: 'the district name contains a line break or control character' };
+  if (/[\u0000-\u001F\u007F]/.test(raw))
+    return {
+      ok: false,
+      code: 'bad_district_name',
+      reason: 'the district name contains a line break or control character',
+    };
   return { ok: true, value: raw };
 }
 

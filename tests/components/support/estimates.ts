@@ -1,6 +1,12 @@
 // Invented published estimates in the engine's output shape (api/runs/estimate-record.ts),
 // for component tests. Plumbing only: the figures are made up to exercise the screens.
-import type { DistrictEstimateResponse, EstimateRecord, EstimateSummary, PublishedRunMeta, VariantSummary } from '@/contracts/estimates';
+import type {
+  DistrictEstimateResponse,
+  EstimateRecord,
+  EstimateSummary,
+  PublishedRunMeta,
+  VariantSummary,
+} from '@/contracts/estimates';
 
 /** ln y = a + b1 ln x + b2 (ln x)², peak at x* = 30,000 (ln x* ≈ 10.309). */
 function curveY(x: number): number {
@@ -17,8 +23,23 @@ export const run: PublishedRunMeta = {
   id: 7,
   publishedAt: '2026-10-02T09:00:00.000Z',
   specName: 'Regional default',
-  model: { form: 'quadratic', transform: 'log', covariance: 'newey_west', level: 0.95, alpha: 0.05, intervalMethod: 'fieller', controls: ['pop_density'], trendYears: 10 },
-  selection: { driver: 'income_pc', emissions: 'emissions_pc', controls: ['pop_density'], firstYear: null, lastYear: null },
+  model: {
+    form: 'quadratic',
+    transform: 'log',
+    covariance: 'newey_west',
+    level: 0.95,
+    alpha: 0.05,
+    intervalMethod: 'fieller',
+    controls: ['pop_density'],
+    trendYears: 10,
+  },
+  selection: {
+    driver: 'income_pc',
+    emissions: 'emissions_pc',
+    controls: ['pop_density'],
+    firstYear: null,
+    lastYear: null,
+  },
   dataVersion: 3,
   dataHash: 'ab'.repeat(32),
   softwareVersion: '0.1.0',
@@ -56,7 +77,14 @@ export function estimateRecord(over: Partial<EstimateRecord>): EstimateRecord {
       fieller: { kind: 'bounded', levelLo: 26000, levelHi: 36000 },
     },
     turningPoints: [],
-    standing: { standing: 'approaching', intervalMethod: 'fieller', intervalBounded: true, levelLo: 26000, levelHi: 36000, note: null },
+    standing: {
+      standing: 'approaching',
+      intervalMethod: 'fieller',
+      intervalBounded: true,
+      levelLo: 26000,
+      levelHi: 36000,
+      note: null,
+    },
     shape: { shape: 'inverted_u', decidedBy: 'u_test', notes: [] },
     uTest: { statistic: 2.4, pValue: 0.012, rejects: true, orientation: 'inverted_u' },
     gapPercent: -18.2,
@@ -75,9 +103,26 @@ export function wholeLineRecord(): EstimateRecord {
   const r = estimateRecord({});
   return {
     ...r,
-    threshold: { ...r.threshold!, intervalBounded: false, fieller: { kind: 'whole_line', levelLo: null, levelHi: null } },
-    standing: { standing: 'approaching', intervalMethod: 'fieller', intervalBounded: false, levelLo: null, levelHi: null, note: 'interval not bounded at 95%' },
-    projection: { status: 'projected', crossingYear: 2031, earliest: null, latest: null, note: 'range not on current trend (interval not bounded)' },
+    threshold: {
+      ...r.threshold!,
+      intervalBounded: false,
+      fieller: { kind: 'whole_line', levelLo: null, levelHi: null },
+    },
+    standing: {
+      standing: 'approaching',
+      intervalMethod: 'fieller',
+      intervalBounded: false,
+      levelLo: null,
+      levelHi: null,
+      note: 'interval not bounded at 95%',
+    },
+    projection: {
+      status: 'projected',
+      crossingYear: 2031,
+      earliest: null,
+      latest: null,
+      note: 'range not on current trend (interval not bounded)',
+    },
   };
 }
 
@@ -90,7 +135,14 @@ export function notEstimableRecord(): EstimateRecord {
     n: 6,
     range: null,
     threshold: null,
-    standing: { standing: 'not_estimable', intervalMethod: 'fieller', intervalBounded: null, levelLo: null, levelHi: null, note: null },
+    standing: {
+      standing: 'not_estimable',
+      intervalMethod: 'fieller',
+      intervalBounded: null,
+      levelLo: null,
+      levelHi: null,
+      note: null,
+    },
     shape: null,
     uTest: null,
     gapPercent: null,
@@ -129,13 +181,43 @@ export function variants(): VariantSummary[] {
   return [
     { ...main, variant: 'no_controls', threshold: 28000, thresholdLo: 25000, thresholdHi: 31000, reason: null },
     { ...main, variant: 'cubic', threshold: 33000, thresholdLo: 24000, thresholdHi: 52000, reason: null },
-    { ...main, variant: 'last20', intervalBounded: false, fiellerKind: 'two_rays', threshold: 31000, thresholdLo: 20000, thresholdHi: 60000, reason: null },
-    { ...main, variant: 'level', status: 'not_estimable', standing: 'not_estimable', threshold: null, thresholdLo: null, thresholdHi: null, fiellerKind: null, intervalBounded: null, reason: { code: 'too_few_rows', message: 'Too few rows' } },
+    {
+      ...main,
+      variant: 'last20',
+      intervalBounded: false,
+      fiellerKind: 'two_rays',
+      threshold: 31000,
+      thresholdLo: 20000,
+      thresholdHi: 60000,
+      reason: null,
+    },
+    {
+      ...main,
+      variant: 'level',
+      status: 'not_estimable',
+      standing: 'not_estimable',
+      threshold: null,
+      thresholdLo: null,
+      thresholdHi: null,
+      fiellerKind: null,
+      intervalBounded: null,
+      reason: { code: 'too_few_rows', message: 'Too few rows' },
+    },
   ];
 }
 
-export function estimateResponse(main: EstimateRecord | null, over: Partial<DistrictEstimateResponse> = {}): DistrictEstimateResponse {
-  return { district: { code: 'T02', name: 'Bryn Ødegård' }, run, main, variants: main ? variants() : [], note: null, ...over };
+export function estimateResponse(
+  main: EstimateRecord | null,
+  over: Partial<DistrictEstimateResponse> = {},
+): DistrictEstimateResponse {
+  return {
+    district: { code: 'T02', name: 'Bryn Ødegård' },
+    run,
+    main,
+    variants: main ? variants() : [],
+    note: null,
+    ...over,
+  };
 }
 
 /** Every GET the card makes for T02, answered; override any path. */

@@ -22,7 +22,14 @@ export const districtSummaries: DistrictSummary[] = [
 ];
 
 function row(year: number, values: Partial<SeriesRow> = {}): SeriesRow {
-  return { year, emissionsPc: 5 + (year - 2000) / 10, incomePc: 15000 + (year - 2000) * 300, population: 80000, popDensity: 312, ...values };
+  return {
+    year,
+    emissionsPc: 5 + (year - 2000) / 10,
+    incomePc: 15000 + (year - 2000) * 300,
+    population: 80000,
+    popDensity: 312,
+    ...values,
+  };
 }
 
 /** T02: 2004 has no value at all (a gap year); 2007 lacks only its emissions value. */

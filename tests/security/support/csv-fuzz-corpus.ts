@@ -81,9 +81,14 @@ function baseCells(u: U): Base {
   const delimiter = pick(u, [',', ',', ',', ';', '\t']);
   const decimalComma = delimiter !== ',' && chance(u, 0.5);
   const withName = chance(u, 0.4);
-  const districts = [...KNOWN.filter(() => chance(u, 0.3)), ...(chance(u, 0.3) ? Array.from({ length: int(u, 1, 4) }, (_, i) => `Z${int(u, 100, 999)}${i}`) : [])];
+  const districts = [
+    ...KNOWN.filter(() => chance(u, 0.3)),
+    ...(chance(u, 0.3) ? Array.from({ length: int(u, 1, 4) }, (_, i) => `Z${int(u, 100, 999)}${i}`) : []),
+  ];
   if (districts.length === 0) districts.push(pick(u, KNOWN));
-  const years = Array.from({ length: int(u, 1, 12) }, (_, i) => 2024 - i * int(u, 1, 3)).filter((y, i, a) => a.indexOf(y) === i);
+  const years = Array.from({ length: int(u, 1, 12) }, (_, i) => 2024 - i * int(u, 1, 3)).filter(
+    (y, i, a) => a.indexOf(y) === i,
+  );
   const indicators = INDICATORS.filter(() => chance(u, 0.5));
   if (indicators.length === 0) indicators.push(pick(u, INDICATORS));
   const num = () => {
@@ -97,17 +102,30 @@ function baseCells(u: U): Base {
   const rows: string[][] = [];
   if (format === 'long') {
     header = ['district_code', ...(withName ? ['district_name'] : []), 'indicator', 'year', 'value'];
-    for (const d of districts) for (const ind of indicators) for (const y of years) {
-      if (!chance(u, 0.7)) continue;
-      rows.push([d, ...(withName ? [nameOf(d)] : []), ind, String(y), num()]);
-    }
+    for (const d of districts)
+      for (const ind of indicators)
+        for (const y of years) {
+          if (!chance(u, 0.7)) continue;
+          rows.push([d, ...(withName ? [nameOf(d)] : []), ind, String(y), num()]);
+        }
   } else {
     header = ['district_code', ...(withName ? ['district_name'] : []), 'year', ...indicators];
-    for (const d of districts) for (const y of years) {
-      rows.push([d, ...(withName ? [nameOf(d)] : []), String(y), ...indicators.map(() => (chance(u, 0.15) ? '' : num()))]);
-    }
+    for (const d of districts)
+      for (const y of years) {
+        rows.push([
+          d,
+          ...(withName ? [nameOf(d)] : []),
+          String(y),
+          ...indicators.map(() => (chance(u, 0.15) ? '' : num())),
+        ]);
+      }
   }
-  if (rows.length === 0) rows.push(format === 'long' ? [districts[0], ...(withName ? [''] : []), indicators[0], '2020', num()] : [districts[0], ...(withName ? [''] : []), '2020', ...indicators.map(num)]);
+  if (rows.length === 0)
+    rows.push(
+      format === 'long'
+        ? [districts[0], ...(withName ? [''] : []), indicators[0], '2020', num()]
+        : [districts[0], ...(withName ? [''] : []), '2020', ...indicators.map(num)],
+    );
   // Columns in another order now and then (the header decides).
   if (chance(u, 0.2)) {
     const order = header.map((_, i) => i).sort(() => u() - 0.5);
@@ -124,7 +142,8 @@ function serialise(u: U, base: Base): Buffer {
   const lines = base.rows.map((r) =>
     r
       .map((c) => {
-        const mustQuote = c.includes(base.delimiter) || c.includes('"') || /[\r\n]/.test(c) || (spaces && c !== c.trim());
+        const mustQuote =
+          c.includes(base.delimiter) || c.includes('"') || /[\r\n]/.test(c) || (spaces && c !== c.trim());
         const text = mustQuote || chance(u, quoteP) ? `"${c.replace(/"/g, '""')}"` : c;
         return spaces && chance(u, 0.3) ? ` ${text} ` : text;
       })
@@ -132,7 +151,10 @@ function serialise(u: U, base: Base): Buffer {
   );
   if (chance(u, 0.2)) lines.splice(int(u, 1, lines.length), 0, '', base.delimiter.repeat(int(u, 0, 3)));
   const text = lines.join(eol) + (chance(u, 0.8) ? eol : '');
-  return Buffer.concat([chance(u, 0.15) ? Buffer.from([0xef, 0xbb, 0xbf]) : Buffer.alloc(0), Buffer.from(text, 'utf8')]);
+  return Buffer.concat([
+    chance(u, 0.15) ? Buffer.from([0xef, 0xbb, 0xbf]) : Buffer.alloc(0),
+    Buffer.from(text, 'utf8'),
+  ]);
 }
 
 function insertAt(b: Buffer, at: number, what: Buffer): Buffer {
@@ -152,7 +174,16 @@ function cellStart(u: U, b: Buffer, delimiter: string): number {
 function huge(u: U, n: number, decimalComma: boolean): Buffer {
   const sep = decimalComma ? ',' : '.';
   const digits = '7'.repeat(n);
-  const forms = [`${digits}x`, `${digits}${sep}5x`, `1${sep}${digits}e5x`, `${digits}e+${digits}`, 'a'.repeat(n), `"${'q'.repeat(n)}"`, ' '.repeat(n) + '1', `-${digits}`];
+  const forms = [
+    `${digits}x`,
+    `${digits}${sep}5x`,
+    `1${sep}${digits}e5x`,
+    `${digits}e+${digits}`,
+    'a'.repeat(n),
+    `"${'q'.repeat(n)}"`,
+    ' '.repeat(n) + '1',
+    `-${digits}`,
+  ];
   return Buffer.from(pick(u, forms), 'latin1');
 }
 
@@ -164,7 +195,11 @@ function mutate(u: U, kind: FuzzKind, b: Buffer, base: Base): Buffer {
       return randomBytes(u, size(u));
     case 'random-splice': {
       const at = int(u, 0, b.length);
-      return Buffer.concat([b.subarray(0, at), randomBytes(u, int(u, 1, 512)), b.subarray(Math.min(b.length, at + int(u, 0, 64)))]);
+      return Buffer.concat([
+        b.subarray(0, at),
+        randomBytes(u, int(u, 1, 512)),
+        b.subarray(Math.min(b.length, at + int(u, 0, 64))),
+      ]);
     }
     case 'truncated-quote': {
       if (chance(u, 0.5)) return insertAt(b, cellStart(u, b, base.delimiter), Buffer.from('"'));
@@ -180,7 +215,16 @@ function mutate(u: U, kind: FuzzKind, b: Buffer, base: Base): Buffer {
       if (r < 0.25) return Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(b.toString('utf8'), 'utf16le')]);
       // The same text saved as Latin-1 (letters outside it become '?'-like garbage, as in a careless export).
       if (r < 0.5) return Buffer.from(b.toString('utf8'), 'latin1');
-      const odd = [[0xe9], [0xc3], [0x80], [0xc0, 0xaf], [0xed, 0xa0, 0x80], [0xf8, 0x88, 0x80, 0x80, 0x80], [0x93], [0xe2, 0x80]];
+      const odd = [
+        [0xe9],
+        [0xc3],
+        [0x80],
+        [0xc0, 0xaf],
+        [0xed, 0xa0, 0x80],
+        [0xf8, 0x88, 0x80, 0x80, 0x80],
+        [0x93],
+        [0xe2, 0x80],
+      ];
       let out = b;
       for (let k = int(u, 1, 5); k > 0; k--) out = insertAt(out, int(u, 0, out.length), Buffer.from(pick(u, odd)));
       return out;
@@ -202,7 +246,11 @@ function mutate(u: U, kind: FuzzKind, b: Buffer, base: Base): Buffer {
       const lines = b.toString('utf8').split('\n');
       for (let k = int(u, 1, 4); k > 0; k--) {
         const i = int(u, 1, Math.max(1, lines.length - 1));
-        if (lines[i] !== undefined) lines[i] = lines[i].split(base.delimiter).slice(0, -int(u, 1, 3)).join(base.delimiter);
+        if (lines[i] !== undefined)
+          lines[i] = lines[i]
+            .split(base.delimiter)
+            .slice(0, -int(u, 1, 3))
+            .join(base.delimiter);
       }
       return Buffer.from(lines.join('\n'), 'utf8');
     }
@@ -216,5 +264,12 @@ export function fuzzFile(seed: number, i: number): FuzzFile {
   const base = baseCells(u);
   let bytes = mutate(u, kind, serialise(u, base), base);
   if (bytes.length > MAX_FUZZ_BYTES) bytes = bytes.subarray(0, MAX_FUZZ_BYTES);
-  return { name: `fuzz-${seed}-${String(i).padStart(3, '0')}-${kind}.csv`, kind, bytes, format: base.format, delimiter: base.delimiter, decimalComma: base.decimalComma };
+  return {
+    name: `fuzz-${seed}-${String(i).padStart(3, '0')}-${kind}.csv`,
+    kind,
+    bytes,
+    format: base.format,
+    delimiter: base.delimiter,
+    decimalComma: base.decimalComma,
+  };
 }

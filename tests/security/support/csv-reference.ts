@@ -26,7 +26,12 @@ export function referenceCounts(bytes: Buffer, delimiter: string, format: 'long'
   });
   const blank = (r: string[]) => r.every((c) => c === '');
   const start = records.findIndex((r) => !blank(r));
-  const header = records[start].map((c) => c.trim().toLowerCase().replace(/[\s-]+/g, '_'));
+  const header = records[start].map((c) =>
+    c
+      .trim()
+      .toLowerCase()
+      .replace(/[\s-]+/g, '_'),
+  );
   const indicatorColumns = header.map((h, i) => (h !== '' && !NOT_INDICATORS.has(h) ? i : -1)).filter((i) => i >= 0);
   const counts: ReferenceCounts = { rowsRead: 0, blankLines: 0, values: 0 };
   for (const r of records.slice(start + 1)) {
