@@ -5,20 +5,13 @@
  */
 
 /** Files with SQL outside a store (`crestwatch/sql-in-stores`). */
-const SQL_OUTSIDE_STORES = ['api/uploads/change-sets.ts', 'api/uploads/service.ts'];
+const SQL_OUTSIDE_STORES = [];
 
 /** "api/<file> -> api/<other feature's store>" imports (`crestwatch/feature-boundaries`). */
-const FOREIGN_STORE_IMPORTS = [
-  // The boundary change set writes its upload row, derives the area indicators and merges
-  // them with the uploads pipeline's own stores; they wait for uploads' service to offer
-  // "write a change set" and "derive from boundaries".
-  'api/boundaries/service.ts -> api/uploads/derived-store.ts',
-  'api/boundaries/service.ts -> api/uploads/merge-store.ts',
-  'api/boundaries/service.ts -> api/uploads/store.ts',
-];
+const FOREIGN_STORE_IMPORTS = [];
 
 /** Feature folder pairs that import each other, "a<->b" in alphabetical order. */
-const MUTUAL_FOLDER_IMPORTS = ['jobs<->runs'];
+const MUTUAL_FOLDER_IMPORTS = [];
 
 /**
  * Findings of the general rules (Expo's, typescript-eslint's) in files being changed

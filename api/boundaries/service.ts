@@ -10,11 +10,8 @@
 import type { Knex } from 'knex';
 import { AppError, NotFoundError } from '../http/errors';
 import type { ReceivedFile, Who } from '../uploads/service';
-import { revertUpload } from '../uploads/change-sets';
-import { createDerivedTable, deriveChanges, derivedDefs } from '../uploads/derived-store';
-import { applyChanges } from '../uploads/merge-store';
-import { inTransaction, lockObservations, withConnection, type Sql } from '../db/connection';
-import * as uploads from '../uploads/store';
+import { deriveFromBoundaries, openChangeSet, revertUpload } from '../uploads/change-sets';
+import { inTransaction, lockObservations, withConnection } from '../db/connection';
 import { checkFeatures, type BoundaryProblem } from './check-features';
 import { JsonReadError, readJsonFile } from './json-reader';
 import * as store from './store';
@@ -193,8 +190,7 @@ export async function receiveBoundaries(
       };
       if (errors > 0 || !options.commit) return { ...finish(options, answer), rollback: true };
       await lockObservations(conn);
-      const version = await uploads.nextVersion(conn);
-      const upload = await uploads.insertUpload(conn, {
+      const { upload, version } = await openChangeSet(conn, {
         kind: 'boundaries',
         status: 'committed',
         fileName: file.originalName,
@@ -204,7 +200,6 @@ export async function receiveBoundaries(
         userId: who.id,
         userEmail: who.email,
         note: `district boundaries: ${matched.length} districts${missing.length ? `, ${missing.length} without a boundary` : ''}`,
-        version,
         counts: { rowsRead: check.total, values: matched.length, insert: matched.length, warnings },
         problems: answer.problems as never,
       });
@@ -256,36 +251,6 @@ export const currentVersionId = (db: Knex) => store.currentVersionId(db);
 export async function awaitsFirstBoundaries(db: Knex): Promise<boolean> {
   const { versions, districts } = await store.boundaryCounts(db);
   return versions === 0 && districts > 0;
-}
-
-/**
- * Values derived from the boundaries, written by the boundary change set: first every
- * `from_boundaries` indicator (land area), then the derived indicators that read one of
- * them (e.g. density = population ÷ land area), so the second pass sees the new areas.
- * Returns the cells changed.
- */
-async function deriveFromBoundaries(conn: Sql, uploadId: number, version: number): Promise<number> {
-  const defs = await derivedDefs(conn);
-  const areas = defs.filter((d) => d.derivation === 'from_boundaries');
-  if (!areas.length) return 0;
-  const ids = new Set(areas.map((a) => a.id));
-  const readers = defs.filter(
-    (d) => d.derivation !== 'from_boundaries' && (ids.has(d.sourceId) || ids.has(d.divisorId)),
-  );
-  let n = 0;
-  for (const pass of [areas, readers]) {
-    if (!pass.length) continue;
-    await createDerivedTable(conn);
-    await store.clearDerived(conn);
-    let m = 0;
-    for (const def of pass) m += await deriveChanges(conn, def, 'all');
-    if (m > 0)
-      await applyChanges(conn, uploadId, version, [
-        { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
-      ]);
-    n += m;
-  }
-  return n;
 }
 
 /**

@@ -73,11 +73,6 @@ export async function addDerivedCount(conn: Sql, uploadId: number, derived: numb
   ]);
 }
 
-/** Empties the derivation scratch table between the two derivation passes. */
-export async function clearDerived(conn: Sql): Promise<void> {
-  await conn.query(`TRUNCATE upload_derived`);
-}
-
 /** How many boundary versions and districts the region has (the demo seeds boundaries only into an empty one). */
 export async function boundaryCounts(db: Knex): Promise<{ versions: number; districts: number }> {
   const { rows } = await db.raw(

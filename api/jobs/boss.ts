@@ -5,14 +5,9 @@
  */
 import PgBoss from 'pg-boss';
 
-export const QUEUES = {
-  runStart: 'run-start',
-  runChunk: 'run-chunk',
-  outbox: 'outbox-send',
-  scheduledRun: 'run-scheduled',
-  retention: 'retention-prune',
-} as const;
-export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
+import { QUEUES, type Handler, type QueueName } from '../shared/queues';
+
+export { QUEUES, type Handler, type QueueName };
 
 export interface JobsOptions {
   databaseUrl: string;
@@ -25,11 +20,6 @@ export interface JobsOptions {
   /** Run the cron scheduler in this process. */
   schedule: boolean;
 }
-
-export type Handler = (
-  data: Record<string, unknown>,
-  meta: { retryCount: number; retryLimit: number; id: string },
-) => Promise<void>;
 
 export interface Jobs {
   boss: PgBoss;

@@ -7,7 +7,7 @@
  */
 import { fitPanel, type FitPanelResult, type PanelRow } from '../estimation';
 import type { AppContext } from '../context';
-import { QUEUES, type Handler } from '../jobs/boss';
+import { QUEUES, type Handler } from '../shared/queues';
 import {
   hashSeries,
   loadSeries,

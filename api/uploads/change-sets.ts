@@ -10,6 +10,7 @@ import { buildRestoreSet, revertConflicts, rowsHash, observationsAsOfSql } from 
 import { applyChanges } from './merge-store';
 import { summaryOf, type UploadSummary } from './present';
 import { inTransaction, lockObservations, withConnection, type Sql } from '../db/connection';
+import * as sets from './change-set-store';
 import * as store from './store';
 import type { Who } from './service';
 
@@ -72,17 +73,19 @@ export async function revertUpload(db: Knex, id: number, who: Who): Promise<Reve
         userId: who.id,
         userEmail: who.email,
       });
-      const { rows } = await conn.query(`SELECT kind, count(*)::int AS n FROM upload_restore GROUP BY kind`);
-      const n = (k: string) => rows.find((r) => r.kind === k)?.n ?? 0;
+      const n = await sets.stagedCounts(conn, 'upload_restore');
       await applyChanges(conn, rev.id, version, [
         { table: 'upload_restore', writer: 'coalesce(t.value_upload_id, $1::int)', historyKinds: ['i', 'c', 'r'] },
       ]);
       const derived = await recomputeTouched(conn, rev.id, version, 'restored');
       await store.markReverted(conn, x.id, rev.id);
-      await conn.query(
-        `UPDATE uploads SET value_count = $2, insert_count = $3, change_count = $4, remove_count = $5, derived_count = $6 WHERE id = $1`,
-        [rev.id, n('i') + n('c') + n('r'), n('i'), n('c'), n('r'), derived],
-      );
+      await sets.writeCounts(conn, rev.id, {
+        values: n('i') + n('c') + n('r'),
+        inserted: n('i'),
+        changed: n('c'),
+        removed: n('r'),
+        derived,
+      });
       return {
         reverted: summaryOf((await store.findUpload(conn, x.id))!),
         revert: summaryOf((await store.findUpload(conn, rev.id))!),
@@ -103,13 +106,12 @@ async function recomputeTouched(
   let defs = await derivedDefs(conn);
   if (only !== undefined) defs = defs.filter((d) => d.id === only);
   if (keys === 'restored') {
-    const { rows } = await conn.query(`SELECT DISTINCT indicator_id FROM upload_restore`);
-    const touched = new Set(rows.map((r) => r.indicator_id));
+    const touched = await sets.restoredIndicatorIds(conn);
     defs = defs.filter((d) => touched.has(d.sourceId) || touched.has(d.divisorId));
   }
   if (defs.length === 0) return 0;
   await createDerivedTable(conn);
-  await conn.query(`TRUNCATE upload_derived`);
+  await sets.truncateDerived(conn);
   let n = 0;
   for (const def of defs) n += await deriveChanges(conn, def, keys);
   if (n > 0)
@@ -142,15 +144,11 @@ export async function recomputeDerivedIndicator(
   });
   const n = await recomputeTouched(conn, cs.id, version, 'all', indicatorId);
   if (n === 0) {
-    await conn.query(`DELETE FROM uploads WHERE id = $1`, [cs.id]);
+    await sets.deleteUpload(conn, cs.id);
     return null;
   }
-  const { rows } = await conn.query(`SELECT kind, count(*)::int AS n FROM upload_derived GROUP BY kind`);
-  const k = (x: string) => rows.find((r) => r.kind === x)?.n ?? 0;
-  await conn.query(
-    `UPDATE uploads SET value_count = $2, insert_count = $3, change_count = $4, remove_count = $5, derived_count = $2 WHERE id = $1`,
-    [cs.id, n, k('i'), k('c'), k('r')],
-  );
+  const k = await sets.stagedCounts(conn, 'upload_derived');
+  await sets.writeCounts(conn, cs.id, { values: n, inserted: k('i'), changed: k('c'), removed: k('r'), derived: n });
   return summaryOf((await store.findUpload(conn, cs.id))!);
 }
 
@@ -174,28 +172,66 @@ export interface DataVersion {
 export async function dataVersion(db: Knex, at?: number): Promise<DataVersion> {
   return withConnection(db, (conn) =>
     inTransaction(conn, async () => {
-      await conn.query('SET TRANSACTION ISOLATION LEVEL REPEATABLE READ READ ONLY');
+      await sets.readOnlySnapshot(conn);
       const latest = await store.latestVersion(conn);
       const current = latest?.version ?? 0;
       if (at !== undefined && at > current)
         throw new NotFoundError(`No data version ${at}: the latest is ${current}.`, { version: at, latest: current });
       const v = at ?? current;
-      const { rows: applied } = await conn.query(`SELECT id, committed_at FROM uploads WHERE version = $1`, [v]);
+      const applied = await sets.uploadAtVersion(conn, v);
       const hash = await rowsHash(conn, v === current ? 'observations' : observationsAsOfSql(v));
-      const { rows: bounds } = await conn.query(
-        `SELECT b.id FROM boundary_versions b JOIN uploads u ON u.id = b.upload_id LEFT JOIN uploads r ON r.id = u.reverted_by_upload_id
-          WHERE u.version <= $1 AND (r.version IS NULL OR r.version > $1) ORDER BY u.version DESC LIMIT 1`,
-        [v],
-      );
+      const boundaryVersion = await sets.boundaryVersionAt(conn, v);
       return {
         version: v,
-        uploadId: applied[0]?.id ?? null,
-        appliedAt: applied[0]?.committed_at ? new Date(applied[0].committed_at).toISOString() : null,
+        uploadId: applied?.id ?? null,
+        appliedAt: applied?.committedAt ?? null,
         rowsHash: hash.hash,
         rows: hash.rows,
-        boundaryVersion: bounds[0]?.id ?? null,
+        boundaryVersion,
         rollback: true,
       };
     }),
   ).then(({ rollback: _r, ...v }) => v);
+}
+
+/**
+ * Opens a change set that is not a file upload (boundaries, say): takes the next data
+ * version and writes its committed upload row. Call under the observations lock.
+ */
+export async function openChangeSet(
+  conn: Sql,
+  u: Omit<store.NewUpload, 'version'>,
+): Promise<{ upload: Awaited<ReturnType<typeof store.insertUpload>>; version: number }> {
+  const version = await store.nextVersion(conn);
+  return { upload: await store.insertUpload(conn, { ...u, version }), version };
+}
+
+/**
+ * Values derived from the boundaries, written by the boundary change set: first every
+ * `from_boundaries` indicator (land area), then the derived indicators that read one of
+ * them (e.g. density = population ÷ land area), so the second pass sees the new areas.
+ * Returns the cells changed.
+ */
+export async function deriveFromBoundaries(conn: Sql, uploadId: number, version: number): Promise<number> {
+  const defs = await derivedDefs(conn);
+  const areas = defs.filter((d) => d.derivation === 'from_boundaries');
+  if (!areas.length) return 0;
+  const ids = new Set(areas.map((a) => a.id));
+  const readers = defs.filter(
+    (d) => d.derivation !== 'from_boundaries' && (ids.has(d.sourceId) || ids.has(d.divisorId)),
+  );
+  let n = 0;
+  for (const pass of [areas, readers]) {
+    if (!pass.length) continue;
+    await createDerivedTable(conn);
+    await sets.truncateDerived(conn);
+    let m = 0;
+    for (const def of pass) m += await deriveChanges(conn, def, 'all');
+    if (m > 0)
+      await applyChanges(conn, uploadId, version, [
+        { table: 'upload_derived', writer: '$1::int', historyKinds: ['c', 'r'] },
+      ]);
+    n += m;
+  }
+  return n;
 }

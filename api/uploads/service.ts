@@ -288,10 +288,8 @@ async function readIntoStaging(
 }
 
 async function loadCatalogue(conn: Sql): Promise<Map<string, CatalogueEntry>> {
-  const { rows } = await conn.query(`SELECT id, code, derivation, must_be_positive FROM indicators ORDER BY id`);
-  return new Map(
-    rows.map((r) => [r.code, { id: r.id, code: r.code, derivation: r.derivation, mustBePositive: r.must_be_positive }]),
-  );
+  const rows = await store.readerCatalogue(conn);
+  return new Map(rows.map((r) => [r.code, r as CatalogueEntry]));
 }
 
 async function previewStaged(
@@ -381,17 +379,14 @@ async function previewOf(conn: Sql, read: ReadSummary, ev: Evaluation, options: 
   const districtIds = [...new Set(ev.cells.map((c) => c.districtId))];
   let listed = districtIds;
   if (districtIds.length > PREVIEW_LIST_CAP) {
-    const { rows: codes } = await conn.query<{ id: number; code: string }>(
-      `SELECT id, code FROM districts WHERE id = ANY($1)`,
-      [districtIds],
-    );
+    const codes = await store.districtsById(conn, districtIds);
     listed = codes
       .sort((a, b) => DISTRICT_ORDER.compare(a.code, b.code))
       .slice(0, PREVIEW_LIST_CAP)
       .map((d) => d.id);
   }
-  const { rows: ds } = await conn.query(`SELECT id, code, name FROM districts WHERE id = ANY($1)`, [listed]);
-  const { rows: is } = await conn.query(`SELECT id, code, name FROM indicators`);
+  const ds = await store.districtsById(conn, listed);
+  const is = await store.indicatorNames(conn);
   return buildPreview(
     read,
     ev,

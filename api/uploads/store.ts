@@ -249,3 +249,28 @@ export async function districtCodes(conn: Sql): Promise<Set<string>> {
   const { rows } = await conn.query<{ code: string }>(`SELECT code FROM districts`);
   return new Set(rows.map((r) => r.code));
 }
+
+/** The indicator catalogue as the upload reader needs it (code → id, derivation, positivity). */
+export async function readerCatalogue(
+  conn: Sql,
+): Promise<{ id: number; code: string; derivation: unknown; mustBePositive: boolean }[]> {
+  const { rows } = await conn.query(`SELECT id, code, derivation, must_be_positive FROM indicators ORDER BY id`);
+  return rows.map((r: { id: number; code: string; derivation: unknown; must_be_positive: boolean }) => ({
+    id: r.id,
+    code: r.code,
+    derivation: r.derivation,
+    mustBePositive: r.must_be_positive,
+  }));
+}
+
+/** Codes (and names, when asked) of these districts, for a preview's lists. */
+export async function districtsById(conn: Sql, ids: number[]): Promise<{ id: number; code: string; name: string }[]> {
+  const { rows } = await conn.query(`SELECT id, code, name FROM districts WHERE id = ANY($1)`, [ids]);
+  return rows;
+}
+
+/** Every indicator's id, code and name, for a preview's words. */
+export async function indicatorNames(conn: Sql): Promise<{ id: number; code: string; name: string }[]> {
+  const { rows } = await conn.query(`SELECT id, code, name FROM indicators`);
+  return rows;
+}
