@@ -1,4 +1,4 @@
-// The cautions Crestwatch shows with every figure (DOMAIN.md, "Cautions the product shows"):
+// The cautions Crestwatch shows with every figure (docs/method.md, "Cautions"):
 // a short form for the district card and the region view, the full form for the method page.
 
 export type Caution = { key: string; short: string; full: string };

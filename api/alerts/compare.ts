@@ -1,6 +1,6 @@
 /**
  * What changed for one district between two published runs, and the alerts that follow
- * (DOMAIN.md): `crossing` when the standing moved between approaching, at_turn and
+ * (docs/method.md): `crossing` when the standing moved between approaching, at_turn and
  * past_turn (either way); `threshold_shift` when X* in real units moved more than the set
  * percent; `shape_change`; `significance_change` when the U-test's verdict at α flipped.
  */

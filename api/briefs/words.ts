@@ -1,5 +1,5 @@
 /**
- * The words of briefs (our own): standing and shape labels, the cautions of DOMAIN.md,
+ * The words of briefs (our own): standing and shape labels, the cautions of docs/method.md,
  * and the names of models and covariance choices as a reader sees them. Standings, shapes
  * and cautions read exactly as on the district card and the method page
  * (lib/estimate-words.ts, lib/cautions.ts; tests/components/brief-views.test.tsx holds
@@ -48,7 +48,7 @@ export function shapeLabel(shape: string | null): string {
   return SHAPE_TECHNICAL[shape] ? `${plain} (${SHAPE_TECHNICAL[shape]})` : plain;
 }
 
-/** The cautions every brief carries (DOMAIN.md, "Cautions the product shows"). */
+/** The cautions every brief carries (docs/method.md, "Cautions"). */
 export const CAUTIONS: readonly string[] = [
   'The curve is a statistical association in past data, not a causal law or a forecast; thresholds move when data are revised.',
   'Emissions can fall locally because production moved elsewhere; trade-adjusted (consumption-based) figures can tell a different story.',

@@ -3,7 +3,7 @@ import type { ShapeResult, SignRuleReading, UTestResult, WaldTestResult } from '
 /**
  * The shape of the fitted curve over the observed range, decided in a fixed order at α.
  *
- * Rule (DOMAIN.md): (1) the Lind–Mehlum test rejects for its orientation → 'inverted_u'
+ * Rule (docs/method.md): (1) the Lind–Mehlum test rejects for its orientation → 'inverted_u'
  * or 'u'; (2) else the Wald F test that all slope coefficients are zero does not reject
  * → 'flat'; (3) else the sign of the slope at the middle of the range, (x_min + x_max)/2,
  * → 'increasing' or 'decreasing'. When the shape is not a U or inverted U and a turning

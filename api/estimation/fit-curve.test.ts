@@ -1,7 +1,7 @@
 import { EstimationInputError, fitCurve, ols, type CurveFit, type CurveRow, type FitCurveResult } from './index';
 
 // Synthetic districts with known structure; expected values follow from the model's
-// definition (an exact curve, the same fit by ols, or the DOMAIN.md conventions).
+// definition (an exact curve, the same fit by ols, or the docs/method.md conventions).
 
 function district(
   n: number,
@@ -211,7 +211,7 @@ describe('fitCurve', () => {
     const [, b1, b2, b3] = f.coefficients;
     expect(f.turningPoints.map((t) => t.kind)).toEqual(['peak', 'trough']); // the N shape generated: peak at 10, trough above
     expect(f.turningPoints[0].x).toBeCloseTo(10, 1);
-    expect(f.shape.shape).toBe('n_shape'); // two turns inside the range, peak first (DOMAIN.md)
+    expect(f.shape.shape).toBe('n_shape'); // two turns inside the range, peak first (docs/method.md)
     for (const tp of f.turningPoints) {
       expect(Math.abs(b1 + 2 * b2 * tp.x + 3 * b3 * tp.x * tp.x)).toBeLessThan(1e-9 * (Math.abs(b1) + 1));
       expect(tp.kind).toBe(2 * b2 + 6 * b3 * tp.x < 0 ? 'peak' : 'trough');

@@ -23,7 +23,7 @@ import { acquireWorkspace, releaseWorkspace, take, toArray, type Workspace } fro
  * with y, x and the controls (except levelControls) logged; terms const, x, x2[, x3], then
  * the controls. OLS by pivoted QR (ols.ts) with the spec's covariance; inference with t on
  * n − k df (or normal); shape, standing, gap, elasticity, trend and projection as in
- * DOMAIN.md (see curve-inference.ts, standing.ts, gap.ts, elasticity.ts, income-trend.ts,
+ * docs/method.md (see curve-inference.ts, standing.ts, gap.ts, elasticity.ts, income-trend.ts,
  * projection.ts, curve-diagnostics.ts); for a cubic the slope inference is computed on the
  * centred and scaled design (centred-inference.ts). Under the log transform x_now, x_min, x_max are ln
  * values and the `level` fields exp of them.

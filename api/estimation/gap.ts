@@ -5,7 +5,7 @@ import type { GapResult } from './types';
  *
  * Formula: 100·(X_now/X* − 1) with X_now and X* in real units (exp of the log values in
  * log form, the values themselves in level form).
- * Reference: none — the product's definition (DOMAIN.md).
+ * Reference: none — the product's definition (docs/method.md).
  *
  * Throws: nothing; null with a reason when X* is missing, not positive or not finite.
  *

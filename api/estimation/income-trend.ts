@@ -5,7 +5,7 @@ import type { TrendResult } from './types';
  * year > last_year − window (default window 10, i.e. the last ten calendar years).
  *
  * Formula: g = Σ(t − t̄)(l_t − l̄) / Σ(t − t̄)² with l_t = ln(driver_t), centred sums.
- * Reference: simple least squares (any regression text); window per DOMAIN.md.
+ * Reference: simple least squares (any regression text); window per docs/method.md.
  *
  * Throws: nothing; null with a reason when fewer than 2 rows fall in the window or a
  * driver value in it is not positive (level-form data).

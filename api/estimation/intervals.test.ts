@@ -110,7 +110,7 @@ describe('Fieller sets (Fieller 1954): every kind, checked against the defining 
     }
   });
 
-  test('A = 0 to rounding gives one ray, reported as two_rays with one end null (DOMAIN.md)', () => {
+  test('A = 0 to rounding gives one ray, reported as two_rays with one end null (docs/method.md)', () => {
     // 4b2² = 4c²V22 exactly: b2 = 0.1, c = 2, V22 = 0.0025
     const f = fiellerInterval(1, 0.1, 0.01, 0, 0.0025, 2);
     expect(f.kind).toBe('two_rays');

@@ -14,7 +14,7 @@ import { z } from 'zod';
  * default every control in the rows, sorted by name); levelControls (controls kept in
  * levels under the log transform); minYears (default k + 5); trendYears (window of the
  * income trend, 10); clusterAdjustment (panel small-sample factor, default N/(N−k)).
- * Reference: DOMAIN.md (the product's conventions).
+ * Reference: docs/method.md (the product's conventions).
  *
  * Throws: `ModelSpec.parse` throws a ZodError; fitCurve turns it into an
  * EstimationInputError `invalid_argument` with the issues in details.

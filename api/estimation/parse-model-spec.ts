@@ -7,7 +7,7 @@ import { ModelSpec, type ModelSpecInput } from './model-spec';
  *
  * Formula: none — ModelSpec.safeParse plus the cross-field rule that a control cannot be
  * both unused and listed in levelControls when `controls` is given.
- * Reference: DOMAIN.md.
+ * Reference: docs/method.md.
  *
  * Throws: EstimationInputError `invalid_argument` with details { reason: 'model', issues }.
  *

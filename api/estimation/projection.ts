@@ -12,7 +12,7 @@ import type { ProjectionResult } from './types';
  * driver away from a threshold not yet reached; 'no_threshold' without a positive threshold.
  * An interval end that is unbounded (or not positive in real units) gives a null end of
  * the range with the note "not on current trend" for that end.
- * Reference: none — the product's definition (DOMAIN.md).
+ * Reference: none — the product's definition (docs/method.md).
  *
  * Throws: nothing.
  *

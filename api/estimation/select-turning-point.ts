@@ -3,7 +3,7 @@ import type { ShapeName } from './types';
 /**
  * Which turning point sets a district's standing, gap and projection.
  *
- * Rule (DOMAIN.md): among the turning points (for a U or inverted-U shape, those of the
+ * Rule (docs/method.md): among the turning points (for a U or inverted-U shape, those of the
  * matching kind — trough or peak — when there are any), the one inside [x_min, x_max]
  * nearest x_now; when none is inside, the nearest one overall (the caller flags it
  * extrapolated). A quadratic has at most one, so this only chooses for a cubic.

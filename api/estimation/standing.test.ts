@@ -10,7 +10,7 @@ import {
   type WaldTestResult,
 } from './index';
 
-// Conventions from DOMAIN.md ("Where a district stands"); each case is constructed so the
+// Conventions from docs/method.md ("Where a district stands"); each case is constructed so the
 // expected reading follows from the stated rule.
 
 function tp(
@@ -99,7 +99,7 @@ describe('districtStanding', () => {
     expect(districtStanding({ ...base, shape: 'flat', turningPoints: [], xNow: 10 }).standing).toBe('no_turn');
   });
 
-  test('cubic: the root inside the range nearest x_now, of the kind the shape needs (DOMAIN.md)', () => {
+  test('cubic: the root inside the range nearest x_now, of the kind the shape needs (docs/method.md)', () => {
     const pts = [
       { x: 8, kind: 'peak' as const, inRange: false },
       { x: 10, kind: 'trough' as const, inRange: true },
@@ -216,7 +216,7 @@ describe('gap, trend and projected crossing', () => {
   });
 });
 
-describe('classifyShape: the order U-test → Wald → slope at the midpoint (DOMAIN.md)', () => {
+describe('classifyShape: the order U-test → Wald → slope at the midpoint (docs/method.md)', () => {
   const u = (rejects: boolean, orientation: 'inverted_u' | 'u' = 'inverted_u') =>
     ({ rejects, orientation }) as UTestResult;
   const w = (rejects: boolean | null) =>

@@ -5,7 +5,7 @@ import type { IntervalEnds, ShapeName, StandingResult, TurningPoint } from './ty
 /**
  * Where a district stands relative to its threshold (turning point).
  *
- * Rule (DOMAIN.md): for an inverted-U or U shape, take the turning point chosen by
+ * Rule (docs/method.md): for an inverted-U or U shape, take the turning point chosen by
  * select-turning-point.ts and its interval (Fieller by default, delta if asked):
  * 'approaching' when x_now is below the interval's lower end, 'at_turn' inside it,
  * 'past_turn' above its upper end (for a U the turn is a trough, so 'past_turn' means

@@ -54,7 +54,7 @@ export const SettingsSchema = z.object({
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 
-/** Defaults from the product's conventions (DOMAIN.md): 95%, α = 0.05, 10%, quarterly at 06:00. */
+/** Defaults from the product's conventions (docs/method.md): 95%, α = 0.05, 10%, quarterly at 06:00. */
 export const DEFAULT_SETTINGS: Settings = {
   confidenceLevel: 0.95,
   alpha: 0.05,

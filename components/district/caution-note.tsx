@@ -7,7 +7,7 @@ import { CAUTIONS } from '@/lib/cautions';
 /** The first caution, kept as one text for places that quote it whole. */
 export const CAUTION_TEXT = CAUTIONS[0].short;
 
-/** The cautions every district view carries (DOMAIN.md), short, with the method page link. */
+/** The cautions every district view carries (docs/method.md), short, with the method page link. */
 export function CautionNote({ withMethodLink = true }: { withMethodLink?: boolean }) {
   return (
     <View style={styles.note} role="note" testID="caution-note">

@@ -11,7 +11,7 @@ const pct = (part: number | null, base: number | null) =>
 
 /**
  * Why the threshold moved: the previous spec refitted on this run's data splits the change
- * into the part the data revisions made and the part the spec change made (DOMAIN.md).
+ * into the part the data revisions made and the part the spec change made (docs/method.md).
  */
 export function MovementSplit({
   movement,

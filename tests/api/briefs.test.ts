@@ -135,7 +135,7 @@ function threeFigures(v: number, mode: 'round' | 'floor' | 'ceil'): string {
 /** For names: pdftotext joins a word broken after a hyphen at a line end and drops the hyphen. */
 const loose = (s: string) => flat(s).replace(/-/g, '');
 
-/** What the brief must say about a record's threshold, by the rule of DOMAIN.md and the rounding rule. */
+/** What the brief must say about a record's threshold, by the rule of docs/method.md and the rounding rule. */
 function expectedThreshold(r: EstimateRecord): string[] {
   const tp = r.threshold;
   if (!tp || tp.level === null) return ['none'];

@@ -364,7 +364,7 @@ describe('kept previews and earlier versions', () => {
   });
 
   it('takes the change factor from the admin settings when the upload does not give one', async () => {
-    // Settings default (DOMAIN.md / api/settings): uploadChangeFactor 3.
+    // Settings default (docs/method.md / api/settings): uploadChangeFactor 3.
     const stored = await storedValue(w.t.db, 'D22', 'pop_density', 2025);
     const twice = await upload(
       w.analyst,

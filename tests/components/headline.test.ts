@@ -1,7 +1,7 @@
 // The card's headline across every standing and shape, the not-estimable and substitute
 // cases, unbounded Fieller sets (whole line, two rays, one ray), "not on current trend"
 // and extrapolated turns. Inputs follow the engine's output shape (EstimateRecord via
-// headlineInputFromRecord). Expected words are the product's own (DOMAIN.md phrasing).
+// headlineInputFromRecord). Expected words are the product's own (docs/method.md phrasing).
 import {
   headline,
   headlineInputFromRecord,

@@ -1,6 +1,6 @@
 import { classifyShape, fitCurve, type CurveFit, type CurveRow, type FitCurveResult } from '../../api/estimation';
 
-// N-shapes (DOMAIN.md "Shape"): a cubic whose slope changes sign twice inside the observed
+// N-shapes (docs/method.md "Shape"): a cubic whose slope changes sign twice inside the observed
 // range is `n_shape` (rises, falls, rises) or `inverted_n` (falls, rises, falls). The series
 // are invented (seeded, exact cubics plus a small deterministic wiggle): plumbing for the
 // rule, not reference values. Expected turning points follow from the chosen cubic:

@@ -69,7 +69,7 @@ describe('cubic Fieller quartic, non-diagonal covariance', () => {
   });
 });
 
-describe('default Newey–West lag floor(4·(n/100)^(2/9)) (DOMAIN.md)', () => {
+describe('default Newey–West lag floor(4·(n/100)^(2/9)) (docs/method.md)', () => {
   test('n = 20: 4·0.2^(2/9) = 2.797…, floor 2 (round would give 3); hand arithmetic', () => {
     expect(defaultNeweyWestLag(20)).toBe(2);
     // n = 35: 4·0.35^(2/9) = 3.166… → 3; n = 100: 4 → 4; n = 10: 2.394… → 2 (hand)
