@@ -38,7 +38,7 @@ interface RawRow {
  * Controls used: `spec.controls` in that order, else every control name found in the rows,
  * sorted; a row lacking one is an error. Rows are then sorted by (district,) year.
  * Bad data are never dropped silently: the first bad row raises an error naming it.
- * Reference: docs/method.md ("Logs of values ≤ 0 are impossible: such rows are an input error").
+ * Reference: docs/method.md ("What is being estimated": a value ≤ 0 where a log is needed is an input error).
  *
  * `ws` (optional): scratch memory for the arrays (workspace.ts).
  *
