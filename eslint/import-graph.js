@@ -12,7 +12,7 @@ const ROOT = path.resolve(__dirname, '..');
 const API = path.join(ROOT, 'api');
 
 /** Folders of api/ that are shared leaves, not features: they import no feature. */
-const LEAF_FOLDERS = ['db', 'estimation', 'http', 'shared'];
+const LEAF_FOLDERS = ['db', 'estimation', 'http', 'common'];
 
 const IMPORT_RE =
   /(?:\bimport|\bexport)\s[^'";]*?\bfrom\s*['"]([^'"]+)['"]|\bimport\s*\(\s*['"]([^'"]+)['"]\s*\)|\brequire\s*\(\s*['"]([^'"]+)['"]\s*\)|\bimport\s+['"]([^'"]+)['"]/g;

@@ -4,7 +4,7 @@
  * past_turn (either way); `threshold_shift` when X* in real units moved more than the set
  * percent; `shape_change`; `significance_change` when the U-test's verdict at α flipped.
  */
-import { ALERT_KINDS, type AlertKind } from '../shared/alert-kinds';
+import { ALERT_KINDS, type AlertKind } from '../common/alert-kinds';
 
 export { ALERT_KINDS, type AlertKind };
 

@@ -1,5 +1,5 @@
 /** The words of alert e-mails (our own), with the card link and the unsubscribe link. */
-import type { AlertKind } from '../shared/alert-kinds';
+import type { AlertKind } from '../common/alert-kinds';
 
 export const KIND_LABEL: Record<AlertKind, string> = {
   crossing: 'moved across its threshold band',

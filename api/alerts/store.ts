@@ -1,6 +1,6 @@
 /** Alerts and who read them: the only place their SQL lives; rows come back camelCased. */
 import type { Knex } from 'knex';
-import type { AlertKind } from '../shared/alert-kinds';
+import type { AlertKind } from '../common/alert-kinds';
 
 export interface NewAlert {
   runId: number;

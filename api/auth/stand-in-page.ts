@@ -1,5 +1,5 @@
 /** The demo-mode page that lets a person choose who to sign in as through the stand-in. */
-import { DEMO_ACCOUNTS } from '../shared/demo-accounts';
+import { DEMO_ACCOUNTS } from '../common/demo-accounts';
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 

@@ -12,7 +12,7 @@
  * is refused like any malformed address.
  */
 import { createHash } from 'node:crypto';
-import { standInName } from '../shared/demo-accounts';
+import { standInName } from '../common/demo-accounts';
 
 export interface StandIn {
   url: string;

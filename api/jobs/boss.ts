@@ -5,7 +5,7 @@
  */
 import PgBoss from 'pg-boss';
 
-import { QUEUES, type Handler, type QueueName } from '../shared/queues';
+import { QUEUES, type Handler, type QueueName } from '../common/queues';
 
 export { QUEUES, type Handler, type QueueName };
 

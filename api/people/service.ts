@@ -11,7 +11,7 @@ import { AppError, NotFoundError } from '../http/errors';
 import type { Caller, Role } from '../http/routes';
 import { forgetPerson, type ForgetResult } from '../retention/service';
 import { getSettings } from '../settings/service';
-import { DEMO_ACCOUNTS } from '../shared/demo-accounts';
+import { DEMO_ACCOUNTS } from '../common/demo-accounts';
 import { forgetSessionPerson } from './session-person';
 import * as store from './store';
 

@@ -7,7 +7,7 @@
  */
 import { fitPanel, type FitPanelResult, type PanelRow } from '../estimation';
 import type { AppContext } from '../context';
-import { QUEUES, type Handler } from '../shared/queues';
+import { QUEUES, type Handler } from '../common/queues';
 import {
   hashSeries,
   loadSeries,

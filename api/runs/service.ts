@@ -12,7 +12,7 @@ import { districtByCode } from '../districts/service';
 import { ModelSpec } from '../estimation';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
-import { QUEUES } from '../shared/queues';
+import { QUEUES } from '../common/queues';
 import { getSettings } from '../settings/service';
 import type { SavedSpec } from '../specs/schema';
 import { defaultSpec, getSpec } from '../specs/service';

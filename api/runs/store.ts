@@ -297,46 +297,6 @@ export async function mainRecords(
   }));
 }
 
-/**
- * The card-level summary of every main record of a run, built in SQL from the stored JSON
- * (the same fields as estimates/service.ts summaryOf), so listing 3,000 districts reads a
- * few hundred bytes per district instead of decoding each full record.
- */
-export async function mainSummaryRows(
-  db: Knex,
-  runId: number,
-): Promise<{ code: string; summary: Record<string, unknown> }[]> {
-  const rows = await db.raw(
-    `SELECT d.code, jsonb_build_object(
-        'status', r->'status',
-        'standing', r#>'{standing,standing}',
-        'intervalBounded', r#>'{standing,intervalBounded}',
-        'intervalMethod', r#>'{standing,intervalMethod}',
-        'shape', r#>'{shape,shape}',
-        'threshold', r#>'{threshold,level}',
-        'thresholdLo', r#>'{standing,levelLo}',
-        'thresholdHi', r#>'{standing,levelHi}',
-        'fiellerKind', r#>'{threshold,fieller,kind}',
-        'extrapolated', coalesce(r#>'{threshold,extrapolated}', 'false'::jsonb),
-        'gapPercent', r->'gapPercent',
-        'crossingYear', r#>'{projection,crossingYear}',
-        'crossingEarliest', r#>'{projection,earliest}',
-        'crossingLatest', r#>'{projection,latest}',
-        'projectionStatus', r#>'{projection,status}',
-        'lastYear', r->'lastYear',
-        'levelNow', r#>'{range,levelNow}'
-      ) AS summary
-       FROM run_estimates e
-       JOIN districts d ON d.id = e.district_id
-       -- Detoast each record once (OFFSET 0 keeps the subquery from being inlined), not once per path.
-       CROSS JOIN LATERAL (SELECT e.result || '{}'::jsonb AS r OFFSET 0) x
-      WHERE e.run_id = ? AND e.variant = 'main'
-      ORDER BY d.code`,
-    [runId],
-  );
-  return rows.rows as { code: string; summary: Record<string, unknown> }[];
-}
-
 export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<RunRow | null> {
   const q = db('runs')
     .where({ state: 'published' })

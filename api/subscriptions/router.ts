@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import { districtCode, idParams } from '../http/params';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
-import { ALERT_KINDS } from '../shared/alert-kinds';
+import { ALERT_KINDS } from '../common/alert-kinds';
 import { confirmPage, resultPage } from './pages';
 import * as service from './service';
 import { SubscriptionAnswerSchema, SubscriptionsResponseSchema } from '../../contracts/alerts';

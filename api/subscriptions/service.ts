@@ -4,7 +4,7 @@ import type { Config } from '../config';
 import { districtsByCodes } from '../districts/service';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
-import { ALERT_KINDS, type AlertKind } from '../shared/alert-kinds';
+import { ALERT_KINDS, type AlertKind } from '../common/alert-kinds';
 import * as store from './store';
 import { checkUnsubscribeToken, unsubscribeToken } from './token';
 

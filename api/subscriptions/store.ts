@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { AlertKind } from '../shared/alert-kinds';
+import type { AlertKind } from '../common/alert-kinds';
 
 export interface SubscriptionRow {
   id: number;
