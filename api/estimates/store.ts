@@ -4,10 +4,14 @@
  * reads them. Rows come back camelCased.
  */
 import type { Knex } from 'knex';
+import { estimateListRows, type EstimateListRow } from '../db/estimate-list-rows';
+
 import type { ModelSpec } from '../estimation';
 import type { EstimateRecord } from '../runs/estimate-record';
 import { PooledCurveSchema, type PooledCurve } from '../../contracts/estimates';
 import { parse } from '../../contracts/kit';
+
+export type { EstimateListRow };
 
 /** The series a run was fitted on, as the run recorded them. */
 export interface RunSelection {
@@ -84,54 +88,8 @@ export async function notesByCode(db: Knex, runId: number): Promise<Map<string, 
 }
 
 /** The summary columns of a run's main estimates, in district-code order. */
-export interface EstimateListRow {
-  districtId: number;
-  code: string;
-  name: string;
-  status: string;
-  standing: string;
-  shape: string | null;
-  threshold: number | null;
-  gapPercent: number | null;
-  crossingYear: number | null;
-  uTestRejects: boolean | null;
-  intervalBounded: boolean | null;
-  lastYear: number | null;
-}
-
-export async function mainEstimateRows(db: Knex, runId: number): Promise<EstimateListRow[]> {
-  const rows: Record<string, unknown>[] = await db('run_estimates as e')
-    .join('districts as d', 'd.id', 'e.district_id')
-    .where({ 'e.run_id': runId, 'e.variant': 'main' })
-    .orderBy('d.code')
-    .select(
-      'e.district_id',
-      'e.status',
-      'e.standing',
-      'e.shape',
-      'e.threshold',
-      'e.gap_percent',
-      'e.crossing_year',
-      'e.u_test_rejects',
-      'e.interval_bounded',
-      'e.last_year',
-      'd.code',
-      'd.name',
-    );
-  return rows.map((r) => ({
-    districtId: Number(r.district_id),
-    code: String(r.code),
-    name: String(r.name),
-    status: String(r.status),
-    standing: String(r.standing),
-    shape: (r.shape as string | null) ?? null,
-    threshold: num(r.threshold),
-    gapPercent: num(r.gap_percent),
-    crossingYear: num(r.crossing_year),
-    uTestRejects: (r.u_test_rejects as boolean | null) ?? null,
-    intervalBounded: (r.interval_bounded as boolean | null) ?? null,
-    lastYear: num(r.last_year),
-  }));
+export function mainEstimateRows(db: Knex, runId: number): Promise<EstimateListRow[]> {
+  return estimateListRows(db, runId, 'main');
 }
 
 /** The columns two runs are compared on, per district (main variant). */

@@ -2,6 +2,8 @@
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import type { Knex } from 'knex';
+import { estimateListRows, type EstimateListRow } from '../db/estimate-list-rows';
+
 import type { PoolClient } from 'pg';
 import { from as copyFrom } from 'pg-copy-streams';
 import type { ModelSpec } from '../estimation';
@@ -9,6 +11,8 @@ import type { EstimateRecord, Variant } from './estimate-record';
 import type { Selection } from './data-store';
 import { PooledCurveSchema, type PooledCurve } from '../../contracts/estimates';
 import { parse } from '../../contracts/kit';
+
+export type { EstimateListRow };
 
 export type RunState = 'queued' | 'running' | 'in_review' | 'published' | 'discarded' | 'failed';
 
@@ -219,59 +223,9 @@ export async function chunksDone(db: Knex, runId: number): Promise<number> {
   return Number(count);
 }
 
-export interface EstimateListRow {
-  districtId: number;
-  code: string;
-  name: string;
-  status: string;
-  standing: string;
-  shape: string | null;
-  threshold: number | null;
-  gapPercent: number | null;
-  crossingYear: number | null;
-  uTestRejects: boolean | null;
-  intervalBounded: boolean | null;
-  lastYear: number | null;
-}
-
-function toListRow(r: Record<string, unknown>): EstimateListRow {
-  return {
-    districtId: Number(r.district_id),
-    code: String(r.code),
-    name: String(r.name),
-    status: String(r.status),
-    standing: String(r.standing),
-    shape: (r.shape as string | null) ?? null,
-    threshold: num(r.threshold),
-    gapPercent: num(r.gap_percent),
-    crossingYear: num(r.crossing_year),
-    uTestRejects: (r.u_test_rejects as boolean | null) ?? null,
-    intervalBounded: (r.interval_bounded as boolean | null) ?? null,
-    lastYear: num(r.last_year),
-  };
-}
-
 /** The summary columns of a run's estimates for one variant, in district-code order. */
-export async function listEstimateRows(db: Knex, runId: number, variant: Variant = 'main'): Promise<EstimateListRow[]> {
-  const rows = await db('run_estimates as e')
-    .join('districts as d', 'd.id', 'e.district_id')
-    .where({ 'e.run_id': runId, 'e.variant': variant })
-    .orderBy('d.code')
-    .select(
-      'e.district_id',
-      'e.status',
-      'e.standing',
-      'e.shape',
-      'e.threshold',
-      'e.gap_percent',
-      'e.crossing_year',
-      'e.u_test_rejects',
-      'e.interval_bounded',
-      'e.last_year',
-      'd.code',
-      'd.name',
-    );
-  return rows.map(toListRow);
+export function listEstimateRows(db: Knex, runId: number, variant: Variant = 'main'): Promise<EstimateListRow[]> {
+  return estimateListRows(db, runId, variant);
 }
 
 /** Full records of a run for the given districts (all variants). */
