@@ -9,6 +9,9 @@ export type AlertKind = z.infer<typeof AlertKindSchema>;
 export const DistrictAlertSchema = z.object({
   id: z.number(),
   runId: z.number(),
+  /** the track whose runs were compared (never two tracks) */
+  track: z.string(),
+  trackName: z.string(),
   kind: AlertKindSchema,
   details: z.record(z.string(), z.unknown()),
   createdAt: isoTime,
@@ -32,6 +35,8 @@ const subscriptionFields = {
   kinds: z.array(AlertKindSchema),
   delivery: z.enum(['instant', 'digest']),
   attachBrief: z.boolean(),
+  /** 'all' (every track, including tracks created later) or the chosen track codes */
+  tracks: z.union([z.literal('all'), z.array(z.string())]),
 };
 /** The body of POST /api/subscriptions as the app sends it. */
 export const SubscriptionInputSchema = z.object(subscriptionFields);

@@ -4,6 +4,7 @@
  * card-level summary (summaryOf in api/estimates/service.ts).
  */
 import * as z from './kit';
+import { IndicatorLabelSchema, TrackRefSchema } from './tracks';
 import { isoTime, nullableNumber, nullableString } from './common';
 
 export const STANDINGS = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'] as const;
@@ -79,6 +80,8 @@ export const PublishedRunMetaSchema = z.object({
   dataVersion: z.number(),
   dataHash: z.string(),
   softwareVersion: z.string(),
+  /** the run's emissions and driver indicators with their units from the catalogue */
+  units: z.object({ emissions: IndicatorLabelSchema, driver: IndicatorLabelSchema }),
 });
 export type PublishedRunMeta = z.infer<typeof PublishedRunMetaSchema>;
 
@@ -171,8 +174,22 @@ export const AnalystNoteSchema = z.object({ note: z.string(), authorEmail: nulla
 
 export const DistrictRefSchema = z.object({ code: z.string(), name: z.string() });
 
+/** One compact row per active track at the top of a district card. */
+export const TrackStandingSchema = z.extend(TrackRefSchema, {
+  /** null when the track has no published run or the district is not in it */
+  standing: z.nullable(StandingSchema),
+  gapPercent: nullableNumber,
+  shape: z.nullable(ShapeSchema),
+  runId: nullableNumber,
+});
+export type TrackStanding = z.infer<typeof TrackStandingSchema>;
+
 export const DistrictEstimateResponseSchema = z.object({
   district: DistrictRefSchema,
+  /** the track this card shows (?track=, else the headline track) */
+  track: TrackRefSchema,
+  /** every active track's standing here, the headline track first */
+  tracks: z.array(TrackStandingSchema),
   run: z.nullable(PublishedRunMetaSchema),
   main: z.nullable(EstimateRecordSchema),
   variants: z.array(VariantSummarySchema),
@@ -201,6 +218,8 @@ export const RegionDistrictSchema = z.object({
 export type RegionDistrict = z.infer<typeof RegionDistrictSchema>;
 
 export const RegionResponseSchema = z.object({
+  /** the track this answer shows (?track=, else the headline track) */
+  track: TrackRefSchema,
   run: z.nullable(PublishedRunMetaSchema),
   counts: z.partialRecord(StandingSchema, z.number()),
   pooled: z.nullable(

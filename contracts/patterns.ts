@@ -20,3 +20,11 @@ export function isDistrictCode(value: string): boolean {
 export function isIndicatorCode(value: string): boolean {
   return INDICATOR_CODE.test(value);
 }
+
+/** A track code: a lower-case letter, then up to 31 lower-case letters, digits or `-` (e.g. `co2`, `pm25`). */
+export const TRACK_CODE = /^[a-z][a-z0-9-]{0,31}$/;
+export const TRACK_CODE_RULE = 'a track code is a lower-case letter then up to 31 letters, digits or -';
+
+export function isTrackCode(value: string): boolean {
+  return TRACK_CODE.test(value);
+}

@@ -4,6 +4,7 @@
  */
 import * as z from './kit';
 import { isoTime, nullableNumber, nullableString } from './common';
+import { TrackRefSchema } from './tracks';
 import { AnalystNoteSchema, EstimateRecordSchema, ShapeSchema, StandingSchema } from './estimates';
 
 export const RUN_STATES = ['queued', 'running', 'in_review', 'published', 'discarded', 'failed'] as const;
@@ -14,6 +15,8 @@ export const RunListItemSchema = z.object({
   id: z.number(),
   state: RunStateSchema,
   trigger: z.string(),
+  track: z.string(),
+  trackName: z.string(),
   specName: z.string(),
   createdAt: isoTime,
   finishedAt: z.nullable(isoTime),
@@ -66,6 +69,7 @@ export const RunViewSchema = z.object({
   id: z.number(),
   state: RunStateSchema,
   trigger: z.string(),
+  track: TrackRefSchema,
   spec: RunSpecSnapshotSchema,
   specId: z.number(),
   dataVersion: nullableNumber,
@@ -140,6 +144,7 @@ export type ReviewRow = z.infer<typeof ReviewRowSchema>;
 
 export const ReviewResponseSchema = z.object({
   runId: z.number(),
+  track: TrackRefSchema,
   previousRunId: nullableNumber,
   /** the settings' threshold-shift limit (percent) the comparison marks moves against */
   thresholdShiftPercent: z.number(),
@@ -192,12 +197,13 @@ export const DistrictReviewSchema = z.object({
 });
 export type DistrictReview = z.infer<typeof DistrictReviewSchema>;
 
-/** POST /api/runs and /api/runs/:id/reproduce: the queued run. */
-export const RunStartedSchema = z.object({ id: z.number(), state: RunStateSchema });
+/** POST /api/runs and /api/runs/:id/reproduce: the queued run (the first one), and every run started. */
+const StartedRunSchema = z.object({ id: z.number(), state: RunStateSchema, track: z.string() });
+export const RunStartedSchema = z.extend(StartedRunSchema, { runs: z.array(StartedRunSchema) });
 export type RunStarted = z.infer<typeof RunStartedSchema>;
 
-/** The body of POST /api/runs. */
-export const RunStartInputSchema = z.object({ specId: z.optional(z.number()) });
+/** The body of POST /api/runs: one track's code, or 'all' for every active track (default: the headline track). */
+export const RunStartInputSchema = z.object({ track: z.optional(z.string()) });
 export type RunStartInput = z.infer<typeof RunStartInputSchema>;
 
 export const PublishAnswerSchema = z.object({ previousRunId: nullableNumber, alerts: z.number(), mails: z.number() });
