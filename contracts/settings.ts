@@ -83,6 +83,9 @@ export const CatalogueIndicatorSchema = z.object({
   unit: z.string(),
   description: z.string(),
   mustBePositive: z.boolean(),
+  /** who publishes the series and under which terms (null: not recorded); shown on the method page and briefs */
+  source: nullableString,
+  licence: nullableString,
   derivation: z.nullable(
     // from_boundaries has no source or divisor
     z.object({

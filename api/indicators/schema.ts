@@ -35,12 +35,23 @@ export const derivationInput = z.discriminatedUnion('kind', [
 ]);
 export type DerivationInput = z.infer<typeof derivationInput>;
 
+/** Who publishes the series and under which terms; blank text means "not recorded" (null). */
+const provenance = (what: string, max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, `${what} is at most ${max} characters`)
+    .nullable()
+    .transform((v) => (v === null || v === '' ? null : v));
+
 export const createIndicatorBody = z.object({
   code: indicatorCode,
   name: z.string().trim().min(1).max(120),
   unit: z.string().trim().min(1).max(80),
   description: z.string().trim().max(2000).default(''),
   mustBePositive: z.boolean().default(false),
+  source: provenance('source', 300).default(null),
+  licence: provenance('licence', 300).default(null),
   derivation: derivationInput.nullable().default(null),
 });
 export type CreateIndicator = z.infer<typeof createIndicatorBody>;
@@ -51,6 +62,10 @@ export const updateIndicatorBody = z
     unit: z.string().trim().min(1).max(80),
     description: z.string().trim().max(2000),
     mustBePositive: z.boolean(),
+    /** who publishes the series, e.g. "Regional statistics office"; null or blank clears it */
+    source: provenance('source', 300),
+    /** the terms of use, e.g. "CC BY 4.0"; null or blank clears it */
+    licence: provenance('licence', 300),
     /** null makes a derived indicator plain again (its values stay). */
     derivation: derivationInput.nullable(),
   })

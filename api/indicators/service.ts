@@ -20,6 +20,9 @@ export interface IndicatorView {
   unit: string;
   description: string;
   mustBePositive: boolean;
+  /** who publishes the series (e.g. a statistics office), and under which terms it may be used */
+  source: string | null;
+  licence: string | null;
   derivation:
     | null
     | { kind: 'per_person'; source: string; divisor: string; formula: string }
@@ -60,8 +63,8 @@ export function viewOf(r: store.IndicatorRow): IndicatorView {
       formula: `${r.sourceCode} ÷ ${r.divisorCode} × 100 (${r.divisorCode} = 100 in ${r.baseYear})`,
     };
   }
-  const { code, name, unit, description, mustBePositive, stats } = r;
-  return { code, name, unit, description, mustBePositive, derivation, stats };
+  const { code, name, unit, description, mustBePositive, source, licence, stats } = r;
+  return { code, name, unit, description, mustBePositive, source, licence, derivation, stats };
 }
 
 export async function listIndicators(db: Knex) {
@@ -86,6 +89,8 @@ export async function createIndicator(db: Knex, body: CreateIndicator, who: Who)
         unit: body.unit,
         description: body.description,
         mustBePositive: body.mustBePositive,
+        source: body.source,
+        licence: body.licence,
         ...sources,
       });
       const created = (await store.findIndicator(conn, body.code))!;
@@ -155,6 +160,8 @@ export async function updateIndicator(
         unit: body.unit ?? cur.unit,
         description: body.description ?? cur.description,
         mustBePositive,
+        source: body.source !== undefined ? body.source : cur.source,
+        licence: body.licence !== undefined ? body.licence : cur.licence,
         ...sources,
       });
       const recomputed =

@@ -9,6 +9,9 @@ export interface IndicatorRow {
   unit: string;
   description: string;
   mustBePositive: boolean;
+  /** who publishes the series, and under which terms (null: not recorded) */
+  source: string | null;
+  licence: string | null;
   derivation: 'none' | 'per_person' | 'real_from_nominal' | 'from_boundaries' | 'ratio';
   sourceId: number | null;
   divisorId: number | null;
@@ -19,7 +22,7 @@ export interface IndicatorRow {
 }
 
 const SELECT = `
-  SELECT i.id, i.code, i.name, i.unit, i.description, i.must_be_positive, i.derivation, i.base_year,
+  SELECT i.id, i.code, i.name, i.unit, i.description, i.must_be_positive, i.source, i.licence, i.derivation, i.base_year,
          i.source_indicator_id, i.divisor_indicator_id,
          s.code AS source_code, v.code AS divisor_code,
          coalesce(st.districts, 0)::int AS districts, coalesce(st.n, 0)::int AS n, st.first_year, st.last_year
@@ -39,6 +42,8 @@ interface IndicatorDbRow {
   unit: string;
   description: string;
   must_be_positive: boolean;
+  source: string | null;
+  licence: string | null;
   derivation: IndicatorRow['derivation'];
   source_indicator_id: number | null;
   divisor_indicator_id: number | null;
@@ -59,6 +64,8 @@ function toRow(r: IndicatorDbRow): IndicatorRow {
     unit: r.unit,
     description: r.description,
     mustBePositive: r.must_be_positive,
+    source: r.source,
+    licence: r.licence,
     derivation: r.derivation,
     sourceId: r.source_indicator_id,
     divisorId: r.divisor_indicator_id,
@@ -85,6 +92,8 @@ export interface IndicatorWrite {
   unit: string;
   description: string;
   mustBePositive: boolean;
+  source: string | null;
+  licence: string | null;
   derivation: 'none' | 'per_person' | 'real_from_nominal' | 'from_boundaries' | 'ratio';
   sourceId: number | null;
   divisorId: number | null;
@@ -93,18 +102,43 @@ export interface IndicatorWrite {
 
 export async function insertIndicator(conn: Sql, code: string, w: IndicatorWrite): Promise<void> {
   await conn.query(
-    `INSERT INTO indicators (code, name, unit, description, must_be_positive, derivation, source_indicator_id, divisor_indicator_id, base_year)
-     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9)`,
-    [code, w.name, w.unit, w.description, w.mustBePositive, w.derivation, w.sourceId, w.divisorId, w.baseYear],
+    `INSERT INTO indicators (code, name, unit, description, must_be_positive, derivation, source_indicator_id, divisor_indicator_id, base_year, source, licence)
+     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11)`,
+    [
+      code,
+      w.name,
+      w.unit,
+      w.description,
+      w.mustBePositive,
+      w.derivation,
+      w.sourceId,
+      w.divisorId,
+      w.baseYear,
+      w.source,
+      w.licence,
+    ],
   );
 }
 
 export async function updateIndicator(conn: Sql, id: number, w: IndicatorWrite): Promise<void> {
   await conn.query(
     `UPDATE indicators SET name = $2, unit = $3, description = $4, must_be_positive = $5, derivation = $6,
-            source_indicator_id = $7, divisor_indicator_id = $8, base_year = $9, updated_at = now()
+            source_indicator_id = $7, divisor_indicator_id = $8, base_year = $9, source = $10, licence = $11,
+            updated_at = now()
       WHERE id = $1`,
-    [id, w.name, w.unit, w.description, w.mustBePositive, w.derivation, w.sourceId, w.divisorId, w.baseYear],
+    [
+      id,
+      w.name,
+      w.unit,
+      w.description,
+      w.mustBePositive,
+      w.derivation,
+      w.sourceId,
+      w.divisorId,
+      w.baseYear,
+      w.source,
+      w.licence,
+    ],
   );
 }
 
