@@ -5,7 +5,14 @@ export interface IndicatorDef {
   unit: string;
   description: string;
   mustBePositive: boolean;
+  /** who publishes the series and under which terms (invented for the demo) */
+  source: string;
+  licence: string;
 }
+
+/** Every demo series comes from the same invented office. */
+const DEMO_SOURCE = 'Demo region statistics office (invented)';
+const DEMO_LICENCE = 'Invented demonstration data: free to copy and change, describes no real place';
 
 export const DEMO_INDICATORS: IndicatorDef[] = [
   {
@@ -14,6 +21,8 @@ export const DEMO_INDICATORS: IndicatorDef[] = [
     unit: 't CO2 per person',
     description: 'Territorial CO2 emissions divided by resident population.',
     mustBePositive: true,
+    source: DEMO_SOURCE,
+    licence: DEMO_LICENCE,
   },
   {
     code: 'income_pc',
@@ -21,6 +30,8 @@ export const DEMO_INDICATORS: IndicatorDef[] = [
     unit: 'constant 2020 currency units per person',
     description: 'Household and business income per resident, deflated to 2020 prices.',
     mustBePositive: true,
+    source: DEMO_SOURCE,
+    licence: DEMO_LICENCE,
   },
   {
     code: 'population',
@@ -28,6 +39,8 @@ export const DEMO_INDICATORS: IndicatorDef[] = [
     unit: 'persons',
     description: 'Resident population at mid-year.',
     mustBePositive: true,
+    source: DEMO_SOURCE,
+    licence: DEMO_LICENCE,
   },
   {
     code: 'pop_density',
@@ -35,6 +48,8 @@ export const DEMO_INDICATORS: IndicatorDef[] = [
     unit: 'persons per km²',
     description: 'Resident population divided by land area.',
     mustBePositive: true,
+    source: DEMO_SOURCE,
+    licence: DEMO_LICENCE,
   },
   {
     code: 'industry_share',
@@ -42,6 +57,8 @@ export const DEMO_INDICATORS: IndicatorDef[] = [
     unit: '% of gross value added',
     description: 'Share of manufacturing, mining and utilities in gross value added.',
     mustBePositive: true,
+    source: DEMO_SOURCE,
+    licence: DEMO_LICENCE,
   },
   {
     code: 'trade_openness',
@@ -49,5 +66,25 @@ export const DEMO_INDICATORS: IndicatorDef[] = [
     unit: '% of output',
     description: 'Exports plus imports relative to output.',
     mustBePositive: true,
+    source: DEMO_SOURCE,
+    licence: DEMO_LICENCE,
+  },
+  {
+    code: 'pm25',
+    name: 'PM2.5 annual mean concentration',
+    unit: 'µg/m³',
+    description: 'Fine particles (PM2.5), annual mean of the district’s monitoring stations.',
+    mustBePositive: true,
+    source: DEMO_SOURCE,
+    licence: DEMO_LICENCE,
+  },
+  {
+    code: 'so2_pc',
+    name: 'SO2 emissions per person',
+    unit: 'kg per person',
+    description: 'Sulphur dioxide emissions divided by resident population.',
+    mustBePositive: true,
+    source: DEMO_SOURCE,
+    licence: DEMO_LICENCE,
   },
 ];

@@ -7,6 +7,7 @@
  * Process per district (log scale): ln income follows a linear path plus a random walk;
  * ln emissions = b0 + b1·lx + b2·lx² + 0.1·ln density + AR(1) noise.
  */
+import { pressureSeries, type PressureCode } from './pressures';
 import { seededRandom, type Random } from './random';
 
 export const DEMO_SEED = 20261201;
@@ -148,7 +149,7 @@ export const DEMO_DISTRICTS: DemoDistrictSpec[] = [
 
 export interface DemoObservation {
   districtCode: string;
-  indicator: 'emissions_pc' | 'income_pc' | 'population' | 'pop_density';
+  indicator: 'emissions_pc' | 'income_pc' | 'population' | 'pop_density' | PressureCode;
   year: number;
   value: number;
 }
@@ -173,7 +174,15 @@ function incomePath(spec: DemoDistrictSpec, year: number, first: number): number
   );
 }
 
-function generateDistrict(spec: DemoDistrictSpec, rng: Random): DemoObservation[] {
+interface DistrictDraw {
+  observations: DemoObservation[];
+  /** the years written, with ln income and density as drawn (the other pressures read them) */
+  years: number[];
+  lx: number[];
+  density: number[];
+}
+
+function generateDistrict(spec: DemoDistrictSpec, rng: Random): DistrictDraw {
   const first = spec.firstYear ?? DEMO_FIRST_YEAR;
   const years = DEMO_LAST_YEAR - first + 1;
   const noise = spec.noise ?? 0.03;
@@ -190,6 +199,7 @@ function generateDistrict(spec: DemoDistrictSpec, rng: Random): DemoObservation[
   const b0 = Math.log(meanLevel) - curveAtMid - 0.1 * Math.log(pop / area);
 
   const out: DemoObservation[] = [];
+  const drawn: Omit<DistrictDraw, 'observations'> = { years: [], lx: [], density: [] };
   let walk = 0;
   let u = (rng.normal() * noise) / Math.sqrt(1 - rho * rho);
   // Density wanders on its own (AR(1)), so it is not a copy of the income trend.
@@ -206,6 +216,9 @@ function generateDistrict(spec: DemoDistrictSpec, rng: Random): DemoObservation[
     const density = (pop / area) * Math.exp(v);
     const ly = b0 + b1 * lx + b2 * lx * lx + 0.1 * Math.log(density) + u;
     if (spec.missingYears?.includes(year)) continue;
+    drawn.years.push(year);
+    drawn.lx.push(lx);
+    drawn.density.push(density);
     const code = spec.code;
     out.push(
       { districtCode: code, indicator: 'emissions_pc', year, value: round(Math.exp(ly), 4) },
@@ -214,14 +227,20 @@ function generateDistrict(spec: DemoDistrictSpec, rng: Random): DemoObservation[
       { districtCode: code, indicator: 'pop_density', year, value: round(density, 2) },
     );
   }
-  return out;
+  return { observations: out, ...drawn };
 }
 
 /** The whole demo region for a seed (default DEMO_SEED); the same seed gives the same numbers. */
 export function generateDemoRegion(seed = DEMO_SEED): DemoRegion {
-  // One stream per district, so tuning one district leaves the others' numbers alone.
-  const observations = DEMO_DISTRICTS.flatMap((d, i) =>
-    generateDistrict(d, seededRandom(seed + 7919 * (i + 1) + (d.seedOffset ?? 0))),
-  );
+  // One stream per district, so tuning one district leaves the others' numbers alone; the
+  // other pressures (pressures.ts) draw from streams of their own over the same income path.
+  const observations = DEMO_DISTRICTS.flatMap((d, i) => {
+    const draw = generateDistrict(d, seededRandom(seed + 7919 * (i + 1) + (d.seedOffset ?? 0)));
+    const input = { code: d.code, index: i, years: draw.years, lx: draw.lx, density: draw.density };
+    const others = (['pm25', 'so2_pc'] as const).flatMap((p) =>
+      pressureSeries(seed, input, p).map((o) => ({ districtCode: d.code, indicator: p, ...o })),
+    );
+    return [...draw.observations, ...others];
+  });
   return { districts: DEMO_DISTRICTS.map(({ code, name }) => ({ code, name })), observations };
 }

@@ -14,10 +14,12 @@ export async function insertDemo(trx: Knex.Transaction): Promise<{ districts: nu
         unit: i.unit,
         description: i.description,
         must_be_positive: i.mustBePositive,
+        source: i.source,
+        licence: i.licence,
       })),
     )
     .onConflict('code')
-    .merge(['name', 'unit', 'description', 'must_be_positive']);
+    .merge(['name', 'unit', 'description', 'must_be_positive', 'source', 'licence']);
   const indicatorIds = new Map<string, number>(
     (await trx('indicators').select('id', 'code')).map((r: { id: number; code: string }) => [r.code, r.id]),
   );
