@@ -18,6 +18,7 @@ import { route, type RouteSpec } from './http/routes';
 import { mailboxRoutes } from './mail/router';
 import { peopleRoutes } from './people/router';
 import { runRoutes } from './runs/router';
+import { runWatchRoutes } from './run-watch/router';
 import { settingsRoutes } from './settings/router';
 import { specRoutes } from './specs/router';
 import { subscriptionRoutes } from './subscriptions/router';
@@ -40,6 +41,7 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     ...curveRoutes(ctx),
     ...settingsRoutes(ctx),
     ...specRoutes(ctx),
+    ...runWatchRoutes(ctx),
     ...runRoutes(ctx),
     ...alertRoutes(ctx),
     ...subscriptionRoutes(ctx),

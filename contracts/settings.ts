@@ -19,6 +19,8 @@ export const SettingsSchema = z.object({
   /** Retention (nightly job): days sent mail and unread alerts are kept. */
   sentMailRetentionDays: z.optional(z.number()),
   unreadAlertRetentionDays: z.optional(z.number()),
+  /** Days a scheduled run may wait in review before staff are told (default 7; api/run-watch). */
+  reviewWaitDays: z.optional(z.number()),
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 

@@ -9,6 +9,7 @@ export const QUEUES = {
   outbox: 'outbox-send',
   scheduledRun: 'run-scheduled',
   retention: 'retention-prune',
+  runWatch: 'run-watch',
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

@@ -39,6 +39,7 @@ const RETRIES: Record<QueueName, { retryLimit: number; retryDelay: number; retry
   'outbox-send': { retryLimit: 5, retryDelay: 5, retryBackoff: true },
   'run-scheduled': { retryLimit: 1, retryDelay: 30, retryBackoff: false },
   'retention-prune': { retryLimit: 2, retryDelay: 60, retryBackoff: true },
+  'run-watch': { retryLimit: 1, retryDelay: 60, retryBackoff: false },
 };
 
 export async function startJobs(o: JobsOptions): Promise<Jobs> {

@@ -3,6 +3,7 @@ import '../briefs/attachment';
 import type { AppContext } from '../context';
 import { deliverOutbox } from '../outbox/sender';
 import { pruneExpired } from '../retention/service';
+import { mailRunNotices } from '../run-watch/service';
 import { runHandlers } from '../runs/jobs';
 import { startRun } from '../runs/service';
 import { getSettings } from '../settings/service';
@@ -18,6 +19,9 @@ export function allHandlers(ctx: AppContext): Record<QueueName, Handler> {
     [QUEUES.retention]: async () => {
       await pruneExpired(ctx.db);
     },
+    [QUEUES.runWatch]: async () => {
+      await mailRunNotices(ctx);
+    },
     [QUEUES.scheduledRun]: async () => {
       try {
         await startRun(ctx, null, { trigger: 'schedule' });
@@ -32,10 +36,14 @@ export function allHandlers(ctx: AppContext): Record<QueueName, Handler> {
 /** Nightly, at a quiet hour: sessions, finished mail and unread alerts past their retention. */
 export const RETENTION_CRON = '17 3 * * *';
 
+/** The scheduled-run watch looks every ten minutes: a missed start is heard of within 70 minutes. */
+export const RUN_WATCH_CRON = '*/10 * * * *';
+
 /** Registers the cron jobs: the quarterly run (from settings), the outbox sweep and retention. */
 export async function registerSchedules(ctx: AppContext, jobs: Jobs): Promise<void> {
   const s = await getSettings(ctx.db);
   await jobs.schedule(s.scheduleCron, s.regionTimeZone, s.scheduleEnabled);
   await jobs.boss.schedule(QUEUES.outbox, '* * * * *', { reason: 'sweep' }, { tz: 'UTC' });
   await jobs.boss.schedule(QUEUES.retention, RETENTION_CRON, {}, { tz: 'UTC' });
+  await jobs.boss.schedule(QUEUES.runWatch, RUN_WATCH_CRON, {}, { tz: 'UTC' });
 }

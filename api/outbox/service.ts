@@ -11,7 +11,8 @@ export interface QueuedMail {
   /** Unique per message: the same key queued twice is sent once. */
   dedupeKey: string;
   userId: number;
-  runId: number;
+  /** the run the message is about (null: a notice about a run that never started) */
+  runId: number | null;
   to: string;
   message: OutboxMessage;
 }

@@ -4,7 +4,7 @@ import type { Knex } from 'knex';
 export interface NewOutboxRow {
   dedupeKey: string;
   userId: number;
-  runId: number;
+  runId: number | null;
   toAddress: string;
   /** The message as JSON: subject, text, attachments by kind. */
   message: unknown;

@@ -51,6 +51,12 @@ export const SettingsSchema = z.object({
     .min(1)
     .max(365)
     .describe('Days an invitation may be used before it lapses (re-sending renews it)'),
+  reviewWaitDays: z
+    .number()
+    .int()
+    .min(1)
+    .max(365)
+    .describe('Days a scheduled run may wait in review before staff are told (in the app and by e-mail)'),
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 
@@ -69,4 +75,6 @@ export const DEFAULT_SETTINGS: Settings = {
   sentMailRetentionDays: 90,
   unreadAlertRetentionDays: 365,
   invitationDays: 14,
+  // A week: a quarterly run left longer in review keeps officials on last quarter's figures (issue 14).
+  reviewWaitDays: 7,
 };
