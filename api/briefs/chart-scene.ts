@@ -61,6 +61,8 @@ export interface CurveChartInput {
   levelText: string;
   xLabel: string;
   yLabel: string;
+  /** the chart's title (default "Emissions and income"); briefs name the track's indicator */
+  title?: string;
 }
 
 export function curveChart(input: CurveChartInput): ChartScene {
@@ -186,8 +188,8 @@ export function curveChart(input: CurveChartInput): ChartScene {
       bold: true,
     });
   }
-  const description = `Emissions against ${inSentence(input.xLabel)} for each observed year, ${main.length ? (input.substitute ? 'with the regional pooled curve standing in' : 'with the fitted curve') : 'without a fitted curve'}${t ? (t.band ? ` and the threshold ${formatLevel(t.level)} with its ${input.levelText} band` : ` and the threshold ${formatLevel(t.level)} (interval not bounded)`) : ''}.`;
-  return { width: input.width, height: input.height, title: 'Emissions and income', description, items };
+  const description = `${input.yLabel} against ${inSentence(input.xLabel)} for each observed year, ${main.length ? (input.substitute ? 'with the regional pooled curve standing in' : 'with the fitted curve') : 'without a fitted curve'}${t ? (t.band ? ` and the threshold ${formatLevel(t.level)} with its ${input.levelText} band` : ` and the threshold ${formatLevel(t.level)} (interval not bounded)`) : ''}.`;
+  return { width: input.width, height: input.height, title: input.title ?? 'Emissions and income', description, items };
 }
 
 export interface PathChartInput {
@@ -365,6 +367,8 @@ export interface PooledChartInput {
   threshold: ThresholdMark | null;
   levelText: string;
   xLabel: string;
+  /** the watched indicator's name inside a sentence (default "emissions") */
+  pressure?: string;
 }
 
 const POOLED_POINTS = 61;
@@ -409,9 +413,10 @@ export function pooledChart(input: PooledChartInput): ChartScene {
         ? { label: `threshold, ${input.levelText} band`, tone: 'band', mark: 'band' }
         : { label: 'threshold (not bounded)', tone: 'threshold', mark: 'dash' },
     );
+  const pressure = input.pressure ?? 'emissions';
   const yLabel = log
-    ? `emissions index (${atThreshold ? 'at the threshold' : 'at mid-range income'} = 100)`
-    : `emissions, difference from the value ${atThreshold ? 'at the threshold' : 'at mid-range income'}`;
+    ? `${pressure} index (${atThreshold ? 'at the threshold' : 'at mid-range income'} = 100)`
+    : `${pressure}, difference from the value ${atThreshold ? 'at the threshold' : 'at mid-range income'}`;
   const f = buildFrame(
     input.width,
     input.height,

@@ -28,7 +28,15 @@ function span(r: EstimateRecord): string {
   return r.firstYear === r.lastYear ? String(r.firstYear) : `${r.firstYear}–${r.lastYear}`;
 }
 
-function headline(r: EstimateRecord, name: string, th: ThresholdTexts): string {
+/** The words of one track: its watched indicator and the driver, as the catalogue names them, inside a sentence. */
+export interface TrackWords {
+  /** e.g. "PM2.5 annual mean concentration", "CO2 emissions per person" */
+  pressure: string;
+  /** e.g. "real income per person" */
+  driver: string;
+}
+
+function headline(r: EstimateRecord, name: string, th: ThresholdTexts, w: TrackWords): string {
   const now = r.range ? formatLevel(r.range.levelNow) : null;
   const year = r.lastYear ?? '';
   const peak = r.threshold?.kind !== 'trough';
@@ -40,22 +48,22 @@ function headline(r: EstimateRecord, name: string, th: ThresholdTexts): string {
   switch (r.standing.standing) {
     case 'approaching':
       return peak
-        ? `${name} is approaching its threshold${sub}: income per person (${now} in ${year}) is below the band where emissions have tended to turn down, estimated at ${th.value}.${unbounded}`
-        : `${name} is approaching the trough of a U-shaped curve${sub}: emissions have fallen with income so far and would tend to rise again past about ${th.value}; income is ${now} (${year}).${unbounded}`;
+        ? `${name} is approaching its threshold${sub}: ${w.driver} (${now} in ${year}) is below the band where ${w.pressure} has tended to turn down, estimated at ${th.value}.${unbounded}`
+        : `${name} is approaching the trough of a U-shaped curve${sub}: ${w.pressure} has fallen with ${w.driver} so far and would tend to rise again past about ${th.value}; ${w.driver} is ${now} (${year}).${unbounded}`;
     case 'at_turn':
-      return `${name} is at its threshold${sub}: income per person (${now} in ${year}) lies inside the band around the estimated turning point of ${th.value}.${unbounded}`;
+      return `${name} is at its threshold${sub}: ${w.driver} (${now} in ${year}) lies inside the band around the estimated turning point of ${th.value}.${unbounded}`;
     case 'past_turn':
       return peak
-        ? `${name} is past its threshold${sub}: income per person (${now} in ${year}) is above the band where emissions have tended to turn down, estimated at ${th.value}.${unbounded}`
-        : `${name} is past the trough of a U-shaped curve${sub}: at ${now} (${year}) income is above ${th.value}, where emissions have tended to rise again with income.${unbounded}`;
+        ? `${name} is past its threshold${sub}: ${w.driver} (${now} in ${year}) is above the band where ${w.pressure} has tended to turn down, estimated at ${th.value}.${unbounded}`
+        : `${name} is past the trough of a U-shaped curve${sub}: at ${now} (${year}) ${w.driver} is above ${th.value}, where ${w.pressure} has tended to rise again with it.${unbounded}`;
     case 'no_turn': {
       const shape = r.shape?.shape;
       const how =
         shape === 'increasing'
-          ? 'emissions rise with income'
+          ? `${w.pressure} rises with ${w.driver}`
           : shape === 'decreasing'
-            ? 'emissions fall as income grows'
-            : 'emissions show no clear relation to income';
+            ? `${w.pressure} falls as ${w.driver} grows`
+            : `${w.pressure} shows no clear relation to ${w.driver}`;
       return `${name} shows no turn in the data${sub}: over ${span(r)} ${how}, and no turning point lies where the district has been.`;
     }
     default:
@@ -63,7 +71,9 @@ function headline(r: EstimateRecord, name: string, th: ThresholdTexts): string {
   }
 }
 
-function reading(r: EstimateRecord, th: ThresholdTexts, incomeName: string): string[] {
+function reading(r: EstimateRecord, th: ThresholdTexts, w: TrackWords): string[] {
+  const incomeName = w.driver;
+  const p = w.pressure;
   const lines: string[] = [];
   const years = span(r);
   const t = th.value;
@@ -75,38 +85,38 @@ function reading(r: EstimateRecord, th: ThresholdTexts, incomeName: string): str
   if (r.status === 'not_estimable')
     lines.push(`No curve could be fitted: ${r.reason?.message ?? 'the series cannot carry the model'}.`);
   else if (shape === 'inverted_u')
-    lines.push(`${lead}emissions rose with ${incomeName} at first and have tended to fall once it passed about ${t}.`);
+    lines.push(`${lead}${p} rose with ${incomeName} at first and has tended to fall once it passed about ${t}.`);
   else if (shape === 'u')
     lines.push(
-      `${lead}emissions fell with ${incomeName} at first and have tended to rise again once it passed about ${t}.`,
+      `${lead}${p} fell with ${incomeName} at first and has tended to rise again once it passed about ${t}.`,
     );
   else if (shape === 'n_shape' || shape === 'inverted_n') {
     const order = shape === 'n_shape' ? 'rose, then fell, then rose again' : 'fell, then rose, then fell again';
     const turn = r.threshold?.kind === 'trough' ? 'low point' : 'high point';
     lines.push(
-      `${lead}emissions ${order} as ${incomeName} grew; the threshold read here is the ${turn} nearest today’s income, about ${t}.`,
+      `${lead}${p} ${order} as ${incomeName} grew; the threshold read here is the ${turn} nearest today’s income, about ${t}.`,
     );
   } else if (shape === 'increasing')
-    lines.push(`${lead}emissions rose with ${incomeName} throughout the incomes observed; no turn shows there.`);
+    lines.push(`${lead}${p} rose with ${incomeName} throughout the incomes observed; no turn shows there.`);
   else if (shape === 'decreasing')
-    lines.push(`${lead}emissions fell as ${incomeName} grew, throughout the incomes observed; no turn shows there.`);
+    lines.push(`${lead}${p} fell as ${incomeName} grew, throughout the incomes observed; no turn shows there.`);
   else
     lines.push(
-      `${lead}emissions show no clear relation to ${incomeName}: the income terms together are not significant.`,
+      `${lead}${p} shows no clear relation to ${incomeName}: the ${incomeName} terms together are not significant.`,
     );
   if (r.range) {
     const e = r.elasticity?.value ?? null;
     const el =
       e !== null && Math.abs(e) >= 0.005
-        ? `; today 1% more income goes with about ${formatElasticity(Math.abs(e))}% ${e > 0 ? 'more' : 'less'} emissions`
+        ? `; today 1% more ${incomeName} goes with about ${formatElasticity(Math.abs(e))}% ${e > 0 ? 'more' : 'less'} ${p}`
         : '';
     const gap = r.gapPercent !== null && t !== 'none' ? ` (${gapText(r)} against the threshold)` : '';
     lines.push(`In ${r.lastYear}, ${incomeName} was ${formatLevel(r.range.levelNow)}${gap}${el}.`);
   } else {
-    lines.push('There is no latest income to read against a threshold.');
+    lines.push(`There is no latest ${incomeName} to read against a threshold.`);
   }
   if (t === 'none')
-    lines.push('Without a turning point there is no threshold to watch; follow the trend of emissions itself.');
+    lines.push(`Without a turning point there is no threshold to watch; follow the trend of ${p} itself.`);
   else if (th.bounded && th.band)
     lines.push(
       `The ${levelTextOf(r)} interval runs from ${formatLowerEnd(th.band.lo)} to ${formatUpperEnd(th.band.hi)}: read the band, not the point.`,
@@ -129,19 +139,19 @@ function shapeDetail(r: EstimateRecord): string | null {
   return parts.length ? parts.join('; ') : null;
 }
 
-function standingDetail(r: EstimateRecord): string | null {
+function standingDetail(r: EstimateRecord, w: TrackWords): string | null {
   if (r.standing.note) return r.standing.note;
   if (r.standing.standing === 'not_estimable') return r.reason?.message ?? null;
   if (r.standing.intervalBounded && r.standing.standing !== 'no_turn')
     return `read against the ${levelTextOf(r)} ${r.standing.intervalMethod === 'delta' ? 'delta-method' : 'Fieller'} interval`;
   if (r.shape?.shape === 'u' && r.standing.standing !== 'no_turn')
-    return 'a U shape: past its trough emissions rise with income';
+    return `a U shape: past its trough ${w.pressure} rises with ${w.driver}`;
   if (
     (r.shape?.shape === 'n_shape' || r.shape?.shape === 'inverted_n') &&
     r.threshold?.kind === 'trough' &&
     r.standing.standing !== 'no_turn'
   )
-    return 'read from a low point: past it emissions rise with income';
+    return `read from a low point: past it ${w.pressure} rises with ${w.driver}`;
   return null;
 }
 
@@ -154,27 +164,28 @@ export function districtBriefContent(
 ): DistrictBriefContent {
   const th = thresholdTexts(r);
   const pr = projectionTexts(r);
-  const el = elasticityTexts(r);
   const level = levelTextOf(r);
   const driver = indicatorOf(src, src.run.spec.selection.driver);
   const emissions = indicatorOf(src, src.run.spec.selection.emissions);
-  const incomeName = inSentence(driver.name);
+  const w: TrackWords = { pressure: inSentence(emissions.name), driver: inSentence(driver.name) };
+  const el = elasticityTexts(r, w.pressure);
+  const withUnit = (i: { name: string; unit: string }) => (i.unit ? `${i.name} (${i.unit})` : i.name);
   const mark: ThresholdMark | null =
     r.threshold?.level !== null && r.threshold?.level !== undefined && Number.isFinite(r.threshold.level)
       ? { level: r.threshold.level, band: th.band }
       : null;
   const sub = r.status === 'substitute';
   const figures: BriefFigure[] = [
-    { key: 'standing', label: 'Standing', value: standingLabel(r.standing.standing), detail: standingDetail(r) },
+    { key: 'standing', label: 'Standing', value: standingLabel(r.standing.standing), detail: standingDetail(r, w) },
     {
       key: 'threshold',
-      label: sub ? 'Threshold (regional)' : 'Threshold (turning point)',
+      label: `${sub ? 'Threshold (regional)' : 'Threshold (turning point)'}${driver.unit ? `, ${driver.unit}` : ''}`,
       value: th.value,
       detail: th.detail,
     },
     {
       key: 'now',
-      label: r.lastYear ? `Income per person, ${r.lastYear}` : 'Income per person',
+      label: `${driver.name}${r.lastYear ? `, ${r.lastYear}` : ''}${driver.unit ? `, ${driver.unit}` : ''}`,
       value: r.range ? formatLevel(r.range.levelNow) : '—',
       detail:
         r.gapPercent !== null && th.value !== 'none'
@@ -196,7 +207,7 @@ export function districtBriefContent(
     code: district.code,
     name: district.name,
     subtitle: `District brief · ${district.code} · published run #${src.run.id}${src.run.publishedAt ? ` of ${formatDate(src.run.publishedAt, src.timeZone)}` : ''}`,
-    headline: headline(r, district.name.length > HEADLINE_NAME_MAX ? district.code : district.name, th),
+    headline: headline(r, district.name.length > HEADLINE_NAME_MAX ? district.code : district.name, th, w),
     standing: { key: r.standing.standing, label: standingLabel(r.standing.standing), note: r.standing.note },
     figures,
     charts: {
@@ -210,8 +221,9 @@ export function districtBriefContent(
         substitute: sub,
         threshold: mark,
         levelText: level,
-        xLabel: driver.name,
-        yLabel: emissions.name,
+        xLabel: withUnit(driver),
+        yLabel: withUnit(emissions),
+        title: `${emissions.name} and ${inSentence(driver.name)}`,
       }),
       path: pathChart({
         width: CHART_WIDTH,
@@ -222,10 +234,10 @@ export function districtBriefContent(
         levelText: level,
         trendPerYear: r.trendPerYear,
         projection: r.projection ? { status: r.projection.status, crossingYear: r.projection.crossingYear } : null,
-        xLabel: driver.name,
+        xLabel: withUnit(driver),
       }),
     },
-    reading: reading(r, th, incomeName),
+    reading: reading(r, th, w),
     substitute: sub
       ? `Series too short for its own curve (${r.n} years, ${span(r)}): the regional pooled curve stands in, read at this district’s income and trend.`
       : null,

@@ -144,7 +144,8 @@ export interface ElasticityTexts {
   detail: string;
 }
 
-export function elasticityTexts(r: FigureRecord): ElasticityTexts {
+/** `pressure`: the watched indicator's name inside a sentence (from the catalogue), e.g. "PM2.5 annual mean concentration". */
+export function elasticityTexts(r: FigureRecord, pressure = 'emissions'): ElasticityTexts {
   const e = r.elasticity;
   if (!e || e.value === null) {
     return {
@@ -157,7 +158,7 @@ export function elasticityTexts(r: FigureRecord): ElasticityTexts {
   const size = formatElasticity(Math.abs(e.value));
   const words =
     Math.abs(e.value) < 0.005
-      ? '1% more income goes with about no change in emissions'
-      : `1% more income goes with about ${size}% ${e.value > 0 ? 'more' : 'less'} emissions`;
+      ? `1% more income goes with about no change in ${pressure}`
+      : `1% more income goes with about ${size}% ${e.value > 0 ? 'more' : 'less'} ${pressure}`;
   return { value: formatElasticity(e.value), detail: `${interval}${words}` };
 }

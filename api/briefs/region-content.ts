@@ -12,7 +12,7 @@ import { gapText, projectionTexts, thresholdTexts, thresholdTextsOf } from './fi
 import { formatCount, formatDate, formatLevel, formatLevelPercent, formatPValue, formatSignedPercent } from './format';
 import type { SummaryRecord } from './store';
 import { indicatorOf, modelLine, traceOf, type BriefSource } from './trace';
-import { CAUTIONS, shapeLabel, STANDING_LABEL, STANDING_ORDER, STANDING_SHORT } from './words';
+import { CAUTIONS, inSentence, shapeLabel, STANDING_LABEL, STANDING_ORDER, STANDING_SHORT } from './words';
 
 export const REGION_PDF_PATH = '/api/briefs/region.pdf';
 /** How many threshold shifts the summary lists. */
@@ -79,7 +79,7 @@ function pooledPart(src: BriefSource, pooled: PooledFit | null): RegionBriefCont
       key: 'sample',
       label: 'Pooled sample',
       value: `${formatCount(pooled.n ?? 0)} district-years`,
-      detail: `${formatCount(pooled.districts ?? 0)} districts; incomes ${formatLevel(pooled.range.levelMin)} to ${formatLevel(pooled.range.levelMax)}`,
+      detail: `${formatCount(pooled.districts ?? 0)} districts; ${inSentence(driver.name)} ${formatLevel(pooled.range.levelMin)} to ${formatLevel(pooled.range.levelMax)}`,
     },
   ];
   const chart = pooledChart({
@@ -90,7 +90,8 @@ function pooledPart(src: BriefSource, pooled: PooledFit | null): RegionBriefCont
     levelMax: pooled.range.levelMax,
     threshold: mark,
     levelText: level,
-    xLabel: driver.name,
+    xLabel: driver.unit ? `${driver.name} (${driver.unit})` : driver.name,
+    pressure: inSentence(indicatorOf(src, src.run.spec.selection.emissions).name),
   });
   return {
     figures,
