@@ -22,6 +22,7 @@ import { runWatchRoutes } from './run-watch/router';
 import { settingsRoutes } from './settings/router';
 import { specRoutes } from './specs/router';
 import { subscriptionRoutes } from './subscriptions/router';
+import { trackRoutes } from './tracks/router';
 import { SOFTWARE_VERSION } from './version';
 import { OpenApiDocumentSchema } from '../contracts/common';
 
@@ -41,6 +42,7 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     ...curveRoutes(ctx),
     ...settingsRoutes(ctx),
     ...specRoutes(ctx),
+    ...trackRoutes(ctx),
     ...runWatchRoutes(ctx),
     ...runRoutes(ctx),
     ...alertRoutes(ctx),
