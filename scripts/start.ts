@@ -5,7 +5,7 @@
 import { loadConfig } from '../api/config';
 import { createDb } from '../api/db';
 import { seedDemoBoundariesIfEmpty } from '../api/demo/boundaries';
-import { publishInitialDemoRun } from '../api/demo/initial-run';
+import { publishInitialDemoRuns } from '../api/demo/initial-run';
 import { seedDemoIfEmpty } from '../api/demo/seed';
 import { closeOnSignals, startServer } from '../api/server';
 import { prepareDemoDatabase } from './db';
@@ -32,8 +32,10 @@ async function main(): Promise<void> {
   closeOnSignals(running);
   console.log(`\nCrestwatch is ready: ${running.url}\n`);
   if (config.mode === 'demo') {
-    publishInitialDemoRun(running.ctx, config.firstAdminEmail).then(
-      (id) => id && console.log(`Published the first demo run (#${id}) so the region shows standings.`),
+    publishInitialDemoRuns(running.ctx, config.firstAdminEmail).then(
+      (ids) =>
+        ids &&
+        console.log(`Published the first demo runs (${ids.map((id) => `#${id}`).join(', ')}), one per track.`),
       (err: Error) => console.error(`The first demo run could not be published: ${err.message}`),
     );
   }

@@ -87,9 +87,7 @@ function reading(r: EstimateRecord, th: ThresholdTexts, w: TrackWords): string[]
   else if (shape === 'inverted_u')
     lines.push(`${lead}${p} rose with ${incomeName} at first and has tended to fall once it passed about ${t}.`);
   else if (shape === 'u')
-    lines.push(
-      `${lead}${p} fell with ${incomeName} at first and has tended to rise again once it passed about ${t}.`,
-    );
+    lines.push(`${lead}${p} fell with ${incomeName} at first and has tended to rise again once it passed about ${t}.`);
   else if (shape === 'n_shape' || shape === 'inverted_n') {
     const order = shape === 'n_shape' ? 'rose, then fell, then rose again' : 'fell, then rose, then fell again';
     const turn = r.threshold?.kind === 'trough' ? 'low point' : 'high point';

@@ -58,7 +58,10 @@ export const PRESSURE_SHAPES: Record<string, Record<PressureCode, PressureShape>
   D19: { pm25: { turn: 9.3, curvature: -1.0, meanLevel: 25 }, so2_pc: { turn: 9.4, curvature: -1.0, meanLevel: 15 } },
   D20: { pm25: { slope: -0.7, meanLevel: 14 }, so2_pc: { slope: -0.9, meanLevel: 9 } },
   D21: { pm25: { slope: 0, meanLevel: 12, noise: 0.05 }, so2_pc: { slope: 0.3, meanLevel: 8 } },
-  D22: { pm25: { turn: 10.75, curvature: -1.2, meanLevel: 19, noise: 0.02 }, so2_pc: { turn: 10.0, curvature: -0.8, meanLevel: 13 } },
+  D22: {
+    pm25: { turn: 10.75, curvature: -1.2, meanLevel: 19, noise: 0.02 },
+    so2_pc: { turn: 10.0, curvature: -0.8, meanLevel: 13 },
+  },
   D23: { pm25: { slope: 0.6, meanLevel: 23 }, so2_pc: { turn: 9.6, curvature: -0.7, meanLevel: 14 } },
   D24: { pm25: { turn: 9.8, curvature: -0.8, meanLevel: 18 }, so2_pc: { slope: -0.6, meanLevel: 10 } },
 };

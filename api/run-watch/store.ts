@@ -60,9 +60,5 @@ export async function tracksWithoutRunSince(db: Knex, scheduledAt: Date): Promis
 
 /** Active admins and analysts: the people a run notice is for. */
 export async function staffRecipients(db: Knex): Promise<{ id: number; email: string }[]> {
-  return db('users')
-    .where({ active: true })
-    .whereIn('role', ['admin', 'analyst'])
-    .orderBy('id')
-    .select('id', 'email');
+  return db('users').where({ active: true }).whereIn('role', ['admin', 'analyst']).orderBy('id').select('id', 'email');
 }

@@ -111,7 +111,9 @@ it('D22 is past the turn for CO2 and at the turn for PM2.5', () => {
 });
 
 it('D07 cannot be estimated on its own for SO2 (series from 2022) while CO2 and PM2.5 have their own curves', () => {
-  const years = region.observations.filter((o) => o.districtCode === 'D07' && o.indicator === 'so2_pc').map((o) => o.year);
+  const years = region.observations
+    .filter((o) => o.districtCode === 'D07' && o.indicator === 'so2_pc')
+    .map((o) => o.year);
   expect(Math.min(...years)).toBe(2022);
   const rec = so2.get('D07')!;
   expect(rec.status).toBe('substitute');
@@ -121,7 +123,10 @@ it('D07 cannot be estimated on its own for SO2 (series from 2022) while CO2 and 
 });
 
 it('the PM2.5 revision file moves D22 from at the turn to past the turn, and no other PM2.5 standing', () => {
-  const file = fs.readFileSync(path.join(__dirname, '..', '..', 'assets', 'demo-data', 'pm25-revision-2025.csv'), 'utf8');
+  const file = fs.readFileSync(
+    path.join(__dirname, '..', '..', 'assets', 'demo-data', 'pm25-revision-2025.csv'),
+    'utf8',
+  );
   const revised = new Map<string, number>();
   const lines = file.trim().split('\n');
   expect(lines[0]).toBe('district_code,indicator,year,value');
@@ -138,7 +143,9 @@ it('the PM2.5 revision file moves D22 from at the turn to past the turn, and no 
     ),
     'pm25',
   );
-  const moved = [...pm25.keys()].filter((code) => pm25.get(code)!.standing.standing !== after.get(code)!.standing.standing);
+  const moved = [...pm25.keys()].filter(
+    (code) => pm25.get(code)!.standing.standing !== after.get(code)!.standing.standing,
+  );
   expect(moved).toEqual(['D22']);
   expect(after.get('D22')!.standing.standing).toBe('past_turn');
 });
