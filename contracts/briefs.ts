@@ -112,8 +112,28 @@ export type BriefTrace = z.infer<typeof BriefTraceSchema>;
 export const BriefPaperSizeSchema = z.enum(PAPER_SIZES);
 export type BriefPaperSize = z.infer<typeof BriefPaperSizeSchema>;
 
+/** The track a brief reads (its watched indicator, from the catalogue). */
+export const BriefTrackSchema = z.object({ code: z.string(), name: z.string() });
+export type BriefTrack = z.infer<typeof BriefTrackSchema>;
+
+/** One indicator the brief's model reads, with who publishes it and under which terms. */
+export const BriefSourceLineSchema = z.object({
+  code: z.string(),
+  name: z.string(),
+  unit: z.string(),
+  source: nullableString,
+  licence: nullableString,
+  /** "PM2.5 annual mean concentration (µg/m³): Demo region statistics office (invented); licence: …" */
+  line: z.string(),
+});
+export type BriefSourceLine = z.infer<typeof BriefSourceLineSchema>;
+
 export const DistrictBriefContentSchema = z.object({
   kind: z.literal('district'),
+  /** the track the brief reads (absent in briefs made before tracks) */
+  track: z.optional(BriefTrackSchema),
+  /** the indicators the model reads, each with its source and licence */
+  sources: z.optional(z.array(BriefSourceLineSchema)),
   code: z.string(),
   name: z.string(),
   /** "District brief · D07 · published run #12 · 3 December 2026" */
@@ -154,6 +174,8 @@ export type RegionBriefRow = z.infer<typeof RegionBriefRowSchema>;
 
 export const RegionBriefContentSchema = z.object({
   kind: z.literal('region'),
+  track: z.optional(BriefTrackSchema),
+  sources: z.optional(z.array(BriefSourceLineSchema)),
   subtitle: z.string(),
   headline: z.string(),
   counts: z.array(z.object({ key: z.string(), label: z.string(), count: z.number() })),

@@ -8,7 +8,7 @@ import type { EstimateRecord } from '../runs/estimate-record';
 import { curveChart, pathChart, type ThresholdMark } from './chart-scene';
 import { elasticityTexts, gapText, levelTextOf, projectionTexts, thresholdTexts, type ThresholdTexts } from './figures';
 import { formatDate, formatElasticity, formatLevel, formatLowerEnd, formatPValue, formatUpperEnd } from './format';
-import { indicatorOf, modelLine, traceOf, type BriefSource } from './trace';
+import { indicatorOf, modelLine, sourcesOf, traceOf, type BriefSource } from './trace';
 import { CAUTIONS, inSentence, shapeLabel, standingLabel } from './words';
 
 /** A longer name is printed in the title only; the headline calls the district by its code. */
@@ -19,8 +19,8 @@ export function chartHeight(paper: string): number {
   return paper === 'LETTER' ? 185 : 205;
 }
 
-export function districtPdfPath(code: string): string {
-  return `/api/briefs/district/${encodeURIComponent(code)}.pdf`;
+export function districtPdfPath(code: string, track?: string): string {
+  return `/api/briefs/district/${encodeURIComponent(code)}.pdf${track ? `?track=${encodeURIComponent(track)}` : ''}`;
 }
 
 function span(r: EstimateRecord): string {
@@ -202,9 +202,11 @@ export function districtBriefContent(
   const trace = traceOf(src);
   return {
     kind: 'district',
+    ...(src.track ? { track: src.track } : {}),
+    sources: sourcesOf(src),
     code: district.code,
     name: district.name,
-    subtitle: `District brief · ${district.code} · published run #${src.run.id}${src.run.publishedAt ? ` of ${formatDate(src.run.publishedAt, src.timeZone)}` : ''}`,
+    subtitle: `District brief · ${district.code}${src.track ? ` · ${src.track.name}` : ''} · published run #${src.run.id}${src.run.publishedAt ? ` of ${formatDate(src.run.publishedAt, src.timeZone)}` : ''}`,
     headline: headline(r, district.name.length > HEADLINE_NAME_MAX ? district.code : district.name, th, w),
     standing: { key: r.standing.standing, label: standingLabel(r.standing.standing), note: r.standing.note },
     figures,
@@ -245,6 +247,6 @@ export function districtBriefContent(
     cautions: [...CAUTIONS],
     trace,
     paperSize: src.paperSize,
-    pdfPath: districtPdfPath(district.code),
+    pdfPath: districtPdfPath(district.code, src.track?.code),
   };
 }

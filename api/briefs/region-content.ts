@@ -11,7 +11,7 @@ import { pooledChart, type ThresholdMark } from './chart-scene';
 import { gapText, projectionTexts, thresholdTexts, thresholdTextsOf } from './figures';
 import { formatCount, formatDate, formatLevel, formatLevelPercent, formatPValue, formatSignedPercent } from './format';
 import type { SummaryRecord } from './store';
-import { indicatorOf, modelLine, traceOf, type BriefSource } from './trace';
+import { indicatorOf, modelLine, sourcesOf, traceOf, type BriefSource } from './trace';
 import { CAUTIONS, inSentence, shapeLabel, STANDING_LABEL, STANDING_ORDER, STANDING_SHORT } from './words';
 
 export const REGION_PDF_PATH = '/api/briefs/region.pdf';
@@ -180,7 +180,9 @@ export function regionBriefContent(src: BriefSource, input: RegionInput, pooled:
   const parts = countList.filter((c) => c.count > 0).map((c) => `${formatCount(c.count)} ${c.label.toLowerCase()}`);
   return {
     kind: 'region',
-    subtitle: `Region brief · published run #${src.run.id}${src.run.publishedAt ? ` of ${formatDate(src.run.publishedAt, src.timeZone)}` : ''}`,
+    ...(src.track ? { track: src.track } : {}),
+    sources: sourcesOf(src),
+    subtitle: `Region brief${src.track ? ` · ${src.track.name}` : ''} · published run #${src.run.id}${src.run.publishedAt ? ` of ${formatDate(src.run.publishedAt, src.timeZone)}` : ''}`,
     headline: `${formatCount(total)} districts in this run: ${parts.join(', ')}.`,
     counts: countList,
     crossed,
@@ -204,6 +206,6 @@ export function regionBriefContent(src: BriefSource, input: RegionInput, pooled:
     cautions: [...CAUTIONS],
     trace: traceOf(src),
     paperSize: src.paperSize,
-    pdfPath: REGION_PDF_PATH,
+    pdfPath: src.track ? `${REGION_PDF_PATH}?track=${encodeURIComponent(src.track.code)}` : REGION_PDF_PATH,
   };
 }

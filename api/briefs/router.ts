@@ -7,9 +7,13 @@ import './attachment';
 import { exportRun } from './export-csv';
 import * as service from './service';
 import { DistrictBriefContentSchema, RegionBriefContentSchema } from '../../contracts/briefs';
+import { TRACK_CODE } from '../../contracts/patterns';
 
-/** `?run=<id>`: a published run other than the latest. */
-const runQuery = z.object({ run: z.coerce.number().int().positive().optional() });
+/** `?run=<id>`: a published run other than the latest; `?track=<code>`: the track (default: the headline). */
+const runQuery = z.object({
+  run: z.coerce.number().int().positive().optional(),
+  track: z.string().regex(TRACK_CODE, 'a track code: a lower-case letter, then letters, digits or -').optional(),
+});
 const byCode = { params: z.object({ code: districtCode }), query: runQuery };
 
 function sendPdf(res: import('express').Response, pdf: { filename: string; content: Buffer }): void {
@@ -31,11 +35,24 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       tag: 'briefs',
       rateLimit: COMPUTE_LIMIT,
       summary:
-        'A district brief as a one-page PDF (A4 or Letter per the settings), from the latest published run or ?run=<id>',
+        'A district brief for one track (?track=, default the headline) as a one-page PDF (A4 or Letter per the settings), from its latest published run or ?run=<id>',
       produces: 'application/pdf',
       schemas: byCode,
       handler: async ({ params, query }, _req, res) =>
-        sendPdf(res, await service.districtBriefPdf({ db, compute }, params.code, query.run)),
+        sendPdf(res, await service.districtBriefPdf({ db, compute }, params.code, query.run, query.track)),
+    }),
+    route({
+      method: 'get',
+      path: '/api/briefs/district/:code/summary.pdf',
+      allow: SIGNED_IN,
+      tag: 'briefs',
+      rateLimit: COMPUTE_LIMIT,
+      summary:
+        'A district summary brief as PDF: the first page shows every track’s standing side by side, then one page per track',
+      produces: 'application/pdf',
+      schemas: { params: z.object({ code: districtCode }) },
+      handler: async ({ params }, _req, res) =>
+        sendPdf(res, await service.districtSummaryPdf({ db, compute }, params.code)),
     }),
     route({
       method: 'get',
@@ -47,7 +64,7 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       summary:
         'The content of a district brief (figures rounded for reading, charts as vector scenes) for the print-friendly view',
       schemas: byCode,
-      handler: ({ params, query }) => service.districtBrief(db, params.code, query.run),
+      handler: ({ params, query }) => service.districtBrief(db, params.code, query.run, query.track),
     }),
     route({
       method: 'get',
@@ -55,10 +72,12 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'briefs',
       rateLimit: COMPUTE_LIMIT,
-      summary: 'The region brief as PDF: summary, every district in a table with repeated headers, the pooled curve',
+      summary:
+        'The region brief of one track (?track=, default the headline) as PDF: summary, every district in a table with repeated headers, the pooled curve',
       produces: 'application/pdf',
       schemas: { query: runQuery },
-      handler: async ({ query }, _req, res) => sendPdf(res, await service.regionBriefPdf({ db, compute }, query.run)),
+      handler: async ({ query }, _req, res) =>
+        sendPdf(res, await service.regionBriefPdf({ db, compute }, query.run, query.track)),
     }),
     route({
       method: 'get',
@@ -69,7 +88,7 @@ export function briefRoutes({ db, compute }: AppContext): RouteSpec[] {
       rateLimit: COMPUTE_LIMIT,
       summary: 'The content of the region brief for the print-friendly view',
       schemas: { query: runQuery },
-      handler: ({ query }) => service.regionBrief(db, query.run),
+      handler: ({ query }) => service.regionBrief(db, query.run, query.track),
     }),
     route({
       method: 'get',

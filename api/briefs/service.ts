@@ -14,6 +14,9 @@ import * as estimates from '../estimates/service';
 import type { PublishedRun } from '../estimates/service';
 import { correctionNotice } from '../runs/corrections';
 import { getSettings } from '../settings/service';
+import { resolveTrack, shownTracks, trackById } from '../tracks/service';
+import { formatDateTime } from './format';
+import { districtSummaryContent, type DistrictSummaryContent, type TrackFinding } from './summary-content';
 import { districtBriefContent } from './district-content';
 import { locatorScene, standingsMapScene } from './map-figure';
 import { regionBriefContent, type PooledFit } from './region-content';
@@ -24,38 +27,65 @@ import type { BriefSource } from './trace';
 export const REGION_MAP = { width: 170, height: 150 };
 export const LOCATOR = { width: 110, height: 90 };
 
-/** The published run a brief reads: `runId` when given (it must be published), else the latest. */
-export async function publishedRun(db: Knex, runId?: number): Promise<PublishedRun> {
+/**
+ * The published run a brief reads: `runId` when given (it must be published, and belong to
+ * `track` when one is named), else the latest published run of `track` (default: the headline).
+ */
+export async function publishedRun(db: Knex, runId?: number, track?: string): Promise<PublishedRun> {
   if (runId !== undefined) {
     const run = await estimates.findRun(db, runId);
     if (!run || run.state !== 'published')
       throw new NotFoundError(`No published run ${runId}: briefs are made from published runs only.`, { runId });
+    if (track && (await resolveTrack(db, track)).id !== run.trackId)
+      throw new NotFoundError(`Published run ${runId} is not a run of track "${track}".`, { runId, track });
     return run;
   }
-  const run = await estimates.latestPublished(db);
+  const t = await resolveTrack(db, track);
+  const run = await estimates.latestPublished(db, undefined, t.id);
   if (!run)
     throw new AppError(
       404,
       'no_published_run',
-      'Nothing has been published yet: a brief appears once a run is published.',
+      `Nothing has been published for ${t.name} yet: a brief appears once a run of the track is published.`,
+      { track: t.code },
     );
   return run;
 }
 
 export async function briefSource(db: Knex, run: PublishedRun, generatedAt = new Date()): Promise<BriefSource> {
-  const [settings, catalogue] = await Promise.all([getSettings(db), indicatorWords(db)]);
+  const [settings, catalogue, track] = await Promise.all([
+    getSettings(db),
+    indicatorWords(db),
+    trackById(db, run.trackId),
+  ]);
   return {
     run,
     timeZone: settings.regionTimeZone,
     paperSize: settings.briefPaperSize,
     generatedAt,
     indicators: catalogue,
+    track: { code: track.code, name: track.name },
   };
 }
 
-export async function districtBrief(db: Knex, code: string, runId?: number): Promise<DistrictBriefContent> {
+export async function districtBrief(
+  db: Knex,
+  code: string,
+  runId?: number,
+  track?: string,
+): Promise<DistrictBriefContent> {
   const district = await districtByCode(db, code);
-  const run = await publishedRun(db, runId);
+  const run = await publishedRun(db, runId, track);
+  return districtBriefOfRun(db, district, run);
+}
+
+/** A district's brief from one published run (any track). */
+export async function districtBriefOfRun(
+  db: Knex,
+  district: { id: number; code: string; name: string },
+  run: PublishedRun,
+): Promise<DistrictBriefContent> {
+  const code = district.code;
   const records = await estimates.estimateRecords(db, run.id, district.id);
   const main = records.find((r) => r.variant === 'main');
   if (!main)
@@ -83,8 +113,8 @@ export async function districtBrief(db: Knex, code: string, runId?: number): Pro
   };
 }
 
-export async function regionBrief(db: Knex, runId?: number): Promise<RegionBriefContent> {
-  const run = await publishedRun(db, runId);
+export async function regionBrief(db: Knex, runId?: number, track?: string): Promise<RegionBriefContent> {
+  const run = await publishedRun(db, runId, track);
   const previous = run.publishedAt
     ? await estimates.latestPublished(db, { publishedAt: run.publishedAt }, run.trackId)
     : null;
@@ -112,6 +142,42 @@ export async function regionBrief(db: Knex, runId?: number): Promise<RegionBrief
   return { ...content, map: fc ? standingsMapScene(fc, standings, REGION_MAP.width, REGION_MAP.height) : null };
 }
 
+/** The district summary: every shown track's standing side by side, then each track's brief. */
+export async function districtSummary(db: Knex, code: string): Promise<DistrictSummaryContent> {
+  const district = await districtByCode(db, code);
+  const [tracks, settings, words] = await Promise.all([shownTracks(db), getSettings(db), indicatorWords(db)]);
+  const findings: TrackFinding[] = [];
+  for (const t of tracks) {
+    const track = { code: t.code, name: t.name };
+    const label = words.get(t.emissionsIndicator);
+    const indicator = label ? `${label.name}${label.unit ? ` (${label.unit})` : ''}` : t.emissionsIndicator;
+    const run = await estimates.latestPublished(db, undefined, t.id);
+    if (!run) {
+      findings.push({ track, indicator, missing: 'no published run yet' });
+      continue;
+    }
+    const main = (await estimates.estimateRecords(db, run.id, district.id)).find((r) => r.variant === 'main');
+    if (!main) {
+      findings.push({ track, indicator, missing: `not in run #${run.id} (no data when it ran)` });
+      continue;
+    }
+    findings.push({
+      track,
+      indicator,
+      driverUnit: words.get(run.spec.selection.driver)?.unit ?? '',
+      record: main,
+      brief: await districtBriefOfRun(db, district, run),
+      runId: run.id,
+      publishedAt: run.publishedAt,
+    });
+  }
+  return districtSummaryContent({ code: district.code, name: district.name }, findings, {
+    timeZone: settings.regionTimeZone,
+    paperSize: settings.briefPaperSize,
+    generatedAt: formatDateTime(new Date(), settings.regionTimeZone),
+  });
+}
+
 /** A thread hands back the PDF's bytes as a Uint8Array; Express and mail want a Buffer. */
 const asBuffer = (u: Uint8Array): Buffer =>
   Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength);
@@ -121,17 +187,30 @@ export async function districtBriefPdf(
   { db, compute }: Pick<AppContext, 'db' | 'compute'>,
   code: string,
   runId?: number,
+  track?: string,
 ): Promise<{ filename: string; content: Buffer; runId: number }> {
-  const c = await districtBrief(db, code, runId);
+  const c = await districtBrief(db, code, runId, track);
   const content = asBuffer(await compute.run({ kind: 'district-pdf', content: c }));
-  return { filename: `crestwatch-${c.code}-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };
+  const t = c.track ? `-${c.track.code}` : '';
+  return { filename: `crestwatch-${c.code}${t}-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };
+}
+
+export async function districtSummaryPdf(
+  { db, compute }: Pick<AppContext, 'db' | 'compute'>,
+  code: string,
+): Promise<{ filename: string; content: Buffer }> {
+  const c = await districtSummary(db, code);
+  const content = asBuffer(await compute.run({ kind: 'summary-pdf', content: c }));
+  return { filename: `crestwatch-${c.code}-summary.pdf`, content };
 }
 
 export async function regionBriefPdf(
   { db, compute }: Pick<AppContext, 'db' | 'compute'>,
   runId?: number,
+  track?: string,
 ): Promise<{ filename: string; content: Buffer; runId: number }> {
-  const c = await regionBrief(db, runId);
+  const c = await regionBrief(db, runId, track);
   const content = asBuffer(await compute.run({ kind: 'region-pdf', content: c }));
-  return { filename: `crestwatch-region-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };
+  const t = c.track ? `-${c.track.code}` : '';
+  return { filename: `crestwatch-region${t}-run-${c.trace.runId}.pdf`, content, runId: c.trace.runId };
 }

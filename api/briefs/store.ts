@@ -35,8 +35,12 @@ export async function summaryRecords(db: Knex, runId: number): Promise<SummaryRe
   }));
 }
 
-/** The words a brief uses for each indicator: code → name and unit. */
-export async function indicatorWords(db: Knex): Promise<Map<string, { name: string; unit: string }>> {
-  const rows: { code: string; name: string; unit: string }[] = await db('indicators').select('code', 'name', 'unit');
-  return new Map(rows.map((r) => [r.code, { name: r.name, unit: r.unit }]));
+/** The words a brief uses for each indicator: code → name, unit, source and licence. */
+export async function indicatorWords(
+  db: Knex,
+): Promise<Map<string, { name: string; unit: string; source: string | null; licence: string | null }>> {
+  const rows: { code: string; name: string; unit: string; source: string | null; licence: string | null }[] = await db(
+    'indicators',
+  ).select('code', 'name', 'unit', 'source', 'licence');
+  return new Map(rows.map((r) => [r.code, { name: r.name, unit: r.unit, source: r.source, licence: r.licence }]));
 }

@@ -2,7 +2,7 @@
  * What every brief page says about where its numbers came from (run, publish date, data
  * version and hash, software version, generated on), and the model line.
  */
-import type { BriefPaperSize, BriefTrace } from '../../contracts/briefs';
+import type { BriefPaperSize, BriefSourceLine, BriefTrace, BriefTrack } from '../../contracts/briefs';
 import type { PublishedRun } from '../estimates/service';
 import { formatDateTime, formatLevelPercent, shortHash } from './format';
 import { COVARIANCE_LABEL, inSentence, intervalMethodLabel } from './words';
@@ -10,6 +10,8 @@ import { COVARIANCE_LABEL, inSentence, intervalMethodLabel } from './words';
 export interface Indicator {
   name: string;
   unit: string;
+  source?: string | null;
+  licence?: string | null;
 }
 
 /** What a brief is built from besides the estimates: the run, the settings, the words for indicators. */
@@ -19,6 +21,8 @@ export interface BriefSource {
   paperSize: BriefPaperSize;
   generatedAt: Date;
   indicators: Map<string, Indicator>;
+  /** the track the run belongs to */
+  track?: BriefTrack;
 }
 
 export function traceOf(src: BriefSource): BriefTrace {
@@ -41,6 +45,19 @@ export function traceOf(src: BriefSource): BriefTrace {
 
 export function indicatorOf(src: BriefSource, code: string): Indicator {
   return src.indicators.get(code) ?? { name: code, unit: '' };
+}
+
+/** The indicators the run's model reads (watched indicator, driver, controls), each with its source and licence. */
+export function sourcesOf(src: BriefSource): BriefSourceLine[] {
+  const { selection } = src.run.spec;
+  const codes = [...new Set([selection.emissions, selection.driver, ...selection.controls])];
+  return codes.map((code) => {
+    const i = indicatorOf(src, code);
+    const source = i.source ?? null;
+    const licence = i.licence ?? null;
+    const line = `${i.name}${i.unit ? ` (${i.unit})` : ''}: ${source ?? 'source not recorded'}; licence: ${licence ?? 'not recorded'}`;
+    return { code, name: i.name, unit: i.unit, source, licence, line };
+  });
 }
 
 function list(words: string[]): string {

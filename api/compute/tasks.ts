@@ -10,6 +10,8 @@
 import type { DistrictBriefContent, RegionBriefContent } from '../../contracts/briefs';
 import { renderDistrictPdf } from '../briefs/pdf/district-pdf';
 import { renderRegionPdf } from '../briefs/pdf/region-pdf';
+import { renderSummaryPdf } from '../briefs/pdf/summary-pdf';
+import type { DistrictSummaryContent } from '../briefs/summary-content';
 import {
   EstimationInputError,
   fitCurve,
@@ -36,13 +38,15 @@ export type Task =
       pooled: FitPanelResult | null;
     }
   | { kind: 'district-pdf'; content: DistrictBriefContent }
-  | { kind: 'region-pdf'; content: RegionBriefContent };
+  | { kind: 'region-pdf'; content: RegionBriefContent }
+  | { kind: 'summary-pdf'; content: DistrictSummaryContent };
 
 export interface TaskResults {
   'fit-curve': { ok: true; result: FitCurveResult } | { ok: false; error: EngineRefusal };
   'district-fits': { districtId: number; record: EstimateRecord }[];
   'district-pdf': Uint8Array;
   'region-pdf': Uint8Array;
+  'summary-pdf': Uint8Array;
 }
 
 export async function runTask(task: Task): Promise<TaskResults[Task['kind']]> {
@@ -63,5 +67,7 @@ export async function runTask(task: Task): Promise<TaskResults[Task['kind']]> {
       return renderDistrictPdf(task.content);
     case 'region-pdf':
       return renderRegionPdf(task.content);
+    case 'summary-pdf':
+      return renderSummaryPdf(task.content);
   }
 }

@@ -95,12 +95,19 @@ export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer
     title: `${c.name} (${c.code}) · district brief`,
     subject: `Crestwatch district brief, run #${c.trace.runId}`,
   });
+  drawDistrictPage(doc, c);
+  doc.end();
+  return done;
+}
+
+/** One district brief on the current page (page `page` of `pages`: the summary brief adds pages). */
+export function drawDistrictPage(doc: PDFKit.PDFDocument, c: DistrictBriefContent, page = 1, pages = 1): void {
   const g = geometry(doc);
   const x = g.left;
   const width = g.contentWidth;
 
   // Bottom-anchored blocks first: footer, cautions, model line.
-  footer(doc, c.trace, 1, 1);
+  footer(doc, c.trace, page, pages);
   const cautionsH = cautionsBox(doc, c.cautions, x, 0, width, false);
   const cautionsY = g.height - FOOTER_HEIGHT - 6 - cautionsH;
   cautionsBox(doc, c.cautions, x, cautionsY, width);
@@ -108,7 +115,12 @@ export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer
   const modelH = Math.min(measure(doc, `Model. ${c.modelLine}`, width, modelStyle), 28);
   const modelY = cautionsY - 6 - modelH;
   textBlock(doc, `Model. ${c.modelLine}`, x, modelY, width, modelStyle, 28);
-  const limit = modelY - 6;
+  // Who publishes each series the model reads, and under which terms.
+  const sourcesText = c.sources?.length ? `Sources. ${c.sources.map((l) => l.line).join(' · ')}` : '';
+  const sourcesH = sourcesText ? Math.min(measure(doc, sourcesText, width, modelStyle), 26) : 0;
+  const sourcesY = modelY - (sourcesH ? 4 + sourcesH : 0);
+  if (sourcesText) textBlock(doc, sourcesText, x, sourcesY, width, modelStyle, 26);
+  const limit = sourcesY - 6;
 
   let y = pageTop(doc, c.subtitle);
   // The locator sits at the top right, beside the name, the standing and the headline.
@@ -160,6 +172,4 @@ export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer
     y += 12;
     y += textBlock(doc, c.analystNote, x, y, width, { size: 8, lineGap: 0.6, color: INK.text }, room()) + 4;
   }
-  doc.end();
-  return done;
 }

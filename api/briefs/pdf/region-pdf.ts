@@ -165,11 +165,12 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
     });
     y += fh + 8;
   }
-  const bottomModel = `Model. ${c.modelLine}`;
+  // The model line, then who publishes each series it reads (and under which terms).
+  const bottomModel = `Model. ${c.modelLine}${c.sources?.length ? `\nSources. ${c.sources.map((l) => l.line).join(' · ')}` : ''}`;
   const modelStyle: TextStyle = { size: 6.8, color: INK.muted, lineGap: 0.4 };
   const cautionsH = cautionsBox(doc, c.cautions, x, 0, width, false);
   const cautionsY = g.height - FOOTER_HEIGHT - 6 - cautionsH;
-  const modelH = Math.min(measure(doc, bottomModel, width, modelStyle), 28);
+  const modelH = Math.min(measure(doc, bottomModel, width, modelStyle), 52);
   const modelY = cautionsY - 6 - modelH;
   if (c.pooled.chart) {
     const chart = c.pooled.chart;
@@ -185,7 +186,7 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
   }
   if (c.pooled.note)
     y += textBlock(doc, c.pooled.note, x, y, width, { size: 7, color: INK.muted }, Math.max(0, modelY - 4 - y));
-  textBlock(doc, bottomModel, x, modelY, width, modelStyle, 28);
+  textBlock(doc, bottomModel, x, modelY, width, modelStyle, 52);
   cautionsBox(doc, c.cautions, x, cautionsY, width);
 }
 
