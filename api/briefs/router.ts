@@ -1,18 +1,17 @@
 import { z } from 'zod';
 import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
-import { districtCode } from '../http/params';
+import { districtCode, trackCode } from '../http/params';
 import { callerOf, COMPUTE_LIMIT, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import './attachment';
 import { exportRun } from './export-csv';
 import * as service from './service';
 import { DistrictBriefContentSchema, RegionBriefContentSchema } from '../../contracts/briefs';
-import { TRACK_CODE } from '../../contracts/patterns';
 
 /** `?run=<id>`: a published run other than the latest; `?track=<code>`: the track (default: the headline). */
 const runQuery = z.object({
   run: z.coerce.number().int().positive().optional(),
-  track: z.string().regex(TRACK_CODE, 'a track code: a lower-case letter, then letters, digits or -').optional(),
+  track: trackCode.optional(),
 });
 const byCode = { params: z.object({ code: districtCode }), query: runQuery };
 

@@ -60,6 +60,26 @@ export function sourcesOf(src: BriefSource): BriefSourceLine[] {
   });
 }
 
+/**
+ * The sources as one sentence for print: indicators that share a source and licence are
+ * named together, e.g. "PM2.5 … (µg/m³), real income per person (…): Demo region statistics
+ * office (invented); licence: …".
+ */
+export function sourcesSentence(lines: BriefSourceLine[]): string {
+  const groups = new Map<string, { source: string | null; licence: string | null; names: string[] }>();
+  for (const l of lines) {
+    const key = JSON.stringify([l.source, l.licence]);
+    const g = groups.get(key) ?? { source: l.source, licence: l.licence, names: [] };
+    g.names.push(
+      `${groups.size === 0 && !g.names.length ? l.name : inSentence(l.name)}${l.unit ? ` (${l.unit})` : ''}`,
+    );
+    groups.set(key, g);
+  }
+  return [...groups.values()]
+    .map((g) => `${g.names.join(', ')}: ${g.source ?? 'source not recorded'}; licence: ${g.licence ?? 'not recorded'}`)
+    .join(' · ');
+}
+
 function list(words: string[]): string {
   if (words.length <= 1) return words.join('');
   return `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
@@ -80,7 +100,7 @@ export function modelLine(src: BriefSource, opts: { pooled: boolean; lag?: numbe
   const critical = model.criticalValue === 'normal' ? 'normal' : 't';
   const units = [
     driver.unit && `${inSentence(driver.name)} in ${driver.unit}`,
-    emissions.unit && `emissions in ${emissions.unit}`,
+    emissions.unit && `${inSentence(emissions.name)} in ${emissions.unit}`,
   ]
     .filter(Boolean)
     .join(', ');

@@ -7,6 +7,7 @@
  */
 import type { BriefFigure, DistrictBriefContent } from '../../../contracts/briefs';
 import { CHART_WIDTH } from '../district-content';
+import { sourcesSentence } from '../trace';
 import {
   cautionsBox,
   chip,
@@ -116,7 +117,7 @@ export function drawDistrictPage(doc: PDFKit.PDFDocument, c: DistrictBriefConten
   const modelY = cautionsY - 6 - modelH;
   textBlock(doc, `Model. ${c.modelLine}`, x, modelY, width, modelStyle, 28);
   // Who publishes each series the model reads, and under which terms.
-  const sourcesText = c.sources?.length ? `Sources. ${c.sources.map((l) => l.line).join(' · ')}` : '';
+  const sourcesText = c.sources?.length ? `Sources. ${sourcesSentence(c.sources)}` : '';
   const sourcesH = sourcesText ? Math.min(measure(doc, sourcesText, width, modelStyle), 26) : 0;
   const sourcesY = modelY - (sourcesH ? 4 + sourcesH : 0);
   if (sourcesText) textBlock(doc, sourcesText, x, sourcesY, width, modelStyle, 26);

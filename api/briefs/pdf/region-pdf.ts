@@ -5,6 +5,7 @@
  * repeated on each. Rows are measured and paginated before drawing, so every page gets
  * its footer (trace, page n of N) as it is drawn.
  */
+import { sourcesSentence } from '../trace';
 import type { RegionBriefContent, RegionBriefRow } from '../../../contracts/briefs';
 import { printable } from './fonts';
 import {
@@ -166,7 +167,7 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
     y += fh + 8;
   }
   // The model line, then who publishes each series it reads (and under which terms).
-  const bottomModel = `Model. ${c.modelLine}${c.sources?.length ? `\nSources. ${c.sources.map((l) => l.line).join(' · ')}` : ''}`;
+  const bottomModel = `Model. ${c.modelLine}${c.sources?.length ? `\nSources. ${sourcesSentence(c.sources)}` : ''}`;
   const modelStyle: TextStyle = { size: 6.8, color: INK.muted, lineGap: 0.4 };
   const cautionsH = cautionsBox(doc, c.cautions, x, 0, width, false);
   const cautionsY = g.height - FOOTER_HEIGHT - 6 - cautionsH;
