@@ -14,6 +14,8 @@ import { CAUTIONS, inSentence, shapeLabel, standingLabel } from './words';
 /** A longer name is printed in the title only; the headline calls the district by its code. */
 const HEADLINE_NAME_MAX = 48;
 export const CHART_WIDTH = 252;
+/** Characters of an axis label (name and unit) that fit beside "(log scale)" on a chart. */
+const AXIS_LABEL_MAX = 42;
 /** Letter is 50 pt shorter than A4: its charts give up part of that. */
 export function chartHeight(paper: string): number {
   return paper === 'LETTER' ? 185 : 205;
@@ -167,7 +169,9 @@ export function districtBriefContent(
   const emissions = indicatorOf(src, src.run.spec.selection.emissions);
   const w: TrackWords = { pressure: inSentence(emissions.name), driver: inSentence(driver.name) };
   const el = elasticityTexts(r, w.pressure);
-  const withUnit = (i: { name: string; unit: string }) => (i.unit ? `${i.name} (${i.unit})` : i.name);
+  // An axis label carries the unit when it fits the chart's width; the figures always carry it.
+  const withUnit = (i: { name: string; unit: string }) =>
+    i.unit && i.name.length + i.unit.length <= AXIS_LABEL_MAX ? `${i.name} (${i.unit})` : i.name;
   const mark: ThresholdMark | null =
     r.threshold?.level !== null && r.threshold?.level !== undefined && Number.isFinite(r.threshold.level)
       ? { level: r.threshold.level, band: th.band }

@@ -90,7 +90,8 @@ function pooledPart(src: BriefSource, pooled: PooledFit | null): RegionBriefCont
     levelMax: pooled.range.levelMax,
     threshold: mark,
     levelText: level,
-    xLabel: driver.unit ? `${driver.name} (${driver.unit})` : driver.name,
+    xLabel:
+      driver.unit && driver.name.length + driver.unit.length <= 42 ? `${driver.name} (${driver.unit})` : driver.name,
     pressure: inSentence(indicatorOf(src, src.run.spec.selection.emissions).name),
   });
   return {

@@ -332,7 +332,7 @@ describe('briefs', () => {
       code: 'D01',
       name: d01.name,
       paperSize: 'A4',
-      pdfPath: '/api/briefs/district/D01.pdf',
+      pdfPath: '/api/briefs/district/D01.pdf?track=emissions-pc',
     });
     expect(c.trace.runId).toBe(runId);
     expect(c.figures.find((f) => f.key === 'threshold')!.value).toBe(threeFigures(d01.threshold!.level!, 'round'));
@@ -395,7 +395,7 @@ describe('briefs', () => {
     });
     expect(mail.text_body).toContain('The region brief is attached.');
     expect(mail.attachments).toEqual([
-      { filename: `crestwatch-region-run-${second}.pdf`, contentType: 'application/pdf', size: expect.any(Number) },
+      { filename: `crestwatch-region-emissions-pc-run-${second}.pdf`, contentType: 'application/pdf', size: expect.any(Number) },
     ]);
     expect(mail.attachments[0].size).toBeGreaterThan(10_000);
     // The region brief of that run lists the district that crossed.
