@@ -47,6 +47,33 @@ describe('indicator catalogue', () => {
     expect(renamed.body.indicator.description).toBe('Territorial emissions, all sectors.');
   });
 
+  it('records who publishes a series and under which terms, editable, blank clearing it', async () => {
+    const listed = parseAnswer(IndicatorsResponseSchema, await w.official.get('/api/indicators'));
+    // The demo catalogue's invented source and licence (api/demo/catalogue.ts).
+    expect(listed.indicators.find((i) => i.code === 'pm25')).toMatchObject({
+      unit: 'µg/m³',
+      source: 'Demo region statistics office (invented)',
+      licence: 'Invented demonstration data: free to copy and change, describes no real place',
+    });
+    const made = await post({
+      code: 'nox_pc',
+      name: 'NOx emissions per person',
+      unit: 'kg per person',
+      source: '  Regional air office  ',
+      licence: 'CC BY 4.0',
+    });
+    expect(made.status).toBe(201);
+    expect(made.body.indicator).toMatchObject({ source: 'Regional air office', licence: 'CC BY 4.0' });
+    const changed = await w.analyst.patch('/api/indicators/nox_pc').send({ licence: 'Open Government Licence' });
+    expect(changed.body.indicator).toMatchObject({ source: 'Regional air office', licence: 'Open Government Licence' });
+    const cleared = await w.analyst.patch('/api/indicators/nox_pc').send({ source: '' });
+    expect(cleared.body.indicator).toMatchObject({ source: null, licence: 'Open Government Licence' });
+    const tooLong = await w.analyst.patch('/api/indicators/nox_pc').send({ source: 'x'.repeat(301) });
+    expect(tooLong.status).toBe(400);
+    expect(JSON.stringify(tooLong.body.error)).toContain('source is at most 300 characters');
+    expect((await w.official.patch('/api/indicators/nox_pc').send({ source: 'me' })).status).toBe(403);
+  });
+
   it('refuses derivations that cannot hold', async () => {
     await post({ code: 'net_flow', name: 'Net flow', unit: 'units', mustBePositive: false });
     const notPositive = await post({
