@@ -395,7 +395,11 @@ describe('briefs', () => {
     });
     expect(mail.text_body).toContain('The region brief is attached.');
     expect(mail.attachments).toEqual([
-      { filename: `crestwatch-region-emissions-pc-run-${second}.pdf`, contentType: 'application/pdf', size: expect.any(Number) },
+      {
+        filename: `crestwatch-region-emissions-pc-run-${second}.pdf`,
+        contentType: 'application/pdf',
+        size: expect.any(Number),
+      },
     ]);
     expect(mail.attachments[0].size).toBeGreaterThan(10_000);
     // The region brief of that run lists the district that crossed.
