@@ -293,6 +293,10 @@ describe('tracks', () => {
     const tracks = parseAnswer(TracksResponseSchema, await official.get('/api/tracks')).tracks;
     expect(tracks[0].code).toBe('pm25');
     expect(tracks.filter((x) => x.headline)).toHaveLength(1);
+    // A spec a track's next run uses cannot be archived.
+    const inUse = await analyst.delete(`/api/specs/${tracks[0].specId}`);
+    expect(inUse.status).toBe(409);
+    expect(inUse.body.error.code).toBe('spec_in_use');
     const region = parseAnswer(RegionResponseSchema, await official.get('/api/region'));
     expect(region.track).toMatchObject({ code: 'pm25', name: 'Fine particles' });
     // The scheduled runs of the previous test finish first (one active run per track).
