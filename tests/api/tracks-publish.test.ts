@@ -268,6 +268,8 @@ describe('tracks', () => {
     const runs = parseAnswer(RunListResponseSchema, await analyst.get('/api/runs')).runs.filter(
       (r) => r.trigger === 'schedule',
     );
+    const pmRuns = parseAnswer(RunListResponseSchema, await analyst.get('/api/runs?track=pm25')).runs;
+    expect(new Set(pmRuns.map((r) => r.track))).toEqual(new Set(['pm25']));
     // Two active tracks (CO2, PM2.5): two runs; the paused track: none.
     expect(runs.map((r) => r.track).sort()).toEqual([co2, 'pm25'].sort());
     // A second tick while they are still going starts nothing more and does not fail.
@@ -282,5 +284,33 @@ describe('tracks', () => {
     const code = Object.keys(co2Region)[0];
     const card = parseAnswer(DistrictEstimateResponseSchema, await official.get(`/api/districts/${code}/estimate`));
     expect(card.tracks.map((r) => r.code)).toEqual([co2, 'pm25']);
+  });
+
+  it('admins rename a track and choose the headline; reads without a track follow the headline', async () => {
+    expect((await analyst.patch('/api/tracks/pm25').send({ headline: true })).status).toBe(403);
+    expect((await admin.post('/api/tracks').send({ code: 'pm25', name: 'Again', specId: 1 })).status).toBe(409);
+    expect((await admin.post('/api/tracks').send({ code: 'PM 2.5', name: 'Bad', specId: 1 })).status).toBe(400);
+    const renamed = await admin.patch('/api/tracks/pm25').send({ name: 'Fine particles', headline: true });
+    expect(parseAnswer(TrackAnswerSchema, renamed).track).toMatchObject({ name: 'Fine particles', headline: true });
+    const tracks = parseAnswer(TracksResponseSchema, await official.get('/api/tracks')).tracks;
+    expect(tracks[0].code).toBe('pm25');
+    expect(tracks.filter((x) => x.headline)).toHaveLength(1);
+    // A spec a track's next run uses cannot be archived.
+    const inUse = await analyst.delete(`/api/specs/${tracks[0].specId}`);
+    expect(inUse.status).toBe(409);
+    expect(inUse.body.error.code).toBe('spec_in_use');
+    const region = parseAnswer(RegionResponseSchema, await official.get('/api/region'));
+    expect(region.track).toMatchObject({ code: 'pm25', name: 'Fine particles' });
+    // The scheduled runs of the previous test finish first (one active run per track).
+    await until('scheduled runs done', async () =>
+      parseAnswer(RunListResponseSchema, await analyst.get('/api/runs')).runs.every(
+        (r) => r.state !== 'queued' && r.state !== 'running',
+      ),
+    );
+    const started = parseAnswer(RunStartedSchema, await analyst.post('/api/runs').send({}));
+    expect(started.track).toBe('pm25');
+    // Back to CO2 as the headline for whoever reads this database next.
+    await admin.patch(`/api/tracks/${co2}`).send({ headline: true });
+    expect(parseAnswer(RegionResponseSchema, await official.get('/api/region')).track.code).toBe(co2);
   });
 });
