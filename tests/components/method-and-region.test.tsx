@@ -7,7 +7,7 @@ import { RegionOverview } from '@/components/region/region-overview';
 import { CAUTIONS } from '@/lib/cautions';
 import type { RegionResponse } from '@/contracts/estimates';
 
-import { estimateRecord, run, summaryOf } from './support/estimates';
+import { co2Track, estimateRecord, run, summaryOf } from './support/estimates';
 import { districtSummaries } from './support/fixtures';
 
 jest.mock('expo-router', () => ({
@@ -48,6 +48,7 @@ describe('region overview', () => {
       { ...districtSummaries[2], estimate: null },
     ];
     const region: RegionResponse = {
+      track: co2Track,
       run,
       counts: {},
       pooled: { shape: 'inverted_u', threshold: 24000, fieller: { kind: 'bounded', levelLo: 21000, levelHi: 28000 } },
@@ -70,7 +71,7 @@ describe('region overview', () => {
   it('says when no run is published yet, and offers no brief', () => {
     render(
       <RegionOverview
-        region={ok<RegionResponse>({ run: null, counts: {}, pooled: null, districts: [] })}
+        region={ok<RegionResponse>({ track: co2Track, run: null, counts: {}, pooled: null, districts: [] })}
         districts={ok([])}
       />,
     );

@@ -1,7 +1,9 @@
 // Invented published estimates in the engine's output shape (api/runs/estimate-record.ts),
 // for component tests. Plumbing only: the figures are made up to exercise the screens.
+import type { TrackRef } from '@/contracts/tracks';
 import type {
   DistrictEstimateResponse,
+  TrackStanding,
   EstimateRecord,
   EstimateSummary,
   PublishedRunMeta,
@@ -18,6 +20,40 @@ function curveY(x: number): number {
 
 const years = Array.from({ length: 20 }, (_, i) => 2006 + i);
 const incomes = years.map((_, i) => Math.round(14000 * Math.exp(0.04 * i)));
+
+/** Invented catalogue labels: the units are the ones the demo catalogue uses for these series. */
+export const co2Indicator = {
+  code: 'emissions_pc',
+  name: 'CO₂ emissions per person',
+  unit: 't CO₂ per person',
+  source: 'Regional inventory office',
+  licence: 'CC BY 4.0',
+};
+export const incomeIndicator = {
+  code: 'income_pc',
+  name: 'Real income per person',
+  unit: '€ per person',
+  source: null,
+  licence: null,
+};
+export const co2Track: TrackRef = { code: 'co2', name: 'CO₂ per person', indicator: co2Indicator };
+export const pm25Track: TrackRef = {
+  code: 'pm25',
+  name: 'Fine particles',
+  indicator: { code: 'pm25', name: 'PM2.5 annual mean', unit: 'µg/m³', source: 'Air monitoring network', licence: null },
+};
+export const so2Track: TrackRef = {
+  code: 'so2',
+  name: 'SO₂ per person',
+  indicator: { code: 'so2_pc', name: 'SO₂ emissions per person', unit: 'kg per person', source: null, licence: null },
+};
+
+/** The card's rows: CO₂ approaching, PM2.5 past the turn, SO₂ with no published run. */
+export const trackRows: TrackStanding[] = [
+  { ...co2Track, standing: 'approaching', gapPercent: -12.4, shape: 'inverted_u', runId: 7 },
+  { ...pm25Track, standing: 'past_turn', gapPercent: 8.1, shape: 'inverted_u', runId: 9 },
+  { ...so2Track, standing: null, gapPercent: null, shape: null, runId: null },
+];
 
 export const run: PublishedRunMeta = {
   id: 7,
@@ -43,6 +79,7 @@ export const run: PublishedRunMeta = {
   dataVersion: 3,
   dataHash: 'ab'.repeat(32),
   softwareVersion: '0.1.0',
+  units: { emissions: co2Indicator, driver: incomeIndicator },
 };
 
 export function estimateRecord(over: Partial<EstimateRecord>): EstimateRecord {
@@ -216,6 +253,8 @@ export function estimateResponse(
     main,
     variants: main ? variants() : [],
     note: null,
+    track: co2Track,
+    tracks: trackRows,
     ...over,
   };
 }
