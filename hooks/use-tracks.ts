@@ -60,11 +60,11 @@ export type TrackChoice = {
 };
 
 /** The chosen track of the current page (reads the URL anywhere in the tree, the wide list included). */
-export function useTrackChoice(): TrackChoice {
+export function useTrackChoice(options: { enabled?: boolean } = {}): TrackChoice {
   const params = useGlobalSearchParams<{ track?: string | string[] }>();
   const url = typeof params.track === 'string' ? params.track : null;
   const device = useRememberedTrack();
-  const query = useTracksQuery();
+  const query = useTracksQuery(options);
   const list = query.data;
   const router = useRouter();
   const choose = useCallback(
