@@ -81,13 +81,13 @@ export function useRunDistrictQuery(id: number, code: string | null, enabled: bo
   });
 }
 
-/** "Re-estimate now": queues a run of the given spec (the default when none). */
+/** "Re-estimate now": queues a run of one track ('all': one per active track; none: the headline track). */
 export function useStartRunMutation() {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (specId?: number) =>
+    mutationFn: (track?: string) =>
       apiSend('POST', '/api/runs', {
-        json: specId ? { specId } : {},
+        json: track ? { track } : {},
         schema: RunStartedSchema,
       }),
     onSettled: () => client.invalidateQueries({ queryKey: runKeys.list() }),

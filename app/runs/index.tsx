@@ -6,7 +6,7 @@ import { RunsScreen } from '@/components/runs/runs-screen';
 import { useMeQuery } from '@/hooks/use-auth';
 import { useRunsQuery, useStartRunMutation } from '@/hooks/use-runs';
 import { useSettingsQuery } from '@/hooks/use-settings';
-import { useSpecsQuery } from '@/hooks/use-specs';
+import { useTracksQuery } from '@/hooks/use-tracks';
 import { can } from '@/lib/roles';
 
 /** Start a run ("re-estimate now") and list the recent ones. */
@@ -15,7 +15,7 @@ export default function RunsRoute() {
   const me = useMeQuery();
   const allowed = can(me.data?.role, 'runs');
   const runs = useRunsQuery(allowed);
-  const specs = useSpecsQuery(allowed);
+  const tracks = useTracksQuery({ enabled: allowed });
   const settings = useSettingsQuery(allowed);
   const start = useStartRunMutation();
   return (
@@ -27,9 +27,9 @@ export default function RunsRoute() {
         {() => (
           <RunsScreen
             runs={runs}
-            specs={specs}
+            tracks={tracks}
             settings={settings}
-            onStart={(specId) => start.mutateAsync(specId)}
+            onStart={(track) => start.mutateAsync(track)}
             onOpen={(id) => router.push({ pathname: '/runs/[id]', params: { id: String(id) } })}
           />
         )}

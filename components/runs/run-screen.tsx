@@ -38,7 +38,7 @@ export function RunScreen(props: RunScreenProps) {
   const { runId } = props;
   return (
     <Page
-      title={`Run #${runId}`}
+      title={props.run.data ? `Run #${runId} · ${props.run.data.track.name}` : `Run #${runId}`}
       actions={<TextLink href="/runs" label="All runs" leading="← " />}
       fill={props.wide}
       testID="run-screen"
@@ -154,7 +154,7 @@ function RunBody({
       {active ? <RunProgress run={r} /> : null}
       <DecisionBar runId={runId} state={r.state} onPublish={onPublish} onDiscard={onDiscard} />
       {reviewable ? (
-        <Section title="Changes by district">
+        <Section title={`Changes by district · ${r.track.name}`}>
           <SplitColumns wide={wide} main={reviewBlock} side={panel} />
         </Section>
       ) : null}
