@@ -1,6 +1,6 @@
 // Invented published estimates in the engine's output shape (api/runs/estimate-record.ts),
 // for component tests. Plumbing only: the figures are made up to exercise the screens.
-import type { TrackRef } from '@/contracts/tracks';
+import type { Track, TrackRef, TracksResponse } from '@/contracts/tracks';
 import type {
   DistrictEstimateResponse,
   TrackStanding,
@@ -40,7 +40,13 @@ export const co2Track: TrackRef = { code: 'co2', name: 'CO₂ per person', indic
 export const pm25Track: TrackRef = {
   code: 'pm25',
   name: 'Fine particles',
-  indicator: { code: 'pm25', name: 'PM2.5 annual mean', unit: 'µg/m³', source: 'Air monitoring network', licence: null },
+  indicator: {
+    code: 'pm25',
+    name: 'PM2.5 annual mean',
+    unit: 'µg/m³',
+    source: 'Air monitoring network',
+    licence: null,
+  },
 };
 export const so2Track: TrackRef = {
   code: 'so2',
@@ -54,6 +60,42 @@ export const trackRows: TrackStanding[] = [
   { ...pm25Track, standing: 'past_turn', gapPercent: 8.1, shape: 'inverted_u', runId: 9 },
   { ...so2Track, standing: null, gapPercent: null, shape: null, runId: null },
 ];
+
+function track(ref: TrackRef, over: Partial<Track>): Track {
+  return {
+    ...ref,
+    headline: false,
+    state: 'active',
+    specId: 1,
+    specName: 'Regional default',
+    publishedRunId: null,
+    publishedAt: null,
+    createdAt: '2026-01-05T09:00:00.000Z',
+    ...over,
+  };
+}
+
+/** GET /api/tracks: CO₂ the headline, PM2.5 published, SO₂ without a published run, one archived track. */
+export const tracksAnswer: TracksResponse = {
+  tracks: [
+    track(pm25Track, {
+      specId: 2,
+      specName: 'Particles default',
+      publishedRunId: 9,
+      publishedAt: '2026-10-03T09:00:00.000Z',
+    }),
+    track(co2Track, { headline: true, publishedRunId: 7, publishedAt: '2026-10-02T09:00:00.000Z' }),
+    track(so2Track, { specId: 3, specName: 'Sulphur default' }),
+    track(
+      {
+        code: 'nox',
+        name: 'Nitrogen oxides',
+        indicator: { code: 'nox_pc', name: 'NOx per person', unit: 'kg per person', source: null, licence: null },
+      },
+      { specId: 4, specName: 'Old NOx', state: 'archived' },
+    ),
+  ],
+};
 
 export const run: PublishedRunMeta = {
   id: 7,
@@ -262,6 +304,7 @@ export function estimateResponse(
 /** Every GET the card makes for T02, answered; override any path. */
 export function cardAnswers(main: EstimateRecord | null, over: Record<string, unknown> = {}): Record<string, unknown> {
   return {
+    '/api/tracks': tracksAnswer,
     '/api/districts/T02/estimate': estimateResponse(main),
     '/api/districts/T02/history': {
       district: { code: 'T02', name: 'Bryn Ødegård' },
