@@ -21,6 +21,7 @@ import { runRoutes } from './runs/router';
 import { settingsRoutes } from './settings/router';
 import { specRoutes } from './specs/router';
 import { subscriptionRoutes } from './subscriptions/router';
+import { trackRoutes } from './tracks/router';
 import { SOFTWARE_VERSION } from './version';
 import { OpenApiDocumentSchema } from '../contracts/common';
 
@@ -40,6 +41,7 @@ export function routeTable(ctx: AppContext, passport: ReturnType<typeof createPa
     ...curveRoutes(ctx),
     ...settingsRoutes(ctx),
     ...specRoutes(ctx),
+    ...trackRoutes(ctx),
     ...runRoutes(ctx),
     ...alertRoutes(ctx),
     ...subscriptionRoutes(ctx),

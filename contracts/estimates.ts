@@ -244,6 +244,8 @@ export const HistoryEntrySchema = z.extend(EstimateSummarySchema, {
 export type HistoryEntry = z.infer<typeof HistoryEntrySchema>;
 export const DistrictHistoryResponseSchema = z.object({
   district: DistrictRefSchema,
+  /** the track whose published runs these are (?track=, else the headline track) */
+  track: z.optional(TrackRefSchema),
   history: z.array(HistoryEntrySchema),
 });
 export type DistrictHistoryResponse = z.infer<typeof DistrictHistoryResponseSchema>;

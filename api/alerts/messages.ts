@@ -1,4 +1,7 @@
-/** The words of alert e-mails (our own), with the card link and the unsubscribe link. */
+/**
+ * The words of alert e-mails (our own), with the card link (carrying the track) and the
+ * unsubscribe link. The subject names the track; a digest groups its alerts by track.
+ */
 import type { AlertKind } from '../common/alert-kinds';
 
 export const KIND_LABEL: Record<AlertKind, string> = {
@@ -33,7 +36,11 @@ export interface AlertForMail {
   districtCode: string;
   districtName: string;
   runId: number;
+  /** the track whose runs were compared */
+  track: { code: string; name: string };
 }
+
+const q = (track: { code: string }) => `?track=${encodeURIComponent(track.code)}`;
 
 export function alertSentence(a: AlertForMail): string {
   const d = a.details;
@@ -54,11 +61,12 @@ const CAUTION =
 
 export function instantMail(a: AlertForMail, publicUrl: string, unsubscribeUrl: string) {
   return {
-    subject: `Crestwatch: ${a.districtName} ${KIND_LABEL[a.kind]}`,
+    subject: `Crestwatch, ${a.track.name}: ${a.districtName} ${KIND_LABEL[a.kind]}`,
     text: [
+      `Track: ${a.track.name}.`,
       alertSentence(a),
       '',
-      `District card: ${publicUrl}/district/${encodeURIComponent(a.districtCode)}`,
+      `District card: ${publicUrl}/district/${encodeURIComponent(a.districtCode)}${q(a.track)}`,
       `Published run #${a.runId}.`,
       '',
       CAUTION,
@@ -75,14 +83,20 @@ export function digestMail(
   unsubscribeUrl: string,
   withBrief: boolean,
 ) {
+  const tracks = [...new Map(alerts.map((a) => [a.track.code, a.track])).values()];
+  const names = tracks.map((t) => t.name).join(', ');
   return {
-    subject: `Crestwatch: ${alerts.length} change${alerts.length === 1 ? '' : 's'} in published run #${runId}`,
+    subject: `Crestwatch, ${names}: ${alerts.length} change${alerts.length === 1 ? '' : 's'} in published run #${runId}`,
     text: [
       `Run #${runId} was published. For the districts you follow:`,
+      ...tracks.flatMap((t) => [
+        '',
+        `${t.name} (${publicUrl}/${q(t)}):`,
+        ...alerts
+          .filter((a) => a.track.code === t.code)
+          .map((a) => `• ${alertSentence(a)} ${publicUrl}/district/${encodeURIComponent(a.districtCode)}${q(t)}`),
+      ]),
       '',
-      ...alerts.map((a) => `• ${alertSentence(a)}`),
-      '',
-      `Open Crestwatch: ${publicUrl}/`,
       withBrief ? 'The region brief is attached.' : '',
       '',
       CAUTION,

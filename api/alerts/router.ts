@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { districtCode, idParams } from '../http/params';
+import { districtCode, idParams, trackCode } from '../http/params';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import * as service from './service';
 import { AlertFeedResponseSchema, DistrictAlertsResponseSchema } from '../../contracts/alerts';
@@ -18,6 +18,7 @@ export function alertRoutes({ db }: AppContext): RouteSpec[] {
       schemas: {
         query: z.object({
           district: districtCode.optional(),
+          track: trackCode.optional(),
           unread: z.enum(['true', 'false']).optional(),
           limit: z.coerce.number().int().min(1).max(500).default(100),
         }),
@@ -25,6 +26,7 @@ export function alertRoutes({ db }: AppContext): RouteSpec[] {
       handler: async ({ query }, req) => {
         const alerts = await service.feed(db, callerOf(req)!, {
           districtCode: query.district,
+          track: query.track,
           limit: query.limit,
           unreadOnly: query.unread === 'true',
         });
@@ -50,12 +52,17 @@ export function alertRoutes({ db }: AppContext): RouteSpec[] {
       answer: DistrictAlertsResponseSchema,
       allow: SIGNED_IN,
       tag: 'alerts',
-      summary: 'Every alert published for one district, newest first',
+      summary: 'Every alert published for one district (optionally one track’s), newest first',
       schemas: {
         params: z.object({ code: districtCode }),
-        query: z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) }),
+        query: z.object({
+          limit: z.coerce.number().int().min(1).max(200).default(50),
+          track: trackCode.optional(),
+        }),
       },
-      handler: async ({ params, query }) => ({ alerts: await service.districtAlerts(db, params.code, query.limit) }),
+      handler: async ({ params, query }) => ({
+        alerts: await service.districtAlerts(db, params.code, query.limit, query.track),
+      }),
     }),
   ];
 }

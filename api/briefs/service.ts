@@ -85,7 +85,9 @@ export async function districtBrief(db: Knex, code: string, runId?: number): Pro
 
 export async function regionBrief(db: Knex, runId?: number): Promise<RegionBriefContent> {
   const run = await publishedRun(db, runId);
-  const previous = run.publishedAt ? await estimates.latestPublished(db, { publishedAt: run.publishedAt }) : null;
+  const previous = run.publishedAt
+    ? await estimates.latestPublished(db, { publishedAt: run.publishedAt }, run.trackId)
+    : null;
   const [records, districts, current, previousRows, settings, src] = await Promise.all([
     summaryRecords(db, run.id),
     districtNames(db),

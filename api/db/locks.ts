@@ -14,6 +14,8 @@ export const LOCKS = {
   publish: 20261203,
   /** Creating the default model spec on first use. */
   defaultSpec: 20261204,
+  /** Creating the first track (the headline) on first use. */
+  headlineTrack: 20261205,
 } as const;
 
 export type LockName = keyof typeof LOCKS;

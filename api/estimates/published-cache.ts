@@ -1,6 +1,6 @@
 /**
- * Published answers (region, district list, card, history) change only when a run is
- * published, a note is edited, data are loaded or reverted, or districts are added. Each is
+ * Published answers (region, district list, card, history; each per track) change only when
+ * a run of any track is published, a track changes, a note is edited, data are loaded or reverted, or districts are added. Each is
  * built once per version and kept per process as its serialised JSON; the ETag names the
  * version, so a device that already holds it gets `304 Not Modified` and no body at all.
  * `Cache-Control: private, no-cache` makes browsers ask every time (cheap: one small
@@ -9,6 +9,7 @@
 import { createHash } from 'node:crypto';
 import type { Request, Response } from 'express';
 import type { Knex } from 'knex';
+import { headlineTrack } from '../tracks/service';
 import { publishedVersion } from './store';
 
 /** Answers kept per process; the oldest go first (a region of 3,000 districts holds ~3,000 cards). */
@@ -35,7 +36,13 @@ export async function sendPublished(
   key: string,
   build: () => Promise<unknown>,
 ): Promise<void> {
-  const version = await publishedVersion(db);
+  const first = await publishedVersion(db);
+  let version = first.version;
+  if (first.tracks === 0) {
+    // The first read of a new region makes the headline track (the answer names it): version it after that.
+    await headlineTrack(db);
+    ({ version } = await publishedVersion(db));
+  }
   const etag = `"p-${createHash('sha1').update(`${key}\n${version}`).digest('base64url').slice(0, 22)}"`;
   res.set('ETag', etag);
   res.set('Cache-Control', 'private, no-cache');

@@ -1,5 +1,5 @@
 import type { AppContext } from '../context';
-import { districtParams } from '../http/params';
+import { districtParams, trackQuery } from '../http/params';
 import { route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { sendPublished } from './published-cache';
 import * as service from './service';
@@ -10,7 +10,9 @@ import {
   RegionResponseSchema,
 } from '../../contracts/estimates';
 
-const byCode = { params: districtParams };
+const byCode = { params: districtParams, query: trackQuery };
+/** The cache key of a read: the route, its parameters and the track asked for ('' = the headline). */
+const keyOf = (what: string, track?: string) => `${what} track=${track ?? ''}`;
 
 export function estimateRoutes({ db }: AppContext): RouteSpec[] {
   return [
@@ -21,7 +23,9 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       tag: 'districts',
       summary: 'Every district with its years covered, latest values and standing in the latest published run',
       answer: DistrictListResponseSchema,
-      handler: (_input, req, res) => sendPublished(db, req, res, 'districts', () => service.listDistricts(db)),
+      schemas: { query: trackQuery },
+      handler: ({ query }, req, res) =>
+        sendPublished(db, req, res, keyOf('districts', query.track), () => service.listDistricts(db, query.track)),
     }),
     route({
       method: 'get',
@@ -30,8 +34,10 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'estimates',
       summary:
-        'The region in the latest published run: each district’s standing, counts per standing, the pooled curve',
-      handler: (_input, req, res) => sendPublished(db, req, res, 'region', () => service.region(db)),
+        'The region in a track’s latest published run (?track=, else the headline track): each district’s standing, counts per standing, the pooled curve',
+      schemas: { query: trackQuery },
+      handler: ({ query }, req, res) =>
+        sendPublished(db, req, res, keyOf('region', query.track), () => service.region(db, query.track)),
     }),
     route({
       method: 'get',
@@ -40,10 +46,12 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'estimates',
       summary:
-        'A district’s published estimate (card): curve, threshold and interval, standing, sensitivity variants, note',
+        'A district’s published estimate in a track (card; ?track=, else the headline): curve, threshold and interval, standing, variants, note, and a row per shown track',
       schemas: byCode,
-      handler: ({ params }, req, res) =>
-        sendPublished(db, req, res, `estimate ${params.code}`, () => service.districtEstimate(db, params.code)),
+      handler: ({ params, query }, req, res) =>
+        sendPublished(db, req, res, keyOf(`estimate ${params.code}`, query.track), () =>
+          service.districtEstimate(db, params.code, query.track),
+        ),
     }),
     route({
       method: 'get',
@@ -51,10 +59,12 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       answer: DistrictHistoryResponseSchema,
       allow: SIGNED_IN,
       tag: 'estimates',
-      summary: 'A district’s estimates across published runs, newest first',
+      summary: 'A district’s estimates across a track’s published runs (?track=, else the headline), newest first',
       schemas: byCode,
-      handler: ({ params }, req, res) =>
-        sendPublished(db, req, res, `history ${params.code}`, () => service.districtHistory(db, params.code)),
+      handler: ({ params, query }, req, res) =>
+        sendPublished(db, req, res, keyOf(`history ${params.code}`, query.track), () =>
+          service.districtHistory(db, params.code, query.track),
+        ),
     }),
   ];
 }

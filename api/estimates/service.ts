@@ -1,18 +1,24 @@
 /**
- * What officials see: the latest published run only. The region's standings, the district
- * list with each standing, one district's published estimate with its sensitivity variants,
- * and a district's history across published runs. Also what alerts compare between two
- * published runs.
+ * What officials see: each track's latest published run only (the headline track when a
+ * read names none). The region's standings, the district list with each standing, one
+ * district's published estimate with its sensitivity variants and a row per shown track,
+ * and a district's history across a track's published runs. Also what alerts compare
+ * between two published runs of one track.
  */
 import type { Knex } from 'knex';
 import { districtByCode, districtNames, districtSummaries } from '../districts/service';
+import { indicatorLabels, resolveTrack, shownTracks, trackRef, type TrackRow } from '../tracks/service';
+import type { IndicatorLabel } from '../../contracts/tracks';
 import type { EstimateRecord } from '../runs/estimate-record';
 import { correctionNotice } from '../runs/corrections';
 import * as store from './store';
 
 export type { ComparableEstimate, EstimateListRow, PublishedRun } from './store';
 
-export function publishedRunMeta(run: store.PublishedRun) {
+export function publishedRunMeta(
+  run: store.PublishedRun,
+  units: { emissions: IndicatorLabel; driver: IndicatorLabel },
+) {
   return {
     id: run.id,
     publishedAt: run.publishedAt,
@@ -22,6 +28,7 @@ export function publishedRunMeta(run: store.PublishedRun) {
     dataVersion: run.dataVersion,
     dataHash: run.dataHash,
     softwareVersion: run.softwareVersion,
+    units,
   };
 }
 export type PublishedRunMeta = ReturnType<typeof publishedRunMeta>;
@@ -58,9 +65,23 @@ function nullsToDefaults(s: Record<string, unknown>): Record<string, unknown> {
   return out;
 }
 
-/** The latest published run, or the latest published before `before.publishedAt`. */
-export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<store.PublishedRun | null> {
-  return store.latestPublished(db, before);
+/** A published run's meta with its indicators' labels (units) from the catalogue. */
+export async function runMeta(db: Knex, run: store.PublishedRun): Promise<PublishedRunMeta> {
+  const { emissions, driver } = run.spec.selection;
+  const labels = await indicatorLabels(db, [emissions, driver]);
+  return publishedRunMeta(run, { emissions: labels.get(emissions)!, driver: labels.get(driver)! });
+}
+
+/**
+ * A track's latest published run (the headline track's when `trackId` is not given), or
+ * its latest published before `before.publishedAt`.
+ */
+export async function latestPublished(
+  db: Knex,
+  before?: { publishedAt: string },
+  trackId?: number,
+): Promise<store.PublishedRun | null> {
+  return store.latestPublished(db, trackId ?? (await resolveTrack(db)).id, before);
 }
 
 /** A run by id in any state; briefs and exports decide which states they read. */
@@ -80,11 +101,12 @@ export function comparableEstimates(db: Knex, runId: number): Promise<store.Comp
   return store.comparableEstimates(db, runId);
 }
 
-/** Code → summary of the latest published run (for the district list and the region view). */
+/** Code → summary of a track's latest published run (for the district list and the region view). */
 export async function publishedSummaries(
   db: Knex,
+  track?: TrackRow,
 ): Promise<{ run: store.PublishedRun | null; byCode: Map<string, EstimateSummary> }> {
-  const run = await store.latestPublished(db);
+  const run = await store.latestPublished(db, (track ?? (await resolveTrack(db))).id);
   if (!run) return { run: null, byCode: new Map() };
   // Built in SQL (store.ts mainSummaryRows) with the same fields as summaryOf: decoding
   // every full record took over a second for 3,000 districts.
@@ -92,19 +114,21 @@ export async function publishedSummaries(
   return { run, byCode: new Map(rows.map((r) => [r.code, nullsToDefaults(r.summary) as EstimateSummary])) };
 }
 
-/** Every district with its data span, latest values and its standing in the latest published run. */
-export async function listDistricts(db: Knex) {
-  const [districts, published] = await Promise.all([districtSummaries(db), publishedSummaries(db)]);
+/** Every district with its data span, latest values and its standing in a track's latest published run. */
+export async function listDistricts(db: Knex, trackCode?: string) {
+  const track = await resolveTrack(db, trackCode);
+  const [districts, published] = await Promise.all([districtSummaries(db), publishedSummaries(db, track)]);
   return {
     publishedRunId: published.run?.id ?? null,
     /** The run the standings come from (what the region list's header names). */
-    run: published.run ? publishedRunMeta(published.run) : null,
+    run: published.run ? await runMeta(db, published.run) : null,
     districts: districts.map((d) => ({ ...d, estimate: published.byCode.get(d.code) ?? null })),
   };
 }
 
-export async function region(db: Knex) {
-  const { run, byCode } = await publishedSummaries(db);
+export async function region(db: Knex, trackCode?: string) {
+  const track = await resolveTrack(db, trackCode);
+  const { run, byCode } = await publishedSummaries(db, track);
   const districts = await districtNames(db);
   const counts: Record<string, number> = {};
   const rows = districts.map((d: { code: string; name: string }) => {
@@ -115,7 +139,8 @@ export async function region(db: Knex) {
   });
   const pooled = run?.pooled ?? null;
   return {
-    run: run ? publishedRunMeta(run) : null,
+    track: await trackRef(db, track),
+    run: run ? await runMeta(db, run) : null,
     counts,
     pooled:
       pooled && pooled.status === 'ok'
@@ -132,12 +157,38 @@ export async function region(db: Knex) {
   };
 }
 
-export async function districtEstimate(db: Knex, code: string) {
+/** One row per shown track (the headline first): its standing here in its latest published run. */
+async function trackRows(db: Knex, districtId: number) {
+  const tracks = await shownTracks(db);
+  const runIds = tracks.map((t) => t.publishedRunId).filter((id): id is number => id !== null);
+  const rows = await store.mainRowsOfDistrict(db, runIds, districtId);
+  return Promise.all(
+    tracks.map(async (t) => {
+      const row = t.publishedRunId === null ? null : (rows.get(t.publishedRunId) ?? null);
+      return {
+        ...(await trackRef(db, t)),
+        standing: (row?.standing ?? null) as EstimateSummary['standing'] | null,
+        gapPercent: row?.gapPercent ?? null,
+        shape: (row?.shape ?? null) as EstimateSummary['shape'],
+        runId: t.publishedRunId,
+      };
+    }),
+  );
+}
+
+export async function districtEstimate(db: Knex, code: string, trackCode?: string) {
   const d = await districtByCode(db, code);
-  const run = await store.latestPublished(db);
+  const track = await resolveTrack(db, trackCode);
+  const [ref, tracks, run] = await Promise.all([
+    trackRef(db, track),
+    trackRows(db, d.id),
+    store.latestPublished(db, track.id),
+  ]);
   if (!run)
     return {
       district: { code: d.code, name: d.name },
+      track: ref,
+      tracks,
       run: null,
       main: null,
       variants: [],
@@ -153,14 +204,25 @@ export async function districtEstimate(db: Knex, code: string) {
   const variants = records
     .filter((r) => r.variant !== 'main')
     .map((r) => ({ variant: r.variant, ...summaryOf(r), reason: r.reason }));
-  return { district: { code: d.code, name: d.name }, run: publishedRunMeta(run), main, variants, note, correction };
-}
-
-export async function districtHistory(db: Knex, code: string) {
-  const d = await districtByCode(db, code);
-  const rows = await store.publishedHistory(db, d.id);
   return {
     district: { code: d.code, name: d.name },
+    track: ref,
+    tracks,
+    run: await runMeta(db, run),
+    main,
+    variants,
+    note,
+    correction,
+  };
+}
+
+export async function districtHistory(db: Knex, code: string, trackCode?: string) {
+  const d = await districtByCode(db, code);
+  const track = await resolveTrack(db, trackCode);
+  const rows = await store.publishedHistory(db, d.id, track.id);
+  return {
+    district: { code: d.code, name: d.name },
+    track: await trackRef(db, track),
     history: rows.map((r) => ({
       runId: r.runId,
       publishedAt: r.publishedAt,

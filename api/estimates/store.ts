@@ -28,6 +28,8 @@ export interface RunSelection {
  */
 export interface PublishedRun {
   id: number;
+  /** the track the run re-estimated */
+  trackId: number;
   state: string;
   publishedAt: string | null;
   spec: { name: string; model: ModelSpec; selection: RunSelection };
@@ -44,6 +46,7 @@ const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 function toPublishedRun(r: Record<string, unknown>): PublishedRun {
   return {
     id: Number(r.id),
+    trackId: Number(r.track_id),
     state: String(r.state),
     publishedAt: iso(r.published_at),
     spec: r.spec as PublishedRun['spec'],
@@ -54,12 +57,26 @@ function toPublishedRun(r: Record<string, unknown>): PublishedRun {
   };
 }
 
-const RUN_COLUMNS = ['id', 'state', 'published_at', 'spec', 'data_version', 'data_hash', 'software_version', 'pooled'];
+const RUN_COLUMNS = [
+  'id',
+  'track_id',
+  'state',
+  'published_at',
+  'spec',
+  'data_version',
+  'data_hash',
+  'software_version',
+  'pooled',
+];
 
-/** The latest published run (or the latest before a given publish time). */
-export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<PublishedRun | null> {
+/** A track's latest published run (or its latest before a given publish time). */
+export async function latestPublished(
+  db: Knex,
+  trackId: number,
+  before?: { publishedAt: string },
+): Promise<PublishedRun | null> {
   const q = db('runs')
-    .where({ state: 'published' })
+    .where({ state: 'published', track_id: trackId })
     .orderBy([
       { column: 'published_at', order: 'desc' },
       { column: 'id', order: 'desc' },
@@ -141,14 +158,15 @@ export async function noteFor(
     : null;
 }
 
-/** A district's main record in every published run, newest first. */
+/** A district's main record in every published run of a track, newest first. */
 export async function publishedHistory(
   db: Knex,
   districtId: number,
+  trackId: number,
 ): Promise<{ runId: number; publishedAt: string; dataVersion: number; record: EstimateRecord }[]> {
   const rows = await db('run_estimates as e')
     .join('runs as r', 'r.id', 'e.run_id')
-    .where({ 'e.district_id': districtId, 'e.variant': 'main', 'r.state': 'published' })
+    .where({ 'e.district_id': districtId, 'e.variant': 'main', 'r.state': 'published', 'r.track_id': trackId })
     .orderBy('r.published_at', 'desc')
     .select('r.id', 'r.published_at', 'r.data_version', 'e.result');
   return rows.map((r: { id: number; published_at: string; data_version: number; result: EstimateRecord }) => ({
@@ -199,21 +217,48 @@ export async function mainSummaryRows(
   return rows.rows as { code: string; summary: Record<string, unknown> }[];
 }
 
+/** A district's main-estimate columns in each of the given runs (the card's track rows). */
+export async function mainRowsOfDistrict(
+  db: Knex,
+  runIds: number[],
+  districtId: number,
+): Promise<Map<number, { standing: string; shape: string | null; gapPercent: number | null }>> {
+  if (!runIds.length) return new Map();
+  const rows: Record<string, unknown>[] = await db('run_estimates')
+    .whereIn('run_id', runIds)
+    .where({ district_id: districtId, variant: 'main' })
+    .select('run_id', 'standing', 'shape', 'gap_percent');
+  return new Map(
+    rows.map((r) => [
+      Number(r.run_id),
+      { standing: String(r.standing), shape: (r.shape as string | null) ?? null, gapPercent: num(r.gap_percent) },
+    ]),
+  );
+}
+
 /**
- * What every published answer depends on, in one cheap statement: the run officials see,
- * the notes attached to it (count and last edit), the data version (uploads applied) and
+ * What every published answer depends on, in one cheap statement: each track's latest
+ * published run, the tracks themselves (names, states, specs) and the headline setting, the
+ * notes attached to those runs (count and last edit), the data version (uploads applied) and
  * the district table (count and highest id). Any change to one of them changes the answer.
  */
-export async function publishedVersion(db: Knex): Promise<string> {
+export async function publishedVersion(db: Knex): Promise<{ version: string; tracks: number }> {
   const { rows } = await db.raw(`
     WITH latest AS (
-      SELECT id FROM runs WHERE state = 'published' ORDER BY published_at DESC, id DESC LIMIT 1
+      SELECT DISTINCT ON (track_id) id FROM runs WHERE state = 'published'
+       ORDER BY track_id, published_at DESC, id DESC
     )
     SELECT
-      coalesce((SELECT id FROM latest), 0) AS run_id,
-      (SELECT count(*) || '@' || coalesce(max(updated_at)::text, '') FROM run_notes WHERE run_id = (SELECT id FROM latest)) AS notes,
+      coalesce((SELECT string_agg(id::text, ',' ORDER BY id) FROM latest), '') AS runs,
+      (SELECT count(*) || '@' || coalesce(max(updated_at)::text, '') FROM tracks) AS tracks,
+      (SELECT count(*)::int FROM tracks) AS track_count,
+      (SELECT value::text FROM settings WHERE key = 'headline_track') AS headline,
+      (SELECT count(*) || '@' || coalesce(max(updated_at)::text, '') FROM run_notes WHERE run_id IN (SELECT id FROM latest)) AS notes,
       (SELECT coalesce(max(version), 0) FROM uploads WHERE version IS NOT NULL) AS data_version,
       (SELECT count(*) || '@' || coalesce(max(id), 0) FROM districts) AS districts`);
   const r = rows[0];
-  return `run ${r.run_id}; notes ${r.notes}; data ${r.data_version}; districts ${r.districts}`;
+  return {
+    version: `runs ${r.runs}; tracks ${r.tracks}; headline ${r.headline ?? ''}; notes ${r.notes}; data ${r.data_version}; districts ${r.districts}`,
+    tracks: Number(r.track_count),
+  };
 }

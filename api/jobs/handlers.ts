@@ -4,7 +4,7 @@ import type { AppContext } from '../context';
 import { deliverOutbox } from '../outbox/sender';
 import { pruneExpired } from '../retention/service';
 import { runHandlers } from '../runs/jobs';
-import { startRun } from '../runs/service';
+import { startRuns } from '../runs/service';
 import { getSettings } from '../settings/service';
 import type { Handler, Jobs, QueueName } from './boss';
 import { QUEUES } from './boss';
@@ -20,9 +20,10 @@ export function allHandlers(ctx: AppContext): Record<QueueName, Handler> {
     },
     [QUEUES.scheduledRun]: async () => {
       try {
-        await startRun(ctx, null, { trigger: 'schedule' });
+        // One run per active track; a paused or archived track gets none.
+        await startRuns(ctx, null, { track: 'all', trigger: 'schedule' });
       } catch (err) {
-        // A run of the default spec still going is not a failure of the schedule.
+        // Every active track's run still going is not a failure of the schedule.
         if ((err as { code?: string }).code !== 'run_in_progress') throw err;
       }
     },

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { idParams } from '../http/validate';
 import type { AppContext } from '../context';
-import { districtCode } from '../http/params';
+import { districtCode, trackCode } from '../http/params';
 import { callerOf, COMPUTE_LIMIT, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
 import * as service from './service';
 import { NO_CONTENT } from '../../contracts/common';
@@ -49,12 +49,15 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
       statuses: [202],
       allow: STAFF,
       tag: 'runs',
-      summary: 'Re-estimate now: queue a run of a spec (the default when none is named)',
-      schemas: { body: z.object({ specId: z.number().int().positive().optional() }).default({}) },
+      summary:
+        'Re-estimate now: queue a run of one track (its code; the headline track when none is named) or of every active track (`all`)',
+      schemas: { body: z.object({ track: z.union([z.literal('all'), trackCode]).optional() }).default({}) },
       handler: async ({ body }, req, res) => {
-        const run = await service.startRun(ctx, callerOf(req)!, { specId: body.specId });
+        const runs = await service.startRuns(ctx, callerOf(req)!, { track: body.track });
+        const codes = await service.trackCodesOf(db, runs);
+        const started = runs.map((r, i) => ({ id: r.id, state: r.state, track: codes[i] }));
         res.status(202);
-        return { id: run.id, state: run.state };
+        return { ...started[0], runs: started };
       },
     }),
     route({
@@ -138,8 +141,10 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
       schemas: { params: byId },
       handler: async ({ params }, req, res) => {
         const run = await service.reproduceRun(ctx, callerOf(req)!, params.id);
+        const [track] = await service.trackCodesOf(db, [run]);
         res.status(202);
-        return { id: run.id, state: run.state };
+        const started = { id: run.id, state: run.state, track };
+        return { ...started, runs: [started] };
       },
     }),
   ];

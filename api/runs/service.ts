@@ -9,129 +9,18 @@ import * as audit from '../audit/service';
 import type { AppContext } from '../context';
 import { lockForTransaction } from '../db/locks';
 import { districtByCode } from '../districts/service';
-import { ModelSpec } from '../estimation';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
 import { QUEUES } from '../common/queues';
 import { getSettings } from '../settings/service';
-import type { SavedSpec } from '../specs/schema';
-import { defaultSpec, getSpec } from '../specs/service';
-import { SOFTWARE_VERSION } from '../version';
+import { trackById, trackRef, tracksById } from '../tracks/service';
 import { answerChanges, type AnswerChange } from './corrections';
 import { loadSeries } from './data-store';
 import { fitDistrict } from './district-fit';
 import type { EstimateRecord } from './estimate-record';
 import * as store from './store';
 
-async function snapshot(db: Knex, spec: SavedSpec): Promise<store.RunSpec> {
-  const settings = await getSettings(db);
-  return {
-    savedSpecId: spec.id,
-    name: spec.name,
-    selection: {
-      emissions: spec.emissionsIndicator,
-      driver: spec.driverIndicator,
-      controls: spec.controls,
-      firstYear: spec.firstYear,
-      lastYear: spec.lastYear,
-    },
-    model: ModelSpec.parse({
-      form: spec.form,
-      transform: spec.transform,
-      covariance: spec.covariance,
-      lag: spec.lag,
-      intervalMethod: spec.intervalMethod,
-      levelControls: spec.levelControls,
-      controls: spec.controls,
-      minYears: spec.minYears ?? undefined,
-      level: settings.confidenceLevel,
-      alpha: settings.alpha,
-    }),
-  };
-}
-
-function jobsOf(ctx: AppContext) {
-  if (!ctx.jobs) throw new AppError(503, 'jobs_unavailable', 'The job queue is not running on this server.');
-  return ctx.jobs;
-}
-
-async function insertQueued(
-  ctx: AppContext,
-  args: Parameters<typeof store.insertRun>[1],
-  caller: Caller | null,
-): Promise<store.RunRow> {
-  const jobs = jobsOf(ctx);
-  let run: store.RunRow;
-  try {
-    run = await ctx.db.transaction(async (trx) => {
-      const r = await store.insertRun(trx, args);
-      await audit.record(trx, {
-        actorId: caller?.id ?? null,
-        actorEmail: caller?.email ?? null,
-        action: args.trigger === 'reproduce' ? 'run.reproduce' : 'run.start',
-        targetType: 'run',
-        targetId: r.id,
-        after: { specId: r.specId, trigger: r.trigger },
-      });
-      return r;
-    });
-  } catch (err) {
-    if ((err as { code?: string }).code === '23505') {
-      const active = await store.activeRunForSpec(ctx.db, args.specId);
-      throw new AppError(
-        409,
-        'run_in_progress',
-        `Run #${active?.id ?? '?'} of this spec is still ${active?.state ?? 'active'}; wait for it to finish.`,
-        { runId: active?.id },
-      );
-    }
-    throw err;
-  }
-  await jobs.send(QUEUES.runStart, { runId: run.id });
-  jobs.notify(QUEUES.runStart);
-  return run;
-}
-
-export async function startRun(
-  ctx: AppContext,
-  caller: Caller | null,
-  input: { specId?: number; trigger?: 'manual' | 'schedule' },
-): Promise<store.RunRow> {
-  const spec = input.specId ? await getSpec(ctx.db, input.specId) : await defaultSpec(ctx.db);
-  if (spec.archived) throw new AppError(409, 'spec_archived', `Spec "${spec.name}" is archived.`);
-  return insertQueued(
-    ctx,
-    {
-      specId: spec.id,
-      spec: await snapshot(ctx.db, spec),
-      trigger: input.trigger ?? 'manual',
-      requestedBy: caller?.id ?? null,
-      softwareVersion: SOFTWARE_VERSION,
-    },
-    caller,
-  );
-}
-
-/** Re-executes a run from its recorded spec, data version and data hash. */
-export async function reproduceRun(ctx: AppContext, caller: Caller, runId: number): Promise<store.RunRow> {
-  const original = await mustFind(ctx.db, runId);
-  if (original.dataVersion === null || !original.dataHash)
-    throw new AppError(409, 'not_reproducible', `Run #${runId} never read its data.`);
-  return insertQueued(
-    ctx,
-    {
-      specId: original.specId,
-      spec: original.spec,
-      trigger: 'reproduce',
-      requestedBy: caller.id,
-      softwareVersion: SOFTWARE_VERSION,
-      reproducesRunId: original.id,
-      dataVersion: original.dataVersion,
-      dataHash: original.dataHash,
-    },
-    caller,
-  );
-}
+export { reproduceRun, startRun, startRuns } from './start';
 
 async function mustFind(db: Knex, id: number): Promise<store.RunRow> {
   const run = await store.findRun(db, id);
@@ -175,6 +64,7 @@ export async function runView(db: Knex, id: number) {
     id: run.id,
     state: run.state,
     trigger: run.trigger,
+    track: await trackRef(db, await trackById(db, run.trackId)),
     spec: run.spec,
     specId: run.specId,
     dataVersion: run.dataVersion,
@@ -206,10 +96,13 @@ export async function runView(db: Knex, id: number) {
 }
 
 export async function listRuns(db: Knex, limit: number) {
-  return (await store.listRuns(db, limit)).map((r) => ({
+  const [runs, tracks] = await Promise.all([store.listRuns(db, limit), tracksById(db)]);
+  return runs.map((r) => ({
     id: r.id,
     state: r.state,
     trigger: r.trigger,
+    track: tracks.get(r.trackId)!.code,
+    trackName: tracks.get(r.trackId)!.name,
     specName: r.spec.name,
     createdAt: r.createdAt,
     finishedAt: r.finishedAt,
@@ -242,6 +135,7 @@ export async function reviewRows(db: Knex, id: number) {
   const prevById = new Map(prevRows.map((p) => [p.districtId, p]));
   return {
     runId: id,
+    track: await trackRef(db, await trackById(db, run.trackId)),
     previousRunId: previous?.id ?? null,
     thresholdShiftPercent: settings.thresholdShiftPercent,
     districts: rows.map((r) => {
@@ -261,8 +155,8 @@ export async function reviewRows(db: Knex, id: number) {
 
 async function previousPublishedFor(db: Knex, run: store.RunRow) {
   return run.state === 'published' && run.publishedAt
-    ? store.latestPublished(db, { publishedAt: run.publishedAt })
-    : store.latestPublished(db);
+    ? store.latestPublished(db, run.trackId, { publishedAt: run.publishedAt })
+    : store.latestPublished(db, run.trackId);
 }
 
 async function districtId(db: Knex, code: string): Promise<number> {
@@ -325,7 +219,8 @@ export async function publishRun(ctx: AppContext, caller: Caller, id: number) {
     if (!run) throw new NotFoundError(`No run ${id}`, { id });
     if (run.state !== 'in_review')
       throw new AppError(409, 'not_in_review', `Run #${id} is ${run.state}; only a run in review can be published.`);
-    const previous = await store.latestPublished(trx);
+    // Only the same track's previous publish: no alert ever compares two tracks.
+    const previous = await store.latestPublished(trx, run.trackId);
     const settings = await getSettings(trx);
     await store.transition(trx, id, ['in_review'], 'published', { published_at: trx.fn.now(), reviewed_by: caller.id });
     const published = (await store.findRun(trx, id))!;
@@ -376,9 +271,15 @@ export async function addNote(db: Knex, caller: Caller, id: number, code: string
   });
 }
 
-/** The id of the run officials see now (null before the first publish). */
+/** The id of the newest publish of any track (null before the first): changes whenever any track publishes. */
 export async function latestPublishedRunId(db: Knex): Promise<number | null> {
-  return (await store.latestPublished(db))?.id ?? null;
+  return (await store.latestPublished(db, null))?.id ?? null;
+}
+
+/** The track code of each run, in order. */
+export async function trackCodesOf(db: Knex, runs: { trackId: number }[]): Promise<string[]> {
+  const tracks = await tracksById(db);
+  return runs.map((r) => tracks.get(r.trackId)!.code);
 }
 
 /** The data a run reads, for the what-if fit of one district on the current data. */

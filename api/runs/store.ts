@@ -26,6 +26,8 @@ export interface RunSpec {
 
 export interface RunRow {
   id: number;
+  /** the track the run re-estimates */
+  trackId: number;
   specId: number;
   spec: RunSpec;
   state: RunState;
@@ -57,6 +59,7 @@ const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 function toRun(r: Record<string, unknown>): RunRow {
   return {
     id: Number(r.id),
+    trackId: Number(r.track_id),
     specId: Number(r.spec_id),
     spec: r.spec as RunSpec,
     state: r.state as RunState,
@@ -85,6 +88,7 @@ function toRun(r: Record<string, unknown>): RunRow {
 export async function insertRun(
   db: Knex,
   r: {
+    trackId: number;
     specId: number;
     spec: RunSpec;
     trigger: string;
@@ -97,6 +101,7 @@ export async function insertRun(
 ): Promise<RunRow> {
   const [row] = await db('runs')
     .insert({
+      track_id: r.trackId,
       spec_id: r.specId,
       spec: JSON.stringify(r.spec),
       trigger: r.trigger,
@@ -251,7 +256,12 @@ export async function mainRecords(
   }));
 }
 
-export async function latestPublished(db: Knex, before?: { publishedAt: string }): Promise<RunRow | null> {
+/** The latest published run of a track (any track when `trackId` is null), or the latest before a publish time. */
+export async function latestPublished(
+  db: Knex,
+  trackId: number | null,
+  before?: { publishedAt: string },
+): Promise<RunRow | null> {
   const q = db('runs')
     .where({ state: 'published' })
     .orderBy([
@@ -259,13 +269,14 @@ export async function latestPublished(db: Knex, before?: { publishedAt: string }
       { column: 'id', order: 'desc' },
     ])
     .first();
+  if (trackId !== null) q.where({ track_id: trackId });
   if (before) q.where('published_at', '<', before.publishedAt);
   const r = await q;
   return r ? toRun(r) : null;
 }
 
-export async function activeRunForSpec(db: Knex, specId: number): Promise<RunRow | null> {
-  const r = await db('runs').where({ spec_id: specId }).whereIn('state', ['queued', 'running']).first();
+export async function activeRunForTrack(db: Knex, trackId: number): Promise<RunRow | null> {
+  const r = await db('runs').where({ track_id: trackId }).whereIn('state', ['queued', 'running']).first();
   return r ? toRun(r) : null;
 }
 

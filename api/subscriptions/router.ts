@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { districtCode, idParams } from '../http/params';
+import { districtCode, idParams, trackCode } from '../http/params';
 import { callerOf, route, SIGNED_IN, type RouteSpec } from '../http/routes';
 import { ALERT_KINDS } from '../common/alert-kinds';
 import { confirmPage, resultPage } from './pages';
@@ -14,6 +14,8 @@ const body = z.object({
   kinds: z.array(z.enum(ALERT_KINDS)).default([]),
   delivery: z.enum(['instant', 'digest']).default('instant'),
   attachBrief: z.boolean().default(false),
+  /** 'all' (every track, including tracks created later) or the chosen track codes */
+  tracks: z.union([z.literal('all'), z.array(trackCode).min(1).max(100)]).default('all'),
 });
 
 export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
@@ -35,7 +37,7 @@ export function subscriptionRoutes({ db, config }: AppContext): RouteSpec[] {
       allow: SIGNED_IN,
       tag: 'alerts',
       summary:
-        'Subscribe to a district, a set of districts or the region: alert kinds, instant or digest, brief attached',
+        'Subscribe to a district, a set of districts or the region, in all tracks or chosen ones: alert kinds, instant or digest, brief attached',
       schemas: { body },
       handler: async ({ body }, req, res) => {
         res.status(201);

@@ -1,10 +1,14 @@
-/** Subscriptions to alerts: a district, a set of districts, or the whole region. */
+/**
+ * Subscriptions to alerts: a district, a set of districts, or the whole region; in every
+ * track ('all', including tracks created later) or in the tracks chosen.
+ */
 import type { Knex } from 'knex';
 import type { Config } from '../config';
 import { districtsByCodes } from '../districts/service';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
 import { ALERT_KINDS, type AlertKind } from '../common/alert-kinds';
+import { trackIds } from '../tracks/service';
 import * as store from './store';
 import { checkUnsubscribeToken, unsubscribeToken } from './token';
 
@@ -16,6 +20,7 @@ export interface SubscriptionInput {
   kinds: AlertKind[];
   delivery: 'instant' | 'digest';
   attachBrief: boolean;
+  tracks: 'all' | string[];
 }
 
 export const publicSubscription = (s: store.SubscriptionRow) => ({
@@ -25,8 +30,12 @@ export const publicSubscription = (s: store.SubscriptionRow) => ({
   kinds: s.kinds,
   delivery: s.delivery,
   attachBrief: s.attachBrief,
+  tracks: s.allTracks ? ('all' as const) : s.trackCodes,
   createdAt: s.createdAt,
 });
+
+/** Whether a subscription covers an alert of this track. */
+export const coversTrack = (s: store.SubscriptionRow, trackId: number) => s.allTracks || s.trackIds.includes(trackId);
 
 export async function listOwn(db: Knex, caller: Caller) {
   return (await store.listForUser(db, caller.id)).map(publicSubscription);
@@ -41,7 +50,12 @@ export async function subscribe(db: Knex, caller: Caller, input: SubscriptionInp
   if (input.scope === 'districts' && codes.length < 1)
     throw new AppError(400, 'invalid_request', 'Name at least one district.');
   const found = await districtsByCodes(db, codes);
+  const tracks = input.tracks === 'all' ? [] : await trackIds(db, input.tracks);
+  if (input.tracks !== 'all' && !tracks.length)
+    throw new AppError(400, 'invalid_request', 'Name at least one track, or choose all tracks.', { field: 'tracks' });
   const id = await store.insert(db, {
+    allTracks: input.tracks === 'all',
+    trackIds: tracks,
     userId: caller.id,
     scope: input.scope,
     districtIds: found.map((f) => f.id),

@@ -10,10 +10,15 @@ export interface SubscriptionRow {
   kinds: AlertKind[];
   delivery: 'instant' | 'digest';
   attachBrief: boolean;
+  /** every track (including tracks created later), or only those in trackIds */
+  allTracks: boolean;
+  trackIds: number[];
+  trackCodes: string[];
   createdAt: string;
 }
 
-const select = `s.*, coalesce((SELECT array_agg(d.code ORDER BY d.code) FROM districts d WHERE d.id = ANY(s.district_ids)), '{}') AS district_codes`;
+const select = `s.*, coalesce((SELECT array_agg(d.code ORDER BY d.code) FROM districts d WHERE d.id = ANY(s.district_ids)), '{}') AS district_codes,
+  coalesce((SELECT array_agg(t.code ORDER BY t.id) FROM tracks t WHERE t.id = ANY(s.track_ids)), '{}') AS track_codes`;
 
 function toRow(r: Record<string, unknown>): SubscriptionRow {
   return {
@@ -25,6 +30,9 @@ function toRow(r: Record<string, unknown>): SubscriptionRow {
     kinds: r.kinds as AlertKind[],
     delivery: r.delivery as SubscriptionRow['delivery'],
     attachBrief: Boolean(r.attach_brief),
+    allTracks: Boolean(r.all_tracks),
+    trackIds: ((r.track_ids as number[] | null) ?? []).map(Number),
+    trackCodes: (r.track_codes as string[] | null) ?? [],
     createdAt: new Date(r.created_at as string).toISOString(),
   };
 }
@@ -40,7 +48,7 @@ export async function find(db: Knex, id: number): Promise<SubscriptionRow | null
 
 export async function insert(
   db: Knex,
-  s: Omit<SubscriptionRow, 'id' | 'createdAt' | 'districtCodes'>,
+  s: Omit<SubscriptionRow, 'id' | 'createdAt' | 'districtCodes' | 'trackCodes'>,
 ): Promise<number> {
   const [r] = await db('subscriptions')
     .insert({
@@ -50,6 +58,8 @@ export async function insert(
       kinds: s.kinds,
       delivery: s.delivery,
       attach_brief: s.attachBrief,
+      all_tracks: s.allTracks,
+      track_ids: s.trackIds,
     })
     .returning('id');
   return Number(r.id);

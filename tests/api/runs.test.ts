@@ -17,6 +17,7 @@ import { createMailer } from '../../api/mail/mailer';
 import { deliverOutbox } from '../../api/outbox/sender';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { defaultSpec } from '../../api/specs/service';
+import { headlineTrack } from '../../api/tracks/service';
 import {
   AlertFeedResponseSchema,
   DistrictAlertsResponseSchema,
@@ -97,13 +98,15 @@ describe('runs', () => {
   let secondRun: number;
   let crossing: { code: string; from: string; to: string };
 
-  it('refuses a second run of the same spec while one is active, and hides estimates until review', async () => {
+  it('refuses a second run of the same track while one is active, and hides estimates until review', async () => {
     // A run that stays queued (no job is sent for it, so no worker can pick it up) makes
     // the refusal deterministic: the second start must be 409, whatever the workers do.
     const spec = await defaultSpec(t.db);
+    const track = await headlineTrack(t.db);
     const [held] = await t
       .db('runs')
       .insert({
+        track_id: track.id,
         spec_id: spec.id,
         spec: JSON.stringify({ savedSpecId: spec.id, name: spec.name }),
         trigger: 'manual',
