@@ -64,7 +64,7 @@ describe('region overview', () => {
     expect(within(screen.getByTestId('region-count-past_turn')).getByText('1')).toBeTruthy();
     expect(within(screen.getByTestId('region-count-not_estimable')).getByText('1')).toBeTruthy();
     expect(within(screen.getByTestId('region-count-at_turn')).getByText('0')).toBeTruthy();
-    expect(screen.getByText(/turning point 24,000 per person \(21,000–28,000\)/)).toBeTruthy();
+    expect(screen.getByText(/turning point 24,000 € per person \(21,000–28,000\)/)).toBeTruthy();
     expect(screen.getByTestId('region-brief-link')).toBeTruthy();
   });
 
