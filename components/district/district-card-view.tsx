@@ -52,7 +52,13 @@ export function DistrictCardView(props: DistrictCardViewProps) {
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.content} testID="district-detail-scroll">
       <View style={styles.column}>
-        {props.showBackLink ? <TextLink href="/" label="All districts" leading="← " /> : null}
+        {props.showBackLink ? (
+          <TextLink
+            href={props.estimate.data ? { pathname: '/', params: { track: props.estimate.data.track.code } } : '/'}
+            label="All districts"
+            leading="← "
+          />
+        ) : null}
         <CardBody {...props} />
       </View>
     </ScrollView>

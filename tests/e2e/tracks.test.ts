@@ -68,7 +68,7 @@ async function get<T>(page: Page, path: string): Promise<T> {
 }
 
 async function send<T = unknown>(page: Page, method: 'POST' | 'PATCH', path: string, body: unknown = {}): Promise<T> {
-  const me = await get<{ csrfToken: string }>(page, '/api/auth/me');
+  const me = await get<{ csrfToken: string }>(page, '/api/me');
   const res = await page.request.fetch(`${h.baseUrl}${path}`, {
     method,
     headers: { 'x-csrf-token': me.csrfToken, 'content-type': 'application/json' },
