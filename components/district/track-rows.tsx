@@ -59,7 +59,7 @@ export function TrackRows({ rows, chosen, onChoose }: TrackRowsProps) {
               {row.standing ? <StandingMark standing={row.standing} size={12} /> : <Text style={styles.none}>–</Text>}
             </View>
             <View style={styles.name}>
-              <Text style={styles.trackName} numberOfLines={1}>
+              <Text style={styles.trackName} numberOfLines={2}>
                 {row.name}
               </Text>
               <Text style={styles.unit} numberOfLines={1}>

@@ -51,7 +51,9 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
         </Text>
         {track ? (
           <Text style={styles.meta} testID="region-track">
-            {`${track.name}: ${track.indicator.name}, in ${track.indicator.unit}`}
+            {track.name === track.indicator.name
+              ? `${track.name}, in ${track.indicator.unit}`
+              : `${track.name}: ${track.indicator.name}, in ${track.indicator.unit}`}
           </Text>
         ) : null}
         {region.status === 'pending' ? (
