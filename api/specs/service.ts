@@ -82,6 +82,14 @@ export async function archiveSpec(db: Knex, caller: Caller, id: number): Promise
         'default_required',
         'The default spec cannot be archived: make another spec the default first.',
       );
+    const tracks = await store.trackCodesUsing(trx, id);
+    if (tracks.length)
+      throw new AppError(
+        409,
+        'spec_in_use',
+        `Spec "${before.name}" is the spec of track ${tracks.join(', ')}: give the track another spec first.`,
+        { tracks },
+      );
     await store.archive(trx, id);
     await audit.record(trx, {
       actorId: caller.id,

@@ -83,3 +83,13 @@ export async function update(db: Knex, id: number, s: SavedSpecInput): Promise<S
 export async function archive(db: Knex, id: number): Promise<void> {
   await db('model_specs').where({ id }).update({ archived: true, is_default: false, updated_at: db.fn.now() });
 }
+
+/** Codes of the tracks (not archived) whose next run uses this spec. */
+export async function trackCodesUsing(db: Knex, specId: number): Promise<string[]> {
+  const rows: { code: string }[] = await db('tracks')
+    .where({ spec_id: specId })
+    .whereNot('state', 'archived')
+    .orderBy('code')
+    .select('code');
+  return rows.map((r) => String(r.code));
+}

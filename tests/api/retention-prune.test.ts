@@ -90,9 +90,14 @@ beforeAll(async () => {
       covariance: 'hc1',
     })
     .returning('id');
+  const [track] = await t
+    .db('tracks')
+    .insert({ code: 'retention', name: 'retention test', emissions_indicator: 'co2', spec_id: spec.id })
+    .returning('id');
   const [run] = await t
     .db('runs')
     .insert({
+      track_id: track.id,
       spec_id: spec.id,
       spec: JSON.stringify({}),
       state: 'published',
