@@ -14,6 +14,7 @@ import { Button } from '@/components/ui/button';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { formatDateTime, formatRelative } from '@/lib/format-time';
+import { shownTracks } from '@/lib/track-choice';
 import type { RunListItem, RunStarted } from '@/contracts/runs';
 import type { SettingsResponse } from '@/contracts/settings';
 import type { Track } from '@/contracts/tracks';
@@ -104,7 +105,7 @@ export function RunsScreen({ runs, tracks, settings, onStart, onOpen }: RunsScre
   const [picked, setPicked] = useState<string | null>(null);
   const [start, setStart] = useState<{ busy: boolean; error?: unknown; success?: string }>({ busy: false });
   // Paused tracks get no scheduled runs but can still be re-estimated by hand; archived ones cannot.
-  const open = (tracks.data ?? []).filter((t) => t.state !== 'archived');
+  const open = shownTracks(tracks.data ?? []);
   const active = open.filter((t) => t.state === 'active');
   const headline = open.find((t) => t.headline) ?? open[0];
   const chosen = picked ?? headline?.code ?? null;

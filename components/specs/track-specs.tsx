@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { Pill } from '@/components/ui/pill';
 import type { SavedSpec } from '@/contracts/settings';
 import type { Track } from '@/contracts/tracks';
+import { shownTracks } from '@/lib/track-choice';
 
 export type TrackSpecsProps = {
   tracks: QueryState<Track[]>;
@@ -21,7 +22,7 @@ export type TrackSpecsProps = {
 /** "Tracks and their specs": one box per open track. */
 export function TrackSpecs({ tracks, specs, onChangeSpec }: TrackSpecsProps) {
   if (tracks.status !== 'success' || !tracks.data) return null;
-  const open = tracks.data.filter((t) => t.state !== 'archived');
+  const open = shownTracks(tracks.data);
   if (open.length === 0) return null;
   return (
     <View style={styles.list} testID="track-specs">
