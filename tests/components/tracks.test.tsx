@@ -1,6 +1,9 @@
 // The track switcher (the URL's ?track= wins over the device's memory, which wins over the
 // headline track) and the district card's rows per track, over mocked API answers.
+import { render } from '@testing-library/react-native';
 import { act, fireEvent, screen, waitFor, within } from 'expo-router/testing-library';
+
+import { IndicatorSources } from '@/components/method/indicator-sources';
 
 import { apiGet } from '@/lib/api-client';
 import { chosenTrack, requestedTrack, shownTracks, withTrack } from '@/lib/track-choice';
@@ -202,5 +205,42 @@ describe('district card rows per track', () => {
     const empty = await screen.findByTestId('no-published-estimate');
     expect(within(empty).getByText('No published run for SO₂ per person yet')).toBeTruthy();
     expect(screen.getByTestId('track-rows')).toBeTruthy();
+  });
+});
+
+describe('the method page’s series and sources', () => {
+  it('gives each catalogue indicator its unit, publisher and terms, and names the tracks watching it', () => {
+    const catalogue = [
+      {
+        code: 'emissions_pc',
+        name: 'CO₂ emissions per person',
+        unit: 't CO₂ per person',
+        description: '',
+        mustBePositive: true,
+        derivation: null,
+      },
+      {
+        code: 'income_pc',
+        name: 'Real income per person',
+        unit: '€ per person',
+        description: '',
+        mustBePositive: true,
+        derivation: null,
+      },
+    ];
+    render(
+      <IndicatorSources
+        indicators={{ status: 'success', data: catalogue, error: null, isFetching: false, refetch: jest.fn() } as never}
+        tracks={tracks}
+      />,
+    );
+    const co2 = within(screen.getByTestId('indicator-source-emissions_pc'));
+    // Source and licence of the CO₂ indicator as the track list labels it (support/estimates.ts co2Indicator).
+    expect(co2.getByText('Watched as CO₂ per person.')).toBeTruthy();
+    expect(co2.getByText('Published by: Regional inventory office')).toBeTruthy();
+    expect(co2.getByText('Terms of use: CC BY 4.0')).toBeTruthy();
+    const income = within(screen.getByTestId('indicator-source-income_pc'));
+    expect(income.getByText('Published by: not recorded in the catalogue')).toBeTruthy();
+    expect(income.queryByText(/^Watched as/)).toBeNull();
   });
 });
