@@ -53,8 +53,7 @@ export function useDistrictEstimateQuery(code: string, track: string | null = nu
 export function useDistrictHistoryQuery(code: string, enabled = true, track: string | null = null) {
   return useQuery({
     queryKey: estimateKeys.history(code, track),
-    queryFn: ({ signal }) =>
-      apiGet(path(code, 'history', track), { signal, schema: DistrictHistoryResponseSchema }),
+    queryFn: ({ signal }) => apiGet(path(code, 'history', track), { signal, schema: DistrictHistoryResponseSchema }),
     staleTime: STALE_TIMES.estimate,
     enabled: enabled && code !== '',
   });

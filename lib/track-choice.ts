@@ -9,9 +9,7 @@ export const TRACK_MEMORY_KEY = 'crestwatch.track';
 
 /** Tracks officials see: active and paused ones (archived tracks leave their screens), the headline first. */
 export function shownTracks(tracks: readonly Track[]): Track[] {
-  return tracks
-    .filter((t) => t.state !== 'archived')
-    .sort((a, b) => Number(b.headline) - Number(a.headline));
+  return tracks.filter((t) => t.state !== 'archived').sort((a, b) => Number(b.headline) - Number(a.headline));
 }
 
 function clean(code: string | null | undefined): string | null {

@@ -11,12 +11,12 @@ import {
   useDistrictHistoryQuery,
 } from '@/hooks/use-estimates';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
+import { useDistrictSubscriptionMutation, useSubscriptionsQuery } from '@/hooks/use-subscriptions';
 import { useTrackChoice } from '@/hooks/use-tracks';
 import { earlyFetchScript } from '@/lib/early-fetch';
 
 // Starts the card's request (with the URL's or the device's track) while the page's HTML is still parsing.
 const EARLY = earlyFetchScript(ESTIMATE_ROUTE, estimateApiPath);
-import { useDistrictSubscriptionMutation, useSubscriptionsQuery } from '@/hooks/use-subscriptions';
 
 /** The district card: published estimate, charts, sensitivity, data, history, alerts. */
 export default function DistrictScreen() {

@@ -25,7 +25,9 @@ export function RegionStrip({
           Districts
         </Text>
         <View style={styles.links}>
-          {run ? <ExternalLink path={briefPdfPath.region(track)} label="Region brief" testID="region-brief-link" /> : null}
+          {run ? (
+            <ExternalLink path={briefPdfPath.region(track)} label="Region brief" testID="region-brief-link" />
+          ) : null}
           <TextLink href="/method" label="Method" />
         </View>
       </View>

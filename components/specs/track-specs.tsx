@@ -88,9 +88,7 @@ function TrackSpecRow({
           />
         </>
       ) : (
-        <Text style={styles.hint}>
-          No other saved spec watches {track.indicator.name}; save one to offer it here.
-        </Text>
+        <Text style={styles.hint}>No other saved spec watches {track.indicator.name}; save one to offer it here.</Text>
       )}
       <MutationNotice error={state.error} success={state.success} testID={`track-spec-${track.code}`} />
     </View>
