@@ -27,6 +27,8 @@ export type RunScreenProps = {
   onPublish: () => Promise<PublishAnswer>;
   onDiscard: () => Promise<unknown>;
   onSaveNote: (code: string, note: string) => Promise<unknown>;
+  /** The driver's unit from the indicator catalogue (thresholds are incomes). */
+  incomeUnit?: string;
 };
 
 /**
@@ -58,6 +60,7 @@ function RunBody({
   onPublish,
   onDiscard,
   onSaveNote,
+  incomeUnit,
 }: RunScreenProps) {
   if (run.status === 'pending') {
     return (
@@ -103,6 +106,7 @@ function RunBody({
       review={district}
       onSaveNote={(note) => onSaveNote(selectedCode, note)}
       runClosed={closed}
+      incomeUnit={incomeUnit}
       backHref={wide ? undefined : { pathname: '/runs/[id]', params: { id: String(runId) } }}
     />
   ) : wide ? (
@@ -134,6 +138,7 @@ function RunBody({
           previousRunId={review.data.previousRunId}
           shiftPercent={review.data.thresholdShiftPercent}
           selectedCode={selectedCode}
+          incomeUnit={incomeUnit}
         />
       );
   }
