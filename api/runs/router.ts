@@ -38,9 +38,11 @@ export function runRoutes(ctx: AppContext): RouteSpec[] {
       answer: RunListResponseSchema,
       allow: STAFF,
       tag: 'runs',
-      summary: 'Recent runs, newest first',
-      schemas: { query: z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) }) },
-      handler: async ({ query }) => ({ runs: await service.listRuns(db, query.limit) }),
+      summary: 'Recent runs, newest first (of one track with ?track=)',
+      schemas: {
+        query: z.object({ limit: z.coerce.number().int().min(1).max(200).default(50), track: trackCode.optional() }),
+      },
+      handler: async ({ query }) => ({ runs: await service.listRuns(db, query.limit, query.track) }),
     }),
     route({
       method: 'post',

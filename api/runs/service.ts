@@ -13,7 +13,7 @@ import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
 import { QUEUES } from '../common/queues';
 import { getSettings } from '../settings/service';
-import { trackById, trackRef, tracksById } from '../tracks/service';
+import { resolveTrack, trackById, trackRef, tracksById } from '../tracks/service';
 import { answerChanges, type AnswerChange } from './corrections';
 import { loadSeries } from './data-store';
 import { fitDistrict } from './district-fit';
@@ -95,8 +95,10 @@ export async function runView(db: Knex, id: number) {
   };
 }
 
-export async function listRuns(db: Knex, limit: number) {
-  const [runs, tracks] = await Promise.all([store.listRuns(db, limit), tracksById(db)]);
+/** Recent runs, newest first; of one track when its code is given. */
+export async function listRuns(db: Knex, limit: number, track?: string) {
+  const trackId = track ? (await resolveTrack(db, track)).id : undefined;
+  const [runs, tracks] = await Promise.all([store.listRuns(db, limit, trackId), tracksById(db)]);
   return runs.map((r) => ({
     id: r.id,
     state: r.state,

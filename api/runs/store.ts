@@ -122,8 +122,10 @@ export async function findRun(db: Knex, id: number, forUpdate = false): Promise<
   return r ? toRun(r) : null;
 }
 
-export async function listRuns(db: Knex, limit: number): Promise<RunRow[]> {
-  return (await db('runs').orderBy('id', 'desc').limit(limit).select('*')).map(toRun);
+export async function listRuns(db: Knex, limit: number, trackId?: number): Promise<RunRow[]> {
+  const q = db('runs').orderBy('id', 'desc').limit(limit);
+  if (trackId !== undefined) q.where({ track_id: trackId });
+  return (await q.select('*')).map(toRun);
 }
 
 export async function update(db: Knex, id: number, patch: Record<string, unknown>): Promise<void> {

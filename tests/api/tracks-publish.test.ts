@@ -268,6 +268,8 @@ describe('tracks', () => {
     const runs = parseAnswer(RunListResponseSchema, await analyst.get('/api/runs')).runs.filter(
       (r) => r.trigger === 'schedule',
     );
+    const pmRuns = parseAnswer(RunListResponseSchema, await analyst.get('/api/runs?track=pm25')).runs;
+    expect(new Set(pmRuns.map((r) => r.track))).toEqual(new Set(['pm25']));
     // Two active tracks (CO2, PM2.5): two runs; the paused track: none.
     expect(runs.map((r) => r.track).sort()).toEqual([co2, 'pm25'].sort());
     // A second tick while they are still going starts nothing more and does not fail.
