@@ -1,5 +1,6 @@
 import { useRouter } from 'expo-router';
 import Head from 'expo-router/head';
+import { useState } from 'react';
 
 import { GatedPage } from '@/components/layout/role-gate';
 import { RunsScreen } from '@/components/runs/runs-screen';
@@ -14,7 +15,9 @@ export default function RunsRoute() {
   const router = useRouter();
   const me = useMeQuery();
   const allowed = can(me.data?.role, 'runs');
-  const runs = useRunsQuery(allowed);
+  // The list shows every track's runs, or one track's (GET /api/runs?track=).
+  const [shown, setShown] = useState<string>('all');
+  const runs = useRunsQuery(allowed, shown === 'all' ? null : shown);
   const tracks = useTracksQuery({ enabled: allowed });
   const settings = useSettingsQuery(allowed);
   const start = useStartRunMutation();
@@ -28,6 +31,8 @@ export default function RunsRoute() {
           <RunsScreen
             runs={runs}
             tracks={tracks}
+            listTrack={shown}
+            onListTrack={setShown}
             settings={settings}
             onStart={(track) => start.mutateAsync(track)}
             onOpen={(id) => router.push({ pathname: '/runs/[id]', params: { id: String(id) } })}

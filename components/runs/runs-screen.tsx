@@ -28,6 +28,9 @@ export type RunsScreenProps = {
   /** Queues one track's run ('all': one per active track) and resolves with the runs started. */
   onStart: (track: string | undefined) => Promise<RunStarted>;
   onOpen: (id: number) => void;
+  /** Which track's runs the list shows ('all': every track's). */
+  listTrack?: string;
+  onListTrack?: (code: string) => void;
 };
 
 const columns: Column<RunListItem>[] = [
@@ -101,7 +104,15 @@ const columns: Column<RunListItem>[] = [
 ];
 
 /** "Re-estimate now", the schedule's next start, and the recent runs. */
-export function RunsScreen({ runs, tracks, settings, onStart, onOpen }: RunsScreenProps) {
+export function RunsScreen({
+  runs,
+  tracks,
+  settings,
+  onStart,
+  onOpen,
+  listTrack = 'all',
+  onListTrack,
+}: RunsScreenProps) {
   const [picked, setPicked] = useState<string | null>(null);
   const [start, setStart] = useState<{ busy: boolean; error?: unknown; success?: string }>({ busy: false });
   // Paused tracks get no scheduled runs but can still be re-estimated by hand; archived ones cannot.
@@ -193,6 +204,15 @@ export function RunsScreen({ runs, tracks, settings, onStart, onOpen }: RunsScre
         </View>
       </Section>
       <Section title="Recent runs">
+        {onListTrack && open.length > 1 ? (
+          <ChoiceGroup
+            label="Show runs of"
+            choices={[{ value: 'all', label: 'Every track' }, ...open.map((t) => ({ value: t.code, label: t.name }))]}
+            value={listTrack}
+            onChange={onListTrack}
+            testID="runs-track"
+          />
+        ) : null}
         {runs.status === 'pending' ? (
           <Skeleton width="100%" height={200} />
         ) : runs.status === 'error' || !runs.data ? (

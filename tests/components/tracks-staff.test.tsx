@@ -93,6 +93,25 @@ describe('re-estimate now', () => {
   });
 });
 
+describe('the runs list per track', () => {
+  it('shows every track’s runs, or one track’s through GET /api/runs?track=', async () => {
+    mockedGet.mockImplementation(
+      answerWith({
+        '/api/me': me('analyst'),
+        '/api/settings': settingsAnswer,
+        '/api/tracks': tracksAnswer,
+        '/api/runs?limit=30': { runs: [] },
+        '/api/runs?limit=30&track=pm25': { runs: [] },
+      }),
+    );
+    renderStaff('/runs');
+    await screen.findByTestId('runs-track');
+    expect(screen.getByTestId('runs-track-all').props.accessibilityState.checked).toBe(true);
+    await act(async () => fireEvent.press(screen.getByTestId('runs-track-pm25')));
+    await waitFor(() => expect(mockedGet.mock.calls.map((c) => c[0])).toContain('/api/runs?limit=30&track=pm25'));
+  });
+});
+
 describe('tracks section of the settings (admin)', () => {
   const answers = {
     '/api/me': me('admin'),
