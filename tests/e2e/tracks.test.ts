@@ -6,7 +6,8 @@
  * the region view (the choice goes into the URL and is remembered on the device; the URL
  * wins over the device), opens a district card on the particle track and reads the rows
  * per track at its top. Screenshots are kept under tests/artifacts/screenshots. No request
- * may leave 127.0.0.1.
+ * may leave 127.0.0.1. The series and track get codes of their own (pm25_invented,
+ * particles), so they stand beside any particle track the demo region brings.
  */
 import type { Page } from 'playwright-core';
 import { DEMO } from '../support/auth';
@@ -27,7 +28,7 @@ beforeAll(async () => {
       (t) => t.headline,
     )!.code;
     await send(page, 'POST', '/api/indicators', {
-      code: 'pm25',
+      code: 'pm25_invented',
       name: 'PM2.5 annual mean',
       unit: 'µg/m³',
       description: 'Invented fine-particle concentrations for the demo region (annual mean).',
@@ -41,13 +42,13 @@ beforeAll(async () => {
       ...input,
       name: 'Fine particles default',
       description: 'The default model for the particle series.',
-      emissionsIndicator: 'pm25',
+      emissionsIndicator: 'pm25_invented',
       isDefault: false,
     });
     await signIn(page, h.baseUrl, DEMO.admin);
-    await send(page, 'POST', '/api/tracks', { code: 'pm25', name: 'Fine particles', specId: saved.spec.id });
+    await send(page, 'POST', '/api/tracks', { code: 'particles', name: 'Fine particles', specId: saved.spec.id });
     await signIn(page, h.baseUrl, DEMO.analyst);
-    const started = await send<{ id: number }>(page, 'POST', '/api/runs', { track: 'pm25' });
+    const started = await send<{ id: number }>(page, 'POST', '/api/runs', { track: 'particles' });
     for (let i = 0; i < 240; i++) {
       const run = await get<{ state: string; error: string | null }>(page, `/api/runs/${started.id}`);
       if (run.state === 'failed') throw new Error(`the particle run failed: ${run.error}`);
@@ -96,7 +97,7 @@ async function uploadParticles(page: Page): Promise<void> {
       if (r.incomePc === null) continue;
       const u = Math.log(r.incomePc / peak);
       const value = 18 * Math.exp(-1.5 * u * u) * (1 + 0.02 * Math.sin(r.year + k));
-      lines.push(`${d.code},pm25,${r.year},${value.toFixed(3)}`);
+      lines.push(`${d.code},pm25_invented,${r.year},${value.toFixed(3)}`);
     }
   }
   await page.goto(`${h.baseUrl}/uploads`);
@@ -123,17 +124,17 @@ describe.each([
       // Neither the URL nor the device names a track: the headline track is on.
       await page.getByTestId('track-switcher').first().waitFor();
       expect(await checked(page, headline)).toBe('true');
-      expect(await checked(page, 'pm25')).toBe('false');
+      expect(await checked(page, 'particles')).toBe('false');
       await page.waitForFunction(() => document.fonts.status === 'loaded');
       await h.shot(page, `tracks-${name}-region-headline`);
 
       // Switching puts the track in the URL and on the device; the list follows it.
-      const reloaded = page.waitForResponse((r) => r.url().endsWith('/api/districts?track=pm25'));
-      await page.getByTestId('track-option-pm25').first().click();
+      const reloaded = page.waitForResponse((r) => r.url().endsWith('/api/districts?track=particles'));
+      await page.getByTestId('track-option-particles').first().click();
       await reloaded;
-      await page.waitForURL(/\?track=pm25$/);
-      expect(await checked(page, 'pm25')).toBe('true');
-      expect(await page.evaluate(() => localStorage.getItem('crestwatch.track'))).toBe('pm25');
+      await page.waitForURL(/\?track=particles$/);
+      expect(await checked(page, 'particles')).toBe('true');
+      expect(await page.evaluate(() => localStorage.getItem('crestwatch.track'))).toBe('particles');
       await page.getByTestId('district-row-D07').waitFor();
       await h.shot(page, `tracks-${name}-region-pm25`);
 
@@ -141,7 +142,7 @@ describe.each([
       await page.goto(`${h.baseUrl}/`);
       await page.getByTestId('track-switcher').first().waitFor();
       await page.waitForFunction(
-        () => document.querySelector('[data-testid="track-option-pm25"]')?.getAttribute('aria-checked') === 'true',
+        () => document.querySelector('[data-testid="track-option-particles"]')?.getAttribute('aria-checked') === 'true',
       );
       // … and the URL wins over the device.
       await page.goto(`${h.baseUrl}/?track=${headline}`);
@@ -150,16 +151,16 @@ describe.each([
           document.querySelector(`[data-testid="track-option-${code}"]`)?.getAttribute('aria-checked') === 'true',
         headline,
       );
-      expect(await checked(page, 'pm25')).toBe('false');
+      expect(await checked(page, 'particles')).toBe('false');
 
       // The card on the particle track: one row per track at the top, the particle card below.
-      await page.goto(`${h.baseUrl}/district/D07?track=pm25`);
+      await page.goto(`${h.baseUrl}/district/D07?track=particles`);
       await page.getByTestId('track-rows').waitFor();
       await page.getByTestId('card-track').waitFor();
       expect(await page.getByTestId('card-track').innerText()).toBe('Fine particles · µg/m³');
       expect(await page.getByTestId(`track-row-${headline}`).count()).toBe(1);
-      expect(await page.getByTestId('track-row-pm25').count()).toBe(1);
-      const pmRow = await page.getByTestId('track-row-pm25').innerText();
+      expect(await page.getByTestId('track-row-particles').count()).toBe(1);
+      const pmRow = await page.getByTestId('track-row-particles').innerText();
       expect(pmRow).toMatch(/Fine particles/);
       expect(pmRow).toMatch(/µg\/m³/);
       expect(pmRow).toMatch(/Approaching|At the turn|Past the turn|No turn|Not estimable/);
