@@ -8,6 +8,7 @@ import { DistrictListPanel } from '@/components/district/district-list-panel';
 import { HeaderArea } from '@/components/layout/header-area';
 import { isRegionRoute } from '@/components/layout/nav-items';
 import { RegionShell } from '@/components/layout/region-shell';
+import { TrackSwitcher } from '@/components/region/track-switcher';
 import { ServerNotice } from '@/components/layout/server-notice';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, space, type } from '@/components/theme';
@@ -20,6 +21,7 @@ import { useHealthQuery } from '@/hooks/use-health';
 import { useLayoutMode, useThirdColumn } from '@/hooks/use-layout-mode';
 import { usePublishedWatch } from '@/hooks/use-published';
 import { usePublishedRunQuery } from '@/hooks/use-region';
+import { useTrackChoice } from '@/hooks/use-tracks';
 import { createQueryClient } from '@/lib/query-client';
 
 export default function RootLayout() {
@@ -54,8 +56,10 @@ function Frame() {
   const markRead = useMarkAlertReadMutation();
   // The list shows beside routes only in the wide layout; on a phone the home route has its own.
   const listShown = withList && mode === 'wide';
-  const districts = useDistrictsQuery({ enabled: listShown });
-  const run = usePublishedRunQuery({ enabled: listShown });
+  // The list follows the chosen track (?track=, else the device's, else the headline).
+  const choice = useTrackChoice({ enabled: listShown });
+  const districts = useDistrictsQuery({ enabled: listShown, track: choice.request });
+  const run = usePublishedRunQuery({ enabled: listShown, track: choice.request });
   return (
     <RegionShell
       mode={mode}
@@ -75,7 +79,20 @@ function Frame() {
       }
       list={
         withList ? (
-          <DistrictListPanel districts={districts} selectedCode={code} level={run.data?.model.level ?? null} />
+          <DistrictListPanel
+            districts={districts}
+            selectedCode={code}
+            level={run.data?.model.level ?? null}
+            track={choice.request}
+            header={
+              <TrackSwitcher
+                tracks={choice.tracks}
+                status={choice.status}
+                chosen={choice.chosen?.code ?? null}
+                onChoose={choice.choose}
+              />
+            }
+          />
         ) : null
       }
       aside={withFeed ? <AlertsFeedColumn feed={feed} onRead={markRead.mutate} /> : null}

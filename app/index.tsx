@@ -6,26 +6,40 @@ import { MapPhoneView } from '@/components/region/map-phone-view';
 import { RegionMap } from '@/components/region/region-map';
 import { RegionOverview } from '@/components/region/region-overview';
 import { RegionStrip } from '@/components/region/region-strip';
+import { TrackSwitcher } from '@/components/region/track-switcher';
 import { DISTRICTS_PATH, useDistrictsQuery } from '@/hooks/use-districts';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
 import { usePublishedRunQuery, useRegionQuery } from '@/hooks/use-region';
+import { useTrackChoice } from '@/hooks/use-tracks';
 import { earlyFetchScript } from '@/lib/early-fetch';
 
-// Starts the list's request while the page's HTML is still parsing.
+// Starts the list's request (with the URL's or the device's track) while the page's HTML is still parsing.
 const EARLY = earlyFetchScript(/^\/$/, () => DISTRICTS_PATH);
 
 /** Home: the region. Phone: the list with the run line; wide: the list is beside, this shows the overview. */
 export default function RegionScreen() {
   const mode = useLayoutMode();
-  const districts = useDistrictsQuery();
+  const choice = useTrackChoice();
+  const track = choice.request;
+  const districts = useDistrictsQuery({ track });
   // The overview (wide) reads the region's pooled curve; the phone home only needs the run.
-  const region = useRegionQuery({ enabled: mode === 'wide' });
-  const run = usePublishedRunQuery();
+  const region = useRegionQuery({ enabled: mode === 'wide', track });
+  const run = usePublishedRunQuery({ track });
   const level = run.data?.model.level ?? null;
   const [view, setView] = useRegionView();
+  const shownTrack = choice.chosen ?? region.data?.track ?? null;
+  const switcher = (
+    <TrackSwitcher
+      tracks={choice.tracks}
+      status={choice.status}
+      chosen={shownTrack?.code ?? null}
+      onChoose={choice.choose}
+    />
+  );
   const header = (
     <>
-      <RegionStrip run={run} />
+      <RegionStrip run={run} track={track} />
+      {switcher}
       <MapListChoice value={view} onChange={setView} />
     </>
   );
@@ -36,11 +50,15 @@ export default function RegionScreen() {
         <script>{EARLY}</script>
       </Head>
       {mode === 'wide' ? (
-        <RegionOverview region={region} districts={districts} map={<RegionMap districts={districts} />} />
+        <RegionOverview
+          region={region}
+          districts={districts}
+          map={<RegionMap districts={districts} track={shownTrack} />}
+        />
       ) : view === 'map' ? (
-        <MapPhoneView header={header} districts={districts} />
+        <MapPhoneView header={header} districts={districts} track={shownTrack} />
       ) : (
-        <DistrictListPanel districts={districts} level={level} header={header} />
+        <DistrictListPanel districts={districts} level={level} header={header} track={track} />
       )}
     </>
   );

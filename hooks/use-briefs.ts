@@ -11,45 +11,56 @@ import {
   type RegionBriefContent,
 } from '@/contracts/briefs';
 import { STALE_TIMES } from '@/lib/stale-times';
+import { withTrack } from '@/lib/track-choice';
 
 export const briefKeysRoot = ['briefs'] as const;
 
 export const briefKeys = {
   all: briefKeysRoot,
-  district: (code: string) => [...briefKeysRoot, 'district', code] as const,
-  region: () => [...briefKeysRoot, 'region'] as const,
+  district: (code: string, track: string | null = null) => [...briefKeysRoot, 'district', code, track] as const,
+  region: (track: string | null = null) => [...briefKeysRoot, 'region', track] as const,
 };
 
-export function fetchDistrictBrief(code: string, signal?: AbortSignal): Promise<DistrictBriefContent> {
-  return apiGet(`/api/briefs/district/${encodeURIComponent(code)}`, { signal, schema: DistrictBriefContentSchema });
+export function fetchDistrictBrief(
+  code: string,
+  track: string | null,
+  signal?: AbortSignal,
+): Promise<DistrictBriefContent> {
+  return apiGet(withTrack(`/api/briefs/district/${encodeURIComponent(code)}`, track), {
+    signal,
+    schema: DistrictBriefContentSchema,
+  });
 }
 
-export function fetchRegionBrief(signal?: AbortSignal): Promise<RegionBriefContent> {
-  return apiGet('/api/briefs/region', { signal, schema: RegionBriefContentSchema });
+export function fetchRegionBrief(track: string | null, signal?: AbortSignal): Promise<RegionBriefContent> {
+  return apiGet(withTrack('/api/briefs/region', track), { signal, schema: RegionBriefContentSchema });
 }
 
-/** PDF paths, for links that open the printable file. */
+/** PDF paths, for links that open the printable file (each for one track; null: the headline track). */
 export const briefPdfPath = {
-  district: (code: string) => `/api/briefs/district/${encodeURIComponent(code)}.pdf`,
-  region: () => '/api/briefs/region.pdf',
+  district: (code: string, track: string | null = null) =>
+    withTrack(`/api/briefs/district/${encodeURIComponent(code)}.pdf`, track),
+  /** the first page shows every track's standing side by side */
+  summary: (code: string) => `/api/briefs/district/${encodeURIComponent(code)}/summary.pdf`,
+  region: (track: string | null = null) => withTrack('/api/briefs/region.pdf', track),
 };
 
-/** A district's brief from the latest published run. */
-export function useDistrictBriefQuery(code: string) {
+/** A district's brief from a track's latest published run. */
+export function useDistrictBriefQuery(code: string, track: string | null = null) {
   return useQuery({
-    queryKey: briefKeys.district(code),
-    queryFn: ({ signal }) => fetchDistrictBrief(code, signal),
+    queryKey: briefKeys.district(code, track),
+    queryFn: ({ signal }) => fetchDistrictBrief(code, track, signal),
     // A brief is the published estimate in words: it changes when a run is published.
     staleTime: STALE_TIMES.estimate,
     enabled: code !== '',
   });
 }
 
-/** The region brief from the latest published run. */
-export function useRegionBriefQuery() {
+/** The region brief from a track's latest published run. */
+export function useRegionBriefQuery(track: string | null = null) {
   return useQuery({
-    queryKey: briefKeys.region(),
-    queryFn: ({ signal }) => fetchRegionBrief(signal),
+    queryKey: briefKeys.region(track),
+    queryFn: ({ signal }) => fetchRegionBrief(track, signal),
     staleTime: STALE_TIMES.estimate,
   });
 }

@@ -10,34 +10,41 @@ import {
 } from '@/contracts/districts';
 import { earlyJson } from '@/lib/early-fetch';
 import { STALE_TIMES } from '@/lib/stale-times';
+import { withTrack } from '@/lib/track-choice';
 
 /** Every districts key starts here, so one invalidation (after an upload) refreshes them all. */
 export const districtKeysRoot = ['districts'] as const;
 
 export const districtKeys = {
   all: districtKeysRoot,
-  list: () => [...districtKeysRoot, 'list'] as const,
+  /** the list with one track's standings (null: the headline track) */
+  list: (track: string | null = null) => [...districtKeysRoot, 'list', track] as const,
   detail: (code: string) => [...districtKeysRoot, 'detail', code] as const,
 };
 
 /** The district list's path; the home route also starts it early from the page's <head>. */
 export const DISTRICTS_PATH = '/api/districts';
 
-export async function fetchDistricts(signal?: AbortSignal): Promise<DistrictListResponse> {
+export async function fetchDistricts(track: string | null, signal?: AbortSignal): Promise<DistrictListResponse> {
   // The home route starts this request from the page's <head> (lib/early-fetch.ts).
-  const early = await earlyJson(DISTRICTS_PATH, DistrictListResponseSchema);
-  return early ?? apiGet(DISTRICTS_PATH, { signal, schema: DistrictListResponseSchema });
+  const path = withTrack(DISTRICTS_PATH, track);
+  const early = await earlyJson(path, DistrictListResponseSchema);
+  return early ?? apiGet(path, { signal, schema: DistrictListResponseSchema });
 }
 
 export function fetchDistrict(code: string, signal?: AbortSignal): Promise<DistrictDetailResponse> {
   return apiGet(`/api/districts/${encodeURIComponent(code)}`, { signal, schema: DistrictDetailResponseSchema });
 }
 
-/** All districts, sorted by name (the server's order); `enabled: false` where no list is shown. */
-export function useDistrictsQuery(options: { enabled?: boolean } = {}) {
+/**
+ * All districts, sorted by name (the server's order), with the standings of `track` (omitted:
+ * the headline track); `enabled: false` where no list is shown.
+ */
+export function useDistrictsQuery(options: { enabled?: boolean; track?: string | null } = {}) {
+  const track = options.track ?? null;
   return useQuery({
-    queryKey: districtKeys.list(),
-    queryFn: ({ signal }) => fetchDistricts(signal),
+    queryKey: districtKeys.list(track),
+    queryFn: ({ signal }) => fetchDistricts(track, signal),
     staleTime: STALE_TIMES.districtList,
     select: (data) => data.districts,
     enabled: options.enabled ?? true,

@@ -4,6 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend } from '@/lib/api-client';
 import { RUN_POLL_MS, STALE_TIMES } from '@/lib/stale-times';
+import { withTrack } from '@/lib/track-choice';
 import {
   DistrictReviewSchema,
   PublishAnswerSchema,
@@ -31,10 +32,11 @@ export const ACTIVE_RUN_STATES: readonly RunState[] = ['queued', 'running'];
 /** States whose estimates can be read. */
 export const REVIEWABLE_RUN_STATES: readonly RunState[] = ['in_review', 'published', 'discarded'];
 
-export function useRunsQuery(enabled = true) {
+/** The recent runs, of one track when `track` is given (the list key is their common prefix). */
+export function useRunsQuery(enabled = true, track: string | null = null) {
   return useQuery({
-    queryKey: runKeys.list(),
-    queryFn: ({ signal }) => apiGet('/api/runs?limit=30', { signal, schema: RunListResponseSchema }),
+    queryKey: [...runKeys.list(), track] as const,
+    queryFn: ({ signal }) => apiGet(withTrack('/api/runs?limit=30', track), { signal, schema: RunListResponseSchema }),
     staleTime: STALE_TIMES.runs,
     select: (data) => data.runs,
     // While a run in the list is working, its state changes by itself.
@@ -81,13 +83,13 @@ export function useRunDistrictQuery(id: number, code: string | null, enabled: bo
   });
 }
 
-/** "Re-estimate now": queues a run of the given spec (the default when none). */
+/** "Re-estimate now": queues a run of one track ('all': one per active track; none: the headline track). */
 export function useStartRunMutation() {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (specId?: number) =>
+    mutationFn: (track?: string) =>
       apiSend('POST', '/api/runs', {
-        json: specId ? { specId } : {},
+        json: track ? { track } : {},
         schema: RunStartedSchema,
       }),
     onSettled: () => client.invalidateQueries({ queryKey: runKeys.list() }),

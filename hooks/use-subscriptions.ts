@@ -46,7 +46,9 @@ export function useDistrictSubscriptionMutation(code: string) {
   return useMutation({
     mutationFn: async (action: { subscribe: true } | { subscribe: false; ids: number[] }) => {
       if (action.subscribe) {
+        // A district followed from its card: every track, including tracks created later.
         const input: SubscriptionInput = {
+          tracks: 'all',
           scope: 'district',
           districtCodes: [code],
           kinds: [],

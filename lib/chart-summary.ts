@@ -4,9 +4,10 @@ import { bandOf, curveChartModel, pathChartModel, thresholdOf } from './chart-mo
 import type { EstimateRecord } from '@/contracts/estimates';
 import { formatLevel, intervalText, levelPercent, METHOD_LABEL, notBoundedText, SHAPE_LABEL } from './estimate-words';
 import { formatEmissions } from './format';
+import { UNKNOWN_UNITS, withUnit, type RunUnits } from './units';
 
 /** The threshold as the chart shows it; `drawn` says whether it fell inside the frame. */
-function thresholdWords(r: EstimateRecord, drawn: boolean): string {
+function thresholdWords(r: EstimateRecord, drawn: boolean, u: RunUnits): string {
   const x = thresholdOf(r);
   if (x === null) return 'No positive threshold is marked.';
   const noun = r.threshold?.kind === 'trough' ? 'low point' : 'turning point';
@@ -16,50 +17,50 @@ function thresholdWords(r: EstimateRecord, drawn: boolean): string {
     const interval = band
       ? `its ${levelPercent(r.model.level)} ${METHOD_LABEL[r.standing.intervalMethod]} interval is ${formatLevel(band.lo)}–${formatLevel(band.hi)}`
       : notBoundedText(r.model.level);
-    return `The ${noun} lies at ${formatLevel(x)} per person${where}, too far from the observed incomes to fall inside the chart (${interval}).`;
+    return `The ${noun} lies at ${withUnit(formatLevel(x), u.incomeUnit)}${where}, too far from the observed incomes to fall inside the chart (${interval}).`;
   }
   const method = METHOD_LABEL[r.standing.intervalMethod];
   if (band) {
-    return `The ${noun} is marked at ${formatLevel(x)} per person${where}, with its ${levelPercent(r.model.level)} ${method} interval (${formatLevel(band.lo)}–${formatLevel(band.hi)}) as a shaded band.`;
+    return `The ${noun} is marked at ${withUnit(formatLevel(x), u.incomeUnit)}${where}, with its ${levelPercent(r.model.level)} ${method} interval (${formatLevel(band.lo)}–${formatLevel(band.hi)}) as a shaded band.`;
   }
   const kind = r.threshold?.fieller.kind ?? null;
   return (
-    `The ${noun} is marked at ${formatLevel(x)} per person${where} as a line without a band: ` +
+    `The ${noun} is marked at ${withUnit(formatLevel(x), u.incomeUnit)}${where} as a line without a band: ` +
     `${notBoundedText(r.model.level)} (${intervalText(kind, r.standing.levelLo, r.standing.levelHi)}).`
   );
 }
 
-export function curveChartSummary(r: EstimateRecord): string {
+export function curveChartSummary(r: EstimateRecord, u: RunUnits = UNKNOWN_UNITS): string {
   const pts = r.points;
   if (pts.length === 0) return 'No observed years to chart.';
   const first = pts[0];
   const last = pts[pts.length - 1];
   const parts = [
-    `Emissions per person against real income per person, both on log scales, for ${pts.length} observed years (${first.year}–${last.year}).`,
+    `${u.emissionsName} against ${u.incomeName.toLowerCase()}, both on log scales, for ${pts.length} observed years (${first.year}–${last.year}).`,
   ];
   if (r.status === 'substitute')
     parts.push('The district’s own series is too short: the regional pooled curve stands in as the fitted line.');
   else if (r.curve.length > 0 && r.shape)
     parts.push(`The fitted curve over the observed incomes: ${SHAPE_LABEL[r.shape.shape].toLowerCase()}.`);
   else parts.push('No fitted curve: the district is not estimable in this run.');
-  if (r.status !== 'not_estimable') parts.push(thresholdWords(r, curveChartModel(r).threshold !== null));
+  if (r.status !== 'not_estimable') parts.push(thresholdWords(r, curveChartModel(r).threshold !== null, u));
   parts.push(
-    `Latest year ${last.year} highlighted: income ${formatLevel(last.x)}, emissions ${formatEmissions(last.y)} t per person.`,
+    `Latest year ${last.year} highlighted: income ${withUnit(formatLevel(last.x), u.incomeUnit)}, ${u.emissionsName.toLowerCase()} ${withUnit(formatEmissions(last.y), u.emissionsUnit)}.`,
   );
   if (r.status === 'ok' && r.pooledCurve.length > 0)
     parts.push('The regional pooled curve is drawn faint for reference.');
   return parts.join(' ');
 }
 
-export function pathChartSummary(r: EstimateRecord): string {
+export function pathChartSummary(r: EstimateRecord, u: RunUnits = UNKNOWN_UNITS): string {
   const pts = r.points;
   if (pts.length === 0) return 'No observed years to chart.';
   const first = pts[0];
   const last = pts[pts.length - 1];
   const parts = [
-    `Real income per person by year on a log scale, ${first.year}–${last.year}: from ${formatLevel(first.x)} to ${formatLevel(last.x)}.`,
+    `${u.incomeName} by year on a log scale, ${first.year}–${last.year}: from ${formatLevel(first.x)} to ${withUnit(formatLevel(last.x), u.incomeUnit)}.`,
   ];
-  if (r.status !== 'not_estimable') parts.push(thresholdWords(r, pathChartModel(r).threshold !== null));
+  if (r.status !== 'not_estimable') parts.push(thresholdWords(r, pathChartModel(r).threshold !== null, u));
   const p = r.projection;
   if (p && r.trendPerYear !== null) {
     const pct = (Math.exp(r.trendPerYear) - 1) * 100;

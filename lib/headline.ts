@@ -12,6 +12,7 @@ import type {
   Standing,
 } from '@/contracts/estimates';
 import { formatLevel, gapWords, levelPercent, notBoundedText, yearWithRange } from './estimate-words';
+import { withUnit } from './units';
 
 export type HeadlineInput = {
   status: EstimateStatus;
@@ -38,6 +39,8 @@ export type HeadlineInput = {
   level: number;
   /** Why the district's own fit failed (not_estimable, substitute). */
   reason: string | null;
+  /** The driver's unit from the catalogue ("constant 2020 currency units per person"); omitted: the figure alone. */
+  incomeUnit?: string;
 };
 
 export type Headline = {
@@ -232,7 +235,7 @@ export function headline(input: HeadlineInput): Headline {
     const projection = projectionClause(input.projection, input.gapPercent);
     notes.push(
       sentence(
-        `The fitted curve would turn at ${formatLevel(input.threshold!)} per person, ${where}; income is ${gapWords(input.gapPercent)} it` +
+        `The fitted curve would turn at ${withUnit(formatLevel(input.threshold!), input.incomeUnit ?? '')}, ${where}; income is ${gapWords(input.gapPercent)} it` +
           (projection ? ` and ${projection.replace(/^income /, '')}` : ''),
       ),
     );

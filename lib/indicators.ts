@@ -10,8 +10,8 @@ export type IndicatorColumn = {
   field: Exclude<keyof SeriesRow, 'year'>;
   /** Header in the series table. */
   short: string;
-  /** Unit in a few characters, under the header and beside list values. */
-  shortUnit: string;
+  /** Unit in a few characters, under the header and beside list values; null: the catalogue's unit as it stands. */
+  shortUnit: string | null;
   format: (value: number) => string;
 };
 
@@ -20,7 +20,8 @@ export const INDICATOR_COLUMNS: readonly IndicatorColumn[] = [
     code: 'emissions_pc',
     field: 'emissionsPc',
     short: 'Emissions',
-    shortUnit: 't CO₂ per person',
+    // Which pollutant and unit this series holds is the catalogue's to say (GET /api/districts/:code `indicators`).
+    shortUnit: null,
     format: formatEmissions,
   },
   { code: 'income_pc', field: 'incomePc', short: 'Income', shortUnit: 'per person, real', format: formatIncome },

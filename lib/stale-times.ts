@@ -32,6 +32,8 @@ export const STALE_TIMES = {
   runDetail: 30 * SECOND,
   /** Estimates of a run are fixed once it reaches review; notes refetch after saving. */
   runReview: 5 * MINUTE,
+  /** Tracks change by hand (an admin creates, renames, pauses one), rarely. */
+  tracks: 2 * MINUTE,
   /** Specs change by hand, rarely. */
   specs: 2 * MINUTE,
   /** The catalogue changes only when someone adds or edits an indicator. */

@@ -5,12 +5,15 @@ import { BriefScreen } from '@/components/brief/brief-screen';
 import { DistrictBriefView } from '@/components/brief/district-brief-view';
 import { TextLink } from '@/components/ui/text-link';
 import { briefPdfPath, useDistrictBriefQuery } from '@/hooks/use-briefs';
+import { useTrackChoice } from '@/hooks/use-tracks';
 
 /** A district's brief as a print-friendly page (the same content as its PDF). */
 export default function DistrictBriefScreen() {
   const params = useLocalSearchParams<{ code: string }>();
   const code = typeof params.code === 'string' ? params.code : '';
-  const brief = useDistrictBriefQuery(code);
+  // The brief is of one track: ?track=, else the device's, else the headline track.
+  const track = useTrackChoice().request;
+  const brief = useDistrictBriefQuery(code, track);
   const name = brief.data?.name;
   return (
     <>
@@ -20,8 +23,14 @@ export default function DistrictBriefScreen() {
       <BriefScreen
         query={brief}
         what={`district brief of ${name ?? code}`}
-        pdfPath={briefPdfPath.district(code)}
-        back={<TextLink href={{ pathname: '/district/[code]', params: { code } }} label="District card" leading="← " />}
+        pdfPath={briefPdfPath.district(code, track)}
+        back={
+          <TextLink
+            href={{ pathname: '/district/[code]', params: track ? { code, track } : { code } }}
+            label="District card"
+            leading="← "
+          />
+        }
       >
         {(content) => <DistrictBriefView content={content} />}
       </BriefScreen>

@@ -4,10 +4,13 @@ import { BriefScreen } from '@/components/brief/brief-screen';
 import { RegionBriefView } from '@/components/brief/region-brief-view';
 import { TextLink } from '@/components/ui/text-link';
 import { briefPdfPath, useRegionBriefQuery } from '@/hooks/use-briefs';
+import { useTrackChoice } from '@/hooks/use-tracks';
 
 /** The region brief as a print-friendly page (the same content as its PDF). */
 export default function RegionBriefScreen() {
-  const brief = useRegionBriefQuery();
+  // The region brief is of one track: ?track=, else the device's, else the headline track.
+  const track = useTrackChoice().request;
+  const brief = useRegionBriefQuery(track);
   return (
     <>
       <Head>
@@ -16,8 +19,8 @@ export default function RegionBriefScreen() {
       <BriefScreen
         query={brief}
         what="region brief"
-        pdfPath={briefPdfPath.region()}
-        back={<TextLink href="/" label="Region" leading="← " />}
+        pdfPath={briefPdfPath.region(track)}
+        back={<TextLink href={track ? { pathname: '/', params: { track } } : '/'} label="Region" leading="← " />}
       >
         {(content) => <RegionBriefView content={content} />}
       </BriefScreen>

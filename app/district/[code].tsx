@@ -10,21 +10,24 @@ import {
   useDistrictEstimateQuery,
   useDistrictHistoryQuery,
 } from '@/hooks/use-estimates';
-import { earlyFetchScript } from '@/lib/early-fetch';
-
-// Starts the card's request while the page's HTML is still parsing.
-const EARLY = earlyFetchScript(ESTIMATE_ROUTE, estimateApiPath);
 import { useLayoutMode } from '@/hooks/use-layout-mode';
 import { useDistrictSubscriptionMutation, useSubscriptionsQuery } from '@/hooks/use-subscriptions';
+import { useTrackChoice } from '@/hooks/use-tracks';
+import { earlyFetchScript } from '@/lib/early-fetch';
+
+// Starts the card's request (with the URL's or the device's track) while the page's HTML is still parsing.
+const EARLY = earlyFetchScript(ESTIMATE_ROUTE, estimateApiPath);
 
 /** The district card: published estimate, charts, sensitivity, data, history, alerts. */
 export default function DistrictScreen() {
   const params = useLocalSearchParams<{ code: string }>();
   const code = typeof params.code === 'string' ? params.code : '';
   const mode = useLayoutMode();
-  const estimate = useDistrictEstimateQuery(code);
+  // ?track= wins over the device's remembered track, which wins over the headline track.
+  const choice = useTrackChoice();
+  const estimate = useDistrictEstimateQuery(code, choice.request);
   const detail = useDistrictQuery(code);
-  const history = useDistrictHistoryQuery(code);
+  const history = useDistrictHistoryQuery(code, true, choice.request);
   const alerts = useDistrictAlertsQuery(code);
   const subscriptions = useSubscriptionsQuery();
   const subscription = useDistrictSubscriptionMutation(code);
@@ -48,6 +51,7 @@ export default function DistrictScreen() {
           error: subscription.error,
         }}
         showBackLink={mode === 'phone'}
+        onChooseTrack={choice.choose}
       />
     </>
   );

@@ -4,6 +4,7 @@ import Head from 'expo-router/head';
 import { GatedPage } from '@/components/layout/role-gate';
 import { RunScreen } from '@/components/runs/run-screen';
 import { useMeQuery } from '@/hooks/use-auth';
+import { useIndicatorsQuery } from '@/hooks/use-indicators';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
 import {
   REVIEWABLE_RUN_STATES,
@@ -32,6 +33,10 @@ export default function RunRoute() {
   const publish = usePublishRunMutation();
   const discard = useDiscardRunMutation();
   const note = useRunNoteMutation();
+  // The driver's unit from the catalogue, for the thresholds the review prints.
+  const indicators = useIndicatorsQuery(allowed && reviewable);
+  const driver = run.data?.spec.selection.driver;
+  const incomeUnit = indicators.data?.find((i) => i.code === driver)?.unit;
   return (
     <>
       <Head>
@@ -46,6 +51,7 @@ export default function RunRoute() {
             run={run}
             review={review}
             district={district}
+            incomeUnit={incomeUnit}
             onPublish={() => publish.mutateAsync(runId)}
             onDiscard={() => discard.mutateAsync(runId)}
             onSaveNote={(c, text) => note.mutateAsync({ id: runId, code: c, note: text })}

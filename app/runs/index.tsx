@@ -1,12 +1,13 @@
 import { useRouter } from 'expo-router';
 import Head from 'expo-router/head';
+import { useState } from 'react';
 
 import { GatedPage } from '@/components/layout/role-gate';
 import { RunsScreen } from '@/components/runs/runs-screen';
 import { useMeQuery } from '@/hooks/use-auth';
 import { useRunsQuery, useStartRunMutation } from '@/hooks/use-runs';
 import { useSettingsQuery } from '@/hooks/use-settings';
-import { useSpecsQuery } from '@/hooks/use-specs';
+import { useTracksQuery } from '@/hooks/use-tracks';
 import { can } from '@/lib/roles';
 
 /** Start a run ("re-estimate now") and list the recent ones. */
@@ -14,8 +15,10 @@ export default function RunsRoute() {
   const router = useRouter();
   const me = useMeQuery();
   const allowed = can(me.data?.role, 'runs');
-  const runs = useRunsQuery(allowed);
-  const specs = useSpecsQuery(allowed);
+  // The list shows every track's runs, or one track's (GET /api/runs?track=).
+  const [shown, setShown] = useState<string>('all');
+  const runs = useRunsQuery(allowed, shown === 'all' ? null : shown);
+  const tracks = useTracksQuery({ enabled: allowed });
   const settings = useSettingsQuery(allowed);
   const start = useStartRunMutation();
   return (
@@ -27,9 +30,11 @@ export default function RunsRoute() {
         {() => (
           <RunsScreen
             runs={runs}
-            specs={specs}
+            tracks={tracks}
+            listTrack={shown}
+            onListTrack={setShown}
             settings={settings}
-            onStart={(specId) => start.mutateAsync(specId)}
+            onStart={(track) => start.mutateAsync(track)}
             onOpen={(id) => router.push({ pathname: '/runs/[id]', params: { id: String(id) } })}
           />
         )}

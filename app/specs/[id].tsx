@@ -7,6 +7,7 @@ import { useMeQuery } from '@/hooks/use-auth';
 import { useIndicatorsQuery } from '@/hooks/use-indicators';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
 import { useArchiveSpecMutation, useSaveSpecMutation, useSpecsQuery } from '@/hooks/use-specs';
+import { useTracksQuery, useTrackSpecMutation } from '@/hooks/use-tracks';
 import { can } from '@/lib/roles';
 
 /** The specs screen with one spec (or 'new', or none) open; /specs renders it with none. */
@@ -25,6 +26,8 @@ export function SpecsRouteBody({
   const indicators = useIndicatorsQuery(allowed);
   const save = useSaveSpecMutation();
   const archive = useArchiveSpecMutation();
+  const tracks = useTracksQuery({ enabled: allowed });
+  const trackSpec = useTrackSpecMutation();
   return (
     <GatedPage title="Model specs" me={me} need="specs" what="the model specs">
       {() => (
@@ -35,6 +38,8 @@ export function SpecsRouteBody({
           wide={mode === 'wide'}
           onSave={async (id, input) => (await save.mutateAsync({ id, input })).spec}
           notice={notice}
+          tracks={tracks}
+          onChangeTrackSpec={(code, specId) => trackSpec.mutateAsync({ code, specId })}
           onArchive={async (spec) => {
             await archive.mutateAsync(spec.id);
             // An archived spec leaves the list: back to it, saying what happened.

@@ -108,7 +108,7 @@ export type SettingsScreenProps = {
 };
 
 /** Every number the engine, alerts, uploads and briefs use, and the schedule; admins change them. */
-export function SettingsScreen({ settings, onSave }: SettingsScreenProps) {
+export function SettingsScreen({ settings, onSave, children }: SettingsScreenProps & { children?: React.ReactNode }) {
   return (
     <Page
       title="Settings"
@@ -128,6 +128,7 @@ export function SettingsScreen({ settings, onSave }: SettingsScreenProps) {
       ) : (
         <SettingsBody data={settings.data} onSave={onSave} />
       )}
+      {children}
     </Page>
   );
 }

@@ -72,11 +72,11 @@ export function AlertsFeedColumn({ feed, onRead }: AlertsFeedColumnProps) {
 function FeedItem({ alert, onRead }: { alert: FeedAlert; onRead: (id: number) => void }) {
   const detail = alertDetail(alert.kind, alert.details);
   return (
-    <Link href={{ pathname: '/district/[code]', params: { code: alert.districtCode } }} asChild>
+    <Link href={{ pathname: '/district/[code]', params: { code: alert.districtCode, track: alert.track } }} asChild>
       <LinkTarget
         testID={`feed-alert-${alert.id}`}
         accessibilityRole="link"
-        accessibilityLabel={`${alert.read ? '' : 'Unread. '}${alertTitle(alert.kind)}: ${alert.districtName}. ${detail}`}
+        accessibilityLabel={`${alert.read ? '' : 'Unread. '}${alertTitle(alert.kind)}, ${alert.trackName}: ${alert.districtName}. ${detail}`}
         onPress={() => (alert.read ? undefined : onRead(alert.id))}
         stateStyle={(state: InteractionState) => [
           styles.item,
@@ -91,7 +91,7 @@ function FeedItem({ alert, onRead }: { alert: FeedAlert; onRead: (id: number) =>
         </Text>
         <Text style={styles.itemLine}>{detail}</Text>
         <Text style={styles.itemWhen}>
-          {formatDay(alert.createdAt)} · run #{alert.runId}
+          {alert.trackName} · {formatDay(alert.createdAt)} · run #{alert.runId}
         </Text>
       </LinkTarget>
     </Link>

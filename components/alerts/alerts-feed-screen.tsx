@@ -105,10 +105,10 @@ function AlertItem({ alert, onRead }: { alert: FeedAlert; onRead: (id: number) =
   const detail = alertDetail(alert.kind, alert.details);
   return (
     <View style={[styles.item, !alert.read && styles.unread]} testID={`alert-${alert.id}`}>
-      <Link href={{ pathname: '/district/[code]', params: { code: alert.districtCode } }} asChild>
+      <Link href={{ pathname: '/district/[code]', params: { code: alert.districtCode, track: alert.track } }} asChild>
         <LinkTarget
           accessibilityRole="link"
-          accessibilityLabel={`${alert.read ? '' : 'Unread. '}${alertTitle(alert.kind)}: ${alert.districtName}. ${detail} Opens the district card.`}
+          accessibilityLabel={`${alert.read ? '' : 'Unread. '}${alertTitle(alert.kind)}, ${alert.trackName}: ${alert.districtName}. ${detail} Opens the district card.`}
           onPress={() => (alert.read ? undefined : onRead(alert.id))}
           stateStyle={(s: InteractionState) => [styles.link, s.hovered && styles.hover, focusOutline(s, 'inside')]}
           testID={`alert-link-${alert.id}`}
@@ -116,7 +116,7 @@ function AlertItem({ alert, onRead }: { alert: FeedAlert; onRead: (id: number) =
           <View style={styles.head}>
             {!alert.read ? <Pill label="New" tone="danger" testID={`alert-new-${alert.id}`} /> : null}
             <Text style={[styles.title, !alert.read && styles.titleUnread]}>
-              {alertTitle(alert.kind)} · {alert.districtName} ({alert.districtCode})
+              {alertTitle(alert.kind)} · {alert.districtName} ({alert.districtCode}) · {alert.trackName}
             </Text>
           </View>
           <Text style={styles.detail}>{detail}</Text>

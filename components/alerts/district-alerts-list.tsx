@@ -48,7 +48,7 @@ export function DistrictAlertsList({ alerts }: { alerts: QueryState<DistrictAler
       {rows.map((a) => (
         <View key={a.id} style={styles.item}>
           <Text style={styles.title}>
-            {alertTitle(a.kind)} · run #{a.runId} · {formatDay(a.createdAt)}
+            {alertTitle(a.kind)} · {a.trackName} · run #{a.runId} · {formatDay(a.createdAt)}
           </Text>
           <Text style={styles.line}>{alertDetail(a.kind, a.details)}</Text>
         </View>

@@ -9,6 +9,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { searchDistricts } from '@/lib/district-search';
 import { ALERT_KINDS, type AlertKind, type SubscriptionInput } from '@/contracts/alerts';
+import type { TrackRef } from '@/contracts/tracks';
 import { ALERT_KIND_LABEL } from '@/lib/estimate-words';
 
 export const KIND_HINT: Record<AlertKind, string> = {
@@ -23,11 +24,15 @@ const PICKER_ROWS = 12;
 
 export type SubscriptionFormProps = {
   districts: { code: string; name: string }[];
+  /** open tracks to choose from (the headline first); none given: every track */
+  tracks?: TrackRef[];
   onSubscribe: (input: SubscriptionInput) => Promise<unknown>;
 };
 
 /** Follow a district, a set of districts or the whole region: which alerts, how delivered, brief or not. */
-export function SubscriptionForm({ districts, onSubscribe }: SubscriptionFormProps) {
+export function SubscriptionForm({ districts, tracks = [], onSubscribe }: SubscriptionFormProps) {
+  const [allTracks, setAllTracks] = useState(true);
+  const [trackCodes, setTrackCodes] = useState<string[]>([]);
   const [scope, setScope] = useState<SubscriptionInput['scope']>('district');
   const [codes, setCodes] = useState<string[]>([]);
   const [query, setQuery] = useState('');
@@ -52,11 +57,13 @@ export function SubscriptionForm({ districts, onSubscribe }: SubscriptionFormPro
   const submit = async () => {
     if (scope !== 'region' && codes.length === 0)
       return setProblem(scope === 'district' ? 'Choose the district.' : 'Choose at least one district.');
+    if (!allTracks && trackCodes.length === 0) return setProblem('Choose at least one watched indicator.');
     if (kinds.length === 0) return setProblem('Choose at least one kind of alert.');
     setProblem(null);
     setState({ busy: true });
     try {
       await onSubscribe({
+        tracks: allTracks ? 'all' : trackCodes,
         scope,
         districtCodes: scope === 'region' ? [] : codes,
         kinds,
@@ -113,6 +120,30 @@ export function SubscriptionForm({ districts, onSubscribe }: SubscriptionFormPro
             {found.length > shown.length ? `${found.length - shown.length} more match: narrow the search. ` : ''}
             {codes.length ? `Chosen: ${codes.join(', ')}.` : 'None chosen yet.'}
           </Text>
+        </View>
+      ) : null}
+      {tracks.length > 0 ? (
+        <View testID="sub-tracks">
+          <Text style={styles.label}>Watched indicators</Text>
+          <CheckBox
+            label="All of them"
+            hint="Includes indicators the agency starts watching later."
+            checked={allTracks}
+            onChange={setAllTracks}
+            testID="sub-track-all"
+          />
+          {!allTracks
+            ? tracks.map((t) => (
+                <CheckBox
+                  key={t.code}
+                  label={t.name}
+                  hint={t.indicator.unit}
+                  checked={trackCodes.includes(t.code)}
+                  onChange={(on) => setTrackCodes((c) => (on ? [...c, t.code] : c.filter((x) => x !== t.code)))}
+                  testID={`sub-track-${t.code}`}
+                />
+              ))
+            : null}
         </View>
       ) : null}
       <View>

@@ -12,6 +12,7 @@ import { ConfirmAction } from '@/components/ui/confirm-action';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import type { Subscription, SubscriptionInput } from '@/contracts/alerts';
+import type { TrackRef } from '@/contracts/tracks';
 import { ALERT_KIND_LABEL } from '@/lib/estimate-words';
 import { formatDate } from '@/lib/format-time';
 
@@ -20,6 +21,8 @@ import { SubscriptionForm } from './subscription-form';
 export type SubscriptionsScreenProps = {
   subscriptions: QueryState<Subscription[]>;
   districts: QueryState<{ code: string; name: string }[]>;
+  /** open tracks (the headline first) */
+  tracks?: TrackRef[];
   onSubscribe: (input: SubscriptionInput) => Promise<unknown>;
   onRemove: (id: number) => Promise<unknown>;
 };
@@ -30,8 +33,20 @@ function scopeWords(s: Subscription, names: Map<string, string>): string {
   return s.scope === 'district' ? (list[0] ?? '—') : `${list.length} districts: ${list.join(', ')}`;
 }
 
+function trackWords(s: Subscription, tracks: TrackRef[]): string {
+  if (s.tracks === 'all') return 'Every watched indicator';
+  const names = new Map(tracks.map((t) => [t.code, t.name]));
+  return s.tracks.map((c) => names.get(c) ?? c).join(' · ');
+}
+
 /** What the signed-in person follows, and a form to follow more. */
-export function SubscriptionsScreen({ subscriptions, districts, onSubscribe, onRemove }: SubscriptionsScreenProps) {
+export function SubscriptionsScreen({
+  subscriptions,
+  districts,
+  tracks = [],
+  onSubscribe,
+  onRemove,
+}: SubscriptionsScreenProps) {
   const [removing, setRemoving] = useState<number | null>(null);
   const [outcome, setOutcome] = useState<{ error?: unknown; success?: string } | null>(null);
   const names = new Map((districts.data ?? []).map((d) => [d.code, d.name]));
@@ -78,6 +93,9 @@ export function SubscriptionsScreen({ subscriptions, districts, onSubscribe, onR
               <View key={s.id} style={styles.item} testID={`sub-${s.id}`}>
                 <View style={styles.words}>
                   <Text style={styles.scope}>{scopeWords(s, names)}</Text>
+                  <Text style={styles.meta} testID={`sub-${s.id}-tracks`}>
+                    {trackWords(s, tracks)}
+                  </Text>
                   <Text style={styles.meta}>{s.kinds.map((k) => ALERT_KIND_LABEL[k] ?? k).join(' · ')}</Text>
                   <View style={styles.pills}>
                     <Pill label={s.delivery === 'digest' ? 'Digest per publish' : 'E-mail per alert'} tone="info" />
@@ -109,7 +127,7 @@ export function SubscriptionsScreen({ subscriptions, districts, onSubscribe, onR
             onRetry={() => void districts.refetch()}
           />
         ) : (
-          <SubscriptionForm districts={districts.data ?? []} onSubscribe={onSubscribe} />
+          <SubscriptionForm districts={districts.data ?? []} tracks={tracks} onSubscribe={onSubscribe} />
         )}
       </Section>
     </Page>

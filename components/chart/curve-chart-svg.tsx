@@ -17,10 +17,19 @@ export type CurveChartSvgProps = {
   width: number;
   height: number;
   emissionsUnit: string;
+  /** the driver's name from the catalogue ("Real income per person") */
+  incomeLabel: string;
   textScale?: number;
 };
 
-export default function CurveChartSvg({ model: m, width, height, emissionsUnit, textScale = 1 }: CurveChartSvgProps) {
+export default function CurveChartSvg({
+  model: m,
+  width,
+  height,
+  emissionsUnit,
+  incomeLabel,
+  textScale = 1,
+}: CurveChartSvgProps) {
   const [y0, y1] = m.yDomain;
   return (
     <VictoryChart
@@ -33,7 +42,7 @@ export default function CurveChartSvg({ model: m, width, height, emissionsUnit, 
       <VictoryAxis
         tickValues={m.xTicks}
         tickFormat={(t: number) => formatTick(t)}
-        label="Real income per person (log scale)"
+        label={`${incomeLabel} (log scale)`}
         style={axisStyle(true, textScale)}
       />
       <VictoryAxis

@@ -6,6 +6,7 @@ import { curveChartModel } from '@/lib/chart-model';
 import { curveChartSummary } from '@/lib/chart-summary';
 import type { EstimateRecord } from '@/contracts/estimates';
 import { levelPercent, METHOD_LABEL, notBoundedText } from '@/lib/estimate-words';
+import { UNKNOWN_UNITS, type RunUnits } from '@/lib/units';
 
 import { ChartFrame } from './chart-frame';
 import { ChartLegend, type LegendItem } from './chart-legend';
@@ -18,9 +19,9 @@ const CurveChartSvg = lazy(() => loadDrawings().then((m) => ({ default: m.CurveC
  * the observed range, the threshold with its band when the interval is bounded, the latest
  * year ringed and the regional pooled curve as a faint reference.
  */
-export function CurveChart({ record }: { record: EstimateRecord }) {
+export function CurveChart({ record, units = UNKNOWN_UNITS }: { record: EstimateRecord; units?: RunUnits }) {
   const model = useMemo(() => curveChartModel(record), [record]);
-  const summary = useMemo(() => curveChartSummary(record), [record]);
+  const summary = useMemo(() => curveChartSummary(record, units), [record, units]);
   const level = record.model.level;
   const textScale = useTextScale();
   const items: LegendItem[] = [
@@ -50,7 +51,7 @@ export function CurveChart({ record }: { record: EstimateRecord }) {
   }
   return (
     <ChartFrame
-      title="Emissions and income"
+      title={`${units.emissionsName} and income`}
       summary={summary}
       height={layout.curveChartHeight}
       testID="curve-chart"
@@ -61,7 +62,8 @@ export function CurveChart({ record }: { record: EstimateRecord }) {
           model={model}
           width={width}
           height={layout.curveChartHeight}
-          emissionsUnit="t CO₂ per person"
+          emissionsUnit={units.emissionsUnit || units.emissionsName}
+          incomeLabel={units.incomeName}
           textScale={textScale}
         />
       )}

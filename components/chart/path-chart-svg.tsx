@@ -12,9 +12,16 @@ import type { PathChartModel } from '@/lib/chart-model';
 
 import { axisStyle, chartPadding } from './chart-styles';
 
-export type PathChartSvgProps = { model: PathChartModel; width: number; height: number; textScale?: number };
+export type PathChartSvgProps = {
+  model: PathChartModel;
+  width: number;
+  height: number;
+  /** the driver's name from the catalogue ("Real income per person") */
+  incomeLabel: string;
+  textScale?: number;
+};
 
-export default function PathChartSvg({ model: m, width, height, textScale = 1 }: PathChartSvgProps) {
+export default function PathChartSvg({ model: m, width, height, incomeLabel, textScale = 1 }: PathChartSvgProps) {
   const [t0, t1] = m.yearDomain;
   const last = m.path[m.path.length - 1];
   return (
@@ -35,7 +42,7 @@ export default function PathChartSvg({ model: m, width, height, textScale = 1 }:
         dependentAxis
         tickValues={m.incomeTicks}
         tickFormat={(t: number) => formatTick(t)}
-        label="Income per person (log)"
+        label={`${incomeLabel} (log)`}
         style={axisStyle(false, textScale)}
       />
       {m.band ? (

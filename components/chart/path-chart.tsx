@@ -6,6 +6,7 @@ import { pathChartModel } from '@/lib/chart-model';
 import { pathChartSummary } from '@/lib/chart-summary';
 import type { EstimateRecord } from '@/contracts/estimates';
 import { levelPercent, METHOD_LABEL, notBoundedText } from '@/lib/estimate-words';
+import { nameWithUnit, UNKNOWN_UNITS, type RunUnits } from '@/lib/units';
 
 import { ChartFrame } from './chart-frame';
 import { ChartLegend, type LegendItem } from './chart-legend';
@@ -14,12 +15,14 @@ import { loadDrawings } from './load-drawings';
 const PathChartSvg = lazy(() => loadDrawings().then((m) => ({ default: m.PathChartSvg })));
 
 /** Income over the years against the threshold line and its band; the projection dashed. */
-export function PathChart({ record }: { record: EstimateRecord }) {
+export function PathChart({ record, units = UNKNOWN_UNITS }: { record: EstimateRecord; units?: RunUnits }) {
   const model = useMemo(() => pathChartModel(record), [record]);
-  const summary = useMemo(() => pathChartSummary(record), [record]);
+  const summary = useMemo(() => pathChartSummary(record, units), [record, units]);
   const level = record.model.level;
   const textScale = useTextScale();
-  const items: LegendItem[] = [{ key: 'path', label: 'Income per person', swatch: 'line', color: chartColors.curve }];
+  const items: LegendItem[] = [
+    { key: 'path', label: nameWithUnit(units.incomeName, units.incomeUnit), swatch: 'line', color: chartColors.curve },
+  ];
   if (model.projection.length > 1)
     items.push({
       key: 'projection',
@@ -47,7 +50,15 @@ export function PathChart({ record }: { record: EstimateRecord }) {
       testID="path-chart"
       legend={<ChartLegend items={items} />}
     >
-      {(width) => <PathChartSvg model={model} width={width} height={layout.pathChartHeight} textScale={textScale} />}
+      {(width) => (
+        <PathChartSvg
+          model={model}
+          width={width}
+          height={layout.pathChartHeight}
+          incomeLabel={units.incomeName}
+          textScale={textScale}
+        />
+      )}
     </ChartFrame>
   );
 }

@@ -12,6 +12,7 @@ import { colors, layout, radius, space, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
 import { briefPdfPath } from '@/hooks/use-briefs';
 import { ApiError } from '@/lib/api-client';
+import { runUnits } from '@/lib/units';
 import type { DistrictDetailResponse } from '@/contracts/districts';
 import type { DistrictAlertsResponse } from '@/contracts/alerts';
 import type { DistrictEstimateResponse, DistrictHistoryResponse } from '@/contracts/estimates';
@@ -26,6 +27,7 @@ import { HeadlinePanel } from './headline-panel';
 import { HistoryList } from './history-list';
 import { KeyFigures } from './key-figures';
 import { LocatorMap } from './locator-map';
+import { TrackRows } from './track-rows';
 import { SensitivityStrip } from './sensitivity-strip';
 import { SeriesTable } from './series-table';
 
@@ -38,6 +40,8 @@ export type DistrictCardViewProps = {
   subscribe: Omit<SubscribeToggleProps, 'code' | 'name'>;
   /** Phone layout: a link back to the region list above the content. */
   showBackLink: boolean;
+  /** Show another track's full card (puts it in the URL and remembers it on the device). */
+  onChooseTrack?: (code: string) => void;
 };
 
 /**
@@ -48,7 +52,13 @@ export function DistrictCardView(props: DistrictCardViewProps) {
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.content} testID="district-detail-scroll">
       <View style={styles.column}>
-        {props.showBackLink ? <TextLink href="/" label="All districts" leading="← " /> : null}
+        {props.showBackLink ? (
+          <TextLink
+            href={props.estimate.data ? { pathname: '/', params: { track: props.estimate.data.track.code } } : '/'}
+            label="All districts"
+            leading="← "
+          />
+        ) : null}
         <CardBody {...props} />
       </View>
     </ScrollView>
@@ -108,6 +118,7 @@ function LoadedCard({
   alerts,
   subscribe,
   data,
+  onChooseTrack,
 }: DistrictCardViewProps & { data: DistrictEstimateResponse }) {
   const [tab, setTab] = useState<CardTab>('data');
   // The headline and figures paint first; the sections below the fold (sensitivity strip,
@@ -121,14 +132,24 @@ function LoadedCard({
   // From the answer: the main record's model, else the published run's; none without a run.
   const level = main?.model.level ?? data.run?.model.level ?? null;
   const district = detail.data?.district;
+  const track = data.track;
+  const units = runUnits(data.run);
   const actions = (
     <>
       <ExternalLink
-        path={briefPdfPath.district(code)}
-        label="Brief (PDF)"
-        accessibilityLabel={`Brief for ${data.district.name}, PDF`}
+        path={briefPdfPath.district(code, track.code)}
+        label={`Brief: ${track.name} (PDF)`}
+        accessibilityLabel={`Brief for ${data.district.name} on ${track.name}, PDF`}
         testID="district-brief-link"
       />
+      {data.tracks.length > 1 ? (
+        <ExternalLink
+          path={briefPdfPath.summary(code)}
+          label="All indicators (PDF)"
+          accessibilityLabel={`Summary brief for ${data.district.name}, every watched indicator, PDF`}
+          testID="district-summary-brief-link"
+        />
+      ) : null}
       <SubscribeToggle code={code} name={data.district.name} {...subscribe} />
     </>
   );
@@ -148,10 +169,14 @@ function LoadedCard({
         <Text style={styles.coverage}>{district ? coverageText(district) : ' '}</Text>
       </View>
       <FreshnessNotice freshness={estimate} what="this district’s figures" />
+      <TrackRows rows={data.tracks} chosen={track.code} onChoose={(c) => onChooseTrack?.(c)} />
+      <Text role="heading" aria-level={2} style={styles.trackTitle} testID="card-track">
+        {`${track.name} · ${track.indicator.unit}`}
+      </Text>
       <LocatorMap code={code} name={data.district.name} standing={main?.standing.standing ?? 'not_estimable'} />
       {main ? (
         <>
-          <HeadlinePanel record={main} actions={actions} />
+          <HeadlinePanel record={main} actions={actions} incomeUnit={units.incomeUnit} />
           {data.correction ? (
             <View style={styles.analystNote} testID="correction-notice">
               <Text style={styles.noteTerm}>Correction</Text>
@@ -165,8 +190,8 @@ function LoadedCard({
             </View>
           ) : null}
           <KeyFigures record={main} run={data.run} />
-          <CurveChart record={main} />
-          <PathChart record={main} />
+          <CurveChart record={main} units={units} />
+          <PathChart record={main} units={units} />
           {lower ? (
             <Section title="How fragile is the threshold?">
               <SensitivityStrip main={main} variants={data.variants} />
@@ -176,11 +201,11 @@ function LoadedCard({
       ) : (
         <StatePanel
           testID="no-published-estimate"
-          title="No published estimate yet"
+          title={data.run ? 'No published estimate yet' : `No published run for ${track.name} yet`}
           message={
             data.run
-              ? 'This district was not part of the latest published run. Its yearly values are below.'
-              : 'No run has been published yet. Once an analyst reviews and publishes one, its standing, threshold and charts appear here.'
+              ? `This district was not part of ${track.name}’s latest published run. Its yearly values are below.`
+              : `${track.name} has no published run yet. Once an analyst reviews and publishes one, its standing, threshold and charts appear here.`
           }
         >
           <SubscribeToggle code={code} name={data.district.name} {...subscribe} />
@@ -259,6 +284,7 @@ const styles = StyleSheet.create({
   code: { ...type.label, color: colors.action },
   coverage: { ...type.body, color: colors.textMuted },
   section: { gap: space.md },
+  trackTitle: { ...type.title, color: colors.text },
   sectionTitle: { ...type.title, color: colors.text },
   analystNote: { borderLeftWidth: 3, borderLeftColor: colors.action, paddingLeft: space.md, gap: space.xxs },
   noteTerm: { ...type.label, color: colors.text },

@@ -28,13 +28,21 @@ export type DistrictListPanelProps = {
   selectedCode?: string;
   /** The published run's confidence level (for "interval not bounded at 95%" in row labels). */
   level?: number | null;
+  /** The chosen track, carried by each row's link (null: the headline track). */
+  track?: string | null;
 };
 
 /**
  * The region's districts: counts per standing (each a filter), search, sort and shape
  * filters, and a virtualised list of fixed-height rows (3,000 districts scroll smoothly).
  */
-export function DistrictListPanel({ districts, selectedCode, level = null, header }: DistrictListPanelProps) {
+export function DistrictListPanel({
+  districts,
+  selectedCode,
+  level = null,
+  header,
+  track = null,
+}: DistrictListPanelProps) {
   const [filter, setFilter] = useRegionFilter();
   const all = districts.data;
   const shown = useMemo(() => (all ? applyRegionFilter(all, filter) : []), [all, filter]);
@@ -58,9 +66,15 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
   );
   const renderItem = useCallback<ListRenderItem<RegionRow>>(
     ({ item }) => (
-      <DistrictRow district={item} selected={item.code === selectedCode} level={level} height={rowHeight} />
+      <DistrictRow
+        district={item}
+        selected={item.code === selectedCode}
+        level={level}
+        height={rowHeight}
+        track={track}
+      />
     ),
-    [selectedCode, level, rowHeight],
+    [selectedCode, level, rowHeight, track],
   );
 
   return (
@@ -123,7 +137,7 @@ export function DistrictListPanel({ districts, selectedCode, level = null, heade
           renderItem={renderItem}
           keyExtractor={keyOf}
           getItemLayout={itemLayout}
-          extraData={`${selectedCode}:${rowHeight}`}
+          extraData={`${selectedCode}:${rowHeight}:${track}`}
           initialScrollIndex={initialScrollIndex}
           initialNumToRender={10}
           maxToRenderPerBatch={10}

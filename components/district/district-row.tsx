@@ -19,6 +19,8 @@ export type DistrictRowProps = {
   level?: number | null;
   /** Row height: `districtRowHeight` times the reader's text scale (the list lays rows out by it). */
   height?: number;
+  /** The chosen track (the card opens on it); null: the headline track. */
+  track?: string | null;
 };
 
 /**
@@ -31,6 +33,7 @@ export const DistrictRow = memo(function DistrictRow({
   selected = false,
   level = null,
   height = layout.districtRowHeight,
+  track = null,
 }: DistrictRowProps) {
   const e = district.estimate ?? null;
   const gap = gapColumn(e);
@@ -38,7 +41,10 @@ export const DistrictRow = memo(function DistrictRow({
   const unbounded = e?.intervalBounded === false && e.threshold !== null;
   const label = `${district.name}, code ${district.code}. ${standingSentence(e, level)} Data ${coverageText(district)}.`;
   return (
-    <Link href={{ pathname: '/district/[code]', params: { code: district.code } }} asChild>
+    <Link
+      href={{ pathname: '/district/[code]', params: track ? { code: district.code, track } : { code: district.code } }}
+      asChild
+    >
       <LinkTarget
         testID={`district-row-${district.code}`}
         accessibilityRole="link"

@@ -33,14 +33,14 @@ export function latestValues(d: DistrictSummary): LatestValue[] {
   const latest = d.latest;
   return [emissions, income].map((column) => {
     const raw = latest ? latest[column.field] : null;
-    return { label: column.short, value: raw === null ? null : column.format(raw), unit: column.shortUnit };
+    return { label: column.short, value: raw === null ? null : column.format(raw), unit: column.shortUnit ?? '' };
   });
 }
 
 /** One sentence for screen readers: name, code, coverage and the latest values. */
 export function districtRowLabel(d: DistrictSummary): string {
   const values = latestValues(d)
-    .map((v) => `${v.label.toLowerCase()} ${v.value === null ? 'no data' : `${v.value} ${v.unit}`}`)
+    .map((v) => `${v.label.toLowerCase()} ${v.value === null ? 'no data' : `${v.value}${v.unit ? ` ${v.unit}` : ''}`}`)
     .join(', ');
   const latest = d.latest ? ` Latest year ${d.latest.year}: ${values}.` : '';
   return `${d.name}, code ${d.code}. ${coverageText(d)}.${latest}`;

@@ -11,11 +11,13 @@ export type HeadlinePanelProps = {
   record: EstimateRecord;
   /** The brief link and the subscribe toggle. */
   actions?: ReactNode;
+  /** The driver's unit from the catalogue (the run meta's units). */
+  incomeUnit?: string;
 };
 
 /** The card's top: standing (mark and word), the headline sentence, its notes, actions. */
-export function HeadlinePanel({ record, actions }: HeadlinePanelProps) {
-  const h = headline(headlineInputFromRecord(record));
+export function HeadlinePanel({ record, actions, incomeUnit }: HeadlinePanelProps) {
+  const h = headline({ ...headlineInputFromRecord(record), incomeUnit });
   const standing = record.standing.standing;
   const shape = record.shape?.shape ?? null;
   return (

@@ -12,6 +12,7 @@ import {
   yearWithRange,
 } from '@/lib/estimate-words';
 import { modelLine, runLine } from '@/lib/model-line';
+import { runUnits, UNKNOWN_UNITS } from '@/lib/units';
 
 /** Threshold with both intervals, income now and its gap, elasticity now, projected crossing; the model line. */
 export function KeyFigures({ record, run }: { record: EstimateRecord; run: PublishedRunMeta | null }) {
@@ -33,11 +34,14 @@ export function KeyFigures({ record, run }: { record: EstimateRecord; run: Publi
   const e = record.elasticity;
   const now = record.range;
   const p = record.projection;
+  const u = runUnits(run);
+  const incomeUnit = u.incomeUnit ? <Text style={styles.line}>{u.incomeUnit}</Text> : null;
   return (
     <View style={styles.wrap} testID="key-figures">
       <View style={styles.grid}>
         <Figure title="Threshold" testID="figure-threshold">
-          <Text style={styles.big}>{threshold !== null ? `${formatLevel(threshold)} per person` : 'none'}</Text>
+          <Text style={styles.big}>{threshold !== null ? formatLevel(threshold) : 'none'}</Text>
+          {threshold !== null ? incomeUnit : null}
           {t && fieller ? (
             <>
               <Text style={styles.line}>
@@ -58,6 +62,7 @@ export function KeyFigures({ record, run }: { record: EstimateRecord; run: Publi
           <Text style={styles.big}>
             {now ? `${formatLevel(now.levelNow)}${record.lastYear ? ` (${record.lastYear})` : ''}` : '—'}
           </Text>
+          {now ? incomeUnit : null}
           <Text style={styles.line}>
             {record.gapPercent !== null && threshold !== null
               ? `${capital(gapWords(record.gapPercent))} the threshold`
@@ -75,7 +80,7 @@ export function KeyFigures({ record, run }: { record: EstimateRecord; run: Publi
               ) : null}
               <Text style={styles.line}>
                 1% more income goes with about {Math.abs(e.value).toFixed(2)}% {e.value >= 0 ? 'more' : 'less'}{' '}
-                emissions today.
+                {u.emissionsName === UNKNOWN_UNITS.emissionsName ? 'emissions' : u.emissionsName} today.
               </Text>
             </>
           ) : null}

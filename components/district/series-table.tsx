@@ -41,7 +41,9 @@ export function SeriesTable({ districtName, series, indicators }: SeriesTablePro
               style={[styles.cell, styles.valueCell, { flex: COLUMN_WEIGHT[c.code] }]}
             >
               <Text style={[styles.headLabel, styles.right]}>{c.short}</Text>
-              <Text style={[styles.headUnit, styles.right]}>{c.shortUnit}</Text>
+              <Text style={[styles.headUnit, styles.right]}>
+                {c.shortUnit ?? indicators.find((i) => i.code === c.code)?.unit ?? ''}
+              </Text>
             </View>
           ))}
         </View>

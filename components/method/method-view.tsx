@@ -9,7 +9,7 @@ import { STANDINGS } from '@/contracts/estimates';
 import { SHAPE_LABEL, SHAPE_TECHNICAL, SHAPES_IN_ORDER, STANDING_LABEL, STANDING_MEANING } from '@/lib/estimate-words';
 
 /** How Crestwatch estimates, in plain words with the formulas, the references and the cautions. */
-export function MethodView({ showBackLink }: { showBackLink: boolean }) {
+export function MethodView({ showBackLink, sources }: { showBackLink: boolean; sources?: ReactNode }) {
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.content} testID="method-page">
       <View style={styles.column}>
@@ -104,6 +104,17 @@ export function MethodView({ showBackLink }: { showBackLink: boolean }) {
           Each run also fits four variants — without controls, cubic, the last 20 years only, and the level form — so
           the sensitivity strip on the card shows how much the threshold depends on these choices.
         </P>
+
+        {sources ? (
+          <>
+            <H2>The series and where they come from</H2>
+            <P>
+              Crestwatch can watch several indicators at once, each as its own track with its own runs, standings and
+              alerts; a run never compares two tracks. Every figure carries the unit the catalogue gives its series.
+            </P>
+            {sources}
+          </>
+        ) : null}
 
         <H2>Read with care</H2>
         <View style={styles.list} testID="method-cautions">

@@ -9,12 +9,20 @@ import type { RegionRow } from '@/lib/region-list';
 
 import { RegionMap } from './region-map';
 
-export function MapPhoneView({ header, districts }: { header: ReactNode; districts: QueryState<RegionRow[]> }) {
+export function MapPhoneView({
+  header,
+  districts,
+  track = null,
+}: {
+  header: ReactNode;
+  districts: QueryState<RegionRow[]>;
+  track?: { code: string; name: string } | null;
+}) {
   return (
     <ScrollView contentContainerStyle={styles.content} testID="region-map-view">
       <View style={styles.top}>{header}</View>
       <View style={styles.map}>
-        <RegionMap districts={districts} />
+        <RegionMap districts={districts} track={track} />
       </View>
     </ScrollView>
   );

@@ -23,8 +23,8 @@ import { StandingMark } from './standing-mark';
 
 export type RegionMapProps = {
   districts: QueryState<RegionRow[]>;
-  /** Which standings colour the map: today the published headline; a track can be passed later. */
-  track?: 'headline';
+  /** The track whose standings `districts` carry (named in the summary; district links keep it). */
+  track?: { code: string; name: string } | null;
   /** Most width the map may take. */
   maxWidth?: number;
 };
@@ -33,7 +33,7 @@ function plural(n: number, one: string, many = `${one}s`) {
   return `${n} ${n === 1 ? one : many}`;
 }
 
-export function RegionMap({ districts, maxWidth = 720 }: RegionMapProps) {
+export function RegionMap({ districts, track = null, maxWidth = 720 }: RegionMapProps) {
   const boundaries = useBoundariesQuery();
   const [filter, setFilter] = useRegionFilter();
   const [width, setWidth] = useState(0);
@@ -59,7 +59,7 @@ export function RegionMap({ districts, maxWidth = 720 }: RegionMapProps) {
   const counts: Record<Standing, number> = { approaching: 0, at_turn: 0, past_turn: 0, no_turn: 0, not_estimable: 0 };
   for (const d of scene?.districts ?? []) counts[d.standing] += 1;
   const summary = scene
-    ? `Map of ${plural(scene.districts.length, 'district')} coloured by standing: ${STANDINGS.filter(
+    ? `Map of ${plural(scene.districts.length, 'district')} coloured by standing${track ? ` on ${track.name}` : ''}: ${STANDINGS.filter(
         (s) => counts[s] > 0,
       )
         .map((s) => `${counts[s]} ${STANDING_LABEL[s].toLowerCase()}`)
@@ -83,7 +83,9 @@ export function RegionMap({ districts, maxWidth = 720 }: RegionMapProps) {
         <MapCanvas
           scene={scene}
           shown={filter.standings}
-          onOpen={(code) => router.push({ pathname: '/district/[code]', params: { code } })}
+          onOpen={(code) =>
+            router.push({ pathname: '/district/[code]', params: track ? { code, track: track.code } : { code } })
+          }
           testID="region-map-canvas"
         />
       ) : (

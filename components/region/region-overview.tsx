@@ -37,6 +37,8 @@ export type RegionOverviewProps = {
  */
 export function RegionOverview({ region, districts, map }: RegionOverviewProps) {
   const run = region.data?.run ?? null;
+  const track = region.data?.track ?? null;
+  const incomeUnit = run?.units.driver.unit ?? 'per person';
   const counts = countByStanding(districts.data ?? []);
   const pooled = region.data?.pooled ?? null;
   const level = run?.model.level ?? null;
@@ -47,6 +49,13 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
         <Text role="heading" aria-level={1} style={styles.title}>
           The region at a glance
         </Text>
+        {track ? (
+          <Text style={styles.meta} testID="region-track">
+            {track.name === track.indicator.name
+              ? `${track.name}, in ${track.indicator.unit}`
+              : `${track.name}: ${track.indicator.name}, in ${track.indicator.unit}`}
+          </Text>
+        ) : null}
         {region.status === 'pending' ? (
           <Skeleton width={360} height={20} />
         ) : region.status === 'error' && !region.data ? (
@@ -66,7 +75,8 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
           </>
         ) : (
           <Text style={styles.meta} testID="region-no-run">
-            No run has been published yet: standings appear once an analyst reviews and publishes one.
+            {track ? `No run has been published for ${track.name} yet` : 'No run has been published yet'}: standings
+            appear once an analyst reviews and publishes one.
           </Text>
         )}
         <View style={styles.table} role="table" aria-label="Districts per standing">
@@ -90,14 +100,18 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
             Regional pooled curve (all districts, fixed effects):{' '}
             {pooled.shape ? SHAPE_LABEL[pooled.shape].toLowerCase() : 'no shape'}
             {pooled.threshold !== null && pooled.threshold > 0
-              ? `, turning point ${formatLevel(pooled.threshold)} per person (${pooled.fieller?.kind === 'bounded' ? intervalText('bounded', pooled.fieller.levelLo, pooled.fieller.levelHi) : notBoundedText(level)})`
+              ? `, turning point ${formatLevel(pooled.threshold)} ${incomeUnit} (${pooled.fieller?.kind === 'bounded' ? intervalText('bounded', pooled.fieller.levelLo, pooled.fieller.levelHi) : notBoundedText(level)})`
               : ''}
             . Districts with too short a series are read against it, labelled as the regional substitute.
           </Text>
         ) : null}
         <View style={styles.links}>
           {run ? (
-            <ExternalLink path={briefPdfPath.region()} label="Region brief (PDF)" testID="region-brief-link" />
+            <ExternalLink
+              path={briefPdfPath.region(track?.code ?? null)}
+              label="Region brief (PDF)"
+              testID="region-brief-link"
+            />
           ) : null}
           <TextLink href="/method" label="How Crestwatch estimates" />
         </View>

@@ -9,7 +9,14 @@ import { formatDay } from '@/lib/alert-text';
 import type { PublishedRunMeta } from '@/contracts/estimates';
 
 /** The phone home's top line: which run the standings come from, the region brief, the method page. */
-export function RegionStrip({ run: published }: { run: QueryState<PublishedRunMeta | null> }) {
+export function RegionStrip({
+  run: published,
+  track = null,
+}: {
+  run: QueryState<PublishedRunMeta | null>;
+  /** the chosen track's code (null: the headline), carried by the brief link */
+  track?: string | null;
+}) {
   const run = published.data ?? null;
   return (
     <View style={styles.wrap} testID="region-strip">
@@ -18,7 +25,9 @@ export function RegionStrip({ run: published }: { run: QueryState<PublishedRunMe
           Districts
         </Text>
         <View style={styles.links}>
-          {run ? <ExternalLink path={briefPdfPath.region()} label="Region brief" testID="region-brief-link" /> : null}
+          {run ? (
+            <ExternalLink path={briefPdfPath.region(track)} label="Region brief" testID="region-brief-link" />
+          ) : null}
           <TextLink href="/method" label="Method" />
         </View>
       </View>
@@ -29,7 +38,7 @@ export function RegionStrip({ run: published }: { run: QueryState<PublishedRunMe
             ? `Standings from run #${run.id}, published ${formatDay(run.publishedAt)}`
             : published.status === 'error'
               ? 'The published run could not be loaded.'
-              : 'No run published yet'}
+              : 'No run published yet for this indicator'}
       </Text>
     </View>
   );

@@ -8,6 +8,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { formatLevel, intervalText, levelPercent, notBoundedText, VARIANT_LABEL } from '@/lib/estimate-words';
+import { withUnit } from '@/lib/units';
 import type { DistrictReview, ReviewRow, RunEstimateRecord } from '@/contracts/runs';
 
 import { DiagnosticsList } from './diagnostics-list';
@@ -58,10 +59,20 @@ export type DistrictReviewPanelProps = {
   runClosed: boolean;
   /** Phone: a link back to the table. */
   backHref?: { pathname: '/runs/[id]'; params: { id: string } };
+  /** The driver's unit from the catalogue (thresholds are incomes). */
+  incomeUnit?: string;
 };
 
 /** One district in the run: where it stands, every variant, why the threshold moved, the residual checks and plot, a note. */
-export function DistrictReviewPanel({ code, row, review, onSaveNote, runClosed, backHref }: DistrictReviewPanelProps) {
+export function DistrictReviewPanel({
+  code,
+  row,
+  review,
+  onSaveNote,
+  runClosed,
+  backHref,
+  incomeUnit,
+}: DistrictReviewPanelProps) {
   const title = row ? `${row.name} (${code})` : code;
   return (
     <View style={styles.panel} testID="district-review">
@@ -69,12 +80,19 @@ export function DistrictReviewPanel({ code, row, review, onSaveNote, runClosed, 
       <Text role="heading" aria-level={2} style={styles.title}>
         {title}
       </Text>
-      <Body review={review} row={row} code={code} onSaveNote={onSaveNote} runClosed={runClosed} />
+      <Body
+        review={review}
+        row={row}
+        code={code}
+        onSaveNote={onSaveNote}
+        runClosed={runClosed}
+        incomeUnit={incomeUnit}
+      />
     </View>
   );
 }
 
-function Body({ review, row, code, onSaveNote, runClosed }: Omit<DistrictReviewPanelProps, 'backHref'>) {
+function Body({ review, row, code, onSaveNote, runClosed, incomeUnit }: Omit<DistrictReviewPanelProps, 'backHref'>) {
   if (review.status === 'pending') {
     return (
       <View style={styles.gap} accessible accessibilityLabel={`Loading ${code}`}>
@@ -100,7 +118,7 @@ function Body({ review, row, code, onSaveNote, runClosed }: Omit<DistrictReviewP
   return (
     <View style={styles.gap}>
       {main ? (
-        <Headline main={main} row={row} />
+        <Headline main={main} row={row} incomeUnit={incomeUnit} />
       ) : (
         <Text style={styles.body}>No estimate for this district in the run.</Text>
       )}
@@ -142,7 +160,7 @@ function Body({ review, row, code, onSaveNote, runClosed }: Omit<DistrictReviewP
   );
 }
 
-function Headline({ main, row }: { main: RunEstimateRecord; row: ReviewRow | null }) {
+function Headline({ main, row, incomeUnit }: { main: RunEstimateRecord; row: ReviewRow | null; incomeUnit?: string }) {
   const t = main.threshold;
   const level = main.model.level;
   const interval = t ? intervalText(t.fieller.kind, t.fieller.levelLo, t.fieller.levelHi) : null;
@@ -157,7 +175,7 @@ function Headline({ main, row }: { main: RunEstimateRecord; row: ReviewRow | nul
       </View>
       <Text style={styles.body}>
         {t?.level != null
-          ? `Threshold ${formatLevel(t.level)} per person; ${levelPercent(level)} Fieller interval ${interval}${t.intervalBounded ? '' : ` (${notBoundedText(level)})`}.`
+          ? `Threshold ${withUnit(formatLevel(t.level), incomeUnit ?? '')}; ${levelPercent(level)} Fieller interval ${interval}${t.intervalBounded ? '' : ` (${notBoundedText(level)})`}.`
           : 'No threshold in this fit.'}{' '}
         Shape: {shapeWord(main.shape?.shape)}. {main.n} years
         {main.firstYear ? `, ${main.firstYear}–${main.lastYear}` : ''}.

@@ -28,6 +28,8 @@ export type ReviewTableProps = {
   /** The admin's threshold-shift percent: a bigger move counts as "threshold moved". */
   shiftPercent: number;
   selectedCode: string | null;
+  /** The driver's unit from the catalogue, under the threshold header. */
+  incomeUnit?: string;
 };
 
 function Changed({ on, label }: { on: boolean; label: string }) {
@@ -35,7 +37,7 @@ function Changed({ on, label }: { on: boolean; label: string }) {
 }
 
 /** Per district: this run against the last published one; filter by what changed, sort any column. */
-export function ReviewTable({ runId, rows, previousRunId, shiftPercent, selectedCode }: ReviewTableProps) {
+export function ReviewTable({ runId, rows, previousRunId, shiftPercent, selectedCode, incomeUnit }: ReviewTableProps) {
   const [filter, setFilter] = useState<ReviewFilter>('all');
   const [query, setQuery] = useState('');
   const shown = useMemo(
@@ -84,7 +86,7 @@ export function ReviewTable({ runId, rows, previousRunId, shiftPercent, selected
     {
       key: 'threshold',
       header: 'Threshold',
-      subheader: 'income per person',
+      subheader: incomeUnit ?? 'income',
       flex: 1.2,
       align: 'right',
       render: (r) => (r.threshold === null ? '—' : formatLevel(r.threshold)),

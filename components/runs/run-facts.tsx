@@ -26,6 +26,7 @@ export function RunFacts({ run }: { run: RunView }) {
         </Text>
       ) : null}
       <View style={styles.facts}>
+        <Fact label="Track" value={`${run.track.name} (${run.track.indicator.unit})`} />
         <Fact label="Spec" value={run.spec.name} />
         <Fact
           label="Model"

@@ -27,6 +27,8 @@ export type RunScreenProps = {
   onPublish: () => Promise<PublishAnswer>;
   onDiscard: () => Promise<unknown>;
   onSaveNote: (code: string, note: string) => Promise<unknown>;
+  /** The driver's unit from the indicator catalogue (thresholds are incomes). */
+  incomeUnit?: string;
 };
 
 /**
@@ -38,7 +40,7 @@ export function RunScreen(props: RunScreenProps) {
   const { runId } = props;
   return (
     <Page
-      title={`Run #${runId}`}
+      title={props.run.data ? `Run #${runId} · ${props.run.data.track.name}` : `Run #${runId}`}
       actions={<TextLink href="/runs" label="All runs" leading="← " />}
       fill={props.wide}
       testID="run-screen"
@@ -58,6 +60,7 @@ function RunBody({
   onPublish,
   onDiscard,
   onSaveNote,
+  incomeUnit,
 }: RunScreenProps) {
   if (run.status === 'pending') {
     return (
@@ -103,6 +106,7 @@ function RunBody({
       review={district}
       onSaveNote={(note) => onSaveNote(selectedCode, note)}
       runClosed={closed}
+      incomeUnit={incomeUnit}
       backHref={wide ? undefined : { pathname: '/runs/[id]', params: { id: String(runId) } }}
     />
   ) : wide ? (
@@ -134,6 +138,7 @@ function RunBody({
           previousRunId={review.data.previousRunId}
           shiftPercent={review.data.thresholdShiftPercent}
           selectedCode={selectedCode}
+          incomeUnit={incomeUnit}
         />
       );
   }
@@ -154,7 +159,7 @@ function RunBody({
       {active ? <RunProgress run={r} /> : null}
       <DecisionBar runId={runId} state={r.state} onPublish={onPublish} onDiscard={onDiscard} />
       {reviewable ? (
-        <Section title="Changes by district">
+        <Section title={`Changes by district · ${r.track.name}`}>
           <SplitColumns wide={wide} main={reviewBlock} side={panel} />
         </Section>
       ) : null}

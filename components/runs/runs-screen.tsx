@@ -14,18 +14,23 @@ import { Button } from '@/components/ui/button';
 import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { formatDateTime, formatRelative } from '@/lib/format-time';
-import type { RunListItem } from '@/contracts/runs';
-import type { SettingsResponse, SpecsResponse } from '@/contracts/settings';
+import { shownTracks } from '@/lib/track-choice';
+import type { RunListItem, RunStarted } from '@/contracts/runs';
+import type { SettingsResponse } from '@/contracts/settings';
+import type { Track } from '@/contracts/tracks';
 
 import { RUN_STATE, TRIGGER_LABEL } from './run-words';
 
 export type RunsScreenProps = {
   runs: QueryState<RunListItem[]>;
-  specs: QueryState<SpecsResponse>;
+  tracks: QueryState<Track[]>;
   settings: QueryState<SettingsResponse>;
-  /** Queues a run and resolves with its id (the screen then opens it). */
-  onStart: (specId: number | undefined) => Promise<{ id: number }>;
+  /** Queues one track's run ('all': one per active track) and resolves with the runs started. */
+  onStart: (track: string | undefined) => Promise<RunStarted>;
   onOpen: (id: number) => void;
+  /** Which track's runs the list shows ('all': every track's). */
+  listTrack?: string;
+  onListTrack?: (code: string) => void;
 };
 
 const columns: Column<RunListItem>[] = [
@@ -50,6 +55,13 @@ const columns: Column<RunListItem>[] = [
       <Pill label={RUN_STATE[r.state].label} tone={RUN_STATE[r.state].tone} testID={`run-row-state-${r.id}`} />
     ),
     sortValue: (r) => r.state,
+  },
+  {
+    key: 'track',
+    header: 'Track',
+    flex: 1.4,
+    render: (r) => <Text style={cellText.strong}>{r.trackName}</Text>,
+    sortValue: (r) => r.trackName,
   },
   {
     key: 'spec',
@@ -92,19 +104,40 @@ const columns: Column<RunListItem>[] = [
 ];
 
 /** "Re-estimate now", the schedule's next start, and the recent runs. */
-export function RunsScreen({ runs, specs, settings, onStart, onOpen }: RunsScreenProps) {
-  const [specId, setSpecId] = useState<string | null>(null);
-  const [start, setStart] = useState<{ busy: boolean; error?: unknown }>({ busy: false });
-  const available = (specs.data?.specs ?? []).filter((s) => !s.archived);
-  const chosen = specId ?? (specs.data ? String(specs.data.defaultSpecId) : null);
+export function RunsScreen({
+  runs,
+  tracks,
+  settings,
+  onStart,
+  onOpen,
+  listTrack = 'all',
+  onListTrack,
+}: RunsScreenProps) {
+  const [picked, setPicked] = useState<string | null>(null);
+  const [start, setStart] = useState<{ busy: boolean; error?: unknown; success?: string }>({ busy: false });
+  // Paused tracks get no scheduled runs but can still be re-estimated by hand; archived ones cannot.
+  const open = shownTracks(tracks.data ?? []);
+  const active = open.filter((t) => t.state === 'active');
+  const headline = open.find((t) => t.headline) ?? open[0];
+  const chosen = picked ?? headline?.code ?? null;
   const schedule = settings.data?.schedule;
+  const names = new Map(open.map((t) => [t.code, t.name]));
 
   const go = async () => {
     setStart({ busy: true });
     try {
-      const { id } = await onStart(chosen ? Number(chosen) : undefined);
-      setStart({ busy: false });
-      onOpen(id);
+      const started = await onStart(chosen ?? undefined);
+      if (started.runs.length <= 1) {
+        setStart({ busy: false });
+        onOpen(started.id);
+        return;
+      }
+      setStart({
+        busy: false,
+        success: `Queued ${started.runs.length} runs: ${started.runs
+          .map((r) => `#${r.id} ${names.get(r.track) ?? r.track}`)
+          .join(', ')}.`,
+      });
     } catch (error) {
       setStart({ busy: false, error });
     }
@@ -113,35 +146,46 @@ export function RunsScreen({ runs, specs, settings, onStart, onOpen }: RunsScree
   return (
     <Page
       title="Runs"
-      intro="A run re-estimates every district with one spec on one data version. Its estimates stay in review until an analyst publishes them."
+      intro="A run re-estimates every district for one track (a watched indicator and its spec) on one data version. Its estimates stay in review until an analyst publishes them."
       testID="runs-screen"
     >
       <Section title="Re-estimate now">
         <View style={styles.startBox}>
-          {specs.status === 'pending' ? (
+          {tracks.status === 'pending' ? (
             <Skeleton width="100%" height={44} />
-          ) : specs.status === 'error' ? (
+          ) : tracks.status === 'error' ? (
             <QueryErrorPanel
-              what="the specs"
-              error={specs.error}
-              retrying={specs.isFetching}
-              onRetry={() => void specs.refetch()}
+              what="the tracks"
+              error={tracks.error}
+              retrying={tracks.isFetching}
+              onRetry={() => void tracks.refetch()}
             />
-          ) : available.length > 1 ? (
+          ) : open.length > 1 ? (
             <ChoiceGroup
-              label="Spec"
-              choices={available.map((s) => ({
-                value: String(s.id),
-                label: s.name,
-                hint: s.isDefault ? 'the region’s default' : undefined,
-              }))}
+              label="Track"
+              choices={[
+                ...open.map((t) => ({
+                  value: t.code,
+                  label: t.name,
+                  hint: `${t.indicator.unit} · spec “${t.specName}”${t.headline ? ' · headline' : ''}${
+                    t.state === 'paused' ? ' · paused' : ''
+                  }`,
+                })),
+                ...(active.length > 1
+                  ? [{ value: 'all', label: 'All active tracks', hint: `${active.length} runs, one per track` }]
+                  : []),
+              ]}
               value={chosen}
-              onChange={setSpecId}
-              testID="run-spec"
+              onChange={setPicked}
+              testID="run-track"
             />
-          ) : available.length === 1 ? (
-            <Text style={styles.lead}>Spec: {available[0].name}</Text>
-          ) : null}
+          ) : open.length === 1 ? (
+            <Text style={styles.lead}>
+              Track: {open[0].name} (spec “{open[0].specName}”)
+            </Text>
+          ) : (
+            <Text style={styles.lead}>No open track: an admin creates one under Settings.</Text>
+          )}
           <Button
             label="Re-estimate now"
             onPress={() => void go()}
@@ -149,7 +193,7 @@ export function RunsScreen({ runs, specs, settings, onStart, onOpen }: RunsScree
             busyLabel="Queuing…"
             testID="run-start"
           />
-          <MutationNotice error={start.error} testID="run-start" />
+          <MutationNotice error={start.error} success={start.success} testID="run-start" />
           <Text style={styles.note} testID="runs-schedule">
             {schedule
               ? schedule.enabled && schedule.nextRunAt
@@ -160,6 +204,15 @@ export function RunsScreen({ runs, specs, settings, onStart, onOpen }: RunsScree
         </View>
       </Section>
       <Section title="Recent runs">
+        {onListTrack && open.length > 1 ? (
+          <ChoiceGroup
+            label="Show runs of"
+            choices={[{ value: 'all', label: 'Every track' }, ...open.map((t) => ({ value: t.code, label: t.name }))]}
+            value={listTrack}
+            onChange={onListTrack}
+            testID="runs-track"
+          />
+        ) : null}
         {runs.status === 'pending' ? (
           <Skeleton width="100%" height={200} />
         ) : runs.status === 'error' || !runs.data ? (

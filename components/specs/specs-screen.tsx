@@ -11,8 +11,10 @@ import { Pill } from '@/components/ui/pill';
 import { TextLink } from '@/components/ui/text-link';
 import { COVARIANCE_LABEL } from '@/lib/estimate-words';
 import type { CatalogueIndicator, SavedSpec, SpecInput, SpecsResponse } from '@/contracts/settings';
+import type { Track } from '@/contracts/tracks';
 
 import { SpecEditor } from './spec-editor';
+import { TrackSpecs } from './track-specs';
 
 export type SpecsScreenProps = {
   specs: QueryState<SpecsResponse>;
@@ -25,6 +27,9 @@ export type SpecsScreenProps = {
   onSaved: (spec: SavedSpec) => void;
   /** Said above the list after a spec was archived (it leaves the list). */
   notice?: string | null;
+  /** The tracks, each naming the spec its next run uses (staff change it here). */
+  tracks?: QueryState<Track[]>;
+  onChangeTrackSpec?: (code: string, specId: number) => Promise<unknown>;
 };
 
 export function specLine(s: SavedSpec): string {
@@ -42,11 +47,19 @@ export function SpecsScreen({
   onArchive,
   onSaved,
   notice,
+  tracks,
+  onChangeTrackSpec,
 }: SpecsScreenProps) {
+  const usedBy = new Map<number, string[]>();
+  for (const t of tracks?.data ?? [])
+    if (t.state !== 'archived') usedBy.set(t.specId, [...(usedBy.get(t.specId) ?? []), t.name]);
   const list = (
     <View style={styles.stack}>
       {notice ? <MutationNotice success={notice} testID="specs-notice" /> : null}
-      <SpecList specs={specs} selected={selected} />
+      {tracks && onChangeTrackSpec ? (
+        <TrackSpecs tracks={tracks} specs={specs.data?.specs ?? []} onChangeSpec={onChangeTrackSpec} />
+      ) : null}
+      <SpecList specs={specs} selected={selected} usedBy={usedBy} />
     </View>
   );
   let editor = null;
@@ -109,7 +122,15 @@ export function SpecsScreen({
   );
 }
 
-function SpecList({ specs, selected }: { specs: QueryState<SpecsResponse>; selected: 'new' | number | null }) {
+function SpecList({
+  specs,
+  selected,
+  usedBy,
+}: {
+  specs: QueryState<SpecsResponse>;
+  selected: 'new' | number | null;
+  usedBy: Map<number, string[]>;
+}) {
   if (specs.status === 'pending') return <Skeleton width="100%" height={160} />;
   if (specs.status === 'error' || !specs.data)
     return (
@@ -136,6 +157,11 @@ function SpecList({ specs, selected }: { specs: QueryState<SpecsResponse>; selec
             {s.archived ? <Pill label="Archived" tone="neutral" /> : null}
           </View>
           <Text style={styles.itemLine}>{specLine(s)}</Text>
+          {usedBy.get(s.id) ? (
+            <Text style={styles.itemLine} testID={`spec-row-${s.id}-tracks`}>
+              Used by {usedBy.get(s.id)!.join(', ')}
+            </Text>
+          ) : null}
           {s.description ? <Text style={styles.itemLine}>{s.description}</Text> : null}
         </View>
       ))}

@@ -4,8 +4,9 @@
 import { curveChartModel, pathChartModel } from '@/lib/chart-model';
 import { formatTick, logTicks } from '@/lib/chart-scale';
 import { curveChartSummary } from '@/lib/chart-summary';
+import { runUnits } from '@/lib/units';
 
-import { estimateRecord, notEstimableRecord, wholeLineRecord } from './support/estimates';
+import { estimateRecord, notEstimableRecord, run, wholeLineRecord } from './support/estimates';
 
 describe('curve chart model', () => {
   it('has a band for a bounded Fieller interval, inside the x domain', () => {
@@ -121,8 +122,9 @@ describe('a threshold far outside the observed incomes', () => {
     expect(m.band).toBeNull();
     // The frame stays around the observed incomes (14,000–29,540, padded by 8%).
     expect(m.xDomain[0]).toBeCloseTo(14000 / 1.08, 6);
-    expect(curveChartSummary(far)).toMatch(
-      /The turning point lies at 119 per person, beyond the observed incomes, too far from the observed incomes to fall inside the chart \(interval not bounded at 95%\)\./,
+    // The income unit comes from the run's catalogue labels (support/estimates.ts run.units).
+    expect(curveChartSummary(far, runUnits(run))).toMatch(
+      /The turning point lies at 119 € per person, beyond the observed incomes, too far from the observed incomes to fall inside the chart \(interval not bounded at 95%\)\./,
     );
   });
 });

@@ -43,7 +43,9 @@ describe('district card', () => {
     expect(panel.getByText('Approaching')).toBeTruthy();
     expect(panel.getByText('Rise then fall (inverted U)')).toBeTruthy();
     const threshold = within(screen.getByTestId('figure-threshold'));
-    expect(threshold.getByText('30,000 per person')).toBeTruthy();
+    // the figure, and under it the driver's unit from the run's catalogue labels (support/estimates.ts)
+    expect(threshold.getByText('30,000')).toBeTruthy();
+    expect(threshold.getByText('€ per person')).toBeTruthy();
     expect(threshold.getByText('Fieller 95%: 26,000–36,000 — sets the standing')).toBeTruthy();
     expect(threshold.getByText('Delta method 95%: 25,500–35,000')).toBeTruthy();
     expect(within(screen.getByTestId('figure-elasticity')).getByText('+0.21')).toBeTruthy();
@@ -221,7 +223,14 @@ describe('district card', () => {
     expect(toggle.props.accessibilityState.checked).toBe(false);
     await act(async () => fireEvent.press(toggle));
     expect(mockedSend).toHaveBeenCalledWith('POST', '/api/subscriptions', {
-      json: { scope: 'district', districtCodes: ['T02'], kinds: [], delivery: 'instant', attachBrief: false },
+      json: {
+        tracks: 'all',
+        scope: 'district',
+        districtCodes: ['T02'],
+        kinds: [],
+        delivery: 'instant',
+        attachBrief: false,
+      },
     });
     await waitFor(() => expect(screen.getByTestId('subscribe-toggle').props.accessibilityState.checked).toBe(true));
     await act(async () => fireEvent.press(screen.getByTestId('subscribe-toggle')));

@@ -3,7 +3,7 @@ import { fireEvent, screen, waitFor, within } from 'expo-router/testing-library'
 import { CAUTION_TEXT } from '@/components/district/caution-note';
 import { ApiError, apiGet } from '@/lib/api-client';
 
-import { cardAnswers, estimateRecord } from './support/estimates';
+import { cardAnswers, co2Track, estimateRecord } from './support/estimates';
 import { gappyDetail } from './support/fixtures';
 import { answerWith, never } from './support/mock-api';
 import { renderApp } from './support/render-app';
@@ -126,6 +126,8 @@ describe('district screen', () => {
           main: null,
           variants: [],
           note: null,
+          track: co2Track,
+          tracks: [{ ...co2Track, standing: null, gapPercent: null, shape: null, runId: null }],
         },
         '/api/districts/T03/history': { district: { code: 'T03', name: 'Coldwater' }, history: [] },
         '/api/districts/T03/alerts?limit=20': { alerts: [] },

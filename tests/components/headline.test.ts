@@ -123,10 +123,12 @@ describe('headline: no turn', () => {
       extrapolated: true,
       gapPercent: -57.4,
       projection: { status: 'projected', crossingYear: 2048, earliest: 2026, latest: 2086 },
+      // the demo catalogue's income unit (api/demo/catalogue.ts)
+      incomeUnit: 'constant 2020 currency units per person',
     });
     expect(r.sentence).toBe('Emissions rise with income across the observed incomes, with no turning point there.');
     expect(r.notes[0]).toBe(
-      'The fitted curve would turn at 45,226 per person, beyond the observed incomes; income is 57% below it and at the recent trend it would reach it around 2048 (2026–2086).',
+      'The fitted curve would turn at 45,226 constant 2020 currency units per person, beyond the observed incomes; income is 57% below it and at the recent trend it would reach it around 2048 (2026–2086).',
     );
     expect(r.notes).toContain('That turn is an extrapolation (turn beyond observed range).');
   });
@@ -141,7 +143,7 @@ describe('headline: no turn', () => {
     });
     expect(r.sentence).toBe('Emissions fall as income grows across the observed incomes, with no turning point there.');
     expect(r.notes[0]).toBe(
-      'The fitted curve would turn at 20,000 per person, inside the observed incomes, though the test does not confirm a turn; income is 25% above it and passed it around 2020 (2008–2032).',
+      'The fitted curve would turn at 20,000, inside the observed incomes, though the test does not confirm a turn; income is 25% above it and passed it around 2020 (2008–2032).',
     );
   });
 

@@ -7,7 +7,7 @@ import { RegionOverview } from '@/components/region/region-overview';
 import { CAUTIONS } from '@/lib/cautions';
 import type { RegionResponse } from '@/contracts/estimates';
 
-import { estimateRecord, run, summaryOf } from './support/estimates';
+import { co2Track, estimateRecord, run, summaryOf } from './support/estimates';
 import { districtSummaries } from './support/fixtures';
 
 jest.mock('expo-router', () => ({
@@ -48,6 +48,7 @@ describe('region overview', () => {
       { ...districtSummaries[2], estimate: null },
     ];
     const region: RegionResponse = {
+      track: co2Track,
       run,
       counts: {},
       pooled: { shape: 'inverted_u', threshold: 24000, fieller: { kind: 'bounded', levelLo: 21000, levelHi: 28000 } },
@@ -63,14 +64,14 @@ describe('region overview', () => {
     expect(within(screen.getByTestId('region-count-past_turn')).getByText('1')).toBeTruthy();
     expect(within(screen.getByTestId('region-count-not_estimable')).getByText('1')).toBeTruthy();
     expect(within(screen.getByTestId('region-count-at_turn')).getByText('0')).toBeTruthy();
-    expect(screen.getByText(/turning point 24,000 per person \(21,000–28,000\)/)).toBeTruthy();
+    expect(screen.getByText(/turning point 24,000 € per person \(21,000–28,000\)/)).toBeTruthy();
     expect(screen.getByTestId('region-brief-link')).toBeTruthy();
   });
 
   it('says when no run is published yet, and offers no brief', () => {
     render(
       <RegionOverview
-        region={ok<RegionResponse>({ run: null, counts: {}, pooled: null, districts: [] })}
+        region={ok<RegionResponse>({ track: co2Track, run: null, counts: {}, pooled: null, districts: [] })}
         districts={ok([])}
       />,
     );

@@ -41,7 +41,8 @@ describe('briefs in the browser', () => {
       await page.goto(`${h.baseUrl}/district/D01`);
       const link = page.getByTestId('district-brief-link');
       await link.waitFor();
-      const anchor = page.locator('a[href="/api/briefs/district/D01.pdf"]');
+      // The card's brief is of the track it shows (the headline one here): the link carries it.
+      const anchor = page.locator('a[href^="/api/briefs/district/D01.pdf?track="]');
       expect(await anchor.count()).toBeGreaterThan(0);
       expect(await anchor.first().getAttribute('target')).toBe('_blank');
       const res = await page.request.get(`${h.baseUrl}/api/briefs/district/D01.pdf`);

@@ -153,7 +153,8 @@ describe.each([
       expect((await chartMarks(page, 'path-chart-box')).band).toBeGreaterThan(0);
       await expect(page.getByTestId('curve-chart-summary').textContent()).resolves.toMatch(/as a shaded band/);
       await expect(page.getByTestId('curve-chart-box').getAttribute('aria-label')).resolves.toMatch(
-        /^Emissions per person against real income per person/,
+        // the indicator names of the demo catalogue (api/demo/catalogue.ts), carried by the run's units
+        /^CO2 emissions per person against real income per person/,
       );
       if (name === 'wide') {
         // List and card side by side, and the alerts column at ≥ 1440 px.

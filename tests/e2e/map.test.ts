@@ -125,7 +125,8 @@ describe.each([
         '',
       );
       await tapDistrict(page, code);
-      await page.waitForURL(`${h.baseUrl}/district/${code}`);
+      // The map's link keeps the track whose standings it draws (here the headline track).
+      await page.waitForURL(new RegExp(`/district/${code}\\?track=[a-z][a-z0-9-]*$`));
       await page.getByTestId('district-name').waitFor();
       await page.getByTestId('locator-map').locator('svg').waitFor();
       await noHorizontalOverflow(page);

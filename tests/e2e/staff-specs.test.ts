@@ -39,9 +39,12 @@ it('an analyst saves a spec, sees it offered for a run, and archives it (wide)',
     );
     await h.shot(page, 'staff-wide-spec-saved');
 
+    // The track watching the spec's indicator offers it; the track keeps its spec until staff switch it.
+    await page.locator(`[data-testid^="track-spec-choice-"][data-testid$="-${id}"]`).first().waitFor();
+    expect(await page.getByTestId('track-specs').innerText()).toMatch(/next run uses “Regional default”/);
     await openSection(page, 'runs', false);
-    await page.getByTestId(`run-spec-${id}`).waitFor();
-    expect(await page.getByTestId('run-spec').innerText()).toMatch(/Regional default[\s\S]*Levels without controls/);
+    await page.getByTestId('run-start').waitFor();
+    expect(await page.getByTestId('runs-screen').innerText()).toMatch(/Track: .+ \(spec “Regional default”\)/);
 
     await page.goto(`${h.baseUrl}/specs/${id}`);
     await page.getByTestId('spec-archive').click();

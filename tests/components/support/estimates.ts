@@ -1,7 +1,9 @@
 // Invented published estimates in the engine's output shape (api/runs/estimate-record.ts),
 // for component tests. Plumbing only: the figures are made up to exercise the screens.
+import type { Track, TrackRef, TracksResponse } from '@/contracts/tracks';
 import type {
   DistrictEstimateResponse,
+  TrackStanding,
   EstimateRecord,
   EstimateSummary,
   PublishedRunMeta,
@@ -18,6 +20,82 @@ function curveY(x: number): number {
 
 const years = Array.from({ length: 20 }, (_, i) => 2006 + i);
 const incomes = years.map((_, i) => Math.round(14000 * Math.exp(0.04 * i)));
+
+/** Invented catalogue labels: the units are the ones the demo catalogue uses for these series. */
+export const co2Indicator = {
+  code: 'emissions_pc',
+  name: 'CO₂ emissions per person',
+  unit: 't CO₂ per person',
+  source: 'Regional inventory office',
+  licence: 'CC BY 4.0',
+};
+export const incomeIndicator = {
+  code: 'income_pc',
+  name: 'Real income per person',
+  unit: '€ per person',
+  source: null,
+  licence: null,
+};
+export const co2Track: TrackRef = { code: 'co2', name: 'CO₂ per person', indicator: co2Indicator };
+export const pm25Track: TrackRef = {
+  code: 'pm25',
+  name: 'Fine particles',
+  indicator: {
+    code: 'pm25',
+    name: 'PM2.5 annual mean',
+    unit: 'µg/m³',
+    source: 'Air monitoring network',
+    licence: null,
+  },
+};
+export const so2Track: TrackRef = {
+  code: 'so2',
+  name: 'SO₂ per person',
+  indicator: { code: 'so2_pc', name: 'SO₂ emissions per person', unit: 'kg per person', source: null, licence: null },
+};
+
+/** The card's rows: CO₂ approaching, PM2.5 past the turn, SO₂ with no published run. */
+export const trackRows: TrackStanding[] = [
+  { ...co2Track, standing: 'approaching', gapPercent: -12.4, shape: 'inverted_u', runId: 7 },
+  { ...pm25Track, standing: 'past_turn', gapPercent: 8.1, shape: 'inverted_u', runId: 9 },
+  { ...so2Track, standing: null, gapPercent: null, shape: null, runId: null },
+];
+
+function track(ref: TrackRef, over: Partial<Track>): Track {
+  return {
+    ...ref,
+    headline: false,
+    state: 'active',
+    specId: 1,
+    specName: 'Regional default',
+    publishedRunId: null,
+    publishedAt: null,
+    createdAt: '2026-01-05T09:00:00.000Z',
+    ...over,
+  };
+}
+
+/** GET /api/tracks: CO₂ the headline, PM2.5 published, SO₂ without a published run, one archived track. */
+export const tracksAnswer: TracksResponse = {
+  tracks: [
+    track(pm25Track, {
+      specId: 2,
+      specName: 'Particles default',
+      publishedRunId: 9,
+      publishedAt: '2026-10-03T09:00:00.000Z',
+    }),
+    track(co2Track, { headline: true, publishedRunId: 7, publishedAt: '2026-10-02T09:00:00.000Z' }),
+    track(so2Track, { specId: 3, specName: 'Sulphur default' }),
+    track(
+      {
+        code: 'nox',
+        name: 'Nitrogen oxides',
+        indicator: { code: 'nox_pc', name: 'NOx per person', unit: 'kg per person', source: null, licence: null },
+      },
+      { specId: 4, specName: 'Old NOx', state: 'archived' },
+    ),
+  ],
+};
 
 export const run: PublishedRunMeta = {
   id: 7,
@@ -43,6 +121,7 @@ export const run: PublishedRunMeta = {
   dataVersion: 3,
   dataHash: 'ab'.repeat(32),
   softwareVersion: '0.1.0',
+  units: { emissions: co2Indicator, driver: incomeIndicator },
 };
 
 export function estimateRecord(over: Partial<EstimateRecord>): EstimateRecord {
@@ -216,6 +295,8 @@ export function estimateResponse(
     main,
     variants: main ? variants() : [],
     note: null,
+    track: co2Track,
+    tracks: trackRows,
     ...over,
   };
 }
@@ -223,6 +304,7 @@ export function estimateResponse(
 /** Every GET the card makes for T02, answered; override any path. */
 export function cardAnswers(main: EstimateRecord | null, over: Record<string, unknown> = {}): Record<string, unknown> {
   return {
+    '/api/tracks': tracksAnswer,
     '/api/districts/T02/estimate': estimateResponse(main),
     '/api/districts/T02/history': {
       district: { code: 'T02', name: 'Bryn Ødegård' },

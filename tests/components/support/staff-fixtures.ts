@@ -1,5 +1,6 @@
 // Invented answers for the staff screens' component tests (plumbing only: no figure here means anything).
 import type { ReviewResponse, RunView } from '@/contracts/runs';
+import { co2Track } from './estimates';
 import type { SettingsResponse } from '@/contracts/settings';
 import type { UploadAnswer, UploadPreview, UploadSummary } from '@/contracts/uploads';
 
@@ -98,6 +99,7 @@ export function runView(over: Partial<RunView> = {}): RunView {
     id: 5,
     state: 'in_review',
     trigger: 'manual',
+    track: co2Track,
     spec: {
       savedSpecId: 1,
       name: 'Regional default',
@@ -134,6 +136,7 @@ export function runView(over: Partial<RunView> = {}): RunView {
 const unchanged = { thresholdPercent: 0, standingChanged: false, shapeChanged: false, significanceChanged: false };
 
 export const reviewAnswer: ReviewResponse = {
+  track: co2Track,
   runId: 5,
   previousRunId: 4,
   // The settings' default limit (api/settings/schema.ts), as settingsAnswer above has it.
