@@ -34,8 +34,7 @@ async function main(): Promise<void> {
   if (config.mode === 'demo') {
     publishInitialDemoRuns(running.ctx, config.firstAdminEmail).then(
       (ids) =>
-        ids &&
-        console.log(`Published the first demo runs (${ids.map((id) => `#${id}`).join(', ')}), one per track.`),
+        ids && console.log(`Published the first demo runs (${ids.map((id) => `#${id}`).join(', ')}), one per track.`),
       (err: Error) => console.error(`The first demo run could not be published: ${err.message}`),
     );
   }
