@@ -166,6 +166,7 @@ describe('per-person limits on compute routes', () => {
       [
         'get /api/briefs/district/:code',
         'get /api/briefs/district/:code.pdf',
+        'get /api/briefs/district/:code/summary.pdf',
         'get /api/briefs/region',
         'get /api/briefs/region.pdf',
         'get /api/districts/:code/observations.csv',
