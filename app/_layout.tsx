@@ -9,6 +9,7 @@ import { HeaderArea } from '@/components/layout/header-area';
 import { isRegionRoute } from '@/components/layout/nav-items';
 import { RegionShell } from '@/components/layout/region-shell';
 import { ServerNotice } from '@/components/layout/server-notice';
+import { UpdateNotice } from '@/components/layout/update-notice';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
@@ -71,6 +72,7 @@ function Frame() {
             onSignOut={() => signOut.mutate(undefined, { onSuccess: () => router.replace('/sign-in') })}
           />
           <ServerNotice health={health} />
+          <UpdateNotice />
         </>
       }
       list={
