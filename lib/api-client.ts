@@ -6,7 +6,7 @@ import { MeResponseSchema } from '@/contracts/districts';
 import { pick, safeParse, type Issue, type Schema } from '@/contracts/kit';
 
 import { serverUrl } from './api-config';
-import { clearOfflineCopies, markOfflineCopy, OFFLINE_COPY_HEADER } from './offline-copies';
+import { clearOfflineCopies, noteOfflineCopy } from './offline-copies';
 
 /** A failed API call: the server's error code and message, or one of ours for transport faults. */
 export class ApiError extends Error {
@@ -109,8 +109,7 @@ export async function apiGet<T>(path: string, options: ApiGetOptions<T> = {}): P
   if (body === undefined) throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
   const answer = readAnswer(path, response.status, body, options.schema);
   // The service worker answered from its offline copy: screens say how old it is.
-  const savedAt = Date.parse(response.headers.get(OFFLINE_COPY_HEADER) ?? '');
-  if (Number.isFinite(savedAt)) markOfflineCopy(answer, savedAt);
+  noteOfflineCopy(answer, response.headers);
   return answer;
 }
 

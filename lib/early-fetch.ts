@@ -4,6 +4,8 @@
 // to their ordinary request (and its error handling) when it is not or did not succeed.
 import { safeParse, type Schema } from '@/contracts/kit';
 
+import { noteOfflineCopy } from './offline-copies';
+
 type EarlyMap = Record<string, Promise<Response> | undefined>;
 
 /**
@@ -30,7 +32,9 @@ export async function earlyJson<T>(path: string, schema: Schema<T>): Promise<T |
     const res = await pending;
     if (!res.ok) return null;
     const parsed = safeParse(schema, await res.json());
-    return parsed.success ? parsed.data : null;
+    if (!parsed.success) return null;
+    noteOfflineCopy(parsed.data, res.headers);
+    return parsed.data;
   } catch {
     return null;
   }

@@ -50,6 +50,12 @@ export function markOfflineCopy(answer: unknown, savedAt: number): void {
   for (const part of Object.values(answer)) if (typeof part === 'object' && part !== null) copies.set(part, savedAt);
 }
 
+/** Marks the answer when the worker said it came from its offline copy (OFFLINE_COPY_HEADER). */
+export function noteOfflineCopy(answer: unknown, headers: Headers): void {
+  const savedAt = Date.parse(headers.get(OFFLINE_COPY_HEADER) ?? '');
+  if (Number.isFinite(savedAt)) markOfflineCopy(answer, savedAt);
+}
+
 /** When the answer shown was saved, if it is an offline copy; null for a fresh answer. */
 export function offlineCopySavedAt(data: unknown): number | null {
   if (typeof data !== 'object' || data === null) return null;
