@@ -11,6 +11,8 @@ export const API_CACHE_PREFIX = 'crestwatch-api-';
 export const API_CACHES = {
   /** The region answer and the district list (one of each). */
   region: `${API_CACHE_PREFIX}region`,
+  /** The district shapes the region map and the card's locator draw (phone and print detail). */
+  boundaries: `${API_CACHE_PREFIX}boundaries`,
   /** The last CARD_LIMIT district cards opened: their estimate, series and history answers. */
   cardEstimate: `${API_CACHE_PREFIX}card-estimate`,
   cardDetail: `${API_CACHE_PREFIX}card-detail`,

@@ -1,4 +1,11 @@
-import { QueryClient, replaceEqualDeep } from '@tanstack/react-query';
+import {
+  onlineManager,
+  QueryClient,
+  replaceEqualDeep,
+  type InvalidateOptions,
+  type InvalidateQueryFilters,
+  type QueryKey,
+} from '@tanstack/react-query';
 
 import { ApiError } from './api-client';
 import { offlineCopySavedAt } from './offline-copies';
@@ -21,9 +28,23 @@ export function shareUnlessOfflineCopy(previous: unknown, next: unknown): unknow
   return replaceEqualDeep(previous, next);
 }
 
+/**
+ * While offline, an invalidation (after a change, successful or refused) marks the queries
+ * stale without refetching them: a refetch would only wait for the network, and a change's
+ * busy state waits for it. They refetch when the connection returns (refetchOnReconnect).
+ */
+class CrestwatchQueryClient extends QueryClient {
+  override invalidateQueries<TTaggedQueryKey extends QueryKey = QueryKey>(
+    filters?: InvalidateQueryFilters<TTaggedQueryKey>,
+    options?: InvalidateOptions,
+  ): Promise<void> {
+    return super.invalidateQueries(onlineManager.isOnline() ? filters : { ...filters, refetchType: 'none' }, options);
+  }
+}
+
 /** One client for the app's lifetime (the root layout creates it once). */
 export function createQueryClient(): QueryClient {
-  return new QueryClient({
+  return new CrestwatchQueryClient({
     defaultOptions: {
       queries: {
         retry: shouldRetry,

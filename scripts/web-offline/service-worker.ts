@@ -155,8 +155,9 @@ function keepForOffline(pattern: RegExp, cacheName: string, maxEntries: number):
   );
 }
 
-// The region answer and the district list behind the region screens.
+// The region answer and the district list behind the region screens, and the map's shapes.
 keepForOffline(/^\/api\/(region|districts)$/, API_CACHES.region, 2);
+keepForOffline(/^\/api\/boundaries$/, API_CACHES.boundaries, 2);
 // The district cards: estimate, yearly series and history of the last CARD_LIMIT opened.
 keepForOffline(/^\/api\/districts\/[^/]+\/estimate$/, API_CACHES.cardEstimate, CARD_LIMIT);
 keepForOffline(/^\/api\/districts\/[^/]+$/, API_CACHES.cardDetail, CARD_LIMIT);

@@ -1,0 +1,169 @@
+/**
+ * Browser test of offline reading (scripts/web-offline/service-worker.ts): an official's
+ * browser installs the service worker, opens two district cards, loses the network,
+ * reloads and still reads both cards with the "offline — figures from <date>" notice; a
+ * change tried offline is refused, not queued; after signing out the kept answers are gone
+ * and a card no longer opens offline. Also: the worker is served `no-cache`, the CSP allows
+ * it, and the manifest names the app with its icons.
+ */
+import { format } from 'date-fns';
+import type { BrowserContext, Page } from 'playwright-core';
+import { DEMO } from '../support/auth';
+import { startHarness, VIEWPORTS, type Harness } from '../support/browser';
+
+jest.setTimeout(300_000);
+
+const API_CACHE_PREFIX = 'crestwatch-api-'; // lib/offline-copies.ts
+
+let h: Harness;
+beforeAll(async () => {
+  h = await startHarness({ publishRun: true });
+});
+afterAll(async () => h?.close());
+
+/** Names of the API caches the page's origin holds, with how many answers each keeps. */
+async function apiCaches(page: Page): Promise<Record<string, number>> {
+  return page.evaluate(async (prefix) => {
+    const out: Record<string, number> = {};
+    for (const name of await caches.keys())
+      if (name.startsWith(prefix)) out[name] = (await (await caches.open(name)).keys()).length;
+    return out;
+  }, API_CACHE_PREFIX);
+}
+
+/** Opens a card from the region list (a navigation inside the app) and returns its name and the answer's Date. */
+async function openCard(page: Page, code: string): Promise<{ name: string; sentAt: string }> {
+  const answer = page.waitForResponse((r) => r.url().endsWith(`/api/districts/${code}/estimate`) && r.ok());
+  await page.getByTestId(`district-row-${code}`).click();
+  await page.waitForURL(`${h.baseUrl}/district/${code}`);
+  const sentAt = (await answer).headers()['date'];
+  await page.getByTestId('district-name').waitFor();
+  return { name: await page.getByTestId('district-name').innerText(), sentAt };
+}
+
+/** Waits for the card of `code` to show, read from the offline copy, and returns the notice's text. */
+async function readOffline(page: Page, name: string): Promise<string> {
+  await page.getByTestId('district-name').waitFor();
+  expect(await page.getByTestId('district-name').innerText()).toBe(name);
+  const notice = page.getByTestId('district-detail-scroll').getByTestId('offline-copy-notice');
+  await notice.waitFor();
+  return notice.innerText();
+}
+
+async function installWorker(page: Page): Promise<void> {
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+}
+
+it('serves the worker no-cache, allows it in the CSP and links a manifest with icons', async () => {
+  const sw = await fetch(`${h.baseUrl}/sw.js`);
+  expect(sw.status).toBe(200);
+  expect(sw.headers.get('cache-control')).toBe('no-cache');
+  expect(sw.headers.get('content-security-policy')).toMatch(/worker-src 'self'/);
+  const html = await (await fetch(`${h.baseUrl}/sign-in`)).text();
+  expect(html).toContain('<link rel="manifest" href="/manifest.webmanifest"');
+  const manifest = (await (await fetch(`${h.baseUrl}/manifest.webmanifest`)).json()) as {
+    name: string;
+    theme_color: string;
+    background_color: string;
+    icons: { src: string; sizes: string }[];
+  };
+  expect(manifest.name).toBe('Crestwatch');
+  // components/theme.ts: colors.headerBackground (slate900) and colors.background (paper).
+  expect([manifest.theme_color, manifest.background_color]).toEqual(['#1E2B2F', '#F5F2EA']);
+  for (const size of ['192x192', '512x512']) {
+    const icon = manifest.icons.find((i) => i.sizes === size);
+    expect(icon).toBeDefined();
+    const png = Buffer.from(await (await fetch(`${h.baseUrl}${icon!.src}`)).arrayBuffer());
+    // PNG signature, then the IHDR width and height (PNG specification, section 11.2.2).
+    expect(png.subarray(1, 4).toString('ascii')).toBe('PNG');
+    expect(`${png.readUInt32BE(16)}x${png.readUInt32BE(20)}`).toBe(size);
+  }
+});
+
+it('reads two opened cards offline after a reload, refuses changes offline, and forgets them at sign-out', async () => {
+  const { context, page }: { context: BrowserContext; page: Page } = await h.newPage(VIEWPORTS.laptop);
+  try {
+    await page.goto(`${h.baseUrl}/api/auth/google?login_hint=${encodeURIComponent(DEMO.official)}`);
+    await page.waitForURL(`${h.baseUrl}/`);
+    await installWorker(page);
+    // The first page's answers came before the worker took charge; the next visit goes through it.
+    await page.reload();
+    await page.getByTestId('district-row-D01').waitFor();
+
+    const first = await openCard(page, 'D01');
+    const second = await openCard(page, 'D02');
+    const kept = await apiCaches(page);
+    expect(kept[`${API_CACHE_PREFIX}card-estimate`]).toBe(2);
+    expect(kept[`${API_CACHE_PREFIX}region`]).toBeGreaterThanOrEqual(1);
+
+    // Offline with the card still open: a change is refused at once, in words saying it
+    // needs a connection, and nothing is sent (or held back to be sent later).
+    await context.setOffline(true);
+    const sent: string[] = [];
+    page.on('request', (r) => {
+      if (r.method() !== 'GET') sent.push(`${r.method()} ${r.url()}`);
+    });
+    await page.getByTestId('subscribe-toggle').click();
+    await page.getByText('This change needs a connection', { exact: false }).waitFor();
+    expect(sent).toEqual([]);
+
+    await page.reload();
+    const notice = await readOffline(page, second.name);
+    // The date the server sent the answer with, as the notice writes it (lib/format-time.ts formatDayTime).
+    expect(notice).toContain(`Offline — figures from ${format(new Date(second.sentAt), 'd MMM, HH:mm')}`);
+    // The region's list beside it is the offline copy too, and says so.
+    const listNotice = page.getByTestId('district-list-panel').getByTestId('offline-copy-notice');
+    expect(await listNotice.innerText()).toMatch(/^Offline — figures from \d{1,2} \w{3}, \d{2}:\d{2}\./);
+    await h.shot(page, 'offline-card-second');
+
+    await page.goto(`${h.baseUrl}/district/D01`);
+    expect(await readOffline(page, first.name)).toContain(
+      `Offline — figures from ${format(new Date(first.sentAt), 'd MMM, HH:mm')}`,
+    );
+    await h.shot(page, 'offline-card-first');
+
+    await context.setOffline(false);
+    expect(sent).toEqual([]); // nothing queued offline went out when the network came back
+    await page.getByTestId('sign-out').click();
+    await page.waitForURL(`${h.baseUrl}/sign-in`);
+    expect(await apiCaches(page)).toEqual({});
+
+    await context.setOffline(true);
+    await page.goto(`${h.baseUrl}/district/D01`);
+    await page.locator('[data-testid="district-offline"], [data-testid="district-detail-error"]').first().waitFor();
+    expect(await page.getByTestId('district-name').count()).toBe(0);
+    await h.shot(page, 'offline-card-after-sign-out');
+  } finally {
+    await context.close();
+  }
+});
+
+it('forgets the kept answers when the session ends on the server (a 401)', async () => {
+  const { context, page } = await h.newPage(VIEWPORTS.laptop);
+  try {
+    await page.goto(`${h.baseUrl}/api/auth/google?login_hint=${encodeURIComponent(DEMO.official)}`);
+    await page.waitForURL(`${h.baseUrl}/`);
+    await installWorker(page);
+    await page.reload();
+    await page.getByTestId('district-row-D03').waitFor();
+    await openCard(page, 'D03');
+    expect((await apiCaches(page))[`${API_CACHE_PREFIX}card-estimate`]).toBe(1);
+
+    // The session ends on the server (as an idle or lifetime limit ends it); the next
+    // answer is a 401, which is not kept and clears what was.
+    await h.t.db('session').del();
+    const refused = page.waitForResponse((r) => r.url().endsWith('/api/districts/D04/estimate'));
+    await page.getByTestId('district-row-D04').click();
+    expect((await refused).status()).toBe(401);
+    await page.waitForFunction(async (prefix) => {
+      for (const name of await caches.keys())
+        if (name.startsWith(prefix) && (await (await caches.open(name)).keys()).length > 0) return false;
+      return true;
+    }, API_CACHE_PREFIX);
+  } finally {
+    await context.close();
+  }
+});
