@@ -3,13 +3,20 @@
  * browser installs the service worker, opens two district cards, loses the network,
  * reloads and still reads both cards with the "offline — figures from <date>" notice; a
  * change tried offline is refused, not queued; after signing out the kept answers are gone
- * and a card no longer opens offline. Also: the worker is served `no-cache`, the CSP allows
- * it, and the manifest names the app with its icons.
+ * and a card no longer opens offline; a 401 clears them too. Also: the worker is served
+ * `no-cache`, the CSP allows it, the manifest names the app with its icons, and a new deploy
+ * takes over on the next visit with a notice saying so.
  */
 import { format } from 'date-fns';
+import fs from 'node:fs';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { DEMO } from '../support/auth';
-import { startHarness, VIEWPORTS, type Harness } from '../support/browser';
+import { startHarness, VIEWPORTS, webDir, type Harness } from '../support/browser';
+import { testApp } from '../support/test-app';
 
 jest.setTimeout(300_000);
 
@@ -165,5 +172,68 @@ it('forgets the kept answers when the session ends on the server (a 401)', async
     }, API_CACHE_PREFIX);
   } finally {
     await context.close();
+  }
+});
+
+/** The build the worker in charge of the page belongs to (it answers over a message channel). */
+async function workerVersion(page: Page): Promise<string> {
+  return page.evaluate(
+    () =>
+      new Promise<string>((resolve) => {
+        const channel = new MessageChannel();
+        channel.port1.onmessage = (e: MessageEvent<{ version: string }>) => resolve(e.data.version);
+        navigator.serviceWorker.controller!.postMessage({ type: 'crestwatch:version' }, [channel.port2]);
+      }),
+  );
+}
+
+it('activates a new deploy on the next visit and says so', async () => {
+  // A copy of the web build, served by its own app, so the test can "deploy" a new worker.
+  const copy = fs.mkdtempSync(path.join(os.tmpdir(), 'crestwatch-deploy-'));
+  fs.cpSync(webDir, copy, { recursive: true });
+  const app = testApp(h.t.db, { webDir: copy });
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const { context, page } = await h.newPage(VIEWPORTS.phone);
+  try {
+    await page.goto(`${base}/sign-in`);
+    await installWorker(page);
+    const before = await workerVersion(page);
+    await page.reload();
+    await page.getByRole('heading', { name: 'Sign in to Crestwatch' }).waitFor();
+    expect(await page.getByTestId('update-notice').count()).toBe(0);
+
+    // Deploy: a worker that differs (its build id) replaces sw.js.
+    const swFile = path.join(copy, 'sw.js');
+    const after = 'feedfacefeedface';
+    fs.writeFileSync(swFile, fs.readFileSync(swFile, 'utf8').replaceAll(`"${before}"`, `"${after}"`));
+
+    // This visit finds the new worker, which installs and waits while this page is open…
+    await page.evaluate(async () => {
+      const registration = (await navigator.serviceWorker.getRegistration())!;
+      await registration.update();
+      await new Promise<void>((resolve) => {
+        const check = () => (registration.waiting ? resolve() : setTimeout(check, 100));
+        check();
+      });
+    });
+    expect(await workerVersion(page)).toBe(before);
+
+    // …and the next visit is served by it, with a notice saying the app was updated.
+    await page.goto(`${base}/sign-in`);
+    await page.getByTestId('update-notice').waitFor();
+    expect(await page.getByTestId('update-notice').innerText()).toMatch(/updated to a new version/);
+    expect(await workerVersion(page)).toBe(after);
+    await h.shot(page, 'offline-update-notice');
+  } finally {
+    await context.close();
+    await new Promise<void>((resolve) => {
+      server.close(() => resolve());
+      server.closeAllConnections();
+    });
+    await app.locals.close();
+    fs.rmSync(copy, { recursive: true, force: true });
   }
 });
