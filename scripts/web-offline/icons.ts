@@ -2,18 +2,19 @@
  * Crestwatch's app icon, drawn here (our own design, no one else's mark): on the ridge
  * colour, a pale crest — the rising-then-falling curve the product is about — over a ground
  * line, with a clay dot at its turning point. Written as SVG and as PNG at 192 and 512 px
- * (the sizes install prompts ask for). Everything sits inside the middle 80 %, so the icon
- * also works as "maskable" (launchers may crop it to a circle).
+ * (the sizes install prompts ask for). Everything sits inside the central circle of radius
+ * 0.4 × size, the safe zone of a "maskable" icon (launchers may crop it to a circle).
  */
 import { deflateSync } from 'node:zlib';
 
 export type IconColours = { background: string; crest: string; ground: string; dot: string };
 
-// Geometry in a unit square (y down). The crest is the parabola y = 0.36 + k (x − 0.5)²
-// from x = 0.2 to 0.8, which is exactly the quadratic Bézier with these three points.
-const CREST = { from: [0.2, 0.7], control: [0.5, 0.02], to: [0.8, 0.7], width: 0.075 } as const;
-const GROUND = { from: [0.18, 0.79], to: [0.82, 0.79], width: 0.035 } as const;
-const DOT = { centre: [0.5, 0.36], radius: 0.06, ring: 0.028 } as const;
+// Geometry in a unit square (y down). The crest is the parabola y = 0.34 + k (x − 0.5)²
+// from x = 0.22 to 0.78, which is exactly the quadratic Bézier with these three points
+// (control y = 2 × 0.34 − 0.66).
+const CREST = { from: [0.22, 0.66], control: [0.5, 0.02], to: [0.78, 0.66], width: 0.075 } as const;
+const GROUND = { from: [0.26, 0.75], to: [0.74, 0.75], width: 0.035 } as const;
+const DOT = { centre: [0.5, 0.34], radius: 0.06, ring: 0.028 } as const;
 
 export function iconSvg(c: IconColours): string {
   const p = (xy: readonly number[]) => xy.map((v) => +(v * 512).toFixed(2)).join(' ');
@@ -96,7 +97,7 @@ export function iconPng(size: number, c: IconColours): Buffer {
   layers.push({
     colour: rgb(c.crest),
     coverage: (x, y) => {
-      if (y < 0.25 || y > 0.76) return 0;
+      if (y < 0.25 || y > 0.72) return 0;
       let d = Infinity;
       for (let i = 1; i < crest.length; i++) d = Math.min(d, segmentDistance(x, y, crest[i - 1], crest[i]));
       return cover(d - CREST.width / 2);
