@@ -10,11 +10,14 @@ import type { ServiceWorkerState } from './use-service-worker.types';
 /** The build this browser ran last (localStorage), to tell a visit after a deploy. */
 const LAST_BUILD_KEY = 'crestwatch.build';
 
+/** How long to wait for the worker's answer: a worker that just took over may still be tidying its caches. */
+const VERSION_ANSWER_MS = 20_000;
+
 /** The build of the worker in charge, asked over a message channel (null when it does not answer). */
 function askVersion(worker: ServiceWorker): Promise<string | null> {
   return new Promise((resolve) => {
     const channel = new MessageChannel();
-    const timer = setTimeout(() => resolve(null), 3000);
+    const timer = setTimeout(() => resolve(null), VERSION_ANSWER_MS);
     channel.port1.onmessage = (e: MessageEvent<{ version?: unknown }>) => {
       clearTimeout(timer);
       resolve(typeof e.data?.version === 'string' ? e.data.version : null);

@@ -175,6 +175,35 @@ it('forgets the kept answers when the session ends on the server (a 401)', async
   }
 });
 
+it('keeps the last 20 cards opened, dropping the one opened longest ago', async () => {
+  const { context, page } = await h.newPage(VIEWPORTS.phone);
+  try {
+    await page.goto(`${h.baseUrl}/api/auth/google?login_hint=${encodeURIComponent(DEMO.official)}`);
+    await page.waitForURL(`${h.baseUrl}/`);
+    await installWorker(page);
+    // 21 cards' answers, one after the other, through the worker (as opening them does).
+    const codes = Array.from({ length: 21 }, (_, i) => `D${String(i + 1).padStart(2, '0')}`);
+    await page.evaluate(async (list) => {
+      for (const code of list) {
+        const res = await fetch(`/api/districts/${code}/estimate`, { headers: { Accept: 'application/json' } });
+        if (!res.ok) throw new Error(`${code}: ${res.status}`);
+      }
+    }, codes);
+    // CARD_LIMIT in lib/offline-copies.ts; the expiration runs just after each answer is kept.
+    await page.waitForFunction(
+      async (name) => (await (await caches.open(name)).keys()).length === 20,
+      `${API_CACHE_PREFIX}card-estimate`,
+    );
+    const kept = await page.evaluate(async (name) => {
+      const keys = await (await caches.open(name)).keys();
+      return keys.map((r) => new URL(r.url).pathname.split('/')[3]).sort();
+    }, `${API_CACHE_PREFIX}card-estimate`);
+    expect(kept).toEqual(codes.slice(1));
+  } finally {
+    await context.close();
+  }
+});
+
 /** The build the worker in charge of the page belongs to (it answers over a message channel). */
 async function workerVersion(page: Page): Promise<string> {
   return page.evaluate(
