@@ -70,6 +70,8 @@ export function createApp({
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
           'connect-src': ["'self'"],
+          // The service worker (dist/sw.js, offline reading) comes from the app itself.
+          'worker-src': ["'self'"],
           'form-action': [
             "'self'",
             ...(config.mode === 'production'

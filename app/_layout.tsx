@@ -10,6 +10,7 @@ import { isRegionRoute } from '@/components/layout/nav-items';
 import { RegionShell } from '@/components/layout/region-shell';
 import { TrackSwitcher } from '@/components/region/track-switcher';
 import { ServerNotice } from '@/components/layout/server-notice';
+import { UpdateNotice } from '@/components/layout/update-notice';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
@@ -75,6 +76,7 @@ function Frame() {
             onSignOut={() => signOut.mutate(undefined, { onSuccess: () => router.replace('/sign-in') })}
           />
           <ServerNotice health={health} />
+          <UpdateNotice />
         </>
       }
       list={

@@ -3,6 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { apiGet, apiSend, ME_PATH, rememberCsrfToken } from '@/lib/api-client';
+import { clearOfflineCopies } from '@/lib/offline-copies';
 import { AuthOptionsResponseSchema, MeResponseSchema, type MeResponse } from '@/contracts/districts';
 import { STALE_TIMES } from '@/lib/stale-times';
 
@@ -47,12 +48,16 @@ export function useMeQuery() {
 /**
  * Ends the session. Everything cached belonged to the person who just left, so every query
  * is reset (its data dropped; the ones on screen ask again and now get 401); the caller
- * then sends the browser to the sign-in page.
+ * then sends the browser to the sign-in page. The answers kept for reading offline are
+ * deleted before the request is sent, so they are gone even when it fails.
  */
 export function useSignOutMutation() {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: () => apiSend('POST', '/api/auth/sign-out'),
+    mutationFn: async () => {
+      await clearOfflineCopies();
+      await apiSend('POST', '/api/auth/sign-out');
+    },
     onSuccess: () => {
       rememberCsrfToken(null);
       void client.resetQueries();

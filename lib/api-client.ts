@@ -6,12 +6,13 @@ import { MeResponseSchema } from '@/contracts/districts';
 import { pick, safeParse, type Issue, type Schema } from '@/contracts/kit';
 
 import { serverUrl } from './api-config';
+import { clearOfflineCopies, noteOfflineCopy } from './offline-copies';
 
 /** A failed API call: the server's error code and message, or one of ours for transport faults. */
 export class ApiError extends Error {
   /** HTTP status; 0 when no response arrived (offline, refused, aborted). */
   readonly status: number;
-  /** The server's stable error code (`not_found`, …), or `network_error` / `bad_response`. */
+  /** The server's stable error code (`not_found`, …), or `network_error` / `bad_response` / `offline`. */
   readonly code: string;
   readonly details?: unknown;
 
@@ -87,6 +88,9 @@ async function send(path: string, init: RequestInit, signal?: AbortSignal): Prom
 
 /** A non-2xx answer as an ApiError: the server's error shape when it sent one. */
 function failure(response: Response, body: unknown): ApiError {
+  // Signed out, or the session ended: answers kept for reading offline belong to someone
+  // who is no longer signed in here.
+  if (response.status === 401) void clearOfflineCopies();
   if (isErrorBody(body)) {
     return new ApiError(response.status, body.error.code, body.error.message, body.error.details);
   }
@@ -103,7 +107,10 @@ export async function apiGet<T>(path: string, options: ApiGetOptions<T> = {}): P
   const body = await readJson(response);
   if (!response.ok) throw failure(response, body);
   if (body === undefined) throw new ApiError(response.status, 'bad_response', `Unexpected answer from ${path}.`);
-  return readAnswer(path, response.status, body, options.schema);
+  const answer = readAnswer(path, response.status, body, options.schema);
+  // The service worker answered from its offline copy: screens say how old it is.
+  noteOfflineCopy(answer, response.headers);
+  return answer;
 }
 
 // ---- State-changing calls --------------------------------------------------------------
@@ -159,6 +166,14 @@ export async function apiSend<T = void>(
   path: string,
   options: ApiSendOptions<T> = {},
 ): Promise<T> {
+  // A change is never queued for later: without a network the app says so at once.
+  if (typeof navigator !== 'undefined' && navigator.onLine === false) {
+    throw new ApiError(
+      0,
+      'offline',
+      'You are offline. This change needs a connection: nothing was sent or saved. Try again once you are back online.',
+    );
+  }
   const attempt = async (token: string | null) => {
     const headers: Record<string, string> = { Accept: 'application/json' };
     if (token) headers[CSRF_HEADER] = token;

@@ -7,6 +7,8 @@ import { TRACK_CODE } from '@/contracts/patterns';
 
 import { TRACK_MEMORY_KEY } from './track-choice';
 
+import { noteOfflineCopy } from './offline-copies';
+
 type EarlyMap = Record<string, Promise<Response> | undefined>;
 
 /**
@@ -40,7 +42,9 @@ export async function earlyJson<T>(path: string, schema: Schema<T>): Promise<T |
     const res = await pending;
     if (!res.ok) return null;
     const parsed = safeParse(schema, await res.json());
-    return parsed.success ? parsed.data : null;
+    if (!parsed.success) return null;
+    noteOfflineCopy(parsed.data, res.headers);
+    return parsed.data;
   } catch {
     return null;
   }

@@ -2,18 +2,20 @@
  * Builds the static web app (`expo export -p web`) into dist/ when its inputs changed
  * since the last build. The stamp file holds a hash of every input. Writes
  * dist/csp-hashes.json: the SHA-256 of every inline script of the exported pages, which
- * the server lists in its Content-Security-Policy.
+ * the server lists in its Content-Security-Policy. Then adds the offline and install files
+ * (scripts/web-offline/): font subsets, web app manifest and icons, service worker.
  */
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { CSP_HASHES_FILE, writeCspHashes } from '../api/web/csp';
+import { addOfflineFiles, OFFLINE_INPUTS } from './web-offline';
 
 const root = path.resolve(__dirname, '..');
 export const distDir = path.join(root, 'dist');
 const stampFile = path.join(distDir, '.build-stamp');
-const inputDirs = ['app', 'components', 'contracts', 'hooks', 'lib', 'assets'];
+const inputDirs = ['app', 'components', 'contracts', 'hooks', 'lib', 'assets', ...OFFLINE_INPUTS];
 const inputFiles = ['app.json', 'babel.config.js', 'metro.config.js', 'package-lock.json', 'tsconfig.json'];
 
 function hashTree(h: ReturnType<typeof createHash>, dir: string): void {
@@ -57,6 +59,8 @@ export function buildWebIfStale(log: (m: string) => void = (m) => process.stderr
     },
   );
   if (r.status !== 0) throw new Error(`expo export failed with exit code ${r.status}`);
+  // Offline and install step (scripts/web-offline/): fonts, manifest, icons, service worker.
+  addOfflineFiles(distDir);
   // The CSP's script-src lists these hashes (api/web/csp.ts), so they follow the scripts.
   log(`wrote ${writeCspHashes(distDir).length} inline-script hashes for the CSP`);
   fs.writeFileSync(stampFile, hash);

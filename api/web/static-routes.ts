@@ -74,6 +74,13 @@ export function webRouter(webDir: string): Router {
   const notFound = path.join(webDir, '+not-found.html');
   r.use('/_expo', express.static(path.join(webDir, '_expo'), { immutable: true, maxAge: '365d', fallthrough: false }));
   r.use('/assets', express.static(path.join(webDir, 'assets'), { maxAge: '7d', fallthrough: false }));
+  // The service worker is checked for a new version on every visit: never from a cache.
+  r.get('/sw.js', ((_req, res, next) => {
+    const file = path.join(webDir, 'sw.js');
+    if (!fs.existsSync(file)) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.type('text/javascript').sendFile(file);
+  }) as RequestHandler);
   r.use(express.static(webDir, { index: false, extensions: [], redirect: false }));
   r.get('/*splat', ((req, res) => {
     const url = decodeURIComponent(req.path);

@@ -4,6 +4,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { Button } from '@/components/ui/button';
 import { useOnline } from '@/hooks/use-online';
 import { formatDayTime } from '@/lib/format-time';
+import { offlineCopySavedAt } from '@/lib/offline-copies';
 
 /** The parts of a react-query result that tell whether shown data may be out of date. */
 export type Freshness = {
@@ -20,7 +21,9 @@ export type Freshness = {
  * network, or the device is offline (kept data cannot be refreshed, even while "fresh").
  */
 export function isStale(f: Freshness, online = true): boolean {
-  return f.data !== undefined && (f.isError || f.fetchStatus === 'paused' || !online);
+  return (
+    f.data !== undefined && (f.isError || f.fetchStatus === 'paused' || !online || offlineCopySavedAt(f.data) !== null)
+  );
 }
 
 /**
@@ -30,6 +33,18 @@ export function isStale(f: Freshness, online = true): boolean {
 export function FreshnessNotice({ freshness, what }: { freshness: Freshness; what: string }) {
   const online = useOnline();
   if (!isStale(freshness, online)) return null;
+  // Read from the service worker's copy (the page may have been opened without a network).
+  const savedAt = offlineCopySavedAt(freshness.data);
+  if (savedAt !== null) {
+    return (
+      <View style={styles.notice} role="status" testID="offline-copy-notice">
+        <Text style={styles.text}>
+          <Text style={styles.strong}>Offline — figures from {formatDayTime(savedAt)}. </Text>
+          Showing {what} as saved on this device; they will refresh when the connection returns.
+        </Text>
+      </View>
+    );
+  }
   const offline = !online || freshness.fetchStatus === 'paused';
   return (
     <View style={styles.notice} role="status" testID="stale-notice">

@@ -7,6 +7,7 @@ import { SESSION_END_CHANGE_WORDS, sessionEndReason } from '@/lib/session-end';
 /** Words for a failed change: the server's own message for refusals (403, 409, 422). */
 export function describeSendError(error: unknown): string {
   if (error instanceof ApiError) {
+    if (error.code === 'offline') return error.message;
     if (error.status === 0) return 'The Crestwatch server could not be reached. Nothing was changed; try again.';
     const ended = sessionEndReason(error);
     if (ended) return SESSION_END_CHANGE_WORDS[ended];

@@ -19,6 +19,7 @@ beforeAll(async () => {
     'method.html': 'method',
     '_expo/static/js/web/entry-abc.js': 'js',
     'assets/fonts/inter.woff2': 'font',
+    'sw.js': 'self.addEventListener("fetch", () => {});',
   };
   for (const [f, body] of Object.entries(files)) {
     fs.mkdirSync(path.dirname(path.join(web, f)), { recursive: true });
@@ -52,6 +53,14 @@ describe('web build served from the API port', () => {
     expect(js.headers['cache-control']).toContain('immutable');
     expect((await get('/assets/fonts/inter.woff2')).status).toBe(200);
     expect((await get('/_expo/static/js/web/missing.js')).status).toBe(404);
+  });
+
+  it('serves the service worker never from a cache, as a script allowed by the CSP', async () => {
+    const sw = await get('/sw.js');
+    expect(sw.status).toBe(200);
+    expect(sw.headers['cache-control']).toBe('no-cache');
+    expect(sw.headers['content-type']).toMatch(/^text\/javascript/);
+    expect(sw.headers['content-security-policy']).toMatch(/(^|;)\s*worker-src 'self'(;|$)/);
   });
 
   it('says plainly when the web app has not been built', async () => {

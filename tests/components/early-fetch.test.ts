@@ -12,7 +12,7 @@ const mockedGet = apiGet as jest.MockedFunction<typeof apiGet>;
 type EarlyWindow = { __cwEarly?: Record<string, Promise<unknown>> };
 const early = () => window as unknown as EarlyWindow;
 const response = (status: number, body: unknown) =>
-  Promise.resolve({ ok: status >= 200 && status < 300, status, json: async () => body });
+  Promise.resolve({ ok: status >= 200 && status < 300, status, headers: new Headers(), json: async () => body });
 
 afterEach(() => {
   mockedGet.mockReset();
