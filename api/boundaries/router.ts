@@ -49,7 +49,7 @@ function send(req: Request, res: Response, a: { json: Buffer; gzip: Buffer; etag
   res.send(gz ? a.gzip : a.json);
 }
 
-export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
+export function boundaryRoutes({ db, config, compute }: AppContext): RouteSpec[] {
   return [
     route({
       method: 'post',
@@ -66,6 +66,9 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
         const w = who(req);
         const answer = await service.receiveBoundaries(db, receivedFile(req), query, w, {
           maxVertices: config.boundaryMaxVertices,
+          // Parsing and the GeoJSON checks run in a pool thread: a hostile file never stalls other requests.
+          read: (path, codeProperty, maxVertices) =>
+            compute.run({ kind: 'boundary-read', path, codeProperty, maxVertices }),
         });
         if (answer.committed) {
           await audit.record(db, {

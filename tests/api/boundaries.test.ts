@@ -54,7 +54,7 @@ describe('the demo boundaries', () => {
     const history = await w.analyst.get('/api/uploads');
     expect(history.body.uploads[0]).toMatchObject({ id: r.body.uploadId, kind: 'boundaries', status: 'committed' });
     const versions = await w.official.get('/api/boundaries/versions');
-    expect(versions.body[0]).toMatchObject({
+    expect(versions.body.versions[0]).toMatchObject({
       id: r.body.versionId,
       features: 24,
       current: true,
