@@ -60,7 +60,9 @@ export function boundaryRoutes({ db, config, compute }: AppContext): RouteSpec[]
       statuses: [200, 201],
       summary:
         'Upload district boundaries (GeoJSON FeatureCollection of polygons, multipart field "file"; ?codeProperty names the code property): a dry run with the preview by default; ?commit=true writes a new boundary version when the whole file is accepted; ?repair=true repairs invalid polygons with ST_MakeValid',
-      before: [receiveFile(config.boundaryMaxBytes)],
+      before: [
+        receiveFile(config.boundaryMaxBytes, undefined, { kind: 'the GeoJSON file', setting: 'BOUNDARY_MAX_BYTES' }),
+      ],
       schemas: { query: boundaryUploadQuery },
       handler: async ({ query }, req, res) => {
         const w = who(req);

@@ -155,7 +155,7 @@ export async function receiveBoundaries(
             code: f.code,
             problem: 'self_intersection',
             severity: 'error',
-            reason: `feature ${f.index} (${f.code}) is not a valid polygon: ${f.reason}; fix it, or send repair=true to repair it with ST_MakeValid`,
+            reason: `feature ${f.index} (${f.code}) is not a valid polygon: ${f.reason}; fix it in the file, or ask for the repair with ST_MakeValid (repair=true)`,
           });
         }
       }

@@ -1,4 +1,4 @@
-import { StyleSheet, Text, View } from 'react-native';
+import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
 
 import { DataTable, type Column } from '@/components/table/data-table';
 import { colors, space, type } from '@/components/theme';
@@ -35,8 +35,22 @@ const columns: Column<Row>[] = [
     render: (p) => PROBLEM_LABEL[p.problem],
     sortValue: (p) => p.problem,
   },
-  { key: 'reason', header: 'What is wrong', flex: 3, render: (p) => p.reason },
 ];
+
+/**
+ * The reason column: sharing the row's width when the table fits the screen; a fixed width
+ * when it scrolls sideways (narrow screens), where a flexible cell would stretch to one line.
+ */
+const reasonColumn = (width?: number): Column<Row> => ({
+  key: 'reason',
+  header: 'What is wrong',
+  ...(width ? { width } : { flex: 3 }),
+  render: (p) => p.reason,
+});
+
+/** Below this window width the table scrolls sideways. */
+const NARROW = 760;
+const NARROW_REASON = 300;
 
 export type BoundaryProblemsProps = {
   problems: BoundaryProblem[];
@@ -51,6 +65,9 @@ export type BoundaryProblemsProps = {
  */
 export function BoundaryProblems({ problems, errors, warnings }: BoundaryProblemsProps) {
   const rows = problems.map((p, i) => ({ ...p, i }));
+  const narrow = useWindowDimensions().width < NARROW;
+  const shown = [...columns, reasonColumn(narrow ? NARROW_REASON : undefined)];
+  const fixed = shown.reduce((sum, c) => sum + (c.width ?? 0), 0);
   return (
     <View style={styles.wrap} testID="boundary-problems">
       <Text style={styles.summary} testID="boundary-problems-summary">
@@ -61,10 +78,10 @@ export function BoundaryProblems({ problems, errors, warnings }: BoundaryProblem
       </Text>
       <DataTable
         label="Problems found in the boundary file"
-        columns={columns}
+        columns={shown}
         rows={rows}
         rowKey={(p) => String(p.i)}
-        minWidth={640}
+        minWidth={narrow ? fixed : undefined}
         rowTestID={(p) => `boundary-problem-${p.i}`}
       />
       {errors + warnings > problems.length ? (

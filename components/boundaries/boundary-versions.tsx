@@ -113,7 +113,6 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
     {
       key: 'vertices',
       header: 'Vertices',
-      subheader: 'repaired features',
       width: 130,
       align: 'right',
       render: (v) => `${v.vertices.toLocaleString('en-GB')}${v.repaired ? ` · ${v.repaired} repaired` : ''}`,
