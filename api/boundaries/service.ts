@@ -203,7 +203,16 @@ export async function receiveBoundaries(
         userEmail: who.email,
         note: `district boundaries: ${matched.length} districts${missing.length ? `, ${missing.length} without a boundary` : ''}`,
         counts: { rowsRead: check.total, values: matched.length, insert: matched.length, warnings },
-        problems: answer.problems as never,
+        // In the shape of the upload history's problems (no line or column: each reason names its
+        // feature and code). The codes are the boundary checks' own, outside the CSV checks' union.
+        problems: answer.problems.map((p) => ({
+          line: null,
+          column: null,
+          field: null,
+          code: p.problem,
+          severity: p.severity,
+          reason: p.reason,
+        })) as never,
       });
       const versionId = await store.insertVersion(conn, {
         uploadId: upload.id,
