@@ -1,7 +1,7 @@
 import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
 
 import { DataTable, type Column } from '@/components/table/data-table';
-import { colors, space, type } from '@/components/theme';
+import { colors, radius, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
 import type { BoundaryProblem } from '@/contracts/boundaries';
 
@@ -37,20 +37,28 @@ const columns: Column<Row>[] = [
   },
 ];
 
-/**
- * The reason column: sharing the row's width when the table fits the screen; a fixed width
- * when it scrolls sideways (narrow screens), where a flexible cell would stretch to one line.
- */
-const reasonColumn = (width?: number): Column<Row> => ({
-  key: 'reason',
-  header: 'What is wrong',
-  ...(width ? { width } : { flex: 3 }),
-  render: (p) => p.reason,
-});
+const reasonColumn: Column<Row> = { key: 'reason', header: 'What is wrong', flex: 3, render: (p) => p.reason };
 
-/** Below this window width the table scrolls sideways. */
+/** Below this window width the problems are cards (a table would hide the reasons off to the side). */
 const NARROW = 760;
-const NARROW_REASON = 300;
+
+/** One problem as a card: where (feature and code), its kind, and the reason in full. */
+function ProblemCard({ p }: { p: Row }) {
+  return (
+    <View style={styles.card} testID={`boundary-problem-${p.i}`} role="listitem">
+      <View style={styles.cardHead}>
+        <Text style={styles.where}>{p.feature === null ? (p.code ? 'District' : 'File') : `Feature ${p.feature}`}</Text>
+        {p.code ? <Text style={styles.where}>{p.code}</Text> : null}
+        <Pill
+          label={p.severity === 'error' ? 'Error' : 'Warning'}
+          tone={p.severity === 'error' ? 'danger' : 'warning'}
+        />
+        <Text style={styles.kind}>{PROBLEM_LABEL[p.problem]}</Text>
+      </View>
+      <Text style={styles.reason}>{p.reason}</Text>
+    </View>
+  );
+}
 
 export type BoundaryProblemsProps = {
   problems: BoundaryProblem[];
@@ -66,8 +74,6 @@ export type BoundaryProblemsProps = {
 export function BoundaryProblems({ problems, errors, warnings }: BoundaryProblemsProps) {
   const rows = problems.map((p, i) => ({ ...p, i }));
   const narrow = useWindowDimensions().width < NARROW;
-  const shown = [...columns, reasonColumn(narrow ? NARROW_REASON : undefined)];
-  const fixed = shown.reduce((sum, c) => sum + (c.width ?? 0), 0);
   return (
     <View style={styles.wrap} testID="boundary-problems">
       <Text style={styles.summary} testID="boundary-problems-summary">
@@ -76,14 +82,21 @@ export function BoundaryProblems({ problems, errors, warnings }: BoundaryProblem
           ? 'Errors stop the whole file from loading: nothing is written until every one is fixed.'
           : 'Warnings ask for a second look; they do not stop the load.'}
       </Text>
-      <DataTable
-        label="Problems found in the boundary file"
-        columns={shown}
-        rows={rows}
-        rowKey={(p) => String(p.i)}
-        minWidth={narrow ? fixed : undefined}
-        rowTestID={(p) => `boundary-problem-${p.i}`}
-      />
+      {narrow ? (
+        <View role="list" aria-label="Problems found in the boundary file" style={styles.cards}>
+          {rows.map((p) => (
+            <ProblemCard key={p.i} p={p} />
+          ))}
+        </View>
+      ) : (
+        <DataTable
+          label="Problems found in the boundary file"
+          columns={[...columns, reasonColumn]}
+          rows={rows}
+          rowKey={(p) => String(p.i)}
+          rowTestID={(p) => `boundary-problem-${p.i}`}
+        />
+      )}
       {errors + warnings > problems.length ? (
         <Text style={styles.more}>
           Showing the first {problems.length} problems; the counts above cover the whole file.
@@ -97,4 +110,17 @@ const styles = StyleSheet.create({
   wrap: { gap: space.sm },
   summary: { ...type.body, color: colors.text },
   more: { ...type.caption, color: colors.textMuted },
+  cards: { gap: space.sm },
+  card: {
+    gap: space.xs,
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.md,
+    padding: space.md,
+  },
+  cardHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  where: { ...type.bodyStrong, color: colors.text },
+  kind: { ...type.body, color: colors.textMuted },
+  reason: { ...type.body, color: colors.text },
 });
