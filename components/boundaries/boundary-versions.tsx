@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { StyleSheet, Text, View } from 'react-native';
+import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
 
 import { MutationNotice } from '@/components/form/mutation-notice';
 import { QueryErrorPanel } from '@/components/state/query-error-panel';
@@ -7,7 +7,7 @@ import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { cellText, DataTable, type Column } from '@/components/table/data-table';
-import { space } from '@/components/theme';
+import { colors, radius, space, type } from '@/components/theme';
 import { ConfirmAction } from '@/components/ui/confirm-action';
 import { Pill } from '@/components/ui/pill';
 import { formatDateTime } from '@/lib/format-time';
@@ -28,6 +28,7 @@ function status(v: BoundaryVersion): { label: string; tone: 'success' | 'neutral
 
 /** Every boundary version, newest first: who loaded it, when, its counts, which is in force, and Revert. */
 export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) {
+  const narrow = useWindowDimensions().width < NARROW;
   const [reverting, setReverting] = useState<number | null>(null);
   const [outcome, setOutcome] = useState<{ error?: unknown; success?: string } | null>(null);
 
@@ -64,6 +65,21 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
       setReverting(null);
     }
   };
+
+  const revertButton = (v: BoundaryVersion) =>
+    v.status === 'committed' ? (
+      <ConfirmAction
+        label="Revert"
+        question={`Revert boundary version ${v.id}? ${v.current ? 'The version before it is in force again.' : 'It no longer counts as loaded.'}`}
+        confirmLabel="Revert"
+        variant="danger"
+        busy={reverting === v.id}
+        busyLabel="Reverting…"
+        disabled={reverting !== null && reverting !== v.id}
+        onConfirm={() => void revert(v.id)}
+        testID={`boundary-revert-${v.id}`}
+      />
+    ) : null;
 
   const columns: Column<BoundaryVersion>[] = [
     {
@@ -130,20 +146,7 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
       key: 'revert',
       header: '',
       width: 200,
-      render: (v) =>
-        v.status === 'committed' ? (
-          <ConfirmAction
-            label="Revert"
-            question={`Revert boundary version ${v.id}? ${v.current ? 'The version before it is in force again.' : 'It no longer counts as loaded.'}`}
-            confirmLabel="Revert"
-            variant="danger"
-            busy={reverting === v.id}
-            busyLabel="Reverting…"
-            disabled={reverting !== null && reverting !== v.id}
-            onConfirm={() => void revert(v.id)}
-            testID={`boundary-revert-${v.id}`}
-          />
-        ) : null,
+      render: (v) => revertButton(v),
     },
   ];
 
@@ -156,6 +159,28 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
           title="No boundaries loaded yet"
           message="The region is shown as a list until district boundaries are loaded. Files you load appear here, newest first."
         />
+      ) : narrow ? (
+        <View role="list" aria-label="Boundary versions" style={styles.cards} testID="boundary-versions">
+          {rows.map((v) => (
+            <View key={v.id} role="listitem" style={styles.card} testID={`boundary-version-${v.id}`}>
+              <View style={styles.cardHead}>
+                <Text style={styles.title}>Version {v.id}</Text>
+                <Pill label={status(v).label} tone={status(v).tone} testID={`boundary-version-status-${v.id}`} />
+              </View>
+              <Text style={styles.line} numberOfLines={2}>
+                {v.fileName ?? 'File without a name'} · upload #{v.uploadId} · data version {v.dataVersion ?? '—'}
+              </Text>
+              <Text style={styles.muted}>
+                {formatDateTime(v.createdAt)} · {v.userEmail ?? 'demo set-up'} · code in &quot;{v.codeProperty}&quot;
+              </Text>
+              <Text style={styles.line}>
+                {v.features} districts mapped, {v.missing} without · {v.vertices.toLocaleString('en-GB')} vertices
+                {v.repaired ? ` · ${v.repaired} repaired` : ''}
+              </Text>
+              {revertButton(v)}
+            </View>
+          ))}
+        </View>
       ) : (
         <DataTable
           label="Boundary versions"
@@ -171,8 +196,24 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
   );
 }
 
+/** Below this window width the versions are cards (a table would hide Revert off to the side). */
+const NARROW = 760;
+
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
+  cards: { gap: space.sm },
+  card: {
+    gap: space.xs,
+    backgroundColor: colors.surface,
+    borderColor: colors.border,
+    borderWidth: 1,
+    borderRadius: radius.md,
+    padding: space.md,
+  },
+  cardHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  title: { ...type.bodyStrong, color: colors.text },
+  line: { ...type.body, color: colors.text },
+  muted: { ...type.caption, color: colors.textMuted },
   skeleton: { gap: space.sm },
   stack: { gap: space.xxs, minWidth: 0 },
 });
