@@ -12,6 +12,8 @@ export const boundaryKeysRoot = ['boundaries'] as const;
 export const boundaryKeys = {
   all: boundaryKeysRoot,
   current: (detail: 'phone' | 'print') => [...boundaryKeysRoot, 'current', detail] as const,
+  /** the versions history (hooks/use-boundary-uploads.ts) */
+  versions: () => [...boundaryKeysRoot, 'versions'] as const,
 };
 
 export function fetchBoundaries(detail: 'phone' | 'print', signal?: AbortSignal): Promise<BoundaryCollection> {

@@ -9,3 +9,6 @@ export type PickedFile = {
 
 /** What the picker offers: CSV and plain text (some systems label CSV exports text/plain). */
 export const CSV_TYPES = ['text/csv', 'text/plain', 'application/vnd.ms-excel', '.csv'];
+
+/** What the picker offers for district boundaries: GeoJSON (often saved as .json, or with no type at all). */
+export const GEOJSON_TYPES = ['application/geo+json', 'application/json', '.geojson', '.json'];

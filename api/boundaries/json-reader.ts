@@ -12,8 +12,8 @@
  * - a string longer than `maxString` characters is refused.
  * Errors name the line and column.
  *
- * This runs on the main thread in slices; when the shared worker pool lands, the same
- * function can run inside it unchanged.
+ * Boundary uploads run it in a compute pool thread (read-file.ts); the slices keep it fair
+ * to the other tasks there, and to the event loop where it runs inline (the demo seed).
  */
 import fs from 'node:fs/promises';
 

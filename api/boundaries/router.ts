@@ -49,7 +49,7 @@ function send(req: Request, res: Response, a: { json: Buffer; gzip: Buffer; etag
   res.send(gz ? a.gzip : a.json);
 }
 
-export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
+export function boundaryRoutes({ db, config, compute }: AppContext): RouteSpec[] {
   return [
     route({
       method: 'post',
@@ -60,12 +60,17 @@ export function boundaryRoutes({ db, config }: AppContext): RouteSpec[] {
       statuses: [200, 201],
       summary:
         'Upload district boundaries (GeoJSON FeatureCollection of polygons, multipart field "file"; ?codeProperty names the code property): a dry run with the preview by default; ?commit=true writes a new boundary version when the whole file is accepted; ?repair=true repairs invalid polygons with ST_MakeValid',
-      before: [receiveFile(config.boundaryMaxBytes)],
+      before: [
+        receiveFile(config.boundaryMaxBytes, undefined, { kind: 'the GeoJSON file', setting: 'BOUNDARY_MAX_BYTES' }),
+      ],
       schemas: { query: boundaryUploadQuery },
       handler: async ({ query }, req, res) => {
         const w = who(req);
         const answer = await service.receiveBoundaries(db, receivedFile(req), query, w, {
           maxVertices: config.boundaryMaxVertices,
+          // Parsing and the GeoJSON checks run in a pool thread: a hostile file never stalls other requests.
+          read: (path, codeProperty, maxVertices) =>
+            compute.run({ kind: 'boundary-read', path, codeProperty, maxVertices }),
         });
         if (answer.committed) {
           await audit.record(db, {

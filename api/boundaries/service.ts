@@ -1,6 +1,7 @@
 /**
- * Boundary uploads: read the GeoJSON (sliced, capped: json-reader.ts), the database-free
- * checks (check-features.ts), then in one transaction on one connection the checks that
+ * Boundary uploads: read the GeoJSON (sliced, capped: json-reader.ts) and run the
+ * database-free checks (check-features.ts) — both in a compute pool thread when the route
+ * passes one (read-file.ts) — then in one transaction on one connection the checks that
  * need the region and PostGIS — codes the region does not know, districts left without a
  * boundary, self-intersections (repaired with ST_MakeValid only when the analyst asks) —
  * and, when the whole file is accepted and a commit was asked for, the write: a change
@@ -12,8 +13,8 @@ import { AppError, NotFoundError } from '../http/errors';
 import type { ReceivedFile, Who } from '../uploads/service';
 import { deriveFromBoundaries, openChangeSet, revertUpload } from '../uploads/change-sets';
 import { inTransaction, lockObservations, withConnection } from '../db/connection';
-import { checkFeatures, type BoundaryProblem } from './check-features';
-import { JsonReadError, readJsonFile } from './json-reader';
+import type { BoundaryProblem } from './check-features';
+import { readBoundaryFile, type BoundaryRead } from './read-file';
 import * as store from './store';
 
 export interface BoundaryOptions {
@@ -24,6 +25,11 @@ export interface BoundaryOptions {
 
 export interface BoundaryLimits {
   maxVertices: number;
+  /**
+   * Reads and checks the file (read-file.ts); the route passes the compute pool's task so
+   * parsing never runs on the event loop. Inline when not given (the demo seed).
+   */
+  read?: (path: string, codeProperty: string, maxVertices: number) => Promise<BoundaryRead>;
 }
 
 export interface BoundaryAnswer {
@@ -77,24 +83,20 @@ export async function receiveBoundaries(
   who: Who,
   limits: BoundaryLimits,
 ): Promise<BoundaryAnswer> {
-  let root: unknown;
-  try {
-    root = await readJsonFile(file.path);
-  } catch (err) {
-    if (!(err instanceof JsonReadError)) throw err;
+  const read = await (limits.read ?? readBoundaryFile)(file.path, options.codeProperty, limits.maxVertices);
+  if (!read.ok) {
     const problems: BoundaryProblem[] = [
       {
         feature: null,
         code: null,
         problem: 'not_feature_collection',
         severity: 'error',
-        reason: `the file is not readable JSON: ${err.message}`,
+        reason: `the file is not readable JSON: ${read.reason}`,
       },
     ];
     return finish(options, emptyAnswer(problems));
   }
-  const check = checkFeatures(root, options.codeProperty, limits.maxVertices);
-  root = null;
+  const check = read.check;
   return withConnection(db, (conn) =>
     inTransaction(conn, async () => {
       const problems = [...check.problems];
@@ -153,7 +155,7 @@ export async function receiveBoundaries(
             code: f.code,
             problem: 'self_intersection',
             severity: 'error',
-            reason: `feature ${f.index} (${f.code}) is not a valid polygon: ${f.reason}; fix it, or send repair=true to repair it with ST_MakeValid`,
+            reason: `feature ${f.index} (${f.code}) is not a valid polygon: ${f.reason}; fix it in the file, or ask for the repair with ST_MakeValid (repair=true)`,
           });
         }
       }
@@ -201,7 +203,16 @@ export async function receiveBoundaries(
         userEmail: who.email,
         note: `district boundaries: ${matched.length} districts${missing.length ? `, ${missing.length} without a boundary` : ''}`,
         counts: { rowsRead: check.total, values: matched.length, insert: matched.length, warnings },
-        problems: answer.problems as never,
+        // In the shape of the upload history's problems (no line or column: each reason names its
+        // feature and code). The codes are the boundary checks' own, outside the CSV checks' union.
+        problems: answer.problems.map((p) => ({
+          line: null,
+          column: null,
+          field: null,
+          code: p.problem,
+          severity: p.severity,
+          reason: p.reason,
+        })) as never,
       });
       const versionId = await store.insertVersion(conn, {
         uploadId: upload.id,
@@ -243,7 +254,7 @@ function finish(options: BoundaryOptions, answer: BoundaryAnswer): BoundaryAnswe
   return answer;
 }
 
-export const listVersions = (db: Knex) => store.listVersions(db);
+export const listVersions = async (db: Knex) => ({ versions: await store.listVersions(db) });
 export const findVersion = (db: Knex, id: number) => store.findVersion(db, id);
 export const currentVersionId = (db: Knex) => store.currentVersionId(db);
 

@@ -1,6 +1,6 @@
 /**
  * The CPU-heavy work that runs off the main event loop: a what-if curve fit, a chunk of a
- * run's district fits, a brief's PDF. Each task takes and returns plain data (structured
+ * run's district fits, a brief's PDF, reading and checking a boundary (GeoJSON) file. Each task takes and returns plain data (structured
  * clone), so the same function runs in a pool thread (api/compute/worker.ts) or, with a
  * pool size of 0, inline.
  *
@@ -8,6 +8,7 @@
  * boundary keeps only an error's message, and callers need its code and details.
  */
 import type { DistrictBriefContent, RegionBriefContent } from '../../contracts/briefs';
+import { readBoundaryFile, type BoundaryRead } from '../boundaries/read-file';
 import { renderDistrictPdf } from '../briefs/pdf/district-pdf';
 import { renderRegionPdf } from '../briefs/pdf/region-pdf';
 import { renderSummaryPdf } from '../briefs/pdf/summary-pdf';
@@ -39,7 +40,8 @@ export type Task =
     }
   | { kind: 'district-pdf'; content: DistrictBriefContent }
   | { kind: 'region-pdf'; content: RegionBriefContent }
-  | { kind: 'summary-pdf'; content: DistrictSummaryContent };
+  | { kind: 'summary-pdf'; content: DistrictSummaryContent }
+  | { kind: 'boundary-read'; path: string; codeProperty: string; maxVertices: number };
 
 export interface TaskResults {
   'fit-curve': { ok: true; result: FitCurveResult } | { ok: false; error: EngineRefusal };
@@ -47,6 +49,7 @@ export interface TaskResults {
   'district-pdf': Uint8Array;
   'region-pdf': Uint8Array;
   'summary-pdf': Uint8Array;
+  'boundary-read': BoundaryRead;
 }
 
 export async function runTask(task: Task): Promise<TaskResults[Task['kind']]> {
@@ -69,5 +72,7 @@ export async function runTask(task: Task): Promise<TaskResults[Task['kind']]> {
       return renderRegionPdf(task.content);
     case 'summary-pdf':
       return renderSummaryPdf(task.content);
+    case 'boundary-read':
+      return readBoundaryFile(task.path, task.codeProperty, task.maxVertices);
   }
 }

@@ -56,8 +56,22 @@ function megabytes(n: number): string {
   return `${(n / (1024 * 1024)).toLocaleString('en', { maximumFractionDigits: 1 })} MB`;
 }
 
-/** The multipart step of POST /api/uploads: puts the received file on req.file. */
-export function receiveFile(maxBytes: number, dir = path.join(os.tmpdir(), 'crestwatch-uploads')): RequestHandler {
+/** How refusals name the file and the setting that caps its size (a CSV by default). */
+export interface FileWords {
+  /** "the CSV", "the GeoJSON file" */
+  kind: string;
+  /** the environment variable of the size cap */
+  setting: string;
+}
+
+const CSV_WORDS: FileWords = { kind: 'the CSV', setting: 'UPLOAD_MAX_BYTES' };
+
+/** The multipart step of POST /api/uploads (and /api/boundaries): puts the received file on req.file. */
+export function receiveFile(
+  maxBytes: number,
+  dir = path.join(os.tmpdir(), 'crestwatch-uploads'),
+  words: FileWords = CSV_WORDS,
+): RequestHandler {
   const single = multer({
     storage: new HashingDiskStorage(dir),
     limits: { fileSize: maxBytes, files: 1, fields: 20, parts: 25 },
@@ -73,7 +87,11 @@ export function receiveFile(maxBytes: number, dir = path.join(os.tmpdir(), 'cres
       if (!err) {
         if (!req.file) {
           return next(
-            new AppError(400, 'no_file', `Send the CSV as multipart/form-data in a field named "${UPLOAD_FIELD}".`),
+            new AppError(
+              400,
+              'no_file',
+              `Send ${words.kind} as multipart/form-data in a field named "${UPLOAD_FIELD}".`,
+            ),
           );
         }
         return next();
@@ -84,7 +102,7 @@ export function receiveFile(maxBytes: number, dir = path.join(os.tmpdir(), 'cres
             new AppError(
               413,
               'payload_too_large',
-              `The file is larger than the upload limit of ${megabytes(maxBytes)} (set by UPLOAD_MAX_BYTES); nothing was loaded.`,
+              `The file is larger than the upload limit of ${megabytes(maxBytes)} (set by ${words.setting}); nothing was loaded.`,
               {
                 maxBytes,
               },

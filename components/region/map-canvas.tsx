@@ -40,7 +40,37 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
   // The view as last applied, for handlers that run between renders (wheel, drag, press).
   const viewRef = useRef(view);
   const moved = useRef(false);
-  const start = useRef<{ view: MapView; dist: number | null }>({ view: IDENTITY, dist: null });
+  /**
+   * The gesture in progress: the view when its current phase began (one finger: a drag
+   * from `origin`; two: a pinch from the spread `dist` about `mid`), so a pinch that
+   * becomes a drag (or back) carries on from where the map is.
+   */
+  const gesture = useRef<{
+    view: MapView;
+    fingers: 0 | 1 | 2;
+    origin: { x: number; y: number };
+    dist: number;
+    mid: { x: number; y: number };
+  }>({ view: IDENTITY, fingers: 0, origin: { x: 0, y: 0 }, dist: 1, mid: { x: 0, y: 0 } });
+  /** Where the last touch or press went down (page coordinates): a drag follows the finger from there. */
+  const down = useRef<{ x: number; y: number } | null>(null);
+  const frameRef = useRef<View>(null);
+  /** The point between two fingers, in the frame's coordinates. */
+  const midpoint = (a: { pageX: number; pageY: number }, b: { pageX: number; pageY: number }) => {
+    const x = (a.pageX + b.pageX) / 2;
+    const y = (a.pageY + b.pageY) / 2;
+    const el = frameRef.current as unknown as { getBoundingClientRect?: () => DOMRect } | null;
+    if (Platform.OS === 'web' && el?.getBoundingClientRect) {
+      const r = el.getBoundingClientRect();
+      return { x: x - window.scrollX - r.left, y: y - window.scrollY - r.top };
+    }
+    return { x: w / 2, y: h / 2 };
+  };
+  /** A pinch starts: from the view as it is, the fingers' spread and the point between them. */
+  const pinchFrom = (a: { pageX: number; pageY: number }, b: { pageX: number; pageY: number }) => {
+    const dist = Math.hypot(a.pageX - b.pageX, a.pageY - b.pageY) || 1;
+    Object.assign(gesture.current, { fingers: 2, view: viewRef.current, dist, mid: midpoint(a, b) });
+  };
   const apply = (v: MapView) => {
     const next = clampView(v, w, h);
     viewRef.current = next;
@@ -61,29 +91,41 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
       // reads the refs in the handlers as render-time access.
       // eslint-disable-next-line react-hooks/refs
       PanResponder.create({
+        // Notes where a press goes down; a second finger takes the gesture at once (before
+        // the tap surface below, in the capture phase), so a pinch starts from the first spread.
+        onStartShouldSetPanResponderCapture: (e) => {
+          const n = e.nativeEvent;
+          const fingers = n.touches?.length ?? 0;
+          if (fingers <= 1) down.current = { x: n.pageX, y: n.pageY };
+          return fingers > 1;
+        },
         onMoveShouldSetPanResponder: (_e, g) => Math.abs(g.dx) + Math.abs(g.dy) > 6 || g.numberActiveTouches > 1,
         onPanResponderGrant: (e) => {
           moved.current = false;
+          gesture.current.fingers = 0;
           const t = e.nativeEvent.touches;
-          start.current = {
-            view: viewRef.current,
-            dist: t && t.length > 1 ? Math.hypot(t[0].pageX - t[1].pageX, t[0].pageY - t[1].pageY) : null,
-          };
+          if (t && t.length > 1) pinchFrom(t[0], t[1]);
         },
-        onPanResponderMove: (e, g) => {
+        onPanResponderMove: (e) => {
           moved.current = true;
-          const t = e.nativeEvent.touches;
-          const s = start.current;
+          const n = e.nativeEvent;
+          const t = n.touches;
+          const s = gesture.current;
           if (t && t.length > 1) {
+            if (s.fingers !== 2) pinchFrom(t[0], t[1]);
             const dist = Math.hypot(t[0].pageX - t[1].pageX, t[0].pageY - t[1].pageY);
-            if (s.dist === null) s.dist = dist;
+            // Zoom about the point between the fingers where the pinch began.
             const k = Math.min(MAX_ZOOM, Math.max(1, (s.view.k * dist) / s.dist));
             const f = k / s.view.k;
-            const cx = w / 2;
-            const cy = h / 2;
-            apply({ k, tx: cx - (cx - s.view.tx) * f, ty: cy - (cy - s.view.ty) * f });
+            apply({ k, tx: s.mid.x - (s.mid.x - s.view.tx) * f, ty: s.mid.y - (s.mid.y - s.view.ty) * f });
           } else {
-            apply({ ...s.view, tx: s.view.tx + g.dx, ty: s.view.ty + g.dy });
+            const p = { x: n.pageX, y: n.pageY };
+            if (s.fingers !== 1) {
+              // A fresh drag follows the finger from where it went down; after a pinch, from here.
+              const origin = s.fingers === 0 && down.current ? down.current : p;
+              Object.assign(s, { fingers: 1, view: viewRef.current, origin });
+            }
+            apply({ ...s.view, tx: s.view.tx + p.x - s.origin.x, ty: s.view.ty + p.y - s.origin.y });
           }
         },
       }),
@@ -110,7 +152,6 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
     );
   };
 
-  const frameRef = useRef<View>(null);
   const onPress = (e: GestureResponderEvent) => {
     if (moved.current) return;
     const v = viewRef.current;
@@ -136,7 +177,7 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
 
   return (
     <View ref={frameRef} style={[styles.frame, { width: w, height: h }]} testID={testID}>
-      <View ref={attachWheel} style={StyleSheet.absoluteFill} {...pan.panHandlers}>
+      <View ref={attachWheel} style={[StyleSheet.absoluteFill, styles.gestures]} {...pan.panHandlers}>
         <Pressable
           onPressIn={() => {
             moved.current = false;
@@ -232,6 +273,9 @@ const styles = StyleSheet.create({
     borderColor: colors.border,
   },
   mark: { position: 'absolute' },
+  // Web: the map takes every touch gesture itself (drag pans, two fingers pinch the map, not
+  // the page); the page still scrolls from outside the map.
+  gestures: Platform.OS === 'web' ? ({ touchAction: 'none' } as object) : {},
   zoom: { position: 'absolute', right: space.sm, top: space.sm, gap: space.xs },
   button: {
     width: 36,

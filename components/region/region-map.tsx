@@ -10,12 +10,15 @@ import { StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
 import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { colors, space, type } from '@/components/theme';
+import { TextLink } from '@/components/ui/text-link';
+import { useMeQuery } from '@/hooks/use-auth';
 import { useBoundariesQuery } from '@/hooks/use-boundaries';
 import { useRegionFilter } from '@/hooks/use-region-filter';
 import { STANDINGS, type Standing } from '@/contracts/estimates';
 import { STANDING_LABEL } from '@/lib/estimate-words';
 import { buildMapScene, mapAspect } from '@/lib/map-scene';
 import { standingOf, toggle, type RegionRow } from '@/lib/region-list';
+import { can } from '@/lib/roles';
 
 import { Chip } from './chip';
 import { MapCanvas } from './map-canvas';
@@ -35,6 +38,7 @@ function plural(n: number, one: string, many = `${one}s`) {
 
 export function RegionMap({ districts, track = null, maxWidth = 720 }: RegionMapProps) {
   const boundaries = useBoundariesQuery();
+  const me = useMeQuery();
   const [filter, setFilter] = useRegionFilter();
   const [width, setWidth] = useState(0);
   const rows = useMemo(() => districts.data ?? [], [districts.data]);
@@ -76,9 +80,14 @@ export function RegionMap({ districts, track = null, maxWidth = 720 }: RegionMap
           The map could not be loaded; the list has every district.
         </Text>
       ) : fc && fc.features.length === 0 ? (
-        <Text style={styles.note} testID="region-map-empty">
-          No district boundaries have been loaded yet: an analyst can load them as GeoJSON.
-        </Text>
+        <View style={styles.empty} testID="region-map-empty">
+          <Text style={styles.note}>
+            No district boundaries have been loaded yet: an analyst can load them as GeoJSON.
+          </Text>
+          {can(me.data?.role, 'upload') ? (
+            <TextLink href="/uploads/boundaries" label="Load district boundaries" />
+          ) : null}
+        </View>
       ) : scene ? (
         <MapCanvas
           scene={scene}
@@ -127,4 +136,5 @@ const styles = StyleSheet.create({
   legend: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   summary: { ...type.caption, color: colors.textMuted },
   note: { ...type.body, color: colors.textMuted },
+  empty: { gap: space.xs },
 });

@@ -21,6 +21,7 @@ export function uploadTitle(u: UploadSummary): string {
   if (u.kind === 'seed') return 'Demo region data';
   if (u.kind === 'revert') return u.revertsUploadId ? `Revert of upload #${u.revertsUploadId}` : 'Revert';
   if (u.kind === 'derivation') return u.note ?? 'Derived series recomputed';
+  if (u.kind === 'boundaries') return `District boundaries: ${u.fileName ?? 'file without a name'}`;
   return u.fileName ?? 'File without a name';
 }
 

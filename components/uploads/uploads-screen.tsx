@@ -1,5 +1,6 @@
 import { Section, Page } from '@/components/layout/page';
 import type { QueryState } from '@/components/state/query-state';
+import { TextLink } from '@/components/ui/text-link';
 import type { PickedFile } from '@/lib/pick-file.types';
 import type { RevertAnswer, UploadAnswer, UploadListResponse, UploadOptions } from '@/contracts/uploads';
 
@@ -25,6 +26,9 @@ export function UploadsScreen({ uploads, changeFactor, pickFile, onPreview, onCo
     >
       <Section title="Load a file">
         <UploadPanel changeFactor={changeFactor} pickFile={pickFile} onPreview={onPreview} onCommit={onCommit} />
+      </Section>
+      <Section title="District boundaries">
+        <TextLink href="/uploads/boundaries" label="Load district boundaries (GeoJSON) and see their versions" />
       </Section>
       <Section title="Upload history">
         <UploadHistory uploads={uploads} onRevert={onRevert} />

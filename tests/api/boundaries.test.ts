@@ -6,6 +6,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { uploadWorld, type UploadWorld } from './upload-helpers';
 import { uploadGeoJson } from './boundaries-helpers';
+import { BoundaryVersionsSchema } from '../../contracts/boundaries';
+import { UploadDetailResponseSchema } from '../../contracts/uploads';
+import { parseAnswer } from '../support/contract';
 
 const root = path.resolve(__dirname, '..', '..');
 const demo = JSON.parse(fs.readFileSync(path.join(root, 'assets', 'demo-data', 'boundaries.geojson'), 'utf8'));
@@ -54,7 +57,7 @@ describe('the demo boundaries', () => {
     const history = await w.analyst.get('/api/uploads');
     expect(history.body.uploads[0]).toMatchObject({ id: r.body.uploadId, kind: 'boundaries', status: 'committed' });
     const versions = await w.official.get('/api/boundaries/versions');
-    expect(versions.body[0]).toMatchObject({
+    expect(versions.body.versions[0]).toMatchObject({
       id: r.body.versionId,
       features: 24,
       current: true,
@@ -121,6 +124,14 @@ describe('the demo boundaries', () => {
     const second = await uploadGeoJson(w.analyst, fc, { commit: true });
     expect(second.status).toBe(201);
     expect(second.body.missingDistricts).toEqual(['D24']);
+    // Its entry in the upload history reads through the uploads' own contract, problems included.
+    const entry = parseAnswer(UploadDetailResponseSchema, await w.analyst.get(`/api/uploads/${second.body.uploadId}`));
+    expect(entry.upload.kind).toBe('boundaries');
+    expect(entry.problems).toEqual([
+      expect.objectContaining({ severity: 'warning', reason: expect.stringMatching(/D24/) }),
+    ]);
+    const versions = parseAnswer(BoundaryVersionsSchema, await w.official.get('/api/boundaries/versions'));
+    expect(versions.versions[0]).toMatchObject({ id: second.body.versionId, current: true, missing: 1 });
     const now = JSON.parse((await w.official.get('/api/boundaries')).text);
     expect(now.version).toBe(second.body.versionId);
     expect(now.features).toHaveLength(23);

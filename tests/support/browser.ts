@@ -38,7 +38,11 @@ export interface Harness {
   requests: string[];
   /** CSP violations seen on any page so far ("<directive> blocked <uri> on <page>"). */
   cspViolations: string[];
-  newPage(viewport: { width: number; height: number }): Promise<{ context: BrowserContext; page: Page }>;
+  /** `touch`: the page has a touch screen (touch events, page.touchscreen, CDP Input.dispatchTouchEvent). */
+  newPage(
+    viewport: { width: number; height: number },
+    options?: { touch?: boolean },
+  ): Promise<{ context: BrowserContext; page: Page }>;
   shot(page: Page, name: string): Promise<string>;
   close(): Promise<void>;
 }
@@ -110,8 +114,8 @@ export async function startHarness(options: HarnessOptions = {}): Promise<Harnes
     t,
     requests,
     cspViolations,
-    async newPage(viewport) {
-      const context = await browser.newContext({ viewport, deviceScaleFactor: 1 });
+    async newPage(viewport, options = {}) {
+      const context = await browser.newContext({ viewport, deviceScaleFactor: 1, hasTouch: options.touch ?? false });
       // Runs in every page of the context before its own scripts (not subject to the CSP).
       await context.exposeBinding('__cwCspViolation', (_source, text: string) => {
         cspViolations.push(text);
