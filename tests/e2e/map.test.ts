@@ -249,7 +249,7 @@ describe.each([
       const box = (await mark.boundingBox())!;
       await page.waitForTimeout(400);
       await page.touchscreen.tap(box.x + box.width / 2, box.y + box.height / 2);
-      await page.waitForURL(`${h.baseUrl}/district/${code}`);
+      await page.waitForURL(new RegExp(`/district/${code}\\?track=`));
       await page.getByTestId('district-name').waitFor();
       expect(offLoopback(h.requests)).toEqual([]);
     } finally {
