@@ -62,15 +62,16 @@ export function RegionMap({ districts, track = null, maxWidth = 720 }: RegionMap
   const without = rows.filter((r) => !mapped.has(r.code));
   const counts: Record<Standing, number> = { approaching: 0, at_turn: 0, past_turn: 0, no_turn: 0, not_estimable: 0 };
   for (const d of scene?.districts ?? []) counts[d.standing] += 1;
-  const summary = scene
-    ? `Map of ${plural(scene.districts.length, 'district')} coloured by standing${track ? ` on ${track.name}` : ''}: ${STANDINGS.filter(
-        (s) => counts[s] > 0,
-      )
-        .map((s) => `${counts[s]} ${STANDING_LABEL[s].toLowerCase()}`)
-        .join(
-          ', ',
-        )}.${without.length ? ` ${plural(without.length, 'district')} without a boundary.` : ''} The list holds the same districts.`
-    : '';
+  const summary =
+    scene && scene.districts.length > 0
+      ? `Map of ${plural(scene.districts.length, 'district')} coloured by standing${track ? ` on ${track.name}` : ''}: ${STANDINGS.filter(
+          (s) => counts[s] > 0,
+        )
+          .map((s) => `${counts[s]} ${STANDING_LABEL[s].toLowerCase()}`)
+          .join(
+            ', ',
+          )}.${without.length ? ` ${plural(without.length, 'district')} without a boundary.` : ''} The list holds the same districts.`
+      : '';
 
   const onLayout = (e: LayoutChangeEvent) => setWidth(Math.floor(e.nativeEvent.layout.width));
   return (
@@ -102,7 +103,7 @@ export function RegionMap({ districts, track = null, maxWidth = 720 }: RegionMap
           <Skeleton width={w || 320} height={h || 240} />
         </View>
       )}
-      {scene ? (
+      {scene && scene.districts.length > 0 ? (
         <>
           <View style={styles.legend} role="group" aria-label="Legend and filter: standings on the map">
             {STANDINGS.filter((s) => counts[s] > 0).map((s) => (
