@@ -199,7 +199,6 @@ async function main(): Promise<void> {
         ...DEFAULT_SPEC,
         name: `${t.name} bench`,
         emissionsIndicator: t.indicator,
-        isDefault: false,
       });
       await createTrack(db, BENCH_CALLER, { code: t.code, name: t.name, specId: spec.id });
       tracks.push({ code: t.code, name: t.name });

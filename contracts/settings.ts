@@ -53,7 +53,6 @@ const specInputFields = {
   firstYear: nullableNumber,
   lastYear: nullableNumber,
   minYears: nullableNumber,
-  isDefault: z.boolean(),
   form: SpecFormSchema,
   transform: SpecTransformSchema,
   covariance: SpecCovarianceSchema,
@@ -68,13 +67,15 @@ export type SpecInput = z.infer<typeof SpecInputSchema>;
 export const SavedSpecSchema = z.object({
   id: z.number(),
   ...specInputFields,
+  /** Names of the tracks (not archived) whose runs use this spec. */
+  tracks: z.array(z.string()),
   archived: z.boolean(),
   createdAt: isoTime,
   updatedAt: isoTime,
 });
 export type SavedSpec = z.infer<typeof SavedSpecSchema>;
 
-export const SpecsResponseSchema = z.object({ specs: z.array(SavedSpecSchema), defaultSpecId: z.number() });
+export const SpecsResponseSchema = z.object({ specs: z.array(SavedSpecSchema), headlineSpecId: nullableNumber });
 export type SpecsResponse = z.infer<typeof SpecsResponseSchema>;
 export const SpecAnswerSchema = z.object({ spec: SavedSpecSchema });
 export type SpecAnswer = z.infer<typeof SpecAnswerSchema>;

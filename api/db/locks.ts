@@ -13,7 +13,7 @@ export const LOCKS = {
   /** Publishing a run, so "the previous published run" is well defined. */
   publish: 20261203,
   /** Creating the default model spec on first use. */
-  defaultSpec: 20261204,
+  starterSpec: 20261204,
   /** Creating the first track (the headline) on first use. */
   headlineTrack: 20261205,
 } as const;

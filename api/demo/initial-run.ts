@@ -1,7 +1,7 @@
 /**
  * Demo mode: on the first start the region has data but no published run, so officials
  * would see no standings. Crestwatch sets up the demo's three tracks — CO2 per person (the
- * headline, on the default spec), PM2.5 and SO2 per person (each on a copy of the default
+ * headline, on the starting spec), PM2.5 and SO2 per person (each on a copy of the starting
  * spec for its own indicator) — queues one run per track, and publishes each in the first
  * admin's name once it reaches review, saying so in the audit log.
  */
@@ -14,7 +14,7 @@ import { DEFAULT_SPEC } from '../specs/schema';
 import { createSpec } from '../specs/service';
 import { listTracks, patchTrack, resolveTrack, createTrack } from '../tracks/service';
 
-/** The demo's tracks besides the headline (which the default spec's indicator makes). */
+/** The demo's tracks besides the headline (which the starting spec's indicator makes). */
 export const DEMO_TRACKS = [
   { code: 'pm25', name: 'PM2.5', indicator: 'pm25', specName: 'PM2.5 regional default' },
   { code: 'so2', name: 'SO2 per person', indicator: 'so2_pc', specName: 'SO2 regional default' },
@@ -34,7 +34,6 @@ export async function ensureDemoTracks(ctx: AppContext, caller: Caller): Promise
       name: t.specName,
       description: DEFAULT_SPEC.description,
       emissionsIndicator: t.indicator,
-      isDefault: false,
     });
     await createTrack(ctx.db, caller, { code: t.code, name: t.name, specId: spec.id });
   }

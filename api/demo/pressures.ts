@@ -8,7 +8,7 @@
  * (ln income as the CO2 series drew it): ln y = c0 + c1·lx + c2·lx² + 0.1·ln density + AR(1)
  * noise, from a random stream of its own (so CO2's numbers are not touched by these).
  *
- * Chosen disagreements (tests/api/demo-tracks.test.ts holds them, with the default spec):
+ * Chosen disagreements (tests/api/demo-tracks.test.ts holds them, with the starting spec):
  * - D13 Mirefield Uplands: approaching its CO2 threshold again after its downturn, but past
  *   the turn for PM2.5 (its PM2.5 turned at a lower income).
  * - D22 Vesperton: past the turn for CO2, at the turn for PM2.5 (its PM2.5 turns near

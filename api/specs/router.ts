@@ -16,12 +16,11 @@ export function specRoutes({ db }: AppContext): RouteSpec[] {
       answer: SpecsResponseSchema,
       allow: STAFF,
       tag: 'runs',
-      summary: 'Saved model specs (the default first)',
-      handler: async () => {
-        // The default is created on first use: make sure it exists before listing.
-        const fallback = await service.defaultSpec(db);
-        return { specs: await service.listSpecs(db), defaultSpecId: fallback.id };
-      },
+      summary: 'Saved model specs (those a track uses first), with the headline track’s spec',
+      handler: async () => ({
+        specs: await service.listSpecs(db),
+        headlineSpecId: await service.headlineSpecId(db),
+      }),
     }),
     route({
       method: 'post',

@@ -30,7 +30,6 @@ export const SavedSpecInput = z
     firstYear: z.number().int().min(1900).max(2100).nullable().default(null),
     lastYear: z.number().int().min(1900).max(2100).nullable().default(null),
     minYears: z.number().int().min(3).max(200).nullable().default(null),
-    isDefault: z.boolean().default(false),
   })
   .extend(SpecModelFields.shape)
   .refine((s) => s.covariance !== 'cluster', {
@@ -53,12 +52,14 @@ export type SavedSpecInput = z.infer<typeof SavedSpecInput>;
 
 export interface SavedSpec extends SavedSpecInput {
   id: number;
+  /** Names of the tracks (not archived) whose runs use this spec. */
+  tracks: string[];
   archived: boolean;
   createdAt: string;
   updatedAt: string;
 }
 
-/** The demo region's default: log–quadratic with density as control, Newey–West errors. */
+/** The spec a first track starts from: log–quadratic with density as control, Newey–West errors. */
 export const DEFAULT_SPEC: SavedSpecInput = SavedSpecInput.parse({
   name: 'Regional default',
   description: 'Log–quadratic in real income per person, population density as control, Newey–West errors.',
@@ -69,5 +70,4 @@ export const DEFAULT_SPEC: SavedSpecInput = SavedSpecInput.parse({
   transform: 'log',
   covariance: 'newey_west',
   intervalMethod: 'fieller',
-  isDefault: true,
 });

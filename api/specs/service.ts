@@ -1,4 +1,4 @@
-/** Saved model specs: one is the region's default; every change is audited. */
+/** Saved model specs: a library of named specs that tracks take up; every change is audited. */
 import type { Knex } from 'knex';
 import * as audit from '../audit/service';
 import { lockForTransaction } from '../db/locks';
@@ -26,7 +26,6 @@ const unique = (err: unknown) => (err as { code?: string }).code === '23505';
 export async function createSpec(db: Knex, caller: Caller, input: SavedSpecInput): Promise<SavedSpec> {
   await checkIndicators(db, input);
   return db.transaction(async (trx) => {
-    if (input.isDefault) await store.clearDefault(trx);
     try {
       const spec = await store.insert(trx, input, caller.id);
       await audit.record(trx, {
@@ -50,9 +49,6 @@ export async function updateSpec(db: Knex, caller: Caller, id: number, input: Sa
   return db.transaction(async (trx) => {
     const before = await store.find(trx, id);
     if (!before || before.archived) throw new NotFoundError(`No model spec with id ${id}`, { id });
-    if (before.isDefault && !input.isDefault)
-      throw new AppError(409, 'default_required', 'Make another spec the default first.');
-    if (input.isDefault) await store.clearDefault(trx);
     try {
       const after = await store.update(trx, id, input);
       await audit.record(trx, {
@@ -76,12 +72,6 @@ export async function archiveSpec(db: Knex, caller: Caller, id: number): Promise
   await db.transaction(async (trx) => {
     const before = await store.find(trx, id);
     if (!before || before.archived) throw new NotFoundError(`No model spec with id ${id}`, { id });
-    if (before.isDefault)
-      throw new AppError(
-        409,
-        'default_required',
-        'The default spec cannot be archived: make another spec the default first.',
-      );
     const tracks = await store.trackCodesUsing(trx, id);
     if (tracks.length)
       throw new AppError(
@@ -102,16 +92,22 @@ export async function archiveSpec(db: Knex, caller: Caller, id: number): Promise
   });
 }
 
-/** The spec a run uses when none is named: the default, created on first use. */
-export async function defaultSpec(db: Knex): Promise<SavedSpec> {
-  const found = await store.findDefault(db);
+/**
+ * The spec a first track is made from when no track exists yet: the oldest spec in the
+ * library, or the built-in starting spec, saved on first use.
+ */
+export async function starterSpec(db: Knex): Promise<SavedSpec> {
+  const found = await store.findOldest(db);
   if (found) return found;
   return db.transaction(async (trx) => {
-    // Its own lock: creating the default spec must not wait on an upload holding the observations lock.
-    await lockForTransaction(trx, 'defaultSpec');
-    return (await store.findDefault(trx)) ?? store.insert(trx, DEFAULT_SPEC, null);
+    // Its own lock: saving the starting spec must not wait on an upload holding the observations lock.
+    await lockForTransaction(trx, 'starterSpec');
+    return (await store.findOldest(trx)) ?? store.insert(trx, DEFAULT_SPEC, null);
   });
 }
+
+/** The headline track's spec id (null before any track exists). */
+export const headlineSpecId = (db: Knex) => store.headlineSpecId(db);
 
 export const listSpecs = (db: Knex) => store.list(db);
 export async function getSpec(db: Knex, id: number): Promise<SavedSpec> {

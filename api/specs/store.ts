@@ -18,7 +18,7 @@ function toSpec(r: Record<string, unknown>): SavedSpec {
     firstYear: r.first_year === null ? null : Number(r.first_year),
     lastYear: r.last_year === null ? null : Number(r.last_year),
     minYears: r.min_years === null ? null : Number(r.min_years),
-    isDefault: Boolean(r.is_default),
+    tracks: [],
     archived: Boolean(r.archived),
     createdAt: new Date(r.created_at as string).toISOString(),
     updatedAt: new Date(r.updated_at as string).toISOString(),
@@ -41,28 +41,53 @@ function toRow(s: SavedSpecInput) {
     first_year: s.firstYear,
     last_year: s.lastYear,
     min_years: s.minYears,
-    is_default: s.isDefault,
   };
 }
 
+/** Fills each spec's `tracks`: the names of the tracks (not archived) whose runs use it. */
+async function withTracks(db: Knex, specs: SavedSpec[]): Promise<SavedSpec[]> {
+  if (!specs.length) return specs;
+  const rows: { spec_id: number; name: string }[] = await db('tracks')
+    .whereIn(
+      'spec_id',
+      specs.map((s) => s.id),
+    )
+    .whereNot('state', 'archived')
+    .orderBy('name')
+    .select('spec_id', 'name');
+  for (const s of specs) s.tracks = rows.filter((r) => Number(r.spec_id) === s.id).map((r) => String(r.name));
+  return specs;
+}
+
+/** Specs a track uses first, then by name. */
 export async function list(db: Knex, includeArchived = false): Promise<SavedSpec[]> {
-  const q = db('model_specs').orderBy([{ column: 'is_default', order: 'desc' }, { column: 'name' }]);
+  const q = db('model_specs').orderBy('name');
   if (!includeArchived) q.where({ archived: false });
-  return (await q.select('*')).map(toSpec);
+  const specs = await withTracks(db, (await q.select('*')).map(toSpec));
+  return specs.sort((a, b) => Number(b.tracks.length > 0) - Number(a.tracks.length > 0));
 }
 
 export async function find(db: Knex, id: number): Promise<SavedSpec | null> {
   const r = await db('model_specs').where({ id }).first();
-  return r ? toSpec(r) : null;
+  return r ? (await withTracks(db, [toSpec(r)]))[0] : null;
 }
 
-export async function findDefault(db: Knex): Promise<SavedSpec | null> {
-  const r = await db('model_specs').where({ is_default: true, archived: false }).first();
-  return r ? toSpec(r) : null;
+/** The oldest spec still in the library, if any. */
+export async function findOldest(db: Knex): Promise<SavedSpec | null> {
+  const r = await db('model_specs').where({ archived: false }).orderBy('id').first();
+  return r ? (await withTracks(db, [toSpec(r)]))[0] : null;
 }
 
-export async function clearDefault(db: Knex): Promise<void> {
-  await db('model_specs').where({ is_default: true }).update({ is_default: false });
+/** The spec of the headline track (the setting's track, else the first one not archived). */
+export async function headlineSpecId(db: Knex): Promise<number | null> {
+  const r = await db('tracks as t')
+    .leftJoin('settings as s', function () {
+      this.on('s.key', '=', db.raw('?', ['headline_track'])).andOn('s.value', '=', db.raw('to_jsonb(t.code)'));
+    })
+    .whereNot('t.state', 'archived')
+    .orderByRaw('(s.key IS NOT NULL) DESC, t.id')
+    .first('t.spec_id');
+  return r ? Number(r.spec_id) : null;
 }
 
 export async function insert(db: Knex, s: SavedSpecInput, userId: number | null): Promise<SavedSpec> {
@@ -77,11 +102,11 @@ export async function update(db: Knex, id: number, s: SavedSpecInput): Promise<S
     .where({ id })
     .update({ ...toRow(s), updated_at: db.fn.now() })
     .returning('*');
-  return toSpec(r);
+  return (await withTracks(db, [toSpec(r)]))[0];
 }
 
 export async function archive(db: Knex, id: number): Promise<void> {
-  await db('model_specs').where({ id }).update({ archived: true, is_default: false, updated_at: db.fn.now() });
+  await db('model_specs').where({ id }).update({ archived: true, updated_at: db.fn.now() });
 }
 
 /** Codes of the tracks (not archived) whose next run uses this spec. */

@@ -9,7 +9,7 @@ import * as audit from '../audit/service';
 import { lockForTransaction } from '../db/locks';
 import { AppError, NotFoundError } from '../http/errors';
 import type { Caller } from '../http/routes';
-import { defaultSpec, getSpec } from '../specs/service';
+import { getSpec, starterSpec } from '../specs/service';
 import type { IndicatorLabel, Track, TrackCreateInput, TrackPatchInput, TrackRef } from '../../contracts/tracks';
 import * as store from './store';
 
@@ -37,7 +37,7 @@ export async function trackRef(db: Knex, t: store.TrackRow): Promise<TrackRef> {
   return { code: t.code, name: t.name, indicator: labels.get(t.emissionsIndicator)! };
 }
 
-/** The headline track; when no track exists yet, one is made for the default spec's indicator. */
+/** The headline track; when no track exists yet, one is made from the starting spec (the library's oldest). */
 export async function headlineTrack(db: Knex): Promise<store.TrackRow> {
   const chosen = await currentHeadline(db);
   if (chosen) return chosen;
@@ -45,7 +45,7 @@ export async function headlineTrack(db: Knex): Promise<store.TrackRow> {
     await lockForTransaction(trx, 'headlineTrack');
     const again = await currentHeadline(trx);
     if (again) return again;
-    const spec = await defaultSpec(trx);
+    const spec = await starterSpec(trx);
     const existing = await store.findByIndicator(trx, spec.emissionsIndicator);
     const id =
       existing?.id ??

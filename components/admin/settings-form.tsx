@@ -89,7 +89,7 @@ export function ScheduleCard({ schedule }: { schedule: Schedule }) {
       <Text style={styles.scheduleTitle}>Quarterly re-estimation</Text>
       <Text style={styles.body}>
         {schedule.enabled ? 'Runs at ' : 'Switched off. When on, runs at '}
-        {words ?? `cron “${schedule.cron}”`} ({schedule.timeZone}), with the default spec.
+        {words ?? `cron “${schedule.cron}”`} ({schedule.timeZone}), one run per active track on its own spec.
       </Text>
       <Text style={styles.next} testID="schedule-next">
         {schedule.enabled && schedule.nextRunAt

@@ -216,13 +216,6 @@ export function SpecEditor({ spec, indicators, onSave, onArchive, onSaved }: Spe
           />
         </View>
       </View>
-      <CheckBox
-        label="The region’s default spec"
-        hint="Runs without a named spec, and scheduled runs, use it."
-        checked={draft.isDefault}
-        onChange={(v) => set('isDefault', v)}
-        testID="spec-default"
-      />
       <View style={styles.actions}>
         <Button
           label={spec ? 'Save changes' : 'Save spec'}

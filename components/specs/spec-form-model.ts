@@ -16,7 +16,6 @@ export type SpecDraft = {
   firstYear: string;
   lastYear: string;
   minYears: string;
-  isDefault: boolean;
 };
 
 export const EMPTY_DRAFT: SpecDraft = {
@@ -34,7 +33,6 @@ export const EMPTY_DRAFT: SpecDraft = {
   firstYear: '',
   lastYear: '',
   minYears: '',
-  isDefault: false,
 };
 
 const text = (n: number | null | undefined) => (n === null || n === undefined ? '' : String(n));
@@ -55,7 +53,6 @@ export function draftOf(spec: SavedSpec): SpecDraft {
     firstYear: text(spec.firstYear),
     lastYear: text(spec.lastYear),
     minYears: text(spec.minYears),
-    isDefault: spec.isDefault,
   };
 }
 
@@ -100,7 +97,6 @@ export function specInputOf(d: SpecDraft): { input: SpecInput | null; problems: 
     firstYear: nums.firstYear,
     lastYear: nums.lastYear,
     minYears: nums.minYears,
-    isDefault: d.isDefault,
   };
   if (nums.lag !== null && d.covariance === 'newey_west') input.lag = nums.lag;
   return { input, problems };

@@ -37,7 +37,7 @@ export function specLine(s: SavedSpec): string {
   return `${s.transform === 'log' ? 'Log' : 'Level'} ${s.form} in ${s.driverIndicator}, ${controls}, ${COVARIANCE_LABEL[s.covariance] ?? s.covariance} errors`;
 }
 
-/** The saved specs (the default first) and the editor for one; side by side when wide. */
+/** The saved specs (those a track uses first) and the editor for one; side by side when wide. */
 export function SpecsScreen({
   specs,
   indicators,
@@ -90,7 +90,7 @@ export function SpecsScreen({
             spec={spec}
             indicators={indicators.data}
             onSave={(input) => onSave(spec?.id ?? null, input)}
-            onArchive={spec && !spec.archived && !spec.isDefault ? () => onArchive(spec) : null}
+            onArchive={spec && !spec.archived && !usedBy.get(spec.id)?.length ? () => onArchive(spec) : null}
             onSaved={onSaved}
           />
         );
@@ -142,9 +142,8 @@ function SpecList({
         testID="specs-error"
       />
     );
-  const rows = [...specs.data.specs].sort(
-    (a, b) => Number(b.isDefault) - Number(a.isDefault) || a.name.localeCompare(b.name),
-  );
+  const used = (id: number) => Number(Boolean(usedBy.get(id)?.length));
+  const rows = [...specs.data.specs].sort((a, b) => used(b.id) - used(a.id) || a.name.localeCompare(b.name));
   if (!rows.length)
     return <StatePanel testID="specs-empty" title="No saved specs" message="Start one with “New spec”." />;
   return (
@@ -153,7 +152,7 @@ function SpecList({
         <View key={s.id} style={[styles.item, selected === s.id && styles.itemSelected]} testID={`spec-row-${s.id}`}>
           <View style={styles.itemHead}>
             <TextLink href={{ pathname: '/specs/[id]', params: { id: String(s.id) } }} label={s.name} />
-            {s.isDefault ? <Pill label="Default" tone="info" /> : null}
+            {s.id === specs.data?.headlineSpecId ? <Pill label="Headline track’s spec" tone="info" /> : null}
             {s.archived ? <Pill label="Archived" tone="neutral" /> : null}
           </View>
           <Text style={styles.itemLine}>{specLine(s)}</Text>

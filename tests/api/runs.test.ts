@@ -16,7 +16,7 @@ import { startMailCatcher, type MailCatcher } from '../../api/mail/catcher';
 import { createMailer } from '../../api/mail/mailer';
 import { deliverOutbox } from '../../api/outbox/sender';
 import { ensureDemoAccounts } from '../../api/people/service';
-import { defaultSpec } from '../../api/specs/service';
+import { getSpec } from '../../api/specs/service';
 import { headlineTrack } from '../../api/tracks/service';
 import {
   AlertFeedResponseSchema,
@@ -101,8 +101,8 @@ describe('runs', () => {
   it('refuses a second run of the same track while one is active, and hides estimates until review', async () => {
     // A run that stays queued (no job is sent for it, so no worker can pick it up) makes
     // the refusal deterministic: the second start must be 409, whatever the workers do.
-    const spec = await defaultSpec(t.db);
     const track = await headlineTrack(t.db);
+    const spec = await getSpec(t.db, track.specId);
     const [held] = await t
       .db('runs')
       .insert({
@@ -295,7 +295,7 @@ describe('runs', () => {
     const runs = parseAnswer(RunListResponseSchema, await analyst.get('/api/runs'));
     expect(runs.runs.map((r) => r.id)).toEqual(expect.arrayContaining([firstRun, secondRun]));
     const specs = parseAnswer(SpecsResponseSchema, await analyst.get('/api/specs'));
-    expect(specs.specs.some((x) => x.id === specs.defaultSpecId)).toBe(true);
+    expect(specs.specs.find((x) => x.id === specs.headlineSpecId)?.tracks.length).toBe(1);
   });
 
   it('holds mail while SMTP is down and delivers each exactly once when it is back', async () => {
@@ -395,18 +395,21 @@ describe('runs', () => {
 });
 
 describe('saved specs', () => {
-  it('lists the default spec on a database that has none yet (created on first use)', async () => {
+  it("lists the starting spec, as the headline track's, once the first track exists on a fresh database", async () => {
     const fresh = await freshDatabase();
     await ensureDemoAccounts(fresh.db);
     const a = testApp(fresh.db);
     const s = await listen(a);
     try {
       const agent = (await signInAs(s, DEMO.analyst)).agent;
+      const empty = parseAnswer(SpecsResponseSchema, await agent.get('/api/specs'));
+      expect(empty).toEqual({ specs: [], headlineSpecId: null });
+      expect((await agent.get('/api/tracks')).status).toBe(200); // the first track is made on first use
       const res = await agent.get('/api/specs');
       expect(res.status).toBe(200);
       const answer = parseAnswer(SpecsResponseSchema, res);
-      expect(answer.specs.map((x) => x.id)).toEqual([answer.defaultSpecId]);
-      expect(answer.specs[0]).toMatchObject({ name: 'Regional default', isDefault: true });
+      expect(answer.specs.map((x) => x.id)).toEqual([answer.headlineSpecId]);
+      expect(answer.specs[0]).toMatchObject({ name: 'Regional default', tracks: [expect.any(String)] });
     } finally {
       await closeServer(s, a);
       await fresh.drop();

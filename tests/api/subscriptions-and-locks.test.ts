@@ -80,21 +80,23 @@ describe('advisory locks', () => {
     expect(new Set(ids).size).toBe(ids.length);
   });
 
-  it('creates the default spec while an upload holds the observations lock', async () => {
+  it('saves the starting spec and the first track while an upload holds the observations lock', async () => {
     const analyst = (await signInAs(server, DEMO.analyst)).agent;
     const [{ count }] = await t.db('model_specs').count<{ count: string }[]>({ count: '*' });
-    expect(Number(count)).toBe(0); // a fresh database: the list below must create the default
+    expect(Number(count)).toBe(0); // a fresh database: the track list below must save the starting spec
     const upload = await t.db.transaction();
     try {
       await lockForTransaction(upload, 'observations');
       const timedOut = new Promise<'timed out'>((resolve) => setTimeout(() => resolve('timed out'), 15_000).unref());
-      const res = await Promise.race([analyst.get('/api/specs'), timedOut]);
+      const res = await Promise.race([analyst.get('/api/tracks'), timedOut]);
       expect(res).not.toBe('timed out');
       if (res === 'timed out') return;
       expect(res.status).toBe(200);
-      expect(
-        res.body.specs.find((s: { id: number; isDefault: boolean }) => s.id === res.body.defaultSpecId)?.isDefault,
-      ).toBe(true);
+      expect(res.body.tracks).toHaveLength(1);
+      const specs = await Promise.race([analyst.get('/api/specs'), timedOut]);
+      if (specs === 'timed out') throw new Error('the spec list waited on the upload');
+      expect(specs.body.specs.map((s: { id: number }) => s.id)).toEqual([specs.body.headlineSpecId]);
+      expect(specs.body.specs[0].tracks).toEqual([res.body.tracks[0].name]);
     } finally {
       await upload.rollback();
     }

@@ -136,6 +136,8 @@ it('holds data in the previous schema', async () => {
 it('migrates: a track per indicator, runs on their tracks, the default spec’s indicator as headline', async () => {
   const [, applied] = await db.migrate.latest(dir);
   expect(applied).toContain(TRACKS);
+  // The default-spec flag gives way to the headline track.
+  expect(await db.schema.hasColumn('model_specs', 'is_default')).toBe(false);
   const tracks = await db('tracks').orderBy('code').select('id', 'code', 'emissions_indicator', 'name', 'state');
   // Codes as the migration derives them from the indicator codes (lower case, `_` → `-`).
   expect(tracks.map((t) => [t.code, t.emissions_indicator, t.state])).toEqual([
@@ -200,6 +202,9 @@ it('rolls back to the previous schema with the data kept', async () => {
   const [{ count }] = await db('runs').count<{ count: string }[]>({ count: '*' });
   expect(Number(count)).toBe(4);
   expect(await db('settings').where({ key: 'headline_track' }).first()).toBeUndefined();
+  // The default-spec flag came back with the headline track's (CO2) spec as the default.
+  const defaults = await db('model_specs').where({ is_default: true }).select('emissions_indicator');
+  expect(defaults.map((r: { emissions_indicator: string }) => r.emissions_indicator)).toEqual(['emissions_pc']);
   const { rows } = await db.raw(`SELECT indexname FROM pg_indexes WHERE tablename = 'runs' ORDER BY indexname`);
   expect(rows.map((r: { indexname: string }) => r.indexname)).toEqual(
     expect.arrayContaining(['runs_one_active_per_spec', 'runs_published']),

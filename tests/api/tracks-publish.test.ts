@@ -140,7 +140,7 @@ describe('tracks', () => {
 
     const spec = await analyst
       .post('/api/specs')
-      .send({ ...DEFAULT_SPEC, name: 'PM2.5 regional', emissionsIndicator: 'pm25', isDefault: false });
+      .send({ ...DEFAULT_SPEC, name: 'PM2.5 regional', emissionsIndicator: 'pm25' });
     expect(spec.status).toBe(201);
     expect(
       (await analyst.post('/api/tracks').send({ code: 'pm25', name: 'PM2.5', specId: spec.body.spec.id })).status,
@@ -256,7 +256,7 @@ describe('tracks', () => {
   it('the schedule starts one run per active track and none for a paused one', async () => {
     const spec = await analyst
       .post('/api/specs')
-      .send({ ...DEFAULT_SPEC, name: 'PM2.5 paused copy', emissionsIndicator: 'pm25', isDefault: false });
+      .send({ ...DEFAULT_SPEC, name: 'PM2.5 paused copy', emissionsIndicator: 'pm25' });
     const third = await admin
       .post('/api/tracks')
       .send({ code: 'pm25-paused', name: 'PM2.5 (paused)', specId: spec.body.spec.id });

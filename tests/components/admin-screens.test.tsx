@@ -268,7 +268,7 @@ describe('specs', () => {
     mockedGet.mockImplementation(
       answerWith({
         '/api/me': me('analyst'),
-        '/api/specs': { specs: [], defaultSpecId: 1 },
+        '/api/specs': { specs: [], headlineSpecId: null },
         '/api/indicators': { indicators },
       }),
     );
@@ -297,7 +297,7 @@ describe('specs', () => {
     mockedGet.mockImplementation(
       answerWith({
         '/api/me': me('analyst'),
-        '/api/specs': { specs: [], defaultSpecId: 1 },
+        '/api/specs': { specs: [], headlineSpecId: null },
         '/api/indicators': { indicators },
       }),
     );

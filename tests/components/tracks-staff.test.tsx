@@ -36,7 +36,7 @@ const spec = (over: Partial<SavedSpec>): SavedSpec => ({
   firstYear: null,
   lastYear: null,
   minYears: null,
-  isDefault: true,
+  tracks: [],
   form: 'quadratic',
   transform: 'log',
   covariance: 'newey_west',
@@ -50,10 +50,10 @@ const spec = (over: Partial<SavedSpec>): SavedSpec => ({
 const specsAnswer = {
   specs: [
     spec({}),
-    spec({ id: 5, name: 'CO₂ levels', isDefault: false, transform: 'level' }),
-    spec({ id: 2, name: 'Particles default', emissionsIndicator: 'pm25', isDefault: false }),
+    spec({ id: 5, name: 'CO₂ levels', transform: 'level' }),
+    spec({ id: 2, name: 'Particles default', emissionsIndicator: 'pm25' }),
   ],
-  defaultSpecId: 1,
+  headlineSpecId: 1,
 };
 
 describe('re-estimate now', () => {

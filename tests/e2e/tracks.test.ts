@@ -35,15 +35,14 @@ beforeAll(async () => {
       mustBePositive: true,
     });
     await uploadParticles(page);
-    const specs = await get<{ specs: Record<string, unknown>[]; defaultSpecId: number }>(page, '/api/specs');
-    const base = specs.specs.find((s) => s.id === specs.defaultSpecId)!;
-    const { id: _id, archived: _a, createdAt: _c, updatedAt: _u, ...input } = base;
+    const specs = await get<{ specs: Record<string, unknown>[]; headlineSpecId: number }>(page, '/api/specs');
+    const base = specs.specs.find((s) => s.id === specs.headlineSpecId)!;
+    const { id: _id, archived: _a, createdAt: _c, updatedAt: _u, tracks: _t, ...input } = base;
     const saved = await send<{ spec: { id: number } }>(page, 'POST', '/api/specs', {
       ...input,
       name: 'Fine particles default',
       description: 'The default model for the particle series.',
       emissionsIndicator: 'pm25_invented',
-      isDefault: false,
     });
     await signIn(page, h.baseUrl, DEMO.admin);
     await send(page, 'POST', '/api/tracks', { code: 'particles', name: 'Fine particles', specId: saved.spec.id });
