@@ -22,7 +22,9 @@ it('an analyst saves a spec, sees it offered for a run, and archives it (wide)',
     await openSection(page, 'specs', false);
     const list = page.getByTestId('specs-list');
     await list.waitFor();
-    expect(await list.innerText()).toMatch(/Regional default[\s\S]*Default/);
+    expect(await list.innerText()).toMatch(
+      /Regional default\s+Headline track’s spec[\s\S]*Used by CO2 emissions per person/,
+    );
     await h.shot(page, 'staff-wide-specs');
 
     await page.getByRole('link', { name: 'New spec' }).click();
