@@ -3,12 +3,22 @@
  * PostgreSQL-backed queue as the server, so more processes or machines can share a run.
  */
 import { createComputePool } from './compute/pool';
-import { loadConfig } from './config';
+import os from 'node:os';
+import { loadConfig, type Config } from './config';
 import type { AppContext } from './context';
 import { createDb } from './db';
 import { startJobs } from './jobs/boss';
 import { allHandlers } from './jobs/handlers';
 import { createMailer } from './mail/mailer';
+
+/**
+ * A worker process answers no reader, so unless COMPUTE_POOL_SIZE says otherwise its pool
+ * has a thread per core (the server keeps one core for its event loop): a run's fits use
+ * every core while this thread streams their rows to PostgreSQL.
+ */
+function workerPoolSize(config: Config): number {
+  return process.env.COMPUTE_POOL_SIZE === undefined ? os.availableParallelism() : config.computePoolSize;
+}
 
 export async function startWorker(config = loadConfig()) {
   const db = createDb(config.databaseUrl);
@@ -25,7 +35,7 @@ export async function startWorker(config = loadConfig()) {
     log: (m) => process.stderr.write(`${m}\n`),
     mailer: createMailer(config),
     jobs,
-    compute: createComputePool(config.computePoolSize),
+    compute: createComputePool(workerPoolSize(config), { warm: true }),
   };
   await jobs.work(allHandlers(ctx));
   return {

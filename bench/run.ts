@@ -1,15 +1,23 @@
 /**
  * npm run bench:run — three tracks (CO2 per person, PM2.5, SO2 per person) over 3,000
- * invented districts × 40 years (one control, Newey–West): one run per track, each read,
- * fitted (every variant), written and published (a track's first publish compares with
- * nothing, so raises no alerts), one worker process. Prints per track the time from the
- * moment a worker picks the run up to review, the publish, the share of each phase (fits,
- * reads, writes), the load average beside every figure, and a yardstick measured just
- * before each run: the same district fits in this process alone, with no database.
- * PM2.5 and SO2 are the CO2 series bent per district and year (deterministic), so each
- * track fits series of its own.
+ * invented districts × 40 years (one control, Newey–West): per track one run with one
+ * worker process and one with two, each read, fitted (every variant), written and
+ * published (a track's first publish compares with nothing, so raises no alerts); then
+ * 7,000 more districts and the CO2 track again over all 10,000, one and two workers.
+ * Prints per run the time from the moment a worker picks the run up to review, the
+ * publish, the share of each phase (the start's read, the pooled fit, the chunks' fits,
+ * their writes, and the rest: queue and bookkeeping), the load average beside every
+ * figure, and a yardstick measured just before each track: the same district fits in
+ * this process alone, one thread, no database. PM2.5 and SO2 are the CO2 series bent
+ * per district and year (deterministic), so each track fits series of its own.
  *
- * Environment: BENCH_DISTRICTS (default 3000).
+ * Chunks' phases are summed over chunks; a chunk's fits and its write overlap (the COPY
+ * streams finished slices while later ones fit), so "writes" is what the write added
+ * after the last fit of its chunk. With two workers chunks run side by side and the
+ * summed phases can exceed the wall time.
+ *
+ * Environment: BENCH_DISTRICTS (default 3000), BENCH_LARGE (default 10000; 0 skips the
+ * large run), BENCH_WORKERS (default "1,2").
  */
 import { createComputePool } from '../api/compute/pool';
 import { spawn, type ChildProcess } from 'node:child_process';
@@ -36,6 +44,8 @@ import { insertSyntheticDistricts } from '../tests/support/synthetic';
 import { TEMPLATE_DB, TEST_CLUSTER, testDatabaseUrl } from '../tests/support/test-cluster';
 
 const DISTRICTS = Number(process.env.BENCH_DISTRICTS ?? 3000);
+const LARGE = Number(process.env.BENCH_LARGE ?? 10000);
+const WORKERS = (process.env.BENCH_WORKERS ?? '1,2').split(',').map(Number);
 const YEARS = 40;
 const root = path.resolve(__dirname, '..');
 const DB = 'cw_bench_run';
@@ -130,6 +140,7 @@ async function timedRun(ctx: AppContext, workers: number, track?: string): Promi
       dbMs: t.readMs + t.chunkReadMs + t.writeMs,
       pooledMs: t.pooledMs,
       alerts: published.alerts,
+      workers,
       readMs: t.readMs + t.chunkReadMs,
       startReadMs: t.readMs,
       chunkReadMs: t.chunkReadMs,
@@ -204,25 +215,45 @@ async function main(): Promise<void> {
       tracks.push({ code: t.code, name: t.name });
     }
     const results: [string, Record<string, number>][] = [];
+    const sec = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
+    const print = (k: string, v: Record<string, number>) => {
+      const share = (x: number) => `${sec(x)} ${`(${((100 * x) / v.runToReviewMs).toFixed(0)}%)`.padStart(6)}`;
+      const rest = v.runToReviewMs - v.startReadMs - v.pooledMs - v.fitMs - v.writeMs;
+      console.log(
+        `${k.padEnd(16)} ${String(v.workers).padStart(2)} ${sec(v.runToReviewMs).padStart(9)} ${sec(v.publishMs).padStart(8)} ${sec(v.totalMs).padStart(8)} | ${share(v.startReadMs)} ${share(v.pooledMs)} ${share(v.fitMs)} ${share(v.writeMs)} ${share(Math.max(0, rest))} | ${sec(v.yardMs).padStart(8)}  ${(v.runToReviewMs / v.yardMs).toFixed(2).padStart(5)}×  ${String(v.alerts).padStart(5)}  ${v.load.toFixed(2)}`,
+      );
+    };
+    const header = (districts: number) => {
+      console.log(
+        `\n${districts} districts × ${YEARS} years, 5 variants each (main, no controls, cubic, last 20 years, level); chunk phases summed over chunks`,
+      );
+      console.log(
+        'track          wk run→review  publish   total   | start read     pooled fit     chunk fits     chunk writes   queue, rest    | yardstick  run/yard  alerts  load',
+      );
+    };
     for (const t of tracks) {
       const yard = await yardstick(ctx, t.code);
-      results.push([t.name, { ...(await timedRun(ctx, 1, t.code)), yardMs: yard }]);
+      for (const w of WORKERS) {
+        const r: [string, Record<string, number>] = [t.name, { ...(await timedRun(ctx, w, t.code)), yardMs: yard }];
+        results.push(r);
+      }
     }
-    const sec = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
+    header(DISTRICTS);
+    for (const [k, v] of results) print(k, v);
+    const all = results.filter(([, v]) => v.workers === WORKERS[0]).reduce((sum, [, v]) => sum + v.totalMs, 0);
     console.log(
-      `\none run per track, ${DISTRICTS} districts × ${YEARS} years, 5 variants each (main, no controls, cubic, last 20 years, level), one worker; phases summed over chunks`,
+      `three tracks, one run each with ${WORKERS[0]} worker${WORKERS[0] > 1 ? 's' : ''}: ${sec(all)} in all (load ${load().toFixed(2)} at the end)`,
     );
-    console.log(
-      'track               run→review  publish   total   | fits         reads        writes       pooled  | yardstick: fits alone  run/yardstick  alerts  load',
-    );
-    for (const [k, v] of results) {
-      const share = (x: number) => `${sec(x)} ${`(${((100 * x) / v.runToReviewMs).toFixed(0)}%)`.padStart(6)}`;
+    if (LARGE > DISTRICTS) {
+      const l1 = performance.now();
+      await insertSyntheticDistricts(db, LARGE - DISTRICTS, { years: YEARS, seed: 43, prefix: 'C' });
       console.log(
-        `${k.padEnd(20)} ${sec(v.runToReviewMs).padStart(9)} ${sec(v.publishMs).padStart(8)} ${sec(v.totalMs).padStart(8)} | ${share(v.fitMs)} ${share(v.readMs)} ${share(v.writeMs)} ${sec(v.pooledMs)} | ${sec(v.yardMs).padStart(10)}            ${(v.runToReviewMs / v.yardMs).toFixed(2).padStart(5)}×   ${String(v.alerts).padStart(5)}   ${v.load.toFixed(2)}`,
+        `\nloaded ${LARGE - DISTRICTS} more districts (CO2 track only) in ${((performance.now() - l1) / 1000).toFixed(1)} s (load ${load().toFixed(2)})`,
       );
+      const yard = await yardstick(ctx, headline.code);
+      header(LARGE);
+      for (const w of WORKERS) print('CO2 per person', { ...(await timedRun(ctx, w, headline.code)), yardMs: yard });
     }
-    const all = results.reduce((sum, [, v]) => sum + v.totalMs, 0);
-    console.log(`three tracks, one run each: ${sec(all)} in all (load ${load().toFixed(2)} at the end)`);
   } finally {
     await jobs.stop();
     ctx.mailer.close();

@@ -27,7 +27,7 @@ function workerFile(): string {
   throw new Error(`compute worker not found beside ${__dirname}`);
 }
 
-export function createComputePool(size: number): ComputePool {
+export function createComputePool(size: number, options: { warm?: boolean } = {}): ComputePool {
   if (size === 0) {
     return {
       size,
@@ -38,9 +38,11 @@ export function createComputePool(size: number): ComputePool {
   const file = workerFile();
   const piscina = new Piscina({
     filename: file,
-    minThreads: 1,
+    // A warm pool starts every thread now (a thread loading the engine through tsx takes
+    // a while, too long to wait for in the middle of a run); otherwise threads beyond
+    // the first start on demand and end after a quiet minute.
+    minThreads: options.warm ? size : 1,
     maxThreads: size,
-    // Threads beyond the first end after a quiet minute.
     idleTimeout: 60_000,
     execArgv: file.endsWith('.ts') ? ['--import', 'tsx'] : [],
   });

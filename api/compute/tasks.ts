@@ -1,6 +1,6 @@
 /**
- * The CPU-heavy work that runs off the main event loop: a what-if curve fit, a chunk of a
- * run's district fits, a brief's PDF, reading and checking a boundary (GeoJSON) file. Each task takes and returns plain data (structured
+ * The CPU-heavy work that runs off the main event loop: a what-if curve fit, a slice of a
+ * run's district fits (as records, or as the COPY text the run writes), a brief's PDF, reading and checking a boundary (GeoJSON) file. Each task takes and returns plain data (structured
  * clone), so the same function runs in a pool thread (api/compute/worker.ts) or, with a
  * pool size of 0, inline.
  *
@@ -22,6 +22,7 @@ import {
   type ModelSpecInput,
 } from '../estimation';
 import { fitDistrict, type RunModel } from '../runs/district-fit';
+import { estimatesCopyText } from '../runs/estimate-copy';
 import type { DistrictData, EstimateRecord } from '../runs/estimate-record';
 
 export interface EngineRefusal {
@@ -38,6 +39,13 @@ export type Task =
       districts: { districtId: number; data: DistrictData }[];
       pooled: FitPanelResult | null;
     }
+  | {
+      kind: 'district-fits-copy';
+      runId: number;
+      model: RunModel;
+      districts: { districtId: number; data: DistrictData }[];
+      pooled: FitPanelResult | null;
+    }
   | { kind: 'district-pdf'; content: DistrictBriefContent }
   | { kind: 'region-pdf'; content: RegionBriefContent }
   | { kind: 'summary-pdf'; content: DistrictSummaryContent }
@@ -46,6 +54,8 @@ export type Task =
 export interface TaskResults {
   'fit-curve': { ok: true; result: FitCurveResult } | { ok: false; error: EngineRefusal };
   'district-fits': { districtId: number; record: EstimateRecord }[];
+  /** the fitted records as COPY text (api/runs/estimate-copy.ts), one line per district and variant */
+  'district-fits-copy': string;
   'district-pdf': Uint8Array;
   'region-pdf': Uint8Array;
   'summary-pdf': Uint8Array;
@@ -65,6 +75,13 @@ export async function runTask(task: Task): Promise<TaskResults[Task['kind']]> {
     case 'district-fits':
       return task.districts.flatMap((d) =>
         fitDistrict(task.model, d.data, task.pooled).map((record) => ({ districtId: d.districtId, record })),
+      );
+    case 'district-fits-copy':
+      return estimatesCopyText(
+        task.runId,
+        task.districts.flatMap((d) =>
+          fitDistrict(task.model, d.data, task.pooled).map((record) => ({ districtId: d.districtId, record })),
+        ),
       );
     case 'district-pdf':
       return renderDistrictPdf(task.content);

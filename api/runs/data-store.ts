@@ -28,21 +28,32 @@ export async function currentDataVersion(db: Knex): Promise<number> {
   return Number(rows[0].v);
 }
 
-interface RawRow {
+/**
+ * One row per district: its observations of the selected indicators as three arrays in
+ * (year, indicator) order — `slots` indexes `codes` — so a 3,000-district read is 3,000
+ * rows, not hundreds of thousands, and is assembled without a lookup per value.
+ */
+interface DistrictRows {
   district_id: number;
   code: string;
   name: string;
-  indicator: string;
-  year: number;
-  value: number;
+  years: number[];
+  slots: number[];
+  vals: number[];
 }
 
-async function rawRows(db: Knex, version: number, sel: Selection, districtIds: number[] | null): Promise<RawRow[]> {
+async function rawRows(
+  db: Knex,
+  version: number,
+  codes: string[],
+  sel: Selection,
+  districtIds: number[] | null,
+): Promise<DistrictRows[]> {
   const latest = version >= (await currentDataVersion(db));
   const source = latest ? 'observations' : 'observations_as_of(?)';
-  const params: Knex.RawBinding[] = latest ? [] : [version];
-  params.push([sel.emissions, sel.driver, ...sel.controls]);
-  let where = 'i.code = ANY(?::text[])';
+  const params: Knex.RawBinding[] = [codes];
+  if (!latest) params.push(version);
+  let where = 'TRUE';
   if (districtIds) {
     where += ' AND o.district_id = ANY(?::int[])';
     params.push(districtIds);
@@ -56,28 +67,35 @@ async function rawRows(db: Knex, version: number, sel: Selection, districtIds: n
     params.push(sel.lastYear);
   }
   const { rows } = await db.raw(
-    `SELECT o.district_id, d.code, d.name, i.code AS indicator, o.year, o.value
-       FROM ${source} o JOIN districts d ON d.id = o.district_id JOIN indicators i ON i.id = o.indicator_id
-      WHERE ${where}
-      ORDER BY d.code, o.year, i.code`,
+    `WITH wanted AS (
+       SELECT i.id, (k.n - 1)::int AS slot
+         FROM unnest(?::text[]) WITH ORDINALITY AS k(code, n) JOIN indicators i ON i.code = k.code
+     )
+     , per_district AS (
+       SELECT o.district_id,
+              array_agg(o.year ORDER BY o.year, w.slot) AS years,
+              array_agg(w.slot ORDER BY o.year, w.slot) AS slots,
+              array_agg(o.value ORDER BY o.year, w.slot) AS vals
+         FROM ${source} o JOIN wanted w ON w.id = o.indicator_id
+        WHERE ${where}
+        GROUP BY o.district_id
+     )
+     SELECT p.district_id, d.code, d.name, p.years, p.slots, p.vals
+       FROM per_district p JOIN districts d ON d.id = p.district_id
+      ORDER BY d.code`,
     params,
   );
   return rows;
 }
 
-function assemble(rows: RawRow[], sel: Selection): DistrictSeries[] {
-  const out: DistrictSeries[] = [];
-  const needed = [sel.emissions, sel.driver, ...sel.controls];
-  let i = 0;
-  while (i < rows.length) {
-    const { district_id, code, name } = rows[i];
-    const byYear = new Map<number, Map<string, number>>();
-    for (; i < rows.length && rows[i].district_id === district_id; i++) {
-      const r = rows[i];
-      let m = byYear.get(r.year);
-      if (!m) byYear.set(r.year, (m = new Map()));
-      m.set(r.indicator, Number(r.value));
-    }
+function assemble(rows: DistrictRows[], codes: string[], sel: Selection): DistrictSeries[] {
+  const slotOf = (c: string) => codes.indexOf(c);
+  const ySlot = slotOf(sel.emissions);
+  const xSlot = slotOf(sel.driver);
+  const cSlots = sel.controls.map(slotOf);
+  const value = new Float64Array(codes.length);
+  const seen = new Uint8Array(codes.length);
+  return rows.map((r) => {
     const data: DistrictData = {
       years: [],
       x: [],
@@ -85,19 +103,26 @@ function assemble(rows: RawRow[], sel: Selection): DistrictSeries[] {
       controls: Object.fromEntries(sel.controls.map((c) => [c, [] as number[]])),
       droppedYears: [],
     };
-    for (const [year, m] of [...byYear.entries()].sort((a, b) => a[0] - b[0])) {
-      if (!needed.every((n) => m.has(n))) {
+    let i = 0;
+    while (i < r.years.length) {
+      const year = r.years[i];
+      seen.fill(0);
+      for (; i < r.years.length && r.years[i] === year; i++) {
+        value[r.slots[i]] = Number(r.vals[i]);
+        seen[r.slots[i]] = 1;
+      }
+      // A year counts only when emissions, the driver and every control are present.
+      if (!seen.every((v) => v === 1)) {
         data.droppedYears.push(year);
         continue;
       }
       data.years.push(year);
-      data.y.push(m.get(sel.emissions)!);
-      data.x.push(m.get(sel.driver)!);
-      for (const c of sel.controls) data.controls[c].push(m.get(c)!);
+      data.y.push(value[ySlot]);
+      data.x.push(value[xSlot]);
+      sel.controls.forEach((c, j) => data.controls[c].push(value[cSlots[j]]));
     }
-    out.push({ districtId: Number(district_id), code, name, data });
-  }
-  return out;
+    return { districtId: Number(r.district_id), code: r.code, name: r.name, data };
+  });
 }
 
 /** Every district's series at a data version (districts with no rows at all are left out). */
@@ -107,7 +132,8 @@ export async function loadSeries(
   sel: Selection,
   districtIds: number[] | null = null,
 ): Promise<DistrictSeries[]> {
-  return assemble(await rawRows(db, version, sel, districtIds), sel);
+  const codes = [...new Set([sel.emissions, sel.driver, ...sel.controls])];
+  return assemble(await rawRows(db, version, codes, sel, districtIds), codes, sel);
 }
 
 /** A hash of exactly the values a run reads (district, indicator, year, value as written). */
@@ -115,13 +141,15 @@ export function hashSeries(series: DistrictSeries[], sel: Selection): { hash: st
   const h = createHash('sha256');
   let rows = 0;
   h.update(JSON.stringify(sel));
+  // One update per district (the digest of the concatenation is the same as of the pieces).
   for (const s of series) {
-    h.update(`\n${s.code}`);
+    let text = `\n${s.code}`;
     for (let i = 0; i < s.data.years.length; i++) {
-      h.update(`|${s.data.years[i]}:${s.data.y[i]}:${s.data.x[i]}`);
-      for (const c of sel.controls) h.update(`:${s.data.controls[c][i]}`);
+      text += `|${s.data.years[i]}:${s.data.y[i]}:${s.data.x[i]}`;
+      for (const c of sel.controls) text += `:${s.data.controls[c][i]}`;
       rows++;
     }
+    h.update(text);
   }
   return { hash: h.digest('hex'), rows };
 }

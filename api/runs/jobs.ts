@@ -123,6 +123,15 @@ export async function startRun(ctx: AppContext, runId: number, isLastAttempt: bo
   }
 }
 
+/** `items` cut into at most `n` runs of near-equal length, in order. */
+function sliceEvenly<T>(items: T[], n: number): T[][] {
+  const count = Math.min(n, items.length);
+  const out: T[][] = [];
+  for (let i = 0; i < count; i++)
+    out.push(items.slice(Math.floor((i * items.length) / count), Math.floor(((i + 1) * items.length) / count)));
+  return out;
+}
+
 export async function runChunk(
   ctx: AppContext,
   data: { runId: number; chunk: number; districtIds: number[]; series?: PackedSeries },
@@ -139,22 +148,45 @@ export async function runChunk(
     const t1 = performance.now();
     const pooled = panelFitOf(run.pooled);
     const model = { spec: run.spec.model, controls: run.spec.selection.controls };
-    // The fits run in the compute pool, so a run never stalls the readers of this process.
-    const rows = await ctx.compute.run({
-      kind: 'district-fits',
-      model,
-      districts: series.map((s) => ({ districtId: s.districtId, data: s.data })),
-      pooled,
+    // The fits run in the compute pool, so a run never stalls the readers of this process:
+    // the chunk is cut into slices, two per thread, so every thread fits while the COPY
+    // below already streams the slices that are done; a thread returns its slice as COPY
+    // text, so no record crosses the thread boundary or is serialised on this event loop.
+    let fitsDone = t1;
+    const slices = sliceEvenly(series, Math.max(1, ctx.compute.size) * 2);
+    const parts = slices.map((part) => {
+      const text = ctx.compute
+        .run({
+          kind: 'district-fits-copy',
+          runId: run.id,
+          model,
+          districts: part.map((s) => ({ districtId: s.districtId, data: s.data })),
+          pooled,
+        })
+        .then((t) => {
+          fitsDone = Math.max(fitsDone, performance.now());
+          return t;
+        });
+      // Awaited in order by the COPY; a failure is reported there, never as unhandled.
+      text.catch(() => {});
+      return text;
     });
-    const t2 = performance.now();
     await db.transaction(async (trx) => {
-      await store.writeEstimates(trx, run.id, rows);
+      await store.writeEstimatesText(
+        trx,
+        run.id,
+        series.map((s) => s.districtId),
+        parts,
+      );
       const done = await store.markChunkDone(trx, run.id, data.chunk);
       if (done >= (run.chunksTotal ?? 0)) {
         await store.transition(trx, run.id, ['running'], 'in_review', { finished_at: trx.fn.now() });
       }
     });
     const t3 = performance.now();
+    // Fits and writes overlap: fitMs runs to the last slice fitted, writeMs is what the
+    // write added after it (the rest of the COPY, the chunk's bookkeeping, the commit).
+    const t2 = fitsDone;
     await store.addChunkTimings(db, run.id, { chunkReadMs: t1 - t0, fitMs: t2 - t1, writeMs: t3 - t2 });
   } catch (err) {
     if (isLastAttempt) await failRun(ctx, run.id, `Chunk ${data.chunk} failed: ${(err as Error).message}`);

@@ -8,11 +8,13 @@ import type { PoolClient } from 'pg';
 import { from as copyFrom } from 'pg-copy-streams';
 import type { ModelSpec } from '../estimation';
 import type { EstimateRecord, Variant } from './estimate-record';
+import { ESTIMATE_COPY_COLUMNS, estimatesCopyText } from './estimate-copy';
 import type { Selection } from './data-store';
 import { PooledCurveSchema, type PooledCurve } from '../../contracts/estimates';
 import { parse } from '../../contracts/kit';
 
 export type { EstimateListRow };
+export { estimatesCopyText };
 
 export type RunState = 'queued' | 'running' | 'in_review' | 'published' | 'discarded' | 'failed';
 
@@ -157,43 +159,6 @@ export interface EstimateRow {
   record: EstimateRecord;
 }
 
-const ESTIMATE_COLUMNS =
-  'run_id, district_id, variant, status, standing, shape, threshold, gap_percent, crossing_year, u_test_rejects, interval_bounded, last_year, result';
-
-/** One value in COPY's text format: \N for null, backslash, tab and line breaks escaped. */
-function copyText(v: string | number | boolean | null | undefined): string {
-  if (v === null || v === undefined) return '\\N';
-  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '\\N';
-  if (typeof v === 'boolean') return v ? 't' : 'f';
-  return v.replace(/[\\\t\n\r]/g, (c) => (c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r'));
-}
-
-/** The COPY text of a chunk's estimates: one line per district and variant. */
-export function estimatesCopyText(runId: number, rows: EstimateRow[]): string {
-  let out = '';
-  for (const { districtId, record: r } of rows) {
-    out +=
-      [
-        runId,
-        districtId,
-        r.variant,
-        r.status,
-        r.standing.standing,
-        r.shape?.shape ?? null,
-        r.threshold?.level ?? null,
-        r.gapPercent,
-        r.projection?.crossingYear ?? null,
-        r.uTest?.rejects ?? null,
-        r.standing.intervalBounded,
-        r.lastYear,
-        JSON.stringify(r),
-      ]
-        .map(copyText)
-        .join('\t') + '\n';
-  }
-  return out;
-}
-
 /**
  * Writes a chunk's estimates with COPY. Idempotent: a retried chunk first deletes its own
  * rows. Call inside a transaction (a Knex transaction hands COPY its own connection), so
@@ -201,8 +166,32 @@ export function estimatesCopyText(runId: number, rows: EstimateRow[]): string {
  */
 export async function writeEstimates(db: Knex, runId: number, rows: EstimateRow[]): Promise<void> {
   if (!rows.length) return;
-  const districtIds = [...new Set(rows.map((r) => r.districtId))];
-  await db.raw(`DELETE FROM run_estimates WHERE run_id = ? AND district_id = ANY(?::int[])`, [runId, districtIds]);
+  await writeEstimatesText(
+    db,
+    runId,
+    rows.map((r) => r.districtId),
+    [estimatesCopyText(runId, rows)],
+  );
+}
+
+/**
+ * Writes a chunk's estimates from COPY text made elsewhere (a compute-pool thread, see
+ * estimate-copy.ts): one COPY stream, fed each part in order as soon as it resolves, so
+ * the rows of the first districts travel while later districts are still being fitted.
+ * Idempotent like writeEstimates: the chunk's districts lose their earlier rows first.
+ * Call inside a transaction.
+ */
+export async function writeEstimatesText(
+  db: Knex,
+  runId: number,
+  districtIds: number[],
+  parts: Iterable<string | Promise<string>>,
+): Promise<void> {
+  if (!districtIds.length) return;
+  await db.raw(`DELETE FROM run_estimates WHERE run_id = ? AND district_id = ANY(?::int[])`, [
+    runId,
+    [...new Set(districtIds)],
+  ]);
   const client = db.client as {
     acquireConnection(): Promise<PoolClient>;
     releaseConnection(c: PoolClient): Promise<void>;
@@ -210,8 +199,15 @@ export async function writeEstimates(db: Knex, runId: number, rows: EstimateRow[
   const conn = await client.acquireConnection();
   try {
     await pipeline(
-      Readable.from([estimatesCopyText(runId, rows)]),
-      conn.query(copyFrom(`COPY run_estimates (${ESTIMATE_COLUMNS}) FROM STDIN`)),
+      Readable.from(
+        (async function* () {
+          for (const part of parts) {
+            const text = await part;
+            if (text) yield text;
+          }
+        })(),
+      ),
+      conn.query(copyFrom(`COPY run_estimates (${ESTIMATE_COPY_COLUMNS}) FROM STDIN`)),
     );
   } finally {
     await client.releaseConnection(conn);

@@ -64,31 +64,53 @@ export async function evaluateStaged(
   await conn.query(`CREATE TEMP VIEW upload_staged AS
     SELECT s.line, s.col, d.id AS district_id, s.indicator_id, s.year, s.value
       FROM ${t.rows} s JOIN districts d ON d.code = s.district`);
-  // One pass classifies every staged value against the stored one, for the counts.
-  const { rows } = await conn.query(
-    `SELECT v.district_id, v.indicator_id,
-            (CASE WHEN o.value IS NULL THEN 'i' WHEN o.value = v.value THEN 'u' ELSE 'c' END)::"char" AS kind,
-            count(*)::int AS n, min(v.value) AS min_value
-       FROM upload_staged v
-       LEFT JOIN observations o ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year
-      GROUP BY 1, 2, 3`,
+  await conn.query(`CREATE TEMP TABLE upload_eval (
+      line integer, col integer, district_id integer, indicator_id integer, year integer, value float8,
+      old_value float8, old_upload_id integer, kind "char") ON COMMIT DROP`);
+  // A file whose districts hold no stored value yet (a first load) can only insert: its
+  // rows are counted without a join with observations, and the merge reads them straight
+  // from staging, with no anti-join. One index probe per district decides.
+  const { rows: held } = await conn.query(
+    `SELECT EXISTS (SELECT 1 FROM ${t.districts} sd JOIN districts d ON d.code = sd.code
+                      JOIN observations o ON o.district_id = d.id) AS stored`,
   );
-  // The values that change a stored one are kept for the merge (unchanged ones are only
-  // counted); a first load has none, and skips the pass. A revision of a million cells
-  // with a tenth changed thus writes 100,000 rows here, not a million.
-  const changed = rows.some((r) => r.kind === 'c');
-  await conn.query(`CREATE TEMP TABLE upload_eval ON COMMIT DROP AS
-    SELECT v.line, v.col, v.district_id, v.indicator_id, v.year, v.value,
-           o.value AS old_value, o.upload_id AS old_upload_id, 'c'::"char" AS kind
-      FROM upload_staged v
-      JOIN observations o ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year
-     WHERE ${changed ? 'o.value <> v.value' : 'false'}`);
+  const stored: boolean = held[0].stored;
+  // Otherwise one pass classifies every staged value against the stored one: the counts
+  // come from it, and the values that change a stored one are kept for the merge
+  // (unchanged ones are only counted), so the join of staging with observations is read
+  // once, not twice. A revision of a million cells with a tenth changed writes 100,000
+  // rows here, not a million.
+  const { rows } = await conn.query(
+    stored
+      ? `WITH classified AS MATERIALIZED (
+           SELECT v.line, v.col, v.district_id, v.indicator_id, v.year, v.value,
+                  o.value AS old_value, o.upload_id AS old_upload_id,
+                  (CASE WHEN o.value IS NULL THEN 'i' WHEN o.value = v.value THEN 'u' ELSE 'c' END)::"char" AS kind
+             FROM upload_staged v
+             LEFT JOIN observations o
+               ON o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year
+         ), kept AS (
+           INSERT INTO upload_eval
+           SELECT line, col, district_id, indicator_id, year, value, old_value, old_upload_id, kind
+             FROM classified WHERE kind = 'c'
+         )
+         SELECT district_id, indicator_id, kind, count(*)::int AS n, min(value) AS min_value
+           FROM classified
+          GROUP BY 1, 2, 3`
+      : `SELECT district_id, indicator_id, 'i'::"char" AS kind, count(*)::int AS n, min(value) AS min_value
+           FROM upload_staged
+          GROUP BY 1, 2`,
+  );
   await conn.query(`CREATE TEMP VIEW upload_new AS
     SELECT v.district_id, v.indicator_id, v.year, v.value, NULL::float8 AS old_value, NULL::int AS old_upload_id,
            'i'::"char" AS kind, v.line
       FROM upload_staged v
-     WHERE NOT EXISTS (SELECT 1 FROM observations o
-                        WHERE o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year)`);
+     WHERE ${
+       stored
+         ? `NOT EXISTS (SELECT 1 FROM observations o
+                         WHERE o.district_id = v.district_id AND o.indicator_id = v.indicator_id AND o.year = v.year)`
+         : 'true'
+     }`);
   const cells: CellCount[] = rows.map((r) => ({
     districtId: r.district_id,
     indicatorId: r.indicator_id,

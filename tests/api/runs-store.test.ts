@@ -98,6 +98,92 @@ describe('writeEstimates', () => {
   });
 });
 
+describe('writeEstimatesText', () => {
+  it('stores what a pool thread made of the fits exactly as writeEstimates stores the records', async () => {
+    const rows = await fittedRows();
+    await t.db.transaction((trx) => store.writeEstimates(trx, runId, rows));
+    const direct = await stored();
+    // The same districts fitted in two pool threads, as the run's chunks do, two slices
+    // streamed into one COPY in order; a slice that is still fitting is awaited.
+    const pool = createComputePool(2);
+    try {
+      const series = (await loadSeries(t.db, await currentDataVersion(t.db), runSpec.selection)).slice(0, 3);
+      const model = { spec: runSpec.model, controls: runSpec.selection.controls };
+      const pooledFit = fitPooled(await loadSeries(t.db, await currentDataVersion(t.db), runSpec.selection), runSpec);
+      const pooled = pooledFit.status === 'ok' ? (pooledFit as Exclude<typeof pooledFit, { status: 'failed' }>) : null;
+      const parts = [series.slice(0, 1), series.slice(1)].map((part) =>
+        pool.run({
+          kind: 'district-fits-copy',
+          runId,
+          model,
+          districts: part.map((s) => ({ districtId: s.districtId, data: s.data })),
+          pooled,
+        }),
+      );
+      await t.db.transaction((trx) =>
+        store.writeEstimatesText(
+          trx,
+          runId,
+          series.map((s) => s.districtId),
+          parts,
+        ),
+      );
+    } finally {
+      await pool.close();
+    }
+    const viaPool = await stored();
+    expect(viaPool).toHaveLength(direct.length);
+    expect(viaPool).toEqual(direct);
+  });
+
+  it('rolls the chunk back when a slice fails, leaving the rows it had', async () => {
+    const before = await stored();
+    const failing = Promise.reject(new Error('slice failed'));
+    failing.catch(() => {});
+    await expect(
+      t.db.transaction((trx) =>
+        store.writeEstimatesText(
+          trx,
+          runId,
+          before.map((r) => r.district_id),
+          [Promise.resolve(''), failing],
+        ),
+      ),
+    ).rejects.toThrow('slice failed');
+    expect(await stored()).toEqual(before);
+  });
+});
+
+describe('loadSeries', () => {
+  it('keeps a year only when every selected indicator has a value, and lists the others as dropped', async () => {
+    const sel = runSpec.selection;
+    const all = await loadSeries(t.db, await currentDataVersion(t.db), sel);
+    const d = all[0];
+    const year = d.data.years[1];
+    const control = await t.db('indicators').where({ code: sel.controls[0] }).first('id');
+    // One control value removed in a transaction that is rolled back: that year drops.
+    await t.db
+      .transaction(async (trx) => {
+        await trx('observations').where({ district_id: d.districtId, indicator_id: control.id, year }).del();
+        const [after] = await loadSeries(trx, await currentDataVersion(trx), sel, [d.districtId]);
+        expect(after.data.years).toEqual(d.data.years.filter((y) => y !== year));
+        expect(after.data.droppedYears).toEqual([...d.data.droppedYears, year].sort((a, b) => a - b));
+        const i = d.data.years.indexOf(year);
+        const drop = <T>(v: T[]) => v.filter((_x, j) => j !== i);
+        expect(after.data.y).toEqual(drop(d.data.y));
+        expect(after.data.x).toEqual(drop(d.data.x));
+        expect(after.data.controls[sel.controls[0]]).toEqual(drop(d.data.controls[sel.controls[0]]));
+        throw new Error('roll back');
+      })
+      .catch((err: Error) => {
+        if (err.message !== 'roll back') throw err;
+      });
+    // The selection in district-code order, one series per district with values.
+    const codes = all.map((s) => s.code);
+    expect(codes).toEqual([...codes].sort());
+  });
+});
+
 describe('compact records', () => {
   it('leave out what no reader reads, and variants keep only their summaries', async () => {
     const rows = await fittedRows();
