@@ -3,6 +3,7 @@
 import type { AlertKind } from '@/contracts/alerts';
 import type { FiellerKind, IntervalMethod, Shape, Standing, VariantName } from '@/contracts/estimates';
 import { formatIncome } from './format';
+import { shapeForOfficials } from './plain-words';
 
 /** Standing as a word (the list, the card's badge, the filters). */
 export const STANDING_LABEL: Record<Standing, string> = {
@@ -22,26 +23,17 @@ export const STANDING_MEANING: Record<Standing, string> = {
   not_estimable: 'The series is too short, or the fit failed: no standing of its own.',
 };
 
-export const SHAPE_LABEL: Record<Shape, string> = {
-  inverted_u: 'Rise then fall',
-  u: 'Fall then rise',
-  n_shape: 'Rise, fall, rise again',
-  inverted_n: 'Fall, rise, fall again',
-  increasing: 'Rising',
-  decreasing: 'Falling',
-  flat: 'Flat',
-};
+// Shape words live in lib/plain-words.ts (the briefs read the same module).
+export { SHAPE_LABEL, SHAPE_PLAIN_SHORT, SHAPE_TECHNICAL } from './plain-words';
 
-/** Trade name in brackets for readers who know it. */
-export const SHAPE_TECHNICAL: Record<Shape, string> = {
-  inverted_u: 'inverted U',
-  u: 'U',
-  n_shape: 'N-shaped',
-  inverted_n: 'inverted N',
-  increasing: 'increasing',
-  decreasing: 'decreasing',
-  flat: 'flat',
-};
+/**
+ * A shape as an official reads it (card, region view, chart summaries): `flat` says what it
+ * means, "No clear link with income at the 5% level", with the run's test level α.
+ * Analyst screens keep SHAPE_LABEL's term.
+ */
+export function shapeWords(shape: Shape, alpha: number): string {
+  return shapeForOfficials(shape, levelPercent(alpha));
+}
 
 export const METHOD_LABEL: Record<IntervalMethod, string> = {
   fieller: 'Fieller',

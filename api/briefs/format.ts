@@ -111,6 +111,11 @@ export function formatLevelPercent(level: number): string {
   return `${nf({ maximumFractionDigits: 1 }).format(level * 100)}%`;
 }
 
+/** A setting in percent as a limit: 10 → "10%", 12.5 → "12.5%". */
+export function formatShiftLimit(percent: number): string {
+  return `${nf({ maximumFractionDigits: 1 }).format(percent)}%`;
+}
+
 /** Elasticity: two decimals, half away from zero ("−0.62"). */
 export function formatElasticity(value: number): string {
   return minus(nf({ minimumFractionDigits: 2, maximumFractionDigits: 2, roundingMode: 'halfExpand' }).format(value));
@@ -127,6 +132,14 @@ export function formatElasticityInterval(lo: number, hi: number): string {
 export function formatPValue(p: number): string {
   if (p < 0.001) return 'p < 0.001';
   return `p = ${nf({ maximumSignificantDigits: 2, roundingMode: 'halfExpand' }).format(p)}`;
+}
+
+/**
+ * The turn test in words an official can read, with its p-value for those who want it:
+ * "Test for a turn (Lind–Mehlum U-test): p = 0.019, a turn is supported at the 5% level".
+ */
+export function turnTestWords(pValue: number, rejects: boolean, alpha: number): string {
+  return `Test for a turn (Lind–Mehlum U-test): ${formatPValue(pValue)}, ${rejects ? 'a turn is supported' : 'no turn is confirmed'} at the ${formatLevelPercent(alpha)} level`;
 }
 
 /** Counts: whole numbers with thousands separators. */

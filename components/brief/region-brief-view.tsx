@@ -31,18 +31,17 @@ function SummaryList({
   more,
 }: {
   title: string;
-  items: { code: string; name: string; text: string; mark?: boolean }[];
+  items: { code: string; name: string; text: string }[];
   note: string | null;
   more: string;
 }) {
   return (
     <View style={styles.list} {...keepTogether}>
       <BriefHeading>{title}</BriefHeading>
-      {items.length === 0 ? <Text style={styles.muted}>{note ?? 'None.'}</Text> : null}
+      {items.length === 0 || note ? <Text style={styles.muted}>{note ?? 'None.'}</Text> : null}
       {items.slice(0, LIST_LINES).map((it) => (
         <Text key={it.code} style={styles.listItem}>
           <Text style={styles.code}>{it.code}</Text> {it.name} — {it.text}
-          {it.mark ? ' •' : ''}
         </Text>
       ))}
       {items.length > LIST_LINES ? (
@@ -78,21 +77,13 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
           note={c.crossedNote}
           more="in the alerts of this run"
         />
-        <SummaryList
-          title="Largest threshold shifts"
-          items={c.shifts.map((s) => ({ ...s, mark: s.overLimit }))}
-          note={c.shiftsNote}
-          more="in the table"
-        />
+        <SummaryList title="Largest threshold shifts" items={c.shifts} note={c.shiftsNote} more="in the table" />
         {c.map ? (
           <View style={styles.map}>
             <BriefChart scene={c.map} testID="brief-region-map" />
           </View>
         ) : null}
       </View>
-      {c.shifts.some((s) => s.overLimit) ? (
-        <Text style={styles.muted}>• moved more than the alert limit for a threshold shift.</Text>
-      ) : null}
       <View style={styles.block} {...keepTogether}>
         <BriefHeading>Regional pooled curve</BriefHeading>
         {c.pooled.figures.length ? <FigureGrid figures={c.pooled.figures} /> : null}

@@ -6,7 +6,15 @@ import { act, fireEvent, screen, waitFor, within } from 'expo-router/testing-lib
 
 import { ApiError, apiGet, apiSend } from '@/lib/api-client';
 
-import { cardAnswers, estimateRecord, notEstimableRecord, run, wholeLineRecord } from './support/estimates';
+import {
+  cardAnswers,
+  estimateRecord,
+  estimateResponse,
+  notEstimableRecord,
+  pm25Track,
+  run,
+  wholeLineRecord,
+} from './support/estimates';
 import { gappyDetail } from './support/fixtures';
 import { answerWith } from './support/mock-api';
 import { renderApp } from './support/render-app';
@@ -267,6 +275,29 @@ describe('district card', () => {
     expect(await screen.findByTestId('stale-notice')).toBeTruthy();
     expect(screen.getByText(/Showing this district’s figures as loaded at/)).toBeTruthy();
     expect(screen.getByTestId('card-headline')).toBeTruthy();
+  });
+
+  // Plain words (issue 17): an official's card says what `flat` means, at the run's own
+  // test level α, and names the track's indicator as the catalogue does.
+  it('says "no clear link" for a flat curve, at the run’s level, naming a PM2.5 track’s indicator', async () => {
+    const base = estimateRecord({});
+    const flat = estimateRecord({
+      standing: { ...base.standing, standing: 'no_turn', intervalBounded: null, levelLo: null, levelHi: null },
+      shape: { shape: 'flat', decidedBy: 'joint_test', notes: [] },
+      threshold: null,
+      gapPercent: null,
+      projection: null,
+      model: { ...base.model, alpha: 0.1 },
+    });
+    const pmRun = { ...run, units: { ...run.units, emissions: pm25Track.indicator } };
+    answer(flat, { '/api/districts/T02/estimate': estimateResponse(flat, { run: pmRun, track: pm25Track }) });
+    renderApp('/district/T02');
+    const headline = await screen.findByTestId('card-headline');
+    expect(headline.props.children).toBe(
+      'No clear link between income and PM2.5 annual mean over the observed incomes at the 10% level.',
+    );
+    expect(screen.getByTestId('card-shape').props.children).toBe('No clear link with income at the 10% level');
+    expect(screen.queryByText(/\bFlat\b/)).toBeNull();
   });
 });
 

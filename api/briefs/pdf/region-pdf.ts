@@ -49,7 +49,7 @@ const NAME_LINES = 2;
 function list(
   doc: PDFKit.PDFDocument,
   heading: string,
-  items: { code: string; name: string; text: string; mark?: boolean }[],
+  items: { code: string; name: string; text: string }[],
   note: string | null,
   more: string,
   x: number,
@@ -59,12 +59,12 @@ function list(
   let cy = y;
   textLine(doc, heading, x, cy, { size: 8.5, face: 'bold' });
   cy += 13;
-  if (!items.length) {
+  // The note says why the list is empty, or what it lists (e.g. the limit a shift passed).
+  if (!items.length || note)
     cy += textBlock(doc, note ?? 'None.', x, cy, width, { size: 7.8, color: INK.muted }, 40) + 2;
-    return cy - y;
-  }
+  if (!items.length) return cy - y;
   for (const it of items.slice(0, LIST_LINES)) {
-    const line = `${it.code}  ${it.name} — ${it.text}${it.mark ? ' •' : ''}`;
+    const line = `${it.code}  ${it.name} — ${it.text}`;
     cy += textBlock(doc, line, x, cy, width, { size: 7.8, lineGap: 0.3 }, 20) + 2;
   }
   if (items.length > LIST_LINES) {
@@ -121,16 +121,7 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
     y,
     colW,
   );
-  const hRight = list(
-    doc,
-    'Largest threshold shifts',
-    c.shifts.map((s) => ({ ...s, mark: s.overLimit })),
-    c.shiftsNote,
-    'in the table',
-    x + colW + 16,
-    y,
-    colW,
-  );
+  const hRight = list(doc, 'Largest threshold shifts', c.shifts, c.shiftsNote, 'in the table', x + colW + 16, y, colW);
   let hMap = 0;
   if (map) {
     const mx = x + width - mapW;
@@ -139,13 +130,6 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
     hMap = 14 + map.height + 6;
   }
   y += Math.max(hLeft, hRight, hMap);
-  if (c.shifts.some((s) => s.overLimit)) {
-    y +=
-      textBlock(doc, '• moved more than the alert limit for a threshold shift.', x + colW + 16, y, colW, {
-        size: 6.8,
-        color: INK.muted,
-      }) + 2;
-  }
   y += 6;
   rule(doc, x, x + width, y);
   y += 8;
