@@ -2,7 +2,7 @@
 // and the method page: one place, so a standing reads the same everywhere.
 import type { AlertKind } from '@/contracts/alerts';
 import type { FiellerKind, IntervalMethod, Shape, Standing, VariantName } from '@/contracts/estimates';
-import { formatIncome } from './format';
+import { formatDecimal, formatIncome, formatPercentOf } from './format';
 import { shapeForOfficials } from './plain-words';
 
 /** Standing as a word (the list, the card's badge, the filters). */
@@ -72,7 +72,7 @@ export const COVARIANCE_LABEL: Record<string, string> = {
 
 /** "95%" from 0.95 (one decimal where needed: 0.975 → "97.5%"). */
 export function levelPercent(level: number | null): string {
-  return level === null ? 'level not set' : `${Math.round(level * 1000) / 10}%`;
+  return level === null ? 'level not set' : formatPercentOf(Math.round(level * 1000) / 1000);
 }
 
 /** The method page's phrase, with the run's confidence level (said as not set when an answer carries none). */
@@ -111,18 +111,18 @@ export function gapWords(gapPercent: number): string {
   const rounded = Math.round(gapPercent);
   if (rounded === 0) return 'level with';
   if (gapPercent >= 9900) return 'over 100 times';
-  if (gapPercent >= 200) return `${(1 + gapPercent / 100).toFixed(1)} times`;
-  return `${Math.abs(rounded)}% ${gapPercent < 0 ? 'below' : 'above'}`;
+  if (gapPercent >= 200) return `${formatDecimal(1 + gapPercent / 100, 1, 1)} times`;
+  return `${formatPercentOf(Math.abs(rounded) / 100)} ${gapPercent < 0 ? 'below' : 'above'}`;
 }
 
 /** Signed short gap for tables: "−18%", "+72%", "×4.0", "×100+". */
 export function gapShort(gapPercent: number | null): string {
   if (gapPercent === null) return '—';
   if (gapPercent >= 9900) return '×100+';
-  if (gapPercent >= 200) return `×${(1 + gapPercent / 100).toFixed(1)}`;
+  if (gapPercent >= 200) return `×${formatDecimal(1 + gapPercent / 100, 1, 1)}`;
   const r = Math.round(gapPercent);
-  if (r === 0) return '0%';
-  return `${r > 0 ? '+' : '−'}${Math.abs(r)}%`;
+  if (r === 0) return formatPercentOf(0);
+  return `${r > 0 ? '+' : '−'}${formatPercentOf(Math.abs(r) / 100)}`;
 }
 
 /** "2031 (2028–2040)", "2031", or "2031 (from 2028)" for a half-open range. */

@@ -5,6 +5,7 @@ import type { RegionBriefContent, RegionBriefRow } from '@/contracts/briefs';
 
 import { BriefChart } from './brief-chart';
 import { BriefHeading, BriefTop, Cautions, FigureGrid, keepTogether, ModelLine, TraceFooter } from './brief-sections';
+import { formatCount } from '@/lib/format';
 
 /** How many districts each summary list shows before "and n more". */
 const LIST_LINES = 8;
@@ -65,7 +66,7 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
       <View style={styles.counts} {...keepTogether}>
         {c.counts.map((k) => (
           <View key={k.key} style={styles.count} testID={`brief-count-${k.key}`}>
-            <Text style={[styles.countValue, k.count === 0 && styles.muted]}>{k.count.toLocaleString('en-GB')}</Text>
+            <Text style={[styles.countValue, k.count === 0 && styles.muted]}>{formatCount(k.count)}</Text>
             <Text style={styles.countLabel}>{k.label}</Text>
           </View>
         ))}
@@ -135,8 +136,8 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
           </View>
         </View>
         <Text style={styles.muted}>
-          {c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional
-          curve”: the pooled curve stands in for a short series.
+          {formatCount(c.table.rows.length)} districts. Gap: income now against the threshold. “Regional curve”: the
+          pooled curve stands in for a short series.
         </Text>
       </View>
       <TraceFooter trace={c.trace} />

@@ -5,6 +5,7 @@ import { onlineManager } from '@tanstack/react-query';
 import { act, fireEvent, screen, waitFor, within } from 'expo-router/testing-library';
 
 import { ApiError, apiGet, apiSend } from '@/lib/api-client';
+import { DEFAULT_LOCALE, setRegionLocale } from '@/lib/format';
 
 import {
   cardAnswers,
@@ -275,6 +276,25 @@ describe('district card', () => {
     expect(await screen.findByTestId('stale-notice')).toBeTruthy();
     expect(screen.getByText(/Showing this district’s figures as loaded at/)).toBeTruthy();
     expect(screen.getByTestId('card-headline')).toBeTruthy();
+  });
+
+  // The region locale (admin setting, carried by GET /api/me) formats the card's figures;
+  // "30.000" and "95 %" (U+00A0 before %) are de-DE's CLDR formats in Node's ICU.
+  it('formats its figures in the region’s locale from /api/me', async () => {
+    answer(estimateRecord({}), {
+      '/api/me': {
+        id: 3,
+        email: 'o@example.test',
+        name: null,
+        role: 'official',
+        csrfToken: 't',
+        regionLocale: 'de-DE',
+      },
+    });
+    renderApp('/district/T02', { regionLocale: true });
+    await waitFor(() => expect(within(screen.getByTestId('figure-threshold')).getByText('30.000')).toBeTruthy());
+    expect(screen.getByTestId('card-headline').props.children).toMatch(/^Income is 18\u00a0% below/);
+    setRegionLocale(DEFAULT_LOCALE);
   });
 
   // Plain words (issue 17): an official's card says what `flat` means, at the run's own

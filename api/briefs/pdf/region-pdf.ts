@@ -5,6 +5,7 @@
  * repeated on each. Rows are measured and paginated before drawing, so every page gets
  * its footer (trace, page n of N) as it is drawn.
  */
+import { DEFAULT_LOCALE, formatCount, inLocale } from '../format';
 import { sourcesSentence } from '../trace';
 import type { RegionBriefContent, RegionBriefRow } from '../../../contracts/briefs';
 import { printable } from './fonts';
@@ -24,6 +25,9 @@ import {
   textLine,
   type TextStyle,
 } from './page';
+
+/** A count in the region's locale (the content carries it: the PDF is drawn in the compute pool). */
+const countIn = (c: RegionBriefContent, n: number) => inLocale(c.trace.locale ?? DEFAULT_LOCALE, () => formatCount(n));
 
 /** How many districts each summary list shows before "and n more". */
 const LIST_LINES = 8;
@@ -98,7 +102,7 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
   boxes.forEach((b, i) => {
     const bx = x + i * (bw + gap);
     doc.save().rect(bx, y, bw, 40).fillColor(INK.fill).fill().restore();
-    textLine(doc, b.count.toLocaleString('en-GB'), bx + 7, y + 5, {
+    textLine(doc, countIn(c, b.count), bx + 7, y + 5, {
       size: 15,
       face: 'bold',
       color: b.count ? INK.text : INK.muted,
@@ -321,7 +325,7 @@ export async function renderRegionPdf(c: RegionBriefContent): Promise<Buffer> {
       if (y + 14 < bottom)
         textLine(
           doc,
-          `${c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`,
+          `${countIn(c, c.table.rows.length)} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`,
           x,
           y + 5,
           { size: 6.8, color: INK.muted },
