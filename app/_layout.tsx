@@ -22,6 +22,7 @@ import { useHealthQuery } from '@/hooks/use-health';
 import { useLayoutMode, useThirdColumn } from '@/hooks/use-layout-mode';
 import { usePublishedWatch } from '@/hooks/use-published';
 import { usePublishedRunQuery } from '@/hooks/use-region';
+import { useRegionLocale } from '@/hooks/use-region-locale';
 import { useTrackChoice } from '@/hooks/use-tracks';
 import { createQueryClient } from '@/lib/query-client';
 
@@ -61,8 +62,11 @@ function Frame() {
   const choice = useTrackChoice({ enabled: listShown });
   const districts = useDistrictsQuery({ enabled: listShown, track: choice.request });
   const run = usePublishedRunQuery({ enabled: listShown, track: choice.request });
+  // Numbers and dates follow the region's locale (the admin setting GET /api/me carries).
+  const locale = useRegionLocale();
   return (
     <RegionShell
+      key={locale}
       mode={mode}
       header={
         <>

@@ -104,6 +104,8 @@ export const BriefTraceSchema = z.object({
   softwareVersion: z.string(),
   generatedAt: z.string(),
   timeZone: z.string(),
+  /** the region's locale the figures are written in (BCP 47; the PDF's document language) */
+  locale: z.optional(z.string()),
   /** "Run #12 · published … · data version 3 (hash 1a2b3c4d5e6f) · Crestwatch 0.1.0" */
   line: z.string(),
 });

@@ -103,6 +103,8 @@ export const MeResponseSchema = z.object({
   name: nullableString,
   role: RoleSchema,
   csrfToken: z.string(),
+  /** the region's number and date formats (the admin setting, BCP 47; default en-GB) */
+  regionLocale: z.optional(z.string()),
 });
 export type MeResponse = z.infer<typeof MeResponseSchema>;
 

@@ -11,6 +11,8 @@ export const SettingsSchema = z.object({
   thresholdShiftPercent: z.number(),
   uploadChangeFactor: z.number(),
   regionTimeZone: z.string(),
+  /** BCP 47 tag whose number and date formats screens and briefs use (default en-GB). */
+  regionLocale: z.optional(z.string()),
   briefPaperSize: z.enum(PAPER_SIZES),
   scheduleCron: z.string(),
   scheduleEnabled: z.boolean(),

@@ -1,12 +1,16 @@
 // One alert in words (the district's alerts section and the caller's feed).
 import type { AlertKind } from '@/contracts/alerts';
 import type { Shape, Standing } from '@/contracts/estimates';
-import { ALERT_KIND_LABEL, formatLevel, SHAPE_LABEL, STANDING_LABEL } from './estimate-words';
+import { ALERT_KIND_LABEL, formatLevel, SHAPE_PLAIN_SHORT, shapeWords, STANDING_LABEL } from './estimate-words';
 import { formatDate } from './format-time';
 
 const standingWord = (v: unknown) =>
   typeof v === 'string' && v in STANDING_LABEL ? STANDING_LABEL[v as Standing] : String(v);
-const shapeWord = (v: unknown) => (typeof v === 'string' && v in SHAPE_LABEL ? SHAPE_LABEL[v as Shape] : String(v));
+/** Officials read alerts: `flat` in plain words, at the test level when the alert carries it. */
+const shapeWord = (v: unknown, alpha: number | null) => {
+  if (typeof v !== 'string' || !(v in SHAPE_PLAIN_SHORT)) return String(v);
+  return alpha === null ? SHAPE_PLAIN_SHORT[v as Shape] : shapeWords(v as Shape, alpha);
+};
 const num = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? v : null);
 
 export function alertTitle(kind: AlertKind): string {
@@ -28,7 +32,7 @@ export function alertDetail(kind: AlertKind, details: Record<string, unknown>): 
         : `Threshold moved${move}.`;
     }
     case 'shape_change':
-      return `Shape changed from ${shapeWord(details.from)} to ${shapeWord(details.to)}.`;
+      return `Shape changed from ${shapeWord(details.from, num(details.alpha))} to ${shapeWord(details.to, num(details.alpha))}.`;
     case 'significance_change':
       return details.to === true
         ? 'The U-test now confirms a turn at the test level.'

@@ -2,7 +2,7 @@
 // "In words" under each chart. Pure functions of the published record.
 import { bandOf, curveChartModel, pathChartModel, thresholdOf } from './chart-model';
 import type { EstimateRecord } from '@/contracts/estimates';
-import { formatLevel, intervalText, levelPercent, METHOD_LABEL, notBoundedText, SHAPE_LABEL } from './estimate-words';
+import { formatLevel, intervalText, levelPercent, METHOD_LABEL, notBoundedText, shapeWords } from './estimate-words';
 import { formatEmissions } from './format';
 import { UNKNOWN_UNITS, withUnit, type RunUnits } from './units';
 
@@ -41,7 +41,9 @@ export function curveChartSummary(r: EstimateRecord, u: RunUnits = UNKNOWN_UNITS
   if (r.status === 'substitute')
     parts.push('The district’s own series is too short: the regional pooled curve stands in as the fitted line.');
   else if (r.curve.length > 0 && r.shape)
-    parts.push(`The fitted curve over the observed incomes: ${SHAPE_LABEL[r.shape.shape].toLowerCase()}.`);
+    parts.push(
+      `The fitted curve over the observed incomes: ${shapeWords(r.shape.shape, r.model.alpha).toLowerCase()}.`,
+    );
   else parts.push('No fitted curve: the district is not estimable in this run.');
   if (r.status !== 'not_estimable') parts.push(thresholdWords(r, curveChartModel(r).threshold !== null, u));
   parts.push(

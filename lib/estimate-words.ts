@@ -2,7 +2,8 @@
 // and the method page: one place, so a standing reads the same everywhere.
 import type { AlertKind } from '@/contracts/alerts';
 import type { FiellerKind, IntervalMethod, Shape, Standing, VariantName } from '@/contracts/estimates';
-import { formatIncome } from './format';
+import { formatDecimal, formatIncome, formatPercentOf } from './format';
+import { shapeForOfficials } from './plain-words';
 
 /** Standing as a word (the list, the card's badge, the filters). */
 export const STANDING_LABEL: Record<Standing, string> = {
@@ -22,26 +23,17 @@ export const STANDING_MEANING: Record<Standing, string> = {
   not_estimable: 'The series is too short, or the fit failed: no standing of its own.',
 };
 
-export const SHAPE_LABEL: Record<Shape, string> = {
-  inverted_u: 'Rise then fall',
-  u: 'Fall then rise',
-  n_shape: 'Rise, fall, rise again',
-  inverted_n: 'Fall, rise, fall again',
-  increasing: 'Rising',
-  decreasing: 'Falling',
-  flat: 'Flat',
-};
+// Shape words live in lib/plain-words.ts (the briefs read the same module).
+export { SHAPE_LABEL, SHAPE_PLAIN_SHORT, SHAPE_TECHNICAL } from './plain-words';
 
-/** Trade name in brackets for readers who know it. */
-export const SHAPE_TECHNICAL: Record<Shape, string> = {
-  inverted_u: 'inverted U',
-  u: 'U',
-  n_shape: 'N-shaped',
-  inverted_n: 'inverted N',
-  increasing: 'increasing',
-  decreasing: 'decreasing',
-  flat: 'flat',
-};
+/**
+ * A shape as an official reads it (card, region view, chart summaries): `flat` says what it
+ * means, "No clear link with income at the 5% level", with the run's test level α.
+ * Analyst screens keep SHAPE_LABEL's term.
+ */
+export function shapeWords(shape: Shape, alpha: number): string {
+  return shapeForOfficials(shape, levelPercent(alpha));
+}
 
 export const METHOD_LABEL: Record<IntervalMethod, string> = {
   fieller: 'Fieller',
@@ -80,7 +72,7 @@ export const COVARIANCE_LABEL: Record<string, string> = {
 
 /** "95%" from 0.95 (one decimal where needed: 0.975 → "97.5%"). */
 export function levelPercent(level: number | null): string {
-  return level === null ? 'level not set' : `${Math.round(level * 1000) / 10}%`;
+  return level === null ? 'level not set' : formatPercentOf(Math.round(level * 1000) / 1000);
 }
 
 /** The method page's phrase, with the run's confidence level (said as not set when an answer carries none). */
@@ -119,18 +111,18 @@ export function gapWords(gapPercent: number): string {
   const rounded = Math.round(gapPercent);
   if (rounded === 0) return 'level with';
   if (gapPercent >= 9900) return 'over 100 times';
-  if (gapPercent >= 200) return `${(1 + gapPercent / 100).toFixed(1)} times`;
-  return `${Math.abs(rounded)}% ${gapPercent < 0 ? 'below' : 'above'}`;
+  if (gapPercent >= 200) return `${formatDecimal(1 + gapPercent / 100, 1, 1)} times`;
+  return `${formatPercentOf(Math.abs(rounded) / 100)} ${gapPercent < 0 ? 'below' : 'above'}`;
 }
 
 /** Signed short gap for tables: "−18%", "+72%", "×4.0", "×100+". */
 export function gapShort(gapPercent: number | null): string {
   if (gapPercent === null) return '—';
   if (gapPercent >= 9900) return '×100+';
-  if (gapPercent >= 200) return `×${(1 + gapPercent / 100).toFixed(1)}`;
+  if (gapPercent >= 200) return `×${formatDecimal(1 + gapPercent / 100, 1, 1)}`;
   const r = Math.round(gapPercent);
-  if (r === 0) return '0%';
-  return `${r > 0 ? '+' : '−'}${Math.abs(r)}%`;
+  if (r === 0) return formatPercentOf(0);
+  return `${r > 0 ? '+' : '−'}${formatPercentOf(Math.abs(r) / 100)}`;
 }
 
 /** "2031 (2028–2040)", "2031", or "2031 (from 2028)" for a half-open range. */

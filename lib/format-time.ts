@@ -1,8 +1,10 @@
-// Dates and times on every screen, computed and written with date-fns (zones through
-// @date-fns/tz). One fixed pattern set so every screen prints them alike; the zone is the
-// viewer's unless a caller names one (the schedule uses the region's, published days UTC).
-import { TZDate } from '@date-fns/tz';
-import { differenceInMinutes, format, formatDistanceStrict, isValid, parseISO } from 'date-fns';
+// Dates and times on every screen, written through Intl in the region's locale (the
+// `regionLocale` setting, lib/format.ts): "2 Dec 2026, 06:00" in en-GB, "2. Dez. 2026, 06:00"
+// in de-DE. The zone is the viewer's unless a caller names one (the schedule uses the
+// region's, published days UTC). Relative times ("in 3 days") stay in English words.
+import { differenceInMinutes, formatDistanceStrict, isValid, parseISO } from 'date-fns';
+
+import { formatDecimal, regionLocale } from './format';
 
 type Moment = string | number | Date;
 
@@ -11,14 +13,24 @@ function toDate(value: Moment): Date {
   return typeof value === 'number' ? new Date(value) : parseISO(value);
 }
 
-/** The moment seen in a named IANA zone (or as it is, in the viewer's zone). */
-function inZone(d: Date, timeZone?: string): Date {
-  return timeZone ? new TZDate(d, timeZone) : d;
+const formats = new Map<string, Intl.DateTimeFormat>();
+function dtf(options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+  const locale = regionLocale();
+  const key = `${locale} ${JSON.stringify(options)}`;
+  let f = formats.get(key);
+  if (!f) {
+    f = new Intl.DateTimeFormat(locale, options);
+    formats.set(key, f);
+  }
+  return f;
 }
+
+const DAY: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short', year: 'numeric' };
+const TIME: Intl.DateTimeFormatOptions = { hour: '2-digit', minute: '2-digit', hourCycle: 'h23' };
 
 /** "UTC", "CET", "GMT+2": the zone's short name at that moment, as the platform names it. */
 function zoneName(d: Date, timeZone: string): string {
-  const part = new Intl.DateTimeFormat('en-GB', { timeZone, timeZoneName: 'short' })
+  const part = dtf({ timeZone, timeZoneName: 'short' })
     .formatToParts(d)
     .find((p) => p.type === 'timeZoneName');
   return part?.value ?? timeZone;
@@ -29,7 +41,7 @@ export function formatDateTime(iso: string | null | undefined, timeZone?: string
   if (!iso) return '—';
   const d = toDate(iso);
   if (!isValid(d)) return iso;
-  const text = format(inZone(d, timeZone), 'd MMM yyyy, HH:mm');
+  const text = dtf({ ...DAY, ...TIME, ...(timeZone ? { timeZone } : {}) }).format(d);
   return timeZone ? `${text} ${zoneName(d, timeZone)}` : text;
 }
 
@@ -38,13 +50,21 @@ export function formatDate(iso: string | null | undefined, timeZone?: string): s
   if (!iso) return '—';
   const d = toDate(iso);
   if (!isValid(d)) return iso;
-  return format(inZone(d, timeZone), 'd MMM yyyy');
+  return dtf({ ...DAY, ...(timeZone ? { timeZone } : {}) }).format(d);
+}
+
+/** "4 December 2026" (en-GB), "4. Dezember 2026" (de-DE): a day written out in full. */
+export function formatLongDate(iso: string | null | undefined, timeZone?: string): string {
+  if (!iso) return '—';
+  const d = toDate(iso);
+  if (!isValid(d)) return iso;
+  return dtf({ day: 'numeric', month: 'long', year: 'numeric', ...(timeZone ? { timeZone } : {}) }).format(d);
 }
 
 /** "2 Dec, 06:00": a moment of today or the last few days, in the viewer's zone. */
 export function formatDayTime(moment: Moment): string {
   const d = toDate(moment);
-  return isValid(d) ? format(d, 'd MMM, HH:mm') : '';
+  return isValid(d) ? dtf({ day: 'numeric', month: 'short', ...TIME }).format(d) : '';
 }
 
 /**
@@ -65,6 +85,6 @@ export function formatRelative(iso: string | null | undefined, now: Date = new D
 export function formatBytes(n: number | null | undefined): string {
   if (n === null || n === undefined) return '—';
   if (n < 1000) return `${n} bytes`;
-  if (n < 1_000_000) return `${(n / 1000).toFixed(n < 10_000 ? 1 : 0)} kB`;
-  return `${(n / 1_000_000).toFixed(1)} MB`;
+  if (n < 1_000_000) return `${formatDecimal(n / 1000, n < 10_000 ? 1 : 0, n < 10_000 ? 1 : 0)} kB`;
+  return `${formatDecimal(n / 1_000_000, 1, 1)} MB`;
 }

@@ -1,17 +1,54 @@
-// Number and year formatting for screens. One fixed locale so the static HTML and the
-// browser print the same digits (a locale taken from the device would break hydration).
+// Number and year formatting for screens, in the region's locale: the admin setting
+// `regionLocale` (BCP 47), which GET /api/me carries. Never the device's locale, so the
+// static HTML (written in the default) and the browser print the same digits until the
+// setting is known; the root layout sets it and redraws the screens once when it differs.
 
-const LOCALE = 'en-GB';
+/** Today's formats, the setting's default. */
+export const DEFAULT_LOCALE = 'en-GB';
+let locale = DEFAULT_LOCALE;
+
+/** Sets the locale every formatter here and in lib/format-time.ts writes in; a tag Intl refuses keeps the default. */
+export function setRegionLocale(tag: string | null | undefined): void {
+  if (!tag) {
+    locale = DEFAULT_LOCALE;
+    return;
+  }
+  try {
+    locale = Intl.getCanonicalLocales(tag)[0] ?? DEFAULT_LOCALE;
+  } catch {
+    locale = DEFAULT_LOCALE;
+  }
+}
+
+/** The locale screens format in now. */
+export function regionLocale(): string {
+  return locale;
+}
 
 const formatters = new Map<string, Intl.NumberFormat>();
 function formatter(options: Intl.NumberFormatOptions): Intl.NumberFormat {
-  const key = JSON.stringify(options);
+  const key = `${locale} ${JSON.stringify(options)}`;
   let f = formatters.get(key);
   if (!f) {
-    f = new Intl.NumberFormat(LOCALE, options);
+    f = new Intl.NumberFormat(locale, options);
     formatters.set(key, f);
   }
   return f;
+}
+
+/** Counts: whole numbers with the locale's grouping ("1,234", "1.234", "1 234"). */
+export function formatCount(value: number): string {
+  return formatter({ maximumFractionDigits: 0 }).format(value);
+}
+
+/** A number with at most `digits` decimals (and at least `min`), in the region's locale. */
+export function formatDecimal(value: number, digits: number, min = 0): string {
+  return formatter({ minimumFractionDigits: min, maximumFractionDigits: digits }).format(value);
+}
+
+/** A fraction as a percent: 0.95 → "95%" (en-GB), "95 %" (de-DE); one decimal where needed. */
+export function formatPercentOf(fraction: number): string {
+  return formatter({ style: 'percent', maximumFractionDigits: 1 }).format(fraction);
 }
 
 /** Emissions per person (t CO2): always two decimals, so a column reads at one precision. */

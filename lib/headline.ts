@@ -1,5 +1,5 @@
 // The district card's headline: one plain sentence on where the district stands, then a
-// few short notes (what the standing means for emissions, an unbounded interval, an
+// few short notes (what the standing means for the track's indicator, an unbounded interval, an
 // extrapolated turn, the regional substitute). Pure: inputs are the engine's output shape
 // (the card's EstimateRecord, or the list's EstimateSummary), nothing is fetched.
 import type {
@@ -12,6 +12,7 @@ import type {
   Standing,
 } from '@/contracts/estimates';
 import { formatLevel, gapWords, levelPercent, notBoundedText, yearWithRange } from './estimate-words';
+import { agree, capitalise, GENERIC_PRESSURE, nameInSentence } from './plain-words';
 import { withUnit } from './units';
 
 export type HeadlineInput = {
@@ -41,6 +42,10 @@ export type HeadlineInput = {
   reason: string | null;
   /** The driver's unit from the catalogue ("constant 2020 currency units per person"); omitted: the figure alone. */
   incomeUnit?: string;
+  /** The track's indicator as the catalogue names it ("PM2.5 annual mean concentration"); omitted: "emissions". */
+  pressure?: string;
+  /** The run's test level α (0.05): a curve with no clear link is said "at the 5% level"; omitted: no level named. */
+  alpha?: number;
 };
 
 export type Headline = {
@@ -73,11 +78,12 @@ export function headlineInputFromRecord(r: EstimateRecord): HeadlineInput {
     gapPercent: r.gapPercent,
     projection: r.projection,
     level: r.model.level,
+    alpha: r.model.alpha,
     reason: r.reason?.message ?? null,
   };
 }
 
-export function headlineInputFromSummary(s: EstimateSummary, level: number): HeadlineInput {
+export function headlineInputFromSummary(s: EstimateSummary, level: number, alpha?: number): HeadlineInput {
   return {
     status: s.status,
     standing: s.standing,
@@ -98,25 +104,36 @@ export function headlineInputFromSummary(s: EstimateSummary, level: number): Hea
         }
       : null,
     level,
+    ...(alpha !== undefined ? { alpha } : {}),
     reason: null,
   };
 }
 
-const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const sentence = (s: string) => (/[.!?]$/.test(s) ? s : `${s}.`);
 
-/** What the standing means for emissions, by the curve's orientation. */
-function meaningOf(standing: Standing, shape: Shape | null, turnKind?: 'peak' | 'trough' | null): string | null {
+/** What the standing means for the track's indicator, by the curve's orientation. */
+function meaningOf(
+  standing: Standing,
+  shape: Shape | null,
+  turnKind: 'peak' | 'trough' | null | undefined,
+  pressure: string,
+): string | null {
   const trough = shape === 'u' || ((shape === 'n_shape' || shape === 'inverted_n') && turnKind === 'trough');
+  const p = nameInSentence(pressure);
+  const v = (singular: string, plural: string) => agree(pressure, singular, plural);
   switch (standing) {
     case 'approaching':
-      return trough ? 'emissions still tend to fall as income grows' : 'emissions still tend to rise with income';
+      return trough
+        ? `${p} still ${v('tends', 'tend')} to fall as income grows`
+        : `${p} still ${v('tends', 'tend')} to rise with income`;
     case 'at_turn':
       return trough
-        ? 'emissions are near the low point of the curve'
-        : 'emissions have about stopped rising with income';
+        ? `${p} ${v('is', 'are')} near the low point of the curve`
+        : `${p} ${v('has', 'have')} about stopped rising with income`;
     case 'past_turn':
-      return trough ? 'emissions now tend to rise again as income grows' : 'emissions now tend to fall as income grows';
+      return trough
+        ? `${p} now ${v('tends', 'tend')} to rise again as income grows`
+        : `${p} now ${v('tends', 'tend')} to fall as income grows`;
     default:
       return null;
   }
@@ -174,11 +191,18 @@ function gapClause(input: HeadlineInput): string {
   return `Income is ${gapWords(gap)} ${noun}`;
 }
 
-const NO_TURN_SENTENCE: Record<'increasing' | 'decreasing' | 'flat', string> = {
-  increasing: 'Emissions rise with income across the observed incomes, with no turning point there',
-  decreasing: 'Emissions fall as income grows across the observed incomes, with no turning point there',
-  flat: 'No clear link between income and emissions over the observed incomes',
-};
+/** The sentence of a curve with no turn, naming the track's indicator and, for no clear link, the test level. */
+function noTurnSentence(shape: 'increasing' | 'decreasing' | 'flat', input: HeadlineInput): string {
+  const pressure = input.pressure ?? GENERIC_PRESSURE;
+  const p = nameInSentence(pressure);
+  const v = (singular: string, plural: string) => agree(pressure, singular, plural);
+  if (shape === 'increasing')
+    return `${capitalise(p)} ${v('rises', 'rise')} with income across the observed incomes, with no turning point there`;
+  if (shape === 'decreasing')
+    return `${capitalise(p)} ${v('falls', 'fall')} as income grows across the observed incomes, with no turning point there`;
+  const at = input.alpha !== undefined ? ` at the ${levelPercent(input.alpha)} level` : '';
+  return `No clear link between income and ${p} over the observed incomes${at}`;
+}
 
 /** The headline for one district's published estimate. */
 export function headline(input: HeadlineInput): Headline {
@@ -215,7 +239,7 @@ export function headline(input: HeadlineInput): Headline {
     const projection = projectionClause(input.projection, input.gapPercent);
     const head = gapClause(input);
     const main = sentence(projection ? `${head}; ${projection}` : head);
-    const meaning = meaningOf(input.standing, input.shape, input.turnKind);
+    const meaning = meaningOf(input.standing, input.shape, input.turnKind, input.pressure ?? GENERIC_PRESSURE);
     if (meaning) notes.splice(input.status === 'substitute' ? 1 : 0, 0, sentence(capitalise(meaning)));
     if (unbounded) {
       notes.push(unboundedNote(input));
@@ -227,7 +251,7 @@ export function headline(input: HeadlineInput): Headline {
 
   // no_turn: rising, falling or flat over the observed range.
   const shape = input.shape === 'increasing' || input.shape === 'decreasing' ? input.shape : 'flat';
-  const main = sentence(NO_TURN_SENTENCE[shape]);
+  const main = sentence(noTurnSentence(shape, input));
   if (shape !== 'flat' && hasTurn && input.gapPercent !== null) {
     const where = input.extrapolated
       ? 'beyond the observed incomes'

@@ -2,6 +2,7 @@
  * The words of alert e-mails (our own), with the card link (carrying the track) and the
  * unsubscribe link. The subject names the track; a digest groups its alerts by track.
  */
+import { SHAPE_PLAIN_SHORT, type ShapeKey } from '../../lib/plain-words';
 import type { AlertKind } from '../common/alert-kinds';
 
 export const KIND_LABEL: Record<AlertKind, string> = {
@@ -17,17 +18,11 @@ const STANDING_WORDS: Record<string, string> = {
   past_turn: 'beyond the threshold band',
 };
 
-/** Shapes in plain words for the e-mail (the same words as the card). */
-const SHAPE_WORDS: Record<string, string> = {
-  inverted_u: 'rise then fall',
-  u: 'fall then rise',
-  n_shape: 'rise, fall, rise again',
-  inverted_n: 'fall, rise, fall again',
-  increasing: 'rising',
-  decreasing: 'falling',
-  flat: 'flat',
-};
-const shapeWords = (v: unknown): string => SHAPE_WORDS[String(v)] ?? String(v).replace(/_/g, ' ');
+/** Shapes in plain words for the e-mail (the same words as the card and its alerts: lib/plain-words.ts). */
+const shapeWords = (v: unknown): string =>
+  String(v) in SHAPE_PLAIN_SHORT
+    ? SHAPE_PLAIN_SHORT[String(v) as ShapeKey].toLowerCase()
+    : String(v).replace(/_/g, ' ');
 
 export interface AlertForMail {
   id: number;

@@ -8,6 +8,7 @@ import { z } from 'zod';
 import * as audit from '../audit/service';
 import type { AppContext } from '../context';
 import { NotFoundError } from '../http/errors';
+import { getSettings } from '../settings/service';
 import { callerOf, route, SIGNED_IN, type Caller, type RouteSpec } from '../http/routes';
 import type { createPassport, SignInRefusal } from './passport';
 import { sessionCookieName, sessionCookieOptions, startSessionClock } from './session';
@@ -164,16 +165,18 @@ export function authRoutes(ctx: AppContext, passport: ReturnType<typeof createPa
       answer: MeResponseSchema,
       allow: SIGNED_IN,
       tag: 'auth',
-      summary: 'The signed-in person, their role, and the CSRF token for state-changing calls',
-      handler: (_input, req) => {
+      summary: 'The signed-in person, their role, the CSRF token for state-changing calls, and the region’s locale',
+      handler: async (_input, req) => {
         const caller = callerOf(req)!;
         if (!req.session.csrfToken) req.session.csrfToken = newCsrfToken();
+        const { regionLocale } = await getSettings(ctx.db);
         return {
           id: caller.id,
           email: caller.email,
           name: caller.name,
           role: caller.role,
           csrfToken: req.session.csrfToken,
+          regionLocale,
         };
       },
     }),

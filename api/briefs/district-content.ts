@@ -7,7 +7,16 @@ import type { BriefFigure, DistrictBriefContent } from '../../contracts/briefs';
 import type { EstimateRecord } from '../runs/estimate-record';
 import { curveChart, pathChart, type ThresholdMark } from './chart-scene';
 import { elasticityTexts, gapText, levelTextOf, projectionTexts, thresholdTexts, type ThresholdTexts } from './figures';
-import { formatDate, formatElasticity, formatLevel, formatLowerEnd, formatPValue, formatUpperEnd } from './format';
+import { agree } from '../../lib/plain-words';
+import {
+  formatDate,
+  formatElasticity,
+  formatLevel,
+  formatLevelPercent,
+  formatLowerEnd,
+  formatUpperEnd,
+  turnTestWords,
+} from './format';
 import { indicatorOf, modelLine, sourcesOf, traceOf, type BriefSource } from './trace';
 import { CAUTIONS, inSentence, shapeLabel, standingLabel } from './words';
 
@@ -62,10 +71,10 @@ function headline(r: EstimateRecord, name: string, th: ThresholdTexts, w: TrackW
       const shape = r.shape?.shape;
       const how =
         shape === 'increasing'
-          ? `${w.pressure} rises with ${w.driver}`
+          ? `${w.pressure} ${agree(w.pressure, 'rises', 'rise')} with ${w.driver}`
           : shape === 'decreasing'
-            ? `${w.pressure} falls as ${w.driver} grows`
-            : `${w.pressure} shows no clear relation to ${w.driver}`;
+            ? `${w.pressure} ${agree(w.pressure, 'falls', 'fall')} as ${w.driver} grows`
+            : `${w.pressure} ${agree(w.pressure, 'shows', 'show')} no clear link with ${w.driver} at the ${formatLevelPercent(r.model.alpha)} level`;
       return `${name} shows no turn in the data${sub}: over ${span(r)} ${how}, and no turning point lies where the district has been.`;
     }
     default:
@@ -102,7 +111,7 @@ function reading(r: EstimateRecord, th: ThresholdTexts, w: TrackWords): string[]
     lines.push(`${lead}${p} fell as ${incomeName} grew, throughout the incomes observed; no turn shows there.`);
   else
     lines.push(
-      `${lead}${p} shows no clear relation to ${incomeName}: the ${incomeName} terms together are not significant.`,
+      `${lead}${p} ${agree(p, 'shows', 'show')} no clear link with ${incomeName} at the ${formatLevelPercent(r.model.alpha)} level: the data cannot tell a rise from a fall.`,
     );
   if (r.range) {
     const e = r.elasticity?.value ?? null;
@@ -131,9 +140,7 @@ function reading(r: EstimateRecord, th: ThresholdTexts, w: TrackWords): string[]
 function shapeDetail(r: EstimateRecord): string | null {
   const parts: string[] = [];
   if (r.uTest?.pValue !== null && r.uTest?.pValue !== undefined) {
-    parts.push(
-      `Lind–Mehlum U-test ${formatPValue(r.uTest.pValue)}, ${r.uTest.rejects ? 'supports' : 'does not support'} a turn at α = ${r.model.alpha}`,
-    );
+    parts.push(turnTestWords(r.uTest.pValue, r.uTest.rejects, r.model.alpha));
   }
   for (const n of r.shape?.notes ?? []) parts.push(n);
   return parts.length ? parts.join('; ') : null;
@@ -199,7 +206,7 @@ export function districtBriefContent(
     {
       key: 'shape',
       label: 'Shape over the observed range',
-      value: shapeLabel(r.shape?.shape ?? null),
+      value: shapeLabel(r.shape?.shape ?? null, formatLevelPercent(r.model.alpha)),
       detail: shapeDetail(r),
     },
   ];

@@ -17,7 +17,26 @@
  * Negative numbers use the minus sign U+2212, not a hyphen.
  */
 
-const LOCALE = 'en-GB';
+import { AsyncLocalStorage } from 'node:async_hooks';
+
+/** Today's formats, and the setting's default (api/settings/schema.ts). */
+export const DEFAULT_LOCALE = 'en-GB';
+const localeStore = new AsyncLocalStorage<string>();
+
+/**
+ * Runs `fn` with the region's locale (the `regionLocale` setting, a BCP 47 tag): every
+ * number and date this module writes inside it, across awaits, follows that locale's
+ * formats through Intl. Outside it the default, en-GB.
+ */
+export function inLocale<T>(locale: string, fn: () => T): T {
+  return localeStore.run(locale, fn);
+}
+
+/** The locale briefs are being written in. */
+export function briefLocale(): string {
+  return localeStore.getStore() ?? DEFAULT_LOCALE;
+}
+
 export const MINUS = '\u2212';
 /** Between the ends of an interval. */
 export const TO = ' – ';
@@ -26,10 +45,11 @@ type Mode = 'halfExpand' | 'floor' | 'ceil';
 
 const cache = new Map<string, Intl.NumberFormat>();
 function nf(options: Intl.NumberFormatOptions): Intl.NumberFormat {
-  const key = JSON.stringify(options);
+  const locale = briefLocale();
+  const key = `${locale} ${JSON.stringify(options)}`;
   let f = cache.get(key);
   if (!f) {
-    f = new Intl.NumberFormat(LOCALE, options);
+    f = new Intl.NumberFormat(locale, options);
     cache.set(key, f);
   }
   return f;
@@ -102,13 +122,23 @@ const PERCENT_SCIENTIFIC_FROM = 1e4;
 /** Signed whole percent: "+72%", "−9%", "0%"; from 10,000% up 3 significant figures. */
 export function formatSignedPercent(value: number): string {
   if (Math.abs(value) >= PERCENT_SCIENTIFIC_FROM) return `${value > 0 ? '+' : ''}${sig(value, 'halfExpand')}%`;
-  const s = nf({ maximumFractionDigits: 0, roundingMode: 'halfExpand', signDisplay: 'exceptZero' }).format(value);
-  return `${minus(s)}%`;
+  const s = nf({
+    style: 'percent',
+    maximumFractionDigits: 0,
+    roundingMode: 'halfExpand',
+    signDisplay: 'exceptZero',
+  }).format(value / 100);
+  return minus(s);
 }
 
-/** A confidence or test level as a percent: 0.95 → "95%", 0.995 → "99.5%". */
+/** A confidence or test level as a percent: 0.95 → "95%", 0.995 → "99.5%" (de-DE "95 %"). */
 export function formatLevelPercent(level: number): string {
-  return `${nf({ maximumFractionDigits: 1 }).format(level * 100)}%`;
+  return nf({ style: 'percent', maximumFractionDigits: 1 }).format(level);
+}
+
+/** A setting in percent as a limit: 10 → "10%", 12.5 → "12.5%". */
+export function formatShiftLimit(percent: number): string {
+  return nf({ style: 'percent', maximumFractionDigits: 1 }).format(percent / 100);
 }
 
 /** Elasticity: two decimals, half away from zero ("−0.62"). */
@@ -127,6 +157,14 @@ export function formatElasticityInterval(lo: number, hi: number): string {
 export function formatPValue(p: number): string {
   if (p < 0.001) return 'p < 0.001';
   return `p = ${nf({ maximumSignificantDigits: 2, roundingMode: 'halfExpand' }).format(p)}`;
+}
+
+/**
+ * The turn test in words an official can read, with its p-value for those who want it:
+ * "Test for a turn (Lind–Mehlum U-test): p = 0.019, a turn is supported at the 5% level".
+ */
+export function turnTestWords(pValue: number, rejects: boolean, alpha: number): string {
+  return `Test for a turn (Lind–Mehlum U-test): ${formatPValue(pValue)}, ${rejects ? 'a turn is supported' : 'no turn is confirmed'} at the ${formatLevelPercent(alpha)} level`;
 }
 
 /** Counts: whole numbers with thousands separators. */
@@ -149,9 +187,9 @@ export function shortHash(hash: string | null): string {
   return hash ? hash.slice(0, 12) : 'none';
 }
 
-/** "3 December 2026" in the region's time zone. */
+/** "3 December 2026" (en-GB), "3. Dezember 2026" (de-DE) in the region's time zone. */
 export function formatDate(iso: string | Date, timeZone: string): string {
-  return new Intl.DateTimeFormat(LOCALE, { timeZone, day: 'numeric', month: 'long', year: 'numeric' }).format(
+  return new Intl.DateTimeFormat(briefLocale(), { timeZone, day: 'numeric', month: 'long', year: 'numeric' }).format(
     new Date(iso),
   );
 }
@@ -159,7 +197,7 @@ export function formatDate(iso: string | Date, timeZone: string): string {
 /** "3 December 2026, 14:05 (Europe/Lisbon)" in the region's time zone. */
 export function formatDateTime(iso: string | Date, timeZone: string): string {
   const d = new Date(iso);
-  const time = new Intl.DateTimeFormat(LOCALE, {
+  const time = new Intl.DateTimeFormat(briefLocale(), {
     timeZone,
     hour: '2-digit',
     minute: '2-digit',

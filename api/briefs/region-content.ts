@@ -9,13 +9,21 @@ import { alertsFor, districtChange } from '../alerts/compare';
 import type { EstimateListRow } from '../estimates/service';
 import { pooledChart, type ThresholdMark } from './chart-scene';
 import { gapText, projectionTexts, thresholdTexts, thresholdTextsOf } from './figures';
-import { formatCount, formatDate, formatLevel, formatLevelPercent, formatPValue, formatSignedPercent } from './format';
+import {
+  formatCount,
+  formatDate,
+  formatLevel,
+  formatLevelPercent,
+  formatShiftLimit,
+  formatSignedPercent,
+  turnTestWords,
+} from './format';
 import type { SummaryRecord } from './store';
 import { indicatorOf, modelLine, sourcesOf, traceOf, type BriefSource } from './trace';
 import { CAUTIONS, inSentence, shapeLabel, STANDING_LABEL, STANDING_ORDER, STANDING_SHORT } from './words';
 
 export const REGION_PDF_PATH = '/api/briefs/region.pdf';
-/** How many threshold shifts the summary lists. */
+/** At most this many threshold shifts are listed (the largest first; the rest are in the table). */
 export const SHIFTS_LISTED = 8;
 export const POOLED_CHART = { width: 515, height: 190 };
 
@@ -69,10 +77,10 @@ function pooledPart(src: BriefSource, pooled: PooledFit | null): RegionBriefCont
     {
       key: 'shape',
       label: 'Shape over the observed range',
-      value: shapeLabel(pooled.shape?.shape ?? null),
+      value: shapeLabel(pooled.shape?.shape ?? null, formatLevelPercent(pooled.model.alpha)),
       detail:
         pooled.uTest?.pValue !== null && pooled.uTest?.pValue !== undefined
-          ? `Lind–Mehlum U-test ${formatPValue(pooled.uTest.pValue)}, ${pooled.uTest.rejects ? 'supports' : 'does not support'} a turn at α = ${pooled.model.alpha}`
+          ? turnTestWords(pooled.uTest.pValue, pooled.uTest.rejects, pooled.model.alpha)
           : null,
     },
     {
@@ -152,8 +160,11 @@ export function regionBriefContent(src: BriefSource, input: RegionInput, pooled:
       if (c.thresholdPercent !== null && Number.isFinite(c.thresholdPercent))
         moves.push({ row, percent: c.thresholdPercent, from: prev.threshold!, to: row.threshold! });
     }
+    // A list of changes shows only changes: the thresholds that moved more than the alert
+    // setting (the same rule as the threshold_shift alert, api/alerts/compare.ts).
     moves.sort((a, b) => Math.abs(b.percent) - Math.abs(a.percent) || a.row.code.localeCompare(b.row.code));
-    shifts = moves.slice(0, SHIFTS_LISTED).map((m) => ({
+    const movedEnough = moves.filter((m) => Math.abs(m.percent) > input.shiftPercent);
+    shifts = movedEnough.slice(0, SHIFTS_LISTED).map((m) => ({
       code: m.row.code,
       name: m.row.name,
       text: `${formatLevel(m.from)} → ${formatLevel(m.to)} (${formatSignedPercent(m.percent)})`,
@@ -161,7 +172,11 @@ export function regionBriefContent(src: BriefSource, input: RegionInput, pooled:
     }));
     if (!crossed.length)
       crossedNote = `No district crossed into or out of its threshold band since run #${input.previous.runId}.`;
-    if (!shifts.length) shiftsNote = `No threshold to compare with run #${input.previous.runId}.`;
+    if (!moves.length) shiftsNote = `No threshold to compare with run #${input.previous.runId}.`;
+    else if (!shifts.length)
+      shiftsNote = `No district’s threshold moved more than ${formatShiftLimit(input.shiftPercent)} since run #${input.previous.runId}.`;
+    else
+      shiftsNote = `Thresholds that moved more than ${formatShiftLimit(input.shiftPercent)} (the alert setting) since run #${input.previous.runId}.`;
     crossed = crossed.sort((a, b) => a.code.localeCompare(b.code));
   }
 

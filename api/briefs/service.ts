@@ -15,7 +15,7 @@ import type { PublishedRun } from '../estimates/service';
 import { correctionNotice } from '../runs/corrections';
 import { getSettings } from '../settings/service';
 import { resolveTrack, shownTracks, trackById } from '../tracks/service';
-import { formatDateTime } from './format';
+import { formatDateTime, inLocale } from './format';
 import { districtSummaryContent, type DistrictSummaryContent, type TrackFinding } from './summary-content';
 import { districtBriefContent } from './district-content';
 import { locatorScene, standingsMapScene } from './map-figure';
@@ -62,21 +62,38 @@ export async function briefSource(db: Knex, run: PublishedRun, generatedAt = new
     run,
     timeZone: settings.regionTimeZone,
     paperSize: settings.briefPaperSize,
+    locale: settings.regionLocale,
     generatedAt,
     indicators: catalogue,
     track: { code: track.code, name: track.name },
   };
 }
 
-export async function districtBrief(
-  db: Knex,
-  code: string,
-  runId?: number,
-  track?: string,
-): Promise<DistrictBriefContent> {
+async function districtBriefIn(db: Knex, code: string, runId?: number, track?: string): Promise<DistrictBriefContent> {
   const district = await districtByCode(db, code);
   const run = await publishedRun(db, runId, track);
   return districtBriefOfRun(db, district, run);
+}
+
+/**
+ * Every figure and date of a brief is written in the region's locale (the `regionLocale`
+ * setting): the content is built inside it (api/briefs/format.ts reads it across awaits).
+ */
+async function localised<T>(db: Knex, build: () => Promise<T>): Promise<T> {
+  const { regionLocale } = await getSettings(db);
+  return inLocale(regionLocale, build);
+}
+
+export function districtBrief(db: Knex, code: string, runId?: number, track?: string): Promise<DistrictBriefContent> {
+  return localised(db, () => districtBriefIn(db, code, runId, track));
+}
+
+export function regionBrief(db: Knex, runId?: number, track?: string): Promise<RegionBriefContent> {
+  return localised(db, () => regionBriefIn(db, runId, track));
+}
+
+export function districtSummary(db: Knex, code: string): Promise<DistrictSummaryContent> {
+  return localised(db, () => districtSummaryIn(db, code));
 }
 
 /** A district's brief from one published run (any track). */
@@ -113,7 +130,7 @@ export async function districtBriefOfRun(
   };
 }
 
-export async function regionBrief(db: Knex, runId?: number, track?: string): Promise<RegionBriefContent> {
+async function regionBriefIn(db: Knex, runId?: number, track?: string): Promise<RegionBriefContent> {
   const run = await publishedRun(db, runId, track);
   const previous = run.publishedAt
     ? await estimates.latestPublished(db, { publishedAt: run.publishedAt }, run.trackId)
@@ -143,7 +160,7 @@ export async function regionBrief(db: Knex, runId?: number, track?: string): Pro
 }
 
 /** The district summary: every shown track's standing side by side, then each track's brief. */
-export async function districtSummary(db: Knex, code: string): Promise<DistrictSummaryContent> {
+async function districtSummaryIn(db: Knex, code: string): Promise<DistrictSummaryContent> {
   const district = await districtByCode(db, code);
   const [tracks, settings, words] = await Promise.all([shownTracks(db), getSettings(db), indicatorWords(db)]);
   const findings: TrackFinding[] = [];
@@ -174,6 +191,7 @@ export async function districtSummary(db: Knex, code: string): Promise<DistrictS
   return districtSummaryContent({ code: district.code, name: district.name }, findings, {
     timeZone: settings.regionTimeZone,
     paperSize: settings.briefPaperSize,
+    locale: settings.regionLocale,
     generatedAt: formatDateTime(new Date(), settings.regionTimeZone),
   });
 }

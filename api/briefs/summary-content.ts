@@ -36,6 +36,8 @@ export interface DistrictSummaryContent {
   /** the generated-on line of the first page */
   generatedAt: string;
   paperSize: DistrictBriefContent['paperSize'];
+  /** the region's locale (BCP 47): the PDF's document language */
+  locale?: string;
   /** each track's district brief, in the rows' order (tracks without an estimate have none) */
   pages: DistrictBriefContent[];
 }
@@ -84,7 +86,7 @@ export function summaryRow(f: TrackFinding, timeZone: string): SummaryRow {
 export function districtSummaryContent(
   district: { code: string; name: string },
   findings: TrackFinding[],
-  opts: { timeZone: string; paperSize: DistrictBriefContent['paperSize']; generatedAt: string },
+  opts: { timeZone: string; paperSize: DistrictBriefContent['paperSize']; generatedAt: string; locale?: string },
 ): DistrictSummaryContent {
   const rows = findings.map((f) => summaryRow(f, opts.timeZone));
   const read = rows.filter((r) => r.standingKey !== 'none');
@@ -105,6 +107,7 @@ export function districtSummaryContent(
     cautions: [...CAUTIONS],
     generatedAt: opts.generatedAt,
     paperSize: opts.paperSize,
+    ...(opts.locale ? { locale: opts.locale } : {}),
     pages: findings.flatMap((f) => ('brief' in f ? [f.brief] : [])),
   };
 }

@@ -19,6 +19,8 @@ export interface BriefSource {
   run: PublishedRun;
   timeZone: string;
   paperSize: BriefPaperSize;
+  /** the region's locale (BCP 47), default en-GB */
+  locale?: string;
   generatedAt: Date;
   indicators: Map<string, Indicator>;
   /** the track the run belongs to */
@@ -39,6 +41,7 @@ export function traceOf(src: BriefSource): BriefTrace {
     softwareVersion: run.softwareVersion,
     generatedAt: formatDateTime(src.generatedAt, timeZone),
     timeZone,
+    locale: src.locale ?? 'en-GB',
     line: `Run #${run.id} · published ${publishedAt} · data version ${dataVersion} (hash ${dataHash}) · Crestwatch ${run.softwareVersion}`,
   };
 }

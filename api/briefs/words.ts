@@ -3,8 +3,10 @@
  * and the names of models and covariance choices as a reader sees them. Standings, shapes
  * and cautions read exactly as on the district card and the method page
  * (lib/estimate-words.ts, lib/cautions.ts; tests/components/brief-views.test.tsx holds
- * them equal), so a brief never names a standing differently from the screen.
+ * them equal), so a brief never names a standing differently from the screen. Shape words
+ * come from lib/plain-words.ts itself, the module the screens read.
  */
+import { SHAPE_LABEL, SHAPE_TECHNICAL, shapeForOfficials, type ShapeKey } from '../../lib/plain-words';
 
 export const STANDING_LABEL: Record<string, string> = {
   approaching: 'Approaching',
@@ -20,32 +22,25 @@ export const STANDING_SHORT: Record<string, string> = STANDING_LABEL;
 /** The order standings are counted in on the region brief. */
 export const STANDING_ORDER = ['approaching', 'at_turn', 'past_turn', 'no_turn', 'not_estimable'] as const;
 
-export const SHAPE_LABEL: Record<string, string> = {
-  inverted_u: 'Rise then fall',
-  u: 'Fall then rise',
-  n_shape: 'Rise, fall, rise again',
-  inverted_n: 'Fall, rise, fall again',
-  increasing: 'Rising',
-  decreasing: 'Falling',
-  flat: 'Flat',
-};
+export { SHAPE_LABEL };
+
+/** Shapes whose trade name differs from the plain words, printed after them in brackets. */
+const TURNING_SHAPES = new Set(['inverted_u', 'u', 'n_shape', 'inverted_n']);
 
 export function standingLabel(standing: string): string {
   return STANDING_LABEL[standing] ?? standing;
 }
 
-/** Trade names, in brackets after the plain words where they differ. */
-const SHAPE_TECHNICAL: Record<string, string> = {
-  inverted_u: 'inverted U',
-  u: 'U',
-  n_shape: 'N-shaped',
-  inverted_n: 'inverted N',
-};
-
-export function shapeLabel(shape: string | null): string {
+/**
+ * A shape as a brief says it (briefs are read by officials): plain words with the trade name
+ * in brackets where they differ, and `flat` as what it means at the run's test level,
+ * "No clear link with income at the 5% level" (`levelText` is the formatted α).
+ */
+export function shapeLabel(shape: string | null, levelText: string): string {
   if (!shape) return 'Not estimated';
-  const plain = SHAPE_LABEL[shape] ?? shape;
-  return SHAPE_TECHNICAL[shape] ? `${plain} (${SHAPE_TECHNICAL[shape]})` : plain;
+  if (shape === 'flat') return shapeForOfficials(shape, levelText);
+  const plain = SHAPE_LABEL[shape as ShapeKey] ?? shape;
+  return TURNING_SHAPES.has(shape) ? `${plain} (${SHAPE_TECHNICAL[shape as ShapeKey]})` : plain;
 }
 
 /** The cautions every brief carries (docs/method.md, "Cautions"). */

@@ -1,6 +1,24 @@
 /** The admin settings every number of the engine, alerts, uploads and briefs comes from. */
 import { z } from 'zod';
 
+/**
+ * A well-formed BCP 47 tag (Intl.getCanonicalLocales throws on anything else) in its
+ * canonical spelling, that the platform's ICU formats numbers and dates for: with no
+ * locale data, Intl would fall back to another locale without saying so.
+ */
+export function isSupportedLocale(tag: string): boolean {
+  try {
+    const [canonical] = Intl.getCanonicalLocales(tag);
+    if (canonical !== tag) return false;
+    return (
+      Intl.NumberFormat.supportedLocalesOf([tag], { localeMatcher: 'lookup' }).length === 1 &&
+      Intl.DateTimeFormat.supportedLocalesOf([tag], { localeMatcher: 'lookup' }).length === 1
+    );
+  } catch {
+    return false;
+  }
+}
+
 export const SettingsSchema = z.object({
   confidenceLevel: z.number().min(0.5).max(0.999).describe('Confidence level of intervals (default 95%)'),
   alpha: z.number().min(0.001).max(0.5).describe('Test level α of the U-test, Wald test and shapes (default 0.05)'),
@@ -25,6 +43,10 @@ export const SettingsSchema = z.object({
       }
     }, 'an IANA time zone such as Europe/Lisbon or UTC')
     .describe('Time zone of the schedule and of dates on briefs'),
+  regionLocale: z
+    .string()
+    .refine(isSupportedLocale, 'a BCP 47 language tag the server can format for, such as en-GB, de-DE or fr-FR')
+    .describe('Language and region whose number and date formats screens and briefs use (BCP 47, default en-GB)'),
   briefPaperSize: z.enum(['A4', 'LETTER']).describe('Paper size of briefs'),
   scheduleCron: z
     .string()
@@ -67,6 +89,8 @@ export const DEFAULT_SETTINGS: Settings = {
   thresholdShiftPercent: 10,
   uploadChangeFactor: 3,
   regionTimeZone: 'UTC',
+  // Today's formats: British English ("1,234.5", "4 December 2026").
+  regionLocale: 'en-GB',
   briefPaperSize: 'A4',
   scheduleCron: '0 6 1 1,4,7,10 *',
   scheduleEnabled: true,

@@ -17,12 +17,34 @@ import type { Schedule, Settings, SettingsResponse } from '@/contracts/settings'
 import { cronWords } from './cron-words';
 
 type Draft = Record<
-  'confidencePercent' | 'alpha' | 'thresholdShiftPercent' | 'uploadChangeFactor' | 'regionTimeZone' | 'scheduleCron',
+  | 'confidencePercent'
+  | 'alpha'
+  | 'thresholdShiftPercent'
+  | 'uploadChangeFactor'
+  | 'regionTimeZone'
+  | 'regionLocale'
+  | 'scheduleCron',
   string
 > & {
   briefPaperSize: Settings['briefPaperSize'];
   scheduleEnabled: boolean;
 };
+
+/** A BCP 47 tag in its canonical spelling (the server also checks it has formats for it). */
+function validLocale(tag: string): boolean {
+  try {
+    return tag !== '' && Intl.getCanonicalLocales(tag)[0] === tag;
+  } catch {
+    return false;
+  }
+}
+
+/** "1,234.5 · 4 December 2026" in the tag's formats, or an empty sample while it is not valid. */
+function localeSample(tag: string): string {
+  if (!validLocale(tag.trim())) return 'not a valid tag yet';
+  const day = new Intl.DateTimeFormat(tag.trim(), { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+  return `${new Intl.NumberFormat(tag.trim()).format(1234.5)} · ${day.format(Date.UTC(2026, 11, 4))}`;
+}
 
 const round = (v: number, d: number) => String(Math.round(v * 10 ** d) / 10 ** d);
 
@@ -33,6 +55,7 @@ function draftOf(s: Settings): Draft {
     thresholdShiftPercent: String(s.thresholdShiftPercent),
     uploadChangeFactor: String(s.uploadChangeFactor),
     regionTimeZone: s.regionTimeZone,
+    regionLocale: s.regionLocale ?? 'en-GB',
     scheduleCron: s.scheduleCron,
     briefPaperSize: s.briefPaperSize,
     scheduleEnabled: s.scheduleEnabled,
@@ -62,6 +85,8 @@ export function settingsPatch(
   if (!problems.uploadChangeFactor && (factor < 1.01 || factor > 1000))
     problems.uploadChangeFactor = 'Between 1.01 and 1000.';
   if (!d.regionTimeZone.trim()) problems.regionTimeZone = 'An IANA time zone, such as Europe/Lisbon or UTC.';
+  if (!validLocale(d.regionLocale.trim()))
+    problems.regionLocale = 'A language tag with a region, such as en-GB, de-DE or fr-FR.';
   if (d.scheduleCron.trim().split(/\s+/).length !== 5)
     problems.scheduleCron = 'Five fields: minute hour day-of-month month day-of-week.';
   const next: Settings = {
@@ -70,12 +95,14 @@ export function settingsPatch(
     thresholdShiftPercent: shift,
     uploadChangeFactor: factor,
     regionTimeZone: d.regionTimeZone.trim(),
+    regionLocale: d.regionLocale.trim(),
     briefPaperSize: d.briefPaperSize,
     scheduleCron: d.scheduleCron.trim().replace(/\s+/g, ' '),
     scheduleEnabled: d.scheduleEnabled,
   };
   const patch: Partial<Settings> = {};
   for (const key of Object.keys(next) as (keyof Settings)[]) {
+    if (key === 'regionLocale' && saved.regionLocale === undefined && next.regionLocale === 'en-GB') continue;
     if (next[key] !== saved[key]) (patch as Record<string, unknown>)[key] = next[key];
   }
   return { patch, problems };
@@ -199,6 +226,15 @@ function SettingsBody({ data, onSave }: { data: SettingsResponse; onSave: Settin
             error={problems.regionTimeZone}
             editable={!readOnly}
             testID="settings-tz"
+          />
+          <TextField
+            label="Region locale"
+            value={draft.regionLocale}
+            onChangeText={(v) => set('regionLocale', v)}
+            hint={`BCP 47 tag, e.g. en-GB, de-DE, fr-FR: number and date formats on every screen and brief (${localeSample(draft.regionLocale)})`}
+            error={problems.regionLocale}
+            editable={!readOnly}
+            testID="settings-locale"
           />
         </View>
       </Section>

@@ -7,6 +7,7 @@ import type { BoundaryUploadAnswer } from '@/contracts/boundaries';
 import { count } from '@/components/uploads/upload-words';
 
 import { formatArea } from './boundary-words';
+import { formatCount } from '@/lib/format';
 
 type Row = BoundaryUploadAnswer['preview'][number];
 
@@ -36,12 +37,12 @@ const columns: Column<Row>[] = [
 export function BoundaryPreview({ answer }: { answer: BoundaryUploadAnswer }) {
   const c = answer.counts;
   const figures: [string, string, string][] = [
-    ['features', 'Features in the file', c.features.toLocaleString('en-GB')],
-    ['matched', 'Districts matched', c.matched.toLocaleString('en-GB')],
-    ['vertices', 'Vertices', c.vertices.toLocaleString('en-GB')],
-    ['missing', 'Without a boundary', c.missing.toLocaleString('en-GB')],
+    ['features', 'Features in the file', formatCount(c.features)],
+    ['matched', 'Districts matched', formatCount(c.matched)],
+    ['vertices', 'Vertices', formatCount(c.vertices)],
+    ['missing', 'Without a boundary', formatCount(c.missing)],
   ];
-  if (c.repaired) figures.push(['repaired', 'Repaired', c.repaired.toLocaleString('en-GB')]);
+  if (c.repaired) figures.push(['repaired', 'Repaired', formatCount(c.repaired)]);
   return (
     <View style={styles.wrap} testID="boundary-preview">
       <View style={styles.figures}>

@@ -14,6 +14,7 @@ import { formatDateTime } from '@/lib/format-time';
 import type { BoundaryRevertAnswer, BoundaryVersion, BoundaryVersions as Versions } from '@/contracts/boundaries';
 
 import { revertedWords } from './boundary-words';
+import { formatCount } from '@/lib/format';
 
 export type BoundaryVersionsProps = {
   versions: QueryState<Versions>;
@@ -131,7 +132,7 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
       header: 'Vertices',
       width: 130,
       align: 'right',
-      render: (v) => `${v.vertices.toLocaleString('en-GB')}${v.repaired ? ` · ${v.repaired} repaired` : ''}`,
+      render: (v) => `${formatCount(v.vertices)}${v.repaired ? ` · ${v.repaired} repaired` : ''}`,
       sortValue: (v) => v.vertices,
     },
     {
@@ -174,7 +175,7 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
                 {formatDateTime(v.createdAt)} · {v.userEmail ?? 'demo set-up'} · code in &quot;{v.codeProperty}&quot;
               </Text>
               <Text style={styles.line}>
-                {v.features} districts mapped, {v.missing} without · {v.vertices.toLocaleString('en-GB')} vertices
+                {v.features} districts mapped, {v.missing} without · {formatCount(v.vertices)} vertices
                 {v.repaired ? ` · ${v.repaired} repaired` : ''}
               </Text>
               {revertButton(v)}

@@ -3,6 +3,7 @@
 import type { BoundaryProblem, BoundaryRevertAnswer, BoundaryUploadAnswer } from '@/contracts/boundaries';
 
 import { count } from '@/components/uploads/upload-words';
+import { formatDecimal } from '@/lib/format';
 
 /** Short names of the problems, for the table's "Problem" column. */
 export const PROBLEM_LABEL: Record<BoundaryProblem['problem'], string> = {
@@ -80,5 +81,5 @@ export function revertedWords(
 /** km² with a sensible number of places. */
 export function formatArea(km2: number): string {
   const places = km2 >= 100 ? 0 : km2 >= 1 ? 1 : 3;
-  return `${km2.toLocaleString('en-GB', { minimumFractionDigits: places, maximumFractionDigits: places })} km²`;
+  return `${formatDecimal(km2, places, places)} km²`;
 }

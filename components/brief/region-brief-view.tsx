@@ -5,6 +5,7 @@ import type { RegionBriefContent, RegionBriefRow } from '@/contracts/briefs';
 
 import { BriefChart } from './brief-chart';
 import { BriefHeading, BriefTop, Cautions, FigureGrid, keepTogether, ModelLine, TraceFooter } from './brief-sections';
+import { formatCount } from '@/lib/format';
 
 /** How many districts each summary list shows before "and n more". */
 const LIST_LINES = 8;
@@ -31,18 +32,17 @@ function SummaryList({
   more,
 }: {
   title: string;
-  items: { code: string; name: string; text: string; mark?: boolean }[];
+  items: { code: string; name: string; text: string }[];
   note: string | null;
   more: string;
 }) {
   return (
     <View style={styles.list} {...keepTogether}>
       <BriefHeading>{title}</BriefHeading>
-      {items.length === 0 ? <Text style={styles.muted}>{note ?? 'None.'}</Text> : null}
+      {items.length === 0 || note ? <Text style={styles.muted}>{note ?? 'None.'}</Text> : null}
       {items.slice(0, LIST_LINES).map((it) => (
         <Text key={it.code} style={styles.listItem}>
           <Text style={styles.code}>{it.code}</Text> {it.name} — {it.text}
-          {it.mark ? ' •' : ''}
         </Text>
       ))}
       {items.length > LIST_LINES ? (
@@ -66,7 +66,7 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
       <View style={styles.counts} {...keepTogether}>
         {c.counts.map((k) => (
           <View key={k.key} style={styles.count} testID={`brief-count-${k.key}`}>
-            <Text style={[styles.countValue, k.count === 0 && styles.muted]}>{k.count.toLocaleString('en-GB')}</Text>
+            <Text style={[styles.countValue, k.count === 0 && styles.muted]}>{formatCount(k.count)}</Text>
             <Text style={styles.countLabel}>{k.label}</Text>
           </View>
         ))}
@@ -78,21 +78,13 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
           note={c.crossedNote}
           more="in the alerts of this run"
         />
-        <SummaryList
-          title="Largest threshold shifts"
-          items={c.shifts.map((s) => ({ ...s, mark: s.overLimit }))}
-          note={c.shiftsNote}
-          more="in the table"
-        />
+        <SummaryList title="Largest threshold shifts" items={c.shifts} note={c.shiftsNote} more="in the table" />
         {c.map ? (
           <View style={styles.map}>
             <BriefChart scene={c.map} testID="brief-region-map" />
           </View>
         ) : null}
       </View>
-      {c.shifts.some((s) => s.overLimit) ? (
-        <Text style={styles.muted}>• moved more than the alert limit for a threshold shift.</Text>
-      ) : null}
       <View style={styles.block} {...keepTogether}>
         <BriefHeading>Regional pooled curve</BriefHeading>
         {c.pooled.figures.length ? <FigureGrid figures={c.pooled.figures} /> : null}
@@ -144,8 +136,8 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
           </View>
         </View>
         <Text style={styles.muted}>
-          {c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional
-          curve”: the pooled curve stands in for a short series.
+          {formatCount(c.table.rows.length)} districts. Gap: income now against the threshold. “Regional curve”: the
+          pooled curve stands in for a short series.
         </Text>
       </View>
       <TraceFooter trace={c.trace} />

@@ -176,7 +176,12 @@ function LoadedCard({
       <LocatorMap code={code} name={data.district.name} standing={main?.standing.standing ?? 'not_estimable'} />
       {main ? (
         <>
-          <HeadlinePanel record={main} actions={actions} incomeUnit={units.incomeUnit} />
+          <HeadlinePanel
+            record={main}
+            actions={actions}
+            incomeUnit={units.incomeUnit}
+            pressure={data.run ? units.emissionsName : undefined}
+          />
           {data.correction ? (
             <View style={styles.analystNote} testID="correction-notice">
               <Text style={styles.noteTerm}>Correction</Text>

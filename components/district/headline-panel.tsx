@@ -4,7 +4,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import { StandingBadge } from '@/components/region/standing-mark';
 import { colors, radius, space, standingColors, type } from '@/components/theme';
 import type { EstimateRecord } from '@/contracts/estimates';
-import { SHAPE_LABEL, SHAPE_TECHNICAL, STANDING_MEANING } from '@/lib/estimate-words';
+import { SHAPE_LABEL, SHAPE_TECHNICAL, shapeWords, STANDING_MEANING } from '@/lib/estimate-words';
 import { headline, headlineInputFromRecord } from '@/lib/headline';
 
 export type HeadlinePanelProps = {
@@ -13,11 +13,13 @@ export type HeadlinePanelProps = {
   actions?: ReactNode;
   /** The driver's unit from the catalogue (the run meta's units). */
   incomeUnit?: string;
+  /** The track's indicator as the catalogue names it (the run meta's units); omitted: "emissions". */
+  pressure?: string;
 };
 
 /** The card's top: standing (mark and word), the headline sentence, its notes, actions. */
-export function HeadlinePanel({ record, actions, incomeUnit }: HeadlinePanelProps) {
-  const h = headline({ ...headlineInputFromRecord(record), incomeUnit });
+export function HeadlinePanel({ record, actions, incomeUnit, pressure }: HeadlinePanelProps) {
+  const h = headline({ ...headlineInputFromRecord(record), incomeUnit, pressure });
   const standing = record.standing.standing;
   const shape = record.shape?.shape ?? null;
   return (
@@ -28,8 +30,10 @@ export function HeadlinePanel({ record, actions, incomeUnit }: HeadlinePanelProp
       <View style={styles.badges}>
         <StandingBadge standing={standing} size={16} />
         {shape ? (
-          <Text style={styles.shape}>
-            {SHAPE_LABEL[shape]} ({SHAPE_TECHNICAL[shape]})
+          <Text style={styles.shape} testID="card-shape">
+            {shape === 'flat'
+              ? shapeWords(shape, record.model.alpha)
+              : `${SHAPE_LABEL[shape]} (${SHAPE_TECHNICAL[shape]})`}
           </Text>
         ) : null}
         {record.status === 'substitute' ? (

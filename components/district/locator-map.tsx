@@ -9,6 +9,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { useBoundariesQuery } from '@/hooks/use-boundaries';
 import type { Standing } from '@/contracts/estimates';
 import { buildMapScene, mapAspect } from '@/lib/map-scene';
+import { formatCount } from '@/lib/format';
 
 export type LocatorMapProps = {
   code: string;
@@ -72,7 +73,7 @@ export function LocatorMap({ code, name, standing, maxWidth = 160 }: LocatorMapP
         <View style={{ height: 120 }} />
       )}
       {area !== undefined ? (
-        <Text style={styles.caption}>{`Land area ${Math.round(area).toLocaleString('en-GB')} km²`}</Text>
+        <Text style={styles.caption}>{`Land area ${formatCount(Math.round(area))} km²`}</Text>
       ) : null}
     </View>
   );

@@ -4,7 +4,7 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { colors, layout, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { SHAPES, type Shape } from '@/contracts/estimates';
-import { SHAPE_LABEL } from '@/lib/estimate-words';
+import { SHAPE_PLAIN_SHORT } from '@/lib/estimate-words';
 import { SORT_LABEL, type SortKey } from '@/lib/region-list';
 
 import { Chip } from './chip';
@@ -60,7 +60,7 @@ export function ListControls({ sort, onSort, shapes, onToggleShape }: ListContro
             <Chip
               key={s}
               testID={`shape-filter-${s}`}
-              label={SHAPE_LABEL[s]}
+              label={SHAPE_PLAIN_SHORT[s]}
               on={shapes.includes(s)}
               onPress={() => onToggleShape(s)}
             />

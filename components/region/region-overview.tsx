@@ -9,13 +9,14 @@ import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { colors, layout, radius, space, standingColors, type } from '@/components/theme';
 import { TextLink } from '@/components/ui/text-link';
-import type { RegionResponse } from '@/contracts/estimates';
-import { STANDINGS } from '@/contracts/estimates';
+import { STANDINGS, type RegionResponse, type Shape } from '@/contracts/estimates';
 import {
   formatLevel,
   intervalText,
   notBoundedText,
   SHAPE_LABEL,
+  SHAPE_PLAIN_SHORT,
+  shapeWords,
   STANDING_LABEL,
   STANDING_MEANING,
 } from '@/lib/estimate-words';
@@ -23,6 +24,12 @@ import { modelLineOfRun, runLine } from '@/lib/model-line';
 import { countByStanding, type RegionRow } from '@/lib/region-list';
 
 import { StandingMark } from './standing-mark';
+
+/** The pooled curve's shape in an official's words ("no clear link with income at the 5% level"). */
+function pooledShape(shape: Shape, alpha: number | null): string {
+  const words = alpha === null ? SHAPE_PLAIN_SHORT[shape] : shapeWords(shape, alpha);
+  return shape === 'flat' ? words.charAt(0).toLowerCase() + words.slice(1) : SHAPE_LABEL[shape].toLowerCase();
+}
 
 export type RegionOverviewProps = {
   region: QueryState<RegionResponse>;
@@ -98,7 +105,7 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
         {pooled ? (
           <Text style={styles.meta} testID="region-pooled">
             Regional pooled curve (all districts, fixed effects):{' '}
-            {pooled.shape ? SHAPE_LABEL[pooled.shape].toLowerCase() : 'no shape'}
+            {pooled.shape ? pooledShape(pooled.shape, run?.model.alpha ?? null) : 'no shape'}
             {pooled.threshold !== null && pooled.threshold > 0
               ? `, turning point ${formatLevel(pooled.threshold)} ${incomeUnit} (${pooled.fieller?.kind === 'bounded' ? intervalText('bounded', pooled.fieller.levelLo, pooled.fieller.levelHi) : notBoundedText(level)})`
               : ''}

@@ -8,6 +8,7 @@ import { formatDateTime } from '@/lib/format-time';
 import type { RunView } from '@/contracts/runs';
 
 import { RUN_STATE, shapeWord, TRIGGER_LABEL } from './run-words';
+import { formatCount } from '@/lib/format';
 
 /** What a run is: its state, spec, data version and hash, software, times, and standing counts. */
 export function RunFacts({ run }: { run: RunView }) {
@@ -44,7 +45,7 @@ export function RunFacts({ run }: { run: RunView }) {
               : `${run.dataVersion}${run.dataHash ? ` · ${run.dataHash.slice(0, 12)}…` : ''}`
           }
         />
-        {run.dataRows !== null ? <Fact label="Rows read" value={run.dataRows.toLocaleString('en-GB')} /> : null}
+        {run.dataRows !== null ? <Fact label="Rows read" value={formatCount(run.dataRows)} /> : null}
         <Fact label="Software" value={run.softwareVersion} />
       </View>
       {run.pooled?.status === 'ok' ? (

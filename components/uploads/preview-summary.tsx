@@ -7,6 +7,7 @@ import { Pill } from '@/components/ui/pill';
 import type { UploadPreview } from '@/contracts/uploads';
 
 import { count } from './upload-words';
+import { formatCount } from '@/lib/format';
 
 type DistrictRow = UploadPreview['byDistrict'][number];
 type IndicatorRow = UploadPreview['byIndicator'][number];
@@ -84,7 +85,7 @@ export function PreviewSummary({ preview }: { preview: UploadPreview }) {
   return (
     <View style={styles.wrap} testID="preview">
       <View style={styles.figures}>
-        <Figure label="Rows read" value={preview.rowsRead.toLocaleString('en-GB')} />
+        <Figure label="Rows read" value={formatCount(preview.rowsRead)} />
         <Figure label="New values" value={String(preview.totals.insert)} testID="preview-insert" />
         <Figure label="Changed values" value={String(preview.totals.change)} testID="preview-change" />
         <Figure label="Unchanged" value={String(preview.totals.unchanged)} />

@@ -2,6 +2,7 @@
 import type { Tone } from '@/components/theme';
 import { formatDateTime } from '@/lib/format-time';
 import type { UploadProblem, UploadRejectionDetails, UploadStatus, UploadSummary } from '@/contracts/uploads';
+import { formatCount } from '@/lib/format';
 
 export const UPLOAD_STATUS: Record<UploadStatus, { label: string; tone: Tone }> = {
   previewed: { label: 'Checked, not loaded', tone: 'warning' },
@@ -35,7 +36,7 @@ export function changeWords(c: { insert: number; change: number; unchanged?: num
 
 /** Plural helper: "1 value", "3 values". */
 export function count(n: number, one: string, many = `${one}s`): string {
-  return `${n.toLocaleString('en-GB')} ${n === 1 ? one : many}`;
+  return `${formatCount(n)} ${n === 1 ? one : many}`;
 }
 
 /** "line 3, column 4 (value)": where a problem is, from its fields. */

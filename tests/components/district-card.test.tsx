@@ -5,8 +5,17 @@ import { onlineManager } from '@tanstack/react-query';
 import { act, fireEvent, screen, waitFor, within } from 'expo-router/testing-library';
 
 import { ApiError, apiGet, apiSend } from '@/lib/api-client';
+import { DEFAULT_LOCALE, setRegionLocale } from '@/lib/format';
 
-import { cardAnswers, estimateRecord, notEstimableRecord, run, wholeLineRecord } from './support/estimates';
+import {
+  cardAnswers,
+  estimateRecord,
+  estimateResponse,
+  notEstimableRecord,
+  pm25Track,
+  run,
+  wholeLineRecord,
+} from './support/estimates';
 import { gappyDetail } from './support/fixtures';
 import { answerWith } from './support/mock-api';
 import { renderApp } from './support/render-app';
@@ -267,6 +276,48 @@ describe('district card', () => {
     expect(await screen.findByTestId('stale-notice')).toBeTruthy();
     expect(screen.getByText(/Showing this district’s figures as loaded at/)).toBeTruthy();
     expect(screen.getByTestId('card-headline')).toBeTruthy();
+  });
+
+  // The region locale (admin setting, carried by GET /api/me) formats the card's figures;
+  // "30.000" and "95 %" (U+00A0 before %) are de-DE's CLDR formats in Node's ICU.
+  it('formats its figures in the region’s locale from /api/me', async () => {
+    answer(estimateRecord({}), {
+      '/api/me': {
+        id: 3,
+        email: 'o@example.test',
+        name: null,
+        role: 'official',
+        csrfToken: 't',
+        regionLocale: 'de-DE',
+      },
+    });
+    renderApp('/district/T02', { regionLocale: true });
+    await waitFor(() => expect(within(screen.getByTestId('figure-threshold')).getByText('30.000')).toBeTruthy());
+    expect(screen.getByTestId('card-headline').props.children).toMatch(/^Income is 18\u00a0% below/);
+    setRegionLocale(DEFAULT_LOCALE);
+  });
+
+  // Plain words (issue 17): an official's card says what `flat` means, at the run's own
+  // test level α, and names the track's indicator as the catalogue does.
+  it('says "no clear link" for a flat curve, at the run’s level, naming a PM2.5 track’s indicator', async () => {
+    const base = estimateRecord({});
+    const flat = estimateRecord({
+      standing: { ...base.standing, standing: 'no_turn', intervalBounded: null, levelLo: null, levelHi: null },
+      shape: { shape: 'flat', decidedBy: 'joint_test', notes: [] },
+      threshold: null,
+      gapPercent: null,
+      projection: null,
+      model: { ...base.model, alpha: 0.1 },
+    });
+    const pmRun = { ...run, units: { ...run.units, emissions: pm25Track.indicator } };
+    answer(flat, { '/api/districts/T02/estimate': estimateResponse(flat, { run: pmRun, track: pm25Track }) });
+    renderApp('/district/T02');
+    const headline = await screen.findByTestId('card-headline');
+    expect(headline.props.children).toBe(
+      'No clear link between income and PM2.5 annual mean over the observed incomes at the 10% level.',
+    );
+    expect(screen.getByTestId('card-shape').props.children).toBe('No clear link with income at the 10% level');
+    expect(screen.queryByText(/\bFlat\b/)).toBeNull();
   });
 });
 

@@ -308,3 +308,56 @@ describe('inputs from the engine’s output', () => {
     expect(headlineText(r)).toMatch(/Interval not bounded at 99%/);
   });
 });
+
+// Plain words (issue 17): an official reads what `flat` means, at the run's own test level,
+// and the track's indicator by the catalogue's name instead of a generic "emissions".
+// Subject–verb agreement follows English grammar ("concentration rises", "emissions rise").
+describe('headline: plain words and the track’s indicator', () => {
+  const flatCase: Partial<HeadlineInput> = {
+    standing: 'no_turn',
+    shape: 'flat',
+    threshold: null,
+    intervalBounded: null,
+    fiellerKind: null,
+    gapPercent: null,
+    projection: null,
+  };
+
+  it('flat says "no clear link" at the level from the run’s α, not a fixed 5%', () => {
+    expect(h({ ...flatCase, alpha: 0.05 }).sentence).toBe(
+      'No clear link between income and emissions over the observed incomes at the 5% level.',
+    );
+    expect(h({ ...flatCase, alpha: 0.1 }).sentence).toBe(
+      'No clear link between income and emissions over the observed incomes at the 10% level.',
+    );
+  });
+
+  it('names a PM2.5 track’s indicator, singular verbs', () => {
+    const pressure = 'PM2.5 annual mean concentration';
+    expect(h({ ...flatCase, alpha: 0.05, pressure }).sentence).toBe(
+      'No clear link between income and PM2.5 annual mean concentration over the observed incomes at the 5% level.',
+    );
+    expect(h({ ...flatCase, shape: 'increasing', pressure }).sentence).toBe(
+      'PM2.5 annual mean concentration rises with income across the observed incomes, with no turning point there.',
+    );
+    expect(h({ pressure }).notes[0]).toBe('PM2.5 annual mean concentration still tends to rise with income.');
+    expect(h({ standing: 'at_turn', gapPercent: 0, pressure }).notes[0]).toBe(
+      'PM2.5 annual mean concentration has about stopped rising with income.',
+    );
+  });
+
+  it('names an SO2 track’s indicator, plural verbs', () => {
+    const pressure = 'SO2 emissions per person';
+    expect(h({ standing: 'past_turn', gapPercent: 40, pressure }).notes[0]).toBe(
+      'SO2 emissions per person now tend to fall as income grows.',
+    );
+    expect(h({ ...flatCase, shape: 'decreasing', pressure }).sentence).toBe(
+      'SO2 emissions per person fall as income grows across the observed incomes, with no turning point there.',
+    );
+  });
+
+  it('reads α from the record', () => {
+    const record = estimateRecord({});
+    expect(headlineInputFromRecord(record).alpha).toBe(record.model.alpha);
+  });
+});

@@ -37,6 +37,7 @@ describe('settings draft', () => {
     thresholdShiftPercent: '10',
     uploadChangeFactor: '3',
     regionTimeZone: 'UTC',
+    regionLocale: 'en-GB',
     scheduleCron: '0 6 1 1,4,7,10 *',
     briefPaperSize: 'A4' as const,
     scheduleEnabled: true,
@@ -64,6 +65,18 @@ describe('settings draft', () => {
       scheduleCron: '0 6 1',
     });
     expect(Object.keys(problems).sort()).toEqual(['confidencePercent', 'scheduleCron', 'uploadChangeFactor']);
+  });
+
+  it('sends a region locale in its canonical BCP 47 spelling, and refuses one that is not (Intl.getCanonicalLocales)', () => {
+    expect(settingsPatch(settingsAnswer.settings, { ...draft, regionLocale: 'de-DE' }).patch).toEqual({
+      regionLocale: 'de-DE',
+    });
+    expect(settingsPatch(settingsAnswer.settings, { ...draft, regionLocale: 'de_DE' }).problems).toHaveProperty(
+      'regionLocale',
+    );
+    expect(settingsPatch(settingsAnswer.settings, { ...draft, regionLocale: 'de-de' }).problems).toHaveProperty(
+      'regionLocale',
+    );
   });
 });
 

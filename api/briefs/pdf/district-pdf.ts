@@ -16,6 +16,7 @@ import {
   footer,
   FOOTER_HEIGHT,
   geometry,
+  heading,
   INK,
   measure,
   pageTop,
@@ -49,7 +50,7 @@ function title(doc: PDFKit.PDFDocument, name: string, x: number, y: number, widt
     const h = measure(doc, name, width, s);
     const line = step.size * 1.21 + 1;
     if (h <= step.lines * line + 0.5 || step === TITLE_STEPS[TITLE_STEPS.length - 1]) {
-      return textBlock(doc, name, x, y, width, s, step.lines * line + 0.5);
+      return heading(doc, 1, () => textBlock(doc, name, x, y, width, s, step.lines * line + 0.5));
     }
   }
   return 0;
@@ -95,6 +96,7 @@ export async function renderDistrictPdf(c: DistrictBriefContent): Promise<Buffer
   const { doc, done } = createBriefDocument(c.paperSize, {
     title: `${c.name} (${c.code}) · district brief`,
     subject: `Crestwatch district brief, run #${c.trace.runId}`,
+    lang: c.trace.locale,
   });
   drawDistrictPage(doc, c);
   doc.end();
@@ -111,17 +113,20 @@ export function drawDistrictPage(doc: PDFKit.PDFDocument, c: DistrictBriefConten
   footer(doc, c.trace, page, pages);
   const cautionsH = cautionsBox(doc, c.cautions, x, 0, width, false);
   const cautionsY = g.height - FOOTER_HEIGHT - 6 - cautionsH;
-  cautionsBox(doc, c.cautions, x, cautionsY, width);
   const modelStyle: TextStyle = { size: 6.8, color: INK.muted, lineGap: 0.4 };
   const modelH = Math.min(measure(doc, `Model. ${c.modelLine}`, width, modelStyle), 28);
   const modelY = cautionsY - 6 - modelH;
-  textBlock(doc, `Model. ${c.modelLine}`, x, modelY, width, modelStyle, 28);
   // Who publishes each series the model reads, and under which terms.
   const sourcesText = c.sources?.length ? `Sources. ${sourcesSentence(c.sources)}` : '';
   const sourcesH = sourcesText ? Math.min(measure(doc, sourcesText, width, modelStyle), 26) : 0;
   const sourcesY = modelY - (sourcesH ? 4 + sourcesH : 0);
-  if (sourcesText) textBlock(doc, sourcesText, x, sourcesY, width, modelStyle, 26);
   const limit = sourcesY - 6;
+  // Placed first, drawn last: the structure tree follows the reading order (PDF 1.7 §14.8.2.3).
+  const bottomBlocks = () => {
+    if (sourcesText) textBlock(doc, sourcesText, x, sourcesY, width, modelStyle, 26);
+    textBlock(doc, `Model. ${c.modelLine}`, x, modelY, width, modelStyle, 28);
+    cautionsBox(doc, c.cautions, x, cautionsY, width);
+  };
 
   let y = pageTop(doc, c.subtitle);
   // The locator sits at the top right, beside the name, the standing and the headline.
@@ -144,7 +149,7 @@ export function drawDistrictPage(doc: PDFKit.PDFDocument, c: DistrictBriefConten
   const charts = [c.charts.curve, c.charts.path];
   charts.forEach((scene, i) => {
     const cx = x + i * (CHART_WIDTH + gap);
-    textLine(doc, scene.title, cx, y, { size: 8.5, face: 'bold' });
+    heading(doc, 2, () => textLine(doc, scene.title, cx, y, { size: 8.5, face: 'bold' }));
     drawScene(doc, scene, cx, y + 14);
   });
   y += 14 + Math.max(c.charts.curve.height, c.charts.path.height) + 10;
@@ -155,7 +160,7 @@ export function drawDistrictPage(doc: PDFKit.PDFDocument, c: DistrictBriefConten
     y += textBlock(doc, c.substitute, x, y, width, s, room()) + 5;
   }
   if (room() > 20) {
-    textLine(doc, 'Reading', x, y, { size: 8.5, face: 'bold' });
+    heading(doc, 2, () => textLine(doc, 'Reading', x, y, { size: 8.5, face: 'bold' }));
     y += 12;
     for (const line of c.reading) {
       const h = textBlock(doc, `•  ${line}`, x, y, width, { size: 8.3, lineGap: 0.8 }, room());
@@ -164,13 +169,14 @@ export function drawDistrictPage(doc: PDFKit.PDFDocument, c: DistrictBriefConten
     y += 4;
   }
   if (c.correctionNotice && room() > 20) {
-    textLine(doc, 'Correction', x, y, { size: 8.5, face: 'bold' });
+    heading(doc, 2, () => textLine(doc, 'Correction', x, y, { size: 8.5, face: 'bold' }));
     y += 12;
     y += textBlock(doc, c.correctionNotice, x, y, width, { size: 8, lineGap: 0.6, color: INK.text }, room()) + 4;
   }
   if (c.analystNote && room() > 20) {
-    textLine(doc, 'Analyst’s note for this run', x, y, { size: 8.5, face: 'bold' });
+    heading(doc, 2, () => textLine(doc, 'Analyst’s note for this run', x, y, { size: 8.5, face: 'bold' }));
     y += 12;
     y += textBlock(doc, c.analystNote, x, y, width, { size: 8, lineGap: 0.6, color: INK.text }, room()) + 4;
   }
+  bottomBlocks();
 }

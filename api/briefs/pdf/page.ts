@@ -63,22 +63,31 @@ export function geometry(doc: PDFKit.PDFDocument): Geometry {
 /** A document for a brief; `done` resolves to the PDF bytes once `doc.end()` is called. */
 export function createBriefDocument(
   size: BriefPaperSize,
-  info: { title: string; subject: string },
+  info: { title: string; subject: string; lang?: string },
 ): { doc: PDFKit.PDFDocument; done: Promise<Buffer> } {
   const doc = new PDFDocument({
+    // A tagged PDF (PDF/UA, ISO 14289-1; PDF 1.7 §14.8): a structure tree of headings,
+    // paragraphs, tables and figures in reading order, page furniture marked as artifacts,
+    // the document language (the region's locale) and the title shown in the window bar.
+    pdfVersion: '1.7',
+    tagged: true,
     size: size === 'LETTER' ? 'LETTER' : 'A4',
     // No margins for pdfkit: every block is placed and measured here, so pdfkit never
     // starts a page on its own (a district brief is one page by construction).
     margins: { top: 0, bottom: 0, left: 0, right: 0 },
     autoFirstPage: true,
     info: { Title: info.title, Subject: info.subject, Author: 'Crestwatch', Creator: 'Crestwatch briefs' },
-    lang: 'en-GB',
+    lang: info.lang ?? 'en-GB',
     displayTitle: true,
     // No default face: pdfkit would parse Helvetica's AFM file for every document, and a
     // default Inter would defeat pdfkit's font cache (every font() call re-opening the face).
     font: null as never,
   });
   registerBriefFonts(doc);
+  // One Document element under the StructTreeRoot holds every other (PDF 1.7 §14.8.4.2).
+  const root = doc.struct('Document');
+  doc.addStructure(root);
+  roots.set(doc, root);
   doc.font('regular');
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
@@ -87,6 +96,80 @@ export function createBriefDocument(
     doc.on('error', reject);
   });
   return { doc, done };
+}
+
+// ---- Tagging (PDF 1.7 §14.8) ----------------------------------------------------------------
+// Every text drawn outside a structure element or an artifact becomes a paragraph (P) of
+// its own, so nothing is left untagged; headings, tables and figures say what they are.
+
+/** How deep each document is inside a structure element's or an artifact's content. */
+const depth = new WeakMap<PDFKit.PDFDocument, number>();
+const inside = (doc: PDFKit.PDFDocument) => (depth.get(doc) ?? 0) > 0;
+/** Each document's Document element, the parent of top-level headings, paragraphs, tables and figures. */
+const roots = new WeakMap<PDFKit.PDFDocument, PDFKit.PDFStructureElement>();
+
+function within<T>(doc: PDFKit.PDFDocument, draw: () => T): T {
+  depth.set(doc, (depth.get(doc) ?? 0) + 1);
+  try {
+    return draw();
+  } finally {
+    depth.set(doc, (depth.get(doc) ?? 1) - 1);
+  }
+}
+
+export type StructParent = PDFKit.PDFStructureElement;
+
+function attach(doc: PDFKit.PDFDocument, element: StructParent, parent?: StructParent): void {
+  const to = parent ?? roots.get(doc);
+  if (to) to.add(element);
+  else doc.addStructure(element);
+}
+
+/**
+ * Draws `draw` as the content of a structure element of `type` (H1, H2, P, TH, TD, Figure…),
+ * under `parent` (an attached element) or the document's root; returns what `draw` returns.
+ */
+export function tagged<T>(
+  doc: PDFKit.PDFDocument,
+  type: string,
+  draw: () => T,
+  parent?: StructParent,
+  options: { alt?: string; scope?: 'Row' | 'Column' | 'Both' } = {},
+): T {
+  let out: T | undefined;
+  const element = doc.struct(type, options as PDFKit.Mixins.StructureElementOptions, () => {
+    out = within(doc, draw);
+  });
+  attach(doc, element, parent);
+  return out as T;
+}
+
+/** An empty structure element (Table, TR, L…) attached under `parent` or the root, to add children to. */
+export function container(doc: PDFKit.PDFDocument, type: string, parent?: StructParent): StructParent {
+  const element = doc.struct(type);
+  attach(doc, element, parent);
+  return element;
+}
+
+/** Draws page furniture (rules, fills, page tops and footers, a repeated header row) as an artifact. */
+export function artifact<T>(doc: PDFKit.PDFDocument, draw: () => T, type: 'Pagination' | 'Layout' = 'Layout'): T {
+  if (inside(doc)) return draw();
+  doc.markContent('Artifact', { type });
+  try {
+    return within(doc, draw);
+  } finally {
+    doc.endMarkedContent();
+  }
+}
+
+/** A heading: H1 for the brief's title, H2 for its sections. */
+export function heading<T>(doc: PDFKit.PDFDocument, level: 1 | 2, draw: () => T): T {
+  return inside(doc) ? draw() : tagged(doc, `H${level}`, draw);
+}
+
+/** Text as a paragraph of its own unless it is already inside a structure element or an artifact. */
+function paragraph<T>(doc: PDFKit.PDFDocument, draw: () => T): T {
+  return inside(doc) ? draw() : tagged(doc, 'P', draw);
 }
 
 export interface TextStyle {
@@ -128,13 +211,15 @@ export function textBlock(
   const full = doc.heightOfString(t, { width, lineGap: s.lineGap ?? 0 });
   const height = maxHeight !== undefined ? Math.min(full, maxHeight) : full;
   if (height < doc.currentLineHeight(true) - 0.01) return 0;
-  doc.text(t, x, y, {
-    width,
-    height: height + 0.5,
-    lineGap: s.lineGap ?? 0,
-    align: s.align ?? 'left',
-    ellipsis: full > height + 0.5 ? '…' : undefined,
-  });
+  paragraph(doc, () =>
+    doc.text(t, x, y, {
+      width,
+      height: height + 0.5,
+      lineGap: s.lineGap ?? 0,
+      align: s.align ?? 'left',
+      ellipsis: full > height + 0.5 ? '…' : undefined,
+    }),
+  );
   return height;
 }
 
@@ -151,7 +236,7 @@ export function textLine(
   apply(doc, s);
   const w = doc.widthOfString(t);
   const left = anchor === 'end' ? x - w : anchor === 'middle' ? x - w / 2 : x;
-  doc.text(t, left, y, { lineBreak: false });
+  paragraph(doc, () => doc.text(t, left, y, { lineBreak: false }));
   return w;
 }
 
@@ -163,11 +248,21 @@ export function rule(
   color: string = INK.rule,
   width = 0.6,
 ): void {
-  doc.save().moveTo(x0, y).lineTo(x1, y).lineWidth(width).strokeColor(color).stroke().restore();
+  artifact(doc, () => doc.save().moveTo(x0, y).lineTo(x1, y).lineWidth(width).strokeColor(color).stroke().restore());
+}
+
+/** A filled rectangle behind content (a shaded row, a box): furniture, an artifact. */
+export function fillRect(doc: PDFKit.PDFDocument, x: number, y: number, w: number, h: number, color: string): void {
+  artifact(doc, () => doc.save().rect(x, y, w, h).fillColor(color).fill().restore());
 }
 
 /** Draws a chart scene with its top-left corner at (x, y). */
 export function drawScene(doc: PDFKit.PDFDocument, scene: ChartScene, x: number, y: number): void {
+  // A chart is a Figure whose alternate text is the scene's own description (its words).
+  if (!inside(doc)) {
+    tagged(doc, 'Figure', () => drawScene(doc, scene, x, y), undefined, { alt: scene.description || scene.title });
+    return;
+  }
   doc.save();
   doc.translate(x, y);
   for (const item of scene.items) {
@@ -224,6 +319,10 @@ export const FOOTER_HEIGHT = 30;
 
 /** The footer of a page: the trace line, when it was generated, and the page number. */
 export function footer(doc: PDFKit.PDFDocument, trace: BriefTrace, page: number, pages: number): void {
+  artifact(doc, () => footerContent(doc, trace, page, pages), 'Pagination');
+}
+
+function footerContent(doc: PDFKit.PDFDocument, trace: BriefTrace, page: number, pages: number): void {
   const g = geometry(doc);
   const y = g.height - FOOTER_HEIGHT + 4;
   rule(doc, g.left, g.right, y);
@@ -250,6 +349,10 @@ export const PAGE_TOP_END = PAGE_TOP + 22;
 
 /** The top line of a page: the product name and the brief's subtitle. Returns PAGE_TOP_END. */
 export function pageTop(doc: PDFKit.PDFDocument, subtitle: string): number {
+  return artifact(doc, () => pageTopContent(doc, subtitle), 'Pagination');
+}
+
+function pageTopContent(doc: PDFKit.PDFDocument, subtitle: string): number {
   const g = geometry(doc);
   const y = PAGE_TOP;
   textLine(doc, 'Crestwatch', g.left, y, { size: 9, face: 'bold', color: INK.accent });
@@ -263,12 +366,14 @@ export function chip(doc: PDFKit.PDFDocument, text: string, x: number, y: number
   const t = printable(text.toUpperCase());
   doc.font('bold').fontSize(7.5);
   const w = doc.widthOfString(t) + 12;
-  doc.save().roundedRect(x, y, w, 14, 3).fillColor(color).fill().restore();
-  doc
-    .font('bold')
-    .fontSize(7.5)
-    .fillColor(INK.onAccent)
-    .text(t, x + 6, y + 3.6, { lineBreak: false });
+  artifact(doc, () => doc.save().roundedRect(x, y, w, 14, 3).fillColor(color).fill().restore());
+  paragraph(doc, () =>
+    doc
+      .font('bold')
+      .fontSize(7.5)
+      .fillColor(INK.onAccent)
+      .text(t, x + 6, y + 3.6, { lineBreak: false }),
+  );
   return w;
 }
 
@@ -288,9 +393,9 @@ export function cautionsBox(
   for (const t of texts) h += measure(doc, t, inner, s) + 1.5;
   h += 5;
   if (!draw) return h;
-  doc.save().rect(x, y, width, h).fillColor(INK.fill).fill().restore();
-  doc.save().rect(x, y, 2.5, h).fillColor(INK.warn).fill().restore();
-  textLine(doc, 'Read with care', x + 8, y + 7, { size: 8, face: 'bold', color: INK.warn });
+  fillRect(doc, x, y, width, h, INK.fill);
+  fillRect(doc, x, y, 2.5, h, INK.warn);
+  heading(doc, 2, () => textLine(doc, 'Read with care', x + 8, y + 7, { size: 8, face: 'bold', color: INK.warn }));
   let cy = y + 8 + 11;
   for (const t of texts) cy += textBlock(doc, t, x + 8, cy, inner, s) + 1.5;
   return h;

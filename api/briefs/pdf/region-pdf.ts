@@ -5,25 +5,35 @@
  * repeated on each. Rows are measured and paginated before drawing, so every page gets
  * its footer (trace, page n of N) as it is drawn.
  */
+import { DEFAULT_LOCALE, formatCount, inLocale } from '../format';
 import { sourcesSentence } from '../trace';
 import type { RegionBriefContent, RegionBriefRow } from '../../../contracts/briefs';
 import { printable } from './fonts';
 import {
+  artifact,
   cautionsBox,
+  container,
   createBriefDocument,
   drawScene,
+  fillRect,
   footer,
   FOOTER_HEIGHT,
   geometry,
+  heading as tagHeading,
   INK,
   measure,
   PAGE_TOP_END,
   pageTop,
   rule,
   textBlock,
+  tagged,
   textLine,
+  type StructParent,
   type TextStyle,
 } from './page';
+
+/** A count in the region's locale (the content carries it: the PDF is drawn in the compute pool). */
+const countIn = (c: RegionBriefContent, n: number) => inLocale(c.trace.locale ?? DEFAULT_LOCALE, () => formatCount(n));
 
 /** How many districts each summary list shows before "and n more". */
 const LIST_LINES = 8;
@@ -40,6 +50,7 @@ const COLUMN_SHARE: Record<keyof RegionBriefRow, number> = {
 };
 const RIGHT_ALIGNED = new Set<keyof RegionBriefRow>(['gap', 'threshold']);
 
+const HEADING: TextStyle = { size: 11, face: 'bold' };
 const CELL: TextStyle = { size: 7.3, color: INK.text };
 const HEAD: TextStyle = { size: 7, face: 'bold', color: INK.muted };
 const ROW_PAD = 3.2;
@@ -49,7 +60,7 @@ const NAME_LINES = 2;
 function list(
   doc: PDFKit.PDFDocument,
   heading: string,
-  items: { code: string; name: string; text: string; mark?: boolean }[],
+  items: { code: string; name: string; text: string }[],
   note: string | null,
   more: string,
   x: number,
@@ -57,14 +68,14 @@ function list(
   width: number,
 ): number {
   let cy = y;
-  textLine(doc, heading, x, cy, { size: 8.5, face: 'bold' });
+  tagHeading(doc, 2, () => textLine(doc, heading, x, cy, { size: 8.5, face: 'bold' }));
   cy += 13;
-  if (!items.length) {
+  // The note says why the list is empty, or what it lists (e.g. the limit a shift passed).
+  if (!items.length || note)
     cy += textBlock(doc, note ?? 'None.', x, cy, width, { size: 7.8, color: INK.muted }, 40) + 2;
-    return cy - y;
-  }
+  if (!items.length) return cy - y;
   for (const it of items.slice(0, LIST_LINES)) {
-    const line = `${it.code}  ${it.name} — ${it.text}${it.mark ? ' •' : ''}`;
+    const line = `${it.code}  ${it.name} — ${it.text}`;
     cy += textBlock(doc, line, x, cy, width, { size: 7.8, lineGap: 0.3 }, 20) + 2;
   }
   if (items.length > LIST_LINES) {
@@ -87,7 +98,7 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
   const x = g.left;
   const width = g.contentWidth;
   let y = pageTop(doc, c.subtitle);
-  textLine(doc, 'Region brief', x, y, { size: 20, face: 'bold' });
+  tagHeading(doc, 1, () => textLine(doc, 'Region brief', x, y, { size: 20, face: 'bold' }));
   y += 28;
   y += textBlock(doc, c.headline, x, y, width, { size: 10.5, lineGap: 1.2 }, 44) + 8;
 
@@ -97,8 +108,8 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
   const bw = (width - gap * (boxes.length - 1)) / boxes.length;
   boxes.forEach((b, i) => {
     const bx = x + i * (bw + gap);
-    doc.save().rect(bx, y, bw, 40).fillColor(INK.fill).fill().restore();
-    textLine(doc, b.count.toLocaleString('en-GB'), bx + 7, y + 5, {
+    fillRect(doc, bx, y, bw, 40, INK.fill);
+    textLine(doc, countIn(c, b.count), bx + 7, y + 5, {
       size: 15,
       face: 'bold',
       color: b.count ? INK.text : INK.muted,
@@ -121,37 +132,21 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
     y,
     colW,
   );
-  const hRight = list(
-    doc,
-    'Largest threshold shifts',
-    c.shifts.map((s) => ({ ...s, mark: s.overLimit })),
-    c.shiftsNote,
-    'in the table',
-    x + colW + 16,
-    y,
-    colW,
-  );
+  const hRight = list(doc, 'Largest threshold shifts', c.shifts, c.shiftsNote, 'in the table', x + colW + 16, y, colW);
   let hMap = 0;
   if (map) {
     const mx = x + width - mapW;
-    textLine(doc, map.title, mx, y, { size: 8.5, face: 'bold' });
+    tagHeading(doc, 2, () => textLine(doc, map.title, mx, y, { size: 8.5, face: 'bold' }));
     drawScene(doc, map, mx, y + 14);
     hMap = 14 + map.height + 6;
   }
   y += Math.max(hLeft, hRight, hMap);
-  if (c.shifts.some((s) => s.overLimit)) {
-    y +=
-      textBlock(doc, '• moved more than the alert limit for a threshold shift.', x + colW + 16, y, colW, {
-        size: 6.8,
-        color: INK.muted,
-      }) + 2;
-  }
   y += 6;
   rule(doc, x, x + width, y);
   y += 8;
 
   // The regional pooled curve.
-  textLine(doc, 'Regional pooled curve', x, y, { size: 8.5, face: 'bold' });
+  tagHeading(doc, 2, () => textLine(doc, 'Regional pooled curve', x, y, { size: 8.5, face: 'bold' }));
   y += 13;
   const figs = c.pooled.figures;
   if (figs.length) {
@@ -177,11 +172,19 @@ function summaryPage(doc: PDFKit.PDFDocument, c: RegionBriefContent): void {
     const chart = c.pooled.chart;
     const scale = Math.min(1, (modelY - 8 - y - 12) / chart.height, width / chart.width);
     if (scale > 0.45) {
-      doc.save();
-      doc.translate(x, y);
-      doc.scale(scale);
-      drawScene(doc, chart, 0, 0);
-      doc.restore();
+      tagged(
+        doc,
+        'Figure',
+        () => {
+          doc.save();
+          doc.translate(x, y);
+          doc.scale(scale);
+          drawScene(doc, chart, 0, 0);
+          doc.restore();
+        },
+        undefined,
+        { alt: chart.description || chart.title },
+      );
       y += chart.height * scale + 4;
     }
   }
@@ -208,10 +211,21 @@ function columns(c: RegionBriefContent, x: number, width: number): Column[] {
   });
 }
 
-function headerRow(doc: PDFKit.PDFDocument, cols: Column[], x: number, y: number, width: number): number {
+/**
+ * The header row: on the table's first page a TR of TH cells (column scope); repeated on
+ * later pages as page furniture (an artifact), so a reader hears the header once.
+ */
+function headerRow(
+  doc: PDFKit.PDFDocument,
+  cols: Column[],
+  x: number,
+  y: number,
+  width: number,
+  table: StructParent | null,
+): number {
   const h = 16;
-  doc.save().rect(x, y, width, h).fillColor(INK.fill).fill().restore();
-  for (const col of cols) {
+  fillRect(doc, x, y, width, h, INK.fill);
+  const cell = (col: Column) =>
     textLine(
       doc,
       col.label,
@@ -220,6 +234,12 @@ function headerRow(doc: PDFKit.PDFDocument, cols: Column[], x: number, y: number
       HEAD,
       RIGHT_ALIGNED.has(col.key) ? 'end' : 'start',
     );
+  if (table) {
+    const tr = container(doc, 'TR', table);
+    for (const col of cols) tagged(doc, 'TH', () => cell(col), tr, { scope: 'Column' });
+    tr.end();
+  } else {
+    artifact(doc, () => cols.forEach(cell), 'Pagination');
   }
   rule(doc, x, x + width, y + h, INK.muted, 0.6);
   return h;
@@ -283,11 +303,16 @@ function drawRow(
   shaded: boolean,
   x: number,
   width: number,
+  table: StructParent,
 ): void {
-  if (shaded) doc.save().rect(x, y, width, r.height).fillColor('#FAF8F3').fill().restore();
+  if (shaded) fillRect(doc, x, y, width, r.height, '#FAF8F3');
   doc.font('regular').fontSize(CELL.size).fillColor(INK.text);
   const lh = doc.currentLineHeight(true);
-  cols.forEach((col, k) => {
+  const tr = container(doc, 'TR', table);
+  cols.forEach((col, k) => tagged(doc, 'TD', () => drawCell(col, k), tr));
+  tr.end();
+  function drawCell(col: Column, k: number): void {
+    doc.font('regular').fontSize(CELL.size).fillColor(INK.text);
     const t = r.cells[k];
     const right = RIGHT_ALIGNED.has(col.key);
     if (r.widths[k] <= col.width - 6) {
@@ -300,13 +325,14 @@ function drawRow(
         align: right ? 'right' : 'left',
       });
     }
-  });
+  }
 }
 
 export async function renderRegionPdf(c: RegionBriefContent): Promise<Buffer> {
   const { doc, done } = createBriefDocument(c.paperSize, {
     title: `Region brief · run #${c.trace.runId}`,
     subject: `Crestwatch region brief, run #${c.trace.runId}`,
+    lang: c.trace.locale,
   });
   const g = geometry(doc);
   const x = g.left;
@@ -319,25 +345,32 @@ export async function renderRegionPdf(c: RegionBriefContent): Promise<Buffer> {
 
   summaryPage(doc, c);
   footer(doc, c.trace, 1, total);
+  // One Table structure element across the table's pages (PDF 1.7 §14.8.4.3.4).
+  let table: StructParent | null = null;
   for (let p = 0; p < pages.length; p++) {
     const [from, to] = pages[p];
     // Let the server answer other requests (and the collector work) between pages.
     await new Promise((resolve) => setImmediate(resolve));
     doc.addPage();
     let y = pageTop(doc, c.subtitle);
-    textLine(doc, p === 0 ? 'All districts' : 'All districts (continued)', x, y, { size: 11, face: 'bold' });
+    const tableTitle = () => textLine(doc, p === 0 ? 'All districts' : 'All districts (continued)', x, y, HEADING);
+    if (p === 0) tagHeading(doc, 2, tableTitle);
+    else artifact(doc, tableTitle, 'Pagination');
     y += 17;
-    y += headerRow(doc, cols, x, y, width) + 2;
+    const first = table === null;
+    table ??= container(doc, 'Table');
+    y += headerRow(doc, cols, x, y, width, first ? table : null) + 2;
     for (let i = from; i < to; i++) {
-      drawRow(doc, rows[i], cols, y, i % 2 === 1, x, width);
+      drawRow(doc, rows[i], cols, y, i % 2 === 1, x, width, table);
       y += rows[i].height;
     }
     if (p === pages.length - 1) {
+      table.end();
       rule(doc, x, x + width, y, INK.muted, 0.6);
       if (y + 14 < bottom)
         textLine(
           doc,
-          `${c.table.rows.length.toLocaleString('en-GB')} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`,
+          `${countIn(c, c.table.rows.length)} districts. Gap: income now against the threshold. “Regional curve”: the pooled curve stands in for a short series.`,
           x,
           y + 5,
           { size: 6.8, color: INK.muted },
