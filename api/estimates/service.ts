@@ -6,7 +6,9 @@
  * between two published runs of one track.
  */
 import type { Knex } from 'knex';
-import { districtByCode, districtNames, districtSummaries } from '../districts/service';
+import { districtByCode, districtSummaries } from '../districts/service';
+import { regionEstimate } from './region-rows';
+import type { RegionEstimate } from '../../contracts/estimates';
 import { indicatorLabels, resolveTrack, shownTracks, trackRef, type TrackRow } from '../tracks/service';
 import type { IndicatorLabel } from '../../contracts/tracks';
 import type { EstimateRecord } from '../runs/estimate-record';
@@ -128,14 +130,21 @@ export async function listDistricts(db: Knex, trackCode?: string) {
 
 export async function region(db: Knex, trackCode?: string) {
   const track = await resolveTrack(db, trackCode);
-  const { run, byCode } = await publishedSummaries(db, track);
-  const districts = await districtNames(db);
+  const [{ run, byCode }, districts] = await Promise.all([publishedSummaries(db, track), districtSummaries(db)]);
   const counts: Record<string, number> = {};
-  const rows = districts.map((d: { code: string; name: string }) => {
+  const rows = districts.map((d) => {
     const estimate = byCode.get(d.code) ?? null;
     const key = estimate?.standing ?? 'not_estimable';
     counts[key] = (counts[key] ?? 0) + 1;
-    return { code: d.code, name: d.name, estimate };
+    return {
+      code: d.code,
+      name: d.name,
+      firstYear: d.firstYear,
+      lastYear: d.lastYear,
+      nYears: d.nYears,
+      // The summaries' enum fields come from SQL as plain strings; they hold the contract's values.
+      estimate: estimate && regionEstimate(estimate as unknown as RegionEstimate),
+    };
   });
   const pooled = run?.pooled ?? null;
   return {
