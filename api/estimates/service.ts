@@ -6,7 +6,7 @@
  * between two published runs of one track.
  */
 import type { Knex } from 'knex';
-import { districtByCode, districtSummaries } from '../districts/service';
+import { districtByCode, districtNames, districtSummaries } from '../districts/service';
 import { regionEstimate } from './region-rows';
 import type { RegionEstimate } from '../../contracts/estimates';
 import { indicatorLabels, resolveTrack, shownTracks, trackRef, type TrackRow } from '../tracks/service';
@@ -116,16 +116,10 @@ export async function publishedSummaries(
   return { run, byCode: new Map(rows.map((r) => [r.code, nullsToDefaults(r.summary) as EstimateSummary])) };
 }
 
-/** Every district with its data span, latest values and its standing in a track's latest published run. */
-export async function listDistricts(db: Knex, trackCode?: string) {
-  const track = await resolveTrack(db, trackCode);
-  const [districts, published] = await Promise.all([districtSummaries(db), publishedSummaries(db, track)]);
-  return {
-    publishedRunId: published.run?.id ?? null,
-    /** The run the standings come from (what the region list's header names). */
-    run: published.run ? await runMeta(db, published.run) : null,
-    districts: districts.map((d) => ({ ...d, estimate: published.byCode.get(d.code) ?? null })),
-  };
+/** Every district's code and name, by name: what the search needs (the region answer has the standings). */
+export async function listDistricts(db: Knex) {
+  const districts = await districtNames(db);
+  return { districts: districts.map((d) => ({ code: d.code, name: d.name })) };
 }
 
 export async function region(db: Knex, trackCode?: string) {
