@@ -2,7 +2,13 @@
 // @date-fns/tz). One fixed pattern set so every screen prints them alike; the zone is the
 // viewer's unless a caller names one (the schedule uses the region's, published days UTC).
 import { TZDate } from '@date-fns/tz';
-import { differenceInMinutes, format, formatDistanceStrict, isValid, parseISO } from 'date-fns';
+// One module each: Metro bundles every module the package index re-exports (about 160 KB
+// of date-fns in the first route's JavaScript), as it does not drop unused exports.
+import { differenceInMinutes } from 'date-fns/differenceInMinutes';
+import { format } from 'date-fns/format';
+import { formatDistanceStrict } from 'date-fns/formatDistanceStrict';
+import { isValid } from 'date-fns/isValid';
+import { parseISO } from 'date-fns/parseISO';
 
 type Moment = string | number | Date;
 
