@@ -17,11 +17,10 @@ import { Button } from '@/components/ui/button';
 import { useAlertFeedQuery, useMarkAlertReadMutation } from '@/hooks/use-alerts';
 import { useAppFonts } from '@/hooks/use-app-fonts';
 import { useAuthOptionsQuery, useMeQuery, useSignOutMutation } from '@/hooks/use-auth';
-import { useDistrictsQuery } from '@/hooks/use-districts';
 import { useHealthQuery } from '@/hooks/use-health';
 import { useLayoutMode, useThirdColumn } from '@/hooks/use-layout-mode';
 import { usePublishedWatch } from '@/hooks/use-published';
-import { usePublishedRunQuery } from '@/hooks/use-region';
+import { usePublishedRunQuery, useRegionDistrictsQuery } from '@/hooks/use-region';
 import { useRegionLocale } from '@/hooks/use-region-locale';
 import { useTrackChoice } from '@/hooks/use-tracks';
 import { createQueryClient } from '@/lib/query-client';
@@ -60,7 +59,7 @@ function Frame() {
   const listShown = withList && mode === 'wide';
   // The list follows the chosen track (?track=, else the device's, else the headline).
   const choice = useTrackChoice({ enabled: listShown });
-  const districts = useDistrictsQuery({ enabled: listShown, track: choice.request });
+  const districts = useRegionDistrictsQuery({ enabled: listShown, track: choice.request });
   const run = usePublishedRunQuery({ enabled: listShown, track: choice.request });
   // Numbers and dates follow the region's locale (the admin setting GET /api/me carries).
   const locale = useRegionLocale();

@@ -7,23 +7,22 @@ import { RegionMap } from '@/components/region/region-map';
 import { RegionOverview } from '@/components/region/region-overview';
 import { RegionStrip } from '@/components/region/region-strip';
 import { TrackSwitcher } from '@/components/region/track-switcher';
-import { DISTRICTS_PATH, useDistrictsQuery } from '@/hooks/use-districts';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
-import { usePublishedRunQuery, useRegionQuery } from '@/hooks/use-region';
+import { REGION_PATH, usePublishedRunQuery, useRegionDistrictsQuery, useRegionQuery } from '@/hooks/use-region';
 import { useTrackChoice } from '@/hooks/use-tracks';
 import { earlyFetchScript } from '@/lib/early-fetch';
 
-// Starts the list's request (with the URL's or the device's track) while the page's HTML is still parsing.
-const EARLY = earlyFetchScript(/^\/$/, () => DISTRICTS_PATH);
+// Starts the region's request (with the URL's or the device's track) while the page's HTML is still parsing.
+const EARLY = earlyFetchScript(/^\/$/, () => REGION_PATH);
 
 /** Home: the region. Phone: the list with the run line; wide: the list is beside, this shows the overview. */
 export default function RegionScreen() {
   const mode = useLayoutMode();
   const choice = useTrackChoice();
   const track = choice.request;
-  const districts = useDistrictsQuery({ track });
-  // The overview (wide) reads the region's pooled curve; the phone home only needs the run.
-  const region = useRegionQuery({ enabled: mode === 'wide', track });
+  // One answer serves the list, the map, the run line and (wide) the overview's pooled curve.
+  const districts = useRegionDistrictsQuery({ track });
+  const region = useRegionQuery({ track });
   const run = usePublishedRunQuery({ track });
   const level = run.data?.model.level ?? null;
   const [view, setView] = useRegionView();

@@ -15,26 +15,16 @@
  * Environment: BENCH_API_SECONDS (default 30 per target), BENCH_API_CONNECTIONS
  * (default "100,200"), BENCH_DISTRICTS (default 3000).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
-import { loadConfig } from '../api/config';
-import { createComputePool } from '../api/compute/pool';
-import type { AppContext } from '../api/context';
-import { createDb } from '../api/db';
-import { DEMO_INDICATORS } from '../api/demo/catalogue';
-import { startJobs } from '../api/jobs/boss';
-import { createMailer } from '../api/mail/mailer';
-import { ensureDemoAccounts } from '../api/people/service';
-import { publishRun, startRun } from '../api/runs/service';
-import * as runStore from '../api/runs/store';
+import { buildDatabase, spawnReady } from './bench-db';
 import { dropDatabase, ensureDatabase } from '../scripts/database';
 import * as pg from '../scripts/pg';
 import { prepareTestTemplate } from '../scripts/test-template';
-import { insertSyntheticDistricts } from '../tests/support/synthetic';
 import { TEMPLATE_DB, TEST_CLUSTER, testDatabaseUrl } from '../tests/support/test-cluster';
 
 const SECONDS = Number(process.env.BENCH_API_SECONDS ?? 30);
@@ -42,7 +32,6 @@ const CONNECTIONS = (process.env.BENCH_API_CONNECTIONS ?? '100,200').split(',').
 const DISTRICTS = Number(process.env.BENCH_DISTRICTS ?? 3000);
 const DB = 'cw_bench_api';
 const OFFICIAL = 'official@crestwatch.example';
-const root = path.resolve(__dirname, '..');
 const load = () => os.loadavg()[0];
 
 function freePort(): Promise<number> {
@@ -54,81 +43,6 @@ function freePort(): Promise<number> {
       s.close(() => resolve(port));
     });
   });
-}
-
-/** Spawns a tsx script and resolves once its stdout shows `ready`. */
-function spawnReady(script: string, args: string[], env: NodeJS.ProcessEnv, ready: string): Promise<ChildProcess> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, script), ...args], {
-      cwd: root,
-      env,
-      stdio: ['ignore', 'pipe', 'inherit'],
-    });
-    child.stdout!.on('data', (b: Buffer) => {
-      if (b.toString().includes(ready)) resolve(child);
-    });
-    child.once('exit', (code) => reject(new Error(`${script} exited with code ${code}`)));
-  });
-}
-
-/** Builds the database: districts, demo people, one published run (worked by a worker process). */
-async function buildDatabase(url: string): Promise<void> {
-  const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: url };
-  const db = createDb(url);
-  const jobs = await startJobs({
-    databaseUrl: url,
-    expireInSeconds: 300,
-    pollingIntervalSeconds: 0.5,
-    maintenanceIntervalSeconds: 30,
-    schedule: false,
-  });
-  // Starting a run fits nothing here (the worker process does): an inline pool of size 0 is enough.
-  const ctx: AppContext = {
-    db,
-    config,
-    log: () => {},
-    mailer: createMailer(config),
-    jobs,
-    compute: createComputePool(0),
-  };
-  const worker = await spawnReady(
-    'api/worker.ts',
-    [],
-    { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, LOG_REQUESTS: '0' },
-    'is working jobs',
-  );
-  try {
-    await db('indicators').insert(
-      DEMO_INDICATORS.map((i) => ({
-        code: i.code,
-        name: i.name,
-        unit: i.unit,
-        description: i.description,
-        must_be_positive: i.mustBePositive,
-      })),
-    );
-    await ensureDemoAccounts(db);
-    await insertSyntheticDistricts(db, DISTRICTS, { years: 40, seed: 42, prefix: 'B' });
-    const run = await startRun(ctx, null, {});
-    for (;;) {
-      const r = (await runStore.findRun(db, run.id))!;
-      if (r.state === 'failed') throw new Error(r.error ?? 'run failed');
-      if (r.state === 'in_review') break;
-      await new Promise((res) => setTimeout(res, 100));
-    }
-    const analyst = await db('users').where({ role: 'analyst' }).first();
-    await publishRun(
-      ctx,
-      { id: analyst.id, email: analyst.email, name: analyst.name, role: 'analyst', active: true } as never,
-      run.id,
-    );
-    await db.raw('VACUUM ANALYZE');
-  } finally {
-    worker.kill('SIGTERM');
-    await jobs.stop();
-    ctx.mailer.close();
-    await db.destroy();
-  }
 }
 
 /** Signs the official in through the stand-in with plain HTTP; returns the cookie header. */
@@ -214,7 +128,7 @@ async function main(): Promise<void> {
   const procs: ChildProcess[] = [];
   try {
     const t0 = performance.now();
-    await buildDatabase(url);
+    await buildDatabase(url, DISTRICTS);
     console.log(
       `built ${DISTRICTS} districts × 40 years with one published run in ${((performance.now() - t0) / 1000).toFixed(1)} s (load ${load().toFixed(2)}, ${os.cpus().length} cores)`,
     );

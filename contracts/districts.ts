@@ -5,7 +5,6 @@
  */
 import * as z from './kit';
 import { isoTime, nullableNumber, nullableString, RoleSchema } from './common';
-import { EstimateSummarySchema, PublishedRunMetaSchema } from './estimates';
 
 export const CORE_INDICATOR_CODES = ['emissions_pc', 'income_pc', 'population', 'pop_density'] as const;
 export const IndicatorCodeSchema = z.enum(CORE_INDICATOR_CODES);
@@ -33,18 +32,16 @@ const districtHeaderFields = {
 export const DistrictSummarySchema = z.object({ ...districtHeaderFields, latest: z.nullable(SeriesRowSchema) });
 export type DistrictSummary = z.infer<typeof DistrictSummarySchema>;
 
-/** A row of the district list: its summary and its standing in the latest published run. */
-export const DistrictListItemSchema = z.extend(DistrictSummarySchema, {
-  estimate: z.optional(z.nullable(EstimateSummarySchema)),
-});
+/**
+ * A row of the district list: code and name, what the search needs (lib/district-search.ts).
+ * Standings, coverage and the run come with the region answer (GET /api/region), a
+ * district's details with its own answers.
+ */
+export const DistrictListItemSchema = z.object({ code: z.string(), name: z.string() });
 export type DistrictListItem = z.infer<typeof DistrictListItemSchema>;
 
-export const DistrictListResponseSchema = z.object({
-  publishedRunId: z.optional(nullableNumber),
-  /** the run the standings come from */
-  run: z.optional(z.nullable(PublishedRunMetaSchema)),
-  districts: z.array(DistrictListItemSchema),
-});
+/** GET /api/districts: every district, by name. */
+export const DistrictListResponseSchema = z.object({ districts: z.array(DistrictListItemSchema) });
 export type DistrictListResponse = z.infer<typeof DistrictListResponseSchema>;
 
 export const IndicatorSchema = z.object({ code: IndicatorCodeSchema, name: z.string(), unit: z.string() });

@@ -210,10 +210,32 @@ export const DistrictEstimateResponseSchema = z.object({
 });
 export type DistrictEstimateResponse = z.infer<typeof DistrictEstimateResponseSchema>;
 
+/**
+ * A district's published estimate as the region list, map and counts show it: the standing
+ * and its marks, the gap and the crossing; nothing the card alone shows (the threshold's
+ * interval, its Fieller kind, the crossing's range, the current level). Figures are
+ * rounded to the precision shown (api/estimates/region-rows.ts); the card has them all.
+ */
+export const RegionEstimateSchema = z.pick(EstimateSummarySchema, {
+  status: true,
+  standing: true,
+  intervalBounded: true,
+  shape: true,
+  threshold: true,
+  gapPercent: true,
+  crossingYear: true,
+  projectionStatus: true,
+});
+export type RegionEstimate = z.infer<typeof RegionEstimateSchema>;
+
 export const RegionDistrictSchema = z.object({
   code: z.string(),
   name: z.string(),
-  estimate: z.nullable(EstimateSummarySchema),
+  /** the years of data (the list row's coverage) */
+  firstYear: nullableNumber,
+  lastYear: nullableNumber,
+  nYears: z.number(),
+  estimate: z.nullable(RegionEstimateSchema),
 });
 export type RegionDistrict = z.infer<typeof RegionDistrictSchema>;
 

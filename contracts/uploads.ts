@@ -109,6 +109,42 @@ export const UploadAnswerSchema = z.discriminatedUnion('noop', [
 ]);
 export type UploadAnswer = z.infer<typeof UploadAnswerSchema>;
 
+/** The server's phases of an upload, in order: read and check each row, check against stored data, merge. */
+export const UPLOAD_PHASES = ['reading', 'checking', 'merging'] as const;
+export const UploadPhaseSchema = z.enum(UPLOAD_PHASES);
+export type UploadPhase = z.infer<typeof UploadPhaseSchema>;
+
+/** Where a failed or refused upload stopped: its phase, and the line of the first error (null when no line applies). */
+export const UploadStopSchema = z.object({ phase: UploadPhaseSchema, line: nullableNumber });
+export type UploadStop = z.infer<typeof UploadStopSchema>;
+
+/** What a phase has counted so far (rows and values read; values new, changed and unchanged once checked). */
+export const UploadPhaseCountsSchema = z.object({
+  bytesRead: z.number(),
+  bytesTotal: z.number(),
+  rowsRead: z.number(),
+  values: z.number(),
+  insert: nullableNumber,
+  change: nullableNumber,
+  unchanged: nullableNumber,
+  derived: nullableNumber,
+});
+export type UploadPhaseCounts = z.infer<typeof UploadPhaseCountsSchema>;
+
+/** GET /api/uploads/progress/:key: an upload's progress, under the key its client chose (?progress=key). */
+export const UploadProgressSchema = z.object({
+  key: z.string(),
+  /** `done` once answered; `failed` when refused or broken (then `stoppedAt` says where). */
+  state: z.enum(['running', 'done', 'failed']),
+  phase: UploadPhaseSchema,
+  /** The phases entered so far, in order, each with when it began (ms since the upload started). */
+  phases: z.array(z.object({ phase: UploadPhaseSchema, atMs: z.number() })),
+  counts: UploadPhaseCountsSchema,
+  commit: z.boolean(),
+  stoppedAt: z.nullable(UploadStopSchema),
+});
+export type UploadProgress = z.infer<typeof UploadProgressSchema>;
+
 /** The `details` of a 422 `upload_rejected`: nothing was written. */
 export const UploadRejectionDetailsSchema = z.object({
   uploadId: nullableNumber,
@@ -117,6 +153,8 @@ export const UploadRejectionDetailsSchema = z.object({
   warningCount: z.number(),
   truncated: z.boolean(),
   preview: z.nullable(UploadPreviewSchema),
+  /** Where the work stopped: the phase, and the line of the first error when there is one. */
+  stoppedAt: z.optional(UploadStopSchema),
 });
 export type UploadRejectionDetails = z.infer<typeof UploadRejectionDetailsSchema>;
 

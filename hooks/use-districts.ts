@@ -8,28 +8,22 @@ import {
   type DistrictDetailResponse,
   type DistrictListResponse,
 } from '@/contracts/districts';
-import { earlyJson } from '@/lib/early-fetch';
 import { STALE_TIMES } from '@/lib/stale-times';
-import { withTrack } from '@/lib/track-choice';
 
 /** Every districts key starts here, so one invalidation (after an upload) refreshes them all. */
 export const districtKeysRoot = ['districts'] as const;
 
 export const districtKeys = {
   all: districtKeysRoot,
-  /** the list with one track's standings (null: the headline track) */
-  list: (track: string | null = null) => [...districtKeysRoot, 'list', track] as const,
+  /** every district's code and name (the standings come with the region: hooks/use-region.ts) */
+  list: () => [...districtKeysRoot, 'list'] as const,
   detail: (code: string) => [...districtKeysRoot, 'detail', code] as const,
 };
 
-/** The district list's path; the home route also starts it early from the page's <head>. */
 export const DISTRICTS_PATH = '/api/districts';
 
-export async function fetchDistricts(track: string | null, signal?: AbortSignal): Promise<DistrictListResponse> {
-  // The home route starts this request from the page's <head> (lib/early-fetch.ts).
-  const path = withTrack(DISTRICTS_PATH, track);
-  const early = await earlyJson(path, DistrictListResponseSchema);
-  return early ?? apiGet(path, { signal, schema: DistrictListResponseSchema });
+export function fetchDistricts(signal?: AbortSignal): Promise<DistrictListResponse> {
+  return apiGet(DISTRICTS_PATH, { signal, schema: DistrictListResponseSchema });
 }
 
 export function fetchDistrict(code: string, signal?: AbortSignal): Promise<DistrictDetailResponse> {
@@ -37,14 +31,13 @@ export function fetchDistrict(code: string, signal?: AbortSignal): Promise<Distr
 }
 
 /**
- * All districts, sorted by name (the server's order), with the standings of `track` (omitted:
- * the headline track); `enabled: false` where no list is shown.
+ * Every district's code and name, sorted by name (the server's order), for choosing one by
+ * search; `enabled: false` where none is chosen. The region list reads the region's rows.
  */
-export function useDistrictsQuery(options: { enabled?: boolean; track?: string | null } = {}) {
-  const track = options.track ?? null;
+export function useDistrictsQuery(options: { enabled?: boolean } = {}) {
   return useQuery({
-    queryKey: districtKeys.list(track),
-    queryFn: ({ signal }) => fetchDistricts(track, signal),
+    queryKey: districtKeys.list(),
+    queryFn: ({ signal }) => fetchDistricts(signal),
     staleTime: STALE_TIMES.districtList,
     select: (data) => data.districts,
     enabled: options.enabled ?? true,

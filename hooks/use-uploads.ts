@@ -2,16 +2,19 @@
 // POST /api/uploads/:id/commit and /revert. Committing or reverting changes district series,
 // so both refresh every districts key as well.
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useCallback, useState } from 'react';
 
-import { apiGet, apiSend } from '@/lib/api-client';
+import { ApiError, apiGet, apiSend, type SendProgress } from '@/lib/api-client';
 import type { PickedFile } from '@/lib/pick-file.types';
-import { STALE_TIMES } from '@/lib/stale-times';
+import { STALE_TIMES, UPLOAD_POLL_MS } from '@/lib/stale-times';
 import {
   RevertAnswerSchema,
   UploadAnswerSchema,
   UploadDetailResponseSchema,
   UploadListResponseSchema,
+  UploadProgressSchema,
   type UploadOptions,
+  type UploadProgress,
 } from '@/contracts/uploads';
 
 import { invalidatePublished } from './use-published';
@@ -22,7 +25,65 @@ export const uploadKeys = {
   all: uploadKeysRoot,
   list: () => [...uploadKeysRoot, 'list'] as const,
   detail: (id: number) => [...uploadKeysRoot, 'detail', id] as const,
+  progress: (key: string) => [...uploadKeysRoot, 'progress', key] as const,
 };
+
+/** How one upload is followed: the key the server reports under, and where the bytes sent go. */
+export type UploadWatch = { key: string; onSent: SendProgress };
+
+/** What the screen knows of a running upload: bytes sent (the browser's count), then the server's phase. */
+export type UploadProgressView = {
+  sent: { loaded: number; total: number } | null;
+  server: UploadProgress | null;
+};
+
+/** 32 hex digits: unguessable enough that two uploads never share a key. */
+function newProgressKey(): string {
+  const bytes = new Uint8Array(16);
+  if (typeof crypto !== 'undefined' && typeof crypto.getRandomValues === 'function') crypto.getRandomValues(bytes);
+  else for (let i = 0; i < bytes.length; i++) bytes[i] = Math.floor(Math.random() * 256);
+  return Array.from(bytes, (b) => b.toString(16).padStart(2, '0')).join('');
+}
+
+/**
+ * Follows one upload at a time: `begin()` picks a key and returns the watch to send with
+ * the upload; the server's progress under that key is polled every UPLOAD_POLL_MS until
+ * `end()`. Before the server has started (still receiving the file) the key is unknown
+ * there, which is not an error.
+ */
+export function useUploadProgress() {
+  const [key, setKey] = useState<string | null>(null);
+  const [sent, setSent] = useState<UploadProgressView['sent']>(null);
+  const server = useQuery({
+    queryKey: uploadKeys.progress(key ?? ''),
+    queryFn: async ({ signal }) => {
+      try {
+        return await apiGet(`/api/uploads/progress/${key}`, { signal, schema: UploadProgressSchema });
+      } catch (error) {
+        if (error instanceof ApiError && error.status === 404) return null;
+        throw error;
+      }
+    },
+    enabled: key !== null,
+    staleTime: STALE_TIMES.uploadProgress,
+    refetchInterval: UPLOAD_POLL_MS,
+    retry: false,
+  });
+  const begin = useCallback((): UploadWatch => {
+    const k = newProgressKey();
+    setSent(null);
+    setKey(k);
+    return { key: k, onSent: (loaded, total) => setSent({ loaded, total }) };
+  }, []);
+  const end = useCallback(() => setKey(null), []);
+  const progress: UploadProgressView | null = key ? { sent, server: server.data ?? null } : null;
+  return { progress, begin, end };
+}
+
+function withProgress(path: string, watch?: UploadWatch): string {
+  if (!watch) return path;
+  return `${path}${path.includes('?') ? '&' : '?'}progress=${encodeURIComponent(watch.key)}`;
+}
 
 export function useUploadsQuery(enabled = true) {
   return useQuery({
@@ -60,10 +121,14 @@ export function uploadQueryString(options: UploadOptions): string {
 export function useUploadPreviewMutation() {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: ({ file, options }: { file: PickedFile; options: UploadOptions }) => {
+    mutationFn: ({ file, options, watch }: { file: PickedFile; options: UploadOptions; watch?: UploadWatch }) => {
       const form = new FormData();
       file.appendTo(form, 'file');
-      return apiSend('POST', `/api/uploads${uploadQueryString(options)}`, { form, schema: UploadAnswerSchema });
+      return apiSend('POST', withProgress(`/api/uploads${uploadQueryString(options)}`, watch), {
+        form,
+        schema: UploadAnswerSchema,
+        onUploadProgress: watch?.onSent,
+      });
     },
     onSettled: () => client.invalidateQueries({ queryKey: uploadKeys.list() }),
   });
@@ -83,7 +148,8 @@ function useAfterDataChange() {
 export function useCommitUploadMutation() {
   const refresh = useAfterDataChange();
   return useMutation({
-    mutationFn: (id: number) => apiSend('POST', `/api/uploads/${id}/commit`, { schema: UploadAnswerSchema }),
+    mutationFn: ({ id, watch }: { id: number; watch?: UploadWatch }) =>
+      apiSend('POST', withProgress(`/api/uploads/${id}/commit`, watch), { schema: UploadAnswerSchema }),
     onSettled: refresh,
   });
 }

@@ -86,6 +86,54 @@ async function send(path: string, init: RequestInit, signal?: AbortSignal): Prom
   }
 }
 
+/** Bytes of a request body sent so far, and of the whole body. */
+export type SendProgress = (sent: number, total: number) => void;
+
+/**
+ * The same request through XMLHttpRequest, whose upload events report the bytes sent
+ * (fetch has none for a request body); its answer is turned into a Response so the rest
+ * of this module reads it as any other.
+ */
+function sendWithProgress(path: string, init: RequestInit, onProgress: SendProgress, signal?: AbortSignal) {
+  return new Promise<Response>((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open(init.method ?? 'POST', serverUrl(path));
+    xhr.withCredentials = false;
+    for (const [name, value] of Object.entries((init.headers ?? {}) as Record<string, string>))
+      xhr.setRequestHeader(name, value);
+    xhr.upload.onprogress = (e) => {
+      if (e.lengthComputable) onProgress(e.loaded, e.total);
+    };
+    xhr.onload = () => {
+      const headers = new Headers();
+      for (const line of xhr
+        .getAllResponseHeaders()
+        .trim()
+        .split(/[\r\n]+/)) {
+        const at = line.indexOf(':');
+        if (at > 0) headers.append(line.slice(0, at).trim(), line.slice(at + 1).trim());
+      }
+      // A Response cannot carry a 1xx or a 204 with a body; the statuses here are final ones.
+      const empty = xhr.status === 204 || xhr.status === 304;
+      resolve(
+        new Response(empty ? null : xhr.responseText, { status: xhr.status, statusText: xhr.statusText, headers }),
+      );
+    };
+    const fail = () =>
+      reject(
+        signal?.aborted
+          ? (signal.reason ?? new DOMException('Aborted', 'AbortError'))
+          : new ApiError(0, 'network_error', 'The Crestwatch server could not be reached.', {
+              cause: 'the upload was interrupted',
+            }),
+      );
+    xhr.onerror = fail;
+    xhr.onabort = fail;
+    signal?.addEventListener('abort', () => xhr.abort(), { once: true });
+    xhr.send(init.body as XMLHttpRequestBodyInit | null);
+  });
+}
+
 /** A non-2xx answer as an ApiError: the server's error shape when it sent one. */
 function failure(response: Response, body: unknown): ApiError {
   // Signed out, or the session ended: answers kept for reading offline belong to someone
@@ -153,6 +201,8 @@ export type ApiSendOptions<T> = ApiGetOptions<T> & {
   json?: unknown;
   /** A multipart body (the browser sets its boundary). */
   form?: FormData;
+  /** Bytes sent of a multipart body, as the browser reports them (sent through XMLHttpRequest then). */
+  onUploadProgress?: SendProgress;
 };
 
 /**
@@ -183,6 +233,8 @@ export async function apiSend<T = void>(
       headers['Content-Type'] = 'application/json';
       body = JSON.stringify(options.json);
     }
+    if (options.form && options.onUploadProgress && typeof XMLHttpRequest !== 'undefined')
+      return sendWithProgress(path, { method, headers, body }, options.onUploadProgress, options.signal);
     return send(path, { method, headers, body }, options.signal);
   };
   let response = await attempt(await currentCsrfToken());

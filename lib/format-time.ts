@@ -2,7 +2,12 @@
 // `regionLocale` setting, lib/format.ts): "2 Dec 2026, 06:00" in en-GB, "2. Dez. 2026, 06:00"
 // in de-DE. The zone is the viewer's unless a caller names one (the schedule uses the
 // region's, published days UTC). Relative times ("in 3 days") stay in English words.
-import { differenceInMinutes, formatDistanceStrict, isValid, parseISO } from 'date-fns';
+// date-fns one module each: Metro bundles every module the package index re-exports (about
+// 160 KB of date-fns in the first route's JavaScript), as it does not drop unused exports.
+import { differenceInMinutes } from 'date-fns/differenceInMinutes';
+import { formatDistanceStrict } from 'date-fns/formatDistanceStrict';
+import { isValid } from 'date-fns/isValid';
+import { parseISO } from 'date-fns/parseISO';
 
 import { formatDecimal, regionLocale } from './format';
 

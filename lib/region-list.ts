@@ -1,10 +1,9 @@
 // The region list's order, filters and search, as pure functions over the district list
-// (GET /api/districts, each district with its latest published estimate summary).
-import type { DistrictSummary } from '@/contracts/districts';
-import type { EstimateSummary, Shape, Standing } from '@/contracts/estimates';
+// (GET /api/region's rows: each district with its standing in a track's published run).
+import type { RegionDistrict, Shape, Standing } from '@/contracts/estimates';
 import { searchDistricts } from './district-search';
 
-export type RegionRow = DistrictSummary & { estimate?: EstimateSummary | null };
+export type RegionRow = RegionDistrict;
 
 export type SortKey = 'gap' | 'name' | 'crossing';
 

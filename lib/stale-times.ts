@@ -24,6 +24,8 @@ export const STALE_TIMES = {
   subscriptions: 5 * MINUTE,
   /** Upload history: another analyst may load a file meanwhile; half a minute is recent enough. */
   uploads: 30 * SECOND,
+  /** A running upload's progress is polled (UPLOAD_POLL_MS); an answer is old at once. */
+  uploadProgress: 0,
   /** A kept preview does not change once made (only committing it does, which refetches). */
   uploadDetail: 5 * MINUTE,
   /** Run list: scheduled runs appear without anyone here pressing a button. */
@@ -51,6 +53,9 @@ export const STALE_TIMES = {
 
 /** How often a queued or running run is asked for its progress (ms). */
 export const RUN_POLL_MS = 1500;
+
+/** How often a running upload is asked for its phase and counts (ms). */
+export const UPLOAD_POLL_MS = 500;
 
 export type StaleTimeName = keyof typeof STALE_TIMES;
 

@@ -21,11 +21,10 @@ export function estimateRoutes({ db }: AppContext): RouteSpec[] {
       path: '/api/districts',
       allow: SIGNED_IN,
       tag: 'districts',
-      summary: 'Every district with its years covered, latest values and standing in the latest published run',
+      summary:
+        'Every district’s code and name, by name (what the search needs; standings come with /api/region, details with each district’s answers)',
       answer: DistrictListResponseSchema,
-      schemas: { query: trackQuery },
-      handler: ({ query }, req, res) =>
-        sendPublished(db, req, res, keyOf('districts', query.track), () => service.listDistricts(db, query.track)),
+      handler: (_input, req, res) => sendPublished(db, req, res, 'districts', () => service.listDistricts(db)),
     }),
     route({
       method: 'get',

@@ -7,6 +7,8 @@
  */
 import type { Knex } from 'knex';
 import { districtByCode, districtNames, districtSummaries } from '../districts/service';
+import { regionEstimate } from './region-rows';
+import type { RegionEstimate } from '../../contracts/estimates';
 import { indicatorLabels, resolveTrack, shownTracks, trackRef, type TrackRow } from '../tracks/service';
 import type { IndicatorLabel } from '../../contracts/tracks';
 import type { EstimateRecord } from '../runs/estimate-record';
@@ -114,28 +116,29 @@ export async function publishedSummaries(
   return { run, byCode: new Map(rows.map((r) => [r.code, nullsToDefaults(r.summary) as EstimateSummary])) };
 }
 
-/** Every district with its data span, latest values and its standing in a track's latest published run. */
-export async function listDistricts(db: Knex, trackCode?: string) {
-  const track = await resolveTrack(db, trackCode);
-  const [districts, published] = await Promise.all([districtSummaries(db), publishedSummaries(db, track)]);
-  return {
-    publishedRunId: published.run?.id ?? null,
-    /** The run the standings come from (what the region list's header names). */
-    run: published.run ? await runMeta(db, published.run) : null,
-    districts: districts.map((d) => ({ ...d, estimate: published.byCode.get(d.code) ?? null })),
-  };
+/** Every district's code and name, by name: what the search needs (the region answer has the standings). */
+export async function listDistricts(db: Knex) {
+  const districts = await districtNames(db);
+  return { districts: districts.map((d) => ({ code: d.code, name: d.name })) };
 }
 
 export async function region(db: Knex, trackCode?: string) {
   const track = await resolveTrack(db, trackCode);
-  const { run, byCode } = await publishedSummaries(db, track);
-  const districts = await districtNames(db);
+  const [{ run, byCode }, districts] = await Promise.all([publishedSummaries(db, track), districtSummaries(db)]);
   const counts: Record<string, number> = {};
-  const rows = districts.map((d: { code: string; name: string }) => {
+  const rows = districts.map((d) => {
     const estimate = byCode.get(d.code) ?? null;
     const key = estimate?.standing ?? 'not_estimable';
     counts[key] = (counts[key] ?? 0) + 1;
-    return { code: d.code, name: d.name, estimate };
+    return {
+      code: d.code,
+      name: d.name,
+      firstYear: d.firstYear,
+      lastYear: d.lastYear,
+      nYears: d.nYears,
+      // The summaries' enum fields come from SQL as plain strings; they hold the contract's values.
+      estimate: estimate && regionEstimate(estimate as unknown as RegionEstimate),
+    };
   });
   const pooled = run?.pooled ?? null;
   return {

@@ -2,11 +2,13 @@
 import { z } from 'zod';
 import * as audit from '../audit/service';
 import type { AppContext } from '../context';
+import { AppError, NotFoundError } from '../http/errors';
 import { callerOf, route, SIGNED_IN, STAFF, type RouteSpec } from '../http/routes';
 import { getSettings } from '../settings/service';
 import { dataVersion, revertUpload } from './change-sets';
 import { receivedFile, receiveFile } from './multipart';
-import { uploadIdParams, uploadListQuery, uploadQuery } from './schema';
+import { ProgressTracker, readProgress } from './progress';
+import { progressParams, uploadCommitQuery, uploadIdParams, uploadListQuery, uploadQuery } from './schema';
 import * as service from './service';
 import { DataVersionSchema } from '../../contracts/districts';
 import {
@@ -14,11 +16,27 @@ import {
   UploadAnswerSchema,
   UploadDetailResponseSchema,
   UploadListResponseSchema,
+  UploadProgressSchema,
+  UploadRejectionDetailsSchema,
 } from '../../contracts/uploads';
+import { safeParse } from '../../contracts/kit';
 
 function who(req: Parameters<typeof callerOf>[0]): service.Who {
   const c = callerOf(req);
   return { id: c?.id ?? null, email: c?.email ?? null };
+}
+
+/** Runs an upload step with its tracker: done when it answers, failed (and where) when it throws. */
+async function tracked<T>(progress: ProgressTracker, work: () => Promise<T>): Promise<T> {
+  try {
+    const answer = await work();
+    progress.done();
+    return answer;
+  } catch (err) {
+    const details = err instanceof AppError ? safeParse(UploadRejectionDetailsSchema, err.details) : null;
+    progress.failed(details?.success ? details.data.stoppedAt : null);
+    throw err;
+  }
 }
 
 export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
@@ -38,13 +56,22 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
       schemas: { query: uploadQuery },
       handler: async ({ query }, req, res) => {
         const w = who(req);
-        const changeFactor = query.changeFactor ?? (await getSettings(db)).uploadChangeFactor;
-        const answer = await service.receiveUpload(
-          db,
-          receivedFile(req),
-          { ...query, changeFactor, maxNewDistricts: config.uploadMaxNewDistricts },
-          w,
-        );
+        const file = receivedFile(req);
+        const progress = new ProgressTracker(query.progress ?? null, w.id, {
+          bytesTotal: file.size,
+          commit: query.commit,
+        });
+        const answer = await tracked(progress, async () => {
+          const changeFactor = query.changeFactor ?? (await getSettings(db)).uploadChangeFactor;
+          return service.receiveUpload(
+            db,
+            file,
+            { ...query, changeFactor, maxNewDistricts: config.uploadMaxNewDistricts },
+            w,
+            new Date(),
+            progress,
+          );
+        });
         if (!answer.noop) answer.timings.receiveMs = res.locals.receiveMs;
         if (!answer.noop && answer.upload.status === 'committed') {
           await record(w, 'upload.commit', answer.upload.id, {
@@ -70,6 +97,21 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
     }),
     route({
       method: 'get',
+      path: '/api/uploads/progress/:key',
+      answer: UploadProgressSchema,
+      allow: STAFF,
+      tag: 'uploads',
+      summary:
+        "An upload's progress under the key its client chose (POST /api/uploads?progress=<key>): phase, counts, and where a refused upload stopped; only for the person who sent it, kept 10 minutes after the answer",
+      schemas: { params: progressParams },
+      handler: ({ params }, req) => {
+        const found = readProgress(params.key, who(req).id);
+        if (!found) throw new NotFoundError(`No upload in progress under the key ${params.key}.`, { key: params.key });
+        return found;
+      },
+    }),
+    route({
+      method: 'get',
       path: '/api/uploads/:id',
       answer: UploadDetailResponseSchema,
       allow: STAFF,
@@ -85,11 +127,17 @@ export function uploadRoutes({ db, config }: AppContext): RouteSpec[] {
       statuses: [200, 201],
       allow: STAFF,
       tag: 'uploads',
-      summary: 'Commit a previewed upload from its kept staged rows (checked again against the data as it is now)',
-      schemas: { params: uploadIdParams },
-      handler: async ({ params }, req, res) => {
+      summary:
+        'Commit a previewed upload from its kept staged rows (checked again against the data as it is now); ?progress=<key> reports its phases',
+      schemas: { params: uploadIdParams, query: uploadCommitQuery },
+      handler: async ({ params, query }, req, res) => {
         const w = who(req);
-        const answer = await service.commitPreviewed(db, params.id, w);
+        const progress = new ProgressTracker(query.progress ?? null, w.id, {
+          bytesTotal: 0,
+          commit: true,
+          phase: 'checking',
+        });
+        const answer = await tracked(progress, () => service.commitPreviewed(db, params.id, w, progress));
         if (!answer.noop) {
           await record(w, 'upload.commit', answer.upload.id, {
             fileName: answer.upload.fileName,

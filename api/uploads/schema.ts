@@ -7,7 +7,19 @@ export const queryBool = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])
   .transform((v) => v === 'true' || v === '1' || v === 'yes');
 
+/** A key the client chooses to follow an upload's progress (GET /api/uploads/progress/:key). */
+export const progressKey = z
+  .string()
+  .regex(/^[A-Za-z0-9_-]{16,64}$/, 'a progress key is 16 to 64 letters, digits, "-" or "_"');
+
+export const progressParams = z.object({ key: progressKey });
+
+/** POST /api/uploads/:id/commit: only the progress key. */
+export const uploadCommitQuery = z.object({ progress: progressKey.optional() });
+
 export const uploadQuery = z.object({
+  /** Report phases and counts under this key while the upload runs. */
+  progress: progressKey.optional(),
   commit: queryBool.default(false),
   allowNewDistricts: queryBool.default(false),
   decimalComma: queryBool.default(false),

@@ -15,10 +15,12 @@ import { applyChanges, type ChangeTable } from './merge-store';
 import { UploadReader, type CatalogueEntry, type ReadSummary } from './parse/upload-reader';
 import { buildPreview, DISTRICT_ORDER, PREVIEW_LIST_CAP, summaryOf, type Preview, type UploadSummary } from './present';
 import { ProblemList, summarise, type Problem } from './problems';
+import { ProgressTracker } from './progress';
 import type { UploadOptions } from './schema';
 import { inTransaction, lockObservations, withConnection, type Sql } from '../db/connection';
 import * as staging from './staging-store';
 import * as store from './store';
+import type { UploadStop } from '../../contracts/uploads';
 
 export interface Who {
   id: number | null;
@@ -67,7 +69,7 @@ async function timed<T>(timings: Timings, key: 'readMs' | 'checkMs' | 'mergeMs',
 }
 
 export class UploadRejected extends AppError {
-  constructor(problems: ProblemList, uploadId: number | null, preview: Preview | null) {
+  constructor(problems: ProblemList, uploadId: number | null, preview: Preview | null, stoppedAt?: UploadStop) {
     const listed = problems.sorted();
     super(422, 'upload_rejected', `The file was not loaded. ${summarise(listed, problems.errors, problems.warnings)}`, {
       uploadId,
@@ -76,6 +78,7 @@ export class UploadRejected extends AppError {
       warningCount: problems.warnings,
       truncated: problems.truncated,
       preview,
+      ...(stoppedAt ? { stoppedAt } : {}),
     });
   }
 }
@@ -94,6 +97,7 @@ export async function receiveUpload(
   options: UploadOptions & { commit: boolean; maxNewDistricts?: number },
   who: Who,
   now = new Date(),
+  progress = new ProgressTracker(null, who.id, { bytesTotal: file.size, commit: options.commit }),
 ): Promise<UploadAnswer> {
   return withConnection(db, async (conn) => {
     await staging.pruneStaging(conn, now);
@@ -106,7 +110,9 @@ export async function receiveUpload(
     const timings: Timings = {};
     try {
       const problems = new ProblemList();
-      const read = await timed(timings, 'readMs', () => readIntoStaging(conn, t, file, options, problems, now));
+      const read = await timed(timings, 'readMs', () =>
+        readIntoStaging(conn, t, file, options, problems, now, progress),
+      );
       const base: store.NewUpload = {
         kind: 'file',
         status: 'failed',
@@ -129,12 +135,12 @@ export async function receiveUpload(
           counts: { ...base.counts, errors: problems.errors, warnings: problems.warnings },
           problems: problems.sorted(),
         });
-        throw new UploadRejected(problems, failed.id, null);
+        throw new UploadRejected(problems, failed.id, null, progress.stopPoint(problems.sorted()));
       }
       const columns = read.columns;
       const outcome = options.commit
-        ? await commitStaged(conn, t, read, columns, options, problems, base, null, timings)
-        : await previewStaged(conn, t, read, columns, options, problems, timings);
+        ? await commitStaged(conn, t, read, columns, options, problems, base, null, timings, progress)
+        : await previewStaged(conn, t, read, columns, options, problems, timings, progress);
       if (outcome.kind === 'noop') return noop(outcome.upload);
       if (problems.errors > 0) {
         const failed = await store.insertUpload(conn, {
@@ -143,7 +149,7 @@ export async function receiveUpload(
           preview: outcome.preview,
           problems: problems.sorted(),
         });
-        throw new UploadRejected(problems, failed.id, outcome.preview);
+        throw new UploadRejected(problems, failed.id, outcome.preview, progress.stopPoint(problems.sorted()));
       }
       if (outcome.kind === 'committed') {
         return {
@@ -184,7 +190,12 @@ export async function receiveUpload(
 }
 
 /** Commits a kept preview: the checks run again against the data as it is now. */
-export async function commitPreviewed(db: Knex, id: number, who: Who): Promise<UploadAnswer> {
+export async function commitPreviewed(
+  db: Knex,
+  id: number,
+  who: Who,
+  progress = new ProgressTracker(null, who.id, { bytesTotal: 0, commit: true, phase: 'checking' }),
+): Promise<UploadAnswer> {
   return withConnection(db, async (conn) => {
     const u = await store.findUpload(conn, id);
     if (!u || u.kind !== 'file') throw new NotFoundError(`No upload ${id}`, { id });
@@ -210,7 +221,19 @@ export async function commitPreviewed(db: Knex, id: number, who: Who): Promise<U
     const options = u.options as unknown as UploadOptions;
     const base: store.NewUpload = { kind: 'file', status: 'failed', userId: who.id, userEmail: who.email };
     const timings: Timings = {};
-    const outcome = await commitStaged(conn, t, read, prior!.columns!, options, problems, base, u.id, timings);
+    progress.count({ rowsRead: read.rowsRead, values: read.values });
+    const outcome = await commitStaged(
+      conn,
+      t,
+      read,
+      prior!.columns!,
+      options,
+      problems,
+      base,
+      u.id,
+      timings,
+      progress,
+    );
     if (outcome.kind === 'noop') {
       await store.markFailed(conn, u.id, 0, 0, []);
       await staging.dropStaging(conn, u.stagingTable);
@@ -219,7 +242,7 @@ export async function commitPreviewed(db: Knex, id: number, who: Who): Promise<U
     if (outcome.kind !== 'committed') {
       await store.markFailed(conn, u.id, problems.errors, problems.warnings, problems.sorted());
       await staging.dropStaging(conn, u.stagingTable);
-      throw new UploadRejected(problems, u.id, outcome.preview);
+      throw new UploadRejected(problems, u.id, outcome.preview, progress.stopPoint(problems.sorted()));
     }
     await staging.dropStaging(conn, u.stagingTable);
     return {
@@ -245,6 +268,7 @@ async function readIntoStaging(
   options: UploadOptions & { maxNewDistricts?: number },
   problems: ProblemList,
   now: Date,
+  progress: ProgressTracker,
 ): Promise<ReadSummary> {
   const catalogue = await loadCatalogue(conn);
   const knownDistricts = options.maxNewDistricts === undefined ? undefined : await store.districtCodes(conn);
@@ -256,10 +280,14 @@ async function readIntoStaging(
     knownDistricts,
     maxNewDistricts: options.maxNewDistricts,
   });
+  let bytesRead = 0;
   const parse = new Transform({
     transform(chunk: Buffer, _enc, cb) {
       try {
-        cb(null, reader.push(chunk) ?? undefined);
+        const out = reader.push(chunk);
+        bytesRead += chunk.length;
+        progress.count({ bytesRead, rowsRead: reader.rowsSoFar, values: reader.valuesSoFar });
+        cb(null, out ?? undefined);
       } catch (err) {
         cb(err as Error);
       }
@@ -274,6 +302,7 @@ async function readIntoStaging(
   });
   await pipeline(fs.createReadStream(file.path, { highWaterMark: 256 * 1024 }), parse, staging.copyRowsStream(conn, t));
   const read = reader.result();
+  progress.count({ bytesRead, rowsRead: read.rowsRead, values: read.values });
   if (read.fatal) return read;
   await staging.saveDistrictsSeen(conn, t, read.districts);
   // They are in the staging table now; up to 50,000 of them need not stay in memory through the checks.
@@ -300,10 +329,13 @@ async function previewStaged(
   options: UploadOptions,
   problems: ProblemList,
   timings: Timings,
+  progress: ProgressTracker,
 ): Promise<Outcome> {
   return inTransaction(conn, async () => {
     await lockObservations(conn);
+    progress.enter('checking');
     const ev = await timed(timings, 'checkMs', () => evaluateStaged(conn, t, columns, options, problems));
+    progress.count(checkedCounts(ev));
     const preview = await previewOf(conn, read, ev, options);
     return {
       kind: problems.errors ? 'failed' : 'previewed',
@@ -325,6 +357,7 @@ async function commitStaged(
   base: store.NewUpload,
   previewedId: number | null,
   timings: Timings,
+  progress: ProgressTracker,
 ): Promise<Outcome> {
   return inTransaction(conn, async (): Promise<Outcome & { rollback?: boolean }> => {
     await lockObservations(conn);
@@ -333,7 +366,9 @@ async function commitStaged(
     if (done) return { kind: 'noop', upload: done, rollback: true };
     const version = await store.nextVersion(conn);
     const upload = previewedId ?? (await store.insertUpload(conn, { ...base, status: 'committed', version })).id;
+    progress.enter('checking');
     const ev = await timed(timings, 'checkMs', () => evaluateStaged(conn, t, columns, options, problems));
+    progress.count(checkedCounts(ev));
     const preview = await previewOf(conn, read, ev, options);
     const counts = countsOf(ev);
     if (problems.errors > 0) return { kind: 'failed', preview, counts, rollback: true };
@@ -348,6 +383,7 @@ async function commitStaged(
       { ...CHANGE_SETS.fresh, known: { i: cells.i, c: 0, r: 0 } },
       ...(ev.derived.length ? [{ ...CHANGE_SETS.derived, known: kinds(ev.derived) }] : []),
     ];
+    progress.enter('merging');
     const merged = await timed(timings, 'mergeMs', () => applyChanges(conn, upload, version, sets));
     await dropEvaluationViews(conn);
     timings.bulkPath = merged.bulk;
@@ -361,6 +397,12 @@ async function commitStaged(
     );
     return { kind: 'committed', upload: record, preview: { ...preview, expiresAt: null }, counts };
   });
+}
+
+/** The checked counts as progress reports them. */
+function checkedCounts(ev: Evaluation) {
+  const c = countsOf(ev);
+  return { insert: c.insert ?? 0, change: c.change ?? 0, unchanged: c.unchanged ?? 0, derived: c.derived ?? 0 };
 }
 
 function countsOf(ev: Evaluation): Partial<store.UploadCounts> {

@@ -27,7 +27,7 @@ export default function UploadRoute() {
           <UploadDetail
             id={id}
             detail={detail}
-            onCommit={(i) => commit.mutateAsync(i)}
+            onCommit={(i) => commit.mutateAsync({ id: i })}
             onRevert={(i) => revert.mutateAsync(i)}
           />
         )}

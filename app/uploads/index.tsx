@@ -8,7 +8,9 @@ import {
   useCommitUploadMutation,
   useRevertUploadMutation,
   useUploadPreviewMutation,
+  useUploadProgress,
   useUploadsQuery,
+  type UploadWatch,
 } from '@/hooks/use-uploads';
 import { pickCsvFile } from '@/lib/pick-file';
 import { can } from '@/lib/roles';
@@ -22,6 +24,15 @@ export default function UploadsRoute() {
   const preview = useUploadPreviewMutation();
   const commit = useCommitUploadMutation();
   const revert = useRevertUploadMutation();
+  const watch = useUploadProgress();
+  // One upload at a time is followed: its bytes sent, then the server's phases.
+  const followed = async <T,>(work: (w: UploadWatch) => Promise<T>): Promise<T> => {
+    try {
+      return await work(watch.begin());
+    } finally {
+      watch.end();
+    }
+  };
   return (
     <>
       <Head>
@@ -33,8 +44,9 @@ export default function UploadsRoute() {
             uploads={uploads}
             changeFactor={settings.data?.settings.uploadChangeFactor ?? null}
             pickFile={pickCsvFile}
-            onPreview={(file, options) => preview.mutateAsync({ file, options })}
-            onCommit={(id) => commit.mutateAsync(id)}
+            onPreview={(file, options) => followed((w) => preview.mutateAsync({ file, options, watch: w }))}
+            onCommit={(id) => followed((w) => commit.mutateAsync({ id, watch: w }))}
+            progress={watch.progress}
             onRevert={(id) => revert.mutateAsync(id)}
           />
         )}

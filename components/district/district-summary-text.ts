@@ -1,7 +1,7 @@
 // Words for one district's coverage and latest values, shared by the list row (visible and
 // screen-reader text) and the region overview.
 import type { DistrictSummary } from '@/contracts/districts';
-import type { EstimateSummary } from '@/contracts/estimates';
+import type { RegionEstimate } from '@/contracts/estimates';
 import { STANDING_LABEL, gapShort, gapWords } from '@/lib/estimate-words';
 import { countGapYears, formatYearCount, formatYearSpan } from '@/lib/format';
 import { indicatorColumn } from '@/lib/indicators';
@@ -49,7 +49,7 @@ export function districtRowLabel(d: DistrictSummary): string {
 // ---- Published standing in the list row ---------------------------------------------------
 
 /** The crossing column: "by 2031", "passed 2013", "off trend", or null. */
-export function crossingShort(e: EstimateSummary | null | undefined): string | null {
+export function crossingShort(e: RegionEstimate | null | undefined): string | null {
   if (!e || e.projectionStatus === null || e.projectionStatus === 'no_threshold') return null;
   if (e.projectionStatus === 'not_on_current_trend') return 'off trend';
   if (e.crossingYear === null) return null;
@@ -57,13 +57,13 @@ export function crossingShort(e: EstimateSummary | null | undefined): string | n
 }
 
 /** The gap column: "−18%", "+72%", "×4.0", or null without a threshold. */
-export function gapColumn(e: EstimateSummary | null | undefined): string | null {
+export function gapColumn(e: RegionEstimate | null | undefined): string | null {
   if (!e || e.gapPercent === null || e.threshold === null || e.threshold <= 0) return null;
   return gapShort(e.gapPercent);
 }
 
 /** One sentence for screen readers: the row's standing, gap and crossing in words. */
-export function standingSentence(e: EstimateSummary | null | undefined, level: number | null): string {
+export function standingSentence(e: RegionEstimate | null | undefined, level: number | null): string {
   if (!e) return 'No published estimate.';
   const parts = [STANDING_LABEL[e.standing]];
   if (e.status === 'substitute') parts.push('regional substitute');

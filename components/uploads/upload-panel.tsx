@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 
 import { CheckBox } from '@/components/form/check-box';
@@ -10,6 +10,7 @@ import { TextLink } from '@/components/ui/text-link';
 import { ApiError } from '@/lib/api-client';
 import { formatBytes, formatDateTime } from '@/lib/format-time';
 import type { PickedFile } from '@/lib/pick-file.types';
+import type { UploadProgressView } from '@/hooks/use-uploads';
 import { safeParse } from '@/contracts/kit';
 import {
   UploadRejectionDetailsSchema,
@@ -20,6 +21,7 @@ import {
 
 import { PreviewSummary } from './preview-summary';
 import { ProblemsTable } from './problems-table';
+import { stopWords, UploadProgressPanel } from './upload-progress';
 import { changeWords, noopSummary, refusalSummary } from './upload-words';
 
 export type UploadPanelProps = {
@@ -30,13 +32,15 @@ export type UploadPanelProps = {
   onPreview: (file: PickedFile, options: UploadOptions) => Promise<UploadAnswer>;
   /** Commit the kept preview with this upload id. */
   onCommit: (uploadId: number) => Promise<UploadAnswer>;
+  /** The running check or load: bytes sent, then the server's phases (null when none runs). */
+  progress?: UploadProgressView | null;
 };
 
 type Phase =
   | { step: 'idle' }
   | { step: 'checking'; file: PickedFile }
   | { step: 'checked'; file: PickedFile; answer: UploadAnswer }
-  | { step: 'refused'; file: PickedFile | null; error: unknown }
+  | { step: 'refused'; file: PickedFile | null; error: unknown; last?: UploadProgressView | null }
   | { step: 'committing'; file: PickedFile; answer: UploadAnswer }
   | { step: 'committed'; file: PickedFile; answer: UploadAnswer };
 
@@ -52,7 +56,12 @@ function rejection(error: unknown): UploadRejectionDetails | null {
  * is a dry run on the server: nothing is written until "Load these values", and then all
  * or nothing.
  */
-export function UploadPanel({ changeFactor, pickFile, onPreview, onCommit }: UploadPanelProps) {
+export function UploadPanel({ changeFactor, pickFile, onPreview, onCommit, progress = null }: UploadPanelProps) {
+  // The last progress seen, for saying where a broken upload stopped.
+  const lastProgress = useRef<UploadProgressView | null>(null);
+  useEffect(() => {
+    if (progress) lastProgress.current = progress;
+  }, [progress]);
   const [options, setOptions] = useState<{ allowNewDistricts: boolean; decimalComma: boolean }>({
     allowNewDistricts: false,
     decimalComma: false,
@@ -70,22 +79,24 @@ export function UploadPanel({ changeFactor, pickFile, onPreview, onCommit }: Upl
     }
     if (!file) return;
     setPhase({ step: 'checking', file });
+    lastProgress.current = null;
     try {
       // The change factor is not sent: the server applies the admin setting itself.
       const answer = await onPreview(file, options);
       setPhase({ step: 'checked', file, answer });
     } catch (error) {
-      setPhase({ step: 'refused', file, error });
+      setPhase({ step: 'refused', file, error, last: lastProgress.current });
     }
   };
 
   const commit = async (file: PickedFile, answer: UploadAnswer) => {
     setPhase({ step: 'committing', file, answer });
+    lastProgress.current = null;
     try {
       const done = await onCommit(answer.upload.id);
       setPhase({ step: 'committed', file, answer: done });
     } catch (error) {
-      setPhase({ step: 'refused', file, error });
+      setPhase({ step: 'refused', file, error, last: lastProgress.current });
     }
   };
 
@@ -126,7 +137,7 @@ export function UploadPanel({ changeFactor, pickFile, onPreview, onCommit }: Upl
           </Text>
         ) : null}
       </View>
-      <PhaseView phase={phase} onCommit={commit} />
+      <PhaseView phase={phase} onCommit={commit} progress={progress} />
     </View>
   );
 }
@@ -140,7 +151,28 @@ function FileLine({ file }: { file: PickedFile }) {
   );
 }
 
-function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedFile, answer: UploadAnswer) => void }) {
+/** Where an upload that broke off stopped: the server's phase and line, or the bytes sent so far. */
+function stoppedWords(
+  details: UploadRejectionDetails | null,
+  last: UploadProgressView | null | undefined,
+): string | null {
+  if (details?.stoppedAt) return stopWords(details.stoppedAt);
+  if (last?.server?.stoppedAt) return stopWords(last.server.stoppedAt);
+  if (last?.server) return stopWords({ phase: last.server.phase, line: null });
+  if (last?.sent && last.sent.loaded < last.sent.total)
+    return `Stopped while sending the file, after ${formatBytes(last.sent.loaded)} of ${formatBytes(last.sent.total)}.`;
+  return null;
+}
+
+function PhaseView({
+  phase,
+  onCommit,
+  progress,
+}: {
+  phase: Phase;
+  onCommit: (file: PickedFile, answer: UploadAnswer) => void;
+  progress: UploadProgressView | null;
+}) {
   switch (phase.step) {
     case 'idle':
       return null;
@@ -149,11 +181,13 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
         <View style={styles.result} accessibilityLiveRegion="polite">
           <FileLine file={phase.file} />
           <Text style={styles.lead}>Checking every row… nothing is written yet.</Text>
+          {progress ? <UploadProgressPanel {...progress} fileSize={phase.file.size} commit={false} /> : null}
         </View>
       );
     case 'refused': {
       const details = rejection(phase.error);
       const tooLarge = phase.error instanceof ApiError && phase.error.status === 413;
+      const stopped = stoppedWords(details, phase.last);
       return (
         <View style={styles.result}>
           {phase.file ? <FileLine file={phase.file} /> : null}
@@ -165,6 +199,11 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
             }
             message={details ? `${refusalSummary(details)} Nothing was written.` : describeSendError(phase.error)}
           />
+          {stopped ? (
+            <Text style={styles.lead} testID="upload-stopped-at">
+              {stopped}
+            </Text>
+          ) : null}
           {details ? (
             <ProblemsTable
               problems={details.problems}
@@ -216,6 +255,9 @@ function PhaseView({ phase, onCommit }: { phase: Phase; onCommit: (file: PickedF
               busyLabel="Loading…"
               testID="upload-commit"
             />
+            {phase.step === 'committing' && progress ? (
+              <UploadProgressPanel {...progress} fileSize={null} commit />
+            ) : null}
           </View>
           {answer.problems.length ? (
             <ProblemsTable problems={answer.problems} truncated={answer.problemsTruncated} />

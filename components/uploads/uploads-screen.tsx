@@ -1,6 +1,7 @@
 import { Section, Page } from '@/components/layout/page';
 import type { QueryState } from '@/components/state/query-state';
 import { TextLink } from '@/components/ui/text-link';
+import type { UploadProgressView } from '@/hooks/use-uploads';
 import type { PickedFile } from '@/lib/pick-file.types';
 import type { RevertAnswer, UploadAnswer, UploadListResponse, UploadOptions } from '@/contracts/uploads';
 
@@ -14,10 +15,20 @@ export type UploadsScreenProps = {
   onPreview: (file: PickedFile, options: UploadOptions) => Promise<UploadAnswer>;
   onCommit: (uploadId: number) => Promise<UploadAnswer>;
   onRevert: (uploadId: number) => Promise<RevertAnswer>;
+  /** The running check or load (hooks/use-uploads.ts `useUploadProgress`). */
+  progress?: UploadProgressView | null;
 };
 
 /** Load series from a CSV (check, then load) and the history of every upload with Revert. */
-export function UploadsScreen({ uploads, changeFactor, pickFile, onPreview, onCommit, onRevert }: UploadsScreenProps) {
+export function UploadsScreen({
+  uploads,
+  changeFactor,
+  pickFile,
+  onPreview,
+  onCommit,
+  onRevert,
+  progress = null,
+}: UploadsScreenProps) {
   return (
     <Page
       title="Uploads"
@@ -25,7 +36,13 @@ export function UploadsScreen({ uploads, changeFactor, pickFile, onPreview, onCo
       testID="uploads-screen"
     >
       <Section title="Load a file">
-        <UploadPanel changeFactor={changeFactor} pickFile={pickFile} onPreview={onPreview} onCommit={onCommit} />
+        <UploadPanel
+          changeFactor={changeFactor}
+          pickFile={pickFile}
+          onPreview={onPreview}
+          onCommit={onCommit}
+          progress={progress}
+        />
       </Section>
       <Section title="District boundaries">
         <TextLink href="/uploads/boundaries" label="Load district boundaries (GeoJSON) and see their versions" />

@@ -29,7 +29,7 @@ it('with the demo boundaries: the standings map and the locator, drawn into the 
   const region = await s.agent.get('/api/briefs/region');
   const map = region.body.map;
   const standings = new Set(
-    (await s.agent.get('/api/districts')).body.districts.map(
+    (await s.agent.get('/api/region')).body.districts.map(
       (d: { estimate: { standing: string } | null }) => d.estimate?.standing ?? 'not_estimable',
     ),
   );

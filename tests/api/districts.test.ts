@@ -19,19 +19,24 @@ beforeAll(async () => {
 afterAll(async () => env.close());
 
 describe('districts API over the seeded demo region', () => {
-  it('lists every district sorted by name with its span and latest values', async () => {
+  it('lists every district sorted by name, with its code and name only (what the search needs)', async () => {
     const res = await agent.get('/api/districts');
     expect(res.status).toBe(200);
     const list = parseAnswer(DistrictListResponseSchema, res).districts;
     expect(list).toHaveLength(DEMO_DISTRICTS.length);
     const names = list.map((d) => d.name);
     expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b, 'en')));
-    const d01 = list.find((d) => d.code === 'D01')!;
-    expect(d01).toMatchObject({ firstYear: 1995, lastYear: 2025, nYears: 31 });
+    for (const row of res.body.districts) expect(Object.keys(row).sort()).toEqual(['code', 'name']);
+    expect(list.find((d) => d.code === 'D01')?.name).toBe(DEMO_DISTRICTS.find((d) => d.code === 'D01')?.name);
+  });
+
+  it("gives a district's span and latest values with the district itself", async () => {
+    const d01 = parseAnswer(DistrictDetailResponseSchema, await agent.get('/api/districts/D01'));
+    expect(d01.district).toMatchObject({ firstYear: 1995, lastYear: 2025, nYears: 31 });
     const expected = generateDemoRegion().observations.find(
       (o) => o.districtCode === 'D01' && o.year === 2025 && o.indicator === 'income_pc',
     )!;
-    expect(d01.latest).toMatchObject({ year: 2025, incomePc: expected.value });
+    expect(d01.series.find((r) => r.year === 2025)?.incomePc).toBe(expected.value);
   });
 
   it('returns a district series with gap years present as nulls', async () => {

@@ -6,7 +6,7 @@
  */
 import type { CrestwatchApp } from '../../api/app';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
-import { listDistricts, publishedSummaries, summaryOf } from '../../api/estimates/service';
+import { publishedSummaries, region, summaryOf } from '../../api/estimates/service';
 import { ensureDemoAccounts } from '../../api/people/service';
 import * as runs from '../../api/runs/store';
 import { publishDefaultRun } from '../support/published-run';
@@ -43,9 +43,8 @@ it('builds the same summaries in SQL as summaryOf on the full records', async ()
   expect(all.some((s) => s.intervalBounded === false)).toBe(true);
 });
 
-it('names the published run in the district list', async () => {
-  const list = await listDistricts(t.db);
-  expect(list.publishedRunId).toBe(runId);
+it('names the published run in the region answer', async () => {
+  const list = await region(t.db);
   expect(list.run).toEqual(
     expect.objectContaining({
       id: runId,

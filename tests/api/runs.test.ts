@@ -272,8 +272,9 @@ describe('runs', () => {
     );
     expect(region.run?.id).toBe(latest);
     expect(region.districts).toHaveLength(24);
+    expect(region.districts.find((d) => d.code === crossing.code)?.estimate?.standing).toBe(crossing.to);
     const list = parseAnswer(DistrictListResponseSchema, await official.get('/api/districts'));
-    expect(list.districts.find((d) => d.code === crossing.code)?.estimate?.standing).toBe(crossing.to);
+    expect(list.districts.find((d) => d.code === crossing.code)?.name).toBeDefined();
     const card = parseAnswer(
       DistrictEstimateResponseSchema,
       await official.get(`/api/districts/${crossing.code}/estimate`),

@@ -4,7 +4,7 @@ import { ApiError, apiGet } from '@/lib/api-client';
 
 import { resetRegionFilter } from '@/hooks/use-region-filter';
 
-import { cardAnswers, estimateRecord, run, summaryOf } from './support/estimates';
+import { cardAnswers, estimateRecord, regionAnswer, summaryOf } from './support/estimates';
 import { districtSummaries, gappyDetail } from './support/fixtures';
 import { answerWith, never } from './support/mock-api';
 import { renderApp } from './support/render-app';
@@ -41,21 +41,17 @@ const pastUnbounded = {
   crossingEarliest: null,
   crossingLatest: null,
 };
-const withEstimates = {
-  publishedRunId: 7,
-  run,
-  districts: [
-    { ...districtSummaries[0], estimate: approaching },
-    { ...districtSummaries[1], estimate: pastUnbounded },
-    { ...districtSummaries[2], estimate: null },
-  ],
-};
-const region = { run, counts: {}, pooled: null, districts: [] };
+// The list reads the region's rows (GET /api/region).
+const withEstimates = regionAnswer([
+  { ...districtSummaries[0], estimate: approaching },
+  { ...districtSummaries[1], estimate: pastUnbounded },
+  { ...districtSummaries[2], estimate: null },
+]);
 const rowOrder = () => screen.getAllByTestId(/^district-row-/).map((r) => r.props.testID);
 
 describe('region list', () => {
   it('shows skeleton rows while the list loads', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts': never }));
+    mockedGet.mockImplementation(answerWith({ '/api/region': never }));
     renderApp('/');
     expect(await screen.findByTestId('district-list-loading')).toBeTruthy();
     expect(screen.getByLabelText('Loading the district list')).toBeTruthy();
@@ -64,7 +60,7 @@ describe('region list', () => {
   });
 
   it('lists every district with its standing, gap, crossing and last data year', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts': withEstimates, '/api/region': region }));
+    mockedGet.mockImplementation(answerWith({ '/api/region': withEstimates }));
     renderApp('/');
     expect(await screen.findByText('Ashgrove')).toBeTruthy();
     expect(screen.getByText('3 districts')).toBeTruthy();
@@ -98,15 +94,12 @@ describe('region list', () => {
 
   it('sorts by gap, name and crossing year', async () => {
     const far = { ...approaching, gapPercent: -60, crossingYear: 2029 };
-    const data = {
-      publishedRunId: 7,
-      districts: [
-        { ...districtSummaries[0], estimate: far },
-        { ...districtSummaries[1], estimate: pastUnbounded },
-        { ...districtSummaries[2], estimate: { ...approaching, gapPercent: -5, crossingYear: 2040 } },
-      ],
-    };
-    mockedGet.mockImplementation(answerWith({ '/api/districts': data, '/api/region': region }));
+    const data = regionAnswer([
+      { ...districtSummaries[0], estimate: far },
+      { ...districtSummaries[1], estimate: pastUnbounded },
+      { ...districtSummaries[2], estimate: { ...approaching, gapPercent: -5, crossingYear: 2040 } },
+    ]);
+    mockedGet.mockImplementation(answerWith({ '/api/region': data }));
     renderApp('/');
     await screen.findByText('Ashgrove');
     expect(rowOrder()).toEqual(['district-row-T01', 'district-row-T02', 'district-row-T03']);
@@ -122,15 +115,12 @@ describe('region list', () => {
 
   it('filters by standing and by shape, and clears both', async () => {
     const rising = { ...approaching, standing: 'no_turn' as const, shape: 'increasing' as const };
-    const data = {
-      publishedRunId: 7,
-      districts: [
-        withEstimates.districts[0],
-        withEstimates.districts[1],
-        { ...districtSummaries[2], estimate: rising },
-      ],
-    };
-    mockedGet.mockImplementation(answerWith({ '/api/districts': data, '/api/region': region }));
+    const data = regionAnswer([
+      withEstimates.districts[0],
+      withEstimates.districts[1],
+      { ...districtSummaries[2], estimate: rising },
+    ]);
+    mockedGet.mockImplementation(answerWith({ '/api/region': data }));
     renderApp('/');
     await screen.findByText('Ashgrove');
     fireEvent.press(screen.getByTestId('standing-filter-past_turn'));
@@ -150,7 +140,7 @@ describe('region list', () => {
   });
 
   it('filters by name or code, ignoring case and accents, and says when nothing matches', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts': { districts: districtSummaries } }));
+    mockedGet.mockImplementation(answerWith({ '/api/region': regionAnswer(districtSummaries) }));
     renderApp('/');
     await screen.findByText('Ashgrove');
     const search = screen.getByLabelText('Find a district by name or code');
@@ -173,7 +163,7 @@ describe('region list', () => {
   });
 
   it('shows an empty state when the region has no districts', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts': { districts: [] } }));
+    mockedGet.mockImplementation(answerWith({ '/api/region': regionAnswer([]) }));
     renderApp('/');
     expect(await screen.findByTestId('district-list-empty')).toBeTruthy();
     expect(screen.getByText('No districts yet')).toBeTruthy();
@@ -183,10 +173,10 @@ describe('region list', () => {
     let calls = 0;
     mockedGet.mockImplementation(
       answerWith({
-        '/api/districts': async () => {
+        '/api/region': async () => {
           calls += 1;
           if (calls === 1) throw new ApiError(503, 'database_unavailable', 'The database is not reachable.');
-          return { districts: districtSummaries };
+          return regionAnswer(districtSummaries);
         },
       }),
     );
@@ -214,7 +204,7 @@ describe('region list', () => {
   it('opens a district from its row', async () => {
     mockedGet.mockImplementation(
       answerWith({
-        '/api/districts': { districts: districtSummaries },
+        '/api/region': regionAnswer(districtSummaries),
         '/api/districts/T02': gappyDetail,
         ...cardAnswers(estimateRecord({})),
       }),

@@ -25,7 +25,7 @@ afterEach(() => {
 
 describe('signing in', () => {
   it('turns a 401 on the list into a sign-in link instead of Retry', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts': unauthenticated }));
+    mockedGet.mockImplementation(answerWith({ '/api/region': unauthenticated }));
     const app = renderApp('/');
     expect(await screen.findByText('Sign in to see the district list')).toBeTruthy();
     expect(screen.queryByText('Retry')).toBeNull();
@@ -83,7 +83,7 @@ describe('signing in', () => {
   it('says an idle session ended where a list failed to load, with a way to sign in again', async () => {
     const message = 'Your session ended after 30 minutes without activity. Sign in again.';
     mockedGet.mockImplementation(
-      answerWith({ '/api/districts': new ApiError(401, 'session_expired', message, { reason: 'idle' }) }),
+      answerWith({ '/api/region': new ApiError(401, 'session_expired', message, { reason: 'idle' }) }),
     );
     const app = renderApp('/');
     expect(await screen.findByText('Signed out after a while without activity')).toBeTruthy();

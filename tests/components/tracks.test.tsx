@@ -9,7 +9,15 @@ import { apiGet } from '@/lib/api-client';
 import { chosenTrack, requestedTrack, shownTracks, withTrack } from '@/lib/track-choice';
 import { rememberedTrack, rememberTrack } from '@/lib/track-memory';
 
-import { cardAnswers, estimateRecord, estimateResponse, pm25Track, run, tracksAnswer } from './support/estimates';
+import {
+  cardAnswers,
+  estimateRecord,
+  estimateResponse,
+  pm25Track,
+  regionAnswer,
+  run,
+  tracksAnswer,
+} from './support/estimates';
 import { districtSummaries, gappyDetail } from './support/fixtures';
 import { answerWith } from './support/mock-api';
 import { renderApp } from './support/render-app';
@@ -26,16 +34,16 @@ afterEach(() => {
   rememberTrack(null);
 });
 
-const listFor = (_code: string) => ({ publishedRunId: 7, run, districts: districtSummaries });
+const listFor = (_code: string) => regionAnswer(districtSummaries);
 
 /** The region's answers for every track, so the test can read which one the screen asked for. */
 function answerRegion() {
   mockedGet.mockImplementation(
     answerWith({
       '/api/tracks': tracksAnswer,
-      '/api/districts': listFor('co2'),
-      '/api/districts?track=pm25': listFor('pm25'),
-      '/api/districts?track=so2': listFor('so2'),
+      '/api/region': listFor('co2'),
+      '/api/region?track=pm25': listFor('pm25'),
+      '/api/region?track=so2': listFor('so2'),
     }),
   );
 }
@@ -85,8 +93,8 @@ describe('track switcher on the region view', () => {
     // The headline first, the archived track absent.
     const options = within(screen.getByTestId('track-switcher')).getAllByRole('radio');
     expect(options.map((o) => o.props.testID)).toEqual(['track-option-co2', 'track-option-pm25', 'track-option-so2']);
-    expect(asked()).toContain('/api/districts');
-    expect(asked()).not.toContain('/api/districts?track=pm25');
+    expect(asked()).toContain('/api/region');
+    expect(asked()).not.toContain('/api/region?track=pm25');
   });
 
   it('opens the device’s remembered track when the URL has none', async () => {
@@ -95,8 +103,8 @@ describe('track switcher on the region view', () => {
     renderApp('/');
     await screen.findByTestId('track-switcher');
     await waitFor(() => expect(checked('so2')).toBe(true));
-    expect(asked()).toContain('/api/districts?track=so2');
-    expect(asked()).not.toContain('/api/districts');
+    expect(asked()).toContain('/api/region?track=so2');
+    expect(asked()).not.toContain('/api/region');
   });
 
   it('lets the URL win over the device', async () => {
@@ -105,8 +113,8 @@ describe('track switcher on the region view', () => {
     renderApp('/?track=pm25');
     await screen.findByTestId('track-switcher');
     await waitFor(() => expect(checked('pm25')).toBe(true));
-    expect(asked()).toContain('/api/districts?track=pm25');
-    expect(asked()).not.toContain('/api/districts?track=so2');
+    expect(asked()).toContain('/api/region?track=pm25');
+    expect(asked()).not.toContain('/api/region?track=so2');
   });
 
   it('switching puts the track in the URL, remembers it, and reloads the list for it', async () => {
@@ -116,13 +124,13 @@ describe('track switcher on the region view', () => {
     await act(async () => fireEvent.press(screen.getByTestId('track-option-pm25')));
     await waitFor(() => expect(checked('pm25')).toBe(true));
     expect(app.getSearchParams()).toEqual({ track: 'pm25' });
-    expect(asked()).toContain('/api/districts?track=pm25');
+    expect(asked()).toContain('/api/region?track=pm25');
     // Remembered on the device (the in-memory copy here; localStorage in a browser, see the e2e test).
     expect(rememberedTrack()).toBe('pm25');
   });
 
   it('says so when the tracks cannot be loaded, and still shows the headline list', async () => {
-    mockedGet.mockImplementation(answerWith({ '/api/districts': listFor('co2') }));
+    mockedGet.mockImplementation(answerWith({ '/api/region': listFor('co2') }));
     renderApp('/');
     expect(await screen.findByTestId('track-switcher-error')).toBeTruthy();
     expect(await screen.findByText('Ashgrove')).toBeTruthy();

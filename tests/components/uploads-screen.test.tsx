@@ -53,18 +53,19 @@ describe('upload screen', () => {
   it('checks a chosen file, shows what it would change and its warning, then loads it', async () => {
     answers();
     mockedSend.mockImplementation(async (method, path) => {
-      if (path === '/api/uploads') return previewAnswer;
-      if (path === '/api/uploads/7/commit') return committedAnswer;
+      if (/^\/api\/uploads\?progress=[0-9a-f]{32}$/.test(path)) return previewAnswer;
+      if (/^\/api\/uploads\/7\/commit\?progress=[0-9a-f]{32}$/.test(path)) return committedAnswer;
       throw new Error(`unexpected ${method} ${path}`);
     });
     renderStaff('/uploads');
     fireEvent.press(await screen.findByTestId('upload-choose'));
     expect(await screen.findByTestId('upload-ready')).toBeTruthy();
     // A dry run: the file goes in the multipart field `file`; the server applies the change factor itself.
+    // The bytes sent are followed, and the server reports its phases under a fresh key.
     expect(mockedSend).toHaveBeenCalledWith(
       'POST',
-      '/api/uploads',
-      expect.objectContaining({ form: expect.anything() }),
+      expect.stringMatching(/^\/api\/uploads\?progress=[0-9a-f]{32}$/),
+      expect.objectContaining({ form: expect.anything(), onUploadProgress: expect.any(Function) }),
     );
     expect(appended).toEqual([['file', 'series.csv']]);
     expect(screen.getByText(/Loading writes 6 new, 4 changed, 0 unchanged in one step/)).toBeTruthy();
@@ -75,7 +76,11 @@ describe('upload screen', () => {
 
     fireEvent.press(screen.getByTestId('upload-commit'));
     expect(await screen.findByText('Loaded as upload #7: 6 new, 4 changed, 0 unchanged. Data version 5.')).toBeTruthy();
-    expect(mockedSend).toHaveBeenCalledWith('POST', '/api/uploads/7/commit', expect.anything());
+    expect(mockedSend).toHaveBeenCalledWith(
+      'POST',
+      expect.stringMatching(/^\/api\/uploads\/7\/commit\?progress=/),
+      expect.anything(),
+    );
     expect(screen.getByLabelText('See the values of Ashgrove')).toBeTruthy();
   });
 
@@ -127,6 +132,59 @@ describe('upload screen', () => {
     expect(within(screen.getByTestId('problem-1')).getByText('year 2999 is in the future')).toBeTruthy();
     expect(screen.getByTestId('problems-summary').props.children.join('')).toMatch(/^2 errors, 0 warnings\./);
     expect(screen.queryByTestId('upload-commit')).toBeNull();
+  });
+
+  it('shows the bytes sent, then the server phase polled under the upload key', async () => {
+    let key = '';
+    let finish: (v: unknown) => void = () => {};
+    mockedGet.mockImplementation(async (path: string) => {
+      if (path === `/api/uploads/progress/${key}`)
+        return {
+          key,
+          state: 'running',
+          phase: 'checking',
+          phases: [
+            { phase: 'reading', atMs: 0 },
+            { phase: 'checking', atMs: 900 },
+          ],
+          counts: {
+            bytesRead: 40_000_000,
+            bytesTotal: 40_000_000,
+            rowsRead: 812_400,
+            values: 812_400,
+            insert: null,
+            change: null,
+            unchanged: null,
+            derived: null,
+          },
+          commit: false,
+          stoppedAt: null,
+        };
+      return answerWith({
+        '/api/me': me('analyst'),
+        '/api/uploads?limit=50': { uploads: [upload()], nextBefore: null },
+        '/api/settings': settingsAnswer,
+      })(path);
+    });
+    mockedSend.mockImplementation((_method, path, options) => {
+      key = /progress=([0-9a-f]+)/.exec(path)![1];
+      options!.onUploadProgress!(12_400_000, 40_000_000);
+      return new Promise((resolve) => (finish = resolve)) as never;
+    });
+    renderStaff('/uploads');
+    fireEvent.press(await screen.findByTestId('upload-choose'));
+    // The server is asked under the key the upload was sent with, and its phase shown with its counts.
+    expect(await screen.findByText(/Checking against stored data: 812,400 values/)).toBeTruthy();
+    expect(
+      screen.getByText(/Reading and checking rows: 812,400 rows, 812,400 values \(100% of the file\)/),
+    ).toBeTruthy();
+    // WAI-ARIA 1.2, progressbar role: the bar carries its range and a text for the value.
+    const bar = screen.getByTestId('upload-bytes');
+    expect(bar.props.role).toBe('progressbar');
+    expect(bar.props['aria-valuetext']).toBe('40.0 MB of 40.0 MB');
+    finish(previewAnswer);
+    expect(await screen.findByTestId('upload-ready')).toBeTruthy();
+    expect(screen.queryByTestId('upload-progress')).toBeNull();
   });
 
   it('does nothing when the picker is cancelled', async () => {

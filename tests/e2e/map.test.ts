@@ -50,7 +50,7 @@ describe.each([
     const { context, page } = await h.newPage(viewport);
     try {
       await signIn(page, DEMO.official);
-      const api = (await (await page.request.get(`${h.baseUrl}/api/districts`)).json()) as {
+      const api = (await (await page.request.get(`${h.baseUrl}/api/region`)).json()) as {
         districts: { code: string; estimate: { standing: string } | null }[];
       };
       const standingOf = new Map(api.districts.map((d) => [d.code, d.estimate?.standing ?? 'not_estimable']));

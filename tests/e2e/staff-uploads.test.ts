@@ -4,6 +4,7 @@
  * it from the history and sees the old values back — at a phone and a wide viewport.
  */
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { DEMO } from '../support/auth';
@@ -126,7 +127,68 @@ it('refuses a file with errors and lists them by line and column', async () => {
     expect(errors).toHaveLength(1);
     expect(errors[0][0]).toBe(String(expected.line));
     expect(errors[0][1]).toMatch(new RegExp(`^${expected.column}\\b`));
+    // Where it stopped: every row was read, the checks refused it at the first bad line.
+    expect(await page.getByTestId('upload-stopped-at').innerText()).toBe(
+      `Stopped while checking against stored data, at line ${expected.line}.`,
+    );
     await h.shot(page, 'staff-laptop-upload-refused');
+  } finally {
+    await context.close();
+  }
+});
+
+it('shows the bytes sent while a large file goes up, then its preview', async () => {
+  // 600 new districts × 4 indicators × 30 years: 72,000 rows, about 3 MB (invented values).
+  const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'crestwatch-e2e-')), 'large.csv');
+  const lines = ['district_code,district_name,indicator,year,value'];
+  for (let d = 1; d <= 600; d++)
+    for (const ind of ['emissions_pc', 'income_pc', 'population', 'pop_density'])
+      for (let y = 1996; y < 2026; y++)
+        lines.push(`N${String(d).padStart(4, '0')},Newfield ${d},${ind},${y},${d + y / 1000}`);
+  fs.writeFileSync(file, lines.join('\n') + '\n');
+  const rows = lines.length - 1;
+  const { context, page } = await h.newPage(VIEWPORTS.laptop);
+  try {
+    await signIn(page, h.baseUrl, DEMO.analyst);
+    await page.goto(`${h.baseUrl}/uploads`);
+    await page.getByTestId('upload-history').waitFor();
+    await page.getByTestId('upload-allow-new').click();
+    // Uploads slowed to 600 KB/s (Chromium's network emulation), so the bytes sent can be watched.
+    const cdp = await context.newCDPSession(page);
+    await cdp.send('Network.enable');
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 0,
+      downloadThroughput: -1,
+      uploadThroughput: 600 * 1024,
+    });
+    await chooseFile(page, file);
+    const bar = page.getByTestId('upload-bytes');
+    // Part of the file sent: the bar's value is between its ends (WAI-ARIA 1.2 progressbar), in words too.
+    await page.waitForFunction(
+      () => {
+        const el = document.querySelector('[data-testid="upload-bytes"]');
+        const now = Number(el?.getAttribute('aria-valuenow'));
+        return now > 0 && now < Number(el?.getAttribute('aria-valuemax'));
+      },
+      undefined,
+      { timeout: 30_000 },
+    );
+    expect(await bar.getAttribute('role')).toBe('progressbar');
+    const size = fs.statSync(file).size;
+    // The body is the file and a few hundred bytes of multipart headers.
+    const max = Number(await bar.getAttribute('aria-valuemax'));
+    expect(max - size).toBeGreaterThan(0);
+    expect(max - size).toBeLessThan(1000);
+    // formatBytes: kB and MB are 10^3 and 10^6 bytes.
+    expect(await bar.getAttribute('aria-valuetext')).toMatch(
+      new RegExp(`^\\d+(\\.\\d)? (bytes|kB|MB) of ${(max / 1e6).toFixed(1).replace('.', '\\.')} MB$`),
+    );
+    await h.shot(page, 'staff-laptop-upload-progress');
+    // Once sent, the server's phases follow with their counts (polled); then the preview replaces them.
+    await page.getByTestId('upload-ready').waitFor({ timeout: 60_000 });
+    expect(await page.getByTestId('preview-insert').innerText()).toContain(String(rows));
+    expect(await page.getByTestId('upload-progress').count()).toBe(0);
   } finally {
     await context.close();
   }

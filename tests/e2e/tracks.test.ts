@@ -128,7 +128,7 @@ describe.each([
       await h.shot(page, `tracks-${name}-region-headline`);
 
       // Switching puts the track in the URL and on the device; the list follows it.
-      const reloaded = page.waitForResponse((r) => r.url().endsWith('/api/districts?track=particles'));
+      const reloaded = page.waitForResponse((r) => r.url().endsWith('/api/region?track=particles'));
       await page.getByTestId('track-option-particles').first().click();
       await reloaded;
       await page.waitForURL(/\?track=particles$/);

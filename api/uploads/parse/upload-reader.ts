@@ -138,6 +138,15 @@ export class UploadReader implements RecordSink {
     return this.out.take();
   }
 
+  /** Data rows and values read so far (for progress while the file is read). */
+  get rowsSoFar(): number {
+    return this.summary.rowsRead;
+  }
+
+  get valuesSoFar(): number {
+    return this.summary.values;
+  }
+
   result(): ReadSummary {
     this.summary.districts = [...this.districts.values()].map(({ index: _i, bytes: _b, keys: _k, ...d }) => d);
     return this.summary;

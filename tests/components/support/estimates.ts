@@ -7,6 +7,8 @@ import type {
   EstimateRecord,
   EstimateSummary,
   PublishedRunMeta,
+  RegionDistrict,
+  RegionResponse,
   VariantSummary,
 } from '@/contracts/estimates';
 
@@ -314,4 +316,30 @@ export function cardAnswers(main: EstimateRecord | null, over: Record<string, un
     '/api/subscriptions': { subscriptions: [] },
     ...over,
   };
+}
+
+/**
+ * GET /api/region's answer over these rows (each a district summary with an optional
+ * estimate summary): the list, the map and the run line all read it.
+ */
+export function regionAnswer(
+  rows: readonly (Pick<RegionDistrict, 'code' | 'name' | 'firstYear' | 'lastYear' | 'nYears'> & {
+    estimate?: RegionDistrict['estimate'];
+  })[],
+  over: Partial<RegionResponse> = {},
+): RegionResponse {
+  const districts = rows.map((d) => ({
+    code: d.code,
+    name: d.name,
+    firstYear: d.firstYear,
+    lastYear: d.lastYear,
+    nYears: d.nYears,
+    estimate: d.estimate ?? null,
+  }));
+  const counts: RegionResponse['counts'] = {};
+  for (const d of districts) {
+    const s = d.estimate?.standing ?? 'not_estimable';
+    counts[s] = (counts[s] ?? 0) + 1;
+  }
+  return { track: co2Track, run, counts, pooled: null, districts, ...over };
 }

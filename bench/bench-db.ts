@@ -1,0 +1,100 @@
+/**
+ * The benches' database: synthetic districts (the generator of bench:run, 40 years each),
+ * the demo people and one published run fitted by a worker process. Shared by bench:api
+ * and bench:answers.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import path from 'node:path';
+import { loadConfig } from '../api/config';
+import { createComputePool } from '../api/compute/pool';
+import type { AppContext } from '../api/context';
+import { createDb } from '../api/db';
+import { DEMO_INDICATORS } from '../api/demo/catalogue';
+import { startJobs } from '../api/jobs/boss';
+import { createMailer } from '../api/mail/mailer';
+import { ensureDemoAccounts } from '../api/people/service';
+import { publishRun, startRun } from '../api/runs/service';
+import * as runStore from '../api/runs/store';
+import { insertSyntheticDistricts } from '../tests/support/synthetic';
+
+const root = path.resolve(__dirname, '..');
+
+/** Spawns a tsx script and resolves once its stdout shows `ready`. */
+export function spawnReady(
+  script: string,
+  args: string[],
+  env: NodeJS.ProcessEnv,
+  ready: string,
+): Promise<ChildProcess> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, script), ...args], {
+      cwd: root,
+      env,
+      stdio: ['ignore', 'pipe', 'inherit'],
+    });
+    child.stdout!.on('data', (b: Buffer) => {
+      if (b.toString().includes(ready)) resolve(child);
+    });
+    child.once('exit', (code) => reject(new Error(`${script} exited with code ${code}`)));
+  });
+}
+
+/** Builds the database: districts, demo people, one published run (worked by a worker process). */
+export async function buildDatabase(url: string, districts: number): Promise<void> {
+  const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: url };
+  const db = createDb(url);
+  const jobs = await startJobs({
+    databaseUrl: url,
+    expireInSeconds: 300,
+    pollingIntervalSeconds: 0.5,
+    maintenanceIntervalSeconds: 30,
+    schedule: false,
+  });
+  // Starting a run fits nothing here (the worker process does): an inline pool of size 0 is enough.
+  const ctx: AppContext = {
+    db,
+    config,
+    log: () => {},
+    mailer: createMailer(config),
+    jobs,
+    compute: createComputePool(0),
+  };
+  const worker = await spawnReady(
+    'api/worker.ts',
+    [],
+    { ...process.env, CRESTWATCH_MODE: 'test', DATABASE_URL: url, LOG_REQUESTS: '0' },
+    'is working jobs',
+  );
+  try {
+    await db('indicators').insert(
+      DEMO_INDICATORS.map((i) => ({
+        code: i.code,
+        name: i.name,
+        unit: i.unit,
+        description: i.description,
+        must_be_positive: i.mustBePositive,
+      })),
+    );
+    await ensureDemoAccounts(db);
+    await insertSyntheticDistricts(db, districts, { years: 40, seed: 42, prefix: 'B' });
+    const run = await startRun(ctx, null, {});
+    for (;;) {
+      const r = (await runStore.findRun(db, run.id))!;
+      if (r.state === 'failed') throw new Error(r.error ?? 'run failed');
+      if (r.state === 'in_review') break;
+      await new Promise((res) => setTimeout(res, 100));
+    }
+    const analyst = await db('users').where({ role: 'analyst' }).first();
+    await publishRun(
+      ctx,
+      { id: analyst.id, email: analyst.email, name: analyst.name, role: 'analyst', active: true } as never,
+      run.id,
+    );
+    await db.raw('VACUUM ANALYZE');
+  } finally {
+    worker.kill('SIGTERM');
+    await jobs.stop();
+    ctx.mailer.close();
+    await db.destroy();
+  }
+}
