@@ -14,7 +14,8 @@ const columns: Column<UploadProblem & { i: number }>[] = [
     header: 'Line',
     width: 64,
     align: 'right',
-    render: (p) => (p.line === null ? '—' : String(p.line)),
+    render: (p, { folded }) =>
+      folded ? (p.line === null ? 'No line' : `Line ${p.line}`) : p.line === null ? '—' : String(p.line),
     sortValue: (p) => p.line,
   },
   {
