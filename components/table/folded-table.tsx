@@ -98,8 +98,8 @@ function Field<T>({ column, row, grid }: { column: Column<T>; row: T; grid: bool
   // A column without a header (an action such as Revert) stands on its own line.
   if (!column.header) return <View style={styles.action}>{value}</View>;
   return (
-    <View style={grid ? styles.tile : styles.field}>
-      <Text style={grid ? styles.tileLabel : styles.label}>{fieldLabel(column)}</Text>
+    <View style={grid ? [styles.tile, column.long && styles.fullRow] : column.long ? styles.stacked : styles.field}>
+      <Text style={grid || column.long ? styles.tileLabel : styles.label}>{fieldLabel(column)}</Text>
       <View style={styles.fieldValue}>{value}</View>
     </View>
   );
@@ -126,6 +126,8 @@ const styles = StyleSheet.create({
   field: { flexDirection: 'row', alignItems: 'flex-start', gap: space.md },
   label: { ...type.caption, color: colors.textMuted, width: '40%', flexShrink: 0 },
   tile: { flexBasis: '40%', flexGrow: 1, minWidth: 0, gap: space.xxs },
+  fullRow: { flexBasis: '100%' },
+  stacked: { gap: space.xxs, minWidth: 0 },
   tileLabel: { ...type.caption, color: colors.textMuted },
   // Stretch, so a one-line cell (an e-mail address, say) ends in an ellipsis at the card's edge.
   fieldValue: { flex: 1, minWidth: 0, alignItems: 'stretch', gap: space.xxs },

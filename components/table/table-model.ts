@@ -22,6 +22,8 @@ export type Column<T> = {
   render: (row: T, how: { folded: boolean }) => ReactNode;
   /** Makes the column sortable; nulls go last whichever way. */
   sortValue?: (row: T) => number | string | null;
+  /** Running text (a reason, say): in a card its label stands above it and it takes the card's width. */
+  long?: boolean;
   /** The cell heads its row for screen readers (role rowheader). */
   rowHeader?: boolean;
 };

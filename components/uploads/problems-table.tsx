@@ -34,7 +34,7 @@ const columns: Column<UploadProblem & { i: number }>[] = [
     ),
     sortValue: (p) => p.severity,
   },
-  { key: 'reason', header: 'What is wrong', flex: 3, render: (p) => p.reason },
+  { key: 'reason', header: 'What is wrong', flex: 3, long: true, render: (p) => p.reason },
 ];
 
 export type ProblemsTableProps = {
@@ -65,6 +65,7 @@ export function ProblemsTable({ problems, truncated = false, errorCount, warning
         rowKey={(p) => String(p.i)}
         minWidth={560}
         rowTestID={(p) => `problem-${p.i}`}
+        testID="problems-table"
       />
       {problems.length > SHOWN || truncated ? (
         <Text style={styles.more}>

@@ -7,6 +7,7 @@ import { act, fireEvent, render, screen, within } from '@testing-library/react-n
 import { Dimensions, StyleSheet, Text } from 'react-native';
 
 import { ReviewTable } from '@/components/runs/review-table';
+import { ProblemsTable } from '@/components/uploads/problems-table';
 import { SeriesTable } from '@/components/district/series-table';
 import { DataTable, type Column } from '@/components/table/data-table';
 import { colors } from '@/components/theme';
@@ -222,5 +223,29 @@ describe('a district’s yearly values folded', () => {
     expect(within(band).getByText('no data this year')).toBeTruthy();
     expect(within(screen.getByTestId('series-row-2004')).queryByText(/^Emissions/)).toBeNull();
     expect(screen.getByLabelText('Emissions: no data for 2005')).toBeTruthy();
+  });
+});
+
+describe('an upload’s problems folded', () => {
+  it('titles each card by its line and gives the reason the card’s width under its label', () => {
+    windowWidth(390);
+    render(
+      <ProblemsTable
+        problems={[
+          { line: null, column: null, field: null, code: 'no_rows', severity: 'error', reason: 'the file has no rows' },
+          { line: 4, column: 4, field: 'value', code: 'large_change', severity: 'warning', reason: 'changes by ×3' },
+        ]}
+      />,
+    );
+    const line4 = screen.getByTestId('problem-1');
+    expect(line4.props['aria-label']).toBe('Line 4');
+    expect(within(line4).getByText('Line 4')).toBeTruthy();
+    expect(within(line4).getByText('What is wrong')).toBeTruthy();
+    expect(within(line4).getByText('changes by ×3')).toBeTruthy();
+    expect(screen.getByTestId('problem-0').props['aria-label']).toBe('No line');
+    // Sorting by line puts the problem without one last, as the Line header does.
+    expect(order('problem-')).toEqual(['problem-0', 'problem-1']);
+    fireEvent.press(screen.getByTestId('problems-table-sort-by-line'));
+    expect(order('problem-')).toEqual(['problem-1', 'problem-0']);
   });
 });

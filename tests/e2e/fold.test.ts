@@ -210,6 +210,12 @@ describe.each([
       await expectFolded(page, 'boundary-preview', phone);
       await noSidewaysScroll(page);
       await shot(page, `fold-${name}-boundary-preview`, 'boundary-preview-D01');
+      await page.getByTestId('boundary-commit').click();
+      await page.getByTestId('boundary-done-ok').waitFor();
+      await page.locator('[data-testid^="boundary-version-status-"]').first().waitFor();
+      await expectFolded(page, 'boundary-versions', phone);
+      await noSidewaysScroll(page);
+      await shot(page, `fold-${name}-boundary-versions`, 'boundary-versions');
     } finally {
       await context.close();
     }
