@@ -168,7 +168,7 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
           minWidth={900}
           rowTestID={(v) => `boundary-version-${v.id}`}
           cardTitle={(v) => `Version ${v.id}`}
-          folded={narrow}
+          folded={narrow || undefined}
           testID="boundary-versions"
         />
       )}

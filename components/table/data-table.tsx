@@ -21,12 +21,16 @@ export {
 /**
  * A table of rows and columns with sortable headers. Below 600 px it folds into a list of
  * cards with the same fields, a "Sort by" control in place of the headers, and nothing
- * that scrolls sideways (components/table/folded-table.tsx).
+ * that scrolls sideways (components/table/folded-table.tsx). A table with a minWidth also
+ * folds where its own room is narrower than that (a panel beside another table, a
+ * tablet), rather than scrolling sideways.
  */
 export function DataTable<T>(props: DataTableProps<T>) {
-  const { columns, rows, initialSort } = props;
+  const { columns, rows, initialSort, minWidth, testID } = props;
   const windowFolded = useFolded();
-  const folded = props.folded ?? windowFolded;
+  const [room, setRoom] = useState<number | null>(null);
+  const cramped = minWidth !== undefined && room !== null && room < minWidth;
+  const folded = props.folded ?? (windowFolded || cramped);
   const [sort, setSort] = useState<SortState | null>(initialSort ?? null);
   const sorted = useMemo(
     () =>
@@ -39,8 +43,22 @@ export function DataTable<T>(props: DataTableProps<T>) {
         : [...rows],
     [rows, columns, sort],
   );
-  if (folded) return <FoldedTable {...props} rows={sorted} sort={sort} onSort={setSort} />;
-  return <WideTable {...props} rows={sorted} sort={sort} onSort={setSort} />;
+  const shown = folded ? (
+    <FoldedTable {...props} rows={sorted} sort={sort} onSort={setSort} />
+  ) : (
+    <WideTable {...props} rows={sorted} sort={sort} onSort={setSort} />
+  );
+  if (minWidth === undefined || props.folded !== undefined) return shown;
+  // The frame takes its width from its parent, whatever it holds, so folding does not change it.
+  return (
+    <View
+      style={styles.frame}
+      onLayout={(e) => setRoom(e.nativeEvent.layout.width)}
+      testID={testID ? `${testID}-frame` : undefined}
+    >
+      {shown}
+    </View>
+  );
 }
 
 function WideTable<T>({
@@ -157,6 +175,7 @@ function WideTable<T>({
 }
 
 const styles = StyleSheet.create({
+  frame: { alignSelf: 'stretch', minWidth: 0 },
   scrollContent: { flexGrow: 1 },
   table: {
     flexGrow: 1,

@@ -86,7 +86,7 @@ export type DataTableProps<T> = {
   initialSort?: SortState;
   /** Highlights one row (the one open beside the table). */
   selectedKey?: string | null;
-  /** Between the fold and this width the table scrolls sideways instead of squeezing its columns. */
+  /** The width the columns need: with less room than this the table folds into cards (it never squeezes them). */
   minWidth?: number;
   rowTestID?: (row: T) => string;
   testID?: string;
@@ -98,7 +98,7 @@ export type DataTableProps<T> = {
   rowBand?: (row: T, how: { folded: boolean }) => ReactNode | null;
   /** Folded cards list their fields one a line (default), or two abreast, label above value, for short numbers. */
   cardLayout?: 'lines' | 'grid';
-  /** Folds or not regardless of the window (tests, and screens that decide for themselves). */
+  /** Folds or not regardless of the window and the room (tests, and screens that decide for themselves). */
   folded?: boolean;
 };
 

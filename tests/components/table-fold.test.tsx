@@ -158,6 +158,33 @@ describe('a DataTable', () => {
   });
 });
 
+describe('a DataTable with less room than its columns need', () => {
+  it('folds in a narrow panel of a wide window, and unfolds when the panel grows', () => {
+    windowWidth(1440);
+    render(
+      <DataTable
+        label="Districts"
+        columns={columns}
+        rows={rows}
+        rowKey={(r) => r.code}
+        minWidth={440}
+        rowTestID={(r) => `row-${r.code}`}
+        testID="t"
+      />,
+    );
+    expect(screen.getByTestId('t').props.role).toBe('table');
+    const layout = (width: number) =>
+      fireEvent(screen.getByTestId('t-frame'), 'layout', {
+        nativeEvent: { layout: { x: 0, y: 0, width, height: 300 } },
+      });
+    layout(406);
+    expect(withRole('table')).toHaveLength(0);
+    expect(screen.getByTestId('row-X01').props.role).toBe('listitem');
+    layout(440);
+    expect(screen.getByTestId('t').props.role).toBe('table');
+  });
+});
+
 describe('the run review folded', () => {
   const review = () => (
     <ReviewTable

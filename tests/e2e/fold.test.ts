@@ -1,6 +1,6 @@
 /**
  * Browser test of tables that fold: at a phone viewport (390×844) every screen with a data
- * table — runs, run review, uploads, an upload's detail (problems and what it changes),
+ * table — runs, run review and one district's variants, uploads, an upload's detail (problems and what it changes),
  * people, audit, the boundary screen (problems, dry run, versions), a district's yearly
  * values and the region brief — shows its rows as cards and nothing on the page scrolls
  * sideways (WCAG 2.2 SC 1.4.10 Reflow: content at 320 CSS px needs no scrolling in two
@@ -160,6 +160,15 @@ describe.each([
         await shot(page, `fold-${name}-run-review-sort`, 'review-table-sort');
       }
       await shot(page, `fold-${name}-run-review`, 'review-row-D01');
+
+      // One district of the run: its fits under each variant.
+      await page.goto(`${h.baseUrl}/runs/${runId}?district=D13`);
+      await page.getByTestId('variants').waitFor();
+      // Cards at both sizes: beside the run's table at 1440 px the panel has about 400 px,
+      // less than the variants' columns need (440), so there too they fold rather than scroll.
+      await expectFolded(page, 'variants', true);
+      await noSidewaysScroll(page);
+      await shot(page, `fold-${name}-run-district-variants`, 'variants');
 
       await page.goto(`${h.baseUrl}/uploads`);
       await page.getByTestId('uploads-screen').waitFor();
