@@ -149,6 +149,8 @@ export const type = {
 
 /** Window widths where the layout changes. */
 export const breakpoints = {
+  /** Below this width a data table folds into a list of cards. */
+  fold: 600,
   /** At or above this width the list and the detail sit side by side. */
   wide: 1024,
   /** At or above this width a third column shows the caller's alerts. */

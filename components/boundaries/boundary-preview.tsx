@@ -17,7 +17,7 @@ const columns: Column<Row>[] = [
     header: 'Feature',
     width: 76,
     align: 'right',
-    render: (r) => String(r.feature),
+    render: (r, { folded }) => (folded ? `Feature ${r.feature}` : String(r.feature)),
     sortValue: (r) => r.feature,
   },
   { key: 'code', header: 'Code', width: 84, render: (r) => r.code, sortValue: (r) => r.code },

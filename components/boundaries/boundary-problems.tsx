@@ -1,7 +1,7 @@
 import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
 
 import { DataTable, type Column } from '@/components/table/data-table';
-import { colors, radius, space, type } from '@/components/theme';
+import { colors, space, type } from '@/components/theme';
 import { Pill } from '@/components/ui/pill';
 import type { BoundaryProblem } from '@/contracts/boundaries';
 
@@ -15,7 +15,16 @@ const columns: Column<Row>[] = [
     header: 'Feature',
     width: 76,
     align: 'right',
-    render: (p) => (p.feature === null ? '—' : String(p.feature)),
+    render: (p, { folded }) =>
+      folded
+        ? p.feature === null
+          ? p.code
+            ? 'District'
+            : 'File'
+          : `Feature ${p.feature}`
+        : p.feature === null
+          ? '—'
+          : String(p.feature),
     sortValue: (p) => p.feature,
   },
   { key: 'code', header: 'Code', width: 84, render: (p) => p.code ?? '—', sortValue: (p) => p.code },
@@ -37,28 +46,16 @@ const columns: Column<Row>[] = [
   },
 ];
 
-const reasonColumn: Column<Row> = { key: 'reason', header: 'What is wrong', flex: 3, render: (p) => p.reason };
+const reasonColumn: Column<Row> = {
+  key: 'reason',
+  header: 'What is wrong',
+  flex: 3,
+  long: true,
+  render: (p) => p.reason,
+};
 
-/** Below this window width the problems are cards (a table would hide the reasons off to the side). */
+/** Below this window width the problems are cards (the table needs the room for its reasons). */
 const NARROW = 760;
-
-/** One problem as a card: where (feature and code), its kind, and the reason in full. */
-function ProblemCard({ p }: { p: Row }) {
-  return (
-    <View style={styles.card} testID={`boundary-problem-${p.i}`} role="listitem">
-      <View style={styles.cardHead}>
-        <Text style={styles.where}>{p.feature === null ? (p.code ? 'District' : 'File') : `Feature ${p.feature}`}</Text>
-        {p.code ? <Text style={styles.where}>{p.code}</Text> : null}
-        <Pill
-          label={p.severity === 'error' ? 'Error' : 'Warning'}
-          tone={p.severity === 'error' ? 'danger' : 'warning'}
-        />
-        <Text style={styles.kind}>{PROBLEM_LABEL[p.problem]}</Text>
-      </View>
-      <Text style={styles.reason}>{p.reason}</Text>
-    </View>
-  );
-}
 
 export type BoundaryProblemsProps = {
   problems: BoundaryProblem[];
@@ -82,21 +79,14 @@ export function BoundaryProblems({ problems, errors, warnings }: BoundaryProblem
           ? 'Errors stop the whole file from loading: nothing is written until every one is fixed.'
           : 'Warnings ask for a second look; they do not stop the load.'}
       </Text>
-      {narrow ? (
-        <View role="list" aria-label="Problems found in the boundary file" style={styles.cards}>
-          {rows.map((p) => (
-            <ProblemCard key={p.i} p={p} />
-          ))}
-        </View>
-      ) : (
-        <DataTable
-          label="Problems found in the boundary file"
-          columns={[...columns, reasonColumn]}
-          rows={rows}
-          rowKey={(p) => String(p.i)}
-          rowTestID={(p) => `boundary-problem-${p.i}`}
-        />
-      )}
+      <DataTable
+        label="Problems found in the boundary file"
+        columns={[...columns, reasonColumn]}
+        rows={rows}
+        rowKey={(p) => String(p.i)}
+        rowTestID={(p) => `boundary-problem-${p.i}`}
+        folded={narrow}
+      />
       {errors + warnings > problems.length ? (
         <Text style={styles.more}>
           Showing the first {problems.length} problems; the counts above cover the whole file.
@@ -110,17 +100,4 @@ const styles = StyleSheet.create({
   wrap: { gap: space.sm },
   summary: { ...type.body, color: colors.text },
   more: { ...type.caption, color: colors.textMuted },
-  cards: { gap: space.sm },
-  card: {
-    gap: space.xs,
-    backgroundColor: colors.surface,
-    borderColor: colors.border,
-    borderWidth: 1,
-    borderRadius: radius.md,
-    padding: space.md,
-  },
-  cardHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
-  where: { ...type.bodyStrong, color: colors.text },
-  kind: { ...type.body, color: colors.textMuted },
-  reason: { ...type.body, color: colors.text },
 });

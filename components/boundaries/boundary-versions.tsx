@@ -7,7 +7,7 @@ import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { cellText, DataTable, type Column } from '@/components/table/data-table';
-import { colors, radius, space, type } from '@/components/theme';
+import { colors, space, type } from '@/components/theme';
 import { ConfirmAction } from '@/components/ui/confirm-action';
 import { Pill } from '@/components/ui/pill';
 import { formatDateTime } from '@/lib/format-time';
@@ -87,9 +87,9 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
       key: 'id',
       header: 'Version',
       width: 96,
-      render: (v) => (
+      render: (v, { folded }) => (
         <View style={styles.stack}>
-          <Text style={cellText.strong}>{v.id}</Text>
+          <Text style={folded ? styles.title : cellText.strong}>{folded ? `Version ${v.id}` : v.id}</Text>
           <Text style={cellText.muted}>upload #{v.uploadId}</Text>
         </View>
       ),
@@ -160,28 +160,6 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
           title="No boundaries loaded yet"
           message="The region is shown as a list until district boundaries are loaded. Files you load appear here, newest first."
         />
-      ) : narrow ? (
-        <View role="list" aria-label="Boundary versions" style={styles.cards} testID="boundary-versions">
-          {rows.map((v) => (
-            <View key={v.id} role="listitem" style={styles.card} testID={`boundary-version-${v.id}`}>
-              <View style={styles.cardHead}>
-                <Text style={styles.title}>Version {v.id}</Text>
-                <Pill label={status(v).label} tone={status(v).tone} testID={`boundary-version-status-${v.id}`} />
-              </View>
-              <Text style={styles.line} numberOfLines={2}>
-                {v.fileName ?? 'File without a name'} · upload #{v.uploadId} · data version {v.dataVersion ?? '—'}
-              </Text>
-              <Text style={styles.muted}>
-                {formatDateTime(v.createdAt)} · {v.userEmail ?? 'demo set-up'} · code in &quot;{v.codeProperty}&quot;
-              </Text>
-              <Text style={styles.line}>
-                {v.features} districts mapped, {v.missing} without · {formatCount(v.vertices)} vertices
-                {v.repaired ? ` · ${v.repaired} repaired` : ''}
-              </Text>
-              {revertButton(v)}
-            </View>
-          ))}
-        </View>
       ) : (
         <DataTable
           label="Boundary versions"
@@ -190,6 +168,8 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
           rowKey={(v) => String(v.id)}
           minWidth={900}
           rowTestID={(v) => `boundary-version-${v.id}`}
+          cardTitle={(v) => `Version ${v.id}`}
+          folded={narrow || undefined}
           testID="boundary-versions"
         />
       )}
@@ -197,24 +177,12 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
   );
 }
 
-/** Below this window width the versions are cards (a table would hide Revert off to the side). */
+/** Below this window width the versions are cards (the table needs 900 px for Revert to be in view). */
 const NARROW = 760;
 
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
-  cards: { gap: space.sm },
-  card: {
-    gap: space.xs,
-    backgroundColor: colors.surface,
-    borderColor: colors.border,
-    borderWidth: 1,
-    borderRadius: radius.md,
-    padding: space.md,
-  },
-  cardHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   title: { ...type.bodyStrong, color: colors.text },
-  line: { ...type.body, color: colors.text },
-  muted: { ...type.caption, color: colors.textMuted },
   skeleton: { gap: space.sm },
   stack: { gap: space.xxs, minWidth: 0 },
 });

@@ -1,7 +1,9 @@
 import { StyleSheet, Text, View } from 'react-native';
 
+import { DataTable, type Column } from '@/components/table/data-table';
 import { colors, space, type } from '@/components/theme';
 import type { RegionBriefContent, RegionBriefRow } from '@/contracts/briefs';
+import { useFolded } from '@/hooks/use-folded';
 
 import { BriefChart } from './brief-chart';
 import { BriefHeading, BriefTop, Cautions, FigureGrid, keepTogether, ModelLine, TraceFooter } from './brief-sections';
@@ -54,8 +56,37 @@ function SummaryList({
   );
 }
 
+/**
+ * The table folded for a phone: a card a district, titled by its name and code, with the
+ * other columns as label: value pairs in the brief's own words.
+ */
+function FoldedBriefTable({ table }: { table: RegionBriefContent['table'] }) {
+  const columns: Column<RegionBriefRow>[] = [
+    {
+      key: 'name',
+      header: table.columns.find((col) => col.key === 'name')?.label ?? 'District',
+      render: (row) => `${row.name} (${row.code})`,
+    },
+    ...table.columns
+      .filter((col) => col.key !== 'code' && col.key !== 'name')
+      .map((col): Column<RegionBriefRow> => ({ key: col.key, header: col.label, render: (row) => row[col.key] })),
+  ];
+  return (
+    <DataTable
+      label="All districts"
+      columns={columns}
+      rows={table.rows}
+      rowKey={(row) => row.code}
+      folded
+      rowTestID={(row) => `brief-row-${row.code}`}
+      testID="brief-table"
+    />
+  );
+}
+
 /** The region brief as a page: the same summary, pooled curve and table as its PDF. */
 export function RegionBriefView({ content: c }: { content: RegionBriefContent }) {
+  const folded = useFolded();
   return (
     <View style={styles.page} testID="region-brief">
       <BriefTop subtitle={c.subtitle} />
@@ -95,46 +126,50 @@ export function RegionBriefView({ content: c }: { content: RegionBriefContent })
       <Cautions cautions={c.cautions} />
       <View style={styles.block}>
         <BriefHeading>All districts</BriefHeading>
-        <View style={styles.table} {...part('table')} testID="brief-table">
-          <View {...part('thead')}>
-            <View style={[styles.row, styles.headRow]} {...part('tr')}>
-              {c.table.columns.map((col) => (
-                <Text
-                  key={col.key}
-                  style={[
-                    styles.cell,
-                    styles.headCell,
-                    { flexBasis: COLUMN_BASIS[col.key] },
-                    NUMERIC.has(col.key) && styles.numeric,
-                  ]}
-                  {...part('td')}
-                >
-                  {col.label}
-                </Text>
-              ))}
-            </View>
-          </View>
-          <View {...part('tbody')}>
-            {c.table.rows.map((row, i) => (
-              <View key={row.code} style={[styles.row, i % 2 === 1 && styles.shaded]} {...part('tr')}>
+        {folded ? (
+          <FoldedBriefTable table={c.table} />
+        ) : (
+          <View style={styles.table} {...part('table')} testID="brief-table">
+            <View {...part('thead')}>
+              <View style={[styles.row, styles.headRow]} {...part('tr')}>
                 {c.table.columns.map((col) => (
                   <Text
                     key={col.key}
                     style={[
                       styles.cell,
+                      styles.headCell,
                       { flexBasis: COLUMN_BASIS[col.key] },
                       NUMERIC.has(col.key) && styles.numeric,
-                      col.key === 'code' && styles.code,
                     ]}
                     {...part('td')}
                   >
-                    {row[col.key]}
+                    {col.label}
                   </Text>
                 ))}
               </View>
-            ))}
+            </View>
+            <View {...part('tbody')}>
+              {c.table.rows.map((row, i) => (
+                <View key={row.code} style={[styles.row, i % 2 === 1 && styles.shaded]} {...part('tr')}>
+                  {c.table.columns.map((col) => (
+                    <Text
+                      key={col.key}
+                      style={[
+                        styles.cell,
+                        { flexBasis: COLUMN_BASIS[col.key] },
+                        NUMERIC.has(col.key) && styles.numeric,
+                        col.key === 'code' && styles.code,
+                      ]}
+                      {...part('td')}
+                    >
+                      {row[col.key]}
+                    </Text>
+                  ))}
+                </View>
+              ))}
+            </View>
           </View>
-        </View>
+        )}
         <Text style={styles.muted}>
           {formatCount(c.table.rows.length)} districts. Gap: income now against the threshold. “Regional curve”: the
           pooled curve stands in for a short series.

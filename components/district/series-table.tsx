@@ -1,17 +1,17 @@
 import { StyleSheet, Text, View } from 'react-native';
 
+import { DataTable, type Column } from '@/components/table/data-table';
 import { colors, radius, space, type } from '@/components/theme';
 import type { Indicator, SeriesRow } from '@/contracts/districts';
-import { INDICATOR_COLUMNS, type IndicatorColumn } from '@/lib/indicators';
+import { INDICATOR_COLUMNS } from '@/lib/indicators';
 
-/** Relative column widths: the longer headers and numbers get more of a 390 px screen. */
-const COLUMN_WEIGHT: Record<IndicatorColumn['code'], number> = {
+/** Relative column widths: the longer headers and numbers get more of the row. */
+const COLUMN_WEIGHT: Record<(typeof INDICATOR_COLUMNS)[number]['code'], number> = {
   emissions_pc: 1.2,
   income_pc: 1.15,
   population: 0.85,
   pop_density: 0.8,
 };
-const TOTAL_WEIGHT = INDICATOR_COLUMNS.reduce((sum, c) => sum + COLUMN_WEIGHT[c.code], 0);
 
 export type SeriesTableProps = {
   districtName: string;
@@ -23,83 +23,67 @@ export type SeriesTableProps = {
 /**
  * The district's values year by year. A missing value is a visible "no data" cell, and a
  * year with no value at all is one "no data this year" band across the row, so a gap is
- * never mistaken for a small number or quietly closed up.
+ * never mistaken for a small number or quietly closed up. Below 600 px each year is a card.
  */
 export function SeriesTable({ districtName, series, indicators }: SeriesTableProps) {
-  const columns = INDICATOR_COLUMNS;
+  const columns: Column<SeriesRow>[] = [
+    {
+      key: 'year',
+      header: 'Year',
+      width: 64,
+      rowHeader: true,
+      render: (row) => <Text style={styles.year}>{row.year}</Text>,
+    },
+    ...INDICATOR_COLUMNS.map((c): Column<SeriesRow> => ({
+      key: c.code,
+      header: c.short,
+      subheader: c.shortUnit ?? indicators.find((i) => i.code === c.code)?.unit ?? '',
+      flex: COLUMN_WEIGHT[c.code],
+      align: 'right',
+      render: (row, { folded }) => {
+        const value = row[c.field];
+        return value === null ? (
+          <View
+            style={[styles.gapMark, folded && styles.start]}
+            testID={`series-gap-${row.year}-${c.code}`}
+            accessibilityLabel={`${c.short}: no data for ${row.year}`}
+          >
+            <Text style={styles.gapText}>no data</Text>
+          </View>
+        ) : (
+          <Text style={[styles.value, folded && styles.left]} testID={`series-value-${row.year}-${c.code}`}>
+            {c.format(value)}
+          </Text>
+        );
+      },
+    })),
+  ];
   return (
     <View style={styles.wrap}>
-      <View role="table" aria-label={`Yearly values for ${districtName}`} style={styles.table} testID="series-table">
-        <View role="row" style={[styles.row, styles.headRow]}>
-          <View role="columnheader" style={[styles.cell, styles.yearCell]}>
-            <Text style={styles.headLabel}>Year</Text>
-          </View>
-          {columns.map((c) => (
+      <DataTable
+        label={`Yearly values for ${districtName}`}
+        columns={columns}
+        rows={series}
+        rowKey={(row) => String(row.year)}
+        titleKey="year"
+        cardLayout="grid"
+        cardTitle={(row) => String(row.year)}
+        rowBand={(row, { folded }) =>
+          INDICATOR_COLUMNS.every((c) => row[c.field] === null) ? (
             <View
-              key={c.code}
-              role="columnheader"
-              style={[styles.cell, styles.valueCell, { flex: COLUMN_WEIGHT[c.code] }]}
+              role={folded ? undefined : 'cell'}
+              style={styles.gapBand}
+              testID={`series-gap-row-${row.year}`}
+              accessibilityLabel={`No data for ${row.year}`}
             >
-              <Text style={[styles.headLabel, styles.right]}>{c.short}</Text>
-              <Text style={[styles.headUnit, styles.right]}>
-                {c.shortUnit ?? indicators.find((i) => i.code === c.code)?.unit ?? ''}
-              </Text>
+              <Text style={styles.gapText}>no data this year</Text>
             </View>
-          ))}
-        </View>
-        {series.map((row, i) => (
-          <SeriesTableRow key={row.year} row={row} columns={columns} striped={i % 2 === 1} />
-        ))}
-      </View>
+          ) : null
+        }
+        rowTestID={(row) => `series-row-${row.year}`}
+        testID="series-table"
+      />
       <IndicatorLegend indicators={indicators} />
-    </View>
-  );
-}
-
-function SeriesTableRow({
-  row,
-  columns,
-  striped,
-}: {
-  row: SeriesRow;
-  columns: readonly IndicatorColumn[];
-  striped: boolean;
-}) {
-  const empty = columns.every((c) => row[c.field] === null);
-  return (
-    <View role="row" style={[styles.row, striped && styles.striped]} testID={`series-row-${row.year}`}>
-      <View role="rowheader" style={[styles.cell, styles.yearCell]}>
-        <Text style={styles.year}>{row.year}</Text>
-      </View>
-      {empty ? (
-        <View
-          role="cell"
-          style={[styles.cell, styles.gapCell, styles.gapRowCell, { flex: TOTAL_WEIGHT }]}
-          testID={`series-gap-row-${row.year}`}
-          accessibilityLabel={`No data for ${row.year}`}
-        >
-          <Text style={styles.gapText}>no data this year</Text>
-        </View>
-      ) : (
-        columns.map((c) => {
-          const value = row[c.field];
-          return value === null ? (
-            <View
-              key={c.code}
-              role="cell"
-              style={[styles.cell, styles.valueCell, styles.gapCell, { flex: COLUMN_WEIGHT[c.code] }]}
-              testID={`series-gap-${row.year}-${c.code}`}
-              accessibilityLabel={`${c.short}: no data for ${row.year}`}
-            >
-              <Text style={[styles.gapText, styles.right]}>no data</Text>
-            </View>
-          ) : (
-            <View key={c.code} role="cell" style={[styles.cell, styles.valueCell, { flex: COLUMN_WEIGHT[c.code] }]}>
-              <Text style={[styles.value, styles.right]}>{c.format(value)}</Text>
-            </View>
-          );
-        })
-      )}
     </View>
   );
 }
@@ -123,34 +107,22 @@ function IndicatorLegend({ indicators }: { indicators: Indicator[] }) {
   );
 }
 
+const gapEdge = {
+  backgroundColor: colors.gapFill,
+  borderWidth: 1,
+  borderStyle: 'dashed',
+  borderColor: colors.gapText,
+  borderRadius: radius.sm,
+} as const;
+
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
-  table: {
-    backgroundColor: colors.surface,
-    borderColor: colors.border,
-    borderWidth: 1,
-    borderRadius: radius.md,
-    overflow: 'hidden',
-  },
-  row: { flexDirection: 'row', alignItems: 'stretch', minHeight: 36 },
-  headRow: { backgroundColor: colors.surfaceSunken, borderBottomWidth: 1, borderBottomColor: colors.border },
-  striped: { backgroundColor: colors.background },
-  cell: { paddingHorizontal: space.xs + space.xxs, paddingVertical: space.sm, justifyContent: 'center' },
-  yearCell: { width: 50 },
-  valueCell: { minWidth: 0 },
-  right: { textAlign: 'right' },
-  headLabel: { ...type.label, color: colors.text },
-  headUnit: { ...type.caption, color: colors.textMuted },
   year: { ...type.numeric, fontFamily: type.label.fontFamily, color: colors.text },
-  value: { ...type.numeric, color: colors.text },
-  gapCell: {
-    backgroundColor: colors.gapFill,
-    borderLeftWidth: 1,
-    borderRightWidth: 1,
-    borderStyle: 'dashed',
-    borderColor: colors.gapText,
-  },
-  gapRowCell: { alignItems: 'center' },
+  value: { ...type.numeric, color: colors.text, textAlign: 'right' },
+  left: { textAlign: 'left' },
+  start: { alignSelf: 'flex-start' },
+  gapMark: { ...gapEdge, paddingHorizontal: space.xs, paddingVertical: space.xxs },
+  gapBand: { ...gapEdge, flex: 1, alignItems: 'center', justifyContent: 'center', padding: space.sm },
   gapText: { ...type.caption, fontFamily: type.label.fontFamily, color: colors.gapText },
   legend: { gap: space.xxs },
   legendLine: { ...type.caption, color: colors.textMuted },

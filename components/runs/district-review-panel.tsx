@@ -131,6 +131,7 @@ function Body({ review, row, code, onSaveNote, runClosed, incomeUnit }: Omit<Dis
           columns={variantColumns}
           rows={records}
           rowKey={(r) => r.variant}
+          cardTitle={(r) => VARIANT_NAMES[r.variant] ?? r.variant}
           minWidth={440}
           testID="variants"
         />

@@ -175,6 +175,7 @@ export function ReviewTable({ runId, rows, previousRunId, shiftPercent, selected
           minWidth={680}
           initialSort={{ key: 'district', direction: 'asc' }}
           rowTestID={(r) => `review-row-${r.code}`}
+          cardTitle={(r) => r.name}
           testID="review-table"
         />
       ) : (

@@ -38,10 +38,10 @@ const columns: Column<RunListItem>[] = [
     key: 'id',
     header: 'Run',
     width: 88,
-    render: (r) => (
+    render: (r, { folded }) => (
       <TextLink
         href={{ pathname: '/runs/[id]', params: { id: String(r.id) } }}
-        label={`#${r.id}`}
+        label={folded ? `Run #${r.id}` : `#${r.id}`}
         accessibilityLabel={`Run ${r.id}`}
       />
     ),
@@ -237,6 +237,7 @@ export function RunsScreen({
             rowKey={(r) => String(r.id)}
             minWidth={760}
             rowTestID={(r) => `run-row-${r.id}`}
+            cardTitle={(r) => `Run #${r.id}`}
             testID="runs-table"
           />
         )}

@@ -1,73 +1,36 @@
-import { useMemo, useState, type ReactNode } from 'react';
+import { useMemo, useState } from 'react';
 import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
+import { useFolded } from '@/hooks/use-folded';
 
-export type SortDirection = 'asc' | 'desc';
-export type SortState = { key: string; direction: SortDirection };
+import { FoldedTable } from './folded-table';
+import { cellSize, sortRows, type DataTableProps, type SortedTableProps, type SortState } from './table-model';
 
-export type Column<T> = {
-  key: string;
-  header: string;
-  /** A second header line (a unit). */
-  subheader?: string;
-  /** Share of the row's width (default 1), or a fixed width in px. */
-  flex?: number;
-  width?: number;
-  align?: 'left' | 'right';
-  /** The cell: text is drawn in the table's type, anything else as it is. */
-  render: (row: T) => ReactNode;
-  /** Makes the column sortable; nulls go last whichever way. */
-  sortValue?: (row: T) => number | string | null;
-};
-
-export type DataTableProps<T> = {
-  /** Names the table for screen readers. */
-  label: string;
-  columns: readonly Column<T>[];
-  rows: readonly T[];
-  rowKey: (row: T) => string;
-  /** Starting sort (sortable columns can be re-sorted from their header). */
-  initialSort?: SortState;
-  /** Highlights one row (the one open beside the table). */
-  selectedKey?: string | null;
-  /** Below this width the table scrolls sideways instead of squeezing its columns. */
-  minWidth?: number;
-  rowTestID?: (row: T) => string;
-  testID?: string;
-};
-
-export function sortRows<T>(rows: readonly T[], column: Column<T> | undefined, direction: SortDirection): T[] {
-  if (!column?.sortValue) return [...rows];
-  const value = column.sortValue;
-  const sign = direction === 'asc' ? 1 : -1;
-  return [...rows].sort((a, b) => {
-    const va = value(a);
-    const vb = value(b);
-    if (va === null && vb === null) return 0;
-    if (va === null) return 1;
-    if (vb === null) return -1;
-    if (typeof va === 'number' && typeof vb === 'number') return sign * (va - vb);
-    return sign * String(va).localeCompare(String(vb), 'en', { numeric: true });
-  });
-}
+export {
+  cellText,
+  sortRows,
+  titleOf,
+  type Column,
+  type DataTableProps,
+  type SortDirection,
+  type SortState,
+} from './table-model';
 
 /**
- * A plain table of rows and columns with sortable headers. On a phone a wide table keeps
- * its columns readable and scrolls sideways (minWidth) rather than wrapping every cell.
+ * A table of rows and columns with sortable headers. Below 600 px it folds into a list of
+ * cards with the same fields, a "Sort by" control in place of the headers, and nothing
+ * that scrolls sideways (components/table/folded-table.tsx). A table with a minWidth also
+ * folds where its own room is narrower than that (a panel beside another table, a
+ * tablet), rather than scrolling sideways.
  */
-export function DataTable<T>({
-  label,
-  columns,
-  rows,
-  rowKey,
-  initialSort,
-  selectedKey,
-  minWidth,
-  rowTestID,
-  testID,
-}: DataTableProps<T>) {
+export function DataTable<T>(props: DataTableProps<T>) {
+  const { columns, rows, initialSort, minWidth, testID } = props;
+  const windowFolded = useFolded();
+  const [room, setRoom] = useState<number | null>(null);
+  const cramped = minWidth !== undefined && room !== null && room < minWidth;
+  const folded = props.folded ?? (windowFolded || cramped);
   const [sort, setSort] = useState<SortState | null>(initialSort ?? null);
   const sorted = useMemo(
     () =>
@@ -80,10 +43,46 @@ export function DataTable<T>({
         : [...rows],
     [rows, columns, sort],
   );
+  const shown = folded ? (
+    <FoldedTable {...props} rows={sorted} sort={sort} onSort={setSort} />
+  ) : (
+    <WideTable {...props} rows={sorted} sort={sort} onSort={setSort} />
+  );
+  if (minWidth === undefined || props.folded !== undefined) return shown;
+  // The frame takes its width from its parent, whatever it holds, so folding does not change it.
+  return (
+    <View
+      style={styles.frame}
+      onLayout={(e) => setRoom(e.nativeEvent.layout.width)}
+      testID={testID ? `${testID}-frame` : undefined}
+    >
+      {shown}
+    </View>
+  );
+}
+
+function WideTable<T>({
+  label,
+  columns,
+  rows,
+  rowKey,
+  selectedKey,
+  minWidth,
+  rowTestID,
+  testID,
+  rowBand,
+  titleKey,
+  sort,
+  onSort,
+}: SortedTableProps<T>) {
   const toggle = (key: string) =>
-    setSort((s) =>
-      s?.key === key ? { key, direction: s.direction === 'asc' ? 'desc' : 'asc' } : { key, direction: 'asc' },
+    onSort(
+      sort?.key === key ? { key, direction: sort.direction === 'asc' ? 'desc' : 'asc' } : { key, direction: 'asc' },
     );
+  const titleIndex = Math.max(
+    0,
+    columns.findIndex((c) => c.key === titleKey),
+  );
 
   const table = (
     <View role="table" aria-label={label} style={[styles.table, minWidth ? { minWidth } : null]} testID={testID}>
@@ -130,8 +129,10 @@ export function DataTable<T>({
           );
         })}
       </View>
-      {sorted.map((row, i) => {
+      {rows.map((row, i) => {
         const key = rowKey(row);
+        const band = rowBand?.(row, { folded: false }) ?? null;
+        const cells = band ? columns.slice(0, titleIndex + 1) : columns;
         return (
           <View
             key={key}
@@ -139,12 +140,12 @@ export function DataTable<T>({
             style={[styles.row, i % 2 === 1 && styles.striped, selectedKey === key && styles.selected]}
             testID={rowTestID?.(row)}
           >
-            {columns.map((c) => {
-              const content = c.render(row);
+            {cells.map((c) => {
+              const content = c.render(row, { folded: false });
               return (
                 <View
                   key={c.key}
-                  role="cell"
+                  role={c.rowHeader ? 'rowheader' : 'cell'}
                   style={[styles.cell, cellSize(c), c.align === 'right' && styles.cellRight]}
                 >
                   {typeof content === 'string' || typeof content === 'number' ? (
@@ -155,6 +156,7 @@ export function DataTable<T>({
                 </View>
               );
             })}
+            {band ? <View style={styles.band}>{band}</View> : null}
           </View>
         );
       })}
@@ -172,18 +174,8 @@ export function DataTable<T>({
   );
 }
 
-function cellSize<T>(c: Column<T>) {
-  return c.width ? { width: c.width } : { flex: c.flex ?? 1 };
-}
-
-/** Cell text styles, for cells that build their own content. */
-export const cellText = StyleSheet.create({
-  value: { ...type.numeric, color: colors.text },
-  strong: { ...type.numeric, fontFamily: type.label.fontFamily, color: colors.text },
-  muted: { ...type.caption, color: colors.textMuted },
-});
-
 const styles = StyleSheet.create({
+  frame: { alignSelf: 'stretch', minWidth: 0 },
   scrollContent: { flexGrow: 1 },
   table: {
     flexGrow: 1,
@@ -204,6 +196,7 @@ const styles = StyleSheet.create({
     minWidth: 0,
     gap: space.xxs,
   },
+  band: { flex: 1, minWidth: 0, flexDirection: 'row', alignItems: 'stretch' },
   cellRight: { alignItems: 'flex-end' },
   right: { textAlign: 'right' },
   headLabel: { ...type.label, color: colors.text },

@@ -120,6 +120,7 @@ export function PreviewSummary({ preview }: { preview: UploadPreview }) {
           rows={preview.byDistrict}
           rowKey={(d) => d.district}
           rowTestID={(d) => `preview-district-${d.district}`}
+          cardTitle={(d) => d.name || d.district}
           minWidth={420}
         />
       </Section>
@@ -129,6 +130,7 @@ export function PreviewSummary({ preview }: { preview: UploadPreview }) {
           columns={indicatorColumns}
           rows={preview.byIndicator}
           rowKey={(r) => r.indicator}
+          cardTitle={(r) => r.name || r.indicator}
           minWidth={420}
         />
       </Section>

@@ -14,7 +14,8 @@ const columns: Column<UploadProblem & { i: number }>[] = [
     header: 'Line',
     width: 64,
     align: 'right',
-    render: (p) => (p.line === null ? '—' : String(p.line)),
+    render: (p, { folded }) =>
+      folded ? (p.line === null ? 'No line' : `Line ${p.line}`) : p.line === null ? '—' : String(p.line),
     sortValue: (p) => p.line,
   },
   {
@@ -33,7 +34,7 @@ const columns: Column<UploadProblem & { i: number }>[] = [
     ),
     sortValue: (p) => p.severity,
   },
-  { key: 'reason', header: 'What is wrong', flex: 3, render: (p) => p.reason },
+  { key: 'reason', header: 'What is wrong', flex: 3, long: true, render: (p) => p.reason },
 ];
 
 export type ProblemsTableProps = {
@@ -64,6 +65,7 @@ export function ProblemsTable({ problems, truncated = false, errorCount, warning
         rowKey={(p) => String(p.i)}
         minWidth={560}
         rowTestID={(p) => `problem-${p.i}`}
+        testID="problems-table"
       />
       {problems.length > SHOWN || truncated ? (
         <Text style={styles.more}>

@@ -80,10 +80,10 @@ export function UploadHistory({ uploads, onRevert }: UploadHistoryProps) {
       key: 'id',
       header: 'Upload',
       width: 92,
-      render: (u) => (
+      render: (u, { folded }) => (
         <TextLink
           href={{ pathname: '/uploads/[id]', params: { id: String(u.id) } }}
-          label={`#${u.id}`}
+          label={folded ? `Upload #${u.id}` : `#${u.id}`}
           accessibilityLabel={`Upload ${u.id}`}
         />
       ),
@@ -165,6 +165,7 @@ export function UploadHistory({ uploads, onRevert }: UploadHistoryProps) {
         rowKey={(u) => String(u.id)}
         minWidth={onRevert ? 820 : 620}
         rowTestID={(u) => `upload-row-${u.id}`}
+        cardTitle={(u) => `Upload #${u.id}`}
         testID="upload-history"
       />
     </View>

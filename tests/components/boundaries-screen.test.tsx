@@ -131,13 +131,17 @@ afterEach(() => {
   mockedPick.mockReset();
 });
 
+/** The problem table's column headers, which a card (narrow screens) shows beside each value. */
+const FIELD_LABELS = new Set(['Code', 'Kind', 'Problem', 'What is wrong']);
+
 const rowTexts = (testID: string) =>
   screen
     .getAllByTestId(new RegExp(`^${testID}-\\d+$`))
     .map((r) =>
       within(r)
         .queryAllByText(/.+/)
-        .map((t) => String(t.props.children)),
+        .map((t) => String(t.props.children))
+        .filter((t) => !FIELD_LABELS.has(t)),
     )
     // A table cell says "6" or "—"; a card (narrow screens) says "Feature 6" or "District".
     .map(([first, ...rest]) => [first.replace(/^Feature /, '').replace(/^(District|File)$/, '—'), ...rest]);

@@ -30,9 +30,12 @@ async function chooseFile(page: Page, file: string): Promise<void> {
   await (await chooser).setFiles(file);
 }
 
+/** The problem table's column headers, which a card (phones) shows beside each value. */
+const FIELD_LABELS = new Set(['Code', 'Kind', 'Problem', 'What is wrong']);
+
 /**
  * The problem rows as lists of texts: feature, code, kind, problem, reason. Wide screens show
- * a table (feature "6"), phones cards ("Feature 6"): both read as "6".
+ * a table (feature "6"), phones cards ("Feature 6", each value under its label): both read as "6".
  */
 async function problemRows(page: Page): Promise<string[][]> {
   const rows = await page.locator('[data-testid^="boundary-problem-"]').allInnerTexts();
@@ -41,7 +44,7 @@ async function problemRows(page: Page): Promise<string[][]> {
       r
         .split('\n')
         .map((c) => c.trim())
-        .filter(Boolean),
+        .filter((c) => c && !FIELD_LABELS.has(c)),
     )
     .filter((cells) => cells.includes('Error') || cells.includes('Warning'))
     .map(([first, ...rest]) => [first.replace(/^Feature /, ''), ...rest]);
