@@ -60,7 +60,7 @@ const styles = StyleSheet.create({
     alignItems: 'center',
     minHeight: layout.touchTarget,
     backgroundColor: colors.surface,
-    borderColor: colors.border,
+    borderColor: colors.controlBorder,
     borderWidth: 1,
     borderRadius: radius.md,
   },
