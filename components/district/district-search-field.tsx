@@ -68,6 +68,9 @@ const styles = StyleSheet.create({
   input: {
     ...type.body,
     flex: 1,
+    // An input's own width is about 20 characters; at a large text size that is wider than a
+    // phone, so it must be allowed to shrink with the row.
+    minWidth: 0,
     color: colors.text,
     paddingHorizontal: space.md,
     paddingVertical: space.sm,
