@@ -26,7 +26,7 @@ export function DistrictSearchField({ value, onChange }: DistrictSearchFieldProp
           onChangeText={onChange}
           onFocus={() => setFocused(true)}
           onBlur={() => setFocused(false)}
-          placeholder="Name or code, e.g. D07"
+          placeholder="Name or code"
           placeholderTextColor={colors.placeholder}
           autoCapitalize="none"
           autoCorrect={false}

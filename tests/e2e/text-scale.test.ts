@@ -3,14 +3,15 @@
  * size is doubled through the DevTools protocol (`Page.setFontSizes`, the setting a reader
  * changes), so every rem-sized text doubles (lib/text-size.web.ts). At a phone (390×844)
  * and a wide (1440×900) viewport, on the region (list and map), a district card with a long
- * name, the method page, alerts, and the staff's runs and uploads:
+ * name, the method page, alerts, and the staff's runs, a run's review and uploads:
  * (a) nothing scrolls sideways: the document is no wider than the viewport (SC 1.4.10
  *     Reflow's test); tables that scroll inside their own box (components/table) are
  *     left out, as they fold into cards on a phone separately;
  * (b) no text is clipped or drawn over other text: every text box fits its own box and
  *     every box that hides overflow around it, lines of different texts do not overlap,
- *     and chart labels stay inside the drawing; a text cut with an ellipsis counts only
- *     when its full words are there too (a title or an accessible label);
+ *     chart labels stay inside the drawing, placeholders fit their fields, and no scrolling
+ *     area is squeezed too small to read; a text cut with an ellipsis counts only when its
+ *     full words are there too (a title or an accessible label);
  * (c) the card's key content shows: the district's full name, the standing word, the
  *     threshold with its unit.
  * Screenshots are kept under tests/artifacts/screenshots (text-scale-*).
@@ -181,6 +182,17 @@ async function audit(page: Page): Promise<Audit> {
       if (!/(auto|scroll)/.test(s.overflowY) || el.scrollHeight <= el.clientHeight + 1 || !visible(el)) continue;
       if (el.clientHeight < least) problems.push(`scrolling area ${el.clientHeight} px tall: ${describe(el)}`);
     }
+    // (b) a placeholder wider than its field (it is cut, and no text node holds it).
+    const ctx = document.createElement('canvas').getContext('2d')!;
+    for (const el of document.body.querySelectorAll('input, textarea')) {
+      const input = el as HTMLInputElement;
+      if (!input.placeholder || input.value !== '' || !visible(el) || inSideScroll(el)) continue;
+      const s = getComputedStyle(el);
+      ctx.font = `${s.fontStyle} ${s.fontWeight} ${s.fontSize} ${s.fontFamily}`;
+      const room = el.clientWidth - parseFloat(s.paddingLeft) - parseFloat(s.paddingRight);
+      if (ctx.measureText(input.placeholder).width > room + 1)
+        problems.push(`placeholder wider than its field (${Math.round(room)} px): ${describe(el, input.placeholder)}`);
+    }
     // (b) chart labels inside their drawing.
     for (const t of document.querySelectorAll('svg text')) {
       if (!visible(t) || !(t.textContent ?? '').trim()) continue;
@@ -341,13 +353,26 @@ describe.each([
     }
   });
 
-  it('an administrator (a long name in the header) reads the runs and the uploads without loss', async () => {
+  it('an administrator (a long name in the header) reads the runs, a run’s review and the uploads without loss', async () => {
     const { context, page } = await pageAt(viewport, 2);
     try {
       await signIn(page, DEMO.admin);
       await page.goto(`${h.baseUrl}/runs`);
       await page.getByTestId('runs-table').waitFor();
       await checkScreen(page, 'runs', `text-scale-${name}-runs`);
+      // The published run: its facts, the review table, and one district's diagnostics with
+      // the residual plot (SVG labels sized by the text scale).
+      const runId = (
+        (await (await page.request.get(`${h.baseUrl}/api/districts/D13/estimate`)).json()) as { run: { id: number } }
+      ).run.id;
+      await page.goto(`${h.baseUrl}/runs/${runId}`);
+      await page.getByTestId('review-row-D13').waitFor();
+      await page.getByTestId('review-row-D13').getByRole('link').first().click();
+      await page.locator('[data-testid="residual-plot-box"] svg').first().waitFor();
+      await checkScreen(page, 'run review', `text-scale-${name}-run-review`);
+      await page.getByTestId('residual-plot').evaluate((el) => el.scrollIntoView({ block: 'center' }));
+      await settle(page);
+      await h.shot(page, `text-scale-${name}-run-residuals`);
       await page.goto(`${h.baseUrl}/uploads`);
       await page.getByTestId('uploads-screen').waitFor();
       await page.locator('[data-testid="upload-history"], [data-testid="upload-history-empty"]').first().waitFor();
