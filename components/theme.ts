@@ -4,7 +4,8 @@
 // Palette "field notebook": warm paper, slate-teal ink, a ridge blue-green for action and
 // selection, a clay accent for marks that need attention. Text pairs meet WCAG AA
 // (≥ 4.5:1) on the surfaces they sit on; the ratios beside each colour were computed
-// with the WCAG 2 relative-luminance formula.
+// with the WCAG 2 relative-luminance formula, and tests/components/contrast.test.ts checks
+// every pair the components use (text 4.5:1, marks, lines, focus ring and field edges 3:1).
 import type { TextStyle } from 'react-native';
 
 import { fontFamilies } from '@/lib/font-sources';
