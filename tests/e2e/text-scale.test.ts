@@ -85,8 +85,15 @@ async function audit(page: Page): Promise<Audit> {
       const id = el.closest('[data-testid]')?.getAttribute('data-testid') ?? el.tagName.toLowerCase();
       return `[${id}] “${(text ?? el.textContent ?? '').trim().slice(0, 60)}”`;
     };
-    // Tables that scroll sideways inside their own box (components/table/data-table.tsx).
-    const inSideScroll = (el: Element) => el.closest('[aria-label$="(scrolls sideways)"]') !== null;
+    // Tables that scroll sideways inside their own box (components/table/data-table.tsx names
+    // its scroller "… (scrolls sideways)"; any table inside a sideways scroller counts too).
+    const inSideScroll = (el: Element) => {
+      if (el.closest('[aria-label$="(scrolls sideways)"]')) return true;
+      if (!el.closest('[role="table"]')) return false;
+      for (let a = el.parentElement; a; a = a.parentElement)
+        if (/(auto|scroll)/.test(getComputedStyle(a).overflowX) && a.scrollWidth > a.clientWidth + 1) return true;
+      return false;
+    };
     const visible = (el: Element) => {
       for (let a: Element | null = el; a; a = a.parentElement) {
         const s = getComputedStyle(a);
