@@ -4,7 +4,8 @@
 // Palette "field notebook": warm paper, slate-teal ink, a ridge blue-green for action and
 // selection, a clay accent for marks that need attention. Text pairs meet WCAG AA
 // (≥ 4.5:1) on the surfaces they sit on; the ratios beside each colour were computed
-// with the WCAG 2 relative-luminance formula.
+// with the WCAG 2 relative-luminance formula, and tests/components/contrast.test.ts checks
+// every pair the components use (text 4.5:1, marks, lines, focus ring and field edges 3:1).
 import type { TextStyle } from 'react-native';
 
 import { fontFamilies } from '@/lib/font-sources';
@@ -17,7 +18,8 @@ const palette = {
   dune: '#D5CDBC', // hairlines and borders
   slate900: '#1E2B2F', // primary text (13.0:1 on paper)
   slate600: '#4D5E63', // secondary text, placeholders (6.1:1 on paper, 5.3:1 on sand)
-  slate400: '#7D8B8F', // decorative marks only (3.2:1: not for text that must be read)
+  slate500: '#6E7C80', // the pooled reference curve (4.3:1 on chalk, 3.2:1 on the band's fill)
+  slate400: '#7D8B8F', // decorative marks, text fields' edges (3.5:1 on chalk, 3.2:1 on paper: not for text)
   ridge700: '#1F5A60', // links, selected row rule, primary button (7.0:1 on paper; white on it 7.8:1)
   ridge100: '#DCEBEA', // selected row fill
   clay700: '#9A4523', // warnings, error text (5.8:1 on paper, 5.2:1 on clay100)
@@ -60,6 +62,8 @@ export const colors = {
   textMuted: palette.slate600,
   placeholder: palette.slate600,
   mark: palette.slate400, // decorative strokes only, never text
+  /** The edge that shows where a text field is (WCAG 2.2 SC 1.4.11: 3:1 on the field and the page). */
+  controlBorder: palette.slate400,
   link: palette.ridge700,
   action: palette.ridge700,
   onAction: palette.chalk,
@@ -95,8 +99,8 @@ export const chartColors = {
   points: palette.slate600,
   /** The district's fitted curve (7.8:1 on chalk). */
   curve: palette.ridge700,
-  /** The regional pooled curve: a faint dashed reference (3.5:1, decorative). */
-  pooled: palette.slate400,
+  /** The regional pooled curve, dashed; also the stand-in curve, so 3:1 even over the band. */
+  pooled: palette.slate500,
   /** The latest year's point, ringed (4.3:1 on chalk). */
   latest: palette.amber600,
   threshold: palette.heather,

@@ -7,6 +7,7 @@ import { QueryErrorPanel } from '@/components/state/query-error-panel';
 import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { Button } from '@/components/ui/button';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { formatDateTime } from '@/lib/format-time';
@@ -256,7 +257,7 @@ const styles = StyleSheet.create({
   entryHead: { flexDirection: 'row', alignItems: 'center', gap: space.md, padding: space.md, minHeight: 56 },
   hover: { backgroundColor: colors.selected },
   entryWords: { flex: 1, gap: space.xxs },
-  action: { ...type.bodyStrong, fontSize: 14, color: colors.text },
+  action: { ...type.bodyStrong, fontSize: textSize(14), color: colors.text },
   code: { ...type.caption, color: colors.textMuted },
   meta: { ...type.caption, color: colors.textMuted },
   toggle: { ...type.label, color: colors.link, textDecorationLine: 'underline' },

@@ -8,6 +8,7 @@ import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { ApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-time';
@@ -131,7 +132,7 @@ const styles = StyleSheet.create({
   head: { flexDirection: 'row', alignItems: 'center', gap: space.md, padding: space.md, minHeight: 56 },
   hover: { backgroundColor: colors.selected },
   words: { flex: 1, gap: space.xxs },
-  subject: { ...type.bodyStrong, fontSize: 14, color: colors.text },
+  subject: { ...type.bodyStrong, fontSize: textSize(14), color: colors.text },
   meta: { ...type.caption, color: colors.textMuted },
   toggle: { ...type.label, color: colors.link, textDecorationLine: 'underline' },
   body: { paddingHorizontal: space.md, paddingBottom: space.md, gap: space.sm },

@@ -9,6 +9,7 @@ import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { Button } from '@/components/ui/button';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { LinkTarget } from '@/components/ui/link-target';
@@ -164,7 +165,7 @@ const styles = StyleSheet.create({
   head: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   title: { ...type.body, color: colors.text },
   titleUnread: { fontFamily: type.bodyStrong.fontFamily },
-  detail: { ...type.body, fontSize: 14, color: colors.text },
+  detail: { ...type.body, fontSize: textSize(14), color: colors.text },
   when: { ...type.caption, color: colors.textMuted },
   readButton: { paddingHorizontal: space.md, paddingBottom: space.sm },
 });

@@ -65,7 +65,7 @@ export function SubscribeToggle({ code, name, subscriptions, onChange, pending, 
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: space.xxs },
+  wrap: { gap: space.xxs, flexShrink: 1, maxWidth: '100%' },
   row: {
     flexDirection: 'row',
     alignItems: 'center',
@@ -73,6 +73,8 @@ const styles = StyleSheet.create({
     minHeight: layout.touchTarget,
     paddingHorizontal: space.xs,
     borderRadius: radius.md,
+    flexShrink: 1,
+    maxWidth: '100%',
   },
   disabled: { opacity: 0.6 },
   track: {
@@ -88,7 +90,7 @@ const styles = StyleSheet.create({
   trackOn: { backgroundColor: colors.action, borderColor: colors.action },
   knob: { width: 16, height: 16, borderRadius: 8, backgroundColor: colors.textMuted },
   knobOn: { backgroundColor: colors.onAction, transform: [{ translateX: 16 }] },
-  label: { ...type.bodyStrong, color: colors.text },
+  label: { ...type.bodyStrong, color: colors.text, flexShrink: 1 },
   note: { ...type.caption, color: colors.textMuted },
   error: { ...type.caption, color: colors.danger },
 });

@@ -9,6 +9,8 @@ export type ChartFrameProps = {
   /** The chart in words: the drawing's accessible name and the visible caption. */
   summary: string;
   height: number;
+  /** Axis titles as text around the drawing (a large text setting; otherwise the drawing has them). */
+  axisTitles?: { x: string; y: string };
   testID: string;
   /** Drawn below the chart: the key to its marks. */
   legend?: ReactNode;
@@ -21,7 +23,7 @@ export type ChartFrameProps = {
  * page has mounted and measured it (charts do not pre-render identically, and the SVG code
  * loads on its own), the legend, and the chart in words.
  */
-export function ChartFrame({ title, summary, height, testID, legend, children }: ChartFrameProps) {
+export function ChartFrame({ title, summary, height, axisTitles, testID, legend, children }: ChartFrameProps) {
   const [width, setWidth] = useState(0);
   const mounted = useHydrated();
   const onLayout = (e: LayoutChangeEvent) => {
@@ -34,6 +36,12 @@ export function ChartFrame({ title, summary, height, testID, legend, children }:
       <Text role="heading" aria-level={3} style={styles.title}>
         {title}
       </Text>
+      {axisTitles ? (
+        <Text style={styles.axisTitle} testID={`${testID}-y-title`}>
+          <Text aria-hidden>↑ </Text>
+          {axisTitles.y}
+        </Text>
+      ) : null}
       <View
         style={[styles.box, { height }]}
         onLayout={onLayout}
@@ -43,6 +51,12 @@ export function ChartFrame({ title, summary, height, testID, legend, children }:
       >
         {mounted && width > 0 ? <Suspense fallback={placeholder}>{children(width)}</Suspense> : placeholder}
       </View>
+      {axisTitles ? (
+        <Text style={[styles.axisTitle, styles.xTitle]} testID={`${testID}-x-title`}>
+          {axisTitles.x}
+          <Text aria-hidden> →</Text>
+        </Text>
+      ) : null}
       {legend}
       <Text style={styles.summary} testID={`${testID}-summary`}>
         <Text style={styles.summaryTerm}>In words: </Text>
@@ -63,6 +77,8 @@ const styles = StyleSheet.create({
     overflow: 'hidden',
   },
   placeholder: { backgroundColor: colors.surface },
+  axisTitle: { ...type.label, color: chartColors.axis },
+  xTitle: { textAlign: 'right' },
   summary: { ...type.caption, color: colors.textMuted },
   summaryTerm: { fontFamily: type.label.fontFamily, color: colors.text },
 });

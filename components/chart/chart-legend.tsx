@@ -47,8 +47,8 @@ function Swatch({ kind, color }: { kind: LegendItem['swatch']; color: string }) 
 
 const styles = StyleSheet.create({
   legend: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg, rowGap: space.xs },
-  item: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
-  label: { ...type.caption, color: colors.text },
+  item: { flexDirection: 'row', alignItems: 'center', gap: space.xs, flexShrink: 1, maxWidth: '100%' },
+  label: { ...type.caption, color: colors.text, flexShrink: 1 },
   dot: { width: 8, height: 8, borderRadius: 4 },
   ring: { width: 12, height: 12, borderRadius: 6, borderWidth: 3 },
   line: { width: 20, height: 3, borderRadius: 1 },

@@ -16,20 +16,13 @@ export type CurveChartSvgProps = {
   model: CurveChartModel;
   width: number;
   height: number;
-  emissionsUnit: string;
-  /** the driver's name from the catalogue ("Real income per person") */
-  incomeLabel: string;
+  /** Axis titles, drawn inside at the default text size (null: the frame shows them as text). */
+  xTitle: string | null;
+  yTitle: string | null;
   textScale?: number;
 };
 
-export default function CurveChartSvg({
-  model: m,
-  width,
-  height,
-  emissionsUnit,
-  incomeLabel,
-  textScale = 1,
-}: CurveChartSvgProps) {
+export default function CurveChartSvg({ model: m, width, height, xTitle, yTitle, textScale = 1 }: CurveChartSvgProps) {
   const [y0, y1] = m.yDomain;
   return (
     <VictoryChart
@@ -42,14 +35,14 @@ export default function CurveChartSvg({
       <VictoryAxis
         tickValues={m.xTicks}
         tickFormat={(t: number) => formatTick(t)}
-        label={`${incomeLabel} (log scale)`}
+        label={xTitle ?? undefined}
         style={axisStyle(true, textScale)}
       />
       <VictoryAxis
         dependentAxis
         tickValues={m.yTicks}
         tickFormat={(t: number) => formatTick(t)}
-        label={`${emissionsUnit} (log scale)`}
+        label={yTitle ?? undefined}
         style={axisStyle(false, textScale)}
       />
       {m.band ? (

@@ -9,6 +9,7 @@ import { levelPercent, METHOD_LABEL, notBoundedText } from '@/lib/estimate-words
 import { UNKNOWN_UNITS, type RunUnits } from '@/lib/units';
 
 import { ChartFrame } from './chart-frame';
+import { axisTitlesInside, chartHeight } from './chart-styles';
 import { ChartLegend, type LegendItem } from './chart-legend';
 import { loadDrawings } from './load-drawings';
 
@@ -24,6 +25,12 @@ export function CurveChart({ record, units = UNKNOWN_UNITS }: { record: Estimate
   const summary = useMemo(() => curveChartSummary(record, units), [record, units]);
   const level = record.model.level;
   const textScale = useTextScale();
+  const height = chartHeight(layout.curveChartHeight, textScale);
+  const titles = {
+    x: `${units.incomeName} (log scale)`,
+    y: `${units.emissionsUnit || units.emissionsName} (log scale)`,
+  };
+  const inside = axisTitlesInside(textScale);
   const items: LegendItem[] = [
     { key: 'observed', label: 'Observed years', swatch: 'dot', color: chartColors.points },
     { key: 'latest', label: `Latest year (${model.latest?.year ?? '—'})`, swatch: 'ring', color: chartColors.latest },
@@ -53,7 +60,8 @@ export function CurveChart({ record, units = UNKNOWN_UNITS }: { record: Estimate
     <ChartFrame
       title={`${units.emissionsName} and income`}
       summary={summary}
-      height={layout.curveChartHeight}
+      height={height}
+      axisTitles={inside ? undefined : titles}
       testID="curve-chart"
       legend={<ChartLegend items={items} />}
     >
@@ -61,9 +69,9 @@ export function CurveChart({ record, units = UNKNOWN_UNITS }: { record: Estimate
         <CurveChartSvg
           model={model}
           width={width}
-          height={layout.curveChartHeight}
-          emissionsUnit={units.emissionsUnit || units.emissionsName}
-          incomeLabel={units.incomeName}
+          height={height}
+          xTitle={inside ? titles.x : null}
+          yTitle={inside ? titles.y : null}
           textScale={textScale}
         />
       )}

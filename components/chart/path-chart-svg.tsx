@@ -17,11 +17,13 @@ export type PathChartSvgProps = {
   width: number;
   height: number;
   /** the driver's name from the catalogue ("Real income per person") */
-  incomeLabel: string;
+  /** Axis titles, drawn inside at the default text size (null: the frame shows them as text). */
+  xTitle: string | null;
+  yTitle: string | null;
   textScale?: number;
 };
 
-export default function PathChartSvg({ model: m, width, height, incomeLabel, textScale = 1 }: PathChartSvgProps) {
+export default function PathChartSvg({ model: m, width, height, xTitle, yTitle, textScale = 1 }: PathChartSvgProps) {
   const [t0, t1] = m.yearDomain;
   const last = m.path[m.path.length - 1];
   return (
@@ -35,14 +37,14 @@ export default function PathChartSvg({ model: m, width, height, incomeLabel, tex
       <VictoryAxis
         tickValues={m.yearTicks}
         tickFormat={(t: number) => String(t)}
-        label="Year"
+        label={xTitle ?? undefined}
         style={axisStyle(true, textScale)}
       />
       <VictoryAxis
         dependentAxis
         tickValues={m.incomeTicks}
         tickFormat={(t: number) => formatTick(t)}
-        label={`${incomeLabel} (log)`}
+        label={yTitle ?? undefined}
         style={axisStyle(false, textScale)}
       />
       {m.band ? (

@@ -9,6 +9,7 @@ import { levelPercent, METHOD_LABEL, notBoundedText } from '@/lib/estimate-words
 import { nameWithUnit, UNKNOWN_UNITS, type RunUnits } from '@/lib/units';
 
 import { ChartFrame } from './chart-frame';
+import { axisTitlesInside, chartHeight } from './chart-styles';
 import { ChartLegend, type LegendItem } from './chart-legend';
 import { loadDrawings } from './load-drawings';
 
@@ -20,6 +21,9 @@ export function PathChart({ record, units = UNKNOWN_UNITS }: { record: EstimateR
   const summary = useMemo(() => pathChartSummary(record, units), [record, units]);
   const level = record.model.level;
   const textScale = useTextScale();
+  const height = chartHeight(layout.pathChartHeight, textScale);
+  const titles = { x: 'Year', y: `${units.incomeName} (log)` };
+  const inside = axisTitlesInside(textScale);
   const items: LegendItem[] = [
     { key: 'path', label: nameWithUnit(units.incomeName, units.incomeUnit), swatch: 'line', color: chartColors.curve },
   ];
@@ -46,7 +50,8 @@ export function PathChart({ record, units = UNKNOWN_UNITS }: { record: EstimateR
     <ChartFrame
       title="Income over the years"
       summary={summary}
-      height={layout.pathChartHeight}
+      height={height}
+      axisTitles={inside ? undefined : titles}
       testID="path-chart"
       legend={<ChartLegend items={items} />}
     >
@@ -54,8 +59,9 @@ export function PathChart({ record, units = UNKNOWN_UNITS }: { record: EstimateR
         <PathChartSvg
           model={model}
           width={width}
-          height={layout.pathChartHeight}
-          incomeLabel={units.incomeName}
+          height={height}
+          xTitle={inside ? titles.x : null}
+          yTitle={inside ? titles.y : null}
           textScale={textScale}
         />
       )}

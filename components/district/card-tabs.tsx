@@ -53,7 +53,7 @@ export function CardTabs({
 }
 
 const styles = StyleSheet.create({
-  bar: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.border },
+  bar: { flexDirection: 'row', flexWrap: 'wrap', borderBottomWidth: 1, borderBottomColor: colors.border },
   tab: {
     minHeight: layout.touchTarget,
     paddingHorizontal: space.lg,

@@ -1,4 +1,4 @@
-import { useCallback, useMemo, type ReactNode } from 'react';
+import { useCallback, useMemo, useRef, type ReactNode } from 'react';
 import { FlatList, StyleSheet, Text, View, type ListRenderItem } from 'react-native';
 
 import { ListControls } from '@/components/region/list-controls';
@@ -34,7 +34,7 @@ export type DistrictListPanelProps = {
 
 /**
  * The region's districts: counts per standing (each a filter), search, sort and shape
- * filters, and a virtualised list of fixed-height rows (3,000 districts scroll smoothly).
+ * filters, and a virtualised list of rows (3,000 districts scroll smoothly).
  */
 export function DistrictListPanel({
   districts,
@@ -44,18 +44,21 @@ export function DistrictListPanel({
   track = null,
 }: DistrictListPanelProps) {
   const [filter, setFilter] = useRegionFilter();
+  const listRef = useRef<FlatList<RegionRow>>(null);
   const all = districts.data;
   const shown = useMemo(() => (all ? applyRegionFilter(all, filter) : []), [all, filter]);
   const counts = useMemo(() => countByStanding(all ?? []), [all]);
   const filtered = filter.search.trim() !== '' || filter.standings.length > 0 || filter.shapes.length > 0;
-  // Opened at /district/X in a wide window: start the list with X in view (rows have a
-  // fixed height, so FlatList can jump there without measuring).
+  // Opened at /district/X in a wide window: start the list with X in view.
   const selectedIndex = selectedCode ? shown.findIndex((d) => d.code === selectedCode) : -1;
   const initialScrollIndex = selectedIndex > 2 ? selectedIndex - 2 : undefined;
 
-  // Rows have one fixed height so the list can place 3,000 of them without measuring; it
-  // grows with the reader's text size so larger text is not cut off.
-  const rowHeight = Math.ceil(layout.districtRowHeight * useTextScale());
+  // At the default text size rows keep one height, so the list places 3,000 of them without
+  // measuring (a rare name too long for one line makes its row a little taller, which only
+  // nudges the estimate). With a larger text setting names wrap in most rows, so the list
+  // measures them instead of trusting one height (WCAG 2.2 SC 1.4.4: text grows, rows follow).
+  const textScale = useTextScale();
+  const rowHeight = Math.ceil(layout.districtRowHeight * textScale);
   const itemLayout = useCallback(
     (_: ArrayLike<RegionRow> | null | undefined, index: number) => ({
       length: rowHeight,
@@ -77,29 +80,36 @@ export function DistrictListPanel({
     [selectedCode, level, rowHeight, track],
   );
 
+  // With a larger text setting the controls alone can fill a phone's height, leaving the
+  // list no room: they then scroll away with the rows, as the list's header.
+  const listShown = !(districts.status === 'pending' || (districts.status === 'error' && !all) || all?.length === 0);
+  const top = (
+    <View style={styles.top}>
+      {header}
+      {districts.fetchStatus !== undefined ? (
+        <FreshnessNotice freshness={districts as Freshness} what="the district list" />
+      ) : null}
+      <StandingCounts
+        counts={counts}
+        selected={filter.standings}
+        onToggle={(s) => setFilter({ standings: toggle(filter.standings, s) })}
+      />
+      <DistrictSearchField value={filter.search} onChange={(search) => setFilter({ search })} />
+      <ListControls
+        sort={filter.sort}
+        onSort={(sort) => setFilter({ sort })}
+        shapes={filter.shapes}
+        onToggleShape={(s) => setFilter({ shapes: toggle(filter.shapes, s) })}
+      />
+      <Text style={styles.count} accessibilityLiveRegion="polite" testID="district-count">
+        {countText(districts.status, all?.length ?? 0, shown.length, filtered)}
+      </Text>
+    </View>
+  );
+
   return (
     <View style={styles.panel} testID="district-list-panel">
-      <View style={styles.top}>
-        {header}
-        {districts.fetchStatus !== undefined ? (
-          <FreshnessNotice freshness={districts as Freshness} what="the district list" />
-        ) : null}
-        <StandingCounts
-          counts={counts}
-          selected={filter.standings}
-          onToggle={(s) => setFilter({ standings: toggle(filter.standings, s) })}
-        />
-        <DistrictSearchField value={filter.search} onChange={(search) => setFilter({ search })} />
-        <ListControls
-          sort={filter.sort}
-          onSort={(sort) => setFilter({ sort })}
-          shapes={filter.shapes}
-          onToggleShape={(s) => setFilter({ shapes: toggle(filter.shapes, s) })}
-        />
-        <Text style={styles.count} accessibilityLiveRegion="polite" testID="district-count">
-          {countText(districts.status, all?.length ?? 0, shown.length, filtered)}
-        </Text>
-      </View>
+      {listShown && textScale > 1 ? null : top}
       {districts.status === 'pending' ? (
         <View
           testID="district-list-loading"
@@ -136,7 +146,12 @@ export function DistrictListPanel({
           data={shown}
           renderItem={renderItem}
           keyExtractor={keyOf}
-          getItemLayout={itemLayout}
+          ListHeaderComponent={textScale > 1 ? top : undefined}
+          getItemLayout={textScale === 1 ? itemLayout : undefined}
+          onScrollToIndexFailed={({ index, averageItemLength }) =>
+            listRef.current?.scrollToOffset({ offset: index * averageItemLength, animated: false })
+          }
+          ref={listRef}
           extraData={`${selectedCode}:${rowHeight}:${track}`}
           initialScrollIndex={initialScrollIndex}
           initialNumToRender={10}

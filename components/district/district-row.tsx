@@ -17,14 +17,14 @@ export type DistrictRowProps = {
   selected?: boolean;
   /** The published run's confidence level, for "interval not bounded at 95%". */
   level?: number | null;
-  /** Row height: `districtRowHeight` times the reader's text scale (the list lays rows out by it). */
+  /** Least row height: `districtRowHeight` times the reader's text scale; a long name wraps and the row grows. */
   height?: number;
   /** The chosen track (the card opens on it); null: the headline track. */
   track?: string | null;
 };
 
 /**
- * One district in the region list, always `districtRowHeight` tall: name and code, its
+ * One district in the region list, at least `districtRowHeight` tall: name and code, its
  * standing (mark and word), the gap to its threshold, the projected crossing and the years
  * of data. A link to its card.
  */
@@ -52,7 +52,7 @@ export const DistrictRow = memo(function DistrictRow({
         accessibilityState={{ selected }}
         stateStyle={(state: InteractionState) => [
           styles.row,
-          { height },
+          { minHeight: height },
           state.hovered && styles.hovered,
           selected && styles.selected,
           focusOutline(state, 'inside'),
@@ -60,9 +60,7 @@ export const DistrictRow = memo(function DistrictRow({
       >
         <View style={styles.main}>
           <View style={styles.titleLine}>
-            <Text style={styles.name} numberOfLines={1}>
-              {district.name}
-            </Text>
+            <Text style={styles.name}>{district.name}</Text>
             <Text style={styles.code}>{district.code}</Text>
           </View>
           <View style={styles.standingLine}>
@@ -70,18 +68,16 @@ export const DistrictRow = memo(function DistrictRow({
             {e?.status === 'substitute' ? <Text style={styles.tag}>regional</Text> : null}
             {unbounded ? <Text style={styles.tag}>unbounded</Text> : null}
           </View>
-          <Text style={styles.coverage} numberOfLines={1}>
+          <Text style={styles.coverage}>
             {district.lastYear === null ? 'No data yet' : `Data to ${district.lastYear}`}
           </Text>
         </View>
         <View style={styles.values}>
-          <Text style={styles.number} numberOfLines={1} testID={`district-gap-${district.code}`}>
+          <Text style={styles.number} testID={`district-gap-${district.code}`}>
             {gap ?? '—'}
           </Text>
           <Text style={styles.unit}>gap</Text>
-          <Text style={styles.crossing} numberOfLines={1}>
-            {crossing ?? 'no crossing'}
-          </Text>
+          <Text style={styles.crossing}>{crossing ?? 'no crossing'}</Text>
         </View>
       </LinkTarget>
     </Link>
@@ -90,11 +86,12 @@ export const DistrictRow = memo(function DistrictRow({
 
 const styles = StyleSheet.create({
   row: {
-    height: layout.districtRowHeight,
+    minHeight: layout.districtRowHeight,
     flexDirection: 'row',
     alignItems: 'center',
     gap: space.md,
     paddingHorizontal: space.lg,
+    paddingVertical: space.sm,
     borderBottomWidth: 1,
     borderBottomColor: colors.border,
     borderLeftWidth: 4,
@@ -104,10 +101,10 @@ const styles = StyleSheet.create({
   hovered: { backgroundColor: colors.background },
   selected: { backgroundColor: colors.selected, borderLeftColor: colors.selectedRule },
   main: { flex: 1, minWidth: 0, gap: space.xxs },
-  titleLine: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm },
+  titleLine: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'baseline', columnGap: space.sm },
   name: { ...type.bodyStrong, color: colors.text, flexShrink: 1 },
   code: { ...type.label, color: colors.textMuted },
-  standingLine: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  standingLine: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   tag: {
     ...type.caption,
     color: colors.textMuted,
@@ -117,8 +114,8 @@ const styles = StyleSheet.create({
     borderRadius: 4,
   },
   coverage: { ...type.caption, color: colors.textMuted },
-  values: { alignItems: 'flex-end', minWidth: 76 },
+  values: { alignItems: 'flex-end', minWidth: 76, maxWidth: '45%' },
   number: { ...type.numeric, fontFamily: type.bodyStrong.fontFamily, color: colors.text },
   unit: { ...type.caption, color: colors.textMuted },
-  crossing: { ...type.caption, color: colors.text },
+  crossing: { ...type.caption, color: colors.text, textAlign: 'right' },
 });

@@ -26,7 +26,7 @@ export function DistrictSearchField({ value, onChange }: DistrictSearchFieldProp
           onChangeText={onChange}
           onFocus={() => setFocused(true)}
           onBlur={() => setFocused(false)}
-          placeholder="Name or code, e.g. D07"
+          placeholder="Name or code"
           placeholderTextColor={colors.placeholder}
           autoCapitalize="none"
           autoCorrect={false}
@@ -60,7 +60,7 @@ const styles = StyleSheet.create({
     alignItems: 'center',
     minHeight: layout.touchTarget,
     backgroundColor: colors.surface,
-    borderColor: colors.border,
+    borderColor: colors.controlBorder,
     borderWidth: 1,
     borderRadius: radius.md,
   },
@@ -68,6 +68,9 @@ const styles = StyleSheet.create({
   input: {
     ...type.body,
     flex: 1,
+    // An input's own width is about 20 characters; at a large text size that is wider than a
+    // phone, so it must be allowed to shrink with the row.
+    minWidth: 0,
     color: colors.text,
     paddingHorizontal: space.md,
     paddingVertical: space.sm,

@@ -28,6 +28,9 @@ const styles = StyleSheet.create({
     justifyContent: 'center',
     paddingHorizontal: space.xs,
     alignSelf: 'flex-start',
+    // A long label wraps within the line instead of running past a phone's edge.
+    flexShrink: 1,
+    maxWidth: '100%',
   },
   text: { ...type.bodyStrong, color: colors.link, textDecorationLine: 'underline' },
 });

@@ -59,21 +59,16 @@ export function TrackRows({ rows, chosen, onChoose }: TrackRowsProps) {
               {row.standing ? <StandingMark standing={row.standing} size={12} /> : <Text style={styles.none}>–</Text>}
             </View>
             <View style={styles.name}>
-              <Text style={styles.trackName} numberOfLines={2}>
-                {row.name}
-              </Text>
-              <Text style={styles.unit} numberOfLines={1}>
-                {row.indicator.unit}
-              </Text>
+              <Text style={styles.trackName}>{row.name}</Text>
+              <Text style={styles.unit}>{row.indicator.unit}</Text>
             </View>
             <Text
               style={[styles.standing, row.standing ? { color: standingColors[row.standing] } : styles.muted]}
-              numberOfLines={1}
               testID={`track-row-${row.code}-standing`}
             >
               {statusWords(row)}
             </Text>
-            <Text style={styles.gap} numberOfLines={1} testID={`track-row-${row.code}-gap`}>
+            <Text style={styles.gap} testID={`track-row-${row.code}-gap`}>
               {row.gapPercent !== null && row.standing !== null ? `gap ${gapShort(row.gapPercent)}` : ''}
             </Text>
           </Pressable>
@@ -101,6 +96,8 @@ const styles = StyleSheet.create({
   row: {
     minHeight: layout.touchTarget,
     flexDirection: 'row',
+    // With a large text size the standing and the gap move under the name.
+    flexWrap: 'wrap',
     alignItems: 'center',
     gap: space.sm,
     paddingHorizontal: space.md,
@@ -114,7 +111,7 @@ const styles = StyleSheet.create({
   hover: { backgroundColor: colors.background },
   mark: { width: 16, alignItems: 'center' },
   none: { ...type.label, color: colors.textMuted },
-  name: { flex: 1, minWidth: 0 },
+  name: { flexGrow: 1, flexShrink: 1, flexBasis: 120, minWidth: 0 },
   trackName: { ...type.bodyStrong, color: colors.text },
   unit: { ...type.caption, color: colors.textMuted },
   standing: { ...type.label, flexShrink: 1, textAlign: 'right' },

@@ -1,6 +1,7 @@
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 
 import { colors, layout, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 
 export type CheckBoxProps = {
@@ -49,8 +50,9 @@ const styles = StyleSheet.create({
   },
   disabled: { opacity: 0.6 },
   box: {
-    width: 22,
-    height: 22,
+    // Grows with the tick at a large text size.
+    minWidth: 22,
+    minHeight: 22,
     borderRadius: radius.sm,
     borderWidth: 2,
     borderColor: colors.action,
@@ -59,7 +61,7 @@ const styles = StyleSheet.create({
     justifyContent: 'center',
   },
   boxChecked: { backgroundColor: colors.action },
-  tick: { ...type.label, color: colors.onAction, lineHeight: 16 },
+  tick: { ...type.label, color: colors.onAction, lineHeight: textSize(16) },
   words: { flexShrink: 1 },
   label: { ...type.body, color: colors.text },
   hint: { ...type.caption, color: colors.textMuted },

@@ -1,6 +1,7 @@
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 
 import { colors, layout, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 
 export type Choice<T extends string> = { value: T; label: string; hint?: string };
@@ -85,7 +86,7 @@ const styles = StyleSheet.create({
   selected: { backgroundColor: colors.action, borderColor: colors.action },
   hover: { backgroundColor: colors.selected },
   disabled: { opacity: 0.6 },
-  tileLabel: { ...type.bodyStrong, fontSize: 14, color: colors.text },
+  tileLabel: { ...type.bodyStrong, fontSize: textSize(14), color: colors.text },
   selectedLabel: { color: colors.onAction },
   tileHint: { ...type.caption, color: colors.textMuted, flexShrink: 1 },
   selectedHint: { color: colors.onAction },

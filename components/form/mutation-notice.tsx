@@ -1,6 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { radius, space, toneColors, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { ApiError } from '@/lib/api-client';
 import { SESSION_END_CHANGE_WORDS, sessionEndReason } from '@/lib/session-end';
 
@@ -58,7 +59,7 @@ export function MutationNotice({ error, success, testID }: MutationNoticeProps) 
 
 const styles = StyleSheet.create({
   box: { borderRadius: radius.md, paddingHorizontal: space.md, paddingVertical: space.sm },
-  text: { ...type.body, fontFamily: type.label.fontFamily, fontSize: 14 },
+  text: { ...type.body, fontFamily: type.label.fontFamily, fontSize: textSize(14) },
 });
 
 /**

@@ -83,7 +83,7 @@ const styles = StyleSheet.create({
     ...type.body,
     color: colors.text,
     backgroundColor: colors.surface,
-    borderColor: colors.border,
+    borderColor: colors.controlBorder,
     borderWidth: 1,
     borderRadius: radius.md,
     minHeight: layout.touchTarget,

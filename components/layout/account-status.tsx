@@ -25,7 +25,7 @@ export function AccountStatus({ me, compact = false, onSignOut, signingOut = fal
     return (
       <View style={styles.row}>
         {compact ? null : (
-          <Text style={styles.who} numberOfLines={1} testID="account-name">
+          <Text style={styles.who} testID="account-name">
             {me.data.name || me.data.email}
           </Text>
         )}
@@ -82,9 +82,9 @@ export function AccountPanel({ me, onSignOut, signingOut = false }: Omit<Account
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  row: { flexDirection: 'row', flexWrap: 'wrap', flexShrink: 1, alignItems: 'center', gap: space.sm },
   pill: { justifyContent: 'center' },
-  who: { ...type.caption, color: colors.headerTextMuted, maxWidth: 200 },
+  who: { ...type.caption, color: colors.headerTextMuted, flexShrink: 1 },
   signOut: {
     minHeight: layout.touchTarget,
     justifyContent: 'center',

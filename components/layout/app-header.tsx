@@ -31,11 +31,7 @@ export function AppHeader({ account, menu, compact = false }: AppHeaderProps) {
           <Text style={styles.word}>Crestwatch</Text>
         </LinkTarget>
       </Link>
-      {compact ? null : (
-        <Text style={styles.tagline} numberOfLines={1}>
-          District emissions and income
-        </Text>
-      )}
+      {compact ? null : <Text style={styles.tagline}>District emissions and income</Text>}
       <View style={styles.end}>
         {account}
         {menu}
@@ -47,8 +43,10 @@ export function AppHeader({ account, menu, compact = false }: AppHeaderProps) {
 const styles = StyleSheet.create({
   bar: {
     flexDirection: 'row',
+    // With a large text size the account and the menu move to a line of their own.
+    flexWrap: 'wrap',
     alignItems: 'center',
-    gap: space.md,
+    columnGap: space.md,
     paddingHorizontal: space.lg,
     minHeight: 52,
     backgroundColor: colors.headerBackground,
@@ -56,5 +54,5 @@ const styles = StyleSheet.create({
   home: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minHeight: 44, paddingHorizontal: space.xs },
   word: { ...type.title, color: colors.headerText },
   tagline: { ...type.caption, color: colors.headerTextMuted, flexShrink: 1 },
-  end: { marginLeft: 'auto', flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  end: { marginLeft: 'auto', flexShrink: 1, flexDirection: 'row', alignItems: 'center', gap: space.sm },
 });

@@ -2,6 +2,7 @@ import { Link } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 
 import { colors, layout, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { LinkTarget } from '@/components/ui/link-target';
 
@@ -154,7 +155,7 @@ const styles = StyleSheet.create({
   },
   tabActive: { borderBottomColor: colors.selectedRule },
   tabHover: { backgroundColor: colors.selected },
-  tabText: { ...type.body, fontSize: 14, color: colors.textMuted },
+  tabText: { ...type.body, fontSize: textSize(14), color: colors.textMuted },
   tabTextActive: { fontFamily: type.bodyStrong.fontFamily, color: colors.text },
   badge: {
     minWidth: 20,
@@ -177,7 +178,7 @@ const styles = StyleSheet.create({
   menuButtonHover: { backgroundColor: colors.text },
   burger: { width: 18, height: 14, justifyContent: 'space-between', alignItems: 'center' },
   burgerLine: { width: 18, height: 2, backgroundColor: colors.headerText, borderRadius: 1 },
-  close: { ...type.title, lineHeight: 16, color: colors.headerText },
+  close: { ...type.title, lineHeight: textSize(16), color: colors.headerText },
   menuText: { ...type.label, color: colors.headerText },
   menu: {
     backgroundColor: colors.surface,

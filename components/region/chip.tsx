@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Pressable, StyleSheet, Text } from 'react-native';
 
-import { colors, layout, radius, space, type } from '@/components/theme';
+import { colors, layout, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 
 export type ChipProps = {
@@ -36,7 +36,7 @@ export function Chip({ label, on, onPress, leading, accessibilityLabel, kind = '
       ]}
     >
       {leading}
-      <Text style={[styles.label, on && styles.onLabel]} numberOfLines={1}>
+      <Text style={[styles.label, on && styles.onLabel]}>
         {on ? '✓ ' : ''}
         {label}
       </Text>
@@ -52,13 +52,16 @@ const styles = StyleSheet.create({
     alignItems: 'center',
     gap: space.xs,
     paddingHorizontal: space.sm + space.xxs,
-    borderRadius: radius.pill,
+    // Half the one-line height: a pill on one line, rounded corners when a long label wraps.
+    borderRadius: (layout.touchTarget - 12) / 2,
     borderWidth: 1,
     borderColor: colors.border,
     backgroundColor: colors.surface,
+    // A long label (a track's name at a large text size) wraps inside the chip.
+    maxWidth: '100%',
   },
   on: { borderColor: colors.selectedRule, backgroundColor: colors.selected, borderWidth: 2 },
   hover: { backgroundColor: colors.background },
-  label: { ...type.label, color: colors.text },
+  label: { ...type.label, color: colors.text, flexShrink: 1 },
   onLabel: { color: colors.text },
 });

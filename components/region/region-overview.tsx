@@ -143,17 +143,19 @@ const styles = StyleSheet.create({
   title: { ...type.heading, color: colors.text },
   meta: { ...type.body, color: colors.text },
   table: { gap: space.xs, borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.md },
-  countRow: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: 32 },
-  countHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm, width: 150 },
+  // Columns of at least a set width that grow with the text; the meaning goes under them when
+  // a large text size leaves it no room.
+  countRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', columnGap: space.md, minHeight: 32 },
+  countHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minWidth: 150 },
   countLabel: { ...type.bodyStrong },
   countValue: {
     ...type.numeric,
     fontFamily: type.bodyStrong.fontFamily,
     color: colors.text,
-    width: 48,
+    minWidth: 48,
     textAlign: 'right',
   },
-  countMeaning: { ...type.caption, color: colors.textMuted, flex: 1 },
+  countMeaning: { ...type.caption, color: colors.textMuted, flexGrow: 1, flexShrink: 1, flexBasis: 200 },
   links: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg, alignItems: 'center' },
   hint: { ...type.body, color: colors.textMuted },
 });

@@ -31,7 +31,7 @@ export function RegionStrip({
           <TextLink href="/method" label="Method" />
         </View>
       </View>
-      <Text style={styles.meta} numberOfLines={2}>
+      <Text style={styles.meta}>
         {published.status === 'pending'
           ? 'Loading the published run…'
           : run
@@ -46,7 +46,13 @@ export function RegionStrip({
 
 const styles = StyleSheet.create({
   wrap: { gap: space.xxs },
-  head: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  head: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    columnGap: space.sm,
+  },
   title: { ...type.heading, color: colors.text },
   meta: { ...type.caption, color: colors.textMuted },
   links: { flexDirection: 'row', gap: space.md, alignItems: 'center', flexWrap: 'wrap' },

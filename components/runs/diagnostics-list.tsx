@@ -1,6 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { Pill } from '@/components/ui/pill';
 import type { Diagnostics } from '@/contracts/runs';
 
@@ -81,6 +82,6 @@ const styles = StyleSheet.create({
   wrap: { gap: space.sm },
   row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
   name: { flexShrink: 1, gap: space.xxs },
-  test: { ...type.bodyStrong, fontSize: 14, color: colors.text },
+  test: { ...type.bodyStrong, fontSize: textSize(14), color: colors.text },
   stat: { ...type.caption, fontVariant: ['tabular-nums'], color: colors.textMuted },
 });

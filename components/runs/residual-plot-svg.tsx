@@ -4,11 +4,22 @@ import Svg, { G, Line, Rect, Text as SvgText } from 'react-native-svg';
 import { chartColors, fonts } from '@/components/theme';
 import type { Diagnostics } from '@/contracts/runs';
 
-export type ResidualPlotSvgProps = { residuals: Diagnostics['residualsByYear']; width: number; height: number };
+export type ResidualPlotSvgProps = {
+  residuals: Diagnostics['residualsByYear'];
+  width: number;
+  height: number;
+  /** The reader's text scale: SVG text is sized in px, so labels and their room grow by it. */
+  textScale?: number;
+};
 
-const PAD = { top: 12, right: 12, bottom: 24, left: 48 };
-
-export default function ResidualPlotSvg({ residuals, width, height }: ResidualPlotSvgProps) {
+export default function ResidualPlotSvg({ residuals, width, height, textScale = 1 }: ResidualPlotSvgProps) {
+  const fontSize = 11 * textScale;
+  const PAD = {
+    top: Math.round(12 * textScale),
+    right: 12,
+    bottom: Math.round(24 * textScale),
+    left: Math.round(48 * textScale),
+  };
   const max = Math.max(1e-9, ...residuals.map((r) => Math.abs(r.residual)));
   const innerW = Math.max(1, width - PAD.left - PAD.right);
   const innerH = height - PAD.top - PAD.bottom;
@@ -32,8 +43,8 @@ export default function ResidualPlotSvg({ residuals, width, height }: ResidualPl
       />
       <SvgText
         x={PAD.left - 6}
-        y={PAD.top + 4}
-        fontSize={11}
+        y={PAD.top + fontSize / 3}
+        fontSize={fontSize}
         fontFamily={fonts.regular}
         fill={chartColors.axis}
         textAnchor="end"
@@ -42,8 +53,8 @@ export default function ResidualPlotSvg({ residuals, width, height }: ResidualPl
       </SvgText>
       <SvgText
         x={PAD.left - 6}
-        y={zero + 4}
-        fontSize={11}
+        y={zero + fontSize / 3}
+        fontSize={fontSize}
         fontFamily={fonts.regular}
         fill={chartColors.axis}
         textAnchor="end"
@@ -52,8 +63,8 @@ export default function ResidualPlotSvg({ residuals, width, height }: ResidualPl
       </SvgText>
       <SvgText
         x={PAD.left - 6}
-        y={PAD.top + innerH + 4}
-        fontSize={11}
+        y={PAD.top + innerH + fontSize / 3}
+        fontSize={fontSize}
         fontFamily={fonts.regular}
         fill={chartColors.axis}
         textAnchor="end"
@@ -78,7 +89,7 @@ export default function ResidualPlotSvg({ residuals, width, height }: ResidualPl
       </G>
       <Line x1={PAD.left} x2={width - PAD.right} y1={zero} y2={zero} stroke={chartColors.axis} strokeWidth={1} />
       {first !== undefined ? (
-        <SvgText x={PAD.left} y={height - 6} fontSize={11} fontFamily={fonts.regular} fill={chartColors.axis}>
+        <SvgText x={PAD.left} y={height - 6} fontSize={fontSize} fontFamily={fonts.regular} fill={chartColors.axis}>
           {first}
         </SvgText>
       ) : null}
@@ -86,7 +97,7 @@ export default function ResidualPlotSvg({ residuals, width, height }: ResidualPl
         <SvgText
           x={width - PAD.right}
           y={height - 6}
-          fontSize={11}
+          fontSize={fontSize}
           fontFamily={fonts.regular}
           fill={chartColors.axis}
           textAnchor="end"

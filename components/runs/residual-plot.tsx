@@ -1,6 +1,8 @@
 import { lazy } from 'react';
 
 import { ChartFrame } from '@/components/chart/chart-frame';
+import { chartHeight } from '@/components/chart/chart-styles';
+import { useTextScale } from '@/hooks/use-text-scale';
 import type { Diagnostics } from '@/contracts/runs';
 
 const ResidualPlotSvg = lazy(() => import('./residual-plot-svg'));
@@ -24,9 +26,11 @@ export function residualSummary(residuals: Diagnostics['residualsByYear']): stri
 
 /** Residuals year by year (model scale) as bars above and below zero. */
 export function ResidualPlot({ residuals }: { residuals: Diagnostics['residualsByYear'] }) {
+  const textScale = useTextScale();
+  const height = chartHeight(HEIGHT, textScale);
   return (
-    <ChartFrame title="Residuals by year" summary={residualSummary(residuals)} height={HEIGHT} testID="residual-plot">
-      {(width) => <ResidualPlotSvg residuals={residuals} width={width} height={HEIGHT} />}
+    <ChartFrame title="Residuals by year" summary={residualSummary(residuals)} height={height} testID="residual-plot">
+      {(width) => <ResidualPlotSvg residuals={residuals} width={width} height={height} textScale={textScale} />}
     </ChartFrame>
   );
 }

@@ -1,6 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { Pill } from '@/components/ui/pill';
 import { COVARIANCE_LABEL, formatLevel, levelPercent, STANDING_LABEL } from '@/lib/estimate-words';
 import type { Standing } from '@/contracts/estimates';
@@ -119,7 +120,7 @@ const styles = StyleSheet.create({
   facts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg },
   fact: { gap: space.xxs, minWidth: 120, flexShrink: 1 },
   factLabel: { ...type.caption, color: colors.textMuted },
-  factValue: { ...type.bodyStrong, fontSize: 14, color: colors.text },
+  factValue: { ...type.bodyStrong, fontSize: textSize(14), color: colors.text },
   line: { ...type.body, color: colors.textMuted },
   counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   count: { ...type.body, color: colors.textMuted },

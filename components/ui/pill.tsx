@@ -1,6 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 
 import { radius, space, toneColors, type, type Tone } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 
 export type PillProps = { label: string; tone?: Tone; testID?: string; accessibilityLabel?: string };
 
@@ -23,5 +24,5 @@ const styles = StyleSheet.create({
     paddingHorizontal: space.sm,
     paddingVertical: space.xxs,
   },
-  text: { ...type.label, fontSize: 12, lineHeight: 16 },
+  text: { ...type.label, fontSize: textSize(12), lineHeight: textSize(16) },
 });

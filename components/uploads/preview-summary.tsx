@@ -3,6 +3,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import { Section } from '@/components/layout/page';
 import { DataTable, type Column } from '@/components/table/data-table';
 import { colors, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { Pill } from '@/components/ui/pill';
 import type { UploadPreview } from '@/contracts/uploads';
 
@@ -164,6 +165,6 @@ const styles = StyleSheet.create({
   figureLabel: { ...type.caption, color: colors.textMuted },
   format: { ...type.body, color: colors.textMuted },
   nameCell: { gap: space.xxs, minWidth: 0 },
-  name: { ...type.bodyStrong, fontSize: 14, color: colors.text },
+  name: { ...type.bodyStrong, fontSize: textSize(14), color: colors.text },
   code: { ...type.caption, color: colors.textMuted },
 });

@@ -8,6 +8,7 @@ import type { QueryState } from '@/components/state/query-state';
 import { Skeleton } from '@/components/state/skeleton';
 import { StatePanel } from '@/components/state/state-panel';
 import { colors, radius, space, type } from '@/components/theme';
+import { textSize } from '@/lib/text-size';
 import { Button } from '@/components/ui/button';
 import { ConfirmAction } from '@/components/ui/confirm-action';
 import { Pill } from '@/components/ui/pill';
@@ -170,7 +171,7 @@ const styles = StyleSheet.create({
   },
   fact: { gap: space.xxs },
   factLabel: { ...type.caption, color: colors.textMuted },
-  factValue: { ...type.bodyStrong, fontSize: 14, color: colors.text },
+  factValue: { ...type.bodyStrong, fontSize: textSize(14), color: colors.text },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md, alignItems: 'flex-start' },
   muted: { ...type.body, color: colors.textMuted },
 });

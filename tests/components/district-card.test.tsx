@@ -4,6 +4,9 @@
 import { onlineManager } from '@tanstack/react-query';
 import { act, fireEvent, screen, waitFor, within } from 'expo-router/testing-library';
 
+import { Dimensions } from 'react-native';
+import { chartHeight } from '@/components/chart/chart-styles';
+import { layout } from '@/components/theme';
 import { ApiError, apiGet, apiSend } from '@/lib/api-client';
 import { DEFAULT_LOCALE, setRegionLocale } from '@/lib/format';
 
@@ -122,9 +125,14 @@ describe('district card', () => {
     renderApp('/district/T02');
     await screen.findByTestId('card-headline');
     const box = screen.getByTestId('curve-chart-box');
-    expect(box.props.style).toEqual(expect.arrayContaining([expect.objectContaining({ height: 280 })]));
+    // 280 px at the default text size, a little taller with a larger one (react-native's jest
+    // set-up reports a font scale of 2); the placeholder takes the same height.
+    const height = chartHeight(layout.curveChartHeight, Dimensions.get('window').fontScale || 1);
+    expect(height).toBeGreaterThanOrEqual(280);
+    expect(box.props.style).toEqual(expect.arrayContaining([expect.objectContaining({ height })]));
     // Nothing is measured in the test renderer until a layout event arrives.
-    expect(screen.getByTestId('curve-chart-placeholder', { includeHiddenElements: true })).toBeTruthy();
+    const placeholder = screen.getByTestId('curve-chart-placeholder', { includeHiddenElements: true });
+    expect(placeholder.props.style).toEqual(expect.arrayContaining([expect.objectContaining({ height })]));
     await act(async () => {
       fireEvent(box, 'layout', { nativeEvent: { layout: { width: 358, height: 280, x: 0, y: 0 } } });
     });
