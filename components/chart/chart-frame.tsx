@@ -41,7 +41,11 @@ export function ChartFrame({ title, summary, height, testID, legend, children }:
         aria-label={summary}
         testID={`${testID}-box`}
       >
-        {mounted && width > 0 ? <Suspense fallback={placeholder}>{children(width)}</Suspense> : placeholder}
+        {/* The box is the image and carries its words; the drawing inside is hidden from
+            assistive technology (else its own svg role="img" would be an image with no name). */}
+        <View aria-hidden style={styles.drawing}>
+          {mounted && width > 0 ? <Suspense fallback={placeholder}>{children(width)}</Suspense> : placeholder}
+        </View>
       </View>
       {legend}
       <Text style={styles.summary} testID={`${testID}-summary`}>
@@ -62,6 +66,7 @@ const styles = StyleSheet.create({
     borderRadius: radius.md,
     overflow: 'hidden',
   },
+  drawing: { flex: 1 },
   placeholder: { backgroundColor: colors.surface },
   summary: { ...type.caption, color: colors.textMuted },
   summaryTerm: { fontFamily: type.label.fontFamily, color: colors.text },

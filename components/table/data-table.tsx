@@ -3,6 +3,7 @@ import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
+import { WORD_BREAK } from '@/components/ui/word-break';
 
 export type SortDirection = 'asc' | 'desc';
 export type SortState = { key: string; direction: SortDirection };
@@ -96,6 +97,7 @@ export function DataTable<T>({
               <Text style={[styles.headLabel, c.align === 'right' && styles.right]}>
                 {c.header}
                 {arrow ? <Text aria-hidden>{arrow}</Text> : null}
+                {c.subheader ? WORD_BREAK : null}
               </Text>
               {c.subheader ? (
                 <Text style={[styles.headUnit, c.align === 'right' && styles.right]}>{c.subheader}</Text>
@@ -112,7 +114,8 @@ export function DataTable<T>({
               {c.sortValue ? (
                 <Pressable
                   accessibilityRole="button"
-                  accessibilityLabel={`Sort by ${c.header}${active ? (sort!.direction === 'asc' ? ', now ascending' : ', now descending') : ''}`}
+                  // Starts with the header it shows (WCAG 2.2 SC 2.5.3 Label in Name).
+                  accessibilityLabel={`${c.header}${c.subheader ? `, ${c.subheader}` : ''}: sort by this column${active ? (sort!.direction === 'asc' ? ', now ascending' : ', now descending') : ''}`}
                   onPress={() => toggle(c.key)}
                   testID={testID ? `${testID}-sort-${c.key}` : undefined}
                   style={(state: InteractionState) => [

@@ -179,7 +179,7 @@ describe('district card rows per track', () => {
     );
     expect(screen.getByTestId('curve-chart-box').props['aria-label']).toMatch(/µg\/m³\./);
     expect(screen.getByTestId('district-brief-link').props.accessibilityLabel).toBe(
-      'Brief for Bryn Ødegård on Fine particles, PDF',
+      'Brief: Fine particles, for Bryn Ødegård, PDF',
     );
   });
 
