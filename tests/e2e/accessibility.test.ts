@@ -210,6 +210,44 @@ describe.each(['phone', 'wide'] as const)('at the %s viewport', (viewport) => {
   );
 });
 
+describe('loading states', () => {
+  it.each([
+    ['district brief', '/brief/D01', /\/api\/briefs\/district\/D01(\?|$)/, 'brief-loading'],
+    ['alerts', '/alerts', /\/api\/alerts(\?|$)/, 'alerts-screen'],
+  ] as const)(
+    '%s while its answer is held back: no serious or critical axe-core violation',
+    async (_name, path, api, shown) => {
+      // Its own context with service workers blocked: requests a worker answers never reach page.route.
+      const context = await h.browser.newContext({ viewport: VIEWPORTS.phone, serviceWorkers: 'block' });
+      const page = await context.newPage();
+      await signIn(page, h.baseUrl, DEMO.official);
+      const held: (() => Promise<void>)[] = [];
+      const hold = (route: import('playwright-core').Route) => {
+        if (!api.test(new URL(route.request().url()).pathname + new URL(route.request().url()).search)) {
+          return route.continue();
+        }
+        held.push(() => route.continue());
+      };
+      await page.route('**/api/**', hold);
+      try {
+        await page.goto(`${h.baseUrl}${path}`);
+        await page.getByTestId(shown).first().waitFor();
+        await page.waitForFunction(() => document.fonts.status === 'loaded');
+        expect(held.length).toBeGreaterThan(0);
+        const violations = await runAxe(page);
+        console.log(`[axe] phone · loading · ${violationTable(path, violations)}`);
+        expect(violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id)).toEqual(
+          [],
+        );
+      } finally {
+        await page.unroute('**/api/**', hold);
+        for (const go of held) await go().catch(() => undefined);
+        await context.close();
+      }
+    },
+  );
+});
+
 describe('focus order on the wide region page (WCAG 2.2 SC 2.4.3 Focus Order)', () => {
   it('Tab moves through the header, the sections, the list, then the overview, each top to bottom', async () => {
     const page = await openScreen(
@@ -247,6 +285,10 @@ describe('touch targets at the phone viewport', () => {
     async (_name, screen) => {
       const page = await openScreen('phone', screen);
       const found = await smallTargets(page);
+      const min = found.smallest;
+      console.log(
+        `[targets] phone · ${_name}: ${found.checked} targets, ${found.primaries} primary; smallest ${min ? `${min.width}×${min.height} ${min.what}` : '—'}`,
+      );
       expect(found.checked).toBeGreaterThan(0);
       expect(found.under24).toEqual([]);
       expect(found.primaryUnder).toEqual([]);

@@ -144,7 +144,14 @@ export interface TargetBox {
 export async function smallTargets(
   page: Page,
   primaryMin = 44,
-): Promise<{ checked: number; under24: TargetBox[]; primaryUnder: TargetBox[]; primaries: number }> {
+): Promise<{
+  checked: number;
+  under24: TargetBox[];
+  primaryUnder: TargetBox[];
+  primaries: number;
+  /** The smallest target by area, exceptions or not (for the test output). */
+  smallest: TargetBox | null;
+}> {
   return page.evaluate((primaryMin) => {
     const selector = [
       'a[href]',
@@ -208,16 +215,18 @@ export async function smallTargets(
     const under24: { what: string; width: number; height: number; primary: boolean }[] = [];
     const primaryUnder: { what: string; width: number; height: number; primary: boolean }[] = [];
     let primaries = 0;
+    let smallest: { what: string; width: number; height: number; primary: boolean } | null = null;
     boxes.forEach(({ el, r }, i) => {
       const primary = el.getAttribute('data-action') === 'primary';
       const box = { what: describe(el), width: Math.round(r.width), height: Math.round(r.height), primary };
+      if (!smallest || r.width * r.height < smallest.width * smallest.height) smallest = box;
       if (small(r) && !inSentence(el) && !spaced(i)) under24.push(box);
       if (primary) {
         primaries++;
         if (r.width < primaryMin - 0.01 || r.height < primaryMin - 0.01) primaryUnder.push(box);
       }
     });
-    return { checked: boxes.length, under24, primaryUnder, primaries };
+    return { checked: boxes.length, under24, primaryUnder, primaries, smallest };
   }, primaryMin);
 }
 
