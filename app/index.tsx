@@ -7,6 +7,7 @@ import { RegionMap } from '@/components/region/region-map';
 import { RegionOverview } from '@/components/region/region-overview';
 import { RegionStrip } from '@/components/region/region-strip';
 import { TrackSwitcher } from '@/components/region/track-switcher';
+import { RefreshButton } from '@/components/ui/refresh-button';
 import { useLayoutMode } from '@/hooks/use-layout-mode';
 import { REGION_PATH, usePublishedRunQuery, useRegionDistrictsQuery, useRegionQuery } from '@/hooks/use-region';
 import { useTrackChoice } from '@/hooks/use-tracks';
@@ -35,9 +36,17 @@ export default function RegionScreen() {
       onChoose={choice.choose}
     />
   );
+  const refresh = (
+    <RefreshButton
+      queries={mode === 'wide' ? [districts, region, run] : [districts, run]}
+      what="the districts"
+      testID="region-refresh"
+    />
+  );
   const header = (
     <>
       <RegionStrip run={run} track={track} />
+      {refresh}
       {switcher}
       <MapListChoice value={view} onChange={setView} />
     </>
@@ -53,6 +62,7 @@ export default function RegionScreen() {
           region={region}
           districts={districts}
           map={<RegionMap districts={districts} track={shownTrack} />}
+          refresh={refresh}
         />
       ) : view === 'map' ? (
         <MapPhoneView header={header} districts={districts} track={shownTrack} />

@@ -72,6 +72,12 @@ export function formatDayTime(moment: Moment): string {
   return isValid(d) ? dtf({ day: 'numeric', month: 'short', ...TIME }).format(d) : '';
 }
 
+/** "06:00": the time of a moment of today, in the viewer's zone. */
+export function formatClock(moment: Moment): string {
+  const d = toDate(moment);
+  return isValid(d) ? dtf(TIME).format(d) : '';
+}
+
 /**
  * "in 3 days", "in 5 hours", "2 minutes ago": how far a moment is from now, in the largest
  * whole unit up to days (a quarter away reads "in 91 days", which is what a schedule wants).

@@ -2,6 +2,7 @@ import { useLocalSearchParams } from 'expo-router';
 import Head from 'expo-router/head';
 
 import { DistrictCardView } from '@/components/district/district-card-view';
+import { RefreshButton } from '@/components/ui/refresh-button';
 import { useDistrictAlertsQuery } from '@/hooks/use-alerts';
 import { useDistrictQuery } from '@/hooks/use-districts';
 import {
@@ -52,6 +53,9 @@ export default function DistrictScreen() {
         }}
         showBackLink={mode === 'phone'}
         onChooseTrack={choice.choose}
+        refresh={
+          <RefreshButton queries={[estimate, detail, history, alerts]} what="this district" testID="card-refresh" />
+        }
       />
     </>
   );

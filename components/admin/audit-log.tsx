@@ -10,6 +10,7 @@ import { colors, radius, space, type } from '@/components/theme';
 import { textSize } from '@/lib/text-size';
 import { Button } from '@/components/ui/button';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
+import { WORD_BREAK } from '@/components/ui/word-break';
 import { formatDateTime } from '@/lib/format-time';
 import type { AuditEntry, AuditFilter } from '@/contracts/people';
 
@@ -207,26 +208,31 @@ function summaryOfChange(before: unknown, after: unknown): string[] {
 function AuditRow({ entry }: { entry: AuditEntry }) {
   const [open, setOpen] = useState(false);
   const changes = summaryOfChange(entry.before, entry.after);
+  const action = ACTION_WORDS[entry.action] ?? entry.action;
+  const meta = `${formatDateTime(entry.at)} · ${entry.actorEmail ?? 'system'} · ${entry.targetType}${entry.targetId ? ` #${entry.targetId}` : ''}`;
+  const toggle = changes.length ? (open ? 'Hide' : 'Details') : null;
   return (
     <View style={styles.entry} testID={`audit-${entry.id}`}>
       <Pressable
         accessibilityRole="button"
         aria-expanded={open}
-        accessibilityLabel={`${ACTION_WORDS[entry.action] ?? entry.action} by ${entry.actorEmail ?? 'the system'}, ${formatDateTime(entry.at)}. ${open ? 'Hide' : 'Show'} the details.`}
+        // Starts with the words the row shows, in order (WCAG 2.2 SC 2.5.3 Label in Name).
+        accessibilityLabel={`${action}, ${meta}${toggle ? `, ${toggle}: ${open ? 'hide' : 'show'} the changes` : ''}`}
         onPress={() => setOpen((o) => !o)}
         disabled={changes.length === 0}
         style={(s: InteractionState) => [styles.entryHead, s.hovered && styles.hover, focusOutline(s, 'inside')]}
       >
         <View style={styles.entryWords}>
           <Text style={styles.action}>
-            {ACTION_WORDS[entry.action] ?? entry.action} <Text style={styles.code}>({entry.action})</Text>
+            {action} <Text style={styles.code}>({entry.action})</Text>
+            {WORD_BREAK}
           </Text>
           <Text style={styles.meta}>
-            {formatDateTime(entry.at)} · {entry.actorEmail ?? 'system'} · {entry.targetType}
-            {entry.targetId ? ` #${entry.targetId}` : ''}
+            {meta}
+            {WORD_BREAK}
           </Text>
         </View>
-        {changes.length ? <Text style={styles.toggle}>{open ? 'Hide' : 'Details'}</Text> : null}
+        {toggle ? <Text style={styles.toggle}>{toggle}</Text> : null}
       </Pressable>
       {open ? (
         <View style={styles.details}>

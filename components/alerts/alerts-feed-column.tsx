@@ -32,7 +32,7 @@ export function AlertsFeedColumn({ feed, onRead }: AlertsFeedColumnProps) {
         ) : null}
       </View>
       {feed.status === 'pending' ? (
-        <View style={styles.pad} accessible accessibilityLabel="Loading your alerts">
+        <View role="progressbar" style={styles.pad} accessible accessibilityLabel="Loading your alerts">
           {[0, 1, 2, 3].map((i) => (
             <View key={i} style={styles.item}>
               <Skeleton width={150} height={16} />

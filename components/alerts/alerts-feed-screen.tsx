@@ -64,7 +64,7 @@ export function AlertsFeedScreen({ feed, onRead, onReadAll }: AlertsFeedScreenPr
         ) : null}
       </View>
       {feed.status === 'pending' ? (
-        <View style={styles.list} accessible accessibilityLabel="Loading your alerts">
+        <View role="progressbar" style={styles.list} accessible accessibilityLabel="Loading your alerts">
           {[0, 1, 2].map((i) => (
             <Skeleton key={i} width="100%" height={72} />
           ))}

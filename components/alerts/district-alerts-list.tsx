@@ -12,7 +12,7 @@ import type { DistrictAlertsResponse } from '@/contracts/alerts';
 export function DistrictAlertsList({ alerts }: { alerts: QueryState<DistrictAlertsResponse> }) {
   if (alerts.status === 'pending') {
     return (
-      <View style={styles.list} accessible accessibilityLabel="Loading the alerts">
+      <View role="progressbar" style={styles.list} accessible accessibilityLabel="Loading the alerts">
         {[0, 1].map((i) => (
           <View key={i} style={styles.item}>
             <Skeleton width={140} height={16} />

@@ -35,7 +35,7 @@ export function BoundaryVersions({ versions, onRevert }: BoundaryVersionsProps) 
 
   if (versions.status === 'pending') {
     return (
-      <View style={styles.skeleton} accessible accessibilityLabel="Loading the boundary versions">
+      <View role="progressbar" style={styles.skeleton} accessible accessibilityLabel="Loading the boundary versions">
         {[0, 1].map((i) => (
           <Skeleton key={i} width="100%" height={44} />
         ))}

@@ -16,7 +16,7 @@ export function BriefFrame({ pdfPath, what, back, children }: BriefFrameProps) {
           <ExternalLink
             path={pdfPath}
             label="Open the PDF"
-            accessibilityLabel={`${what} as PDF`}
+            accessibilityLabel={`Open the PDF: the ${what}`}
             testID="brief-pdf-link"
           />
         </View>

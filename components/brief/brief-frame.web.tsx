@@ -63,7 +63,7 @@ export function BriefFrame({ pdfPath, what, paperSize, back, children }: BriefFr
                 <ExternalLink
                   path={pdfPath}
                   label="Open the PDF"
-                  accessibilityLabel={`${what} as PDF`}
+                  accessibilityLabel={`Open the PDF: the ${what}`}
                   testID="brief-pdf-link"
                 />
               </View>

@@ -23,7 +23,7 @@ export type BriefScreenProps<T extends { pdfPath: string; paperSize: BriefPaperS
 
 function BriefSkeleton() {
   return (
-    <View style={styles.skeleton} aria-label="Loading the brief" testID="brief-loading">
+    <View role="progressbar" style={styles.skeleton} aria-label="Loading the brief" testID="brief-loading">
       <Skeleton width="40%" height={14} />
       <Skeleton width="70%" height={28} />
       <Skeleton width="100%" height={44} />

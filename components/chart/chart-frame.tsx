@@ -49,7 +49,11 @@ export function ChartFrame({ title, summary, height, axisTitles, testID, legend,
         aria-label={summary}
         testID={`${testID}-box`}
       >
-        {mounted && width > 0 ? <Suspense fallback={placeholder}>{children(width)}</Suspense> : placeholder}
+        {/* The box is the image and carries its words; the drawing inside is hidden from
+            assistive technology (else its own svg role="img" would be an image with no name). */}
+        <View aria-hidden style={styles.drawing}>
+          {mounted && width > 0 ? <Suspense fallback={placeholder}>{children(width)}</Suspense> : placeholder}
+        </View>
       </View>
       {axisTitles ? (
         <Text style={[styles.axisTitle, styles.xTitle]} testID={`${testID}-x-title`}>
@@ -76,6 +80,7 @@ const styles = StyleSheet.create({
     borderRadius: radius.md,
     overflow: 'hidden',
   },
+  drawing: { flex: 1 },
   placeholder: { backgroundColor: colors.surface },
   axisTitle: { ...type.label, color: chartColors.axis },
   xTitle: { textAlign: 'right' },

@@ -6,7 +6,13 @@ import { colors, layout, radius, space } from '@/components/theme';
 /** The card's placeholders at the loaded card's sizes: header, headline, figures, both charts. */
 export function DistrictCardSkeleton() {
   return (
-    <View style={styles.wrap} testID="district-detail-loading" accessible accessibilityLabel="Loading the district">
+    <View
+      role="progressbar"
+      style={styles.wrap}
+      testID="district-detail-loading"
+      accessible
+      accessibilityLabel="Loading the district"
+    >
       <View style={styles.header}>
         <Skeleton width={220} height={34} />
         <Skeleton width={260} height={22} />

@@ -42,6 +42,8 @@ export type DistrictCardViewProps = {
   showBackLink: boolean;
   /** Show another track's full card (puts it in the URL and remembers it on the device). */
   onChooseTrack?: (code: string) => void;
+  /** The Refresh control, at the top of the card. */
+  refresh?: ReactNode;
 };
 
 /**
@@ -59,6 +61,7 @@ export function DistrictCardView(props: DistrictCardViewProps) {
             leading="← "
           />
         ) : null}
+        {props.refresh}
         <CardBody {...props} />
       </View>
     </ScrollView>
@@ -139,14 +142,14 @@ function LoadedCard({
       <ExternalLink
         path={briefPdfPath.district(code, track.code)}
         label={`Brief: ${track.name} (PDF)`}
-        accessibilityLabel={`Brief for ${data.district.name} on ${track.name}, PDF`}
+        accessibilityLabel={`Brief: ${track.name}, for ${data.district.name}, PDF`}
         testID="district-brief-link"
       />
       {data.tracks.length > 1 ? (
         <ExternalLink
           path={briefPdfPath.summary(code)}
           label="All indicators (PDF)"
-          accessibilityLabel={`Summary brief for ${data.district.name}, every watched indicator, PDF`}
+          accessibilityLabel={`All indicators: summary brief for ${data.district.name}, PDF`}
           testID="district-summary-brief-link"
         />
       ) : null}

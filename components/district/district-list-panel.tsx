@@ -113,6 +113,7 @@ export function DistrictListPanel({
       {districts.status === 'pending' ? (
         <View
           testID="district-list-loading"
+          role="progressbar"
           accessible
           accessibilityLabel="Loading the district list"
           style={styles.list}

@@ -6,6 +6,8 @@ import { StandingBadge } from '@/components/region/standing-mark';
 import { colors, layout, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
 import { LinkTarget } from '@/components/ui/link-target';
+import { ScreenReaderText } from '@/components/ui/screen-reader-text';
+import { WORD_BREAK } from '@/components/ui/word-break';
 import type { RegionRow } from '@/lib/region-list';
 import { standingOf } from '@/lib/region-list';
 
@@ -39,7 +41,7 @@ export const DistrictRow = memo(function DistrictRow({
   const gap = gapColumn(e);
   const crossing = crossingShort(e);
   const unbounded = e?.intervalBounded === false && e.threshold !== null;
-  const label = `${district.name}, code ${district.code}. ${standingSentence(e, level)} Data ${coverageText(district)}.`;
+  const shownCoverage = district.lastYear === null ? 'No data yet' : `Data to ${district.lastYear}`;
   return (
     <Link
       href={{ pathname: '/district/[code]', params: track ? { code: district.code, track } : { code: district.code } }}
@@ -48,7 +50,6 @@ export const DistrictRow = memo(function DistrictRow({
       <LinkTarget
         testID={`district-row-${district.code}`}
         accessibilityRole="link"
-        accessibilityLabel={label}
         accessibilityState={{ selected }}
         stateStyle={(state: InteractionState) => [
           styles.row,
@@ -60,25 +61,43 @@ export const DistrictRow = memo(function DistrictRow({
       >
         <View style={styles.main}>
           <View style={styles.titleLine}>
-            <Text style={styles.name}>{district.name}</Text>
-            <Text style={styles.code}>{district.code}</Text>
+            <Text style={styles.name}>
+              {district.name}
+              {WORD_BREAK}
+            </Text>
+            <Text style={styles.code}>
+              {district.code}
+              {WORD_BREAK}
+            </Text>
           </View>
           <View style={styles.standingLine}>
             <StandingBadge standing={standingOf(district)} compact />
-            {e?.status === 'substitute' ? <Text style={styles.tag}>regional</Text> : null}
-            {unbounded ? <Text style={styles.tag}>unbounded</Text> : null}
+            {e?.status === 'substitute' ? (
+              <Text style={styles.tag} numberOfLines={1}>
+                regional{WORD_BREAK}
+              </Text>
+            ) : null}
+            {unbounded ? (
+              <Text style={styles.tag} numberOfLines={1}>
+                unbounded{WORD_BREAK}
+              </Text>
+            ) : null}
           </View>
           <Text style={styles.coverage}>
-            {district.lastYear === null ? 'No data yet' : `Data to ${district.lastYear}`}
+            {shownCoverage}
+            {WORD_BREAK}
           </Text>
         </View>
         <View style={styles.values}>
           <Text style={styles.number} testID={`district-gap-${district.code}`}>
             {gap ?? '—'}
+            {WORD_BREAK}
           </Text>
-          <Text style={styles.unit}>gap</Text>
+          <Text style={styles.unit}>gap{WORD_BREAK}</Text>
           <Text style={styles.crossing}>{crossing ?? 'no crossing'}</Text>
         </View>
+        {/* The link's name is its words as shown (WCAG 2.2 SC 2.5.3 Label in Name), then the same in a sentence. */}
+        <ScreenReaderText>{`. ${standingSentence(e, level)} Data ${coverageText(district)}.`}</ScreenReaderText>
       </LinkTarget>
     </Link>
   );

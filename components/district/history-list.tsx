@@ -20,7 +20,7 @@ export function HistoryList({
 }) {
   if (history.status === 'pending') {
     return (
-      <View style={styles.list} accessible accessibilityLabel="Loading the history">
+      <View role="progressbar" style={styles.list} accessible accessibilityLabel="Loading the history">
         {[0, 1, 2].map((i) => (
           <View key={i} style={styles.item}>
             <Skeleton width={160} height={16} />

@@ -5,6 +5,7 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { StandingMark } from '@/components/region/standing-mark';
 import { colors, layout, radius, space, standingColors, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
+import { WORD_BREAK } from '@/components/ui/word-break';
 import type { TrackStanding } from '@/contracts/estimates';
 import { gapShort, gapWords, STANDING_LABEL } from '@/lib/estimate-words';
 
@@ -21,12 +22,18 @@ function statusWords(row: TrackStanding): string {
   return STANDING_LABEL[row.standing];
 }
 
+function shownGap(row: TrackStanding): string {
+  return row.gapPercent !== null && row.standing !== null ? `gap ${gapShort(row.gapPercent)}` : '';
+}
+
+/** Starts with the words the row shows, in order (WCAG 2.2 SC 2.5.3 Label in Name), then the gap in words. */
 function rowLabel(row: TrackStanding, chosen: boolean): string {
   const gap =
     row.gapPercent !== null && row.standing !== null && row.standing !== 'not_estimable'
-      ? `, income ${gapWords(row.gapPercent)} the threshold`
+      ? `: income ${gapWords(row.gapPercent)} the threshold`
       : '';
-  return `${row.name} (${row.indicator.unit}): ${statusWords(row)}${gap}${chosen ? ', shown below' : ''}`;
+  const shown = [row.name, row.indicator.unit, statusWords(row), shownGap(row)].filter(Boolean).join(', ');
+  return `${shown}${gap}${chosen ? ', shown below' : ''}`;
 }
 
 /** "Every watched indicator here": a row per track, the headline first (the server's order). */
@@ -56,20 +63,31 @@ export function TrackRows({ rows, chosen, onChoose }: TrackRowsProps) {
             ]}
           >
             <View style={styles.mark}>
-              {row.standing ? <StandingMark standing={row.standing} size={12} /> : <Text style={styles.none}>–</Text>}
+              {row.standing ? (
+                <StandingMark standing={row.standing} size={12} decorative />
+              ) : (
+                <Text style={styles.none}>–</Text>
+              )}
             </View>
             <View style={styles.name}>
-              <Text style={styles.trackName}>{row.name}</Text>
-              <Text style={styles.unit}>{row.indicator.unit}</Text>
+              <Text style={styles.trackName}>
+                {row.name}
+                {WORD_BREAK}
+              </Text>
+              <Text style={styles.unit}>
+                {row.indicator.unit}
+                {WORD_BREAK}
+              </Text>
             </View>
             <Text
               style={[styles.standing, row.standing ? { color: standingColors[row.standing] } : styles.muted]}
               testID={`track-row-${row.code}-standing`}
             >
               {statusWords(row)}
+              {WORD_BREAK}
             </Text>
             <Text style={styles.gap} testID={`track-row-${row.code}-gap`}>
-              {row.gapPercent !== null && row.standing !== null ? `gap ${gapShort(row.gapPercent)}` : ''}
+              {shownGap(row)}
             </Text>
           </Pressable>
         );

@@ -1,6 +1,8 @@
-import { useState } from 'react';
+import { useRef, useState } from 'react';
+import type { View } from 'react-native';
 
 import type { QueryState } from '@/components/state/query-state';
+import { useEscapeKey } from '@/hooks/use-escape-key';
 import type { LayoutMode } from '@/hooks/use-layout-mode';
 import type { MeResponse } from '@/contracts/districts';
 
@@ -23,7 +25,8 @@ export type HeaderAreaProps = {
 /**
  * Everything above the route: the bar with the mark, the signed-in person and their role;
  * then, wide, the sections as a row of tabs; on a phone, a Menu button that opens them as
- * a panel under the bar (closed again by choosing one, or by any change of route).
+ * a panel under the bar (closed again by choosing one, by any change of route, or by Escape,
+ * which gives the focus back to the Menu button).
  */
 export function HeaderArea({ mode, pathname, me, demo, unreadAlerts, onSignOut, signingOut }: HeaderAreaProps) {
   const [menuOpen, setMenuOpen] = useState(false);
@@ -33,6 +36,11 @@ export function HeaderArea({ mode, pathname, me, demo, unreadAlerts, onSignOut, 
     setMenuAt({ pathname, mode });
     setMenuOpen(false);
   }
+  const menuButton = useRef<View>(null);
+  useEscapeKey(menuOpen, () => {
+    setMenuOpen(false);
+    (menuButton.current as unknown as { focus?: () => void } | null)?.focus?.();
+  });
   const items = me.data ? navItemsFor(me.data.role, { demo }) : [];
   const activeKey = activeNavKey(items, pathname);
   const counts = { alerts: unreadAlerts };
@@ -44,7 +52,7 @@ export function HeaderArea({ mode, pathname, me, demo, unreadAlerts, onSignOut, 
         account={<AccountStatus me={me} compact={phone} onSignOut={onSignOut} signingOut={signingOut} />}
         menu={
           phone && items.length ? (
-            <MenuButton open={menuOpen} onPress={() => setMenuOpen((o) => !o)} unread={unreadAlerts} />
+            <MenuButton ref={menuButton} open={menuOpen} onPress={() => setMenuOpen((o) => !o)} unread={unreadAlerts} />
           ) : null
         }
       />

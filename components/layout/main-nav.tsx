@@ -1,4 +1,5 @@
 import { Link } from 'expo-router';
+import { forwardRef } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 
 import { colors, layout, radius, space, type } from '@/components/theme';
@@ -62,10 +63,13 @@ function CountBadge({ text }: { text: string }) {
 export type MenuButtonProps = { open: boolean; onPress: () => void; unread?: number };
 
 /** Phone: the button at the right of the header that opens and closes the section menu. */
-export function MenuButton({ open, onPress, unread }: MenuButtonProps) {
+export const MenuButton = forwardRef<View, MenuButtonProps>(function MenuButton({ open, onPress, unread }, ref) {
   const count = countText(unread);
   return (
     <Pressable
+      ref={ref}
+      // A primary action: at least 44×44 px (layout.touchTarget; the browser tests measure it).
+      {...({ dataSet: { action: 'primary' } } as object)}
       accessibilityRole="button"
       aria-expanded={open}
       aria-controls="section-menu"
@@ -93,7 +97,7 @@ export function MenuButton({ open, onPress, unread }: MenuButtonProps) {
       {count && !open ? <CountBadge text={count} /> : null}
     </Pressable>
   );
-}
+});
 
 export type NavMenuProps = NavProps & {
   /** Who is signed in and the sign-out button, under the sections. */

@@ -11,7 +11,16 @@ import { SHAPE_LABEL, SHAPE_TECHNICAL, SHAPES_IN_ORDER, STANDING_LABEL, STANDING
 /** How Crestwatch estimates, in plain words with the formulas, the references and the cautions. */
 export function MethodView({ showBackLink, sources }: { showBackLink: boolean; sources?: ReactNode }) {
   return (
-    <ScrollView style={styles.scroll} contentContainerStyle={styles.content} testID="method-page">
+    // A page of prose with few links: the scrolling region itself takes keyboard focus, so
+    // the arrow keys scroll it (axe-core rule scrollable-region-focusable; WCAG 2.2 SC 2.1.1).
+    <ScrollView
+      style={styles.scroll}
+      contentContainerStyle={styles.content}
+      testID="method-page"
+      tabIndex={0}
+      role="region"
+      aria-label="How Crestwatch estimates"
+    >
       <View style={styles.column}>
         {showBackLink ? <TextLink href="/" label="All districts" leading="← " /> : null}
         <Text role="heading" aria-level={1} style={styles.title}>
@@ -79,7 +88,7 @@ export function MethodView({ showBackLink, sources }: { showBackLink: boolean; s
         <View style={styles.list} testID="method-standings">
           {STANDINGS.map((s) => (
             <View key={s} style={styles.standing}>
-              <StandingMark standing={s} size={14} />
+              <StandingMark standing={s} size={14} decorative />
               <Text style={styles.item}>
                 <Text style={styles.term}>{STANDING_LABEL[s]}: </Text>
                 {STANDING_MEANING[s]}

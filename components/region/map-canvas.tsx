@@ -226,7 +226,7 @@ export function MapCanvas({ scene, shown, onOpen, testID }: MapCanvasProps) {
               ]}
               testID={`map-mark-${d.code}`}
             >
-              <StandingMark standing={d.standing} size={markSize} />
+              <StandingMark standing={d.standing} size={markSize} decorative />
             </View>
           ))}
         </Pressable>

@@ -112,7 +112,7 @@ export function RegionMap({ districts, track = null, maxWidth = 720 }: RegionMap
                 label={`${STANDING_LABEL[s]} ${counts[s]}`}
                 on={filter.standings.includes(s)}
                 onPress={() => setFilter({ standings: toggle(filter.standings, s) })}
-                leading={<StandingMark standing={s} size={12} />}
+                leading={<StandingMark standing={s} size={12} decorative />}
                 accessibilityLabel={`${STANDING_LABEL[s]}: ${counts[s]} districts; show only these`}
                 testID={`map-legend-${s}`}
               />

@@ -36,13 +36,15 @@ export type RegionOverviewProps = {
   districts: QueryState<RegionRow[]>;
   /** The region map, shown beside the list (wide screens). */
   map?: ReactNode;
+  /** The Refresh control, above the map. */
+  refresh?: ReactNode;
 };
 
 /**
  * The wide home screen's right-hand side: the published run, districts per standing with
  * what each standing means, the regional pooled curve, the region brief and the cautions.
  */
-export function RegionOverview({ region, districts, map }: RegionOverviewProps) {
+export function RegionOverview({ region, districts, map, refresh }: RegionOverviewProps) {
   const run = region.data?.run ?? null;
   const track = region.data?.track ?? null;
   const incomeUnit = run?.units.driver.unit ?? 'per person';
@@ -51,6 +53,7 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
   const level = run?.model.level ?? null;
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.wrap} testID="region-overview">
+      {refresh}
       {map ? <View style={styles.card}>{map}</View> : null}
       <View style={styles.card}>
         <Text role="heading" aria-level={1} style={styles.title}>
@@ -90,7 +93,7 @@ export function RegionOverview({ region, districts, map }: RegionOverviewProps) 
           {STANDINGS.map((s) => (
             <View key={s} style={styles.countRow} role="row" testID={`region-count-${s}`}>
               <View style={styles.countHead} role="rowheader">
-                <StandingMark standing={s} size={14} />
+                <StandingMark standing={s} size={14} decorative />
                 <Text style={[styles.countLabel, { color: standingColors[s] }]}>{STANDING_LABEL[s]}</Text>
               </View>
               <Text style={styles.countValue} role="cell">

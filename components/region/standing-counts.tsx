@@ -30,7 +30,7 @@ export function StandingCounts({ counts, selected, onToggle }: StandingCountsPro
           accessibilityLabel={`${STANDING_LABEL[s]}: ${counts[s]} ${counts[s] === 1 ? 'district' : 'districts'}`}
           on={selected.includes(s)}
           onPress={() => onToggle(s)}
-          leading={<StandingMark standing={s} size={10} />}
+          leading={<StandingMark standing={s} size={10} decorative />}
         />
       ))}
     </View>

@@ -2,6 +2,7 @@ import { StyleSheet, Text, View } from 'react-native';
 
 import { standingColors, space, type } from '@/components/theme';
 import type { Standing } from '@/contracts/estimates';
+import { WORD_BREAK } from '@/components/ui/word-break';
 import { STANDING_LABEL } from '@/lib/estimate-words';
 
 /**
@@ -9,8 +10,20 @@ import { STANDING_LABEL } from '@/lib/estimate-words';
  * approaching ▲ (still climbing toward the crest), at the turn ◆ (on the crest), past the
  * turn ▼ (over it), no turn ▬ (a level bar), not estimable ○ (an empty ring). Drawn with
  * views, so the list needs no SVG.
+ *
+ * Its text alternative (WCAG 2.2 SC 1.1.1 Non-text Content) is the standing's word: the
+ * mark is an image named by it, unless `decorative` says the word is written right beside
+ * it (a badge, a chip, a row whose name already says it), where a name would repeat it.
  */
-export function StandingMark({ standing, size = 12 }: { standing: Standing; size?: number }) {
+export function StandingMark({
+  standing,
+  size = 12,
+  decorative = false,
+}: {
+  standing: Standing;
+  size?: number;
+  decorative?: boolean;
+}) {
   const color = standingColors[standing];
   const half = size / 2;
   let mark;
@@ -51,7 +64,11 @@ export function StandingMark({ standing, size = 12 }: { standing: Standing; size
       mark = <View style={{ width: size, height: size, borderRadius: half, borderWidth: 2, borderColor: color }} />;
   }
   return (
-    <View aria-hidden style={[styles.box, { width: size + 2, height: size + 2 }]} testID={`standing-mark-${standing}`}>
+    <View
+      {...(decorative ? { 'aria-hidden': true } : { role: 'img' as const, 'aria-label': STANDING_LABEL[standing] })}
+      style={[styles.box, { width: size + 2, height: size + 2 }]}
+      testID={`standing-mark-${standing}`}
+    >
       {mark}
     </View>
   );
@@ -69,9 +86,10 @@ export function StandingBadge({
 }) {
   return (
     <View style={styles.badge}>
-      <StandingMark standing={standing} size={size} />
+      <StandingMark standing={standing} size={size} decorative />
       <Text style={[compact ? styles.compactWord : styles.word, { color: standingColors[standing] }]} numberOfLines={1}>
         {STANDING_LABEL[standing]}
+        {WORD_BREAK}
       </Text>
     </View>
   );

@@ -64,7 +64,7 @@ function RunBody({
 }: RunScreenProps) {
   if (run.status === 'pending') {
     return (
-      <View style={styles.gap} accessible accessibilityLabel="Loading the run">
+      <View role="progressbar" style={styles.gap} accessible accessibilityLabel="Loading the run">
         <Skeleton width="100%" height={140} />
         <Skeleton width="100%" height={280} />
       </View>

@@ -3,6 +3,7 @@ import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
 
 import { colors, radius, space, type } from '@/components/theme';
 import { focusOutline, type InteractionState } from '@/components/ui/interaction';
+import { WORD_BREAK } from '@/components/ui/word-break';
 import { useFolded } from '@/hooks/use-folded';
 
 import { FoldedTable } from './folded-table';
@@ -95,6 +96,7 @@ function WideTable<T>({
               <Text style={[styles.headLabel, c.align === 'right' && styles.right]}>
                 {c.header}
                 {arrow ? <Text aria-hidden>{arrow}</Text> : null}
+                {c.subheader ? WORD_BREAK : null}
               </Text>
               {c.subheader ? (
                 <Text style={[styles.headUnit, c.align === 'right' && styles.right]}>{c.subheader}</Text>
@@ -111,7 +113,8 @@ function WideTable<T>({
               {c.sortValue ? (
                 <Pressable
                   accessibilityRole="button"
-                  accessibilityLabel={`Sort by ${c.header}${active ? (sort!.direction === 'asc' ? ', now ascending' : ', now descending') : ''}`}
+                  // Starts with the header it shows (WCAG 2.2 SC 2.5.3 Label in Name).
+                  accessibilityLabel={`${c.header}${c.subheader ? `, ${c.subheader}` : ''}: sort by this column${active ? (sort!.direction === 'asc' ? ', now ascending' : ', now descending') : ''}`}
                   onPress={() => toggle(c.key)}
                   testID={testID ? `${testID}-sort-${c.key}` : undefined}
                   style={(state: InteractionState) => [

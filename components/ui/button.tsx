@@ -39,6 +39,8 @@ export function Button({
       disabled={inactive}
       onPress={onPress}
       testID={testID}
+      // The main action of a panel: at least 44×44 px (layout.touchTarget; the browser tests measure it).
+      {...(solid ? ({ dataSet: { action: 'primary' } } as object) : null)}
       style={(state: InteractionState) => [
         styles.base,
         solid ? styles.solid : danger ? styles.danger : styles.outline,

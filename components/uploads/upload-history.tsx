@@ -29,7 +29,7 @@ export function UploadHistory({ uploads, onRevert }: UploadHistoryProps) {
 
   if (uploads.status === 'pending') {
     return (
-      <View style={styles.skeleton} accessible accessibilityLabel="Loading the upload history">
+      <View role="progressbar" style={styles.skeleton} accessible accessibilityLabel="Loading the upload history">
         {[0, 1, 2].map((i) => (
           <Skeleton key={i} width="100%" height={44} />
         ))}
