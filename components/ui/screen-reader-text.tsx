@@ -8,7 +8,12 @@ import { StyleSheet, Text } from 'react-native';
  * name always contains its visible label (WCAG 2.2 SC 2.5.3 Label in Name).
  */
 export function ScreenReaderText({ children }: { children: ReactNode }) {
-  return <Text style={styles.hidden}>{children}</Text>;
+  // Marked so layout checks (the 200% text test) know it is hidden on purpose.
+  return (
+    <Text style={styles.hidden} {...({ dataSet: { screenReaderOnly: 'true' } } as object)}>
+      {children}
+    </Text>
+  );
 }
 
 const styles = StyleSheet.create({

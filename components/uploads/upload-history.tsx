@@ -95,10 +95,8 @@ export function UploadHistory({ uploads, onRevert }: UploadHistoryProps) {
       flex: 2.2,
       render: (u) => (
         <View style={styles.stack}>
-          <Text style={cellText.strong} numberOfLines={2}>
-            {uploadTitle(u)}
-          </Text>
-          <Text style={cellText.muted} numberOfLines={1}>
+          <Text style={cellText.strong}>{uploadTitle(u)}</Text>
+          <Text style={cellText.muted}>
             {formatDateTime(u.committedAt ?? u.createdAt)} · {u.by?.email ?? 'system'}
           </Text>
         </View>

@@ -391,7 +391,7 @@ describe('phone details', () => {
         expect(await status.innerText()).toMatch(/^Updated \d\d:\d\d$/);
         page.off('request', onRequest);
         // The screen's own answers were asked for again.
-        if (id === 'region-refresh') expect(asked).toContain('/api/districts');
+        if (id === 'region-refresh') expect(asked).toContain('/api/region');
         else expect(asked.some((p) => /^\/api\/districts\/D01\/estimate$/.test(p))).toBe(true);
         const box = (await button.boundingBox())!;
         expect(box.width).toBeGreaterThanOrEqual(44);

@@ -113,7 +113,8 @@ async function audit(page: Page): Promise<Audit> {
     for (const el of document.body.querySelectorAll('*')) {
       if (el instanceof SVGElement) continue;
       const own = [...el.childNodes].filter((n) => n.nodeType === Node.TEXT_NODE && n.textContent!.trim() !== '');
-      if (own.length === 0 || !visible(el) || inSideScroll(el)) continue;
+      // Words for screen readers only (components/ui/screen-reader-text.tsx) are hidden on purpose.
+      if (own.length === 0 || !visible(el) || inSideScroll(el) || el.closest('[data-screen-reader-only]')) continue;
       texts++;
       const text = own.map((n) => n.textContent!.trim()).join(' ');
       const cs = getComputedStyle(el);
