@@ -39,10 +39,12 @@ export function spawnReady(
   });
 }
 
-/** Builds the database: districts, demo people, one published run (worked by a worker process). */
-export async function buildDatabase(url: string, districts: number): Promise<void> {
+/** An app context on a bench database: its own job queue (no schedule) and a compute pool of the given size. */
+export async function benchContext(
+  url: string,
+  poolSize: number,
+): Promise<AppContext & { jobs: NonNullable<AppContext['jobs']> }> {
   const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: url };
-  const db = createDb(url);
   const jobs = await startJobs({
     databaseUrl: url,
     expireInSeconds: 300,
@@ -50,15 +52,21 @@ export async function buildDatabase(url: string, districts: number): Promise<voi
     maintenanceIntervalSeconds: 30,
     schedule: false,
   });
-  // Starting a run fits nothing here (the worker process does): an inline pool of size 0 is enough.
-  const ctx: AppContext = {
-    db,
+  return {
+    db: createDb(url),
     config,
     log: () => {},
     mailer: createMailer(config),
     jobs,
-    compute: createComputePool(0),
+    compute: createComputePool(poolSize),
   };
+}
+
+/** Builds the database: districts, demo people, one published run (worked by a worker process). */
+export async function buildDatabase(url: string, districts: number): Promise<void> {
+  // Starting a run fits nothing here (the worker process does): an inline pool of size 0 is enough.
+  const ctx = await benchContext(url, 0);
+  const { db, jobs } = ctx;
   const worker = await spawnReady(
     'api/worker.ts',
     [],

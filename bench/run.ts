@@ -19,15 +19,11 @@
  * Environment: BENCH_DISTRICTS (default 3000), BENCH_LARGE (default 10000; 0 skips the
  * large run), BENCH_WORKERS (default "1,2").
  */
-import { createComputePool } from '../api/compute/pool';
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { loadConfig } from '../api/config';
 import type { AppContext } from '../api/context';
-import { createDb } from '../api/db';
 import { DEMO_INDICATORS } from '../api/demo/catalogue';
-import { startJobs } from '../api/jobs/boss';
-import { createMailer } from '../api/mail/mailer';
 import os from 'node:os';
 import { currentDataVersion, loadSeries } from '../api/runs/data-store';
 import { fitDistrict } from '../api/runs/district-fit';
@@ -41,6 +37,7 @@ import { dropDatabase, ensureDatabase } from '../scripts/database';
 import * as pg from '../scripts/pg';
 import { prepareTestTemplate } from '../scripts/test-template';
 import { insertSyntheticDistricts } from '../tests/support/synthetic';
+import { benchContext } from './bench-db';
 import { TEMPLATE_DB, TEST_CLUSTER, testDatabaseUrl } from '../tests/support/test-cluster';
 
 const DISTRICTS = Number(process.env.BENCH_DISTRICTS ?? 3000);
@@ -157,23 +154,8 @@ async function main(): Promise<void> {
   await dropDatabase(TEST_CLUSTER.port, DB);
   await ensureDatabase(TEST_CLUSTER.port, DB, TEMPLATE_DB);
   const url = testDatabaseUrl(DB);
-  const config = { ...loadConfig({ CRESTWATCH_MODE: 'test' }), databaseUrl: url };
-  const db = createDb(url);
-  const jobs = await startJobs({
-    databaseUrl: url,
-    expireInSeconds: 300,
-    pollingIntervalSeconds: 0.5,
-    maintenanceIntervalSeconds: 30,
-    schedule: false,
-  });
-  const ctx: AppContext = {
-    db,
-    config,
-    log: () => {},
-    mailer: createMailer(config),
-    jobs,
-    compute: createComputePool(config.computePoolSize),
-  };
+  const ctx = await benchContext(url, loadConfig({ CRESTWATCH_MODE: 'test' }).computePoolSize);
+  const { db, jobs } = ctx;
   try {
     await db('indicators').insert(
       DEMO_INDICATORS.map((i) => ({
