@@ -9,7 +9,7 @@ import { loadConfig } from '../api/config';
 import { createComputePool } from '../api/compute/pool';
 import type { AppContext } from '../api/context';
 import { createDb } from '../api/db';
-import { DEMO_INDICATORS } from '../api/demo/catalogue';
+import { insertDemoIndicators } from '../api/demo/seed-store';
 import { startJobs } from '../api/jobs/boss';
 import { createMailer } from '../api/mail/mailer';
 import { ensureDemoAccounts } from '../api/people/service';
@@ -74,15 +74,7 @@ export async function buildDatabase(url: string, districts: number): Promise<voi
     'is working jobs',
   );
   try {
-    await db('indicators').insert(
-      DEMO_INDICATORS.map((i) => ({
-        code: i.code,
-        name: i.name,
-        unit: i.unit,
-        description: i.description,
-        must_be_positive: i.mustBePositive,
-      })),
-    );
+    await insertDemoIndicators(db);
     await ensureDemoAccounts(db);
     await insertSyntheticDistricts(db, districts, { years: 40, seed: 42, prefix: 'B' });
     const run = await startRun(ctx, null, {});

@@ -23,7 +23,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { loadConfig } from '../api/config';
 import type { AppContext } from '../api/context';
-import { DEMO_INDICATORS } from '../api/demo/catalogue';
+import { insertDemoIndicators } from '../api/demo/seed-store';
 import os from 'node:os';
 import { currentDataVersion, loadSeries } from '../api/runs/data-store';
 import { fitDistrict } from '../api/runs/district-fit';
@@ -157,17 +157,7 @@ async function main(): Promise<void> {
   const ctx = await benchContext(url, loadConfig({ CRESTWATCH_MODE: 'test' }).computePoolSize);
   const { db, jobs } = ctx;
   try {
-    await db('indicators').insert(
-      DEMO_INDICATORS.map((i) => ({
-        code: i.code,
-        name: i.name,
-        unit: i.unit,
-        description: i.description,
-        must_be_positive: i.mustBePositive,
-        source: i.source,
-        licence: i.licence,
-      })),
-    );
+    await insertDemoIndicators(db);
     await db('users').insert({ id: 0, email: 'bench@crestwatch.example', name: 'bench', role: 'analyst' });
     const l0 = performance.now();
     await insertSyntheticDistricts(db, DISTRICTS, { years: YEARS, seed: 42, prefix: 'B' });

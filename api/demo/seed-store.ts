@@ -4,9 +4,9 @@ import { lockForTransaction } from '../db/locks';
 import { DEMO_INDICATORS } from './catalogue';
 import { DEMO_SEED, generateDemoRegion } from './generate';
 
-export async function insertDemo(trx: Knex.Transaction): Promise<{ districts: number; observations: number }> {
-  const region = generateDemoRegion();
-  await trx('indicators')
+/** The demo's indicator catalogue (names, units, source and licence), updated where it exists. */
+export async function insertDemoIndicators(db: Knex): Promise<void> {
+  await db('indicators')
     .insert(
       DEMO_INDICATORS.map((i) => ({
         code: i.code,
@@ -20,6 +20,11 @@ export async function insertDemo(trx: Knex.Transaction): Promise<{ districts: nu
     )
     .onConflict('code')
     .merge(['name', 'unit', 'description', 'must_be_positive', 'source', 'licence']);
+}
+
+export async function insertDemo(trx: Knex.Transaction): Promise<{ districts: number; observations: number }> {
+  const region = generateDemoRegion();
+  await insertDemoIndicators(trx);
   const indicatorIds = new Map<string, number>(
     (await trx('indicators').select('id', 'code')).map((r: { id: number; code: string }) => [r.code, r.id]),
   );
