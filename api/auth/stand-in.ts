@@ -3,7 +3,9 @@
  * test mode. Its /authorize redirects back at once; the identity comes from `login_hint`.
  * Codes are single-use and tied to the e-mail chosen at /authorize; the userinfo answer
  * has Google's v3 shape (sub, email, email_verified, name, and `hd`, the address's domain,
- * as for a Workspace account).
+ * as for a Workspace account). Every token carries its own `jti`: without it two tokens
+ * signed within the same second were identical, and the later sign-in's identity answered
+ * for both.
  *
  * Test mode only (`testIdentities`): the hint may carry `#`-separated suffixes that change
  * the answer, so the server's refusals can be tried end to end — `#unverified`
@@ -11,7 +13,7 @@
  * `#hd=<domain>` (another Workspace domain; `#hd=` for none). Elsewhere a `#` in the hint
  * is refused like any malformed address.
  */
-import { createHash } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { standInName } from '../common/demo-accounts';
 
 export interface StandIn {
@@ -75,6 +77,9 @@ export async function startStandIn(
       return;
     }
     identityByCode.set(code, identity);
+  });
+  server.service.on('beforeTokenSigning', (token: { payload: Record<string, unknown> }) => {
+    token.payload.jti = randomUUID();
   });
   server.service.on('beforeResponse', (response: { body: Record<string, unknown>; statusCode: number }, req: Req) => {
     const code = String(req.body?.code ?? '');

@@ -55,6 +55,14 @@ describe('sign-in through the stand-in', () => {
     expect(me.body.csrfToken).toMatch(/^[A-Za-z0-9_-]{20,}$/);
   });
 
+  it('gives two people signing in at the same moment each their own identity', async () => {
+    // The stand-in's tokens were once identical within one second (same claims, same key), so
+    // the second sign-in's userinfo answered the first person's address.
+    const [analyst, official] = await Promise.all([signInAs(server, DEMO.analyst), signInAs(server, DEMO.official)]);
+    expect((await analyst.agent.get('/api/me')).body).toMatchObject({ email: DEMO.analyst, role: 'analyst' });
+    expect((await official.agent.get('/api/me')).body).toMatchObject({ email: DEMO.official, role: 'official' });
+  });
+
   it('sends the session cookie httpOnly and SameSite=Lax, and rotates it at sign-in', async () => {
     const agent = request.agent(server);
     const start = await agent.get(`/api/auth/google?login_hint=${DEMO.analyst}`);
