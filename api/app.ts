@@ -9,6 +9,7 @@ import helmet from 'helmet';
 import type { Knex } from 'knex';
 import morgan from 'morgan';
 import { createPassport } from './auth/passport';
+import { publishedMayHaveChanged } from './estimates/published-cache';
 import { sessionExpiredErrors, sessionLimits, sessionMiddleware } from './auth/session';
 import { createComputePool, type ComputePool } from './compute/pool';
 import type { Config } from './config';
@@ -99,6 +100,17 @@ export function createApp({
   const passport = createPassport(ctx);
   app.use('/api', express.json({ limit: '2mb' }), express.urlencoded({ extended: false, limit: '64kb' }));
   app.use('/api', sessions.middleware, sessionLimits(config), passport.session());
+  // A state-changing request has committed what it changed by the time it answers: the
+  // published answers' kept version is read again (api/estimates/published-cache.ts).
+  app.use('/api', (req, res, next) => {
+    if (req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS') return next();
+    const end = res.end.bind(res) as (...args: unknown[]) => typeof res;
+    res.end = ((...args: unknown[]) => {
+      publishedMayHaveChanged(ctx.db);
+      return end(...args);
+    }) as typeof res.end;
+    next();
+  });
   const routes = routeTable(ctx, passport);
   const api = express.Router();
   mountRoutes(api, routes, { compute: { perMinute: config.computeRequestsPerMinute } });

@@ -13,7 +13,8 @@
  * again, so one target's backlog is not charged to the next.
  *
  * Environment: BENCH_API_SECONDS (default 30 per target), BENCH_API_CONNECTIONS
- * (default "100,200"), BENCH_DISTRICTS (default 3000).
+ * (default "100,200"), BENCH_DISTRICTS (default 3000), BENCH_API_TARGETS (paths to drive besides
+ * the static file, comma-separated; default all).
  */
 import type { ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
@@ -30,6 +31,7 @@ import { TEMPLATE_DB, TEST_CLUSTER, testDatabaseUrl } from '../tests/support/tes
 const SECONDS = Number(process.env.BENCH_API_SECONDS ?? 30);
 const CONNECTIONS = (process.env.BENCH_API_CONNECTIONS ?? '100,200').split(',').map(Number);
 const DISTRICTS = Number(process.env.BENCH_DISTRICTS ?? 3000);
+const ONLY = process.env.BENCH_API_TARGETS?.split(',');
 const DB = 'cw_bench_api';
 const OFFICIAL = 'official@crestwatch.example';
 const load = () => os.loadavg()[0];
@@ -157,7 +159,7 @@ async function main(): Promise<void> {
       ['GET /api/region', '/api/region'],
       ['GET /api/districts', '/api/districts'],
       ['GET /api/districts/B0001/estimate', '/api/districts/B0001/estimate'],
-    ];
+    ].filter(([, p], i) => i === 0 || !ONLY || ONLY.includes(p)) as [string, string][];
     console.log(
       `\nautocannon, ${SECONDS} s per target; the server in its own process; ratios to the static file at the same connection count`,
     );

@@ -11,6 +11,11 @@
  * An ended session forgets its person and CSRF token but remembers why it ended, so every
  * signed-in route answers 401 `session_expired` with `details.reason` until the person
  * signs in again.
+ *
+ * Reads: a session row read or written by this process is kept for at most
+ * PERSON_CACHE_MS (api/people/session-person.ts), so a burst of requests reads it once.
+ * Sign-out, sign-in and a change to the person through this process take effect at once;
+ * a sign-out through another server process within that time, as a role change does.
  */
 import connectPgSimple from 'connect-pg-simple';
 import session from 'express-session';
@@ -19,6 +24,7 @@ import { Pool } from 'pg';
 import type { Config } from '../config';
 import type { AppContext } from '../context';
 import { AppError } from '../http/errors';
+import { cachedSession, forgetSession, keepSession } from '../people/session-person';
 
 export type SessionEndReason = 'idle' | 'lifetime';
 
@@ -118,6 +124,28 @@ export function sessionExpiredErrors(limits: Limits): ErrorRequestHandler {
 
 export function sessionMiddleware({ config }: AppContext): { middleware: RequestHandler; close(): Promise<void> } {
   const PgStore = connectPgSimple(session);
+  type Done = (err?: unknown) => void;
+  class CachedPgStore extends PgStore {
+    override get(sid: string, done: (err: unknown, sess?: session.SessionData | null) => void): void {
+      const kept = cachedSession(sid);
+      if (kept !== undefined) return done(null, kept as session.SessionData);
+      super.get(sid, (err: unknown, sess?: session.SessionData | null) => {
+        if (!err && sess) keepSession(sid, sess);
+        done(err, sess);
+      });
+    }
+    override set(sid: string, sess: session.SessionData, done?: Done): void {
+      forgetSession(sid);
+      super.set(sid, sess, (err?: unknown) => {
+        if (!err) keepSession(sid, sess);
+        done?.(err);
+      });
+    }
+    override destroy(sid: string, done?: Done): void {
+      forgetSession(sid);
+      super.destroy(sid, done);
+    }
+  }
   // A small pool of its own; idle clients do not keep the process alive.
   const pool = new Pool({
     connectionString: config.databaseUrl,
@@ -125,7 +153,7 @@ export function sessionMiddleware({ config }: AppContext): { middleware: Request
     idleTimeoutMillis: 5_000,
     allowExitOnIdle: true,
   });
-  const store = new PgStore({
+  const store = new CachedPgStore({
     pool,
     tableName: 'session',
     createTableIfMissing: false,

@@ -4,6 +4,7 @@
  * reads them. Rows come back camelCased.
  */
 import type { Knex } from 'knex';
+import { Client } from 'pg';
 import { estimateListRows, type EstimateListRow } from '../db/estimate-list-rows';
 
 import type { ModelSpec } from '../estimation';
@@ -261,4 +262,40 @@ export async function publishedVersion(db: Knex): Promise<{ version: string; tra
     version: `runs ${r.runs}; tracks ${r.tracks}; headline ${r.headline ?? ''}; notes ${r.notes}; data ${r.data_version}; districts ${r.districts}`,
     tracks: Number(r.track_count),
   };
+}
+
+/** The channel the published-tables' triggers notify on (migration 20261205020000). */
+export const PUBLISHED_CHANNEL = 'crestwatch_published';
+
+/**
+ * Listens on PUBLISHED_CHANNEL over a connection of its own (outside the Knex pool, which it
+ * would otherwise hold for ever). `changed` runs on every notification; `lost` once when the
+ * connection fails or ends. The connection never keeps the process alive. Resolves with a
+ * function that stops listening.
+ */
+export async function listenForPublishedChanges(
+  db: Knex,
+  on: { changed(): void; lost(err: unknown): void },
+): Promise<() => Promise<void>> {
+  const settings = (db.client as { connectionSettings: ConstructorParameters<typeof Client>[0] }).connectionSettings;
+  const client = new Client(settings);
+  let lost = false;
+  const lose = (err: unknown) => {
+    if (lost) return;
+    lost = true;
+    on.lost(err);
+  };
+  client.on('error', lose);
+  client.on('end', () => lose(new Error('the listening connection ended')));
+  client.on('notification', () => on.changed());
+  try {
+    await client.connect();
+    await client.query(`LISTEN ${PUBLISHED_CHANNEL}`);
+  } catch (err) {
+    lost = true;
+    await client.end().catch(() => {});
+    throw err;
+  }
+  (client as unknown as { connection?: { stream?: { unref?(): void } } }).connection?.stream?.unref?.();
+  return () => client.end().catch(() => {});
 }

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { createDb } from '../../api/db';
+import { databaseIsUp, PROBE_MS } from '../../api/health/service';
 import { HealthResponseSchema } from '../../contracts/districts';
 import { parseAnswer } from '../support/contract';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
@@ -27,6 +28,26 @@ describe('GET /api/health', () => {
       expect(res.body).toEqual({ status: 'degraded', database: 'down' });
     } finally {
       await dead.destroy();
+    }
+  });
+
+  it('asks the database at most once a second, sharing one probe among callers', async () => {
+    const db = createDb(t.url, { pool: { min: 0, max: 2 }, quiet: true });
+    let queries = 0;
+    db.on('query', () => queries++);
+    try {
+      const now = 1_000_000;
+      expect(await Promise.all([databaseIsUp(db, now), databaseIsUp(db, now), databaseIsUp(db, now + 10)])).toEqual([
+        true,
+        true,
+        true,
+      ]);
+      expect(await databaseIsUp(db, now + PROBE_MS - 1)).toBe(true);
+      expect(queries).toBe(1);
+      expect(await databaseIsUp(db, now + PROBE_MS)).toBe(true);
+      expect(queries).toBe(2);
+    } finally {
+      await db.destroy();
     }
   });
 

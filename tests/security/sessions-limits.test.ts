@@ -9,6 +9,13 @@ import type { CrestwatchApp } from '../../api/app';
 import { sessionEnd } from '../../api/auth/session';
 import { loadConfig, parseTrustProxy, type Config } from '../../api/config';
 import { ensureDemoAccounts } from '../../api/people/service';
+import {
+  cachedSession,
+  forgetSession,
+  forgetSessionPerson,
+  keepSession,
+  PERSON_CACHE_MS,
+} from '../../api/people/session-person';
 import { closeServer, DEMO, listen, signInAs } from '../support/auth';
 import { testApp } from '../support/test-app';
 import { freshDatabase, type TestDatabase } from '../support/test-db';
@@ -40,12 +47,17 @@ async function sessionOf(userId: number): Promise<{ sid: string; sess: Record<st
     .select('sid', 'sess', 'expire');
 }
 
-/** Moves a session's clock back: the stored timestamps, since PostgreSQL's clock cannot be moved. */
+/**
+ * Moves a session's clock back: the stored timestamps, since PostgreSQL's clock cannot be
+ * moved. The row is changed behind the server's back, as by another process, so the
+ * server's copy is dropped too, as PERSON_CACHE_MS later.
+ */
 async function age(sid: string, field: 'createdAt' | 'lastSeenAt', byMs: number): Promise<void> {
   await t.db.raw(
     `UPDATE session SET sess = jsonb_set(sess::jsonb, ?, to_jsonb((sess->>?)::bigint - ?))::json WHERE sid = ?`,
     [`{${field}}`, field, byMs, sid],
   );
+  forgetSession(sid);
 }
 
 describe('defaults', () => {
@@ -102,6 +114,48 @@ describe('an ended session', () => {
   it('answers a stranger without a session plain unauthenticated', async () => {
     const res = await request(server).get('/api/me');
     expect(res.body.error.code).toBe('unauthenticated');
+  });
+});
+
+describe('the session kept per process', () => {
+  it('keeps a session at most PERSON_CACHE_MS, each reader getting its own copy', () => {
+    const now = 5_000_000;
+    keepSession('sid-a', { passport: { user: 41 }, lastSeenAt: 1 }, now);
+    const copy = cachedSession('sid-a', now + PERSON_CACHE_MS - 1) as { lastSeenAt: number };
+    expect(copy).toEqual({ passport: { user: 41 }, lastSeenAt: 1 });
+    copy.lastSeenAt = 2;
+    expect(cachedSession('sid-a', now + 1)).toEqual({ passport: { user: 41 }, lastSeenAt: 1 });
+    expect(cachedSession('sid-a', now + PERSON_CACHE_MS)).toBeUndefined();
+  });
+
+  it('forgets every kept session of a person whose role or standing changed here', () => {
+    const now = Date.now();
+    keepSession('sid-b', { passport: { user: 42 } }, now);
+    keepSession('sid-c', { passport: { user: 42 } }, now);
+    keepSession('sid-d', { passport: { user: 43 } }, now);
+    forgetSessionPerson(42);
+    expect(cachedSession('sid-b', now)).toBeUndefined();
+    expect(cachedSession('sid-c', now)).toBeUndefined();
+    expect(cachedSession('sid-d', now)).toEqual({ passport: { user: 43 } });
+  });
+
+  it('answers a burst from its kept copy; a sign-out here ends the session at once', async () => {
+    const s = await signInAs(server, DEMO.analyst);
+    const me = await s.agent.get('/api/me');
+    expect(me.status).toBe(200);
+    // The row goes behind the server's back (as through another process): the kept copy
+    // still answers, which shows the burst is not reading the row...
+    const [row] = await sessionOf(me.body.id);
+    await t.db('session').where({ sid: row.sid }).del();
+    for (let i = 0; i < 5; i++) expect((await s.agent.get('/api/me')).status).toBe(200);
+    // ...until it is PERSON_CACHE_MS old (forgetting it stands in for the wait).
+    forgetSession(row.sid);
+    expect((await s.agent.get('/api/me')).status).toBe(401);
+
+    const again = await signInAs(server, DEMO.analyst);
+    const csrf = (await again.agent.get('/api/me')).body.csrfToken;
+    expect((await again.agent.post('/api/auth/sign-out').set('x-csrf-token', csrf)).status).toBeLessThan(400);
+    expect((await again.agent.get('/api/me')).status).toBe(401);
   });
 });
 
