@@ -18,11 +18,10 @@
  */
 import type { ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
-import { buildDatabase, spawnReady } from './bench-db';
+import { buildDatabase, freePort, signIn, spawnReady } from './bench-db';
 import { dropDatabase, ensureDatabase } from '../scripts/database';
 import * as pg from '../scripts/pg';
 import { prepareTestTemplate } from '../scripts/test-template';
@@ -35,44 +34,6 @@ const ONLY = process.env.BENCH_API_TARGETS?.split(',');
 const DB = 'cw_bench_api';
 const OFFICIAL = 'official@crestwatch.example';
 const load = () => os.loadavg()[0];
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
-
-/** Signs the official in through the stand-in with plain HTTP; returns the cookie header. */
-async function signIn(base: string): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';');
-      const i = pair.indexOf('=');
-      jar.set(pair.slice(0, i), pair.slice(i + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
-  const start = await fetch(`${base}/api/auth/google?login_hint=${encodeURIComponent(OFFICIAL)}`, {
-    redirect: 'manual',
-  });
-  keep(start);
-  const authorize = await fetch(start.headers.get('location')!, { redirect: 'manual' });
-  const back = new URL(authorize.headers.get('location')!);
-  const cb = await fetch(`${base}${back.pathname}${back.search}`, {
-    redirect: 'manual',
-    headers: { cookie: cookie() },
-  });
-  keep(cb);
-  const me = await fetch(`${base}/api/me`, { headers: { cookie: cookie() } });
-  if (me.status !== 200) throw new Error(`sign-in failed: /api/me answered ${me.status}`);
-  return cookie();
-}
 
 interface Figure {
   rps: number;
@@ -151,7 +112,7 @@ async function main(): Promise<void> {
     };
     procs.push(await spawnReady('api/server.ts', [], env, 'is serving'));
     const base = `http://127.0.0.1:${port}`;
-    const cookie = await signIn(base);
+    const { cookie } = await signIn(base, OFFICIAL);
     const targets: [string, string][] = [
       ['static file (yardstick)', '/static.txt'],
       ['GET /api/health', '/api/health'],

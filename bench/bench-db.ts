@@ -4,6 +4,7 @@
  * and bench:answers.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
+import net from 'node:net';
 import path from 'node:path';
 import { loadConfig } from '../api/config';
 import { createComputePool } from '../api/compute/pool';
@@ -18,6 +19,48 @@ import * as runStore from '../api/runs/store';
 import { insertSyntheticDistricts } from '../tests/support/synthetic';
 
 const root = path.resolve(__dirname, '..');
+
+/** A free loopback port (the bench servers' and stand-ins'). */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+/**
+ * Signs `email` in through the stand-in with plain HTTP; returns the cookie header and the
+ * CSRF token that state-changing calls send.
+ */
+export async function signIn(base: string, email: string): Promise<{ cookie: string; csrfToken: string }> {
+  const jar = new Map<string, string>();
+  const keep = (res: Response) => {
+    for (const c of res.headers.getSetCookie()) {
+      const [pair] = c.split(';');
+      const i = pair.indexOf('=');
+      jar.set(pair.slice(0, i), pair.slice(i + 1));
+    }
+  };
+  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
+  const start = await fetch(`${base}/api/auth/google?login_hint=${encodeURIComponent(email)}`, {
+    redirect: 'manual',
+  });
+  keep(start);
+  const authorize = await fetch(start.headers.get('location')!, { redirect: 'manual' });
+  const back = new URL(authorize.headers.get('location')!);
+  const cb = await fetch(`${base}${back.pathname}${back.search}`, {
+    redirect: 'manual',
+    headers: { cookie: cookie() },
+  });
+  keep(cb);
+  const me = await fetch(`${base}/api/me`, { headers: { cookie: cookie() } });
+  if (me.status !== 200) throw new Error(`sign-in failed: /api/me answered ${me.status}`);
+  return { cookie: cookie(), csrfToken: ((await me.json()) as { csrfToken: string }).csrfToken };
+}
 
 /** Spawns a tsx script and resolves once its stdout shows `ready`. */
 export function spawnReady(

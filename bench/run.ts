@@ -16,8 +16,15 @@
  * after the last fit of its chunk. With two workers chunks run side by side and the
  * summed phases can exceed the wall time.
  *
- * Environment: BENCH_DISTRICTS (default 3000), BENCH_LARGE (default 10000; 0 skips the
- * large run), BENCH_WORKERS (default "1,2").
+ * Through the server: the region grown to 6,452 districts, the server (api/server.ts) and
+ * one worker each in a process of their own, an analyst signed in through the OAuth
+ * stand-in starts the CO2 track's run with POST /api/runs and polls GET /api/runs/:id
+ * every 50 ms; the figure is the time from sending the start to seeing "in review", then
+ * the publish through POST /api/runs/:id/publish.
+ *
+ * Environment: BENCH_DISTRICTS (default 3000), BENCH_SERVER_DISTRICTS (default 6452; 0
+ * skips the run through the server), BENCH_LARGE (default 10000; 0 skips the large run),
+ * BENCH_WORKERS (default "1,2").
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
@@ -37,12 +44,15 @@ import { dropDatabase, ensureDatabase } from '../scripts/database';
 import * as pg from '../scripts/pg';
 import { prepareTestTemplate } from '../scripts/test-template';
 import { insertSyntheticDistricts } from '../tests/support/synthetic';
-import { benchContext } from './bench-db';
+import { benchContext, freePort, signIn, spawnReady } from './bench-db';
+import { ensureDemoAccounts } from '../api/people/service';
+import fs from 'node:fs';
 import { TEMPLATE_DB, TEST_CLUSTER, testDatabaseUrl } from '../tests/support/test-cluster';
 
 const DISTRICTS = Number(process.env.BENCH_DISTRICTS ?? 3000);
 const LARGE = Number(process.env.BENCH_LARGE ?? 10000);
 const WORKERS = (process.env.BENCH_WORKERS ?? '1,2').split(',').map(Number);
+const THROUGH_SERVER = Number(process.env.BENCH_SERVER_DISTRICTS ?? 6452);
 const YEARS = 40;
 const root = path.resolve(__dirname, '..');
 const DB = 'cw_bench_run';
@@ -148,6 +158,61 @@ async function timedRun(ctx: AppContext, workers: number, track?: string): Promi
   }
 }
 
+/** One run started and published through the HTTP API, as an analyst does it (see the header). */
+async function throughServer(ctx: AppContext, track: string, districts: number): Promise<void> {
+  await ensureDemoAccounts(ctx.db);
+  const url = ctx.config.databaseUrl;
+  const webDir = fs.mkdtempSync(path.join(os.tmpdir(), 'crestwatch-bench-run-'));
+  fs.writeFileSync(path.join(webDir, 'index.html'), '<!doctype html><title>bench</title>');
+  const procs: ChildProcess[] = [];
+  try {
+    const [standInPort, port] = [await freePort(), await freePort()];
+    procs.push(await spawnReady('scripts/stand-in.ts', [String(standInPort)], process.env, 'stand-in ready'));
+    const env = {
+      ...process.env,
+      CRESTWATCH_MODE: 'test',
+      DATABASE_URL: url,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      WEB_DIR: webDir,
+      OAUTH_STAND_IN_PORT: String(standInPort),
+      LOG_REQUESTS: '0',
+    };
+    procs.push(await spawnReady('api/server.ts', [], env, 'is serving'));
+    procs.push(...(await startWorkers(1, url)));
+    const base = `http://127.0.0.1:${port}`;
+    const { cookie, csrfToken } = await signIn(base, 'analyst@crestwatch.example');
+    const post = (p: string, body: unknown) =>
+      fetch(`${base}${p}`, {
+        method: 'POST',
+        headers: { cookie, 'x-csrf-token': csrfToken, 'content-type': 'application/json' },
+        body: JSON.stringify(body),
+      });
+    const t0 = performance.now();
+    const started = await post('/api/runs', { track });
+    if (started.status !== 202) throw new Error(`POST /api/runs answered ${started.status}: ${await started.text()}`);
+    const { id } = (await started.json()) as { id: number };
+    let state = '';
+    while (state !== 'in_review') {
+      await new Promise((r) => setTimeout(r, 50));
+      state = ((await (await fetch(`${base}/api/runs/${id}`, { headers: { cookie } })).json()) as { state: string })
+        .state;
+      if (state === 'failed') throw new Error(`run ${id} failed`);
+    }
+    const inReview = performance.now() - t0;
+    const p0 = performance.now();
+    const published = await post(`/api/runs/${id}/publish`, {});
+    if (!published.ok) throw new Error(`publish answered ${published.status}: ${await published.text()}`);
+    const publishMs = performance.now() - p0;
+    console.log(
+      `through the server, ${districts} districts, CO2 track, 1 worker: POST /api/runs → in review ${(inReview / 1000).toFixed(2)} s (goal ≤ 5 s: ${inReview <= 5000 ? 'met' : 'not met'}), publish ${(publishMs / 1000).toFixed(2)} s (load ${load().toFixed(2)})`,
+    );
+  } finally {
+    for (const p of procs.reverse()) p.kill('SIGTERM');
+    fs.rmSync(webDir, { recursive: true, force: true });
+  }
+}
+
 async function main(): Promise<void> {
   pg.start(TEST_CLUSTER);
   await prepareTestTemplate();
@@ -216,11 +281,21 @@ async function main(): Promise<void> {
     console.log(
       `three tracks, one run each with ${WORKERS[0]} worker${WORKERS[0] > 1 ? 's' : ''}: ${sec(all)} in all (load ${load().toFixed(2)} at the end)`,
     );
-    if (LARGE > DISTRICTS) {
+    let loaded = DISTRICTS;
+    if (THROUGH_SERVER > DISTRICTS) {
       const l1 = performance.now();
-      await insertSyntheticDistricts(db, LARGE - DISTRICTS, { years: YEARS, seed: 43, prefix: 'C' });
+      await insertSyntheticDistricts(db, THROUGH_SERVER - loaded, { years: YEARS, seed: 43, prefix: 'C' });
       console.log(
-        `\nloaded ${LARGE - DISTRICTS} more districts (CO2 track only) in ${((performance.now() - l1) / 1000).toFixed(1)} s (load ${load().toFixed(2)})`,
+        `\nloaded ${THROUGH_SERVER - loaded} more districts (CO2 track only) in ${((performance.now() - l1) / 1000).toFixed(1)} s (load ${load().toFixed(2)})`,
+      );
+      loaded = THROUGH_SERVER;
+      await throughServer(ctx, headline.code, THROUGH_SERVER);
+    }
+    if (LARGE > loaded) {
+      const l1 = performance.now();
+      await insertSyntheticDistricts(db, LARGE - loaded, { years: YEARS, seed: 44, prefix: 'E' });
+      console.log(
+        `\nloaded ${LARGE - loaded} more districts (CO2 track only) in ${((performance.now() - l1) / 1000).toFixed(1)} s (load ${load().toFixed(2)})`,
       );
       const yard = await yardstick(ctx, headline.code);
       header(LARGE);

@@ -1,5 +1,6 @@
 /**
- * npm run bench:web — the region view and the district card with 3,000 districts loaded,
+ * npm run bench:web — the region view and the district card with 3,000 and then 6,000
+ * districts loaded (BENCH_DISTRICTS, comma-separated sizes),
  * in headless Chromium at a phone viewport with 4× CPU throttling (CDP
  * Emulation.setCPUThrottlingRate), cold cache. Prints, per page and as medians over the
  * passes: Largest Contentful Paint, the time the card's headline and its chart were drawn,
@@ -36,7 +37,8 @@ import { testApp } from '../tests/support/test-app';
 import { createDb } from '../api/db';
 import { TEMPLATE_DB, TEST_CLUSTER, testDatabaseUrl } from '../tests/support/test-cluster';
 
-const DISTRICTS = Number(process.env.BENCH_DISTRICTS ?? 3000);
+/** Region sizes measured one after the other (BENCH_DISTRICTS, comma-separated). */
+const SIZES = (process.env.BENCH_DISTRICTS ?? '3000,6000').split(',').map(Number);
 const PASSES = Number(process.env.BENCH_PASSES ?? 3);
 const CPU_SLOWDOWN = 4;
 const VIEWPORT = { width: 390, height: 844 };
@@ -218,7 +220,7 @@ const median = (v: number[]) => {
 const ms = (v: number | null) => (v === null || Number.isNaN(v) ? '—' : `${(v / 1000).toFixed(2)} s`);
 const kb = (v: number) => `${(v / 1024).toFixed(0)} KB`;
 
-async function main(): Promise<void> {
+async function measureRegion(districts: number): Promise<void> {
   if (!fs.existsSync('/usr/bin/chromium'))
     throw new Error('needs Debian’s Chromium at /usr/bin/chromium (apt-get install -y chromium)');
   buildWebIfStale();
@@ -248,7 +250,7 @@ async function main(): Promise<void> {
     await seedDemoIfEmpty(db);
     await ensureDemoAccounts(db);
     const l0 = performance.now();
-    await insertSyntheticDistricts(db, DISTRICTS - 24, { years: 31, seed: 11, prefix: 'W' });
+    await insertSyntheticDistricts(db, districts - 24, { years: 31, seed: 11, prefix: 'W' });
     const nDistricts = Number((await db('districts').count<{ count: string }[]>('* as count'))[0].count);
     // Boundaries for every district: an invented grid with wiggly shared edges (the same
     // generator as the topology tests), loaded through the boundary upload.
@@ -313,10 +315,10 @@ async function main(): Promise<void> {
           `  headline ${ms(f[0].headlineMs === null ? null : median(f.map((x) => x.headlineMs ?? NaN))).padStart(7)}` +
           `  chart ${ms(f[0].chartMs === null ? null : median(f.map((x) => x.chartMs ?? NaN))).padStart(7)}` +
           `  API ${ms(median(f.map((x) => x.apiMs ?? NaN))).padStart(7)}` +
-          `  JS ${kb(f[0].jsRaw)} raw / ${kb(f[0].jsGzip)} gzip in ${f[0].jsFiles} files`,
+          `  JS ${kb(f[0].jsRaw)} raw / ${kb(f[0].jsGzip)} gzip in ${f[0].jsFiles} files  (load ${os.loadavg()[0].toFixed(2)})`,
       );
     console.log(
-      `\n${nDistricts} districts, ${VIEWPORT.width}×${VIEWPORT.height}, ${CPU_SLOWDOWN}× CPU throttling, cold cache, medians of ${PASSES} passes`,
+      `\n${nDistricts} districts, ${VIEWPORT.width}×${VIEWPORT.height}, ${CPU_SLOWDOWN}× CPU throttling, cold cache, medians of ${PASSES} passes (load ${os.loadavg()[0].toFixed(2)}, ${os.cpus().length} cores)`,
     );
     for (let i = 0; i < PASSES; i++) {
       console.log(
@@ -369,6 +371,10 @@ async function main(): Promise<void> {
     child?.kill();
     await dropDatabase(TEST_CLUSTER.port, DB);
   }
+}
+
+async function main(): Promise<void> {
+  for (const n of SIZES) await measureRegion(n);
 }
 
 main().then(

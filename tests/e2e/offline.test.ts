@@ -14,6 +14,7 @@ import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
+import { forgetSession } from '../../api/people/session-person';
 import { DEMO } from '../support/auth';
 import { startHarness, VIEWPORTS, webDir, type Harness } from '../support/browser';
 import { testApp } from '../support/test-app';
@@ -160,8 +161,11 @@ it('forgets the kept answers when the session ends on the server (a 401)', async
     expect((await apiCaches(page))[`${API_CACHE_PREFIX}card-estimate`]).toBe(1);
 
     // The session ends on the server (as an idle or lifetime limit ends it); the next
-    // answer is a 401, which is not kept and clears what was.
+    // answer is a 401, which is not kept and clears what was. (The rows go behind the
+    // server's back; its kept copies are forgotten too, as PERSON_CACHE_MS later.)
+    const sids = (await h.t.db('session').pluck('sid')) as string[];
     await h.t.db('session').del();
+    sids.forEach(forgetSession);
     const refused = page.waitForResponse((r) => r.url().endsWith('/api/districts/D04/estimate'));
     await page.getByTestId('district-row-D04').click();
     expect((await refused).status()).toBe(401);
@@ -181,12 +185,15 @@ it('keeps the last 20 cards opened, dropping the one opened longest ago', async 
     await page.goto(`${h.baseUrl}/api/auth/google?login_hint=${encodeURIComponent(DEMO.official)}`);
     await page.waitForURL(`${h.baseUrl}/`);
     await installWorker(page);
-    // 21 cards' answers, one after the other, through the worker (as opening them does).
+    // 21 cards' answers, one after the other, through the worker (as opening them does). The
+    // expiration orders entries by the millisecond each was kept: a few ms apart, as cards
+    // opened by hand always are, so two answers never share a stamp.
     const codes = Array.from({ length: 21 }, (_, i) => `D${String(i + 1).padStart(2, '0')}`);
     await page.evaluate(async (list) => {
       for (const code of list) {
         const res = await fetch(`/api/districts/${code}/estimate`, { headers: { Accept: 'application/json' } });
         if (!res.ok) throw new Error(`${code}: ${res.status}`);
+        await new Promise((r) => setTimeout(r, 15));
       }
     }, codes);
     // CARD_LIMIT in lib/offline-copies.ts; the expiration runs just after each answer is kept.
