@@ -6,6 +6,7 @@
 import type { Server } from 'node:http';
 import { createApp } from './app';
 import { startStandIn, type StandIn } from './auth/stand-in';
+import { warmUp } from './compute/warm-up';
 import { loadConfig, type Config } from './config';
 import type { AppContext } from './context';
 import { createDb } from './db';
@@ -41,6 +42,8 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
   });
   const app = createApp({ db, config, jobs });
   const ctx: AppContext = app.locals.ctx;
+  // Its fitting threads warmed before it takes a run's chunks (api/compute/warm-up.ts).
+  await warmUp(ctx.compute);
   await jobs.work(allHandlers(ctx));
   await registerSchedules(ctx, jobs);
   const server = await new Promise<Server>((resolve, reject) => {

@@ -3,6 +3,7 @@
  * PostgreSQL-backed queue as the server, so more processes or machines can share a run.
  */
 import { createComputePool } from './compute/pool';
+import { warmUp } from './compute/warm-up';
 import os from 'node:os';
 import { loadConfig, type Config } from './config';
 import type { AppContext } from './context';
@@ -37,6 +38,8 @@ export async function startWorker(config = loadConfig()) {
     jobs,
     compute: createComputePool(workerPoolSize(config), { warm: true }),
   };
+  // Threads that have loaded the engine and fitted a little run a first run at full speed.
+  await warmUp(ctx.compute);
   await jobs.work(allHandlers(ctx));
   return {
     async close() {

@@ -13,8 +13,10 @@
  *
  * Chunks' phases are summed over chunks; a chunk's fits and its write overlap (the COPY
  * streams finished slices while later ones fit), so "writes" is what the write added
- * after the last fit of its chunk. With two workers chunks run side by side and the
- * summed phases can exceed the wall time.
+ * after the last fit of its chunk. A worker process works two chunks at once (the next
+ * one fits while the last one writes), and two workers run theirs side by side, so the
+ * summed phases exceed the wall time and "queue, rest" (the wall time less the others)
+ * reads 0: it is what the overlap hid.
  *
  * Through the server: the region grown to 6,452 districts, the server (api/server.ts) and
  * one worker each in a process of their own, an analyst signed in through the OAuth

@@ -42,6 +42,13 @@ const RETRIES: Record<QueueName, { retryLimit: number; retryDelay: number; retry
   'run-watch': { retryLimit: 1, retryDelay: 60, retryBackoff: false },
 };
 
+/**
+ * Workers per queue in one process. Two for a run's chunks: the next chunk's fits start
+ * while the previous one's rows are still being written and committed, so the fitting
+ * threads are not idle through every chunk's write, bookkeeping and job hand-over.
+ */
+const WORKERS_PER_PROCESS: Partial<Record<QueueName, number>> = { 'run-chunk': 2 };
+
 export async function startJobs(o: JobsOptions): Promise<Jobs> {
   const boss = new PgBoss({
     connectionString: o.databaseUrl,
@@ -71,15 +78,17 @@ export async function startJobs(o: JobsOptions): Promise<Jobs> {
       ),
     async work(handlers) {
       for (const [queue, handler] of Object.entries(handlers) as [QueueName, Handler][]) {
-        const id = await boss.work<Record<string, unknown>>(
-          queue,
-          { pollingIntervalSeconds: o.pollingIntervalSeconds, batchSize: 1, includeMetadata: true },
-          async (jobs) => {
-            for (const job of jobs)
-              await handler(job.data, { retryCount: job.retryCount, retryLimit: job.retryLimit, id: job.id });
-          },
-        );
-        workerIds.set(queue, [...(workerIds.get(queue) ?? []), id]);
+        for (let n = 0; n < (WORKERS_PER_PROCESS[queue] ?? 1); n++) {
+          const id = await boss.work<Record<string, unknown>>(
+            queue,
+            { pollingIntervalSeconds: o.pollingIntervalSeconds, batchSize: 1, includeMetadata: true },
+            async (jobs) => {
+              for (const job of jobs)
+                await handler(job.data, { retryCount: job.retryCount, retryLimit: job.retryLimit, id: job.id });
+            },
+          );
+          workerIds.set(queue, [...(workerIds.get(queue) ?? []), id]);
+        }
       }
     },
     notify(queue) {
