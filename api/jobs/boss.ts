@@ -79,14 +79,21 @@ export async function startJobs(o: JobsOptions): Promise<Jobs> {
     async work(handlers) {
       for (const [queue, handler] of Object.entries(handlers) as [QueueName, Handler][]) {
         for (let n = 0; n < (WORKERS_PER_PROCESS[queue] ?? 1); n++) {
+          // pg-boss waits out the rest of its polling interval after a job that ended early,
+          // even when more are queued (a run's chunks lost ~0.2 s each that way): a worker
+          // that just worked a job wakes itself, so it asks for the next one at once and
+          // waits only when the queue is empty.
+          let self: string | null = null;
           const id = await boss.work<Record<string, unknown>>(
             queue,
             { pollingIntervalSeconds: o.pollingIntervalSeconds, batchSize: 1, includeMetadata: true },
             async (jobs) => {
               for (const job of jobs)
                 await handler(job.data, { retryCount: job.retryCount, retryLimit: job.retryLimit, id: job.id });
+              if (jobs.length > 0 && self) boss.notifyWorker(self);
             },
           );
+          self = id;
           workerIds.set(queue, [...(workerIds.get(queue) ?? []), id]);
         }
       }
