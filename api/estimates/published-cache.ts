@@ -28,6 +28,15 @@ type Kept = { etag: string; body: string };
 /** One cache per database (tests run several databases in one process). */
 const caches = new WeakMap<Knex, Map<string, Kept>>();
 
+/** Answers being built, by key and version (one build however many ask at once). */
+const builds = new WeakMap<Knex, Map<string, Promise<Kept>>>();
+
+function buildingFor(db: Knex): Map<string, Promise<Kept>> {
+  let b = builds.get(db);
+  if (!b) builds.set(db, (b = new Map()));
+  return b;
+}
+
 function cacheFor(db: Knex): Map<string, Kept> {
   let c = caches.get(db);
   if (!c) caches.set(db, (c = new Map()));
@@ -139,11 +148,22 @@ export async function sendPublished(
   const cache = cacheFor(db);
   let kept = cache.get(key);
   if (!kept || kept.etag !== etag) {
-    const body = JSON.stringify(await build());
-    kept = { etag, body };
-    cache.delete(key);
-    if (cache.size >= MAX_ANSWERS) cache.delete(cache.keys().next().value as string);
-    cache.set(key, kept);
+    // Requests that arrive while the same answer is being built wait for that one build
+    // (after a publish, a hundred officials opening the region build it once, not a hundred times).
+    const pending = buildingFor(db);
+    const id = `${key}\n${etag}`;
+    let building = pending.get(id);
+    if (!building) {
+      building = (async () => {
+        const made = { etag, body: JSON.stringify(await build()) };
+        cache.delete(key);
+        if (cache.size >= MAX_ANSWERS) cache.delete(cache.keys().next().value as string);
+        cache.set(key, made);
+        return made;
+      })().finally(() => pending.delete(id));
+      pending.set(id, building);
+    }
+    kept = await building;
   }
   res.type('application/json').send(kept.body);
 }

@@ -10,6 +10,7 @@ import type { Knex } from 'knex';
 import { createDb } from '../../api/db';
 import type { CrestwatchApp } from '../../api/app';
 import { currentPublishedVersion } from '../../api/estimates/published-cache';
+import * as estimates from '../../api/estimates/service';
 import { ensureDemoAccounts } from '../../api/people/service';
 import { closeServer, DEMO, listen, signInAs, type SignedIn } from '../support/auth';
 import { testApp } from '../support/test-app';
@@ -95,4 +96,17 @@ it('reads the version on every request while the listening connection is down', 
   });
   await other('districts').insert({ code: 'W03', name: 'Watch Hollow' });
   expect(await codes()).toContain('W03');
+});
+
+it('builds an answer once however many ask for it at the same moment', async () => {
+  await t.db('districts').insert({ code: 'W04', name: 'Watch Ridge' });
+  const builds = jest.spyOn(estimates, 'listDistricts');
+  try {
+    const answers = await Promise.all(Array.from({ length: 12 }, () => official.agent.get('/api/districts')));
+    expect(answers.every((a) => a.status === 200 && a.text === answers[0].text)).toBe(true);
+    expect(answers[0].body.districts.map((d: { code: string }) => d.code)).toContain('W04');
+    expect(builds).toHaveBeenCalledTimes(1);
+  } finally {
+    builds.mockRestore();
+  }
 });
