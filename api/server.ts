@@ -5,6 +5,7 @@
  */
 import type { Server } from 'node:http';
 import { createApp } from './app';
+import { listenOn } from './http/listen';
 import { startStandIn, type StandIn } from './auth/stand-in';
 import { warmUp } from './compute/warm-up';
 import { loadConfig, type Config } from './config';
@@ -46,11 +47,7 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
   await warmUp(ctx.compute);
   await jobs.work(allHandlers(ctx));
   await registerSchedules(ctx, jobs);
-  const server = await new Promise<Server>((resolve, reject) => {
-    const s = app.listen(config.port, config.host, () => resolve(s));
-    s.once('error', reject);
-  });
-  server.keepAliveTimeout = 5_000;
+  const server = await listenOn(app, config.port, config.host);
   const url = `http://${config.host}:${config.port}`;
   let closing: Promise<void> | null = null;
   const close = () =>

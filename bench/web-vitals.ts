@@ -23,6 +23,7 @@ import { gzipSync } from 'node:zlib';
 import { chromium, type BrowserContext, type CDPSession, type Page } from 'playwright-core';
 import { TEST_STAND_IN_PORT } from '../api/config';
 import { receiveBoundaries } from '../api/boundaries/service';
+import { listenOn } from '../api/http/listen';
 import { seedDemoIfEmpty } from '../api/demo/seed';
 import { ensureDemoAccounts } from '../api/people/service';
 import { dropDatabase, ensureDatabase } from '../scripts/database';
@@ -278,9 +279,7 @@ async function measureRegion(districts: number): Promise<void> {
     const r0 = performance.now();
     await publishDefaultRun(app, url, { timeoutMs: 600_000 });
     console.log(`published in ${((performance.now() - r0) / 1000).toFixed(1)} s`);
-    server = await new Promise<Server>((resolve) => {
-      const s = app.listen(0, '127.0.0.1', () => resolve(s));
-    });
+    server = await listenOn(app, 0);
     const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
     const context = await browser.newContext({
       viewport: VIEWPORT,

@@ -15,6 +15,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { forgetSession } from '../../api/people/session-person';
+import { listenOn } from '../../api/http/listen';
 import { DEMO } from '../support/auth';
 import { startHarness, VIEWPORTS, webDir, type Harness } from '../support/browser';
 import { testApp } from '../support/test-app';
@@ -228,9 +229,7 @@ it('activates a new deploy on the next visit and says so', async () => {
   const copy = fs.mkdtempSync(path.join(os.tmpdir(), 'crestwatch-deploy-'));
   fs.cpSync(webDir, copy, { recursive: true });
   const app = testApp(h.t.db, { webDir: copy });
-  const server: Server = await new Promise((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
-  });
+  const server: Server = await listenOn(app, 0);
   const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   const { context, page } = await h.newPage(VIEWPORTS.phone);
   try {

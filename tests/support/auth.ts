@@ -8,6 +8,7 @@ import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import type { CrestwatchApp } from '../../api/app';
 import { CSRF_HEADER } from '../../api/http/routes';
+import { listenOn } from '../../api/http/listen';
 
 export interface SignedIn {
   agent: TestAgent;
@@ -19,9 +20,7 @@ export interface SignedIn {
 }
 
 export function listen(app: CrestwatchApp): Promise<Server> {
-  return new Promise((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
-  });
+  return listenOn(app, 0);
 }
 
 export async function closeServer(server: Server, app: CrestwatchApp): Promise<void> {

@@ -11,6 +11,7 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { seedDemoIfEmpty } from '../../api/demo/seed';
+import { listenOn } from '../../api/http/listen';
 import { ensureDemoAccounts } from '../../api/people/service';
 import type { Jobs } from '../../api/jobs/boss';
 import { loadConfig } from '../../api/config';
@@ -78,9 +79,7 @@ export async function startHarness(options: HarnessOptions = {}): Promise<Harnes
     app.locals.ctx.jobs = jobs;
     await workIn(app.locals.ctx, jobs);
   }
-  const server: Server = await new Promise((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
-  });
+  const server: Server = await listenOn(app, 0);
   const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   // playwright gives each launch a fresh, empty profile directory of its own.
   const browser = await chromium
