@@ -44,6 +44,25 @@ module.exports = defineConfig([
     rules: { '@typescript-eslint/no-require-imports': 'off' },
   },
   {
+    // expo-router's package index re-exports every layout it ships, and Metro keeps all of
+    // them: screens take routing from lib/router.ts, which imports only what the app uses.
+    files: ['app/**', 'components/**', 'hooks/**', 'lib/**'],
+    ignores: ['app/+html.tsx'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            {
+              name: 'expo-router',
+              message: 'import routing from @/lib/router (keeps unused layouts out of the first bundle)',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     // SQL lives in stores; migrations, scripts, tests and benchmarks may query directly, and
     // api/db.ts / api/db/ are the database layer itself (the Knex factory, advisory locks).
     files: ['**/*.{js,ts,tsx}'],

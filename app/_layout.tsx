@@ -1,5 +1,5 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { Slot, useGlobalSearchParams, usePathname, useRouter, type ErrorBoundaryProps } from 'expo-router';
+import { Slot, useGlobalSearchParams, usePathname, useRouter, type ErrorBoundaryProps } from '@/lib/router';
 import { useState } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 

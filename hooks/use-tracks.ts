@@ -3,7 +3,7 @@
 // the district card: the URL's ?track= wins over the device's memory, which wins over the
 // headline track (lib/track-choice.ts).
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useGlobalSearchParams, useRouter } from 'expo-router';
+import { useGlobalSearchParams, useRouter } from '@/lib/router';
 import { useCallback, useSyncExternalStore } from 'react';
 
 import {

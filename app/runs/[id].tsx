@@ -1,4 +1,4 @@
-import { useLocalSearchParams } from 'expo-router';
+import { useLocalSearchParams } from '@/lib/router';
 import Head from 'expo-router/head';
 
 import { GatedPage } from '@/components/layout/role-gate';

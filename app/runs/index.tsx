@@ -1,4 +1,4 @@
-import { useRouter } from 'expo-router';
+import { useRouter } from '@/lib/router';
 import Head from 'expo-router/head';
 import { useState } from 'react';
 

@@ -1,4 +1,4 @@
-import { useLocalSearchParams, useRouter } from 'expo-router';
+import { useLocalSearchParams, useRouter } from '@/lib/router';
 import Head from 'expo-router/head';
 
 import { GatedPage } from '@/components/layout/role-gate';

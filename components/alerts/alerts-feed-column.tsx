@@ -1,4 +1,4 @@
-import { Link } from 'expo-router';
+import { Link } from '@/lib/router';
 import { FlatList, StyleSheet, Text, View } from 'react-native';
 
 import { QueryErrorPanel } from '@/components/state/query-error-panel';

@@ -1,4 +1,4 @@
-import { Link } from 'expo-router';
+import { Link } from '@/lib/router';
 import { memo } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 

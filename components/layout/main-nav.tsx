@@ -1,4 +1,4 @@
-import { Link } from 'expo-router';
+import { Link } from '@/lib/router';
 import { forwardRef } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 

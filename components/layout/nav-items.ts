@@ -1,6 +1,6 @@
 // The app's sections, in the order the navigation shows them, and which roles see each.
 // Hiding a section is a courtesy: the server refuses its calls to other roles anyway.
-import type { Href } from 'expo-router';
+import type { Href } from '@/lib/router';
 
 import { can, type Capability } from '@/lib/roles';
 

@@ -3,7 +3,7 @@
 // summary, and the districts without a boundary listed underneath. The drawing mounts
 // after its size is known, behind a same-size placeholder. The list stays the keyboard
 // and screen-reader way through the districts.
-import { router } from 'expo-router';
+import { router } from '@/lib/router';
 import { useMemo, useState } from 'react';
 import { StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
 

@@ -1,4 +1,4 @@
-import { Link, type Href } from 'expo-router';
+import { Link, type Href } from '@/lib/router';
 import { StyleSheet, Text } from 'react-native';
 
 import { colors, layout, radius, space, type } from '@/components/theme';

@@ -17,8 +17,8 @@ import type { ChartScene, DistrictBriefContent, RegionBriefContent } from '@/con
 import { CAUTIONS } from '@/lib/cautions';
 import { SHAPE_LABEL, STANDING_LABEL } from '@/lib/estimate-words';
 
-jest.mock('expo-router', () => ({
-  ...jest.requireActual('expo-router'),
+jest.mock('@/lib/router', () => ({
+  ...jest.requireActual('@/lib/router'),
   Link: ({ children }: { children: unknown }) => children,
 }));
 

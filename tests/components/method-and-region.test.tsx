@@ -10,8 +10,8 @@ import type { RegionResponse } from '@/contracts/estimates';
 import { co2Track, estimateRecord, run, summaryOf } from './support/estimates';
 import { districtSummaries } from './support/fixtures';
 
-jest.mock('expo-router', () => ({
-  ...jest.requireActual('expo-router'),
+jest.mock('@/lib/router', () => ({
+  ...jest.requireActual('@/lib/router'),
   Link: ({ children }: { children: unknown }) => children,
 }));
 

@@ -15,8 +15,8 @@ import type { SeriesRow } from '@/contracts/districts';
 
 import { reviewAnswer } from './support/staff-fixtures';
 
-jest.mock('expo-router', () => ({
-  ...jest.requireActual('expo-router'),
+jest.mock('@/lib/router', () => ({
+  ...jest.requireActual('@/lib/router'),
   Link: ({ children }: { children: unknown }) => children,
 }));
 
