@@ -1,25 +1,5 @@
-import Head from 'expo-router/head';
-import { useState } from 'react';
+import { onDemandPage } from '@/components/layout/on-demand-page';
+import { staffPages } from '@/components/staff-pages/source';
 
-import { MailboxScreen } from '@/components/admin/mailbox';
-import { GatedPage } from '@/components/layout/role-gate';
-import { useMeQuery } from '@/hooks/use-auth';
-import { useMailboxQuery } from '@/hooks/use-mailbox';
-import { can } from '@/lib/roles';
-
-/** Admin, demo mode: what the local mail catcher received. */
-export default function MailboxRoute() {
-  const me = useMeQuery();
-  const [to, setTo] = useState('');
-  const messages = useMailboxQuery(to, can(me.data?.role, 'mailbox'));
-  return (
-    <>
-      <Head>
-        <title>Mailbox · Crestwatch</title>
-      </Head>
-      <GatedPage title="Mailbox (demo)" me={me} need="mailbox" what="the demo mailbox">
-        {() => <MailboxScreen to={to} onTo={setTo} messages={messages} />}
-      </GatedPage>
-    </>
-  );
-}
+/** Admin: the mail the app sent. The screen is in components/staff-pages/ (on the web, a chunk loaded on demand). */
+export default onDemandPage(staffPages, 'MailboxPage', 'Mailbox');

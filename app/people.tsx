@@ -1,49 +1,5 @@
-import Head from 'expo-router/head';
+import { onDemandPage } from '@/components/layout/on-demand-page';
+import { staffPages } from '@/components/staff-pages/source';
 
-import { GatedPage } from '@/components/layout/role-gate';
-import { PeopleScreen } from '@/components/people/people-screen';
-import { useAuthOptionsQuery, useMeQuery } from '@/hooks/use-auth';
-import {
-  useInviteMutation,
-  usePeopleQuery,
-  usePersonMutation,
-  useResendInvitationMutation,
-  useResetIdentityMutation,
-} from '@/hooks/use-people';
-import { useSettingsMutation, useSettingsQuery } from '@/hooks/use-settings';
-import { can } from '@/lib/roles';
-
-/** Admin: people, roles, invitations. */
-export default function PeopleRoute() {
-  const me = useMeQuery();
-  const options = useAuthOptionsQuery();
-  const people = usePeopleQuery(can(me.data?.role, 'people'));
-  const invite = useInviteMutation();
-  const update = usePersonMutation();
-  const resend = useResendInvitationMutation();
-  const resetIdentity = useResetIdentityMutation();
-  const settings = useSettingsQuery(can(me.data?.role, 'people'));
-  const saveSettings = useSettingsMutation();
-  return (
-    <>
-      <Head>
-        <title>People · Crestwatch</title>
-      </Head>
-      <GatedPage title="People" me={me} need="people" what="the people screen">
-        {(who) => (
-          <PeopleScreen
-            people={people}
-            selfId={who.id}
-            demo={options.data?.provider === 'stand-in'}
-            onInvite={(input) => invite.mutateAsync(input)}
-            onChange={(id, patch) => update.mutateAsync({ id, patch })}
-            onResend={(id) => resend.mutateAsync(id)}
-            onResetIdentity={(id) => resetIdentity.mutateAsync(id)}
-            invitationDays={settings.data?.settings.invitationDays ?? null}
-            onInvitationDays={(invitationDays) => saveSettings.mutateAsync({ invitationDays })}
-          />
-        )}
-      </GatedPage>
-    </>
-  );
-}
+/** Admin: people, roles, invitations. The screen is in components/staff-pages/ (on the web, a chunk loaded on demand). */
+export default onDemandPage(staffPages, 'PeoplePage', 'People');

@@ -9,20 +9,10 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import zlib from 'node:zlib';
+import { pageScripts } from '../scripts/web-build';
 
 const dist = path.resolve(__dirname, '..', 'dist');
 const PAGES = ['index.html', 'district/[code].html'];
-
-function scriptsOf(html: string): string[] {
-  const out = new Set<string>();
-  for (const m of html.matchAll(/<script\b[^>]*\bsrc="([^"]+)"/g)) out.add(m[1]);
-  for (const m of html.matchAll(/<link\b[^>]*\brel="(?:preload|modulepreload)"[^>]*>/g)) {
-    if (!/\bas="script"/.test(m[0]) && !/modulepreload/.test(m[0])) continue;
-    const href = /\bhref="([^"]+)"/.exec(m[0]);
-    if (href) out.add(href[1]);
-  }
-  return [...out].filter((s) => s.startsWith('/'));
-}
 
 function main(): void {
   if (!fs.existsSync(path.join(dist, 'index.html')))
@@ -34,7 +24,7 @@ function main(): void {
     let raw = 0;
     let gz = 0;
     console.log(`\n${page}`);
-    for (const src of scriptsOf(html)) {
+    for (const src of pageScripts(html)) {
       const body = fs.readFileSync(path.join(dist, decodeURIComponent(src.split('?')[0])));
       const z = zlib.gzipSync(body).length;
       raw += body.length;

@@ -76,3 +76,15 @@ if (require.main === module) {
     process.exit(1);
   }
 }
+
+/** The scripts a page of the build loads at once: `<script src>` and script preloads (site paths). */
+export function pageScripts(html: string): string[] {
+  const out = new Set<string>();
+  for (const m of html.matchAll(/<script\b[^>]*\bsrc="([^"]+)"/g)) out.add(m[1]);
+  for (const m of html.matchAll(/<link\b[^>]*\brel="(?:preload|modulepreload)"[^>]*>/g)) {
+    if (!/\bas="script"/.test(m[0]) && !/modulepreload/.test(m[0])) continue;
+    const href = /\bhref="([^"]+)"/.exec(m[0]);
+    if (href) out.add(href[1]);
+  }
+  return [...out].filter((s) => s.startsWith('/'));
+}

@@ -1,29 +1,5 @@
-import Head from 'expo-router/head';
+import { onDemandPage } from '@/components/layout/on-demand-page';
+import { printPages } from '@/components/print-pages/source';
 
-import { BriefScreen } from '@/components/brief/brief-screen';
-import { RegionBriefView } from '@/components/brief/region-brief-view';
-import { TextLink } from '@/components/ui/text-link';
-import { briefPdfPath, useRegionBriefQuery } from '@/hooks/use-briefs';
-import { useTrackChoice } from '@/hooks/use-tracks';
-
-/** The region brief as a print-friendly page (the same content as its PDF). */
-export default function RegionBriefScreen() {
-  // The region brief is of one track: ?track=, else the device's, else the headline track.
-  const track = useTrackChoice().request;
-  const brief = useRegionBriefQuery(track);
-  return (
-    <>
-      <Head>
-        <title>Region brief · Crestwatch</title>
-      </Head>
-      <BriefScreen
-        query={brief}
-        what="region brief"
-        pdfPath={briefPdfPath.region(track)}
-        back={<TextLink href={track ? { pathname: '/', params: { track } } : '/'} label="Region" leading="← " />}
-      >
-        {(content) => <RegionBriefView content={content} />}
-      </BriefScreen>
-    </>
-  );
-}
+/** The region's brief as a print-friendly page (the same content as its PDF). The screen is in components/print-pages/ (on the web, a chunk loaded on demand). */
+export default onDemandPage(printPages, 'RegionBriefPage', 'Region brief');

@@ -1,19 +1,5 @@
-import { useLocalSearchParams } from '@/lib/router';
-import Head from 'expo-router/head';
+import { onDemandPage } from '@/components/layout/on-demand-page';
+import { staffPages } from '@/components/staff-pages/source';
 
-import { SpecsRouteBody } from './[id]';
-
-/** The saved model specs, none open. */
-export default function SpecsIndexRoute() {
-  const { archived } = useLocalSearchParams<{ archived?: string }>();
-  const notice =
-    typeof archived === 'string' && archived ? `Archived “${archived}”. Runs keep their own copy of it.` : null;
-  return (
-    <>
-      <Head>
-        <title>Model specs · Crestwatch</title>
-      </Head>
-      <SpecsRouteBody selected={null} notice={notice} />
-    </>
-  );
-}
+/** The saved model specs, none open. The screen is in components/staff-pages/ (on the web, a chunk loaded on demand). */
+export default onDemandPage(staffPages, 'SpecsPage', 'Model specs');

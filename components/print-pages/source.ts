@@ -1,0 +1,7 @@
+// Native (and the component tests): the print views come with the app bundle; the web file
+// loads them on demand. One contract: components/layout/on-demand-page.tsx.
+import type { PageSource } from '@/components/layout/on-demand-page';
+
+import * as pages from './pages';
+
+export const printPages: PageSource<typeof pages> = { ready: pages };
