@@ -9,7 +9,7 @@ export const API_CACHE_PREFIX = 'crestwatch-api-';
 
 /** The caches of API answers, and how many answers each keeps (newest opened first). */
 export const API_CACHES = {
-  /** The region answer and the district list (one of each). */
+  /** The region answer, the district list and the tracks (one of each). */
   region: `${API_CACHE_PREFIX}region`,
   /** The district shapes the region map and the card's locator draw (phone and print detail). */
   boundaries: `${API_CACHE_PREFIX}boundaries`,

@@ -7,7 +7,7 @@
  *   maps it (api/web/static-routes.ts), so any screen opens without a network.
  * - Other font subsets (Latin Extended, Greek, Cyrillic) are kept once a page used them:
  *   a page downloads only the subsets it shows.
- * - API answers of the region and of the last CARD_LIMIT district cards: network first, so
+ * - API answers of the region (with the district list and the tracks) and of the last CARD_LIMIT district cards: network first, so
  *   a publish shows at once; read from the cache only when the network fails, marked with
  *   OFFLINE_COPY_HEADER; at most a week old. Only 200 answers are kept. A 401 on any API
  *   request deletes them all (the app also deletes them at sign-out).
@@ -155,8 +155,9 @@ function keepForOffline(pattern: RegExp, cacheName: string, maxEntries: number):
   );
 }
 
-// The region answer and the district list behind the region screens, and the map's shapes.
-keepForOffline(/^\/api\/(region|districts)$/, API_CACHES.region, 2);
+// The region answer, the district list and the watched tracks behind the region screens
+// (without the tracks the switcher would wait for them offline), and the map's shapes.
+keepForOffline(/^\/api\/(region|districts|tracks)$/, API_CACHES.region, 3);
 keepForOffline(/^\/api\/boundaries$/, API_CACHES.boundaries, 2);
 // The district cards: estimate, yearly series and history of the last CARD_LIMIT opened.
 keepForOffline(/^\/api\/districts\/[^/]+\/estimate$/, API_CACHES.cardEstimate, CARD_LIMIT);

@@ -126,6 +126,9 @@ it('reads two opened cards offline after a reload, refuses changes offline, and 
     // The region's list beside it is the offline copy too, and says so.
     const listNotice = page.getByTestId('district-list-panel').getByTestId('offline-copy-notice');
     expect(await listNotice.innerText()).toMatch(/^Offline — figures from \d{1,2} \w{3}, \d{2}:\d{2}\./);
+    // The track switcher reads its tracks from the kept copy too, instead of waiting for them.
+    await page.getByTestId('track-switcher').waitFor();
+    expect(await page.getByTestId('track-switcher-loading').count()).toBe(0);
     await h.shot(page, 'offline-card-second');
 
     await page.goto(`${h.baseUrl}/district/D01`);
